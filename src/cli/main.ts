@@ -1,0 +1,144 @@
+import { resolve } from 'node:path';
+import { Command, CommanderError, Option } from 'commander';
+import { createRepoFiles, writeFileAtomic } from '../adapters/files.js';
+import { planJsonSchema } from '../core/plan/json-schema.js';
+import { registryJsonSchema } from '../core/registry/load.js';
+import { settingsJsonSchema } from '../core/config/load.js';
+import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
+import { renderValidationText, validationJson } from '../core/report/validation.js';
+import { formatProblem, type Problem } from '../core/source/problem.js';
+import { isCalendarDate } from '../core/source/fields.js';
+import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
+import { loadWorkspace } from '../run/load-workspace.js';
+import { scaffoldPlan } from '../run/scaffold.js';
+import { validateRepository } from '../run/validate.js';
+import { createCliOutput, type CliOutput } from './output.js';
+import { VERSION } from '../version.js';
+
+/** Exit codes, documented in --help and the README. */
+export const EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 } as const;
+
+interface CommonOptions {
+  cwd: string;
+  config?: string;
+  format: 'text' | 'json';
+  color: boolean;
+}
+
+const formatOption = () => new Option('--format <format>', 'output format').choices(['text', 'json']).default('text');
+
+function context(options: CommonOptions) {
+  const output = createCliOutput({ noColorFlag: !options.color });
+  const files = createRepoFiles(resolve(options.cwd));
+  return { output, files, settingsPath: options.config, onProgress: output.progress };
+}
+
+function reportSettingsProblems(output: CliOutput, format: string, file: string, problems: Problem[]): number {
+  if (format === 'json') output.out(JSON.stringify({ format: 'plumbline.settings-errors/1', settingsFile: file, problems }, null, 2));
+  else output.err([`The settings file ${file} has errors:`, ...problems.map(formatProblem)].join('\n'));
+  return EXIT.usage;
+}
+
+export function buildProgram(setExit: (code: number) => void): Command {
+  const program = new Command('plumbline')
+    .description('Experiment hygiene for code review: validate plans, list the registry, size and check changes.')
+    .version(VERSION)
+    .option('-C, --cwd <dir>', 'repository root', '.')
+    .option('-c, --config <file>', 'settings file, relative to the repository (default: .plumbline.yml if present)')
+    .option('--no-color', 'never colour the output (NO_COLOR is respected too)')
+    .showHelpAfterError()
+    .exitOverride()
+    .addHelpText('after', '\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).');
+
+  program
+    .command('validate')
+    .description('check every plan file, registry file and the settings file')
+    .addOption(formatOption())
+    .action(async (local: { format: 'text' | 'json' }) => {
+      const options = { ...program.opts<CommonOptions>(), ...local };
+      const { output, ...ports } = context(options);
+      const outcome = await validateRepository(ports);
+      if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
+      const { report } = outcome;
+      output.out(options.format === 'json' ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output.color }));
+      setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
+    });
+
+  program
+    .command('list')
+    .description('show the registry of tests: state, surface, window, owners')
+    .addOption(formatOption())
+    .addOption(new Option('--state <state>', 'only tests in this state').choices(['draft', 'live', 'on-hold', 'concluded']))
+    .action(async (local: { format: 'text' | 'json'; state?: string }) => {
+      const options = { ...program.opts<CommonOptions>(), ...local };
+      const { output, ...ports } = context(options);
+      const loaded = await loadWorkspace(ports);
+      if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
+      const { workspace } = loaded;
+      const registry = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
+      const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === 'error').map((p) => p.file)).size;
+      output.out(options.format === 'json' ? JSON.stringify(registryJson(registry), null, 2) : renderRegistryText(registry, { color: output.color, skippedFiles }));
+      setExit(EXIT.ok);
+    });
+
+  program
+    .command('new')
+    .description('write a new commented draft plan for a feature flag')
+    .argument('<flag-key>', 'the feature-flag key the test reads')
+    .option('--id <id>', 'plan id (default: from the flag key)')
+    .option('--owner <handle>', 'owner, e.g. @ana-lima')
+    .option('--surface <path>', 'surface path, e.g. checkout/payment')
+    .option('--out <file>', 'where to write it (default: <plans folder>/<id>.yaml)')
+    .option('--today <date>', 'today as YYYY-MM-DD (default: the system date, UTC)')
+    .option('--force', 'replace an existing file', false)
+    .option('--stdout', 'print the plan instead of writing it', false)
+    .action(async (flagKey: string, local: { id?: string; owner?: string; surface?: string; out?: string; today?: string; force: boolean; stdout: boolean }) => {
+      const options = program.opts<CommonOptions>();
+      const { output, ...ports } = context({ ...options, format: 'text' });
+      const today = local.today ?? new Date().toISOString().slice(0, 10);
+      if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
+      const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });
+      if (local.stdout) return output.out(result.text);
+      await writeFileAtomic(resolve(options.cwd, result.path), result.text, { overwrite: local.force });
+      output.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
+    });
+
+  program
+    .command('schema')
+    .description('print the JSON Schema of a file format, for editors and other tools')
+    .addArgument(new Command().createArgument('[format]', 'plan, registry or settings').choices(['plan', 'registry', 'settings']).default('plan'))
+    .action((which: 'plan' | 'registry' | 'settings') => {
+      const schema = which === 'plan' ? planJsonSchema() : which === 'registry' ? registryJsonSchema() : settingsJsonSchema();
+      process.stdout.write(`${JSON.stringify(schema, null, 2)}\n`);
+    });
+
+  return program;
+}
+
+/** Runs the CLI and returns its exit code; the single place where errors are reported. */
+export async function runCli(argv: string[]): Promise<number> {
+  let exitCode: number = EXIT.ok;
+  const program = buildProgram((code) => (exitCode = code));
+  try {
+    await program.parseAsync(argv);
+    return exitCode;
+  } catch (error) {
+    if (error instanceof CommanderError) {
+      // Help and --version are successes; every other parser complaint is a usage error (already printed).
+      return error.exitCode === 0 ? EXIT.ok : EXIT.usage;
+    }
+    if (error instanceof UsageError) {
+      process.stderr.write(`plumbline: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      return EXIT.usage;
+    }
+    if (error instanceof ExternalError) {
+      // The environment failed (a file system or git error): not the user's plans, so not exit 1.
+      const cause = error.cause instanceof Error ? `\n  cause: ${error.cause.message}` : '';
+      process.stderr.write(`plumbline: ${error.message}${cause}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      return EXIT.usage;
+    }
+    const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
+    process.stderr.write(`plumbline: internal error: ${detail}\n${BUG_REPORT_HINT}\n`);
+    return EXIT.internal;
+  }
+}

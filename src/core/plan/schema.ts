@@ -1,0 +1,505 @@
+import { z } from 'zod';
+import {
+  asDescription,
+  calendarDate,
+  finiteNumber,
+  kebabName,
+  nonNegativeNumber,
+  openShare,
+  optionalText,
+  positiveNumber,
+  positiveShare,
+  text,
+  uniqueList,
+  wholeNumber,
+} from '../source/fields.js';
+
+/**
+ * The plan file: one YAML file per experiment, written before launch.
+ * `writtenPlanSchema` is what the user types (kebab-case keys, optional fields);
+ * `planSchema` adds the defaults and maps it once to the camelCase `Plan` the rest of the code uses.
+ */
+
+export const PLAN_STATES = ['draft', 'live', 'on-hold', 'concluded'] as const;
+export type PlanState = (typeof PLAN_STATES)[number];
+
+export const UNITS = ['user', 'device', 'session', 'account', 'team', 'organization', 'household', 'region'] as const;
+export type Unit = (typeof UNITS)[number];
+/** Units that are groups of people; randomizing them needs the design effect in sizing. */
+export const GROUP_UNITS: readonly Unit[] = ['team', 'organization', 'household', 'region'];
+
+export const SENSITIVE_AREAS = ['pricing', 'legal', 'regulatory', 'minors', 'health', 'accessibility', 'privacy'] as const;
+export type SensitiveArea = (typeof SENSITIVE_AREAS)[number];
+
+export const DIRECTIONS = ['increase', 'decrease'] as const;
+export type Direction = (typeof DIRECTIONS)[number];
+
+export const planId = kebabName('a plan id in lower-case words joined by hyphens, e.g. checkout-wallet-first').describe(
+  'Stable identifier of the plan, unique across the repository.',
+);
+export const flagKey = z
+  .string({ error: 'a feature-flag key, e.g. wallet-first-checkout' })
+  .regex(/^[A-Za-z0-9][A-Za-z0-9._:/-]{0,199}$/, { error: 'a feature-flag key of letters, digits and . _ : / -, e.g. wallet-first-checkout' });
+export const eventName = z
+  .string({ error: 'a logging event name, e.g. checkout_completed' })
+  .regex(/^[^\s\n][^\n]{0,199}$/, { error: 'a logging event name on one line, e.g. checkout_completed' });
+export const owner = text('an owner: a GitHub handle such as @ana-lima, a team such as @acme/growth, or an e-mail address');
+export const surfacePath = z
+  .string({ error: 'a surface path of lower-case segments separated by /, e.g. checkout/payment' })
+  .regex(/^[a-z0-9][a-z0-9_-]*(?:\/[a-z0-9][a-z0-9_-]*)*$/, {
+    error: 'a surface path of lower-case segments separated by /, e.g. checkout/payment',
+  });
+export const localeTag = z
+  .string({ error: 'a BCP 47 locale tag, e.g. en-GB or pt-BR' })
+  .regex(/^[A-Za-z]{2,3}(?:-[A-Za-z0-9]{2,8})*$/, { error: 'a BCP 47 locale tag, e.g. en-GB or pt-BR' });
+export const platform = kebabName('a platform name in lower case, e.g. web, ios, android');
+const direction = z.enum(DIRECTIONS, { error: 'increase or decrease' });
+
+const percentage = (expected: string) =>
+  z.number({ error: expected }).gte(0, { error: expected }).lte(100, { error: expected }).describe(asDescription(expected));
+
+const effectSize = z
+  .strictObject(
+    {
+      relative: positiveNumber('a relative change as a fraction, e.g. 0.03 for 3%').optional(),
+      absolute: positiveNumber('an absolute change in the metric’s own units, e.g. 0.005 for half a percentage point').optional(),
+    },
+    { error: 'a mapping with relative (e.g. 0.03) or absolute (e.g. 0.005)' },
+  )
+  .refine((e) => (e.relative === undefined) !== (e.absolute === undefined), {
+    error: 'exactly one of relative or absolute, e.g. relative: 0.03',
+  });
+
+const moments = (what: string) =>
+  z.strictObject(
+    {
+      mean: finiteNumber(`the ${what}’s mean per unit, e.g. 2.4`),
+      sd: nonNegativeNumber(`the ${what}’s standard deviation per unit, e.g. 3.1`),
+    },
+    { error: `a mapping with mean and sd of the ${what}` },
+  ).describe(`Per-unit mean and standard deviation of the ${what}.`);
+
+const metricCommon = {
+  name: kebabName('a metric name in lower-case words joined by hyphens, e.g. order-completed').describe('Name of the metric.'),
+  description: optionalText('a sentence describing the metric'),
+  events: uniqueList(eventName, 'a list of the logging events the metric is computed from, e.g. [order_completed]', 1, 'at least one logging event, e.g. [order_completed]'),
+  direction: direction.optional().describe('Desired direction. The primary metric defaults to the hypothesis direction.'),
+  tolerance: effectSize
+    .optional()
+    .describe('Guardrails: the largest harm (movement against the desired direction) that is tolerated.'),
+};
+
+const proportionMetric = z.strictObject({
+  ...metricCommon,
+  kind: z.literal('proportion').describe('A share of units that do something (conversion, retention).'),
+  baseline: z.strictObject(
+    { rate: openShare('a baseline rate strictly between 0 and 1, e.g. 0.12') },
+    { error: 'a mapping with rate, e.g. { rate: 0.12 }' },
+  ).describe('Baseline figures for sizing.'),
+});
+
+const meanMetric = z.strictObject({
+  ...metricCommon,
+  kind: z.literal('mean').describe('An average per unit (revenue, items, latency).'),
+  baseline: z.strictObject(
+    {
+      mean: finiteNumber('the metric’s mean per unit, e.g. 42.5'),
+      sd: positiveNumber('the standard deviation per unit, above 0, e.g. 30'),
+    },
+    { error: 'a mapping with mean and sd, e.g. { mean: 42.5, sd: 30 }' },
+  ).describe('Baseline figures for sizing.'),
+});
+
+const ratioMetric = z.strictObject({
+  ...metricCommon,
+  kind: z.literal('ratio').describe('A ratio of two sums whose denominator is not the randomization unit (clicks per session when users are randomized); variance by the delta method.'),
+  baseline: z.strictObject(
+    {
+      numerator: moments('numerator'),
+      denominator: moments('denominator').refine((d) => d.mean > 0, { error: 'a denominator mean above 0', path: ['mean'] }),
+      correlation: z
+        .number({ error: 'the correlation of numerator and denominator per unit, between -1 and 1, e.g. 0.6' })
+        .gte(-1, { error: 'a correlation between -1 and 1' })
+        .lte(1, { error: 'a correlation between -1 and 1' })
+        .default(0)
+        .describe('Correlation of numerator and denominator per unit.'),
+    },
+    { error: 'a mapping with numerator, denominator and correlation' },
+  ).describe('Baseline figures for sizing: per-unit moments of the numerator and denominator.'),
+});
+
+// The id makes the JSON Schema define a metric once (under $defs) and refer to it three times.
+const metric = z
+  .discriminatedUnion('kind', [proportionMetric, meanMetric, ratioMetric], {
+    error: 'a metric whose kind is proportion, mean or ratio',
+  })
+  .meta({ id: 'metric', description: 'A metric: its kind, baseline figures for sizing, and the events it is computed from.' });
+export type WrittenMetric = z.output<typeof metric>;
+
+const arm = z.strictObject(
+  {
+    name: kebabName('an arm name in lower-case words joined by hyphens, e.g. control'),
+    weight: positiveNumber('a weight above 0, e.g. 50'),
+  },
+  { error: 'an arm: { name: control, weight: 50 }' },
+).describe('One arm of the test.');
+
+export const ownersSchema = uniqueList(owner, 'a list of owners, e.g. [@ana-lima]', 1, 'at least one owner, e.g. [@ana-lima]').describe('People or teams accountable for the test; the digest mentions them.');
+
+export const flagsSchema = uniqueList(flagKey, 'a list of the feature-flag keys the test reads, e.g. [wallet-first-checkout]', 1, 'at least one feature-flag key, e.g. [wallet-first-checkout]').describe('Feature-flag keys that this plan randomizes.');
+
+export const stateSchema = z
+  .enum(PLAN_STATES, { error: `one of ${PLAN_STATES.join(', ')}` })
+  .describe('Lifecycle: draft, live, on-hold or concluded.');
+
+export const windowSchema = z
+  .strictObject(
+    {
+      start: calendarDate('a start date written YYYY-MM-DD, e.g. 2026-11-02').optional(),
+      end: calendarDate('an end date written YYYY-MM-DD, e.g. 2026-11-30').optional(),
+    },
+    { error: 'a mapping with start and end dates' },
+  )
+  .default({})
+  .describe('Planned calendar window (UTC dates, both days included).');
+
+export const surfaceSchema = z.strictObject(
+  {
+    path: surfacePath.describe('Where in the product the change lands, most general segment first.'),
+    'exclusion-group': z
+      .strictObject(
+        {
+          name: kebabName('an exclusion group name, e.g. checkout-core'),
+          slice: z.strictObject(
+            {
+              from: percentage('where the slice starts, in percent of the group’s units (0 to 100)'),
+              to: percentage('where the slice ends, in percent of the group’s units (0 to 100)'),
+            },
+            { error: 'a slice of the group’s units in percent, e.g. { from: 0, to: 50 }' },
+          ).describe('This plan’s share of the group’s units, from and to in percent.'),
+        },
+        { error: 'a mapping with name and slice' },
+      )
+      .optional()
+      .describe('Plans in one exclusion group take disjoint slices of the group’s units and never collide.'),
+    'overlaps-with': uniqueList(planId, 'a list of plan ids this plan may knowingly overlap with').default([]),
+  },
+  { error: 'a mapping with path, e.g. { path: checkout/payment }' },
+).describe('Where in the product the change lands, and how it may share that place with other tests.');
+
+export const populationSchema = z
+  .strictObject(
+    {
+      platforms: uniqueList(platform, 'a list of platforms, e.g. [web, ios]').default([]),
+      locales: uniqueList(localeTag, 'a list of locale tags, e.g. [en-GB, pt-BR]').default([]),
+      regions: uniqueList(text('a region name or code, e.g. GB'), 'a list of regions, e.g. [GB, PT]').default([]),
+      segment: optionalText('a sentence naming the eligible segment, e.g. returning customers'),
+      ready: z
+        .strictObject(
+          {
+            platforms: uniqueList(platform, 'the platforms on which the change was checked, e.g. [web, ios]').default([]),
+            locales: uniqueList(localeTag, 'the locales into which the change is translated, e.g. [en-GB]').default([]),
+          },
+          { error: 'a mapping with platforms and locales the change is ready on' },
+        )
+        .default({ platforms: [], locales: [] })
+        .describe('Where the change has been checked to work: rendered on each platform, translated for each locale.'),
+    },
+    { error: 'a mapping with platforms, locales, regions, segment and ready' },
+  )
+  .default({ platforms: [], locales: [], regions: [], ready: { platforms: [], locales: [] } })
+  .describe('Who is eligible: platforms, locales, regions and segment.');
+
+export const writtenPlanSchema = z
+  .strictObject({
+    id: planId,
+    title: text('a short title, e.g. Saved wallets shown before card entry'),
+    owners: ownersSchema,
+    flags: flagsSchema,
+    state: stateSchema,
+    window: windowSchema,
+    hypothesis: z.strictObject(
+      {
+        change: text('what the change does, in a sentence'),
+        because: optionalText('why the change should work: the mechanism, not just "the metric goes up"'),
+        'expected-direction': direction.describe('Expected direction of the primary metric.'),
+      },
+      { error: 'a mapping with change, because and expected-direction' },
+    ).describe('The change, why it should work, and the expected direction of the primary metric.'),
+    unit: z
+      .strictObject(
+        {
+          randomization: z.enum(UNITS, { error: `one of ${UNITS.join(', ')}` }).describe('The unit that is assigned to an arm.'),
+          analysis: z
+            .enum(UNITS, { error: `one of ${UNITS.join(', ')}` })
+            .optional()
+            .describe('The unit metrics are averaged over; defaults to the randomization unit.'),
+        },
+        { error: 'a mapping with randomization (and analysis when it differs)' },
+      )
+      .describe('What is randomized, and what the metrics are averaged over when that differs.'),
+    surface: surfaceSchema,
+    population: populationSchema,
+    exposure: z
+      .strictObject(
+        {
+          event: eventName.optional().describe('The event logged when a unit is assigned and exposed.'),
+          reach: positiveShare('the share of exposed units that reach the changed experience, in (0, 1], e.g. 0.4')
+            .default(1)
+            .describe('Share of exposed units that actually reach the change; below 1 the effect is diluted.'),
+        },
+        { error: 'a mapping with event and reach' },
+      )
+      .default({ reach: 1 })
+      .describe('When units count as exposed, and how many of them reach the change.'),
+    metrics: z.strictObject(
+      {
+        primary: z
+          .union([metric, z.array(metric)], { error: 'one primary metric, written as a mapping' })
+          .describe('Exactly one metric the decision rests on.'),
+        guardrails: z
+          .array(metric, { error: 'a list of guardrail metrics' })
+          .default([])
+          .describe('Metrics that must not get worse beyond their tolerance.'),
+        secondary: z.array(metric, { error: 'a list of secondary metrics' }).default([]).describe('Metrics that explain the result; not decided on.'),
+      },
+      { error: 'a mapping with primary, guardrails and secondary' },
+    ).describe('What the test is judged on.'),
+    design: z
+      .strictObject(
+        {
+          arms: z
+            .array(arm, { error: 'a list of arms, e.g. [{ name: control, weight: 50 }, { name: treatment, weight: 50 }]' })
+            .describe('Arms with relative weights; weights need not sum to 100.')
+            .min(2, { error: 'at least two arms: a control and a treatment' })
+            .default([
+              { name: 'control', weight: 50 },
+              { name: 'treatment', weight: 50 },
+            ]),
+          control: kebabName('the name of the control arm').optional().describe('Defaults to the first arm.'),
+          alpha: openShare('a significance level strictly between 0 and 1, e.g. 0.05').default(0.05),
+          power: openShare('a power strictly between 0 and 1, e.g. 0.8').default(0.8),
+          sides: z
+            .union([z.literal(1), z.literal(2)], { error: '1 or 2 (one- or two-sided test)' })
+            .default(2)
+            .describe('A two-sided test (2) detects harm as well as gain.'),
+          'min-detectable-effect': effectSize.optional().describe('Smallest effect on the primary metric worth detecting.'),
+          'daily-units': positiveNumber('expected eligible units per day, e.g. 12000').optional(),
+          'traffic-share': positiveShare('the share of eligible units enrolled, in (0, 1], e.g. 0.5')
+            .optional()
+            .describe('Defaults to the exclusion-group slice, or 1.'),
+          'interim-looks': wholeNumber('a whole number of interim analyses from 0 to 20', 0, 20).default(0),
+          'pre-period-correlation': z
+            .number({ error: 'a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5' })
+            .describe('Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).')
+            .gte(0, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+            .lt(1, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+            .default(0),
+          cluster: z
+            .strictObject(
+              {
+                'mean-size': z
+                  .number({ error: 'the mean number of units per group, at least 1, e.g. 8' })
+                  .gte(1, { error: 'a mean group size of at least 1, e.g. 8' })
+                  .describe('Mean number of analysis units per randomized group.'),
+                icc: z
+                  .number({ error: 'an intra-cluster correlation from 0 to 1, e.g. 0.05' })
+                  .gte(0, { error: 'an intra-cluster correlation from 0 to 1' })
+                  .lte(1, { error: 'an intra-cluster correlation from 0 to 1' })
+                  .describe('Intra-cluster correlation of the primary metric.'),
+                'size-cv': nonNegativeNumber('the coefficient of variation of group sizes, e.g. 0.6').default(0),
+              },
+              { error: 'a mapping with mean-size, icc and size-cv' },
+            )
+            .optional()
+            .describe('For group units: mean group size and intra-cluster correlation.'),
+        },
+        { error: 'a mapping of design settings' },
+      )
+      .default({
+        arms: [
+          { name: 'control', weight: 50 },
+          { name: 'treatment', weight: 50 },
+        ],
+        alpha: 0.05,
+        power: 0.8,
+        sides: 2,
+        'interim-looks': 0,
+        'pre-period-correlation': 0,
+      })
+      .describe('How the test is run and sized: arms, error rates, effect worth detecting, traffic.'),
+    decisions: z
+      .strictObject(
+        {
+          win: optionalText('what will be done on a significant win'),
+          flat: optionalText('what will be done on a flat or inconclusive result'),
+          loss: optionalText('what will be done on a significant loss'),
+          'guardrail-breach': optionalText('what will be done when a guardrail is breached'),
+          'launch-regardless': z
+            .strictObject({ reason: text('why the change ships whatever the result') }, { error: 'a mapping with reason' })
+            .optional()
+            .describe('Declare here when the change will launch whatever the result, and why.'),
+        },
+        { error: 'a mapping with win, flat, loss and guardrail-breach' },
+      )
+      .default({})
+      .describe('Decision rules, written before launch.'),
+    sensitive: z
+      .array(
+        z.strictObject(
+          {
+            area: z.enum(SENSITIVE_AREAS, { error: `one of ${SENSITIVE_AREAS.join(', ')}` }).describe('The kind of harm the test can do.'),
+            review: optionalText('the named review this area needs, e.g. pricing council'),
+            reference: optionalText('a link or ticket for the review'),
+          },
+          { error: 'a mapping with area, review and reference' },
+        ),
+        { error: 'a list of sensitive areas' },
+      )
+      .default([])
+      .describe('Areas where the test can hurt someone, each with the named review it needs.'),
+    'bundle-rationale': optionalText('why several changes or flags are tested together').describe(
+      'Required when the plan bundles several flags or changes.',
+    ),
+    notes: optionalText('free text'),
+  }, { error: 'a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics' })
+  .describe('A Plumbline experiment plan.');
+
+export type WrittenPlan = z.input<typeof writtenPlanSchema>;
+type ParsedPlan = z.output<typeof writtenPlanSchema>;
+
+interface MetricBase {
+  name: string;
+  description?: string;
+  events: string[];
+  direction: Direction;
+  /** True when the direction was not written and a default was taken. */
+  directionAssumed: boolean;
+  tolerance?: { relative?: number; absolute?: number };
+}
+export type Metric =
+  | (MetricBase & { kind: 'proportion'; baseline: { rate: number } })
+  | (MetricBase & { kind: 'mean'; baseline: { mean: number; sd: number } })
+  | (MetricBase & {
+      kind: 'ratio';
+      baseline: { numerator: { mean: number; sd: number }; denominator: { mean: number; sd: number }; correlation: number };
+    });
+
+export interface Arm {
+  name: string;
+  weight: number;
+}
+
+/** A normalized plan: defaults applied, keys in camelCase, exactly one primary metric. */
+export interface Plan {
+  id: string;
+  title: string;
+  owners: string[];
+  flags: string[];
+  state: PlanState;
+  window: { start?: string; end?: string };
+  hypothesis: { change: string; because?: string; direction: Direction };
+  unit: { randomization: Unit; analysis: Unit };
+  surface: { path: string; exclusionGroup?: { name: string; slice: { from: number; to: number } }; overlapsWith: string[] };
+  population: {
+    platforms: string[];
+    locales: string[];
+    regions: string[];
+    segment?: string;
+    ready: { platforms: string[]; locales: string[] };
+  };
+  exposure: { event?: string; reach: number };
+  metrics: { primary: Metric; guardrails: Metric[]; secondary: Metric[] };
+  design: {
+    arms: Arm[];
+    /** Name of the control arm; defaults to the first arm. */
+    control: string;
+    alpha: number;
+    power: number;
+    sides: 1 | 2;
+    minDetectableEffect?: { relative?: number; absolute?: number };
+    dailyUnits?: number;
+    /** Share of eligible units enrolled: written, else the exclusion-group slice, else 1. */
+    trafficShare: number;
+    interimLooks: number;
+    prePeriodCorrelation: number;
+    cluster?: { meanSize: number; icc: number; sizeCv: number };
+  };
+  decisions: { win?: string; flat?: string; loss?: string; guardrailBreach?: string; launchRegardless?: { reason: string } };
+  sensitive: { area: SensitiveArea; review?: string; reference?: string }[];
+  bundleRationale?: string;
+  notes?: string;
+}
+
+function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
+  const { direction, ...rest } = written;
+  const chosen = direction ?? fallbackDirection;
+  return { ...rest, direction: chosen ?? 'increase', directionAssumed: chosen === undefined } as Metric;
+}
+
+export const PRIMARY_COUNT_CODE = 'plan/primary-metric-count';
+
+export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx): Plan => {
+  const primaries = Array.isArray(written.metrics.primary) ? written.metrics.primary : [written.metrics.primary];
+  if (primaries.length !== 1) {
+    ctx.issues.push({
+      code: 'custom',
+      input: written.metrics.primary,
+      path: ['metrics', 'primary'],
+      message: primaries.length === 0 ? 'one primary metric; the list is empty' : `one primary metric, not ${primaries.length}; move the others under secondary`,
+      params: { code: PRIMARY_COUNT_CODE, summary: 'a plan has exactly one primary metric' },
+    });
+    return z.NEVER;
+  }
+  const d = written.design;
+  const slice = written.surface['exclusion-group']?.slice;
+  return {
+    id: written.id,
+    title: written.title,
+    owners: written.owners,
+    flags: written.flags,
+    state: written.state,
+    window: written.window,
+    hypothesis: {
+      change: written.hypothesis.change,
+      ...(written.hypothesis.because ? { because: written.hypothesis.because } : {}),
+      direction: written.hypothesis['expected-direction'],
+    },
+    unit: { randomization: written.unit.randomization, analysis: written.unit.analysis ?? written.unit.randomization },
+    surface: {
+      path: written.surface.path,
+      ...(written.surface['exclusion-group'] ? { exclusionGroup: written.surface['exclusion-group'] } : {}),
+      overlapsWith: written.surface['overlaps-with'],
+    },
+    population: written.population,
+    exposure: written.exposure,
+    metrics: {
+      primary: normalizeMetric(primaries[0]!, written.hypothesis['expected-direction']),
+      guardrails: written.metrics.guardrails.map((m) => normalizeMetric(m, undefined)),
+      secondary: written.metrics.secondary.map((m) => normalizeMetric(m, undefined)),
+    },
+    design: {
+      arms: d.arms,
+      control: d.control ?? d.arms[0]!.name,
+      alpha: d.alpha,
+      power: d.power,
+      sides: d.sides,
+      ...(d['min-detectable-effect'] ? { minDetectableEffect: d['min-detectable-effect'] } : {}),
+      ...(d['daily-units'] !== undefined ? { dailyUnits: d['daily-units'] } : {}),
+      trafficShare: d['traffic-share'] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
+      interimLooks: d['interim-looks'],
+      prePeriodCorrelation: d['pre-period-correlation'],
+      ...(d.cluster ? { cluster: { meanSize: d.cluster['mean-size'], icc: d.cluster.icc, sizeCv: d.cluster['size-cv'] } } : {}),
+    },
+    decisions: {
+      ...(written.decisions.win ? { win: written.decisions.win } : {}),
+      ...(written.decisions.flat ? { flat: written.decisions.flat } : {}),
+      ...(written.decisions.loss ? { loss: written.decisions.loss } : {}),
+      ...(written.decisions['guardrail-breach'] ? { guardrailBreach: written.decisions['guardrail-breach'] } : {}),
+      ...(written.decisions['launch-regardless'] ? { launchRegardless: written.decisions['launch-regardless'] } : {}),
+    },
+    sensitive: written.sensitive,
+    ...(written['bundle-rationale'] ? { bundleRationale: written['bundle-rationale'] } : {}),
+    ...(written.notes ? { notes: written.notes } : {}),
+  };
+});

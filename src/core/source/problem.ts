@@ -1,0 +1,72 @@
+/**
+ * A problem found in a user's file: data, never an exception. Every loader in the core
+ * returns these so that the entry points can print them, count them and decide the exit code.
+ */
+export type ProblemSeverity = 'error' | 'warning';
+
+export interface SourceLocation {
+  /** Path of the file as the user would type it, relative to the repository root. */
+  file: string;
+  /** 1-based line. */
+  line: number;
+  /** 1-based column. */
+  column: number;
+}
+
+export interface Problem extends SourceLocation {
+  /** `error`: the file cannot be used. `warning`: it can, but something is off. */
+  severity: ProblemSeverity;
+  /** Stable identifier, e.g. `plan/unknown-key`; safe to match on in scripts. */
+  code: string;
+  /** Dotted field path inside the file, e.g. `design.alpha`; empty for the whole file. */
+  field: string;
+  /** What is wrong, in a sentence. */
+  message: string;
+  /** What a valid value looks like, with an example where one helps. */
+  expected?: string;
+  /** What the file actually holds at that field, described for a person. */
+  found?: string;
+}
+
+/** `file:line:column: severity: field: message (expected ...; found ...)`, the compiler-style line. */
+export function formatProblem(problem: Problem): string {
+  const where = `${problem.file}:${problem.line}:${problem.column}`;
+  const field = problem.field ? `${problem.field}: ` : '';
+  const detail = [
+    problem.expected ? `expected ${problem.expected}` : '',
+    problem.found ? `found ${problem.found}` : '',
+  ]
+    .filter(Boolean)
+    .join('; ');
+  return `${where}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ''}`;
+}
+
+export function hasErrors(problems: readonly Problem[]): boolean {
+  return problems.some((p) => p.severity === 'error');
+}
+
+/** Stable order for reports: by file, then position, then code. */
+export function sortProblems(problems: readonly Problem[]): Problem[] {
+  return [...problems].sort(
+    (a, b) =>
+      a.file.localeCompare(b.file) ||
+      a.line - b.line ||
+      a.column - b.column ||
+      a.code.localeCompare(b.code),
+  );
+}
+
+/** Describes a parsed YAML value the way a person would say it, for the `found` part of a problem. */
+export function describeValue(value: unknown): string {
+  if (value === undefined) return 'nothing';
+  if (value === null) return 'an empty value';
+  if (typeof value === 'string') {
+    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
+    return `the text ${JSON.stringify(shown)}`;
+  }
+  if (typeof value === 'number') return `the number ${value}`;
+  if (typeof value === 'boolean') return `${value}`;
+  if (Array.isArray(value)) return value.length === 1 ? 'a list of 1 item' : `a list of ${value.length} items`;
+  if (typeof value === 'object') return 'a mapping of keys';
+  return typeof value;
+}

@@ -1,0 +1,34 @@
+import { describeValue, type Problem, type ProblemSeverity } from './problem.js';
+import { formatFieldPath, valueAt } from './check-written.js';
+import type { FieldPath, YamlSource } from './yaml-source.js';
+
+/** What a cross-field rule needs: the value it checks and a way to report at a written field. */
+export interface RuleContext<T> {
+  value: T;
+  report(problem: { severity: ProblemSeverity; code: string; path: FieldPath; message: string; expected?: string; showFound?: boolean }): void;
+}
+
+export type Rule<T> = (context: RuleContext<T>) => void;
+
+/** Runs each rule in order and returns what they reported, located in the source file. */
+export function runRules<T>(value: T, source: YamlSource, rules: readonly Rule<T>[]): Problem[] {
+  const problems: Problem[] = [];
+  const context: RuleContext<T> = {
+    value,
+    report({ severity, code, path, message, expected, showFound }) {
+      const found = showFound ? describeValue(valueAt(source.value, path)) : undefined;
+      problems.push({
+        severity,
+        code,
+        ...source.locate(path),
+        field: formatFieldPath(path),
+        message,
+        ...(expected ? { expected } : {}),
+        ...(found ? { found } : {}),
+      });
+    },
+  };
+  for (const rule of rules) rule(context);
+  return problems;
+}
+

@@ -1,0 +1,114 @@
+import { LineCounter, isMap, isPair, isScalar, isSeq, parseDocument, type Node } from 'yaml';
+import type { Problem, SourceLocation } from './problem.js';
+
+/** Limits that keep a hostile or accidental file from exhausting memory. */
+export interface YamlLimits {
+  /** Largest accepted file, in bytes of UTF-8 text. */
+  maxBytes: number;
+  /** Most alias expansions; the `yaml` package's own guard against "billion laughs" documents. */
+  maxAliases: number;
+}
+
+export type FieldPath = readonly (string | number)[];
+
+export type SourceLocationFinder = (path: FieldPath) => SourceLocation;
+
+/** A parsed YAML file that can say where any field of it was written. */
+export interface YamlSource {
+  file: string;
+  value: unknown;
+  /** Where the value at `path` starts; falls back to the deepest written ancestor when the field is absent. */
+  locate(path: FieldPath): SourceLocation;
+  /** Where the key `key` of the mapping at `path` is written (for unknown-key messages). */
+  locateKey(path: FieldPath, key: string): SourceLocation;
+}
+
+export type YamlReadResult = { ok: true; source: YamlSource } | { ok: false; problems: Problem[] };
+
+/**
+ * Parses one YAML document keeping source positions. Bad YAML, several documents in one file,
+ * duplicate keys, oversized input and alias bombs all come back as problems, never as a throw.
+ */
+export function readYaml(text: string, file: string, limits: YamlLimits, codePrefix: string): YamlReadResult {
+  const fail = (line: number, column: number, code: string, message: string, expected?: string): YamlReadResult => ({
+    ok: false,
+    problems: [{ severity: 'error', code: `${codePrefix}/${code}`, file, line, column, field: '', message, ...(expected ? { expected } : {}) }],
+  });
+
+  const bytes = Buffer.byteLength(text, 'utf8');
+  if (bytes > limits.maxBytes) {
+    return fail(1, 1, 'too-large', `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, 'a smaller file (split it, or remove pasted data)');
+  }
+
+  const lineCounter = new LineCounter();
+  const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const firstError = doc.errors[0];
+  if (firstError) {
+    const pos = lineCounter.linePos(firstError.pos[0]);
+    return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+
+  let value: unknown;
+  try {
+    value = doc.toJS({ maxAliasCount: limits.maxAliases });
+  } catch (error) {
+    // The yaml package throws a ReferenceError when aliases expand past maxAliasCount.
+    const message = error instanceof Error ? error.message : String(error);
+    return fail(1, 1, 'too-many-aliases', `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
+  }
+
+  const at = (offset: number): SourceLocation => {
+    const pos = lineCounter.linePos(offset);
+    return { file, line: pos.line, column: pos.col };
+  };
+  const rootOffset = doc.contents?.range[0] ?? 0;
+
+  const walk = (path: FieldPath): { node: Node | null; depth: number } => {
+    let node: Node | null = doc.contents as Node | null;
+    let depth = 0;
+    for (const segment of path) {
+      const next = childOf(node, segment);
+      if (!next) break;
+      node = next;
+      depth++;
+    }
+    return { node, depth };
+  };
+
+  return {
+    ok: true,
+    source: {
+      file,
+      value,
+      locate(path) {
+        const { node } = walk(path);
+        return at(node?.range?.[0] ?? rootOffset);
+      },
+      locateKey(path, key) {
+        const { node, depth } = walk(path);
+        if (depth === path.length && isMap(node)) {
+          const pair = node.items.find((item) => isScalar(item.key) && String(item.key.value) === key);
+          const keyNode = pair && isScalar(pair.key) ? pair.key : undefined;
+          if (keyNode?.range) return at(keyNode.range[0]);
+        }
+        return at(node?.range?.[0] ?? rootOffset);
+      },
+    },
+  };
+}
+
+function childOf(node: Node | null, segment: string | number): Node | null {
+  if (isMap(node)) {
+    const pair = node.items.find((item) => isPair(item) && isScalar(item.key) && String(item.key.value) === String(segment));
+    return (pair?.value as Node | null | undefined) ?? (pair && isScalar(pair.key) ? pair.key : null);
+  }
+  if (isSeq(node) && typeof segment === 'number') {
+    return (node.items[segment] as Node | undefined) ?? null;
+  }
+  return null;
+}
+
+/** The yaml package's messages end with a source excerpt; we print our own location instead. */
+function plainYamlMessage(message: string): string {
+  return message.split('\n')[0]!.replace(/ at line \d+, column \d+:?$/, '').trim();
+}

@@ -3532,7 +3532,7 @@ var require_visit = __commonJS({
     var BREAK = /* @__PURE__ */ Symbol("break visit");
     var SKIP = /* @__PURE__ */ Symbol("skip children");
     var REMOVE = /* @__PURE__ */ Symbol("remove node");
-    function visit2(node2, visitor) {
+    function visit3(node2, visitor) {
       const visitor_ = initVisitor(visitor);
       if (identity.isDocument(node2)) {
         const cd = visit_(null, node2.contents, visitor_, Object.freeze([node2]));
@@ -3541,9 +3541,9 @@ var require_visit = __commonJS({
       } else
         visit_(null, node2, visitor_, Object.freeze([]));
     }
-    visit2.BREAK = BREAK;
-    visit2.SKIP = SKIP;
-    visit2.REMOVE = REMOVE;
+    visit3.BREAK = BREAK;
+    visit3.SKIP = SKIP;
+    visit3.REMOVE = REMOVE;
     function visit_(key, node2, visitor, path) {
       const ctrl = callVisitor(key, node2, visitor, path);
       if (identity.isNode(ctrl) || identity.isPair(ctrl)) {
@@ -3677,7 +3677,7 @@ var require_visit = __commonJS({
         throw new Error(`Cannot replace node with ${pt} parent`);
       }
     }
-    exports.visit = visit2;
+    exports.visit = visit3;
     exports.visitAsync = visitAsync;
   }
 });
@@ -3687,7 +3687,7 @@ var require_directives = __commonJS({
   "node_modules/yaml/dist/doc/directives.js"(exports) {
     "use strict";
     var identity = require_identity();
-    var visit2 = require_visit();
+    var visit3 = require_visit();
     var escapeChars = {
       "!": "%21",
       ",": "%2C",
@@ -3831,7 +3831,7 @@ var require_directives = __commonJS({
         let tagNames;
         if (doc && tagEntries.length > 0 && identity.isNode(doc.contents)) {
           const tags = {};
-          visit2.visit(doc.contents, (_key, node2) => {
+          visit3.visit(doc.contents, (_key, node2) => {
             if (identity.isNode(node2) && node2.tag)
               tags[node2.tag] = true;
           });
@@ -3858,7 +3858,7 @@ var require_anchors = __commonJS({
   "node_modules/yaml/dist/doc/anchors.js"(exports) {
     "use strict";
     var identity = require_identity();
-    var visit2 = require_visit();
+    var visit3 = require_visit();
     function anchorIsValid(anchor2) {
       if (/[\x00-\x19\s,[\]{}]/.test(anchor2)) {
         const sa = JSON.stringify(anchor2);
@@ -3869,7 +3869,7 @@ var require_anchors = __commonJS({
     }
     function anchorNames(root) {
       const anchors = /* @__PURE__ */ new Set();
-      visit2.visit(root, {
+      visit3.visit(root, {
         Value(_key, node2) {
           if (node2.anchor)
             anchors.add(node2.anchor);
@@ -4049,7 +4049,7 @@ var require_Alias = __commonJS({
   "node_modules/yaml/dist/nodes/Alias.js"(exports) {
     "use strict";
     var anchors = require_anchors();
-    var visit2 = require_visit();
+    var visit3 = require_visit();
     var identity = require_identity();
     var Node = require_Node();
     var toJS = require_toJS();
@@ -4075,7 +4075,7 @@ var require_Alias = __commonJS({
           nodes = ctx.aliasResolveCache;
         } else {
           nodes = [];
-          visit2.visit(doc, {
+          visit3.visit(doc, {
             Node: (_key, node2) => {
               if (identity.isAlias(node2) || identity.hasAnchor(node2))
                 nodes.push(node2);
@@ -8997,15 +8997,15 @@ var require_cst_visit = __commonJS({
     var BREAK = /* @__PURE__ */ Symbol("break visit");
     var SKIP = /* @__PURE__ */ Symbol("skip children");
     var REMOVE = /* @__PURE__ */ Symbol("remove item");
-    function visit2(cst, visitor) {
+    function visit3(cst, visitor) {
       if ("type" in cst && cst.type === "document")
         cst = { start: cst.start, value: cst.value };
       _visit(Object.freeze([]), cst, visitor);
     }
-    visit2.BREAK = BREAK;
-    visit2.SKIP = SKIP;
-    visit2.REMOVE = REMOVE;
-    visit2.itemAtPath = (cst, path) => {
+    visit3.BREAK = BREAK;
+    visit3.SKIP = SKIP;
+    visit3.REMOVE = REMOVE;
+    visit3.itemAtPath = (cst, path) => {
       let item = cst;
       for (const [field, index] of path) {
         const tok = item?.[field];
@@ -9016,8 +9016,8 @@ var require_cst_visit = __commonJS({
       }
       return item;
     };
-    visit2.parentCollection = (cst, path) => {
-      const parent = visit2.itemAtPath(cst, path.slice(0, -1));
+    visit3.parentCollection = (cst, path) => {
+      const parent = visit3.itemAtPath(cst, path.slice(0, -1));
       const field = path[path.length - 1][0];
       const coll = parent?.[field];
       if (coll && "items" in coll)
@@ -9048,7 +9048,7 @@ var require_cst_visit = __commonJS({
       }
       return typeof ctrl === "function" ? ctrl(item, path) : ctrl;
     }
-    exports.visit = visit2;
+    exports.visit = visit3;
   }
 });
 
@@ -10764,7 +10764,7 @@ var require_dist = __commonJS({
     var lineCounter = require_line_counter();
     var parser = require_parser();
     var publicApi = require_public_api();
-    var visit2 = require_visit();
+    var visit3 = require_visit();
     exports.Composer = composer.Composer;
     exports.Document = Document.Document;
     exports.Schema = Schema.Schema;
@@ -10792,8 +10792,8 @@ var require_dist = __commonJS({
     exports.parseAllDocuments = publicApi.parseAllDocuments;
     exports.parseDocument = publicApi.parseDocument;
     exports.stringify = publicApi.stringify;
-    exports.visit = visit2.visit;
-    exports.visitAsync = visit2.visitAsync;
+    exports.visit = visit3.visit;
+    exports.visitAsync = visit3.visitAsync;
   }
 });
 
@@ -32153,7 +32153,7 @@ function isCalendarDate(value) {
   const date5 = new Date(Date.UTC(year, month - 1, day));
   return date5.getUTCFullYear() === year && date5.getUTCMonth() === month - 1 && date5.getUTCDate() === day;
 }
-var calendarDate = (expected) => external_exports.string({ error: expected }).regex(CALENDAR_DATE, { error: expected }).refine(isCalendarDate, { error: expected }).describe(asDescription(expected));
+var calendarDate = (expected) => external_exports.string({ error: expected }).regex(CALENDAR_DATE, { error: expected }).refine(isCalendarDate, { error: `${expected}, on a day that exists in the calendar` }).describe(asDescription(expected));
 var uniqueList = (item, expected, min = 0, fewMessage = expected) => external_exports.array(item, { error: expected }).min(min, { error: fewMessage }).refine((items) => new Set(items.map((i) => JSON.stringify(i))).size === items.length, {
   error: `${expected}, each listed once`
 }).describe(asDescription(expected));
@@ -32484,13 +32484,11 @@ function closestName(typed, known) {
     }
   }
   const tolerance = Math.max(2, Math.floor(typed.length / 3));
-  if (best !== void 0 && (bestDistance <= tolerance || normalizeSeparators(best) === normalizeSeparators(typed))) {
-    return best;
-  }
-  return void 0;
+  if (best !== void 0 && bestDistance <= tolerance) return best;
+  return known.find((candidate) => stem(candidate) === stem(typed));
 }
-function normalizeSeparators(name) {
-  return name.replace(/[-_\s]/g, "").toLowerCase();
+function stem(name) {
+  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
 }
 function editDistance(a, b) {
   const rows = a.length + 1;
@@ -32531,7 +32529,7 @@ function describeValue(value) {
     const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
     return `the text ${JSON.stringify(shown)}`;
   }
-  if (typeof value === "number") return `the number ${value}`;
+  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
   if (typeof value === "boolean") return `${value}`;
   if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
   if (typeof value === "object") return "a mapping of keys";
@@ -32569,8 +32567,8 @@ function issueToProblems(issue2, source, jsonSchema, codePrefix) {
       const discriminatorPath = path[path.length - 1] === issue2.discriminator ? path : [...path, issue2.discriminator];
       return [{ ...fieldProblem(issue2, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
     }
-    const branch = pickUnionBranch(issue2.errors ?? [], path);
-    if (branch) return branch.flatMap((inner) => issueToProblems(inner, source, jsonSchema, codePrefix));
+    const branch = pickUnionBranch(issue2.errors ?? []);
+    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue2.path, ...inner.path] }, source, jsonSchema, codePrefix));
   }
   return [fieldProblem(issue2, path, source, codePrefix)];
 }
@@ -32578,7 +32576,7 @@ function fieldProblem(issue2, path, source, codePrefix) {
   const found = valueAt(source.value, path);
   const missing = found === void 0;
   const customCode = issue2.code === "custom" ? issue2.params?.code : void 0;
-  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : summaryFor(issue2);
+  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : path.length === 0 && found === null ? "the file is empty" : summaryFor(issue2);
   return {
     severity: "error",
     code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
@@ -32608,16 +32606,15 @@ function summaryFor(issue2) {
 function cleanZodMessage(message) {
   return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
 }
-function pickUnionBranch(branches, unionPath) {
-  const depth = unionPath.length;
-  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length <= depth)));
+function pickUnionBranch(branches) {
+  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
   if (shaped.length === 0) return void 0;
   return shaped.reduce((best, next) => next.length < best.length ? next : best);
 }
 function dedupe(problems) {
   const seen = /* @__PURE__ */ new Set();
   return problems.filter((p) => {
-    const key = `${p.line}:${p.column}:${p.field}:${p.message}`;
+    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
     if (seen.has(key)) return false;
     seen.add(key);
     return true;
@@ -32688,7 +32685,27 @@ function readYaml(text2, file2, limits, codePrefix) {
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
+    if (firstError.code === "MULTIPLE_DOCS") {
+      return fail(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+    }
+    if (firstError.code === "DUPLICATE_KEY") {
+      return fail(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
+    }
     return fail(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+  let complexKeyAt;
+  (0, import_yaml.visit)(doc, {
+    Pair(_, pair) {
+      if (pair.key !== null && !(0, import_yaml.isScalar)(pair.key)) {
+        complexKeyAt = pair.key.range?.[0] ?? 0;
+        return import_yaml.visit.BREAK;
+      }
+      return void 0;
+    }
+  });
+  if (complexKeyAt !== void 0) {
+    const pos = lineCounter.linePos(complexKeyAt);
+    return fail(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
   }
   let value;
   try {

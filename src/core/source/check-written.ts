@@ -75,8 +75,9 @@ function issueToProblems(issue: ZodIssueLike, source: YamlSource, jsonSchema: Js
       const discriminatorPath = path[path.length - 1] === issue.discriminator ? path : [...path, issue.discriminator];
       return [{ ...fieldProblem(issue, discriminatorPath, source, codePrefix), message: 'is not one of the allowed kinds' }];
     }
-    const branch = pickUnionBranch(issue.errors ?? [], path);
-    if (branch) return branch.flatMap((inner) => issueToProblems(inner, source, jsonSchema, codePrefix));
+    const branch = pickUnionBranch(issue.errors ?? []);
+    // zod reports a union branch's issues relative to the union itself.
+    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue.path, ...inner.path] }, source, jsonSchema, codePrefix));
   }
 
   return [fieldProblem(issue, path, source, codePrefix)];
@@ -90,7 +91,9 @@ function fieldProblem(issue: ZodIssueLike, path: FieldPath, source: YamlSource, 
     ? (issue.params?.summary ?? 'is not valid')
     : missing
       ? 'required field is missing'
-      : summaryFor(issue);
+      : path.length === 0 && found === null
+        ? 'the file is empty'
+        : summaryFor(issue);
   return {
     severity: 'error',
     code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
@@ -126,19 +129,19 @@ function cleanZodMessage(message: string): string {
 
 /**
  * Of a union's failed branches, the one the user most likely meant: a branch whose failures are
- * all below the union's own path matched the value's shape and only got details wrong.
+ * all below the union's own value matched the value's shape and only got details wrong.
  */
-function pickUnionBranch(branches: ZodIssueLike[][], unionPath: FieldPath): ZodIssueLike[] | undefined {
-  const depth = unionPath.length;
-  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === 'invalid_type' && i.path.length <= depth)));
+function pickUnionBranch(branches: ZodIssueLike[][]): ZodIssueLike[] | undefined {
+  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === 'invalid_type' && i.path.length === 0)));
   if (shaped.length === 0) return undefined;
   return shaped.reduce((best, next) => (next.length < best.length ? next : best));
 }
 
+/** One problem per field: a value that fails two checks (format, then calendar) needs one message. */
 function dedupe(problems: Problem[]): Problem[] {
   const seen = new Set<string>();
   return problems.filter((p) => {
-    const key = `${p.line}:${p.column}:${p.field}:${p.message}`;
+    const key = p.code.endsWith('/unknown-key') ? `${p.field}:unknown` : p.field;
     if (seen.has(key)) return false;
     seen.add(key);
     return true;

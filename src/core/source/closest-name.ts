@@ -15,15 +15,17 @@ export function closestName(typed: string, known: readonly string[]): string | u
   }
   // A third of the length (at least 2 edits) separates typos from different words in practice.
   const tolerance = Math.max(2, Math.floor(typed.length / 3));
-  if (best !== undefined && (bestDistance <= tolerance || normalizeSeparators(best) === normalizeSeparators(typed))) {
-    return best;
-  }
-  return undefined;
+  if (best !== undefined && bestDistance <= tolerance) return best;
+  // Other spellings of the same word: camelCase or snake_case for kebab-case, singular for plural.
+  return known.find((candidate) => stem(candidate) === stem(typed));
 }
 
-/** camelCase, snake_case and kebab-case spellings of one key count as the same key. */
-function normalizeSeparators(name: string): string {
-  return name.replace(/[-_\s]/g, '').toLowerCase();
+function stem(name: string): string {
+  return name
+    .replace(/[-_\s]/g, '')
+    .toLowerCase()
+    .replace(/ies$/, 'y')
+    .replace(/s$/, '');
 }
 
 /** Optimal string alignment distance: Levenshtein plus adjacent transpositions, the commonest typo. */

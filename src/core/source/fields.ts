@@ -49,7 +49,11 @@ export function isCalendarDate(value: string): boolean {
 }
 
 export const calendarDate = (expected: string) =>
-  z.string({ error: expected }).regex(CALENDAR_DATE, { error: expected }).refine(isCalendarDate, { error: expected }).describe(asDescription(expected));
+  z
+    .string({ error: expected })
+    .regex(CALENDAR_DATE, { error: expected })
+    .refine(isCalendarDate, { error: `${expected}, on a day that exists in the calendar` })
+    .describe(asDescription(expected));
 
 /** A list whose items appear once each; `min` is the fewest items allowed (default 0). */
 export const uniqueList = <T extends z.ZodType>(item: T, expected: string, min = 0, fewMessage = expected) =>

@@ -64,7 +64,7 @@ export function describeValue(value: unknown): string {
     const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
     return `the text ${JSON.stringify(shown)}`;
   }
-  if (typeof value === 'number') return `the number ${value}`;
+  if (typeof value === 'number') return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
   if (typeof value === 'boolean') return `${value}`;
   if (Array.isArray(value)) return value.length === 1 ? 'a list of 1 item' : `a list of ${value.length} items`;
   if (typeof value === 'object') return 'a mapping of keys';

@@ -1,4 +1,4 @@
-import { LineCounter, isMap, isPair, isScalar, isSeq, parseDocument, type Node } from 'yaml';
+import { LineCounter, isMap, isPair, isScalar, isSeq, parseDocument, visit, type Node } from 'yaml';
 import type { Problem, SourceLocation } from './problem.js';
 
 /** Limits that keep a hostile or accidental file from exhausting memory. */
@@ -45,7 +45,29 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
+    if (firstError.code === 'MULTIPLE_DOCS') {
+      return fail(pos.line, pos.col, 'several-documents', 'the file holds more than one YAML document (a second "---")', 'one document per file');
+    }
+    if (firstError.code === 'DUPLICATE_KEY') {
+      return fail(pos.line, pos.col, 'duplicate-key', 'this key is written twice in the same mapping', 'each key once');
+    }
     return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+
+  // A mapping or list used as a key has no meaning in our formats (and yaml would stringify it).
+  let complexKeyAt: number | undefined;
+  visit(doc, {
+    Pair(_, pair) {
+      if (pair.key !== null && !isScalar(pair.key)) {
+        complexKeyAt = (pair.key as Node).range?.[0] ?? 0;
+        return visit.BREAK;
+      }
+      return undefined;
+    },
+  });
+  if (complexKeyAt !== undefined) {
+    const pos = lineCounter.linePos(complexKeyAt);
+    return fail(pos.line, pos.col, 'complex-key', 'a key here is a list or mapping', 'keys written as plain words, e.g. title');
   }
 
   let value: unknown;

@@ -49397,9 +49397,10 @@ async function loadWorkspace(options) {
   const planFiles = await findPlanFiles(files, settings.planPaths);
   const problems = [];
   const plans = [];
+  const texts = await readInBatches(files, planFiles);
   for (const [index, file2] of planFiles.entries()) {
     options.onProgress?.(index, planFiles.length, "plans");
-    const result = loadPlan(await files.readText(file2) ?? "", file2);
+    const result = loadPlan(texts[index] ?? "", file2);
     problems.push(...result.ok ? [] : result.errors, ...result.warnings);
     if (result.ok) plans.push(result.loaded);
   }
@@ -49461,6 +49462,13 @@ async function findPlanFiles(files, planPaths) {
     }
   }
   return [...found].sort();
+}
+async function readInBatches(files, paths, batchSize = 64) {
+  const texts = [];
+  for (let start = 0; start < paths.length; start += batchSize) {
+    texts.push(...await Promise.all(paths.slice(start, start + batchSize).map((path) => files.readText(path))));
+  }
+  return texts;
 }
 
 // src/run/validate.ts

@@ -43,9 +43,10 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
   const planFiles = await findPlanFiles(files, settings.planPaths);
   const problems: Problem[] = [];
   const plans: LoadedPlan[] = [];
+  const texts = await readInBatches(files, planFiles);
   for (const [index, file] of planFiles.entries()) {
     options.onProgress?.(index, planFiles.length, 'plans');
-    const result = loadPlan((await files.readText(file)) ?? '', file);
+    const result = loadPlan(texts[index] ?? '', file);
     problems.push(...(result.ok ? [] : result.errors), ...result.warnings);
     if (result.ok) plans.push(result.loaded);
   }
@@ -111,4 +112,13 @@ async function findPlanFiles(files: RepoFiles, planPaths: readonly string[]): Pr
     }
   }
   return [...found].sort();
+}
+
+/** Reads files a batch at a time: concurrent enough to hide latency, well under the open-file limit. */
+async function readInBatches(files: RepoFiles, paths: readonly string[], batchSize = 64): Promise<(string | undefined)[]> {
+  const texts: (string | undefined)[] = [];
+  for (let start = 0; start < paths.length; start += batchSize) {
+    texts.push(...(await Promise.all(paths.slice(start, start + batchSize).map((path) => files.readText(path)))));
+  }
+  return texts;
 }

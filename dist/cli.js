@@ -32584,8 +32584,13 @@ function fieldProblem(issue2, path, source, codePrefix) {
     field: formatFieldPath(path),
     message,
     expected: cleanZodMessage(issue2.message),
-    ...missing ? {} : { found: describeValue(found) }
+    ...missing ? {} : { found: describeFound(found) }
   };
+}
+function describeFound(found) {
+  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
 }
 function summaryFor(issue2) {
   switch (issue2.code) {

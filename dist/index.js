@@ -48420,8 +48420,13 @@ function fieldProblem(issue3, path, source, codePrefix) {
     field: formatFieldPath(path),
     message,
     expected: cleanZodMessage(issue3.message),
-    ...missing ? {} : { found: describeValue(found) }
+    ...missing ? {} : { found: describeFound(found) }
   };
+}
+function describeFound(found) {
+  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
 }
 function summaryFor(issue3) {
   switch (issue3.code) {
@@ -49508,8 +49513,11 @@ async function main() {
   }
   setOutput("errors", report.errors);
   setOutput("warnings", report.warnings);
-  await summary.addHeading("Plumbline: plan validation", 3).addCodeBlock(renderValidationText(report, { color: false })).write();
+  await summary.addHeading("Plumbline: plan validation", 3).addCodeBlock(escapeHtml(renderValidationText(report, { color: false }))).write();
   if (report.errors > 0) setFailed(`${report.errors} error(s) in plan files.`);
+}
+function escapeHtml(text2) {
+  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
 }
 main().catch((error63) => {
   setFailed(`internal error: ${error63 instanceof Error ? error63.stack ?? error63.message : String(error63)}

@@ -25,8 +25,13 @@ async function main(): Promise<void> {
   }
   core.setOutput('errors', report.errors);
   core.setOutput('warnings', report.warnings);
-  await core.summary.addHeading('Plumbline: plan validation', 3).addCodeBlock(renderValidationText(report, { color: false })).write();
+  await core.summary.addHeading('Plumbline: plan validation', 3).addCodeBlock(escapeHtml(renderValidationText(report, { color: false }))).write();
   if (report.errors > 0) core.setFailed(`${report.errors} error(s) in plan files.`);
+}
+
+/** Plan text reaches the job summary, which GitHub renders as HTML. */
+function escapeHtml(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
 }
 
 main().catch((error: unknown) => {

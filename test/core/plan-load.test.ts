@@ -162,3 +162,17 @@ describe('cross-field rules', () => {
     expect(codesFor(text).filter((c) => c.includes('decisions-missing'))).toEqual([]);
   });
 });
+
+describe('hints for common slips', () => {
+  it('says how to write a percentage typed as text', () => {
+    const result = loadPlan(fixture('valid/minimal.yaml').replace('rate: 0.1', 'rate: "12.5%"'), 'x.yaml');
+    expect(result.ok ? undefined : result.errors[0]?.found).toBe('the text "12.5%"; write 12.5% as 0.125');
+  });
+
+  it('accepts a byte-order mark and Windows line endings', () => {
+    const text = `\uFEFF${fixture('valid/minimal.yaml').replace(/\n/g, '\r\n')}`;
+    const result = loadPlan(text, 'x.yaml');
+    expect(result.ok).toBe(true);
+    expect(result.ok && result.loaded.line).toBe(2);
+  });
+});

@@ -101,8 +101,15 @@ function fieldProblem(issue: ZodIssueLike, path: FieldPath, source: YamlSource, 
     field: formatFieldPath(path),
     message,
     expected: cleanZodMessage(issue.message),
-    ...(missing ? {} : { found: describeValue(found) }),
+    ...(missing ? {} : { found: describeFound(found) }),
   };
+}
+
+/** Percentages typed as text are the commonest slip in plan files; say how to write them. */
+function describeFound(found: unknown): string {
+  const percent = typeof found === 'string' ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
 }
 
 function summaryFor(issue: ZodIssueLike): string {

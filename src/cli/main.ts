@@ -13,6 +13,9 @@ import { loadWorkspace } from '../run/load-workspace.js';
 import { scaffoldPlan } from '../run/scaffold.js';
 import { validateRepository } from '../run/validate.js';
 import { createCliOutput, type CliOutput } from './output.js';
+import { addSizeOptions, requestFromFlags, type SizeFlags } from './size-command.js';
+import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
+import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
 import { VERSION } from '../version.js';
 
 /** Exit codes, documented in --help and the README. */
@@ -102,6 +105,26 @@ export function buildProgram(setExit: (code: number) => void): Command {
       await writeFileAtomic(resolve(options.cwd, result.path), result.text, { overwrite: local.force });
       output.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
     });
+
+  addSizeOptions(
+    program
+      .command('size')
+      .description('size a test: units per arm, days, power and detectable effect by the planned end')
+      .argument('[plan]', 'plan id or plan file; omit to describe a metric with --kind and the flags below'),
+  ).action(async (planName: string | undefined, flags: SizeFlags) => {
+    const options = program.opts<CommonOptions>();
+    const { output, ...ports } = context({ ...options, format: 'text' });
+    if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
+    const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
+    if (!planName && !outcome.sizing.metrics[0]!.result.ok) {
+      const { error } = outcome.sizing.metrics[0]!.result;
+      throw new UsageError(`cannot size this metric: ${error.input}: ${error.message}`);
+    }
+    if (flags.format === 'json') output.out(JSON.stringify(sizingJson(outcome.sizing, outcome.context), null, 2));
+    else if (flags.format === 'markdown') output.out(renderSizingMarkdown(outcome.sizing, { ...outcome.context, power: outcome.power }));
+    else output.out(renderSizingText(outcome.sizing, outcome.context));
+    setExit(EXIT.ok);
+  });
 
   program
     .command('schema')

@@ -28,6 +28,7 @@ describe('loadPlan accepts valid plans', () => {
       sides: 2,
       trafficShare: 1,
       interimLooks: 0,
+      interimBoundary: 'obrien-fleming-spending',
       prePeriodCorrelation: 0,
     });
     expect(plan.unit).toEqual({ randomization: 'user', analysis: 'user' });
@@ -155,6 +156,11 @@ describe('cross-field rules', () => {
     ['launch-regardless without a guardrail rule', base.replace('  guardrail-breach: Stop the test.\n', ''), 'warning:plan/decisions-missing:decisions'],
   ])('%s', (_name, text, expected) => {
     expect(codesFor(text)).toContain(expected);
+  });
+
+  it('needs no cluster figures when groups are both randomized and analysed', () => {
+    const text = base.replace('randomization: team, analysis: user', 'randomization: team').replace('  cluster: { mean-size: 6.5, icc: 0.08, size-cv: 0.7 }\n', '');
+    expect(codesFor(text).filter((c) => c.includes('cluster'))).toEqual([]);
   });
 
   it('does not ask for win, flat and loss rules when the plan launches regardless', () => {

@@ -131,12 +131,13 @@ const guardrailsSayWhatHarmIs: Rule<Plan> = ({ value: plan, report }) => {
 
 const groupUnitsDescribeClusters: Rule<Plan> = ({ value: plan, report }) => {
   const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
-  if (isGroup && !plan.design.cluster) {
+  // Metrics averaged over the groups themselves need no design effect; over their members they do.
+  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
     report({
       severity: 'warning',
       code: 'plan/cluster-missing',
       path: ['design', 'cluster'],
-      message: `units are randomized by ${plan.unit.randomization}, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
+      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
       expected: 'design.cluster, e.g. { mean-size: 8, icc: 0.05 }',
     });
   }

@@ -13,6 +13,7 @@ import {
   uniqueList,
   wholeNumber,
 } from '../source/fields.js';
+import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/sequential.js';
 
 /**
  * The plan file: one YAML file per experiment, written before launch.
@@ -289,6 +290,10 @@ export const writtenPlanSchema = z
             .optional()
             .describe('Defaults to the exclusion-group slice, or 1.'),
           'interim-looks': wholeNumber('a whole number of interim analyses from 0 to 20', 0, 20).default(0),
+          'interim-boundary': z
+            .enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(', ')}` })
+            .default('obrien-fleming-spending')
+            .describe('Stopping boundary for interim looks: Lan-DeMets spending of O’Brien-Fleming or Pocock type, or the classical constant boundaries.'),
           'pre-period-correlation': z
             .number({ error: 'a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5' })
             .describe('Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).')
@@ -325,6 +330,7 @@ export const writtenPlanSchema = z
         power: 0.8,
         sides: 2,
         'interim-looks': 0,
+        'interim-boundary': 'obrien-fleming-spending',
         'pre-period-correlation': 0,
       })
       .describe('How the test is run and sized: arms, error rates, effect worth detecting, traffic.'),
@@ -422,6 +428,7 @@ export interface Plan {
     /** Share of eligible units enrolled: written, else the exclusion-group slice, else 1. */
     trafficShare: number;
     interimLooks: number;
+    interimBoundary: BoundaryKind;
     prePeriodCorrelation: number;
     cluster?: { meanSize: number; icc: number; sizeCv: number };
   };
@@ -488,6 +495,7 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
       ...(d['daily-units'] !== undefined ? { dailyUnits: d['daily-units'] } : {}),
       trafficShare: d['traffic-share'] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
       interimLooks: d['interim-looks'],
+      interimBoundary: d['interim-boundary'],
       prePeriodCorrelation: d['pre-period-correlation'],
       ...(d.cluster ? { cluster: { meanSize: d.cluster['mean-size'], icc: d.cluster.icc, sizeCv: d.cluster['size-cv'] } } : {}),
     },

@@ -33,7 +33,7 @@ export function studentQuantile(p: number, df: number): number {
 /**
  * P(T > x) for a noncentral t with `df` degrees of freedom and noncentrality `ncp`.
  * jstat sums the series of Lenth (1989) AS 243; measured against R's pt() to ~4e-8 relative
- * over df 4..1e6 and ncp 0.5..40 (test/stats/distributions.test.ts).
+ * over df 4..1e6 and ncp 0.5..40 (test/stats/r-crosscheck.test.ts).
  */
 export function noncentralTUpper(x: number, df: number, ncp: number): number {
   return 1 - jStat.noncentralt.cdf(x, df, ncp);

@@ -20,9 +20,13 @@ export interface MeanTest extends TestSettings {
   method: MeanMethod;
 }
 
-/** Smallest control arm R's power.t.test searches (2 per arm), generalized to unequal arms. */
+/**
+ * Smallest control arm searched. R's power.t.test starts its search at 2 per arm but extends it
+ * below 2 when even 2 is more than enough, so the solution may imply less than two degrees of
+ * freedom; we follow it down to 0.01 degrees of freedom. Sizing rounds every arm up to at least 2.
+ */
 export function minimumControlUnits(ratio: number): number {
-  return 4 / (1 + ratio);
+  return 2.01 / (1 + ratio);
 }
 
 function checkMoments(delta: number, sd: number): StatsResult<never> | undefined {

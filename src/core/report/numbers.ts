@@ -1,0 +1,46 @@
+/**
+ * Number formats for reports: counts with thousands separators, rates as percentages, relative
+ * changes with a sign. Every formatter refuses NaN and Infinity, so neither can reach a report.
+ */
+
+const NOT_A_NUMBER = 'n/a';
+
+export function formatCount(n: number): string {
+  return Number.isFinite(n) ? Math.round(n).toLocaleString('en-US') : NOT_A_NUMBER;
+}
+
+/** 0.1 -> "10.0%"; small rates keep two significant digits (0.0015 -> "0.15%"). */
+export function formatRate(rate: number): string {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  const percent = rate * 100;
+  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
+  return `${percent.toFixed(Math.min(digits, 4))}%`;
+}
+
+/** A signed relative change: 0.03 -> "+3%", -0.0125 -> "-1.25%". */
+export function formatRelative(change: number): string {
+  if (!Number.isFinite(change)) return NOT_A_NUMBER;
+  const percent = change * 100;
+  const text = Number(percent.toPrecision(3)).toString();
+  return `${percent >= 0 ? '+' : ''}${text}%`;
+}
+
+/** A metric value with four significant digits, without trailing zeros. */
+export function formatValue(value: number): string {
+  if (!Number.isFinite(value)) return NOT_A_NUMBER;
+  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
+  return Number(value.toPrecision(4)).toLocaleString('en-US', { maximumFractionDigits: 6 });
+}
+
+/** Power as a percentage that never claims certainty: 0.99996 -> ">99.9%". */
+export function formatPower(power: number): string {
+  if (!Number.isFinite(power)) return NOT_A_NUMBER;
+  if (power > 0.999) return '>99.9%';
+  if (power < 0.001) return '<0.1%';
+  return `${(power * 100).toFixed(1)}%`;
+}
+
+/** A multiplier: 1.0127 -> "×1.01". */
+export function formatMultiplier(m: number): string {
+  return Number.isFinite(m) ? `×${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}

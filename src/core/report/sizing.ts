@@ -1,0 +1,162 @@
+import type { MetricSizingEntry, PlanSizing } from '../stats/plan-sizing.js';
+import type { AnalysisSize, MetricSizing } from '../stats/sizing.js';
+import { formatCount, formatMultiplier, formatPower, formatRate, formatRelative, formatValue } from './numbers.js';
+import { formatTable } from './terminal-style.js';
+
+/** Everything the renderers need besides the numbers. */
+export interface SizingContext {
+  title: string;
+  /** e.g. "2 arms (control 50, shortcut 50), α 0.05 two-sided, power 80%". */
+  designLine: string;
+  window?: { start?: string; end?: string };
+}
+
+export const SIZING_JSON_FORMAT = 'plumbline.sizing/1';
+
+function valueText(entry: MetricSizingEntry, value: number): string {
+  return entry.kind === 'proportion' ? formatRate(value) : formatValue(value);
+}
+
+/** "10.0% → 10.3% (+3% relative)": absolute numbers first, the relative change beside them. */
+export function describeChange(entry: MetricSizingEntry, change: { from?: number; to: number; relative: number; absolute: number }, from: number): string {
+  const absolute =
+    entry.kind === 'proportion'
+      ? `${change.absolute >= 0 ? '+' : '-'}${Math.abs(change.absolute * 100).toPrecision(2)} pp`
+      : `${change.absolute >= 0 ? '+' : '-'}${formatValue(Math.abs(change.absolute))}`;
+  return `${valueText(entry, from)} → ${valueText(entry, change.to)} (${formatRelative(change.relative)} relative, ${absolute})`;
+}
+
+function sizeCells(size: AnalysisSize | undefined): [string, string, string, string] {
+  if (!size) return ['', '', '', ''];
+  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0]!.units) : size.perArm.map((a) => formatCount(a.units)).join(' / ');
+  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : '', size.duration ? String(size.duration.weeks) : ''];
+}
+
+interface Row {
+  entry: MetricSizingEntry;
+  cells: string[];
+}
+
+function rows(sizing: PlanSizing): Row[] {
+  return sizing.metrics.map((entry) => {
+    const role = entry.role === 'guardrail' ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
+    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, '', '', '', '', '', ''] };
+    const s = entry.result.value;
+    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : 'no effect given';
+    const end = s.atPlannedEnd;
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : '';
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== undefined ? formatPower(end.power) : '', detectable] };
+  });
+}
+
+const HEADER = ['METRIC', 'ROLE', 'EFFECT TO DETECT', 'UNITS/ARM', 'TOTAL', 'DAYS', 'WEEKS', 'POWER AT END', 'DETECTABLE BY END'];
+
+/** Sentences for every multiplier that changed the answer. */
+export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing): string[] {
+  const m = sizing.multipliers;
+  const out: string[] = [];
+  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: α ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
+  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== undefined ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ''}.`);
+  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
+  if (m.sequential > 1) out.push(`Interim looks: maximum sample ${formatMultiplier(m.sequential)} to keep the planned power.`);
+  if (sizing.diluted && sizing.triggered) {
+    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : '';
+    out.push(
+      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`,
+    );
+  }
+  return out.map((text) => `${entry.metric}: ${text}`);
+}
+
+function notesOf(sizing: PlanSizing): string[] {
+  return sizing.metrics.flatMap((entry) => (entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []));
+}
+
+function windowLine(sizing: PlanSizing, context: SizingContext): string {
+  if (sizing.plannedDays !== undefined) {
+    const dates = context.window?.start && context.window.end ? ` (${context.window.start} to ${context.window.end})` : '';
+    return `Planned window: ${sizing.plannedDays} days${dates}.`;
+  }
+  return 'Planned window: not set, so power and detectable effect at the end are not computed.';
+}
+
+export function renderSizingText(sizing: PlanSizing, context: SizingContext): string {
+  const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const traffic = sizing.dailyUnits === undefined ? 'No daily-units given, so no durations.' : '';
+  const notes = notesOf(sizing);
+  return [
+    context.title,
+    context.designLine,
+    windowLine(sizing, context),
+    ...(traffic ? [traffic] : []),
+    '',
+    table,
+    ...(notes.length ? ['', ...notes.map((n) => `- ${n}`)] : []),
+  ].join('\n');
+}
+
+function mermaidPowerChart(entry: MetricSizingEntry, sizing: MetricSizing, target: number): string | undefined {
+  const points = sizing.powerByWeek;
+  if (!points || points.length < 2) return undefined;
+  const days = points.map((p) => p.day).join(', ');
+  const power = points.map((p) => (p.power * 100).toFixed(1)).join(', ');
+  const goal = points.map(() => (target * 100).toFixed(0)).join(', ');
+  return [
+    '```mermaid',
+    'xychart-beta',
+    `  title "Power by day: ${entry.metric}"`,
+    `  x-axis "day" [${days}]`,
+    '  y-axis "power (%)" 0 --> 100',
+    `  line [${power}]`,
+    `  line [${goal}]`,
+    '```',
+  ].join('\n');
+}
+
+function markdownCell(text: string): string {
+  return text.replace(/\|/g, '\\|');
+}
+
+export function renderSizingMarkdown(sizing: PlanSizing, context: SizingContext & { power: number }): string {
+  const table = [
+    `| ${HEADER.map((h) => h.toLowerCase()).join(' | ')} |`,
+    `| ${HEADER.map(() => '---').join(' | ')} |`,
+    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(' | ')} |`),
+  ];
+  const primary = sizing.metrics.find((m) => m.role === 'primary');
+  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context.power) : undefined;
+  const notes = notesOf(sizing);
+  return [
+    `### ${context.title}`,
+    '',
+    `${context.designLine} ${windowLine(sizing, context)}`,
+    '',
+    ...table,
+    ...(notes.length ? ['', ...notes.map((n) => `- ${n}`)] : []),
+    ...(chart ? ['', `<details><summary>Power by day (the flat line is the planned ${(context.power * 100).toFixed(0)}%)</summary>`, '', chart, '', '</details>'] : []),
+    '',
+  ].join('\n');
+}
+
+export function sizingJson(sizing: PlanSizing, context: SizingContext): object {
+  return { format: SIZING_JSON_FORMAT, title: context.title, design: context.designLine, ...sizing };
+}
+
+/** One line that says which design the numbers are for. */
+export function designSummary(design: {
+  arms: { name: string; weight: number }[];
+  alpha: number;
+  sides: 1 | 2;
+  power: number;
+  dailyUnits?: number;
+  trafficShare: number;
+  reach: number;
+}): string {
+  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(', ')})`;
+  const test = `α ${formatValue(design.alpha)} ${design.sides === 2 ? 'two-sided' : 'one-sided'}, power ${formatValue(design.power * 100)}%`;
+  const traffic =
+    design.dailyUnits === undefined
+      ? ''
+      : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ''}`;
+  return `${arms}, ${test}${traffic}.`;
+}

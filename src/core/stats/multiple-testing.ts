@@ -1,0 +1,26 @@
+import { fail, ok, type StatsResult } from './result.js';
+
+/**
+ * Benjamini & Hochberg (1995) step-up adjustment: adjusted p-values as R's
+ * p.adjust(p, method = "BH") returns them; a hypothesis is rejected at false discovery rate q when
+ * its adjusted p-value is <= q.
+ */
+export function benjaminiHochberg(pValues: readonly number[]): StatsResult<number[]> {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail('p-values', 'every p-value must lie in [0, 1]');
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
+  const adjusted = new Array<number>(m);
+  let running = 1;
+  order.forEach(({ p, i }, rankFromTop) => {
+    const rank = m - rankFromTop;
+    running = Math.min(running, (p * m) / rank);
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+
+/** Bonferroni-adjusted p-values, as p.adjust(p, method = "bonferroni"). */
+export function bonferroniAdjust(pValues: readonly number[]): StatsResult<number[]> {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail('p-values', 'every p-value must lie in [0, 1]');
+  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
+}

@@ -1,0 +1,51 @@
+import { designSummary, type SizingContext } from '../core/report/sizing.js';
+import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
+import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
+import { formatProblem } from '../core/source/problem.js';
+import { UsageError } from '../errors.js';
+import { loadWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
+
+export interface SizeOutcome {
+  sizing: PlanSizing;
+  context: SizingContext;
+  power: number;
+}
+
+/** Sizes a plan of the repository, named by id or by file path. */
+export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: string }): Promise<SizeOutcome> {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) throw new UsageError(`the settings file has errors:\n${loaded.settingsProblems.map(formatProblem).join('\n')}`, 'run plumbline validate');
+  const wanted = options.plan.replace(/^\.\//, '');
+  const found = loaded.workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  if (!found) {
+    const broken = loaded.workspace.problems.filter((p) => p.file === wanted && p.severity === 'error');
+    if (broken.length) throw new UsageError(`${wanted} has errors:\n${broken.map(formatProblem).join('\n')}`, 'fix them, then size again');
+    const known = loaded.workspace.plans.map((p) => p.plan.id);
+    throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(', ')}` : 'create one with plumbline new <flag-key>');
+  }
+  const { plan } = found;
+  return {
+    sizing: sizePlan(plan),
+    power: plan.design.power,
+    context: {
+      title: `Sizing for ${plan.id} (${found.file})`,
+      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
+      window: plan.window,
+    },
+  };
+}
+
+/** Sizes one metric described entirely by command-line flags. */
+export function sizeFromRequest(request: SizingRequest, window?: { start: string; end: string }): SizeOutcome {
+  const sizing: PlanSizing = {
+    planId: 'command-line',
+    ...(request.plannedDays !== undefined ? { plannedDays: request.plannedDays } : {}),
+    ...(request.dailyUnits !== undefined ? { dailyUnits: request.dailyUnits } : {}),
+    metrics: [{ metric: 'metric', role: 'primary', kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }],
+  };
+  return {
+    sizing,
+    power: request.power,
+    context: { title: 'Sizing from the command line', designLine: designSummary(request), ...(window ? { window } : {}) },
+  };
+}

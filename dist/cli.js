@@ -36219,7 +36219,18 @@ function sequentialPower(z2, sides, eta) {
   const { crossings } = walk(z2.length, sides, eta, (k) => z2[k - 1]);
   return crossings.upper.reduce((a, b) => a + b, 0);
 }
+var remembered = /* @__PURE__ */ new Map();
+var REMEMBER_AT_MOST = 256;
 function sequentialInflation(design, power) {
+  const key = `${design.kind}:${design.looks}:${design.alpha}:${design.sides}:${power}`;
+  const known = remembered.get(key);
+  if (known) return known;
+  const computed = integrateInflation(design, power);
+  if (remembered.size >= REMEMBER_AT_MOST) remembered.delete(remembered.keys().next().value);
+  remembered.set(key, computed);
+  return computed;
+}
+function integrateInflation(design, power) {
   if (!(power > design.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
@@ -37648,10 +37659,20 @@ function createCliOutput(options) {
 function addSizeOptions(command) {
   return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "expected new eligible units per day").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
 }
+var EXAMPLES = {
+  baseline: "0.12 (a rate) or 42.5 (a mean)",
+  sd: "30",
+  effect: "0.03 (3% relative)",
+  alpha: "0.05",
+  power: "0.8",
+  arms: "50,50",
+  "daily-units": "12000",
+  days: "28"
+};
 function number4(flag, text2) {
   const value = Number(text2);
   if (text2 === void 0 || text2.trim() === "" || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} 0.05`);
+    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
   }
   return value;
 }
@@ -37795,8 +37816,8 @@ function renderSizingText(sizing, context2) {
   ].join("\n");
 }
 function mermaidPowerChart(entry, sizing, target) {
-  const points = sizing.powerByWeek;
-  if (!points || points.length < 2) return void 0;
+  const points = sizing.powerByDay;
+  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
   const days = points.map((p) => p.day).join(", ");
   const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
   const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
@@ -38026,7 +38047,7 @@ function effectIn(effect, value, kind) {
   if (value === 0) return fail("effect", `a relative effect of a ${kind} whose baseline is 0 is 0; give an absolute effect`);
   return ok(Math.abs(value) * effect.relative);
 }
-var EXACT_T_LIMIT = 1e5;
+var EXACT_T_LIMIT = 1e3;
 function chooseMethod(request, normal, enrolledPerDay) {
   if (request.method === "normal" || request.method === "exact") return request.method;
   if (request.baseline.kind === "proportion") return "normal";
@@ -38155,13 +38176,15 @@ function sizeMetric(request) {
     }
   }
   const headline = diluted ?? triggered;
-  let powerByWeek;
+  let powerByDay;
   if (effect && enrolledPerDay !== void 0 && headline?.duration) {
-    const lastWeek = Math.min(26, Math.max(headline.duration.weeks, Math.ceil((request.plannedDays ?? 0) / 7)) + 1);
-    powerByWeek = [];
-    for (let week = 1; week <= lastWeek; week++) {
-      const p = powerAt(week * 7 * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
-      if (p.ok) powerByWeek.push({ day: week * 7, power: p.value });
+    const horizon = Math.max(headline.duration.days, request.plannedDays ?? 0);
+    const step = horizon <= 21 ? 1 : 7;
+    const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
+    powerByDay = [];
+    for (let day = step; day <= last; day += step) {
+      const p = powerAt(day * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
+      if (p.ok) powerByDay.push({ day, power: p.value });
     }
   }
   return ok({
@@ -38181,7 +38204,7 @@ function sizeMetric(request) {
     ...diluted ? { diluted } : {},
     ...headline ? { headline } : {},
     ...atPlannedEnd ? { atPlannedEnd } : {},
-    ...powerByWeek ? { powerByWeek } : {},
+    ...powerByDay ? { powerByDay } : {},
     notes
   });
 }

@@ -6,6 +6,9 @@ import { spawnSync } from 'node:child_process';
 const steps = [
   { title: 'Validate every plan, registry file and the settings file', args: ['validate'] },
   { title: 'The registry of tests', args: ['list'] },
+  { title: 'Sizing a clean plan', args: ['size', 'basket-reorder-shortcut'] },
+  { title: 'Sizing a plan that logs exposure too early in the journey', args: ['size', 'search-suggestions-v2'] },
+  { title: 'Sizing a test that randomizes households', args: ['size', 'shared-list-invite'] },
 ];
 
 let broken = false;

@@ -61,10 +61,21 @@ export function addSizeOptions(command: Command): Command {
     .addOption(new Option('--method <method>', 'mean and ratio metrics: exact t, normal approximation, or auto').choices(['auto', 'exact', 'normal']).default('auto'));
 }
 
+const EXAMPLES: Record<string, string> = {
+  baseline: '0.12 (a rate) or 42.5 (a mean)',
+  sd: '30',
+  effect: '0.03 (3% relative)',
+  alpha: '0.05',
+  power: '0.8',
+  arms: '50,50',
+  'daily-units': '12000',
+  days: '28',
+};
+
 function number(flag: string, text: string | undefined): number {
   const value = Number(text);
   if (text === undefined || text.trim() === '' || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text ?? '')}`, `e.g. --${flag} 0.05`);
+    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text ?? '')}`, `e.g. --${flag} ${EXAMPLES[flag] ?? '0.5'}`);
   }
   return value;
 }

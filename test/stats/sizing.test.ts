@@ -4,7 +4,8 @@ import { loadPlan } from '../../src/core/plan/load.js';
 import { proportionSampleSize } from '../../src/core/stats/proportion.js';
 import { sequentialInflation } from '../../src/core/stats/sequential.js';
 import { sizePlan } from '../../src/core/stats/plan-sizing.js';
-import { sizeMetric, type SizingRequest } from '../../src/core/stats/sizing.js';
+import { EXACT_T_LIMIT, sizeMetric, type SizingRequest } from '../../src/core/stats/sizing.js';
+import { meanSampleSize } from '../../src/core/stats/mean.js';
 
 const base: SizingRequest = {
   baseline: { kind: 'proportion', rate: 0.1 },
@@ -106,13 +107,21 @@ describe('sizeMetric', () => {
     expect(long.notes).toEqual([]);
   });
 
-  it('draws power by week, rising to the target at the needed duration', () => {
+  it('draws power by week for long tests, rising to the target at the needed duration', () => {
     const s = sized({ dailyUnits: 1000, plannedDays: 84 });
-    const curve = s.powerByWeek!;
-    expect(curve[0]!.day).toBe(7);
+    const curve = s.powerByDay!;
+    expect(curve.map((p) => p.day).slice(0, 3)).toEqual([7, 14, 21]);
     for (let i = 1; i < curve.length; i++) expect(curve[i]!.power).toBeGreaterThan(curve[i - 1]!.power);
     const weeks = s.headline!.duration!.weeks;
     expect(curve[weeks - 1]!.power).toBeGreaterThanOrEqual(0.8 - 1e-9);
+    expect(curve[weeks - 2]!.power).toBeLessThan(0.8);
+  });
+
+  it('draws power by day for short tests', () => {
+    const s = sized({ dailyUnits: 20_000, plannedDays: 14 });
+    const days = s.headline!.duration!.days;
+    expect(s.powerByDay!.map((p) => p.day)).toEqual(Array.from({ length: 15 }, (_, i) => i + 1));
+    expect(s.powerByDay![days - 1]!.power).toBeGreaterThanOrEqual(0.8 - 1e-9);
   });
 
   it('sizes a ratio metric with the delta-method standard deviation', () => {
@@ -139,6 +148,26 @@ describe('sizeMetric', () => {
       expect(result.error.input).toBe(input);
       expect(result.error.message).not.toMatch(/NaN|Infinity|undefined/);
     }
+  });
+});
+
+describe('exact and normal calculations for means', () => {
+  it.each([0.3, 0.1, 0.03, 0.01])('differ by less than one unit per arm (standardized effect %s)', (d) => {
+    const test = { alpha: 0.05, sides: 2 as const, ratio: 1, delta: d, sd: 1 };
+    const exact = meanSampleSize({ ...test, method: 'exact' }, 0.8);
+    const normal = meanSampleSize({ ...test, method: 'normal' }, 0.8);
+    expect(exact.ok && normal.ok).toBe(true);
+    if (exact.ok && normal.ok) {
+      expect(exact.value - normal.value).toBeGreaterThan(0);
+      expect(exact.value - normal.value).toBeLessThan(1);
+    }
+  });
+
+  it('auto uses the exact calculation below EXACT_T_LIMIT control units', () => {
+    const small = sized({ baseline: { kind: 'mean', mean: 10, sd: 5 }, effect: { relative: 0.1 } });
+    const exact = sized({ baseline: { kind: 'mean', mean: 10, sd: 5 }, effect: { relative: 0.1 }, method: 'exact' });
+    expect(small.headline).toEqual(exact.headline);
+    expect(small.headline!.perArm[0]!.units).toBeLessThan(EXACT_T_LIMIT);
   });
 });
 

@@ -96,8 +96,9 @@ export function renderSizingText(sizing: PlanSizing, context: SizingContext): st
 }
 
 function mermaidPowerChart(entry: MetricSizingEntry, sizing: MetricSizing, target: number): string | undefined {
-  const points = sizing.powerByWeek;
-  if (!points || points.length < 2) return undefined;
+  const points = sizing.powerByDay;
+  // A curve that is already at full power on its first day says nothing a table does not.
+  if (!points || points.length < 3 || points[0]!.power > 0.99) return undefined;
   const days = points.map((p) => p.day).join(', ');
   const power = points.map((p) => (p.power * 100).toFixed(1)).join(', ');
   const goal = points.map(() => (target * 100).toFixed(0)).join(', ');

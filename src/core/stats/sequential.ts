@@ -190,8 +190,27 @@ export interface SequentialInflation {
   expectedUnderAlternative: number;
 }
 
+/**
+ * Designs are few (a handful of boundary kinds, looks and levels) while plans are many, and each
+ * design costs tens of milliseconds to integrate; the answers are remembered. Pure: the same
+ * inputs always give the same value.
+ */
+const remembered = new Map<string, StatsResult<SequentialInflation>>();
+const REMEMBER_AT_MOST = 256;
+
 /** The maximum-sample-size inflation factor R that keeps `power` (Jennison & Turnbull's R_P and R_B). */
 export function sequentialInflation(design: SequentialDesign, power: number): StatsResult<SequentialInflation> {
+  const key = `${design.kind}:${design.looks}:${design.alpha}:${design.sides}:${power}`;
+  const known = remembered.get(key);
+  if (known) return known;
+  const computed = integrateInflation(design, power);
+  if (remembered.size >= REMEMBER_AT_MOST) remembered.delete(remembered.keys().next().value!);
+  remembered.set(key, computed);
+  return computed;
+}
+
+/** The same as sequentialInflation, always integrated afresh (what the cache saves). */
+export function integrateInflation(design: SequentialDesign, power: number): StatsResult<SequentialInflation> {
   if (!(power > design.alpha && power < 1)) return fail('power', `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;

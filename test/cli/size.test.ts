@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { runCli } from './helpers.js';
+
+const demo = ['-C', 'demo/repo'];
+
+describe('plumbline size', () => {
+  it('sizes a demo plan by id: absolute numbers beside relative changes, and the multipliers that applied', () => {
+    const run = runCli([...demo, 'size', 'checkout-tip-prompt']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('Sizing for checkout-tip-prompt (experiments/checkout-tip-prompt.yaml)');
+    expect(run.stdout).toContain('3 arms (control 34, fixed-amounts 33, percent-of-order 33), α 0.05 two-sided, power 80%');
+    expect(run.stdout).toMatch(/tip-added\s+primary \(2-sided\)\s+6\.00% → 6\.90% \(\+15% relative, \+0\.90 pp\)/);
+    expect(run.stdout).toContain('tip-added: 2 treatment arms against one control: α 0.025 per comparison (Bonferroni).');
+    expect(run.stdout).toContain('tip-added: Interim looks: maximum sample ×1.01 to keep the planned power.');
+  });
+
+  it('sizes by file path and reports exposure dilution in days', () => {
+    const run = runCli([...demo, 'size', 'experiments/shared-list-invite.yaml']);
+    expect(run.stdout).toMatch(/design effect ×1\.53 on units, [\d,]+ groups in all/);
+    expect(run.stdout).toMatch(/needs ×[\d.]+ the units and ×[\d.]+ the days of an analysis of reached units \(\d+ days\)/);
+  });
+
+  it('speaks JSON with no NaN, Infinity or null anywhere', () => {
+    const run = runCli([...demo, 'size', 'search-suggestions-v2', '--format', 'json']);
+    expect(run.stdout).not.toMatch(/NaN|Infinity|null/);
+    const report = JSON.parse(run.stdout);
+    expect(report.format).toBe('plumbline.sizing/1');
+    expect(report.metrics[0]).toMatchObject({ metric: 'suggestion-clicks-per-search', role: 'primary', result: { ok: true } });
+    expect(report.metrics[0].result.value.multipliers.dilutionUnits).toBeGreaterThan(2);
+  });
+
+  it('writes Markdown with a Mermaid power chart when the curve says something', () => {
+    const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.03', '--daily-units', '5000', '--days', '28', '--format', 'markdown']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('```mermaid\nxychart-beta\n  title "Power by day: metric"');
+    expect(run.stdout).toContain('The planned 28 days give 46% power, below the planned 80%.');
+  });
+
+  it('sizes from flags: mean, ratio, clusters and looks', () => {
+    const mean = runCli(['size', '--kind', 'mean', '--baseline', '42.5', '--sd', '30', '--effect', '0.02', '--daily-units', '3000', '--interim-looks', '2', '--boundary', 'pocock']);
+    expect(mean.status).toBe(0);
+    expect(mean.stdout).toMatch(/42\.5 → 43\.35 \(\+2% relative, \+0\.85\)/);
+    expect(mean.stdout).toMatch(/Interim looks: maximum sample ×1\.1\d/);
+    const ratio = runCli(['size', '--kind', 'ratio', '--numerator', '0.9,1.4', '--denominator', '3.2,2.5', '--correlation', '0.55', '--effect', '0.05', '--cluster-size', '4', '--icc', '0.1']);
+    expect(ratio.status).toBe(0);
+    expect(ratio.stdout).toContain('design effect ×1.30 on units');
+  });
+
+  it.each([
+    [['size'], 'name a plan (id or file), or describe the metric with --kind'],
+    [['size', '--kind', 'proportion', '--baseline', 'ten'], '--baseline needs a number; got "ten"'],
+    [['size', '--kind', 'proportion', '--baseline', '0.95', '--effect', '0.1'], 'cannot size this metric: effect: the effect takes the rate from 0.95 to 1.045, outside (0, 1)'],
+    [['size', '--kind', 'proportion', '--baseline', '1', '--effect', '0.1'], 'baseline.rate'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--power', '0.04'], 'power (0.04) must exceed the significance level (0.05)'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '0'], 'zero traffic'],
+    [['-C', 'demo/repo', 'size', 'nope'], 'no plan "nope" in this repository'],
+  ])('refuses %j with a clear message and exit code 2', (args, message) => {
+    const run = runCli(args);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain(message);
+    expect(run.stderr).not.toMatch(/\n\s+at /);
+  });
+});

@@ -36015,6 +36015,9 @@ var { jStat } = import_jstat.default;
 function normalCdf(x) {
   return x < 0 ? 0.5 * jStat.erfc(-x / Math.SQRT2) : 1 - 0.5 * jStat.erfc(x / Math.SQRT2);
 }
+function normalUpper(x) {
+  return normalCdf(-x);
+}
 function normalQuantile(p) {
   return jStat.normal.inv(p, 0, 1);
 }
@@ -36023,6 +36026,11 @@ function studentQuantile(p, df) {
 }
 function noncentralTUpper(x, df, ncp) {
   return 1 - jStat.noncentralt.cdf(x, df, ncp);
+}
+function chiSquareUpper(x, df) {
+  if (x <= 0) return 1;
+  if (df === 1) return 2 * normalUpper(Math.sqrt(x));
+  return Math.max(0, 1 - jStat.lowRegGamma(df / 2, x / 2));
 }
 
 // src/core/stats/root.ts
@@ -38314,6 +38322,72 @@ function sizeFromRequest(request, window) {
   };
 }
 
+// src/core/report/readout.ts
+var SRM_JSON_FORMAT = "plumbline.srm/1";
+var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
+function formatP(p) {
+  if (p < 1e-12) return "< 1e-12";
+  return p < 1e-3 ? p.toExponential(2) : p.toFixed(4);
+}
+function renderSrmText(check2, observed, weights, threshold) {
+  const total = observed.reduce((a, b) => a + b, 0);
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const rows2 = observed.map((o, i) => [
+    `arm ${i + 1}`,
+    `${(weights[i] / weightSum * 100).toFixed(1)}%`,
+    formatCount(o),
+    formatCount(check2.expected[i]),
+    `${(o / total * 100).toFixed(2)}%`
+  ]);
+  const verdict = check2.mismatch ? `Sample ratio mismatch: p = ${formatP(check2.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check2.pValue)} (alarm below ${threshold}).`;
+  return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check2.statistic.toFixed(3)} on ${check2.degreesOfFreedom} df. ${verdict}`].join("\n");
+}
+function renderAdjustedText(pValues, bh, bonferroni, q) {
+  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni[i]), bonferroni[i] <= q ? "yes" : "no"]);
+  const found = (list) => list.filter((x) => x <= q).length;
+  return [
+    formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
+    "",
+    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni)}.`
+  ].join("\n");
+}
+
+// src/core/stats/srm.ts
+var SRM_ALARM_P = 5e-4;
+function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
+  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
+  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
+  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
+  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
+  const total = observed.reduce((a, b) => a + b, 0);
+  if (total === 0) return fail("observed", "no units observed yet");
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const expected = weights.map((w) => total * w / weightSum);
+  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
+  const degreesOfFreedom = observed.length - 1;
+  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
+  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
+}
+
+// src/core/stats/multiple-testing.ts
+function benjaminiHochberg(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
+  const adjusted = new Array(m);
+  let running = 1;
+  order.forEach(({ p, i }, rankFromTop) => {
+    const rank = m - rankFromTop;
+    running = Math.min(running, p * m / rank);
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+function bonferroniAdjust(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
+}
+
 // src/version.ts
 var VERSION = "0.1.0";
 
@@ -38329,6 +38403,13 @@ function reportSettingsProblems(output2, format, file2, problems) {
   if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
   else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
   return EXIT.usage;
+}
+function parseNumbers(what, texts) {
+  return texts.map((text2) => {
+    const value = Number(text2);
+    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
+    return value;
+  });
 }
 function buildProgram(setExit) {
   const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
@@ -38376,6 +38457,29 @@ function buildProgram(setExit) {
     if (flags.format === "json") output2.out(JSON.stringify(sizingJson(outcome.sizing, outcome.context), null, 2));
     else if (flags.format === "markdown") output2.out(renderSizingMarkdown(outcome.sizing, { ...outcome.context, power: outcome.power }));
     else output2.out(renderSizingText(outcome.sizing, outcome.context));
+    setExit(EXIT.ok);
+  });
+  program2.command("srm").description("sample ratio mismatch: do the units seen per arm fit the planned weights?").argument("<counts...>", "units observed in each arm, control first, e.g. 50412 49288").option("--weights <weights>", "planned weights, e.g. 50,50 (default: equal)").option("--threshold <p>", "alarm below this p-value", String(SRM_ALARM_P)).addOption(formatOption()).action((counts, local) => {
+    const observed = parseNumbers("counts", counts);
+    const weights = local.weights ? parseNumbers("weights", local.weights.split(",")) : observed.map(() => 1);
+    const threshold = parseNumbers("threshold", [local.threshold])[0];
+    const check2 = sampleRatioMismatch(observed, weights, threshold);
+    if (!check2.ok) throw new UsageError(`${check2.error.input}: ${check2.error.message}`);
+    const output2 = createCliOutput({ noColorFlag: true });
+    output2.out(local.format === "json" ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check2.value }, null, 2) : renderSrmText(check2.value, observed, weights, threshold));
+    setExit(check2.value.mismatch ? EXIT.findings : EXIT.ok);
+  });
+  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
+    const p = parseNumbers("p-values", values);
+    const q = parseNumbers("q", [local.q])[0];
+    const bh = benjaminiHochberg(p);
+    const bonferroni = bonferroniAdjust(p);
+    if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
+    if (!bonferroni.ok) throw new UsageError(`${bonferroni.error.input}: ${bonferroni.error.message}`);
+    const output2 = createCliOutput({ noColorFlag: true });
+    output2.out(
+      local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni.value }, null, 2) : renderAdjustedText(p, bh.value, bonferroni.value, q)
+    );
     setExit(EXIT.ok);
   });
   program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {

@@ -16,6 +16,9 @@ import { createCliOutput, type CliOutput } from './output.js';
 import { addSizeOptions, requestFromFlags, type SizeFlags } from './size-command.js';
 import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
 import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
+import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText } from '../core/report/readout.js';
+import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
+import { benjaminiHochberg, bonferroniAdjust } from '../core/stats/multiple-testing.js';
 import { VERSION } from '../version.js';
 
 /** Exit codes, documented in --help and the README. */
@@ -40,6 +43,14 @@ function reportSettingsProblems(output: CliOutput, format: string, file: string,
   if (format === 'json') output.out(JSON.stringify({ format: 'plumbline.settings-errors/1', settingsFile: file, problems }, null, 2));
   else output.err([`The settings file ${file} has errors:`, ...problems.map(formatProblem)].join('\n'));
   return EXIT.usage;
+}
+
+function parseNumbers(what: string, texts: readonly string[]): number[] {
+  return texts.map((text) => {
+    const value = Number(text);
+    if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text)} is not a number`);
+    return value;
+  });
 }
 
 export function buildProgram(setExit: (code: number) => void): Command {
@@ -125,6 +136,46 @@ export function buildProgram(setExit: (code: number) => void): Command {
     else output.out(renderSizingText(outcome.sizing, outcome.context));
     setExit(EXIT.ok);
   });
+
+  program
+    .command('srm')
+    .description('sample ratio mismatch: do the units seen per arm fit the planned weights?')
+    .argument('<counts...>', 'units observed in each arm, control first, e.g. 50412 49288')
+    .option('--weights <weights>', 'planned weights, e.g. 50,50 (default: equal)')
+    .option('--threshold <p>', 'alarm below this p-value', String(SRM_ALARM_P))
+    .addOption(formatOption())
+    .action((counts: string[], local: { weights?: string; threshold: string; format: string }) => {
+      const observed = parseNumbers('counts', counts);
+      const weights = local.weights ? parseNumbers('weights', local.weights.split(',')) : observed.map(() => 1);
+      const threshold = parseNumbers('threshold', [local.threshold])[0]!;
+      const check = sampleRatioMismatch(observed, weights, threshold);
+      if (!check.ok) throw new UsageError(`${check.error.input}: ${check.error.message}`);
+      const output = createCliOutput({ noColorFlag: true });
+      output.out(local.format === 'json' ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check.value }, null, 2) : renderSrmText(check.value, observed, weights, threshold));
+      setExit(check.value.mismatch ? EXIT.findings : EXIT.ok);
+    });
+
+  program
+    .command('adjust')
+    .description('adjust p-values for multiple comparisons (Benjamini-Hochberg and Bonferroni)')
+    .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
+    .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
+    .addOption(formatOption())
+    .action((values: string[], local: { q: string; format: string }) => {
+      const p = parseNumbers('p-values', values);
+      const q = parseNumbers('q', [local.q])[0]!;
+      const bh = benjaminiHochberg(p);
+      const bonferroni = bonferroniAdjust(p);
+      if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
+      if (!bonferroni.ok) throw new UsageError(`${bonferroni.error.input}: ${bonferroni.error.message}`);
+      const output = createCliOutput({ noColorFlag: true });
+      output.out(
+        local.format === 'json'
+          ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni.value }, null, 2)
+          : renderAdjustedText(p, bh.value, bonferroni.value, q),
+      );
+      setExit(EXIT.ok);
+    });
 
   program
     .command('schema')

@@ -8,7 +8,25 @@ const SKIPPED_FOLDERS = new Set(['.git', 'node_modules']);
 
 /** RepoFiles over a folder on disk. */
 export function createRepoFiles(root: string): RepoFiles {
+  const readText = async (path: string): Promise<string | undefined> => {
+    try {
+      return await readFile(join(root, path), 'utf8');
+    } catch (error) {
+      if (isCode(error, 'ENOENT')) return undefined;
+      if (isCode(error, 'EISDIR')) throw new ExternalError(`${path} is a folder, not a file`);
+      throw new ExternalError(`cannot read ${path}`, undefined, { cause: error });
+    }
+  };
   return {
+    readText,
+    async readTexts(paths) {
+      // A batch at a time: concurrent enough to hide latency, well under the open-file limit.
+      const texts: (string | undefined)[] = [];
+      for (let start = 0; start < paths.length; start += 64) {
+        texts.push(...(await Promise.all(paths.slice(start, start + 64).map(readText))));
+      }
+      return texts;
+    },
     async listFiles(folder) {
       const start = join(root, folder);
       const found: string[] = [];
@@ -30,15 +48,6 @@ export function createRepoFiles(root: string): RepoFiles {
       };
       await walk(start);
       return found.sort();
-    },
-    async readText(path) {
-      try {
-        return await readFile(join(root, path), 'utf8');
-      } catch (error) {
-        if (isCode(error, 'ENOENT')) return undefined;
-        if (isCode(error, 'EISDIR')) throw new ExternalError(`${path} is a folder, not a file`);
-        throw new ExternalError(`cannot read ${path}`, undefined, { cause: error });
-      }
     },
   };
 }

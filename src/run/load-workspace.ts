@@ -43,7 +43,7 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
   const planFiles = await findPlanFiles(files, settings.planPaths);
   const problems: Problem[] = [];
   const plans: LoadedPlan[] = [];
-  const texts = await readInBatches(files, planFiles);
+  const texts = await files.readTexts(planFiles);
   for (const [index, file] of planFiles.entries()) {
     options.onProgress?.(index, planFiles.length, 'plans');
     const result = loadPlan(texts[index] ?? '', file);
@@ -114,11 +114,3 @@ async function findPlanFiles(files: RepoFiles, planPaths: readonly string[]): Pr
   return [...found].sort();
 }
 
-/** Reads files a batch at a time: concurrent enough to hide latency, well under the open-file limit. */
-async function readInBatches(files: RepoFiles, paths: readonly string[], batchSize = 64): Promise<(string | undefined)[]> {
-  const texts: (string | undefined)[] = [];
-  for (let start = 0; start < paths.length; start += batchSize) {
-    texts.push(...(await Promise.all(paths.slice(start, start + batchSize).map((path) => files.readText(path)))));
-  }
-  return texts;
-}

@@ -1,0 +1,69 @@
+import type { FileDiff } from './diff.js';
+import { constantDefinition } from './patterns.js';
+
+/** A changed line that evaluates, defines or names a feature flag. */
+export interface FlagTouch {
+  key: string;
+  file: string;
+  line: number;
+  /** Whether the line was added (head side) or removed (base side). */
+  side: 'added' | 'removed';
+  /** How the key was found: an evaluation call with a literal or a constant, a known key in a string, or a flag definition file. */
+  via: 'call' | 'constant' | 'literal' | 'definition';
+}
+
+export interface FlagTouchInputs {
+  diffs: readonly FileDiff[];
+  /** Compiled flag-call patterns (with the g flag). */
+  patterns: readonly RegExp[];
+  /** Keys Plumbline already knows (plans, exemptions, flag files): a string equal to one counts as touching it. */
+  knownKeys: ReadonlySet<string>;
+  /** Text of a changed file on either side, to resolve constants; undefined when unknown. */
+  textOf(side: 'added' | 'removed', path: string): string | undefined;
+}
+
+const QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
+
+/** Finds every flag key a change touches in code. Flag definition files are handled by flagDefinitionTouches. */
+export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
+  const touches: FlagTouch[] = [];
+  const seen = new Set<string>();
+  const add = (touch: FlagTouch) => {
+    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
+    if (!seen.has(id)) {
+      seen.add(id);
+      touches.push(touch);
+    }
+  };
+  for (const diff of inputs.diffs) {
+    if (diff.binary) continue;
+    for (const side of ['added', 'removed'] as const) {
+      const file = side === 'removed' ? (diff.previousPath ?? diff.path) : diff.path;
+      for (const { line, text } of diff[side]) {
+        for (const pattern of inputs.patterns) {
+          pattern.lastIndex = 0;
+          for (const match of text.matchAll(pattern)) {
+            const groups = match.groups ?? {};
+            if (groups.key) add({ key: groups.key, file, line, side, via: 'call' });
+            else if (groups.ident) {
+              const key = resolveConstant(inputs.textOf(side, file), groups.ident);
+              if (key) add({ key, file, line, side, via: 'constant' });
+            }
+          }
+        }
+        QUOTED.lastIndex = 0;
+        for (const match of text.matchAll(QUOTED)) {
+          if (inputs.knownKeys.has(match[2]!)) add({ key: match[2]!, file, line, side, via: 'literal' });
+        }
+      }
+    }
+  }
+  return touches;
+}
+
+/** The string a constant holds, looked up where it is defined in the same file (last segment of a dotted name). */
+function resolveConstant(text: string | undefined, ident: string): string | undefined {
+  if (!text) return undefined;
+  const name = ident.slice(ident.lastIndexOf('.') + 1);
+  return constantDefinition(name).exec(text)?.groups?.key;
+}

@@ -1,0 +1,49 @@
+/**
+ * Built-in patterns for code that evaluates a feature flag or logs an event. Each is a regular
+ * expression (JavaScript syntax) with a named group `key` (a flag key written as a string
+ * literal), `ident` (a constant holding the key) or `event`. Settings add patterns and may turn
+ * these off (`builtin-patterns: false`).
+ *
+ * The flag patterns cover the OpenFeature evaluation API (an open standard) as its SDKs spell it in
+ * each language, plus common helper names.
+ */
+
+const Q = `(?<q>["'\`])`;
+const KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
+const IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
+const TYPES = '(?:Boolean|String|Number|Integer|Int|Double|Float|Object)';
+const TYPES_SNAKE = '(?:boolean|string|number|integer|float|object)';
+
+/** The first argument of an evaluation call: a literal key, or a constant that holds it. */
+const either = (prefix: string) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
+
+export const BUILTIN_FLAG_PATTERNS: readonly string[] = [
+  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
+  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
+  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
+  // Python: client.get_boolean_value("key", False)
+  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
+  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
+  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx)
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*\\s*,\\s*`),
+  // React: useBooleanFlagValue('key', false), useFlag('key', default)
+  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
+  // Helpers many codebases write around their flag client.
+  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`),
+];
+
+export const BUILTIN_LOG_PATTERNS: readonly string[] = [
+  `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`,
+];
+
+/** Where a constant's value is written: `const X = 'k'`, `X = "k"`, `static final String X = "k";`, `X: "k"`. */
+export function constantDefinition(name: string): RegExp {
+  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, 'mu');
+}
+
+/** Compiles patterns once; the `g` flag lets one line hold several calls. */
+export function compilePatterns(patterns: readonly string[]): RegExp[] {
+  return patterns.map((p) => new RegExp(p, 'gu'));
+}

@@ -3766,15 +3766,15 @@ var require_jstat = __commonJS({
           return rl;
         };
         jStat3.slice = /* @__PURE__ */ (function() {
-          function _slice(list, start, end, step) {
+          function _slice(list2, start, end, step) {
             var i;
             var rl = [];
-            var length = list.length;
+            var length = list2.length;
             if (start === undefined2 && end === undefined2 && step === undefined2) {
-              return jStat3.copy(list);
+              return jStat3.copy(list2);
             }
             start = start || 0;
-            end = end || list.length;
+            end = end || list2.length;
             start = start >= 0 ? start : length + start;
             end = end >= 0 ? end : length + end;
             step = step || 1;
@@ -3789,33 +3789,33 @@ var require_jstat = __commonJS({
             }
             if (step > 0) {
               for (i = start; i < end; i += step) {
-                rl.push(list[i]);
+                rl.push(list2[i]);
               }
             } else {
               for (i = start; i > end; i += step) {
-                rl.push(list[i]);
+                rl.push(list2[i]);
               }
             }
             return rl;
           }
-          function slice2(list, rcSlice) {
+          function slice2(list2, rcSlice) {
             var colSlice, rowSlice;
             rcSlice = rcSlice || {};
             if (isNumber(rcSlice.row)) {
               if (isNumber(rcSlice.col))
-                return list[rcSlice.row][rcSlice.col];
-              var row = jStat3.rowa(list, rcSlice.row);
+                return list2[rcSlice.row][rcSlice.col];
+              var row = jStat3.rowa(list2, rcSlice.row);
               colSlice = rcSlice.col || {};
               return _slice(row, colSlice.start, colSlice.end, colSlice.step);
             }
             if (isNumber(rcSlice.col)) {
-              var col = jStat3.cola(list, rcSlice.col);
+              var col = jStat3.cola(list2, rcSlice.col);
               rowSlice = rcSlice.row || {};
               return _slice(col, rowSlice.start, rowSlice.end, rowSlice.step);
             }
             rowSlice = rcSlice.row || {};
             colSlice = rcSlice.col || {};
-            var rows2 = _slice(list, rowSlice.start, rowSlice.end, rowSlice.step);
+            var rows2 = _slice(list2, rowSlice.start, rowSlice.end, rowSlice.step);
             return rows2.map(function(row2) {
               return _slice(row2, colSlice.start, colSlice.end, colSlice.step);
             });
@@ -4814,8 +4814,8 @@ var require_jstat = __commonJS({
         })("randn".split(" "));
       })(jStat2, Math);
       (function(jStat3, Math2) {
-        (function(list) {
-          for (var i = 0; i < list.length; i++) (function(func) {
+        (function(list2) {
+          for (var i = 0; i < list2.length; i++) (function(func) {
             jStat3[func] = function f(a, b, c) {
               if (!(this instanceof f))
                 return new f(a, b, c);
@@ -4864,7 +4864,7 @@ var require_jstat = __commonJS({
                 };
               })(vals[i2]);
             })("mean median mode variance".split(" "));
-          })(list[i]);
+          })(list2[i]);
         })("beta centralF cauchy chisquare exponential gamma invgamma kumaraswamy laplace lognormal noncentralt normal pareto studentt weibull uniform binomial negbin hypgeom poisson triangular tukey arcsine".split(" "));
         jStat3.extend(jStat3.beta, {
           pdf: function pdf(x, alpha, beta) {
@@ -6469,17 +6469,17 @@ var require_jstat = __commonJS({
                 array_mode = true;
               }
               var QR = jStat3.QR(A);
-              var Q = QR[0];
+              var Q2 = QR[0];
               var R = QR[1];
               var attrs = A[0].length;
-              var Q1 = jStat3.slice(Q, { col: { end: attrs } });
+              var Q1 = jStat3.slice(Q2, { col: { end: attrs } });
               var R1 = jStat3.slice(R, { row: { end: attrs } });
               var RI = R_I(R1);
-              var Q2 = jStat3.transpose(Q1);
-              if (Q2[0].length === void 0) {
-                Q2 = [Q2];
+              var Q22 = jStat3.transpose(Q1);
+              if (Q22[0].length === void 0) {
+                Q22 = [Q22];
               }
-              var x = jStat3.multiply(jStat3.multiply(RI, Q2), b);
+              var x = jStat3.multiply(jStat3.multiply(RI, Q22), b);
               if (x.length === void 0) {
                 x = [[x]];
               }
@@ -7005,28 +7005,28 @@ var require_jstat = __commonJS({
           // (value, alpha, sd, n)
           // (value, alpha, array)
           normalci: function normalci() {
-            var args = slice.call(arguments), ans = new Array(2), change;
+            var args = slice.call(arguments), ans = new Array(2), change2;
             if (args.length === 4) {
-              change = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * args[2] / Math2.sqrt(args[3]));
+              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * args[2] / Math2.sqrt(args[3]));
             } else {
-              change = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * jStat3.stdev(args[2]) / Math2.sqrt(args[2].length));
+              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * jStat3.stdev(args[2]) / Math2.sqrt(args[2].length));
             }
-            ans[0] = args[0] - change;
-            ans[1] = args[0] + change;
+            ans[0] = args[0] - change2;
+            ans[1] = args[0] + change2;
             return ans;
           },
           // 2 different parameter setups
           // (value, alpha, sd, n)
           // (value, alpha, array)
           tci: function tci() {
-            var args = slice.call(arguments), ans = new Array(2), change;
+            var args = slice.call(arguments), ans = new Array(2), change2;
             if (args.length === 4) {
-              change = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[3] - 1) * args[2] / Math2.sqrt(args[3]));
+              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[3] - 1) * args[2] / Math2.sqrt(args[3]));
             } else {
-              change = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[2].length - 1) * jStat3.stdev(args[2], true) / Math2.sqrt(args[2].length));
+              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[2].length - 1) * jStat3.stdev(args[2], true) / Math2.sqrt(args[2].length));
             }
-            ans[0] = args[0] - change;
-            ans[1] = args[0] + change;
+            ans[0] = args[0] - change2;
+            ans[1] = args[0] + change2;
             return ans;
           },
           significant: function significant(pvalue, alpha) {
@@ -13632,15 +13632,15 @@ var require_parser = __commonJS({
     var node_process = __require("process");
     var cst = require_cst();
     var lexer = require_lexer();
-    function includesToken(list, type) {
-      for (let i = 0; i < list.length; ++i)
-        if (list[i].type === type)
+    function includesToken(list2, type) {
+      for (let i = 0; i < list2.length; ++i)
+        if (list2[i].type === type)
           return true;
       return false;
     }
-    function findNonEmptyIndex(list) {
-      for (let i = 0; i < list.length; ++i) {
-        switch (list[i].type) {
+    function findNonEmptyIndex(list2) {
+      for (let i = 0; i < list2.length; ++i) {
+        switch (list2[i].type) {
           case "space":
           case "comment":
           case "newline":
@@ -14548,7 +14548,7 @@ var require_public_api = __commonJS({
       }
       return doc;
     }
-    function parse3(src, reviver, options) {
+    function parse4(src, reviver, options) {
       let _reviver = void 0;
       if (typeof reviver === "function") {
         _reviver = reviver;
@@ -14589,7 +14589,7 @@ var require_public_api = __commonJS({
         return value.toString(options);
       return new Document.Document(value, _replacer, options).toString(options);
     }
-    exports.parse = parse3;
+    exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
     exports.parseDocument = parseDocument2;
     exports.stringify = stringify;
@@ -15270,7 +15270,7 @@ var require_parse = __commonJS({
     var syntaxError = (type, char) => {
       return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
     };
-    var parse3 = (input2, options) => {
+    var parse4 = (input2, options) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected a string");
       }
@@ -15418,7 +15418,7 @@ var require_parse = __commonJS({
             output2 = token.close = `)$))${extglobStar}`;
           }
           if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
-            const expression = parse3(rest, { ...options, fastpaths: false }).output;
+            const expression = parse4(rest, { ...options, fastpaths: false }).output;
             output2 = token.close = `)${expression})${extglobStar})`;
           }
           if (token.prev.type === "bos") {
@@ -15940,7 +15940,7 @@ var require_parse = __commonJS({
       }
       return state;
     };
-    parse3.fastpaths = (input2, options) => {
+    parse4.fastpaths = (input2, options) => {
       const opts = { ...options };
       const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
       const len = input2.length;
@@ -16005,7 +16005,7 @@ var require_parse = __commonJS({
       }
       return source;
     };
-    module.exports = parse3;
+    module.exports = parse4;
   }
 });
 
@@ -16014,13 +16014,13 @@ var require_picomatch = __commonJS({
   "node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
-    var parse3 = require_parse();
+    var parse4 = require_parse();
     var utils = require_utils();
     var constants = require_constants();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch2 = (glob, options, returnState = false) => {
+    var picomatch4 = (glob, options, returnState = false) => {
       if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch2(input2, options, returnState));
+        const fns = glob.map((input2) => picomatch4(input2, options, returnState));
         const arrayMatcher = (str) => {
           for (const isMatch of fns) {
             const state2 = isMatch(str);
@@ -16036,16 +16036,16 @@ var require_picomatch = __commonJS({
       }
       const opts = options || {};
       const posix2 = opts.windows;
-      const regex = isState ? picomatch2.compileRe(glob, options) : picomatch2.makeRe(glob, options, false, true);
+      const regex = isState ? picomatch4.compileRe(glob, options) : picomatch4.makeRe(glob, options, false, true);
       const state = regex.state;
       delete regex.state;
       let isIgnored = () => false;
       if (opts.ignore) {
         const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch2(opts.ignore, ignoreOpts, returnState);
+        isIgnored = picomatch4(opts.ignore, ignoreOpts, returnState);
       }
       const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch2.test(input2, regex, options, { glob, posix: posix2 });
+        const { isMatch, match, output: output2 } = picomatch4.test(input2, regex, options, { glob, posix: posix2 });
         const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
         if (typeof opts.onResult === "function") {
           opts.onResult(result);
@@ -16071,7 +16071,7 @@ var require_picomatch = __commonJS({
       }
       return matcher;
     };
-    picomatch2.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
+    picomatch4.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected input to be a string");
       }
@@ -16088,24 +16088,24 @@ var require_picomatch = __commonJS({
       }
       if (match === false || opts.capture === true) {
         if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch2.matchBase(input2, regex, options, posix2);
+          match = picomatch4.matchBase(input2, regex, options, posix2);
         } else {
           match = regex.exec(output2);
         }
       }
       return { isMatch: Boolean(match), match, output: output2 };
     };
-    picomatch2.matchBase = (input2, glob, options) => {
-      const regex = glob instanceof RegExp ? glob : picomatch2.makeRe(glob, options);
+    picomatch4.matchBase = (input2, glob, options) => {
+      const regex = glob instanceof RegExp ? glob : picomatch4.makeRe(glob, options);
       return regex.test(utils.basename(input2));
     };
-    picomatch2.isMatch = (str, patterns, options) => picomatch2(patterns, options)(str);
-    picomatch2.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch2.parse(p, options));
-      return parse3(pattern, { ...options, fastpaths: false });
+    picomatch4.isMatch = (str, patterns, options) => picomatch4(patterns, options)(str);
+    picomatch4.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch4.parse(p, options));
+      return parse4(pattern, { ...options, fastpaths: false });
     };
-    picomatch2.scan = (input2, options) => scan(input2, options);
-    picomatch2.compileRe = (state, options, returnOutput = false, returnState = false) => {
+    picomatch4.scan = (input2, options) => scan(input2, options);
+    picomatch4.compileRe = (state, options, returnOutput = false, returnState = false) => {
       if (returnOutput === true) {
         return state.output;
       }
@@ -16116,26 +16116,26 @@ var require_picomatch = __commonJS({
       if (state && state.negated === true) {
         source = `^(?!${source}).*$`;
       }
-      const regex = picomatch2.toRegex(source, options);
+      const regex = picomatch4.toRegex(source, options);
       if (returnState === true) {
         regex.state = state;
       }
       return regex;
     };
-    picomatch2.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+    picomatch4.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
       if (!input2 || typeof input2 !== "string") {
         throw new TypeError("Expected a non-empty string");
       }
       let parsed = { negated: false, fastpaths: true };
       if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
-        parsed.output = parse3.fastpaths(input2, options);
+        parsed.output = parse4.fastpaths(input2, options);
       }
       if (!parsed.output) {
-        parsed = parse3(input2, options);
+        parsed = parse4(input2, options);
       }
-      return picomatch2.compileRe(parsed, options, returnOutput, returnState);
+      return picomatch4.compileRe(parsed, options, returnOutput, returnState);
     };
-    picomatch2.toRegex = (source, options) => {
+    picomatch4.toRegex = (source, options) => {
       try {
         const opts = options || {};
         return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
@@ -16144,8 +16144,8 @@ var require_picomatch = __commonJS({
         return /$^/;
       }
     };
-    picomatch2.constants = constants;
-    module.exports = picomatch2;
+    picomatch4.constants = constants;
+    module.exports = picomatch4;
   }
 });
 
@@ -16155,19 +16155,19 @@ var require_picomatch2 = __commonJS({
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
-    function picomatch2(glob, options, returnState = false) {
+    function picomatch4(glob, options, returnState = false) {
       if (options && (options.windows === null || options.windows === void 0)) {
         options = { ...options, windows: utils.isWindows() };
       }
       return pico(glob, options, returnState);
     }
-    Object.assign(picomatch2, pico);
-    module.exports = picomatch2;
+    Object.assign(picomatch4, pico);
+    module.exports = picomatch4;
   }
 });
 
 // src/cli/main.ts
-import { resolve } from "node:path";
+import { resolve as resolve2 } from "node:path";
 
 // node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
@@ -16213,7 +16213,24 @@ var BUG_REPORT_HINT = "This is a bug in Plumbline, not in your files. Please ope
 // src/adapters/files.ts
 var SKIPPED_FOLDERS = /* @__PURE__ */ new Set([".git", "node_modules"]);
 function createRepoFiles(root) {
+  const readText = async (path) => {
+    try {
+      return await readFile(join(root, path), "utf8");
+    } catch (error62) {
+      if (isCode(error62, "ENOENT")) return void 0;
+      if (isCode(error62, "EISDIR")) throw new ExternalError(`${path} is a folder, not a file`);
+      throw new ExternalError(`cannot read ${path}`, void 0, { cause: error62 });
+    }
+  };
   return {
+    readText,
+    async readTexts(paths) {
+      const texts = [];
+      for (let start = 0; start < paths.length; start += 64) {
+        texts.push(...await Promise.all(paths.slice(start, start + 64).map(readText)));
+      }
+      return texts;
+    },
     async listFiles(folder) {
       const start = join(root, folder);
       const found = [];
@@ -16235,15 +16252,6 @@ function createRepoFiles(root) {
       };
       await walk2(start);
       return found.sort();
-    },
-    async readText(path) {
-      try {
-        return await readFile(join(root, path), "utf8");
-      } catch (error62) {
-        if (isCode(error62, "ENOENT")) return void 0;
-        if (isCode(error62, "EISDIR")) throw new ExternalError(`${path} is a folder, not a file`);
-        throw new ExternalError(`cannot read ${path}`, void 0, { cause: error62 });
-      }
     }
   };
 }
@@ -18124,18 +18132,18 @@ var validateAsync = async (schema, value, _ctx) => {
   return result.issues.length === 0;
 };
 var _encode = (_Err) => {
-  const parse3 = _parse(_Err);
+  const parse4 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
     const ctx = _ctx ? { ..._ctx, direction: "backward" } : { direction: "backward" };
-    return parse3(schema, value, ctx, finalizeParams(fn, _params));
+    return parse4(schema, value, ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
 var encode = /* @__PURE__ */ _encode($ZodRealError);
 var _decode = (_Err) => {
-  const parse3 = _parse(_Err);
+  const parse4 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
-    return parse3(schema, value, _ctx, finalizeParams(fn, _params));
+    return parse4(schema, value, _ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
@@ -19630,7 +19638,7 @@ function capSize(inst, size) {
   if (!caps.length)
     return;
   const cap = Math.min(...caps.map((c) => c[0]));
-  const parse3 = inst._zod.parse;
+  const parse4 = inst._zod.parse;
   inst._zod.parse = (payload, ctx) => {
     const n = size(payload.value);
     if (n > cap && !ctx?.skipChecks && ctx?.direction !== "backward") {
@@ -19644,7 +19652,7 @@ function capSize(inst, size) {
         }
       }
     }
-    return parse3(payload, ctx);
+    return parse4(payload, ctx);
   };
 }
 var arraySize = (input2) => Array.isArray(input2) ? input2.length : -1;
@@ -21333,7 +21341,7 @@ var recursive = /* @__PURE__ */ new WeakMap();
 var NONE = 0;
 var ASSUMED = 1;
 var PROVEN = 2;
-function isRecursive(inst, stack, resolve2) {
+function isRecursive(inst, stack, resolve3) {
   const cached3 = recursive.get(inst);
   if (cached3 !== void 0)
     return cached3 ? PROVEN : NONE;
@@ -21343,7 +21351,7 @@ function isRecursive(inst, stack, resolve2) {
   let result = NONE;
   const check2 = (child) => {
     if (result !== PROVEN && child?._zod) {
-      const answer = isRecursive(child, stack, resolve2);
+      const answer = isRecursive(child, stack, resolve3);
       if (answer > result)
         result = answer;
     }
@@ -21354,7 +21362,7 @@ function isRecursive(inst, stack, resolve2) {
       const desc = Object.getOwnPropertyDescriptor(sh, key);
       if (spread && !desc.enumerable)
         continue;
-      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve2) : NONE;
+      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve3) : NONE;
       if (child > answer)
         answer = child;
     }
@@ -21418,7 +21426,7 @@ function isRecursive(inst, stack, resolve2) {
       break;
     // `$ZodLazy` caches its inner on the def, so a resolved edge is followed exactly
     case "lazy": {
-      const inner = def._cachedInner ?? (resolve2 ? inst._zod.innerType : void 0);
+      const inner = def._cachedInner ?? (resolve3 ? inst._zod.innerType : void 0);
       merge2(inner ? isRecursive(inner, stack, false) : ASSUMED);
       break;
     }
@@ -26977,8 +26985,8 @@ var error43 = () => {
       case "not_multiple_of":
         return `N\xFAmero inv\xE1lido: deve ser m\xFAltiplo de ${issue2.divisor}`;
       case "unrecognized_keys": {
-        const plural2 = issue2.keys.length > 1 ? "s" : "";
-        return `Chave${plural2} inv\xE1lida${plural2}: ${joinValues(issue2.keys, ", ")}`;
+        const plural3 = issue2.keys.length > 1 ? "s" : "";
+        return `Chave${plural3} inv\xE1lida${plural3}: ${joinValues(issue2.keys, ", ")}`;
       }
       case "invalid_key":
         return `Entrada inv\xE1lida n${translateOriginWithArticle(issue2.origin, "definite")}`;
@@ -27122,8 +27130,8 @@ var error44 = () => {
       case "not_multiple_of":
         return `N\xFAmero inv\xE1lido: deve ser m\xFAltiplo de ${issue2.divisor}`;
       case "unrecognized_keys": {
-        const plural2 = issue2.keys.length > 1 ? "s" : "";
-        return `Chave${plural2} inv\xE1lida${plural2}: ${joinValues(issue2.keys, ", ")}`;
+        const plural3 = issue2.keys.length > 1 ? "s" : "";
+        return `Chave${plural3} inv\xE1lida${plural3}: ${joinValues(issue2.keys, ", ")}`;
       }
       case "invalid_key":
         return `Entrada inv\xE1lida n${translateOriginWithArticle(issue2.origin, "definite")}`;
@@ -32471,8 +32479,8 @@ var contributors = {
 function aggregateChecks(schema) {
   const agg = {};
   const def = schema._zod.def;
-  const list = schema._zod.traits.has("$ZodCheck") ? [schema, ...def.checks ?? []] : def.checks ?? [];
-  for (const ch of list)
+  const list2 = schema._zod.traits.has("$ZodCheck") ? [schema, ...def.checks ?? []] : def.checks ?? [];
+  for (const ch of list2)
     contributors[ch._zod.def.check]?.(agg, ch._zod.def);
   const bag = schema._zod.bag;
   if (bag.minimum !== void 0)
@@ -36612,13 +36620,13 @@ function editDistance(a, b) {
 
 // src/core/source/problem.ts
 function formatProblem(problem) {
-  const where = `${problem.file}:${problem.line}:${problem.column}`;
+  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
   const field = problem.field ? `${problem.field}: ` : "";
   const detail = [
     problem.expected ? `expected ${problem.expected}` : "",
     problem.found ? `found ${problem.found}` : ""
   ].filter(Boolean).join("; ");
-  return `${where}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
+  return `${where2}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
 }
 function sortProblems(problems) {
   return [...problems].sort(
@@ -37168,10 +37176,10 @@ function runRules(value, source, rules) {
   const problems = [];
   const context2 = {
     value,
-    report({ severity, code, path, message, expected, showFound }) {
+    report({ severity: severity2, code, path, message, expected, showFound }) {
       const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
       problems.push({
-        severity,
+        severity: severity2,
         code,
         ...source.locate(path),
         field: formatFieldPath(path),
@@ -37415,7 +37423,7 @@ async function loadWorkspace(options) {
   const planFiles = await findPlanFiles(files, settings.planPaths);
   const problems = [];
   const plans = [];
-  const texts = await readInBatches(files, planFiles);
+  const texts = await files.readTexts(planFiles);
   for (const [index, file2] of planFiles.entries()) {
     options.onProgress?.(index, planFiles.length, "plans");
     const result = loadPlan(texts[index] ?? "", file2);
@@ -37480,13 +37488,6 @@ async function findPlanFiles(files, planPaths) {
     }
   }
   return [...found].sort();
-}
-async function readInBatches(files, paths, batchSize = 64) {
-  const texts = [];
-  for (let start = 0; start < paths.length; start += batchSize) {
-    texts.push(...await Promise.all(paths.slice(start, start + batchSize).map((path) => files.readText(path))));
-  }
-  return texts;
 }
 
 // src/run/scaffold.ts
@@ -37737,9 +37738,9 @@ function formatRate(rate) {
   const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
   return `${percent.toFixed(Math.min(digits, 4))}%`;
 }
-function formatRelative(change) {
-  if (!Number.isFinite(change)) return NOT_A_NUMBER;
-  const percent = change * 100;
+function formatRelative(change2) {
+  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
+  const percent = change2 * 100;
   const text2 = Number(percent.toPrecision(3)).toString();
   return `${percent >= 0 ? "+" : ""}${text2}%`;
 }
@@ -37763,9 +37764,9 @@ var SIZING_JSON_FORMAT = "plumbline.sizing/1";
 function valueText(entry, value) {
   return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
 }
-function describeChange(entry, change, from) {
-  const absolute = entry.kind === "proportion" ? `${change.absolute >= 0 ? "+" : "-"}${Math.abs(change.absolute * 100).toPrecision(2)} pp` : `${change.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change.absolute))}`;
-  return `${valueText(entry, from)} \u2192 ${valueText(entry, change.to)} (${formatRelative(change.relative)} relative, ${absolute})`;
+function describeChange(entry, change2, from) {
+  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
+  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
 }
 function sizeCells(size) {
   if (!size) return ["", "", "", ""];
@@ -37855,7 +37856,7 @@ function renderSizingMarkdown(sizing, context2) {
   return [
     `### ${context2.title}`,
     "",
-    `${context2.designLine} ${windowLine(sizing, context2)}`,
+    [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
     "",
     ...table,
     ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
@@ -38322,6 +38323,1381 @@ function sizeFromRequest(request, window) {
   };
 }
 
+// src/adapters/git.ts
+import { spawn } from "node:child_process";
+function runGit(cwd, args, options = {}) {
+  return new Promise((resolve3, reject) => {
+    const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
+      cwd,
+      stdio: ["pipe", "pipe", "pipe"]
+    });
+    const out = [];
+    const err = [];
+    child.stdout.on("data", (chunk) => out.push(chunk));
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on(
+      "error",
+      (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
+    );
+    child.on("close", (code) => {
+      if (code === 0 || options.allow?.includes(code ?? -1)) resolve3(Buffer.concat(out));
+      else {
+        const stderr = Buffer.concat(err).toString("utf8").trim();
+        reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
+      }
+    });
+    child.stdin.end(options.input ?? "");
+  });
+}
+function hintFor(stderr) {
+  if (/not a git repository/i.test(stderr)) return "run plumbline inside a git repository, or pass --cwd";
+  if (/unknown revision|bad revision|Needed a single revision|invalid object name/i.test(stderr)) {
+    return "check --base and --head; in a shallow clone (actions/checkout fetches one commit by default) fetch more history, e.g. fetch-depth: 0";
+  }
+  return void 0;
+}
+async function resolveCommit(cwd, ref, flag) {
+  try {
+    return (await runGit(cwd, ["rev-parse", "--verify", "--end-of-options", `${ref}^{commit}`])).toString("utf8").trim();
+  } catch (error62) {
+    const hint = error62 instanceof ExternalError ? error62.hint : void 0;
+    throw new ExternalError(`${flag} ${ref} is not a commit in this repository`, hint ?? "check the ref name", { cause: error62 });
+  }
+}
+async function openChange(repoDir, baseRef, headRef) {
+  const head = await resolveCommit(repoDir, headRef, "--head");
+  const baseTip = await resolveCommit(repoDir, baseRef, "--base");
+  const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
+  const base = mergeBase || baseTip;
+  const commitOf = (side) => side === "base" ? base : head;
+  const trackedCache = /* @__PURE__ */ new Map();
+  const trackedFiles = (side) => {
+    const commit = commitOf(side);
+    let cached3 = trackedCache.get(commit);
+    if (!cached3) {
+      cached3 = runGit(repoDir, ["ls-tree", "-r", "-z", "--name-only", commit]).then(
+        (out) => out.toString("utf8").split("\0").filter(Boolean).sort()
+      );
+      trackedCache.set(commit, cached3);
+    }
+    return cached3;
+  };
+  const streamFiles = (side, paths, onFile) => catFiles(repoDir, commitOf(side), paths, onFile);
+  const filesAt = (side) => {
+    const readTexts = async (paths) => {
+      const found = /* @__PURE__ */ new Map();
+      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString("utf8")));
+      return paths.map((p) => found.get(p));
+    };
+    return {
+      async listFiles(folder) {
+        const prefix = folder === "" || folder === "." ? "" : `${folder.replace(/\/+$/, "")}/`;
+        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
+      },
+      async readText(path) {
+        return (await readTexts([path]))[0];
+      },
+      readTexts
+    };
+  };
+  return {
+    base,
+    head,
+    async changedFiles() {
+      const out = (await runGit(repoDir, ["diff", "--name-status", "-z", "-M", base, head])).toString("utf8");
+      return parseNameStatus(out);
+    },
+    async diff() {
+      return (await runGit(repoDir, ["diff", "--unified=0", "--no-ext-diff", "--no-textconv", "-M", "--src-prefix=a/", "--dst-prefix=b/", base, head])).toString("utf8");
+    },
+    filesAt,
+    streamFiles,
+    trackedFiles
+  };
+}
+function parseNameStatus(out) {
+  const parts = out.split("\0").filter((p) => p !== "");
+  const files = [];
+  for (let i = 0; i < parts.length; ) {
+    const code = parts[i++];
+    if (code.startsWith("R") || code.startsWith("C")) {
+      const previousPath = parts[i++];
+      const path = parts[i++];
+      files.push({ path, status: "renamed", previousPath });
+    } else {
+      const path = parts[i++];
+      files.push({ path, status: code === "A" ? "added" : code === "D" ? "deleted" : "modified" });
+    }
+  }
+  return files;
+}
+function catFiles(cwd, commit, paths, onFile) {
+  const asked = paths.filter((p) => !p.includes("\n"));
+  if (asked.length === 0) return Promise.resolve();
+  return new Promise((resolve3, reject) => {
+    const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
+    let index = 0;
+    let pending = Buffer.alloc(0);
+    let current;
+    const err = [];
+    child.stdout.on("data", (chunk) => {
+      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
+      for (; ; ) {
+        if (!current) {
+          const newline = pending.indexOf(10);
+          if (newline < 0) return;
+          const header = pending.subarray(0, newline).toString("utf8");
+          pending = pending.subarray(newline + 1);
+          if (header.endsWith(" missing") || header.endsWith(" ambiguous")) {
+            index++;
+            continue;
+          }
+          const size = Number(header.slice(header.lastIndexOf(" ") + 1));
+          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(" blob ") };
+        }
+        if (pending.length < current.size + 1) return;
+        if (current.deliver) onFile(asked[index], pending.subarray(0, current.size));
+        pending = pending.subarray(current.size + 1);
+        index++;
+        current = void 0;
+      }
+    });
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
+    child.on("close", (code) => {
+      if (code === 0) resolve3();
+      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
+    });
+    child.stdin.end(asked.map((p) => `${commit}:${p}
+`).join(""));
+  });
+}
+
+// src/run/review-change.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+
+// src/core/config/scan-files.ts
+var import_picomatch2 = __toESM(require_picomatch2(), 1);
+function scanMatcher(scan) {
+  const include = (0, import_picomatch2.default)([...scan.include], { dot: true });
+  const exclude = scan.exclude.length ? (0, import_picomatch2.default)([...scan.exclude], { dot: true }) : () => false;
+  return (path) => include(path) && !exclude(path);
+}
+
+// src/core/checks/surfaces.ts
+function isSameOrBelow(path, ancestor) {
+  return path === ancestor || path.startsWith(`${ancestor}/`);
+}
+function surfacesMeet(a, b) {
+  return isSameOrBelow(a, b) || isSameOrBelow(b, a);
+}
+
+// src/core/checks/collisions.ts
+function intersect(a, b) {
+  if (a.length === 0 && b.length === 0) return "all";
+  if (a.length === 0) return [...b];
+  if (b.length === 0) return [...a];
+  const common = a.filter((x) => b.includes(x));
+  return common.length ? common : void 0;
+}
+function windowOverlap(a, b) {
+  if (!a.start || !a.end || !b.start || !b.end) return {};
+  const start = a.start > b.start ? a.start : b.start;
+  const end = a.end < b.end ? a.end : b.end;
+  if (end < start) return void 0;
+  return { days: daysBetween(start, end) + 1, window: { start, end } };
+}
+function sharedTraffic(a, b) {
+  const ga = a.surface.exclusionGroup;
+  const gb = b.surface.exclusionGroup;
+  if (ga && gb && ga.name === gb.name) {
+    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    return Math.max(0, overlap) / 100;
+  }
+  return a.trafficShare * b.trafficShare;
+}
+function findCollisions(subject, others) {
+  const collisions = [];
+  for (const other of others) {
+    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
+    const when = windowOverlap(subject.window, other.window);
+    if (!when) continue;
+    const platforms = intersect(subject.population.platforms, other.population.platforms);
+    const locales = intersect(subject.population.locales, other.population.locales);
+    const regions = intersect(subject.population.regions, other.population.regions);
+    if (!platforms || !locales || !regions) continue;
+    const trafficShare = sharedTraffic(subject, other);
+    if (trafficShare <= 0) continue;
+    collisions.push({
+      other,
+      surface: subject.surface.path === other.surface.path ? "same" : isSameOrBelow(subject.surface.path, other.surface.path) ? "above" : "below",
+      ...when.days !== void 0 ? { overlapDays: when.days } : {},
+      ...when.window ? { overlapWindow: when.window } : {},
+      platforms,
+      locales,
+      regions,
+      trafficShare,
+      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id)
+    });
+  }
+  return collisions;
+}
+function runningEntries(entries) {
+  return entries.filter((e) => e.state === "live");
+}
+function collisionsOfLinked(context2) {
+  const running = runningEntries(context2.registry.entries);
+  return context2.linked.flatMap(
+    ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
+  );
+}
+var list = (values) => values === "all" ? "everyone" : values.join(", ");
+var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
+  const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
+  const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
+  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
+  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
+  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
+    code: "collision",
+    message,
+    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
+    plan,
+    file: linked.loaded.file,
+    line: linked.loaded.line
+  };
+});
+
+// src/core/checks/flags.ts
+var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
+  const planned = new Set(registry2.entries.flatMap((e) => e.flags));
+  const exempt = new Set(settings.exemptFlags);
+  const reported = /* @__PURE__ */ new Set();
+  return touches.filter((t) => !planned.has(t.key) && !exempt.has(t.key) && !reported.has(t.key) && reported.add(t.key)).map((t) => ({
+    code: "flag-without-plan",
+    message: `Flag \`${t.key}\` is ${t.side === "added" ? "used" : "removed"} here, but no plan names it.`,
+    fix: `Write a plan for it (plumbline new ${t.key}), link one in the description, or list it under exempt-flags in the settings if it is a kill switch or an operational toggle.`,
+    file: t.file,
+    line: t.line
+  }));
+};
+
+// src/core/checks/logging.ts
+function eventStatuses(context2, planId2) {
+  const linked = context2.linked.find((l) => l.loaded.plan.id === planId2);
+  if (!linked) return [];
+  const { plan } = linked.loaded;
+  const roles = /* @__PURE__ */ new Map();
+  const note = (event, role) => roles.set(event, [...roles.get(event) ?? [], role]);
+  if (plan.exposure.event) note(plan.exposure.event, "exposure");
+  for (const m of [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary]) for (const e of m.events) note(e, m.name);
+  return eventsOfPlan(plan).map((event) => {
+    const hits = context2.events.get(event);
+    const location2 = hits?.firstCall ?? hits?.firstQuoted;
+    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {} };
+  });
+}
+var eventMissing = (context2) => context2.linked.flatMap(
+  ({ loaded }) => eventStatuses(context2, loaded.plan.id).filter((s) => !s.location).map((s) => ({
+    code: "event-missing",
+    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
+    fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
+    plan: loaded.plan.id,
+    file: loaded.file,
+    line: loaded.line
+  }))
+);
+function dependents(entries, event) {
+  return runningEntries(entries).filter((e) => e.events.includes(event));
+}
+var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...removedEvents].flatMap(([event, where2]) => {
+  const still = events.get(event);
+  if (still?.firstCall || still?.firstQuoted) return [];
+  const plans = dependents(registry2.entries, event);
+  if (plans.length === 0) return [];
+  return [
+    {
+      code: "event-removed",
+      message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? "" : "s"} ${plans.map((p) => `${p.id} (${p.owners.join(", ")})`).join(", ")} depend${plans.length === 1 ? "s" : ""} on.`,
+      fix: "Keep logging the event, or agree with the owners to end or change those tests first.",
+      file: where2.file,
+      line: where2.line
+    }
+  ];
+});
+
+// src/core/checks/plans.ts
+var planInvalid = ({ invalidPlanFiles }) => invalidPlanFiles.map(({ file: file2, problems }) => {
+  const errors = problems.filter((p) => p.severity === "error");
+  return {
+    code: "plan-invalid",
+    message: `${file2} cannot be used: ${errors.length} error${errors.length === 1 ? "" : "s"}, first: ${formatProblem(errors[0])}`,
+    fix: "Run plumbline validate and fix each error.",
+    file: file2,
+    line: errors[0]?.line ?? 1
+  };
+});
+var decisionsMissing = ({ linked }) => linked.flatMap(({ loaded }) => {
+  const missing = missingDecisions(loaded.plan);
+  if (missing.length === 0) return [];
+  return [
+    {
+      code: "decisions-missing",
+      message: `No decision rule for ${missing.join(", ")}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
+      fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join("; ")}.`,
+      plan: loaded.plan.id,
+      file: loaded.file,
+      line: loaded.line
+    }
+  ];
+});
+var reasonMissing = ({ linked }) => linked.filter(({ loaded }) => !loaded.plan.hypothesis.because).map(({ loaded }) => ({
+  code: "reason-missing",
+  message: "The hypothesis says what changes but not why it should work.",
+  fix: "Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.",
+  plan: loaded.plan.id,
+  file: loaded.file,
+  line: loaded.line
+}));
+var guardrailsMissing = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.metrics.guardrails.length === 0).map(({ loaded }) => ({
+  code: "guardrails-missing",
+  message: "No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.",
+  fix: "Add metrics.guardrails with a direction and a tolerance each.",
+  plan: loaded.plan.id,
+  file: loaded.file,
+  line: loaded.line
+}));
+var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
+  const { start, end } = loaded.plan.window;
+  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  if (!end) {
+    return [{ code: "end-missing", message: "No planned end date: tests without one run on, and get peeked at until something looks significant.", fix: "Add window.end.", ...at }];
+  }
+  if (!start) return [];
+  const days = inclusiveDays(start, end);
+  if (days < 7) {
+    return [{ code: "window-short", message: `The window is ${days} day${days === 1 ? "" : "s"}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
+  }
+  if (days % 7 !== 0) {
+    return [{ code: "window-partial-week", message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+  }
+  return [];
+});
+var reviewMissing = ({ linked }) => linked.flatMap(
+  ({ loaded }) => loaded.plan.sensitive.filter((s) => !s.review).map((s) => ({
+    code: "review-missing",
+    message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
+    fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
+    plan: loaded.plan.id,
+    file: loaded.file,
+    line: loaded.line
+  }))
+);
+var REVIEW_HINT = {
+  pricing: "pricing, finance and legal (price discrimination and consumer law differ by country)",
+  legal: "legal counsel",
+  regulatory: "compliance, with the regulator\u2019s rules for each region in the population",
+  minors: "legal and child-safety review; many places need parental consent or forbid such tests",
+  health: "clinical or medical review, and legal where health data is involved",
+  accessibility: "accessibility review, with assistive-technology testing",
+  privacy: "privacy review (data protection officer where there is one)"
+};
+var bundleUnexplained = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.flags.length > 1 && !loaded.plan.bundleRationale).map(({ loaded }) => ({
+  code: "bundle-unexplained",
+  message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(", ")}): a result will not say which change caused it.`,
+  fix: "Add bundle-rationale, or split the plan.",
+  plan: loaded.plan.id,
+  file: loaded.file,
+  line: loaded.line
+}));
+var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
+  const { platforms, locales, ready } = loaded.plan.population;
+  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  const missing = [platforms.length ? "" : "platforms", locales.length ? "" : "locales"].filter(Boolean);
+  if (missing.length) {
+    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...at }];
+  }
+  const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
+  if (notReady.length === 0) return [];
+  return [
+    {
+      code: "readiness-missing",
+      message: `The change is not declared ready on ${notReady.join(", ")} (rendered, translated), though the population includes ${notReady.length === 1 ? "it" : "them"}.`,
+      fix: "Check the change there and add it under population.ready, or take it out of the population.",
+      ...at
+    }
+  ];
+});
+
+// src/core/checks/sizing.ts
+var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
+  const { plan } = loaded;
+  const at = { plan: plan.id, file: loaded.file, line: loaded.line };
+  const out = [];
+  if (!plan.design.minDetectableEffect || plan.design.dailyUnits === void 0) {
+    const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", plan.design.dailyUnits === void 0 ? "design.daily-units" : ""].filter(Boolean);
+    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...at });
+  }
+  for (const entry of sizing.metrics) {
+    if (!entry.result.ok) {
+      out.push({ code: "sizing-impossible", message: `${entry.metric} cannot be sized: ${entry.result.error.input}: ${entry.result.error.message}.`, fix: "Check the metric\u2019s baseline figures and the effect to detect.", ...at });
+      continue;
+    }
+    const s = entry.result.value;
+    const end = s.atPlannedEnd;
+    if (end?.power !== void 0 && end.power < plan.design.power) {
+      const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : "";
+      out.push({
+        code: "underpowered",
+        message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,
+        fix: "Extend the window, enrol more traffic, or plan for a larger effect, and say which in the plan.",
+        ...at
+      });
+    }
+  }
+  const primary = sizing.metrics[0];
+  if (plan.exposure.reach < 1 && primary?.result.ok && primary.result.value.diluted && primary.result.value.triggered) {
+    const s = primary.result.value;
+    const days = (a) => a?.duration ? `${a.duration.days} days` : `${a?.totalUnits.toLocaleString("en-US")} units`;
+    out.push({
+      code: "exposure-diluted",
+      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${days(s.diluted)} instead of ${days(s.triggered)}.`,
+      fix: "Log the exposure event where the change is actually seen (or analyse only the units that reach it).",
+      ...at
+    });
+  }
+  return out;
+});
+
+// src/core/checks/unit.ts
+var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
+  const { plan } = loaded;
+  const shared = settings.groupSurfaces.find((s) => isSameOrBelow(plan.surface.path, s));
+  if (!shared || GROUP_UNITS.includes(plan.unit.randomization)) return [];
+  return [
+    {
+      code: "spillover",
+      message: `${plan.surface.path} is shared between people (group-surfaces: ${shared}), but the plan randomizes by ${plan.unit.randomization}: treated and control people interact, so the difference between arms is biased.`,
+      fix: `Randomize the group they share (unit.randomization: team, organization or household) and size with design.cluster.`,
+      plan: plan.id,
+      file: loaded.file,
+      line: loaded.line
+    }
+  ];
+});
+var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.unit.analysis !== loaded.plan.unit.randomization).map(({ loaded }) => ({
+  code: "analysis-unit-differs",
+  message: `Units are randomized by ${loaded.plan.unit.randomization} but metrics are averaged per ${loaded.plan.unit.analysis}: observations within one ${loaded.plan.unit.randomization} are not independent.`,
+  fix: "Compute the variance with the delta method or cluster-robust standard errors, not the naive per-unit formula.",
+  plan: loaded.plan.id,
+  file: loaded.file,
+  line: loaded.line
+}));
+
+// src/core/checks/index.ts
+var CHECKS = [
+  planInvalid,
+  decisionsMissing,
+  reviewMissing,
+  eventRemoved,
+  flagWithoutPlan,
+  reasonMissing,
+  guardrailsMissing,
+  windowChecks,
+  bundleUnexplained,
+  populationChecks,
+  sizingChecks,
+  spillover,
+  analysisUnitDiffers,
+  collisionCheck,
+  eventMissing
+];
+
+// src/core/review/finding.ts
+var FINDING_CODES = {
+  "flag-without-plan": { severity: "warn", about: "a changed feature flag has no plan (and is not exempt)" },
+  "plan-invalid": { severity: "block", about: "a plan the change touches cannot be loaded" },
+  "decisions-missing": { severity: "block", about: "a decision rule (win, flat, loss, guardrail breach) is not written" },
+  "reason-missing": { severity: "warn", about: "the hypothesis does not say why the change should work" },
+  "guardrails-missing": { severity: "warn", about: "no guardrail metric" },
+  "end-missing": { severity: "warn", about: "no planned end date" },
+  "window-short": { severity: "warn", about: "the planned window is shorter than 7 days" },
+  "window-partial-week": { severity: "note", about: "the planned window is not a whole number of weeks" },
+  "review-missing": { severity: "block", about: "a sensitive area has no named review" },
+  "bundle-unexplained": { severity: "warn", about: "several flags in one plan without a rationale" },
+  "population-undeclared": { severity: "warn", about: "platforms or locales are not declared" },
+  "readiness-missing": { severity: "warn", about: "the change is not declared ready on a platform or locale of its population" },
+  underpowered: { severity: "warn", about: "the planned window gives less than the planned power" },
+  "sizing-incomplete": { severity: "note", about: "the plan lacks the figures sizing needs" },
+  "sizing-impossible": { severity: "warn", about: "the plan\u2019s figures cannot be sized" },
+  "exposure-diluted": { severity: "warn", about: "exposure is logged before the change is reached" },
+  spillover: { severity: "warn", about: "people randomized one by one on a surface they share" },
+  "analysis-unit-differs": { severity: "note", about: "metrics are averaged over another unit than the one randomized" },
+  collision: { severity: "warn", about: "the test overlaps a running test on the same surface" },
+  "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
+  "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
+  "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
+  "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" }
+};
+var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
+
+// src/core/review/build-review.ts
+var CHECKLIST = [
+  { label: "Decision rules written for a win, a flat result, a loss and a guardrail breach", codes: ["decisions-missing"] },
+  { label: "Hypothesis says why the change should work", codes: ["reason-missing"] },
+  { label: "One primary metric and at least one guardrail", codes: ["guardrails-missing"] },
+  { label: "Planned end, at least a week, in whole weeks", codes: ["end-missing", "window-short", "window-partial-week"] },
+  { label: "Enough power by the planned end", codes: ["underpowered", "sizing-incomplete", "sizing-impossible"] },
+  { label: "Exposure logged where the change is seen", codes: ["exposure-diluted"] },
+  { label: "Randomization unit fits the surface", codes: ["spillover"] },
+  { label: "No collision with a running test", codes: ["collision"] },
+  { label: "Every event the plan names is logged in the code", codes: ["event-missing"] },
+  { label: "Population and readiness declared (platforms, locales)", codes: ["population-undeclared", "readiness-missing"] },
+  { label: "Sensitive areas have their named review", codes: ["review-missing"], when: (p) => p.loaded.plan.sensitive.length > 0 },
+  { label: "Bundled flags are explained", codes: ["bundle-unexplained"], when: (p) => p.loaded.plan.flags.length > 1 }
+];
+function severityFor(code, overrides) {
+  const fallback = FINDING_CODES[code]?.severity ?? "warn";
+  if (ALWAYS_BLOCKS.has(code)) return "block";
+  const chosen = overrides[code];
+  return chosen === "block" || chosen === "warn" || chosen === "note" || chosen === "off" ? chosen : fallback;
+}
+var ORDER = { block: 0, warn: 1, note: 2 };
+function buildReview(context2, change2) {
+  const raw = CHECKS.flatMap((check2) => check2(context2));
+  const known = Object.keys(FINDING_CODES);
+  for (const code of Object.keys(context2.settings.severity)) {
+    if (known.includes(code)) continue;
+    const suggestion = closestName(code, known);
+    raw.push({
+      code: "severity-unknown-code",
+      message: `The settings set a severity for "${code}", which is not a finding code${suggestion ? `; did you mean "${suggestion}"?` : "."}`,
+      fix: `Use one of: ${known.join(", ")}.`
+    });
+  }
+  const findings = [];
+  for (const finding of raw) {
+    const severity2 = severityFor(finding.code, context2.settings.severity);
+    if (severity2 !== "off") findings.push({ ...finding, severity: severity2 });
+  }
+  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
+  const counts = { block: 0, warn: 0, note: 0 };
+  for (const f of findings) counts[f.severity]++;
+  const plans = context2.linked.map((linked) => {
+    const { plan } = linked.loaded;
+    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    return {
+      id: plan.id,
+      title: plan.title,
+      file: linked.loaded.file,
+      line: linked.loaded.line,
+      state: plan.state,
+      owners: plan.owners,
+      reasons: linked.reasons,
+      checklist: CHECKLIST.filter((item) => !item.when || item.when(linked)).map((item) => ({ label: item.label, done: !item.codes.some((c) => mine.has(c)) })),
+      sizing: linked.sizing,
+      power: plan.design.power,
+      window: plan.window,
+      events: eventStatuses(context2, plan.id)
+    };
+  });
+  const planned = /* @__PURE__ */ new Map();
+  for (const e of context2.registry.entries) for (const f of e.flags) planned.set(f, [...planned.get(f) ?? [], e.id]);
+  const exempt = new Set(context2.settings.exemptFlags);
+  const flags = context2.touches.map((t) => ({ ...t, plans: planned.get(t.key) ?? [], exempt: exempt.has(t.key) }));
+  const collisions = collisionsOfLinked(context2).map(({ plan, collision: c }) => ({
+    plan,
+    other: c.other.id,
+    owners: c.other.owners,
+    otherSurface: c.other.surface.path,
+    ...c.overlapDays !== void 0 ? { overlapDays: c.overlapDays } : {},
+    ...c.overlapWindow ? { overlapWindow: c.overlapWindow } : {},
+    platforms: c.platforms,
+    locales: c.locales,
+    trafficShare: c.trafficShare,
+    known: c.known
+  }));
+  const nothing = context2.touches.length === 0 && context2.linked.length === 0 && context2.invalidPlanFiles.length === 0 && findings.length === 0;
+  const verdict = nothing ? "nothing-to-check" : counts.block ? "blocked" : counts.warn ? "warnings" : "clear";
+  return { verdict, counts, base: change2.base, head: change2.head, findings, plans, flags, collisions };
+}
+
+// src/core/review/link-plans.ts
+function linkPlans(options) {
+  const links = /* @__PURE__ */ new Map();
+  const add = (id, reason) => {
+    const reasons = links.get(id) ?? [];
+    if (!reasons.includes(reason)) reasons.push(reason);
+    links.set(id, reasons);
+  };
+  const body = options.pr.body ?? "";
+  const touched = new Set(options.touches.map((t) => t.key));
+  for (const { plan, file: file2 } of options.plans) {
+    const idPattern = new RegExp(`(?<![\\w/-])${plan.id.replace(/[-]/g, "\\-")}(?![\\w-])`);
+    if (body.includes(file2) || idPattern.test(body)) add(plan.id, "named in the description");
+    if (options.changedPaths.has(file2)) add(plan.id, "plan file changed");
+    if (plan.flags.some((f) => touched.has(f))) add(plan.id, "flag touched");
+  }
+  return links;
+}
+
+// src/core/scan/diff.ts
+var HUNK = /^@@ -(\d+)(?:,\d+)? \+(\d+)(?:,\d+)? @@/;
+function unquote(path) {
+  if (!path.startsWith('"')) return path;
+  const bytes = [];
+  const body = path.slice(1, -1);
+  for (let i = 0; i < body.length; i++) {
+    const c = body[i];
+    if (c !== "\\") {
+      bytes.push(...Buffer.from(c, "utf8"));
+      continue;
+    }
+    const next = body[++i];
+    if (/[0-7]/.test(next)) {
+      bytes.push(parseInt(body.slice(i, i + 3), 8));
+      i += 2;
+    } else bytes.push({ n: 10, t: 9, '"': 34, "\\": 92 }[next] ?? next.charCodeAt(0));
+  }
+  return Buffer.from(bytes).toString("utf8");
+}
+function stripPrefix(path, prefix) {
+  const plain = unquote(path);
+  return plain.startsWith(prefix) ? plain.slice(prefix.length) : plain;
+}
+function parseUnifiedDiff(text2) {
+  const files = [];
+  let current;
+  let oldLine = 0;
+  let newLine = 0;
+  for (const raw of text2.split("\n")) {
+    if (raw.startsWith("diff --git ")) {
+      current = { path: "", added: [], removed: [], binary: false };
+      files.push(current);
+      continue;
+    }
+    if (!current) continue;
+    if (raw.startsWith("--- ")) {
+      const from = raw.slice(4);
+      if (from !== "/dev/null") current.previousPath = stripPrefix(from, "a/");
+      continue;
+    }
+    if (raw.startsWith("+++ ")) {
+      const to = raw.slice(4);
+      current.path = to === "/dev/null" ? current.previousPath ?? "" : stripPrefix(to, "b/");
+      if (current.previousPath === current.path) delete current.previousPath;
+      continue;
+    }
+    if (raw.startsWith("rename from ")) {
+      current.previousPath = unquote(raw.slice("rename from ".length));
+      continue;
+    }
+    if (raw.startsWith("rename to ")) {
+      current.path = unquote(raw.slice("rename to ".length));
+      continue;
+    }
+    if (raw.startsWith("Binary files ")) {
+      current.binary = true;
+      const match = / and (?:b\/)?(.+) differ$/.exec(raw);
+      if (match && !current.path) current.path = match[1] === "/dev/null" ? "" : match[1];
+      continue;
+    }
+    const hunk = HUNK.exec(raw);
+    if (hunk) {
+      oldLine = Number(hunk[1]);
+      newLine = Number(hunk[2]);
+      continue;
+    }
+    if (raw.startsWith("+")) current.added.push({ line: newLine++, text: raw.slice(1) });
+    else if (raw.startsWith("-")) current.removed.push({ line: oldLine++, text: raw.slice(1) });
+  }
+  return files.filter((f) => f.path !== "");
+}
+
+// src/core/scan/flag-files.ts
+var import_yaml2 = __toESM(require_dist(), 1);
+var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
+function flagDefinitions(text2) {
+  if (text2 === void 0) return /* @__PURE__ */ new Map();
+  let value;
+  try {
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+  } catch {
+    return void 0;
+  }
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return void 0;
+  const record2 = value;
+  const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
+  return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
+}
+function flagDefinitionTouches(path, before, after) {
+  const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
+  const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
+  const lineOf = (text2, key) => {
+    if (!text2) return 1;
+    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\s*:`).test(l));
+    return index < 0 ? 1 : index + 1;
+  };
+  const touches = [];
+  for (const [key, definition] of now) {
+    if (old.get(key) !== definition) touches.push({ key, file: path, line: lineOf(after, key), side: "added", via: "definition" });
+  }
+  for (const key of old.keys()) {
+    if (!now.has(key)) touches.push({ key, file: path, line: lineOf(before, key), side: "removed", via: "definition" });
+  }
+  return touches;
+}
+
+// src/core/scan/patterns.ts
+var Q = `(?<q>["'\`])`;
+var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
+var IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
+var TYPES = "(?:Boolean|String|Number|Integer|Int|Double|Float|Object)";
+var TYPES_SNAKE = "(?:boolean|string|number|integer|float|object)";
+var either = (prefix) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
+var BUILTIN_FLAG_PATTERNS = [
+  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
+  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
+  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
+  // Python: client.get_boolean_value("key", False)
+  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
+  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
+  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx)
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*\\s*,\\s*`),
+  // React: useBooleanFlagValue('key', false), useFlag('key', default)
+  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
+  // Helpers many codebases write around their flag client.
+  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
+];
+var BUILTIN_LOG_PATTERNS = [
+  `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
+];
+function constantDefinition(name) {
+  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
+}
+function compilePatterns(patterns) {
+  return patterns.map((p) => new RegExp(p, "gu"));
+}
+
+// src/core/scan/flag-touches.ts
+var QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
+function findFlagTouches(inputs) {
+  const touches = [];
+  const seen = /* @__PURE__ */ new Set();
+  const add = (touch) => {
+    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
+    if (!seen.has(id)) {
+      seen.add(id);
+      touches.push(touch);
+    }
+  };
+  for (const diff of inputs.diffs) {
+    if (diff.binary) continue;
+    for (const side of ["added", "removed"]) {
+      const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
+      for (const { line, text: text2 } of diff[side]) {
+        for (const pattern of inputs.patterns) {
+          pattern.lastIndex = 0;
+          for (const match of text2.matchAll(pattern)) {
+            const groups = match.groups ?? {};
+            if (groups.key) add({ key: groups.key, file: file2, line, side, via: "call" });
+            else if (groups.ident) {
+              const key = resolveConstant(inputs.textOf(side, file2), groups.ident);
+              if (key) add({ key, file: file2, line, side, via: "constant" });
+            }
+          }
+        }
+        QUOTED.lastIndex = 0;
+        for (const match of text2.matchAll(QUOTED)) {
+          if (inputs.knownKeys.has(match[2])) add({ key: match[2], file: file2, line, side, via: "literal" });
+        }
+      }
+    }
+  }
+  return touches;
+}
+function resolveConstant(text2, ident) {
+  if (!text2) return void 0;
+  const name = ident.slice(ident.lastIndexOf(".") + 1);
+  return constantDefinition(name).exec(text2)?.groups?.key;
+}
+
+// src/core/scan/aho-corasick.ts
+function buildAutomaton(names) {
+  const encoded = names.map((n) => new TextEncoder().encode(n));
+  const classOf = new Uint8Array(256);
+  let classes = 1;
+  for (const bytes of encoded) for (const b of bytes) if (classOf[b] === 0) classOf[b] = classes++;
+  if (classes > 255) throw new Error("too many distinct bytes in names");
+  let capacity = 1 + encoded.reduce((s, b) => s + b.length, 0);
+  let next = new Int32Array(capacity * classes).fill(-1);
+  const output2 = new Int32Array(capacity).fill(-1);
+  let states = 1;
+  const duplicates = [];
+  encoded.forEach((bytes, index) => {
+    let s = 0;
+    for (const b of bytes) {
+      const slot = s * classes + classOf[b];
+      if (next[slot] === -1) next[slot] = states++;
+      s = next[slot];
+    }
+    if (output2[s] === -1) output2[s] = index;
+    else duplicates.push([output2[s], index]);
+  });
+  capacity = states;
+  next = next.slice(0, capacity * classes);
+  const fail2 = new Int32Array(capacity);
+  const dictionary = new Int32Array(capacity).fill(-1);
+  const queue = new Int32Array(capacity);
+  let head = 0;
+  let tail = 0;
+  for (let c = 0; c < classes; c++) {
+    const child = next[c];
+    if (child === -1) next[c] = 0;
+    else {
+      fail2[child] = 0;
+      queue[tail++] = child;
+    }
+  }
+  while (head < tail) {
+    const s = queue[head++];
+    const f = fail2[s];
+    dictionary[s] = output2[f] !== -1 ? f : dictionary[f];
+    for (let c = 0; c < classes; c++) {
+      const slot = s * classes + c;
+      const child = next[slot];
+      if (child === -1) next[slot] = next[f * classes + c];
+      else {
+        fail2[child] = next[f * classes + c];
+        queue[tail++] = child;
+      }
+    }
+  }
+  const delta = new Int32Array(next.length);
+  for (let i = 0; i < next.length; i++) delta[i] = next[i] * classes;
+  const reports = new Uint8Array(capacity * classes);
+  for (let s = 0; s < capacity; s++) reports[s * classes] = output2[s] !== -1 || dictionary[s] !== -1 ? 1 : 0;
+  const lengths = Int32Array.from(encoded, (b) => b.length);
+  const twins = /* @__PURE__ */ new Map();
+  for (const [first, other] of duplicates) twins.set(first, [...twins.get(first) ?? [], other]);
+  return {
+    names,
+    lengths,
+    search(bytes, onMatch) {
+      let row = 0;
+      for (let i = 0; i < bytes.length; i++) {
+        row = delta[row + classOf[bytes[i]]];
+        if (reports[row] === 0) continue;
+        const s = row / classes;
+        for (let t = output2[s] !== -1 ? s : dictionary[s]; t !== -1; t = dictionary[t]) {
+          const name = output2[t];
+          onMatch(name, i);
+          const same = twins.get(name);
+          if (same) for (const other of same) onMatch(other, i);
+        }
+      }
+    }
+  };
+}
+
+// src/core/scan/name-scan.ts
+var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+function looksBinary(bytes) {
+  const end = Math.min(bytes.length, 8e3);
+  for (let i = 0; i < end; i++) if (bytes[i] === 0) return true;
+  return false;
+}
+function createNameScanner(names, callPatterns = []) {
+  const unique = [...new Set(names)].filter((n) => n.length > 0 && !n.includes("\n"));
+  const automaton = buildAutomaton(unique);
+  const hits = unique.map(() => ({}));
+  const index = new Map(unique.map((n, i) => [n, i]));
+  let files = 0;
+  let bytesSeen = 0;
+  let skippedBinary = 0;
+  let unplacedCalls = unique.length;
+  return {
+    scanFile(path, bytes) {
+      if (looksBinary(bytes)) {
+        skippedBinary++;
+        return;
+      }
+      files++;
+      bytesSeen += bytes.length;
+      let countedTo = 0;
+      let line = 1;
+      let lineStart = 0;
+      const locate = (start, end) => {
+        for (let nl = bytes.indexOf(10, countedTo); nl !== -1 && nl < end; nl = bytes.indexOf(10, nl + 1)) {
+          line++;
+          lineStart = nl + 1;
+        }
+        countedTo = end;
+        return { file: path, line, column: start - lineStart + 1 };
+      };
+      let quotedHere = false;
+      automaton.search(bytes, (name, end) => {
+        const h = hits[name];
+        if (h.first && h.firstQuoted) return;
+        const start = end - automaton.lengths[name] + 1;
+        const here = locate(start, end);
+        h.first ??= here;
+        const quote = bytes[start - 1];
+        if (quote !== void 0 && QUOTES.has(quote) && bytes[end + 1] === quote) {
+          h.firstQuoted ??= here;
+          if (!h.firstCall) quotedHere = true;
+        }
+      });
+      if (quotedHere && unplacedCalls > 0 && callPatterns.length) {
+        const text2 = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
+        const lineStarts = [0];
+        for (let nl = text2.indexOf("\n"); nl !== -1; nl = text2.indexOf("\n", nl + 1)) lineStarts.push(nl + 1);
+        for (const pattern of callPatterns) {
+          pattern.lastIndex = 0;
+          for (const match of text2.matchAll(pattern)) {
+            const event = match.groups?.event;
+            const i = event === void 0 ? void 0 : index.get(event);
+            if (i === void 0 || hits[i].firstCall) continue;
+            const at = match.index + match[0].lastIndexOf(event);
+            let lo = 0;
+            let hi = lineStarts.length - 1;
+            while (lo < hi) {
+              const mid = lo + hi + 1 >> 1;
+              if (lineStarts[mid] <= at) lo = mid;
+              else hi = mid - 1;
+            }
+            hits[i].firstCall = { file: path, line: lo + 1, column: Buffer.byteLength(text2.slice(lineStarts[lo], at)) + 1 };
+            unplacedCalls--;
+          }
+        }
+      }
+    },
+    results() {
+      return new Map(unique.map((n, i) => [n, hits[i]]));
+    },
+    stats() {
+      return { files, bytes: bytesSeen, skippedBinary };
+    }
+  };
+}
+
+// src/run/review-change.ts
+var QUOTED2 = /(["'`])([^"'`\n]{1,200})\1/g;
+async function reviewChange(options) {
+  const { change: change2 } = options;
+  const head = change2.filesAt("head");
+  const loaded = await loadWorkspace({ files: head, ...options.settingsPath ? { settingsPath: options.settingsPath } : {}, ...options.onProgress ? { onProgress: options.onProgress } : {} });
+  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
+  const { workspace } = loaded;
+  const { settings } = workspace;
+  const [changed, diffText] = await Promise.all([change2.changedFiles(), change2.diff()]);
+  const diffs = parseUnifiedDiff(diffText);
+  const changedPaths = new Set(changed.filter((f) => f.status !== "deleted").map((f) => f.path));
+  const textual = diffs.filter((d) => !d.binary);
+  const headPaths = textual.filter((d) => changedPaths.has(d.path)).map((d) => d.path);
+  const basePaths = textual.map((d) => d.previousPath ?? d.path);
+  const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change2.filesAt("base").readTexts(basePaths)]);
+  const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
+  const isFlagFile = (0, import_picomatch3.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
+  const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
+  const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
+  const flagPatterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+  const codeTouches = findFlagTouches({
+    diffs: textual.filter((d) => !isFlagFile(d.path)),
+    patterns: flagPatterns,
+    knownKeys,
+    textOf: (side, path) => textAt[side].get(path)
+  });
+  const touches = [...definitionTouches, ...codeTouches];
+  const pr = options.pr ?? {};
+  const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan) }));
+  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
+    file: file2,
+    problems: workspace.problems.filter((p) => p.file === file2)
+  }));
+  const running = runningEntries(workspace.registry.entries);
+  const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  const logPatterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
+  const scanner = createNameScanner(names, logPatterns);
+  if (names.length) {
+    const ownFiles = /* @__PURE__ */ new Set([...workspace.planFiles, ...settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+    const inScope = scanMatcher(settings.scan);
+    const paths = (await change2.trackedFiles("head")).filter((p) => !ownFiles.has(p) && inScope(p));
+    let done = 0;
+    await change2.streamFiles("head", paths, (path, bytes) => {
+      scanner.scanFile(path, bytes);
+      options.onProgress?.(++done, paths.length, "files");
+    });
+  }
+  const runningEvents = new Set(running.flatMap((e) => e.events));
+  const removedEvents = /* @__PURE__ */ new Map();
+  for (const diff of textual) {
+    for (const { line, text: text2 } of diff.removed) {
+      QUOTED2.lastIndex = 0;
+      for (const match of text2.matchAll(QUOTED2)) {
+        const event = match[2];
+        if (runningEvents.has(event) && !removedEvents.has(event)) {
+          removedEvents.set(event, { file: diff.previousPath ?? diff.path, line, column: match.index + 2 });
+        }
+      }
+    }
+  }
+  const review = buildReview(
+    { settings, pr, linked, invalidPlanFiles, touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { base: change2.base, head: change2.head }
+  );
+  const stats = scanner.stats();
+  return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+
+// src/core/report/markdown-safe.ts
+function safeText(text2) {
+  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
+}
+function safeCell(text2) {
+  return safeText(text2).replace(/\|/g, "\\|");
+}
+function codeSpan(text2) {
+  const clean = text2.replace(/\r?\n/g, " ");
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
+  return `${fence}${pad}${clean}${pad}${fence}`;
+}
+
+// src/core/report/review-markdown.ts
+var REVIEW_MARKER = "<!-- plumbline:review -->";
+var COMMENT_LIMIT = 65536;
+var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
+var HEADLINE = {
+  blocked: "\u26D4 Plumbline: blocked",
+  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
+  clear: "\u2705 Plumbline: all clear",
+  "nothing-to-check": "\u2705 Plumbline: nothing to check"
+};
+function plural2(n, noun) {
+  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+}
+function where(path, line, options) {
+  if (!path) return "";
+  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
+  return options.link ? `[${label}](${options.link(path, line ?? 1)})` : label;
+}
+function findingLine(f, options) {
+  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
+  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+}
+function verdictLine(review) {
+  if (review.verdict === "nothing-to-check") return `### ${HEADLINE[review.verdict]}`;
+  const parts = [
+    review.counts.block ? plural2(review.counts.block, "blocking finding") : "",
+    review.counts.warn ? plural2(review.counts.warn, "warning") : "",
+    review.counts.note ? plural2(review.counts.note, "note") : ""
+  ].filter(Boolean);
+  return `### ${HEADLINE[review.verdict]}${parts.length ? ` \u2014 ${parts.join(", ")}` : ""}`;
+}
+function planSection(plan, options, detail) {
+  const lines = [
+    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
+    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
+    "",
+    ...plan.checklist.map((item) => `- [${item.done ? "x" : " "}] ${item.label}`)
+  ];
+  if (!detail.planDetails) return lines;
+  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
+  const body = detail.charts ? sizing : cutChart(sizing);
+  const found = plan.events.filter((e) => e.location).length;
+  lines.push(
+    "",
+    "<details><summary>Sizing: units, days and power</summary>",
+    "",
+    ...body,
+    "</details>",
+    "",
+    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
+    "",
+    "| event | used for | first logged at |",
+    "| --- | --- | --- |",
+    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`),
+    "",
+    "</details>"
+  );
+  return lines;
+}
+function cutChart(lines) {
+  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
+  return start < 0 ? lines : lines.slice(0, start);
+}
+function render(review, options, detail, omitted) {
+  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  if (review.findings.length) {
+    out.push("#### Findings", "", ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
+    const hidden = review.findings.length - detail.findingsShown;
+    if (hidden > 0) out.push(`- \u2026 and ${plural2(hidden, "more finding")}${options.fullReport ? ` in ${options.fullReport}` : ""}.`);
+    out.push("");
+  }
+  for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
+  if (review.collisions.length) {
+    out.push(
+      "#### Running tests on the same surface",
+      "",
+      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
+      "| --- | --- | --- | --- | --- | --- | --- | --- |",
+      ...review.collisions.map(
+        (c) => `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
+      ),
+      ""
+    );
+  }
+  if (review.flags.length) {
+    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
+    out.push(
+      "<details><summary>Feature flags this change touches</summary>",
+      "",
+      "| flag | where | how | plans |",
+      "| --- | --- | --- | --- |",
+      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeSpan).join(", ") : "**none**"} |`),
+      ...review.flags.length > shown.length ? [``, `\u2026and ${review.flags.length - shown.length} more.`] : [],
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(", ")}${options.fullReport ? `; the full report is in ${options.fullReport}` : ""}.</sub>`);
+  return out.join("\n").replace(/\n{3,}/g, "\n\n");
+}
+function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT) {
+  const steps = [
+    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
+    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ["the power charts"]],
+    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ["the power charts", "the sizing and events tables"]]
+  ];
+  for (const [detail, omitted] of steps) {
+    const body = render(review, options, detail, omitted);
+    if (body.length <= limit) return body;
+  }
+  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
+    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ["the power charts", "the sizing and events tables", "some findings"]);
+    if (body.length <= limit) return body;
+  }
+  return `${REVIEW_MARKER}
+${verdictLine(review)}
+
+The full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+}
+
+// src/core/report/review-text.ts
+var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
+function renderReviewText(review, options) {
+  const style = terminalStyle(options.color);
+  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
+  const out = [];
+  const verdict = {
+    blocked: style.red("blocked"),
+    warnings: style.yellow("passes, with warnings"),
+    clear: style.green("all clear"),
+    "nothing-to-check": style.green("nothing to check")
+  }[review.verdict];
+  out.push(`${style.bold("Plumbline")}: ${verdict} (${review.counts.block} blocking, ${review.counts.warn} warnings, ${review.counts.note} notes) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  for (const f of review.findings) {
+    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
+    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ""}: ${terminalSafe(f.message)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`);
+  }
+  for (const plan of review.plans) {
+    out.push("", `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(", "))}) ${plan.file}:${plan.line}`);
+    for (const item of plan.checklist) out.push(`  [${item.done ? style.green("x") : style.red(" ")}] ${item.label}`);
+    const primary = plan.sizing.metrics[0];
+    if (primary?.result.ok && primary.result.value.headline) {
+      const h = primary.result.value.headline;
+      const end = primary.result.value.atPlannedEnd;
+      out.push(
+        `  sizing: ${h.totalUnits.toLocaleString("en-US")} units${h.duration ? `, ${h.duration.days} days (${h.duration.weeks} weeks)` : ""}${end?.power !== void 0 ? `, ${(end.power * 100).toFixed(1)}% power by the planned end` : ""}; details: plumbline size ${plan.id}`
+      );
+    }
+    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
+    out.push(`  events: ${plan.events.length - missing.length} of ${plan.events.length} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
+  }
+  return out.join("\n");
+}
+
+// src/core/review/report-schema.ts
+var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
+var severity = external_exports.enum(["block", "warn", "note"]);
+var analysisSize = external_exports.object({
+  perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
+  totalUnits: external_exports.number().int(),
+  clusters: external_exports.number().int().optional(),
+  duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
+});
+var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
+var sizeResult = external_exports.union([
+  external_exports.object({
+    ok: external_exports.literal(true),
+    value: external_exports.object({
+      baselineValue: external_exports.number(),
+      sd: external_exports.number().optional(),
+      effect: change.extend({ from: external_exports.number() }).optional(),
+      multipliers: external_exports.object({
+        comparisons: external_exports.number(),
+        alphaPerComparison: external_exports.number(),
+        designEffect: external_exports.number(),
+        varianceReduction: external_exports.number(),
+        sequential: external_exports.number(),
+        dilutionUnits: external_exports.number(),
+        dilutionDays: external_exports.number()
+      }),
+      triggered: analysisSize.optional(),
+      diluted: analysisSize.optional(),
+      headline: analysisSize.optional(),
+      atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
+      powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
+      notes: external_exports.array(external_exports.string())
+    })
+  }),
+  external_exports.object({ ok: external_exports.literal(false), error: external_exports.object({ input: external_exports.string(), message: external_exports.string() }) })
+]);
+var reviewReportSchema = external_exports.object({
+  format: external_exports.literal("plumbline.review/1"),
+  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check"]),
+  counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
+  base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  findings: external_exports.array(
+    external_exports.object({
+      code: external_exports.string(),
+      severity,
+      message: external_exports.string(),
+      fix: external_exports.string(),
+      plan: external_exports.string().optional(),
+      file: external_exports.string().optional(),
+      line: external_exports.number().int().positive().optional()
+    })
+  ),
+  plans: external_exports.array(
+    external_exports.object({
+      id: external_exports.string(),
+      title: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      state: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      reasons: external_exports.array(external_exports.enum(["named in the description", "plan file changed", "flag touched"])),
+      checklist: external_exports.array(external_exports.object({ label: external_exports.string(), done: external_exports.boolean() })),
+      sizing: external_exports.object({
+        planId: external_exports.string(),
+        plannedDays: external_exports.number().int().optional(),
+        dailyUnits: external_exports.number().optional(),
+        metrics: external_exports.array(
+          external_exports.object({
+            metric: external_exports.string(),
+            role: external_exports.enum(["primary", "guardrail"]),
+            kind: external_exports.enum(["proportion", "mean", "ratio"]),
+            direction: external_exports.enum(["increase", "decrease"]),
+            sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
+            result: sizeResult
+          })
+        )
+      }),
+      power: external_exports.number(),
+      window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
+      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
+    })
+  ),
+  flags: external_exports.array(
+    external_exports.object({
+      key: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      side: external_exports.enum(["added", "removed"]),
+      via: external_exports.string(),
+      plans: external_exports.array(external_exports.string()),
+      exempt: external_exports.boolean()
+    })
+  ),
+  collisions: external_exports.array(
+    external_exports.object({
+      plan: external_exports.string(),
+      other: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      otherSurface: external_exports.string(),
+      overlapDays: external_exports.number().int().optional(),
+      overlapWindow: external_exports.object({ start: external_exports.string(), end: external_exports.string() }).optional(),
+      platforms: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      locales: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      trafficShare: external_exports.number(),
+      known: external_exports.boolean()
+    })
+  )
+}).describe("The Plumbline pull-request review report.");
+var REVIEW_JSON_FORMAT = "plumbline.review/1";
+function reviewJson(review) {
+  return { format: REVIEW_JSON_FORMAT, ...review };
+}
+
+// src/cli/check-command.ts
+import { readFile as readFile2 } from "node:fs/promises";
+import { resolve } from "node:path";
+async function pullRequestInfo(flags, cwd) {
+  let fromFile = {};
+  if (flags.prJson) {
+    let parsed;
+    try {
+      parsed = JSON.parse(await readFile2(resolve(cwd, flags.prJson), "utf8"));
+    } catch (error62) {
+      throw new UsageError(`--pr-json ${flags.prJson} is not a readable JSON file (${error62 instanceof Error ? error62.message : String(error62)})`, 'give { "title": ..., "body": ..., "labels": [...], "branch": ... } or a pull-request object');
+    }
+    fromFile = fromJson(parsed, flags.prJson);
+  }
+  let body = flags.body ?? fromFile.body;
+  if (flags.bodyFile) {
+    try {
+      body = await readFile2(resolve(cwd, flags.bodyFile), "utf8");
+    } catch (error62) {
+      throw new ExternalError(`cannot read --body-file ${flags.bodyFile}`, void 0, { cause: error62 });
+    }
+  }
+  const labels = flags.label.length ? flags.label : fromFile.labels;
+  return {
+    ...(flags.title ?? fromFile.title) !== void 0 ? { title: flags.title ?? fromFile.title } : {},
+    ...body !== void 0 ? { body } : {},
+    ...labels ? { labels } : {},
+    ...(flags.branch ?? fromFile.branch) !== void 0 ? { branch: flags.branch ?? fromFile.branch } : {}
+  };
+}
+function fromJson(value, file2) {
+  if (value === null || typeof value !== "object" || Array.isArray(value)) throw new UsageError(`--pr-json ${file2}: expected a JSON object`);
+  const record2 = value;
+  const pr = record2.pull_request && typeof record2.pull_request === "object" ? record2.pull_request : record2;
+  const text2 = (v, field) => {
+    if (v === void 0 || v === null) return void 0;
+    if (typeof v !== "string") throw new UsageError(`--pr-json ${file2}: ${field} must be text`);
+    return v;
+  };
+  const labels = Array.isArray(pr.labels) ? pr.labels.map((l, i) => {
+    const name = typeof l === "string" ? l : l && typeof l === "object" ? l.name : void 0;
+    if (typeof name !== "string") throw new UsageError(`--pr-json ${file2}: labels[${i}] must be a name or an object with a name`);
+    return name;
+  }) : void 0;
+  const headRef = pr.head && typeof pr.head === "object" ? pr.head.ref : void 0;
+  const title = text2(pr.title, "title");
+  const body = text2(pr.body, "body");
+  const branch = text2(pr.branch ?? headRef, "branch");
+  return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
+}
+
 // src/core/report/readout.ts
 var SRM_JSON_FORMAT = "plumbline.srm/1";
 var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
@@ -38344,7 +39720,7 @@ function renderSrmText(check2, observed, weights, threshold) {
 }
 function renderAdjustedText(pValues, bh, bonferroni, q) {
   const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni[i]), bonferroni[i] <= q ? "yes" : "no"]);
-  const found = (list) => list.filter((x) => x <= q).length;
+  const found = (list2) => list2.filter((x) => x <= q).length;
   return [
     formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
     "",
@@ -38396,7 +39772,7 @@ var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
 var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
 function context(options) {
   const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve(options.cwd));
+  const files = createRepoFiles(resolve2(options.cwd));
   return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
 }
 function reportSettingsProblems(output2, format, file2, problems) {
@@ -38440,7 +39816,7 @@ function buildProgram(setExit) {
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
     if (local.stdout) return output2.out(result.text);
-    await writeFileAtomic(resolve(options.cwd, result.path), result.text, { overwrite: local.force });
+    await writeFileAtomic(resolve2(options.cwd, result.path), result.text, { overwrite: local.force });
     output2.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
   });
   addSizeOptions(
@@ -38458,6 +39834,23 @@ function buildProgram(setExit) {
     else if (flags.format === "markdown") output2.out(renderSizingMarkdown(outcome.sizing, { ...outcome.context, power: outcome.power }));
     else output2.out(renderSizingText(outcome.sizing, outcome.context));
     setExit(EXIT.ok);
+  });
+  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
+    const options = program2.opts();
+    const { output: output2 } = context({ ...options, format: "text" });
+    const cwd = resolve2(options.cwd);
+    const pr = await pullRequestInfo(flags, cwd);
+    const change2 = await openChange(cwd, flags.base, flags.head);
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
+    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
+    const { review } = outcome;
+    if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
+`, { overwrite: true });
+    const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
+    if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
+    else if (flags.format === "markdown") output2.out(renderReviewMarkdown(review, repoUrl ? { link: (path, line) => `${repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}` } : {}));
+    else output2.out(renderReviewText(review, { color: output2.color }));
+    setExit(review.verdict === "blocked" ? EXIT.findings : EXIT.ok);
   });
   program2.command("srm").description("sample ratio mismatch: do the units seen per arm fit the planned weights?").argument("<counts...>", "units observed in each arm, control first, e.g. 50412 49288").option("--weights <weights>", "planned weights, e.g. 50,50 (default: equal)").option("--threshold <p>", "alarm below this p-value", String(SRM_ALARM_P)).addOption(formatOption()).action((counts, local) => {
     const observed = parseNumbers("counts", counts);

@@ -32373,7 +32373,24 @@ var BUG_REPORT_HINT = "This is a bug in Plumbline, not in your files. Please ope
 // src/adapters/files.ts
 var SKIPPED_FOLDERS = /* @__PURE__ */ new Set([".git", "node_modules"]);
 function createRepoFiles(root) {
+  const readText = async (path) => {
+    try {
+      return await readFile(join(root, path), "utf8");
+    } catch (error63) {
+      if (isCode(error63, "ENOENT")) return void 0;
+      if (isCode(error63, "EISDIR")) throw new ExternalError(`${path} is a folder, not a file`);
+      throw new ExternalError(`cannot read ${path}`, void 0, { cause: error63 });
+    }
+  };
   return {
+    readText,
+    async readTexts(paths) {
+      const texts = [];
+      for (let start = 0; start < paths.length; start += 64) {
+        texts.push(...await Promise.all(paths.slice(start, start + 64).map(readText)));
+      }
+      return texts;
+    },
     async listFiles(folder) {
       const start = join(root, folder);
       const found = [];
@@ -32395,15 +32412,6 @@ function createRepoFiles(root) {
       };
       await walk(start);
       return found.sort();
-    },
-    async readText(path) {
-      try {
-        return await readFile(join(root, path), "utf8");
-      } catch (error63) {
-        if (isCode(error63, "ENOENT")) return void 0;
-        if (isCode(error63, "EISDIR")) throw new ExternalError(`${path} is a folder, not a file`);
-        throw new ExternalError(`cannot read ${path}`, void 0, { cause: error63 });
-      }
     }
   };
 }
@@ -53263,7 +53271,7 @@ async function loadWorkspace(options) {
   const planFiles = await findPlanFiles(files, settings.planPaths);
   const problems = [];
   const plans = [];
-  const texts = await readInBatches(files, planFiles);
+  const texts = await files.readTexts(planFiles);
   for (const [index, file2] of planFiles.entries()) {
     options.onProgress?.(index, planFiles.length, "plans");
     const result = loadPlan(texts[index] ?? "", file2);
@@ -53328,13 +53336,6 @@ async function findPlanFiles(files, planPaths) {
     }
   }
   return [...found].sort();
-}
-async function readInBatches(files, paths, batchSize = 64) {
-  const texts = [];
-  for (let start = 0; start < paths.length; start += batchSize) {
-    texts.push(...await Promise.all(paths.slice(start, start + batchSize).map((path) => files.readText(path))));
-  }
-  return texts;
 }
 
 // src/run/validate.ts

@@ -2,6 +2,7 @@
 // what a user would see. Findings in the demo are the point, so they do not fail this script;
 // a usage or internal error (exit code 2 or more) does.
 import { spawnSync } from 'node:child_process';
+import { buildDemoChange } from './demo-change.mjs';
 
 const steps = [
   { title: 'Validate every plan, registry file and the settings file', args: ['validate'] },
@@ -18,5 +19,16 @@ for (const step of steps) {
   const run = spawnSync(process.execPath, ['dist/cli.js', '-C', 'demo/repo', ...step.args], { stdio: 'inherit' });
   process.stdout.write(`\n(exit code ${run.status})\n`);
   if (run.status === null || run.status >= 2) broken = true;
+}
+// The main job: the review of a pull request, built as a real git repository from demo/change/.
+const change = buildDemoChange();
+try {
+  const args = ['-C', change.root, 'check', '--base', 'main', '--head', 'feature/slot-nudge', '--pr-json', `${process.cwd()}/demo/change/pull-request.json`, '--format', 'markdown'];
+  process.stdout.write(`\n== The pull-request review: the comment Plumbline posts\n$ plumbline ${args.slice(2).join(' ').replace(process.cwd() + '/', '')}\n\n`);
+  const run = spawnSync(process.execPath, ['dist/cli.js', ...args], { stdio: 'inherit' });
+  process.stdout.write(`\n(exit code ${run.status}: 1 means a blocking finding, which fails the check)\n`);
+  if (run.status === null || run.status >= 2) broken = true;
+} finally {
+  change.cleanup();
 }
 process.exitCode = broken ? 1 : 0;

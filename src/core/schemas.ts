@@ -2,6 +2,8 @@ import { settingsJsonSchema } from './config/load.js';
 import { planJsonSchema } from './plan/json-schema.js';
 import { registryJsonSchema } from './registry/load.js';
 import { renderSchemaReference } from './report/schema-reference.js';
+import { reviewReportSchema } from './review/report-schema.js';
+import { z } from 'zod';
 
 /**
  * Every generated artefact of the file formats: JSON Schemas for editors and other tools, and
@@ -13,6 +15,11 @@ export function generatedSchemaFiles(): Record<string, string> {
     'schema/plan.schema.json': json(planJsonSchema()),
     'schema/registry.schema.json': json(registryJsonSchema()),
     'schema/settings.schema.json': json(settingsJsonSchema()),
+    'schema/review-report.schema.json': json({
+      $id: 'https://plumbline.dev/schema/review-report.schema.json',
+      title: 'Plumbline review report',
+      ...z.toJSONSchema(reviewReportSchema, { target: 'draft-2020-12' }),
+    }),
     'docs/plan-reference.md': renderSchemaReference(
       planJsonSchema(),
       'Plan file reference',

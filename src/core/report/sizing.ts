@@ -130,7 +130,7 @@ export function renderSizingMarkdown(sizing: PlanSizing, context: SizingContext 
   return [
     `### ${context.title}`,
     '',
-    `${context.designLine} ${windowLine(sizing, context)}`,
+    [context.designLine, windowLine(sizing, context)].filter(Boolean).join(' '),
     '',
     ...table,
     ...(notes.length ? ['', ...notes.map((n) => `- ${n}`)] : []),

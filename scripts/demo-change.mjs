@@ -1,0 +1,26 @@
+// Builds the demo change as a real git repository: demo/repo committed as the base, then the
+// files under demo/change/ laid over it and committed as the head. Prints the repository path.
+import { execFileSync } from 'node:child_process';
+import { cpSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+export function buildDemoChange() {
+  const root = mkdtempSync(join(tmpdir(), 'plumbline-demo-'));
+  const git = (...args) =>
+    execFileSync('git', args, {
+      cwd: root,
+      encoding: 'utf8',
+      env: { ...process.env, GIT_AUTHOR_NAME: 'Demo', GIT_AUTHOR_EMAIL: 'demo@bramblecart.invalid', GIT_COMMITTER_NAME: 'Demo', GIT_COMMITTER_EMAIL: 'demo@bramblecart.invalid', GIT_AUTHOR_DATE: '2026-11-30T09:00:00Z', GIT_COMMITTER_DATE: '2026-11-30T09:00:00Z' },
+    }).trim();
+  git('init', '-q', '-b', 'main');
+  cpSync('demo/repo', root, { recursive: true });
+  git('add', '-A');
+  git('commit', '-q', '-m', 'Bramblecart as on main');
+  const base = git('rev-parse', 'HEAD');
+  git('switch', '-q', '-c', 'feature/slot-nudge');
+  cpSync('demo/change/src', join(root, 'src'), { recursive: true });
+  git('add', '-A');
+  git('commit', '-q', '-m', 'Van-nearby badge, tip amounts, substitutes');
+  return { root, base, head: git('rev-parse', 'HEAD'), cleanup: () => rmSync(root, { recursive: true, force: true }) };
+}

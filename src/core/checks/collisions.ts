@@ -1,0 +1,110 @@
+import { daysBetween } from '../calendar.js';
+import { entryFromPlan, type RegistryEntry } from '../registry/schema.js';
+import type { Check } from '../review/context.js';
+import { isSameOrBelow, surfacesMeet } from './surfaces.js';
+
+/** How two tests overlap: where, when, whom and how much traffic they share. */
+export interface Collision {
+  other: RegistryEntry;
+  /** Where the other test sits relative to this one. */
+  surface: 'same' | 'above' | 'below';
+  /** Days both windows cover (both ends included); undefined when a window is not set. */
+  overlapDays?: number;
+  overlapWindow?: { start: string; end: string };
+  platforms: string[] | 'all';
+  locales: string[] | 'all';
+  regions: string[] | 'all';
+  /** Share of eligible units expected in both tests. */
+  trafficShare: number;
+  /** One of the two plans lists the other under overlaps-with. */
+  known: boolean;
+}
+
+/** Common values of two lists, where an empty list means "everyone". */
+function intersect(a: readonly string[], b: readonly string[]): string[] | 'all' | undefined {
+  if (a.length === 0 && b.length === 0) return 'all';
+  if (a.length === 0) return [...b];
+  if (b.length === 0) return [...a];
+  const common = a.filter((x) => b.includes(x));
+  return common.length ? common : undefined;
+}
+
+function windowOverlap(a: RegistryEntry['window'], b: RegistryEntry['window']): { days?: number; window?: { start: string; end: string } } | undefined {
+  if (!a.start || !a.end || !b.start || !b.end) return {};
+  const start = a.start > b.start ? a.start : b.start;
+  const end = a.end < b.end ? a.end : b.end;
+  if (end < start) return undefined;
+  return { days: daysBetween(start, end) + 1, window: { start, end } };
+}
+
+function sharedTraffic(a: RegistryEntry, b: RegistryEntry): number {
+  const ga = a.surface.exclusionGroup;
+  const gb = b.surface.exclusionGroup;
+  if (ga && gb && ga.name === gb.name) {
+    // One group's units are split once, so slices either overlap or not at all.
+    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    return Math.max(0, overlap) / 100;
+  }
+  // Independent assignments: a unit is in both with the product of the shares.
+  return a.trafficShare * b.trafficShare;
+}
+
+/** The running tests that `subject` would collide with. */
+export function findCollisions(subject: RegistryEntry, others: readonly RegistryEntry[]): Collision[] {
+  const collisions: Collision[] = [];
+  for (const other of others) {
+    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
+    const when = windowOverlap(subject.window, other.window);
+    if (!when) continue;
+    const platforms = intersect(subject.population.platforms, other.population.platforms);
+    const locales = intersect(subject.population.locales, other.population.locales);
+    const regions = intersect(subject.population.regions, other.population.regions);
+    if (!platforms || !locales || !regions) continue;
+    const trafficShare = sharedTraffic(subject, other);
+    if (trafficShare <= 0) continue;
+    collisions.push({
+      other,
+      surface: subject.surface.path === other.surface.path ? 'same' : isSameOrBelow(subject.surface.path, other.surface.path) ? 'above' : 'below',
+      ...(when.days !== undefined ? { overlapDays: when.days } : {}),
+      ...(when.window ? { overlapWindow: when.window } : {}),
+      platforms,
+      locales,
+      regions,
+      trafficShare,
+      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id),
+    });
+  }
+  return collisions;
+}
+
+/** Running tests are the live ones; a test on hold still holds its units but is not being read. */
+export function runningEntries(entries: readonly RegistryEntry[]): RegistryEntry[] {
+  return entries.filter((e) => e.state === 'live');
+}
+
+export function collisionsOfLinked(context: Parameters<Check>[0]): { plan: string; collision: Collision }[] {
+  const running = runningEntries(context.registry.entries);
+  return context.linked.flatMap(({ loaded }) =>
+    findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision })),
+  );
+}
+
+const list = (values: string[] | 'all') => (values === 'all' ? 'everyone' : values.join(', '));
+
+export const collisionCheck: Check = (context) =>
+  collisionsOfLinked(context).map(({ plan, collision: c }) => {
+    const linked = context.linked.find((l) => l.loaded.plan.id === plan)!;
+    const where = c.surface === 'same' ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === 'above' ? 'which contains this surface' : 'inside this surface'}`;
+    const when = c.overlapDays !== undefined ? `${c.overlapDays} days (${c.overlapWindow!.start} to ${c.overlapWindow!.end})` : 'an unknown stretch (a window is not set)';
+    const message = `Overlaps ${c.other.id} (${c.other.owners.join(', ')}) on ${where} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
+    return c.known
+      ? { code: 'known-overlap', message: `${message} Both tests declare this overlap.`, fix: 'Check for an interaction between the two when reading out.', plan, file: linked.loaded.file, line: linked.loaded.line }
+      : {
+          code: 'collision',
+          message,
+          fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(', ')}.`,
+          plan,
+          file: linked.loaded.file,
+          line: linked.loaded.line,
+        };
+  });

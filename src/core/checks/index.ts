@@ -1,0 +1,35 @@
+import type { Check } from '../review/context.js';
+import { collisionCheck } from './collisions.js';
+import { flagWithoutPlan } from './flags.js';
+import { eventMissing, eventRemoved } from './logging.js';
+import {
+  bundleUnexplained,
+  decisionsMissing,
+  guardrailsMissing,
+  planInvalid,
+  populationChecks,
+  reasonMissing,
+  reviewMissing,
+  windowChecks,
+} from './plans.js';
+import { sizingChecks } from './sizing.js';
+import { analysisUnitDiffers, spillover } from './unit.js';
+
+/** Every check of the pull-request review, in the order their findings are listed. */
+export const CHECKS: readonly Check[] = [
+  planInvalid,
+  decisionsMissing,
+  reviewMissing,
+  eventRemoved,
+  flagWithoutPlan,
+  reasonMissing,
+  guardrailsMissing,
+  windowChecks,
+  bundleUnexplained,
+  populationChecks,
+  sizingChecks,
+  spillover,
+  analysisUnitDiffers,
+  collisionCheck,
+  eventMissing,
+];

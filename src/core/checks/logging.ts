@@ -1,0 +1,65 @@
+import { eventsOfPlan, type RegistryEntry } from '../registry/schema.js';
+import type { Check, ReviewContext } from '../review/context.js';
+import type { Location } from '../scan/name-scan.js';
+import { runningEntries } from './collisions.js';
+
+/** Where each event of a plan is logged at head: a logging call first, else a quoted string, else nowhere. */
+export interface EventStatus {
+  event: string;
+  /** What the plan uses it for. */
+  roles: string[];
+  location?: Location;
+  /** How it was found: in a logging call, or only as a quoted string. */
+  via?: 'call' | 'literal';
+}
+
+export function eventStatuses(context: ReviewContext, planId: string): EventStatus[] {
+  const linked = context.linked.find((l) => l.loaded.plan.id === planId);
+  if (!linked) return [];
+  const { plan } = linked.loaded;
+  const roles = new Map<string, string[]>();
+  const note = (event: string, role: string) => roles.set(event, [...(roles.get(event) ?? []), role]);
+  if (plan.exposure.event) note(plan.exposure.event, 'exposure');
+  for (const m of [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary]) for (const e of m.events) note(e, m.name);
+  return eventsOfPlan(plan).map((event) => {
+    const hits = context.events.get(event);
+    const location = hits?.firstCall ?? hits?.firstQuoted;
+    return { event, roles: roles.get(event) ?? [], ...(location ? { location, via: hits?.firstCall ? ('call' as const) : ('literal' as const) } : {}) };
+  });
+}
+
+export const eventMissing: Check = (context) =>
+  context.linked.flatMap(({ loaded }) =>
+    eventStatuses(context, loaded.plan.id)
+      .filter((s) => !s.location)
+      .map((s) => ({
+        code: 'event-missing',
+        message: `Event \`${s.event}\` (${s.roles.join(', ')}) is not logged anywhere in the code at head, so the ${s.roles.includes('exposure') ? 'exposure' : 'metric'} cannot be computed.`,
+        fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
+        plan: loaded.plan.id,
+        file: loaded.file,
+        line: loaded.line,
+      })),
+  );
+
+/** Running tests whose readout depends on `event`. */
+function dependents(entries: readonly RegistryEntry[], event: string): RegistryEntry[] {
+  return runningEntries(entries).filter((e) => e.events.includes(event));
+}
+
+export const eventRemoved: Check = ({ removedEvents, events, registry }) =>
+  [...removedEvents].flatMap(([event, where]) => {
+    const still = events.get(event);
+    if (still?.firstCall || still?.firstQuoted) return [];
+    const plans = dependents(registry.entries, event);
+    if (plans.length === 0) return [];
+    return [
+      {
+        code: 'event-removed',
+        message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? '' : 's'} ${plans.map((p) => `${p.id} (${p.owners.join(', ')})`).join(', ')} depend${plans.length === 1 ? 's' : ''} on.`,
+        fix: 'Keep logging the event, or agree with the owners to end or change those tests first.',
+        file: where.file,
+        line: where.line,
+      },
+    ];
+  });

@@ -1,0 +1,132 @@
+import { inclusiveDays } from '../calendar.js';
+import { missingDecisions } from '../plan/rules.js';
+import type { Check } from '../review/context.js';
+import { formatProblem } from '../source/problem.js';
+
+/** A plan file the change adds or edits must load: its problems block until fixed. */
+export const planInvalid: Check = ({ invalidPlanFiles }) =>
+  invalidPlanFiles.map(({ file, problems }) => {
+    const errors = problems.filter((p) => p.severity === 'error');
+    return {
+      code: 'plan-invalid',
+      message: `${file} cannot be used: ${errors.length} error${errors.length === 1 ? '' : 's'}, first: ${formatProblem(errors[0]!)}`,
+      fix: 'Run plumbline validate and fix each error.',
+      file,
+      line: errors[0]?.line ?? 1,
+    };
+  });
+
+/** Every outcome needs a rule written before launch, or any result can be read as a win. */
+export const decisionsMissing: Check = ({ linked }) =>
+  linked.flatMap(({ loaded }) => {
+    const missing = missingDecisions(loaded.plan);
+    if (missing.length === 0) return [];
+    return [
+      {
+        code: 'decisions-missing',
+        message: `No decision rule for ${missing.join(', ')}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
+        fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join('; ')}.`,
+        plan: loaded.plan.id,
+        file: loaded.file,
+        line: loaded.line,
+      },
+    ];
+  });
+
+export const reasonMissing: Check = ({ linked }) =>
+  linked
+    .filter(({ loaded }) => !loaded.plan.hypothesis.because)
+    .map(({ loaded }) => ({
+      code: 'reason-missing',
+      message: 'The hypothesis says what changes but not why it should work.',
+      fix: 'Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.',
+      plan: loaded.plan.id,
+      file: loaded.file,
+      line: loaded.line,
+    }));
+
+export const guardrailsMissing: Check = ({ linked }) =>
+  linked
+    .filter(({ loaded }) => loaded.plan.metrics.guardrails.length === 0)
+    .map(({ loaded }) => ({
+      code: 'guardrails-missing',
+      message: 'No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.',
+      fix: 'Add metrics.guardrails with a direction and a tolerance each.',
+      plan: loaded.plan.id,
+      file: loaded.file,
+      line: loaded.line,
+    }));
+
+export const windowChecks: Check = ({ linked }) =>
+  linked.flatMap(({ loaded }) => {
+    const { start, end } = loaded.plan.window;
+    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+    if (!end) {
+      return [{ code: 'end-missing', message: 'No planned end date: tests without one run on, and get peeked at until something looks significant.', fix: 'Add window.end.', ...at }];
+    }
+    if (!start) return [];
+    const days = inclusiveDays(start, end);
+    if (days < 7) {
+      return [{ code: 'window-short', message: `The window is ${days} day${days === 1 ? '' : 's'}: less than a week misses weekly cycles.`, fix: 'Plan at least 7 days, in whole weeks.', ...at }];
+    }
+    if (days % 7 !== 0) {
+      return [{ code: 'window-partial-week', message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+    }
+    return [];
+  });
+
+export const reviewMissing: Check = ({ linked }) =>
+  linked.flatMap(({ loaded }) =>
+    loaded.plan.sensitive
+      .filter((s) => !s.review)
+      .map((s) => ({
+        code: 'review-missing',
+        message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
+        fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
+        plan: loaded.plan.id,
+        file: loaded.file,
+        line: loaded.line,
+      })),
+  );
+
+const REVIEW_HINT: Record<string, string> = {
+  pricing: 'pricing, finance and legal (price discrimination and consumer law differ by country)',
+  legal: 'legal counsel',
+  regulatory: 'compliance, with the regulator’s rules for each region in the population',
+  minors: 'legal and child-safety review; many places need parental consent or forbid such tests',
+  health: 'clinical or medical review, and legal where health data is involved',
+  accessibility: 'accessibility review, with assistive-technology testing',
+  privacy: 'privacy review (data protection officer where there is one)',
+};
+
+export const bundleUnexplained: Check = ({ linked }) =>
+  linked
+    .filter(({ loaded }) => loaded.plan.flags.length > 1 && !loaded.plan.bundleRationale)
+    .map(({ loaded }) => ({
+      code: 'bundle-unexplained',
+      message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(', ')}): a result will not say which change caused it.`,
+      fix: 'Add bundle-rationale, or split the plan.',
+      plan: loaded.plan.id,
+      file: loaded.file,
+      line: loaded.line,
+    }));
+
+export const populationChecks: Check = ({ linked }) =>
+  linked.flatMap(({ loaded }) => {
+    const { platforms, locales, ready } = loaded.plan.population;
+    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+    const missing = [platforms.length ? '' : 'platforms', locales.length ? '' : 'locales'].filter(Boolean);
+    if (missing.length) {
+      return [{ code: 'population-undeclared', message: `The population does not declare ${missing.join(' or ')}.`, fix: `Add population.${missing.join(' and population.')}.`, ...at }];
+    }
+    const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
+    if (notReady.length === 0) return [];
+    return [
+      {
+        code: 'readiness-missing',
+        message: `The change is not declared ready on ${notReady.join(', ')} (rendered, translated), though the population includes ${notReady.length === 1 ? 'it' : 'them'}.`,
+        fix: 'Check the change there and add it under population.ready, or take it out of the population.',
+        ...at,
+      },
+    ];
+  });

@@ -1,0 +1,157 @@
+import type { PlanReview, Review, Verdict } from '../review/build-review.js';
+import type { Finding, Severity } from '../review/finding.js';
+import { codeSpan, safeCell, safeText } from './markdown-safe.js';
+import { renderSizingMarkdown } from './sizing.js';
+
+/** The hidden marker that finds our comment again. User text can never contain it: `<` is escaped. */
+export const REVIEW_MARKER = '<!-- plumbline:review -->';
+/** GitHub refuses comment bodies longer than this many characters. */
+export const COMMENT_LIMIT = 65_536;
+
+export interface MarkdownOptions {
+  /** A link to a file at head, e.g. https://github.com/o/r/blob/<sha>/<path>#L<line>; undefined: plain text. */
+  link?: (path: string, line: number) => string;
+  /** Where the full report is, named when detail is left out. */
+  fullReport?: string;
+}
+
+const ICON: Record<Severity, string> = { block: '⛔', warn: '⚠️', note: 'ℹ️' };
+const HEADLINE: Record<Verdict, string> = {
+  blocked: '⛔ Plumbline: blocked',
+  warnings: '⚠️ Plumbline: passes, with warnings',
+  clear: '✅ Plumbline: all clear',
+  'nothing-to-check': '✅ Plumbline: nothing to check',
+};
+
+function plural(n: number, noun: string): string {
+  return `${n} ${noun}${n === 1 ? '' : 's'}`;
+}
+
+function where(path: string | undefined, line: number | undefined, options: MarkdownOptions): string {
+  if (!path) return '';
+  const label = codeSpan(`${path}${line ? `:${line}` : ''}`);
+  return options.link ? `[${label}](${options.link(path, line ?? 1)})` : label;
+}
+
+function findingLine(f: Finding, options: MarkdownOptions): string {
+  const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
+  const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+}
+
+function verdictLine(review: Review): string {
+  if (review.verdict === 'nothing-to-check') return `### ${HEADLINE[review.verdict]}`;
+  const parts = [
+    review.counts.block ? plural(review.counts.block, 'blocking finding') : '',
+    review.counts.warn ? plural(review.counts.warn, 'warning') : '',
+    review.counts.note ? plural(review.counts.note, 'note') : '',
+  ].filter(Boolean);
+  return `### ${HEADLINE[review.verdict]}${parts.length ? ` — ${parts.join(', ')}` : ''}`;
+}
+
+interface Detail {
+  charts: boolean;
+  planDetails: boolean;
+  findingsShown: number;
+}
+
+function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail): string[] {
+  const lines = [
+    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
+    `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, options)} · linked because: ${plan.reasons.join(', ')}`,
+    '',
+    ...plan.checklist.map((item) => `- [${item.done ? 'x' : ' '}] ${item.label}`),
+  ];
+  if (!detail.planDetails) return lines;
+  const sizing = renderSizingMarkdown(plan.sizing, { title: 'Sizing', designLine: '', window: plan.window, power: plan.power })
+    .split('\n')
+    .filter((l) => !l.startsWith('### '));
+  const body = detail.charts ? sizing : cutChart(sizing);
+  const found = plan.events.filter((e) => e.location).length;
+  lines.push(
+    '',
+    '<details><summary>Sizing: units, days and power</summary>',
+    '',
+    ...body,
+    '</details>',
+    '',
+    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
+    '',
+    '| event | used for | first logged at |',
+    '| --- | --- | --- |',
+    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(', '))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === 'literal' ? ' (as a string, not in a logging call)' : ''}` : '**missing**'} |`),
+    '',
+    '</details>',
+  );
+  return lines;
+}
+
+function cutChart(lines: string[]): string[] {
+  const start = lines.findIndex((l) => l.startsWith('<details><summary>Power by day'));
+  return start < 0 ? lines : lines.slice(0, start);
+}
+
+function render(review: Review, options: MarkdownOptions, detail: Detail, omitted: string[]): string {
+  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}…${review.head.slice(0, 7)}</sub>`, ''];
+  if (review.verdict === 'nothing-to-check') {
+    out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
+    return out.join('\n');
+  }
+  if (review.findings.length) {
+    out.push('#### Findings', '', ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
+    const hidden = review.findings.length - detail.findingsShown;
+    if (hidden > 0) out.push(`- … and ${plural(hidden, 'more finding')}${options.fullReport ? ` in ${options.fullReport}` : ''}.`);
+    out.push('');
+  }
+  for (const plan of review.plans) out.push(...planSection(plan, options, detail), '');
+  if (review.collisions.length) {
+    out.push(
+      '#### Running tests on the same surface',
+      '',
+      '| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |',
+      '| --- | --- | --- | --- | --- | --- | --- | --- |',
+      ...review.collisions.map(
+        (c) =>
+          `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? ' (declared)' : ''} | ${safeCell(c.owners.join(', '))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? 'unknown'} | ${safeCell(c.platforms === 'all' ? 'all' : c.platforms.join(', '))} | ${safeCell(c.locales === 'all' ? 'all' : c.locales.join(', '))} | ${Math.round(c.trafficShare * 100)}% |`,
+      ),
+      '',
+    );
+  }
+  if (review.flags.length) {
+    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
+    out.push(
+      '<details><summary>Feature flags this change touches</summary>',
+      '',
+      '| flag | where | how | plans |',
+      '| --- | --- | --- | --- |',
+      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeSpan).join(', ') : '**none**'} |`),
+      ...(review.flags.length > shown.length ? [``, `…and ${review.flags.length - shown.length} more.`] : []),
+      '',
+      '</details>',
+      '',
+    );
+  }
+  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(', ')}${options.fullReport ? `; the full report is in ${options.fullReport}` : ''}.</sub>`);
+  return out.join('\n').replace(/\n{3,}/g, '\n\n');
+}
+
+/**
+ * The pull-request comment. It stays under GitHub's limit by leaving out detail in stated steps:
+ * the power charts first, then the per-plan sizing and events tables, then findings beyond the first ones.
+ */
+export function renderReviewMarkdown(review: Review, options: MarkdownOptions = {}, limit = COMMENT_LIMIT): string {
+  const steps: [Detail, string[]][] = [
+    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
+    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ['the power charts']],
+    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ['the power charts', 'the sizing and events tables']],
+  ];
+  for (const [detail, omitted] of steps) {
+    const body = render(review, options, detail, omitted);
+    if (body.length <= limit) return body;
+  }
+  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
+    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ['the power charts', 'the sizing and events tables', 'some findings']);
+    if (body.length <= limit) return body;
+  }
+  return `${REVIEW_MARKER}\n${verdictLine(review)}\n\nThe full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ''}.`;
+}

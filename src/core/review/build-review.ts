@@ -1,0 +1,143 @@
+import { CHECKS } from '../checks/index.js';
+import { collisionsOfLinked } from '../checks/collisions.js';
+import { eventStatuses, type EventStatus } from '../checks/logging.js';
+import { closestName } from '../source/closest-name.js';
+import type { PlanSizing } from '../stats/plan-sizing.js';
+import type { LinkReason, ReviewContext } from './context.js';
+import { ALWAYS_BLOCKS, FINDING_CODES, type Finding, type Severity } from './finding.js';
+
+export type Verdict = 'blocked' | 'warnings' | 'clear' | 'nothing-to-check';
+
+export interface ChecklistItem {
+  label: string;
+  done: boolean;
+}
+
+export interface PlanReview {
+  id: string;
+  title: string;
+  file: string;
+  line: number;
+  state: string;
+  owners: string[];
+  reasons: LinkReason[];
+  checklist: ChecklistItem[];
+  sizing: PlanSizing;
+  power: number;
+  window: { start?: string; end?: string };
+  events: EventStatus[];
+}
+
+export interface ReviewCollision {
+  plan: string;
+  other: string;
+  owners: string[];
+  otherSurface: string;
+  overlapDays?: number;
+  overlapWindow?: { start: string; end: string };
+  platforms: string[] | 'all';
+  locales: string[] | 'all';
+  trafficShare: number;
+  known: boolean;
+}
+
+/** The review of one change: what the core says, for the entry points to show. */
+export interface Review {
+  verdict: Verdict;
+  counts: Record<Severity, number>;
+  base: string;
+  head: string;
+  findings: Finding[];
+  plans: PlanReview[];
+  flags: { key: string; file: string; line: number; side: 'added' | 'removed'; via: string; plans: string[]; exempt: boolean }[];
+  collisions: ReviewCollision[];
+}
+
+/** Which findings un-tick which checklist item. */
+const CHECKLIST: { label: string; codes: string[]; when?: (p: ReviewContext['linked'][number]) => boolean }[] = [
+  { label: 'Decision rules written for a win, a flat result, a loss and a guardrail breach', codes: ['decisions-missing'] },
+  { label: 'Hypothesis says why the change should work', codes: ['reason-missing'] },
+  { label: 'One primary metric and at least one guardrail', codes: ['guardrails-missing'] },
+  { label: 'Planned end, at least a week, in whole weeks', codes: ['end-missing', 'window-short', 'window-partial-week'] },
+  { label: 'Enough power by the planned end', codes: ['underpowered', 'sizing-incomplete', 'sizing-impossible'] },
+  { label: 'Exposure logged where the change is seen', codes: ['exposure-diluted'] },
+  { label: 'Randomization unit fits the surface', codes: ['spillover'] },
+  { label: 'No collision with a running test', codes: ['collision'] },
+  { label: 'Every event the plan names is logged in the code', codes: ['event-missing'] },
+  { label: 'Population and readiness declared (platforms, locales)', codes: ['population-undeclared', 'readiness-missing'] },
+  { label: 'Sensitive areas have their named review', codes: ['review-missing'], when: (p) => p.loaded.plan.sensitive.length > 0 },
+  { label: 'Bundled flags are explained', codes: ['bundle-unexplained'], when: (p) => p.loaded.plan.flags.length > 1 },
+];
+
+function severityFor(code: string, overrides: Record<string, string>): Severity | 'off' {
+  const fallback = (FINDING_CODES as Record<string, { severity: Severity }>)[code]?.severity ?? 'warn';
+  if (ALWAYS_BLOCKS.has(code)) return 'block';
+  const chosen = overrides[code];
+  return chosen === 'block' || chosen === 'warn' || chosen === 'note' || chosen === 'off' ? chosen : fallback;
+}
+
+const ORDER: Record<Severity, number> = { block: 0, warn: 1, note: 2 };
+
+export function buildReview(context: ReviewContext, change: { base: string; head: string }): Review {
+  const raw = CHECKS.flatMap((check) => check(context));
+  const known = Object.keys(FINDING_CODES);
+  for (const code of Object.keys(context.settings.severity)) {
+    if (known.includes(code)) continue;
+    const suggestion = closestName(code, known);
+    raw.push({
+      code: 'severity-unknown-code',
+      message: `The settings set a severity for "${code}", which is not a finding code${suggestion ? `; did you mean "${suggestion}"?` : '.'}`,
+      fix: `Use one of: ${known.join(', ')}.`,
+    });
+  }
+  const findings: Finding[] = [];
+  for (const finding of raw) {
+    const severity = severityFor(finding.code, context.settings.severity);
+    if (severity !== 'off') findings.push({ ...finding, severity });
+  }
+  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
+
+  const counts = { block: 0, warn: 0, note: 0 };
+  for (const f of findings) counts[f.severity]++;
+
+  const plans: PlanReview[] = context.linked.map((linked) => {
+    const { plan } = linked.loaded;
+    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    return {
+      id: plan.id,
+      title: plan.title,
+      file: linked.loaded.file,
+      line: linked.loaded.line,
+      state: plan.state,
+      owners: plan.owners,
+      reasons: linked.reasons,
+      checklist: CHECKLIST.filter((item) => !item.when || item.when(linked)).map((item) => ({ label: item.label, done: !item.codes.some((c) => mine.has(c)) })),
+      sizing: linked.sizing,
+      power: plan.design.power,
+      window: plan.window,
+      events: eventStatuses(context, plan.id),
+    };
+  });
+
+  const planned = new Map<string, string[]>();
+  for (const e of context.registry.entries) for (const f of e.flags) planned.set(f, [...(planned.get(f) ?? []), e.id]);
+  const exempt = new Set(context.settings.exemptFlags);
+  const flags = context.touches.map((t) => ({ ...t, plans: planned.get(t.key) ?? [], exempt: exempt.has(t.key) }));
+
+  const collisions: ReviewCollision[] = collisionsOfLinked(context).map(({ plan, collision: c }) => ({
+    plan,
+    other: c.other.id,
+    owners: c.other.owners,
+    otherSurface: c.other.surface.path,
+    ...(c.overlapDays !== undefined ? { overlapDays: c.overlapDays } : {}),
+    ...(c.overlapWindow ? { overlapWindow: c.overlapWindow } : {}),
+    platforms: c.platforms,
+    locales: c.locales,
+    trafficShare: c.trafficShare,
+    known: c.known,
+  }));
+
+  const nothing = context.touches.length === 0 && context.linked.length === 0 && context.invalidPlanFiles.length === 0 && findings.length === 0;
+  const verdict: Verdict = nothing ? 'nothing-to-check' : counts.block ? 'blocked' : counts.warn ? 'warnings' : 'clear';
+  return { verdict, counts, base: change.base, head: change.head, findings, plans, flags, collisions };
+}

@@ -1,0 +1,44 @@
+import type { Settings } from '../config/schema.js';
+import type { LoadedPlan } from '../plan/load.js';
+import type { Registry } from '../registry/load.js';
+import type { FlagTouch } from '../scan/flag-touches.js';
+import type { Location, NameHits } from '../scan/name-scan.js';
+import type { Problem } from '../source/problem.js';
+import type { PlanSizing } from '../stats/plan-sizing.js';
+import type { Finding } from './finding.js';
+
+/** What the pull request says about itself; every field optional (a local run may know none). */
+export interface PullRequestInfo {
+  title?: string;
+  body?: string;
+  labels?: string[];
+  branch?: string;
+}
+
+export type LinkReason = 'named in the description' | 'plan file changed' | 'flag touched';
+
+export interface LinkedPlan {
+  loaded: LoadedPlan;
+  reasons: LinkReason[];
+  sizing: PlanSizing;
+}
+
+/** Everything a check may look at. Built by the review use case; checks only read it. */
+export interface ReviewContext {
+  settings: Settings;
+  pr: PullRequestInfo;
+  /** Plans this change is about. */
+  linked: LinkedPlan[];
+  /** Plan files the change adds or edits that do not load. */
+  invalidPlanFiles: { file: string; problems: Problem[] }[];
+  /** Flags the change touches in code or in flag definition files. */
+  touches: FlagTouch[];
+  registry: Registry;
+  /** First locations at head of every event that a linked or running plan names. */
+  events: ReadonlyMap<string, NameHits>;
+  /** Events of running plans that the change deletes from a line (quoted), with where. */
+  removedEvents: ReadonlyMap<string, Location>;
+}
+
+/** A check reads the context and says what it found, at the code's default severity. */
+export type Check = (context: ReviewContext) => Omit<Finding, 'severity'>[];

@@ -1,0 +1,50 @@
+/** One thing the review has to say, with where and how to fix it. */
+export type Severity = 'block' | 'warn' | 'note';
+
+export interface Finding {
+  /** Stable code, e.g. `decisions-missing`; settings can change its severity. */
+  code: string;
+  severity: Severity;
+  message: string;
+  /** What to do about it. */
+  fix: string;
+  /** The plan it concerns, by id. */
+  plan?: string;
+  file?: string;
+  line?: number;
+}
+
+/**
+ * Every finding code with its default severity and what it means. The settings file may raise or
+ * lower any of them, except that a missing decision rule always blocks.
+ */
+export const FINDING_CODES = {
+  'flag-without-plan': { severity: 'warn', about: 'a changed feature flag has no plan (and is not exempt)' },
+  'plan-invalid': { severity: 'block', about: 'a plan the change touches cannot be loaded' },
+  'decisions-missing': { severity: 'block', about: 'a decision rule (win, flat, loss, guardrail breach) is not written' },
+  'reason-missing': { severity: 'warn', about: 'the hypothesis does not say why the change should work' },
+  'guardrails-missing': { severity: 'warn', about: 'no guardrail metric' },
+  'end-missing': { severity: 'warn', about: 'no planned end date' },
+  'window-short': { severity: 'warn', about: 'the planned window is shorter than 7 days' },
+  'window-partial-week': { severity: 'note', about: 'the planned window is not a whole number of weeks' },
+  'review-missing': { severity: 'block', about: 'a sensitive area has no named review' },
+  'bundle-unexplained': { severity: 'warn', about: 'several flags in one plan without a rationale' },
+  'population-undeclared': { severity: 'warn', about: 'platforms or locales are not declared' },
+  'readiness-missing': { severity: 'warn', about: 'the change is not declared ready on a platform or locale of its population' },
+  underpowered: { severity: 'warn', about: 'the planned window gives less than the planned power' },
+  'sizing-incomplete': { severity: 'note', about: 'the plan lacks the figures sizing needs' },
+  'sizing-impossible': { severity: 'warn', about: 'the plan’s figures cannot be sized' },
+  'exposure-diluted': { severity: 'warn', about: 'exposure is logged before the change is reached' },
+  spillover: { severity: 'warn', about: 'people randomized one by one on a surface they share' },
+  'analysis-unit-differs': { severity: 'note', about: 'metrics are averaged over another unit than the one randomized' },
+  collision: { severity: 'warn', about: 'the test overlaps a running test on the same surface' },
+  'known-overlap': { severity: 'note', about: 'the test overlaps a running test it declares' },
+  'event-missing': { severity: 'warn', about: 'an event the plan names is not logged in the code' },
+  'event-removed': { severity: 'block', about: 'the change removes an event a running test depends on' },
+  'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
+} as const satisfies Record<string, { severity: Severity; about: string }>;
+
+export type FindingCode = keyof typeof FINDING_CODES;
+
+/** Codes whose severity the settings cannot lower. */
+export const ALWAYS_BLOCKS: ReadonlySet<string> = new Set(['decisions-missing']);

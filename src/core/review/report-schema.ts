@@ -1,0 +1,125 @@
+import { z } from 'zod';
+import type { Review } from './build-review.js';
+
+/**
+ * The JSON report of `plumbline check --format json`: the published contract for other tools.
+ * schema/review-report.schema.json is generated from this; the tests validate real output
+ * against the generated file.
+ */
+const location = z.object({ file: z.string(), line: z.number().int().positive(), column: z.number().int().positive() });
+const severity = z.enum(['block', 'warn', 'note']);
+const analysisSize = z.object({
+  perArm: z.array(z.object({ arm: z.string(), units: z.number().int() })),
+  totalUnits: z.number().int(),
+  clusters: z.number().int().optional(),
+  duration: z.object({ days: z.number().int(), weeks: z.number().int() }).optional(),
+});
+const change = z.object({ absolute: z.number(), relative: z.number(), to: z.number() });
+const sizeResult = z.union([
+  z.object({
+    ok: z.literal(true),
+    value: z.object({
+      baselineValue: z.number(),
+      sd: z.number().optional(),
+      effect: change.extend({ from: z.number() }).optional(),
+      multipliers: z.object({
+        comparisons: z.number(),
+        alphaPerComparison: z.number(),
+        designEffect: z.number(),
+        varianceReduction: z.number(),
+        sequential: z.number(),
+        dilutionUnits: z.number(),
+        dilutionDays: z.number(),
+      }),
+      triggered: analysisSize.optional(),
+      diluted: analysisSize.optional(),
+      headline: analysisSize.optional(),
+      atPlannedEnd: z.object({ days: z.number().int(), totalUnits: z.number(), power: z.number().optional(), detectable: change.optional() }).optional(),
+      powerByDay: z.array(z.object({ day: z.number().int(), power: z.number() })).optional(),
+      notes: z.array(z.string()),
+    }),
+  }),
+  z.object({ ok: z.literal(false), error: z.object({ input: z.string(), message: z.string() }) }),
+]);
+
+export const reviewReportSchema = z
+  .object({
+    format: z.literal('plumbline.review/1'),
+    verdict: z.enum(['blocked', 'warnings', 'clear', 'nothing-to-check']),
+    counts: z.object({ block: z.number().int(), warn: z.number().int(), note: z.number().int() }),
+    base: z.string().regex(/^[0-9a-f]{40,64}$/),
+    head: z.string().regex(/^[0-9a-f]{40,64}$/),
+    findings: z.array(
+      z.object({
+        code: z.string(),
+        severity,
+        message: z.string(),
+        fix: z.string(),
+        plan: z.string().optional(),
+        file: z.string().optional(),
+        line: z.number().int().positive().optional(),
+      }),
+    ),
+    plans: z.array(
+      z.object({
+        id: z.string(),
+        title: z.string(),
+        file: z.string(),
+        line: z.number().int(),
+        state: z.string(),
+        owners: z.array(z.string()),
+        reasons: z.array(z.enum(['named in the description', 'plan file changed', 'flag touched'])),
+        checklist: z.array(z.object({ label: z.string(), done: z.boolean() })),
+        sizing: z.object({
+          planId: z.string(),
+          plannedDays: z.number().int().optional(),
+          dailyUnits: z.number().optional(),
+          metrics: z.array(
+            z.object({
+              metric: z.string(),
+              role: z.enum(['primary', 'guardrail']),
+              kind: z.enum(['proportion', 'mean', 'ratio']),
+              direction: z.enum(['increase', 'decrease']),
+              sides: z.union([z.literal(1), z.literal(2)]),
+              result: sizeResult,
+            }),
+          ),
+        }),
+        power: z.number(),
+        window: z.object({ start: z.string().optional(), end: z.string().optional() }),
+        events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional() })),
+      }),
+    ),
+    flags: z.array(
+      z.object({
+        key: z.string(),
+        file: z.string(),
+        line: z.number().int(),
+        side: z.enum(['added', 'removed']),
+        via: z.string(),
+        plans: z.array(z.string()),
+        exempt: z.boolean(),
+      }),
+    ),
+    collisions: z.array(
+      z.object({
+        plan: z.string(),
+        other: z.string(),
+        owners: z.array(z.string()),
+        otherSurface: z.string(),
+        overlapDays: z.number().int().optional(),
+        overlapWindow: z.object({ start: z.string(), end: z.string() }).optional(),
+        platforms: z.union([z.array(z.string()), z.literal('all')]),
+        locales: z.union([z.array(z.string()), z.literal('all')]),
+        trafficShare: z.number(),
+        known: z.boolean(),
+      }),
+    ),
+  })
+  .describe('The Plumbline pull-request review report.');
+
+export const REVIEW_JSON_FORMAT = 'plumbline.review/1';
+
+export function reviewJson(review: Review): z.input<typeof reviewReportSchema> {
+  return { format: REVIEW_JSON_FORMAT, ...review };
+}

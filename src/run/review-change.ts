@@ -1,0 +1,114 @@
+import picomatch from 'picomatch';
+import { scanMatcher } from '../core/config/scan-files.js';
+import type { LoadedPlan } from '../core/plan/load.js';
+import { eventsOfPlan } from '../core/registry/schema.js';
+import { runningEntries } from '../core/checks/collisions.js';
+import { buildReview, type Review } from '../core/review/build-review.js';
+import type { LinkedPlan, PullRequestInfo } from '../core/review/context.js';
+import { linkPlans } from '../core/review/link-plans.js';
+import { parseUnifiedDiff } from '../core/scan/diff.js';
+import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
+import { findFlagTouches } from '../core/scan/flag-touches.js';
+import { createNameScanner, type Location } from '../core/scan/name-scan.js';
+import { BUILTIN_FLAG_PATTERNS, BUILTIN_LOG_PATTERNS, compilePatterns } from '../core/scan/patterns.js';
+import type { Problem } from '../core/source/problem.js';
+import { sizePlan } from '../core/stats/plan-sizing.js';
+import type { ChangeSource, ProgressReporter } from '../ports.js';
+import { loadWorkspace } from './load-workspace.js';
+
+export interface ReviewChangeOptions {
+  change: ChangeSource;
+  settingsPath?: string;
+  pr?: PullRequestInfo;
+  onProgress?: ProgressReporter;
+}
+
+export type ReviewOutcome =
+  | { kind: 'review'; review: Review; scanned: { files: number; bytes: number } }
+  | { kind: 'settings-invalid'; settingsFile: string; problems: Problem[] };
+
+const QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
+
+/** Reviews the change from its merge base to head, reading plans, settings and code at head. */
+export async function reviewChange(options: ReviewChangeOptions): Promise<ReviewOutcome> {
+  const { change } = options;
+  const head = change.filesAt('head');
+  const loaded = await loadWorkspace({ files: head, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}), ...(options.onProgress ? { onProgress: options.onProgress } : {}) });
+  if (!loaded.ok) return { kind: 'settings-invalid', settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
+  const { workspace } = loaded;
+  const { settings } = workspace;
+
+  const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
+  const diffs = parseUnifiedDiff(diffText);
+  const changedPaths = new Set(changed.filter((f) => f.status !== 'deleted').map((f) => f.path));
+
+  // Texts of changed files on both sides: to resolve flag constants and to compare flag definition files.
+  const textual = diffs.filter((d) => !d.binary);
+  const headPaths = textual.filter((d) => changedPaths.has(d.path)).map((d) => d.path);
+  const basePaths = textual.map((d) => d.previousPath ?? d.path);
+  const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change.filesAt('base').readTexts(basePaths)]);
+  const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
+
+  const isFlagFile = picomatch(DEFAULT_FLAG_FILES, { dot: true });
+  const definitionTouches = changed
+    .filter((f) => isFlagFile(f.path) || (f.previousPath !== undefined && isFlagFile(f.previousPath)))
+    .flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === 'deleted' ? undefined : textAt.added.get(f.path)));
+  const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text]) => [...(flagDefinitions(text)?.keys() ?? [])]);
+  const knownKeys = new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
+  const flagPatterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : []), ...settings.flagCalls]);
+  const codeTouches = findFlagTouches({
+    diffs: textual.filter((d) => !isFlagFile(d.path)),
+    patterns: flagPatterns,
+    knownKeys,
+    textOf: (side, path) => textAt[side].get(path),
+  });
+  const touches = [...definitionTouches, ...codeTouches];
+
+  const pr = options.pr ?? {};
+  const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
+  const linked: LinkedPlan[] = workspace.plans
+    .filter((p) => links.has(p.plan.id))
+    .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: sizePlan(p.plan) }));
+  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
+    file,
+    problems: workspace.problems.filter((p) => p.file === file),
+  }));
+
+  // One pass over the tracked code at head finds every event any linked or running plan names.
+  const running = runningEntries(workspace.registry.entries);
+  const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  const logPatterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : []), ...settings.logCalls]);
+  const scanner = createNameScanner(names, logPatterns);
+  if (names.length) {
+    const ownFiles = new Set([...workspace.planFiles, ...settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
+    const inScope = scanMatcher(settings.scan);
+    const paths = (await change.trackedFiles('head')).filter((p) => !ownFiles.has(p) && inScope(p));
+    let done = 0;
+    await change.streamFiles('head', paths, (path, bytes) => {
+      scanner.scanFile(path, bytes);
+      options.onProgress?.(++done, paths.length, 'files');
+    });
+  }
+
+  // Events of running tests that the change deletes from a line.
+  const runningEvents = new Set(running.flatMap((e) => e.events));
+  const removedEvents = new Map<string, Location>();
+  for (const diff of textual) {
+    for (const { line, text } of diff.removed) {
+      QUOTED.lastIndex = 0;
+      for (const match of text.matchAll(QUOTED)) {
+        const event = match[2]!;
+        if (runningEvents.has(event) && !removedEvents.has(event)) {
+          removedEvents.set(event, { file: diff.previousPath ?? diff.path, line, column: match.index + 2 });
+        }
+      }
+    }
+  }
+
+  const review = buildReview(
+    { settings, pr, linked, invalidPlanFiles, touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { base: change.base, head: change.head },
+  );
+  const stats = scanner.stats();
+  return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
+}

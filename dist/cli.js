@@ -38346,6 +38346,7 @@ function runGit(cwd, args, options = {}) {
         reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
       }
     });
+    child.stdin.on("error", () => void 0);
     child.stdin.end(options.input ?? "");
   });
 }
@@ -38468,6 +38469,7 @@ function catFiles(cwd, commit, paths, onFile) {
       if (code === 0) resolve3();
       else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
     });
+    child.stdin.on("error", () => void 0);
     child.stdin.end(asked.map((p) => `${commit}:${p}
 `).join(""));
   });
@@ -39062,8 +39064,9 @@ var BUILTIN_FLAG_PATTERNS = [
   ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
   // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
   ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
-  // Go: client.BooleanValue(ctx, "key", false, evalCtx)
-  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*\\s*,\\s*`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
+  // The first argument is the context: a name or a call without arguments (context.Background()).
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
   // React: useBooleanFlagValue('key', false), useFlag('key', default)
   ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
   // Helpers many codebases write around their flag client.

@@ -34,6 +34,8 @@ function runGit(cwd: string, args: string[], options: RunOptions = {}): Promise<
         reject(new ExternalError(`git ${args.join(' ')} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
       }
     });
+    // git may exit before reading its input (most commands never read it); its exit code tells.
+    child.stdin.on('error', () => undefined);
     child.stdin.end(options.input ?? '');
   });
 }
@@ -173,6 +175,7 @@ function catFiles(cwd: string, commit: string, paths: readonly string[], onFile:
       if (code === 0) resolve();
       else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString('utf8').trim()}`));
     });
+    child.stdin.on('error', () => undefined);
     child.stdin.end(asked.map((p) => `${commit}:${p}\n`).join(''));
   });
 }

@@ -25,8 +25,9 @@ export const BUILTIN_FLAG_PATTERNS: readonly string[] = [
   ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
   // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
   ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
-  // Go: client.BooleanValue(ctx, "key", false, evalCtx)
-  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*\\s*,\\s*`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
+  // The first argument is the context: a name or a call without arguments (context.Background()).
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
   // React: useBooleanFlagValue('key', false), useFlag('key', default)
   ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
   // Helpers many codebases write around their flag client.

@@ -1,0 +1,68 @@
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
+import { repoRoot, runCli } from './helpers.js';
+
+const made: string[] = [];
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+const repo = (files: Record<string, string>, changes: Record<string, string | null>) => {
+  const r = makeTwoCommitRepo(files, changes);
+  made.push(r.root);
+  return r;
+};
+
+describe('plumbline check', () => {
+  it('exits 1 and explains when a decision rule is missing', () => {
+    const r = repo(baseFiles(), { 'experiments/good.yaml': planYaml(cleanPlan({ decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED });
+    const run = runCli(['-C', r.root, 'check', '--base', 'main']);
+    expect(run.status).toBe(1);
+    expect(run.stdout).toMatch(/^Plumbline: blocked \(1 blocking, 0 warnings, 0 notes\) for [0-9a-f]{7}\.\.\.[0-9a-f]{7}$/m);
+    expect(run.stdout).toContain('experiments/good.yaml:1: BLOCK decisions-missing [good]: No decision rule for flat, loss, guardrail-breach');
+  });
+
+  it('exits 0 on a clean change and writes the JSON report to --output', () => {
+    const r = repo(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED });
+    const run = runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'json', '--output', 'report.json']);
+    expect(run.status).toBe(0);
+    const printed = JSON.parse(run.stdout);
+    expect(printed).toMatchObject({ format: 'plumbline.review/1', verdict: 'clear', head: r.head, base: r.base });
+    expect(JSON.parse(readFileSync(join(r.root, 'report.json'), 'utf8'))).toEqual(printed);
+  });
+
+  it('reads the description from --pr-json in GitHub’s pull-request shape', () => {
+    const r = repo(baseFiles(), { 'README.md': 'docs\n' });
+    const pr = join(r.root, 'pr.json');
+    writeFileSync(pr, JSON.stringify({ pull_request: { title: 'Docs', body: 'Relates to good.', labels: [{ name: 'docs' }], head: { ref: 'docs/x' } } }));
+    const run = runCli(['-C', r.root, 'check', '--base', 'main', '--pr-json', 'pr.json', '--format', 'json']);
+    expect(JSON.parse(run.stdout).plans.map((p: { id: string; reasons: string[] }) => [p.id, p.reasons])).toEqual([['good', ['named in the description']]]);
+  });
+
+  it('says there is nothing to check when the change touches no flag or plan', () => {
+    const r = repo(baseFiles(), { 'README.md': 'docs\n' });
+    const run = runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'markdown']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('### ✅ Plumbline: nothing to check');
+  });
+
+  it('gives a clear usage error for a ref that does not exist, and outside a repository', () => {
+    const r = repo(baseFiles(), {});
+    const missing = runCli(['-C', r.root, 'check', '--base', 'no-such-branch']);
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toContain('plumbline: --base no-such-branch is not a commit in this repository');
+    expect(missing.stderr).toContain('fetch-depth: 0');
+    const outside = runCli(['-C', '/', 'check', '--base', 'main']);
+    expect(outside.status).toBe(2);
+    expect(outside.stderr).toMatch(/not a git repository|is not a commit/);
+    expect(runCli(['check']).stderr).toContain("required option '--base <ref>' not specified");
+  });
+
+  it('runs on the demo change as npm run demo does', () => {
+    const demo = spawnSync(process.execPath, ['scripts/demo.mjs'], { cwd: repoRoot, encoding: 'utf8' });
+    expect(demo.status).toBe(0);
+    expect(demo.stdout).toContain('### ⛔ Plumbline: blocked — 2 blocking findings');
+    expect(demo.stdout).toContain('(exit code 1: 1 means a blocking finding, which fails the check)');
+  });
+});

@@ -1,0 +1,46 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+
+const ENV = {
+  ...process.env,
+  GIT_AUTHOR_NAME: 'Test',
+  GIT_AUTHOR_EMAIL: 'test@example.invalid',
+  GIT_COMMITTER_NAME: 'Test',
+  GIT_COMMITTER_EMAIL: 'test@example.invalid',
+  GIT_CONFIG_NOSYSTEM: '1',
+  GIT_CONFIG_GLOBAL: '/dev/null',
+};
+
+export interface TwoCommitRepo {
+  root: string;
+  base: string;
+  head: string;
+}
+
+/**
+ * A real git repository in a temporary folder with two commits: `base` holding `files`, and `head`
+ * where each entry of `changes` replaces a file (or deletes it when null).
+ */
+export function makeTwoCommitRepo(files: Record<string, string>, changes: Record<string, string | null>): TwoCommitRepo {
+  const root = mkdtempSync(join(tmpdir(), 'plumbline-git-'));
+  const git = (...args: string[]) => execFileSync('git', args, { cwd: root, env: ENV, encoding: 'utf8' }).trim();
+  const write = (path: string, text: string) => {
+    mkdirSync(dirname(join(root, path)), { recursive: true });
+    writeFileSync(join(root, path), text);
+  };
+  git('init', '-q', '-b', 'main');
+  for (const [path, text] of Object.entries(files)) write(path, text);
+  git('add', '-A');
+  git('commit', '-q', '--allow-empty', '-m', 'base');
+  const base = git('rev-parse', 'HEAD');
+  git('switch', '-q', '-c', 'change');
+  for (const [path, text] of Object.entries(changes)) {
+    if (text === null) rmSync(join(root, path));
+    else write(path, text);
+  }
+  git('add', '-A');
+  git('commit', '-q', '--allow-empty', '-m', 'head');
+  return { root, base, head: git('rev-parse', 'HEAD') };
+}

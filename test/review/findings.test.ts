@@ -1,0 +1,191 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { rmSync } from 'node:fs';
+import { openChange } from '../../src/adapters/git.js';
+import { FINDING_CODES } from '../../src/core/review/finding.js';
+import type { Review } from '../../src/core/review/build-review.js';
+import { reviewChange } from '../../src/run/review-change.js';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
+
+const made: string[] = [];
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+
+async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: { body?: string } = {}): Promise<Review> {
+  const repo = makeTwoCommitRepo(files, changes);
+  made.push(repo.root);
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr });
+  if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
+  return outcome.review;
+}
+
+/** A head that changes the good plan (so it is linked) and touches its flag. */
+const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | null> = {}) => ({ 'experiments/good.yaml': planYaml(plan), 'src/cart.ts': CART_CODE_TOUCHED, ...extra });
+
+const other = (overrides: Record<string, unknown>) =>
+  planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
+
+type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string };
+
+// For every finding code: a scenario that must raise it, and a near miss that must not.
+const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
+  'flag-without-plan': {
+    trigger: { changes: { 'src/new.ts': "if (client.getBooleanValue('new-flag', false)) run();\n" } },
+    nearMiss: { files: baseFiles({ '.plumbline.yml': 'exempt-flags: [new-flag]\n' }), changes: { 'src/new.ts': "if (client.getBooleanValue('new-flag', false)) run();\n" } },
+  },
+  'plan-invalid': {
+    trigger: { changes: withPlan(cleanPlan({ design: { alpha: 2 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ title: 'Renamed' })) },
+  },
+  'decisions-missing': {
+    trigger: { changes: withPlan(cleanPlan({ decisions: { win: 'Ship.', flat: 'Drop.', 'guardrail-breach': 'Stop.' } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ decisions: { 'guardrail-breach': 'Stop.', 'launch-regardless': { reason: 'Legal requires it.' } } })) },
+  },
+  'reason-missing': {
+    trigger: { changes: withPlan(cleanPlan({ hypothesis: { change: 'A clearer cart.', 'expected-direction': 'increase' } })) },
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
+  'guardrails-missing': {
+    trigger: { changes: withPlan(cleanPlan({ metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.3 }, events: ['order_done'] } } })) },
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
+  'end-missing': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02' } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-29' } })) },
+  },
+  'window-short': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-06' } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-08' } })) },
+  },
+  'window-partial-week': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-11' } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-15' } })) },
+  },
+  'review-missing': {
+    trigger: { changes: withPlan(cleanPlan({ sensitive: [{ area: 'pricing' }] })) },
+    nearMiss: { changes: withPlan(cleanPlan({ sensitive: [{ area: 'pricing', review: 'pricing council' }] })) },
+  },
+  'bundle-unexplained': {
+    trigger: { changes: withPlan(cleanPlan({ flags: ['good-flag', 'second-flag'] })) },
+    nearMiss: { changes: withPlan(cleanPlan({ flags: ['good-flag', 'second-flag'], 'bundle-rationale': 'The second needs the first.' })) },
+  },
+  'population-undeclared': {
+    trigger: { changes: withPlan(cleanPlan({ population: { platforms: ['web'] } })) },
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
+  'readiness-missing': {
+    trigger: { changes: withPlan(cleanPlan({ population: { platforms: ['web', 'ios'], locales: ['en-GB'], ready: { platforms: ['web'], locales: ['en-GB'] } } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ population: { platforms: ['web', 'ios'], locales: ['en-GB'], ready: { platforms: ['web', 'ios'], locales: ['en-GB'] } } })) },
+  },
+  underpowered: {
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 300 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 3000 } })) },
+  },
+  'sizing-incomplete': {
+    trigger: { changes: withPlan(cleanPlan({ design: { 'daily-units': 20000 } })) },
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
+  'sizing-impossible': {
+    trigger: { changes: withPlan(cleanPlan({ metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.98 }, events: ['order_done'] }, guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.9 }, events: ['order_done'] }, guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails } })) },
+  },
+  'exposure-diluted': {
+    trigger: { changes: withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 0.5 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 1 } })) },
+  },
+  spillover: {
+    trigger: { files: baseFiles({ '.plumbline.yml': 'group-surfaces: [shop]\n' }), changes: withPlan(cleanPlan()) },
+    nearMiss: { files: baseFiles({ '.plumbline.yml': 'group-surfaces: [shopping]\n' }), changes: withPlan(cleanPlan()) },
+  },
+  'analysis-unit-differs': {
+    trigger: { changes: withPlan(cleanPlan({ unit: { randomization: 'team', analysis: 'user' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, cluster: { 'mean-size': 4, icc: 0.01 } } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ unit: { randomization: 'team', analysis: 'team' } })) },
+  },
+  collision: {
+    trigger: { files: baseFiles({ 'experiments/other.yaml': other({}) }), changes: withPlan(cleanPlan()) },
+    nearMiss: {
+      files: baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/cart/total', 'exclusion-group': { name: 'cart', slice: { from: 50, to: 100 } } } }) }),
+      changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'exclusion-group': { name: 'cart', slice: { from: 0, to: 50 } } } })),
+    },
+  },
+  'known-overlap': {
+    trigger: { files: baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/cart', 'overlaps-with': ['good'] } }) }), changes: withPlan(cleanPlan()) },
+    nearMiss: { files: baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/search', 'overlaps-with': ['good'] } }) }), changes: withPlan(cleanPlan()) },
+  },
+  'event-missing': {
+    trigger: { changes: withPlan(cleanPlan({ exposure: { event: 'never_logged' } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ exposure: { event: 'logged_as_string' } }), { 'src/names.ts': "export const EXPOSURE = 'logged_as_string';\n" }) },
+  },
+  'event-removed': {
+    trigger: {
+      files: baseFiles({ 'experiments/other.yaml': other({ exposure: { event: 'keeper_seen' } }), 'src/keeper.ts': "track('keeper_seen');\n" }),
+      changes: { 'src/keeper.ts': '// moved away\n' },
+    },
+    nearMiss: {
+      files: baseFiles({ 'experiments/other.yaml': other({ exposure: { event: 'keeper_seen' } }), 'src/keeper.ts': "track('keeper_seen');\n" }),
+      changes: { 'src/keeper.ts': '// moved away\n', 'src/elsewhere.ts': "track('keeper_seen');\n" },
+    },
+  },
+  'severity-unknown-code': {
+    trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
+    nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },
+  },
+};
+
+describe('every finding code is covered by a trigger and a near miss', () => {
+  it('lists every code', () => expect(Object.keys(cases).sort()).toEqual(Object.keys(FINDING_CODES).sort()));
+
+  describe.each(Object.entries(cases))('%s', (code, { trigger, nearMiss }) => {
+    it('raises it', async () => {
+      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...(trigger.body ? { body: trigger.body } : {}) });
+      expect(r.findings.map((f) => f.code)).toContain(code);
+    });
+    it('does not raise it on the near miss', async () => {
+      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...(nearMiss.body ? { body: nearMiss.body } : {}) });
+      expect(r.findings.map((f) => f.code)).not.toContain(code);
+    });
+  });
+});
+
+describe('the review as a whole', () => {
+  it('is all clear on a clean plan whose flag the change touches', async () => {
+    const r = await review(baseFiles(), withPlan(cleanPlan()));
+    expect(r.findings).toEqual([]);
+    expect(r.verdict).toBe('clear');
+    expect(r.plans[0]!.checklist.every((i) => i.done)).toBe(true);
+    expect(r.plans[0]!.reasons).toEqual(['flag touched']);
+  });
+
+  it('has nothing to check when no flag, plan or event is touched', async () => {
+    const r = await review(baseFiles({ 'README.md': 'hello\n' }), { 'README.md': 'hello again\n' });
+    expect(r.verdict).toBe('nothing-to-check');
+  });
+
+  it('links a plan named in the description, by id as a whole word only', async () => {
+    const named = await review(baseFiles(), { 'README.md': 'x\n' }, { body: 'This follows good, see plan.' });
+    expect(named.plans.map((p) => p.id)).toEqual(['good']);
+    const partial = await review(baseFiles(), { 'README.md': 'x\n' }, { body: 'This is goodness.' });
+    expect(partial.plans).toEqual([]);
+  });
+
+  it('lets the settings raise, lower and silence findings, but never lower a missing decision rule', async () => {
+    const settings = '.plumbline.yml';
+    const files = baseFiles({ [settings]: 'severity: { flag-without-plan: block, decisions-missing: note, reason-missing: off }\n' });
+    const r = await review(files, {
+      ...withPlan(cleanPlan({ hypothesis: { change: 'x', 'expected-direction': 'increase' }, decisions: {} })),
+      'src/new.ts': "client.getBooleanValue('new-flag', false);\n",
+    });
+    const severity = Object.fromEntries(r.findings.map((f) => [f.code, f.severity]));
+    expect(severity['flag-without-plan']).toBe('block');
+    expect(severity['decisions-missing']).toBe('block');
+    expect(severity['reason-missing']).toBeUndefined();
+  });
+
+  it('finds flags behind constants and in flag definition files', async () => {
+    const r = await review(baseFiles({ 'config/flags.json': '{ "flags": { "good-flag": { "state": "ENABLED" } } }\n' }), {
+      'src/constant.ts': "const CART_FLAG = 'const-flag';\nexport const on = client.getBooleanValue(CART_FLAG, false);\n",
+      'config/flags.json': '{ "flags": { "good-flag": { "state": "DISABLED" }, "defined-flag": { "state": "ENABLED" } } }\n',
+    });
+    const keys = r.flags.map((f) => `${f.key}:${f.via}`);
+    expect(keys).toEqual(expect.arrayContaining(['const-flag:constant', 'good-flag:definition', 'defined-flag:definition']));
+  });
+});

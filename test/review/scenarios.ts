@@ -1,0 +1,43 @@
+import { stringify } from 'yaml';
+
+/** A plan with every hygiene item in order; scenarios change one thing at a time. */
+export function cleanPlan(overrides: Record<string, unknown> = {}): Record<string, unknown> {
+  return {
+    id: 'good',
+    title: 'Good test',
+    owners: ['@owner-one'],
+    flags: ['good-flag'],
+    state: 'live',
+    window: { start: '2026-11-02', end: '2026-11-29' },
+    hypothesis: { change: 'A clearer cart.', because: 'People hesitate at the totals.', 'expected-direction': 'increase' },
+    unit: { randomization: 'user' },
+    surface: { path: 'shop/cart' },
+    population: { platforms: ['web'], locales: ['en-GB'], ready: { platforms: ['web'], locales: ['en-GB'] } },
+    exposure: { event: 'cart_viewed' },
+    metrics: {
+      primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.3 }, events: ['order_done'] },
+      guardrails: [{ name: 'errors', kind: 'proportion', baseline: { rate: 0.02 }, events: ['cart_error'], direction: 'decrease', tolerance: { relative: 0.2 } }],
+    },
+    design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000 },
+    decisions: { win: 'Ship.', flat: 'Drop.', loss: 'Drop and study.', 'guardrail-breach': 'Stop.' },
+    ...overrides,
+  };
+}
+
+export const planYaml = (plan: Record<string, unknown>) => stringify(plan);
+
+export const CART_CODE = `export function cart(client, track) {
+  track('cart_viewed');
+  if (client.getBooleanValue('good-flag', false)) {
+    track('order_done');
+  }
+  track('cart_error');
+}
+`;
+
+/** The same code with the flag line changed, so the change touches good-flag. */
+export const CART_CODE_TOUCHED = CART_CODE.replace("getBooleanValue('good-flag', false)", "getBooleanValue('good-flag', true)");
+
+export function baseFiles(extra: Record<string, string> = {}): Record<string, string> {
+  return { 'experiments/good.yaml': planYaml(cleanPlan()), 'src/cart.ts': CART_CODE, ...extra };
+}

@@ -35,3 +35,20 @@ if (!only || only === 'size') {
   }
 }
 process.exitCode = missed ? 1 : 0;
+
+if (!only || only === 'scan') {
+  const { benchScan } = await import('./scan.js');
+  const s = await benchScan();
+  console.log(`\nEvent search: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of 3 runs, each a fresh process`);
+  if (!s.rgAvailable) console.log('  ripgrep (rg) is not installed: apt-get install ripgrep to compare');
+  for (const r of s.rows) {
+    const searchRatio = r.searchMs / r.rgMs;
+    const checkRatio = r.checkMs / r.rgMs;
+    const searchTarget = r.names === 50 ? 3 : 2;
+    const rss = r.checkRss / 1024;
+    const ok = searchRatio <= searchTarget && checkRatio <= 3 && (r.names !== 2000 || rss < 150) && r.correct;
+    if (!ok) missed++;
+    console.log(`  ${String(r.names).padStart(4)} names: rg -j1 -F -c ${r.rgMs.toFixed(0)} ms | search ${r.searchMs.toFixed(0)} ms (${searchRatio.toFixed(2)}x, target ${searchTarget}x) | plumbline check ${r.checkMs.toFixed(0)} ms (${checkRatio.toFixed(2)}x, target 3x) | peak RSS search ${(r.searchRss / 1024).toFixed(0)} MiB, check ${rss.toFixed(0)} MiB | first locations ${r.correct ? 'correct' : 'WRONG'} (${r.sampled} sampled) ${ok ? 'met' : 'MISSED'}`);
+  }
+  process.exitCode = missed ? 1 : 0;
+}

@@ -38325,6 +38325,8 @@ function sizeFromRequest(request, window) {
 
 // src/adapters/git.ts
 import { spawn } from "node:child_process";
+import { closeSync, fstatSync, openSync, readSync } from "node:fs";
+import { join as join2 } from "node:path";
 function runGit(cwd, args, options = {}) {
   return new Promise((resolve3, reject) => {
     const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
@@ -38366,24 +38368,32 @@ async function resolveCommit(cwd, ref, flag) {
   }
 }
 async function openChange(repoDir, baseRef, headRef) {
-  const head = await resolveCommit(repoDir, headRef, "--head");
-  const baseTip = await resolveCommit(repoDir, baseRef, "--base");
+  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, "--head"), resolveCommit(repoDir, baseRef, "--base")]);
   const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
   const base = mergeBase || baseTip;
   const commitOf = (side) => side === "base" ? base : head;
+  const checkedOutIsHead = (async () => {
+    const current = (await runGit(repoDir, ["rev-parse", "--verify", "--quiet", "HEAD"], { allow: [1] })).toString("utf8").trim();
+    if (current !== head) return false;
+    return runGit(repoDir, ["diff", "--quiet", "HEAD", "--"]).then(
+      () => true,
+      () => false
+    );
+  })();
   const trackedCache = /* @__PURE__ */ new Map();
   const trackedFiles = (side) => {
     const commit = commitOf(side);
     let cached3 = trackedCache.get(commit);
     if (!cached3) {
-      cached3 = runGit(repoDir, ["ls-tree", "-r", "-z", "--name-only", commit]).then(
-        (out) => out.toString("utf8").split("\0").filter(Boolean).sort()
-      );
+      cached3 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
       trackedCache.set(commit, cached3);
     }
     return cached3;
   };
-  const streamFiles = (side, paths, onFile) => catFiles(repoDir, commitOf(side), paths, onFile);
+  const streamFiles = async (side, paths, onFile) => {
+    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
+    return catFiles(repoDir, commitOf(side), paths, onFile);
+  };
   const filesAt = (side) => {
     const readTexts = async (paths) => {
       const found = /* @__PURE__ */ new Map();
@@ -38473,6 +38483,27 @@ function catFiles(cwd, commit, paths, onFile) {
     child.stdin.end(asked.map((p) => `${commit}:${p}
 `).join(""));
   });
+}
+async function readWorkingTree(root, paths, onFile) {
+  let buffer = Buffer.allocUnsafe(1 << 20);
+  for (const path of paths) {
+    let fd;
+    try {
+      fd = openSync(join2(root, path), "r");
+      const size = fstatSync(fd).size;
+      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
+      let read = 0;
+      while (read < size) {
+        const n = readSync(fd, buffer, read, size - read, read);
+        if (n === 0) break;
+        read += n;
+      }
+      onFile(path, buffer.subarray(0, read));
+    } catch {
+    } finally {
+      if (fd !== void 0) closeSync(fd);
+    }
+  }
 }
 
 // src/run/review-change.ts
@@ -39207,19 +39238,15 @@ function buildAutomaton(names) {
 // src/core/scan/name-scan.ts
 var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
 function looksBinary(bytes) {
-  const end = Math.min(bytes.length, 8e3);
-  for (let i = 0; i < end; i++) if (bytes[i] === 0) return true;
-  return false;
+  return bytes.subarray(0, 8e3).indexOf(0) !== -1;
 }
 function createNameScanner(names, callPatterns = []) {
   const unique = [...new Set(names)].filter((n) => n.length > 0 && !n.includes("\n"));
   const automaton = buildAutomaton(unique);
   const hits = unique.map(() => ({}));
-  const index = new Map(unique.map((n, i) => [n, i]));
   let files = 0;
   let bytesSeen = 0;
   let skippedBinary = 0;
-  let unplacedCalls = unique.length;
   return {
     scanFile(path, bytes) {
       if (looksBinary(bytes)) {
@@ -39239,42 +39266,17 @@ function createNameScanner(names, callPatterns = []) {
         countedTo = end;
         return { file: path, line, column: start - lineStart + 1 };
       };
-      let quotedHere = false;
       automaton.search(bytes, (name, end) => {
         const h = hits[name];
-        if (h.first && h.firstQuoted) return;
+        if (h.first && h.firstQuoted && (h.firstCall || callPatterns.length === 0)) return;
         const start = end - automaton.lengths[name] + 1;
         const here = locate(start, end);
         h.first ??= here;
         const quote = bytes[start - 1];
-        if (quote !== void 0 && QUOTES.has(quote) && bytes[end + 1] === quote) {
-          h.firstQuoted ??= here;
-          if (!h.firstCall) quotedHere = true;
-        }
+        if (quote === void 0 || !QUOTES.has(quote) || bytes[end + 1] !== quote) return;
+        h.firstQuoted ??= here;
+        if (!h.firstCall && callPatterns.length && isLoggedOnLine(bytes, lineStart, unique[name], callPatterns)) h.firstCall = here;
       });
-      if (quotedHere && unplacedCalls > 0 && callPatterns.length) {
-        const text2 = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
-        const lineStarts = [0];
-        for (let nl = text2.indexOf("\n"); nl !== -1; nl = text2.indexOf("\n", nl + 1)) lineStarts.push(nl + 1);
-        for (const pattern of callPatterns) {
-          pattern.lastIndex = 0;
-          for (const match of text2.matchAll(pattern)) {
-            const event = match.groups?.event;
-            const i = event === void 0 ? void 0 : index.get(event);
-            if (i === void 0 || hits[i].firstCall) continue;
-            const at = match.index + match[0].lastIndexOf(event);
-            let lo = 0;
-            let hi = lineStarts.length - 1;
-            while (lo < hi) {
-              const mid = lo + hi + 1 >> 1;
-              if (lineStarts[mid] <= at) lo = mid;
-              else hi = mid - 1;
-            }
-            hits[i].firstCall = { file: path, line: lo + 1, column: Buffer.byteLength(text2.slice(lineStarts[lo], at)) + 1 };
-            unplacedCalls--;
-          }
-        }
-      }
     },
     results() {
       return new Map(unique.map((n, i) => [n, hits[i]]));
@@ -39284,11 +39286,22 @@ function createNameScanner(names, callPatterns = []) {
     }
   };
 }
+function isLoggedOnLine(bytes, lineStart, name, patterns) {
+  let lineEnd = bytes.indexOf(10, lineStart);
+  if (lineEnd === -1) lineEnd = bytes.length;
+  const line = Buffer.from(bytes.buffer, bytes.byteOffset + lineStart, lineEnd - lineStart).toString("utf8");
+  for (const pattern of patterns) {
+    pattern.lastIndex = 0;
+    for (const match of line.matchAll(pattern)) if (match.groups?.event === name) return true;
+  }
+  return false;
+}
 
 // src/run/review-change.ts
 var QUOTED2 = /(["'`])([^"'`\n]{1,200})\1/g;
 async function reviewChange(options) {
   const { change: change2 } = options;
+  const trackedAtHead = change2.trackedFiles("head");
   const head = change2.filesAt("head");
   const loaded = await loadWorkspace({ files: head, ...options.settingsPath ? { settingsPath: options.settingsPath } : {}, ...options.onProgress ? { onProgress: options.onProgress } : {} });
   if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
@@ -39328,7 +39341,7 @@ async function reviewChange(options) {
   if (names.length) {
     const ownFiles = /* @__PURE__ */ new Set([...workspace.planFiles, ...settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await change2.trackedFiles("head")).filter((p) => !ownFiles.has(p) && inScope(p));
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
     let done = 0;
     await change2.streamFiles("head", paths, (path, bytes) => {
       scanner.scanFile(path, bytes);

@@ -32,6 +32,8 @@ const QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
 /** Reviews the change from its merge base to head, reading plans, settings and code at head. */
 export async function reviewChange(options: ReviewChangeOptions): Promise<ReviewOutcome> {
   const { change } = options;
+  // Listing the tree runs in git while the plans load.
+  const trackedAtHead = change.trackedFiles('head');
   const head = change.filesAt('head');
   const loaded = await loadWorkspace({ files: head, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}), ...(options.onProgress ? { onProgress: options.onProgress } : {}) });
   if (!loaded.ok) return { kind: 'settings-invalid', settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
@@ -82,7 +84,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   if (names.length) {
     const ownFiles = new Set([...workspace.planFiles, ...settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await change.trackedFiles('head')).filter((p) => !ownFiles.has(p) && inScope(p));
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
     let done = 0;
     await change.streamFiles('head', paths, (path, bytes) => {
       scanner.scanFile(path, bytes);

@@ -25,25 +25,21 @@ const QUOTES = new Set([34, 39, 96]); // " ' `
 
 /** True when the file looks binary: a NUL byte in its first 8,000 bytes (git's own test). */
 export function looksBinary(bytes: Uint8Array): boolean {
-  const end = Math.min(bytes.length, 8000);
-  for (let i = 0; i < end; i++) if (bytes[i] === 0) return true;
-  return false;
+  return bytes.subarray(0, 8000).indexOf(0) !== -1;
 }
 
 /**
  * Finds the first locations of many names across many files in one pass per file. Logging-call
- * patterns (with a named group `event`) are run only over files where a still-unplaced name
- * appears quoted, so the regular expressions never dominate the scan.
+ * patterns (with a named group `event`) are tried only on the line of a quoted occurrence of a
+ * name not yet seen in a call, so the regular expressions never dominate the scan.
  */
 export function createNameScanner(names: readonly string[], callPatterns: readonly RegExp[] = []): NameScanner {
   const unique = [...new Set(names)].filter((n) => n.length > 0 && !n.includes('\n'));
   const automaton = buildAutomaton(unique);
   const hits: NameHits[] = unique.map(() => ({}));
-  const index = new Map(unique.map((n, i) => [n, i]));
   let files = 0;
   let bytesSeen = 0;
   let skippedBinary = 0;
-  let unplacedCalls = unique.length;
 
   return {
     scanFile(path, bytes) {
@@ -66,43 +62,18 @@ export function createNameScanner(names: readonly string[], callPatterns: readon
         countedTo = end;
         return { file: path, line, column: start - lineStart + 1 };
       };
-      let quotedHere = false;
       automaton.search(bytes, (name, end) => {
         const h = hits[name]!;
-        if (h.first && h.firstQuoted) return;
+        if (h.first && h.firstQuoted && (h.firstCall || callPatterns.length === 0)) return;
         const start = end - automaton.lengths[name]! + 1;
         const here = locate(start, end);
         h.first ??= here;
         const quote = bytes[start - 1];
-        if (quote !== undefined && QUOTES.has(quote) && bytes[end + 1] === quote) {
-          h.firstQuoted ??= here;
-          if (!h.firstCall) quotedHere = true;
-        }
+        if (quote === undefined || !QUOTES.has(quote) || bytes[end + 1] !== quote) return;
+        h.firstQuoted ??= here;
+        // Is this quoted name the event of a logging call? Only its own line needs matching.
+        if (!h.firstCall && callPatterns.length && isLoggedOnLine(bytes, lineStart, unique[name]!, callPatterns)) h.firstCall = here;
       });
-      if (quotedHere && unplacedCalls > 0 && callPatterns.length) {
-        const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
-        const lineStarts = [0];
-        for (let nl = text.indexOf('\n'); nl !== -1; nl = text.indexOf('\n', nl + 1)) lineStarts.push(nl + 1);
-        for (const pattern of callPatterns) {
-          pattern.lastIndex = 0;
-          for (const match of text.matchAll(pattern)) {
-            const event = match.groups?.event;
-            const i = event === undefined ? undefined : index.get(event);
-            if (i === undefined || hits[i]!.firstCall) continue;
-            const at = match.index + match[0].lastIndexOf(event!);
-            let lo = 0;
-            let hi = lineStarts.length - 1;
-            while (lo < hi) {
-              const mid = (lo + hi + 1) >> 1;
-              if (lineStarts[mid]! <= at) lo = mid;
-              else hi = mid - 1;
-            }
-            // Columns count UTF-8 bytes, as the byte scan does.
-            hits[i]!.firstCall = { file: path, line: lo + 1, column: Buffer.byteLength(text.slice(lineStarts[lo]!, at)) + 1 };
-            unplacedCalls--;
-          }
-        }
-      }
     },
     results() {
       return new Map(unique.map((n, i) => [n, hits[i]!]));
@@ -111,4 +82,16 @@ export function createNameScanner(names: readonly string[], callPatterns: readon
       return { files, bytes: bytesSeen, skippedBinary };
     },
   };
+}
+
+/** True when a logging-call pattern on the line starting at `lineStart` logs exactly `name`. */
+function isLoggedOnLine(bytes: Uint8Array, lineStart: number, name: string, patterns: readonly RegExp[]): boolean {
+  let lineEnd = bytes.indexOf(10, lineStart);
+  if (lineEnd === -1) lineEnd = bytes.length;
+  const line = Buffer.from(bytes.buffer, bytes.byteOffset + lineStart, lineEnd - lineStart).toString('utf8');
+  for (const pattern of patterns) {
+    pattern.lastIndex = 0;
+    for (const match of line.matchAll(pattern)) if (match.groups?.event === name) return true;
+  }
+  return false;
 }

@@ -1,0 +1,113 @@
+// Benchmark: the event search step and the whole check, beside ripgrep over the same tracked files and names.
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { build } from 'esbuild';
+import { scanRepo } from './scan-repo.js';
+
+function wall(command: string, args: string[], options: { cwd?: string; input?: string } = {}): { ms: number; stdout: string; status: number | null } {
+  const start = process.hrtime.bigint();
+  const run = spawnSync(command, args, { cwd: options.cwd, encoding: 'utf8', maxBuffer: 1 << 28, input: options.input });
+  return { ms: Number(process.hrtime.bigint() - start) / 1e6, stdout: run.stdout, status: run.status };
+}
+
+function median(values: number[]): number {
+  return [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+}
+
+const GIT_ENV = { ...process.env, GIT_AUTHOR_NAME: 'b', GIT_AUTHOR_EMAIL: 'b@b.invalid', GIT_COMMITTER_NAME: 'b', GIT_COMMITTER_EMAIL: 'b@b.invalid' };
+
+/** Branch `bench` = main plus a plan that names every event, checked out as CI would have it. */
+function checkOutPlanBranch(root: string, names: readonly string[]): void {
+  const plan = {
+    id: 'bench-plan', title: 'Bench', owners: ['@bench'], flags: ['bench-flag'], state: 'draft',
+    window: { start: '2026-11-02', end: '2026-11-29' },
+    hypothesis: { change: 'x', because: 'y', 'expected-direction': 'increase' },
+    unit: { randomization: 'user' }, surface: { path: 'bench/area' },
+    exposure: { event: names[0] },
+    metrics: { primary: { name: 'p', kind: 'proportion', baseline: { rate: 0.2 }, events: names.slice(1) } },
+    design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 10000 },
+    decisions: { win: 'a', flat: 'b', loss: 'c', 'guardrail-breach': 'd' },
+  };
+  const git = (...args: string[]) => execFileSync('git', args, { cwd: root, env: GIT_ENV, stdio: 'pipe' });
+  git('checkout', '-q', '-B', 'bench', 'main');
+  mkdirSync(join(root, 'experiments'), { recursive: true });
+  writeFileSync(join(root, 'experiments', 'bench.yaml'), JSON.stringify(plan, null, 1));
+  git('add', 'experiments/bench.yaml');
+  git('commit', '-q', '-m', `plan naming ${names.length} events`);
+}
+
+export interface ScanFigures {
+  files: number;
+  megabytes: number;
+  rows: { names: number; rgMs: number; searchMs: number; checkMs: number; searchRss: number; checkRss: number; correct: boolean; sampled: number }[];
+  rgAvailable: boolean;
+}
+
+export async function benchScan(): Promise<ScanFigures> {
+  const repo = scanRepo();
+  const tracked = execFileSync('git', ['ls-files', '-z'], { cwd: repo.root, encoding: 'utf8', maxBuffer: 1 << 26 }).split('\0').filter(Boolean);
+  const rgAvailable = spawnSync('rg', ['--version']).status === 0;
+  const work = mkdtempSync(join(tmpdir(), 'plumbline-scan-'));
+  // The child runs the real search code (bundled like dist/, without a TypeScript loader in the way).
+  const child = join(work, 'search-child.mjs');
+  await build({ entryPoints: ['bench/search-child.ts'], bundle: true, platform: 'node', format: 'esm', outfile: child, logLevel: 'warning', banner: { js: "import { createRequire } from 'node:module'; const require = createRequire(import.meta.url);" } });
+  const rows: ScanFigures['rows'] = [];
+  try {
+    for (const count of [50, 500, 2000] as const) {
+      const names = repo.names[count];
+      const namesFile = join(work, `names-${count}.txt`);
+      writeFileSync(namesFile, `${names.join('\n')}\n`);
+      const listFile = join(work, 'files.txt');
+      writeFileSync(listFile, tracked.join('\n'));
+      const rgTimes: number[] = [];
+      const searchTimes: number[] = [];
+      const checkTimes: number[] = [];
+      let searchRss = 0;
+      let checkRss = 0;
+      let correct = true;
+      let sampled = 0;
+      for (let round = 0; round < 3; round++) {
+        if (rgAvailable) rgTimes.push(wall('rg', ['-j1', '-F', '-c', '-f', namesFile, ...tracked], { cwd: repo.root }).ms);
+        const search = wall(process.execPath, [child, 'search', repo.root, namesFile]);
+        const result = JSON.parse(search.stdout);
+        searchTimes.push(search.ms);
+        searchRss = Math.max(searchRss, result.maxRssKiB);
+        checkOutPlanBranch(repo.root, names);
+        const check = wall(process.execPath, ['dist/cli.js', '-C', repo.root, 'check', '--base', 'main', '--head', 'bench', '--format', 'json']);
+        if (check.status !== 0) throw new Error(`check exited ${check.status}`);
+        checkTimes.push(check.ms);
+        checkRss = Math.max(checkRss, JSON.parse(wall(process.execPath, [child, 'check', repo.root, namesFile]).stdout).maxRssKiB);
+        execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root });
+        if (round === 0) {
+          // Verify first locations for a sample of names with a plain indexOf over the files in order.
+          const sample = names.filter((_, i) => i % Math.max(1, Math.floor(names.length / 25)) === 0);
+          sampled = sample.length;
+          for (const name of sample) {
+            let expected: string | undefined;
+            for (const path of tracked) {
+              const text = readFileSync(join(repo.root, path));
+              const at = text.indexOf(name);
+              if (at >= 0) {
+                const line = text.subarray(0, at).toString('utf8').split('\n').length;
+                expected = `${path}:${line}`;
+                break;
+              }
+            }
+            const got = result.first[name] as string | undefined;
+            if (got !== expected) {
+              correct = false;
+              console.error(`  wrong first location for ${name}: got ${got}, expected ${expected}`);
+            }
+          }
+        }
+      }
+      rows.push({ names: count, rgMs: rgAvailable ? median(rgTimes) : NaN, searchMs: median(searchTimes), checkMs: median(checkTimes), searchRss, checkRss, correct, sampled });
+    }
+  } finally {
+    rmSync(work, { recursive: true, force: true });
+    execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root });
+  }
+  return { files: tracked.length, megabytes: repo.bytes / (1024 * 1024), rows, rgAvailable };
+}

@@ -15,6 +15,8 @@ function report(label: string, figures: { referenceMs: number; subjectMs: number
 }
 
 const only = process.argv[2];
+/** `npm run bench -- scan /path/to/repo` searches a tree of your own instead of the generated one. */
+const tree = process.argv[3];
 
 if (!only || only === 'load') {
   const loading = await benchPlanLoading();
@@ -38,7 +40,7 @@ process.exitCode = missed ? 1 : 0;
 
 if (!only || only === 'scan') {
   const { benchScan } = await import('./scan.js');
-  const s = await benchScan();
+  const s = await benchScan(tree);
   console.log(`\nEvent search: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of 3 runs, each a fresh process`);
   if (!s.rgAvailable) console.log('  ripgrep (rg) is not installed: apt-get install ripgrep to compare');
   for (const r of s.rows) {

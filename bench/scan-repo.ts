@@ -33,6 +33,32 @@ export interface ScanRepo {
   bytes: number;
 }
 
+/**
+ * A tree given on the command line (a git repository): its names are string literals sampled
+ * from its own code, plus absent names and names that only occur inside others.
+ */
+export function givenTree(root: string): ScanRepo {
+  const tracked = execFileSync('git', ['ls-files', '-z'], { cwd: root, encoding: 'utf8', maxBuffer: 1 << 28 }).split('\0').filter(Boolean);
+  const found = new Set<string>();
+  let bytes = 0;
+  for (const path of tracked) {
+    let text: string;
+    try {
+      text = readFileSync(join(root, path), 'utf8');
+    } catch {
+      continue;
+    }
+    bytes += Buffer.byteLength(text);
+    if (found.size < 1600) for (const m of text.matchAll(/["']([a-z][a-z0-9_.:-]{5,40})["']/g)) if (found.size < 1600) found.add(m[1]!);
+  }
+  const present = [...found];
+  const inner = present.slice(0, 200).map((n) => n.slice(1, -1)).filter((n) => n.length >= 4);
+  const absent = Array.from({ length: 2000 }, (_, i) => `plumbline_absent_event_${i}`);
+  const all = [...present, ...inner, ...absent].slice(0, 2000);
+  const mix = (k: number) => all.filter((_, i) => i % Math.round(2000 / k) === 0).slice(0, k);
+  return { root, names: { 50: mix(50), 500: mix(500), 2000: all }, bytes };
+}
+
 export function scanRepo(): ScanRepo {
   const root = join(process.cwd(), '.bench', VERSION);
   const all = eventNames(2000);

@@ -4,7 +4,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { build } from 'esbuild';
-import { scanRepo } from './scan-repo.js';
+import { givenTree, scanRepo } from './scan-repo.js';
 
 function wall(command: string, args: string[], options: { cwd?: string; input?: string } = {}): { ms: number; stdout: string; status: number | null } {
   const start = process.hrtime.bigint();
@@ -31,7 +31,7 @@ function checkOutPlanBranch(root: string, names: readonly string[]): void {
     decisions: { win: 'a', flat: 'b', loss: 'c', 'guardrail-breach': 'd' },
   };
   const git = (...args: string[]) => execFileSync('git', args, { cwd: root, env: GIT_ENV, stdio: 'pipe' });
-  git('checkout', '-q', '-B', 'bench', 'main');
+  git('checkout', '-q', '-B', 'bench');
   mkdirSync(join(root, 'experiments'), { recursive: true });
   writeFileSync(join(root, 'experiments', 'bench.yaml'), JSON.stringify(plan, null, 1));
   git('add', 'experiments/bench.yaml');
@@ -45,10 +45,14 @@ export interface ScanFigures {
   rgAvailable: boolean;
 }
 
-export async function benchScan(): Promise<ScanFigures> {
-  const repo = scanRepo();
+export async function benchScan(tree?: string): Promise<ScanFigures> {
+  const repo = tree ? givenTree(tree) : scanRepo();
   const tracked = execFileSync('git', ['ls-files', '-z'], { cwd: repo.root, encoding: 'utf8', maxBuffer: 1 << 26 }).split('\0').filter(Boolean);
   const rgAvailable = spawnSync('rg', ['--version']).status === 0;
+  const startBranch = execFileSync('git', ['rev-parse', '--abbrev-ref', 'HEAD'], { cwd: repo.root, encoding: 'utf8' }).trim();
+  if (execFileSync('git', ['status', '--porcelain', '--untracked-files=no'], { cwd: repo.root, encoding: 'utf8' }).trim()) {
+    throw new Error(`${repo.root} has uncommitted changes; the benchmark commits on a branch of its own and needs a clean tree`);
+  }
   const work = mkdtempSync(join(tmpdir(), 'plumbline-scan-'));
   // The child runs the real search code (bundled like dist/, without a TypeScript loader in the way).
   const child = join(work, 'search-child.mjs');
@@ -75,10 +79,10 @@ export async function benchScan(): Promise<ScanFigures> {
         searchTimes.push(search.ms);
         searchRss = Math.max(searchRss, result.maxRssKiB);
         checkOutPlanBranch(repo.root, names);
-        const check = wall(process.execPath, ['dist/cli.js', '-C', repo.root, 'check', '--base', 'main', '--head', 'bench', '--format', 'json']);
+        const check = wall(process.execPath, ['dist/cli.js', '-C', repo.root, 'check', '--base', startBranch, '--head', 'bench', '--format', 'json']);
         if (check.status !== 0) throw new Error(`check exited ${check.status}`);
         checkTimes.push(check.ms);
-        checkRss = Math.max(checkRss, JSON.parse(wall(process.execPath, [child, 'check', repo.root, namesFile]).stdout).maxRssKiB);
+        checkRss = Math.max(checkRss, JSON.parse(wall(process.execPath, [child, 'check', repo.root, namesFile, startBranch]).stdout).maxRssKiB);
         execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root });
         if (round === 0) {
           // Verify first locations for a sample of names with a plain indexOf over the files in order.
@@ -107,7 +111,7 @@ export async function benchScan(): Promise<ScanFigures> {
     }
   } finally {
     rmSync(work, { recursive: true, force: true });
-    execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root });
+    execFileSync('git', ['checkout', '-q', startBranch], { cwd: repo.root });
   }
   return { files: tracked.length, megabytes: repo.bytes / (1024 * 1024), rows, rgAvailable };
 }

@@ -1,13 +1,13 @@
 // Runs in its own process so its time and peak memory are its own:
 //   search <repo> <names-file>   the event search step over the tracked files at HEAD
-//   check <repo> <names-file>    the whole review of main...bench (bench checked out)
+//   check <repo> <names-file> [base]   the whole review of base...bench (bench checked out)
 import { readFileSync } from 'node:fs';
 import { openChange } from '../src/adapters/git.js';
 import { createNameScanner } from '../src/core/scan/name-scan.js';
 import { BUILTIN_LOG_PATTERNS, compilePatterns } from '../src/core/scan/patterns.js';
 import { reviewChange } from '../src/run/review-change.js';
 
-const [mode, root, namesFile] = process.argv.slice(2) as [string, string, string];
+const [mode, root, namesFile, baseBranch = 'main'] = process.argv.slice(2) as [string, string, string, string?];
 const names = readFileSync(namesFile, 'utf8').split('\n').filter(Boolean);
 
 if (mode === 'search') {
@@ -19,7 +19,7 @@ if (mode === 'search') {
   console.log(JSON.stringify({ first, maxRssKiB: process.resourceUsage().maxRSS }));
 } else {
   // The review of main...bench, with bench checked out, as in a CI run.
-  const outcome = await reviewChange({ change: await openChange(root, 'main', 'bench') });
+  const outcome = await reviewChange({ change: await openChange(root, baseBranch, 'bench') });
   if (outcome.kind !== 'review') throw new Error('settings');
   const events = outcome.review.plans[0]?.events ?? [];
   console.log(JSON.stringify({ events: events.length, found: events.filter((e) => e.location).length, maxRssKiB: process.resourceUsage().maxRSS }));

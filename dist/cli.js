@@ -37468,6 +37468,14 @@ async function loadWorkspace(options) {
     }
   };
 }
+async function requireWorkspace(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
+${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  }
+  return loaded.workspace;
+}
 async function readSettingsText(files, named) {
   if (named) {
     const text2 = await files.readText(named);
@@ -37589,15 +37597,11 @@ design:
 // src/run/scaffold.ts
 var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
 async function scaffoldPlan(request) {
-  const loaded = await loadWorkspace(request);
-  if (!loaded.ok) {
-    throw new UsageError(`the settings file has errors:
-${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
-  }
+  const workspace = await requireWorkspace(request);
   const id = request.id ?? planIdFromFlag(request.flagKey);
-  const taken = loaded.workspace.registry.entries.find((entry) => entry.id === id);
+  const taken = workspace.registry.entries.find((entry) => entry.id === id);
   if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
-  const firstPlans = loaded.workspace.settings.planPaths[0] ?? "experiments";
+  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
   const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
   const path = request.out ?? posix.join(folder, `${id}.yaml`);
   const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
@@ -38286,16 +38290,14 @@ function sizePlan(plan) {
 
 // src/run/size.ts
 async function sizeNamedPlan(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) throw new UsageError(`the settings file has errors:
-${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  const workspace = await requireWorkspace(options);
   const wanted = options.plan.replace(/^\.\//, "");
-  const found = loaded.workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
   if (!found) {
-    const broken = loaded.workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
+    const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
     if (broken.length) throw new UsageError(`${wanted} has errors:
 ${broken.map(formatProblem).join("\n")}`, "fix them, then size again");
-    const known = loaded.workspace.plans.map((p) => p.plan.id);
+    const known = workspace.plans.map((p) => p.plan.id);
     throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
   }
   const { plan } = found;
@@ -39110,12 +39112,12 @@ function constantDefinition(name) {
   const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
   return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
 }
+var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
 function compilePatterns(patterns) {
   return patterns.map((p) => new RegExp(p, "gu"));
 }
 
 // src/core/scan/flag-touches.ts
-var QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
 function findFlagTouches(inputs) {
   const touches = [];
   const seen = /* @__PURE__ */ new Set();
@@ -39142,8 +39144,7 @@ function findFlagTouches(inputs) {
             }
           }
         }
-        QUOTED.lastIndex = 0;
-        for (const match of text2.matchAll(QUOTED)) {
+        for (const match of text2.matchAll(QUOTED_STRING)) {
           if (inputs.knownKeys.has(match[2])) add({ key: match[2], file: file2, line, side, via: "literal" });
         }
       }
@@ -39298,7 +39299,6 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
 }
 
 // src/run/review-change.ts
-var QUOTED2 = /(["'`])([^"'`\n]{1,200})\1/g;
 async function reviewChange(options) {
   const { change: change2 } = options;
   const trackedAtHead = change2.trackedFiles("head");
@@ -39352,8 +39352,7 @@ async function reviewChange(options) {
   const removedEvents = /* @__PURE__ */ new Map();
   for (const diff of textual) {
     for (const { line, text: text2 } of diff.removed) {
-      QUOTED2.lastIndex = 0;
-      for (const match of text2.matchAll(QUOTED2)) {
+      for (const match of text2.matchAll(QUOTED_STRING)) {
         const event = match[2];
         if (runningEvents.has(event) && !removedEvents.has(event)) {
           removedEvents.set(event, { file: diff.previousPath ?? diff.path, line, column: match.index + 2 });

@@ -4,7 +4,7 @@ import type { Settings } from '../core/config/schema.js';
 import { loadPlan, type LoadedPlan } from '../core/plan/load.js';
 import { buildRegistry, loadRegistryFile, type Registry } from '../core/registry/load.js';
 import type { RegistryEntry } from '../core/registry/schema.js';
-import { sortProblems, type Problem } from '../core/source/problem.js';
+import { formatProblem, sortProblems, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import type { ProgressReporter, RepoFiles } from '../ports.js';
 
@@ -89,6 +89,15 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
       problems: sortProblems(problems),
     },
   };
+}
+
+/** For use cases that cannot go on without settings: an invalid settings file becomes a usage error. */
+export async function requireWorkspace(options: LoadWorkspaceOptions): Promise<Workspace> {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:\n${loaded.settingsProblems.map(formatProblem).join('\n')}`, 'run plumbline validate');
+  }
+  return loaded.workspace;
 }
 
 async function readSettingsText(files: RepoFiles, named: string | undefined): Promise<{ text?: string; file?: string }> {

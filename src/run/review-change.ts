@@ -10,7 +10,7 @@ import { parseUnifiedDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
 import { findFlagTouches } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location } from '../core/scan/name-scan.js';
-import { BUILTIN_FLAG_PATTERNS, BUILTIN_LOG_PATTERNS, compilePatterns } from '../core/scan/patterns.js';
+import { BUILTIN_FLAG_PATTERNS, BUILTIN_LOG_PATTERNS, QUOTED_STRING, compilePatterns } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
@@ -26,8 +26,6 @@ export interface ReviewChangeOptions {
 export type ReviewOutcome =
   | { kind: 'review'; review: Review; scanned: { files: number; bytes: number } }
   | { kind: 'settings-invalid'; settingsFile: string; problems: Problem[] };
-
-const QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
 
 /** Reviews the change from its merge base to head, reading plans, settings and code at head. */
 export async function reviewChange(options: ReviewChangeOptions): Promise<ReviewOutcome> {
@@ -97,8 +95,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const removedEvents = new Map<string, Location>();
   for (const diff of textual) {
     for (const { line, text } of diff.removed) {
-      QUOTED.lastIndex = 0;
-      for (const match of text.matchAll(QUOTED)) {
+      for (const match of text.matchAll(QUOTED_STRING)) {
         const event = match[2]!;
         if (runningEvents.has(event) && !removedEvents.has(event)) {
           removedEvents.set(event, { file: diff.previousPath ?? diff.path, line, column: match.index + 2 });

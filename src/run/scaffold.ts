@@ -3,7 +3,7 @@ import { renderPlanScaffold, planIdFromFlag } from '../core/plan/scaffold.js';
 import { loadPlan } from '../core/plan/load.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
-import { loadWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
+import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
 export interface ScaffoldRequest extends LoadWorkspaceOptions {
   flagKey: string;
@@ -26,15 +26,12 @@ const INSTALLED_SCHEMA = 'node_modules/plumbline/schema/plan.schema.json';
 
 /** Prepares a new draft plan for a flag; the entry point writes it (effects stay at the edge). */
 export async function scaffoldPlan(request: ScaffoldRequest): Promise<ScaffoldResult> {
-  const loaded = await loadWorkspace(request);
-  if (!loaded.ok) {
-    throw new UsageError(`the settings file has errors:\n${loaded.settingsProblems.map(formatProblem).join('\n')}`, 'run plumbline validate');
-  }
+  const workspace = await requireWorkspace(request);
   const id = request.id ?? planIdFromFlag(request.flagKey);
-  const taken = loaded.workspace.registry.entries.find((entry) => entry.id === id);
+  const taken = workspace.registry.entries.find((entry) => entry.id === id);
   if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, 'choose another id with --id');
 
-  const firstPlans = loaded.workspace.settings.planPaths[0] ?? 'experiments';
+  const firstPlans = workspace.settings.planPaths[0] ?? 'experiments';
   const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? 'experiments' : firstPlans.replace(/\/+$/, '');
   const path = request.out ?? posix.join(folder, `${id}.yaml`);
   const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);

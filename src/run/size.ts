@@ -3,7 +3,7 @@ import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
 import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
-import { loadWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
+import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
 export interface SizeOutcome {
   sizing: PlanSizing;
@@ -13,14 +13,13 @@ export interface SizeOutcome {
 
 /** Sizes a plan of the repository, named by id or by file path. */
 export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: string }): Promise<SizeOutcome> {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) throw new UsageError(`the settings file has errors:\n${loaded.settingsProblems.map(formatProblem).join('\n')}`, 'run plumbline validate');
+  const workspace = await requireWorkspace(options);
   const wanted = options.plan.replace(/^\.\//, '');
-  const found = loaded.workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
   if (!found) {
-    const broken = loaded.workspace.problems.filter((p) => p.file === wanted && p.severity === 'error');
+    const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === 'error');
     if (broken.length) throw new UsageError(`${wanted} has errors:\n${broken.map(formatProblem).join('\n')}`, 'fix them, then size again');
-    const known = loaded.workspace.plans.map((p) => p.plan.id);
+    const known = workspace.plans.map((p) => p.plan.id);
     throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(', ')}` : 'create one with plumbline new <flag-key>');
   }
   const { plan } = found;

@@ -1,5 +1,5 @@
 import type { FileDiff } from './diff.js';
-import { constantDefinition } from './patterns.js';
+import { QUOTED_STRING, constantDefinition } from './patterns.js';
 
 /** A changed line that evaluates, defines or names a feature flag. */
 export interface FlagTouch {
@@ -21,8 +21,6 @@ export interface FlagTouchInputs {
   /** Text of a changed file on either side, to resolve constants; undefined when unknown. */
   textOf(side: 'added' | 'removed', path: string): string | undefined;
 }
-
-const QUOTED = /(["'`])([^"'`\n]{1,200})\1/g;
 
 /** Finds every flag key a change touches in code. Flag definition files are handled by flagDefinitionTouches. */
 export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
@@ -51,8 +49,7 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
             }
           }
         }
-        QUOTED.lastIndex = 0;
-        for (const match of text.matchAll(QUOTED)) {
+        for (const match of text.matchAll(QUOTED_STRING)) {
           if (inputs.knownKeys.has(match[2]!)) add({ key: match[2]!, file, line, side, via: 'literal' });
         }
       }

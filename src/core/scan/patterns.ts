@@ -44,6 +44,9 @@ export function constantDefinition(name: string): RegExp {
   return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, 'mu');
 }
 
+/** A string literal on one line, quoted with ", ' or `; group 2 is its text. */
+export const QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
+
 /** Compiles patterns once; the `g` flag lets one line hold several calls. */
 export function compilePatterns(patterns: readonly string[]): RegExp[] {
   return patterns.map((p) => new RegExp(p, 'gu'));

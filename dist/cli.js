@@ -37795,7 +37795,11 @@ function multiplierNotes(entry, sizing) {
   if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
   if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
   if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (m.sequential > 1) out.push(`Interim looks: maximum sample ${formatMultiplier(m.sequential)} to keep the planned power.`);
+  if (sizing.boundaries) {
+    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
+    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
+  }
   if (sizing.diluted && sizing.triggered) {
     const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
     out.push(
@@ -38088,8 +38092,9 @@ function sizeMetric(request) {
   if (request.dailyUnits !== void 0 && !(request.dailyUnits > 0)) return fail("daily-units", "zero traffic: no test can reach its sample");
   const totalWeight = request.arms.reduce((s, a) => s + a.weight, 0);
   const alphaPerComparison = bonferroniAlpha(request.alpha, treatments.length);
-  const sequential = request.interimLooks > 0 ? sequentialInflation({ kind: request.boundary, looks: request.interimLooks + 1, alpha: alphaPerComparison, sides: request.sides }, request.power) : ok({ inflation: 1 });
+  const sequential = request.interimLooks > 0 ? sequentialInflation({ kind: request.boundary, looks: request.interimLooks + 1, alpha: alphaPerComparison, sides: request.sides }, request.power) : ok({ inflation: 1, boundaries: void 0 });
   if (!sequential.ok) return sequential;
+  const boundaries = sequential.value.boundaries;
   const de = request.cluster ? designEffect(request.cluster.meanSize, request.cluster.icc, request.cluster.sizeCv) : 1;
   const vr = varianceReduction(request.prePeriodCorrelation);
   const inflate = de * vr * sequential.value.inflation;
@@ -38213,6 +38218,7 @@ function sizeMetric(request) {
       dilutionUnits,
       dilutionDays
     },
+    ...boundaries ? { boundaries: { kind: request.boundary, z: boundaries.z, nominalP: boundaries.nominalP } } : {},
     ...triggered ? { triggered } : {},
     ...diluted ? { diluted } : {},
     ...headline ? { headline } : {},
@@ -39574,6 +39580,7 @@ var sizeResult = external_exports.union([
         dilutionUnits: external_exports.number(),
         dilutionDays: external_exports.number()
       }),
+      boundaries: external_exports.object({ kind: external_exports.enum(["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"]), z: external_exports.array(external_exports.number()), nominalP: external_exports.array(external_exports.number()) }).optional(),
       triggered: analysisSize.optional(),
       diluted: analysisSize.optional(),
       headline: analysisSize.optional(),

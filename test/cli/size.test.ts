@@ -11,7 +11,7 @@ describe('plumbline size', () => {
     expect(run.stdout).toContain('3 arms (control 34, fixed-amounts 33, percent-of-order 33), α 0.05 two-sided, power 80%');
     expect(run.stdout).toMatch(/tip-added\s+primary \(2-sided\)\s+6\.00% → 6\.90% \(\+15% relative, \+0\.90 pp\)/);
     expect(run.stdout).toContain('tip-added: 2 treatment arms against one control: α 0.025 per comparison (Bonferroni).');
-    expect(run.stdout).toContain('tip-added: Interim looks: maximum sample ×1.01 to keep the planned power.');
+    expect(run.stdout).toContain('tip-added: Interim looks (obrien-fleming-spending, 3 analyses): maximum sample ×1.01 to keep the planned power; stop at |z| ≥ ');
   });
 
   it('sizes by file path and reports exposure dilution in days', () => {
@@ -40,7 +40,7 @@ describe('plumbline size', () => {
     const mean = runCli(['size', '--kind', 'mean', '--baseline', '42.5', '--sd', '30', '--effect', '0.02', '--daily-units', '3000', '--interim-looks', '2', '--boundary', 'pocock']);
     expect(mean.status).toBe(0);
     expect(mean.stdout).toMatch(/42\.5 → 43\.35 \(\+2% relative, \+0\.85\)/);
-    expect(mean.stdout).toMatch(/Interim looks: maximum sample ×1\.1\d/);
+    expect(mean.stdout).toMatch(/Interim looks \(pocock, 3 analyses\): maximum sample ×1\.1\d/);
     const ratio = runCli(['size', '--kind', 'ratio', '--numerator', '0.9,1.4', '--denominator', '3.2,2.5', '--correlation', '0.55', '--effect', '0.05', '--cluster-size', '4', '--icc', '0.1']);
     expect(ratio.status).toBe(0);
     expect(ratio.stdout).toContain('design effect ×1.30 on units');

@@ -58,7 +58,11 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
   if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: α ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
   if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== undefined ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ''}.`);
   if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (m.sequential > 1) out.push(`Interim looks: maximum sample ${formatMultiplier(m.sequential)} to keep the planned power.`);
+  if (sizing.boundaries) {
+    const z = sizing.boundaries.z.map((v) => v.toFixed(3)).join(', ');
+    const p = sizing.boundaries.nominalP.map((v) => (v < 0.001 ? v.toExponential(1) : v.toFixed(4))).join(', ');
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| ≥ ${z} (nominal p ${p}).`);
+  }
   if (sizing.diluted && sizing.triggered) {
     const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : '';
     out.push(

@@ -31,6 +31,7 @@ const sizeResult = z.union([
         dilutionUnits: z.number(),
         dilutionDays: z.number(),
       }),
+      boundaries: z.object({ kind: z.enum(['obrien-fleming-spending', 'pocock-spending', 'obrien-fleming', 'pocock']), z: z.array(z.number()), nominalP: z.array(z.number()) }).optional(),
       triggered: analysisSize.optional(),
       diluted: analysisSize.optional(),
       headline: analysisSize.optional(),

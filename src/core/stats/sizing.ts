@@ -80,6 +80,8 @@ export interface MetricSizing {
   /** The effect sized for, among units that reach the change. */
   effect?: { absolute: number; relative: number; from: number; to: number };
   multipliers: Multipliers;
+  /** With interim looks: the critical |z| and nominal p-value at each analysis, in order. */
+  boundaries?: { kind: BoundaryKind; z: number[]; nominalP: number[] };
   /** Analysis of the units that reach the change (exposure logged where the change is). */
   triggered?: AnalysisSize;
   /** Analysis of every exposed unit, as logged; present when reach < 1. */
@@ -188,8 +190,9 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   const sequential =
     request.interimLooks > 0
       ? sequentialInflation({ kind: request.boundary, looks: request.interimLooks + 1, alpha: alphaPerComparison, sides: request.sides }, request.power)
-      : ok({ inflation: 1 });
+      : ok({ inflation: 1, boundaries: undefined });
   if (!sequential.ok) return sequential;
+  const boundaries = sequential.value.boundaries;
   const de = request.cluster ? designEffect(request.cluster.meanSize, request.cluster.icc, request.cluster.sizeCv) : 1;
   const vr = varianceReduction(request.prePeriodCorrelation);
   const inflate = de * vr * sequential.value.inflation;
@@ -327,6 +330,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
       dilutionUnits,
       dilutionDays,
     },
+    ...(boundaries ? { boundaries: { kind: request.boundary, z: boundaries.z, nominalP: boundaries.nominalP } } : {}),
     ...(triggered ? { triggered } : {}),
     ...(diluted ? { diluted } : {}),
     ...(headline ? { headline } : {}),

@@ -39050,6 +39050,10 @@ function parseUnifiedDiff(text2) {
     }
     if (raw.startsWith("+")) current.added.push({ line: newLine++, text: raw.slice(1) });
     else if (raw.startsWith("-")) current.removed.push({ line: oldLine++, text: raw.slice(1) });
+    else if (raw.startsWith(" ")) {
+      oldLine++;
+      newLine++;
+    }
   }
   return files.filter((f) => f.path !== "");
 }

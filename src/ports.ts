@@ -39,3 +39,31 @@ export interface ChangeSource {
 
 /** Reports progress of long work; the CLI draws it only on a terminal. */
 export type ProgressReporter = (done: number, total: number, what: string) => void;
+
+/** A comment on an issue or pull request, as the review needs it. */
+export interface IssueComment {
+  id: number;
+  body: string;
+  author: string;
+  createdAt: string;
+}
+
+/** A file of a pull request as GitHub's files API lists it (`patch` is absent for binary or huge diffs). */
+export interface PullRequestFile {
+  path: string;
+  status: 'added' | 'modified' | 'removed' | 'renamed' | 'copied' | 'changed' | 'unchanged';
+  previousPath?: string;
+  patch?: string;
+}
+
+/** The GitHub operations Plumbline needs, shaped by its needs rather than by the REST API. */
+export interface GitHubPort {
+  /** Every comment of the issue or pull request, across all pages. */
+  listComments(issue: number): Promise<IssueComment[]>;
+  createComment(issue: number, body: string): Promise<IssueComment>;
+  updateComment(id: number, body: string): Promise<void>;
+  /** Deleting a comment that is already gone is not an error. */
+  deleteComment(id: number): Promise<void>;
+  /** The pull request's files, 100 a page; `capped` when GitHub's 3,000-file limit cut the list. */
+  listPullRequestFiles(pullRequest: number): Promise<{ files: PullRequestFile[]; capped: boolean }>;
+}

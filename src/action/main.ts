@@ -1,39 +1,48 @@
+import { join } from 'node:path';
 import * as core from '@actions/core';
-import { createRepoFiles } from '../adapters/files.js';
-import { renderValidationText } from '../core/report/validation.js';
-import { formatProblem } from '../core/source/problem.js';
-import { BUG_REPORT_HINT } from '../errors.js';
-import { validateRepository } from '../run/validate.js';
+import * as github from '@actions/github';
+import { writeFileAtomic } from '../adapters/files.js';
+import { createGitHub } from '../adapters/github.js';
+import { reviewJson } from '../core/review/report-schema.js';
+import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
+import { reviewPullRequest, type PullRequestEvent } from '../run/action-review.js';
+import { annotationsFor, pullRequestEvent, shouldFail } from './effects.js';
+import { readActionSettings } from './settings.js';
 
-/**
- * The Action entry point. For now it validates the repository's plans: problems become
- * annotations at their file and line, the summary lists them, and errors fail the job.
- */
+/** The Action: inputs -> settings -> review -> comment, annotations, summary, outputs, exit status. */
 async function main(): Promise<void> {
-  const settingsPath = core.getInput('config') || undefined;
-  const root = process.env.GITHUB_WORKSPACE ?? process.cwd();
-  const outcome = await validateRepository({ files: createRepoFiles(root), ...(settingsPath ? { settingsPath } : {}) });
-  if (outcome.kind === 'settings-invalid') {
-    for (const p of outcome.problems) core.error(p.message, { file: p.file, startLine: p.line, startColumn: p.column, title: p.field });
-    core.setFailed(`The settings file ${outcome.settingsFile} has errors; fix them and run again.`);
+  const settings = readActionSettings((name) => core.getInput(name));
+  const { context } = github;
+  const mode = settings.mode === 'auto' ? (context.eventName.startsWith('pull_request') ? 'review' : 'digest') : settings.mode;
+  if (mode === 'digest') {
+    core.warning('The weekly digest is not available in this version of Plumbline yet; nothing was published.');
     return;
   }
-  const { report } = outcome;
-  for (const p of report.problems) {
-    const annotate = p.severity === 'error' ? core.error : core.warning;
-    annotate(formatProblem(p), { file: p.file, startLine: p.line, startColumn: p.column, title: `plumbline ${p.code}` });
-  }
-  core.setOutput('errors', report.errors);
-  core.setOutput('warnings', report.warnings);
-  await core.summary.addHeading('Plumbline: plan validation', 3).addCodeBlock(escapeHtml(renderValidationText(report, { color: false }))).write();
-  if (report.errors > 0) core.setFailed(`${report.errors} error(s) in plan files.`);
-}
+  const event: PullRequestEvent | undefined = pullRequestEvent(context);
+  if (!event) throw new UsageError(`mode review needs a pull_request event; this run was started by ${context.eventName}`, 'run the review on: pull_request, or set mode: digest');
+  const port = createGitHub({ token: settings.token, owner: context.repo.owner, repo: context.repo.repo, baseUrl: context.apiUrl, requestBudget: settings['request-budget'] });
+  const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
+  const result = await reviewPullRequest({ event, github: port, workspace, comment: settings.comment, botLogin: settings['bot-login'], ...(settings.config ? { settingsPath: settings.config } : {}) });
+  if ('settingsProblems' in result) throw new UsageError(`the settings file has errors:\n${result.settingsProblems}`, 'run plumbline validate locally');
 
-/** Plan text reaches the job summary, which GitHub renders as HTML. */
-function escapeHtml(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+  for (const notice of result.notices) core.notice(notice);
+  if (result.commentProblem) core.warning(result.commentProblem);
+  for (const a of annotationsFor(result.review)) core[a.kind](a.message, a.properties);
+  const reportPath = join(process.env.RUNNER_TEMP ?? workspace, 'plumbline-review.json');
+  await writeFileAtomic(reportPath, `${JSON.stringify(reviewJson(result.review), null, 2)}\n`, { overwrite: true });
+  core.setOutput('verdict', result.review.verdict);
+  core.setOutput('blocking', result.review.counts.block);
+  core.setOutput('warnings', result.review.counts.warn);
+  core.setOutput('notes', result.review.counts.note);
+  core.setOutput('report', reportPath);
+  await core.summary.addRaw(result.markdown).write();
+  if (shouldFail(result.review, settings['fail-on'])) core.setFailed(`Plumbline: ${result.review.counts.block} blocking finding(s); see the summary or the pull-request comment.`);
 }
 
 main().catch((error: unknown) => {
+  if (error instanceof UsageError || error instanceof ExternalError) {
+    core.setFailed(`${error.message}${error.hint ? ` (${error.hint})` : ''}`);
+    return;
+  }
   core.setFailed(`internal error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n${BUG_REPORT_HINT}`);
 });

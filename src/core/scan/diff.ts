@@ -87,6 +87,11 @@ export function parseUnifiedDiff(text: string): FileDiff[] {
     }
     if (raw.startsWith('+')) current.added.push({ line: newLine++, text: raw.slice(1) });
     else if (raw.startsWith('-')) current.removed.push({ line: oldLine++, text: raw.slice(1) });
+    else if (raw.startsWith(' ')) {
+      // A context line (patches from GitHub's API carry three around each change).
+      oldLine++;
+      newLine++;
+    }
   }
   return files.filter((f) => f.path !== '');
 }

@@ -1,0 +1,118 @@
+import { getOctokit } from '@actions/github';
+import { retry } from '@octokit/plugin-retry';
+import { throttling } from '@octokit/plugin-throttling';
+import { ExternalError } from '../errors.js';
+import type { GitHubPort, IssueComment, PullRequestFile } from '../ports.js';
+
+/** A GitHub API failure with its HTTP status, so callers can tell a read-only token (403) from the rest. */
+export class GitHubError extends ExternalError {
+  constructor(
+    message: string,
+    readonly status: number | undefined,
+    hint?: string,
+    options?: { cause?: unknown },
+  ) {
+    super(message, hint, options);
+  }
+}
+
+export interface GitHubOptions {
+  token: string;
+  owner: string;
+  repo: string;
+  /** API root, e.g. https://api.github.com or a GitHub Enterprise Server's /api/v3. */
+  baseUrl: string;
+  /** Most requests one run may make; beyond it every request fails (a runaway loop costs no rate limit). */
+  requestBudget: number;
+  /** How often to retry on a rate limit before giving up. */
+  rateLimitRetries?: number;
+}
+
+/** GitHub's files API stops listing a pull request's files after this many. */
+export const PULL_REQUEST_FILES_CAP = 3000;
+
+const HINTS: Record<number, string> = {
+  401: 'the token is not valid: check the token input',
+  403: 'the token lacks a permission: the workflow needs `permissions: pull-requests: write` (a pull request from a fork only ever gets a read-only token)',
+  404: 'the repository or pull request was not found with this token',
+  422: 'GitHub refused the request body',
+};
+
+/**
+ * GitHubPort over Octokit with the retry plugin (network errors and 5xx, never other 4xx) and the
+ * throttling plugin (waits out primary and secondary rate limits, honouring retry-after).
+ */
+export function createGitHub(options: GitHubOptions): GitHubPort {
+  let requests = 0;
+  const retries = options.rateLimitRetries ?? 2;
+  const octokit = getOctokit(
+    options.token,
+    {
+      baseUrl: options.baseUrl,
+      request: { retries: 2 },
+      throttle: {
+        onRateLimit: (_after: number, _options: unknown, _octokit: unknown, retryCount: number) => retryCount < retries,
+        onSecondaryRateLimit: (_after: number, _options: unknown, _octokit: unknown, retryCount: number) => retryCount < retries,
+      },
+    },
+    retry,
+    throttling,
+  );
+  octokit.hook.before('request', () => {
+    requests++;
+    if (requests > options.requestBudget) {
+      throw new GitHubError(`this run has used its budget of ${options.requestBudget} GitHub requests`, undefined, 'raise the request-budget input if the repository really needs more');
+    }
+  });
+  const repo = { owner: options.owner, repo: options.repo };
+
+  const wrap = async <T>(what: string, run: () => Promise<T>): Promise<T> => {
+    try {
+      return await run();
+    } catch (error) {
+      if (error instanceof GitHubError) throw error;
+      const status = typeof error === 'object' && error !== null && 'status' in error ? Number((error as { status: unknown }).status) : undefined;
+      const message = error instanceof Error ? error.message : String(error);
+      throw new GitHubError(`GitHub: ${what} failed${status ? ` (HTTP ${status})` : ''}: ${message}`, status, status ? HINTS[status] : undefined, { cause: error });
+    }
+  };
+
+  const toComment = (c: { id: number; body?: string | null; user?: { login: string } | null; created_at: string }): IssueComment => ({
+    id: c.id,
+    body: c.body ?? '',
+    author: c.user?.login ?? '',
+    createdAt: c.created_at,
+  });
+
+  return {
+    listComments: (issue) =>
+      wrap('listing comments', async () => {
+        const all = await octokit.paginate(octokit.rest.issues.listComments, { ...repo, issue_number: issue, per_page: 100 });
+        return all.map(toComment);
+      }),
+    createComment: (issue, body) => wrap('creating a comment', async () => toComment((await octokit.rest.issues.createComment({ ...repo, issue_number: issue, body })).data)),
+    updateComment: (id, body) =>
+      wrap('updating a comment', async () => {
+        await octokit.rest.issues.updateComment({ ...repo, comment_id: id, body });
+      }),
+    deleteComment: (id) =>
+      wrap('deleting a comment', async () => {
+        try {
+          await octokit.rest.issues.deleteComment({ ...repo, comment_id: id });
+        } catch (error) {
+          if ((error as { status?: number }).status !== 404) throw error;
+        }
+      }),
+    listPullRequestFiles: (pullRequest) =>
+      wrap('listing pull-request files', async () => {
+        const all = await octokit.paginate(octokit.rest.pulls.listFiles, { ...repo, pull_number: pullRequest, per_page: 100 });
+        const files: PullRequestFile[] = all.map((f) => ({
+          path: f.filename,
+          status: f.status,
+          ...(f.previous_filename ? { previousPath: f.previous_filename } : {}),
+          ...(f.patch ? { patch: f.patch } : {}),
+        }));
+        return { files, capped: files.length >= PULL_REQUEST_FILES_CAP };
+      }),
+  };
+}

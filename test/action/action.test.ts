@@ -1,0 +1,134 @@
+import { execFileSync } from 'node:child_process';
+import { rmSync } from 'node:fs';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
+import { startFakeGitHub, type FakeGitHub } from '../helpers/fake-github.js';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
+import { pullRequestEvent, runAction } from './run-action.js';
+
+const made: string[] = [];
+const servers: FakeGitHub[] = [];
+afterEach(async () => {
+  for (const s of servers.splice(0)) await s.close();
+});
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+
+async function setup(changes: Record<string, string | null>, modes = {}) {
+  const repo = makeTwoCommitRepo(baseFiles(), changes);
+  made.push(repo.root);
+  const github = await startFakeGitHub({ modes });
+  servers.push(github);
+  const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 7, base: repo.base, head: repo.head });
+  return { repo, github, event };
+}
+
+const blockingChange = { 'experiments/good.yaml': planYaml(cleanPlan({ decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED };
+const MARKER = '<!-- plumbline:review -->';
+
+describe('the bundled Action against a fake GitHub', () => {
+  it('creates the comment on the first run and updates it in place on the next', async () => {
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
+    const first = await runAction({ github, workspace: repo.root, event });
+    expect(first.status, first.stdout).toBe(0);
+    expect(github.comments(7)).toHaveLength(1);
+    expect(github.comments(7)[0]!.body.startsWith(MARKER)).toBe(true);
+    expect(first.outputs).toMatchObject({ verdict: 'clear', blocking: '0', warnings: '0' });
+    expect(first.summary).toContain('Plumbline: all clear');
+    const id = github.comments(7)[0]!.id;
+    const second = await runAction({ github, workspace: repo.root, event });
+    expect(second.status).toBe(0);
+    expect(github.comments(7).map((c) => c.id)).toEqual([id]);
+    // Updated in place: one comment ever created, then edited; nothing deleted.
+    const ops = github.requests.map((r) => r.operation ?? '');
+    expect(ops.filter((o) => o.startsWith('POST ') && o.endsWith('/comments'))).toHaveLength(1);
+    expect(ops.filter((o) => o.startsWith('DELETE '))).toHaveLength(0);
+    expect(github.refused).toEqual([]);
+  });
+
+  it('fails on a blocking plan, with annotations at the plan file', async () => {
+    const { repo, github, event } = await setup(blockingChange);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status).toBe(1);
+    expect(run.stdout).toMatch(/::error title=Plumbline decisions-missing,file=experiments\/good\.yaml,line=1::No decision rule for flat, loss, guardrail-breach/);
+    expect(run.outputs.verdict).toBe('blocked');
+    expect(github.comments(7)[0]!.body).toContain('⛔ Plumbline: blocked');
+    expect(github.refused).toEqual([]);
+  });
+
+  it('leaves one comment when two runs race', async () => {
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
+    await Promise.all([runAction({ github, workspace: repo.root, event }), runAction({ github, workspace: repo.root, event })]);
+    expect(github.comments(7)).toHaveLength(1);
+    expect(github.refused).toEqual([]);
+  });
+
+  it('keeps the oldest of duplicate comments and ignores comments by people that quote the marker', async () => {
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
+    github.addComment(7, `${MARKER}\nold copy`, 'github-actions[bot]');
+    github.addComment(7, `${MARKER}\nnewer copy`, 'github-actions[bot]');
+    github.addComment(7, `${MARKER}\nsomeone quoting it`, 'ana-lima');
+    const oldest = github.comments(7)[0]!.id;
+    await runAction({ github, workspace: repo.root, event });
+    const left = github.comments(7);
+    expect(left.map((c) => c.id)).toContain(oldest);
+    expect(left.filter((c) => c.login === 'github-actions[bot]')).toHaveLength(1);
+    expect(left.find((c) => c.login === 'ana-lima')).toBeDefined();
+  });
+
+  it('reads every page of comments to find its own', async () => {
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
+    for (let i = 0; i < 250; i++) github.addComment(7, `chatter ${i}`, 'someone');
+    github.addComment(7, `${MARKER}\nmine, on page 3`, 'github-actions[bot]');
+    await runAction({ github, workspace: repo.root, event });
+    const ours = github.comments(7).filter((c) => c.body.startsWith(MARKER));
+    expect(ours).toHaveLength(1);
+    expect(ours[0]!.body).toContain('Plumbline: all clear');
+    expect(github.requests.filter((r) => r.operation?.startsWith('GET') && r.path.includes('/comments')).length).toBeGreaterThanOrEqual(3);
+  });
+
+  it('says there is nothing left to check when a later push removes every flag change', async () => {
+    const { repo, github, event } = await setup({ 'README.md': 'docs only\n' });
+    github.addComment(7, `${MARKER}\n### ⛔ Plumbline: blocked`, 'github-actions[bot]');
+    await runAction({ github, workspace: repo.root, event });
+    expect(github.comments(7)[0]!.body).toContain('Plumbline: nothing to check');
+  });
+
+  it('degrades on a read-only token: summary and annotations, one warning naming the permission, exit on findings alone', async () => {
+    const { repo, github, event } = await setup(blockingChange, { readOnly: true });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status).toBe(1);
+    expect(run.stdout.match(/::warning::/g)).toHaveLength(1);
+    expect(run.stdout).toContain('pull-requests: write');
+    expect(run.summary).toContain('Plumbline: blocked');
+    expect(github.comments(7)).toHaveLength(0);
+  });
+
+  it('waits out a secondary rate limit with retry-after', async () => {
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED }, { secondaryRateLimits: 1 });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    expect(github.comments(7)).toHaveLength(1);
+  });
+
+  it('uses the pull-request files API when no git history is there', async () => {
+    const { repo, github, event } = await setup({ 'src/new.ts': "client.getBooleanValue('api-flag', false);\n" });
+    rmSync(`${repo.root}/.git`, { recursive: true, force: true });
+    github.setPullRequestFiles(7, [{ filename: 'src/new.ts', status: 'added', patch: "@@ -0,0 +1 @@\n+client.getBooleanValue('api-flag', false);" }]);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status).toBe(0);
+    expect(run.outputs.warnings).toBe('1');
+    expect(github.comments(7)[0]!.body).toContain('api-flag');
+    expect(github.requests.some((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toBe(true);
+  });
+
+  it('names the workflow fix for a bad input before doing any work', async () => {
+    const { repo, github, event } = await setup({});
+    const run = await runAction({ github, workspace: repo.root, event, inputs: { 'fail-on': 'sometimes' } });
+    expect(run.status).toBe(1);
+    expect(run.stdout).toContain('input fail-on: fail-on must be block, warn or never');
+    expect(github.requests).toEqual([]);
+  });
+});
+
+// Keep git's identity out of the tests' way.
+execFileSync('git', ['--version']);

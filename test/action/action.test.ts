@@ -121,6 +121,26 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(github.requests.some((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toBe(true);
   });
 
+  it('keeps a huge review under the 65,536-character limit that GitHub enforces with 422', async () => {
+    const calls = Array.from({ length: 900 }, (_, i) => `client.getBooleanValue('unplanned-flag-${i}', false);`).join('\n');
+    const { repo, github, event } = await setup({ 'src/many.ts': `${calls}\n` }, { bodyLimit: 65536 });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const body = github.comments(7)[0]!.body;
+    expect(body.length).toBeLessThanOrEqual(65536);
+    expect(body).toContain("To fit GitHub's comment size limit");
+    expect(run.outputs.warnings).toBe('900');
+  });
+
+  it('says so when GitHub caps the file list at 3,000 and no git history is there', async () => {
+    const { repo, github, event } = await setup({ 'src/new.ts': "client.getBooleanValue('api-flag', false);\n" });
+    rmSync(`${repo.root}/.git`, { recursive: true, force: true });
+    github.setPullRequestFiles(7, Array.from({ length: 3100 }, (_, i) => ({ filename: `gen/file-${i}.ts`, status: 'added', patch: '@@ -0,0 +1 @@\n+export {};' })));
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.stdout).toMatch(/::notice::GitHub lists at most 3,000 files of a pull request/);
+    expect(github.requests.filter((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toHaveLength(30);
+  });
+
   it('names the workflow fix for a bad input before doing any work', async () => {
     const { repo, github, event } = await setup({});
     const run = await runAction({ github, workspace: repo.root, event, inputs: { 'fail-on': 'sometimes' } });

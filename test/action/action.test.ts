@@ -103,6 +103,38 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(github.comments(7)).toHaveLength(0);
   });
 
+  it('reviews a pull request from a fork with its read-only token', async () => {
+    const repo = makeTwoCommitRepo(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED });
+    made.push(repo.root);
+    const github = await startFakeGitHub({ modes: { readOnly: true } });
+    servers.push(github);
+    const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 9, base: repo.base, head: repo.head, headRepo: 'someone-else/shop' });
+    expect(event.pull_request.head.repo.full_name).not.toBe(event.repository.full_name);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status).toBe(0);
+    expect(run.outputs.verdict).toBe('clear');
+    expect(run.stdout).toContain('Resource not accessible by integration');
+    expect(github.refused).toEqual([]);
+  });
+
+  it.each([
+    ['workflow_dispatch', { inputs: {}, ref: 'refs/heads/main', repository: { full_name: 'bramblecart/shop' }, sender: { login: 'ana-lima' }, workflow: '.github/workflows/digest.yml' }],
+    ['schedule', { schedule: '0 7 * * 1' }],
+  ])('chooses the digest for a %s event and says it is not available yet, touching nothing', async (eventName, event) => {
+    const { repo, github } = await setup({});
+    const run = await runAction({ github, workspace: repo.root, event, eventName });
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('::warning::The weekly digest is not available in this version of Plumbline yet');
+    expect(github.requests).toEqual([]);
+  });
+
+  it('refuses mode review on an event without a pull request', async () => {
+    const { repo, github } = await setup({});
+    const run = await runAction({ github, workspace: repo.root, event: { schedule: '0 7 * * 1' }, eventName: 'schedule', inputs: { mode: 'review' } });
+    expect(run.status).toBe(1);
+    expect(run.stdout).toContain('mode review needs a pull_request event; this run was started by schedule');
+  });
+
   it('waits out a secondary rate limit with retry-after', async () => {
     const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED }, { secondaryRateLimits: 1 });
     const run = await runAction({ github, workspace: repo.root, event });

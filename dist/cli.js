@@ -16018,9 +16018,9 @@ var require_picomatch = __commonJS({
     var utils = require_utils();
     var constants = require_constants();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch4 = (glob, options, returnState = false) => {
+    var picomatch5 = (glob, options, returnState = false) => {
       if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch4(input2, options, returnState));
+        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
         const arrayMatcher = (str) => {
           for (const isMatch of fns) {
             const state2 = isMatch(str);
@@ -16036,16 +16036,16 @@ var require_picomatch = __commonJS({
       }
       const opts = options || {};
       const posix2 = opts.windows;
-      const regex = isState ? picomatch4.compileRe(glob, options) : picomatch4.makeRe(glob, options, false, true);
+      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
       const state = regex.state;
       delete regex.state;
       let isIgnored = () => false;
       if (opts.ignore) {
         const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch4(opts.ignore, ignoreOpts, returnState);
+        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
       }
       const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch4.test(input2, regex, options, { glob, posix: posix2 });
+        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
         const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
         if (typeof opts.onResult === "function") {
           opts.onResult(result);
@@ -16071,7 +16071,7 @@ var require_picomatch = __commonJS({
       }
       return matcher;
     };
-    picomatch4.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
+    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected input to be a string");
       }
@@ -16088,24 +16088,24 @@ var require_picomatch = __commonJS({
       }
       if (match === false || opts.capture === true) {
         if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch4.matchBase(input2, regex, options, posix2);
+          match = picomatch5.matchBase(input2, regex, options, posix2);
         } else {
           match = regex.exec(output2);
         }
       }
       return { isMatch: Boolean(match), match, output: output2 };
     };
-    picomatch4.matchBase = (input2, glob, options) => {
-      const regex = glob instanceof RegExp ? glob : picomatch4.makeRe(glob, options);
+    picomatch5.matchBase = (input2, glob, options) => {
+      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
       return regex.test(utils.basename(input2));
     };
-    picomatch4.isMatch = (str, patterns, options) => picomatch4(patterns, options)(str);
-    picomatch4.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch4.parse(p, options));
+    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
+    picomatch5.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
       return parse4(pattern, { ...options, fastpaths: false });
     };
-    picomatch4.scan = (input2, options) => scan(input2, options);
-    picomatch4.compileRe = (state, options, returnOutput = false, returnState = false) => {
+    picomatch5.scan = (input2, options) => scan(input2, options);
+    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
       if (returnOutput === true) {
         return state.output;
       }
@@ -16116,13 +16116,13 @@ var require_picomatch = __commonJS({
       if (state && state.negated === true) {
         source = `^(?!${source}).*$`;
       }
-      const regex = picomatch4.toRegex(source, options);
+      const regex = picomatch5.toRegex(source, options);
       if (returnState === true) {
         regex.state = state;
       }
       return regex;
     };
-    picomatch4.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
       if (!input2 || typeof input2 !== "string") {
         throw new TypeError("Expected a non-empty string");
       }
@@ -16133,9 +16133,9 @@ var require_picomatch = __commonJS({
       if (!parsed.output) {
         parsed = parse4(input2, options);
       }
-      return picomatch4.compileRe(parsed, options, returnOutput, returnState);
+      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
     };
-    picomatch4.toRegex = (source, options) => {
+    picomatch5.toRegex = (source, options) => {
       try {
         const opts = options || {};
         return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
@@ -16144,8 +16144,8 @@ var require_picomatch = __commonJS({
         return /$^/;
       }
     };
-    picomatch4.constants = constants;
-    module.exports = picomatch4;
+    picomatch5.constants = constants;
+    module.exports = picomatch5;
   }
 });
 
@@ -16155,14 +16155,14 @@ var require_picomatch2 = __commonJS({
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
-    function picomatch4(glob, options, returnState = false) {
+    function picomatch5(glob, options, returnState = false) {
       if (options && (options.windows === null || options.windows === void 0)) {
         options = { ...options, windows: utils.isWindows() };
       }
       return pico(glob, options, returnState);
     }
-    Object.assign(picomatch4, pico);
-    module.exports = picomatch4;
+    Object.assign(picomatch5, pico);
+    module.exports = picomatch5;
   }
 });
 
@@ -37003,6 +37003,16 @@ var callPattern = (group, example) => {
 };
 var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
+var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
+var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
+function isTimeZone(zone) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
 var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
 var writtenSettingsSchema = external_exports.strictObject(
   {
@@ -37020,6 +37030,43 @@ var writtenSettingsSchema = external_exports.strictObject(
       { error: "a mapping with include and exclude" }
     ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
     "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
+    "bug-fix": external_exports.strictObject(
+      {
+        enabled: external_exports.boolean({ error: "true or false" }).default(true),
+        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
+        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
+        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
+        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
+        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
+        guardrail: external_exports.strictObject(
+          {
+            name: text("a metric name, e.g. error-rate"),
+            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
+            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
+            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
+          },
+          { error: "a guardrail: { name, rate, events, direction }" }
+        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+      },
+      { error: "a mapping of bug-fix nudge settings" }
+    ).default({
+      enabled: true,
+      labels: DEFAULT_BUG_LABELS,
+      "title-prefixes": ["fix", "bugfix", "hotfix"],
+      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
+      "silence-label": "no-check-test",
+      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
+    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
+    digest: external_exports.strictObject(
+      {
+        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
+        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
+        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
+        label: text("the label of the digest issue").default("plumbline-digest")
+      },
+      { error: "a mapping of digest settings" }
+    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
     severity: external_exports.record(
       external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
       external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
@@ -37037,7 +37084,23 @@ var settingsSchema = writtenSettingsSchema.transform((w) => ({
   groupSurfaces: w["group-surfaces"],
   scan: w.scan,
   exemptFlags: w["exempt-flags"],
-  severity: w.severity
+  severity: w.severity,
+  bugFix: {
+    enabled: w["bug-fix"].enabled,
+    labels: w["bug-fix"].labels,
+    titlePrefixes: w["bug-fix"]["title-prefixes"],
+    branchPrefixes: w["bug-fix"]["branch-prefixes"],
+    silenceLabel: w["bug-fix"]["silence-label"],
+    nonProductPaths: w["bug-fix"]["non-product-paths"],
+    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
+    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  digest: {
+    timeZone: w.digest["time-zone"],
+    endingSoonDays: w.digest["ending-soon-days"],
+    onHoldDays: w.digest["on-hold-days"],
+    label: w.digest.label
+  }
 }));
 
 // src/core/config/load.ts
@@ -38515,7 +38578,7 @@ async function readWorkingTree(root, paths, onFile) {
 }
 
 // src/run/review-change.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
 
 // src/core/config/scan-files.ts
 var import_picomatch2 = __toESM(require_picomatch2(), 1);
@@ -38607,6 +38670,107 @@ var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, col
     line: linked.loaded.line
   };
 });
+
+// src/core/checks/bug-fix.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+function bugFixReason(pr, settings) {
+  const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
+  const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
+  if (label) return `it has the label ${label}`;
+  const title = pr.title ?? "";
+  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
+  if (prefix) return `its title starts with ${prefix}:`;
+  const branch = (pr.branch ?? "").toLowerCase();
+  const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
+  if (branchPrefix) return `its branch starts with ${branchPrefix}`;
+  return void 0;
+}
+function bugFixNudge(context2) {
+  const settings = context2.settings.bugFix;
+  if (!settings.enabled) return void 0;
+  const labels = (context2.pr.labels ?? []).map((l) => l.toLowerCase());
+  if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
+  const reason = bugFixReason(context2.pr, settings);
+  if (!reason || context2.touches.length > 0 || context2.linked.length > 0) return void 0;
+  const notProduct = (0, import_picomatch3.default)(settings.nonProductPaths, { dot: true });
+  const productFiles = context2.changedPaths.filter((p) => !notProduct(p));
+  if (productFiles.length === 0) return void 0;
+  const guardrail = settings.guardrail;
+  let sizingLine;
+  if (guardrail && settings.dailyUnits !== void 0) {
+    const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
+    const sized = sizeMetric({
+      baseline: { kind: "proportion", rate: guardrail.rate },
+      direction: harm,
+      effect: { relative: 0.01 },
+      arms: [
+        { name: "control", weight: 50 },
+        { name: "fix", weight: 50 }
+      ],
+      control: "control",
+      alpha: 0.05,
+      power: 0.8,
+      sides: 1,
+      dailyUnits: settings.dailyUnits,
+      trafficShare: 1,
+      reach: 1,
+      interimLooks: 0,
+      boundary: "obrien-fleming-spending",
+      prePeriodCorrelation: 0,
+      plannedDays: 14
+    });
+    if (sized.ok && sized.value.headline && sized.value.effect) {
+      const h = sized.value.headline;
+      const twoWeeks = sized.value.atPlannedEnd?.detectable;
+      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
+      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0].units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : "no duration"}, one-sided \u03B1 0.05, power 80%.${inTwoWeeks}`;
+    }
+  }
+  const slug = (context2.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
+  const g = guardrail ?? { name: "error-rate", rate: 0.01, events: ["error_shown"], direction: "decrease" };
+  const planStub = [
+    `id: check-${slug}`,
+    `title: "Check test: ${(context2.pr.title ?? "the fix").replace(/"/g, "'").slice(0, 80)}"`,
+    'owners: ["@your-handle"]',
+    `flags: [${slug}]`,
+    "state: draft",
+    "hypothesis:",
+    "  change: The fix, behind a flag, for half of the traffic.",
+    "  because: It should stop the bug without harming anything else.",
+    "  expected-direction: increase",
+    "unit: { randomization: user }",
+    "surface: { path: area/page }",
+    "metrics:",
+    "  primary:",
+    "    name: task-completed",
+    "    kind: proportion",
+    "    baseline: { rate: 0.5 }",
+    "    events: [task_completed]",
+    "  guardrails:",
+    `    - { name: ${g.name}, kind: proportion, baseline: { rate: ${g.rate} }, events: [${g.events.join(", ")}], direction: ${g.direction}, tolerance: { relative: 0.01 } }`,
+    "    - { name: latency, kind: mean, baseline: { mean: 300, sd: 150 }, events: [page_rendered], direction: decrease, tolerance: { relative: 0.02 } }",
+    "design:",
+    "  min-detectable-effect: { relative: 0.02 }",
+    `  daily-units: ${settings.dailyUnits ?? 1e4}`,
+    "decisions:",
+    "  win: Roll the fix out to everyone.",
+    "  flat: Roll it out; the bug is gone and nothing got worse.",
+    "  loss: Turn the flag off and look again at the fix.",
+    "  guardrail-breach: Turn the flag off at once."
+  ].join("\n");
+  return { reason, productFiles, planStub, ...sizingLine ? { sizingLine } : {} };
+}
+var bugFixUnmeasured = (context2) => {
+  const nudge = bugFixNudge(context2);
+  if (!nudge) return [];
+  return [
+    {
+      code: "bug-fix-unmeasured",
+      message: `This looks like a bug fix (${nudge.reason}) that changes product code without a flag: if the fix does not fix, or slows things down or raises errors, nobody will see it.`,
+      fix: `Ship it behind a flag with a small check test (a plan to paste is in the comment), or add the label ${context2.settings.bugFix.silenceLabel} to say no test is needed.`
+    }
+  ];
+};
 
 // src/core/checks/flags.ts
 var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
@@ -38850,7 +39014,8 @@ var CHECKS = [
   spillover,
   analysisUnitDiffers,
   collisionCheck,
-  eventMissing
+  eventMissing,
+  bugFixUnmeasured
 ];
 
 // src/core/review/finding.ts
@@ -38877,7 +39042,8 @@ var FINDING_CODES = {
   "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
-  "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" }
+  "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
+  "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
 
@@ -38959,7 +39125,8 @@ function buildReview(context2, change2) {
   }));
   const nothing = context2.touches.length === 0 && context2.linked.length === 0 && context2.invalidPlanFiles.length === 0 && findings.length === 0;
   const verdict = nothing ? "nothing-to-check" : counts.block ? "blocked" : counts.warn ? "warnings" : "clear";
-  return { verdict, counts, base: change2.base, head: change2.head, findings, plans, flags, collisions };
+  const nudge = findings.some((f) => f.code === "bug-fix-unmeasured") ? bugFixNudge(context2) : void 0;
+  return { verdict, counts, base: change2.base, head: change2.head, findings, plans, flags, collisions, ...nudge ? { nudge } : {} };
 }
 
 // src/core/review/link-plans.ts
@@ -39325,7 +39492,7 @@ async function reviewChange(options) {
   const basePaths = textual.map((d) => d.previousPath ?? d.path);
   const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change2.filesAt("base").readTexts(basePaths)]);
   const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
-  const isFlagFile = (0, import_picomatch3.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const isFlagFile = (0, import_picomatch4.default)(DEFAULT_FLAG_FILES, { dot: true });
   const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
   const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
@@ -39371,7 +39538,7 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();
@@ -39470,6 +39637,23 @@ function render(review, options, detail, omitted) {
     out.push("");
   }
   for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
+  if (review.nudge) {
+    out.push(
+      "#### A small check test for this fix?",
+      "",
+      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
+      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      "",
+      "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
+      "",
+      "```yaml",
+      review.nudge.planStub.replace(/```/g, "'''"),
+      "```",
+      "",
+      "</details>",
+      ""
+    );
+  }
   if (review.collisions.length) {
     out.push(
       "#### Running tests on the same surface",
@@ -39666,7 +39850,8 @@ var reviewReportSchema = external_exports.object({
       trafficShare: external_exports.number(),
       known: external_exports.boolean()
     })
-  )
+  ),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
 function reviewJson(review) {

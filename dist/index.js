@@ -22616,9 +22616,9 @@ var require_picomatch = __commonJS({
     var utils = require_utils2();
     var constants3 = require_constants6();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch4 = (glob, options, returnState = false) => {
+    var picomatch5 = (glob, options, returnState = false) => {
       if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch4(input2, options, returnState));
+        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
         const arrayMatcher = (str) => {
           for (const isMatch of fns) {
             const state2 = isMatch(str);
@@ -22634,16 +22634,16 @@ var require_picomatch = __commonJS({
       }
       const opts = options || {};
       const posix = opts.windows;
-      const regex2 = isState ? picomatch4.compileRe(glob, options) : picomatch4.makeRe(glob, options, false, true);
+      const regex2 = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
       const state = regex2.state;
       delete regex2.state;
       let isIgnored = () => false;
       if (opts.ignore) {
         const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch4(opts.ignore, ignoreOpts, returnState);
+        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
       }
       const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch4.test(input2, regex2, options, { glob, posix });
+        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex2, options, { glob, posix });
         const result = { glob, state, regex: regex2, posix, input: input2, output: output2, match, isMatch };
         if (typeof opts.onResult === "function") {
           opts.onResult(result);
@@ -22669,7 +22669,7 @@ var require_picomatch = __commonJS({
       }
       return matcher;
     };
-    picomatch4.test = (input2, regex2, options, { glob, posix } = {}) => {
+    picomatch5.test = (input2, regex2, options, { glob, posix } = {}) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected input to be a string");
       }
@@ -22686,24 +22686,24 @@ var require_picomatch = __commonJS({
       }
       if (match === false || opts.capture === true) {
         if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch4.matchBase(input2, regex2, options, posix);
+          match = picomatch5.matchBase(input2, regex2, options, posix);
         } else {
           match = regex2.exec(output2);
         }
       }
       return { isMatch: Boolean(match), match, output: output2 };
     };
-    picomatch4.matchBase = (input2, glob, options) => {
-      const regex2 = glob instanceof RegExp ? glob : picomatch4.makeRe(glob, options);
+    picomatch5.matchBase = (input2, glob, options) => {
+      const regex2 = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
       return regex2.test(utils.basename(input2));
     };
-    picomatch4.isMatch = (str, patterns, options) => picomatch4(patterns, options)(str);
-    picomatch4.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch4.parse(p, options));
+    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
+    picomatch5.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
       return parse6(pattern, { ...options, fastpaths: false });
     };
-    picomatch4.scan = (input2, options) => scan(input2, options);
-    picomatch4.compileRe = (state, options, returnOutput = false, returnState = false) => {
+    picomatch5.scan = (input2, options) => scan(input2, options);
+    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
       if (returnOutput === true) {
         return state.output;
       }
@@ -22714,13 +22714,13 @@ var require_picomatch = __commonJS({
       if (state && state.negated === true) {
         source = `^(?!${source}).*$`;
       }
-      const regex2 = picomatch4.toRegex(source, options);
+      const regex2 = picomatch5.toRegex(source, options);
       if (returnState === true) {
         regex2.state = state;
       }
       return regex2;
     };
-    picomatch4.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
       if (!input2 || typeof input2 !== "string") {
         throw new TypeError("Expected a non-empty string");
       }
@@ -22731,9 +22731,9 @@ var require_picomatch = __commonJS({
       if (!parsed.output) {
         parsed = parse6(input2, options);
       }
-      return picomatch4.compileRe(parsed, options, returnOutput, returnState);
+      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
     };
-    picomatch4.toRegex = (source, options) => {
+    picomatch5.toRegex = (source, options) => {
       try {
         const opts = options || {};
         return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
@@ -22742,8 +22742,8 @@ var require_picomatch = __commonJS({
         return /$^/;
       }
     };
-    picomatch4.constants = constants3;
-    module.exports = picomatch4;
+    picomatch5.constants = constants3;
+    module.exports = picomatch5;
   }
 });
 
@@ -22753,14 +22753,14 @@ var require_picomatch2 = __commonJS({
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils2();
-    function picomatch4(glob, options, returnState = false) {
+    function picomatch5(glob, options, returnState = false) {
       if (options && (options.windows === null || options.windows === void 0)) {
         options = { ...options, windows: utils.isWindows() };
       }
       return pico(glob, options, returnState);
     }
-    Object.assign(picomatch4, pico);
-    module.exports = picomatch4;
+    Object.assign(picomatch5, pico);
+    module.exports = picomatch5;
   }
 });
 
@@ -60693,7 +60693,8 @@ var reviewReportSchema = external_exports.object({
       trafficShare: external_exports.number(),
       known: external_exports.boolean()
     })
-  )
+  ),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
 function reviewJson(review) {
@@ -61143,6 +61144,23 @@ function render(review, options, detail, omitted) {
     out.push("");
   }
   for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
+  if (review.nudge) {
+    out.push(
+      "#### A small check test for this fix?",
+      "",
+      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
+      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      "",
+      "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
+      "",
+      "```yaml",
+      review.nudge.planStub.replace(/```/g, "'''"),
+      "```",
+      "",
+      "</details>",
+      ""
+    );
+  }
   if (review.collisions.length) {
     out.push(
       "#### Running tests on the same surface",
@@ -61193,7 +61211,7 @@ The full review does not fit in a comment${options.fullReport ? `; see ${options
 }
 
 // src/run/review-change.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
 
 // src/core/config/scan-files.ts
 var import_picomatch = __toESM(require_picomatch2(), 1);
@@ -61931,6 +61949,455 @@ var collisionCheck = (context3) => collisionsOfLinked(context3).map(({ plan, col
   };
 });
 
+// src/core/checks/bug-fix.ts
+var import_picomatch2 = __toESM(require_picomatch2(), 1);
+
+// src/core/stats/adjustments.ts
+function designEffect(meanSize, icc, sizeCv = 0) {
+  return Math.max(1, 1 + ((sizeCv * sizeCv + 1) * meanSize - 1) * icc);
+}
+function varianceReduction(rho) {
+  return 1 - rho * rho;
+}
+function bonferroniAlpha(alpha, comparisons) {
+  return alpha / Math.max(1, comparisons);
+}
+
+// src/core/stats/duration.ts
+function durationFor(unitsNeeded, unitsPerDay) {
+  if (!(unitsPerDay > 0) || !Number.isFinite(unitsNeeded) || !Number.isFinite(unitsPerDay)) return void 0;
+  const days = Math.max(1, Math.ceil(unitsNeeded / unitsPerDay - 1e-9));
+  return { days, weeks: Math.ceil(days / 7) };
+}
+
+// src/core/stats/inputs.ts
+function checkSettings(settings, power) {
+  if (!(settings.alpha > 0 && settings.alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${settings.alpha}`);
+  if (settings.sides !== 1 && settings.sides !== 2) return fail("sides", "a test is one-sided (1) or two-sided (2)");
+  if (!(settings.ratio > 0 && Number.isFinite(settings.ratio))) return fail("ratio", `the allocation ratio must be above 0; got ${settings.ratio}`);
+  if (power !== void 0) {
+    if (!(power > 0 && power < 1)) return fail("power", `power must be strictly between 0 and 1; got ${power}`);
+    if (power <= settings.alpha) return fail("power", `power (${power}) must exceed the significance level (${settings.alpha}): a test cannot be likelier to detect an effect than to raise a false alarm`);
+  }
+  return void 0;
+}
+function upperQuantileLevel(settings) {
+  return 1 - settings.alpha / settings.sides;
+}
+
+// src/core/stats/mean.ts
+function minimumControlUnits(ratio) {
+  return 2.01 / (1 + ratio);
+}
+function checkMoments(delta, sd) {
+  if (!(sd > 0 && Number.isFinite(sd))) return fail("baseline.sd", `the standard deviation must be above 0; got ${sd}`);
+  if (!Number.isFinite(delta) || delta === 0) return fail("effect", "the effect is zero: there is nothing to detect");
+  return void 0;
+}
+function powerUnchecked(test, n1) {
+  const n2 = test.ratio * n1;
+  const standardError = test.sd * Math.sqrt(1 / n1 + 1 / n2);
+  const shift = Math.abs(test.delta) / standardError;
+  const level = upperQuantileLevel(test);
+  if (test.method === "normal") return normalCdf(shift - normalQuantile(level));
+  const df = n1 + n2 - 2;
+  return noncentralTUpper(studentQuantile(level, df), df, shift);
+}
+function meanPower(test, n1) {
+  const problem = checkSettings(test) ?? checkMoments(test.delta, test.sd);
+  if (problem) return problem;
+  if (!(n1 >= minimumControlUnits(test.ratio))) return fail("n", `at least ${minimumControlUnits(test.ratio)} control units are needed for a t test; got ${n1}`);
+  return finite(powerUnchecked(test, n1), "n", "power");
+}
+function meanSampleSize(test, power) {
+  const problem = checkSettings(test, power) ?? checkMoments(test.delta, test.sd);
+  if (problem) return problem;
+  const z2 = normalQuantile(upperQuantileLevel(test)) + normalQuantile(power);
+  const normal = (test.sd * z2 / test.delta) ** 2 * (1 + 1 / test.ratio);
+  if (test.method === "normal") return finite(normal, "effect", "the sample size");
+  const min = minimumControlUnits(test.ratio);
+  if (powerUnchecked(test, min) >= power) return ok(min);
+  const n1 = solveIncreasing((n) => powerUnchecked(test, n), power, Math.max(normal, min), min, 1e12, 1e-12);
+  return n1 === void 0 ? fail("effect", "the sample size cannot be computed for these inputs") : ok(n1);
+}
+function meanDetectable(settings, n1, power) {
+  const problem = checkSettings(settings, power) ?? checkMoments(1, settings.sd);
+  if (problem) return problem;
+  if (!(n1 >= minimumControlUnits(settings.ratio))) return fail("n", `at least ${minimumControlUnits(settings.ratio)} control units are needed; got ${n1}`);
+  const z2 = normalQuantile(upperQuantileLevel(settings)) + normalQuantile(power);
+  const guess = settings.sd * z2 * Math.sqrt(1 / n1 + 1 / (settings.ratio * n1));
+  if (settings.method === "normal") return finite(guess, "n", "the detectable effect");
+  const delta = solveIncreasing((d) => powerUnchecked({ ...settings, delta: d }, n1), power, guess, 1e-300, 1e300, 1e-12);
+  return delta === void 0 ? fail("n", "the detectable effect cannot be computed for these inputs") : ok(delta);
+}
+
+// src/core/stats/proportion.ts
+function checkRates(p1, p2) {
+  if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
+  if (!(p2 > 0 && p2 < 1)) return fail("effect", `the effect takes the rate from ${p1} to ${p2}, outside (0, 1)`);
+  if (p1 === p2) return fail("effect", "the effect is zero: there is nothing to detect");
+  return void 0;
+}
+function unitErrors(test) {
+  const { p1, p2, ratio } = test;
+  const pooled = (p1 + ratio * p2) / (1 + ratio);
+  return {
+    null0: Math.sqrt(pooled * (1 - pooled) * (1 + 1 / ratio)),
+    alt1: Math.sqrt(p1 * (1 - p1) + p2 * (1 - p2) / ratio)
+  };
+}
+function powerUnchecked2(test, n1) {
+  const z2 = normalQuantile(upperQuantileLevel(test));
+  const { null0, alt1 } = unitErrors(test);
+  return normalCdf((Math.sqrt(n1) * Math.abs(test.p2 - test.p1) - z2 * null0) / alt1);
+}
+function proportionPower(test, n1) {
+  const problem = checkSettings(test) ?? checkRates(test.p1, test.p2);
+  if (problem) return problem;
+  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
+  return finite(powerUnchecked2(test, n1), "n", "power");
+}
+function proportionSampleSize(test, power) {
+  const problem = checkSettings(test, power) ?? checkRates(test.p1, test.p2);
+  if (problem) return problem;
+  const za = normalQuantile(upperQuantileLevel(test));
+  const zb = normalQuantile(power);
+  const { null0, alt1 } = unitErrors(test);
+  const n1 = ((za * null0 + zb * alt1) / (test.p2 - test.p1)) ** 2;
+  return finite(n1, "effect", "the sample size");
+}
+function proportionDetectable(settings, n1, power, direction2) {
+  const problem = checkSettings(settings, power);
+  if (problem) return problem;
+  const { p1 } = settings;
+  if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
+  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
+  const edge = direction2 === "increase" ? 1 - 1e-12 : 1e-12;
+  const gap = (p22) => powerUnchecked2({ ...settings, p2: p22 }, n1) - power;
+  if (gap(edge) < 0) {
+    return fail("n", `even a rate of ${direction2 === "increase" ? 1 : 0} would be detected with less than ${power} power at ${n1.toFixed(0)} units per arm`);
+  }
+  const near = direction2 === "increase" ? p1 + 1e-12 : p1 - 1e-12;
+  const p2 = findRoot(gap, near, edge, 1e-13);
+  return p2 === void 0 ? fail("n", "no detectable rate found") : ok(p2);
+}
+
+// src/core/stats/ratio.ts
+function ratioMoments(baseline) {
+  const { numerator: x, denominator: y, correlation: rho } = baseline;
+  if (!(y.mean > 0)) return fail("baseline.denominator.mean", `the denominator's mean must be above 0; got ${y.mean}`);
+  if (!(x.sd >= 0 && y.sd >= 0)) return fail("baseline", "standard deviations cannot be negative");
+  if (!(rho >= -1 && rho <= 1)) return fail("baseline.correlation", `a correlation lies between -1 and 1; got ${rho}`);
+  const ratio = x.mean / y.mean;
+  const variance = (x.sd ** 2 - 2 * ratio * rho * x.sd * y.sd + ratio ** 2 * y.sd ** 2) / y.mean ** 2;
+  if (!(variance > 0)) {
+    return fail("baseline", "these moments give the ratio no variance (numerator and denominator move in perfect step); check sd and correlation");
+  }
+  return ok({ ratio, sd: Math.sqrt(variance) });
+}
+
+// src/core/stats/sizing.ts
+function comparisonFor(request2, ratio, alpha, method) {
+  const settings = { alpha, sides: request2.sides, ratio };
+  const sign = request2.direction === "increase" ? 1 : -1;
+  const { baseline } = request2;
+  if (baseline.kind === "proportion") {
+    const p1 = baseline.rate;
+    if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
+    return ok({
+      value: p1,
+      controlUnits: (d) => proportionSampleSize({ ...settings, p1, p2: p1 + sign * d }, request2.power),
+      power: (d, n1) => proportionPower({ ...settings, p1, p2: p1 + sign * d }, n1),
+      detectable: (n1) => {
+        const p2 = proportionDetectable({ ...settings, p1 }, n1, request2.power, request2.direction);
+        return p2.ok ? ok(Math.abs(p2.value - p1)) : p2;
+      }
+    });
+  }
+  if (baseline.kind === "mean" && !(baseline.sd > 0)) return fail("baseline.sd", `the standard deviation must be above 0; got ${baseline.sd}`);
+  const moments2 = baseline.kind === "mean" ? ok({ ratio: baseline.mean, sd: baseline.sd }) : ratioMoments(baseline);
+  if (!moments2.ok) return moments2;
+  const { ratio: value, sd } = moments2.value;
+  const chosen = method;
+  return ok({
+    value,
+    sd,
+    controlUnits: (d) => meanSampleSize({ ...settings, delta: d, sd, method: chosen }, request2.power),
+    power: (d, n1) => meanPower({ ...settings, delta: d, sd, method: chosen }, n1),
+    detectable: (n1) => meanDetectable({ ...settings, sd, method: chosen }, n1, request2.power)
+  });
+}
+function effectIn(effect, value, kind) {
+  if (effect.absolute !== void 0) return effect.absolute > 0 ? ok(effect.absolute) : fail("effect", "the effect must be above 0");
+  if (effect.relative === void 0) return fail("effect", "give the effect as relative or absolute");
+  if (!(effect.relative > 0)) return fail("effect", "the effect must be above 0");
+  if (value === 0) return fail("effect", `a relative effect of a ${kind} whose baseline is 0 is 0; give an absolute effect`);
+  return ok(Math.abs(value) * effect.relative);
+}
+var EXACT_T_LIMIT = 1e3;
+function chooseMethod(request2, normal, enrolledPerDay) {
+  if (request2.method === "normal" || request2.method === "exact") return request2.method;
+  if (request2.baseline.kind === "proportion") return "normal";
+  let n1;
+  if (request2.effect) {
+    const d = effectIn(request2.effect, normal.value, request2.baseline.kind);
+    const size = d.ok ? normal.controlUnits(d.value * request2.reach) : void 0;
+    n1 = size?.ok ? size.value : void 0;
+  } else if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
+    n1 = request2.plannedDays * enrolledPerDay;
+  }
+  return n1 !== void 0 && n1 > EXACT_T_LIMIT ? "normal" : "exact";
+}
+function units(n) {
+  return Math.ceil(n - 1e-9);
+}
+function sizeMetric(request2) {
+  const control = request2.arms.find((a) => a.name === request2.control);
+  if (!control) return fail("arms", `the control arm "${request2.control}" is not one of the arms`);
+  const treatments = request2.arms.filter((a) => a !== control);
+  if (treatments.length === 0) return fail("arms", "at least one treatment arm is needed");
+  if (request2.arms.some((a) => !(a.weight > 0))) return fail("arms", "every arm weight must be above 0");
+  if (!(request2.trafficShare > 0 && request2.trafficShare <= 1)) return fail("traffic-share", `the share of traffic must be in (0, 1]; got ${request2.trafficShare}`);
+  if (!(request2.reach > 0 && request2.reach <= 1)) return fail("exposure.reach", `reach must be in (0, 1]; got ${request2.reach}`);
+  if (request2.dailyUnits !== void 0 && !(request2.dailyUnits > 0)) return fail("daily-units", "zero traffic: no test can reach its sample");
+  const totalWeight = request2.arms.reduce((s, a) => s + a.weight, 0);
+  const alphaPerComparison = bonferroniAlpha(request2.alpha, treatments.length);
+  const sequential = request2.interimLooks > 0 ? sequentialInflation({ kind: request2.boundary, looks: request2.interimLooks + 1, alpha: alphaPerComparison, sides: request2.sides }, request2.power) : ok({ inflation: 1, boundaries: void 0 });
+  if (!sequential.ok) return sequential;
+  const boundaries = sequential.value.boundaries;
+  const de = request2.cluster ? designEffect(request2.cluster.meanSize, request2.cluster.icc, request2.cluster.sizeCv) : 1;
+  const vr = varianceReduction(request2.prePeriodCorrelation);
+  const inflate = de * vr * sequential.value.inflation;
+  const enrolledPerDay = request2.dailyUnits === void 0 ? void 0 : request2.dailyUnits * request2.trafficShare;
+  const probe = comparisonFor(request2, 1, alphaPerComparison, "normal");
+  if (!probe.ok) return probe;
+  const method = chooseMethod(request2, probe.value, enrolledPerDay);
+  const comparisons = [];
+  for (const arm2 of treatments) {
+    const built = comparisonFor(request2, arm2.weight / control.weight, alphaPerComparison, method);
+    if (!built.ok) return built;
+    comparisons.push({ ...built.value, weight: arm2.weight });
+  }
+  const value = probe.value.value;
+  const notes = [];
+  const totalFor = (d) => {
+    let worst = 0;
+    for (const c of comparisons) {
+      const n1 = c.controlUnits(d);
+      if (!n1.ok) return n1;
+      worst = Math.max(worst, n1.value * totalWeight / control.weight);
+    }
+    return ok(worst * inflate);
+  };
+  const sizeFromTotal = (total, perDay) => {
+    const perArm = request2.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
+    const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
+    const duration3 = perDay === void 0 ? void 0 : durationFor(totalUnits, perDay);
+    return {
+      perArm,
+      totalUnits,
+      ...request2.cluster ? { clusters: units(totalUnits / request2.cluster.meanSize) } : {},
+      ...duration3 ? { duration: duration3 } : {}
+    };
+  };
+  const dilutedAnalysis = request2.reach < 1;
+  let effect;
+  let triggered;
+  let diluted;
+  let dilutionUnits = 1;
+  let dilutionDays = 1;
+  if (request2.effect) {
+    const d = effectIn(request2.effect, value, request2.baseline.kind);
+    if (!d.ok) return d;
+    const sign = request2.direction === "increase" ? 1 : -1;
+    effect = { absolute: sign * d.value, relative: value === 0 ? 0 : sign * d.value / Math.abs(value), from: value, to: value + sign * d.value };
+    const trig = totalFor(d.value);
+    if (!trig.ok) return trig;
+    triggered = sizeFromTotal(trig.value, enrolledPerDay === void 0 ? void 0 : enrolledPerDay * request2.reach);
+    if (dilutedAnalysis) {
+      const dil = totalFor(d.value * request2.reach);
+      if (!dil.ok) return dil;
+      diluted = sizeFromTotal(dil.value, enrolledPerDay);
+      dilutionUnits = dil.value / trig.value;
+      dilutionDays = dilutionUnits * request2.reach;
+    }
+  }
+  const headlineReach = dilutedAnalysis ? 1 : request2.reach;
+  const headlineScale = dilutedAnalysis ? request2.reach : 1;
+  const controlAt = (totalEnrolled) => totalEnrolled * control.weight / totalWeight / inflate;
+  const powerAt = (totalEnrolled, d) => {
+    let weakest = 1;
+    const n1 = controlAt(totalEnrolled);
+    for (const c of comparisons) {
+      const p = c.power(d * headlineScale, n1);
+      if (!p.ok) return p;
+      weakest = Math.min(weakest, p.value);
+    }
+    return ok(weakest);
+  };
+  let atPlannedEnd;
+  if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
+    const totalUnits = Math.floor(request2.plannedDays * enrolledPerDay * headlineReach);
+    const n1 = controlAt(totalUnits);
+    atPlannedEnd = { days: request2.plannedDays, totalUnits };
+    if (effect) {
+      const p = powerAt(totalUnits, Math.abs(effect.absolute));
+      if (p.ok) atPlannedEnd.power = p.value;
+    }
+    let detectable = 0;
+    let failed;
+    for (const c of comparisons) {
+      const dd = c.detectable(n1);
+      if (!dd.ok) {
+        failed = dd.error.message;
+        break;
+      }
+      detectable = Math.max(detectable, dd.value / headlineScale);
+    }
+    if (failed) notes.push(`No effect is detectable by the planned end: ${failed}.`);
+    else {
+      const sign = request2.direction === "increase" ? 1 : -1;
+      atPlannedEnd.detectable = { absolute: sign * detectable, relative: value === 0 ? 0 : sign * detectable / Math.abs(value), to: value + sign * detectable };
+    }
+    if (atPlannedEnd.power !== void 0 && atPlannedEnd.power < request2.power) {
+      notes.push(`The planned ${request2.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request2.power * 100).toFixed(0)}%.`);
+    }
+  }
+  const headline = diluted ?? triggered;
+  let powerByDay;
+  if (effect && enrolledPerDay !== void 0 && headline?.duration) {
+    const horizon = Math.max(headline.duration.days, request2.plannedDays ?? 0);
+    const step = horizon <= 21 ? 1 : 7;
+    const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
+    powerByDay = [];
+    for (let day = step; day <= last; day += step) {
+      const p = powerAt(day * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
+      if (p.ok) powerByDay.push({ day, power: p.value });
+    }
+  }
+  return ok({
+    baselineValue: value,
+    ...probe.value.sd !== void 0 ? { sd: probe.value.sd } : {},
+    ...effect ? { effect } : {},
+    multipliers: {
+      comparisons: treatments.length,
+      alphaPerComparison,
+      designEffect: de,
+      varianceReduction: vr,
+      sequential: sequential.value.inflation,
+      dilutionUnits,
+      dilutionDays
+    },
+    ...boundaries ? { boundaries: { kind: request2.boundary, z: boundaries.z, nominalP: boundaries.nominalP } } : {},
+    ...triggered ? { triggered } : {},
+    ...diluted ? { diluted } : {},
+    ...headline ? { headline } : {},
+    ...atPlannedEnd ? { atPlannedEnd } : {},
+    ...powerByDay ? { powerByDay } : {},
+    notes
+  });
+}
+
+// src/core/checks/bug-fix.ts
+function bugFixReason(pr, settings) {
+  const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
+  const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
+  if (label) return `it has the label ${label}`;
+  const title = pr.title ?? "";
+  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
+  if (prefix) return `its title starts with ${prefix}:`;
+  const branch = (pr.branch ?? "").toLowerCase();
+  const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
+  if (branchPrefix) return `its branch starts with ${branchPrefix}`;
+  return void 0;
+}
+function bugFixNudge(context3) {
+  const settings = context3.settings.bugFix;
+  if (!settings.enabled) return void 0;
+  const labels = (context3.pr.labels ?? []).map((l) => l.toLowerCase());
+  if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
+  const reason = bugFixReason(context3.pr, settings);
+  if (!reason || context3.touches.length > 0 || context3.linked.length > 0) return void 0;
+  const notProduct = (0, import_picomatch2.default)(settings.nonProductPaths, { dot: true });
+  const productFiles = context3.changedPaths.filter((p) => !notProduct(p));
+  if (productFiles.length === 0) return void 0;
+  const guardrail = settings.guardrail;
+  let sizingLine;
+  if (guardrail && settings.dailyUnits !== void 0) {
+    const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
+    const sized = sizeMetric({
+      baseline: { kind: "proportion", rate: guardrail.rate },
+      direction: harm,
+      effect: { relative: 0.01 },
+      arms: [
+        { name: "control", weight: 50 },
+        { name: "fix", weight: 50 }
+      ],
+      control: "control",
+      alpha: 0.05,
+      power: 0.8,
+      sides: 1,
+      dailyUnits: settings.dailyUnits,
+      trafficShare: 1,
+      reach: 1,
+      interimLooks: 0,
+      boundary: "obrien-fleming-spending",
+      prePeriodCorrelation: 0,
+      plannedDays: 14
+    });
+    if (sized.ok && sized.value.headline && sized.value.effect) {
+      const h = sized.value.headline;
+      const twoWeeks = sized.value.atPlannedEnd?.detectable;
+      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
+      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0].units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : "no duration"}, one-sided \u03B1 0.05, power 80%.${inTwoWeeks}`;
+    }
+  }
+  const slug = (context3.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
+  const g = guardrail ?? { name: "error-rate", rate: 0.01, events: ["error_shown"], direction: "decrease" };
+  const planStub = [
+    `id: check-${slug}`,
+    `title: "Check test: ${(context3.pr.title ?? "the fix").replace(/"/g, "'").slice(0, 80)}"`,
+    'owners: ["@your-handle"]',
+    `flags: [${slug}]`,
+    "state: draft",
+    "hypothesis:",
+    "  change: The fix, behind a flag, for half of the traffic.",
+    "  because: It should stop the bug without harming anything else.",
+    "  expected-direction: increase",
+    "unit: { randomization: user }",
+    "surface: { path: area/page }",
+    "metrics:",
+    "  primary:",
+    "    name: task-completed",
+    "    kind: proportion",
+    "    baseline: { rate: 0.5 }",
+    "    events: [task_completed]",
+    "  guardrails:",
+    `    - { name: ${g.name}, kind: proportion, baseline: { rate: ${g.rate} }, events: [${g.events.join(", ")}], direction: ${g.direction}, tolerance: { relative: 0.01 } }`,
+    "    - { name: latency, kind: mean, baseline: { mean: 300, sd: 150 }, events: [page_rendered], direction: decrease, tolerance: { relative: 0.02 } }",
+    "design:",
+    "  min-detectable-effect: { relative: 0.02 }",
+    `  daily-units: ${settings.dailyUnits ?? 1e4}`,
+    "decisions:",
+    "  win: Roll the fix out to everyone.",
+    "  flat: Roll it out; the bug is gone and nothing got worse.",
+    "  loss: Turn the flag off and look again at the fix.",
+    "  guardrail-breach: Turn the flag off at once."
+  ].join("\n");
+  return { reason, productFiles, planStub, ...sizingLine ? { sizingLine } : {} };
+}
+var bugFixUnmeasured = (context3) => {
+  const nudge = bugFixNudge(context3);
+  if (!nudge) return [];
+  return [
+    {
+      code: "bug-fix-unmeasured",
+      message: `This looks like a bug fix (${nudge.reason}) that changes product code without a flag: if the fix does not fix, or slows things down or raises errors, nobody will see it.`,
+      fix: `Ship it behind a flag with a small check test (a plan to paste is in the comment), or add the label ${context3.settings.bugFix.silenceLabel} to say no test is needed.`
+    }
+  ];
+};
+
 // src/core/checks/flags.ts
 var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
   const planned = new Set(registry2.entries.flatMap((e) => e.flags));
@@ -62408,7 +62875,8 @@ var CHECKS = [
   spillover,
   analysisUnitDiffers,
   collisionCheck,
-  eventMissing
+  eventMissing,
+  bugFixUnmeasured
 ];
 
 // src/core/source/closest-name.ts
@@ -62471,7 +62939,8 @@ var FINDING_CODES = {
   "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
-  "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" }
+  "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
+  "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
 
@@ -62553,7 +63022,8 @@ function buildReview(context3, change2) {
   }));
   const nothing = context3.touches.length === 0 && context3.linked.length === 0 && context3.invalidPlanFiles.length === 0 && findings.length === 0;
   const verdict = nothing ? "nothing-to-check" : counts.block ? "blocked" : counts.warn ? "warnings" : "clear";
-  return { verdict, counts, base: change2.base, head: change2.head, findings, plans, flags, collisions };
+  const nudge = findings.some((f) => f.code === "bug-fix-unmeasured") ? bugFixNudge(context3) : void 0;
+  return { verdict, counts, base: change2.base, head: change2.head, findings, plans, flags, collisions, ...nudge ? { nudge } : {} };
 }
 
 // src/core/review/link-plans.ts
@@ -62902,352 +63372,6 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
-// src/core/stats/adjustments.ts
-function designEffect(meanSize, icc, sizeCv = 0) {
-  return Math.max(1, 1 + ((sizeCv * sizeCv + 1) * meanSize - 1) * icc);
-}
-function varianceReduction(rho) {
-  return 1 - rho * rho;
-}
-function bonferroniAlpha(alpha, comparisons) {
-  return alpha / Math.max(1, comparisons);
-}
-
-// src/core/stats/duration.ts
-function durationFor(unitsNeeded, unitsPerDay) {
-  if (!(unitsPerDay > 0) || !Number.isFinite(unitsNeeded) || !Number.isFinite(unitsPerDay)) return void 0;
-  const days = Math.max(1, Math.ceil(unitsNeeded / unitsPerDay - 1e-9));
-  return { days, weeks: Math.ceil(days / 7) };
-}
-
-// src/core/stats/inputs.ts
-function checkSettings(settings, power) {
-  if (!(settings.alpha > 0 && settings.alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${settings.alpha}`);
-  if (settings.sides !== 1 && settings.sides !== 2) return fail("sides", "a test is one-sided (1) or two-sided (2)");
-  if (!(settings.ratio > 0 && Number.isFinite(settings.ratio))) return fail("ratio", `the allocation ratio must be above 0; got ${settings.ratio}`);
-  if (power !== void 0) {
-    if (!(power > 0 && power < 1)) return fail("power", `power must be strictly between 0 and 1; got ${power}`);
-    if (power <= settings.alpha) return fail("power", `power (${power}) must exceed the significance level (${settings.alpha}): a test cannot be likelier to detect an effect than to raise a false alarm`);
-  }
-  return void 0;
-}
-function upperQuantileLevel(settings) {
-  return 1 - settings.alpha / settings.sides;
-}
-
-// src/core/stats/mean.ts
-function minimumControlUnits(ratio) {
-  return 2.01 / (1 + ratio);
-}
-function checkMoments(delta, sd) {
-  if (!(sd > 0 && Number.isFinite(sd))) return fail("baseline.sd", `the standard deviation must be above 0; got ${sd}`);
-  if (!Number.isFinite(delta) || delta === 0) return fail("effect", "the effect is zero: there is nothing to detect");
-  return void 0;
-}
-function powerUnchecked(test, n1) {
-  const n2 = test.ratio * n1;
-  const standardError = test.sd * Math.sqrt(1 / n1 + 1 / n2);
-  const shift = Math.abs(test.delta) / standardError;
-  const level = upperQuantileLevel(test);
-  if (test.method === "normal") return normalCdf(shift - normalQuantile(level));
-  const df = n1 + n2 - 2;
-  return noncentralTUpper(studentQuantile(level, df), df, shift);
-}
-function meanPower(test, n1) {
-  const problem = checkSettings(test) ?? checkMoments(test.delta, test.sd);
-  if (problem) return problem;
-  if (!(n1 >= minimumControlUnits(test.ratio))) return fail("n", `at least ${minimumControlUnits(test.ratio)} control units are needed for a t test; got ${n1}`);
-  return finite(powerUnchecked(test, n1), "n", "power");
-}
-function meanSampleSize(test, power) {
-  const problem = checkSettings(test, power) ?? checkMoments(test.delta, test.sd);
-  if (problem) return problem;
-  const z2 = normalQuantile(upperQuantileLevel(test)) + normalQuantile(power);
-  const normal = (test.sd * z2 / test.delta) ** 2 * (1 + 1 / test.ratio);
-  if (test.method === "normal") return finite(normal, "effect", "the sample size");
-  const min = minimumControlUnits(test.ratio);
-  if (powerUnchecked(test, min) >= power) return ok(min);
-  const n1 = solveIncreasing((n) => powerUnchecked(test, n), power, Math.max(normal, min), min, 1e12, 1e-12);
-  return n1 === void 0 ? fail("effect", "the sample size cannot be computed for these inputs") : ok(n1);
-}
-function meanDetectable(settings, n1, power) {
-  const problem = checkSettings(settings, power) ?? checkMoments(1, settings.sd);
-  if (problem) return problem;
-  if (!(n1 >= minimumControlUnits(settings.ratio))) return fail("n", `at least ${minimumControlUnits(settings.ratio)} control units are needed; got ${n1}`);
-  const z2 = normalQuantile(upperQuantileLevel(settings)) + normalQuantile(power);
-  const guess = settings.sd * z2 * Math.sqrt(1 / n1 + 1 / (settings.ratio * n1));
-  if (settings.method === "normal") return finite(guess, "n", "the detectable effect");
-  const delta = solveIncreasing((d) => powerUnchecked({ ...settings, delta: d }, n1), power, guess, 1e-300, 1e300, 1e-12);
-  return delta === void 0 ? fail("n", "the detectable effect cannot be computed for these inputs") : ok(delta);
-}
-
-// src/core/stats/proportion.ts
-function checkRates(p1, p2) {
-  if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
-  if (!(p2 > 0 && p2 < 1)) return fail("effect", `the effect takes the rate from ${p1} to ${p2}, outside (0, 1)`);
-  if (p1 === p2) return fail("effect", "the effect is zero: there is nothing to detect");
-  return void 0;
-}
-function unitErrors(test) {
-  const { p1, p2, ratio } = test;
-  const pooled = (p1 + ratio * p2) / (1 + ratio);
-  return {
-    null0: Math.sqrt(pooled * (1 - pooled) * (1 + 1 / ratio)),
-    alt1: Math.sqrt(p1 * (1 - p1) + p2 * (1 - p2) / ratio)
-  };
-}
-function powerUnchecked2(test, n1) {
-  const z2 = normalQuantile(upperQuantileLevel(test));
-  const { null0, alt1 } = unitErrors(test);
-  return normalCdf((Math.sqrt(n1) * Math.abs(test.p2 - test.p1) - z2 * null0) / alt1);
-}
-function proportionPower(test, n1) {
-  const problem = checkSettings(test) ?? checkRates(test.p1, test.p2);
-  if (problem) return problem;
-  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
-  return finite(powerUnchecked2(test, n1), "n", "power");
-}
-function proportionSampleSize(test, power) {
-  const problem = checkSettings(test, power) ?? checkRates(test.p1, test.p2);
-  if (problem) return problem;
-  const za = normalQuantile(upperQuantileLevel(test));
-  const zb = normalQuantile(power);
-  const { null0, alt1 } = unitErrors(test);
-  const n1 = ((za * null0 + zb * alt1) / (test.p2 - test.p1)) ** 2;
-  return finite(n1, "effect", "the sample size");
-}
-function proportionDetectable(settings, n1, power, direction2) {
-  const problem = checkSettings(settings, power);
-  if (problem) return problem;
-  const { p1 } = settings;
-  if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
-  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
-  const edge = direction2 === "increase" ? 1 - 1e-12 : 1e-12;
-  const gap = (p22) => powerUnchecked2({ ...settings, p2: p22 }, n1) - power;
-  if (gap(edge) < 0) {
-    return fail("n", `even a rate of ${direction2 === "increase" ? 1 : 0} would be detected with less than ${power} power at ${n1.toFixed(0)} units per arm`);
-  }
-  const near = direction2 === "increase" ? p1 + 1e-12 : p1 - 1e-12;
-  const p2 = findRoot(gap, near, edge, 1e-13);
-  return p2 === void 0 ? fail("n", "no detectable rate found") : ok(p2);
-}
-
-// src/core/stats/ratio.ts
-function ratioMoments(baseline) {
-  const { numerator: x, denominator: y, correlation: rho } = baseline;
-  if (!(y.mean > 0)) return fail("baseline.denominator.mean", `the denominator's mean must be above 0; got ${y.mean}`);
-  if (!(x.sd >= 0 && y.sd >= 0)) return fail("baseline", "standard deviations cannot be negative");
-  if (!(rho >= -1 && rho <= 1)) return fail("baseline.correlation", `a correlation lies between -1 and 1; got ${rho}`);
-  const ratio = x.mean / y.mean;
-  const variance = (x.sd ** 2 - 2 * ratio * rho * x.sd * y.sd + ratio ** 2 * y.sd ** 2) / y.mean ** 2;
-  if (!(variance > 0)) {
-    return fail("baseline", "these moments give the ratio no variance (numerator and denominator move in perfect step); check sd and correlation");
-  }
-  return ok({ ratio, sd: Math.sqrt(variance) });
-}
-
-// src/core/stats/sizing.ts
-function comparisonFor(request2, ratio, alpha, method) {
-  const settings = { alpha, sides: request2.sides, ratio };
-  const sign = request2.direction === "increase" ? 1 : -1;
-  const { baseline } = request2;
-  if (baseline.kind === "proportion") {
-    const p1 = baseline.rate;
-    if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
-    return ok({
-      value: p1,
-      controlUnits: (d) => proportionSampleSize({ ...settings, p1, p2: p1 + sign * d }, request2.power),
-      power: (d, n1) => proportionPower({ ...settings, p1, p2: p1 + sign * d }, n1),
-      detectable: (n1) => {
-        const p2 = proportionDetectable({ ...settings, p1 }, n1, request2.power, request2.direction);
-        return p2.ok ? ok(Math.abs(p2.value - p1)) : p2;
-      }
-    });
-  }
-  if (baseline.kind === "mean" && !(baseline.sd > 0)) return fail("baseline.sd", `the standard deviation must be above 0; got ${baseline.sd}`);
-  const moments2 = baseline.kind === "mean" ? ok({ ratio: baseline.mean, sd: baseline.sd }) : ratioMoments(baseline);
-  if (!moments2.ok) return moments2;
-  const { ratio: value, sd } = moments2.value;
-  const chosen = method;
-  return ok({
-    value,
-    sd,
-    controlUnits: (d) => meanSampleSize({ ...settings, delta: d, sd, method: chosen }, request2.power),
-    power: (d, n1) => meanPower({ ...settings, delta: d, sd, method: chosen }, n1),
-    detectable: (n1) => meanDetectable({ ...settings, sd, method: chosen }, n1, request2.power)
-  });
-}
-function effectIn(effect, value, kind) {
-  if (effect.absolute !== void 0) return effect.absolute > 0 ? ok(effect.absolute) : fail("effect", "the effect must be above 0");
-  if (effect.relative === void 0) return fail("effect", "give the effect as relative or absolute");
-  if (!(effect.relative > 0)) return fail("effect", "the effect must be above 0");
-  if (value === 0) return fail("effect", `a relative effect of a ${kind} whose baseline is 0 is 0; give an absolute effect`);
-  return ok(Math.abs(value) * effect.relative);
-}
-var EXACT_T_LIMIT = 1e3;
-function chooseMethod(request2, normal, enrolledPerDay) {
-  if (request2.method === "normal" || request2.method === "exact") return request2.method;
-  if (request2.baseline.kind === "proportion") return "normal";
-  let n1;
-  if (request2.effect) {
-    const d = effectIn(request2.effect, normal.value, request2.baseline.kind);
-    const size = d.ok ? normal.controlUnits(d.value * request2.reach) : void 0;
-    n1 = size?.ok ? size.value : void 0;
-  } else if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
-    n1 = request2.plannedDays * enrolledPerDay;
-  }
-  return n1 !== void 0 && n1 > EXACT_T_LIMIT ? "normal" : "exact";
-}
-function units(n) {
-  return Math.ceil(n - 1e-9);
-}
-function sizeMetric(request2) {
-  const control = request2.arms.find((a) => a.name === request2.control);
-  if (!control) return fail("arms", `the control arm "${request2.control}" is not one of the arms`);
-  const treatments = request2.arms.filter((a) => a !== control);
-  if (treatments.length === 0) return fail("arms", "at least one treatment arm is needed");
-  if (request2.arms.some((a) => !(a.weight > 0))) return fail("arms", "every arm weight must be above 0");
-  if (!(request2.trafficShare > 0 && request2.trafficShare <= 1)) return fail("traffic-share", `the share of traffic must be in (0, 1]; got ${request2.trafficShare}`);
-  if (!(request2.reach > 0 && request2.reach <= 1)) return fail("exposure.reach", `reach must be in (0, 1]; got ${request2.reach}`);
-  if (request2.dailyUnits !== void 0 && !(request2.dailyUnits > 0)) return fail("daily-units", "zero traffic: no test can reach its sample");
-  const totalWeight = request2.arms.reduce((s, a) => s + a.weight, 0);
-  const alphaPerComparison = bonferroniAlpha(request2.alpha, treatments.length);
-  const sequential = request2.interimLooks > 0 ? sequentialInflation({ kind: request2.boundary, looks: request2.interimLooks + 1, alpha: alphaPerComparison, sides: request2.sides }, request2.power) : ok({ inflation: 1, boundaries: void 0 });
-  if (!sequential.ok) return sequential;
-  const boundaries = sequential.value.boundaries;
-  const de = request2.cluster ? designEffect(request2.cluster.meanSize, request2.cluster.icc, request2.cluster.sizeCv) : 1;
-  const vr = varianceReduction(request2.prePeriodCorrelation);
-  const inflate = de * vr * sequential.value.inflation;
-  const enrolledPerDay = request2.dailyUnits === void 0 ? void 0 : request2.dailyUnits * request2.trafficShare;
-  const probe = comparisonFor(request2, 1, alphaPerComparison, "normal");
-  if (!probe.ok) return probe;
-  const method = chooseMethod(request2, probe.value, enrolledPerDay);
-  const comparisons = [];
-  for (const arm2 of treatments) {
-    const built = comparisonFor(request2, arm2.weight / control.weight, alphaPerComparison, method);
-    if (!built.ok) return built;
-    comparisons.push({ ...built.value, weight: arm2.weight });
-  }
-  const value = probe.value.value;
-  const notes = [];
-  const totalFor = (d) => {
-    let worst = 0;
-    for (const c of comparisons) {
-      const n1 = c.controlUnits(d);
-      if (!n1.ok) return n1;
-      worst = Math.max(worst, n1.value * totalWeight / control.weight);
-    }
-    return ok(worst * inflate);
-  };
-  const sizeFromTotal = (total, perDay) => {
-    const perArm = request2.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
-    const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
-    const duration3 = perDay === void 0 ? void 0 : durationFor(totalUnits, perDay);
-    return {
-      perArm,
-      totalUnits,
-      ...request2.cluster ? { clusters: units(totalUnits / request2.cluster.meanSize) } : {},
-      ...duration3 ? { duration: duration3 } : {}
-    };
-  };
-  const dilutedAnalysis = request2.reach < 1;
-  let effect;
-  let triggered;
-  let diluted;
-  let dilutionUnits = 1;
-  let dilutionDays = 1;
-  if (request2.effect) {
-    const d = effectIn(request2.effect, value, request2.baseline.kind);
-    if (!d.ok) return d;
-    const sign = request2.direction === "increase" ? 1 : -1;
-    effect = { absolute: sign * d.value, relative: value === 0 ? 0 : sign * d.value / Math.abs(value), from: value, to: value + sign * d.value };
-    const trig = totalFor(d.value);
-    if (!trig.ok) return trig;
-    triggered = sizeFromTotal(trig.value, enrolledPerDay === void 0 ? void 0 : enrolledPerDay * request2.reach);
-    if (dilutedAnalysis) {
-      const dil = totalFor(d.value * request2.reach);
-      if (!dil.ok) return dil;
-      diluted = sizeFromTotal(dil.value, enrolledPerDay);
-      dilutionUnits = dil.value / trig.value;
-      dilutionDays = dilutionUnits * request2.reach;
-    }
-  }
-  const headlineReach = dilutedAnalysis ? 1 : request2.reach;
-  const headlineScale = dilutedAnalysis ? request2.reach : 1;
-  const controlAt = (totalEnrolled) => totalEnrolled * control.weight / totalWeight / inflate;
-  const powerAt = (totalEnrolled, d) => {
-    let weakest = 1;
-    const n1 = controlAt(totalEnrolled);
-    for (const c of comparisons) {
-      const p = c.power(d * headlineScale, n1);
-      if (!p.ok) return p;
-      weakest = Math.min(weakest, p.value);
-    }
-    return ok(weakest);
-  };
-  let atPlannedEnd;
-  if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
-    const totalUnits = Math.floor(request2.plannedDays * enrolledPerDay * headlineReach);
-    const n1 = controlAt(totalUnits);
-    atPlannedEnd = { days: request2.plannedDays, totalUnits };
-    if (effect) {
-      const p = powerAt(totalUnits, Math.abs(effect.absolute));
-      if (p.ok) atPlannedEnd.power = p.value;
-    }
-    let detectable = 0;
-    let failed;
-    for (const c of comparisons) {
-      const dd = c.detectable(n1);
-      if (!dd.ok) {
-        failed = dd.error.message;
-        break;
-      }
-      detectable = Math.max(detectable, dd.value / headlineScale);
-    }
-    if (failed) notes.push(`No effect is detectable by the planned end: ${failed}.`);
-    else {
-      const sign = request2.direction === "increase" ? 1 : -1;
-      atPlannedEnd.detectable = { absolute: sign * detectable, relative: value === 0 ? 0 : sign * detectable / Math.abs(value), to: value + sign * detectable };
-    }
-    if (atPlannedEnd.power !== void 0 && atPlannedEnd.power < request2.power) {
-      notes.push(`The planned ${request2.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request2.power * 100).toFixed(0)}%.`);
-    }
-  }
-  const headline = diluted ?? triggered;
-  let powerByDay;
-  if (effect && enrolledPerDay !== void 0 && headline?.duration) {
-    const horizon = Math.max(headline.duration.days, request2.plannedDays ?? 0);
-    const step = horizon <= 21 ? 1 : 7;
-    const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
-    powerByDay = [];
-    for (let day = step; day <= last; day += step) {
-      const p = powerAt(day * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
-      if (p.ok) powerByDay.push({ day, power: p.value });
-    }
-  }
-  return ok({
-    baselineValue: value,
-    ...probe.value.sd !== void 0 ? { sd: probe.value.sd } : {},
-    ...effect ? { effect } : {},
-    multipliers: {
-      comparisons: treatments.length,
-      alphaPerComparison,
-      designEffect: de,
-      varianceReduction: vr,
-      sequential: sequential.value.inflation,
-      dilutionUnits,
-      dilutionDays
-    },
-    ...boundaries ? { boundaries: { kind: request2.boundary, z: boundaries.z, nominalP: boundaries.nominalP } } : {},
-    ...triggered ? { triggered } : {},
-    ...diluted ? { diluted } : {},
-    ...headline ? { headline } : {},
-    ...atPlannedEnd ? { atPlannedEnd } : {},
-    ...powerByDay ? { powerByDay } : {},
-    notes
-  });
-}
-
 // src/core/stats/plan-sizing.ts
 function baselineOf(metric2) {
   if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
@@ -63564,6 +63688,16 @@ var callPattern = (group2, example) => {
 };
 var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
+var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
+var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
+function isTimeZone(zone) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
 var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
 var writtenSettingsSchema = external_exports.strictObject(
   {
@@ -63581,6 +63715,43 @@ var writtenSettingsSchema = external_exports.strictObject(
       { error: "a mapping with include and exclude" }
     ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
     "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
+    "bug-fix": external_exports.strictObject(
+      {
+        enabled: external_exports.boolean({ error: "true or false" }).default(true),
+        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
+        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
+        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
+        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
+        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
+        guardrail: external_exports.strictObject(
+          {
+            name: text("a metric name, e.g. error-rate"),
+            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
+            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
+            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
+          },
+          { error: "a guardrail: { name, rate, events, direction }" }
+        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+      },
+      { error: "a mapping of bug-fix nudge settings" }
+    ).default({
+      enabled: true,
+      labels: DEFAULT_BUG_LABELS,
+      "title-prefixes": ["fix", "bugfix", "hotfix"],
+      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
+      "silence-label": "no-check-test",
+      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
+    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
+    digest: external_exports.strictObject(
+      {
+        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
+        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
+        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
+        label: text("the label of the digest issue").default("plumbline-digest")
+      },
+      { error: "a mapping of digest settings" }
+    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
     severity: external_exports.record(
       external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
       external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
@@ -63598,7 +63769,23 @@ var settingsSchema = writtenSettingsSchema.transform((w) => ({
   groupSurfaces: w["group-surfaces"],
   scan: w.scan,
   exemptFlags: w["exempt-flags"],
-  severity: w.severity
+  severity: w.severity,
+  bugFix: {
+    enabled: w["bug-fix"].enabled,
+    labels: w["bug-fix"].labels,
+    titlePrefixes: w["bug-fix"]["title-prefixes"],
+    branchPrefixes: w["bug-fix"]["branch-prefixes"],
+    silenceLabel: w["bug-fix"]["silence-label"],
+    nonProductPaths: w["bug-fix"]["non-product-paths"],
+    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
+    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  digest: {
+    timeZone: w.digest["time-zone"],
+    endingSoonDays: w.digest["ending-soon-days"],
+    onHoldDays: w.digest["on-hold-days"],
+    label: w.digest.label
+  }
 }));
 
 // src/core/config/load.ts
@@ -63625,14 +63812,14 @@ function loadSettings(text2, file2) {
 }
 
 // src/core/config/plan-files.ts
-var import_picomatch2 = __toESM(require_picomatch2(), 1);
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
 var PLAN_EXTENSIONS = [".yaml", ".yml"];
 function planSearchRoots(entries) {
   return entries.map((raw) => {
     const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch2.default.scan(entry);
+    const scan = import_picomatch3.default.scan(entry);
     if (scan.isGlob) {
-      const matcher = (0, import_picomatch2.default)(entry, { dot: false });
+      const matcher = (0, import_picomatch3.default)(entry, { dot: false });
       return { folder: scan.base, matches: (path6) => isYamlFile(path6) && matcher(path6) };
     }
     if (isYamlFile(entry)) {
@@ -63834,7 +64021,7 @@ async function reviewChange(options) {
   const basePaths = textual.map((d) => d.previousPath ?? d.path);
   const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change2.filesAt("base").readTexts(basePaths)]);
   const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
-  const isFlagFile = (0, import_picomatch3.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const isFlagFile = (0, import_picomatch4.default)(DEFAULT_FLAG_FILES, { dot: true });
   const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
   const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
@@ -63880,7 +64067,7 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();

@@ -5,7 +5,8 @@ import { cpSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-export function buildDemoChange() {
+/** `overlay`: the folder under demo/ whose src/ is laid over demo/repo as the head commit. */
+export function buildDemoChange(overlay = 'change', branch = 'feature/slot-nudge') {
   const root = mkdtempSync(join(tmpdir(), 'plumbline-demo-'));
   const git = (...args) =>
     execFileSync('git', args, {
@@ -18,9 +19,9 @@ export function buildDemoChange() {
   git('add', '-A');
   git('commit', '-q', '-m', 'Bramblecart as on main');
   const base = git('rev-parse', 'HEAD');
-  git('switch', '-q', '-c', 'feature/slot-nudge');
-  cpSync('demo/change/src', join(root, 'src'), { recursive: true });
+  git('switch', '-q', '-c', branch);
+  cpSync(`demo/${overlay}/src`, join(root, 'src'), { recursive: true });
   git('add', '-A');
-  git('commit', '-q', '-m', 'Van-nearby badge, tip amounts, substitutes');
+  git('commit', '-q', '-m', `the ${overlay} pull request`);
   return { root, base, head: git('rev-parse', 'HEAD'), cleanup: () => rmSync(root, { recursive: true, force: true }) };
 }

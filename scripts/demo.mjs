@@ -31,4 +31,15 @@ try {
 } finally {
   change.cleanup();
 }
+// A bug fix without a flag: the review nudges towards a small check test.
+const fix = buildDemoChange('bugfix', 'fix/reorder-count');
+try {
+  const args = ['-C', fix.root, 'check', '--base', 'main', '--head', 'fix/reorder-count', '--pr-json', `${process.cwd()}/demo/bugfix/pull-request.json`, '--format', 'markdown'];
+  process.stdout.write(`\n== A bug fix without a flag: the nudge\n$ plumbline ${args.slice(2).join(' ').replace(process.cwd() + '/', '')}\n\n`);
+  const run = spawnSync(process.execPath, ['dist/cli.js', ...args], { stdio: 'inherit' });
+  process.stdout.write(`\n(exit code ${run.status})\n`);
+  if (run.status === null || run.status >= 2) broken = true;
+} finally {
+  fix.cleanup();
+}
 process.exitCode = broken ? 1 : 0;

@@ -105,7 +105,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }
 
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
     { base: change.base, head: change.head },
   );
   const stats = scanner.stats();

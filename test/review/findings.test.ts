@@ -4,13 +4,14 @@ import { openChange } from '../../src/adapters/git.js';
 import { FINDING_CODES } from '../../src/core/review/finding.js';
 import type { Review } from '../../src/core/review/build-review.js';
 import { reviewChange } from '../../src/run/review-change.js';
+import type { PullRequestInfo } from '../../src/core/review/context.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
 
-async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: { body?: string } = {}): Promise<Review> {
+async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
   const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr });
@@ -24,7 +25,7 @@ const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | 
 const other = (overrides: Record<string, unknown>) =>
   planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
 
-type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string };
+type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
 
 // For every finding code: a scenario that must raise it, and a near miss that must not.
 const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
@@ -125,6 +126,10 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
       changes: { 'src/keeper.ts': '// moved away\n', 'src/elsewhere.ts': "track('keeper_seen');\n" },
     },
   },
+  'bug-fix-unmeasured': {
+    trigger: { changes: { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' }, pr: { title: 'fix: totals were off by one', labels: [] } },
+    nearMiss: { changes: { 'docs/totals.md': 'Totals are now right.\n' }, pr: { title: 'fix: totals were off by one' } },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },
@@ -136,11 +141,11 @@ describe('every finding code is covered by a trigger and a near miss', () => {
 
   describe.each(Object.entries(cases))('%s', (code, { trigger, nearMiss }) => {
     it('raises it', async () => {
-      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...(trigger.body ? { body: trigger.body } : {}) });
+      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...trigger.pr, ...(trigger.body ? { body: trigger.body } : {}) });
       expect(r.findings.map((f) => f.code)).toContain(code);
     });
     it('does not raise it on the near miss', async () => {
-      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...(nearMiss.body ? { body: nearMiss.body } : {}) });
+      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...nearMiss.pr, ...(nearMiss.body ? { body: nearMiss.body } : {}) });
       expect(r.findings.map((f) => f.code)).not.toContain(code);
     });
   });
@@ -187,5 +192,38 @@ describe('the review as a whole', () => {
     });
     const keys = r.flags.map((f) => `${f.key}:${f.via}`);
     expect(keys).toEqual(expect.arrayContaining(['const-flag:constant', 'good-flag:definition', 'defined-flag:definition']));
+  });
+});
+
+describe('the bug-fix nudge', () => {
+  const product = { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' };
+  it.each([
+    ['a bug label', { labels: ['Bug'] }, true],
+    ['a fix: title', { title: 'fix: round totals' }, true],
+    ['a scoped fix(cart)!: title', { title: 'fix(cart)!: round totals' }, true],
+    ['a fix/ branch', { branch: 'fix/rounding' }, true],
+    ['a hotfix/ branch', { branch: 'hotfix/rounding' }, true],
+    ['a fixture/ branch', { branch: 'fixture/rounding' }, false],
+    ['a feature title that mentions fix', { title: 'feat: fix-ups for the cart' }, false],
+    ['the silencing label', { title: 'fix: round totals', labels: ['no-check-test'] }, false],
+  ])('%s', async (_name, pr, expected) => {
+    const r = await review(baseFiles(), product, pr);
+    expect(r.findings.some((f) => f.code === 'bug-fix-unmeasured')).toBe(expected);
+    expect(r.nudge !== undefined).toBe(expected);
+  });
+
+  it('stays quiet when the fix already touches a flag, and on test-only or config-only fixes', async () => {
+    expect((await review(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED }, { title: 'fix: cart' })).nudge).toBeUndefined();
+    expect((await review(baseFiles(), { 'src/cart.test.ts': 'test();\n' }, { title: 'fix: cart' })).nudge).toBeUndefined();
+    expect((await review(baseFiles(), { 'config/app.json': '{}\n' }, { title: 'fix: cart' })).nudge).toBeUndefined();
+  });
+
+  it('carries a plan stub that loads, and a sizing line from the configured guardrail and traffic', async () => {
+    const settings = 'bug-fix:\n  guardrail: { name: checkout-errors, rate: 0.02, events: [checkout_error] }\n  daily-units: 40000\n';
+    const r = await review(baseFiles({ '.plumbline.yml': settings }), product, { title: 'fix: totals', branch: 'fix/totals' });
+    expect(r.nudge?.sizingLine).toMatch(/^To detect a 1% relative regression in checkout-errors \(2\.00% → 2\.02%\) at 40,000 eligible units a day: [\d,]+ units per arm, \d+ days \(\d+ weeks\), one-sided α 0\.05, power 80%\. Two weeks would catch a rise to [\d.]+% \(\+[\d.]+% relative\)\.$/);
+    const { loadPlan } = await import('../../src/core/plan/load.js');
+    const loaded = loadPlan(r.nudge!.planStub, 'stub.yaml');
+    expect(loaded.ok ? [] : loaded.errors).toEqual([]);
   });
 });

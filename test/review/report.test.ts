@@ -25,7 +25,7 @@ beforeAll(async () => {
 afterAll(() => demo?.cleanup());
 
 /** SHAs differ from run to run; everything else must not. */
-const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>');
+const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>').replace(/for [0-9a-f]{7}\.\.\.[0-9a-f]{7}/, 'for <base>...<head>');
 
 describe('the demo review', () => {
   it('blocks on the missing decision rules and the removed exposure event', () => {

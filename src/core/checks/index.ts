@@ -1,4 +1,5 @@
 import type { Check } from '../review/context.js';
+import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
 import { flagWithoutPlan } from './flags.js';
 import { eventMissing, eventRemoved } from './logging.js';
@@ -32,4 +33,5 @@ export const CHECKS: readonly Check[] = [
   analysisUnitDiffers,
   collisionCheck,
   eventMissing,
+  bugFixUnmeasured,
 ];

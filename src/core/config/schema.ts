@@ -31,6 +31,18 @@ const callPattern = (group: 'key' | 'event', example: string) => {
 const pathGlob = text('a path or glob relative to the repository root, e.g. src/** or experiments');
 
 export const DEFAULT_PLAN_FOLDERS = ['experiments'];
+export const DEFAULT_BUG_LABELS = ['bug', 'bugfix', 'fix', 'regression'];
+/** Files that are not product code: a change to only these is docs, tests or configuration. */
+export const DEFAULT_NON_PRODUCT_PATHS = ['**/*.md', '**/*.mdx', 'docs/**', '**/test/**', '**/tests/**', '**/__tests__/**', '**/*.test.*', '**/*.spec.*', '.github/**', '**/*.yml', '**/*.yaml', '**/*.json', '**/*.toml', '.*'];
+
+function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
 export const DEFAULT_SCAN_EXCLUDE = ['**/node_modules/**', '**/dist/**', '**/build/**', '**/vendor/**', '**/*.min.js', '**/*.map'];
 
 export const writtenSettingsSchema = z
@@ -70,6 +82,55 @@ export const writtenSettingsSchema = z
       'exempt-flags': uniqueList(flagKey, 'a list of flag keys that need no plan, e.g. [kill-payments]')
         .default([])
         .describe('Flags that are not experiments (kill switches, operational toggles).'),
+      'bug-fix': z
+        .strictObject(
+          {
+            enabled: z.boolean({ error: 'true or false' }).default(true),
+            labels: uniqueList(text('a label name'), 'a list of labels that mark a bug fix, e.g. [bug]').default(DEFAULT_BUG_LABELS),
+            'title-prefixes': uniqueList(text('a conventional-commit type'), 'a list of title prefixes, e.g. [fix]').default(['fix', 'bugfix', 'hotfix']),
+            'branch-prefixes': uniqueList(text('a branch prefix'), 'a list of branch prefixes, e.g. [fix/]').default(['fix/', 'bugfix/', 'hotfix/']),
+            'silence-label': text('a label that turns the nudge off for one pull request').default('no-check-test'),
+            'non-product-paths': uniqueList(pathGlob, 'globs of files that are not product code').default(DEFAULT_NON_PRODUCT_PATHS),
+            guardrail: z
+              .strictObject(
+                {
+                  name: text('a metric name, e.g. error-rate'),
+                  rate: z.number({ error: 'a baseline rate strictly between 0 and 1' }).gt(0, { error: 'a rate above 0' }).lt(1, { error: 'a rate below 1' }),
+                  events: uniqueList(text('an event name'), 'the events the guardrail is computed from', 1),
+                  direction: z.enum(['increase', 'decrease'], { error: 'increase or decrease' }).default('decrease'),
+                },
+                { error: 'a guardrail: { name, rate, events, direction }' },
+              )
+              .optional()
+              .describe('The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line.'),
+            'daily-units': z.number({ error: 'eligible units per day, above 0' }).gt(0, { error: 'eligible units per day, above 0' }).optional(),
+          },
+          { error: 'a mapping of bug-fix nudge settings' },
+        )
+        .default({
+          enabled: true,
+          labels: DEFAULT_BUG_LABELS,
+          'title-prefixes': ['fix', 'bugfix', 'hotfix'],
+          'branch-prefixes': ['fix/', 'bugfix/', 'hotfix/'],
+          'silence-label': 'no-check-test',
+          'non-product-paths': DEFAULT_NON_PRODUCT_PATHS,
+        })
+        .describe('The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test.'),
+      digest: z
+        .strictObject(
+          {
+            'time-zone': z
+              .string({ error: 'an IANA time zone, e.g. Europe/London' })
+              .refine(isTimeZone, { error: 'an IANA time zone, e.g. Europe/London or UTC' })
+              .default('UTC'),
+            'ending-soon-days': z.number({ error: 'a whole number of days' }).int().min(1, { error: 'at least 1 day' }).default(7),
+            'on-hold-days': z.number({ error: 'a whole number of days' }).int().min(1, { error: 'at least 1 day' }).default(14),
+            label: text('the label of the digest issue').default('plumbline-digest'),
+          },
+          { error: 'a mapping of digest settings' },
+        )
+        .default({ 'time-zone': 'UTC', 'ending-soon-days': 7, 'on-hold-days': 14, label: 'plumbline-digest' })
+        .describe('The weekly digest: the day boundary’s time zone, what counts as ending soon and as on hold too long, the issue label.'),
       severity: z
         .record(
           z.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: 'a finding code, e.g. plan-missing' }),
@@ -93,6 +154,22 @@ export const settingsSchema = writtenSettingsSchema.transform((w) => ({
   scan: w.scan,
   exemptFlags: w['exempt-flags'],
   severity: w.severity as Record<string, SeverityLevel>,
+  bugFix: {
+    enabled: w['bug-fix'].enabled,
+    labels: w['bug-fix'].labels,
+    titlePrefixes: w['bug-fix']['title-prefixes'],
+    branchPrefixes: w['bug-fix']['branch-prefixes'],
+    silenceLabel: w['bug-fix']['silence-label'],
+    nonProductPaths: w['bug-fix']['non-product-paths'],
+    ...(w['bug-fix'].guardrail ? { guardrail: w['bug-fix'].guardrail } : {}),
+    ...(w['bug-fix']['daily-units'] !== undefined ? { dailyUnits: w['bug-fix']['daily-units'] } : {}),
+  },
+  digest: {
+    timeZone: w.digest['time-zone'],
+    endingSoonDays: w.digest['ending-soon-days'],
+    onHoldDays: w.digest['on-hold-days'],
+    label: w.digest.label,
+  },
 }));
 
 /** Normalized repository settings. */

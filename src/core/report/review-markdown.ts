@@ -104,6 +104,23 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
     out.push('');
   }
   for (const plan of review.plans) out.push(...planSection(plan, options, detail), '');
+  if (review.nudge) {
+    out.push(
+      '#### A small check test for this fix?',
+      '',
+      'A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.',
+      ...(review.nudge.sizingLine ? ['', safeText(review.nudge.sizingLine)] : []),
+      '',
+      '<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>',
+      '',
+      '```yaml',
+      review.nudge.planStub.replace(/```/g, "'''"),
+      '```',
+      '',
+      '</details>',
+      '',
+    );
+  }
   if (review.collisions.length) {
     out.push(
       '#### Running tests on the same surface',

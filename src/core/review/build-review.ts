@@ -1,4 +1,5 @@
 import { CHECKS } from '../checks/index.js';
+import { bugFixNudge, type BugFixNudge } from '../checks/bug-fix.js';
 import { collisionsOfLinked } from '../checks/collisions.js';
 import { eventStatuses, type EventStatus } from '../checks/logging.js';
 import { closestName } from '../source/closest-name.js';
@@ -51,6 +52,8 @@ export interface Review {
   plans: PlanReview[];
   flags: { key: string; file: string; line: number; side: 'added' | 'removed'; via: string; plans: string[]; exempt: boolean }[];
   collisions: ReviewCollision[];
+  /** On a bug fix that ships without a flag: why a check test is worth it, and a plan to paste. */
+  nudge?: BugFixNudge;
 }
 
 /** Which findings un-tick which checklist item. */
@@ -139,5 +142,6 @@ export function buildReview(context: ReviewContext, change: { base: string; head
 
   const nothing = context.touches.length === 0 && context.linked.length === 0 && context.invalidPlanFiles.length === 0 && findings.length === 0;
   const verdict: Verdict = nothing ? 'nothing-to-check' : counts.block ? 'blocked' : counts.warn ? 'warnings' : 'clear';
-  return { verdict, counts, base: change.base, head: change.head, findings, plans, flags, collisions };
+  const nudge = findings.some((f) => f.code === 'bug-fix-unmeasured') ? bugFixNudge(context) : undefined;
+  return { verdict, counts, base: change.base, head: change.head, findings, plans, flags, collisions, ...(nudge ? { nudge } : {}) };
 }

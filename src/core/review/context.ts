@@ -31,6 +31,8 @@ export interface ReviewContext {
   linked: LinkedPlan[];
   /** Plan files the change adds or edits that do not load. */
   invalidPlanFiles: { file: string; problems: Problem[] }[];
+  /** Paths the change adds or edits. */
+  changedPaths: string[];
   /** Flags the change touches in code or in flag definition files. */
   touches: FlagTouch[];
   registry: Registry;

@@ -42,6 +42,7 @@ export const FINDING_CODES = {
   'event-missing': { severity: 'warn', about: 'an event the plan names is not logged in the code' },
   'event-removed': { severity: 'block', about: 'the change removes an event a running test depends on' },
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
+  'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 
 export type FindingCode = keyof typeof FINDING_CODES;

@@ -116,6 +116,7 @@ export const reviewReportSchema = z
         known: z.boolean(),
       }),
     ),
+    nudge: z.object({ reason: z.string(), productFiles: z.array(z.string()), planStub: z.string(), sizingLine: z.string().optional() }).optional(),
   })
   .describe('The Plumbline pull-request review report.');
 

@@ -1,0 +1,16 @@
+import { flags, track } from '../flags';
+
+export function renderBasketSummary(basket: { id: string; usualItems: string[] }): string {
+  track('basket_viewed', { basketId: basket.id });
+  const showReorder = flags.getBooleanValue('basket-reorder-shortcut', false);
+  if (showReorder && basket.usualItems.length > 0) {
+    track('reorder_shortcut_shown', { basketId: basket.id });
+    const count = new Set(basket.usualItems).size;
+    return `<button data-action="reorder">Add your usual ${count} item${count === 1 ? "" : "s"}</button>`;
+  }
+  return '';
+}
+
+export function onReorderTapped(basketId: string): void {
+  track('reorder_tapped', { basketId });
+}

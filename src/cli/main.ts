@@ -22,6 +22,8 @@ import { renderReviewMarkdown } from '../core/report/review-markdown.js';
 import { renderReviewText } from '../core/report/review-text.js';
 import { reviewJson } from '../core/review/report-schema.js';
 import { pullRequestInfo, type CheckFlags } from './check-command.js';
+import { digestRepository } from '../run/digest.js';
+import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../core/report/digest-markdown.js';
 import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText } from '../core/report/readout.js';
 import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
 import { benjaminiHochberg, bonferroniAdjust } from '../core/stats/multiple-testing.js';
@@ -172,6 +174,22 @@ export function buildProgram(setExit: (code: number) => void): Command {
       else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { link: (path, line) => `${repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}` } : {}));
       else output.out(renderReviewText(review, { color: output.color }));
       setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
+    });
+
+  program
+    .command('digest')
+    .description('the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans')
+    .option('--today <date>', 'the day to judge by, YYYY-MM-DD (default: today in the settings’ time zone, UTC unless set)')
+    .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
+    .action(async (local: { today?: string; format: string }) => {
+      const options = program.opts<CommonOptions>();
+      const { output, ...ports } = context({ ...options, format: 'text' });
+      if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
+      const digest = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
+      if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
+      else if (local.format === 'markdown') output.out(renderDigestMarkdown(digest));
+      else output.out(renderDigestText(digest));
+      setExit(EXIT.ok);
     });
 
   program

@@ -1,0 +1,112 @@
+import type { Digest, DigestItemKind } from '../digest/build-digest.js';
+import { codeSpan, safeText } from './markdown-safe.js';
+import { COMMENT_LIMIT } from './review-markdown.js';
+import { terminalSafe } from './terminal-style.js';
+
+/** Finds the digest issue again; user text can never contain it (`<` is escaped). */
+export const DIGEST_MARKER = '<!-- plumbline:digest -->';
+/** Everything between these two lines is Plumbline's; text a person adds outside them is kept. */
+export const DIGEST_START = '<!-- plumbline:digest:start -->';
+export const DIGEST_END = '<!-- plumbline:digest:end -->';
+/** The timeline stays readable: at most this many bars, the rest counted. */
+export const TIMELINE_LIMIT = 40;
+
+const LABEL: Record<DigestItemKind, string> = {
+  overdue: '⏰ past its end',
+  'flag-gone': '🧹 flag gone from the code',
+  collision: '💥 collides',
+  'draft-past-start': '📝 draft past its start',
+  'long-on-hold': '⏸️ on hold too long',
+  'ending-soon': '📅 ending soon',
+};
+
+export function countLine(d: Digest): string {
+  const c = d.counts;
+  return `${c.overdue} past their planned end · ${c['ending-soon']} ending soon · ${c['draft-past-start']} drafts past their start · ${c['long-on-hold']} on hold too long · ${c.collision} collisions · ${c['flag-gone']} live with their flag gone · ${c.orphanFlags} flags in code without a plan — ${c.live} live, ${c.planned} drafts`;
+}
+
+/** Owners are mentioned once per digest, in their own heading; everywhere else handles are inert text. */
+function ownerHeading(owner: string): string {
+  return /^@[A-Za-z0-9][\w./-]*$/.test(owner) ? `### ${owner}` : `### ${safeText(owner)}`;
+}
+
+/** A bar label Mermaid accepts: no colon, hash or semicolon. */
+function taskName(id: string): string {
+  return id.replace(/[:#;]/g, '-');
+}
+
+function gantt(d: Digest): string[] {
+  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
+  const lines = ['```mermaid', 'gantt', '  title Live and planned tests by surface', '  dateFormat YYYY-MM-DD', `  todayMarker stroke-width:3px`];
+  let section = '';
+  shown.forEach((t, i) => {
+    const area = t.surface.split('/')[0]!;
+    if (area !== section) {
+      section = area;
+      lines.push(`  section ${taskName(area)}`);
+    }
+    const tag = t.overdue ? 'crit, ' : t.state === 'live' ? 'active, ' : '';
+    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+  });
+  lines.push('```');
+  if (d.timeline.length > shown.length) lines.push('', `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  return lines;
+}
+
+function render(d: Digest, withTimeline: boolean, itemsPerOwner: number): string {
+  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, '', `**${countLine(d)}**`, ''];
+  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push('Nothing needs attention this week.', '');
+  for (const { owner, items } of d.owners) {
+    out.push(ownerHeading(owner), '');
+    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
+    if (items.length > itemsPerOwner) out.push(`- …and ${items.length - itemsPerOwner} more (see the JSON report).`);
+    out.push('');
+  }
+  if (d.orphanFlags.length) {
+    out.push('### Flags in code that no plan covers', '', ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
+    if (d.orphanFlags.length > 50) out.push(`- …and ${d.orphanFlags.length - 50} more.`);
+    out.push('', 'Write a plan for each, or list kill switches and operational toggles under exempt-flags.', '');
+  }
+  if (withTimeline && d.timeline.length) out.push('### Timeline', '', ...gantt(d), '');
+  out.push(DIGEST_END);
+  return out.join('\n');
+}
+
+/** The digest block, under GitHub's body limit: the timeline goes first, then items beyond the first per owner. */
+export function renderDigestMarkdown(d: Digest, limit = COMMENT_LIMIT - 2000): string {
+  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]] as const) {
+    const body = render(d, timeline, per);
+    if (body.length <= limit) return body;
+  }
+  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, '', `**${countLine(d)}**`, '', 'The full list is too long for an issue; see the JSON report.', DIGEST_END].join('\n');
+}
+
+/**
+ * The issue body after this week's digest: the marked block replaced, text a person wrote before
+ * or after it kept as it was. A body without the block gets it at the top.
+ */
+export function mergeDigestBody(existing: string | undefined, block: string): string {
+  if (!existing) return block;
+  const start = existing.indexOf(DIGEST_START);
+  const end = existing.indexOf(DIGEST_END);
+  if (start < 0 || end < start) return `${block}\n\n${existing}`;
+  const before = existing.slice(0, start).replace(DIGEST_MARKER, '').replace(/\s+$/, '');
+  const after = existing.slice(end + DIGEST_END.length);
+  const blockBody = block.slice(block.indexOf(DIGEST_START));
+  return `${DIGEST_MARKER}\n${before ? `${before}\n` : ''}${blockBody}${after}`;
+}
+
+export function renderDigestText(d: Digest): string {
+  const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
+  for (const { owner, items } of d.owners) {
+    out.push('', terminalSafe(owner));
+    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
+  }
+  if (d.orphanFlags.length) {
+    out.push('', 'Flags in code that no plan covers:');
+    for (const f of d.orphanFlags) out.push(`  ${terminalSafe(f.key)} at ${f.location.file}:${f.location.line}`);
+  }
+  return out.join('\n');
+}
+
+export const DIGEST_JSON_FORMAT = 'plumbline.digest/1';

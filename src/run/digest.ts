@@ -1,0 +1,47 @@
+import { scanMatcher } from '../core/config/scan-files.js';
+import { buildDigest, type Digest } from '../core/digest/build-digest.js';
+import type { Location } from '../core/scan/name-scan.js';
+import { BUILTIN_FLAG_PATTERNS, compilePatterns, constantDefinition } from '../core/scan/patterns.js';
+import type { RepoFiles } from '../ports.js';
+import { requireWorkspace } from './load-workspace.js';
+
+/** Today's calendar date in a time zone (the digest's day boundary), from the caller's clock. */
+export function todayIn(timeZone: string, now: Date): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+}
+
+/** Every flag key the code evaluates, with its first place, from the flag-call patterns over the scanned files. */
+export async function flagsInCode(files: RepoFiles, settings: Parameters<typeof buildDigest>[0]['settings'], skip: ReadonlySet<string>): Promise<Map<string, Location>> {
+  const patterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : []), ...settings.flagCalls]);
+  const inScope = scanMatcher(settings.scan);
+  const paths = (await files.listFiles('')).filter((p) => inScope(p) && !skip.has(p));
+  const found = new Map<string, Location>();
+  const texts = await files.readTexts(paths);
+  paths.forEach((path, i) => {
+    const text = texts[i];
+    if (text === undefined || text.includes('\0')) return;
+    const lines = text.split('\n');
+    lines.forEach((line, n) => {
+      for (const pattern of patterns) {
+        for (const match of line.matchAll(pattern)) {
+          const key = match.groups?.key ?? (match.groups?.ident ? constantDefinition(match.groups.ident.slice(match.groups.ident.lastIndexOf('.') + 1)).exec(text)?.groups?.key : undefined);
+          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
+        }
+      }
+    });
+  });
+  return found;
+}
+
+/** The digest of a repository's registry as of `today` (or today in the settings' time zone). */
+export async function digestRepository(options: { files: RepoFiles; settingsPath?: string; today?: string; now: Date }): Promise<Digest> {
+  const workspace = await requireWorkspace({ files: options.files, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
+  const { settings } = workspace;
+  const skip = new Set([...workspace.planFiles, ...settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
+  return buildDigest({
+    registry: workspace.registry,
+    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
+    settings,
+    flagsInCode: await flagsInCode(options.files, settings, skip),
+  });
+}

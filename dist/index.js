@@ -40839,6 +40839,12 @@ function createGitHub(options) {
     author: c.user?.login ?? "",
     createdAt: c.created_at
   });
+  const toIssue = (i) => ({
+    number: i.number,
+    body: i.body ?? "",
+    author: i.user?.login ?? "",
+    createdAt: i.created_at
+  });
   return {
     listComments: (issue3) => wrap("listing comments", async () => {
       const all = await octokit.paginate(octokit.rest.issues.listComments, { ...repo, issue_number: issue3, per_page: 100 });
@@ -40854,6 +40860,14 @@ function createGitHub(options) {
       } catch (error63) {
         if (error63.status !== 404) throw error63;
       }
+    }),
+    listIssues: (label) => wrap("listing issues", async () => {
+      const all = await octokit.paginate(octokit.rest.issues.listForRepo, { ...repo, labels: label, state: "open", per_page: 100 });
+      return all.filter((i) => !i.pull_request).map(toIssue);
+    }),
+    createIssue: (title, body, labels) => wrap("creating an issue", async () => toIssue((await octokit.rest.issues.create({ ...repo, title, body, labels })).data)),
+    updateIssue: (number4, change2) => wrap("updating an issue", async () => {
+      await octokit.rest.issues.update({ ...repo, issue_number: number4, ...change2 });
     }),
     listPullRequestFiles: (pullRequest) => wrap("listing pull-request files", async () => {
       const all = await octokit.paginate(octokit.rest.pulls.listFiles, { ...repo, pull_number: pullRequest, per_page: 100 });
@@ -61859,6 +61873,9 @@ function toUtcMs(date5) {
   const [y, m, d] = date5.split("-").map(Number);
   return Date.UTC(y, m - 1, d);
 }
+function addDays(date5, days) {
+  return new Date(toUtcMs(date5) + days * DAY_MS).toISOString().slice(0, 10);
+}
 function daysBetween(from, to) {
   return Math.round((toUtcMs(to) - toUtcMs(from)) / DAY_MS);
 }
@@ -63982,6 +63999,14 @@ async function loadWorkspace(options) {
     }
   };
 }
+async function requireWorkspace(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
+${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  }
+  return loaded.workspace;
+}
 async function readSettingsText(files, named) {
   if (named) {
     const text2 = await files.readText(named);
@@ -64127,6 +64152,239 @@ async function reviewPullRequest(options) {
   }
 }
 
+// src/core/report/digest-markdown.ts
+var DIGEST_MARKER = "<!-- plumbline:digest -->";
+var DIGEST_START = "<!-- plumbline:digest:start -->";
+var DIGEST_END = "<!-- plumbline:digest:end -->";
+var TIMELINE_LIMIT = 40;
+var LABEL = {
+  overdue: "\u23F0 past its end",
+  "flag-gone": "\u{1F9F9} flag gone from the code",
+  collision: "\u{1F4A5} collides",
+  "draft-past-start": "\u{1F4DD} draft past its start",
+  "long-on-hold": "\u23F8\uFE0F on hold too long",
+  "ending-soon": "\u{1F4C5} ending soon"
+};
+function countLine(d) {
+  const c = d.counts;
+  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
+}
+function ownerHeading(owner2) {
+  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
+}
+function taskName(id) {
+  return id.replace(/[:#;]/g, "-");
+}
+function gantt(d) {
+  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
+  const lines = ["```mermaid", "gantt", "  title Live and planned tests by surface", "  dateFormat YYYY-MM-DD", `  todayMarker stroke-width:3px`];
+  let section = "";
+  shown.forEach((t, i) => {
+    const area = t.surface.split("/")[0];
+    if (area !== section) {
+      section = area;
+      lines.push(`  section ${taskName(area)}`);
+    }
+    const tag = t.overdue ? "crit, " : t.state === "live" ? "active, " : "";
+    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+  });
+  lines.push("```");
+  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  return lines;
+}
+function render2(d, withTimeline, itemsPerOwner) {
+  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
+  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  for (const { owner: owner2, items } of d.owners) {
+    out.push(ownerHeading(owner2), "");
+    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
+    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
+    out.push("");
+  }
+  if (d.orphanFlags.length) {
+    out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
+    out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
+  }
+  if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
+  out.push(DIGEST_END);
+  return out.join("\n");
+}
+function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
+  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
+    const body = render2(d, timeline, per);
+    if (body.length <= limit) return body;
+  }
+  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
+}
+function mergeDigestBody(existing, block) {
+  if (!existing) return block;
+  const start = existing.indexOf(DIGEST_START);
+  const end = existing.indexOf(DIGEST_END);
+  if (start < 0 || end < start) return `${block}
+
+${existing}`;
+  const before = existing.slice(0, start).replace(DIGEST_MARKER, "").replace(/\s+$/, "");
+  const after = existing.slice(end + DIGEST_END.length);
+  const blockBody = block.slice(block.indexOf(DIGEST_START));
+  return `${DIGEST_MARKER}
+${before ? `${before}
+` : ""}${blockBody}${after}`;
+}
+var DIGEST_JSON_FORMAT = "plumbline.digest/1";
+
+// src/core/digest/build-digest.ts
+function estimateSampleReached(entry, today) {
+  if (!entry.plan || !entry.window.start) return void 0;
+  const sizing = sizePlan(entry.plan).metrics[0];
+  const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
+  const daily = entry.plan.design.dailyUnits;
+  if (!headline || daily === void 0) return void 0;
+  const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
+  const days = Math.max(0, inclusiveDays(entry.window.start, end));
+  const enrolled = days * daily * entry.plan.design.trafficShare;
+  return enrolled >= headline.totalUnits;
+}
+function buildDigest(input2) {
+  const { registry: registry2, today, settings } = input2;
+  const items = [];
+  const item = (entry, kind, detail, extra = {}) => items.push({ kind, test: entry.id, title: entry.title, file: entry.file, line: entry.line, detail, ...extra });
+  const soon = addDays(today, settings.digest.endingSoonDays);
+  for (const entry of registry2.entries) {
+    const { start, end } = entry.window;
+    if (entry.state === "live" && end && end < today) {
+      const days = daysBetween(end, today);
+      const reached = estimateSampleReached(entry, today);
+      const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
+      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+    } else if (entry.state === "live" && end && end >= today && end <= soon) {
+      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
+    }
+    if (entry.state === "draft" && start && start < today) {
+      item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
+    }
+    if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
+      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+    }
+    if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
+      item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
+    }
+  }
+  const running = runningEntries(registry2.entries);
+  const seen = /* @__PURE__ */ new Set();
+  for (const entry of running) {
+    for (const c of findCollisions(entry, running)) {
+      const pair = [entry.id, c.other.id].sort().join(" ");
+      if (seen.has(pair) || c.known) continue;
+      seen.add(pair);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+    }
+  }
+  const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
+  const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
+  const byOwner = /* @__PURE__ */ new Map();
+  const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
+    const entry = registry2.entries.find((e) => e.id === it.test);
+    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
+  }
+  const counts = {
+    overdue: 0,
+    "ending-soon": 0,
+    "draft-past-start": 0,
+    "long-on-hold": 0,
+    "flag-gone": 0,
+    collision: 0,
+    live: running.length,
+    planned: registry2.entries.filter((e) => e.state === "draft").length,
+    orphanFlags: orphanFlags.length
+  };
+  for (const it of items) counts[it.kind]++;
+  const timeline = registry2.entries.filter((e) => (e.state === "live" || e.state === "draft" || e.state === "on-hold") && e.window.start && e.window.end).map((e) => ({ id: e.id, surface: e.surface.path, start: e.window.start, end: e.window.end, state: e.state, overdue: e.state === "live" && e.window.end < today })).sort((a, b) => a.surface.localeCompare(b.surface) || a.start.localeCompare(b.start));
+  return {
+    today,
+    counts,
+    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
+    orphanFlags,
+    timeline
+  };
+}
+
+// src/run/digest.ts
+function todayIn(timeZone, now) {
+  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+}
+async function flagsInCode(files, settings, skip) {
+  const patterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+  const inScope = scanMatcher(settings.scan);
+  const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
+  const found = /* @__PURE__ */ new Map();
+  const texts = await files.readTexts(paths);
+  paths.forEach((path6, i) => {
+    const text2 = texts[i];
+    if (text2 === void 0 || text2.includes("\0")) return;
+    const lines = text2.split("\n");
+    lines.forEach((line, n) => {
+      for (const pattern of patterns) {
+        for (const match of line.matchAll(pattern)) {
+          const key = match.groups?.key ?? (match.groups?.ident ? constantDefinition(match.groups.ident.slice(match.groups.ident.lastIndexOf(".") + 1)).exec(text2)?.groups?.key : void 0);
+          if (key && !found.has(key)) found.set(key, { file: path6, line: n + 1, column: (match.index ?? 0) + 1 });
+        }
+      }
+    });
+  });
+  return found;
+}
+async function digestRepository(options) {
+  const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
+  const { settings } = workspace;
+  const skip = /* @__PURE__ */ new Set([...workspace.planFiles, ...settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+  return buildDigest({
+    registry: workspace.registry,
+    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
+    settings,
+    flagsInCode: await flagsInCode(options.files, settings, skip)
+  });
+}
+
+// src/run/publish-digest.ts
+var DIGEST_TITLE = "Plumbline weekly digest";
+async function publishDigest(options) {
+  const { github, label, block, botLogin } = options;
+  const ours = async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.number - b.number);
+  let found = await ours();
+  const created = found.length === 0;
+  if (created) {
+    await github.createIssue(DIGEST_TITLE, block, [label]);
+    found = await ours();
+  }
+  const [keep, ...extra] = found;
+  if (!keep) throw new Error("the digest issue just created is not listed");
+  const body = mergeDigestBody(keep.body, block);
+  if (body !== keep.body) await github.updateIssue(keep.number, { body });
+  for (const duplicate of extra) await github.updateIssue(duplicate.number, { state: "closed" });
+  return { action: created ? "created" : "updated", number: keep.number, closedDuplicates: extra.length };
+}
+
+// src/run/action-digest.ts
+async function publishWeeklyDigest(options) {
+  const files = createRepoFiles(options.workspace);
+  const settingsPath = options.settingsPath ? { settingsPath: options.settingsPath } : {};
+  const { settings } = await requireWorkspace({ files, ...settingsPath });
+  const digest = await digestRepository({ files, now: options.now, ...settingsPath });
+  const markdown = renderDigestMarkdown(digest);
+  const json2 = { format: DIGEST_JSON_FORMAT, ...digest };
+  try {
+    await publishDigest({ github: options.github, label: settings.digest.label, block: markdown, botLogin: options.botLogin });
+    return { markdown, json: json2 };
+  } catch (error63) {
+    if (error63 instanceof GitHubError && (error63.status === 403 || error63.status === 404)) {
+      return { markdown, json: json2, problem: `${error63.message}. The digest workflow needs permissions: issues: write. The digest is in the job summary instead.` };
+    }
+    throw error63;
+  }
+}
+
 // src/action/effects.ts
 var ANNOTATIONS_PER_KIND = 10;
 function annotationsFor(review) {
@@ -64196,14 +64454,21 @@ async function main() {
   const settings = readActionSettings((name) => getInput(name));
   const { context: context3 } = github_exports;
   const mode = settings.mode === "auto" ? context3.eventName.startsWith("pull_request") ? "review" : "digest" : settings.mode;
+  const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
+  const port = createGitHub({ token: settings.token, owner: context3.repo.owner, repo: context3.repo.repo, baseUrl: context3.apiUrl, requestBudget: settings["request-budget"] });
   if (mode === "digest") {
-    warning("The weekly digest is not available in this version of Plumbline yet; nothing was published.");
+    const digest = await publishWeeklyDigest({ github: port, workspace, botLogin: settings["bot-login"], now: /* @__PURE__ */ new Date(), ...settings.config ? { settingsPath: settings.config } : {} });
+    const reportPath2 = join6(process.env.RUNNER_TEMP ?? workspace, "plumbline-digest.json");
+    await writeFileAtomic(reportPath2, `${JSON.stringify(digest.json, null, 2)}
+`, { overwrite: true });
+    if (digest.problem) warning(digest.problem);
+    setOutput("verdict", "digest");
+    setOutput("report", reportPath2);
+    await summary.addRaw(digest.markdown).write();
     return;
   }
   const event = pullRequestEvent(context3);
   if (!event) throw new UsageError(`mode review needs a pull_request event; this run was started by ${context3.eventName}`, "run the review on: pull_request, or set mode: digest");
-  const port = createGitHub({ token: settings.token, owner: context3.repo.owner, repo: context3.repo.repo, baseUrl: context3.apiUrl, requestBudget: settings["request-budget"] });
-  const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
   const result = await reviewPullRequest({ event, github: port, workspace, comment: settings.comment, botLogin: settings["bot-login"], ...settings.config ? { settingsPath: settings.config } : {} });
   if ("settingsProblems" in result) throw new UsageError(`the settings file has errors:
 ${result.settingsProblems}`, "run plumbline validate locally");

@@ -10,6 +10,7 @@ const steps = [
   { title: 'Sizing a clean plan', args: ['size', 'basket-reorder-shortcut'] },
   { title: 'Sizing a plan that logs exposure too early in the journey', args: ['size', 'search-suggestions-v2'] },
   { title: 'Sizing a test that randomizes households', args: ['size', 'shared-list-invite'] },
+  { title: 'The weekly digest, as of a week from now', args: ['digest', '--today', '2026-12-08'] },
 ];
 
 let broken = false;

@@ -66,4 +66,15 @@ export interface GitHubPort {
   deleteComment(id: number): Promise<void>;
   /** The pull request's files, 100 a page; `capped` when GitHub's 3,000-file limit cut the list. */
   listPullRequestFiles(pullRequest: number): Promise<{ files: PullRequestFile[]; capped: boolean }>;
+  /** Open issues with the label, across all pages; pull requests (which the issues API also lists) left out. */
+  listIssues(label: string): Promise<RepoIssue[]>;
+  createIssue(title: string, body: string, labels: string[]): Promise<RepoIssue>;
+  updateIssue(number: number, change: { body?: string; state?: 'open' | 'closed' }): Promise<void>;
+}
+
+export interface RepoIssue {
+  number: number;
+  body: string;
+  author: string;
+  createdAt: string;
 }

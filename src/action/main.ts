@@ -6,6 +6,7 @@ import { createGitHub } from '../adapters/github.js';
 import { reviewJson } from '../core/review/report-schema.js';
 import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
 import { reviewPullRequest, type PullRequestEvent } from '../run/action-review.js';
+import { publishWeeklyDigest } from '../run/action-digest.js';
 import { annotationsFor, pullRequestEvent, shouldFail } from './effects.js';
 import { readActionSettings } from './settings.js';
 
@@ -14,14 +15,20 @@ async function main(): Promise<void> {
   const settings = readActionSettings((name) => core.getInput(name));
   const { context } = github;
   const mode = settings.mode === 'auto' ? (context.eventName.startsWith('pull_request') ? 'review' : 'digest') : settings.mode;
+  const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
+  const port = createGitHub({ token: settings.token, owner: context.repo.owner, repo: context.repo.repo, baseUrl: context.apiUrl, requestBudget: settings['request-budget'] });
   if (mode === 'digest') {
-    core.warning('The weekly digest is not available in this version of Plumbline yet; nothing was published.');
+    const digest = await publishWeeklyDigest({ github: port, workspace, botLogin: settings['bot-login'], now: new Date(), ...(settings.config ? { settingsPath: settings.config } : {}) });
+    const reportPath = join(process.env.RUNNER_TEMP ?? workspace, 'plumbline-digest.json');
+    await writeFileAtomic(reportPath, `${JSON.stringify(digest.json, null, 2)}\n`, { overwrite: true });
+    if (digest.problem) core.warning(digest.problem);
+    core.setOutput('verdict', 'digest');
+    core.setOutput('report', reportPath);
+    await core.summary.addRaw(digest.markdown).write();
     return;
   }
   const event: PullRequestEvent | undefined = pullRequestEvent(context);
   if (!event) throw new UsageError(`mode review needs a pull_request event; this run was started by ${context.eventName}`, 'run the review on: pull_request, or set mode: digest');
-  const port = createGitHub({ token: settings.token, owner: context.repo.owner, repo: context.repo.repo, baseUrl: context.apiUrl, requestBudget: settings['request-budget'] });
-  const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
   const result = await reviewPullRequest({ event, github: port, workspace, comment: settings.comment, botLogin: settings['bot-login'], ...(settings.config ? { settingsPath: settings.config } : {}) });
   if ('settingsProblems' in result) throw new UsageError(`the settings file has errors:\n${result.settingsProblems}`, 'run plumbline validate locally');
 

@@ -2,7 +2,7 @@ import { getOctokit } from '@actions/github';
 import { retry } from '@octokit/plugin-retry';
 import { throttling } from '@octokit/plugin-throttling';
 import { ExternalError } from '../errors.js';
-import type { GitHubPort, IssueComment, PullRequestFile } from '../ports.js';
+import type { GitHubPort, IssueComment, PullRequestFile, RepoIssue } from '../ports.js';
 
 /** A GitHub API failure with its HTTP status, so callers can tell a read-only token (403) from the rest. */
 export class GitHubError extends ExternalError {
@@ -84,6 +84,13 @@ export function createGitHub(options: GitHubOptions): GitHubPort {
     createdAt: c.created_at,
   });
 
+  const toIssue = (i: { number: number; body?: string | null; user?: { login: string } | null; created_at: string }): RepoIssue => ({
+    number: i.number,
+    body: i.body ?? '',
+    author: i.user?.login ?? '',
+    createdAt: i.created_at,
+  });
+
   return {
     listComments: (issue) =>
       wrap('listing comments', async () => {
@@ -102,6 +109,16 @@ export function createGitHub(options: GitHubOptions): GitHubPort {
         } catch (error) {
           if ((error as { status?: number }).status !== 404) throw error;
         }
+      }),
+    listIssues: (label) =>
+      wrap('listing issues', async () => {
+        const all = await octokit.paginate(octokit.rest.issues.listForRepo, { ...repo, labels: label, state: 'open', per_page: 100 });
+        return all.filter((i) => !i.pull_request).map(toIssue);
+      }),
+    createIssue: (title, body, labels) => wrap('creating an issue', async () => toIssue((await octokit.rest.issues.create({ ...repo, title, body, labels })).data)),
+    updateIssue: (number, change) =>
+      wrap('updating an issue', async () => {
+        await octokit.rest.issues.update({ ...repo, issue_number: number, ...change });
       }),
     listPullRequestFiles: (pullRequest) =>
       wrap('listing pull-request files', async () => {

@@ -117,15 +117,49 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(github.refused).toEqual([]);
   });
 
+  const dispatch = { inputs: {}, ref: 'refs/heads/main', repository: { full_name: 'bramblecart/shop' }, sender: { login: 'ana-lima' }, workflow: '.github/workflows/digest.yml' };
+  const schedule = { schedule: '0 7 * * 1' };
+  const DIGEST_MARKER = '<!-- plumbline:digest -->';
+
   it.each([
-    ['workflow_dispatch', { inputs: {}, ref: 'refs/heads/main', repository: { full_name: 'bramblecart/shop' }, sender: { login: 'ana-lima' }, workflow: '.github/workflows/digest.yml' }],
-    ['schedule', { schedule: '0 7 * * 1' }],
-  ])('chooses the digest for a %s event and says it is not available yet, touching nothing', async (eventName, event) => {
+    ['workflow_dispatch', dispatch],
+    ['schedule', schedule],
+  ])('publishes the digest issue on a %s event: created the first week, updated the next, people’s text kept', async (eventName, event) => {
     const { repo, github } = await setup({});
-    const run = await runAction({ github, workspace: repo.root, event, eventName });
+    const first = await runAction({ github, workspace: repo.root, event, eventName });
+    expect(first.status, first.stdout).toBe(0);
+    expect(github.issues()).toHaveLength(1);
+    const issue = github.issues()[0]!;
+    expect(issue.labels).toEqual(['plumbline-digest']);
+    expect(issue.body.startsWith(DIGEST_MARKER)).toBe(true);
+    expect(issue.body).toContain('past its end');
+    expect(first.summary).toContain('Plumbline weekly digest');
+    issue.body = `Notes from the team: readouts on Thursday.\n\n${issue.body}\n\nPlease add your test here.`;
+    const second = await runAction({ github, workspace: repo.root, event, eventName });
+    expect(second.status).toBe(0);
+    expect(github.issues()).toHaveLength(1);
+    expect(github.issues()[0]!.body).toContain('Notes from the team: readouts on Thursday.');
+    expect(github.issues()[0]!.body).toContain('Please add your test here.');
+    expect(github.issues()[0]!.body.split(DIGEST_MARKER)).toHaveLength(2);
+    expect(github.refused).toEqual([]);
+  });
+
+  it('leaves one open digest issue when two scheduled runs race, and never touches a pull request', async () => {
+    const { repo, github } = await setup({});
+    github.addIssue({ title: 'A pull request', body: `${DIGEST_MARKER}\nnot an issue`, labels: ['plumbline-digest'], login: 'github-actions[bot]', pullRequest: true });
+    await Promise.all([runAction({ github, workspace: repo.root, event: schedule, eventName: 'schedule' }), runAction({ github, workspace: repo.root, event: schedule, eventName: 'schedule' })]);
+    const open = github.issues().filter((i) => i.state === 'open' && !i.pullRequest);
+    expect(open).toHaveLength(1);
+    expect(github.issues().find((i) => i.pullRequest)!.body).toBe(`${DIGEST_MARKER}\nnot an issue`);
+    expect(github.refused).toEqual([]);
+  });
+
+  it('writes the digest to the summary when the token cannot open issues', async () => {
+    const { repo, github } = await setup({}, { readOnly: true });
+    const run = await runAction({ github, workspace: repo.root, event: schedule, eventName: 'schedule' });
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain('::warning::The weekly digest is not available in this version of Plumbline yet');
-    expect(github.requests).toEqual([]);
+    expect(run.stdout).toContain('issues: write');
+    expect(run.summary).toContain('Plumbline weekly digest');
   });
 
   it('refuses mode review on an event without a pull request', async () => {

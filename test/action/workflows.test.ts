@@ -12,10 +12,10 @@ const read = (path: string) => readFileSync(new URL(path, root), 'utf8');
 const readme = read('README.md');
 const action = parse(read('action.yml')) as { inputs: Record<string, unknown>; runs: { using: string; main: string } };
 
-/** The README's example review workflow, as a user copies it. */
-function readmeWorkflow(): { text: string; value: any } {
-  const block = [...readme.matchAll(/```yaml\n([\s\S]*?)```/g)].map((m) => m[1]!).find((b) => b.startsWith('# .github/workflows/experiment-review.yml'));
-  if (!block) throw new Error('the README lost its review workflow');
+/** An example workflow of the README, as a user copies it. */
+function readmeWorkflow(file = 'experiment-review.yml'): { text: string; value: any } {
+  const block = [...readme.matchAll(/```yaml\n([\s\S]*?)```/g)].map((m) => m[1]!).find((b) => b.startsWith(`# .github/workflows/${file}`));
+  if (!block) throw new Error(`the README lost its ${file} workflow`);
   return { text: block, value: parse(block) };
 }
 
@@ -47,6 +47,18 @@ describe('the Action as documented', () => {
     const own = read('.github/workflows/review.yml');
     const strip = (t: string) => t.split('\n').filter((l) => !l.startsWith('#')).join('\n').replace(/uses: \S*plumbline\S*|uses: \.\//, 'uses: <plumbline>').trim();
     expect(strip(own)).toBe(strip(text));
+  });
+
+  it('gives a digest workflow with a weekly schedule, a manual trigger, a concurrency group and only issues: write', () => {
+    const { value, text } = readmeWorkflow('experiment-digest.yml');
+    expect(Object.keys(value.on).sort()).toEqual(['schedule', 'workflow_dispatch']);
+    expect(value.on.schedule[0].cron).toBe('0 7 * * 1');
+    expect(value.permissions).toEqual({});
+    expect(value.jobs.digest.permissions).toEqual({ issues: 'write' });
+    expect(value.concurrency.group).toBe('plumbline-digest');
+    expect(value.jobs.digest.steps[1].with).toEqual({ mode: 'digest' });
+    const strip = (t: string) => t.split('\n').filter((l) => !l.startsWith('#')).join('\n').replace(/uses: \S*plumbline\S*|uses: \.\//, 'uses: <plumbline>').trim();
+    expect(strip(read('.github/workflows/digest.yml'))).toBe(strip(text));
   });
 
   it('works with the README’s inputs on a pull request that blocks', async () => {

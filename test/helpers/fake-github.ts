@@ -18,10 +18,23 @@ const subset = JSON.parse(readFileSync(new URL('../fixtures/github/openapi-subse
 // OpenAPI 3.0 schemas: `nullable` and `example` are part of them, formats are not checked.
 const ajv = new Ajv({ strict: false, allErrors: true, validateFormats: false });
 const validators = new Map<string, ValidateFunction>();
+/**
+ * OpenAPI 3.0 lets `nullable` stand beside allOf/oneOf without a `type`; JSON Schema (and Ajv)
+ * need that said as "this schema, or null".
+ */
+function asJsonSchema(node: unknown): unknown {
+  if (Array.isArray(node)) return node.map(asJsonSchema);
+  if (node === null || typeof node !== 'object') return node;
+  const { nullable, ...rest } = node as Record<string, unknown>;
+  const converted = Object.fromEntries(Object.entries(rest).map(([k, v]) => [k, asJsonSchema(v)]));
+  if (nullable === true && converted.type === undefined) return { anyOf: [converted, { type: 'null' }] };
+  return nullable === undefined ? converted : { ...converted, nullable };
+}
+
 function validator(key: string, schema: object): ValidateFunction {
   let v = validators.get(key);
   if (!v) {
-    v = ajv.compile(schema);
+    v = ajv.compile(asJsonSchema(schema) as object);
     validators.set(key, v);
   }
   return v;
@@ -43,6 +56,18 @@ export interface FakeGitHubModes {
   bodyLimit?: number;
 }
 
+interface StoredIssue {
+  number: number;
+  title: string;
+  body: string;
+  labels: string[];
+  state: 'open' | 'closed';
+  login: string;
+  created_at: string;
+  updated_at: string;
+  pullRequest: boolean;
+}
+
 interface StoredComment {
   id: number;
   issue: number;
@@ -62,6 +87,8 @@ export interface FakeGitHub {
   comments(issue: number): StoredComment[];
   addComment(issue: number, body: string, login: string): void;
   setPullRequestFiles(pr: number, files: { filename: string; status: string; patch?: string; previous_filename?: string }[]): void;
+  issues(): StoredIssue[];
+  addIssue(issue: { title: string; body: string; labels: string[]; login: string; pullRequest?: boolean; state?: 'open' | 'closed' }): void;
   modes: FakeGitHubModes;
   close(): Promise<void>;
 }
@@ -104,6 +131,8 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
   const refused: string[] = [];
   const store: StoredComment[] = [];
   const files = new Map<number, { filename: string; status: string; patch?: string; previous_filename?: string }[]>();
+  const issues: StoredIssue[] = [];
+  let nextIssue = 1;
   let nextId = 1000;
   let clock = Date.UTC(2026, 11, 1, 9, 0, 0);
   const now = () => new Date((clock += 1000)).toISOString().replace(/\.\d{3}Z$/, 'Z');
@@ -121,10 +150,45 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
     author_association: 'NONE',
   });
 
+  const issueJson = (i: StoredIssue) => ({
+    id: 5000 + i.number,
+    node_id: `I_${i.number}`,
+    url: `https://api.github.com/repos/${owner}/${repo}/issues/${i.number}`,
+    repository_url: `https://api.github.com/repos/${owner}/${repo}`,
+    labels_url: `https://api.github.com/repos/${owner}/${repo}/issues/${i.number}/labels{/name}`,
+    comments_url: `https://api.github.com/repos/${owner}/${repo}/issues/${i.number}/comments`,
+    events_url: `https://api.github.com/repos/${owner}/${repo}/issues/${i.number}/events`,
+    html_url: `https://github.com/${owner}/${repo}/issues/${i.number}`,
+    number: i.number,
+    state: i.state,
+    title: i.title,
+    body: i.body,
+    user: user(i.login),
+    labels: i.labels.map((name, n) => ({ id: n + 1, node_id: `LA_${n}`, url: `https://api.github.com/repos/${owner}/${repo}/labels/${name}`, name, color: 'ededed', default: false, description: null })),
+    assignee: null,
+    milestone: null,
+    locked: false,
+    comments: 0,
+    closed_at: i.state === 'closed' ? i.updated_at : null,
+    created_at: i.created_at,
+    updated_at: i.updated_at,
+    author_association: 'NONE',
+    ...(i.pullRequest ? { pull_request: { url: `https://api.github.com/repos/${owner}/${repo}/pulls/${i.number}`, html_url: `https://github.com/${owner}/${repo}/pull/${i.number}`, diff_url: null, patch_url: null } } : {}),
+  });
+
   const server: Server = createServer((req: IncomingMessage, res: ServerResponse) => {
     const chunks: Buffer[] = [];
     req.on('data', (c: Buffer) => chunks.push(c));
     req.on('end', () => {
+      try {
+        handle();
+      } catch (error) {
+        refused.push(`the fake itself failed: ${error instanceof Error ? error.message : String(error)}`);
+        res.writeHead(500, { 'content-type': 'application/json' });
+        res.end(JSON.stringify({ message: 'fake failure' }));
+      }
+    });
+    const handle = () => {
       const url = new URL(req.url ?? '/', 'http://localhost');
       const method = (req.method ?? 'GET').toUpperCase();
       const text = Buffer.concat(chunks).toString('utf8');
@@ -168,7 +232,14 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
       const perPage = Math.min(100, Number(url.searchParams.get('per_page') ?? '30'));
       const paged = <T>(all: T[], base: string) => {
         const last = Math.max(1, Math.ceil(all.length / perPage));
-        const link = (p: number, rel: string) => `<${base}?per_page=${perPage}&page=${p}>; rel="${rel}"`;
+        const link = (p: number, rel: string) => {
+          // Keep the other query parameters (labels, state) as GitHub does.
+          const next = new URL(base);
+          url.searchParams.forEach((v, k) => next.searchParams.set(k, v));
+          next.searchParams.set('per_page', String(perPage));
+          next.searchParams.set('page', String(p));
+          return `<${next.toString()}>; rel="${rel}"`;
+        };
         const links = [...(page < last ? [link(page + 1, 'next'), link(last, 'last')] : []), ...(page > 1 ? [link(1, 'first'), link(page - 1, 'prev')] : [])];
         const headers: Record<string, string> = links.length ? { link: links.join(', ') } : {};
         return { items: all.slice((page - 1) * perPage, page * perPage), headers };
@@ -222,11 +293,35 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
           }));
           return send(200, shaped, headers);
         }
+        case 'GET /repos/{owner}/{repo}/issues': {
+          const label = url.searchParams.get('labels');
+          const state = url.searchParams.get('state') ?? 'open';
+          const all = issues.filter((i) => (state === 'all' || i.state === state) && (!label || label.split(',').every((l) => i.labels.includes(l))));
+          const { items, headers } = paged(all, self);
+          return send(200, items.map(issueJson), headers);
+        }
+        case 'POST /repos/{owner}/{repo}/issues': {
+          const b = body as { title: string; body?: string; labels?: string[] };
+          if (modes.bodyLimit && (b.body ?? '').length > modes.bodyLimit) return send(422, { message: 'Validation Failed', errors: [], documentation_url: 'https://docs.github.com/rest' });
+          const at = now();
+          const issue: StoredIssue = { number: nextIssue++, title: String(b.title), body: b.body ?? '', labels: b.labels ?? [], state: 'open', login: botLogin, created_at: at, updated_at: at, pullRequest: false };
+          issues.push(issue);
+          return send(201, issueJson(issue));
+        }
+        case 'PATCH /repos/{owner}/{repo}/issues/{issue_number}': {
+          const issue = issues.find((i) => i.number === Number(params[2]));
+          if (!issue) return send(404, { message: 'Not Found', documentation_url: 'https://docs.github.com/rest' });
+          const b = body as { body?: string; state?: 'open' | 'closed' };
+          if (b.body !== undefined) issue.body = b.body;
+          if (b.state) issue.state = b.state;
+          issue.updated_at = now();
+          return send(200, issueJson(issue));
+        }
         default:
           refused.push(`${key}: known to the description but not served by this fake`);
           return send(404, { message: 'Not Found', documentation_url: 'https://docs.github.com/rest' });
       }
-    });
+    };
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const address = server.address();
@@ -243,6 +338,11 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
       store.push({ id: nextId++, issue, body, login, created_at: at, updated_at: at });
     },
     setPullRequestFiles: (pr, list) => files.set(pr, list),
+    issues: () => issues,
+    addIssue(issue) {
+      const at = now();
+      issues.push({ number: nextIssue++, title: issue.title, body: issue.body, labels: issue.labels, state: issue.state ?? 'open', login: issue.login, created_at: at, updated_at: at, pullRequest: issue.pullRequest ?? false });
+    },
     modes,
     close: () => new Promise((resolve) => server.close(() => resolve())),
   };

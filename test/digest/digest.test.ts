@@ -30,12 +30,15 @@ describe('buildDigest', () => {
     ['on hold too long', [cleanPlan({ state: 'on-hold' })], '2026-11-20', 'long-on-hold', /18 days after its start/],
     ['a live plan whose flag left the code', [cleanPlan()], '2026-11-10', 'flag-gone', /no longer appears/],
     ['two live tests colliding', [cleanPlan(), cleanPlan({ id: 'other', flags: ['good-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' } })], '2026-11-10', 'collision', /alongside other/],
-  ])('%s', (_name, plans, today, kind, detail) => {
+  ])('%s', async (name, plans, today, kind, detail) => {
     const digest = digestOf(plans, today, kind === 'flag-gone' ? [] : ['good-flag']);
     const items = digest.owners.flatMap((o) => o.items).filter((i) => i.kind === kind);
     expect(items.length).toBeGreaterThan(0);
     expect(items[0]!.detail).toMatch(detail);
     expect(digest.counts[kind as 'overdue']).toBeGreaterThan(0);
+    const slug = name.replace(/[^a-z0-9]+/gi, '-').toLowerCase();
+    await expect(renderDigestMarkdown(digest)).toMatchFileSnapshot(`golden/case-${slug}.md`);
+    await expect(`${JSON.stringify(digest, null, 2)}\n`).toMatchFileSnapshot(`golden/case-${slug}.json`);
   });
 
   it.each([

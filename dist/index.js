@@ -63207,6 +63207,12 @@ var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
 function compilePatterns(patterns) {
   return patterns.map((p) => new RegExp(p, "gu"));
 }
+function flagPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+}
+function logPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
+}
 
 // src/core/scan/flag-touches.ts
 function findFlagTouches(inputs) {
@@ -63999,6 +64005,9 @@ async function loadWorkspace(options) {
     }
   };
 }
+function ownFilesOf(workspace) {
+  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+}
 async function requireWorkspace(options) {
   const loaded = await loadWorkspace(options);
   if (!loaded.ok) {
@@ -64050,7 +64059,7 @@ async function reviewChange(options) {
   const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
   const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
-  const flagPatterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+  const flagPatterns = flagPatternsOf(settings);
   const codeTouches = findFlagTouches({
     diffs: textual.filter((d) => !isFlagFile(d.path)),
     patterns: flagPatterns,
@@ -64067,10 +64076,10 @@ async function reviewChange(options) {
   }));
   const running = runningEntries(workspace.registry.entries);
   const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
-  const logPatterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
+  const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
-    const ownFiles = /* @__PURE__ */ new Set([...workspace.planFiles, ...settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+    const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
     const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
     let done = 0;
@@ -64315,7 +64324,7 @@ function todayIn(timeZone, now) {
   return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
 }
 async function flagsInCode(files, settings, skip) {
-  const patterns = compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+  const patterns = flagPatternsOf(settings);
   const inScope = scanMatcher(settings.scan);
   const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
   const found = /* @__PURE__ */ new Map();
@@ -64327,7 +64336,7 @@ async function flagsInCode(files, settings, skip) {
     lines.forEach((line, n) => {
       for (const pattern of patterns) {
         for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? constantDefinition(match.groups.ident.slice(match.groups.ident.lastIndexOf(".") + 1)).exec(text2)?.groups?.key : void 0);
+          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text2, match.groups.ident) : void 0);
           if (key && !found.has(key)) found.set(key, { file: path6, line: n + 1, column: (match.index ?? 0) + 1 });
         }
       }
@@ -64338,13 +64347,14 @@ async function flagsInCode(files, settings, skip) {
 async function digestRepository(options) {
   const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   const { settings } = workspace;
-  const skip = /* @__PURE__ */ new Set([...workspace.planFiles, ...settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
-  return buildDigest({
+  const skip = ownFilesOf(workspace);
+  const digest = buildDigest({
     registry: workspace.registry,
     today: options.today ?? todayIn(settings.digest.timeZone, options.now),
     settings,
     flagsInCode: await flagsInCode(options.files, settings, skip)
   });
+  return { digest, settings };
 }
 
 // src/run/publish-digest.ts
@@ -64370,8 +64380,7 @@ async function publishDigest(options) {
 async function publishWeeklyDigest(options) {
   const files = createRepoFiles(options.workspace);
   const settingsPath = options.settingsPath ? { settingsPath: options.settingsPath } : {};
-  const { settings } = await requireWorkspace({ files, ...settingsPath });
-  const digest = await digestRepository({ files, now: options.now, ...settingsPath });
+  const { digest, settings } = await digestRepository({ files, now: options.now, ...settingsPath });
   const markdown = renderDigestMarkdown(digest);
   const json2 = { format: DIGEST_JSON_FORMAT, ...digest };
   try {

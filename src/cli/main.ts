@@ -185,7 +185,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
       const options = program.opts<CommonOptions>();
       const { output, ...ports } = context({ ...options, format: 'text' });
       if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
-      const digest = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
+      const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
       if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
       else if (local.format === 'markdown') output.out(renderDigestMarkdown(digest));
       else output.out(renderDigestText(digest));

@@ -3,15 +3,13 @@ import { GitHubError } from '../adapters/github.js';
 import { DIGEST_JSON_FORMAT, renderDigestMarkdown } from '../core/report/digest-markdown.js';
 import type { GitHubPort } from '../ports.js';
 import { digestRepository } from './digest.js';
-import { requireWorkspace } from './load-workspace.js';
 import { publishDigest } from './publish-digest.js';
 
 /** The scheduled run: the digest of the checked-out repository, published as its one digest issue. */
 export async function publishWeeklyDigest(options: { github: GitHubPort; workspace: string; settingsPath?: string; botLogin: string; now: Date }): Promise<{ markdown: string; json: object; problem?: string }> {
   const files = createRepoFiles(options.workspace);
   const settingsPath = options.settingsPath ? { settingsPath: options.settingsPath } : {};
-  const { settings } = await requireWorkspace({ files, ...settingsPath });
-  const digest = await digestRepository({ files, now: options.now, ...settingsPath });
+  const { digest, settings } = await digestRepository({ files, now: options.now, ...settingsPath });
   const markdown = renderDigestMarkdown(digest);
   const json = { format: DIGEST_JSON_FORMAT, ...digest };
   try {

@@ -1,9 +1,11 @@
 import { scanMatcher } from '../core/config/scan-files.js';
 import { buildDigest, type Digest } from '../core/digest/build-digest.js';
+import type { Settings } from '../core/config/schema.js';
 import type { Location } from '../core/scan/name-scan.js';
-import { BUILTIN_FLAG_PATTERNS, compilePatterns, constantDefinition } from '../core/scan/patterns.js';
+import { flagPatternsOf } from '../core/scan/patterns.js';
+import { resolveConstant } from '../core/scan/flag-touches.js';
 import type { RepoFiles } from '../ports.js';
-import { requireWorkspace } from './load-workspace.js';
+import { ownFilesOf, requireWorkspace } from './load-workspace.js';
 
 /** Today's calendar date in a time zone (the digest's day boundary), from the caller's clock. */
 export function todayIn(timeZone: string, now: Date): string {
@@ -11,8 +13,8 @@ export function todayIn(timeZone: string, now: Date): string {
 }
 
 /** Every flag key the code evaluates, with its first place, from the flag-call patterns over the scanned files. */
-export async function flagsInCode(files: RepoFiles, settings: Parameters<typeof buildDigest>[0]['settings'], skip: ReadonlySet<string>): Promise<Map<string, Location>> {
-  const patterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : []), ...settings.flagCalls]);
+export async function flagsInCode(files: RepoFiles, settings: Settings, skip: ReadonlySet<string>): Promise<Map<string, Location>> {
+  const patterns = flagPatternsOf(settings);
   const inScope = scanMatcher(settings.scan);
   const paths = (await files.listFiles('')).filter((p) => inScope(p) && !skip.has(p));
   const found = new Map<string, Location>();
@@ -24,7 +26,7 @@ export async function flagsInCode(files: RepoFiles, settings: Parameters<typeof 
     lines.forEach((line, n) => {
       for (const pattern of patterns) {
         for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? constantDefinition(match.groups.ident.slice(match.groups.ident.lastIndexOf('.') + 1)).exec(text)?.groups?.key : undefined);
+          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text, match.groups.ident) : undefined);
           if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
         }
       }
@@ -34,14 +36,15 @@ export async function flagsInCode(files: RepoFiles, settings: Parameters<typeof 
 }
 
 /** The digest of a repository's registry as of `today` (or today in the settings' time zone). */
-export async function digestRepository(options: { files: RepoFiles; settingsPath?: string; today?: string; now: Date }): Promise<Digest> {
+export async function digestRepository(options: { files: RepoFiles; settingsPath?: string; today?: string; now: Date }): Promise<{ digest: Digest; settings: Settings }> {
   const workspace = await requireWorkspace({ files: options.files, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   const { settings } = workspace;
-  const skip = new Set([...workspace.planFiles, ...settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
-  return buildDigest({
+  const skip = ownFilesOf(workspace);
+  const digest = buildDigest({
     registry: workspace.registry,
     today: options.today ?? todayIn(settings.digest.timeZone, options.now),
     settings,
     flagsInCode: await flagsInCode(options.files, settings, skip),
   });
+  return { digest, settings };
 }

@@ -91,6 +91,11 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
   };
 }
 
+/** Plumbline's own files (plans, registry files, settings): never scanned as code. */
+export function ownFilesOf(workspace: Workspace): Set<string> {
+  return new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
+}
+
 /** For use cases that cannot go on without settings: an invalid settings file becomes a usage error. */
 export async function requireWorkspace(options: LoadWorkspaceOptions): Promise<Workspace> {
   const loaded = await loadWorkspace(options);

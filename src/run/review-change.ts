@@ -10,11 +10,11 @@ import { parseUnifiedDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
 import { findFlagTouches } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location } from '../core/scan/name-scan.js';
-import { BUILTIN_FLAG_PATTERNS, BUILTIN_LOG_PATTERNS, QUOTED_STRING, compilePatterns } from '../core/scan/patterns.js';
+import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
-import { loadWorkspace } from './load-workspace.js';
+import { loadWorkspace, ownFilesOf } from './load-workspace.js';
 
 export interface ReviewChangeOptions {
   change: ChangeSource;
@@ -55,7 +55,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     .flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === 'deleted' ? undefined : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text]) => [...(flagDefinitions(text)?.keys() ?? [])]);
   const knownKeys = new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
-  const flagPatterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : []), ...settings.flagCalls]);
+  const flagPatterns = flagPatternsOf(settings);
   const codeTouches = findFlagTouches({
     diffs: textual.filter((d) => !isFlagFile(d.path)),
     patterns: flagPatterns,
@@ -77,10 +77,10 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   // One pass over the tracked code at head finds every event any linked or running plan names.
   const running = runningEntries(workspace.registry.entries);
   const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
-  const logPatterns = compilePatterns([...(settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : []), ...settings.logCalls]);
+  const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
-    const ownFiles = new Set([...workspace.planFiles, ...settings.registryFiles, ...(workspace.settingsFile ? [workspace.settingsFile] : [])]);
+    const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
     const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
     let done = 0;

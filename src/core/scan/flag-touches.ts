@@ -59,7 +59,7 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
 }
 
 /** The string a constant holds, looked up where it is defined in the same file (last segment of a dotted name). */
-function resolveConstant(text: string | undefined, ident: string): string | undefined {
+export function resolveConstant(text: string | undefined, ident: string): string | undefined {
   if (!text) return undefined;
   const name = ident.slice(ident.lastIndexOf('.') + 1);
   return constantDefinition(name).exec(text)?.groups?.key;

@@ -51,3 +51,13 @@ export const QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
 export function compilePatterns(patterns: readonly string[]): RegExp[] {
   return patterns.map((p) => new RegExp(p, 'gu'));
 }
+
+/** The flag-call patterns a repository uses: the built-in ones (unless turned off) and its own. */
+export function flagPatternsOf(settings: { builtinPatterns: boolean; flagCalls: readonly string[] }): RegExp[] {
+  return compilePatterns([...(settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : []), ...settings.flagCalls]);
+}
+
+/** The logging-call patterns a repository uses: the built-in ones (unless turned off) and its own. */
+export function logPatternsOf(settings: { builtinPatterns: boolean; logCalls: readonly string[] }): RegExp[] {
+  return compilePatterns([...(settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : []), ...settings.logCalls]);
+}

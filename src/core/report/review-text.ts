@@ -15,7 +15,8 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
     clear: style.green('all clear'),
     'nothing-to-check': style.green('nothing to check'),
   }[review.verdict];
-  out.push(`${style.bold('Plumbline')}: ${verdict} (${review.counts.block} blocking, ${review.counts.warn} warnings, ${review.counts.note} notes) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  const n = (count: number, noun: string) => `${count} ${noun}${count === 1 ? '' : 's'}`;
+  out.push(`${style.bold('Plumbline')}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, 'warning')}, ${n(review.counts.note, 'note')}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
     return out.join('\n');

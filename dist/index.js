@@ -64108,18 +64108,27 @@ async function reviewChange(options) {
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
 }
 
+// src/run/keep-oldest.ts
+async function keepOldest(options) {
+  const sorted = async () => (await options.list()).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id);
+  let found = await sorted();
+  const created = found.length === 0;
+  if (created) {
+    await options.create();
+    found = await sorted();
+  }
+  const [keep, ...extra] = found;
+  if (!keep) throw new Error("the item just created is not listed");
+  return { keep, extra, created };
+}
+
 // src/run/sticky-comment.ts
 async function upsertStickyComment(options) {
   const { github, issue: issue3, marker, body, botLogin } = options;
-  const ours = async () => (await github.listComments(issue3)).filter((c) => c.author === botLogin && c.body.startsWith(marker)).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id);
-  let found = await ours();
-  const created = found.length === 0;
-  if (created) {
-    await github.createComment(issue3, body);
-    found = await ours();
-  }
-  const [keep, ...extra] = found;
-  if (!keep) throw new Error("the comment just created is not listed");
+  const { keep, extra, created } = await keepOldest({
+    list: async () => (await github.listComments(issue3)).filter((c) => c.author === botLogin && c.body.startsWith(marker)),
+    create: () => github.createComment(issue3, body)
+  });
   const action = created ? "created" : keep.body === body ? "unchanged" : "updated";
   if (keep.body !== body) await github.updateComment(keep.id, body);
   for (const duplicate of extra) await github.deleteComment(duplicate.id);
@@ -64361,15 +64370,10 @@ async function digestRepository(options) {
 var DIGEST_TITLE = "Plumbline weekly digest";
 async function publishDigest(options) {
   const { github, label, block, botLogin } = options;
-  const ours = async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.number - b.number);
-  let found = await ours();
-  const created = found.length === 0;
-  if (created) {
-    await github.createIssue(DIGEST_TITLE, block, [label]);
-    found = await ours();
-  }
-  const [keep, ...extra] = found;
-  if (!keep) throw new Error("the digest issue just created is not listed");
+  const { keep, extra, created } = await keepOldest({
+    list: async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map((i) => ({ ...i, id: i.number })),
+    create: () => github.createIssue(DIGEST_TITLE, block, [label])
+  });
   const body = mergeDigestBody(keep.body, block);
   if (body !== keep.body) await github.updateIssue(keep.number, { body });
   for (const duplicate of extra) await github.updateIssue(duplicate.number, { state: "closed" });

@@ -1,5 +1,6 @@
 import { DIGEST_MARKER, mergeDigestBody } from '../core/report/digest-markdown.js';
 import type { GitHubPort } from '../ports.js';
+import { keepOldest } from './keep-oldest.js';
 
 export const DIGEST_TITLE = 'Plumbline weekly digest';
 
@@ -10,16 +11,11 @@ export const DIGEST_TITLE = 'Plumbline weekly digest';
  */
 export async function publishDigest(options: { github: GitHubPort; label: string; block: string; botLogin: string }): Promise<{ action: 'created' | 'updated'; number: number; closedDuplicates: number }> {
   const { github, label, block, botLogin } = options;
-  const ours = async () =>
-    (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.number - b.number);
-  let found = await ours();
-  const created = found.length === 0;
-  if (created) {
-    await github.createIssue(DIGEST_TITLE, block, [label]);
-    found = await ours();
-  }
-  const [keep, ...extra] = found;
-  if (!keep) throw new Error('the digest issue just created is not listed');
+  const { keep, extra, created } = await keepOldest({
+    list: async () =>
+      (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map((i) => ({ ...i, id: i.number })),
+    create: () => github.createIssue(DIGEST_TITLE, block, [label]),
+  });
   const body = mergeDigestBody(keep.body, block);
   if (body !== keep.body) await github.updateIssue(keep.number, { body });
   for (const duplicate of extra) await github.updateIssue(duplicate.number, { state: 'closed' });

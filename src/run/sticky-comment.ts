@@ -1,4 +1,5 @@
 import type { GitHubPort } from '../ports.js';
+import { keepOldest } from './keep-oldest.js';
 
 export interface StickyResult {
   action: 'created' | 'updated' | 'unchanged';
@@ -14,20 +15,10 @@ export interface StickyResult {
  */
 export async function upsertStickyComment(options: { github: GitHubPort; issue: number; marker: string; body: string; botLogin: string }): Promise<StickyResult> {
   const { github, issue, marker, body, botLogin } = options;
-  const ours = async () =>
-    (await github.listComments(issue))
-      .filter((c) => c.author === botLogin && c.body.startsWith(marker))
-      .sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id);
-
-  let found = await ours();
-  const created = found.length === 0;
-  if (created) {
-    await github.createComment(issue, body);
-    // Look again: a run racing this one may have created its own copy meanwhile.
-    found = await ours();
-  }
-  const [keep, ...extra] = found;
-  if (!keep) throw new Error('the comment just created is not listed');
+  const { keep, extra, created } = await keepOldest({
+    list: async () => (await github.listComments(issue)).filter((c) => c.author === botLogin && c.body.startsWith(marker)),
+    create: () => github.createComment(issue, body),
+  });
   const action: StickyResult['action'] = created ? 'created' : keep.body === body ? 'unchanged' : 'updated';
   if (keep.body !== body) await github.updateComment(keep.id, body);
   for (const duplicate of extra) await github.deleteComment(duplicate.id);

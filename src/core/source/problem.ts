@@ -41,10 +41,6 @@ export function formatProblem(problem: Problem): string {
   return `${where}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ''}`;
 }
 
-export function hasErrors(problems: readonly Problem[]): boolean {
-  return problems.some((p) => p.severity === 'error');
-}
-
 /** Stable order for reports: by file, then position, then code. */
 export function sortProblems(problems: readonly Problem[]): Problem[] {
   return [...problems].sort(

@@ -16,10 +16,6 @@ export function normalUpper(x: number): number {
   return normalCdf(-x);
 }
 
-export function normalDensity(x: number): number {
-  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI);
-}
-
 /** The standard normal quantile: P(Z <= q) = p. */
 export function normalQuantile(p: number): number {
   return jStat.normal.inv(p, 0, 1);

@@ -63,8 +63,9 @@ interface Crossings {
 }
 
 /**
- * Walks the looks. `boundaryAt(k, state)` may choose look k's boundary from what came before
- * (spending functions do); the walk stops early when `stop` says so.
+ * Walks the looks. `boundaryAt(k, upperGiven)` chooses look k's boundary; it may ask what crossing a
+ * candidate boundary would cost given the looks before
+ * (spending functions do).
  */
 function walk(
   looks: number,

@@ -16,7 +16,7 @@ async function main(): Promise<void> {
   const { context } = github;
   const mode = settings.mode === 'auto' ? (context.eventName.startsWith('pull_request') ? 'review' : 'digest') : settings.mode;
   const workspace = process.env.GITHUB_WORKSPACE ?? process.cwd();
-  const port = createGitHub({ token: settings.token, owner: context.repo.owner, repo: context.repo.repo, baseUrl: context.apiUrl, requestBudget: settings['request-budget'] });
+  const port = createGitHub({ token: settings.token, owner: context.repo.owner, repo: context.repo.repo, baseUrl: context.apiUrl, requestBudget: settings['request-budget'], maxRateLimitWait: settings['rate-limit-wait'] });
   if (mode === 'digest') {
     const digest = await publishWeeklyDigest({ github: port, workspace, botLogin: settings['bot-login'], now: new Date(), ...(settings.config ? { settingsPath: settings.config } : {}) });
     const reportPath = join(process.env.RUNNER_TEMP ?? workspace, 'plumbline-digest.json');

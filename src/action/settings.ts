@@ -14,6 +14,11 @@ const inputsSchema = z.object({
     .regex(/^\d+$/, { error: 'request-budget must be a whole number, e.g. 200' })
     .transform(Number)
     .refine((n) => n >= 10, { error: 'request-budget must be at least 10' }),
+  'rate-limit-wait': z
+    .string()
+    .regex(/^\d+$/, { error: 'rate-limit-wait must be a whole number of seconds, e.g. 300' })
+    .transform(Number)
+    .refine((n) => n <= 3600, { error: 'rate-limit-wait must be at most 3600 seconds (GitHub resets its hourly limit within an hour)' }),
 });
 
 export type ActionSettings = z.output<typeof inputsSchema>;

@@ -1,4 +1,5 @@
 import { getOctokit } from '@actions/github';
+import type { Octokit } from '@octokit/core';
 import { retry } from '@octokit/plugin-retry';
 import { throttling } from '@octokit/plugin-throttling';
 import { ExternalError } from '../errors.js';
@@ -22,9 +23,11 @@ export interface GitHubOptions {
   repo: string;
   /** API root, e.g. https://api.github.com or a GitHub Enterprise Server's /api/v3. */
   baseUrl: string;
-  /** Most requests one run may make; beyond it every request fails (a runaway loop costs no rate limit). */
+  /** Most HTTP requests one run may make, retries included; beyond it every request fails (a runaway loop costs no rate limit). */
   requestBudget: number;
-  /** How often to retry on a rate limit before giving up. */
+  /** Longest wait, in seconds, that one rate limit may ask for; a longer one ends the run with a message instead. */
+  maxRateLimitWait: number;
+  /** How often one request is retried after a rate limit before giving up. */
   rateLimitRetries?: number;
 }
 
@@ -39,31 +42,66 @@ const HINTS: Record<number, string> = {
 };
 
 /**
- * GitHubPort over Octokit with the retry plugin (network errors and 5xx, never other 4xx) and the
- * throttling plugin (waits out primary and secondary rate limits, honouring retry-after).
+ * The retry plugin retries network failures and 5xx only: every 4xx is final, except rate limits,
+ * which are the throttling plugin's (it waits what retry-after or x-ratelimit-reset says).
+ */
+const EVERY_4XX = Array.from({ length: 100 }, (_, i) => 400 + i);
+const SERVER_ERROR_RETRIES = 2;
+
+/**
+ * Counts every HTTP request against the budget. Registered before the retry and throttling
+ * plugins, so its hook sits inside theirs and sees each attempt, retries included. It throws an
+ * error without an HTTP status, which neither plugin retries.
+ */
+function requestBudget(budget: number) {
+  return (octokit: Octokit) => {
+    let sent = 0;
+    octokit.hook.wrap('request', (request, options) => {
+      sent++;
+      if (sent > budget) {
+        throw new GitHubError(`this run has used its budget of ${budget} GitHub requests (retries count too)`, undefined, 'raise the request-budget input if the repository really needs more');
+      }
+      return request(options);
+    });
+    return {};
+  };
+}
+
+function describeWait(seconds: number): string {
+  return seconds >= 120 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
+}
+
+/**
+ * GitHubPort over the Octokit of @actions/github, which keeps the runner's proxy settings
+ * (HTTPS_PROXY, HTTP_PROXY, NO_PROXY): no `request` option is passed, since one would replace
+ * those defaults. Rate limits wait exactly as long as GitHub says, up to `maxRateLimitWait`.
  */
 export function createGitHub(options: GitHubOptions): GitHubPort {
-  let requests = 0;
-  const retries = options.rateLimitRetries ?? 2;
+  const retries = options.rateLimitRetries ?? 3;
+  // Set when a rate limit asked for a wait longer than allowed, to explain the failure it causes.
+  let refusedWait: string | undefined;
+  const onLimit = (kind: string) => (after: number, _options: unknown, _octokit: unknown, retryCount: number) => {
+    if (after > options.maxRateLimitWait) {
+      refusedWait = `GitHub's ${kind} asks to wait ${describeWait(after)}, longer than the ${options.maxRateLimitWait} seconds this run may wait`;
+      return false;
+    }
+    if (retryCount >= retries) {
+      refusedWait = `GitHub's ${kind} still held after ${retries} waits`;
+      return false;
+    }
+    return true;
+  };
   const octokit = getOctokit(
     options.token,
     {
       baseUrl: options.baseUrl,
-      request: { retries: 2 },
-      throttle: {
-        onRateLimit: (_after: number, _options: unknown, _octokit: unknown, retryCount: number) => retryCount < retries,
-        onSecondaryRateLimit: (_after: number, _options: unknown, _octokit: unknown, retryCount: number) => retryCount < retries,
-      },
+      retry: { doNotRetry: EVERY_4XX, retries: SERVER_ERROR_RETRIES },
+      throttle: { onRateLimit: onLimit('rate limit'), onSecondaryRateLimit: onLimit('secondary rate limit') },
     },
+    requestBudget(options.requestBudget),
     retry,
     throttling,
   );
-  octokit.hook.before('request', () => {
-    requests++;
-    if (requests > options.requestBudget) {
-      throw new GitHubError(`this run has used its budget of ${options.requestBudget} GitHub requests`, undefined, 'raise the request-budget input if the repository really needs more');
-    }
-  });
   const repo = { owner: options.owner, repo: options.repo };
 
   const wrap = async <T>(what: string, run: () => Promise<T>): Promise<T> => {
@@ -71,6 +109,12 @@ export function createGitHub(options: GitHubOptions): GitHubPort {
       return await run();
     } catch (error) {
       if (error instanceof GitHubError) throw error;
+      if (refusedWait) {
+        const reason = refusedWait;
+        refusedWait = undefined;
+        // No status: a rate limit is not a missing permission, so callers do not mistake it for one.
+        throw new GitHubError(`GitHub: ${what} stopped: ${reason}`, undefined, 're-run the job later, or raise the rate-limit-wait input', { cause: error });
+      }
       const status = typeof error === 'object' && error !== null && 'status' in error ? Number((error as { status: unknown }).status) : undefined;
       const message = error instanceof Error ? error.message : String(error);
       throw new GitHubError(`GitHub: ${what} failed${status ? ` (HTTP ${status})` : ''}: ${message}`, status, status ? HINTS[status] : undefined, { cause: error });

@@ -170,7 +170,7 @@ describe('the bundled Action against a fake GitHub', () => {
   });
 
   it('waits out a secondary rate limit with retry-after', async () => {
-    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED }, { secondaryRateLimits: 1 });
+    const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED }, { secondaryLimit: { times: 1, status: 403, retryAfter: 1 } });
     const run = await runAction({ github, workspace: repo.root, event });
     expect(run.status, run.stdout).toBe(0);
     expect(github.comments(7)).toHaveLength(1);

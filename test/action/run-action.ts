@@ -31,10 +31,12 @@ export interface ActionRun {
   stdout: string;
   outputs: Record<string, string>;
   summary: string;
+  /** Path of the JSON report the run wrote (the `report` output), parsed. */
+  report?: unknown;
 }
 
 /** Runs dist/index.js as a runner would: event file, INPUT_* for every input (defaults from action.yml), output and summary files. */
-export function runAction(options: { github: FakeGitHub; workspace: string; event: object; eventName?: string; inputs?: Record<string, string> }): Promise<ActionRun> {
+export function runAction(options: { github: FakeGitHub; workspace: string; event: object; eventName?: string; inputs?: Record<string, string>; env?: Record<string, string> }): Promise<ActionRun> {
   const dir = mkdtempSync(join(tmpdir(), 'plumbline-runner-'));
   const eventPath = join(dir, 'event.json');
   writeFileSync(eventPath, JSON.stringify(options.event));
@@ -65,6 +67,7 @@ export function runAction(options: { github: FakeGitHub; workspace: string; even
     GITHUB_STEP_SUMMARY: summaryPath,
     RUNNER_TEMP: dir,
     ...inputs,
+    ...options.env,
   };
   return new Promise((resolve) => {
     const child = spawn(actionNode, [join(repoRoot, 'dist/index.js')], { cwd: options.workspace, env });
@@ -76,7 +79,8 @@ export function runAction(options: { github: FakeGitHub; workspace: string; even
       // GITHUB_OUTPUT holds name<<delimiter / value / delimiter blocks.
       const text = readFileSync(outputPath, 'utf8');
       for (const m of text.matchAll(/^([^<\n]+)<<(\S+)\n([\s\S]*?)\n\2$/gm)) outputs[m[1]!] = m[3]!;
-      resolve({ status, stdout, outputs, summary: readFileSync(summaryPath, 'utf8') });
+      const report = outputs.report ? (JSON.parse(readFileSync(outputs.report, 'utf8')) as unknown) : undefined;
+      resolve({ status, stdout, outputs, summary: readFileSync(summaryPath, 'utf8'), ...(report !== undefined ? { report } : {}) });
     });
   });
 }

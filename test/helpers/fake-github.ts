@@ -45,13 +45,31 @@ export interface RecordedRequest {
   path: string;
   operation?: string;
   body?: unknown;
+  /** When it arrived (Date.now()), to measure waits. */
+  at: number;
+  /** The status the fake answered with. */
+  status?: number;
 }
 
 export interface FakeGitHubModes {
   /** Every write answers 403, as a fork's read-only token gets. */
   readOnly?: boolean;
-  /** The first N requests answer 403 with a secondary rate limit and retry-after: 1. */
-  secondaryRateLimits?: number;
+  /**
+   * The first `times` requests answer a secondary rate limit (GitHub: 403 or 429 with retry-after
+   * and a message naming the secondary rate limit). Any request that arrives before retry-after
+   * has passed is refused again and counted in `early`.
+   */
+  secondaryLimit?: { times: number; status: 403 | 429; retryAfter: number };
+  /**
+   * The first request answers a primary rate limit: 403 with x-ratelimit-remaining: 0 and
+   * x-ratelimit-reset `resetIn` seconds ahead (epoch seconds). Every request before the reset is
+   * refused again and counted in `early`.
+   */
+  primaryLimit?: { resetIn: number };
+  /** Requests of this operation ("POST /repos/{owner}/{repo}/issues/{issue_number}/comments") answer `status`: the first `times` of them, or all. */
+  failing?: { operation: string; status: number; message: string; times?: number };
+  /** After a comment or issue is created, the next `times` listings leave it out (GitHub's listings can lag behind a write). */
+  listingLag?: number;
   /** Comment bodies longer than this answer 422 (GitHub's limit is 65,536). */
   bodyLimit?: number;
 }
@@ -84,6 +102,8 @@ export interface FakeGitHub {
   requests: RecordedRequest[];
   /** Requests that matched no known operation, or whose bodies broke the description. */
   refused: string[];
+  /** Requests that came while a rate limit said to wait. */
+  early: RecordedRequest[];
   comments(issue: number): StoredComment[];
   addComment(issue: number, body: string, login: string): void;
   setPullRequestFiles(pr: number, files: { filename: string; status: string; patch?: string; previous_filename?: string }[]): void;
@@ -129,6 +149,12 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
   const botLogin = options.botLogin ?? 'github-actions[bot]';
   const requests: RecordedRequest[] = [];
   const refused: string[] = [];
+  const early: RecordedRequest[] = [];
+  // A rate limit in force: requests before this time (ms) are refused with these headers.
+  let limitedUntil = 0;
+  let limitResponse: { status: number; message: string; headers: Record<string, string> } | undefined;
+  // The newest created comment id or issue number, hidden from the next `listingLag` listings.
+  let lagging: { kind: 'comment' | 'issue'; id: number; left: number } | undefined;
   const store: StoredComment[] = [];
   const files = new Map<number, { filename: string; status: string; patch?: string; previous_filename?: string }[]>();
   const issues: StoredIssue[] = [];
@@ -194,8 +220,10 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
       const text = Buffer.concat(chunks).toString('utf8');
       const body = text ? (JSON.parse(text) as unknown) : undefined;
       const route = ROUTES.find(([key, re]) => key.startsWith(`${method} `) && re.test(url.pathname));
-      requests.push({ method, path: `${url.pathname}${url.search}`, ...(route ? { operation: route[0] } : {}), ...(body !== undefined ? { body } : {}) });
+      const recorded: RecordedRequest = { method, path: `${url.pathname}${url.search}`, ...(route ? { operation: route[0] } : {}), ...(body !== undefined ? { body } : {}), at: Date.now() };
+      requests.push(recorded);
       const send = (status: number, payload: unknown, headers: Record<string, string> = {}) => {
+        recorded.status = status;
         if (route && payload !== undefined) {
           const schema = subset.operations[route[0]]!.responses[String(status)];
           if (schema) {
@@ -221,10 +249,40 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
         const check = validator(`${key} request`, operation.requestBody);
         if (!check(body)) refused.push(`request of ${key}: ${ajv.errorsText(check.errors)}`);
       }
-      if (modes.secondaryRateLimits && modes.secondaryRateLimits > 0) {
-        modes.secondaryRateLimits--;
-        return send(403, { message: 'You have exceeded a secondary rate limit. Please wait a few minutes before you try again.', documentation_url: 'https://docs.github.com/rest/overview/rate-limits-for-the-rest-api' }, { 'retry-after': '1' });
+      const rateLimited = (status: number, message: string, headers: Record<string, string>) =>
+        send(status, { message, documentation_url: 'https://docs.github.com/rest/using-the-rest-api/rate-limits-for-the-rest-api' }, headers);
+      if (Date.now() < limitedUntil && limitResponse) {
+        early.push(recorded);
+        return rateLimited(limitResponse.status, limitResponse.message, limitResponse.headers);
       }
+      if (modes.secondaryLimit && modes.secondaryLimit.times > 0) {
+        modes.secondaryLimit.times--;
+        const { status, retryAfter } = modes.secondaryLimit;
+        limitedUntil = Date.now() + retryAfter * 1000;
+        limitResponse = { status, message: 'You have exceeded a secondary rate limit. Please wait a few minutes before you try again.', headers: { 'retry-after': String(retryAfter) } };
+        return rateLimited(limitResponse.status, limitResponse.message, limitResponse.headers);
+      }
+      if (modes.primaryLimit) {
+        const reset = Math.ceil(Date.now() / 1000) + modes.primaryLimit.resetIn;
+        modes.primaryLimit = undefined;
+        limitedUntil = reset * 1000;
+        limitResponse = {
+          status: 403,
+          message: 'API rate limit exceeded for installation ID 1.',
+          headers: { 'x-ratelimit-limit': '1000', 'x-ratelimit-remaining': '0', 'x-ratelimit-used': '1000', 'x-ratelimit-reset': String(reset), 'x-ratelimit-resource': 'core' },
+        };
+        return rateLimited(limitResponse.status, limitResponse.message, limitResponse.headers);
+      }
+      if (modes.failing && modes.failing.operation === key && (modes.failing.times === undefined || modes.failing.times-- > 0)) {
+        return send(modes.failing.status, { message: modes.failing.message, documentation_url: 'https://docs.github.com/rest' });
+      }
+      const hidden = (kind: 'comment' | 'issue', id: number) => {
+        if (!lagging || lagging.kind !== kind || lagging.id !== id || lagging.left <= 0) return false;
+        return true;
+      };
+      const listed = (kind: 'comment' | 'issue') => {
+        if (lagging?.kind === kind && lagging.left > 0) lagging.left--;
+      };
       const write = method !== 'GET';
       if (write && modes.readOnly) return send(403, { message: 'Resource not accessible by integration', documentation_url: 'https://docs.github.com/rest/issues/comments#create-an-issue-comment', status: '403' });
 
@@ -248,7 +306,8 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
 
       switch (key) {
         case 'GET /repos/{owner}/{repo}/issues/{issue_number}/comments': {
-          const { items, headers } = paged(store.filter((c) => c.issue === Number(params[2])), self);
+          const { items, headers } = paged(store.filter((c) => c.issue === Number(params[2]) && !hidden('comment', c.id)), self);
+          listed('comment');
           return send(200, items.map(commentJson), headers);
         }
         case 'POST /repos/{owner}/{repo}/issues/{issue_number}/comments': {
@@ -257,6 +316,7 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
           const at = now();
           const c = { id: nextId++, issue: Number(params[2]), body: b.body, login: botLogin, created_at: at, updated_at: at };
           store.push(c);
+          if (modes.listingLag) lagging = { kind: 'comment', id: c.id, left: modes.listingLag };
           return send(201, commentJson(c), { location: `https://api.github.com/repos/${owner}/${repo}/issues/comments/${c.id}` });
         }
         case 'PATCH /repos/{owner}/{repo}/issues/comments/{comment_id}': {
@@ -296,8 +356,9 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
         case 'GET /repos/{owner}/{repo}/issues': {
           const label = url.searchParams.get('labels');
           const state = url.searchParams.get('state') ?? 'open';
-          const all = issues.filter((i) => (state === 'all' || i.state === state) && (!label || label.split(',').every((l) => i.labels.includes(l))));
+          const all = issues.filter((i) => (state === 'all' || i.state === state) && (!label || label.split(',').every((l) => i.labels.includes(l))) && !hidden('issue', i.number));
           const { items, headers } = paged(all, self);
+          listed('issue');
           return send(200, items.map(issueJson), headers);
         }
         case 'POST /repos/{owner}/{repo}/issues': {
@@ -306,6 +367,7 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
           const at = now();
           const issue: StoredIssue = { number: nextIssue++, title: String(b.title), body: b.body ?? '', labels: b.labels ?? [], state: 'open', login: botLogin, created_at: at, updated_at: at, pullRequest: false };
           issues.push(issue);
+          if (modes.listingLag) lagging = { kind: 'issue', id: issue.number, left: modes.listingLag };
           return send(201, issueJson(issue));
         }
         case 'PATCH /repos/{owner}/{repo}/issues/{issue_number}': {
@@ -332,6 +394,7 @@ export async function startFakeGitHub(options: { owner?: string; repo?: string; 
     repo,
     requests,
     refused,
+    early,
     comments: (issue) => store.filter((c) => c.issue === issue),
     addComment(issue, body, login) {
       const at = now();

@@ -1,6 +1,9 @@
 import { DIGEST_MARKER, mergeDigestBody } from '../core/report/digest-markdown.js';
-import type { GitHubPort } from '../ports.js';
+import type { GitHubPort, RepoIssue } from '../ports.js';
 import { keepOldest } from './keep-oldest.js';
+
+/** Issues are told apart by number. */
+const withId = (issue: RepoIssue) => ({ ...issue, id: issue.number });
 
 export const DIGEST_TITLE = 'Plumbline weekly digest';
 
@@ -12,9 +15,8 @@ export const DIGEST_TITLE = 'Plumbline weekly digest';
 export async function publishDigest(options: { github: GitHubPort; label: string; block: string; botLogin: string }): Promise<{ action: 'created' | 'updated'; number: number; closedDuplicates: number }> {
   const { github, label, block, botLogin } = options;
   const { keep, extra, created } = await keepOldest({
-    list: async () =>
-      (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map((i) => ({ ...i, id: i.number })),
-    create: () => github.createIssue(DIGEST_TITLE, block, [label]),
+    list: async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map(withId),
+    create: async () => withId(await github.createIssue(DIGEST_TITLE, block, [label])),
   });
   const body = mergeDigestBody(keep.body, block);
   if (body !== keep.body) await github.updateIssue(keep.number, { body });

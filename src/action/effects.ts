@@ -2,37 +2,47 @@ import type { AnnotationProperties } from '@actions/core';
 import type { Review } from '../core/review/build-review.js';
 import type { PullRequestEvent } from '../run/action-review.js';
 
-/** GitHub shows only so many annotations of each kind per step; the rest are counted in one notice. */
+/** GitHub shows at most this many annotations of each kind (error, warning, notice) per step. */
 export const ANNOTATIONS_PER_KIND = 10;
 
+type Kind = 'error' | 'warning' | 'notice';
+const KINDS: readonly Kind[] = ['error', 'warning', 'notice'];
+
 export interface Annotation {
-  kind: 'error' | 'warning' | 'notice';
+  kind: Kind;
   message: string;
   properties: AnnotationProperties;
 }
 
-/** One annotation per located finding, at its file and line, capped per kind. */
-export function annotationsFor(review: Review): Annotation[] {
+/**
+ * Every annotation a review run writes, in order: the run's own notices and warnings, one per
+ * located finding, a notice counting the findings left out, and the closing error when the run
+ * fails. Each kind stays within GitHub's limit with all of these counted, so none is dropped
+ * silently; the run's own lines go first, findings fill the rest. Untrusted text needs no
+ * treatment here: @actions/core escapes messages and properties when it writes the command.
+ */
+export function planAnnotations(review: Review, run: { notices: readonly string[]; warnings: readonly string[]; closing?: string }): Annotation[] {
   const kindOf = { block: 'error', warn: 'warning', note: 'notice' } as const;
-  const out: Annotation[] = [];
-  const left: Record<string, number> = {};
-  for (const f of review.findings) {
+  const own: Annotation[] = [...run.notices.map((message) => ({ kind: 'notice' as const, message, properties: {} })), ...run.warnings.map((message) => ({ kind: 'warning' as const, message, properties: {} }))];
+  const closing: Annotation[] = run.closing ? [{ kind: 'error', message: run.closing, properties: {} }] : [];
+  const room = Object.fromEntries(KINDS.map((k) => [k, ANNOTATIONS_PER_KIND - [...own, ...closing].filter((a) => a.kind === k).length])) as Record<Kind, number>;
+  const located = review.findings.filter((f) => f.file);
+  const wanted = (k: Kind) => located.filter((f) => kindOf[f.severity] === k).length;
+  // The notice that counts what was left out needs a place of its own.
+  if (KINDS.some((k) => wanted(k) > room[k])) room.notice--;
+  const shown: Annotation[] = [];
+  let left = 0;
+  for (const f of located) {
     const kind = kindOf[f.severity];
-    if (!f.file) continue;
-    if (out.filter((a) => a.kind === kind).length >= ANNOTATIONS_PER_KIND) {
-      left[kind] = (left[kind] ?? 0) + 1;
+    if (room[kind] <= 0) {
+      left++;
       continue;
     }
-    out.push({ kind, message: neutralizeCommands(`${f.message} Fix: ${f.fix}`), properties: { title: `Plumbline ${f.code}`, file: f.file, ...(f.line ? { startLine: f.line } : {}) } });
+    room[kind]--;
+    shown.push({ kind, message: `${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file!, ...(f.line ? { startLine: f.line } : {}) } });
   }
-  const hidden = Object.values(left).reduce((a, b) => a + b, 0);
-  if (hidden) out.push({ kind: 'notice', message: `${hidden} more finding(s) are not annotated; all are in the job summary.`, properties: { title: 'Plumbline' } });
-  return out;
-}
-
-/** Text from plans must not start a workflow command of its own in the log. */
-export function neutralizeCommands(text: string): string {
-  return text.replace(/::/g, ':\u200b:');
+  const more: Annotation[] = left ? [{ kind: 'notice', message: `${left} more ${left === 1 ? 'finding is' : 'findings are'} not annotated (GitHub shows ${ANNOTATIONS_PER_KIND} of each kind per step); all are in the job summary.`, properties: { title: 'Plumbline' } }] : [];
+  return [...own, ...shown, ...more, ...closing];
 }
 
 export function shouldFail(review: Review, failOn: 'block' | 'warn' | 'never'): boolean {
@@ -42,7 +52,7 @@ export function shouldFail(review: Review, failOn: 'block' | 'warn' | 'never'): 
 
 interface ContextLike {
   eventName: string;
-  payload: { pull_request?: { number?: number; title?: string; body?: string | null; labels?: { name?: string }[]; base?: { sha?: string }; head?: { sha?: string; ref?: string } } };
+  payload: { pull_request?: { number?: number; changed_files?: number; title?: string; body?: string | null; labels?: { name?: string }[]; base?: { sha?: string }; head?: { sha?: string; ref?: string } } };
   serverUrl: string;
   repo: { owner: string; repo: string };
 }
@@ -62,5 +72,6 @@ export function pullRequestEvent(context: ContextLike): PullRequestEvent | undef
       ...(pr.head.ref ? { branch: pr.head.ref } : {}),
     },
     repoUrl: `${context.serverUrl}/${context.repo.owner}/${context.repo.repo}`,
+    ...(typeof pr.changed_files === 'number' ? { changedFiles: pr.changed_files } : {}),
   };
 }

@@ -7,7 +7,7 @@ import { reviewJson } from '../core/review/report-schema.js';
 import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
 import { reviewPullRequest, type PullRequestEvent } from '../run/action-review.js';
 import { publishWeeklyDigest } from '../run/action-digest.js';
-import { annotationsFor, pullRequestEvent, shouldFail } from './effects.js';
+import { planAnnotations, pullRequestEvent, shouldFail } from './effects.js';
 import { readActionSettings } from './settings.js';
 
 /** The Action: inputs -> settings -> review -> comment, annotations, summary, outputs, exit status. */
@@ -32,9 +32,6 @@ async function main(): Promise<void> {
   const result = await reviewPullRequest({ event, github: port, workspace, comment: settings.comment, botLogin: settings['bot-login'], ...(settings.config ? { settingsPath: settings.config } : {}) });
   if ('settingsProblems' in result) throw new UsageError(`the settings file has errors:\n${result.settingsProblems}`, 'run plumbline validate locally');
 
-  for (const notice of result.notices) core.notice(notice);
-  if (result.commentProblem) core.warning(result.commentProblem);
-  for (const a of annotationsFor(result.review)) core[a.kind](a.message, a.properties);
   const reportPath = join(process.env.RUNNER_TEMP ?? workspace, 'plumbline-review.json');
   await writeFileAtomic(reportPath, `${JSON.stringify(reviewJson(result.review), null, 2)}\n`, { overwrite: true });
   core.setOutput('verdict', result.review.verdict);
@@ -43,7 +40,11 @@ async function main(): Promise<void> {
   core.setOutput('notes', result.review.counts.note);
   core.setOutput('report', reportPath);
   await core.summary.addRaw(result.markdown).write();
-  if (shouldFail(result.review, settings['fail-on'])) core.setFailed(`Plumbline: ${result.review.counts.block} blocking finding(s); see the summary or the pull-request comment.`);
+  // Annotations come last, after everything that could still fail, so that a failure's own error line cannot push errors past GitHub's limit.
+  const fails = shouldFail(result.review, settings['fail-on']);
+  const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? '' : 's'}; see the summary or the pull-request comment.` : undefined;
+  for (const a of planAnnotations(result.review, { notices: result.notices, warnings: result.commentProblem ? [result.commentProblem] : [], ...(closing ? { closing } : {}) })) core[a.kind](a.message, a.properties);
+  if (fails) process.exitCode = core.ExitCode.Failure;
 }
 
 main().catch((error: unknown) => {

@@ -39554,6 +39554,14 @@ async function reviewChange(options) {
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
 }
 
+// src/core/report/coverage-notice.ts
+function coverageNotice(review) {
+  const unseen = review.partial;
+  if (!unseen) return [];
+  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
+  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
+}
+
 // src/core/report/markdown-safe.ts
 function safeText(text2) {
   return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
@@ -39577,7 +39585,8 @@ var HEADLINE = {
   blocked: "\u26D4 Plumbline: blocked",
   warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
   clear: "\u2705 Plumbline: all clear",
-  "nothing-to-check": "\u2705 Plumbline: nothing to check"
+  "nothing-to-check": "\u2705 Plumbline: nothing to check",
+  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
 };
 function plural2(n, noun) {
   return `${n} ${noun}${n === 1 ? "" : "s"}`;
@@ -39635,6 +39644,7 @@ function cutChart(lines) {
 }
 function render(review, options, detail, omitted) {
   const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
+  out.push(...coverageNotice(review));
   if (review.verdict === "nothing-to-check") {
     out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
     return out.join("\n");
@@ -39722,7 +39732,8 @@ function renderReviewText(review, options) {
     blocked: style.red("blocked"),
     warnings: style.yellow("passes, with warnings"),
     clear: style.green("all clear"),
-    "nothing-to-check": style.green("nothing to check")
+    "nothing-to-check": style.green("nothing to check"),
+    partial: style.yellow("partial review, nothing found in the files seen")
   }[review.verdict];
   const n = (count2, noun) => `${count2} ${noun}${count2 === 1 ? "" : "s"}`;
   out.push(`${style.bold("Plumbline")}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, "warning")}, ${n(review.counts.note, "note")}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
@@ -39791,7 +39802,7 @@ var sizeResult = external_exports.union([
 ]);
 var reviewReportSchema = external_exports.object({
   format: external_exports.literal("plumbline.review/1"),
-  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check"]),
+  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check", "partial"]),
   counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
   base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
   head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
@@ -39861,7 +39872,8 @@ var reviewReportSchema = external_exports.object({
       known: external_exports.boolean()
     })
   ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional(),
+  partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
 function reviewJson(review) {

@@ -60664,7 +60664,7 @@ var sizeResult = external_exports.union([
 ]);
 var reviewReportSchema = external_exports.object({
   format: external_exports.literal("plumbline.review/1"),
-  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check"]),
+  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check", "partial"]),
   counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
   base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
   head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
@@ -60734,7 +60734,8 @@ var reviewReportSchema = external_exports.object({
       known: external_exports.boolean()
     })
   ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional(),
+  partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
 function reviewJson(review) {
@@ -60962,22 +60963,7 @@ ${f.patch}
       }
     }
   };
-  return { change: change2, capped };
-}
-
-// src/core/report/markdown-safe.ts
-function safeText(text2) {
-  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
-}
-function safeCell(text2) {
-  return safeText(text2).replace(/\|/g, "\\|");
-}
-function codeSpan(text2) {
-  const clean = text2.replace(/\r?\n/g, " ");
-  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
-  const fence = "`".repeat(longest + 1);
-  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
-  return `${fence}${pad}${clean}${pad}${fence}`;
+  return { change: change2, capped, listed: files.length };
 }
 
 // src/core/report/numbers.ts
@@ -61010,6 +60996,35 @@ function formatPower(power) {
 }
 function formatMultiplier(m) {
   return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+
+// src/core/review/coverage.ts
+function withUnseenFiles(review, unseen) {
+  const verdict = review.verdict === "clear" || review.verdict === "nothing-to-check" ? "partial" : review.verdict;
+  return { ...review, verdict, partial: unseen };
+}
+
+// src/core/report/coverage-notice.ts
+function coverageNotice(review) {
+  const unseen = review.partial;
+  if (!unseen) return [];
+  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
+  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
+}
+
+// src/core/report/markdown-safe.ts
+function safeText(text2) {
+  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
+}
+function safeCell(text2) {
+  return safeText(text2).replace(/\|/g, "\\|");
+}
+function codeSpan(text2) {
+  const clean = text2.replace(/\r?\n/g, " ");
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
+  return `${fence}${pad}${clean}${pad}${fence}`;
 }
 
 // src/core/report/sizing.ts
@@ -61115,7 +61130,8 @@ var HEADLINE = {
   blocked: "\u26D4 Plumbline: blocked",
   warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
   clear: "\u2705 Plumbline: all clear",
-  "nothing-to-check": "\u2705 Plumbline: nothing to check"
+  "nothing-to-check": "\u2705 Plumbline: nothing to check",
+  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
 };
 function plural2(n, noun) {
   return `${n} ${noun}${n === 1 ? "" : "s"}`;
@@ -61173,6 +61189,7 @@ function cutChart(lines) {
 }
 function render(review, options, detail, omitted) {
   const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
+  out.push(...coverageNotice(review));
   if (review.verdict === "nothing-to-check") {
     out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
     return out.join("\n");
@@ -64136,15 +64153,15 @@ async function reviewChange(options) {
 
 // src/run/keep-oldest.ts
 async function keepOldest(options) {
-  const sorted = async () => (await options.list()).sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id);
-  let found = await sorted();
+  const oldestFirst = (items) => items.sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id);
+  let found = oldestFirst(await options.list());
   const created = found.length === 0;
   if (created) {
-    await options.create();
-    found = await sorted();
+    const made = await options.create();
+    const listed = await options.list();
+    found = oldestFirst(listed.some((item) => item.id === made.id) ? listed : [...listed, made]);
   }
   const [keep, ...extra] = found;
-  if (!keep) throw new Error("the item just created is not listed");
   return { keep, extra, created };
 }
 
@@ -64166,6 +64183,7 @@ async function reviewPullRequest(options) {
   const { event, github, workspace } = options;
   const notices = [];
   let change2;
+  let unseen;
   if (existsSync3(join5(workspace, ".git"))) {
     change2 = await openChange(workspace, event.baseSha, event.headSha).catch((error63) => {
       notices.push(`git cannot compare the two commits here (${error63 instanceof Error ? error63.message : String(error63)}); using the pull-request files API instead. Check out with fetch-depth: 0 to use git.`);
@@ -64174,7 +64192,12 @@ async function reviewPullRequest(options) {
   }
   if (!change2) {
     const api = await openApiChange({ github, pullRequest: event.number, workspace, base: event.baseSha, head: event.headSha });
-    if (api.capped) {
+    if (api.capped && (event.changedFiles === void 0 || event.changedFiles > api.listed)) {
+      unseen = {
+        reason: `GitHub lists at most ${formatCount(PULL_REQUEST_FILES_CAP)} files of a pull request and no git history was there to read the rest`,
+        reviewedFiles: api.listed,
+        ...event.changedFiles !== void 0 ? { changedFiles: event.changedFiles } : {}
+      };
       if (!existsSync3(join5(workspace, ".git"))) notices.push("GitHub lists at most 3,000 files of a pull request and no git history is checked out, so files past that are not reviewed. Check out with fetch-depth: 0.");
       else notices.push("GitHub lists at most 3,000 files of a pull request; files past that are not reviewed.");
     }
@@ -64182,7 +64205,7 @@ async function reviewPullRequest(options) {
   }
   const outcome = await reviewChange({ change: change2, pr: event.info, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   if (outcome.kind === "settings-invalid") return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join("\n") };
-  const { review } = outcome;
+  const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const markdown = renderReviewMarkdown(review, { link: (path6, line) => `${event.repoUrl}/blob/${review.head}/${encodeURI(path6)}#L${line}`, fullReport: "the job summary" });
   if (!options.comment) return { review, markdown, notices };
   try {
@@ -64393,12 +64416,13 @@ async function digestRepository(options) {
 }
 
 // src/run/publish-digest.ts
+var withId = (issue3) => ({ ...issue3, id: issue3.number });
 var DIGEST_TITLE = "Plumbline weekly digest";
 async function publishDigest(options) {
   const { github, label, block, botLogin } = options;
   const { keep, extra, created } = await keepOldest({
-    list: async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map((i) => ({ ...i, id: i.number })),
-    create: () => github.createIssue(DIGEST_TITLE, block, [label])
+    list: async () => (await github.listIssues(label)).filter((i) => i.author === botLogin && i.body.includes(DIGEST_MARKER)).map(withId),
+    create: async () => withId(await github.createIssue(DIGEST_TITLE, block, [label]))
   });
   const body = mergeDigestBody(keep.body, block);
   if (body !== keep.body) await github.updateIssue(keep.number, { body });
@@ -64426,25 +64450,28 @@ async function publishWeeklyDigest(options) {
 
 // src/action/effects.ts
 var ANNOTATIONS_PER_KIND = 10;
-function annotationsFor(review) {
+var KINDS = ["error", "warning", "notice"];
+function planAnnotations(review, run) {
   const kindOf = { block: "error", warn: "warning", note: "notice" };
-  const out = [];
-  const left = {};
-  for (const f of review.findings) {
+  const own2 = [...run.notices.map((message) => ({ kind: "notice", message, properties: {} })), ...run.warnings.map((message) => ({ kind: "warning", message, properties: {} }))];
+  const closing = run.closing ? [{ kind: "error", message: run.closing, properties: {} }] : [];
+  const room = Object.fromEntries(KINDS.map((k) => [k, ANNOTATIONS_PER_KIND - [...own2, ...closing].filter((a) => a.kind === k).length]));
+  const located = review.findings.filter((f) => f.file);
+  const wanted = (k) => located.filter((f) => kindOf[f.severity] === k).length;
+  if (KINDS.some((k) => wanted(k) > room[k])) room.notice--;
+  const shown = [];
+  let left = 0;
+  for (const f of located) {
     const kind = kindOf[f.severity];
-    if (!f.file) continue;
-    if (out.filter((a) => a.kind === kind).length >= ANNOTATIONS_PER_KIND) {
-      left[kind] = (left[kind] ?? 0) + 1;
+    if (room[kind] <= 0) {
+      left++;
       continue;
     }
-    out.push({ kind, message: neutralizeCommands(`${f.message} Fix: ${f.fix}`), properties: { title: `Plumbline ${f.code}`, file: f.file, ...f.line ? { startLine: f.line } : {} } });
+    room[kind]--;
+    shown.push({ kind, message: `${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file, ...f.line ? { startLine: f.line } : {} } });
   }
-  const hidden = Object.values(left).reduce((a, b) => a + b, 0);
-  if (hidden) out.push({ kind: "notice", message: `${hidden} more finding(s) are not annotated; all are in the job summary.`, properties: { title: "Plumbline" } });
-  return out;
-}
-function neutralizeCommands(text2) {
-  return text2.replace(/::/g, ":\u200B:");
+  const more = left ? [{ kind: "notice", message: `${left} more ${left === 1 ? "finding is" : "findings are"} not annotated (GitHub shows ${ANNOTATIONS_PER_KIND} of each kind per step); all are in the job summary.`, properties: { title: "Plumbline" } }] : [];
+  return [...own2, ...shown, ...more, ...closing];
 }
 function shouldFail(review, failOn) {
   if (failOn === "never") return false;
@@ -64463,7 +64490,8 @@ function pullRequestEvent(context3) {
       labels: (pr.labels ?? []).map((l) => l.name ?? "").filter(Boolean),
       ...pr.head.ref ? { branch: pr.head.ref } : {}
     },
-    repoUrl: `${context3.serverUrl}/${context3.repo.owner}/${context3.repo.repo}`
+    repoUrl: `${context3.serverUrl}/${context3.repo.owner}/${context3.repo.repo}`,
+    ...typeof pr.changed_files === "number" ? { changedFiles: pr.changed_files } : {}
   };
 }
 
@@ -64512,9 +64540,6 @@ async function main() {
   const result = await reviewPullRequest({ event, github: port, workspace, comment: settings.comment, botLogin: settings["bot-login"], ...settings.config ? { settingsPath: settings.config } : {} });
   if ("settingsProblems" in result) throw new UsageError(`the settings file has errors:
 ${result.settingsProblems}`, "run plumbline validate locally");
-  for (const notice2 of result.notices) notice(notice2);
-  if (result.commentProblem) warning(result.commentProblem);
-  for (const a of annotationsFor(result.review)) core_exports[a.kind](a.message, a.properties);
   const reportPath = join6(process.env.RUNNER_TEMP ?? workspace, "plumbline-review.json");
   await writeFileAtomic(reportPath, `${JSON.stringify(reviewJson(result.review), null, 2)}
 `, { overwrite: true });
@@ -64524,7 +64549,10 @@ ${result.settingsProblems}`, "run plumbline validate locally");
   setOutput("notes", result.review.counts.note);
   setOutput("report", reportPath);
   await summary.addRaw(result.markdown).write();
-  if (shouldFail(result.review, settings["fail-on"])) setFailed(`Plumbline: ${result.review.counts.block} blocking finding(s); see the summary or the pull-request comment.`);
+  const fails = shouldFail(result.review, settings["fail-on"]);
+  const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? "" : "s"}; see the summary or the pull-request comment.` : void 0;
+  for (const a of planAnnotations(result.review, { notices: result.notices, warnings: result.commentProblem ? [result.commentProblem] : [], ...closing ? { closing } : {} })) core_exports[a.kind](a.message, a.properties);
+  if (fails) process.exitCode = ExitCode.Failure;
 }
 main().catch((error63) => {
   if (error63 instanceof UsageError || error63 instanceof ExternalError) {

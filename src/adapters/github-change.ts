@@ -6,7 +6,7 @@ import { createRepoFiles } from './files.js';
  * come from the pull-request files API, the tree at head from the checked-out workspace. What
  * needs the base side (a flag definition file's old keys, a removed constant's value) is unknown.
  */
-export async function openApiChange(options: { github: GitHubPort; pullRequest: number; workspace: string; base: string; head: string }): Promise<{ change: ChangeSource; capped: boolean }> {
+export async function openApiChange(options: { github: GitHubPort; pullRequest: number; workspace: string; base: string; head: string }): Promise<{ change: ChangeSource; capped: boolean; listed: number }> {
   const { files, capped } = await options.github.listPullRequestFiles(options.pullRequest);
   const disk = createRepoFiles(options.workspace);
   const changed: ChangedFile[] = files.map((f) => ({
@@ -38,5 +38,5 @@ export async function openApiChange(options: { github: GitHubPort; pullRequest: 
       }
     },
   };
-  return { change, capped };
+  return { change, capped, listed: files.length };
 }

@@ -2,7 +2,9 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { openChange } from '../adapters/git.js';
 import { openApiChange } from '../adapters/github-change.js';
-import { GitHubError } from '../adapters/github.js';
+import { GitHubError, PULL_REQUEST_FILES_CAP } from '../adapters/github.js';
+import { formatCount } from '../core/report/numbers.js';
+import { withUnseenFiles, type UnseenFiles } from '../core/review/coverage.js';
 import { renderReviewMarkdown } from '../core/report/review-markdown.js';
 import type { Review } from '../core/review/build-review.js';
 import type { PullRequestInfo } from '../core/review/context.js';
@@ -18,6 +20,8 @@ export interface PullRequestEvent {
   headSha: string;
   info: PullRequestInfo;
   repoUrl: string;
+  /** The pull request's count of changed files, from the event, when given. */
+  changedFiles?: number;
 }
 
 export interface ActionReviewResult {
@@ -43,6 +47,7 @@ export async function reviewPullRequest(options: {
   const { event, github, workspace } = options;
   const notices: string[] = [];
   let change: ChangeSource | undefined;
+  let unseen: UnseenFiles | undefined;
   if (existsSync(join(workspace, '.git'))) {
     change = await openChange(workspace, event.baseSha, event.headSha).catch((error: unknown) => {
       notices.push(`git cannot compare the two commits here (${error instanceof Error ? error.message : String(error)}); using the pull-request files API instead. Check out with fetch-depth: 0 to use git.`);
@@ -51,7 +56,12 @@ export async function reviewPullRequest(options: {
   }
   if (!change) {
     const api = await openApiChange({ github, pullRequest: event.number, workspace, base: event.baseSha, head: event.headSha });
-    if (api.capped) {
+    if (api.capped && (event.changedFiles === undefined || event.changedFiles > api.listed)) {
+      unseen = {
+        reason: `GitHub lists at most ${formatCount(PULL_REQUEST_FILES_CAP)} files of a pull request and no git history was there to read the rest`,
+        reviewedFiles: api.listed,
+        ...(event.changedFiles !== undefined ? { changedFiles: event.changedFiles } : {}),
+      };
       if (!existsSync(join(workspace, '.git'))) notices.push('GitHub lists at most 3,000 files of a pull request and no git history is checked out, so files past that are not reviewed. Check out with fetch-depth: 0.');
       else notices.push('GitHub lists at most 3,000 files of a pull request; files past that are not reviewed.');
     }
@@ -59,7 +69,7 @@ export async function reviewPullRequest(options: {
   }
   const outcome = await reviewChange({ change, pr: event.info, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   if (outcome.kind === 'settings-invalid') return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join('\n') };
-  const { review } = outcome;
+  const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const markdown = renderReviewMarkdown(review, { link: (path, line) => `${event.repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}`, fullReport: 'the job summary' });
   if (!options.comment) return { review, markdown, notices };
   try {

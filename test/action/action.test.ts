@@ -198,13 +198,24 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(run.outputs.warnings).toBe('900');
   });
 
-  it('says so when GitHub caps the file list at 3,000 and no git history is there', async () => {
-    const { repo, github, event } = await setup({ 'src/new.ts': "client.getBooleanValue('api-flag', false);\n" });
+  it('says the review is partial, in the verdict, the comment and the JSON report, when GitHub caps the file list at 3,000', async () => {
+    const { repo, github, event } = await setup({ 'src/new.ts': 'export {};\n' });
     rmSync(`${repo.root}/.git`, { recursive: true, force: true });
+    // GitHub's files API lists at most 3,000 files (REST docs, "List pull requests files"); the event still counts them all.
+    event.pull_request.changed_files = 3100;
     github.setPullRequestFiles(7, Array.from({ length: 3100 }, (_, i) => ({ filename: `gen/file-${i}.ts`, status: 'added', patch: '@@ -0,0 +1 @@\n+export {};' })));
     const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
     expect(run.stdout).toMatch(/::notice::GitHub lists at most 3,000 files of a pull request/);
     expect(github.requests.filter((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toHaveLength(30);
+    expect(run.outputs.verdict).toBe('partial');
+    const body = github.comments(7)[0]!.body;
+    expect(body).not.toContain('all clear');
+    expect(body).not.toContain('nothing to check');
+    expect(body).toContain('Partial review');
+    expect(body).toContain('100 of its 3,100 changed files were not reviewed');
+    expect(run.summary).toContain('Partial review');
+    expect(run.report).toMatchObject({ verdict: 'partial', partial: { reviewedFiles: 3000, changedFiles: 3100 } });
   });
 
   it('names the workflow fix for a bad input before doing any work', async () => {

@@ -1,5 +1,6 @@
 import type { PlanReview, Review, Verdict } from '../review/build-review.js';
 import type { Finding, Severity } from '../review/finding.js';
+import { coverageNotice } from './coverage-notice.js';
 import { codeSpan, safeCell, safeText } from './markdown-safe.js';
 import { renderSizingMarkdown } from './sizing.js';
 
@@ -21,6 +22,7 @@ const HEADLINE: Record<Verdict, string> = {
   warnings: '⚠️ Plumbline: passes, with warnings',
   clear: '✅ Plumbline: all clear',
   'nothing-to-check': '✅ Plumbline: nothing to check',
+  partial: '⚠️ Plumbline: partial review, nothing found in the files seen',
 };
 
 function plural(n: number, noun: string): string {
@@ -93,6 +95,7 @@ function cutChart(lines: string[]): string[] {
 
 function render(review: Review, options: MarkdownOptions, detail: Detail, omitted: string[]): string {
   const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}…${review.head.slice(0, 7)}</sub>`, ''];
+  out.push(...coverageNotice(review));
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
     return out.join('\n');

@@ -14,6 +14,7 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
     warnings: style.yellow('passes, with warnings'),
     clear: style.green('all clear'),
     'nothing-to-check': style.green('nothing to check'),
+    partial: style.yellow('partial review, nothing found in the files seen'),
   }[review.verdict];
   const n = (count: number, noun: string) => `${count} ${noun}${count === 1 ? '' : 's'}`;
   out.push(`${style.bold('Plumbline')}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, 'warning')}, ${n(review.counts.note, 'note')}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);

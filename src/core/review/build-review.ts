@@ -5,9 +5,11 @@ import { eventStatuses, type EventStatus } from '../checks/logging.js';
 import { closestName } from '../source/closest-name.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
 import type { LinkReason, ReviewContext } from './context.js';
+import type { UnseenFiles } from './coverage.js';
 import { ALWAYS_BLOCKS, FINDING_CODES, type Finding, type Severity } from './finding.js';
 
-export type Verdict = 'blocked' | 'warnings' | 'clear' | 'nothing-to-check';
+/** `partial`: nothing found, but some files of the change were never seen (see Review.partial). */
+export type Verdict = 'blocked' | 'warnings' | 'clear' | 'nothing-to-check' | 'partial';
 
 export interface ChecklistItem {
   label: string;
@@ -54,6 +56,8 @@ export interface Review {
   collisions: ReviewCollision[];
   /** On a bug fix that ships without a flag: why a check test is worth it, and a plan to paste. */
   nudge?: BugFixNudge;
+  /** Set when some files of the change were not seen, e.g. past GitHub's 3,000-file listing. */
+  partial?: UnseenFiles;
 }
 
 /** Which findings un-tick which checklist item. */

@@ -46,7 +46,7 @@ const sizeResult = z.union([
 export const reviewReportSchema = z
   .object({
     format: z.literal('plumbline.review/1'),
-    verdict: z.enum(['blocked', 'warnings', 'clear', 'nothing-to-check']),
+    verdict: z.enum(['blocked', 'warnings', 'clear', 'nothing-to-check', 'partial']),
     counts: z.object({ block: z.number().int(), warn: z.number().int(), note: z.number().int() }),
     base: z.string().regex(/^[0-9a-f]{40,64}$/),
     head: z.string().regex(/^[0-9a-f]{40,64}$/),
@@ -117,6 +117,10 @@ export const reviewReportSchema = z
       }),
     ),
     nudge: z.object({ reason: z.string(), productFiles: z.array(z.string()), planStub: z.string(), sizingLine: z.string().optional() }).optional(),
+    partial: z
+      .object({ reason: z.string(), reviewedFiles: z.number().int(), changedFiles: z.number().int().optional() })
+      .optional()
+      .describe('Present when some files of the change were not reviewed; the verdict is then never clear.'),
   })
   .describe('The Plumbline pull-request review report.');
 

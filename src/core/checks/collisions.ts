@@ -38,11 +38,11 @@ function windowOverlap(a: RegistryEntry['window'], b: RegistryEntry['window']): 
 }
 
 function sharedTraffic(a: RegistryEntry, b: RegistryEntry): number {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
+  const ga = a.surface.trafficSplit;
+  const gb = b.surface.trafficSplit;
   if (ga && gb && ga.name === gb.name) {
-    // One group's units are split once, so slices either overlap or not at all.
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    // One pool's units are divided once, so half-open ranges either overlap or not at all.
+    const overlap = Math.min(ga.range.end, gb.range.end) - Math.max(ga.range.start, gb.range.start);
     return Math.max(0, overlap) / 100;
   }
   // Independent assignments: a unit is in both with the product of the shares.

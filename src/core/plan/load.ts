@@ -3,6 +3,7 @@ import type { Problem } from '../source/problem.js';
 import { runRules } from '../source/rule-context.js';
 import { readYaml, type YamlLimits } from '../source/yaml-source.js';
 import { planJsonSchema } from './json-schema.js';
+import { renamedSurfaceKeys } from './renamed-keys.js';
 import { PLAN_RULES } from './rules.js';
 import { planSchema, type Plan } from './schema.js';
 
@@ -25,7 +26,7 @@ export function loadPlan(text: string, file: string): PlanLoadResult {
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
   const checked = checkWritten(read.source, planSchema, planJsonSchema(), 'plan');
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const problems = [...renamedSurfaceKeys(read.source, [['surface']], 'plan'), ...runRules(checked.value, read.source, PLAN_RULES)];
   const errors = problems.filter((p) => p.severity === 'error');
   const warnings = problems.filter((p) => p.severity === 'warning');
   if (errors.length) return { ok: false, errors, warnings };

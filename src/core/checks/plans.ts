@@ -1,6 +1,7 @@
 import { inclusiveDays } from '../calendar.js';
 import { missingDecisions } from '../plan/rules.js';
 import type { Check } from '../review/context.js';
+import { atPlanKey } from './plan-key.js';
 import { formatProblem } from '../source/problem.js';
 
 /** A plan file the change adds or edits must load: its problems block until fixed. */
@@ -26,9 +27,7 @@ export const decisionsMissing: Check = ({ linked }) =>
         code: 'decisions-missing',
         message: `No decision rule for ${missing.join(', ')}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
         fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join('; ')}.`,
-        plan: loaded.plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, ['decisions']),
       },
     ];
   });
@@ -40,9 +39,7 @@ export const reasonMissing: Check = ({ linked }) =>
       code: 'reason-missing',
       message: 'The hypothesis says what changes but not why it should work.',
       fix: 'Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['hypothesis']),
     }));
 
 export const guardrailsMissing: Check = ({ linked }) =>
@@ -52,15 +49,13 @@ export const guardrailsMissing: Check = ({ linked }) =>
       code: 'guardrails-missing',
       message: 'No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.',
       fix: 'Add metrics.guardrails with a direction and a tolerance each.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['metrics', 'guardrails']),
     }));
 
 export const windowChecks: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) => {
     const { start, end } = loaded.plan.window;
-    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+    const at = atPlanKey(loaded, ['window', 'end']);
     if (!end) {
       return [{ code: 'end-missing', message: 'No planned end date: tests without one run on, and get peeked at until something looks significant.', fix: 'Add window.end.', ...at }];
     }
@@ -78,14 +73,13 @@ export const windowChecks: Check = ({ linked }) =>
 export const reviewMissing: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) =>
     loaded.plan.sensitive
+      .map((s, index) => ({ ...s, index }))
       .filter((s) => !s.review)
       .map((s) => ({
         code: 'review-missing',
         message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
         fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
-        plan: loaded.plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, ['sensitive', s.index]),
       })),
   );
 
@@ -106,18 +100,15 @@ export const bundleUnexplained: Check = ({ linked }) =>
       code: 'bundle-unexplained',
       message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(', ')}): a result will not say which change caused it.`,
       fix: 'Add bundle-rationale, or split the plan.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['flags']),
     }));
 
 export const populationChecks: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) => {
     const { platforms, locales, ready } = loaded.plan.population;
-    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
     const missing = [platforms.length ? '' : 'platforms', locales.length ? '' : 'locales'].filter(Boolean);
     if (missing.length) {
-      return [{ code: 'population-undeclared', message: `The population does not declare ${missing.join(' or ')}.`, fix: `Add population.${missing.join(' and population.')}.`, ...at }];
+      return [{ code: 'population-undeclared', message: `The population does not declare ${missing.join(' or ')}.`, fix: `Add population.${missing.join(' and population.')}.`, ...atPlanKey(loaded, ['population']) }];
     }
     const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
     if (notReady.length === 0) return [];
@@ -126,7 +117,7 @@ export const populationChecks: Check = ({ linked }) =>
         code: 'readiness-missing',
         message: `The change is not declared ready on ${notReady.join(', ')} (rendered, translated), though the population includes ${notReady.length === 1 ? 'it' : 'them'}.`,
         fix: 'Check the change there and add it under population.ready, or take it out of the population.',
-        ...at,
+        ...atPlanKey(loaded, ['population', 'ready']),
       },
     ];
   });

@@ -41,9 +41,9 @@ var __toESM = (mod, isNodeMode, target) => (target = mod != null ? __create(__ge
   mod
 ));
 
-// node_modules/commander/lib/error.js
+// ../main/node_modules/commander/lib/error.js
 var require_error = __commonJS({
-  "node_modules/commander/lib/error.js"(exports) {
+  "../main/node_modules/commander/lib/error.js"(exports) {
     var CommanderError2 = class extends Error {
       /**
        * Constructs the CommanderError class
@@ -76,9 +76,9 @@ var require_error = __commonJS({
   }
 });
 
-// node_modules/commander/lib/argument.js
+// ../main/node_modules/commander/lib/argument.js
 var require_argument = __commonJS({
-  "node_modules/commander/lib/argument.js"(exports) {
+  "../main/node_modules/commander/lib/argument.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Argument2 = class {
       /**
@@ -204,9 +204,9 @@ var require_argument = __commonJS({
   }
 });
 
-// node_modules/commander/lib/help.js
+// ../main/node_modules/commander/lib/help.js
 var require_help = __commonJS({
-  "node_modules/commander/lib/help.js"(exports) {
+  "../main/node_modules/commander/lib/help.js"(exports) {
     var { humanReadableArgName } = require_argument();
     var Help2 = class {
       constructor() {
@@ -806,9 +806,9 @@ ${itemIndentStr}`);
   }
 });
 
-// node_modules/commander/lib/option.js
+// ../main/node_modules/commander/lib/option.js
 var require_option = __commonJS({
-  "node_modules/commander/lib/option.js"(exports) {
+  "../main/node_modules/commander/lib/option.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Option2 = class {
       /**
@@ -1119,9 +1119,9 @@ var require_option = __commonJS({
   }
 });
 
-// node_modules/commander/lib/suggestSimilar.js
+// ../main/node_modules/commander/lib/suggestSimilar.js
 var require_suggestSimilar = __commonJS({
-  "node_modules/commander/lib/suggestSimilar.js"(exports) {
+  "../main/node_modules/commander/lib/suggestSimilar.js"(exports) {
     var maxDistance = 3;
     function editDistance2(a, b) {
       if (Math.abs(a.length - b.length) > maxDistance)
@@ -1199,9 +1199,9 @@ var require_suggestSimilar = __commonJS({
   }
 });
 
-// node_modules/commander/lib/command.js
+// ../main/node_modules/commander/lib/command.js
 var require_command = __commonJS({
-  "node_modules/commander/lib/command.js"(exports) {
+  "../main/node_modules/commander/lib/command.js"(exports) {
     var EventEmitter = __require("node:events").EventEmitter;
     var childProcess = __require("node:child_process");
     var path = __require("node:path");
@@ -3445,9 +3445,9 @@ Expecting one of '${allowedValues.join("', '")}'`);
   }
 });
 
-// node_modules/commander/index.js
+// ../main/node_modules/commander/index.js
 var require_commander = __commonJS({
-  "node_modules/commander/index.js"(exports) {
+  "../main/node_modules/commander/index.js"(exports) {
     var { Argument: Argument2 } = require_argument();
     var { Command: Command3 } = require_command();
     var { CommanderError: CommanderError2, InvalidArgumentError: InvalidArgumentError2 } = require_error();
@@ -3467,9 +3467,9 @@ var require_commander = __commonJS({
   }
 });
 
-// node_modules/jstat/dist/jstat.js
+// ../main/node_modules/jstat/dist/jstat.js
 var require_jstat = __commonJS({
-  "node_modules/jstat/dist/jstat.js"(exports, module) {
+  "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
     (function(window, factory) {
       if (typeof exports === "object") {
         module.exports = factory();
@@ -7318,9 +7318,9 @@ var require_jstat = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/identity.js
+// ../main/node_modules/yaml/dist/nodes/identity.js
 var require_identity = __commonJS({
-  "node_modules/yaml/dist/nodes/identity.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/identity.js"(exports) {
     "use strict";
     var ALIAS = /* @__PURE__ */ Symbol.for("yaml.alias");
     var DOC = /* @__PURE__ */ Symbol.for("yaml.document");
@@ -7375,9 +7375,9 @@ var require_identity = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/visit.js
+// ../main/node_modules/yaml/dist/visit.js
 var require_visit = __commonJS({
-  "node_modules/yaml/dist/visit.js"(exports) {
+  "../main/node_modules/yaml/dist/visit.js"(exports) {
     "use strict";
     var identity = require_identity();
     var BREAK = /* @__PURE__ */ Symbol("break visit");
@@ -7533,9 +7533,9 @@ var require_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/directives.js
+// ../main/node_modules/yaml/dist/doc/directives.js
 var require_directives = __commonJS({
-  "node_modules/yaml/dist/doc/directives.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/directives.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7704,9 +7704,9 @@ var require_directives = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/anchors.js
+// ../main/node_modules/yaml/dist/doc/anchors.js
 var require_anchors = __commonJS({
-  "node_modules/yaml/dist/doc/anchors.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/anchors.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7774,9 +7774,9 @@ var require_anchors = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/applyReviver.js
+// ../main/node_modules/yaml/dist/doc/applyReviver.js
 var require_applyReviver = __commonJS({
-  "node_modules/yaml/dist/doc/applyReviver.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/applyReviver.js"(exports) {
     "use strict";
     function applyReviver(reviver, obj, key, val) {
       if (val && typeof val === "object") {
@@ -7824,9 +7824,9 @@ var require_applyReviver = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/toJS.js
+// ../main/node_modules/yaml/dist/nodes/toJS.js
 var require_toJS = __commonJS({
-  "node_modules/yaml/dist/nodes/toJS.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/toJS.js"(exports) {
     "use strict";
     var identity = require_identity();
     function toJS(value, arg, ctx) {
@@ -7854,9 +7854,9 @@ var require_toJS = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Node.js
+// ../main/node_modules/yaml/dist/nodes/Node.js
 var require_Node = __commonJS({
-  "node_modules/yaml/dist/nodes/Node.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Node.js"(exports) {
     "use strict";
     var applyReviver = require_applyReviver();
     var identity = require_identity();
@@ -7895,9 +7895,9 @@ var require_Node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Alias.js
+// ../main/node_modules/yaml/dist/nodes/Alias.js
 var require_Alias = __commonJS({
-  "node_modules/yaml/dist/nodes/Alias.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Alias.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var visit3 = require_visit();
@@ -8013,9 +8013,9 @@ var require_Alias = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Scalar.js
+// ../main/node_modules/yaml/dist/nodes/Scalar.js
 var require_Scalar = __commonJS({
-  "node_modules/yaml/dist/nodes/Scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Node = require_Node();
@@ -8043,9 +8043,9 @@ var require_Scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/createNode.js
+// ../main/node_modules/yaml/dist/doc/createNode.js
 var require_createNode = __commonJS({
-  "node_modules/yaml/dist/doc/createNode.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/createNode.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -8118,9 +8118,9 @@ var require_createNode = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Collection.js
+// ../main/node_modules/yaml/dist/nodes/Collection.js
 var require_Collection = __commonJS({
-  "node_modules/yaml/dist/nodes/Collection.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Collection.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var identity = require_identity();
@@ -8261,9 +8261,9 @@ var require_Collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyComment.js
+// ../main/node_modules/yaml/dist/stringify/stringifyComment.js
 var require_stringifyComment = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
     "use strict";
     var stringifyComment = (str) => str.replace(/^(?!$)(?: $)?/gm, "#");
     function indentComment(comment, indent) {
@@ -8278,9 +8278,9 @@ var require_stringifyComment = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/foldFlowLines.js
+// ../main/node_modules/yaml/dist/stringify/foldFlowLines.js
 var require_foldFlowLines = __commonJS({
-  "node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
     "use strict";
     var FOLD_FLOW = "flow";
     var FOLD_BLOCK = "block";
@@ -8414,9 +8414,9 @@ ${indent}${text2.slice(fold + 1, end2)}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyString.js
+// ../main/node_modules/yaml/dist/stringify/stringifyString.js
 var require_stringifyString = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var foldFlowLines = require_foldFlowLines();
@@ -8697,9 +8697,9 @@ ${indent}`);
   }
 });
 
-// node_modules/yaml/dist/stringify/stringify.js
+// ../main/node_modules/yaml/dist/stringify/stringify.js
 var require_stringify = __commonJS({
-  "node_modules/yaml/dist/stringify/stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringify.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var identity = require_identity();
@@ -8821,9 +8821,9 @@ ${ctx.indent}${str}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyPair.js
+// ../main/node_modules/yaml/dist/stringify/stringifyPair.js
 var require_stringifyPair = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -8954,9 +8954,9 @@ ${ctx.indent}`;
   }
 });
 
-// node_modules/yaml/dist/log.js
+// ../main/node_modules/yaml/dist/log.js
 var require_log = __commonJS({
-  "node_modules/yaml/dist/log.js"(exports) {
+  "../main/node_modules/yaml/dist/log.js"(exports) {
     "use strict";
     var node_process = __require("process");
     function debug(logLevel, ...messages) {
@@ -8976,9 +8976,9 @@ var require_log = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/merge.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js
 var require_merge = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -9036,9 +9036,9 @@ var require_merge = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/addPairToJSMap.js
+// ../main/node_modules/yaml/dist/nodes/addPairToJSMap.js
 var require_addPairToJSMap = __commonJS({
-  "node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
     "use strict";
     var log = require_log();
     var merge2 = require_merge();
@@ -9100,9 +9100,9 @@ var require_addPairToJSMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Pair.js
+// ../main/node_modules/yaml/dist/nodes/Pair.js
 var require_Pair = __commonJS({
-  "node_modules/yaml/dist/nodes/Pair.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Pair.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyPair = require_stringifyPair();
@@ -9140,9 +9140,9 @@ var require_Pair = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyCollection.js
+// ../main/node_modules/yaml/dist/stringify/stringifyCollection.js
 var require_stringifyCollection = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -9291,9 +9291,9 @@ ${indent}${end}`;
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLMap.js
+// ../main/node_modules/yaml/dist/nodes/YAMLMap.js
 var require_YAMLMap = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
     "use strict";
     var stringifyCollection = require_stringifyCollection();
     var addPairToJSMap = require_addPairToJSMap();
@@ -9435,9 +9435,9 @@ var require_YAMLMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/map.js
+// ../main/node_modules/yaml/dist/schema/common/map.js
 var require_map = __commonJS({
-  "node_modules/yaml/dist/schema/common/map.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/map.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLMap = require_YAMLMap();
@@ -9457,9 +9457,9 @@ var require_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLSeq.js
+// ../main/node_modules/yaml/dist/nodes/YAMLSeq.js
 var require_YAMLSeq = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyCollection = require_stringifyCollection();
@@ -9573,9 +9573,9 @@ var require_YAMLSeq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/seq.js
+// ../main/node_modules/yaml/dist/schema/common/seq.js
 var require_seq = __commonJS({
-  "node_modules/yaml/dist/schema/common/seq.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/seq.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLSeq = require_YAMLSeq();
@@ -9595,9 +9595,9 @@ var require_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/string.js
+// ../main/node_modules/yaml/dist/schema/common/string.js
 var require_string = __commonJS({
-  "node_modules/yaml/dist/schema/common/string.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/string.js"(exports) {
     "use strict";
     var stringifyString = require_stringifyString();
     var string4 = {
@@ -9614,9 +9614,9 @@ var require_string = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/null.js
+// ../main/node_modules/yaml/dist/schema/common/null.js
 var require_null = __commonJS({
-  "node_modules/yaml/dist/schema/common/null.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/null.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var nullTag = {
@@ -9632,9 +9632,9 @@ var require_null = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/bool.js
+// ../main/node_modules/yaml/dist/schema/core/bool.js
 var require_bool = __commonJS({
-  "node_modules/yaml/dist/schema/core/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var boolTag = {
@@ -9656,9 +9656,9 @@ var require_bool = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyNumber.js
+// ../main/node_modules/yaml/dist/stringify/stringifyNumber.js
 var require_stringifyNumber = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
     "use strict";
     function stringifyNumber({ format, minFractionDigits, tag, value }) {
       if (typeof value === "bigint")
@@ -9683,9 +9683,9 @@ var require_stringifyNumber = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/float.js
+// ../main/node_modules/yaml/dist/schema/core/float.js
 var require_float = __commonJS({
-  "node_modules/yaml/dist/schema/core/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -9729,9 +9729,9 @@ var require_float = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/int.js
+// ../main/node_modules/yaml/dist/schema/core/int.js
 var require_int = __commonJS({
-  "node_modules/yaml/dist/schema/core/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -9774,9 +9774,9 @@ var require_int = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/schema.js
+// ../main/node_modules/yaml/dist/schema/core/schema.js
 var require_schema = __commonJS({
-  "node_modules/yaml/dist/schema/core/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -9802,9 +9802,9 @@ var require_schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/json/schema.js
+// ../main/node_modules/yaml/dist/schema/json/schema.js
 var require_schema2 = __commonJS({
-  "node_modules/yaml/dist/schema/json/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/json/schema.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var map2 = require_map();
@@ -9869,9 +9869,9 @@ var require_schema2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/binary.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js
 var require_binary = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
     "use strict";
     var node_buffer = __require("buffer");
     var Scalar = require_Scalar();
@@ -9935,9 +9935,9 @@ var require_binary = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/pairs.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js
 var require_pairs = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10013,9 +10013,9 @@ ${cn.comment}` : item.comment;
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/omap.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js
 var require_omap = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
     "use strict";
     var identity = require_identity();
     var toJS = require_toJS();
@@ -10091,9 +10091,9 @@ var require_omap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/bool.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js
 var require_bool2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function boolStringify({ value, source }, ctx) {
@@ -10123,9 +10123,9 @@ var require_bool2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/float.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/float.js
 var require_float2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -10172,9 +10172,9 @@ var require_float2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/int.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/int.js
 var require_int2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -10251,9 +10251,9 @@ var require_int2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/set.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/set.js
 var require_set = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10340,9 +10340,9 @@ var require_set = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
 var require_timestamp = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     function parseSexagesimal(str, asBigInt) {
@@ -10428,9 +10428,9 @@ var require_timestamp = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/schema.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js
 var require_schema3 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10472,9 +10472,9 @@ var require_schema3 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/tags.js
+// ../main/node_modules/yaml/dist/schema/tags.js
 var require_tags = __commonJS({
-  "node_modules/yaml/dist/schema/tags.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/tags.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10566,9 +10566,9 @@ var require_tags = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/Schema.js
+// ../main/node_modules/yaml/dist/schema/Schema.js
 var require_Schema = __commonJS({
-  "node_modules/yaml/dist/schema/Schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/Schema.js"(exports) {
     "use strict";
     var identity = require_identity();
     var map2 = require_map();
@@ -10598,9 +10598,9 @@ var require_Schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyDocument.js
+// ../main/node_modules/yaml/dist/stringify/stringifyDocument.js
 var require_stringifyDocument = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -10678,9 +10678,9 @@ var require_stringifyDocument = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/Document.js
+// ../main/node_modules/yaml/dist/doc/Document.js
 var require_Document = __commonJS({
-  "node_modules/yaml/dist/doc/Document.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/Document.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var Collection = require_Collection();
@@ -10987,9 +10987,9 @@ var require_Document = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/errors.js
+// ../main/node_modules/yaml/dist/errors.js
 var require_errors = __commonJS({
-  "node_modules/yaml/dist/errors.js"(exports) {
+  "../main/node_modules/yaml/dist/errors.js"(exports) {
     "use strict";
     var YAMLError = class extends Error {
       constructor(name, pos, code, message) {
@@ -11052,9 +11052,9 @@ ${pointer}
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-props.js
+// ../main/node_modules/yaml/dist/compose/resolve-props.js
 var require_resolve_props = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-props.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-props.js"(exports) {
     "use strict";
     function resolveProps(tokens, { flow, indicator, next, offset, onError, parentIndent, startOnNewline }) {
       let spaceBefore = false;
@@ -11186,9 +11186,9 @@ var require_resolve_props = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-contains-newline.js
+// ../main/node_modules/yaml/dist/compose/util-contains-newline.js
 var require_util_contains_newline = __commonJS({
-  "node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
     "use strict";
     function containsNewline(key) {
       if (!key)
@@ -11228,9 +11228,9 @@ var require_util_contains_newline = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-flow-indent-check.js
+// ../main/node_modules/yaml/dist/compose/util-flow-indent-check.js
 var require_util_flow_indent_check = __commonJS({
-  "node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
     "use strict";
     var utilContainsNewline = require_util_contains_newline();
     function flowIndentCheck(indent, fc, onError) {
@@ -11246,9 +11246,9 @@ var require_util_flow_indent_check = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-map-includes.js
+// ../main/node_modules/yaml/dist/compose/util-map-includes.js
 var require_util_map_includes = __commonJS({
-  "node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
     "use strict";
     var identity = require_identity();
     function mapIncludes(ctx, items, search) {
@@ -11262,9 +11262,9 @@ var require_util_map_includes = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-map.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-map.js
 var require_resolve_block_map = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
     "use strict";
     var Pair = require_Pair();
     var YAMLMap = require_YAMLMap();
@@ -11370,9 +11370,9 @@ var require_resolve_block_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-seq.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-seq.js
 var require_resolve_block_seq = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
     "use strict";
     var YAMLSeq = require_YAMLSeq();
     var resolveProps = require_resolve_props();
@@ -11421,9 +11421,9 @@ var require_resolve_block_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-end.js
+// ../main/node_modules/yaml/dist/compose/resolve-end.js
 var require_resolve_end = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-end.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-end.js"(exports) {
     "use strict";
     function resolveEnd(end, offset, reqSpace, onError) {
       let comment = "";
@@ -11464,9 +11464,9 @@ var require_resolve_end = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-collection.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-collection.js
 var require_resolve_flow_collection = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -11658,9 +11658,9 @@ var require_resolve_flow_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-collection.js
+// ../main/node_modules/yaml/dist/compose/compose-collection.js
 var require_compose_collection = __commonJS({
-  "node_modules/yaml/dist/compose/compose-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -11723,9 +11723,9 @@ var require_compose_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-scalar.js
 var require_resolve_block_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function resolveBlockScalar(ctx, scalar, onError) {
@@ -11906,9 +11906,9 @@ var require_resolve_block_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js
 var require_resolve_flow_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var resolveEnd = require_resolve_end();
@@ -12127,9 +12127,9 @@ var require_resolve_flow_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-scalar.js
+// ../main/node_modules/yaml/dist/compose/compose-scalar.js
 var require_compose_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -12208,9 +12208,9 @@ var require_compose_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-empty-scalar-position.js
+// ../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js
 var require_util_empty_scalar_position = __commonJS({
-  "node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
     "use strict";
     function emptyScalarPosition(offset, before, pos) {
       if (before) {
@@ -12238,9 +12238,9 @@ var require_util_empty_scalar_position = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-node.js
+// ../main/node_modules/yaml/dist/compose/compose-node.js
 var require_compose_node = __commonJS({
-  "node_modules/yaml/dist/compose/compose-node.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-node.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -12344,9 +12344,9 @@ var require_compose_node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-doc.js
+// ../main/node_modules/yaml/dist/compose/compose-doc.js
 var require_compose_doc = __commonJS({
-  "node_modules/yaml/dist/compose/compose-doc.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-doc.js"(exports) {
     "use strict";
     var Document = require_Document();
     var composeNode = require_compose_node();
@@ -12387,9 +12387,9 @@ var require_compose_doc = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/composer.js
+// ../main/node_modules/yaml/dist/compose/composer.js
 var require_composer = __commonJS({
-  "node_modules/yaml/dist/compose/composer.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/composer.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var directives = require_directives();
@@ -12595,9 +12595,9 @@ ${end.comment}` : end.comment;
   }
 });
 
-// node_modules/yaml/dist/parse/cst-scalar.js
+// ../main/node_modules/yaml/dist/parse/cst-scalar.js
 var require_cst_scalar = __commonJS({
-  "node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
     "use strict";
     var resolveBlockScalar = require_resolve_block_scalar();
     var resolveFlowScalar = require_resolve_flow_scalar();
@@ -12780,9 +12780,9 @@ var require_cst_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-stringify.js
+// ../main/node_modules/yaml/dist/parse/cst-stringify.js
 var require_cst_stringify = __commonJS({
-  "node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
     "use strict";
     var stringify = (cst) => "type" in cst ? stringifyToken(cst) : stringifyItem(cst);
     function stringifyToken(token) {
@@ -12841,9 +12841,9 @@ var require_cst_stringify = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-visit.js
+// ../main/node_modules/yaml/dist/parse/cst-visit.js
 var require_cst_visit = __commonJS({
-  "node_modules/yaml/dist/parse/cst-visit.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-visit.js"(exports) {
     "use strict";
     var BREAK = /* @__PURE__ */ Symbol("break visit");
     var SKIP = /* @__PURE__ */ Symbol("skip children");
@@ -12903,9 +12903,9 @@ var require_cst_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst.js
+// ../main/node_modules/yaml/dist/parse/cst.js
 var require_cst = __commonJS({
-  "node_modules/yaml/dist/parse/cst.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst.js"(exports) {
     "use strict";
     var cstScalar = require_cst_scalar();
     var cstStringify = require_cst_stringify();
@@ -13005,9 +13005,9 @@ var require_cst = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/lexer.js
+// ../main/node_modules/yaml/dist/parse/lexer.js
 var require_lexer = __commonJS({
-  "node_modules/yaml/dist/parse/lexer.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/lexer.js"(exports) {
     "use strict";
     var cst = require_cst();
     function isEmpty(ch) {
@@ -13594,9 +13594,9 @@ var require_lexer = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/line-counter.js
+// ../main/node_modules/yaml/dist/parse/line-counter.js
 var require_line_counter = __commonJS({
-  "node_modules/yaml/dist/parse/line-counter.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/line-counter.js"(exports) {
     "use strict";
     var LineCounter2 = class {
       constructor() {
@@ -13625,9 +13625,9 @@ var require_line_counter = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/parser.js
+// ../main/node_modules/yaml/dist/parse/parser.js
 var require_parser = __commonJS({
-  "node_modules/yaml/dist/parse/parser.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/parser.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var cst = require_cst();
@@ -14499,9 +14499,9 @@ var require_parser = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/public-api.js
+// ../main/node_modules/yaml/dist/public-api.js
 var require_public_api = __commonJS({
-  "node_modules/yaml/dist/public-api.js"(exports) {
+  "../main/node_modules/yaml/dist/public-api.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14596,9 +14596,9 @@ var require_public_api = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/index.js
+// ../main/node_modules/yaml/dist/index.js
 var require_dist = __commonJS({
-  "node_modules/yaml/dist/index.js"(exports) {
+  "../main/node_modules/yaml/dist/index.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14648,9 +14648,9 @@ var require_dist = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/constants.js
+// ../main/node_modules/picomatch/lib/constants.js
 var require_constants = __commonJS({
-  "node_modules/picomatch/lib/constants.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
     "use strict";
     var WIN_SLASH = "\\\\/";
     var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
@@ -14847,9 +14847,9 @@ var require_constants = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/utils.js
+// ../main/node_modules/picomatch/lib/utils.js
 var require_utils = __commonJS({
-  "node_modules/picomatch/lib/utils.js"(exports) {
+  "../main/node_modules/picomatch/lib/utils.js"(exports) {
     "use strict";
     var {
       REGEX_BACKSLASH,
@@ -14911,9 +14911,9 @@ var require_utils = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/scan.js
+// ../main/node_modules/picomatch/lib/scan.js
 var require_scan = __commonJS({
-  "node_modules/picomatch/lib/scan.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
     "use strict";
     var utils = require_utils();
     var {
@@ -15241,9 +15241,9 @@ var require_scan = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/parse.js
+// ../main/node_modules/picomatch/lib/parse.js
 var require_parse = __commonJS({
-  "node_modules/picomatch/lib/parse.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
     "use strict";
     var constants = require_constants();
     var utils = require_utils();
@@ -16009,9 +16009,9 @@ var require_parse = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/picomatch.js
+// ../main/node_modules/picomatch/lib/picomatch.js
 var require_picomatch = __commonJS({
-  "node_modules/picomatch/lib/picomatch.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
     var parse4 = require_parse();
@@ -16149,9 +16149,9 @@ var require_picomatch = __commonJS({
   }
 });
 
-// node_modules/picomatch/index.js
+// ../main/node_modules/picomatch/index.js
 var require_picomatch2 = __commonJS({
-  "node_modules/picomatch/index.js"(exports, module) {
+  "../main/node_modules/picomatch/index.js"(exports, module) {
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
@@ -16169,7 +16169,7 @@ var require_picomatch2 = __commonJS({
 // src/cli/main.ts
 import { resolve as resolve2 } from "node:path";
 
-// node_modules/commander/esm.mjs
+// ../main/node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
 var {
   program,
@@ -16274,7 +16274,7 @@ function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
 }
 
-// node_modules/zod/v4/classic/external.js
+// ../main/node_modules/zod/v4/classic/external.js
 var external_exports = {};
 __export(external_exports, {
   $brand: () => $brand,
@@ -16537,7 +16537,7 @@ __export(external_exports, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/core/index.js
+// ../main/node_modules/zod/v4/core/index.js
 var core_exports2 = {};
 __export(core_exports2, {
   $ZodAny: () => $ZodAny,
@@ -16854,7 +16854,7 @@ __export(core_exports2, {
   withParser: () => withParser
 });
 
-// node_modules/zod/v4/core/util.js
+// ../main/node_modules/zod/v4/core/util.js
 var util_exports = {};
 __export(util_exports, {
   BIGINT_FORMAT_RANGES: () => BIGINT_FORMAT_RANGES,
@@ -17710,7 +17710,7 @@ function constantCatch(value) {
   return fn;
 }
 
-// node_modules/zod/v4/core/core.js
+// ../main/node_modules/zod/v4/core/core.js
 var _a;
 var NEVER = /* @__PURE__ */ Object.freeze({
   status: "aborted"
@@ -17832,7 +17832,7 @@ function config(newConfig) {
   return globalConfig;
 }
 
-// node_modules/zod/v4/core/errors.js
+// ../main/node_modules/zod/v4/core/errors.js
 function _getMessage() {
   const internals = this._zod;
   internals.message ?? (internals.message = JSON.stringify(internals.def, jsonStringifyReplacer, 2));
@@ -18024,7 +18024,7 @@ function prettifyError(error62) {
   return lines.join("\n");
 }
 
-// node_modules/zod/v4/core/parse.js
+// ../main/node_modules/zod/v4/core/parse.js
 function finalizeParams(callee, params) {
   return { callee: params?.callee ?? callee, Err: params?.Err };
 }
@@ -18184,7 +18184,7 @@ var _safeDecodeAsync = (_Err) => async (schema, value, _ctx) => {
 };
 var safeDecodeAsync = /* @__PURE__ */ _safeDecodeAsync($ZodRealError);
 
-// node_modules/zod/v4/core/regexes.js
+// ../main/node_modules/zod/v4/core/regexes.js
 var regexes_exports = {};
 __export(regexes_exports, {
   anyString: () => anyString,
@@ -18356,7 +18356,7 @@ var sha512_hex = /^[0-9a-fA-F]{128}$/;
 var sha512_base64 = /* @__PURE__ */ fixedBase64(86, "==");
 var sha512_base64url = /* @__PURE__ */ fixedBase64url(86);
 
-// node_modules/zod/v4/core/checks.js
+// ../main/node_modules/zod/v4/core/checks.js
 var $ZodCheck = /* @__PURE__ */ $constructor("$ZodCheck", (inst, def) => {
   var _a3;
   inst._zod ?? (inst._zod = {});
@@ -18832,7 +18832,7 @@ var $ZodCheckOverwrite = /* @__PURE__ */ $constructor("$ZodCheckOverwrite", (ins
   };
 });
 
-// node_modules/zod/v4/core/doc.js
+// ../main/node_modules/zod/v4/core/doc.js
 var Doc = class {
   constructor(args = [], closed = {}) {
     this.content = [];
@@ -18873,14 +18873,14 @@ ${content.join("\n")}
   }
 };
 
-// node_modules/zod/v4/core/versions.js
+// ../main/node_modules/zod/v4/core/versions.js
 var version = {
   major: 4,
   minor: 6,
   patch: 7
 };
 
-// node_modules/zod/v4/core/schemas.js
+// ../main/node_modules/zod/v4/core/schemas.js
 var $ZodType = /* @__PURE__ */ $constructor("$ZodType", (inst, def) => {
   var _a3;
   inst ?? (inst = {});
@@ -21322,7 +21322,7 @@ function handleRefineResult(result, payload, input2, inst) {
   }
 }
 
-// node_modules/zod/v4/core/memoizer.js
+// ../main/node_modules/zod/v4/core/memoizer.js
 var $ZodCyclicError = class extends Error {
   constructor() {
     super(`Cannot parse a reference cycle that closes through a transform`);
@@ -21599,7 +21599,7 @@ function isBackEdge(ctx, value) {
   return backEdges !== void 0 && isRef(value) && backEdges.has(value);
 }
 
-// node_modules/zod/v4/locales/index.js
+// ../main/node_modules/zod/v4/locales/index.js
 var locales_exports = {};
 __export(locales_exports, {
   ar: () => ar_default,
@@ -21667,7 +21667,7 @@ __export(locales_exports, {
   zhTW: () => zh_TW_default
 });
 
-// node_modules/zod/v4/locales/ar.js
+// ../main/node_modules/zod/v4/locales/ar.js
 var error = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0641", verb: "\u0623\u0646 \u064A\u062D\u0648\u064A" },
@@ -21779,7 +21779,7 @@ function ar_default() {
   };
 }
 
-// node_modules/zod/v4/locales/az.js
+// ../main/node_modules/zod/v4/locales/az.js
 var error2 = () => {
   const Sizable = {
     string: { unit: "simvol", verb: "olmal\u0131d\u0131r" },
@@ -21890,7 +21890,7 @@ function az_default() {
   };
 }
 
-// node_modules/zod/v4/locales/be.js
+// ../main/node_modules/zod/v4/locales/be.js
 function getBelarusianPlural(count2, one, few, many) {
   const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
@@ -22059,7 +22059,7 @@ function be_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bg.js
+// ../main/node_modules/zod/v4/locales/bg.js
 var error4 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0430", verb: "\u0434\u0430 \u0441\u044A\u0434\u044A\u0440\u0436\u0430" },
@@ -22185,7 +22185,7 @@ function bg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bn.js
+// ../main/node_modules/zod/v4/locales/bn.js
 var error5 = () => {
   const Sizable = {
     string: { unit: "\u0985\u0995\u09CD\u09B7\u09B0", verb: "\u09A5\u09BE\u0995\u09A4\u09C7 \u09B9\u09AC\u09C7" },
@@ -22299,7 +22299,7 @@ function bn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ca.js
+// ../main/node_modules/zod/v4/locales/ca.js
 var error6 = () => {
   const Sizable = {
     string: { unit: "car\xE0cters", verb: "contenir" },
@@ -22413,7 +22413,7 @@ function ca_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ckb.js
+// ../main/node_modules/zod/v4/locales/ckb.js
 var error7 = () => {
   const Sizable = {
     string: { unit: "\u067E\u06CC\u062A", verb: "\u0628\u06CE\u062A" },
@@ -22546,7 +22546,7 @@ function ckb_default() {
   };
 }
 
-// node_modules/zod/v4/locales/cs.js
+// ../main/node_modules/zod/v4/locales/cs.js
 var error8 = () => {
   const Sizable = {
     string: { unit: "znak\u016F", verb: "m\xEDt" },
@@ -22663,7 +22663,7 @@ function cs_default() {
   };
 }
 
-// node_modules/zod/v4/locales/da.js
+// ../main/node_modules/zod/v4/locales/da.js
 var error9 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "havde" },
@@ -22784,7 +22784,7 @@ function da_default() {
   };
 }
 
-// node_modules/zod/v4/locales/de.js
+// ../main/node_modules/zod/v4/locales/de.js
 var error10 = () => {
   const Sizable = {
     string: { unit: "Zeichen", verb: "zu haben" },
@@ -22898,7 +22898,7 @@ function de_default() {
   };
 }
 
-// node_modules/zod/v4/locales/el.js
+// ../main/node_modules/zod/v4/locales/el.js
 var error11 = () => {
   const Sizable = {
     string: { unit: "\u03C7\u03B1\u03C1\u03B1\u03BA\u03C4\u03AE\u03C1\u03B5\u03C2", verb: "\u03BD\u03B1 \u03AD\u03C7\u03B5\u03B9" },
@@ -23011,7 +23011,7 @@ function el_default() {
   };
 }
 
-// node_modules/zod/v4/locales/en.js
+// ../main/node_modules/zod/v4/locales/en.js
 var error12 = () => {
   const Sizable = {
     string: { unit: "characters", verb: "to have" },
@@ -23136,7 +23136,7 @@ function en_default() {
   };
 }
 
-// node_modules/zod/v4/locales/eo.js
+// ../main/node_modules/zod/v4/locales/eo.js
 var error13 = () => {
   const Sizable = {
     string: { unit: "karaktrojn", verb: "havi" },
@@ -23251,7 +23251,7 @@ function eo_default() {
   };
 }
 
-// node_modules/zod/v4/locales/es.js
+// ../main/node_modules/zod/v4/locales/es.js
 var error14 = () => {
   const Sizable = {
     string: { unit: "caracteres", verb: "tener" },
@@ -23388,7 +23388,7 @@ function es_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fa.js
+// ../main/node_modules/zod/v4/locales/fa.js
 var error15 = () => {
   const Sizable = {
     string: { unit: "\u06A9\u0627\u0631\u0627\u06A9\u062A\u0631", verb: "\u062F\u0627\u0634\u062A\u0647 \u0628\u0627\u0634\u062F" },
@@ -23508,7 +23508,7 @@ function fa_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fi.js
+// ../main/node_modules/zod/v4/locales/fi.js
 var error16 = () => {
   const Sizable = {
     string: { unit: "merkki\xE4", subject: "merkkijonon" },
@@ -23626,7 +23626,7 @@ function fi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr.js
+// ../main/node_modules/zod/v4/locales/fr.js
 var error17 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23756,7 +23756,7 @@ function fr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr-CA.js
+// ../main/node_modules/zod/v4/locales/fr-CA.js
 var error18 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23869,7 +23869,7 @@ function fr_CA_default() {
   };
 }
 
-// node_modules/zod/v4/locales/gu.js
+// ../main/node_modules/zod/v4/locales/gu.js
 var error19 = () => {
   const Sizable = {
     string: { unit: "\u0A85\u0A95\u0ACD\u0AB7\u0AB0", verb: "\u0AB9\u0ACB\u0AB5\u0ABE \u0A9C\u0ACB\u0A88\u0A8F" },
@@ -23983,7 +23983,7 @@ function gu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/he.js
+// ../main/node_modules/zod/v4/locales/he.js
 var error20 = () => {
   const TypeNames = {
     string: { label: "\u05DE\u05D7\u05E8\u05D5\u05D6\u05EA", gender: "f" },
@@ -24185,7 +24185,7 @@ function he_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hi.js
+// ../main/node_modules/zod/v4/locales/hi.js
 var error21 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0930\u0916\u0928\u0947 \u0915\u0947 \u0932\u093F\u090F" },
@@ -24297,7 +24297,7 @@ function hi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hr.js
+// ../main/node_modules/zod/v4/locales/hr.js
 var error22 = () => {
   const Sizable = {
     string: { unit: "znakova", verb: "imati" },
@@ -24424,7 +24424,7 @@ function hr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hu.js
+// ../main/node_modules/zod/v4/locales/hu.js
 var error23 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "legyen" },
@@ -24538,7 +24538,7 @@ function hu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hy.js
+// ../main/node_modules/zod/v4/locales/hy.js
 function getArmenianPlural(count2, one, many) {
   return Math.abs(count2) === 1 ? one : many;
 }
@@ -24697,7 +24697,7 @@ function hy_default() {
   };
 }
 
-// node_modules/zod/v4/locales/id.js
+// ../main/node_modules/zod/v4/locales/id.js
 var error25 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "memiliki" },
@@ -24809,7 +24809,7 @@ function id_default() {
   };
 }
 
-// node_modules/zod/v4/locales/is.js
+// ../main/node_modules/zod/v4/locales/is.js
 var error26 = () => {
   const Sizable = {
     string: { unit: "stafi", verb: "a\xF0 hafa" },
@@ -24924,7 +24924,7 @@ function is_default() {
   };
 }
 
-// node_modules/zod/v4/locales/it.js
+// ../main/node_modules/zod/v4/locales/it.js
 var error27 = () => {
   const Sizable = {
     string: { unit: "caratteri", verb: "avere" },
@@ -25038,7 +25038,7 @@ function it_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ja.js
+// ../main/node_modules/zod/v4/locales/ja.js
 var error28 = () => {
   const Sizable = {
     string: { unit: "\u6587\u5B57", verb: "\u3067\u3042\u308B" },
@@ -25151,7 +25151,7 @@ function ja_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ka.js
+// ../main/node_modules/zod/v4/locales/ka.js
 var error29 = () => {
   const Sizable = {
     string: { unit: "\u10E1\u10D8\u10DB\u10D1\u10DD\u10DA\u10DD", verb: "\u10E3\u10DC\u10D3\u10D0 \u10E8\u10D4\u10D8\u10EA\u10D0\u10D5\u10D3\u10D4\u10E1" },
@@ -25269,7 +25269,7 @@ function ka_default() {
   };
 }
 
-// node_modules/zod/v4/locales/km.js
+// ../main/node_modules/zod/v4/locales/km.js
 var error30 = () => {
   const Sizable = {
     string: { unit: "\u178F\u17BD\u17A2\u1780\u17D2\u179F\u179A", verb: "\u1782\u17BD\u179A\u1798\u17B6\u1793" },
@@ -25385,12 +25385,12 @@ function km_default() {
   };
 }
 
-// node_modules/zod/v4/locales/kh.js
+// ../main/node_modules/zod/v4/locales/kh.js
 function kh_default() {
   return km_default();
 }
 
-// node_modules/zod/v4/locales/kn.js
+// ../main/node_modules/zod/v4/locales/kn.js
 var error31 = () => {
   const Sizable = {
     string: { unit: "\u0C85\u0C95\u0CCD\u0CB7\u0CB0\u0C97\u0CB3\u0CC1", verb: "\u0CB9\u0CCA\u0C82\u0CA6\u0CB2\u0CC1" },
@@ -25506,7 +25506,7 @@ function kn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ko.js
+// ../main/node_modules/zod/v4/locales/ko.js
 var error32 = () => {
   const Sizable = {
     string: { unit: "\uBB38\uC790", verb: "to have" },
@@ -25623,7 +25623,7 @@ function ko_default() {
   };
 }
 
-// node_modules/zod/v4/locales/lt.js
+// ../main/node_modules/zod/v4/locales/lt.js
 var capitalizeFirstCharacter = (text2) => {
   return text2.charAt(0).toUpperCase() + text2.slice(1);
 };
@@ -25831,7 +25831,7 @@ function lt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/mk.js
+// ../main/node_modules/zod/v4/locales/mk.js
 var error34 = () => {
   const Sizable = {
     string: { unit: "\u0437\u043D\u0430\u0446\u0438", verb: "\u0434\u0430 \u0438\u043C\u0430\u0430\u0442" },
@@ -25946,7 +25946,7 @@ function mk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ms.js
+// ../main/node_modules/zod/v4/locales/ms.js
 var error35 = () => {
   const Sizable = {
     string: { unit: "aksara", verb: "mempunyai" },
@@ -26059,7 +26059,7 @@ function ms_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ne.js
+// ../main/node_modules/zod/v4/locales/ne.js
 var error36 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0939\u0941\u0928\u0941\u092A\u0930\u094D\u091B" },
@@ -26171,7 +26171,7 @@ function ne_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nl.js
+// ../main/node_modules/zod/v4/locales/nl.js
 var error37 = () => {
   const Sizable = {
     string: { unit: "tekens", verb: "heeft" },
@@ -26287,7 +26287,7 @@ function nl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nn.js
+// ../main/node_modules/zod/v4/locales/nn.js
 var error38 = () => {
   const Sizable = {
     string: { unit: "teikn", verb: "\xE5 ha" },
@@ -26401,7 +26401,7 @@ function nn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/no.js
+// ../main/node_modules/zod/v4/locales/no.js
 var error39 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "\xE5 ha" },
@@ -26515,7 +26515,7 @@ function no_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ota.js
+// ../main/node_modules/zod/v4/locales/ota.js
 var error40 = () => {
   const Sizable = {
     string: { unit: "harf", verb: "olmal\u0131d\u0131r" },
@@ -26630,7 +26630,7 @@ function ota_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ps.js
+// ../main/node_modules/zod/v4/locales/ps.js
 var error41 = () => {
   const Sizable = {
     string: { unit: "\u062A\u0648\u06A9\u064A", verb: "\u0648\u0644\u0631\u064A" },
@@ -26750,7 +26750,7 @@ function ps_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pl.js
+// ../main/node_modules/zod/v4/locales/pl.js
 var error42 = () => {
   const Sizable = {
     string: { unit: "znak\xF3w", verb: "mie\u0107" },
@@ -26865,7 +26865,7 @@ function pl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt.js
+// ../main/node_modules/zod/v4/locales/pt.js
 var error43 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27009,7 +27009,7 @@ function pt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt-BR.js
+// ../main/node_modules/zod/v4/locales/pt-BR.js
 var error44 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27154,7 +27154,7 @@ function pt_BR_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ro.js
+// ../main/node_modules/zod/v4/locales/ro.js
 var error45 = () => {
   const Sizable = {
     string: { unit: "caractere", verb: "s\u0103 aib\u0103" },
@@ -27277,7 +27277,7 @@ function ro_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ru.js
+// ../main/node_modules/zod/v4/locales/ru.js
 function getRussianPlural(count2, one, few, many) {
   const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
@@ -27446,7 +27446,7 @@ function ru_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sk.js
+// ../main/node_modules/zod/v4/locales/sk.js
 var error47 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "ma\u0165" },
@@ -27563,7 +27563,7 @@ function sk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sl.js
+// ../main/node_modules/zod/v4/locales/sl.js
 var error48 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "imeti" },
@@ -27678,7 +27678,7 @@ function sl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sv.js
+// ../main/node_modules/zod/v4/locales/sv.js
 var error49 = () => {
   const Sizable = {
     string: { unit: "tecken", verb: "att ha" },
@@ -27794,7 +27794,7 @@ function sv_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ta.js
+// ../main/node_modules/zod/v4/locales/ta.js
 var error50 = () => {
   const Sizable = {
     string: { unit: "\u0B8E\u0BB4\u0BC1\u0BA4\u0BCD\u0BA4\u0BC1\u0B95\u0BCD\u0B95\u0BB3\u0BCD", verb: "\u0B95\u0BCA\u0BA3\u0BCD\u0B9F\u0BBF\u0BB0\u0BC1\u0B95\u0BCD\u0B95 \u0BB5\u0BC7\u0BA3\u0BCD\u0B9F\u0BC1\u0BAE\u0BCD" },
@@ -27910,7 +27910,7 @@ function ta_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tg.js
+// ../main/node_modules/zod/v4/locales/tg.js
 var error51 = () => {
   const Sizable = {
     string: { unit: "\u0430\u043B\u043E\u043C\u0430\u0442", verb: "\u0434\u043E\u0448\u0442\u0430 \u0431\u043E\u0448\u0430\u0434" },
@@ -28027,7 +28027,7 @@ function tg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/th.js
+// ../main/node_modules/zod/v4/locales/th.js
 var error52 = () => {
   const Sizable = {
     string: { unit: "\u0E15\u0E31\u0E27\u0E2D\u0E31\u0E01\u0E29\u0E23", verb: "\u0E04\u0E27\u0E23\u0E21\u0E35" },
@@ -28143,7 +28143,7 @@ function th_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tk.js
+// ../main/node_modules/zod/v4/locales/tk.js
 var error53 = () => {
   const Sizable = {
     string: { unit: "simwol", verb: "bolmaly" },
@@ -28251,7 +28251,7 @@ function tk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tr.js
+// ../main/node_modules/zod/v4/locales/tr.js
 var error54 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "olmal\u0131" },
@@ -28362,7 +28362,7 @@ function tr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uk.js
+// ../main/node_modules/zod/v4/locales/uk.js
 var error55 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0456\u0432", verb: "\u043C\u0430\u0442\u0438\u043C\u0435" },
@@ -28476,12 +28476,12 @@ function uk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ua.js
+// ../main/node_modules/zod/v4/locales/ua.js
 function ua_default() {
   return uk_default();
 }
 
-// node_modules/zod/v4/locales/ur.js
+// ../main/node_modules/zod/v4/locales/ur.js
 var error56 = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0648\u0641", verb: "\u06C1\u0648\u0646\u0627" },
@@ -28597,7 +28597,7 @@ function ur_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uz.js
+// ../main/node_modules/zod/v4/locales/uz.js
 var error57 = () => {
   const Sizable = {
     string: { unit: "belgi", verb: "bo\u2018lishi kerak" },
@@ -28711,7 +28711,7 @@ function uz_default() {
   };
 }
 
-// node_modules/zod/v4/locales/vi.js
+// ../main/node_modules/zod/v4/locales/vi.js
 var error58 = () => {
   const Sizable = {
     string: { unit: "k\xFD t\u1EF1", verb: "c\xF3" },
@@ -28825,7 +28825,7 @@ function vi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-CN.js
+// ../main/node_modules/zod/v4/locales/zh-CN.js
 var error59 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u7B26", verb: "\u5305\u542B" },
@@ -28940,7 +28940,7 @@ function zh_CN_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-TW.js
+// ../main/node_modules/zod/v4/locales/zh-TW.js
 var error60 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u5143", verb: "\u64C1\u6709" },
@@ -29053,7 +29053,7 @@ function zh_TW_default() {
   };
 }
 
-// node_modules/zod/v4/locales/yo.js
+// ../main/node_modules/zod/v4/locales/yo.js
 var error61 = () => {
   const Sizable = {
     string: { unit: "\xE0mi", verb: "n\xED" },
@@ -29166,7 +29166,7 @@ function yo_default() {
   };
 }
 
-// node_modules/zod/v4/core/registries.js
+// ../main/node_modules/zod/v4/core/registries.js
 var _a2;
 var $output = /* @__PURE__ */ Symbol("ZodOutput");
 var $input = /* @__PURE__ */ Symbol("ZodInput");
@@ -29216,7 +29216,7 @@ function registry() {
 (_a2 = globalThis).__zod_globalRegistry ?? (_a2.__zod_globalRegistry = registry());
 var globalRegistry = globalThis.__zod_globalRegistry;
 
-// node_modules/zod/v4/core/compile.js
+// ../main/node_modules/zod/v4/core/compile.js
 var INVALID = /* @__PURE__ */ Symbol.for("zod.compile.invalid");
 var FALLBACK_FLAG = /* @__PURE__ */ Symbol.for("zod.compile.fallback");
 var ZodCompileAsyncError = class extends Error {
@@ -30826,7 +30826,7 @@ function generateTransformCheck(doc, ctx, schema, accessor) {
   return accessor;
 }
 
-// node_modules/zod/v4/core/api.js
+// ../main/node_modules/zod/v4/core/api.js
 function snapshotChecks(def) {
   if (def.checks)
     def.checks = [...def.checks];
@@ -31885,7 +31885,7 @@ function _stringFormat(Class2, format, fnOrRegex, _params = {}) {
   return inst;
 }
 
-// node_modules/zod/v4/core/to-json-schema.js
+// ../main/node_modules/zod/v4/core/to-json-schema.js
 function assignProps(target, ...sources) {
   for (const source of sources) {
     for (const key of Reflect.ownKeys(source)) {
@@ -32415,7 +32415,7 @@ var createStandardJSONSchemaMethod = (schema, io, processors = {}) => (params) =
   return finalize(ctx, schema);
 };
 
-// node_modules/zod/v4/core/json-schema-processors.js
+// ../main/node_modules/zod/v4/core/json-schema-processors.js
 var narrowMin = (agg, key, value) => {
   if (agg[key] === void 0 || value > agg[key])
     agg[key] = value;
@@ -33163,7 +33163,7 @@ function toJSONSchema(input2, params) {
   return finalize(ctx, input2);
 }
 
-// node_modules/zod/v4/core/json-schema-generator.js
+// ../main/node_modules/zod/v4/core/json-schema-generator.js
 var JSONSchemaGenerator = class {
   /** @deprecated Access via ctx instead */
   get metadataRegistry() {
@@ -33241,10 +33241,10 @@ var JSONSchemaGenerator = class {
   }
 };
 
-// node_modules/zod/v4/core/json-schema.js
+// ../main/node_modules/zod/v4/core/json-schema.js
 var json_schema_exports = {};
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 var schemas_exports2 = {};
 __export(schemas_exports2, {
   ZodAny: () => ZodAny,
@@ -33425,7 +33425,7 @@ __export(schemas_exports2, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/classic/checks.js
+// ../main/node_modules/zod/v4/classic/checks.js
 var checks_exports2 = {};
 __export(checks_exports2, {
   endsWith: () => _endsWith,
@@ -33460,7 +33460,7 @@ __export(checks_exports2, {
   uppercase: () => _uppercase
 });
 
-// node_modules/zod/v4/classic/errors.js
+// ../main/node_modules/zod/v4/classic/errors.js
 var _installedErrorProtos = /* @__PURE__ */ new WeakSet([Object.prototype, Error.prototype]);
 function _lazyMethod(proto, key, make) {
   Object.defineProperty(proto, key, {
@@ -33506,7 +33506,7 @@ var ZodRealError = /* @__PURE__ */ $constructor("ZodError", initializer2, void 0
   Parent: Error
 });
 
-// node_modules/zod/v4/classic/parse.js
+// ../main/node_modules/zod/v4/classic/parse.js
 var parse2 = /* @__PURE__ */ _parse(ZodRealError);
 var parseAsync2 = /* @__PURE__ */ _parseAsync(ZodRealError);
 var safeParse2 = /* @__PURE__ */ _safeParse(ZodRealError);
@@ -33520,7 +33520,7 @@ var safeDecode2 = /* @__PURE__ */ _safeDecode(ZodRealError);
 var safeEncodeAsync2 = /* @__PURE__ */ _safeEncodeAsync(ZodRealError);
 var safeDecodeAsync2 = /* @__PURE__ */ _safeDecodeAsync(ZodRealError);
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 function _ensureDefaultLocale() {
   if (!globalConfig.localeError)
     config(en_default());
@@ -34985,7 +34985,7 @@ function preprocess(fn, schema) {
   });
 }
 
-// node_modules/zod/v4/classic/compat.js
+// ../main/node_modules/zod/v4/classic/compat.js
 var ZodIssueCode = {
   invalid_type: "invalid_type",
   too_big: "too_big",
@@ -35011,7 +35011,7 @@ var ZodFirstPartyTypeKind;
 /* @__PURE__ */ (function(ZodFirstPartyTypeKind2) {
 })(ZodFirstPartyTypeKind || (ZodFirstPartyTypeKind = {}));
 
-// node_modules/zod/v4/classic/iso.js
+// ../main/node_modules/zod/v4/classic/iso.js
 var iso_exports = {};
 __export(iso_exports, {
   ZodISODate: () => ZodISODate,
@@ -35036,7 +35036,7 @@ function duration2(params) {
   return _isoDuration(ZodISODuration, params);
 }
 
-// node_modules/zod/v4/classic/from-json-schema.js
+// ../main/node_modules/zod/v4/classic/from-json-schema.js
 var z = {
   ...schemas_exports2,
   ...checks_exports2,
@@ -35769,7 +35769,7 @@ function fromJSONSchema(schema, params) {
   return convertSchema(normalized, ctx);
 }
 
-// node_modules/zod/v4/core/visit.js
+// ../main/node_modules/zod/v4/core/visit.js
 var RESOLVING = /* @__PURE__ */ Symbol("z.visit/resolving");
 function visit(schema, fnOrHandlers) {
   const fn = typeof fnOrHandlers === "function" ? fnOrHandlers : (node2, rewritten) => {
@@ -35924,7 +35924,7 @@ function visit(schema, fnOrHandlers) {
   return run(schema);
 }
 
-// node_modules/zod/v4/classic/deep-partial.js
+// ../main/node_modules/zod/v4/classic/deep-partial.js
 function deepPartial(schema) {
   return visit(schema, {
     object: (s) => s.partial(),
@@ -35936,7 +35936,7 @@ function deepPartial(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/in-out.js
+// ../main/node_modules/zod/v4/classic/in-out.js
 function withChecks(side, checks) {
   if (!checks?.length)
     return side;
@@ -35966,7 +35966,7 @@ function output(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/coerce.js
+// ../main/node_modules/zod/v4/classic/coerce.js
 var coerce_exports = {};
 __export(coerce_exports, {
   bigint: () => bigint3,
@@ -36359,26 +36359,53 @@ var windowSchema = external_exports.strictObject(
   },
   { error: "a mapping with start and end dates" }
 ).default({}).describe("Planned calendar window (UTC dates, both days included).");
+var trafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core").describe("Name of the pool of units the tests divide between them."),
+    range: external_exports.strictObject(
+      {
+        start: percentage("where this test\u2019s range starts, in percent of the pool\u2019s units (0 to 100, included)"),
+        end: percentage("where this test\u2019s range ends, in percent of the pool\u2019s units (0 to 100, excluded)")
+      },
+      { error: "a range of the pool\u2019s units in percent, e.g. { start: 0, end: 50 }" }
+    ).describe("This test\u2019s range of the pool, in percent: start included, end excluded, so { start: 0, end: 50 } and { start: 50, end: 100 } take no unit twice.")
+  },
+  { error: "a mapping with name and range, e.g. { name: checkout-core, range: { start: 0, end: 50 } }" }
+).describe("Tests with the same traffic-split name divide one pool of units: each takes its own range of it, and tests whose ranges do not overlap never collide.");
+var oldTrafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core"),
+    slice: external_exports.strictObject(
+      {
+        from: percentage("where the range starts, in percent (0 to 100, included)"),
+        to: percentage("where the range ends, in percent (0 to 100, excluded)")
+      },
+      { error: "a range in percent, e.g. { from: 0, to: 50 }" }
+    ).describe("Now traffic-split.range (from is start, to is end).")
+  },
+  { error: "a mapping with name and slice" }
+).meta({ deprecated: true, description: "Deprecated: the old name of traffic-split (slice.from and slice.to are now range.start and range.end). Still read, with a warning." });
 var surfaceSchema = external_exports.strictObject(
   {
     path: surfacePath.describe("Where in the product the change lands, most general segment first."),
-    "exclusion-group": external_exports.strictObject(
-      {
-        name: kebabName("an exclusion group name, e.g. checkout-core"),
-        slice: external_exports.strictObject(
-          {
-            from: percentage("where the slice starts, in percent of the group\u2019s units (0 to 100)"),
-            to: percentage("where the slice ends, in percent of the group\u2019s units (0 to 100)")
-          },
-          { error: "a slice of the group\u2019s units in percent, e.g. { from: 0, to: 50 }" }
-        ).describe("This plan\u2019s share of the group\u2019s units, from and to in percent.")
-      },
-      { error: "a mapping with name and slice" }
-    ).optional().describe("Plans in one exclusion group take disjoint slices of the group\u2019s units and never collide."),
+    "traffic-split": trafficSplitSchema.optional(),
+    "exclusion-group": oldTrafficSplitSchema.optional(),
     "overlaps-with": uniqueList(planId, "a list of plan ids this plan may knowingly overlap with").default([])
   },
   { error: "a mapping with path, e.g. { path: checkout/payment }" }
-).describe("Where in the product the change lands, and how it may share that place with other tests.");
+).refine((s) => !(s["traffic-split"] && s["exclusion-group"]), {
+  error: "traffic-split only; exclusion-group is its old name, so remove it",
+  path: ["exclusion-group"]
+}).describe("Where in the product the change lands, and how it may share that place with other tests.");
+function trafficSplitOf(surface) {
+  if (surface["traffic-split"]) return surface["traffic-split"];
+  const old = surface["exclusion-group"];
+  return old ? { name: old.name, range: { start: old.slice.from, end: old.slice.to } } : void 0;
+}
+function normalizeSurface(surface) {
+  const split = trafficSplitOf(surface);
+  return { path: surface.path, ...split ? { trafficSplit: split } : {}, overlapsWith: surface["overlaps-with"] };
+}
 var populationSchema = external_exports.strictObject(
   {
     platforms: uniqueList(platform, "a list of platforms, e.g. [web, ios]").default([]),
@@ -36446,7 +36473,7 @@ var writtenPlanSchema = external_exports.strictObject({
       sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)], { error: "1 or 2 (one- or two-sided test)" }).default(2).describe("A two-sided test (2) detects harm as well as gain."),
       "min-detectable-effect": effectSize.optional().describe("Smallest effect on the primary metric worth detecting."),
       "daily-units": positiveNumber("expected eligible units per day, e.g. 12000").optional(),
-      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the exclusion-group slice, or 1."),
+      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the width of the traffic-split range, or 1."),
       "interim-looks": wholeNumber("a whole number of interim analyses from 0 to 20", 0, 20).default(0),
       "interim-boundary": external_exports.enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(", ")}` }).default("obrien-fleming-spending").describe("Stopping boundary for interim looks: Lan-DeMets spending of O\u2019Brien-Fleming or Pocock type, or the classical constant boundaries."),
       "pre-period-correlation": external_exports.number({ error: "a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5" }).describe("Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).").gte(0, { error: "a correlation from 0 to below 1, e.g. 0.5" }).lt(1, { error: "a correlation from 0 to below 1, e.g. 0.5" }).default(0),
@@ -36517,7 +36544,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     return external_exports.NEVER;
   }
   const d = written.design;
-  const slice = written.surface["exclusion-group"]?.slice;
+  const surface = normalizeSurface(written.surface);
+  const range = surface.trafficSplit?.range;
   return {
     id: written.id,
     title: written.title,
@@ -36531,11 +36559,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       direction: written.hypothesis["expected-direction"]
     },
     unit: { randomization: written.unit.randomization, analysis: written.unit.analysis ?? written.unit.randomization },
-    surface: {
-      path: written.surface.path,
-      ...written.surface["exclusion-group"] ? { exclusionGroup: written.surface["exclusion-group"] } : {},
-      overlapsWith: written.surface["overlaps-with"]
-    },
+    surface,
     population: written.population,
     exposure: written.exposure,
     metrics: {
@@ -36551,7 +36575,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       sides: d.sides,
       ...d["min-detectable-effect"] ? { minDetectableEffect: d["min-detectable-effect"] } : {},
       ...d["daily-units"] !== void 0 ? { dailyUnits: d["daily-units"] } : {},
-      trafficShare: d["traffic-share"] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
+      trafficShare: d["traffic-share"] ?? (range ? Math.max(0, range.end - range.start) / 100 : 1),
       interimLooks: d["interim-looks"],
       interimBoundary: d["interim-boundary"],
       prePeriodCorrelation: d["pre-period-correlation"],
@@ -36699,9 +36723,9 @@ function fieldProblem(issue2, path, source, codePrefix) {
   };
 }
 function describeFound(found) {
-  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const percent2 = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
   const described = describeValue(found);
-  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
+  return percent2 ? `${described}; write ${percent2[1]}% as ${Number(percent2[1]) / 100}` : described;
 }
 function summaryFor(issue2) {
   switch (issue2.code) {
@@ -36783,6 +36807,35 @@ function unionBranches(node2, data, root) {
     return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
   });
   return matching.length ? matching : all;
+}
+
+// src/core/plan/renamed-keys.ts
+var SURFACE_RENAMES = [
+  {
+    old: "exclusion-group",
+    replacement: "traffic-split",
+    how: "its slice: { from, to } is now range: { start, end }, with the same percent values",
+    example: "traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }"
+  }
+];
+function renamedSurfaceKeys(source, surfaces, codePrefix) {
+  const problems = [];
+  for (const path of surfaces) {
+    const surface = valueAt(source.value, path);
+    if (!surface || typeof surface !== "object" || Array.isArray(surface)) continue;
+    for (const rename2 of SURFACE_RENAMES) {
+      if (!(rename2.old in surface)) continue;
+      problems.push({
+        severity: "warning",
+        code: `${codePrefix}/renamed-key`,
+        ...source.locateKey(path, rename2.old),
+        field: formatFieldPath([...path, rename2.old]),
+        message: `"${rename2.old}" is the old name of "${rename2.replacement}" and is still read for now; rename it (${rename2.how})`,
+        expected: rename2.example
+      });
+    }
+  }
+  return problems;
 }
 
 // src/core/source/yaml-source.ts
@@ -36909,11 +36962,7 @@ var registrySchema = writtenRegistrySchema.transform(
     state: entry.state,
     flags: entry.flags,
     window: entry.window,
-    surface: {
-      path: entry.surface.path,
-      ...entry.surface["exclusion-group"] ? { exclusionGroup: entry.surface["exclusion-group"] } : {},
-      overlapsWith: entry.surface["overlaps-with"]
-    },
+    surface: normalizeSurface(entry.surface),
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry["traffic-share"] ?? 1,
     events: entry.events
@@ -36959,7 +37008,8 @@ function loadRegistryFile(text2, file2) {
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
   if (!checked.ok) return { ok: false, errors: checked.problems };
   const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
-  return { ok: true, entries };
+  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ["tests", index, "surface"]), "registry");
+  return { ok: true, entries, warnings };
 }
 function buildRegistry(plans, extra) {
   const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
@@ -37160,7 +37210,7 @@ function registryJson(registry2) {
       title: e.title,
       state: e.state,
       surface: e.surface.path,
-      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
+      ...e.surface.trafficSplit ? { trafficSplit: e.surface.trafficSplit } : {},
       window: e.window,
       owners: e.owners,
       flags: e.flags,
@@ -37304,24 +37354,25 @@ var armsAreDistinct = ({ value: plan, report }) => {
     });
   }
 };
-var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group = plan.surface.exclusionGroup;
-  if (!group) return;
-  const width = group.slice.to - group.slice.from;
+var rangeIsNotEmpty = ({ value: plan, report }) => {
+  const split = plan.surface.trafficSplit;
+  if (!split) return;
+  const width = split.range.end - split.range.start;
   if (width <= 0) {
     report({
       severity: "error",
-      code: "plan/empty-slice",
-      path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
-      expected: "from below to, e.g. { from: 0, to: 50 }"
+      code: "plan/empty-range",
+      // A file still on the old key is located at its surface (and warned about the rename).
+      path: ["surface", "traffic-split", "range"],
+      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
+      expected: "a start below the end, e.g. { start: 0, end: 50 }"
     });
   } else if (plan.design.trafficShare > width / 100 + 1e-9) {
     report({
       severity: "error",
-      code: "plan/traffic-beyond-slice",
+      code: "plan/traffic-beyond-range",
       path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
       expected: `at most ${width / 100}`
     });
   }
@@ -37453,7 +37504,7 @@ var PLAN_RULES = [
   windowInOrder,
   liveHasStart,
   armsAreDistinct,
-  sliceIsNotEmpty,
+  rangeIsNotEmpty,
   metricNamesAreDistinct,
   guardrailsSayWhatHarmIs,
   groupUnitsDescribeClusters,
@@ -37464,16 +37515,41 @@ var PLAN_RULES = [
 
 // src/core/plan/load.ts
 var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function lineOfKey(loaded, path) {
+  for (let depth = path.length; depth > 0; depth--) {
+    const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
+    if (line !== void 0) return line;
+  }
+  return loaded.line;
+}
+function keyLinesOf(source) {
+  const lines = /* @__PURE__ */ new Map();
+  const walk2 = (value, path) => {
+    if (Array.isArray(value)) {
+      value.forEach((item, index) => {
+        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
+        walk2(item, [...path, index]);
+      });
+    } else if (value !== null && typeof value === "object") {
+      for (const [key, item] of Object.entries(value)) {
+        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
+        walk2(item, [...path, key]);
+      }
+    }
+  };
+  walk2(source.value, []);
+  return lines;
+}
 function loadPlan(text2, file2) {
   const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
   const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const problems = [...renamedSurfaceKeys(read.source, [["surface"]], "plan"), ...runRules(checked.value, read.source, PLAN_RULES)];
   const errors = problems.filter((p) => p.severity === "error");
   const warnings = problems.filter((p) => p.severity === "warning");
   if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line, keyLines: keyLinesOf(read.source) }, warnings };
 }
 
 // src/run/load-workspace.ts
@@ -37515,7 +37591,7 @@ async function loadWorkspace(options) {
     }
     const result = loadRegistryFile(text2, file2);
     if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
+    problems.push(...result.ok ? result.warnings : result.errors);
   }
   const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
   problems.push(...registryProblems);
@@ -37614,7 +37690,7 @@ unit:
 
 surface:
   path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
-  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
+  # traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }   # percent of the pool, start included, end excluded
   # overlaps-with: [another-plan-id]
 
 population:
@@ -37804,15 +37880,15 @@ function formatCount(n) {
 }
 function formatRate(rate) {
   if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent = rate * 100;
-  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
-  return `${percent.toFixed(Math.min(digits, 4))}%`;
+  const percent2 = rate * 100;
+  const digits = Math.abs(percent2) >= 10 ? 1 : Math.abs(percent2) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent2) || 1)));
+  return `${percent2.toFixed(Math.min(digits, 4))}%`;
 }
 function formatRelative(change2) {
   if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent = change2 * 100;
-  const text2 = Number(percent.toPrecision(3)).toString();
-  return `${percent >= 0 ? "+" : ""}${text2}%`;
+  const percent2 = change2 * 100;
+  const text2 = Number(percent2.toPrecision(3)).toString();
+  return `${percent2 >= 0 ? "+" : ""}${text2}%`;
 }
 function formatValue(value) {
   if (!Number.isFinite(value)) return NOT_A_NUMBER;
@@ -37827,6 +37903,12 @@ function formatPower(power) {
 }
 function formatMultiplier(m) {
   return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+function countOf(n, singular, plural3 = `${singular}s`) {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural3}`;
+}
+function formatWeeks(duration3, why) {
+  return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
 }
 
 // src/core/report/sizing.ts
@@ -38591,6 +38673,31 @@ function scanMatcher(scan) {
   return (path) => include(path) && !exclude(path);
 }
 
+// src/core/checks/plan-key.ts
+function atPlanKey(loaded, path) {
+  return { plan: loaded.plan.id, file: loaded.file, line: lineOfKey(loaded, path) };
+}
+function metricPath(plan, name) {
+  if (plan.metrics.primary.name === name) return ["metrics", "primary"];
+  const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === name);
+  if (guardrail >= 0) return ["metrics", "guardrails", guardrail];
+  const secondary = plan.metrics.secondary.findIndex((m) => m.name === name);
+  return secondary >= 0 ? ["metrics", "secondary", secondary] : ["metrics"];
+}
+
+// src/core/checks/test-length.ts
+function lengthSetter(sizing, pick2 = (s) => s.headline) {
+  let longest;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? pick2(entry.result.value)?.duration : void 0;
+    if (duration3 && (!longest || duration3.days > longest.duration.days)) longest = { metric: entry.metric, role: entry.role, duration: duration3 };
+  }
+  return longest;
+}
+function describeSetter(setter) {
+  return setter.role === "primary" ? "the primary metric sets the length" : `guardrail ${setter.metric} sets the length`;
+}
+
 // src/core/checks/surfaces.ts
 function isSameOrBelow(path, ancestor) {
   return path === ancestor || path.startsWith(`${ancestor}/`);
@@ -38615,10 +38722,10 @@ function windowOverlap(a, b) {
   return { days: daysBetween(start, end) + 1, window: { start, end } };
 }
 function sharedTraffic(a, b) {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
+  const ga = a.surface.trafficSplit;
+  const gb = b.surface.trafficSplit;
   if (ga && gb && ga.name === gb.name) {
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    const overlap = Math.min(ga.range.end, gb.range.end) - Math.max(ga.range.start, gb.range.start);
     return Math.max(0, overlap) / 100;
   }
   return a.trafficShare * b.trafficShare;
@@ -38659,18 +38766,34 @@ function collisionsOfLinked(context2) {
   );
 }
 var list = (values) => values === "all" ? "everyone" : values.join(", ");
+var percent = (share) => `${Math.round(share * 100)}%`;
+function isolationCost(subject, other) {
+  const { plan } = subject.loaded;
+  const wanted = plan.design.trafficShare;
+  const free = 1 - other.trafficShare;
+  if (free >= wanted - 1e-9) {
+    return `Isolating costs this test nothing: ${other.id} leaves ${percent(free)} of eligible units free, enough for this test\u2019s ${percent(wanted)} in a traffic split.`;
+  }
+  const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
+  const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
+  const now = lengthSetter(subject.sizing);
+  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  if (now && isolated) {
+    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")} (${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")}).`;
+  }
+  return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} \u2192 ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
+}
 var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
   const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
   const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
-  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
-  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
+  const when = c.overlapDays !== void 0 ? `${countOf(c.overlapDays, "day")} (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
+  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
+  const at = atPlanKey(linked.loaded, ["surface"]);
+  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", ...at } : {
     code: "collision",
-    message,
-    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
-    plan,
-    file: linked.loaded.file,
-    line: linked.loaded.line
+    message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
+    fix: `Agree with ${c.other.owners.join(", ")} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
+    ...at
   };
 });
 
@@ -38688,6 +38811,7 @@ function bugFixReason(pr, settings) {
   if (branchPrefix) return `its branch starts with ${branchPrefix}`;
   return void 0;
 }
+var CHECK_TEST_DAYS = 14;
 function bugFixNudge(context2) {
   const settings = context2.settings.bugFix;
   if (!settings.enabled) return void 0;
@@ -38700,6 +38824,7 @@ function bugFixNudge(context2) {
   if (productFiles.length === 0) return void 0;
   const guardrail = settings.guardrail;
   let sizingLine;
+  let twoWeeksLine;
   if (guardrail && settings.dailyUnits !== void 0) {
     const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
     const sized = sizeMetric({
@@ -38720,13 +38845,17 @@ function bugFixNudge(context2) {
       interimLooks: 0,
       boundary: "obrien-fleming-spending",
       prePeriodCorrelation: 0,
-      plannedDays: 14
+      plannedDays: CHECK_TEST_DAYS
     });
     if (sized.ok && sized.value.headline && sized.value.effect) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
-      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
-      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0].units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : "no duration"}, one-sided \u03B1 0.05, power 80%.${inTwoWeeks}`;
+      const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
+      const test = "one-sided \u03B1 0.05, power 80%";
+      if (twoWeeks) {
+        twoWeeksLine = `In two weeks at ${traffic}, a check test would catch ${guardrail.name} ${harm === "increase" ? "rising" : "falling"} from ${formatRate(guardrail.rate)} to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative; ${test}).`;
+      }
+      sizingLine = `To catch a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${traffic}: ${countOf(h.perArm[0].units, "unit")} per arm, ${h.duration ? formatWeeks(h.duration) : "no duration"}; ${test}.`;
     }
   }
   const slug = (context2.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
@@ -38737,6 +38866,7 @@ function bugFixNudge(context2) {
     'owners: ["@your-handle"]',
     `flags: [${slug}]`,
     "state: draft",
+    ...context2.today ? [`window: { start: ${context2.today}, end: ${addDays(context2.today, CHECK_TEST_DAYS - 1)} }   # two whole weeks`] : [],
     "hypothesis:",
     "  change: The fix, behind a flag, for half of the traffic.",
     "  because: It should stop the bug without harming anything else.",
@@ -38761,7 +38891,7 @@ function bugFixNudge(context2) {
     "  loss: Turn the flag off and look again at the fix.",
     "  guardrail-breach: Turn the flag off at once."
   ].join("\n");
-  return { reason, productFiles, planStub, ...sizingLine ? { sizingLine } : {} };
+  return { reason, productFiles, planStub, ...twoWeeksLine ? { twoWeeksLine } : {}, ...sizingLine ? { sizingLine } : {} };
 }
 var bugFixUnmeasured = (context2) => {
   const nudge = bugFixNudge(context2);
@@ -38809,9 +38939,7 @@ var eventMissing = (context2) => context2.linked.flatMap(
     code: "event-missing",
     message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
     fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
+    ...atPlanKey(loaded, s.roles[0] === "exposure" ? ["exposure", "event"] : [...metricPath(loaded.plan, s.roles[0] ?? ""), "events"])
   }))
 );
 function dependents(entries, event) {
@@ -38852,9 +38980,7 @@ var decisionsMissing = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "decisions-missing",
       message: `No decision rule for ${missing.join(", ")}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
       fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join("; ")}.`,
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["decisions"])
     }
   ];
 });
@@ -38862,21 +38988,17 @@ var reasonMissing = ({ linked }) => linked.filter(({ loaded }) => !loaded.plan.h
   code: "reason-missing",
   message: "The hypothesis says what changes but not why it should work.",
   fix: "Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["hypothesis"])
 }));
 var guardrailsMissing = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.metrics.guardrails.length === 0).map(({ loaded }) => ({
   code: "guardrails-missing",
   message: "No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.",
   fix: "Add metrics.guardrails with a direction and a tolerance each.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["metrics", "guardrails"])
 }));
 var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { start, end } = loaded.plan.window;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  const at = atPlanKey(loaded, ["window", "end"]);
   if (!end) {
     return [{ code: "end-missing", message: "No planned end date: tests without one run on, and get peeked at until something looks significant.", fix: "Add window.end.", ...at }];
   }
@@ -38891,13 +39013,11 @@ var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   return [];
 });
 var reviewMissing = ({ linked }) => linked.flatMap(
-  ({ loaded }) => loaded.plan.sensitive.filter((s) => !s.review).map((s) => ({
+  ({ loaded }) => loaded.plan.sensitive.map((s, index) => ({ ...s, index })).filter((s) => !s.review).map((s) => ({
     code: "review-missing",
     message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
     fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
+    ...atPlanKey(loaded, ["sensitive", s.index])
   }))
 );
 var REVIEW_HINT = {
@@ -38913,16 +39033,13 @@ var bundleUnexplained = ({ linked }) => linked.filter(({ loaded }) => loaded.pla
   code: "bundle-unexplained",
   message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(", ")}): a result will not say which change caused it.`,
   fix: "Add bundle-rationale, or split the plan.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["flags"])
 }));
 var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { platforms, locales, ready } = loaded.plan.population;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
   const missing = [platforms.length ? "" : "platforms", locales.length ? "" : "locales"].filter(Boolean);
   if (missing.length) {
-    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...at }];
+    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...atPlanKey(loaded, ["population"]) }];
   }
   const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
   if (notReady.length === 0) return [];
@@ -38931,7 +39048,7 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "readiness-missing",
       message: `The change is not declared ready on ${notReady.join(", ")} (rendered, translated), though the population includes ${notReady.length === 1 ? "it" : "them"}.`,
       fix: "Check the change there and add it under population.ready, or take it out of the population.",
-      ...at
+      ...atPlanKey(loaded, ["population", "ready"])
     }
   ];
 });
@@ -38939,13 +39056,14 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
 // src/core/checks/sizing.ts
 var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   const { plan } = loaded;
-  const at = { plan: plan.id, file: loaded.file, line: loaded.line };
   const out = [];
   if (!plan.design.minDetectableEffect || plan.design.dailyUnits === void 0) {
     const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", plan.design.dailyUnits === void 0 ? "design.daily-units" : ""].filter(Boolean);
-    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...at });
+    const key = plan.design.minDetectableEffect ? "daily-units" : "min-detectable-effect";
+    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...atPlanKey(loaded, ["design", key]) });
   }
   for (const entry of sizing.metrics) {
+    const at = atPlanKey(loaded, metricPath(plan, entry.metric));
     if (!entry.result.ok) {
       out.push({ code: "sizing-impossible", message: `${entry.metric} cannot be sized: ${entry.result.error.input}: ${entry.result.error.message}.`, fix: "Check the metric\u2019s baseline figures and the effect to detect.", ...at });
       continue;
@@ -38953,7 +39071,7 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
     const s = entry.result.value;
     const end = s.atPlannedEnd;
     if (end?.power !== void 0 && end.power < plan.design.power) {
-      const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : "";
+      const needed = s.headline?.duration ? ` It needs ${formatWeeks(s.headline.duration)}.` : "";
       out.push({
         code: "underpowered",
         message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,
@@ -38962,19 +39080,28 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
       });
     }
   }
-  const primary = sizing.metrics[0];
-  if (plan.exposure.reach < 1 && primary?.result.ok && primary.result.value.diluted && primary.result.value.triggered) {
-    const s = primary.result.value;
-    const days = (a) => a?.duration ? `${a.duration.days} days` : `${a?.totalUnits.toLocaleString("en-US")} units`;
+  const diluted = plan.exposure.reach < 1 ? dilution(sizing, plan.design.power) : void 0;
+  if (diluted) {
     out.push({
       code: "exposure-diluted",
-      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${days(s.diluted)} instead of ${days(s.triggered)}.`,
-      fix: "Log the exposure event where the change is actually seen (or analyse only the units that reach it).",
-      ...at
+      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${diluted.needs} instead of ${diluted.couldNeed} with exposure logged where the change is seen. ${diluted.verdict}`,
+      fix: diluted.enough ? "Nothing is needed for this test; logging exposure where the change is seen (or analysing only the units that reach it) would make the next one shorter." : "Log the exposure event where the change is actually seen (or analyse only the units that reach it), or extend the window.",
+      ...atPlanKey(loaded, ["exposure", "reach"])
     });
   }
   return out;
 });
+function dilution(sizing, plannedPower) {
+  const asLogged = lengthSetter(sizing, (s) => s.diluted);
+  const triggered = lengthSetter(sizing, (s) => s.triggered);
+  if (!asLogged || !triggered) return void 0;
+  const powers = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [m.result.value.atPlannedEnd.power] : []);
+  const weakest = powers.length ? Math.min(...powers) : void 0;
+  const enough = weakest !== void 0 && weakest >= plannedPower;
+  const planned = sizing.plannedDays !== void 0 ? countOf(sizing.plannedDays, "day") : void 0;
+  const verdict = weakest === void 0 || planned === void 0 ? "Without a planned window it cannot be said whether the test runs long enough." : enough ? `The planned ${planned} still suffice: every metric reaches at least ${formatPower(weakest)} power by the end.` : `The planned ${planned} do not suffice: the weakest metric reaches ${formatPower(weakest)} power by the end, below the planned ${formatPower(plannedPower)}.`;
+  return { needs: formatWeeks(asLogged.duration, describeSetter(asLogged)), couldNeed: formatWeeks(triggered.duration), verdict, enough };
+}
 
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
@@ -38986,9 +39113,7 @@ var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
       code: "spillover",
       message: `${plan.surface.path} is shared between people (group-surfaces: ${shared}), but the plan randomizes by ${plan.unit.randomization}: treated and control people interact, so the difference between arms is biased.`,
       fix: `Randomize the group they share (unit.randomization: team, organization or household) and size with design.cluster.`,
-      plan: plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["unit", "randomization"])
     }
   ];
 });
@@ -38996,9 +39121,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
   code: "analysis-unit-differs",
   message: `Units are randomized by ${loaded.plan.unit.randomization} but metrics are averaged per ${loaded.plan.unit.analysis}: observations within one ${loaded.plan.unit.randomization} are not independent.`,
   fix: "Compute the variance with the delta method or cluster-robust standard errors, not the naive per-unit formula.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["unit", "analysis"])
 }));
 
 // src/core/checks/index.ts
@@ -39038,10 +39161,10 @@ var FINDING_CODES = {
   underpowered: { severity: "warn", about: "the planned window gives less than the planned power" },
   "sizing-incomplete": { severity: "note", about: "the plan lacks the figures sizing needs" },
   "sizing-impossible": { severity: "warn", about: "the plan\u2019s figures cannot be sized" },
-  "exposure-diluted": { severity: "warn", about: "exposure is logged before the change is reached" },
+  "exposure-diluted": { severity: "note", about: "exposure is logged before the change is reached; says whether the planned window still suffices (when it does not, underpowered warns)" },
   spillover: { severity: "warn", about: "people randomized one by one on a surface they share" },
   "analysis-unit-differs": { severity: "note", about: "metrics are averaged over another unit than the one randomized" },
-  collision: { severity: "warn", about: "the test overlaps a running test on the same surface" },
+  collision: { severity: "warn", about: "the test overlaps a running test on the same surface; says what isolating them would cost" },
   "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
@@ -39547,7 +39670,7 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();
@@ -39650,8 +39773,9 @@ function render(review, options, detail, omitted) {
     out.push(
       "#### A small check test for this fix?",
       "",
+      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
       "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      ...review.nudge.sizingLine ? ["", "<details><summary>What it takes to catch a 1% regression</summary>", "", safeText(review.nudge.sizingLine), "", "</details>"] : [],
       "",
       "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
       "",
@@ -39942,15 +40066,15 @@ function buildDigest(input2) {
       const days = daysBetween(end, today);
       const reached = estimateSampleReached(entry, today);
       const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
-      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+      item(entry, "overdue", `Past its planned end (${end}) by ${countOf(days, "day")}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
     } else if (entry.state === "live" && end && end >= today && end <= soon) {
-      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
+      item(entry, "ending-soon", `Ends on ${end}, in ${countOf(daysBetween(today, end), "day")}: prepare the readout.`);
     }
     if (entry.state === "draft" && start && start < today) {
       item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
     }
     if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+      item(entry, "long-on-hold", `On hold, ${countOf(daysBetween(start, today), "day")} after its start: its units and surface stay reserved; resume or conclude it.`);
     }
     if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
       item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
@@ -39963,16 +40087,18 @@ function buildDigest(input2) {
       const pair2 = [entry.id, c.other.id].sort().join(" ");
       if (seen.has(pair2) || c.known) continue;
       seen.add(pair2);
-      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${countOf(c.overlapDays, "day")}` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
     }
   }
   const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
-  const byOwner = /* @__PURE__ */ new Map();
   const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  const byTest = /* @__PURE__ */ new Map();
   for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry2.entries.find((e) => e.id === it.test);
-    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
+    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
+    test.items.push(it);
+    byTest.set(it.test, test);
   }
   const counts = {
     overdue: 0,
@@ -39990,7 +40116,8 @@ function buildDigest(input2) {
   return {
     today,
     counts,
-    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
+    // Insertion order is urgency order: a test comes where its most urgent item sorted.
+    tests: [...byTest.values()],
     orphanFlags,
     timeline
   };
@@ -40049,10 +40176,25 @@ var LABEL2 = {
 };
 function countLine(d) {
   const c = d.counts;
-  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
+  const parts = [
+    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? "its" : "their"} planned end` : "",
+    c["ending-soon"] ? `${formatCount(c["ending-soon"])} ending soon` : "",
+    c["draft-past-start"] ? `${countOf(c["draft-past-start"], "draft")} past ${c["draft-past-start"] === 1 ? "its" : "their"} start` : "",
+    c["long-on-hold"] ? `${formatCount(c["long-on-hold"])} on hold too long` : "",
+    c.collision ? countOf(c.collision, "collision") : "",
+    c["flag-gone"] ? `${countOf(c["flag-gone"], "live test")} with ${c["flag-gone"] === 1 ? "its flag" : "their flags"} gone` : "",
+    c.orphanFlags ? `${countOf(c.orphanFlags, "flag")} in code without a plan` : ""
+  ].filter(Boolean);
+  const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
+  return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
 }
-function ownerHeading(owner2) {
-  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
+function ownersOf(owners, mentioned) {
+  return owners.map((owner2) => {
+    const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
+    if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
+    mentioned.add(owner2.toLowerCase());
+    return owner2;
+  }).join(", ");
 }
 function taskName(id) {
   return id.replace(/[:#;]/g, "-");
@@ -40071,21 +40213,22 @@ function gantt(d) {
     lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
   });
   lines.push("```");
-  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  if (d.timeline.length > shown.length) lines.push("", `${countOf(d.timeline.length - shown.length, "more test")} ${d.timeline.length - shown.length === 1 ? "is" : "are"} not drawn (the list above has them all).`);
   return lines;
 }
-function render2(d, withTimeline, itemsPerOwner) {
+function render2(d, withTimeline, maxTests) {
   const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
-  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
-  for (const { owner: owner2, items } of d.owners) {
-    out.push(ownerHeading(owner2), "");
-    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL2[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
-    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
-    out.push("");
+  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  const mentioned = /* @__PURE__ */ new Set();
+  for (const test of d.tests.slice(0, maxTests)) {
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
+    for (const it of test.items) out.push(`  - ${LABEL2[it.kind]}: ${safeText(it.detail)}`);
   }
+  if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
+  if (d.tests.length) out.push("");
   if (d.orphanFlags.length) {
     out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${formatCount(d.orphanFlags.length - 50)} more.`);
     out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
   }
   if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
@@ -40093,17 +40236,17 @@ function render2(d, withTimeline, itemsPerOwner) {
   return out.join("\n");
 }
 function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
-  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
-    const body = render2(d, timeline, per);
+  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]]) {
+    const body = render2(d, timeline, tests);
     if (body.length <= limit) return body;
   }
   return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
 }
 function renderDigestText(d) {
   const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
-  for (const { owner: owner2, items } of d.owners) {
-    out.push("", terminalSafe(owner2));
-    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
+  for (const test of d.tests) {
+    out.push("", `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(", "))}`);
+    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
   }
   if (d.orphanFlags.length) {
     out.push("", "Flags in code that no plan covers:");
@@ -40256,7 +40399,7 @@ function buildProgram(setExit) {
     const cwd = resolve2(options.cwd);
     const pr = await pullRequestInfo(flags, cwd);
     const change2 = await openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
     if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}

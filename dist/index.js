@@ -60708,7 +60708,7 @@ var reviewReportSchema = external_exports.object({
       known: external_exports.boolean()
     })
   ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), twoWeeksLine: external_exports.string().optional(), sizingLine: external_exports.string().optional() }).optional()
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
 function reviewJson(review) {
@@ -63223,7 +63223,7 @@ var planInvalid = ({ invalidPlanFiles }) => invalidPlanFiles.map(({ file: file2,
   const errors = problems.filter((p) => p.severity === "error");
   return {
     code: "plan-invalid",
-    message: `${file2} cannot be used: ${errors.length} error${errors.length === 1 ? "" : "s"}, first: ${formatProblem(errors[0])}`,
+    message: `${file2} cannot be used: ${countOf(errors.length, "error")}, first: ${formatProblem(errors[0])}`,
     fix: "Run plumbline validate and fix each error.",
     file: file2,
     line: errors[0]?.line ?? 1
@@ -63262,10 +63262,10 @@ var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   if (!start) return [];
   const days = inclusiveDays(start, end);
   if (days < 7) {
-    return [{ code: "window-short", message: `The window is ${days} day${days === 1 ? "" : "s"}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
+    return [{ code: "window-short", message: `The window is ${countOf(days, "day")}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
   }
   if (days % 7 !== 0) {
-    return [{ code: "window-partial-week", message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+    return [{ code: "window-partial-week", message: `The window is ${countOf(days, "day")}, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${countOf(Math.ceil(days / 7) * 7, "day")} (${countOf(Math.ceil(days / 7), "week")}).`, ...at }];
   }
   return [];
 });

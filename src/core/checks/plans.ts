@@ -2,6 +2,7 @@ import { inclusiveDays } from '../calendar.js';
 import { missingDecisions } from '../plan/rules.js';
 import type { Check } from '../review/context.js';
 import { atPlanKey } from './plan-key.js';
+import { countOf } from '../report/numbers.js';
 import { formatProblem } from '../source/problem.js';
 
 /** A plan file the change adds or edits must load: its problems block until fixed. */
@@ -10,7 +11,7 @@ export const planInvalid: Check = ({ invalidPlanFiles }) =>
     const errors = problems.filter((p) => p.severity === 'error');
     return {
       code: 'plan-invalid',
-      message: `${file} cannot be used: ${errors.length} error${errors.length === 1 ? '' : 's'}, first: ${formatProblem(errors[0]!)}`,
+      message: `${file} cannot be used: ${countOf(errors.length, 'error')}, first: ${formatProblem(errors[0]!)}`,
       fix: 'Run plumbline validate and fix each error.',
       file,
       line: errors[0]?.line ?? 1,
@@ -62,10 +63,10 @@ export const windowChecks: Check = ({ linked }) =>
     if (!start) return [];
     const days = inclusiveDays(start, end);
     if (days < 7) {
-      return [{ code: 'window-short', message: `The window is ${days} day${days === 1 ? '' : 's'}: less than a week misses weekly cycles.`, fix: 'Plan at least 7 days, in whole weeks.', ...at }];
+      return [{ code: 'window-short', message: `The window is ${countOf(days, 'day')}: less than a week misses weekly cycles.`, fix: 'Plan at least 7 days, in whole weeks.', ...at }];
     }
     if (days % 7 !== 0) {
-      return [{ code: 'window-partial-week', message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+      return [{ code: 'window-partial-week', message: `The window is ${countOf(days, 'day')}, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${countOf(Math.ceil(days / 7) * 7, 'day')} (${countOf(Math.ceil(days / 7), 'week')}).`, ...at }];
     }
     return [];
   });

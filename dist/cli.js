@@ -36359,26 +36359,53 @@ var windowSchema = external_exports.strictObject(
   },
   { error: "a mapping with start and end dates" }
 ).default({}).describe("Planned calendar window (UTC dates, both days included).");
+var trafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core").describe("Name of the pool of units the tests divide between them."),
+    range: external_exports.strictObject(
+      {
+        start: percentage("where this test\u2019s range starts, in percent of the pool\u2019s units (0 to 100, included)"),
+        end: percentage("where this test\u2019s range ends, in percent of the pool\u2019s units (0 to 100, excluded)")
+      },
+      { error: "a range of the pool\u2019s units in percent, e.g. { start: 0, end: 50 }" }
+    ).describe("This test\u2019s range of the pool, in percent: start included, end excluded, so { start: 0, end: 50 } and { start: 50, end: 100 } take no unit twice.")
+  },
+  { error: "a mapping with name and range, e.g. { name: checkout-core, range: { start: 0, end: 50 } }" }
+).describe("Tests with the same traffic-split name divide one pool of units: each takes its own range of it, and tests whose ranges do not overlap never collide.");
+var oldTrafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core"),
+    slice: external_exports.strictObject(
+      {
+        from: percentage("where the range starts, in percent (0 to 100, included)"),
+        to: percentage("where the range ends, in percent (0 to 100, excluded)")
+      },
+      { error: "a range in percent, e.g. { from: 0, to: 50 }" }
+    ).describe("Now traffic-split.range (from is start, to is end).")
+  },
+  { error: "a mapping with name and slice" }
+).meta({ deprecated: true, description: "Deprecated: the old name of traffic-split (slice.from and slice.to are now range.start and range.end). Still read, with a warning." });
 var surfaceSchema = external_exports.strictObject(
   {
     path: surfacePath.describe("Where in the product the change lands, most general segment first."),
-    "exclusion-group": external_exports.strictObject(
-      {
-        name: kebabName("an exclusion group name, e.g. checkout-core"),
-        slice: external_exports.strictObject(
-          {
-            from: percentage("where the slice starts, in percent of the group\u2019s units (0 to 100)"),
-            to: percentage("where the slice ends, in percent of the group\u2019s units (0 to 100)")
-          },
-          { error: "a slice of the group\u2019s units in percent, e.g. { from: 0, to: 50 }" }
-        ).describe("This plan\u2019s share of the group\u2019s units, from and to in percent.")
-      },
-      { error: "a mapping with name and slice" }
-    ).optional().describe("Plans in one exclusion group take disjoint slices of the group\u2019s units and never collide."),
+    "traffic-split": trafficSplitSchema.optional(),
+    "exclusion-group": oldTrafficSplitSchema.optional(),
     "overlaps-with": uniqueList(planId, "a list of plan ids this plan may knowingly overlap with").default([])
   },
   { error: "a mapping with path, e.g. { path: checkout/payment }" }
-).describe("Where in the product the change lands, and how it may share that place with other tests.");
+).refine((s) => !(s["traffic-split"] && s["exclusion-group"]), {
+  error: "traffic-split only; exclusion-group is its old name, so remove it",
+  path: ["exclusion-group"]
+}).describe("Where in the product the change lands, and how it may share that place with other tests.");
+function trafficSplitOf(surface) {
+  if (surface["traffic-split"]) return surface["traffic-split"];
+  const old = surface["exclusion-group"];
+  return old ? { name: old.name, range: { start: old.slice.from, end: old.slice.to } } : void 0;
+}
+function normalizeSurface(surface) {
+  const split = trafficSplitOf(surface);
+  return { path: surface.path, ...split ? { trafficSplit: split } : {}, overlapsWith: surface["overlaps-with"] };
+}
 var populationSchema = external_exports.strictObject(
   {
     platforms: uniqueList(platform, "a list of platforms, e.g. [web, ios]").default([]),
@@ -36446,7 +36473,7 @@ var writtenPlanSchema = external_exports.strictObject({
       sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)], { error: "1 or 2 (one- or two-sided test)" }).default(2).describe("A two-sided test (2) detects harm as well as gain."),
       "min-detectable-effect": effectSize.optional().describe("Smallest effect on the primary metric worth detecting."),
       "daily-units": positiveNumber("expected eligible units per day, e.g. 12000").optional(),
-      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the exclusion-group slice, or 1."),
+      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the width of the traffic-split range, or 1."),
       "interim-looks": wholeNumber("a whole number of interim analyses from 0 to 20", 0, 20).default(0),
       "interim-boundary": external_exports.enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(", ")}` }).default("obrien-fleming-spending").describe("Stopping boundary for interim looks: Lan-DeMets spending of O\u2019Brien-Fleming or Pocock type, or the classical constant boundaries."),
       "pre-period-correlation": external_exports.number({ error: "a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5" }).describe("Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).").gte(0, { error: "a correlation from 0 to below 1, e.g. 0.5" }).lt(1, { error: "a correlation from 0 to below 1, e.g. 0.5" }).default(0),
@@ -36517,7 +36544,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     return external_exports.NEVER;
   }
   const d = written.design;
-  const slice = written.surface["exclusion-group"]?.slice;
+  const surface = normalizeSurface(written.surface);
+  const range = surface.trafficSplit?.range;
   return {
     id: written.id,
     title: written.title,
@@ -36531,11 +36559,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       direction: written.hypothesis["expected-direction"]
     },
     unit: { randomization: written.unit.randomization, analysis: written.unit.analysis ?? written.unit.randomization },
-    surface: {
-      path: written.surface.path,
-      ...written.surface["exclusion-group"] ? { exclusionGroup: written.surface["exclusion-group"] } : {},
-      overlapsWith: written.surface["overlaps-with"]
-    },
+    surface,
     population: written.population,
     exposure: written.exposure,
     metrics: {
@@ -36551,7 +36575,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       sides: d.sides,
       ...d["min-detectable-effect"] ? { minDetectableEffect: d["min-detectable-effect"] } : {},
       ...d["daily-units"] !== void 0 ? { dailyUnits: d["daily-units"] } : {},
-      trafficShare: d["traffic-share"] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
+      trafficShare: d["traffic-share"] ?? (range ? Math.max(0, range.end - range.start) / 100 : 1),
       interimLooks: d["interim-looks"],
       interimBoundary: d["interim-boundary"],
       prePeriodCorrelation: d["pre-period-correlation"],
@@ -36699,9 +36723,9 @@ function fieldProblem(issue2, path, source, codePrefix) {
   };
 }
 function describeFound(found) {
-  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const percent2 = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
   const described = describeValue(found);
-  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
+  return percent2 ? `${described}; write ${percent2[1]}% as ${Number(percent2[1]) / 100}` : described;
 }
 function summaryFor(issue2) {
   switch (issue2.code) {
@@ -36783,6 +36807,35 @@ function unionBranches(node2, data, root) {
     return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
   });
   return matching.length ? matching : all;
+}
+
+// src/core/plan/renamed-keys.ts
+var SURFACE_RENAMES = [
+  {
+    old: "exclusion-group",
+    replacement: "traffic-split",
+    how: "its slice: { from, to } is now range: { start, end }, with the same percent values",
+    example: "traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }"
+  }
+];
+function renamedSurfaceKeys(source, surfaces, codePrefix) {
+  const problems = [];
+  for (const path of surfaces) {
+    const surface = valueAt(source.value, path);
+    if (!surface || typeof surface !== "object" || Array.isArray(surface)) continue;
+    for (const rename2 of SURFACE_RENAMES) {
+      if (!(rename2.old in surface)) continue;
+      problems.push({
+        severity: "warning",
+        code: `${codePrefix}/renamed-key`,
+        ...source.locateKey(path, rename2.old),
+        field: formatFieldPath([...path, rename2.old]),
+        message: `"${rename2.old}" is the old name of "${rename2.replacement}" and is still read for now; rename it (${rename2.how})`,
+        expected: rename2.example
+      });
+    }
+  }
+  return problems;
 }
 
 // src/core/source/yaml-source.ts
@@ -36909,11 +36962,7 @@ var registrySchema = writtenRegistrySchema.transform(
     state: entry.state,
     flags: entry.flags,
     window: entry.window,
-    surface: {
-      path: entry.surface.path,
-      ...entry.surface["exclusion-group"] ? { exclusionGroup: entry.surface["exclusion-group"] } : {},
-      overlapsWith: entry.surface["overlaps-with"]
-    },
+    surface: normalizeSurface(entry.surface),
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry["traffic-share"] ?? 1,
     events: entry.events
@@ -36959,7 +37008,8 @@ function loadRegistryFile(text2, file2) {
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
   if (!checked.ok) return { ok: false, errors: checked.problems };
   const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
-  return { ok: true, entries };
+  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ["tests", index, "surface"]), "registry");
+  return { ok: true, entries, warnings };
 }
 function buildRegistry(plans, extra) {
   const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
@@ -37160,7 +37210,7 @@ function registryJson(registry2) {
       title: e.title,
       state: e.state,
       surface: e.surface.path,
-      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
+      ...e.surface.trafficSplit ? { trafficSplit: e.surface.trafficSplit } : {},
       window: e.window,
       owners: e.owners,
       flags: e.flags,
@@ -37304,24 +37354,25 @@ var armsAreDistinct = ({ value: plan, report }) => {
     });
   }
 };
-var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group = plan.surface.exclusionGroup;
-  if (!group) return;
-  const width = group.slice.to - group.slice.from;
+var rangeIsNotEmpty = ({ value: plan, report }) => {
+  const split = plan.surface.trafficSplit;
+  if (!split) return;
+  const width = split.range.end - split.range.start;
   if (width <= 0) {
     report({
       severity: "error",
-      code: "plan/empty-slice",
-      path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
-      expected: "from below to, e.g. { from: 0, to: 50 }"
+      code: "plan/empty-range",
+      // A file still on the old key is located at its surface (and warned about the rename).
+      path: ["surface", "traffic-split", "range"],
+      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
+      expected: "a start below the end, e.g. { start: 0, end: 50 }"
     });
   } else if (plan.design.trafficShare > width / 100 + 1e-9) {
     report({
       severity: "error",
-      code: "plan/traffic-beyond-slice",
+      code: "plan/traffic-beyond-range",
       path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
       expected: `at most ${width / 100}`
     });
   }
@@ -37453,7 +37504,7 @@ var PLAN_RULES = [
   windowInOrder,
   liveHasStart,
   armsAreDistinct,
-  sliceIsNotEmpty,
+  rangeIsNotEmpty,
   metricNamesAreDistinct,
   guardrailsSayWhatHarmIs,
   groupUnitsDescribeClusters,
@@ -37464,16 +37515,41 @@ var PLAN_RULES = [
 
 // src/core/plan/load.ts
 var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function lineOfKey(loaded, path) {
+  for (let depth = path.length; depth > 0; depth--) {
+    const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
+    if (line !== void 0) return line;
+  }
+  return loaded.line;
+}
+function keyLinesOf(source) {
+  const lines = /* @__PURE__ */ new Map();
+  const walk2 = (value, path) => {
+    if (Array.isArray(value)) {
+      value.forEach((item, index) => {
+        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
+        walk2(item, [...path, index]);
+      });
+    } else if (value !== null && typeof value === "object") {
+      for (const [key, item] of Object.entries(value)) {
+        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
+        walk2(item, [...path, key]);
+      }
+    }
+  };
+  walk2(source.value, []);
+  return lines;
+}
 function loadPlan(text2, file2) {
   const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
   const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const problems = [...renamedSurfaceKeys(read.source, [["surface"]], "plan"), ...runRules(checked.value, read.source, PLAN_RULES)];
   const errors = problems.filter((p) => p.severity === "error");
   const warnings = problems.filter((p) => p.severity === "warning");
   if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line, keyLines: keyLinesOf(read.source) }, warnings };
 }
 
 // src/run/load-workspace.ts
@@ -37515,7 +37591,7 @@ async function loadWorkspace(options) {
     }
     const result = loadRegistryFile(text2, file2);
     if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
+    problems.push(...result.ok ? result.warnings : result.errors);
   }
   const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
   problems.push(...registryProblems);
@@ -37614,7 +37690,7 @@ unit:
 
 surface:
   path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
-  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
+  # traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }   # percent of the pool, start included, end excluded
   # overlaps-with: [another-plan-id]
 
 population:
@@ -37804,15 +37880,15 @@ function formatCount(n) {
 }
 function formatRate(rate) {
   if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent = rate * 100;
-  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
-  return `${percent.toFixed(Math.min(digits, 4))}%`;
+  const percent2 = rate * 100;
+  const digits = Math.abs(percent2) >= 10 ? 1 : Math.abs(percent2) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent2) || 1)));
+  return `${percent2.toFixed(Math.min(digits, 4))}%`;
 }
 function formatRelative(change2) {
   if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent = change2 * 100;
-  const text2 = Number(percent.toPrecision(3)).toString();
-  return `${percent >= 0 ? "+" : ""}${text2}%`;
+  const percent2 = change2 * 100;
+  const text2 = Number(percent2.toPrecision(3)).toString();
+  return `${percent2 >= 0 ? "+" : ""}${text2}%`;
 }
 function formatValue(value) {
   if (!Number.isFinite(value)) return NOT_A_NUMBER;
@@ -37827,6 +37903,12 @@ function formatPower(power) {
 }
 function formatMultiplier(m) {
   return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+function countOf(n, singular, plural3 = `${singular}s`) {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural3}`;
+}
+function formatWeeks(duration3, why) {
+  return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
 }
 
 // src/core/report/sizing.ts
@@ -38591,6 +38673,31 @@ function scanMatcher(scan) {
   return (path) => include(path) && !exclude(path);
 }
 
+// src/core/checks/plan-key.ts
+function atPlanKey(loaded, path) {
+  return { plan: loaded.plan.id, file: loaded.file, line: lineOfKey(loaded, path) };
+}
+function metricPath(plan, name) {
+  if (plan.metrics.primary.name === name) return ["metrics", "primary"];
+  const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === name);
+  if (guardrail >= 0) return ["metrics", "guardrails", guardrail];
+  const secondary = plan.metrics.secondary.findIndex((m) => m.name === name);
+  return secondary >= 0 ? ["metrics", "secondary", secondary] : ["metrics"];
+}
+
+// src/core/checks/test-length.ts
+function lengthSetter(sizing, pick2 = (s) => s.headline) {
+  let longest;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? pick2(entry.result.value)?.duration : void 0;
+    if (duration3 && (!longest || duration3.days > longest.duration.days)) longest = { metric: entry.metric, role: entry.role, duration: duration3 };
+  }
+  return longest;
+}
+function describeSetter(setter) {
+  return setter.role === "primary" ? "the primary metric sets the length" : `guardrail ${setter.metric} sets the length`;
+}
+
 // src/core/checks/surfaces.ts
 function isSameOrBelow(path, ancestor) {
   return path === ancestor || path.startsWith(`${ancestor}/`);
@@ -38615,10 +38722,10 @@ function windowOverlap(a, b) {
   return { days: daysBetween(start, end) + 1, window: { start, end } };
 }
 function sharedTraffic(a, b) {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
+  const ga = a.surface.trafficSplit;
+  const gb = b.surface.trafficSplit;
   if (ga && gb && ga.name === gb.name) {
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    const overlap = Math.min(ga.range.end, gb.range.end) - Math.max(ga.range.start, gb.range.start);
     return Math.max(0, overlap) / 100;
   }
   return a.trafficShare * b.trafficShare;
@@ -38659,18 +38766,34 @@ function collisionsOfLinked(context2) {
   );
 }
 var list = (values) => values === "all" ? "everyone" : values.join(", ");
+var percent = (share) => `${Math.round(share * 100)}%`;
+function isolationCost(subject, other) {
+  const { plan } = subject.loaded;
+  const wanted = plan.design.trafficShare;
+  const free = 1 - other.trafficShare;
+  if (free >= wanted - 1e-9) {
+    return `Isolating costs this test nothing: ${other.id} leaves ${percent(free)} of eligible units free, enough for this test\u2019s ${percent(wanted)} in a traffic split.`;
+  }
+  const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
+  const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
+  const now = lengthSetter(subject.sizing);
+  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  if (now && isolated) {
+    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")} (${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")}).`;
+  }
+  return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} \u2192 ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
+}
 var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
   const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
   const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
-  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
-  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
+  const when = c.overlapDays !== void 0 ? `${countOf(c.overlapDays, "day")} (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
+  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
+  const at = atPlanKey(linked.loaded, ["surface"]);
+  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", ...at } : {
     code: "collision",
-    message,
-    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
-    plan,
-    file: linked.loaded.file,
-    line: linked.loaded.line
+    message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
+    fix: `Agree with ${c.other.owners.join(", ")} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
+    ...at
   };
 });
 
@@ -38688,6 +38811,7 @@ function bugFixReason(pr, settings) {
   if (branchPrefix) return `its branch starts with ${branchPrefix}`;
   return void 0;
 }
+var CHECK_TEST_DAYS = 14;
 function bugFixNudge(context2) {
   const settings = context2.settings.bugFix;
   if (!settings.enabled) return void 0;
@@ -38700,6 +38824,7 @@ function bugFixNudge(context2) {
   if (productFiles.length === 0) return void 0;
   const guardrail = settings.guardrail;
   let sizingLine;
+  let twoWeeksLine;
   if (guardrail && settings.dailyUnits !== void 0) {
     const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
     const sized = sizeMetric({
@@ -38720,13 +38845,17 @@ function bugFixNudge(context2) {
       interimLooks: 0,
       boundary: "obrien-fleming-spending",
       prePeriodCorrelation: 0,
-      plannedDays: 14
+      plannedDays: CHECK_TEST_DAYS
     });
     if (sized.ok && sized.value.headline && sized.value.effect) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
-      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
-      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0].units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : "no duration"}, one-sided \u03B1 0.05, power 80%.${inTwoWeeks}`;
+      const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
+      const test = "one-sided \u03B1 0.05, power 80%";
+      if (twoWeeks) {
+        twoWeeksLine = `In two weeks at ${traffic}, a check test would catch ${guardrail.name} ${harm === "increase" ? "rising" : "falling"} from ${formatRate(guardrail.rate)} to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative; ${test}).`;
+      }
+      sizingLine = `To catch a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${traffic}: ${countOf(h.perArm[0].units, "unit")} per arm, ${h.duration ? formatWeeks(h.duration) : "no duration"}; ${test}.`;
     }
   }
   const slug = (context2.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
@@ -38737,6 +38866,7 @@ function bugFixNudge(context2) {
     'owners: ["@your-handle"]',
     `flags: [${slug}]`,
     "state: draft",
+    ...context2.today ? [`window: { start: ${context2.today}, end: ${addDays(context2.today, CHECK_TEST_DAYS - 1)} }   # two whole weeks`] : [],
     "hypothesis:",
     "  change: The fix, behind a flag, for half of the traffic.",
     "  because: It should stop the bug without harming anything else.",
@@ -38761,7 +38891,7 @@ function bugFixNudge(context2) {
     "  loss: Turn the flag off and look again at the fix.",
     "  guardrail-breach: Turn the flag off at once."
   ].join("\n");
-  return { reason, productFiles, planStub, ...sizingLine ? { sizingLine } : {} };
+  return { reason, productFiles, planStub, ...twoWeeksLine ? { twoWeeksLine } : {}, ...sizingLine ? { sizingLine } : {} };
 }
 var bugFixUnmeasured = (context2) => {
   const nudge = bugFixNudge(context2);
@@ -38809,9 +38939,7 @@ var eventMissing = (context2) => context2.linked.flatMap(
     code: "event-missing",
     message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
     fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
+    ...atPlanKey(loaded, s.roles[0] === "exposure" ? ["exposure", "event"] : [...metricPath(loaded.plan, s.roles[0] ?? ""), "events"])
   }))
 );
 function dependents(entries, event) {
@@ -38838,7 +38966,7 @@ var planInvalid = ({ invalidPlanFiles }) => invalidPlanFiles.map(({ file: file2,
   const errors = problems.filter((p) => p.severity === "error");
   return {
     code: "plan-invalid",
-    message: `${file2} cannot be used: ${errors.length} error${errors.length === 1 ? "" : "s"}, first: ${formatProblem(errors[0])}`,
+    message: `${file2} cannot be used: ${countOf(errors.length, "error")}, first: ${formatProblem(errors[0])}`,
     fix: "Run plumbline validate and fix each error.",
     file: file2,
     line: errors[0]?.line ?? 1
@@ -38852,9 +38980,7 @@ var decisionsMissing = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "decisions-missing",
       message: `No decision rule for ${missing.join(", ")}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
       fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join("; ")}.`,
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["decisions"])
     }
   ];
 });
@@ -38862,42 +38988,36 @@ var reasonMissing = ({ linked }) => linked.filter(({ loaded }) => !loaded.plan.h
   code: "reason-missing",
   message: "The hypothesis says what changes but not why it should work.",
   fix: "Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["hypothesis"])
 }));
 var guardrailsMissing = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.metrics.guardrails.length === 0).map(({ loaded }) => ({
   code: "guardrails-missing",
   message: "No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.",
   fix: "Add metrics.guardrails with a direction and a tolerance each.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["metrics", "guardrails"])
 }));
 var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { start, end } = loaded.plan.window;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  const at = atPlanKey(loaded, ["window", "end"]);
   if (!end) {
     return [{ code: "end-missing", message: "No planned end date: tests without one run on, and get peeked at until something looks significant.", fix: "Add window.end.", ...at }];
   }
   if (!start) return [];
   const days = inclusiveDays(start, end);
   if (days < 7) {
-    return [{ code: "window-short", message: `The window is ${days} day${days === 1 ? "" : "s"}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
+    return [{ code: "window-short", message: `The window is ${countOf(days, "day")}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
   }
   if (days % 7 !== 0) {
-    return [{ code: "window-partial-week", message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+    return [{ code: "window-partial-week", message: `The window is ${countOf(days, "day")}, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${countOf(Math.ceil(days / 7) * 7, "day")} (${countOf(Math.ceil(days / 7), "week")}).`, ...at }];
   }
   return [];
 });
 var reviewMissing = ({ linked }) => linked.flatMap(
-  ({ loaded }) => loaded.plan.sensitive.filter((s) => !s.review).map((s) => ({
+  ({ loaded }) => loaded.plan.sensitive.map((s, index) => ({ ...s, index })).filter((s) => !s.review).map((s) => ({
     code: "review-missing",
     message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
     fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
+    ...atPlanKey(loaded, ["sensitive", s.index])
   }))
 );
 var REVIEW_HINT = {
@@ -38913,16 +39033,13 @@ var bundleUnexplained = ({ linked }) => linked.filter(({ loaded }) => loaded.pla
   code: "bundle-unexplained",
   message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(", ")}): a result will not say which change caused it.`,
   fix: "Add bundle-rationale, or split the plan.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["flags"])
 }));
 var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { platforms, locales, ready } = loaded.plan.population;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
   const missing = [platforms.length ? "" : "platforms", locales.length ? "" : "locales"].filter(Boolean);
   if (missing.length) {
-    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...at }];
+    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...atPlanKey(loaded, ["population"]) }];
   }
   const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
   if (notReady.length === 0) return [];
@@ -38931,7 +39048,7 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "readiness-missing",
       message: `The change is not declared ready on ${notReady.join(", ")} (rendered, translated), though the population includes ${notReady.length === 1 ? "it" : "them"}.`,
       fix: "Check the change there and add it under population.ready, or take it out of the population.",
-      ...at
+      ...atPlanKey(loaded, ["population", "ready"])
     }
   ];
 });
@@ -38939,13 +39056,14 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
 // src/core/checks/sizing.ts
 var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   const { plan } = loaded;
-  const at = { plan: plan.id, file: loaded.file, line: loaded.line };
   const out = [];
   if (!plan.design.minDetectableEffect || plan.design.dailyUnits === void 0) {
     const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", plan.design.dailyUnits === void 0 ? "design.daily-units" : ""].filter(Boolean);
-    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...at });
+    const key = plan.design.minDetectableEffect ? "daily-units" : "min-detectable-effect";
+    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...atPlanKey(loaded, ["design", key]) });
   }
   for (const entry of sizing.metrics) {
+    const at = atPlanKey(loaded, metricPath(plan, entry.metric));
     if (!entry.result.ok) {
       out.push({ code: "sizing-impossible", message: `${entry.metric} cannot be sized: ${entry.result.error.input}: ${entry.result.error.message}.`, fix: "Check the metric\u2019s baseline figures and the effect to detect.", ...at });
       continue;
@@ -38953,7 +39071,7 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
     const s = entry.result.value;
     const end = s.atPlannedEnd;
     if (end?.power !== void 0 && end.power < plan.design.power) {
-      const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : "";
+      const needed = s.headline?.duration ? ` It needs ${formatWeeks(s.headline.duration)}.` : "";
       out.push({
         code: "underpowered",
         message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,
@@ -38962,19 +39080,28 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
       });
     }
   }
-  const primary = sizing.metrics[0];
-  if (plan.exposure.reach < 1 && primary?.result.ok && primary.result.value.diluted && primary.result.value.triggered) {
-    const s = primary.result.value;
-    const days = (a) => a?.duration ? `${a.duration.days} days` : `${a?.totalUnits.toLocaleString("en-US")} units`;
+  const diluted = plan.exposure.reach < 1 ? dilution(sizing, plan.design.power) : void 0;
+  if (diluted) {
     out.push({
       code: "exposure-diluted",
-      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${days(s.diluted)} instead of ${days(s.triggered)}.`,
-      fix: "Log the exposure event where the change is actually seen (or analyse only the units that reach it).",
-      ...at
+      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${diluted.needs} instead of ${diluted.couldNeed} with exposure logged where the change is seen. ${diluted.verdict}`,
+      fix: diluted.enough ? "Nothing is needed for this test; logging exposure where the change is seen (or analysing only the units that reach it) would make the next one shorter." : "Log the exposure event where the change is actually seen (or analyse only the units that reach it), or extend the window.",
+      ...atPlanKey(loaded, ["exposure", "reach"])
     });
   }
   return out;
 });
+function dilution(sizing, plannedPower) {
+  const asLogged = lengthSetter(sizing, (s) => s.diluted);
+  const triggered = lengthSetter(sizing, (s) => s.triggered);
+  if (!asLogged || !triggered) return void 0;
+  const powers = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [m.result.value.atPlannedEnd.power] : []);
+  const weakest = powers.length ? Math.min(...powers) : void 0;
+  const enough = weakest !== void 0 && weakest >= plannedPower;
+  const planned = sizing.plannedDays !== void 0 ? countOf(sizing.plannedDays, "day") : void 0;
+  const verdict = weakest === void 0 || planned === void 0 ? "Without a planned window it cannot be said whether the test runs long enough." : enough ? `The planned ${planned} still suffice: every metric reaches at least ${formatPower(weakest)} power by the end.` : `The planned ${planned} do not suffice: the weakest metric reaches ${formatPower(weakest)} power by the end, below the planned ${formatPower(plannedPower)}.`;
+  return { needs: formatWeeks(asLogged.duration, describeSetter(asLogged)), couldNeed: formatWeeks(triggered.duration), verdict, enough };
+}
 
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
@@ -38986,9 +39113,7 @@ var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
       code: "spillover",
       message: `${plan.surface.path} is shared between people (group-surfaces: ${shared}), but the plan randomizes by ${plan.unit.randomization}: treated and control people interact, so the difference between arms is biased.`,
       fix: `Randomize the group they share (unit.randomization: team, organization or household) and size with design.cluster.`,
-      plan: plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["unit", "randomization"])
     }
   ];
 });
@@ -38996,9 +39121,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
   code: "analysis-unit-differs",
   message: `Units are randomized by ${loaded.plan.unit.randomization} but metrics are averaged per ${loaded.plan.unit.analysis}: observations within one ${loaded.plan.unit.randomization} are not independent.`,
   fix: "Compute the variance with the delta method or cluster-robust standard errors, not the naive per-unit formula.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["unit", "analysis"])
 }));
 
 // src/core/checks/index.ts
@@ -39038,10 +39161,10 @@ var FINDING_CODES = {
   underpowered: { severity: "warn", about: "the planned window gives less than the planned power" },
   "sizing-incomplete": { severity: "note", about: "the plan lacks the figures sizing needs" },
   "sizing-impossible": { severity: "warn", about: "the plan\u2019s figures cannot be sized" },
-  "exposure-diluted": { severity: "warn", about: "exposure is logged before the change is reached" },
+  "exposure-diluted": { severity: "note", about: "exposure is logged before the change is reached; says whether the planned window still suffices (when it does not, underpowered warns)" },
   spillover: { severity: "warn", about: "people randomized one by one on a surface they share" },
   "analysis-unit-differs": { severity: "note", about: "metrics are averaged over another unit than the one randomized" },
-  collision: { severity: "warn", about: "the test overlaps a running test on the same surface" },
+  collision: { severity: "warn", about: "the test overlaps a running test on the same surface; says what isolating them would cost" },
   "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
@@ -39547,7 +39670,7 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();
@@ -39660,8 +39783,9 @@ function render(review, options, detail, omitted) {
     out.push(
       "#### A small check test for this fix?",
       "",
+      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
       "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      ...review.nudge.sizingLine ? ["", "<details><summary>What it takes to catch a 1% regression</summary>", "", safeText(review.nudge.sizingLine), "", "</details>"] : [],
       "",
       "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
       "",
@@ -39872,7 +39996,7 @@ var reviewReportSchema = external_exports.object({
       known: external_exports.boolean()
     })
   ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional(),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), twoWeeksLine: external_exports.string().optional(), sizingLine: external_exports.string().optional() }).optional(),
   partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
@@ -39954,15 +40078,15 @@ function buildDigest(input2) {
       const days = daysBetween(end, today);
       const reached = estimateSampleReached(entry, today);
       const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
-      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+      item(entry, "overdue", `Past its planned end (${end}) by ${countOf(days, "day")}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
     } else if (entry.state === "live" && end && end >= today && end <= soon) {
-      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
+      item(entry, "ending-soon", `Ends on ${end}, in ${countOf(daysBetween(today, end), "day")}: prepare the readout.`);
     }
     if (entry.state === "draft" && start && start < today) {
       item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
     }
     if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+      item(entry, "long-on-hold", `On hold, ${countOf(daysBetween(start, today), "day")} after its start: its units and surface stay reserved; resume or conclude it.`);
     }
     if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
       item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
@@ -39975,16 +40099,18 @@ function buildDigest(input2) {
       const pair2 = [entry.id, c.other.id].sort().join(" ");
       if (seen.has(pair2) || c.known) continue;
       seen.add(pair2);
-      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${countOf(c.overlapDays, "day")}` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
     }
   }
   const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
-  const byOwner = /* @__PURE__ */ new Map();
   const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  const byTest = /* @__PURE__ */ new Map();
   for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry2.entries.find((e) => e.id === it.test);
-    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
+    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
+    test.items.push(it);
+    byTest.set(it.test, test);
   }
   const counts = {
     overdue: 0,
@@ -40002,7 +40128,8 @@ function buildDigest(input2) {
   return {
     today,
     counts,
-    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
+    // Insertion order is urgency order: a test comes where its most urgent item sorted.
+    tests: [...byTest.values()],
     orphanFlags,
     timeline
   };
@@ -40061,10 +40188,25 @@ var LABEL2 = {
 };
 function countLine(d) {
   const c = d.counts;
-  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
+  const parts = [
+    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? "its" : "their"} planned end` : "",
+    c["ending-soon"] ? `${formatCount(c["ending-soon"])} ending soon` : "",
+    c["draft-past-start"] ? `${countOf(c["draft-past-start"], "draft")} past ${c["draft-past-start"] === 1 ? "its" : "their"} start` : "",
+    c["long-on-hold"] ? `${formatCount(c["long-on-hold"])} on hold too long` : "",
+    c.collision ? countOf(c.collision, "collision") : "",
+    c["flag-gone"] ? `${countOf(c["flag-gone"], "live test")} with ${c["flag-gone"] === 1 ? "its flag" : "their flags"} gone` : "",
+    c.orphanFlags ? `${countOf(c.orphanFlags, "flag")} in code without a plan` : ""
+  ].filter(Boolean);
+  const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
+  return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
 }
-function ownerHeading(owner2) {
-  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
+function ownersOf(owners, mentioned) {
+  return owners.map((owner2) => {
+    const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
+    if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
+    mentioned.add(owner2.toLowerCase());
+    return owner2;
+  }).join(", ");
 }
 function taskName(id) {
   return id.replace(/[:#;]/g, "-");
@@ -40083,21 +40225,22 @@ function gantt(d) {
     lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
   });
   lines.push("```");
-  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  if (d.timeline.length > shown.length) lines.push("", `${countOf(d.timeline.length - shown.length, "more test")} ${d.timeline.length - shown.length === 1 ? "is" : "are"} not drawn (the list above has them all).`);
   return lines;
 }
-function render2(d, withTimeline, itemsPerOwner) {
+function render2(d, withTimeline, maxTests) {
   const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
-  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
-  for (const { owner: owner2, items } of d.owners) {
-    out.push(ownerHeading(owner2), "");
-    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL2[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
-    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
-    out.push("");
+  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  const mentioned = /* @__PURE__ */ new Set();
+  for (const test of d.tests.slice(0, maxTests)) {
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
+    for (const it of test.items) out.push(`  - ${LABEL2[it.kind]}: ${safeText(it.detail)}`);
   }
+  if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
+  if (d.tests.length) out.push("");
   if (d.orphanFlags.length) {
     out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${formatCount(d.orphanFlags.length - 50)} more.`);
     out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
   }
   if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
@@ -40105,17 +40248,17 @@ function render2(d, withTimeline, itemsPerOwner) {
   return out.join("\n");
 }
 function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
-  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
-    const body = render2(d, timeline, per);
+  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]]) {
+    const body = render2(d, timeline, tests);
     if (body.length <= limit) return body;
   }
   return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
 }
 function renderDigestText(d) {
   const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
-  for (const { owner: owner2, items } of d.owners) {
-    out.push("", terminalSafe(owner2));
-    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
+  for (const test of d.tests) {
+    out.push("", `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(", "))}`);
+    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
   }
   if (d.orphanFlags.length) {
     out.push("", "Flags in code that no plan covers:");
@@ -40268,7 +40411,7 @@ function buildProgram(setExit) {
     const cwd = resolve2(options.cwd);
     const pr = await pullRequestInfo(flags, cwd);
     const change2 = await openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
     if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}

@@ -60734,7 +60734,7 @@ var reviewReportSchema = external_exports.object({
       known: external_exports.boolean()
     })
   ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional(),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), twoWeeksLine: external_exports.string().optional(), sizingLine: external_exports.string().optional() }).optional(),
   partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
 }).describe("The Plumbline pull-request review report.");
 var REVIEW_JSON_FORMAT = "plumbline.review/1";
@@ -60973,15 +60973,15 @@ function formatCount(n) {
 }
 function formatRate(rate) {
   if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent = rate * 100;
-  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
-  return `${percent.toFixed(Math.min(digits, 4))}%`;
+  const percent2 = rate * 100;
+  const digits = Math.abs(percent2) >= 10 ? 1 : Math.abs(percent2) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent2) || 1)));
+  return `${percent2.toFixed(Math.min(digits, 4))}%`;
 }
 function formatRelative(change2) {
   if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent = change2 * 100;
-  const text2 = Number(percent.toPrecision(3)).toString();
-  return `${percent >= 0 ? "+" : ""}${text2}%`;
+  const percent2 = change2 * 100;
+  const text2 = Number(percent2.toPrecision(3)).toString();
+  return `${percent2 >= 0 ? "+" : ""}${text2}%`;
 }
 function formatValue(value) {
   if (!Number.isFinite(value)) return NOT_A_NUMBER;
@@ -60996,6 +60996,12 @@ function formatPower(power) {
 }
 function formatMultiplier(m) {
   return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+function countOf(n, singular, plural3 = `${singular}s`) {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural3}`;
+}
+function formatWeeks(duration3, why) {
+  return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
 }
 
 // src/core/review/coverage.ts
@@ -61205,8 +61211,9 @@ function render(review, options, detail, omitted) {
     out.push(
       "#### A small check test for this fix?",
       "",
+      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
       "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      ...review.nudge.sizingLine ? ["", "<details><summary>What it takes to catch a 1% regression</summary>", "", safeText(review.nudge.sizingLine), "", "</details>"] : [],
       "",
       "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
       "",
@@ -61638,26 +61645,53 @@ var windowSchema = external_exports.strictObject(
   },
   { error: "a mapping with start and end dates" }
 ).default({}).describe("Planned calendar window (UTC dates, both days included).");
+var trafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core").describe("Name of the pool of units the tests divide between them."),
+    range: external_exports.strictObject(
+      {
+        start: percentage("where this test\u2019s range starts, in percent of the pool\u2019s units (0 to 100, included)"),
+        end: percentage("where this test\u2019s range ends, in percent of the pool\u2019s units (0 to 100, excluded)")
+      },
+      { error: "a range of the pool\u2019s units in percent, e.g. { start: 0, end: 50 }" }
+    ).describe("This test\u2019s range of the pool, in percent: start included, end excluded, so { start: 0, end: 50 } and { start: 50, end: 100 } take no unit twice.")
+  },
+  { error: "a mapping with name and range, e.g. { name: checkout-core, range: { start: 0, end: 50 } }" }
+).describe("Tests with the same traffic-split name divide one pool of units: each takes its own range of it, and tests whose ranges do not overlap never collide.");
+var oldTrafficSplitSchema = external_exports.strictObject(
+  {
+    name: kebabName("a traffic-split name, e.g. checkout-core"),
+    slice: external_exports.strictObject(
+      {
+        from: percentage("where the range starts, in percent (0 to 100, included)"),
+        to: percentage("where the range ends, in percent (0 to 100, excluded)")
+      },
+      { error: "a range in percent, e.g. { from: 0, to: 50 }" }
+    ).describe("Now traffic-split.range (from is start, to is end).")
+  },
+  { error: "a mapping with name and slice" }
+).meta({ deprecated: true, description: "Deprecated: the old name of traffic-split (slice.from and slice.to are now range.start and range.end). Still read, with a warning." });
 var surfaceSchema = external_exports.strictObject(
   {
     path: surfacePath.describe("Where in the product the change lands, most general segment first."),
-    "exclusion-group": external_exports.strictObject(
-      {
-        name: kebabName("an exclusion group name, e.g. checkout-core"),
-        slice: external_exports.strictObject(
-          {
-            from: percentage("where the slice starts, in percent of the group\u2019s units (0 to 100)"),
-            to: percentage("where the slice ends, in percent of the group\u2019s units (0 to 100)")
-          },
-          { error: "a slice of the group\u2019s units in percent, e.g. { from: 0, to: 50 }" }
-        ).describe("This plan\u2019s share of the group\u2019s units, from and to in percent.")
-      },
-      { error: "a mapping with name and slice" }
-    ).optional().describe("Plans in one exclusion group take disjoint slices of the group\u2019s units and never collide."),
+    "traffic-split": trafficSplitSchema.optional(),
+    "exclusion-group": oldTrafficSplitSchema.optional(),
     "overlaps-with": uniqueList(planId, "a list of plan ids this plan may knowingly overlap with").default([])
   },
   { error: "a mapping with path, e.g. { path: checkout/payment }" }
-).describe("Where in the product the change lands, and how it may share that place with other tests.");
+).refine((s) => !(s["traffic-split"] && s["exclusion-group"]), {
+  error: "traffic-split only; exclusion-group is its old name, so remove it",
+  path: ["exclusion-group"]
+}).describe("Where in the product the change lands, and how it may share that place with other tests.");
+function trafficSplitOf(surface) {
+  if (surface["traffic-split"]) return surface["traffic-split"];
+  const old = surface["exclusion-group"];
+  return old ? { name: old.name, range: { start: old.slice.from, end: old.slice.to } } : void 0;
+}
+function normalizeSurface(surface) {
+  const split = trafficSplitOf(surface);
+  return { path: surface.path, ...split ? { trafficSplit: split } : {}, overlapsWith: surface["overlaps-with"] };
+}
 var populationSchema = external_exports.strictObject(
   {
     platforms: uniqueList(platform2, "a list of platforms, e.g. [web, ios]").default([]),
@@ -61725,7 +61759,7 @@ var writtenPlanSchema = external_exports.strictObject({
       sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)], { error: "1 or 2 (one- or two-sided test)" }).default(2).describe("A two-sided test (2) detects harm as well as gain."),
       "min-detectable-effect": effectSize.optional().describe("Smallest effect on the primary metric worth detecting."),
       "daily-units": positiveNumber("expected eligible units per day, e.g. 12000").optional(),
-      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the exclusion-group slice, or 1."),
+      "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the width of the traffic-split range, or 1."),
       "interim-looks": wholeNumber("a whole number of interim analyses from 0 to 20", 0, 20).default(0),
       "interim-boundary": external_exports.enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(", ")}` }).default("obrien-fleming-spending").describe("Stopping boundary for interim looks: Lan-DeMets spending of O\u2019Brien-Fleming or Pocock type, or the classical constant boundaries."),
       "pre-period-correlation": external_exports.number({ error: "a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5" }).describe("Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).").gte(0, { error: "a correlation from 0 to below 1, e.g. 0.5" }).lt(1, { error: "a correlation from 0 to below 1, e.g. 0.5" }).default(0),
@@ -61796,7 +61830,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     return external_exports.NEVER;
   }
   const d = written.design;
-  const slice = written.surface["exclusion-group"]?.slice;
+  const surface = normalizeSurface(written.surface);
+  const range = surface.trafficSplit?.range;
   return {
     id: written.id,
     title: written.title,
@@ -61810,11 +61845,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       direction: written.hypothesis["expected-direction"]
     },
     unit: { randomization: written.unit.randomization, analysis: written.unit.analysis ?? written.unit.randomization },
-    surface: {
-      path: written.surface.path,
-      ...written.surface["exclusion-group"] ? { exclusionGroup: written.surface["exclusion-group"] } : {},
-      overlapsWith: written.surface["overlaps-with"]
-    },
+    surface,
     population: written.population,
     exposure: written.exposure,
     metrics: {
@@ -61830,7 +61861,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       sides: d.sides,
       ...d["min-detectable-effect"] ? { minDetectableEffect: d["min-detectable-effect"] } : {},
       ...d["daily-units"] !== void 0 ? { dailyUnits: d["daily-units"] } : {},
-      trafficShare: d["traffic-share"] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
+      trafficShare: d["traffic-share"] ?? (range ? Math.max(0, range.end - range.start) / 100 : 1),
       interimLooks: d["interim-looks"],
       interimBoundary: d["interim-boundary"],
       prePeriodCorrelation: d["pre-period-correlation"],
@@ -61877,11 +61908,7 @@ var registrySchema = writtenRegistrySchema.transform(
     state: entry.state,
     flags: entry.flags,
     window: entry.window,
-    surface: {
-      path: entry.surface.path,
-      ...entry.surface["exclusion-group"] ? { exclusionGroup: entry.surface["exclusion-group"] } : {},
-      overlapsWith: entry.surface["overlaps-with"]
-    },
+    surface: normalizeSurface(entry.surface),
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry["traffic-share"] ?? 1,
     events: entry.events
@@ -61925,92 +61952,6 @@ function daysBetween(from, to) {
 function inclusiveDays(start, end) {
   return daysBetween(start, end) + 1;
 }
-
-// src/core/checks/surfaces.ts
-function isSameOrBelow(path6, ancestor) {
-  return path6 === ancestor || path6.startsWith(`${ancestor}/`);
-}
-function surfacesMeet(a, b) {
-  return isSameOrBelow(a, b) || isSameOrBelow(b, a);
-}
-
-// src/core/checks/collisions.ts
-function intersect(a, b) {
-  if (a.length === 0 && b.length === 0) return "all";
-  if (a.length === 0) return [...b];
-  if (b.length === 0) return [...a];
-  const common = a.filter((x) => b.includes(x));
-  return common.length ? common : void 0;
-}
-function windowOverlap(a, b) {
-  if (!a.start || !a.end || !b.start || !b.end) return {};
-  const start = a.start > b.start ? a.start : b.start;
-  const end = a.end < b.end ? a.end : b.end;
-  if (end < start) return void 0;
-  return { days: daysBetween(start, end) + 1, window: { start, end } };
-}
-function sharedTraffic(a, b) {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
-  if (ga && gb && ga.name === gb.name) {
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
-    return Math.max(0, overlap) / 100;
-  }
-  return a.trafficShare * b.trafficShare;
-}
-function findCollisions(subject, others) {
-  const collisions = [];
-  for (const other of others) {
-    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
-    const when = windowOverlap(subject.window, other.window);
-    if (!when) continue;
-    const platforms = intersect(subject.population.platforms, other.population.platforms);
-    const locales = intersect(subject.population.locales, other.population.locales);
-    const regions = intersect(subject.population.regions, other.population.regions);
-    if (!platforms || !locales || !regions) continue;
-    const trafficShare = sharedTraffic(subject, other);
-    if (trafficShare <= 0) continue;
-    collisions.push({
-      other,
-      surface: subject.surface.path === other.surface.path ? "same" : isSameOrBelow(subject.surface.path, other.surface.path) ? "above" : "below",
-      ...when.days !== void 0 ? { overlapDays: when.days } : {},
-      ...when.window ? { overlapWindow: when.window } : {},
-      platforms,
-      locales,
-      regions,
-      trafficShare,
-      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id)
-    });
-  }
-  return collisions;
-}
-function runningEntries(entries) {
-  return entries.filter((e) => e.state === "live");
-}
-function collisionsOfLinked(context3) {
-  const running = runningEntries(context3.registry.entries);
-  return context3.linked.flatMap(
-    ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
-  );
-}
-var list = (values) => values === "all" ? "everyone" : values.join(", ");
-var collisionCheck = (context3) => collisionsOfLinked(context3).map(({ plan, collision: c }) => {
-  const linked = context3.linked.find((l) => l.loaded.plan.id === plan);
-  const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
-  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
-  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
-    code: "collision",
-    message,
-    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
-    plan,
-    file: linked.loaded.file,
-    line: linked.loaded.line
-  };
-});
-
-// src/core/checks/bug-fix.ts
-var import_picomatch2 = __toESM(require_picomatch2(), 1);
 
 // src/core/stats/adjustments.ts
 function designEffect(meanSize, icc, sizeCv = 0) {
@@ -62358,163 +62299,433 @@ function sizeMetric(request2) {
   });
 }
 
-// src/core/checks/bug-fix.ts
-function bugFixReason(pr, settings) {
-  const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
-  const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
-  if (label) return `it has the label ${label}`;
-  const title = pr.title ?? "";
-  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
-  if (prefix) return `its title starts with ${prefix}:`;
-  const branch = (pr.branch ?? "").toLowerCase();
-  const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
-  if (branchPrefix) return `its branch starts with ${branchPrefix}`;
-  return void 0;
+// src/core/stats/plan-sizing.ts
+function baselineOf(metric2) {
+  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
+  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
+  return { kind: "ratio", ...metric2.baseline };
 }
-function bugFixNudge(context3) {
-  const settings = context3.settings.bugFix;
-  if (!settings.enabled) return void 0;
-  const labels = (context3.pr.labels ?? []).map((l) => l.toLowerCase());
-  if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
-  const reason = bugFixReason(context3.pr, settings);
-  if (!reason || context3.touches.length > 0 || context3.linked.length > 0) return void 0;
-  const notProduct = (0, import_picomatch2.default)(settings.nonProductPaths, { dot: true });
-  const productFiles = context3.changedPaths.filter((p) => !notProduct(p));
-  if (productFiles.length === 0) return void 0;
-  const guardrail = settings.guardrail;
-  let sizingLine;
-  if (guardrail && settings.dailyUnits !== void 0) {
-    const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
-    const sized = sizeMetric({
-      baseline: { kind: "proportion", rate: guardrail.rate },
-      direction: harm,
-      effect: { relative: 0.01 },
-      arms: [
-        { name: "control", weight: 50 },
-        { name: "fix", weight: 50 }
-      ],
-      control: "control",
-      alpha: 0.05,
-      power: 0.8,
-      sides: 1,
-      dailyUnits: settings.dailyUnits,
-      trafficShare: 1,
-      reach: 1,
-      interimLooks: 0,
-      boundary: "obrien-fleming-spending",
-      prePeriodCorrelation: 0,
-      plannedDays: 14
-    });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
-      const h = sized.value.headline;
-      const twoWeeks = sized.value.atPlannedEnd?.detectable;
-      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
-      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0].units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : "no duration"}, one-sided \u03B1 0.05, power 80%.${inTwoWeeks}`;
+function sizePlan(plan) {
+  const { design } = plan;
+  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
+  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
+  const common = {
+    arms: design.arms,
+    control: design.control,
+    alpha: design.alpha,
+    power: design.power,
+    trafficShare: design.trafficShare,
+    reach: plan.exposure.reach,
+    interimLooks: design.interimLooks,
+    boundary: design.interimBoundary,
+    prePeriodCorrelation: design.prePeriodCorrelation,
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    ...clustered && design.cluster ? { cluster: design.cluster } : {},
+    ...plannedDays !== void 0 ? { plannedDays } : {}
+  };
+  const primary = plan.metrics.primary;
+  const entries = [
+    {
+      metric: primary.name,
+      role: "primary",
+      kind: primary.kind,
+      direction: primary.direction,
+      sides: design.sides,
+      result: sizeMetric({
+        ...common,
+        baseline: baselineOf(primary),
+        direction: primary.direction,
+        sides: design.sides,
+        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
+      })
+    },
+    ...plan.metrics.guardrails.map((metric2) => {
+      const harm = metric2.direction === "increase" ? "decrease" : "increase";
+      return {
+        metric: metric2.name,
+        role: "guardrail",
+        kind: metric2.kind,
+        direction: harm,
+        sides: 1,
+        result: sizeMetric({
+          ...common,
+          baseline: baselineOf(metric2),
+          direction: harm,
+          sides: 1,
+          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
+        })
+      };
+    })
+  ];
+  return {
+    planId: plan.id,
+    ...plannedDays !== void 0 ? { plannedDays } : {},
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    metrics: entries
+  };
+}
+
+// src/core/source/closest-name.ts
+function closestName(typed, known) {
+  const wanted = typed.toLowerCase();
+  let best;
+  let bestDistance = Infinity;
+  for (const candidate of known) {
+    const distance = editDistance(wanted, candidate.toLowerCase());
+    if (distance < bestDistance) {
+      best = candidate;
+      bestDistance = distance;
     }
   }
-  const slug = (context3.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
-  const g = guardrail ?? { name: "error-rate", rate: 0.01, events: ["error_shown"], direction: "decrease" };
-  const planStub = [
-    `id: check-${slug}`,
-    `title: "Check test: ${(context3.pr.title ?? "the fix").replace(/"/g, "'").slice(0, 80)}"`,
-    'owners: ["@your-handle"]',
-    `flags: [${slug}]`,
-    "state: draft",
-    "hypothesis:",
-    "  change: The fix, behind a flag, for half of the traffic.",
-    "  because: It should stop the bug without harming anything else.",
-    "  expected-direction: increase",
-    "unit: { randomization: user }",
-    "surface: { path: area/page }",
-    "metrics:",
-    "  primary:",
-    "    name: task-completed",
-    "    kind: proportion",
-    "    baseline: { rate: 0.5 }",
-    "    events: [task_completed]",
-    "  guardrails:",
-    `    - { name: ${g.name}, kind: proportion, baseline: { rate: ${g.rate} }, events: [${g.events.join(", ")}], direction: ${g.direction}, tolerance: { relative: 0.01 } }`,
-    "    - { name: latency, kind: mean, baseline: { mean: 300, sd: 150 }, events: [page_rendered], direction: decrease, tolerance: { relative: 0.02 } }",
-    "design:",
-    "  min-detectable-effect: { relative: 0.02 }",
-    `  daily-units: ${settings.dailyUnits ?? 1e4}`,
-    "decisions:",
-    "  win: Roll the fix out to everyone.",
-    "  flat: Roll it out; the bug is gone and nothing got worse.",
-    "  loss: Turn the flag off and look again at the fix.",
-    "  guardrail-breach: Turn the flag off at once."
-  ].join("\n");
-  return { reason, productFiles, planStub, ...sizingLine ? { sizingLine } : {} };
+  const tolerance = Math.max(2, Math.floor(typed.length / 3));
+  if (best !== void 0 && bestDistance <= tolerance) return best;
+  return known.find((candidate) => stem(candidate) === stem(typed));
 }
-var bugFixUnmeasured = (context3) => {
-  const nudge = bugFixNudge(context3);
-  if (!nudge) return [];
-  return [
-    {
-      code: "bug-fix-unmeasured",
-      message: `This looks like a bug fix (${nudge.reason}) that changes product code without a flag: if the fix does not fix, or slows things down or raises errors, nobody will see it.`,
-      fix: `Ship it behind a flag with a small check test (a plan to paste is in the comment), or add the label ${context3.settings.bugFix.silenceLabel} to say no test is needed.`
+function stem(name) {
+  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
+}
+function editDistance(a, b) {
+  const rows2 = a.length + 1;
+  const cols = b.length + 1;
+  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
+  for (let i = 1; i < rows2; i++) {
+    for (let j = 1; j < cols; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
+        value = Math.min(value, d[i - 2][j - 2] + 1);
+      }
+      d[i][j] = value;
     }
-  ];
-};
+  }
+  return d[a.length][b.length];
+}
 
-// src/core/checks/flags.ts
-var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
-  const planned = new Set(registry2.entries.flatMap((e) => e.flags));
-  const exempt = new Set(settings.exemptFlags);
-  const reported = /* @__PURE__ */ new Set();
-  return touches.filter((t) => !planned.has(t.key) && !exempt.has(t.key) && !reported.has(t.key) && reported.add(t.key)).map((t) => ({
-    code: "flag-without-plan",
-    message: `Flag \`${t.key}\` is ${t.side === "added" ? "used" : "removed"} here, but no plan names it.`,
-    fix: `Write a plan for it (plumbline new ${t.key}), link one in the description, or list it under exempt-flags in the settings if it is a kill switch or an operational toggle.`,
-    file: t.file,
-    line: t.line
-  }));
-};
+// src/core/source/problem.ts
+function formatProblem(problem) {
+  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
+  const field = problem.field ? `${problem.field}: ` : "";
+  const detail = [
+    problem.expected ? `expected ${problem.expected}` : "",
+    problem.found ? `found ${problem.found}` : ""
+  ].filter(Boolean).join("; ");
+  return `${where2}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
+}
+function sortProblems(problems) {
+  return [...problems].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
+  );
+}
+function describeValue(value) {
+  if (value === void 0) return "nothing";
+  if (value === null) return "an empty value";
+  if (typeof value === "string") {
+    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
+    return `the text ${JSON.stringify(shown)}`;
+  }
+  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
+  if (typeof value === "boolean") return `${value}`;
+  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
+  if (typeof value === "object") return "a mapping of keys";
+  return typeof value;
+}
 
-// src/core/checks/logging.ts
-function eventStatuses(context3, planId2) {
-  const linked = context3.linked.find((l) => l.loaded.plan.id === planId2);
-  if (!linked) return [];
-  const { plan } = linked.loaded;
-  const roles = /* @__PURE__ */ new Map();
-  const note = (event, role) => roles.set(event, [...roles.get(event) ?? [], role]);
-  if (plan.exposure.event) note(plan.exposure.event, "exposure");
-  for (const m of [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary]) for (const e of m.events) note(e, m.name);
-  return eventsOfPlan(plan).map((event) => {
-    const hits = context3.events.get(event);
-    const location2 = hits?.firstCall ?? hits?.firstQuoted;
-    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {} };
+// src/core/source/check-written.ts
+function checkWritten(source, schema, jsonSchema, codePrefix) {
+  const parsed = schema.safeParse(source.value);
+  if (parsed.success) return { ok: true, value: parsed.data };
+  const problems = [];
+  for (const issue3 of parsed.error.issues) {
+    problems.push(...issueToProblems(issue3, source, jsonSchema, codePrefix));
+  }
+  return { ok: false, problems: dedupe(problems) };
+}
+function issueToProblems(issue3, source, jsonSchema, codePrefix) {
+  const path6 = issue3.path.filter((p) => typeof p !== "symbol");
+  if (issue3.code === "unrecognized_keys") {
+    const known = knownKeysAt(jsonSchema, source.value, path6);
+    return (issue3.keys ?? []).map((key) => {
+      const suggestion = closestName(key, known);
+      return {
+        severity: "error",
+        code: `${codePrefix}/unknown-key`,
+        ...source.locateKey(path6, key),
+        field: formatFieldPath([...path6, key]),
+        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
+        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
+      };
+    });
+  }
+  if (issue3.code === "invalid_union") {
+    if (issue3.discriminator) {
+      const discriminatorPath = path6[path6.length - 1] === issue3.discriminator ? path6 : [...path6, issue3.discriminator];
+      return [{ ...fieldProblem(issue3, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
+    }
+    const branch = pickUnionBranch(issue3.errors ?? []);
+    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue3.path, ...inner.path] }, source, jsonSchema, codePrefix));
+  }
+  return [fieldProblem(issue3, path6, source, codePrefix)];
+}
+function fieldProblem(issue3, path6, source, codePrefix) {
+  const found = valueAt(source.value, path6);
+  const missing = found === void 0;
+  const customCode = issue3.code === "custom" ? issue3.params?.code : void 0;
+  const message = customCode ? issue3.params?.summary ?? "is not valid" : missing ? "required field is missing" : path6.length === 0 && found === null ? "the file is empty" : summaryFor(issue3);
+  return {
+    severity: "error",
+    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
+    ...source.locate(path6),
+    field: formatFieldPath(path6),
+    message,
+    expected: cleanZodMessage(issue3.message),
+    ...missing ? {} : { found: describeFound(found) }
+  };
+}
+function describeFound(found) {
+  const percent2 = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent2 ? `${described}; write ${percent2[1]}% as ${Number(percent2[1]) / 100}` : described;
+}
+function summaryFor(issue3) {
+  switch (issue3.code) {
+    case "invalid_type":
+      return "has the wrong type";
+    case "too_small":
+      return issue3.origin === "array" ? "has too few items" : issue3.origin === "string" ? "is empty" : "is out of range";
+    case "too_big":
+      return issue3.origin === "array" ? "has too many items" : issue3.origin === "string" ? "is too long" : "is out of range";
+    case "invalid_value":
+      return "is not one of the allowed values";
+    case "invalid_format":
+      return "is not in the expected format";
+    default:
+      return "is not valid";
+  }
+}
+function cleanZodMessage(message) {
+  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
+}
+function pickUnionBranch(branches) {
+  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
+  if (shaped.length === 0) return void 0;
+  return shaped.reduce((best, next) => next.length < best.length ? next : best);
+}
+function dedupe(problems) {
+  const seen = /* @__PURE__ */ new Set();
+  return problems.filter((p) => {
+    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
   });
 }
-var eventMissing = (context3) => context3.linked.flatMap(
-  ({ loaded }) => eventStatuses(context3, loaded.plan.id).filter((s) => !s.location).map((s) => ({
-    code: "event-missing",
-    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
-    fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
-  }))
-);
-function dependents(entries, event) {
-  return runningEntries(entries).filter((e) => e.events.includes(event));
+function formatFieldPath(path6) {
+  return path6.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
 }
-var eventRemoved = ({ removedEvents, events: events2, registry: registry2 }) => [...removedEvents].flatMap(([event, where2]) => {
-  const still = events2.get(event);
-  if (still?.firstCall || still?.firstQuoted) return [];
-  const plans = dependents(registry2.entries, event);
-  if (plans.length === 0) return [];
-  return [
-    {
-      code: "event-removed",
-      message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? "" : "s"} ${plans.map((p) => `${p.id} (${p.owners.join(", ")})`).join(", ")} depend${plans.length === 1 ? "s" : ""} on.`,
-      fix: "Keep logging the event, or agree with the owners to end or change those tests first.",
-      file: where2.file,
-      line: where2.line
+function valueAt(value, path6) {
+  let current = value;
+  for (const segment of path6) {
+    if (current === null || typeof current !== "object") return void 0;
+    current = current[segment];
+  }
+  return current;
+}
+function knownKeysAt(schema, data, path6) {
+  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
+  let nodes = [schema];
+  let current = data;
+  for (const segment of path6) {
+    nodes = nodes.flatMap((n) => branchesFor(n, current));
+    const next = [];
+    for (const node2 of nodes) {
+      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
+      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
     }
-  ];
-});
+    nodes = next;
+    current = current !== null && typeof current === "object" ? current[segment] : void 0;
+  }
+  const keys = /* @__PURE__ */ new Set();
+  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
+    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
+  }
+  return [...keys];
+}
+function resolveRef2(root, node2) {
+  const ref = node2.$ref;
+  if (!ref?.startsWith("#/$defs/")) return node2;
+  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
+}
+function unionBranches(node2, data, root) {
+  const options = node2.anyOf ?? node2.oneOf;
+  if (!options) return [node2];
+  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
+  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
+  const matching = all.filter((option) => {
+    if (Array.isArray(data)) return option.items !== void 0;
+    if (!record2) return true;
+    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
+  });
+  return matching.length ? matching : all;
+}
+
+// src/core/source/rule-context.ts
+function runRules(value, source, rules) {
+  const problems = [];
+  const context3 = {
+    value,
+    report({ severity: severity2, code, path: path6, message, expected, showFound }) {
+      const found = showFound ? describeValue(valueAt(source.value, path6)) : void 0;
+      problems.push({
+        severity: severity2,
+        code,
+        ...source.locate(path6),
+        field: formatFieldPath(path6),
+        message,
+        ...expected ? { expected } : {},
+        ...found ? { found } : {}
+      });
+    }
+  };
+  for (const rule of rules) rule(context3);
+  return problems;
+}
+
+// src/core/source/yaml-source.ts
+var import_yaml = __toESM(require_dist(), 1);
+function readYaml(text2, file2, limits, codePrefix) {
+  const fail2 = (line, column, code, message, expected) => ({
+    ok: false,
+    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
+  });
+  const bytes = Buffer.byteLength(text2, "utf8");
+  if (bytes > limits.maxBytes) {
+    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
+  }
+  const lineCounter = new import_yaml.LineCounter();
+  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const firstError = doc.errors[0];
+  if (firstError) {
+    const pos = lineCounter.linePos(firstError.pos[0]);
+    if (firstError.code === "MULTIPLE_DOCS") {
+      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+    }
+    if (firstError.code === "DUPLICATE_KEY") {
+      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
+    }
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+  let complexKeyAt;
+  (0, import_yaml.visit)(doc, {
+    Pair(_, pair) {
+      if (pair.key !== null && !(0, import_yaml.isScalar)(pair.key)) {
+        complexKeyAt = pair.key.range?.[0] ?? 0;
+        return import_yaml.visit.BREAK;
+      }
+      return void 0;
+    }
+  });
+  if (complexKeyAt !== void 0) {
+    const pos = lineCounter.linePos(complexKeyAt);
+    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
+  }
+  let value;
+  try {
+    value = doc.toJS({ maxAliasCount: limits.maxAliases });
+  } catch (error63) {
+    const message = error63 instanceof Error ? error63.message : String(error63);
+    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
+  }
+  const at = (offset) => {
+    const pos = lineCounter.linePos(offset);
+    return { file: file2, line: pos.line, column: pos.col };
+  };
+  const rootOffset = doc.contents?.range[0] ?? 0;
+  const walk2 = (path6) => {
+    let node2 = doc.contents;
+    let depth = 0;
+    for (const segment of path6) {
+      const next = childOf(node2, segment);
+      if (!next) break;
+      node2 = next;
+      depth++;
+    }
+    return { node: node2, depth };
+  };
+  return {
+    ok: true,
+    source: {
+      file: file2,
+      value,
+      locate(path6) {
+        const { node: node2 } = walk2(path6);
+        return at(node2?.range?.[0] ?? rootOffset);
+      },
+      locateKey(path6, key) {
+        const { node: node2, depth } = walk2(path6);
+        if (depth === path6.length && (0, import_yaml.isMap)(node2)) {
+          const pair = node2.items.find((item) => (0, import_yaml.isScalar)(item.key) && String(item.key.value) === key);
+          const keyNode = pair && (0, import_yaml.isScalar)(pair.key) ? pair.key : void 0;
+          if (keyNode?.range) return at(keyNode.range[0]);
+        }
+        return at(node2?.range?.[0] ?? rootOffset);
+      }
+    }
+  };
+}
+function childOf(node2, segment) {
+  if ((0, import_yaml.isMap)(node2)) {
+    const pair = node2.items.find((item) => (0, import_yaml.isPair)(item) && (0, import_yaml.isScalar)(item.key) && String(item.key.value) === String(segment));
+    return pair?.value ?? (pair && (0, import_yaml.isScalar)(pair.key) ? pair.key : null);
+  }
+  if ((0, import_yaml.isSeq)(node2) && typeof segment === "number") {
+    return node2.items[segment] ?? null;
+  }
+  return null;
+}
+function plainYamlMessage(message) {
+  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
+}
+
+// src/core/plan/json-schema.ts
+var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
+var cached2;
+function planJsonSchema() {
+  cached2 ??= {
+    $id: PLAN_SCHEMA_ID,
+    title: "Plumbline experiment plan",
+    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
+  };
+  return cached2;
+}
+
+// src/core/plan/renamed-keys.ts
+var SURFACE_RENAMES = [
+  {
+    old: "exclusion-group",
+    replacement: "traffic-split",
+    how: "its slice: { from, to } is now range: { start, end }, with the same percent values",
+    example: "traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }"
+  }
+];
+function renamedSurfaceKeys(source, surfaces, codePrefix) {
+  const problems = [];
+  for (const path6 of surfaces) {
+    const surface = valueAt(source.value, path6);
+    if (!surface || typeof surface !== "object" || Array.isArray(surface)) continue;
+    for (const rename3 of SURFACE_RENAMES) {
+      if (!(rename3.old in surface)) continue;
+      problems.push({
+        severity: "warning",
+        code: `${codePrefix}/renamed-key`,
+        ...source.locateKey(path6, rename3.old),
+        field: formatFieldPath([...path6, rename3.old]),
+        message: `"${rename3.old}" is the old name of "${rename3.replacement}" and is still read for now; rename it (${rename3.how})`,
+        expected: rename3.example
+      });
+    }
+  }
+  return problems;
+}
 
 // src/core/plan/rules.ts
 var windowInOrder = ({ value: plan, report }) => {
@@ -62564,24 +62775,25 @@ var armsAreDistinct = ({ value: plan, report }) => {
     });
   }
 };
-var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group2 = plan.surface.exclusionGroup;
-  if (!group2) return;
-  const width = group2.slice.to - group2.slice.from;
+var rangeIsNotEmpty = ({ value: plan, report }) => {
+  const split = plan.surface.trafficSplit;
+  if (!split) return;
+  const width = split.range.end - split.range.start;
   if (width <= 0) {
     report({
       severity: "error",
-      code: "plan/empty-slice",
-      path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group2.slice.from}% to ${group2.slice.to}% holds no units`,
-      expected: "from below to, e.g. { from: 0, to: 50 }"
+      code: "plan/empty-range",
+      // A file still on the old key is located at its surface (and warned about the rename).
+      path: ["surface", "traffic-split", "range"],
+      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
+      expected: "a start below the end, e.g. { start: 0, end: 50 }"
     });
   } else if (plan.design.trafficShare > width / 100 + 1e-9) {
     report({
       severity: "error",
-      code: "plan/traffic-beyond-slice",
+      code: "plan/traffic-beyond-range",
       path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
       expected: `at most ${width / 100}`
     });
   }
@@ -62713,7 +62925,7 @@ var PLAN_RULES = [
   windowInOrder,
   liveHasStart,
   armsAreDistinct,
-  sliceIsNotEmpty,
+  rangeIsNotEmpty,
   metricNamesAreDistinct,
   guardrailsSayWhatHarmIs,
   groupUnitsDescribeClusters,
@@ -62722,41 +62934,339 @@ var PLAN_RULES = [
   decisionsAreWritten
 ];
 
-// src/core/source/problem.ts
-function formatProblem(problem) {
-  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
-  const field = problem.field ? `${problem.field}: ` : "";
-  const detail = [
-    problem.expected ? `expected ${problem.expected}` : "",
-    problem.found ? `found ${problem.found}` : ""
-  ].filter(Boolean).join("; ");
-  return `${where2}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
+// src/core/plan/load.ts
+var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function lineOfKey(loaded, path6) {
+  for (let depth = path6.length; depth > 0; depth--) {
+    const line = loaded.keyLines.get(formatFieldPath(path6.slice(0, depth)));
+    if (line !== void 0) return line;
+  }
+  return loaded.line;
 }
-function sortProblems(problems) {
-  return [...problems].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
+function keyLinesOf(source) {
+  const lines = /* @__PURE__ */ new Map();
+  const walk2 = (value, path6) => {
+    if (Array.isArray(value)) {
+      value.forEach((item, index) => {
+        lines.set(formatFieldPath([...path6, index]), source.locate([...path6, index]).line);
+        walk2(item, [...path6, index]);
+      });
+    } else if (value !== null && typeof value === "object") {
+      for (const [key, item] of Object.entries(value)) {
+        lines.set(formatFieldPath([...path6, key]), source.locateKey(path6, key).line);
+        walk2(item, [...path6, key]);
+      }
+    }
+  };
+  walk2(source.value, []);
+  return lines;
+}
+function loadPlan(text2, file2) {
+  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = [...renamedSurfaceKeys(read.source, [["surface"]], "plan"), ...runRules(checked.value, read.source, PLAN_RULES)];
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line, keyLines: keyLinesOf(read.source) }, warnings };
+}
+
+// src/core/checks/plan-key.ts
+function atPlanKey(loaded, path6) {
+  return { plan: loaded.plan.id, file: loaded.file, line: lineOfKey(loaded, path6) };
+}
+function metricPath(plan, name) {
+  if (plan.metrics.primary.name === name) return ["metrics", "primary"];
+  const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === name);
+  if (guardrail >= 0) return ["metrics", "guardrails", guardrail];
+  const secondary = plan.metrics.secondary.findIndex((m) => m.name === name);
+  return secondary >= 0 ? ["metrics", "secondary", secondary] : ["metrics"];
+}
+
+// src/core/checks/test-length.ts
+function lengthSetter(sizing, pick2 = (s) => s.headline) {
+  let longest;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? pick2(entry.result.value)?.duration : void 0;
+    if (duration3 && (!longest || duration3.days > longest.duration.days)) longest = { metric: entry.metric, role: entry.role, duration: duration3 };
+  }
+  return longest;
+}
+function describeSetter(setter) {
+  return setter.role === "primary" ? "the primary metric sets the length" : `guardrail ${setter.metric} sets the length`;
+}
+
+// src/core/checks/surfaces.ts
+function isSameOrBelow(path6, ancestor) {
+  return path6 === ancestor || path6.startsWith(`${ancestor}/`);
+}
+function surfacesMeet(a, b) {
+  return isSameOrBelow(a, b) || isSameOrBelow(b, a);
+}
+
+// src/core/checks/collisions.ts
+function intersect(a, b) {
+  if (a.length === 0 && b.length === 0) return "all";
+  if (a.length === 0) return [...b];
+  if (b.length === 0) return [...a];
+  const common = a.filter((x) => b.includes(x));
+  return common.length ? common : void 0;
+}
+function windowOverlap(a, b) {
+  if (!a.start || !a.end || !b.start || !b.end) return {};
+  const start = a.start > b.start ? a.start : b.start;
+  const end = a.end < b.end ? a.end : b.end;
+  if (end < start) return void 0;
+  return { days: daysBetween(start, end) + 1, window: { start, end } };
+}
+function sharedTraffic(a, b) {
+  const ga = a.surface.trafficSplit;
+  const gb = b.surface.trafficSplit;
+  if (ga && gb && ga.name === gb.name) {
+    const overlap = Math.min(ga.range.end, gb.range.end) - Math.max(ga.range.start, gb.range.start);
+    return Math.max(0, overlap) / 100;
+  }
+  return a.trafficShare * b.trafficShare;
+}
+function findCollisions(subject, others) {
+  const collisions = [];
+  for (const other of others) {
+    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
+    const when = windowOverlap(subject.window, other.window);
+    if (!when) continue;
+    const platforms = intersect(subject.population.platforms, other.population.platforms);
+    const locales = intersect(subject.population.locales, other.population.locales);
+    const regions = intersect(subject.population.regions, other.population.regions);
+    if (!platforms || !locales || !regions) continue;
+    const trafficShare = sharedTraffic(subject, other);
+    if (trafficShare <= 0) continue;
+    collisions.push({
+      other,
+      surface: subject.surface.path === other.surface.path ? "same" : isSameOrBelow(subject.surface.path, other.surface.path) ? "above" : "below",
+      ...when.days !== void 0 ? { overlapDays: when.days } : {},
+      ...when.window ? { overlapWindow: when.window } : {},
+      platforms,
+      locales,
+      regions,
+      trafficShare,
+      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id)
+    });
+  }
+  return collisions;
+}
+function runningEntries(entries) {
+  return entries.filter((e) => e.state === "live");
+}
+function collisionsOfLinked(context3) {
+  const running = runningEntries(context3.registry.entries);
+  return context3.linked.flatMap(
+    ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
   );
 }
-function describeValue(value) {
-  if (value === void 0) return "nothing";
-  if (value === null) return "an empty value";
-  if (typeof value === "string") {
-    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
-    return `the text ${JSON.stringify(shown)}`;
+var list = (values) => values === "all" ? "everyone" : values.join(", ");
+var percent = (share) => `${Math.round(share * 100)}%`;
+function isolationCost(subject, other) {
+  const { plan } = subject.loaded;
+  const wanted = plan.design.trafficShare;
+  const free = 1 - other.trafficShare;
+  if (free >= wanted - 1e-9) {
+    return `Isolating costs this test nothing: ${other.id} leaves ${percent(free)} of eligible units free, enough for this test\u2019s ${percent(wanted)} in a traffic split.`;
   }
-  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
-  if (typeof value === "boolean") return `${value}`;
-  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
-  if (typeof value === "object") return "a mapping of keys";
-  return typeof value;
+  const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
+  const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
+  const now = lengthSetter(subject.sizing);
+  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  if (now && isolated) {
+    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")} (${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")}).`;
+  }
+  return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} \u2192 ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
 }
+var collisionCheck = (context3) => collisionsOfLinked(context3).map(({ plan, collision: c }) => {
+  const linked = context3.linked.find((l) => l.loaded.plan.id === plan);
+  const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
+  const when = c.overlapDays !== void 0 ? `${countOf(c.overlapDays, "day")} (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
+  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
+  const at = atPlanKey(linked.loaded, ["surface"]);
+  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", ...at } : {
+    code: "collision",
+    message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
+    fix: `Agree with ${c.other.owners.join(", ")} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
+    ...at
+  };
+});
+
+// src/core/checks/bug-fix.ts
+var import_picomatch2 = __toESM(require_picomatch2(), 1);
+function bugFixReason(pr, settings) {
+  const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
+  const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
+  if (label) return `it has the label ${label}`;
+  const title = pr.title ?? "";
+  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
+  if (prefix) return `its title starts with ${prefix}:`;
+  const branch = (pr.branch ?? "").toLowerCase();
+  const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
+  if (branchPrefix) return `its branch starts with ${branchPrefix}`;
+  return void 0;
+}
+var CHECK_TEST_DAYS = 14;
+function bugFixNudge(context3) {
+  const settings = context3.settings.bugFix;
+  if (!settings.enabled) return void 0;
+  const labels = (context3.pr.labels ?? []).map((l) => l.toLowerCase());
+  if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
+  const reason = bugFixReason(context3.pr, settings);
+  if (!reason || context3.touches.length > 0 || context3.linked.length > 0) return void 0;
+  const notProduct = (0, import_picomatch2.default)(settings.nonProductPaths, { dot: true });
+  const productFiles = context3.changedPaths.filter((p) => !notProduct(p));
+  if (productFiles.length === 0) return void 0;
+  const guardrail = settings.guardrail;
+  let sizingLine;
+  let twoWeeksLine;
+  if (guardrail && settings.dailyUnits !== void 0) {
+    const harm = guardrail.direction === "decrease" ? "increase" : "decrease";
+    const sized = sizeMetric({
+      baseline: { kind: "proportion", rate: guardrail.rate },
+      direction: harm,
+      effect: { relative: 0.01 },
+      arms: [
+        { name: "control", weight: 50 },
+        { name: "fix", weight: 50 }
+      ],
+      control: "control",
+      alpha: 0.05,
+      power: 0.8,
+      sides: 1,
+      dailyUnits: settings.dailyUnits,
+      trafficShare: 1,
+      reach: 1,
+      interimLooks: 0,
+      boundary: "obrien-fleming-spending",
+      prePeriodCorrelation: 0,
+      plannedDays: CHECK_TEST_DAYS
+    });
+    if (sized.ok && sized.value.headline && sized.value.effect) {
+      const h = sized.value.headline;
+      const twoWeeks = sized.value.atPlannedEnd?.detectable;
+      const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
+      const test = "one-sided \u03B1 0.05, power 80%";
+      if (twoWeeks) {
+        twoWeeksLine = `In two weeks at ${traffic}, a check test would catch ${guardrail.name} ${harm === "increase" ? "rising" : "falling"} from ${formatRate(guardrail.rate)} to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative; ${test}).`;
+      }
+      sizingLine = `To catch a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} \u2192 ${formatRate(sized.value.effect.to)}) at ${traffic}: ${countOf(h.perArm[0].units, "unit")} per arm, ${h.duration ? formatWeeks(h.duration) : "no duration"}; ${test}.`;
+    }
+  }
+  const slug = (context3.pr.branch ?? "bug-fix").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 40) || "bug-fix";
+  const g = guardrail ?? { name: "error-rate", rate: 0.01, events: ["error_shown"], direction: "decrease" };
+  const planStub = [
+    `id: check-${slug}`,
+    `title: "Check test: ${(context3.pr.title ?? "the fix").replace(/"/g, "'").slice(0, 80)}"`,
+    'owners: ["@your-handle"]',
+    `flags: [${slug}]`,
+    "state: draft",
+    ...context3.today ? [`window: { start: ${context3.today}, end: ${addDays(context3.today, CHECK_TEST_DAYS - 1)} }   # two whole weeks`] : [],
+    "hypothesis:",
+    "  change: The fix, behind a flag, for half of the traffic.",
+    "  because: It should stop the bug without harming anything else.",
+    "  expected-direction: increase",
+    "unit: { randomization: user }",
+    "surface: { path: area/page }",
+    "metrics:",
+    "  primary:",
+    "    name: task-completed",
+    "    kind: proportion",
+    "    baseline: { rate: 0.5 }",
+    "    events: [task_completed]",
+    "  guardrails:",
+    `    - { name: ${g.name}, kind: proportion, baseline: { rate: ${g.rate} }, events: [${g.events.join(", ")}], direction: ${g.direction}, tolerance: { relative: 0.01 } }`,
+    "    - { name: latency, kind: mean, baseline: { mean: 300, sd: 150 }, events: [page_rendered], direction: decrease, tolerance: { relative: 0.02 } }",
+    "design:",
+    "  min-detectable-effect: { relative: 0.02 }",
+    `  daily-units: ${settings.dailyUnits ?? 1e4}`,
+    "decisions:",
+    "  win: Roll the fix out to everyone.",
+    "  flat: Roll it out; the bug is gone and nothing got worse.",
+    "  loss: Turn the flag off and look again at the fix.",
+    "  guardrail-breach: Turn the flag off at once."
+  ].join("\n");
+  return { reason, productFiles, planStub, ...twoWeeksLine ? { twoWeeksLine } : {}, ...sizingLine ? { sizingLine } : {} };
+}
+var bugFixUnmeasured = (context3) => {
+  const nudge = bugFixNudge(context3);
+  if (!nudge) return [];
+  return [
+    {
+      code: "bug-fix-unmeasured",
+      message: `This looks like a bug fix (${nudge.reason}) that changes product code without a flag: if the fix does not fix, or slows things down or raises errors, nobody will see it.`,
+      fix: `Ship it behind a flag with a small check test (a plan to paste is in the comment), or add the label ${context3.settings.bugFix.silenceLabel} to say no test is needed.`
+    }
+  ];
+};
+
+// src/core/checks/flags.ts
+var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
+  const planned = new Set(registry2.entries.flatMap((e) => e.flags));
+  const exempt = new Set(settings.exemptFlags);
+  const reported = /* @__PURE__ */ new Set();
+  return touches.filter((t) => !planned.has(t.key) && !exempt.has(t.key) && !reported.has(t.key) && reported.add(t.key)).map((t) => ({
+    code: "flag-without-plan",
+    message: `Flag \`${t.key}\` is ${t.side === "added" ? "used" : "removed"} here, but no plan names it.`,
+    fix: `Write a plan for it (plumbline new ${t.key}), link one in the description, or list it under exempt-flags in the settings if it is a kill switch or an operational toggle.`,
+    file: t.file,
+    line: t.line
+  }));
+};
+
+// src/core/checks/logging.ts
+function eventStatuses(context3, planId2) {
+  const linked = context3.linked.find((l) => l.loaded.plan.id === planId2);
+  if (!linked) return [];
+  const { plan } = linked.loaded;
+  const roles = /* @__PURE__ */ new Map();
+  const note = (event, role) => roles.set(event, [...roles.get(event) ?? [], role]);
+  if (plan.exposure.event) note(plan.exposure.event, "exposure");
+  for (const m of [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary]) for (const e of m.events) note(e, m.name);
+  return eventsOfPlan(plan).map((event) => {
+    const hits = context3.events.get(event);
+    const location2 = hits?.firstCall ?? hits?.firstQuoted;
+    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {} };
+  });
+}
+var eventMissing = (context3) => context3.linked.flatMap(
+  ({ loaded }) => eventStatuses(context3, loaded.plan.id).filter((s) => !s.location).map((s) => ({
+    code: "event-missing",
+    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
+    fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
+    ...atPlanKey(loaded, s.roles[0] === "exposure" ? ["exposure", "event"] : [...metricPath(loaded.plan, s.roles[0] ?? ""), "events"])
+  }))
+);
+function dependents(entries, event) {
+  return runningEntries(entries).filter((e) => e.events.includes(event));
+}
+var eventRemoved = ({ removedEvents, events: events2, registry: registry2 }) => [...removedEvents].flatMap(([event, where2]) => {
+  const still = events2.get(event);
+  if (still?.firstCall || still?.firstQuoted) return [];
+  const plans = dependents(registry2.entries, event);
+  if (plans.length === 0) return [];
+  return [
+    {
+      code: "event-removed",
+      message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? "" : "s"} ${plans.map((p) => `${p.id} (${p.owners.join(", ")})`).join(", ")} depend${plans.length === 1 ? "s" : ""} on.`,
+      fix: "Keep logging the event, or agree with the owners to end or change those tests first.",
+      file: where2.file,
+      line: where2.line
+    }
+  ];
+});
 
 // src/core/checks/plans.ts
 var planInvalid = ({ invalidPlanFiles }) => invalidPlanFiles.map(({ file: file2, problems }) => {
   const errors = problems.filter((p) => p.severity === "error");
   return {
     code: "plan-invalid",
-    message: `${file2} cannot be used: ${errors.length} error${errors.length === 1 ? "" : "s"}, first: ${formatProblem(errors[0])}`,
+    message: `${file2} cannot be used: ${countOf(errors.length, "error")}, first: ${formatProblem(errors[0])}`,
     fix: "Run plumbline validate and fix each error.",
     file: file2,
     line: errors[0]?.line ?? 1
@@ -62770,9 +63280,7 @@ var decisionsMissing = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "decisions-missing",
       message: `No decision rule for ${missing.join(", ")}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
       fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join("; ")}.`,
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["decisions"])
     }
   ];
 });
@@ -62780,42 +63288,36 @@ var reasonMissing = ({ linked }) => linked.filter(({ loaded }) => !loaded.plan.h
   code: "reason-missing",
   message: "The hypothesis says what changes but not why it should work.",
   fix: "Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["hypothesis"])
 }));
 var guardrailsMissing = ({ linked }) => linked.filter(({ loaded }) => loaded.plan.metrics.guardrails.length === 0).map(({ loaded }) => ({
   code: "guardrails-missing",
   message: "No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.",
   fix: "Add metrics.guardrails with a direction and a tolerance each.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["metrics", "guardrails"])
 }));
 var windowChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { start, end } = loaded.plan.window;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  const at = atPlanKey(loaded, ["window", "end"]);
   if (!end) {
     return [{ code: "end-missing", message: "No planned end date: tests without one run on, and get peeked at until something looks significant.", fix: "Add window.end.", ...at }];
   }
   if (!start) return [];
   const days = inclusiveDays(start, end);
   if (days < 7) {
-    return [{ code: "window-short", message: `The window is ${days} day${days === 1 ? "" : "s"}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
+    return [{ code: "window-short", message: `The window is ${countOf(days, "day")}: less than a week misses weekly cycles.`, fix: "Plan at least 7 days, in whole weeks.", ...at }];
   }
   if (days % 7 !== 0) {
-    return [{ code: "window-partial-week", message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+    return [{ code: "window-partial-week", message: `The window is ${countOf(days, "day")}, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${countOf(Math.ceil(days / 7) * 7, "day")} (${countOf(Math.ceil(days / 7), "week")}).`, ...at }];
   }
   return [];
 });
 var reviewMissing = ({ linked }) => linked.flatMap(
-  ({ loaded }) => loaded.plan.sensitive.filter((s) => !s.review).map((s) => ({
+  ({ loaded }) => loaded.plan.sensitive.map((s, index) => ({ ...s, index })).filter((s) => !s.review).map((s) => ({
     code: "review-missing",
     message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
     fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
-    plan: loaded.plan.id,
-    file: loaded.file,
-    line: loaded.line
+    ...atPlanKey(loaded, ["sensitive", s.index])
   }))
 );
 var REVIEW_HINT = {
@@ -62831,16 +63333,13 @@ var bundleUnexplained = ({ linked }) => linked.filter(({ loaded }) => loaded.pla
   code: "bundle-unexplained",
   message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(", ")}): a result will not say which change caused it.`,
   fix: "Add bundle-rationale, or split the plan.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["flags"])
 }));
 var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
   const { platforms, locales, ready } = loaded.plan.population;
-  const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
   const missing = [platforms.length ? "" : "platforms", locales.length ? "" : "locales"].filter(Boolean);
   if (missing.length) {
-    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...at }];
+    return [{ code: "population-undeclared", message: `The population does not declare ${missing.join(" or ")}.`, fix: `Add population.${missing.join(" and population.")}.`, ...atPlanKey(loaded, ["population"]) }];
   }
   const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
   if (notReady.length === 0) return [];
@@ -62849,7 +63348,7 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
       code: "readiness-missing",
       message: `The change is not declared ready on ${notReady.join(", ")} (rendered, translated), though the population includes ${notReady.length === 1 ? "it" : "them"}.`,
       fix: "Check the change there and add it under population.ready, or take it out of the population.",
-      ...at
+      ...atPlanKey(loaded, ["population", "ready"])
     }
   ];
 });
@@ -62857,13 +63356,14 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
 // src/core/checks/sizing.ts
 var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   const { plan } = loaded;
-  const at = { plan: plan.id, file: loaded.file, line: loaded.line };
   const out = [];
   if (!plan.design.minDetectableEffect || plan.design.dailyUnits === void 0) {
     const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", plan.design.dailyUnits === void 0 ? "design.daily-units" : ""].filter(Boolean);
-    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...at });
+    const key = plan.design.minDetectableEffect ? "daily-units" : "min-detectable-effect";
+    out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...atPlanKey(loaded, ["design", key]) });
   }
   for (const entry of sizing.metrics) {
+    const at = atPlanKey(loaded, metricPath(plan, entry.metric));
     if (!entry.result.ok) {
       out.push({ code: "sizing-impossible", message: `${entry.metric} cannot be sized: ${entry.result.error.input}: ${entry.result.error.message}.`, fix: "Check the metric\u2019s baseline figures and the effect to detect.", ...at });
       continue;
@@ -62871,7 +63371,7 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
     const s = entry.result.value;
     const end = s.atPlannedEnd;
     if (end?.power !== void 0 && end.power < plan.design.power) {
-      const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : "";
+      const needed = s.headline?.duration ? ` It needs ${formatWeeks(s.headline.duration)}.` : "";
       out.push({
         code: "underpowered",
         message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,
@@ -62880,19 +63380,28 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
       });
     }
   }
-  const primary = sizing.metrics[0];
-  if (plan.exposure.reach < 1 && primary?.result.ok && primary.result.value.diluted && primary.result.value.triggered) {
-    const s = primary.result.value;
-    const days = (a) => a?.duration ? `${a.duration.days} days` : `${a?.totalUnits.toLocaleString("en-US")} units`;
+  const diluted = plan.exposure.reach < 1 ? dilution(sizing, plan.design.power) : void 0;
+  if (diluted) {
     out.push({
       code: "exposure-diluted",
-      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${days(s.diluted)} instead of ${days(s.triggered)}.`,
-      fix: "Log the exposure event where the change is actually seen (or analyse only the units that reach it).",
-      ...at
+      message: `Only ${Math.round(plan.exposure.reach * 100)}% of exposed units reach the change, so the effect is diluted: the test needs ${diluted.needs} instead of ${diluted.couldNeed} with exposure logged where the change is seen. ${diluted.verdict}`,
+      fix: diluted.enough ? "Nothing is needed for this test; logging exposure where the change is seen (or analysing only the units that reach it) would make the next one shorter." : "Log the exposure event where the change is actually seen (or analyse only the units that reach it), or extend the window.",
+      ...atPlanKey(loaded, ["exposure", "reach"])
     });
   }
   return out;
 });
+function dilution(sizing, plannedPower) {
+  const asLogged = lengthSetter(sizing, (s) => s.diluted);
+  const triggered = lengthSetter(sizing, (s) => s.triggered);
+  if (!asLogged || !triggered) return void 0;
+  const powers = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [m.result.value.atPlannedEnd.power] : []);
+  const weakest = powers.length ? Math.min(...powers) : void 0;
+  const enough = weakest !== void 0 && weakest >= plannedPower;
+  const planned = sizing.plannedDays !== void 0 ? countOf(sizing.plannedDays, "day") : void 0;
+  const verdict = weakest === void 0 || planned === void 0 ? "Without a planned window it cannot be said whether the test runs long enough." : enough ? `The planned ${planned} still suffice: every metric reaches at least ${formatPower(weakest)} power by the end.` : `The planned ${planned} do not suffice: the weakest metric reaches ${formatPower(weakest)} power by the end, below the planned ${formatPower(plannedPower)}.`;
+  return { needs: formatWeeks(asLogged.duration, describeSetter(asLogged)), couldNeed: formatWeeks(triggered.duration), verdict, enough };
+}
 
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
@@ -62904,9 +63413,7 @@ var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
       code: "spillover",
       message: `${plan.surface.path} is shared between people (group-surfaces: ${shared}), but the plan randomizes by ${plan.unit.randomization}: treated and control people interact, so the difference between arms is biased.`,
       fix: `Randomize the group they share (unit.randomization: team, organization or household) and size with design.cluster.`,
-      plan: plan.id,
-      file: loaded.file,
-      line: loaded.line
+      ...atPlanKey(loaded, ["unit", "randomization"])
     }
   ];
 });
@@ -62914,9 +63421,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
   code: "analysis-unit-differs",
   message: `Units are randomized by ${loaded.plan.unit.randomization} but metrics are averaged per ${loaded.plan.unit.analysis}: observations within one ${loaded.plan.unit.randomization} are not independent.`,
   fix: "Compute the variance with the delta method or cluster-robust standard errors, not the naive per-unit formula.",
-  plan: loaded.plan.id,
-  file: loaded.file,
-  line: loaded.line
+  ...atPlanKey(loaded, ["unit", "analysis"])
 }));
 
 // src/core/checks/index.ts
@@ -62939,42 +63444,6 @@ var CHECKS = [
   bugFixUnmeasured
 ];
 
-// src/core/source/closest-name.ts
-function closestName(typed, known) {
-  const wanted = typed.toLowerCase();
-  let best;
-  let bestDistance = Infinity;
-  for (const candidate of known) {
-    const distance = editDistance(wanted, candidate.toLowerCase());
-    if (distance < bestDistance) {
-      best = candidate;
-      bestDistance = distance;
-    }
-  }
-  const tolerance = Math.max(2, Math.floor(typed.length / 3));
-  if (best !== void 0 && bestDistance <= tolerance) return best;
-  return known.find((candidate) => stem(candidate) === stem(typed));
-}
-function stem(name) {
-  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
-}
-function editDistance(a, b) {
-  const rows2 = a.length + 1;
-  const cols = b.length + 1;
-  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
-  for (let i = 1; i < rows2; i++) {
-    for (let j = 1; j < cols; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
-        value = Math.min(value, d[i - 2][j - 2] + 1);
-      }
-      d[i][j] = value;
-    }
-  }
-  return d[a.length][b.length];
-}
-
 // src/core/review/finding.ts
 var FINDING_CODES = {
   "flag-without-plan": { severity: "warn", about: "a changed feature flag has no plan (and is not exempt)" },
@@ -62992,10 +63461,10 @@ var FINDING_CODES = {
   underpowered: { severity: "warn", about: "the planned window gives less than the planned power" },
   "sizing-incomplete": { severity: "note", about: "the plan lacks the figures sizing needs" },
   "sizing-impossible": { severity: "warn", about: "the plan\u2019s figures cannot be sized" },
-  "exposure-diluted": { severity: "warn", about: "exposure is logged before the change is reached" },
+  "exposure-diluted": { severity: "note", about: "exposure is logged before the change is reached; says whether the planned window still suffices (when it does not, underpowered warns)" },
   spillover: { severity: "warn", about: "people randomized one by one on a surface they share" },
   "analysis-unit-differs": { severity: "note", about: "metrics are averaged over another unit than the one randomized" },
-  collision: { severity: "warn", about: "the test overlaps a running test on the same surface" },
+  collision: { severity: "warn", about: "the test overlaps a running test on the same surface; says what isolating them would cost" },
   "known-overlap": { severity: "note", about: "the test overlaps a running test it declares" },
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
@@ -63183,13 +63652,13 @@ function parseUnifiedDiff(text2) {
 }
 
 // src/core/scan/flag-files.ts
-var import_yaml = __toESM(require_dist(), 1);
+var import_yaml2 = __toESM(require_dist(), 1);
 var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
 function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
   } catch {
     return void 0;
   }
@@ -63438,306 +63907,6 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
-// src/core/stats/plan-sizing.ts
-function baselineOf(metric2) {
-  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
-  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
-  return { kind: "ratio", ...metric2.baseline };
-}
-function sizePlan(plan) {
-  const { design } = plan;
-  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
-  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
-  const common = {
-    arms: design.arms,
-    control: design.control,
-    alpha: design.alpha,
-    power: design.power,
-    trafficShare: design.trafficShare,
-    reach: plan.exposure.reach,
-    interimLooks: design.interimLooks,
-    boundary: design.interimBoundary,
-    prePeriodCorrelation: design.prePeriodCorrelation,
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    ...clustered && design.cluster ? { cluster: design.cluster } : {},
-    ...plannedDays !== void 0 ? { plannedDays } : {}
-  };
-  const primary = plan.metrics.primary;
-  const entries = [
-    {
-      metric: primary.name,
-      role: "primary",
-      kind: primary.kind,
-      direction: primary.direction,
-      sides: design.sides,
-      result: sizeMetric({
-        ...common,
-        baseline: baselineOf(primary),
-        direction: primary.direction,
-        sides: design.sides,
-        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
-      })
-    },
-    ...plan.metrics.guardrails.map((metric2) => {
-      const harm = metric2.direction === "increase" ? "decrease" : "increase";
-      return {
-        metric: metric2.name,
-        role: "guardrail",
-        kind: metric2.kind,
-        direction: harm,
-        sides: 1,
-        result: sizeMetric({
-          ...common,
-          baseline: baselineOf(metric2),
-          direction: harm,
-          sides: 1,
-          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
-        })
-      };
-    })
-  ];
-  return {
-    planId: plan.id,
-    ...plannedDays !== void 0 ? { plannedDays } : {},
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    metrics: entries
-  };
-}
-
-// src/core/source/check-written.ts
-function checkWritten(source, schema, jsonSchema, codePrefix) {
-  const parsed = schema.safeParse(source.value);
-  if (parsed.success) return { ok: true, value: parsed.data };
-  const problems = [];
-  for (const issue3 of parsed.error.issues) {
-    problems.push(...issueToProblems(issue3, source, jsonSchema, codePrefix));
-  }
-  return { ok: false, problems: dedupe(problems) };
-}
-function issueToProblems(issue3, source, jsonSchema, codePrefix) {
-  const path6 = issue3.path.filter((p) => typeof p !== "symbol");
-  if (issue3.code === "unrecognized_keys") {
-    const known = knownKeysAt(jsonSchema, source.value, path6);
-    return (issue3.keys ?? []).map((key) => {
-      const suggestion = closestName(key, known);
-      return {
-        severity: "error",
-        code: `${codePrefix}/unknown-key`,
-        ...source.locateKey(path6, key),
-        field: formatFieldPath([...path6, key]),
-        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
-        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
-      };
-    });
-  }
-  if (issue3.code === "invalid_union") {
-    if (issue3.discriminator) {
-      const discriminatorPath = path6[path6.length - 1] === issue3.discriminator ? path6 : [...path6, issue3.discriminator];
-      return [{ ...fieldProblem(issue3, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
-    }
-    const branch = pickUnionBranch(issue3.errors ?? []);
-    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue3.path, ...inner.path] }, source, jsonSchema, codePrefix));
-  }
-  return [fieldProblem(issue3, path6, source, codePrefix)];
-}
-function fieldProblem(issue3, path6, source, codePrefix) {
-  const found = valueAt(source.value, path6);
-  const missing = found === void 0;
-  const customCode = issue3.code === "custom" ? issue3.params?.code : void 0;
-  const message = customCode ? issue3.params?.summary ?? "is not valid" : missing ? "required field is missing" : path6.length === 0 && found === null ? "the file is empty" : summaryFor(issue3);
-  return {
-    severity: "error",
-    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
-    ...source.locate(path6),
-    field: formatFieldPath(path6),
-    message,
-    expected: cleanZodMessage(issue3.message),
-    ...missing ? {} : { found: describeFound(found) }
-  };
-}
-function describeFound(found) {
-  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
-  const described = describeValue(found);
-  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
-}
-function summaryFor(issue3) {
-  switch (issue3.code) {
-    case "invalid_type":
-      return "has the wrong type";
-    case "too_small":
-      return issue3.origin === "array" ? "has too few items" : issue3.origin === "string" ? "is empty" : "is out of range";
-    case "too_big":
-      return issue3.origin === "array" ? "has too many items" : issue3.origin === "string" ? "is too long" : "is out of range";
-    case "invalid_value":
-      return "is not one of the allowed values";
-    case "invalid_format":
-      return "is not in the expected format";
-    default:
-      return "is not valid";
-  }
-}
-function cleanZodMessage(message) {
-  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
-}
-function pickUnionBranch(branches) {
-  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
-  if (shaped.length === 0) return void 0;
-  return shaped.reduce((best, next) => next.length < best.length ? next : best);
-}
-function dedupe(problems) {
-  const seen = /* @__PURE__ */ new Set();
-  return problems.filter((p) => {
-    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
-    if (seen.has(key)) return false;
-    seen.add(key);
-    return true;
-  });
-}
-function formatFieldPath(path6) {
-  return path6.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
-}
-function valueAt(value, path6) {
-  let current = value;
-  for (const segment of path6) {
-    if (current === null || typeof current !== "object") return void 0;
-    current = current[segment];
-  }
-  return current;
-}
-function knownKeysAt(schema, data, path6) {
-  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
-  let nodes = [schema];
-  let current = data;
-  for (const segment of path6) {
-    nodes = nodes.flatMap((n) => branchesFor(n, current));
-    const next = [];
-    for (const node2 of nodes) {
-      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
-      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
-    }
-    nodes = next;
-    current = current !== null && typeof current === "object" ? current[segment] : void 0;
-  }
-  const keys = /* @__PURE__ */ new Set();
-  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
-    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
-  }
-  return [...keys];
-}
-function resolveRef2(root, node2) {
-  const ref = node2.$ref;
-  if (!ref?.startsWith("#/$defs/")) return node2;
-  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
-}
-function unionBranches(node2, data, root) {
-  const options = node2.anyOf ?? node2.oneOf;
-  if (!options) return [node2];
-  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
-  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
-  const matching = all.filter((option) => {
-    if (Array.isArray(data)) return option.items !== void 0;
-    if (!record2) return true;
-    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
-  });
-  return matching.length ? matching : all;
-}
-
-// src/core/source/yaml-source.ts
-var import_yaml2 = __toESM(require_dist(), 1);
-function readYaml(text2, file2, limits, codePrefix) {
-  const fail2 = (line, column, code, message, expected) => ({
-    ok: false,
-    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
-  });
-  const bytes = Buffer.byteLength(text2, "utf8");
-  if (bytes > limits.maxBytes) {
-    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
-  }
-  const lineCounter = new import_yaml2.LineCounter();
-  const doc = (0, import_yaml2.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
-  const firstError = doc.errors[0];
-  if (firstError) {
-    const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
-    if (firstError.code === "DUPLICATE_KEY") {
-      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
-    }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
-  }
-  let complexKeyAt;
-  (0, import_yaml2.visit)(doc, {
-    Pair(_, pair) {
-      if (pair.key !== null && !(0, import_yaml2.isScalar)(pair.key)) {
-        complexKeyAt = pair.key.range?.[0] ?? 0;
-        return import_yaml2.visit.BREAK;
-      }
-      return void 0;
-    }
-  });
-  if (complexKeyAt !== void 0) {
-    const pos = lineCounter.linePos(complexKeyAt);
-    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
-  }
-  let value;
-  try {
-    value = doc.toJS({ maxAliasCount: limits.maxAliases });
-  } catch (error63) {
-    const message = error63 instanceof Error ? error63.message : String(error63);
-    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
-  }
-  const at = (offset) => {
-    const pos = lineCounter.linePos(offset);
-    return { file: file2, line: pos.line, column: pos.col };
-  };
-  const rootOffset = doc.contents?.range[0] ?? 0;
-  const walk2 = (path6) => {
-    let node2 = doc.contents;
-    let depth = 0;
-    for (const segment of path6) {
-      const next = childOf(node2, segment);
-      if (!next) break;
-      node2 = next;
-      depth++;
-    }
-    return { node: node2, depth };
-  };
-  return {
-    ok: true,
-    source: {
-      file: file2,
-      value,
-      locate(path6) {
-        const { node: node2 } = walk2(path6);
-        return at(node2?.range?.[0] ?? rootOffset);
-      },
-      locateKey(path6, key) {
-        const { node: node2, depth } = walk2(path6);
-        if (depth === path6.length && (0, import_yaml2.isMap)(node2)) {
-          const pair = node2.items.find((item) => (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === key);
-          const keyNode = pair && (0, import_yaml2.isScalar)(pair.key) ? pair.key : void 0;
-          if (keyNode?.range) return at(keyNode.range[0]);
-        }
-        return at(node2?.range?.[0] ?? rootOffset);
-      }
-    }
-  };
-}
-function childOf(node2, segment) {
-  if ((0, import_yaml2.isMap)(node2)) {
-    const pair = node2.items.find((item) => (0, import_yaml2.isPair)(item) && (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === String(segment));
-    return pair?.value ?? (pair && (0, import_yaml2.isScalar)(pair.key) ? pair.key : null);
-  }
-  if ((0, import_yaml2.isSeq)(node2) && typeof segment === "number") {
-    return node2.items[segment] ?? null;
-  }
-  return null;
-}
-function plainYamlMessage(message) {
-  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
-}
-
 // src/core/config/schema.ts
 var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
 function compiles(pattern) {
@@ -63900,54 +64069,6 @@ function isYamlFile(path6) {
   return PLAN_EXTENSIONS.some((ext) => path6.toLowerCase().endsWith(ext));
 }
 
-// src/core/source/rule-context.ts
-function runRules(value, source, rules) {
-  const problems = [];
-  const context3 = {
-    value,
-    report({ severity: severity2, code, path: path6, message, expected, showFound }) {
-      const found = showFound ? describeValue(valueAt(source.value, path6)) : void 0;
-      problems.push({
-        severity: severity2,
-        code,
-        ...source.locate(path6),
-        field: formatFieldPath(path6),
-        message,
-        ...expected ? { expected } : {},
-        ...found ? { found } : {}
-      });
-    }
-  };
-  for (const rule of rules) rule(context3);
-  return problems;
-}
-
-// src/core/plan/json-schema.ts
-var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
-var cached2;
-function planJsonSchema() {
-  cached2 ??= {
-    $id: PLAN_SCHEMA_ID,
-    title: "Plumbline experiment plan",
-    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
-  };
-  return cached2;
-}
-
-// src/core/plan/load.ts
-var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
-function loadPlan(text2, file2) {
-  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
-  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
-  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
-  const errors = problems.filter((p) => p.severity === "error");
-  const warnings = problems.filter((p) => p.severity === "warning");
-  if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
-}
-
 // src/core/registry/load.ts
 var REGISTRY_LIMITS = { maxBytes: 4 * 1024 * 1024, maxAliases: 1e3 };
 var cachedJsonSchema2;
@@ -63965,7 +64086,8 @@ function loadRegistryFile(text2, file2) {
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
   if (!checked.ok) return { ok: false, errors: checked.problems };
   const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
-  return { ok: true, entries };
+  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ["tests", index, "surface"]), "registry");
+  return { ok: true, entries, warnings };
 }
 function buildRegistry(plans, extra) {
   const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
@@ -64032,7 +64154,7 @@ async function loadWorkspace(options) {
     }
     const result = loadRegistryFile(text2, file2);
     if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
+    problems.push(...result.ok ? result.warnings : result.errors);
   }
   const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
   problems.push(...registryProblems);
@@ -64144,7 +64266,7 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();
@@ -64203,7 +64325,7 @@ async function reviewPullRequest(options) {
     }
     change2 = api.change;
   }
-  const outcome = await reviewChange({ change: change2, pr: event.info, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
+  const outcome = await reviewChange({ change: change2, pr: event.info, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   if (outcome.kind === "settings-invalid") return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join("\n") };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const markdown = renderReviewMarkdown(review, { link: (path6, line) => `${event.repoUrl}/blob/${review.head}/${encodeURI(path6)}#L${line}`, fullReport: "the job summary" });
@@ -64234,10 +64356,25 @@ var LABEL = {
 };
 function countLine(d) {
   const c = d.counts;
-  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
+  const parts = [
+    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? "its" : "their"} planned end` : "",
+    c["ending-soon"] ? `${formatCount(c["ending-soon"])} ending soon` : "",
+    c["draft-past-start"] ? `${countOf(c["draft-past-start"], "draft")} past ${c["draft-past-start"] === 1 ? "its" : "their"} start` : "",
+    c["long-on-hold"] ? `${formatCount(c["long-on-hold"])} on hold too long` : "",
+    c.collision ? countOf(c.collision, "collision") : "",
+    c["flag-gone"] ? `${countOf(c["flag-gone"], "live test")} with ${c["flag-gone"] === 1 ? "its flag" : "their flags"} gone` : "",
+    c.orphanFlags ? `${countOf(c.orphanFlags, "flag")} in code without a plan` : ""
+  ].filter(Boolean);
+  const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
+  return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
 }
-function ownerHeading(owner2) {
-  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
+function ownersOf(owners, mentioned) {
+  return owners.map((owner2) => {
+    const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
+    if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
+    mentioned.add(owner2.toLowerCase());
+    return owner2;
+  }).join(", ");
 }
 function taskName(id) {
   return id.replace(/[:#;]/g, "-");
@@ -64256,21 +64393,22 @@ function gantt(d) {
     lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
   });
   lines.push("```");
-  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  if (d.timeline.length > shown.length) lines.push("", `${countOf(d.timeline.length - shown.length, "more test")} ${d.timeline.length - shown.length === 1 ? "is" : "are"} not drawn (the list above has them all).`);
   return lines;
 }
-function render2(d, withTimeline, itemsPerOwner) {
+function render2(d, withTimeline, maxTests) {
   const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
-  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
-  for (const { owner: owner2, items } of d.owners) {
-    out.push(ownerHeading(owner2), "");
-    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
-    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
-    out.push("");
+  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  const mentioned = /* @__PURE__ */ new Set();
+  for (const test of d.tests.slice(0, maxTests)) {
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
+    for (const it of test.items) out.push(`  - ${LABEL[it.kind]}: ${safeText(it.detail)}`);
   }
+  if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
+  if (d.tests.length) out.push("");
   if (d.orphanFlags.length) {
     out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${formatCount(d.orphanFlags.length - 50)} more.`);
     out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
   }
   if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
@@ -64278,8 +64416,8 @@ function render2(d, withTimeline, itemsPerOwner) {
   return out.join("\n");
 }
 function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
-  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
-    const body = render2(d, timeline, per);
+  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]]) {
+    const body = render2(d, timeline, tests);
     if (body.length <= limit) return body;
   }
   return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
@@ -64323,15 +64461,15 @@ function buildDigest(input2) {
       const days = daysBetween(end, today);
       const reached = estimateSampleReached(entry, today);
       const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
-      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+      item(entry, "overdue", `Past its planned end (${end}) by ${countOf(days, "day")}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
     } else if (entry.state === "live" && end && end >= today && end <= soon) {
-      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
+      item(entry, "ending-soon", `Ends on ${end}, in ${countOf(daysBetween(today, end), "day")}: prepare the readout.`);
     }
     if (entry.state === "draft" && start && start < today) {
       item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
     }
     if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+      item(entry, "long-on-hold", `On hold, ${countOf(daysBetween(start, today), "day")} after its start: its units and surface stay reserved; resume or conclude it.`);
     }
     if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
       item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
@@ -64344,16 +64482,18 @@ function buildDigest(input2) {
       const pair = [entry.id, c.other.id].sort().join(" ");
       if (seen.has(pair) || c.known) continue;
       seen.add(pair);
-      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${countOf(c.overlapDays, "day")}` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
     }
   }
   const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
-  const byOwner = /* @__PURE__ */ new Map();
   const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  const byTest = /* @__PURE__ */ new Map();
   for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry2.entries.find((e) => e.id === it.test);
-    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
+    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
+    test.items.push(it);
+    byTest.set(it.test, test);
   }
   const counts = {
     overdue: 0,
@@ -64371,7 +64511,8 @@ function buildDigest(input2) {
   return {
     today,
     counts,
-    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
+    // Insertion order is urgency order: a test comes where its most urgent item sorted.
+    tests: [...byTest.values()],
     orphanFlags,
     timeline
   };

@@ -165,7 +165,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
       const cwd = resolve(options.cwd);
       const pr = await pullRequestInfo(flags, cwd);
       const change = await openChange(cwd, flags.base!, flags.head);
-      const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}) });
+      const outcome = await reviewChange({ change, pr, onProgress: output.progress, today: new Date().toISOString().slice(0, 10), ...(options.config ? { settingsPath: options.config } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
       if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });

@@ -27,7 +27,7 @@ export function generatedSchemaFiles(): Record<string, string> {
     'docs/plan-reference.md': renderSchemaReference(
       planJsonSchema(),
       'Plan file reference',
-      'One YAML file per experiment, under `experiments/` by default. Put `# yaml-language-server: $schema=<path to plan.schema.json>` on the first line for completion and checking in editors that use the YAML language server. Keys are kebab-case; dates are `YYYY-MM-DD` (UTC calendar days, both ends included); shares are fractions (0.05 is 5%).',
+      'One YAML file per experiment, under `experiments/` by default. Put `# yaml-language-server: $schema=<path to plan.schema.json>` on the first line for completion and checking in editors that use the YAML language server. Keys are kebab-case; dates are `YYYY-MM-DD` (UTC calendar days, both ends included); shares are fractions (0.05 is 5%), except a traffic-split range, which is in percent of its pool. Renamed keys: `surface.exclusion-group` is now `surface.traffic-split`, and its `slice: { from, to }` is now `range: { start, end }` (same percent values, start included, end excluded); files with the old keys still load, with a `plan/renamed-key` warning at each old key, and the JSON Schema still accepts them, marked deprecated.',
     ),
     'docs/settings-reference.md': renderSchemaReference(
       settingsJsonSchema(),
@@ -38,7 +38,7 @@ export function generatedSchemaFiles(): Record<string, string> {
     'docs/registry-reference.md': renderSchemaReference(
       registryJsonSchema(),
       'Registry file reference',
-      'Lists tests defined outside this repository’s plans (listed under `registries:` in the settings file), so collisions and logging dependencies are checked against them too.',
+      'Lists tests defined outside this repository’s plans (listed under `registries:` in the settings file), so collisions and logging dependencies are checked against them too. Renamed keys: `surface.exclusion-group` is now `surface.traffic-split`, with `range: { start, end }` for `slice: { from, to }`; the old keys still load, with a `registry/renamed-key` warning.',
     ),
   };
 }

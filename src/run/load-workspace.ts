@@ -73,7 +73,7 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
     }
     const result = loadRegistryFile(text, file);
     if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
+    problems.push(...(result.ok ? result.warnings : result.errors));
   }
 
   const { registry, problems: registryProblems } = buildRegistry(plans, extra);

@@ -21,6 +21,8 @@ export interface ReviewChangeOptions {
   settingsPath?: string;
   pr?: PullRequestInfo;
   onProgress?: ProgressReporter;
+  /** Today as YYYY-MM-DD (UTC), for dates the review proposes, such as a check test's window. */
+  today?: string;
 }
 
 export type ReviewOutcome =
@@ -105,7 +107,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }
 
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...(options.today ? { today: options.today } : {}) },
     { base: change.base, head: change.head },
   );
   const stats = scanner.stats();

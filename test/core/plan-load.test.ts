@@ -1,6 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import { parse } from 'yaml';
 import { loadPlan } from '../../src/core/plan/load.js';
+import { loadRegistryFile } from '../../src/core/registry/load.js';
 import type { Problem } from '../../src/core/source/problem.js';
 
 const fixture = (name: string) => readFileSync(new URL(`../fixtures/plans/${name}`, import.meta.url), 'utf8');
@@ -44,7 +47,7 @@ describe('loadPlan accepts valid plans', () => {
     if (!result.ok) return;
     const { plan } = result.loaded;
     expect(plan.hypothesis).toEqual({ change: 'Two changes shipped together.', because: 'They only make sense together.', direction: 'decrease' });
-    expect(plan.surface.exclusionGroup).toEqual({ name: 'board-core', slice: { from: 0, to: 40 } });
+    expect(plan.surface.trafficSplit).toEqual({ name: 'board-core', range: { start: 0, end: 40 } });
     expect(plan.design).toMatchObject({
       control: 'baseline',
       alpha: 0.01,
@@ -64,7 +67,7 @@ describe('loadPlan accepts valid plans', () => {
     expect(result.warnings).toEqual([]);
   });
 
-  it('takes the traffic share from the exclusion-group slice when none is written', () => {
+  it('takes the traffic share from the traffic-split range when none is written', () => {
     const text = fixture('valid/full.yaml').replace('  traffic-share: 0.4\n', '');
     const result = loadPlan(text, 'full.yaml');
     expect(result.ok && result.loaded.plan.design.trafficShare).toBe(0.4);
@@ -143,8 +146,8 @@ describe('cross-field rules', () => {
   it.each([
     ['a control arm that is not an arm', base.replace('control: baseline', 'control: nobody'), 'error:plan/unknown-control-arm:design.control'],
     ['an arm listed twice', base.replace('name: roomy', 'name: compact'), 'error:plan/duplicate-arm:design.arms[2].name'],
-    ['an empty slice', base.replace('slice: { from: 0, to: 40 }', 'slice: { from: 40, to: 40 }'), 'error:plan/empty-slice:surface.exclusion-group.slice'],
-    ['more traffic than the slice', base.replace('traffic-share: 0.4', 'traffic-share: 0.5'), 'error:plan/traffic-beyond-slice:design.traffic-share'],
+    ['an empty range', base.replace('range: { start: 0, end: 40 }', 'range: { start: 40, end: 40 }'), 'error:plan/empty-range:surface.traffic-split.range'],
+    ['more traffic than the range', base.replace('traffic-share: 0.4', 'traffic-share: 0.5'), 'error:plan/traffic-beyond-range:design.traffic-share'],
     ['a metric name used twice', base.replace('name: boards-shared', 'name: time-to-first-card'), 'error:plan/duplicate-metric:metrics.secondary[0].name'],
     ['a guardrail with no direction', base.replace('      direction: decrease\n      tolerance', '      tolerance'), 'warning:plan/direction-assumed:metrics.guardrails[0].direction'],
     ['a guardrail with no tolerance', base.replace('      tolerance: { absolute: 0.01 }\n', ''), 'warning:plan/tolerance-missing:metrics.guardrails[0].tolerance'],
@@ -166,6 +169,77 @@ describe('cross-field rules', () => {
   it('does not ask for win, flat and loss rules when the plan launches regardless', () => {
     const text = base.replace(/  win: .*\n  flat: .*\n  loss: .*\n/, '');
     expect(codesFor(text).filter((c) => c.includes('decisions-missing'))).toEqual([]);
+  });
+});
+
+describe('renamed keys', () => {
+  const full = fixture('valid/full.yaml');
+  const oldStyle = full.replace('traffic-split: { name: board-core, range: { start: 0, end: 40 } }', 'exclusion-group: { name: board-core, slice: { from: 0, to: 40 } }');
+
+  it('still loads surface.exclusion-group, as the same traffic split, with a warning at the key naming traffic-split', () => {
+    expect(oldStyle).not.toBe(full);
+    const result = loadPlan(oldStyle, 'old.yaml');
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const current = loadPlan(full, 'full.yaml');
+    expect(result.loaded.plan).toEqual(current.ok && current.loaded.plan);
+    expect(result.warnings).toEqual([
+      expect.objectContaining({
+        severity: 'warning',
+        code: 'plan/renamed-key',
+        file: 'old.yaml',
+        line: 15,
+        column: 3,
+        field: 'surface.exclusion-group',
+        message: expect.stringMatching(/"exclusion-group" is the old name of "traffic-split".*range: \{ start, end \}/),
+        expected: 'traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }',
+      }),
+    ]);
+  });
+
+  it('refuses both names at once, at the old one', () => {
+    const both = full.replace('  traffic-split:', '  exclusion-group: { name: board-core, slice: { from: 0, to: 40 } }\n  traffic-split:');
+    const result = loadPlan(both, 'both.yaml');
+    expect(result.ok).toBe(false);
+    expect(result.ok ? [] : result.errors.map((p) => `${p.code}:${p.field}:${p.line}:${p.expected}`)).toEqual([
+      expect.stringMatching(/^plan\/invalid-value:surface\.exclusion-group:15:traffic-split only; exclusion-group is its old name/),
+    ]);
+  });
+
+  it('still loads the old key in a registry file, with a warning at each entry’s key', () => {
+    const text = [
+      'tests:',
+      '  - id: partner-banner',
+      '    title: Banner',
+      '    owners: ["@partners"]',
+      '    state: live',
+      '    flags: [banner]',
+      '    surface: { path: checkout, exclusion-group: { name: checkout-core, slice: { from: 50, to: 100 } } }',
+    ].join('\n');
+    const result = loadRegistryFile(text, 'registry/partners.yaml');
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    expect(result.entries[0]?.surface.trafficSplit).toEqual({ name: 'checkout-core', range: { start: 50, end: 100 } });
+    expect(result.warnings.map((w) => `${w.file}:${w.line}:${w.column}:${w.code}:${w.field}`)).toEqual([
+      'registry/partners.yaml:7:32:registry/renamed-key:tests[0].surface.exclusion-group',
+    ]);
+    const current = loadRegistryFile(text.replace('exclusion-group: { name: checkout-core, slice: { from: 50, to: 100 } }', 'traffic-split: { name: checkout-core, range: { start: 50, end: 100 } }'), 'x.yaml');
+    expect(current.ok && current.warnings).toEqual([]);
+  });
+
+  it('keeps the old key in the committed JSON Schema, marked deprecated, so editors accept old files', () => {
+    // Ajv (an independent JSON Schema implementation) reads the committed schema, not the zod one.
+    const schema = JSON.parse(readFileSync(new URL('../../schema/plan.schema.json', import.meta.url), 'utf8'));
+    const validate = new Ajv2020({ strict: false }).compile(schema);
+    expect(validate(parse(oldStyle))).toBe(true);
+    expect(validate(parse(full))).toBe(true);
+    expect(schema.properties.surface.properties['exclusion-group'].deprecated).toBe(true);
+    expect(schema.properties.surface.properties['traffic-split'].deprecated).toBeUndefined();
+  });
+
+  it('treats ranges as half-open: [0, 50) and [50, 100) take no unit twice', () => {
+    const empty = loadPlan(full.replace('range: { start: 0, end: 40 }', 'range: { start: 40, end: 40 }'), 'x.yaml');
+    expect(empty.ok).toBe(false);
   });
 });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildDigest } from '../../src/core/digest/build-digest.js';
 import { defaultSettings } from '../../src/core/config/load.js';
-import { DIGEST_END, DIGEST_MARKER, DIGEST_START, TIMELINE_LIMIT, mergeDigestBody, renderDigestMarkdown } from '../../src/core/report/digest-markdown.js';
+import { DIGEST_END, DIGEST_MARKER, DIGEST_START, TIMELINE_LIMIT, countLine, mergeDigestBody, renderDigestMarkdown, renderDigestText } from '../../src/core/report/digest-markdown.js';
 import { loadPlan } from '../../src/core/plan/load.js';
 import { buildRegistry } from '../../src/core/registry/load.js';
 import { todayIn } from '../../src/run/digest.js';
@@ -32,7 +32,7 @@ describe('buildDigest', () => {
     ['two live tests colliding', [cleanPlan(), cleanPlan({ id: 'other', flags: ['good-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' } })], '2026-11-10', 'collision', /alongside other/],
   ])('%s', async (name, plans, today, kind, detail) => {
     const digest = digestOf(plans, today, kind === 'flag-gone' ? [] : ['good-flag']);
-    const items = digest.owners.flatMap((o) => o.items).filter((i) => i.kind === kind);
+    const items = digest.tests.flatMap((t) => t.items).filter((i) => i.kind === kind);
     expect(items.length).toBeGreaterThan(0);
     expect(items[0]!.detail).toMatch(detail);
     expect(digest.counts[kind as 'overdue']).toBeGreaterThan(0);
@@ -50,7 +50,7 @@ describe('buildDigest', () => {
     ['colliding tests that declare the overlap', [cleanPlan({ surface: { path: 'shop/cart', 'overlaps-with': ['other'] } }), cleanPlan({ id: 'other', owners: ['@owner-two'] })], '2026-11-10', 'collision'],
   ])('near miss: %s', (_name, plans, today, kind) => {
     const digest = digestOf(plans, today, kind === 'flag-gone' ? [] : ['good-flag']);
-    expect(digest.owners.flatMap((o) => o.items).filter((i) => i.kind === kind)).toEqual([]);
+    expect(digest.tests.flatMap((t) => t.items).filter((i) => i.kind === kind)).toEqual([]);
   });
 
   it('lists flag keys in code that no plan or exemption covers', () => {
@@ -74,6 +74,32 @@ describe('the digest issue body', () => {
     expect(body.match(/(^|\s)@owner-two\b/g)).toHaveLength(1);
     expect(body.startsWith(`${DIGEST_MARKER}\n${DIGEST_START}`)).toBe(true);
     expect(body.endsWith(DIGEST_END)).toBe(true);
+  });
+
+  it('lists a test with two owners once, owners beside it, each owner mentioned once across tests', () => {
+    const plans = [
+      cleanPlan({ owners: ['@owner-one', '@team/two'] }),
+      cleanPlan({ id: 'other', flags: ['good-flag'], owners: ['@team/two'], surface: { path: 'shop/search' } }),
+    ];
+    const digest = digestOf(plans, '2026-12-02');
+    expect(digest.tests.map((t) => `${t.id}:${t.owners.join(',')}:${t.items.map((i) => i.kind).join(',')}`)).toEqual(['good:@owner-one,@team/two:overdue', 'other:@team/two:overdue']);
+    const body = renderDigestMarkdown(digest);
+    expect(body.match(/`good`/g)).toHaveLength(1);
+    expect(body).toMatch(/^- \*\*`good`\*\* Good test · @owner-one, @team\/two · `experiments\/p0\.yaml:1`\n {2}- ⏰ past its end: Past its planned end \(2026-11-29\) by 3 days/m);
+    // The second time @team/two appears it is inert text (a zero-width space after the @), so nobody is notified twice.
+    expect(body.match(/(^|\s)@team\/two\b/g)).toHaveLength(1);
+    expect(body).toContain('@\u200bteam/two');
+    const text = renderDigestText(digest);
+    expect(text.match(/^good /gm)).toHaveLength(1);
+  });
+
+  it('leaves zero counts out of the headline and gets singular and plural right', () => {
+    const one = digestOf([cleanPlan({ state: 'draft' })], '2026-11-05');
+    expect(countLine(one)).toBe('1 draft past its start — 1 draft');
+    const two = digestOf([cleanPlan(), cleanPlan({ id: 'other', flags: ['good-flag'], surface: { path: 'shop/search' } })], '2026-12-02');
+    expect(countLine(two)).toBe('2 past their planned end — 2 live');
+    const quiet = digestOf([cleanPlan({ state: 'concluded' })], '2026-12-02');
+    expect(countLine(quiet)).toBe('nothing needs attention — no live tests or drafts');
   });
 
   it('keeps the timeline readable with 100+ tests and stays under the limit', () => {

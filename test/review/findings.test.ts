@@ -9,12 +9,13 @@ import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+// Many repositories are made; removing them on a busy machine can take longer than the default hook limit.
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 120_000);
 
-async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}): Promise<Review> {
+async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr });
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr, ...(today ? { today } : {}) });
   if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
   return outcome.review;
 }
@@ -104,8 +105,9 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
   collision: {
     trigger: { files: baseFiles({ 'experiments/other.yaml': other({}) }), changes: withPlan(cleanPlan()) },
     nearMiss: {
-      files: baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/cart/total', 'exclusion-group': { name: 'cart', slice: { from: 50, to: 100 } } } }) }),
-      changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'exclusion-group': { name: 'cart', slice: { from: 0, to: 50 } } } })),
+      // Half-open ranges: [50, 100) and [0, 50) share no unit.
+      files: baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/cart/total', 'traffic-split': { name: 'cart', range: { start: 50, end: 100 } } } }) }),
+      changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'traffic-split': { name: 'cart', range: { start: 0, end: 50 } } } })),
     },
   },
   'known-overlap': {
@@ -218,12 +220,84 @@ describe('the bug-fix nudge', () => {
     expect((await review(baseFiles(), { 'config/app.json': '{}\n' }, { title: 'fix: cart' })).nudge).toBeUndefined();
   });
 
-  it('carries a plan stub that loads, and a sizing line from the configured guardrail and traffic', async () => {
+  it('leads with what two weeks can detect, and sizes a 1% regression from the configured guardrail and traffic', async () => {
     const settings = 'bug-fix:\n  guardrail: { name: checkout-errors, rate: 0.02, events: [checkout_error] }\n  daily-units: 40000\n';
     const r = await review(baseFiles({ '.plumbline.yml': settings }), product, { title: 'fix: totals', branch: 'fix/totals' });
-    expect(r.nudge?.sizingLine).toMatch(/^To detect a 1% relative regression in checkout-errors \(2\.00% → 2\.02%\) at 40,000 eligible units a day: [\d,]+ units per arm, \d+ days \(\d+ weeks\), one-sided α 0\.05, power 80%\. Two weeks would catch a rise to [\d.]+% \(\+[\d.]+% relative\)\.$/);
+    expect(r.nudge?.twoWeeksLine).toMatch(/^In two weeks at 40,000 eligible units a day, half of them getting the fix, a check test would catch checkout-errors rising from 2\.00% to 2\.\d\d% \(\+[\d.]+% relative; one-sided α 0\.05, power 80%\)\.$/);
+    const { renderReviewMarkdown } = await import('../../src/core/report/review-markdown.js');
+    const note = renderReviewMarkdown(r).split('#### A small check test for this fix?')[1] ?? '';
+    // The two-week figure comes first; the 1% sizing sits inside a collapsed <details>.
+    expect(note.trimStart().startsWith('In two weeks at 40,000')).toBe(true);
+    expect(note).toMatch(/<details><summary>What it takes to catch a 1% regression<\/summary>\n\nTo catch a 1% relative regression[^\n]*\n\n<\/details>/);
+    expect(r.nudge?.sizingLine).toMatch(/^To catch a 1% relative regression in checkout-errors \(2\.00% → 2\.02%\) at 40,000 eligible units a day, half of them getting the fix: [\d,]+ units per arm, \d+ weeks \([\d,]+ days\); one-sided α 0\.05, power 80%\.$/);
+  });
+
+  it('carries a plan stub with a two-week window that the real plan loader takes without a warning', async () => {
+    const r = await review(baseFiles(), product, { title: 'fix: totals', branch: 'fix/totals' }, '2026-12-02');
+    expect(r.nudge?.planStub).toContain('window: { start: 2026-12-02, end: 2026-12-15 }');
     const { loadPlan } = await import('../../src/core/plan/load.js');
-    const loaded = loadPlan(r.nudge!.planStub, 'stub.yaml');
+    const loaded = loadPlan(r.nudge!.planStub, 'experiments/check-fix-totals.yaml');
     expect(loaded.ok ? [] : loaded.errors).toEqual([]);
+    expect(loaded.warnings).toEqual([]);
+    expect(loaded.ok && loaded.loaded.plan.window).toEqual({ start: '2026-12-02', end: '2026-12-15' });
+  });
+});
+
+describe('plan findings point at the key the fix goes to, not at the id line', () => {
+  /** 1-based line of the first line of `text` matching `pattern`, found by plain text search. */
+  const lineOf = (text: string, pattern: RegExp) => text.split('\n').findIndex((l) => pattern.test(l)) + 1;
+  const cases: [string, string, Record<string, unknown>, RegExp, Record<string, string>?][] = [
+    ['decisions-missing', 'the decisions: line', { decisions: { win: 'Ship.' } }, /^decisions:/],
+    ['end-missing', 'the window: line', { window: { start: '2026-11-02' } }, /^window:/],
+    ['window-short', 'window.end', { window: { start: '2026-11-02', end: '2026-11-06' } }, /^ {2}end: /],
+    ['reason-missing', 'the hypothesis: line', { hypothesis: { change: 'A clearer cart.', 'expected-direction': 'increase' } }, /^hypothesis:/],
+    ['exposure-diluted', 'exposure.reach', { exposure: { event: 'cart_viewed', reach: 0.5 } }, /^ {2}reach: /],
+    ['underpowered', 'the metric', { design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 300 } }, /^ {2}primary:/],
+    ['event-missing', 'exposure.event', { exposure: { event: 'never_logged' } }, /^ {2}event: never_logged/],
+    ['review-missing', 'the sensitive item', { sensitive: [{ area: 'pricing' }] }, /^ {2}- area: pricing/],
+    ['collision', 'the surface: line', {}, /^surface:/, { 'experiments/other.yaml': other({}) }],
+  ];
+  it.each(cases)('%s points at %s', async (code, _key, overrides, pattern, extra) => {
+    const text = planYaml(cleanPlan(overrides));
+    const expected = lineOf(text, pattern);
+    expect(expected).toBeGreaterThan(lineOf(text, /^id:/));
+    const r = await review(baseFiles(extra ?? {}), withPlan(cleanPlan(overrides)));
+    const finding = r.findings.find((f) => f.code === code);
+    expect(finding).toMatchObject({ file: 'experiments/good.yaml', line: expected });
+  });
+});
+
+describe('collision and dilution texts', () => {
+  it('says what isolating would cost, from the sizing engine, and does not push isolation blindly', async () => {
+    // The running test takes every unit: isolating means splitting traffic with it, so this test
+    // gets half the units and needs twice the days (durations round up to whole days).
+    const r = await review(baseFiles({ 'experiments/other.yaml': other({}) }), withPlan(cleanPlan()));
+    const collision = r.findings.find((f) => f.code === 'collision')!;
+    const now = r.plans[0]!.sizing.metrics.map((m) => (m.result.ok ? m.result.value.headline?.duration?.days ?? 0 : 0));
+    const days = Math.max(...now);
+    expect(collision.message).toMatch(new RegExp(`Isolating would cost this test time: splitting traffic with other \\(which would restart it\\), \\d+ weeks? → \\d+ weeks? \\(${days} → (${2 * days - 1}|${2 * days}) days\\)\\.`));
+    expect(collision.message).toMatch(/usually just share units.*it matters when both change the same elements/);
+    expect(collision.fix).toMatch(/^Agree with @owner-two whether the two interact\. If they do, isolate them .*; if not, declare the overlap under surface\.overlaps-with/);
+    expect(collision.message).not.toMatch(/exclusion|slice/i);
+  });
+
+  it('says isolating costs nothing when the running test leaves enough units free', async () => {
+    const r = await review(baseFiles({ 'experiments/other.yaml': other({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'traffic-share': 0.5 } }) }), withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'traffic-share': 0.5 } })));
+    expect(r.findings.find((f) => f.code === 'collision')?.message).toMatch(/Isolating costs this test nothing: other leaves 50% of eligible units free, enough for this test’s 50%/);
+  });
+
+  it('makes exposure-diluted a note that says the planned window still suffices when power at the end is met', async () => {
+    const r = await review(baseFiles(), withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 0.5 } })));
+    const diluted = r.findings.find((f) => f.code === 'exposure-diluted')!;
+    expect(diluted.severity).toBe('note');
+    expect(diluted.message).toMatch(/The planned 28 days still suffice: every metric reaches at least [\d.>]+% power by the end\./);
+    expect(r.findings.map((f) => f.code)).not.toContain('underpowered');
+  });
+
+  it('says the window no longer suffices when dilution costs the power, and underpowered carries the warning', async () => {
+    const r = await review(baseFiles(), withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 0.2 } })));
+    const diluted = r.findings.find((f) => f.code === 'exposure-diluted')!;
+    expect(diluted.message).toMatch(/The planned 28 days do not suffice: the weakest metric reaches [\d.]+% power by the end, below the planned 80\.0%\./);
+    expect(r.findings.find((f) => f.code === 'underpowered')?.severity).toBe('warn');
   });
 });

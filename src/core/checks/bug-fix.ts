@@ -1,6 +1,7 @@
 import picomatch from 'picomatch';
 import type { Settings } from '../config/schema.js';
-import { formatCount, formatRate, formatRelative } from '../report/numbers.js';
+import { addDays } from '../calendar.js';
+import { countOf, formatCount, formatRate, formatRelative, formatWeeks } from '../report/numbers.js';
 import type { Check, PullRequestInfo, ReviewContext } from '../review/context.js';
 import { sizeMetric } from '../stats/sizing.js';
 
@@ -24,9 +25,14 @@ export interface BugFixNudge {
   reason: string;
   productFiles: string[];
   planStub: string;
-  /** "n units per arm and d days to detect ..." when the settings name a guardrail and traffic. */
+  /** What a two-week check test would catch, when the settings name a guardrail and traffic: said first. */
+  twoWeeksLine?: string;
+  /** Units and time to catch a 1% relative regression: the detail behind the two-week line. */
   sizingLine?: string;
 }
+
+/** A check test runs two whole weeks: long enough to see each weekday twice, short enough for a fix. */
+const CHECK_TEST_DAYS = 14;
 
 export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
   const settings = context.settings.bugFix;
@@ -40,6 +46,7 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
   if (productFiles.length === 0) return undefined;
   const guardrail = settings.guardrail;
   let sizingLine: string | undefined;
+  let twoWeeksLine: string | undefined;
   if (guardrail && settings.dailyUnits !== undefined) {
     const harm = guardrail.direction === 'decrease' ? 'increase' : 'decrease';
     const sized = sizeMetric({
@@ -60,13 +67,17 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
       interimLooks: 0,
       boundary: 'obrien-fleming-spending',
       prePeriodCorrelation: 0,
-      plannedDays: 14,
+      plannedDays: CHECK_TEST_DAYS,
     });
     if (sized.ok && sized.value.headline && sized.value.effect) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
-      const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : '';
-      sizingLine = `To detect a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} → ${formatRate(sized.value.effect.to)}) at ${formatCount(settings.dailyUnits)} eligible units a day: ${formatCount(h.perArm[0]!.units)} units per arm, ${h.duration ? `${h.duration.days} days (${h.duration.weeks} weeks)` : 'no duration'}, one-sided α 0.05, power 80%.${inTwoWeeks}`;
+      const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
+      const test = 'one-sided α 0.05, power 80%';
+      if (twoWeeks) {
+        twoWeeksLine = `In two weeks at ${traffic}, a check test would catch ${guardrail.name} ${harm === 'increase' ? 'rising' : 'falling'} from ${formatRate(guardrail.rate)} to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative; ${test}).`;
+      }
+      sizingLine = `To catch a 1% relative regression in ${guardrail.name} (${formatRate(guardrail.rate)} → ${formatRate(sized.value.effect.to)}) at ${traffic}: ${countOf(h.perArm[0]!.units, 'unit')} per arm, ${h.duration ? formatWeeks(h.duration) : 'no duration'}; ${test}.`;
     }
   }
   const slug = (context.pr.branch ?? 'bug-fix').toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 40) || 'bug-fix';
@@ -77,6 +88,7 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
     'owners: ["@your-handle"]',
     `flags: [${slug}]`,
     'state: draft',
+    ...(context.today ? [`window: { start: ${context.today}, end: ${addDays(context.today, CHECK_TEST_DAYS - 1)} }   # two whole weeks`] : []),
     'hypothesis:',
     '  change: The fix, behind a flag, for half of the traffic.',
     '  because: It should stop the bug without harming anything else.',
@@ -101,7 +113,7 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
     '  loss: Turn the flag off and look again at the fix.',
     '  guardrail-breach: Turn the flag off at once.',
   ].join('\n');
-  return { reason, productFiles, planStub, ...(sizingLine ? { sizingLine } : {}) };
+  return { reason, productFiles, planStub, ...(twoWeeksLine ? { twoWeeksLine } : {}), ...(sizingLine ? { sizingLine } : {}) };
 }
 
 export const bugFixUnmeasured: Check = (context) => {

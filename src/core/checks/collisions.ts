@@ -1,6 +1,10 @@
 import { daysBetween } from '../calendar.js';
 import { entryFromPlan, type RegistryEntry } from '../registry/schema.js';
-import type { Check } from '../review/context.js';
+import { countOf, formatCount, formatMultiplier } from '../report/numbers.js';
+import type { Check, LinkedPlan } from '../review/context.js';
+import { sizePlan } from '../stats/plan-sizing.js';
+import { atPlanKey } from './plan-key.js';
+import { lengthSetter } from './test-length.js';
 import { isSameOrBelow, surfacesMeet } from './surfaces.js';
 
 /** How two tests overlap: where, when, whom and how much traffic they share. */
@@ -38,11 +42,11 @@ function windowOverlap(a: RegistryEntry['window'], b: RegistryEntry['window']): 
 }
 
 function sharedTraffic(a: RegistryEntry, b: RegistryEntry): number {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
+  const ga = a.surface.trafficSplit;
+  const gb = b.surface.trafficSplit;
   if (ga && gb && ga.name === gb.name) {
-    // One group's units are split once, so slices either overlap or not at all.
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    // One pool's units are divided once, so half-open ranges either overlap or not at all.
+    const overlap = Math.min(ga.range.end, gb.range.end) - Math.max(ga.range.start, gb.range.start);
     return Math.max(0, overlap) / 100;
   }
   // Independent assignments: a unit is in both with the product of the shares.
@@ -90,21 +94,43 @@ export function collisionsOfLinked(context: Parameters<Check>[0]): { plan: strin
 }
 
 const list = (values: string[] | 'all') => (values === 'all' ? 'everyone' : values.join(', '));
+const percent = (share: number) => `${Math.round(share * 100)}%`;
+
+/**
+ * What isolating the subject from a running test would cost it. The running test keeps its units
+ * (re-dividing a live test would restart it), so the subject can take only what the other leaves
+ * free; when the other takes everyone, the two would have to divide the pool afresh.
+ */
+export function isolationCost(subject: LinkedPlan, other: RegistryEntry): string {
+  const { plan } = subject.loaded;
+  const wanted = plan.design.trafficShare;
+  const free = 1 - other.trafficShare;
+  if (free >= wanted - 1e-9) {
+    return `Isolating costs this test nothing: ${other.id} leaves ${percent(free)} of eligible units free, enough for this test’s ${percent(wanted)} in a traffic split.`;
+  }
+  const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
+  const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
+  const now = lengthSetter(subject.sizing);
+  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  if (now && isolated) {
+    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, 'week')} → ${countOf(isolated.duration.weeks, 'week')} (${formatCount(now.duration.days)} → ${countOf(isolated.duration.days, 'day')}).`;
+  }
+  return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} → ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
+}
 
 export const collisionCheck: Check = (context) =>
   collisionsOfLinked(context).map(({ plan, collision: c }) => {
     const linked = context.linked.find((l) => l.loaded.plan.id === plan)!;
     const where = c.surface === 'same' ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === 'above' ? 'which contains this surface' : 'inside this surface'}`;
-    const when = c.overlapDays !== undefined ? `${c.overlapDays} days (${c.overlapWindow!.start} to ${c.overlapWindow!.end})` : 'an unknown stretch (a window is not set)';
-    const message = `Overlaps ${c.other.id} (${c.other.owners.join(', ')}) on ${where} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
+    const when = c.overlapDays !== undefined ? `${countOf(c.overlapDays, 'day')} (${c.overlapWindow!.start} to ${c.overlapWindow!.end})` : 'an unknown stretch (a window is not set)';
+    const message = `Overlaps ${c.other.id} (${c.other.owners.join(', ')}) on ${where} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
+    const at = atPlanKey(linked.loaded, ['surface']);
     return c.known
-      ? { code: 'known-overlap', message: `${message} Both tests declare this overlap.`, fix: 'Check for an interaction between the two when reading out.', plan, file: linked.loaded.file, line: linked.loaded.line }
+      ? { code: 'known-overlap', message: `${message} Both tests declare this overlap.`, fix: 'Check for an interaction between the two when reading out.', ...at }
       : {
           code: 'collision',
-          message,
-          fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(', ')}.`,
-          plan,
-          file: linked.loaded.file,
-          line: linked.loaded.line,
+          message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
+          fix: `Agree with ${c.other.owners.join(', ')} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
+          ...at,
         };
   });

@@ -2,6 +2,7 @@ import { eventsOfPlan, type RegistryEntry } from '../registry/schema.js';
 import type { Check, ReviewContext } from '../review/context.js';
 import type { Location } from '../scan/name-scan.js';
 import { runningEntries } from './collisions.js';
+import { atPlanKey, metricPath } from './plan-key.js';
 
 /** Where each event of a plan is logged at head: a logging call first, else a quoted string, else nowhere. */
 export interface EventStatus {
@@ -36,9 +37,7 @@ export const eventMissing: Check = (context) =>
         code: 'event-missing',
         message: `Event \`${s.event}\` (${s.roles.join(', ')}) is not logged anywhere in the code at head, so the ${s.roles.includes('exposure') ? 'exposure' : 'metric'} cannot be computed.`,
         fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
-        plan: loaded.plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, s.roles[0] === 'exposure' ? ['exposure', 'event'] : [...metricPath(loaded.plan, s.roles[0] ?? ''), 'events']),
       })),
   );
 

@@ -1,6 +1,8 @@
 import { inclusiveDays } from '../calendar.js';
 import { missingDecisions } from '../plan/rules.js';
 import type { Check } from '../review/context.js';
+import { atPlanKey } from './plan-key.js';
+import { countOf } from '../report/numbers.js';
 import { formatProblem } from '../source/problem.js';
 
 /** A plan file the change adds or edits must load: its problems block until fixed. */
@@ -9,7 +11,7 @@ export const planInvalid: Check = ({ invalidPlanFiles }) =>
     const errors = problems.filter((p) => p.severity === 'error');
     return {
       code: 'plan-invalid',
-      message: `${file} cannot be used: ${errors.length} error${errors.length === 1 ? '' : 's'}, first: ${formatProblem(errors[0]!)}`,
+      message: `${file} cannot be used: ${countOf(errors.length, 'error')}, first: ${formatProblem(errors[0]!)}`,
       fix: 'Run plumbline validate and fix each error.',
       file,
       line: errors[0]?.line ?? 1,
@@ -26,9 +28,7 @@ export const decisionsMissing: Check = ({ linked }) =>
         code: 'decisions-missing',
         message: `No decision rule for ${missing.join(', ')}: without rules written before the data arrives, the result gets read to fit what people hoped.`,
         fix: `Add under decisions: ${missing.map((m) => `${m}: "what you will do"`).join('; ')}.`,
-        plan: loaded.plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, ['decisions']),
       },
     ];
   });
@@ -40,9 +40,7 @@ export const reasonMissing: Check = ({ linked }) =>
       code: 'reason-missing',
       message: 'The hypothesis says what changes but not why it should work.',
       fix: 'Add hypothesis.because: the mechanism you expect, so a flat or negative result teaches something.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['hypothesis']),
     }));
 
 export const guardrailsMissing: Check = ({ linked }) =>
@@ -52,25 +50,23 @@ export const guardrailsMissing: Check = ({ linked }) =>
       code: 'guardrails-missing',
       message: 'No guardrail metric: harm elsewhere (errors, latency, cancellations) would go unseen.',
       fix: 'Add metrics.guardrails with a direction and a tolerance each.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['metrics', 'guardrails']),
     }));
 
 export const windowChecks: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) => {
     const { start, end } = loaded.plan.window;
-    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+    const at = atPlanKey(loaded, ['window', 'end']);
     if (!end) {
       return [{ code: 'end-missing', message: 'No planned end date: tests without one run on, and get peeked at until something looks significant.', fix: 'Add window.end.', ...at }];
     }
     if (!start) return [];
     const days = inclusiveDays(start, end);
     if (days < 7) {
-      return [{ code: 'window-short', message: `The window is ${days} day${days === 1 ? '' : 's'}: less than a week misses weekly cycles.`, fix: 'Plan at least 7 days, in whole weeks.', ...at }];
+      return [{ code: 'window-short', message: `The window is ${countOf(days, 'day')}: less than a week misses weekly cycles.`, fix: 'Plan at least 7 days, in whole weeks.', ...at }];
     }
     if (days % 7 !== 0) {
-      return [{ code: 'window-partial-week', message: `The window is ${days} days, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${Math.ceil(days / 7) * 7} days.`, ...at }];
+      return [{ code: 'window-partial-week', message: `The window is ${countOf(days, 'day')}, not a whole number of weeks, so some weekdays count more than others.`, fix: `Make it ${countOf(Math.ceil(days / 7) * 7, 'day')} (${countOf(Math.ceil(days / 7), 'week')}).`, ...at }];
     }
     return [];
   });
@@ -78,14 +74,13 @@ export const windowChecks: Check = ({ linked }) =>
 export const reviewMissing: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) =>
     loaded.plan.sensitive
+      .map((s, index) => ({ ...s, index }))
       .filter((s) => !s.review)
       .map((s) => ({
         code: 'review-missing',
         message: `The plan touches ${s.area}, but names no review for it. Tests in this area can hurt people; Plumbline cannot judge that, and defers to local law and to the people licensed to.`,
         fix: `Name the review under sensitive (review: ...) and get it before launch: ${REVIEW_HINT[s.area]}.`,
-        plan: loaded.plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, ['sensitive', s.index]),
       })),
   );
 
@@ -106,18 +101,15 @@ export const bundleUnexplained: Check = ({ linked }) =>
       code: 'bundle-unexplained',
       message: `The plan bundles ${loaded.plan.flags.length} flags (${loaded.plan.flags.join(', ')}): a result will not say which change caused it.`,
       fix: 'Add bundle-rationale, or split the plan.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['flags']),
     }));
 
 export const populationChecks: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) => {
     const { platforms, locales, ready } = loaded.plan.population;
-    const at = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
     const missing = [platforms.length ? '' : 'platforms', locales.length ? '' : 'locales'].filter(Boolean);
     if (missing.length) {
-      return [{ code: 'population-undeclared', message: `The population does not declare ${missing.join(' or ')}.`, fix: `Add population.${missing.join(' and population.')}.`, ...at }];
+      return [{ code: 'population-undeclared', message: `The population does not declare ${missing.join(' or ')}.`, fix: `Add population.${missing.join(' and population.')}.`, ...atPlanKey(loaded, ['population']) }];
     }
     const notReady = [...platforms.filter((p) => !ready.platforms.includes(p)), ...locales.filter((l) => !ready.locales.includes(l))];
     if (notReady.length === 0) return [];
@@ -126,7 +118,7 @@ export const populationChecks: Check = ({ linked }) =>
         code: 'readiness-missing',
         message: `The change is not declared ready on ${notReady.join(', ')} (rendered, translated), though the population includes ${notReady.length === 1 ? 'it' : 'them'}.`,
         fix: 'Check the change there and add it under population.ready, or take it out of the population.',
-        ...at,
+        ...atPlanKey(loaded, ['population', 'ready']),
       },
     ];
   });

@@ -1,5 +1,6 @@
 import { GROUP_UNITS } from '../plan/schema.js';
 import type { Check } from '../review/context.js';
+import { atPlanKey } from './plan-key.js';
 import { isSameOrBelow } from './surfaces.js';
 
 /** People who share a surface affect each other; randomizing them one by one lets the change spill over. */
@@ -13,9 +14,7 @@ export const spillover: Check = ({ linked, settings }) =>
         code: 'spillover',
         message: `${plan.surface.path} is shared between people (group-surfaces: ${shared}), but the plan randomizes by ${plan.unit.randomization}: treated and control people interact, so the difference between arms is biased.`,
         fix: `Randomize the group they share (unit.randomization: team, organization or household) and size with design.cluster.`,
-        plan: plan.id,
-        file: loaded.file,
-        line: loaded.line,
+        ...atPlanKey(loaded, ['unit', 'randomization']),
       },
     ];
   });
@@ -27,7 +26,5 @@ export const analysisUnitDiffers: Check = ({ linked }) =>
       code: 'analysis-unit-differs',
       message: `Units are randomized by ${loaded.plan.unit.randomization} but metrics are averaged per ${loaded.plan.unit.analysis}: observations within one ${loaded.plan.unit.randomization} are not independent.`,
       fix: 'Compute the variance with the delta method or cluster-robust standard errors, not the naive per-unit formula.',
-      plan: loaded.plan.id,
-      file: loaded.file,
-      line: loaded.line,
+      ...atPlanKey(loaded, ['unit', 'analysis']),
     }));

@@ -4,6 +4,7 @@ import type { Settings } from '../config/schema.js';
 import type { Registry } from '../registry/load.js';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { Location } from '../scan/name-scan.js';
+import { countOf } from '../report/numbers.js';
 import { sizePlan } from '../stats/plan-sizing.js';
 
 /**
@@ -25,11 +26,21 @@ export interface DigestItem {
   sampleReached?: boolean;
 }
 
+/** One test in the digest: who owns it and every item about it. */
+export interface DigestTest {
+  id: string;
+  title: string;
+  owners: string[];
+  file: string;
+  line: number;
+  items: DigestItem[];
+}
+
 export interface Digest {
   today: string;
   counts: Record<DigestItemKind, number> & { live: number; planned: number; orphanFlags: number };
-  /** Items grouped by owner; a test with two owners appears under both. */
-  owners: { owner: string; items: DigestItem[] }[];
+  /** Each test that needs attention once, with its owners and what needs doing, most urgent first. */
+  tests: DigestTest[];
   /** Flag keys evaluated in code that no plan and no exemption covers. */
   orphanFlags: { key: string; location: Location }[];
   /** Live and planned tests with dates, for the timeline. */
@@ -70,15 +81,15 @@ export function buildDigest(input: DigestInput): Digest {
       const days = daysBetween(end, today);
       const reached = estimateSampleReached(entry, today);
       const advice = reached === true ? 'the planned sample should be in: read it out and decide' : reached === false ? 'the planned sample is not in yet by the plan’s own traffic estimate: decide whether to extend the plan or stop' : 'read it out, or extend the plan with a reason';
-      item(entry, 'overdue', `Past its planned end (${end}) by ${days} day${days === 1 ? '' : 's'}; ${advice}.`, { daysOverdue: days, ...(reached !== undefined ? { sampleReached: reached } : {}) });
+      item(entry, 'overdue', `Past its planned end (${end}) by ${countOf(days, 'day')}; ${advice}.`, { daysOverdue: days, ...(reached !== undefined ? { sampleReached: reached } : {}) });
     } else if (entry.state === 'live' && end && end >= today && end <= soon) {
-      item(entry, 'ending-soon', `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? '' : 's'}: prepare the readout.`);
+      item(entry, 'ending-soon', `Ends on ${end}, in ${countOf(daysBetween(today, end), 'day')}: prepare the readout.`);
     }
     if (entry.state === 'draft' && start && start < today) {
       item(entry, 'draft-past-start', `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
     }
     if (entry.state === 'on-hold' && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, 'long-on-hold', `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+      item(entry, 'long-on-hold', `On hold, ${countOf(daysBetween(start, today), 'day')} after its start: its units and surface stay reserved; resume or conclude it.`);
     }
     // Only plans of this repository: a registry file's tests evaluate their flags in other code.
     if (entry.plan && entry.state === 'live' && entry.flags.length && entry.flags.every((f) => !input.flagsInCode.has(f))) {
@@ -93,18 +104,20 @@ export function buildDigest(input: DigestInput): Digest {
       const pair = [entry.id, c.other.id].sort().join(' ');
       if (seen.has(pair) || c.known) continue;
       seen.add(pair);
-      item(entry, 'collision', `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(', ')}) on ${c.other.surface.path}${c.overlapDays !== undefined ? ` for ${c.overlapDays} days` : ''}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+      item(entry, 'collision', `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(', ')}) on ${c.other.surface.path}${c.overlapDays !== undefined ? ` for ${countOf(c.overlapDays, 'day')}` : ''}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
     }
   }
 
   const covered = new Set([...registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location]) => ({ key, location })).sort((a, b) => a.key.localeCompare(b.key));
 
-  const byOwner = new Map<string, DigestItem[]>();
   const ORDER: DigestItemKind[] = ['overdue', 'flag-gone', 'collision', 'draft-past-start', 'long-on-hold', 'ending-soon'];
+  const byTest = new Map<string, DigestTest>();
   for (const it of items.sort((a, b) => ORDER.indexOf(a.kind) - ORDER.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry.entries.find((e) => e.id === it.test)!;
-    for (const owner of entry.owners) byOwner.set(owner, [...(byOwner.get(owner) ?? []), it]);
+    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
+    test.items.push(it);
+    byTest.set(it.test, test);
   }
   const counts = {
     overdue: 0,
@@ -125,7 +138,8 @@ export function buildDigest(input: DigestInput): Digest {
   return {
     today,
     counts,
-    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner, list]) => ({ owner, items: list })),
+    // Insertion order is urgency order: a test comes where its most urgent item sorted.
+    tests: [...byTest.values()],
     orphanFlags,
     timeline,
   };

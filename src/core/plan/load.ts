@@ -1,8 +1,9 @@
-import { checkWritten } from '../source/check-written.js';
+import { checkWritten, formatFieldPath } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
 import { runRules } from '../source/rule-context.js';
-import { readYaml, type YamlLimits } from '../source/yaml-source.js';
+import { readYaml, type FieldPath, type YamlLimits, type YamlSource } from '../source/yaml-source.js';
 import { planJsonSchema } from './json-schema.js';
+import { renamedSurfaceKeys } from './renamed-keys.js';
 import { PLAN_RULES } from './rules.js';
 import { planSchema, type Plan } from './schema.js';
 
@@ -15,6 +16,40 @@ export interface LoadedPlan {
   file: string;
   /** 1-based line of the plan's `id`, for links and annotations. */
   line: number;
+  /** 1-based line of every written key, by dotted field path (`window.end`, `metrics.guardrails[0]`). */
+  keyLines: ReadonlyMap<string, number>;
+}
+
+/**
+ * The line a finding about `path` should point at: the key itself when written, else its nearest
+ * written parent (a missing `window.end` points at `window:`), else the plan's `id` line.
+ */
+export function lineOfKey(loaded: LoadedPlan, path: FieldPath): number {
+  for (let depth = path.length; depth > 0; depth--) {
+    const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
+    if (line !== undefined) return line;
+  }
+  return loaded.line;
+}
+
+/** Lines of every key (and list item) in a parsed plan; plans are small, so one walk is cheap. */
+function keyLinesOf(source: YamlSource): Map<string, number> {
+  const lines = new Map<string, number>();
+  const walk = (value: unknown, path: FieldPath) => {
+    if (Array.isArray(value)) {
+      value.forEach((item, index) => {
+        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
+        walk(item, [...path, index]);
+      });
+    } else if (value !== null && typeof value === 'object') {
+      for (const [key, item] of Object.entries(value)) {
+        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
+        walk(item, [...path, key]);
+      }
+    }
+  };
+  walk(source.value, []);
+  return lines;
 }
 
 export type PlanLoadResult = { ok: true; loaded: LoadedPlan; warnings: Problem[] } | { ok: false; errors: Problem[]; warnings: Problem[] };
@@ -25,9 +60,9 @@ export function loadPlan(text: string, file: string): PlanLoadResult {
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
   const checked = checkWritten(read.source, planSchema, planJsonSchema(), 'plan');
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const problems = [...renamedSurfaceKeys(read.source, [['surface']], 'plan'), ...runRules(checked.value, read.source, PLAN_RULES)];
   const errors = problems.filter((p) => p.severity === 'error');
   const warnings = problems.filter((p) => p.severity === 'warning');
   if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file, line: read.source.locate(['id']).line }, warnings };
+  return { ok: true, loaded: { plan: checked.value, file, line: read.source.locate(['id']).line, keyLines: keyLinesOf(read.source) }, warnings };
 }

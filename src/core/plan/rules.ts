@@ -58,24 +58,25 @@ const armsAreDistinct: Rule<Plan> = ({ value: plan, report }) => {
   }
 };
 
-const sliceIsNotEmpty: Rule<Plan> = ({ value: plan, report }) => {
-  const group = plan.surface.exclusionGroup;
-  if (!group) return;
-  const width = group.slice.to - group.slice.from;
+const rangeIsNotEmpty: Rule<Plan> = ({ value: plan, report }) => {
+  const split = plan.surface.trafficSplit;
+  if (!split) return;
+  const width = split.range.end - split.range.start;
   if (width <= 0) {
     report({
       severity: 'error',
-      code: 'plan/empty-slice',
-      path: ['surface', 'exclusion-group', 'slice'],
-      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
-      expected: 'from below to, e.g. { from: 0, to: 50 }',
+      code: 'plan/empty-range',
+      // A file still on the old key is located at its surface (and warned about the rename).
+      path: ['surface', 'traffic-split', 'range'],
+      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
+      expected: 'a start below the end, e.g. { start: 0, end: 50 }',
     });
   } else if (plan.design.trafficShare > width / 100 + 1e-9) {
     report({
       severity: 'error',
-      code: 'plan/traffic-beyond-slice',
+      code: 'plan/traffic-beyond-range',
       path: ['design', 'traffic-share'],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
       expected: `at most ${width / 100}`,
     });
   }
@@ -223,7 +224,7 @@ export const PLAN_RULES: readonly Rule<Plan>[] = [
   windowInOrder,
   liveHasStart,
   armsAreDistinct,
-  sliceIsNotEmpty,
+  rangeIsNotEmpty,
   metricNamesAreDistinct,
   guardrailsSayWhatHarmIs,
   groupUnitsDescribeClusters,

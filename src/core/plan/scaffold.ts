@@ -57,7 +57,7 @@ unit:
 
 surface:
   path: ${options.surface ?? 'area/page'}            # where the change lands, most general first, e.g. checkout/payment
-  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
+  # traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }   # percent of the pool, start included, end excluded
   # overlaps-with: [another-plan-id]
 
 population:

@@ -164,29 +164,79 @@ export const windowSchema = z
   .default({})
   .describe('Planned calendar window (UTC dates, both days included).');
 
-export const surfaceSchema = z.strictObject(
-  {
-    path: surfacePath.describe('Where in the product the change lands, most general segment first.'),
-    'exclusion-group': z
-      .strictObject(
+/**
+ * Tests that divide one pool of units between them, each taking its own range of it, so that no unit
+ * is in two of them. Ranges are in percent of the pool, start included and end excluded: [start, end).
+ */
+const trafficSplitSchema = z
+  .strictObject(
+    {
+      name: kebabName('a traffic-split name, e.g. checkout-core').describe('Name of the pool of units the tests divide between them.'),
+      range: z
+        .strictObject(
+          {
+            start: percentage('where this test’s range starts, in percent of the pool’s units (0 to 100, included)'),
+            end: percentage('where this test’s range ends, in percent of the pool’s units (0 to 100, excluded)'),
+          },
+          { error: 'a range of the pool’s units in percent, e.g. { start: 0, end: 50 }' },
+        )
+        .describe('This test’s range of the pool, in percent: start included, end excluded, so { start: 0, end: 50 } and { start: 50, end: 100 } take no unit twice.'),
+    },
+    { error: 'a mapping with name and range, e.g. { name: checkout-core, range: { start: 0, end: 50 } }' },
+  )
+  .describe('Tests with the same traffic-split name divide one pool of units: each takes its own range of it, and tests whose ranges do not overlap never collide.');
+
+/** The key `traffic-split` replaced, still read (with a warning) so that existing files keep loading. */
+const oldTrafficSplitSchema = z
+  .strictObject(
+    {
+      name: kebabName('a traffic-split name, e.g. checkout-core'),
+      slice: z.strictObject(
         {
-          name: kebabName('an exclusion group name, e.g. checkout-core'),
-          slice: z.strictObject(
-            {
-              from: percentage('where the slice starts, in percent of the group’s units (0 to 100)'),
-              to: percentage('where the slice ends, in percent of the group’s units (0 to 100)'),
-            },
-            { error: 'a slice of the group’s units in percent, e.g. { from: 0, to: 50 }' },
-          ).describe('This plan’s share of the group’s units, from and to in percent.'),
+          from: percentage('where the range starts, in percent (0 to 100, included)'),
+          to: percentage('where the range ends, in percent (0 to 100, excluded)'),
         },
-        { error: 'a mapping with name and slice' },
-      )
-      .optional()
-      .describe('Plans in one exclusion group take disjoint slices of the group’s units and never collide.'),
-    'overlaps-with': uniqueList(planId, 'a list of plan ids this plan may knowingly overlap with').default([]),
-  },
-  { error: 'a mapping with path, e.g. { path: checkout/payment }' },
-).describe('Where in the product the change lands, and how it may share that place with other tests.');
+        { error: 'a range in percent, e.g. { from: 0, to: 50 }' },
+      ).describe('Now traffic-split.range (from is start, to is end).'),
+    },
+    { error: 'a mapping with name and slice' },
+  )
+  .meta({ deprecated: true, description: 'Deprecated: the old name of traffic-split (slice.from and slice.to are now range.start and range.end). Still read, with a warning.' });
+
+export const surfaceSchema = z
+  .strictObject(
+    {
+      path: surfacePath.describe('Where in the product the change lands, most general segment first.'),
+      'traffic-split': trafficSplitSchema.optional(),
+      'exclusion-group': oldTrafficSplitSchema.optional(),
+      'overlaps-with': uniqueList(planId, 'a list of plan ids this plan may knowingly overlap with').default([]),
+    },
+    { error: 'a mapping with path, e.g. { path: checkout/payment }' },
+  )
+  .refine((s) => !(s['traffic-split'] && s['exclusion-group']), {
+    error: 'traffic-split only; exclusion-group is its old name, so remove it',
+    path: ['exclusion-group'],
+  })
+  .describe('Where in the product the change lands, and how it may share that place with other tests.');
+
+export interface TrafficSplit {
+  name: string;
+  /** Percent of the pool's units, [start, end). */
+  range: { start: number; end: number };
+}
+
+/** The traffic split a surface declares, under its current key or the old one. */
+export function trafficSplitOf(surface: z.output<typeof surfaceSchema>): TrafficSplit | undefined {
+  if (surface['traffic-split']) return surface['traffic-split'];
+  const old = surface['exclusion-group'];
+  return old ? { name: old.name, range: { start: old.slice.from, end: old.slice.to } } : undefined;
+}
+
+/** The normalized surface of a plan or registry entry. */
+export function normalizeSurface(surface: z.output<typeof surfaceSchema>): Plan['surface'] {
+  const split = trafficSplitOf(surface);
+  return { path: surface.path, ...(split ? { trafficSplit: split } : {}), overlapsWith: surface['overlaps-with'] };
+}
 
 export const populationSchema = z
   .strictObject(
@@ -288,7 +338,7 @@ export const writtenPlanSchema = z
           'daily-units': positiveNumber('expected eligible units per day, e.g. 12000').optional(),
           'traffic-share': positiveShare('the share of eligible units enrolled, in (0, 1], e.g. 0.5')
             .optional()
-            .describe('Defaults to the exclusion-group slice, or 1.'),
+            .describe('Defaults to the width of the traffic-split range, or 1.'),
           'interim-looks': wholeNumber('a whole number of interim analyses from 0 to 20', 0, 20).default(0),
           'interim-boundary': z
             .enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(', ')}` })
@@ -406,7 +456,7 @@ export interface Plan {
   window: { start?: string; end?: string };
   hypothesis: { change: string; because?: string; direction: Direction };
   unit: { randomization: Unit; analysis: Unit };
-  surface: { path: string; exclusionGroup?: { name: string; slice: { from: number; to: number } }; overlapsWith: string[] };
+  surface: { path: string; trafficSplit?: TrafficSplit; overlapsWith: string[] };
   population: {
     platforms: string[];
     locales: string[];
@@ -425,7 +475,7 @@ export interface Plan {
     sides: 1 | 2;
     minDetectableEffect?: { relative?: number; absolute?: number };
     dailyUnits?: number;
-    /** Share of eligible units enrolled: written, else the exclusion-group slice, else 1. */
+    /** Share of eligible units enrolled: written, else the width of the traffic-split range, else 1. */
     trafficShare: number;
     interimLooks: number;
     interimBoundary: BoundaryKind;
@@ -459,7 +509,8 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
     return z.NEVER;
   }
   const d = written.design;
-  const slice = written.surface['exclusion-group']?.slice;
+  const surface = normalizeSurface(written.surface);
+  const range = surface.trafficSplit?.range;
   return {
     id: written.id,
     title: written.title,
@@ -473,11 +524,7 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
       direction: written.hypothesis['expected-direction'],
     },
     unit: { randomization: written.unit.randomization, analysis: written.unit.analysis ?? written.unit.randomization },
-    surface: {
-      path: written.surface.path,
-      ...(written.surface['exclusion-group'] ? { exclusionGroup: written.surface['exclusion-group'] } : {}),
-      overlapsWith: written.surface['overlaps-with'],
-    },
+    surface,
     population: written.population,
     exposure: written.exposure,
     metrics: {
@@ -493,7 +540,7 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
       sides: d.sides,
       ...(d['min-detectable-effect'] ? { minDetectableEffect: d['min-detectable-effect'] } : {}),
       ...(d['daily-units'] !== undefined ? { dailyUnits: d['daily-units'] } : {}),
-      trafficShare: d['traffic-share'] ?? (slice ? Math.max(0, slice.to - slice.from) / 100 : 1),
+      trafficShare: d['traffic-share'] ?? (range ? Math.max(0, range.end - range.start) / 100 : 1),
       interimLooks: d['interim-looks'],
       interimBoundary: d['interim-boundary'],
       prePeriodCorrelation: d['pre-period-correlation'],

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { LoadedPlan } from '../plan/load.js';
+import { renamedSurfaceKeys } from '../plan/renamed-keys.js';
 import { checkWritten, type JsonSchemaNode } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
 import { readYaml, type YamlLimits } from '../source/yaml-source.js';
@@ -18,7 +19,7 @@ export function registryJsonSchema(): JsonSchemaNode {
   return cachedJsonSchema;
 }
 
-export type RegistryFileResult = { ok: true; entries: RegistryEntry[] } | { ok: false; errors: Problem[] };
+export type RegistryFileResult = { ok: true; entries: RegistryEntry[]; warnings: Problem[] } | { ok: false; errors: Problem[] };
 
 /** Text of one registry file -> its entries, located line by line. */
 export function loadRegistryFile(text: string, file: string): RegistryFileResult {
@@ -27,7 +28,8 @@ export function loadRegistryFile(text: string, file: string): RegistryFileResult
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), 'registry');
   if (!checked.ok) return { ok: false, errors: checked.problems };
   const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line }));
-  return { ok: true, entries };
+  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ['tests', index, 'surface']), 'registry');
+  return { ok: true, entries, warnings };
 }
 
 /** All tests known to this repository. */

@@ -3,6 +3,7 @@ import { text, uniqueList } from '../source/fields.js';
 import {
   eventName,
   flagsSchema,
+  normalizeSurface,
   ownersSchema,
   planId,
   populationSchema,
@@ -72,11 +73,7 @@ export const registrySchema = writtenRegistrySchema.transform((written) =>
     state: entry.state,
     flags: entry.flags,
     window: entry.window,
-    surface: {
-      path: entry.surface.path,
-      ...(entry.surface['exclusion-group'] ? { exclusionGroup: entry.surface['exclusion-group'] } : {}),
-      overlapsWith: entry.surface['overlaps-with'],
-    },
+    surface: normalizeSurface(entry.surface),
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry['traffic-share'] ?? 1,
     events: entry.events,

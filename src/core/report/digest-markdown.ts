@@ -1,5 +1,6 @@
 import type { Digest, DigestItemKind } from '../digest/build-digest.js';
 import { codeSpan, safeText } from './markdown-safe.js';
+import { countOf, formatCount } from './numbers.js';
 import { COMMENT_LIMIT } from './review-markdown.js';
 import { terminalSafe } from './terminal-style.js';
 
@@ -20,14 +21,35 @@ const LABEL: Record<DigestItemKind, string> = {
   'ending-soon': '📅 ending soon',
 };
 
+/** The headline: only what is there to count, each with its noun in the right number. */
 export function countLine(d: Digest): string {
   const c = d.counts;
-  return `${c.overdue} past their planned end · ${c['ending-soon']} ending soon · ${c['draft-past-start']} drafts past their start · ${c['long-on-hold']} on hold too long · ${c.collision} collisions · ${c['flag-gone']} live with their flag gone · ${c.orphanFlags} flags in code without a plan — ${c.live} live, ${c.planned} drafts`;
+  const parts = [
+    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? 'its' : 'their'} planned end` : '',
+    c['ending-soon'] ? `${formatCount(c['ending-soon'])} ending soon` : '',
+    c['draft-past-start'] ? `${countOf(c['draft-past-start'], 'draft')} past ${c['draft-past-start'] === 1 ? 'its' : 'their'} start` : '',
+    c['long-on-hold'] ? `${formatCount(c['long-on-hold'])} on hold too long` : '',
+    c.collision ? countOf(c.collision, 'collision') : '',
+    c['flag-gone'] ? `${countOf(c['flag-gone'], 'live test')} with ${c['flag-gone'] === 1 ? 'its flag' : 'their flags'} gone` : '',
+    c.orphanFlags ? `${countOf(c.orphanFlags, 'flag')} in code without a plan` : '',
+  ].filter(Boolean);
+  const registry = [c.live ? `${formatCount(c.live)} live` : '', c.planned ? countOf(c.planned, 'draft') : ''].filter(Boolean).join(', ') || 'no live tests or drafts';
+  return `${parts.length ? parts.join(' · ') : 'nothing needs attention'} — ${registry}`;
 }
 
-/** Owners are mentioned once per digest, in their own heading; everywhere else handles are inert text. */
-function ownerHeading(owner: string): string {
-  return /^@[A-Za-z0-9][\w./-]*$/.test(owner) ? `### ${owner}` : `### ${safeText(owner)}`;
+/**
+ * Owners beside their tests, each mentioned (notified) once per digest: the first time a handle
+ * appears it is live, later appearances are inert text, and anything not a handle is always inert.
+ */
+function ownersOf(owners: readonly string[], mentioned: Set<string>): string {
+  return owners
+    .map((owner) => {
+      const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner);
+      if (!handle || mentioned.has(owner.toLowerCase())) return safeText(owner);
+      mentioned.add(owner.toLowerCase());
+      return owner;
+    })
+    .join(', ');
 }
 
 /** A bar label Mermaid accepts: no colon, hash or semicolon. */
@@ -49,22 +71,23 @@ function gantt(d: Digest): string[] {
     lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
   });
   lines.push('```');
-  if (d.timeline.length > shown.length) lines.push('', `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  if (d.timeline.length > shown.length) lines.push('', `${countOf(d.timeline.length - shown.length, 'more test')} ${d.timeline.length - shown.length === 1 ? 'is' : 'are'} not drawn (the list above has them all).`);
   return lines;
 }
 
-function render(d: Digest, withTimeline: boolean, itemsPerOwner: number): string {
+function render(d: Digest, withTimeline: boolean, maxTests: number): string {
   const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, '', `**${countLine(d)}**`, ''];
-  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push('Nothing needs attention this week.', '');
-  for (const { owner, items } of d.owners) {
-    out.push(ownerHeading(owner), '');
-    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
-    if (items.length > itemsPerOwner) out.push(`- …and ${items.length - itemsPerOwner} more (see the JSON report).`);
-    out.push('');
+  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push('Nothing needs attention this week.', '');
+  const mentioned = new Set<string>();
+  for (const test of d.tests.slice(0, maxTests)) {
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} · ${ownersOf(test.owners, mentioned)} · ${codeSpan(`${test.file}:${test.line}`)}`);
+    for (const it of test.items) out.push(`  - ${LABEL[it.kind]}: ${safeText(it.detail)}`);
   }
+  if (d.tests.length > maxTests) out.push(`- …and ${countOf(d.tests.length - maxTests, 'more test')} (see the JSON report).`);
+  if (d.tests.length) out.push('');
   if (d.orphanFlags.length) {
     out.push('### Flags in code that no plan covers', '', ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- …and ${d.orphanFlags.length - 50} more.`);
+    if (d.orphanFlags.length > 50) out.push(`- …and ${formatCount(d.orphanFlags.length - 50)} more.`);
     out.push('', 'Write a plan for each, or list kill switches and operational toggles under exempt-flags.', '');
   }
   if (withTimeline && d.timeline.length) out.push('### Timeline', '', ...gantt(d), '');
@@ -72,10 +95,10 @@ function render(d: Digest, withTimeline: boolean, itemsPerOwner: number): string
   return out.join('\n');
 }
 
-/** The digest block, under GitHub's body limit: the timeline goes first, then items beyond the first per owner. */
+/** The digest block, under GitHub's body limit: the timeline goes first, then tests beyond the first few. */
 export function renderDigestMarkdown(d: Digest, limit = COMMENT_LIMIT - 2000): string {
-  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]] as const) {
-    const body = render(d, timeline, per);
+  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]] as const) {
+    const body = render(d, timeline, tests);
     if (body.length <= limit) return body;
   }
   return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, '', `**${countLine(d)}**`, '', 'The full list is too long for an issue; see the JSON report.', DIGEST_END].join('\n');
@@ -98,9 +121,9 @@ export function mergeDigestBody(existing: string | undefined, block: string): st
 
 export function renderDigestText(d: Digest): string {
   const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
-  for (const { owner, items } of d.owners) {
-    out.push('', terminalSafe(owner));
-    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
+  for (const test of d.tests) {
+    out.push('', `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(', '))}`);
+    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
   }
   if (d.orphanFlags.length) {
     out.push('', 'Flags in code that no plan covers:');

@@ -44,3 +44,13 @@ export function formatPower(power: number): string {
 export function formatMultiplier(m: number): string {
   return Number.isFinite(m) ? `×${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
 }
+
+/** A count with its noun, singular or plural: "1 week", "2,274 days", "1 draft". */
+export function countOf(n: number, singular: string, plural = `${singular}s`): string {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural}`;
+}
+
+/** A duration led by whole weeks: "3 weeks (18 days)", "1 week (7 days; why)". */
+export function formatWeeks(duration: { days: number; weeks: number }, why?: string): string {
+  return `${countOf(duration.weeks, 'week')} (${countOf(duration.days, 'day')}${why ? `; ${why}` : ''})`;
+}

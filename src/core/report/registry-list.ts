@@ -30,7 +30,7 @@ export function registryJson(registry: Registry): object {
       title: e.title,
       state: e.state,
       surface: e.surface.path,
-      ...(e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {}),
+      ...(e.surface.trafficSplit ? { trafficSplit: e.surface.trafficSplit } : {}),
       window: e.window,
       owners: e.owners,
       flags: e.flags,

@@ -111,8 +111,9 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
     out.push(
       '#### A small check test for this fix?',
       '',
+      ...(review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ''] : []),
       'A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.',
-      ...(review.nudge.sizingLine ? ['', safeText(review.nudge.sizingLine)] : []),
+      ...(review.nudge.sizingLine ? ['', '<details><summary>What it takes to catch a 1% regression</summary>', '', safeText(review.nudge.sizingLine), '', '</details>'] : []),
       '',
       '<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>',
       '',

@@ -40,6 +40,8 @@ export interface ReviewContext {
   events: ReadonlyMap<string, NameHits>;
   /** Events of running plans that the change deletes from a line (quoted), with where. */
   removedEvents: ReadonlyMap<string, Location>;
+  /** Today as YYYY-MM-DD (UTC) when the entry point knows it; the core has no clock. */
+  today?: string;
 }
 
 /** A check reads the context and says what it found, at the code's default severity. */

@@ -116,7 +116,7 @@ export const reviewReportSchema = z
         known: z.boolean(),
       }),
     ),
-    nudge: z.object({ reason: z.string(), productFiles: z.array(z.string()), planStub: z.string(), sizingLine: z.string().optional() }).optional(),
+    nudge: z.object({ reason: z.string(), productFiles: z.array(z.string()), planStub: z.string(), twoWeeksLine: z.string().optional(), sizingLine: z.string().optional() }).optional(),
     partial: z
       .object({ reason: z.string(), reviewedFiles: z.number().int(), changedFiles: z.number().int().optional() })
       .optional()

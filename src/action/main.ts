@@ -42,7 +42,7 @@ async function main(): Promise<void> {
   core.setOutput('warnings', result.review.counts.warn);
   core.setOutput('notes', result.review.counts.note);
   core.setOutput('report', reportPath);
-  await core.summary.addRaw(result.markdown).write();
+  await core.summary.addRaw(result.summary).write();
   if (shouldFail(result.review, settings['fail-on'])) core.setFailed(`Plumbline: ${result.review.counts.block} blocking finding(s); see the summary or the pull-request comment.`);
 }
 

@@ -34,7 +34,7 @@ describe('the demo review', () => {
   });
 
   it('matches the golden Markdown comment', async () => {
-    const markdown = renderReviewMarkdown(review, { link: (path, line) => `https://github.com/bramblecart/shop/blob/${review.head}/${path}#L${line}` });
+    const markdown = renderReviewMarkdown(review, { linkBase: `https://github.com/bramblecart/shop/blob/${review.head}` });
     await expect(normalize(markdown)).toMatchFileSnapshot('golden/demo-review.md');
   });
 
@@ -63,6 +63,7 @@ describe('untrusted text in the comment', () => {
         plan: 'evil`plan',
         file: 'src/`weird`.ts',
         line: 3,
+        origin: 'introduced',
       },
     ],
   });
@@ -81,7 +82,7 @@ describe('untrusted text in the comment', () => {
 describe('the comment size budget', () => {
   const huge = (): Review => ({
     ...review,
-    findings: Array.from({ length: 3000 }, (_, i) => ({ code: 'event-missing', severity: 'warn' as const, message: `Event number ${i} `.repeat(8), fix: 'Log it.', plan: 'p', file: `src/file-${i}.ts`, line: i + 1 })),
+    findings: Array.from({ length: 3000 }, (_, i) => ({ code: 'event-missing', severity: 'warn' as const, message: `Event number ${i} `.repeat(8), fix: 'Log it.', plan: 'p', file: `src/file-${i}.ts`, line: i + 1, origin: 'introduced' as const })),
   });
 
   it('stays under GitHub’s 65,536 characters and says what it left out', () => {

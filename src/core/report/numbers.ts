@@ -44,3 +44,13 @@ export function formatPower(power: number): string {
 export function formatMultiplier(m: number): string {
   return Number.isFinite(m) ? `×${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
 }
+
+/** A count with its noun, singular or plural: 1 -> "1 week", 2274 -> "2,274 days". */
+export function plural(n: number, singular: string, pluralForm = `${singular}s`): string {
+  return `${formatCount(n)} ${n === 1 ? singular : pluralForm}`;
+}
+
+/** A test's length, whole weeks first since tests run in whole weeks: "3 weeks (15 days)". */
+export function formatLength(duration: { days: number; weeks: number }): string {
+  return `${plural(duration.weeks, 'week')} (${plural(duration.days, 'day')})`;
+}

@@ -2,8 +2,9 @@
  * Text from plans, pull requests and file names is untrusted. Every piece of it that reaches a
  * comment or a job summary goes through one of these functions, chosen by where it lands:
  *
- * - running text (`safeText`): no raw HTML, no Markdown links, images or emphasis, no autolinks,
- *   no live @-mentions or #references, no line breaks; code spans the text itself writes stay code;
+ * - running text (`safeText` for names, `safeMessage` for our sentences that quote names in
+ *   backticks): no raw HTML, no Markdown links, images or emphasis, no autolinks, no live
+ *   @-mentions or #references, no line breaks;
  * - a table cell (`safeCell`, `codeCell`): the same, and every `|` escaped, code spans included,
  *   because GFM splits a row on pipes before it reads code spans;
  * - inline code (`codeSpan`): a fence longer than any backtick run inside;
@@ -27,7 +28,8 @@ function oneLine(text: string): string {
 
 /** Outside code: entities for HTML, backslashes for Markdown's punctuation, autolinks broken. */
 function escapePlain(text: string): string {
-  const escaped = text
+  // Mentions first: escaping would put a backslash between `@` and `_name`, which GitHub still links.
+  return inert(text)
     .replace(/&/g, '&amp;')
     .replace(/</g, '&lt;')
     .replace(/>/g, '&gt;')
@@ -35,7 +37,6 @@ function escapePlain(text: string): string {
     // GFM's extended autolinks: "www." and "scheme://" (an escaped dot or colon is not recognized).
     .replace(/(www)\./gi, '$1\\.')
     .replace(/:(?=\/\/)/g, '\\:');
-  return inert(escaped);
 }
 
 /** Inside a code span nothing is interpreted; only a marker-like `<!--` is broken up. */
@@ -43,12 +44,17 @@ function escapeCode(text: string): string {
   return text.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
 }
 
+/** A name or any other untrusted text, shown exactly as written (backticks included). */
+export function safeText(text: string): string {
+  return escapePlain(oneLine(text));
+}
+
 /**
  * Running text that may hold code spans of its own (finding messages quote names in backticks).
  * Spans are found as CommonMark finds them: a backtick run closed by the next run of the same
  * length; an unmatched run is literal and escaped. Everything outside spans is escaped.
  */
-export function safeText(text: string): string {
+export function safeMessage(text: string): string {
   const clean = oneLine(text);
   let out = '';
   let at = 0;

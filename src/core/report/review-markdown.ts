@@ -1,6 +1,6 @@
 import type { PlanReview, Review, ReviewFinding, Verdict } from '../review/build-review.js';
 import type { Severity } from '../review/finding.js';
-import { codeCell, codeSpan, inCell, linkTarget, safeCell, safeText, urlPath } from './markdown-safe.js';
+import { codeCell, codeSpan, inCell, linkTarget, safeCell, safeMessage, safeText, urlPath } from './markdown-safe.js';
 import { formatCount, plural } from './numbers.js';
 import { checklistSummary } from './review-summary.js';
 import { lengthSummary, renderSizingMarkdown } from './sizing.js';
@@ -55,13 +55,13 @@ function where(path: string | undefined, line: number | undefined, options: Mark
 function findingLine(f: ReviewFinding, options: MarkdownOptions): string {
   const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
   const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
 }
 
 /** The first visible line: the verdict, and the one thing to do first when something blocks or warns. */
 function headline(review: Review): string {
   const first = review.findings.find((f) => f.severity === 'block') ?? review.findings.find((f) => f.severity === 'warn');
-  const todo = review.verdict === 'blocked' || review.verdict === 'warnings' ? (first ? ` — first: ${safeText(first.fix)}` : '') : '';
+  const todo = review.verdict === 'blocked' || review.verdict === 'warnings' ? (first ? ` — first: ${safeMessage(first.fix)}` : '') : '';
   return `### ${HEADLINE[review.verdict]}${todo}`;
 }
 
@@ -157,7 +157,7 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
       '',
       '<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>',
       '',
-      ...(review.nudge.sizingLine ? [safeText(review.nudge.sizingLine), ''] : []),
+      ...(review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ''] : []),
       '```yaml',
       review.nudge.planStub.replace(/```/g, "'''"),
       '```',

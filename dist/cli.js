@@ -37841,13 +37841,15 @@ function oneLine(text2) {
   return text2.replace(/\r\n?|\n/g, " ");
 }
 function escapePlain(text2) {
-  const escaped = text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
-  return inert(escaped);
+  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
 }
 function escapeCode(text2) {
   return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
 }
 function safeText(text2) {
+  return escapePlain(oneLine(text2));
+}
+function safeMessage(text2) {
   const clean = oneLine(text2);
   let out = "";
   let at = 0;
@@ -39688,11 +39690,11 @@ function where(path, line, options) {
 function findingLine(f, options) {
   const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
   const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
 }
 function headline(review) {
   const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
-  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeText(first.fix)}` : "" : "";
+  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
   return `### ${HEADLINE[review.verdict]}${todo}`;
 }
 function countsLine(review) {
@@ -39766,7 +39768,7 @@ function render(review, options, detail, omitted) {
       "",
       "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
       "",
-      ...review.nudge.sizingLine ? [safeText(review.nudge.sizingLine), ""] : [],
+      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
       "```yaml",
       review.nudge.planStub.replace(/```/g, "'''"),
       "```",

@@ -61279,8 +61279,8 @@ function render(review, options, detail, omitted) {
       ""
     );
   }
-  if (review.flags.length) {
-    const shown = review.flags.slice(0, detail.tablesFor > 0 ? 50 : 10);
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
     out.push(
       `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
       "",
@@ -61289,7 +61289,6 @@ function render(review, options, detail, omitted) {
       ...shown.map(
         (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
       ),
-      ...review.flags.length > shown.length ? [``, `\u2026and ${formatCount(review.flags.length - shown.length)} more.`] : [],
       "",
       "</details>",
       ""
@@ -61308,6 +61307,8 @@ function omissions(review, detail, charts) {
   if (withoutTables > 0) out.push(`the sizing and events tables of ${plural2(withoutTables, "plan")}`);
   const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
   if (hiddenPlans > 0) out.push(`the sections of ${plural2(hiddenPlans, "more plan")}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${plural2(hiddenFlags, "row")} of the flags table`);
   const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
   if (hiddenFindings > 0) out.push(plural2(hiddenFindings, "finding"));
   return out;
@@ -61325,11 +61326,13 @@ function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measu
     const body = render(review, options, detail, omissions(review, detail, charts));
     return measure(body) <= limit ? body : void 0;
   };
-  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans };
+  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
   const steps = [full, { ...full, charts: false }];
   for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
-  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...full, charts: false, tablesFor: 0, findingsShown });
-  for (const plansShown of halving(plans).slice(1)) steps.push({ charts: false, tablesFor: 0, findingsShown: 0, plansShown });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
   for (const detail of steps) {
     const body = attempt(detail);
     if (body !== void 0) return body;

@@ -84,6 +84,8 @@ interface Detail {
   findingsShown: number;
   /** Plans (in order) that keep their section at all. */
   plansShown: number;
+  /** Rows of the table of flags the change touches. */
+  flagsShown: number;
 }
 
 function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail, withTables: boolean): string[] {
@@ -181,8 +183,8 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
       '',
     );
   }
-  if (review.flags.length) {
-    const shown = review.flags.slice(0, detail.tablesFor > 0 ? 50 : 10);
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
     out.push(
       `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
       '',
@@ -192,7 +194,6 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
         (f) =>
           `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeCell).join(', ') : '**none**'} |`,
       ),
-      ...(review.flags.length > shown.length ? [``, `…and ${formatCount(review.flags.length - shown.length)} more.`] : []),
       '',
       '</details>',
       '',
@@ -213,6 +214,8 @@ function omissions(review: Review, detail: Detail, charts: boolean): string[] {
   if (withoutTables > 0) out.push(`the sizing and events tables of ${plural(withoutTables, 'plan')}`);
   const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
   if (hiddenPlans > 0) out.push(`the sections of ${plural(hiddenPlans, 'more plan')}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${plural(hiddenFlags, 'row')} of the flags table`);
   const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
   if (hiddenFindings > 0) out.push(plural(hiddenFindings, 'finding'));
   return out;
@@ -228,8 +231,8 @@ function halving(n: number): number[] {
 /**
  * The review as Markdown within a size budget: the comment (65,536 characters) or the job summary
  * (1 MiB). Detail goes in stated steps, each only when the previous one did not fit: the power
- * charts, then the sizing and events tables plan by plan from the last, then findings from the
- * last (notes before warnings before blocking ones), then plan sections. The note at the end says
+ * charts, then the sizing and events tables plan by plan from the last, then rows of the flags
+ * table, then findings from the last (notes before warnings before blocking ones), then plan sections. The note at the end says
  * exactly what was left out and where it is.
  */
 export function renderReviewMarkdown(review: Review, options: MarkdownOptions = {}, limit = COMMENT_LIMIT, measure: Measure = measureCharacters): string {
@@ -240,11 +243,13 @@ export function renderReviewMarkdown(review: Review, options: MarkdownOptions = 
     const body = render(review, options, detail, omissions(review, detail, charts));
     return measure(body) <= limit ? body : undefined;
   };
-  const full: Detail = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans };
+  const full: Detail = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
   const steps: Detail[] = [full, { ...full, charts: false }];
   for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
-  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...full, charts: false, tablesFor: 0, findingsShown });
-  for (const plansShown of halving(plans).slice(1)) steps.push({ charts: false, tablesFor: 0, findingsShown: 0, plansShown });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
   for (const detail of steps) {
     const body = attempt(detail);
     if (body !== undefined) return body;

@@ -3312,7 +3312,7 @@ var require_data_url = __commonJS({
   "../main/node_modules/undici/lib/web/fetch/data-url.js"(exports, module) {
     "use strict";
     var assert2 = __require("node:assert");
-    var encoder = new TextEncoder();
+    var encoder2 = new TextEncoder();
     var HTTP_TOKEN_CODEPOINTS = /^[!#$%&'*+\-.^_|~A-Za-z0-9]+$/;
     var HTTP_WHITESPACE_REGEX = /[\u000A\u000D\u0009\u0020]/;
     var ASCII_WHITESPACE_REPLACE_REGEX = /[\u0009\u000A\u000C\u000D\u0020]/g;
@@ -3385,7 +3385,7 @@ var require_data_url = __commonJS({
       return input2.slice(start, position.position);
     }
     function stringPercentDecode(input2) {
-      const bytes = encoder.encode(input2);
+      const bytes = encoder2.encode(input2);
       return percentDecode(bytes);
     }
     function isHexCharByte(byte) {
@@ -3674,8 +3674,8 @@ var require_webidl = __commonJS({
       return new TypeError(`${message.header}: ${message.message}`);
     };
     webidl.errors.conversionFailed = function(context3) {
-      const plural3 = context3.types.length === 1 ? "" : " one of";
-      const message = `${context3.argument} could not be converted to${plural3}: ${context3.types.join(", ")}.`;
+      const plural2 = context3.types.length === 1 ? "" : " one of";
+      const message = `${context3.argument} could not be converted to${plural2}: ${context3.types.join(", ")}.`;
       return webidl.errors.exception({
         header: context3.prefix,
         message
@@ -11238,9 +11238,9 @@ var require_pluralizer = __commonJS({
       this: "these"
     };
     module.exports = class Pluralizer {
-      constructor(singular, plural3) {
+      constructor(singular, plural2) {
         this.singular = singular;
-        this.plural = plural3;
+        this.plural = plural2;
       }
       pluralize(count) {
         const one = count === 1;
@@ -51619,8 +51619,8 @@ var error44 = () => {
       case "not_multiple_of":
         return `N\xFAmero inv\xE1lido: deve ser m\xFAltiplo de ${issue3.divisor}`;
       case "unrecognized_keys": {
-        const plural3 = issue3.keys.length > 1 ? "s" : "";
-        return `Chave${plural3} inv\xE1lida${plural3}: ${joinValues(issue3.keys, ", ")}`;
+        const plural2 = issue3.keys.length > 1 ? "s" : "";
+        return `Chave${plural2} inv\xE1lida${plural2}: ${joinValues(issue3.keys, ", ")}`;
       }
       case "invalid_key":
         return `Entrada inv\xE1lida n${translateOriginWithArticle(issue3.origin, "definite")}`;
@@ -51764,8 +51764,8 @@ var error45 = () => {
       case "not_multiple_of":
         return `N\xFAmero inv\xE1lido: deve ser m\xFAltiplo de ${issue3.divisor}`;
       case "unrecognized_keys": {
-        const plural3 = issue3.keys.length > 1 ? "s" : "";
-        return `Chave${plural3} inv\xE1lida${plural3}: ${joinValues(issue3.keys, ", ")}`;
+        const plural2 = issue3.keys.length > 1 ? "s" : "";
+        return `Chave${plural2} inv\xE1lida${plural2}: ${joinValues(issue3.keys, ", ")}`;
       }
       case "invalid_key":
         return `Entrada inv\xE1lida n${translateOriginWithArticle(issue3.origin, "definite")}`;
@@ -60676,7 +60676,8 @@ var reviewReportSchema = external_exports.object({
       fix: external_exports.string(),
       plan: external_exports.string().optional(),
       file: external_exports.string().optional(),
-      line: external_exports.number().int().positive().optional()
+      line: external_exports.number().int().positive().optional(),
+      origin: external_exports.enum(["introduced", "known"]).describe("introduced: this change brought it; known: the same finding already held for the plan at the base commit")
     })
   ),
   plans: external_exports.array(
@@ -60997,8 +60998,8 @@ function formatPower(power) {
 function formatMultiplier(m) {
   return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
 }
-function countOf(n, singular, plural3 = `${singular}s`) {
-  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural3}`;
+function countOf(n, singular, plural2 = `${singular}s`) {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural2}`;
 }
 function formatWeeks(duration3, why) {
   return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
@@ -61010,6 +61011,68 @@ function withUnseenFiles(review, unseen) {
   return { ...review, verdict, partial: unseen };
 }
 
+// src/core/report/markdown-safe.ts
+var ZERO_WIDTH_SPACE = "\u200B";
+function inert(text2) {
+  return text2.replace(/@(?=[A-Za-z0-9_-])/g, `@${ZERO_WIDTH_SPACE}`).replace(/#(?=\d)/g, `#${ZERO_WIDTH_SPACE}`);
+}
+function oneLine(text2) {
+  return text2.replace(/\r\n?|\n/g, " ");
+}
+function escapePlain(text2) {
+  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
+}
+function escapeCode(text2) {
+  return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
+}
+function safeText(text2) {
+  return escapePlain(oneLine(text2));
+}
+function safeMessage(text2) {
+  const clean = oneLine(text2);
+  let out = "";
+  let at = 0;
+  const runs = [...clean.matchAll(/`+/g)];
+  for (let i = 0; i < runs.length; i++) {
+    const open3 = runs[i];
+    if (open3.index < at) continue;
+    const close = runs.slice(i + 1).find((r) => r[0].length === open3[0].length);
+    out += escapePlain(clean.slice(at, open3.index));
+    if (!close) {
+      out += open3[0].replace(/`/g, "\\`");
+      at = open3.index + open3[0].length;
+      continue;
+    }
+    const inner = clean.slice(open3.index + open3[0].length, close.index);
+    out += `${open3[0]}${escapeCode(inner)}${close[0]}`;
+    at = close.index + close[0].length;
+    i = runs.indexOf(close);
+  }
+  return out + escapePlain(clean.slice(at));
+}
+function inCell(markdown) {
+  return markdown.replace(/\|/g, "\\|");
+}
+function safeCell(text2) {
+  return inCell(safeText(text2));
+}
+function codeSpan(text2) {
+  const clean = escapeCode(oneLine(text2));
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") || /^ .* $/.test(clean) ? " " : "";
+  return clean === "" ? "` `" : `${fence}${pad}${clean}${pad}${fence}`;
+}
+function codeCell(text2) {
+  return inCell(codeSpan(text2));
+}
+function urlPath(path6) {
+  return path6.split("/").map((segment) => encodeURIComponent(segment).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)).join("/");
+}
+function linkTarget(url2) {
+  return url2.replace(/[^A-Za-z0-9\-._~:/?#[\]@!$&'*+,;=%]/gu, (c) => encodeURIComponent(c)).replace(/[()'!*[\]]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+}
+
 // src/core/report/coverage-notice.ts
 function coverageNotice(review) {
   const unseen = review.partial;
@@ -61018,19 +61081,10 @@ function coverageNotice(review) {
   return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
 }
 
-// src/core/report/markdown-safe.ts
-function safeText(text2) {
-  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
-}
-function safeCell(text2) {
-  return safeText(text2).replace(/\|/g, "\\|");
-}
-function codeSpan(text2) {
-  const clean = text2.replace(/\r?\n/g, " ");
-  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
-  const fence = "`".repeat(longest + 1);
-  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
-  return `${fence}${pad}${clean}${pad}${fence}`;
+// src/core/report/review-summary.ts
+function checklistSummary(items) {
+  const held = items.filter((i) => i.done).length;
+  return { count: `${formatCount(held)} of ${formatCount(items.length)} ${held === 1 ? "holds" : "hold"}`, failing: items.filter((i) => !i.done).map((i) => i.label) };
 }
 
 // src/core/report/sizing.ts
@@ -61044,7 +61098,7 @@ function describeChange(entry, change2, from) {
 function sizeCells(size) {
   if (!size) return ["", "", "", ""];
   const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
-  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : "", size.duration ? String(size.duration.weeks) : ""];
+  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : "", size.duration ? formatCount(size.duration.weeks) : ""];
 }
 function rows(sizing) {
   return sizing.metrics.map((entry) => {
@@ -61070,7 +61124,7 @@ function multiplierNotes(entry, sizing) {
     out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
   }
   if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
+    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, "day")})` : "";
     out.push(
       `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
     );
@@ -61083,7 +61137,7 @@ function notesOf(sizing) {
 function windowLine(sizing, context3) {
   if (sizing.plannedDays !== void 0) {
     const dates = context3.window?.start && context3.window.end ? ` (${context3.window.start} to ${context3.window.end})` : "";
-    return `Planned window: ${sizing.plannedDays} days${dates}.`;
+    return `Planned window: ${countOf(sizing.plannedDays, "day")}${dates}.`;
   }
   return "Planned window: not set, so power and detectable effect at the end are not computed.";
 }
@@ -61096,7 +61150,7 @@ function mermaidPowerChart(entry, sizing, target) {
   return [
     "```mermaid",
     "xychart-beta",
-    `  title "Power by day: ${entry.metric}"`,
+    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, " ")}"`,
     `  x-axis "day" [${days}]`,
     '  y-axis "power (%)" 0 --> 100',
     `  line [${power}]`,
@@ -61104,33 +61158,51 @@ function mermaidPowerChart(entry, sizing, target) {
     "```"
   ].join("\n");
 }
-function markdownCell(text2) {
-  return text2.replace(/\|/g, "\\|");
-}
 function renderSizingMarkdown(sizing, context3) {
   const table = [
     `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
     `| ${HEADER.map(() => "---").join(" | ")} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
+    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(" | ")} |`)
   ];
   const primary = sizing.metrics.find((m) => m.role === "primary");
   const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context3.power) : void 0;
   const notes = notesOf(sizing);
   return [
-    `### ${context3.title}`,
+    `### ${safeText(context3.title)}`,
     "",
-    [context3.designLine, windowLine(sizing, context3)].filter(Boolean).join(" "),
+    [safeText(context3.designLine), windowLine(sizing, context3)].filter(Boolean).join(" "),
     "",
     ...table,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
+    ...notes.length ? ["", ...notes.map((n) => `- ${safeText(n)}`)] : [],
     ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context3.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
     ""
   ].join("\n");
+}
+function lengthSetter(sizing) {
+  let best;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? entry.result.value.headline?.duration : void 0;
+    if (entry.result.ok && duration3 && (!best || duration3.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration: duration3 };
+  }
+  return best;
+}
+function lengthSummary(sizing) {
+  const setter = lengthSetter(sizing);
+  if (!setter) return void 0;
+  const { entry, duration: duration3 } = setter;
+  const who = entry.role === "guardrail" ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
+  const length = `${countOf(duration3.weeks, "week")} (${who} sets the length: ${countOf(duration3.days, "day")})`;
+  const end = setter.sizing.atPlannedEnd;
+  return end?.power !== void 0 ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, "day")})` } : { length };
 }
 
 // src/core/report/review-markdown.ts
 var REVIEW_MARKER = "<!-- plumbline:review -->";
 var COMMENT_LIMIT = 65536;
+var SUMMARY_LIMIT = 1024 * 1024;
+var measureCharacters = (text2) => text2.length;
+var encoder = new TextEncoder();
+var measureBytes = (text2) => encoder.encode(text2).length;
 var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
 var HEADLINE = {
   blocked: "\u26D4 Plumbline: blocked",
@@ -61139,51 +61211,55 @@ var HEADLINE = {
   "nothing-to-check": "\u2705 Plumbline: nothing to check",
   partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
 };
-function plural2(n, noun) {
-  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+var NOUN = { block: ["blocking finding", "blocking findings"], warn: ["warning", "warnings"], note: ["note", "notes"] };
+function countsText(findings) {
+  return ["block", "warn", "note"].map((s) => [s, findings.filter((f) => f.severity === s).length]).filter(([, n]) => n > 0).map(([s, n]) => countOf(n, ...NOUN[s])).join(", ");
 }
 function where(path6, line, options) {
   if (!path6) return "";
   const label = codeSpan(`${path6}${line ? `:${line}` : ""}`);
-  return options.link ? `[${label}](${options.link(path6, line ?? 1)})` : label;
+  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path6)}#L${line ?? 1}`)})` : label;
 }
 function findingLine(f, options) {
   const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
   const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
 }
-function verdictLine(review) {
-  if (review.verdict === "nothing-to-check") return `### ${HEADLINE[review.verdict]}`;
-  const parts = [
-    review.counts.block ? plural2(review.counts.block, "blocking finding") : "",
-    review.counts.warn ? plural2(review.counts.warn, "warning") : "",
-    review.counts.note ? plural2(review.counts.note, "note") : ""
-  ].filter(Boolean);
-  return `### ${HEADLINE[review.verdict]}${parts.length ? ` \u2014 ${parts.join(", ")}` : ""}`;
+function headline(review) {
+  const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
+  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
+  return `### ${HEADLINE[review.verdict]}${todo}`;
 }
-function planSection(plan, options, detail) {
+function countsLine(review) {
+  const introduced = review.findings.filter((f) => f.origin === "introduced");
+  const known = review.findings.length - introduced.length;
+  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? "Nothing new from this change." : ""];
+  if (known) parts.push(`Already known before it: ${countOf(known, "finding")}.`);
+  parts.push(`<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`);
+  return parts.filter(Boolean).join(" ");
+}
+function planSection(plan, options, detail, withTables) {
+  const checklist = checklistSummary(plan.checklist);
+  const length = lengthSummary(plan.sizing);
+  const found = plan.events.filter((e) => e.location).length;
   const lines = [
     `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
     `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
-    "",
-    ...plan.checklist.map((item) => `- [${item.done ? "x" : " "}] ${item.label}`)
+    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join("; ")}.` : ""}`
   ];
-  if (!detail.planDetails) return lines;
+  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ""} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
+  if (!withTables) return lines;
   const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
-  const body = detail.charts ? sizing : cutChart(sizing);
-  const found = plan.events.filter((e) => e.location).length;
   lines.push(
     "",
-    "<details><summary>Sizing: units, days and power</summary>",
+    "<details><summary>Sizing and events</summary>",
     "",
-    ...body,
-    "</details>",
-    "",
-    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
-    "",
+    ...detail.charts ? sizing : cutChart(sizing),
     "| event | used for | first logged at |",
     "| --- | --- | --- |",
-    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`),
+    ...plan.events.map(
+      (e) => `| ${codeCell(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`
+    ),
     "",
     "</details>"
   );
@@ -61191,32 +61267,43 @@ function planSection(plan, options, detail) {
 }
 function cutChart(lines) {
   const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
-  return start < 0 ? lines : lines.slice(0, start);
+  return start < 0 ? lines : [...lines.slice(0, start), ""];
+}
+function hasChart(review) {
+  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: "", designLine: "", window: p.window, power: p.power }).includes("<summary>Power by day"));
+}
+function findingsSection(review, options, shown) {
+  const listed = review.findings.slice(0, shown);
+  const introduced = listed.filter((f) => f.origin === "introduced");
+  const knownBlocking = listed.filter((f) => f.origin === "known" && f.severity === "block");
+  const knownRest = listed.filter((f) => f.origin === "known" && f.severity !== "block");
+  const out = [];
+  if (introduced.length) out.push("#### Introduced by this change", "", ...introduced.map((f) => findingLine(f, options)), "");
+  if (knownBlocking.length) out.push("#### Still blocking from before this change", "", ...knownBlocking.map((f) => findingLine(f, options)), "");
+  if (knownRest.length) {
+    out.push(`<details><summary>Already known: ${countOf(knownRest.length, "finding")} that held before this change</summary>`, "", ...knownRest.map((f) => findingLine(f, options)), "", "</details>", "");
+  }
+  return out;
 }
 function render(review, options, detail, omitted) {
-  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
+  const out = [REVIEW_MARKER, headline(review), countsLine(review), ""];
   out.push(...coverageNotice(review));
   if (review.verdict === "nothing-to-check") {
     out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
     return out.join("\n");
   }
-  if (review.findings.length) {
-    out.push("#### Findings", "", ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
-    const hidden = review.findings.length - detail.findingsShown;
-    if (hidden > 0) out.push(`- \u2026 and ${plural2(hidden, "more finding")}${options.fullReport ? ` in ${options.fullReport}` : ""}.`);
-    out.push("");
-  }
-  for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
+  out.push(...findingsSection(review, options, detail.findingsShown));
+  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ""));
   if (review.nudge) {
     out.push(
       "#### A small check test for this fix?",
       "",
       ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
       "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      ...review.nudge.sizingLine ? ["", "<details><summary>What it takes to catch a 1% regression</summary>", "", safeText(review.nudge.sizingLine), "", "</details>"] : [],
       "",
-      "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
+      "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
       "",
+      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
       "```yaml",
       review.nudge.planStub.replace(/```/g, "'''"),
       "```",
@@ -61227,51 +61314,83 @@ function render(review, options, detail, omitted) {
   }
   if (review.collisions.length) {
     out.push(
-      "#### Running tests on the same surface",
+      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, "overlap")}</summary>`,
       "",
       "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
       "| --- | --- | --- | --- | --- | --- | --- | --- |",
       ...review.collisions.map(
-        (c) => `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
+        (c) => `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== void 0 ? formatCount(c.overlapDays) : "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
       ),
-      ""
-    );
-  }
-  if (review.flags.length) {
-    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
-    out.push(
-      "<details><summary>Feature flags this change touches</summary>",
-      "",
-      "| flag | where | how | plans |",
-      "| --- | --- | --- | --- |",
-      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeSpan).join(", ") : "**none**"} |`),
-      ...review.flags.length > shown.length ? [``, `\u2026and ${review.flags.length - shown.length} more.`] : [],
       "",
       "</details>",
       ""
     );
   }
-  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(", ")}${options.fullReport ? `; the full report is in ${options.fullReport}` : ""}.</sub>`);
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
+    out.push(
+      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
+      "",
+      "| flag | where | how | plans |",
+      "| --- | --- | --- | --- |",
+      ...shown.map(
+        (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
+      ),
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (omitted.length) {
+    const list2 = omitted.length > 1 ? `${omitted.slice(0, -1).join(", ")} and ${omitted.at(-1)}` : omitted[0];
+    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list2}${options.fullReport ? `. They are in ${options.fullReport}` : ""}.</sub>`);
+  }
   return out.join("\n").replace(/\n{3,}/g, "\n\n");
 }
-function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT) {
-  const steps = [
-    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
-    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ["the power charts"]],
-    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ["the power charts", "the sizing and events tables"]]
-  ];
-  for (const [detail, omitted] of steps) {
-    const body = render(review, options, detail, omitted);
-    if (body.length <= limit) return body;
-  }
-  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
-    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ["the power charts", "the sizing and events tables", "some findings"]);
-    if (body.length <= limit) return body;
+function omissions(review, detail, charts) {
+  const out = [];
+  if (!detail.charts && charts && detail.tablesFor > 0) out.push("the power charts");
+  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
+  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, "plan")}`);
+  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
+  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, "more plan")}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, "row")} of the flags table`);
+  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
+  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, "finding"));
+  return out;
+}
+function halving(n) {
+  const out = [];
+  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
+  return [...out, 0];
+}
+function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measure = measureCharacters) {
+  const plans = review.plans.length;
+  const findings = review.findings.length;
+  const charts = hasChart(review);
+  const attempt = (detail) => {
+    const body = render(review, options, detail, omissions(review, detail, charts));
+    return measure(body) <= limit ? body : void 0;
+  };
+  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
+  const steps = [full, { ...full, charts: false }];
+  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
+  for (const detail of steps) {
+    const body = attempt(detail);
+    if (body !== void 0) return body;
   }
   return `${REVIEW_MARKER}
-${verdictLine(review)}
+${headline(review)}
 
-The full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+The review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+}
+function renderReviewSummary(review, options = {}) {
+  return renderReviewMarkdown(review, { ...options, limitName: "GitHub's job summary size limit" }, SUMMARY_LIMIT, measureBytes);
 }
 
 // src/run/review-change.ts
@@ -62264,10 +62383,10 @@ function sizeMetric(request2) {
       notes.push(`The planned ${request2.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request2.power * 100).toFixed(0)}%.`);
     }
   }
-  const headline = diluted ?? triggered;
+  const headline2 = diluted ?? triggered;
   let powerByDay;
-  if (effect && enrolledPerDay !== void 0 && headline?.duration) {
-    const horizon = Math.max(headline.duration.days, request2.plannedDays ?? 0);
+  if (effect && enrolledPerDay !== void 0 && headline2?.duration) {
+    const horizon = Math.max(headline2.duration.days, request2.plannedDays ?? 0);
     const step = horizon <= 21 ? 1 : 7;
     const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
     powerByDay = [];
@@ -62292,7 +62411,7 @@ function sizeMetric(request2) {
     ...boundaries ? { boundaries: { kind: request2.boundary, z: boundaries.z, nominalP: boundaries.nominalP } } : {},
     ...triggered ? { triggered } : {},
     ...diluted ? { diluted } : {},
-    ...headline ? { headline } : {},
+    ...headline2 ? { headline: headline2 } : {},
     ...atPlannedEnd ? { atPlannedEnd } : {},
     ...powerByDay ? { powerByDay } : {},
     notes
@@ -62986,7 +63105,7 @@ function metricPath(plan, name) {
 }
 
 // src/core/checks/test-length.ts
-function lengthSetter(sizing, pick2 = (s) => s.headline) {
+function lengthSetter2(sizing, pick2 = (s) => s.headline) {
   let longest;
   for (const entry of sizing.metrics) {
     const duration3 = entry.result.ok ? pick2(entry.result.value)?.duration : void 0;
@@ -63076,8 +63195,8 @@ function isolationCost(subject, other) {
   }
   const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
   const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
-  const now = lengthSetter(subject.sizing);
-  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  const now = lengthSetter2(subject.sizing);
+  const isolated = lengthSetter2(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
   if (now && isolated) {
     return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")} (${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")}).`;
   }
@@ -63392,8 +63511,8 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   return out;
 });
 function dilution(sizing, plannedPower) {
-  const asLogged = lengthSetter(sizing, (s) => s.diluted);
-  const triggered = lengthSetter(sizing, (s) => s.triggered);
+  const asLogged = lengthSetter2(sizing, (s) => s.diluted);
+  const triggered = lengthSetter2(sizing, (s) => s.triggered);
   if (!asLogged || !triggered) return void 0;
   const powers = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [m.result.value.atPlannedEnd.power] : []);
   const weakest = powers.length ? Math.min(...powers) : void 0;
@@ -63495,24 +63614,40 @@ function severityFor(code, overrides) {
   return chosen === "block" || chosen === "warn" || chosen === "note" || chosen === "off" ? chosen : fallback;
 }
 var ORDER = { block: 0, warn: 1, note: 2 };
-function buildReview(context3, change2) {
+function findingKey(f) {
+  return [f.code, f.plan ?? "", f.message.replace(/\d+(?:[.,]\d+)*/g, "#")].join("\0");
+}
+function knownAtBase(base) {
+  if (!base) return /* @__PURE__ */ new Set();
+  return new Set(
+    CHECKS.flatMap((check2) => check2(base)).filter((f) => f.plan !== void 0).map(findingKey)
+  );
+}
+function byMention(a, b) {
+  const named = (p) => p.reasons.includes("named in the description") ? 0 : 1;
+  return named(a) - named(b);
+}
+function buildReview(context3, change2, base) {
   const raw = CHECKS.flatMap((check2) => check2(context3));
-  const known = Object.keys(FINDING_CODES);
+  const codes = Object.keys(FINDING_CODES);
   for (const code of Object.keys(context3.settings.severity)) {
-    if (known.includes(code)) continue;
-    const suggestion = closestName(code, known);
+    if (codes.includes(code)) continue;
+    const suggestion = closestName(code, codes);
     raw.push({
       code: "severity-unknown-code",
       message: `The settings set a severity for "${code}", which is not a finding code${suggestion ? `; did you mean "${suggestion}"?` : "."}`,
-      fix: `Use one of: ${known.join(", ")}.`
+      fix: `Use one of: ${codes.join(", ")}.`
     });
   }
+  const known = knownAtBase(base);
   const findings = [];
   for (const finding of raw) {
     const severity2 = severityFor(finding.code, context3.settings.severity);
-    if (severity2 !== "off") findings.push({ ...finding, severity: severity2 });
+    const origin = finding.plan !== void 0 && known.has(findingKey(finding)) ? "known" : "introduced";
+    if (severity2 !== "off") findings.push({ ...finding, severity: severity2, origin });
   }
-  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
+  const originOrder = (f) => f.origin === "introduced" ? 0 : 1;
+  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
   const plans = context3.linked.map((linked) => {
@@ -63533,6 +63668,7 @@ function buildReview(context3, change2) {
       events: eventStatuses(context3, plan.id)
     };
   });
+  plans.sort(byMention);
   const planned = /* @__PURE__ */ new Map();
   for (const e of context3.registry.entries) for (const f of e.flags) planned.set(f, [...planned.get(f) ?? [], e.id]);
   const exempt = new Set(context3.settings.exemptFlags);
@@ -64204,6 +64340,16 @@ async function findPlanFiles(files, planPaths) {
 }
 
 // src/run/review-change.ts
+async function contextAtBase(change2, head, settingsPath) {
+  const loaded = await loadWorkspace({ files: change2.filesAt("base"), ...settingsPath ? { settingsPath } : {} }).catch(() => void 0);
+  if (!loaded?.ok) return void 0;
+  const atBase = new Map(loaded.workspace.plans.map((p) => [p.plan.id, p]));
+  const linked = head.linked.flatMap((l) => {
+    const then = atBase.get(l.loaded.plan.id);
+    return then ? [{ loaded: then, reasons: l.reasons, sizing: sizePlan(then.plan) }] : [];
+  });
+  return { ...head, linked, invalidPlanFiles: [], registry: loaded.workspace.registry };
+}
 async function reviewChange(options) {
   const { change: change2 } = options;
   const trackedAtHead = change2.trackedFiles("head");
@@ -64265,10 +64411,9 @@ async function reviewChange(options) {
       }
     }
   }
-  const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} },
-    { base: change2.base, head: change2.head }
-  );
+  const context3 = { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} };
+  const baseContext = await contextAtBase(change2, context3, options.settingsPath);
+  const review = buildReview(context3, { base: change2.base, head: change2.head }, baseContext);
   const stats = scanner.stats();
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
 }
@@ -64328,14 +64473,16 @@ async function reviewPullRequest(options) {
   const outcome = await reviewChange({ change: change2, pr: event.info, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   if (outcome.kind === "settings-invalid") return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join("\n") };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
-  const markdown = renderReviewMarkdown(review, { link: (path6, line) => `${event.repoUrl}/blob/${review.head}/${encodeURI(path6)}#L${line}`, fullReport: "the job summary" });
-  if (!options.comment) return { review, markdown, notices };
+  const linkBase = `${event.repoUrl}/blob/${review.head}`;
+  const markdown = renderReviewMarkdown(review, { linkBase, fullReport: "the job summary" });
+  const summary2 = renderReviewSummary(review, { linkBase, fullReport: "the JSON report (the Action's report output)" });
+  if (!options.comment) return { review, markdown, summary: summary2, notices };
   try {
     const comment = await upsertStickyComment({ github, issue: event.number, marker: REVIEW_MARKER, body: markdown, botLogin: options.botLogin });
-    return { review, markdown, comment, notices };
+    return { review, markdown, summary: summary2, comment, notices };
   } catch (error63) {
     if (error63 instanceof GitHubError && (error63.status === 403 || error63.status === 404)) {
-      return { review, markdown, notices, commentProblem: `${error63.message}. ${error63.hint ?? ""} The review is in the job summary and annotations instead.` };
+      return { review, markdown, summary: summary2, notices, commentProblem: `${error63.message}. ${error63.hint ?? ""} The review is in the job summary and annotations instead.` };
     }
     throw error63;
   }
@@ -64442,13 +64589,13 @@ var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 function estimateSampleReached(entry, today) {
   if (!entry.plan || !entry.window.start) return void 0;
   const sizing = sizePlan(entry.plan).metrics[0];
-  const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
+  const headline2 = sizing?.result.ok ? sizing.result.value.headline : void 0;
   const daily = entry.plan.design.dailyUnits;
-  if (!headline || daily === void 0) return void 0;
+  if (!headline2 || daily === void 0) return void 0;
   const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
   const days = Math.max(0, inclusiveDays(entry.window.start, end));
   const enrolled = days * daily * entry.plan.design.trafficShare;
-  return enrolled >= headline.totalUnits;
+  return enrolled >= headline2.totalUnits;
 }
 function buildDigest(input2) {
   const { registry: registry2, today, settings } = input2;
@@ -64689,7 +64836,7 @@ ${result.settingsProblems}`, "run plumbline validate locally");
   setOutput("warnings", result.review.counts.warn);
   setOutput("notes", result.review.counts.note);
   setOutput("report", reportPath);
-  await summary.addRaw(result.markdown).write();
+  await summary.addRaw(result.summary).write();
   const fails = shouldFail(result.review, settings["fail-on"]);
   const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? "" : "s"}; see the summary or the pull-request comment.` : void 0;
   for (const a of planAnnotations(result.review, { notices: result.notices, warnings: result.commentProblem ? [result.commentProblem] : [], ...closing ? { closing } : {} })) core_exports[a.kind](a.message, a.properties);

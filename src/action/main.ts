@@ -39,7 +39,7 @@ async function main(): Promise<void> {
   core.setOutput('warnings', result.review.counts.warn);
   core.setOutput('notes', result.review.counts.note);
   core.setOutput('report', reportPath);
-  await core.summary.addRaw(result.markdown).write();
+  await core.summary.addRaw(result.summary).write();
   // Annotations come last, after everything that could still fail, so that a failure's own error line cannot push errors past GitHub's limit.
   const fails = shouldFail(result.review, settings['fail-on']);
   const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? '' : 's'}; see the summary or the pull-request comment.` : undefined;

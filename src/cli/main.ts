@@ -171,7 +171,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
       if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });
       const repoUrl = flags.repoUrl?.replace(/\/+$/, '');
       if (flags.format === 'json') output.out(JSON.stringify(reviewJson(review), null, 2));
-      else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { link: (path, line) => `${repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}` } : {}));
+      else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
       else output.out(renderReviewText(review, { color: output.color }));
       setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
     });

@@ -5,7 +5,7 @@ import { openApiChange } from '../adapters/github-change.js';
 import { GitHubError, PULL_REQUEST_FILES_CAP } from '../adapters/github.js';
 import { formatCount } from '../core/report/numbers.js';
 import { withUnseenFiles, type UnseenFiles } from '../core/review/coverage.js';
-import { renderReviewMarkdown } from '../core/report/review-markdown.js';
+import { renderReviewMarkdown, renderReviewSummary } from '../core/report/review-markdown.js';
 import type { Review } from '../core/review/build-review.js';
 import type { PullRequestInfo } from '../core/review/context.js';
 import type { ChangeSource, GitHubPort } from '../ports.js';
@@ -26,8 +26,10 @@ export interface PullRequestEvent {
 
 export interface ActionReviewResult {
   review: Review;
-  /** The comment body (also the job summary). */
+  /** The comment body, within GitHub's comment limit. */
   markdown: string;
+  /** The job summary: the full report within the summary's own limit (it holds what the comment leaves out). */
+  summary: string;
   comment?: StickyResult;
   /** Set when the comment could not be written (e.g. a fork's read-only token). */
   commentProblem?: string;
@@ -70,14 +72,16 @@ export async function reviewPullRequest(options: {
   const outcome = await reviewChange({ change, pr: event.info, today: new Date().toISOString().slice(0, 10), ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   if (outcome.kind === 'settings-invalid') return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join('\n') };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
-  const markdown = renderReviewMarkdown(review, { link: (path, line) => `${event.repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}`, fullReport: 'the job summary' });
-  if (!options.comment) return { review, markdown, notices };
+  const linkBase = `${event.repoUrl}/blob/${review.head}`;
+  const markdown = renderReviewMarkdown(review, { linkBase, fullReport: 'the job summary' });
+  const summary = renderReviewSummary(review, { linkBase, fullReport: "the JSON report (the Action's report output)" });
+  if (!options.comment) return { review, markdown, summary, notices };
   try {
     const comment = await upsertStickyComment({ github, issue: event.number, marker: REVIEW_MARKER, body: markdown, botLogin: options.botLogin });
-    return { review, markdown, comment, notices };
+    return { review, markdown, summary, comment, notices };
   } catch (error) {
     if (error instanceof GitHubError && (error.status === 403 || error.status === 404)) {
-      return { review, markdown, notices, commentProblem: `${error.message}. ${error.hint ?? ''} The review is in the job summary and annotations instead.` };
+      return { review, markdown, summary, notices, commentProblem: `${error.message}. ${error.hint ?? ''} The review is in the job summary and annotations instead.` };
     }
     throw error;
   }

@@ -4,7 +4,7 @@ import type { LoadedPlan } from '../core/plan/load.js';
 import { eventsOfPlan } from '../core/registry/schema.js';
 import { runningEntries } from '../core/checks/collisions.js';
 import { buildReview, type Review } from '../core/review/build-review.js';
-import type { LinkedPlan, PullRequestInfo } from '../core/review/context.js';
+import type { LinkedPlan, PullRequestInfo, ReviewContext } from '../core/review/context.js';
 import { linkPlans } from '../core/review/link-plans.js';
 import { parseUnifiedDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
@@ -23,6 +23,23 @@ export interface ReviewChangeOptions {
   onProgress?: ProgressReporter;
   /** Today as YYYY-MM-DD (UTC), for dates the review proposes, such as a check test's window. */
   today?: string;
+}
+
+/**
+ * The same review context with the linked plans and the registry as they were at the base commit,
+ * so the review can tell findings this change introduces from ones that already held. The head's
+ * settings, links and event locations are kept: the question is only whether each plan already had
+ * the problem. Undefined when the base cannot be loaded (then every finding counts as introduced).
+ */
+async function contextAtBase(change: ChangeSource, head: ReviewContext, settingsPath: string | undefined): Promise<ReviewContext | undefined> {
+  const loaded = await loadWorkspace({ files: change.filesAt('base'), ...(settingsPath ? { settingsPath } : {}) }).catch(() => undefined);
+  if (!loaded?.ok) return undefined;
+  const atBase = new Map(loaded.workspace.plans.map((p) => [p.plan.id, p]));
+  const linked: LinkedPlan[] = head.linked.flatMap((l) => {
+    const then = atBase.get(l.loaded.plan.id);
+    return then ? [{ loaded: then, reasons: l.reasons, sizing: sizePlan(then.plan) }] : [];
+  });
+  return { ...head, linked, invalidPlanFiles: [], registry: loaded.workspace.registry };
 }
 
 export type ReviewOutcome =
@@ -106,10 +123,9 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     }
   }
 
-  const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...(options.today ? { today: options.today } : {}) },
-    { base: change.base, head: change.head },
-  );
+  const context: ReviewContext = { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...(options.today ? { today: options.today } : {}) };
+  const baseContext = await contextAtBase(change, context, options.settingsPath);
+  const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
 }

@@ -1,5 +1,5 @@
 import { execFileSync } from 'node:child_process';
-import { rmSync } from 'node:fs';
+import { readFileSync, rmSync } from 'node:fs';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { startFakeGitHub, type FakeGitHub } from '../helpers/fake-github.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
@@ -49,7 +49,10 @@ describe('the bundled Action against a fake GitHub', () => {
     const { repo, github, event } = await setup(blockingChange);
     const run = await runAction({ github, workspace: repo.root, event });
     expect(run.status).toBe(1);
-    expect(run.stdout).toMatch(/::error title=Plumbline decisions-missing,file=experiments\/good\.yaml,line=1::No decision rule for flat, loss, guardrail-breach/);
+    // The annotation lands on the plan's decisions: key, where the fix goes.
+    const decisionsLine = blockingChange['experiments/good.yaml']!.split('\n').findIndex((l) => l.startsWith('decisions:')) + 1;
+    expect(decisionsLine).toBeGreaterThan(1);
+    expect(run.stdout).toContain(`::error title=Plumbline decisions-missing,file=experiments/good.yaml,line=${decisionsLine}::No decision rule for flat, loss, guardrail-breach`);
     expect(run.outputs.verdict).toBe('blocked');
     expect(github.comments(7)[0]!.body).toContain('⛔ Plumbline: blocked');
     expect(github.refused).toEqual([]);
@@ -194,8 +197,43 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(run.status, run.stdout).toBe(0);
     const body = github.comments(7)[0]!.body;
     expect(body.length).toBeLessThanOrEqual(65536);
-    expect(body).toContain("To fit GitHub's comment size limit");
+    expect(body).toContain("Left out to fit GitHub's comment size limit");
     expect(run.outputs.warnings).toBe('900');
+  });
+
+  it('writes the full review of 40 plans to the job summary and says in the comment what it left out', async () => {
+    const plans: Record<string, string> = {};
+    for (let i = 0; i < 40; i++) {
+      const plan = cleanPlan({
+        id: `plan-${i}`,
+        flags: [`flag-${i}`],
+        surface: { path: `shop/area-${i}` },
+        hypothesis: { change: 'A clearer cart.', 'expected-direction': 'increase' },
+        metrics: {
+          primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.3 }, events: [`never_logged_${i}`] },
+          guardrails: [{ name: 'errors', kind: 'proportion', baseline: { rate: 0.02 }, events: ['cart_error'], direction: 'decrease', tolerance: { relative: 0.2 } }],
+        },
+      });
+      plans[`experiments/plan-${i}.yaml`] = planYaml(plan);
+    }
+    const { repo, github, event } = await setup(plans);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const report = JSON.parse(readFileSync(run.outputs.report!, 'utf8')) as { findings: { code: string; plan?: string }[] };
+    expect(report.findings.length).toBeGreaterThanOrEqual(80);
+    // Every finding and every plan's sizing is in the summary, which is not cut.
+    for (const f of report.findings) expect(run.summary).toContain(`**${f.code}** · \`${f.plan}\``);
+    const sections = run.summary.split('\n#### Plan ').slice(1);
+    expect(sections).toHaveLength(40);
+    for (const section of sections) expect(section).toContain('<summary>Sizing and events</summary>');
+    expect(run.summary).not.toContain('Left out to fit');
+    // The comment fits and names what it left out, by count, and where it is.
+    const body = github.comments(7)[0]!.body;
+    expect(body.length).toBeLessThanOrEqual(65536);
+    const note = /Left out to fit GitHub's comment size limit: (.*)\. They are in the job summary\./.exec(body);
+    expect(note, body.slice(-500)).not.toBeNull();
+    const tables = /the sizing and events tables of (\d+) plans/.exec(note![1]!);
+    expect(Number(tables![1])).toBe(40 - (body.match(/<summary>Sizing and events<\/summary>/g) ?? []).length);
   });
 
   it('says the review is partial, in the verdict, the comment and the JSON report, when GitHub caps the file list at 3,000', async () => {

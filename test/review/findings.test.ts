@@ -228,7 +228,8 @@ describe('the bug-fix nudge', () => {
     const note = renderReviewMarkdown(r).split('#### A small check test for this fix?')[1] ?? '';
     // The two-week figure comes first; the 1% sizing sits inside a collapsed <details>.
     expect(note.trimStart().startsWith('In two weeks at 40,000')).toBe(true);
-    expect(note).toMatch(/<details><summary>What it takes to catch a 1% regression<\/summary>\n\nTo catch a 1% relative regression[^\n]*\n\n<\/details>/);
+    // The 1% sizing is collapsed: inside the details element, never in the lines shown.
+    expect(note).toMatch(/<details><summary>Sizing, and a plan to paste[^<]*<\/summary>\n\nTo catch a 1% relative regression[^\n]*\n/);
     expect(r.nudge?.sizingLine).toMatch(/^To catch a 1% relative regression in checkout-errors \(2\.00% → 2\.02%\) at 40,000 eligible units a day, half of them getting the fix: [\d,]+ units per arm, \d+ weeks \([\d,]+ days\); one-sided α 0\.05, power 80%\.$/);
   });
 

@@ -2,7 +2,8 @@ import { readFileSync, rmSync } from 'node:fs';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
-import { renderReviewMarkdown, REVIEW_MARKER, COMMENT_LIMIT } from '../../src/core/report/review-markdown.js';
+import { renderReviewMarkdown, renderReviewSummary, REVIEW_MARKER, COMMENT_LIMIT, SUMMARY_LIMIT } from '../../src/core/report/review-markdown.js';
+import { formatWeeks, countOf } from '../../src/core/report/numbers.js';
 import { renderReviewText } from '../../src/core/report/review-text.js';
 import { reviewJson } from '../../src/core/review/report-schema.js';
 import type { Review } from '../../src/core/review/build-review.js';
@@ -30,11 +31,11 @@ const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').r
 describe('the demo review', () => {
   it('blocks on the missing decision rules and the removed exposure event', () => {
     expect(review.verdict).toBe('blocked');
-    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['decisions-missing', 'event-removed']);
+    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['event-removed', 'decisions-missing']);
   });
 
   it('matches the golden Markdown comment', async () => {
-    const markdown = renderReviewMarkdown(review, { link: (path, line) => `https://github.com/bramblecart/shop/blob/${review.head}/${path}#L${line}` });
+    const markdown = renderReviewMarkdown(review, { linkBase: `https://github.com/bramblecart/shop/blob/${review.head}` });
     await expect(normalize(markdown)).toMatchFileSnapshot('golden/demo-review.md');
   });
 
@@ -63,6 +64,7 @@ describe('untrusted text in the comment', () => {
         plan: 'evil`plan',
         file: 'src/`weird`.ts',
         line: 3,
+        origin: 'introduced',
       },
     ],
   });
@@ -81,14 +83,24 @@ describe('untrusted text in the comment', () => {
 describe('the comment size budget', () => {
   const huge = (): Review => ({
     ...review,
-    findings: Array.from({ length: 3000 }, (_, i) => ({ code: 'event-missing', severity: 'warn' as const, message: `Event number ${i} `.repeat(8), fix: 'Log it.', plan: 'p', file: `src/file-${i}.ts`, line: i + 1 })),
+    findings: Array.from({ length: 3000 }, (_, i) => ({ code: 'event-missing', severity: 'warn' as const, message: `Event number ${i} `.repeat(8), fix: 'Log it.', plan: 'p', file: `src/file-${i}.ts`, line: i + 1, origin: 'introduced' as const })),
   });
 
   it('stays under GitHub’s 65,536 characters and says what it left out', () => {
     const markdown = renderReviewMarkdown(huge(), { fullReport: 'the job summary' });
     expect(markdown.length).toBeLessThanOrEqual(COMMENT_LIMIT);
-    expect(markdown).toContain("To fit GitHub's comment size limit, this comment leaves out the power charts, the sizing and events tables, some findings; the full report is in the job summary.");
-    expect(markdown).toMatch(/… and \d+ more findings in the job summary\./);
+    const note = /Left out to fit GitHub's comment size limit: the sizing and events tables of 3 plans, 3 rows of the flags table and ([\d,]+) findings\. They are in the job summary\./.exec(markdown);
+    expect(note, markdown.slice(-400)).not.toBeNull();
+    const listed = (markdown.match(/^- [⛔⚠️ℹ️]+ \*\*/gmu) ?? []).length;
+    expect(Number(note![1]!.replace(/,/g, ''))).toBe(3000 - listed);
+  });
+
+  it('keeps the whole review in the job summary, whose budget is 1 MiB of UTF-8', () => {
+    const many = huge();
+    const summary = renderReviewSummary(many);
+    expect(new TextEncoder().encode(summary).length).toBeLessThanOrEqual(SUMMARY_LIMIT);
+    expect(summary).not.toContain('Left out');
+    for (const f of many.findings) expect(summary).toContain(`${f.file}:${f.line}`);
   });
 
   it('drops the charts first when only they do not fit', () => {
@@ -96,7 +108,72 @@ describe('the comment size budget', () => {
     const limit = full.length - 1;
     const smaller = renderReviewMarkdown(review, {}, limit);
     expect(smaller.length).toBeLessThanOrEqual(limit);
-    expect(smaller).toContain('leaves out the power charts.');
-    expect(smaller).toContain('<summary>Sizing: units, days and power</summary>');
+    expect(smaller).toContain("Left out to fit GitHub's comment size limit: the power charts.");
+    expect(smaller).toContain('<summary>Sizing and events</summary>');
+  });
+
+  // Two screens of a laptop browser hold about 50 lines of a rendered comment (our bound; README's demo section quotes it).
+  it('shows the demo review in at most 50 lines outside collapsed details', () => {
+    const markdown = renderReviewMarkdown(review);
+    let depth = 0;
+    let visible = 0;
+    for (const line of markdown.split('\n')) {
+      if (depth === 0) visible++;
+      depth += (line.match(/<details>/g) ?? []).length - (line.match(/<\/details>/g) ?? []).length;
+    }
+    expect(depth).toBe(0);
+    expect(visible).toBeLessThanOrEqual(50);
+  });
+});
+
+describe('the comment for the person who opened the pull request', () => {
+  it('starts with the verdict and the blocking finding’s fix', () => {
+    const first = renderReviewMarkdown(review).split('\n')[1]!;
+    const blocking = review.findings.find((f) => f.severity === 'block')!;
+    expect(first).toBe(`### ⛔ Plumbline: blocked — first: ${blocking.fix}`);
+  });
+
+  it('puts the plans the description names first', () => {
+    const named = review.plans.map((p) => p.reasons.includes('named in the description'));
+    expect(named).toEqual([...named].sort((a, b) => Number(b) - Number(a)));
+    expect(named[0]).toBe(true);
+    expect(review.plans.map((p) => p.id)).toEqual(['delivery-slot-nudge', 'search-suggestions-v2', 'checkout-tip-prompt']);
+  });
+
+  it('shows failed checklist items with a count instead of every ticked box', () => {
+    const markdown = renderReviewMarkdown(review);
+    expect(markdown).not.toMatch(/^- \[[ x]\] /m);
+    expect(markdown).toContain('**10 of 11 hold.** Not yet: No collision with a running test.');
+  });
+
+  it('says a collision once in sight: the finding, with the table collapsed', () => {
+    const markdown = renderReviewMarkdown(review);
+    expect(markdown).toMatch(/<details><summary>Running tests on the same surface: 2 overlaps<\/summary>/);
+    expect(markdown).not.toContain('#### Running tests on the same surface');
+  });
+
+  it('states lengths in weeks for the metric that sets the length, the same in text and Markdown', () => {
+    const markdown = renderReviewMarkdown(review);
+    const text = renderReviewText(review, { color: false });
+    // delivery-slot-nudge: the primary needs 10 days, the guardrail slot-booked 15, so the guardrail sets the length.
+    for (const out of [markdown, text]) expect(out).toContain('3 weeks (guardrail slot-booked sets the length: 15 days)');
+    expect(text).toContain('>99.9% for order-placed by the planned end (28 days)');
+    expect(markdown).toContain('&gt;99.9% for order-placed by the planned end (28 days)');
+    expect(text).not.toMatch(/100\.0%|\b1 weeks\b|\d{4} days/);
+  });
+});
+
+describe('numbers in words', () => {
+  it.each([
+    [1, 'week', '1 week'],
+    [2, 'week', '2 weeks'],
+    [2274, 'day', '2,274 days'],
+    [1, 'draft', '1 draft'],
+    [0, 'collision', '0 collisions'],
+  ])('%s %s -> %s', (n, noun, expected) => expect(countOf(n, noun)).toBe(expected));
+
+  it('leads a length with whole weeks and separates thousands', () => {
+    expect(formatWeeks({ days: 2274, weeks: 325 })).toBe('325 weeks (2,274 days)');
+    expect(formatWeeks({ days: 7, weeks: 1 })).toBe('1 week (7 days)');
   });
 });

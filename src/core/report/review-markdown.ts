@@ -1,19 +1,33 @@
-import type { PlanReview, Review, Verdict } from '../review/build-review.js';
-import type { Finding, Severity } from '../review/finding.js';
+import type { PlanReview, Review, ReviewFinding, Verdict } from '../review/build-review.js';
+import type { Severity } from '../review/finding.js';
+import { codeCell, codeSpan, inCell, linkTarget, safeCell, safeMessage, safeText, urlPath } from './markdown-safe.js';
+import { formatCount, countOf } from './numbers.js';
 import { coverageNotice } from './coverage-notice.js';
-import { codeSpan, safeCell, safeText } from './markdown-safe.js';
-import { renderSizingMarkdown } from './sizing.js';
+import { checklistSummary } from './review-summary.js';
+import { lengthSummary, renderSizingMarkdown } from './sizing.js';
 
-/** The hidden marker that finds our comment again. User text can never contain it: `<` is escaped. */
+/** The hidden marker that finds our comment again. User text can never contain it (see markdown-safe). */
 export const REVIEW_MARKER = '<!-- plumbline:review -->';
 /** GitHub refuses comment bodies longer than this many characters. */
 export const COMMENT_LIMIT = 65_536;
+/** GitHub shows a step's job summary up to 1 MiB (bytes of UTF-8). */
+export const SUMMARY_LIMIT = 1024 * 1024;
+
+/** The size of a text as a budget counts it. */
+export type Measure = (text: string) => number;
+/** Comment bodies are limited in characters (JavaScript counts UTF-16 units, which never undercounts). */
+export const measureCharacters: Measure = (text) => text.length;
+const encoder = new TextEncoder();
+/** Job summaries are limited in bytes. */
+export const measureBytes: Measure = (text) => encoder.encode(text).length;
 
 export interface MarkdownOptions {
-  /** A link to a file at head, e.g. https://github.com/o/r/blob/<sha>/<path>#L<line>; undefined: plain text. */
-  link?: (path: string, line: number) => string;
-  /** Where the full report is, named when detail is left out. */
+  /** Files link to `<linkBase>/<path>#L<line>`, e.g. https://github.com/o/r/blob/<sha>; undefined: plain text. */
+  linkBase?: string;
+  /** Where detail left out to fit is found in full, e.g. "the job summary". */
   fullReport?: string;
+  /** What limits the size: "GitHub's comment size limit" unless said. */
+  limitName?: string;
 }
 
 const ICON: Record<Severity, string> = { block: '⛔', warn: '⚠️', note: 'ℹ️' };
@@ -24,64 +38,83 @@ const HEADLINE: Record<Verdict, string> = {
   'nothing-to-check': '✅ Plumbline: nothing to check',
   partial: '⚠️ Plumbline: partial review, nothing found in the files seen',
 };
+const NOUN: Record<Severity, [string, string]> = { block: ['blocking finding', 'blocking findings'], warn: ['warning', 'warnings'], note: ['note', 'notes'] };
 
-function plural(n: number, noun: string): string {
-  return `${n} ${noun}${n === 1 ? '' : 's'}`;
+function countsText(findings: readonly ReviewFinding[]): string {
+  return (['block', 'warn', 'note'] as const)
+    .map((s) => [s, findings.filter((f) => f.severity === s).length] as const)
+    .filter(([, n]) => n > 0)
+    .map(([s, n]) => countOf(n, ...NOUN[s]))
+    .join(', ');
 }
 
 function where(path: string | undefined, line: number | undefined, options: MarkdownOptions): string {
   if (!path) return '';
   const label = codeSpan(`${path}${line ? `:${line}` : ''}`);
-  return options.link ? `[${label}](${options.link(path, line ?? 1)})` : label;
+  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
 }
 
-function findingLine(f: Finding, options: MarkdownOptions): string {
+function findingLine(f: ReviewFinding, options: MarkdownOptions): string {
   const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
   const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
 }
 
-function verdictLine(review: Review): string {
-  if (review.verdict === 'nothing-to-check') return `### ${HEADLINE[review.verdict]}`;
-  const parts = [
-    review.counts.block ? plural(review.counts.block, 'blocking finding') : '',
-    review.counts.warn ? plural(review.counts.warn, 'warning') : '',
-    review.counts.note ? plural(review.counts.note, 'note') : '',
-  ].filter(Boolean);
-  return `### ${HEADLINE[review.verdict]}${parts.length ? ` — ${parts.join(', ')}` : ''}`;
+/** The first visible line: the verdict, and the one thing to do first when something blocks or warns. */
+function headline(review: Review): string {
+  const first = review.findings.find((f) => f.severity === 'block') ?? review.findings.find((f) => f.severity === 'warn');
+  const todo = review.verdict === 'blocked' || review.verdict === 'warnings' ? (first ? ` — first: ${safeMessage(first.fix)}` : '') : '';
+  return `### ${HEADLINE[review.verdict]}${todo}`;
 }
 
+/** The second line: what this change introduced, what already held before it, and the commits compared. */
+function countsLine(review: Review): string {
+  const introduced = review.findings.filter((f) => f.origin === 'introduced');
+  const known = review.findings.length - introduced.length;
+  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? 'Nothing new from this change.' : ''];
+  if (known) parts.push(`Already known before it: ${countOf(known, 'finding')}.`);
+  parts.push(`<sub>Compared ${review.base.slice(0, 7)}…${review.head.slice(0, 7)}</sub>`);
+  return parts.filter(Boolean).join(' ');
+}
+
+/** How much detail one rendering keeps; every step down is named in the note at the end. */
 interface Detail {
   charts: boolean;
-  planDetails: boolean;
+  /** Plans (in order) that keep their sizing and events tables. */
+  tablesFor: number;
+  /** Findings (in order: blocking first) that are listed. */
   findingsShown: number;
+  /** Plans (in order) that keep their section at all. */
+  plansShown: number;
+  /** Rows of the table of flags the change touches. */
+  flagsShown: number;
 }
 
-function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail): string[] {
+function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail, withTables: boolean): string[] {
+  const checklist = checklistSummary(plan.checklist);
+  const length = lengthSummary(plan.sizing);
+  const found = plan.events.filter((e) => e.location).length;
   const lines = [
     `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
     `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, options)} · linked because: ${plan.reasons.join(', ')}`,
-    '',
-    ...plan.checklist.map((item) => `- [${item.done ? 'x' : ' '}] ${item.label}`),
+    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join('; ')}.` : ''}`,
   ];
-  if (!detail.planDetails) return lines;
+  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ''} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
+  if (!withTables) return lines;
   const sizing = renderSizingMarkdown(plan.sizing, { title: 'Sizing', designLine: '', window: plan.window, power: plan.power })
     .split('\n')
     .filter((l) => !l.startsWith('### '));
-  const body = detail.charts ? sizing : cutChart(sizing);
-  const found = plan.events.filter((e) => e.location).length;
   lines.push(
     '',
-    '<details><summary>Sizing: units, days and power</summary>',
+    '<details><summary>Sizing and events</summary>',
     '',
-    ...body,
-    '</details>',
-    '',
-    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
-    '',
+    ...(detail.charts ? sizing : cutChart(sizing)),
     '| event | used for | first logged at |',
     '| --- | --- | --- |',
-    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(', '))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === 'literal' ? ' (as a string, not in a logging call)' : ''}` : '**missing**'} |`),
+    ...plan.events.map(
+      (e) =>
+        `| ${codeCell(e.event)} | ${safeCell(e.roles.join(', '))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === 'literal' ? ' (as a string, not in a logging call)' : ''}` : '**missing**'} |`,
+    ),
     '',
     '</details>',
   );
@@ -90,33 +123,47 @@ function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail)
 
 function cutChart(lines: string[]): string[] {
   const start = lines.findIndex((l) => l.startsWith('<details><summary>Power by day'));
-  return start < 0 ? lines : lines.slice(0, start);
+  return start < 0 ? lines : [...lines.slice(0, start), ''];
+}
+
+function hasChart(review: Review): boolean {
+  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: '', designLine: '', window: p.window, power: p.power }).includes('<summary>Power by day'));
+}
+
+function findingsSection(review: Review, options: MarkdownOptions, shown: number): string[] {
+  const listed = review.findings.slice(0, shown);
+  const introduced = listed.filter((f) => f.origin === 'introduced');
+  // A known blocking finding still blocks the merge, so it stays in sight; other known ones fold away.
+  const knownBlocking = listed.filter((f) => f.origin === 'known' && f.severity === 'block');
+  const knownRest = listed.filter((f) => f.origin === 'known' && f.severity !== 'block');
+  const out: string[] = [];
+  if (introduced.length) out.push('#### Introduced by this change', '', ...introduced.map((f) => findingLine(f, options)), '');
+  if (knownBlocking.length) out.push('#### Still blocking from before this change', '', ...knownBlocking.map((f) => findingLine(f, options)), '');
+  if (knownRest.length) {
+    out.push(`<details><summary>Already known: ${countOf(knownRest.length, 'finding')} that held before this change</summary>`, '', ...knownRest.map((f) => findingLine(f, options)), '', '</details>', '');
+  }
+  return out;
 }
 
 function render(review: Review, options: MarkdownOptions, detail: Detail, omitted: string[]): string {
-  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}…${review.head.slice(0, 7)}</sub>`, ''];
+  const out = [REVIEW_MARKER, headline(review), countsLine(review), ''];
   out.push(...coverageNotice(review));
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
     return out.join('\n');
   }
-  if (review.findings.length) {
-    out.push('#### Findings', '', ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
-    const hidden = review.findings.length - detail.findingsShown;
-    if (hidden > 0) out.push(`- … and ${plural(hidden, 'more finding')}${options.fullReport ? ` in ${options.fullReport}` : ''}.`);
-    out.push('');
-  }
-  for (const plan of review.plans) out.push(...planSection(plan, options, detail), '');
+  out.push(...findingsSection(review, options, detail.findingsShown));
+  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ''));
   if (review.nudge) {
     out.push(
       '#### A small check test for this fix?',
       '',
       ...(review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ''] : []),
       'A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.',
-      ...(review.nudge.sizingLine ? ['', '<details><summary>What it takes to catch a 1% regression</summary>', '', safeText(review.nudge.sizingLine), '', '</details>'] : []),
       '',
-      '<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>',
+      '<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>',
       '',
+      ...(review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ''] : []),
       '```yaml',
       review.nudge.planStub.replace(/```/g, "'''"),
       '```',
@@ -127,52 +174,94 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
   }
   if (review.collisions.length) {
     out.push(
-      '#### Running tests on the same surface',
+      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, 'overlap')}</summary>`,
       '',
       '| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |',
       '| --- | --- | --- | --- | --- | --- | --- | --- |',
       ...review.collisions.map(
         (c) =>
-          `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? ' (declared)' : ''} | ${safeCell(c.owners.join(', '))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? 'unknown'} | ${safeCell(c.platforms === 'all' ? 'all' : c.platforms.join(', '))} | ${safeCell(c.locales === 'all' ? 'all' : c.locales.join(', '))} | ${Math.round(c.trafficShare * 100)}% |`,
+          `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? ' (declared)' : ''} | ${safeCell(c.owners.join(', '))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== undefined ? formatCount(c.overlapDays) : 'unknown'} | ${safeCell(c.platforms === 'all' ? 'all' : c.platforms.join(', '))} | ${safeCell(c.locales === 'all' ? 'all' : c.locales.join(', '))} | ${Math.round(c.trafficShare * 100)}% |`,
       ),
-      '',
-    );
-  }
-  if (review.flags.length) {
-    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
-    out.push(
-      '<details><summary>Feature flags this change touches</summary>',
-      '',
-      '| flag | where | how | plans |',
-      '| --- | --- | --- | --- |',
-      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeSpan).join(', ') : '**none**'} |`),
-      ...(review.flags.length > shown.length ? [``, `…and ${review.flags.length - shown.length} more.`] : []),
       '',
       '</details>',
       '',
     );
   }
-  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(', ')}${options.fullReport ? `; the full report is in ${options.fullReport}` : ''}.</sub>`);
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
+    out.push(
+      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
+      '',
+      '| flag | where | how | plans |',
+      '| --- | --- | --- | --- |',
+      ...shown.map(
+        (f) =>
+          `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeCell).join(', ') : '**none**'} |`,
+      ),
+      '',
+      '</details>',
+      '',
+    );
+  }
+  if (omitted.length) {
+    const list = omitted.length > 1 ? `${omitted.slice(0, -1).join(', ')} and ${omitted.at(-1)}` : omitted[0];
+    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list}${options.fullReport ? `. They are in ${options.fullReport}` : ''}.</sub>`);
+  }
   return out.join('\n').replace(/\n{3,}/g, '\n\n');
 }
 
+/** What a step leaves out, in words a reader can act on. */
+function omissions(review: Review, detail: Detail, charts: boolean): string[] {
+  const out: string[] = [];
+  if (!detail.charts && charts && detail.tablesFor > 0) out.push('the power charts');
+  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
+  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, 'plan')}`);
+  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
+  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, 'more plan')}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, 'row')} of the flags table`);
+  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
+  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, 'finding'));
+  return out;
+}
+
+/** n, then about half as many each time, down to 0: few renderings even for thousands of items. */
+function halving(n: number): number[] {
+  const out: number[] = [];
+  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
+  return [...out, 0];
+}
+
 /**
- * The pull-request comment. It stays under GitHub's limit by leaving out detail in stated steps:
- * the power charts first, then the per-plan sizing and events tables, then findings beyond the first ones.
+ * The review as Markdown within a size budget: the comment (65,536 characters) or the job summary
+ * (1 MiB). Detail goes in stated steps, each only when the previous one did not fit: the power
+ * charts, then the sizing and events tables plan by plan from the last, then rows of the flags
+ * table, then findings from the last (notes before warnings before blocking ones), then plan sections. The note at the end says
+ * exactly what was left out and where it is.
  */
-export function renderReviewMarkdown(review: Review, options: MarkdownOptions = {}, limit = COMMENT_LIMIT): string {
-  const steps: [Detail, string[]][] = [
-    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
-    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ['the power charts']],
-    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ['the power charts', 'the sizing and events tables']],
-  ];
-  for (const [detail, omitted] of steps) {
-    const body = render(review, options, detail, omitted);
-    if (body.length <= limit) return body;
+export function renderReviewMarkdown(review: Review, options: MarkdownOptions = {}, limit = COMMENT_LIMIT, measure: Measure = measureCharacters): string {
+  const plans = review.plans.length;
+  const findings = review.findings.length;
+  const charts = hasChart(review);
+  const attempt = (detail: Detail) => {
+    const body = render(review, options, detail, omissions(review, detail, charts));
+    return measure(body) <= limit ? body : undefined;
+  };
+  const full: Detail = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
+  const steps: Detail[] = [full, { ...full, charts: false }];
+  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
+  for (const detail of steps) {
+    const body = attempt(detail);
+    if (body !== undefined) return body;
   }
-  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
-    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ['the power charts', 'the sizing and events tables', 'some findings']);
-    if (body.length <= limit) return body;
-  }
-  return `${REVIEW_MARKER}\n${verdictLine(review)}\n\nThe full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ''}.`;
+  return `${REVIEW_MARKER}\n${headline(review)}\n\nThe review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ''}.`;
+}
+
+/** The job summary: the same report under the summary's own 1 MiB budget, so it holds what the comment left out. */
+export function renderReviewSummary(review: Review, options: MarkdownOptions = {}): string {
+  return renderReviewMarkdown(review, { ...options, limitName: "GitHub's job summary size limit" }, SUMMARY_LIMIT, measureBytes);
 }

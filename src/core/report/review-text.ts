@@ -1,5 +1,8 @@
 import type { Review } from '../review/build-review.js';
 import type { Severity } from '../review/finding.js';
+import { formatCount, countOf } from './numbers.js';
+import { checklistSummary } from './review-summary.js';
+import { lengthSummary } from './sizing.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
 
 const LABEL: Record<Severity, string> = { block: 'BLOCK', warn: 'warn ', note: 'note ' };
@@ -16,30 +19,27 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
     'nothing-to-check': style.green('nothing to check'),
     partial: style.yellow('partial review, nothing found in the files seen'),
   }[review.verdict];
-  const n = (count: number, noun: string) => `${count} ${noun}${count === 1 ? '' : 's'}`;
-  out.push(`${style.bold('Plumbline')}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, 'warning')}, ${n(review.counts.note, 'note')}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  const known = review.findings.filter((f) => f.origin === 'known').length;
+  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, 'warning')}, ${countOf(review.counts.note, 'note')}${known ? `; ${formatCount(known)} already held before this change` : ''}`;
+  out.push(`${style.bold('Plumbline')}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
     return out.join('\n');
   }
   for (const f of review.findings) {
     const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ''}: ` : '';
-    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ''}: ${terminalSafe(f.message)}`);
+    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ''}${f.origin === 'known' ? style.dim(' (already known)') : ''}: ${terminalSafe(f.message)}`);
     out.push(`    fix: ${terminalSafe(f.fix)}`);
   }
   for (const plan of review.plans) {
-    out.push('', `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(', '))}) ${plan.file}:${plan.line}`);
-    for (const item of plan.checklist) out.push(`  [${item.done ? style.green('x') : style.red(' ')}] ${item.label}`);
-    const primary = plan.sizing.metrics[0];
-    if (primary?.result.ok && primary.result.value.headline) {
-      const h = primary.result.value.headline;
-      const end = primary.result.value.atPlannedEnd;
-      out.push(
-        `  sizing: ${h.totalUnits.toLocaleString('en-US')} units${h.duration ? `, ${h.duration.days} days (${h.duration.weeks} weeks)` : ''}${end?.power !== undefined ? `, ${(end.power * 100).toFixed(1)}% power by the planned end` : ''}; details: plumbline size ${plan.id}`,
-      );
-    }
+    out.push('', `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(', '))}) ${terminalSafe(plan.file)}:${plan.line}`);
+    const checklist = checklistSummary(plan.checklist);
+    out.push(`  checklist: ${checklist.count}`);
+    for (const label of checklist.failing) out.push(`  [${style.red(' ')}] ${label}`);
+    const length = lengthSummary(plan.sizing);
+    if (length) out.push(`  length: ${terminalSafe(length.length)}${length.power ? `; power: ${terminalSafe(length.power)}` : ''}; details: plumbline size ${terminalSafe(plan.id)}`);
     const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
-    out.push(`  events: ${plan.events.length - missing.length} of ${plan.events.length} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(', '))})` : ''}`);
+    out.push(`  events: ${formatCount(plan.events.length - missing.length)} of ${formatCount(plan.events.length)} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(', '))})` : ''}`);
   }
   return out.join('\n');
 }

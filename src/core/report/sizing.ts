@@ -1,6 +1,7 @@
 import type { MetricSizingEntry, PlanSizing } from '../stats/plan-sizing.js';
 import type { AnalysisSize, MetricSizing } from '../stats/sizing.js';
-import { formatCount, formatMultiplier, formatPower, formatRate, formatRelative, formatValue } from './numbers.js';
+import { formatCount, formatMultiplier, formatPower, formatRate, formatRelative, formatValue, countOf } from './numbers.js';
+import { safeCell, safeText } from './markdown-safe.js';
 import { formatTable } from './terminal-style.js';
 
 /** Everything the renderers need besides the numbers. */
@@ -29,7 +30,7 @@ export function describeChange(entry: MetricSizingEntry, change: { from?: number
 function sizeCells(size: AnalysisSize | undefined): [string, string, string, string] {
   if (!size) return ['', '', '', ''];
   const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0]!.units) : size.perArm.map((a) => formatCount(a.units)).join(' / ');
-  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : '', size.duration ? String(size.duration.weeks) : ''];
+  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : '', size.duration ? formatCount(size.duration.weeks) : ''];
 }
 
 interface Row {
@@ -64,7 +65,7 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
     out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| ≥ ${z} (nominal p ${p}).`);
   }
   if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : '';
+    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, 'day')})` : '';
     out.push(
       `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`,
     );
@@ -79,7 +80,7 @@ function notesOf(sizing: PlanSizing): string[] {
 function windowLine(sizing: PlanSizing, context: SizingContext): string {
   if (sizing.plannedDays !== undefined) {
     const dates = context.window?.start && context.window.end ? ` (${context.window.start} to ${context.window.end})` : '';
-    return `Planned window: ${sizing.plannedDays} days${dates}.`;
+    return `Planned window: ${countOf(sizing.plannedDays, 'day')}${dates}.`;
   }
   return 'Planned window: not set, so power and detectable effect at the end are not computed.';
 }
@@ -109,7 +110,7 @@ function mermaidPowerChart(entry: MetricSizingEntry, sizing: MetricSizing, targe
   return [
     '```mermaid',
     'xychart-beta',
-    `  title "Power by day: ${entry.metric}"`,
+    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, ' ')}"`,
     `  x-axis "day" [${days}]`,
     '  y-axis "power (%)" 0 --> 100',
     `  line [${power}]`,
@@ -118,26 +119,22 @@ function mermaidPowerChart(entry: MetricSizingEntry, sizing: MetricSizing, targe
   ].join('\n');
 }
 
-function markdownCell(text: string): string {
-  return text.replace(/\|/g, '\\|');
-}
-
 export function renderSizingMarkdown(sizing: PlanSizing, context: SizingContext & { power: number }): string {
   const table = [
     `| ${HEADER.map((h) => h.toLowerCase()).join(' | ')} |`,
     `| ${HEADER.map(() => '---').join(' | ')} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(' | ')} |`),
+    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(' | ')} |`),
   ];
   const primary = sizing.metrics.find((m) => m.role === 'primary');
   const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context.power) : undefined;
   const notes = notesOf(sizing);
   return [
-    `### ${context.title}`,
+    `### ${safeText(context.title)}`,
     '',
-    [context.designLine, windowLine(sizing, context)].filter(Boolean).join(' '),
+    [safeText(context.designLine), windowLine(sizing, context)].filter(Boolean).join(' '),
     '',
     ...table,
-    ...(notes.length ? ['', ...notes.map((n) => `- ${n}`)] : []),
+    ...(notes.length ? ['', ...notes.map((n) => `- ${safeText(n)}`)] : []),
     ...(chart ? ['', `<details><summary>Power by day (the flat line is the planned ${(context.power * 100).toFixed(0)}%)</summary>`, '', chart, '', '</details>'] : []),
     '',
   ].join('\n');
@@ -164,4 +161,28 @@ export function designSummary(design: {
       ? ''
       : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ''}`;
   return `${arms}, ${test}${traffic}.`;
+}
+
+/** The metric that sets a test's length: the one of primary and guardrails that needs the most days. */
+export function lengthSetter(sizing: PlanSizing): { entry: MetricSizingEntry; sizing: MetricSizing; duration: { days: number; weeks: number } } | undefined {
+  let best: ReturnType<typeof lengthSetter>;
+  for (const entry of sizing.metrics) {
+    const duration = entry.result.ok ? entry.result.value.headline?.duration : undefined;
+    if (entry.result.ok && duration && (!best || duration.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration };
+  }
+  return best;
+}
+
+/**
+ * A plan's length and its power by the planned end, both for the metric that sets the length:
+ * "3 weeks (guardrail slot-booked sets the length: 15 days)" and ">99.9% by the planned end (28 days)".
+ */
+export function lengthSummary(sizing: PlanSizing): { length: string; power?: string } | undefined {
+  const setter = lengthSetter(sizing);
+  if (!setter) return undefined;
+  const { entry, duration } = setter;
+  const who = entry.role === 'guardrail' ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
+  const length = `${countOf(duration.weeks, 'week')} (${who} sets the length: ${countOf(duration.days, 'day')})`;
+  const end = setter.sizing.atPlannedEnd;
+  return end?.power !== undefined ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, 'day')})` } : { length };
 }

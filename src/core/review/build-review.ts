@@ -44,13 +44,23 @@ export interface ReviewCollision {
   known: boolean;
 }
 
+/**
+ * Whether a finding is this change's doing: `known` when the same finding (same code, plan and
+ * message with its numbers masked) already held for the plan at the base commit; `introduced`
+ * otherwise, and always for findings about the change itself (flags it touches, events it removes).
+ */
+export type FindingOrigin = 'introduced' | 'known';
+
+export type ReviewFinding = Finding & { origin: FindingOrigin };
+
 /** The review of one change: what the core says, for the entry points to show. */
 export interface Review {
   verdict: Verdict;
   counts: Record<Severity, number>;
   base: string;
   head: string;
-  findings: Finding[];
+  /** Blocking first, then warnings, then notes; within each, introduced before known. */
+  findings: ReviewFinding[];
   plans: PlanReview[];
   flags: { key: string; file: string; line: number; side: 'added' | 'removed'; via: string; plans: string[]; exempt: boolean }[];
   collisions: ReviewCollision[];
@@ -85,24 +95,52 @@ function severityFor(code: string, overrides: Record<string, string>): Severity 
 
 const ORDER: Record<Severity, number> = { block: 0, warn: 1, note: 2 };
 
-export function buildReview(context: ReviewContext, change: { base: string; head: string }): Review {
+/** The same finding at base and head has the same key; numbers (days, lines, shares) may move. */
+export function findingKey(f: Pick<Finding, 'code' | 'plan' | 'message'>): string {
+  return [f.code, f.plan ?? '', f.message.replace(/\d+(?:[.,]\d+)*/g, '#')].join('\u0000');
+}
+
+/** Findings about a plan that already held at base (the checks run on the base commit's plans). */
+function knownAtBase(base: ReviewContext | undefined): Set<string> {
+  if (!base) return new Set();
+  return new Set(
+    CHECKS.flatMap((check) => check(base))
+      .filter((f) => f.plan !== undefined)
+      .map(findingKey),
+  );
+}
+
+/** Plans the description names come first: they are what the author says the change is about. */
+function byMention(a: PlanReview, b: PlanReview): number {
+  const named = (p: PlanReview) => (p.reasons.includes('named in the description') ? 0 : 1);
+  return named(a) - named(b);
+}
+
+/**
+ * Reviews a change. `base`, when given, is the same review context built from the base commit's
+ * plans and registry; findings that already held there are marked `known`.
+ */
+export function buildReview(context: ReviewContext, change: { base: string; head: string }, base?: ReviewContext): Review {
   const raw = CHECKS.flatMap((check) => check(context));
-  const known = Object.keys(FINDING_CODES);
+  const codes = Object.keys(FINDING_CODES);
   for (const code of Object.keys(context.settings.severity)) {
-    if (known.includes(code)) continue;
-    const suggestion = closestName(code, known);
+    if (codes.includes(code)) continue;
+    const suggestion = closestName(code, codes);
     raw.push({
       code: 'severity-unknown-code',
       message: `The settings set a severity for "${code}", which is not a finding code${suggestion ? `; did you mean "${suggestion}"?` : '.'}`,
-      fix: `Use one of: ${known.join(', ')}.`,
+      fix: `Use one of: ${codes.join(', ')}.`,
     });
   }
-  const findings: Finding[] = [];
+  const known = knownAtBase(base);
+  const findings: ReviewFinding[] = [];
   for (const finding of raw) {
     const severity = severityFor(finding.code, context.settings.severity);
-    if (severity !== 'off') findings.push({ ...finding, severity });
+    const origin: FindingOrigin = finding.plan !== undefined && known.has(findingKey(finding)) ? 'known' : 'introduced';
+    if (severity !== 'off') findings.push({ ...finding, severity, origin });
   }
-  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
+  const originOrder = (f: ReviewFinding) => (f.origin === 'introduced' ? 0 : 1);
+  findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
 
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
@@ -125,6 +163,7 @@ export function buildReview(context: ReviewContext, change: { base: string; head
       events: eventStatuses(context, plan.id),
     };
   });
+  plans.sort(byMention);
 
   const planned = new Map<string, string[]>();
   for (const e of context.registry.entries) for (const f of e.flags) planned.set(f, [...(planned.get(f) ?? []), e.id]);

@@ -59,6 +59,9 @@ export const reviewReportSchema = z
         plan: z.string().optional(),
         file: z.string().optional(),
         line: z.number().int().positive().optional(),
+        origin: z
+          .enum(['introduced', 'known'])
+          .describe('introduced: this change brought it; known: the same finding already held for the plan at the base commit'),
       }),
     ),
     plans: z.array(

@@ -1,0 +1,57 @@
+// Findings this change introduces against findings that already held for the plan at the base commit.
+import { rmSync } from 'node:fs';
+import { afterAll, describe, expect, it } from 'vitest';
+import { openChange } from '../../src/adapters/git.js';
+import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
+import type { Review } from '../../src/core/review/build-review.js';
+import { reviewJson } from '../../src/core/review/report-schema.js';
+import { reviewChange } from '../../src/run/review-change.js';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
+
+const made: string[] = [];
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+
+async function review(files: Record<string, string>, changes: Record<string, string | null>): Promise<Review> {
+  const repo = makeTwoCommitRepo(files, changes);
+  made.push(repo.root);
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr: {} });
+  if (outcome.kind !== 'review') throw new Error('settings invalid');
+  return outcome.review;
+}
+
+const noReason = { change: 'A clearer cart.', 'expected-direction': 'increase' };
+const primaryOnly = { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.3 }, events: ['order_done'] } };
+
+describe('introduced or already known', () => {
+  it('marks a finding that held at base as known and a new one as introduced', async () => {
+    const r = await review(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ hypothesis: noReason })) }), {
+      'experiments/good.yaml': planYaml(cleanPlan({ hypothesis: noReason, metrics: primaryOnly })),
+      'src/cart.ts': CART_CODE_TOUCHED,
+    });
+    const origin = Object.fromEntries(r.findings.map((f) => [f.code, f.origin]));
+    expect(origin).toEqual({ 'reason-missing': 'known', 'guardrails-missing': 'introduced' });
+    expect(reviewJson(r).findings.map((f) => f.origin).sort()).toEqual(['introduced', 'known']);
+    const markdown = renderReviewMarkdown(r);
+    expect(markdown).toContain('This change: 1 warning. Already known before it: 1 finding.');
+    const [, folded] = markdown.split('<details><summary>Already known: 1 finding that held before this change</summary>');
+    expect(folded?.split('</details>')[0]).toContain('**reason-missing**');
+    expect(markdown.split('<details>')[0]).toContain('#### Introduced by this change\n\n- ⚠️ **guardrails-missing**');
+  });
+
+  it('counts everything about a plan the change adds as introduced', async () => {
+    const r = await review(baseFiles(), { 'experiments/new.yaml': planYaml(cleanPlan({ id: 'new', flags: ['new-flag'], hypothesis: noReason, surface: { path: 'shop/new' } })) });
+    expect(r.findings.map((f) => [f.code, f.origin])).toEqual([['reason-missing', 'introduced']]);
+  });
+
+  it('keeps a known blocking finding in sight', async () => {
+    const noDecisions = { win: 'Ship.', flat: 'Drop.', 'guardrail-breach': 'Stop.' };
+    const r = await review(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ decisions: noDecisions })) }), {
+      'experiments/good.yaml': planYaml(cleanPlan({ decisions: noDecisions, title: 'Renamed' })),
+    });
+    expect(r.findings.map((f) => [f.code, f.origin])).toEqual([['decisions-missing', 'known']]);
+    const markdown = renderReviewMarkdown(r);
+    expect(markdown).toContain('Nothing new from this change. Already known before it: 1 finding.');
+    expect(markdown.split('<details>')[0]).toContain('#### Still blocking from before this change\n\n- ⛔ **decisions-missing**');
+  });
+});

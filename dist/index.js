@@ -40823,11 +40823,11 @@ function createGitHub(options) {
   let refusedWait;
   const onLimit = (kind) => (after, _options, _octokit, retryCount) => {
     if (after > options.maxRateLimitWait) {
-      refusedWait = `GitHub's ${kind} asks to wait ${describeWait(after)}, longer than the ${options.maxRateLimitWait} seconds this run may wait`;
+      refusedWait = { reason: `GitHub's ${kind} asks to wait ${describeWait(after)}, longer than the ${options.maxRateLimitWait} seconds this run may wait`, hint: "re-run the job later, or raise the rate-limit-wait input" };
       return false;
     }
     if (retryCount >= retries) {
-      refusedWait = `GitHub's ${kind} still held after ${retries} waits`;
+      refusedWait = { reason: `GitHub's ${kind} still held after ${retries} waits`, hint: "re-run the job later; other workflows may be using the same token heavily" };
       return false;
     }
     return true;
@@ -40850,9 +40850,9 @@ function createGitHub(options) {
     } catch (error63) {
       if (error63 instanceof GitHubError) throw error63;
       if (refusedWait) {
-        const reason = refusedWait;
+        const { reason, hint } = refusedWait;
         refusedWait = void 0;
-        throw new GitHubError(`GitHub: ${what} stopped: ${reason}`, void 0, "re-run the job later, or raise the rate-limit-wait input", { cause: error63 });
+        throw new GitHubError(`GitHub: ${what} stopped: ${reason}`, void 0, hint, { cause: error63 });
       }
       const status = typeof error63 === "object" && error63 !== null && "status" in error63 ? Number(error63.status) : void 0;
       const message = error63 instanceof Error ? error63.message : String(error63);

@@ -79,14 +79,14 @@ function describeWait(seconds: number): string {
 export function createGitHub(options: GitHubOptions): GitHubPort {
   const retries = options.rateLimitRetries ?? 3;
   // Set when a rate limit asked for a wait longer than allowed, to explain the failure it causes.
-  let refusedWait: string | undefined;
+  let refusedWait: { reason: string; hint: string } | undefined;
   const onLimit = (kind: string) => (after: number, _options: unknown, _octokit: unknown, retryCount: number) => {
     if (after > options.maxRateLimitWait) {
-      refusedWait = `GitHub's ${kind} asks to wait ${describeWait(after)}, longer than the ${options.maxRateLimitWait} seconds this run may wait`;
+      refusedWait = { reason: `GitHub's ${kind} asks to wait ${describeWait(after)}, longer than the ${options.maxRateLimitWait} seconds this run may wait`, hint: 're-run the job later, or raise the rate-limit-wait input' };
       return false;
     }
     if (retryCount >= retries) {
-      refusedWait = `GitHub's ${kind} still held after ${retries} waits`;
+      refusedWait = { reason: `GitHub's ${kind} still held after ${retries} waits`, hint: 're-run the job later; other workflows may be using the same token heavily' };
       return false;
     }
     return true;
@@ -110,10 +110,10 @@ export function createGitHub(options: GitHubOptions): GitHubPort {
     } catch (error) {
       if (error instanceof GitHubError) throw error;
       if (refusedWait) {
-        const reason = refusedWait;
+        const { reason, hint } = refusedWait;
         refusedWait = undefined;
         // No status: a rate limit is not a missing permission, so callers do not mistake it for one.
-        throw new GitHubError(`GitHub: ${what} stopped: ${reason}`, undefined, 're-run the job later, or raise the rate-limit-wait input', { cause: error });
+        throw new GitHubError(`GitHub: ${what} stopped: ${reason}`, undefined, hint, { cause: error });
       }
       const status = typeof error === 'object' && error !== null && 'status' in error ? Number((error as { status: unknown }).status) : undefined;
       const message = error instanceof Error ? error.message : String(error);

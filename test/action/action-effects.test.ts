@@ -1,26 +1,10 @@
-import { rmSync } from 'node:fs';
-import { afterAll, afterEach, describe, expect, it } from 'vitest';
-import { startFakeGitHub, type FakeGitHub, type FakeGitHubModes } from '../helpers/fake-github.js';
-import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
-import { pullRequestEvent, runAction } from './run-action.js';
+import { describe, expect, it } from 'vitest';
+import { CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
+import { runAction } from './run-action.js';
+import { actionScenarios } from './scenarios.js';
 
 /** What the bundled Action writes besides the comment: annotations, log lines, outputs; and how it lives with GitHub's listing lag. */
-const made: string[] = [];
-const servers: FakeGitHub[] = [];
-afterEach(async () => {
-  for (const s of servers.splice(0)) await s.close();
-});
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
-
-async function setup(changes: Record<string, string | null>, modes: FakeGitHubModes = {}) {
-  const repo = makeTwoCommitRepo(baseFiles(), changes);
-  made.push(repo.root);
-  const github = await startFakeGitHub({ modes });
-  servers.push(github);
-  const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 7, base: repo.base, head: repo.head });
-  return { repo, github, event };
-}
+const { setup } = actionScenarios();
 
 /**
  * The workflow commands in a step's stdout, parsed as the runner does (GitHub's "Workflow commands

@@ -1,26 +1,13 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync, rmSync } from 'node:fs';
-import { afterAll, afterEach, describe, expect, it } from 'vitest';
-import { startFakeGitHub, type FakeGitHub } from '../helpers/fake-github.js';
+import { describe, expect, it } from 'vitest';
+import { startFakeGitHub } from '../helpers/fake-github.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
 import { pullRequestEvent, runAction } from './run-action.js';
+import { actionScenarios } from './scenarios.js';
 
-const made: string[] = [];
-const servers: FakeGitHub[] = [];
-afterEach(async () => {
-  for (const s of servers.splice(0)) await s.close();
-});
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
-
-async function setup(changes: Record<string, string | null>, modes = {}) {
-  const repo = makeTwoCommitRepo(baseFiles(), changes);
-  made.push(repo.root);
-  const github = await startFakeGitHub({ modes });
-  servers.push(github);
-  const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 7, base: repo.base, head: repo.head });
-  return { repo, github, event };
-}
+const { setup, track } = actionScenarios();
 
 const blockingChange = { 'experiments/good.yaml': planYaml(cleanPlan({ decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED };
 const MARKER = '<!-- plumbline:review -->';
@@ -108,9 +95,9 @@ describe('the bundled Action against a fake GitHub', () => {
 
   it('reviews a pull request from a fork with its read-only token', async () => {
     const repo = makeTwoCommitRepo(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED });
-    made.push(repo.root);
+    track(repo);
     const github = await startFakeGitHub({ modes: { readOnly: true } });
-    servers.push(github);
+    track(github);
     const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 9, base: repo.base, head: repo.head, headRepo: 'someone-else/shop' });
     expect(event.pull_request.head.repo.full_name).not.toBe(event.repository.full_name);
     const run = await runAction({ github, workspace: repo.root, event });

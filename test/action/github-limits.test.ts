@@ -1,11 +1,10 @@
 import { createServer, request as httpRequest, type Server } from 'node:http';
 import { connect, type Socket } from 'node:net';
-import { rmSync } from 'node:fs';
-import { afterAll, afterEach, describe, expect, it } from 'vitest';
-import { startFakeGitHub, type FakeGitHub, type FakeGitHubModes } from '../helpers/fake-github.js';
-import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, CART_CODE_TOUCHED } from '../review/scenarios.js';
-import { pullRequestEvent, runAction } from './run-action.js';
+import { describe, expect, it } from 'vitest';
+import type { FakeGitHub, FakeGitHubModes } from '../helpers/fake-github.js';
+import { CART_CODE_TOUCHED } from '../review/scenarios.js';
+import { runAction } from './run-action.js';
+import { actionScenarios } from './scenarios.js';
 
 /**
  * How the bundled Action talks to GitHub when GitHub says no: the promises of the README's
@@ -14,21 +13,8 @@ import { pullRequestEvent, runAction } from './run-action.js';
  * limit (403 or 429 with retry-after) wait that many seconds; on a primary limit
  * (x-ratelimit-remaining: 0) wait until x-ratelimit-reset (epoch seconds); other 4xx are final.
  */
-const made: string[] = [];
-const servers: { close(): Promise<void> }[] = [];
-afterEach(async () => {
-  for (const s of servers.splice(0)) await s.close();
-});
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
-
-async function setup(modes: FakeGitHubModes = {}) {
-  const repo = makeTwoCommitRepo(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED });
-  made.push(repo.root);
-  const github = await startFakeGitHub({ modes });
-  servers.push(github);
-  const event = pullRequestEvent({ owner: github.owner, repo: github.repo, number: 7, base: repo.base, head: repo.head });
-  return { repo, github, event };
-}
+const scenarios = actionScenarios();
+const setup = (modes: FakeGitHubModes = {}) => scenarios.setup({ 'src/cart.ts': CART_CODE_TOUCHED }, modes);
 
 const CREATE_COMMENT = 'POST /repos/{owner}/{repo}/issues/{issue_number}/comments';
 const LIST_COMMENTS = 'GET /repos/{owner}/{repo}/issues/{issue_number}/comments';
@@ -92,6 +78,15 @@ describe('the bundled Action under GitHub’s limits', () => {
     expect(github.requests).toHaveLength(1);
   });
 
+  it('gives up after three waits when the limit still holds', async () => {
+    const { repo, github, event } = await setup({ secondaryLimit: { times: 4, status: 403, retryAfter: 1 } });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status).toBe(1);
+    expect(run.stdout).toContain("GitHub's secondary rate limit still held after 3 waits");
+    expect(github.requests).toHaveLength(4);
+    expect(github.early).toEqual([]);
+  });
+
   it('counts every HTTP request against request-budget, retries included', async () => {
     const { repo, github, event } = await setup({ failing: { operation: LIST_COMMENTS, status: 502, message: 'Bad Gateway', times: 1 } });
     // 450 comments: five pages to list, so the run needs 5 + 1 retry + 1 create + 5 = 12 requests.
@@ -106,7 +101,7 @@ describe('the bundled Action under GitHub’s limits', () => {
   it('sends its requests through the runner’s proxy (HTTPS_PROXY / HTTP_PROXY)', async () => {
     const { repo, github, event } = await setup();
     const proxy = await startProxy(github.url);
-    servers.push(proxy);
+    scenarios.track(proxy);
     // A name only the proxy can reach: without the proxy, the run cannot resolve it at all.
     // Loopback addresses are never proxied by @actions/http-client, so the API URL must not be one.
     const apiUrl = `http://api.github.test:${new URL(github.url).port}`;

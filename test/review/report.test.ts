@@ -3,7 +3,7 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
 import { renderReviewMarkdown, renderReviewSummary, REVIEW_MARKER, COMMENT_LIMIT, SUMMARY_LIMIT } from '../../src/core/report/review-markdown.js';
-import { formatLength, plural } from '../../src/core/report/numbers.js';
+import { plural } from '../../src/core/report/numbers.js';
 import { renderReviewText } from '../../src/core/report/review-text.js';
 import { reviewJson } from '../../src/core/review/report-schema.js';
 import type { Review } from '../../src/core/review/build-review.js';
@@ -172,8 +172,4 @@ describe('numbers in words', () => {
     [0, 'collision', '0 collisions'],
   ])('%s %s -> %s', (n, noun, expected) => expect(plural(n, noun)).toBe(expected));
 
-  it('leads a length with whole weeks and separates thousands', () => {
-    expect(formatLength({ days: 2274, weeks: 325 })).toBe('325 weeks (2,274 days)');
-    expect(formatLength({ days: 7, weeks: 1 })).toBe('1 week (7 days)');
-  });
 });

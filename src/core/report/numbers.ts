@@ -50,7 +50,3 @@ export function plural(n: number, singular: string, pluralForm = `${singular}s`)
   return `${formatCount(n)} ${n === 1 ? singular : pluralForm}`;
 }
 
-/** A test's length, whole weeks first since tests run in whole weeks: "3 weeks (15 days)". */
-export function formatLength(duration: { days: number; weeks: number }): string {
-  return `${plural(duration.weeks, 'week')} (${plural(duration.days, 'day')})`;
-}

@@ -62950,7 +62950,7 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
     const s = entry.result.value;
     const end = s.atPlannedEnd;
     if (end?.power !== void 0 && end.power < plan.design.power) {
-      const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : "";
+      const needed = s.headline?.duration ? ` It needs ${plural2(s.headline.duration.weeks, "week")} (${plural2(s.headline.duration.days, "day")}).` : "";
       out.push({
         code: "underpowered",
         message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,

@@ -1,4 +1,4 @@
-import { formatPower } from '../report/numbers.js';
+import { formatPower, plural } from '../report/numbers.js';
 import type { Check } from '../review/context.js';
 
 /** The statistics engine's verdict on each linked plan's primary metric and guardrails. */
@@ -19,7 +19,7 @@ export const sizingChecks: Check = ({ linked }) =>
       const s = entry.result.value;
       const end = s.atPlannedEnd;
       if (end?.power !== undefined && end.power < plan.design.power) {
-        const needed = s.headline?.duration ? ` It needs ${s.headline.duration.days} days (${s.headline.duration.weeks} weeks).` : '';
+        const needed = s.headline?.duration ? ` It needs ${plural(s.headline.duration.weeks, 'week')} (${plural(s.headline.duration.days, 'day')}).` : '';
         out.push({
           code: 'underpowered',
           message: `${entry.role === 'primary' ? 'The primary metric' : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,

@@ -10,7 +10,7 @@ import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 60_000);
 
 async function review(files: Record<string, string>, changes: Record<string, string | null>): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);

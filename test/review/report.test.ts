@@ -1,4 +1,6 @@
 import { readFileSync, rmSync } from 'node:fs';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, cleanPlan, planYaml } from './scenarios.js';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
@@ -22,7 +24,7 @@ beforeAll(async () => {
   const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'feature/slot-nudge'), pr });
   if (outcome.kind !== 'review') throw new Error('demo settings invalid');
   review = outcome.review;
-});
+}, 60_000);
 afterAll(() => demo?.cleanup());
 
 /** SHAs differ from run to run; everything else must not. */
@@ -176,4 +178,19 @@ describe('numbers in words', () => {
     expect(formatWeeks({ days: 2274, weeks: 325 })).toBe('325 weeks (2,274 days)');
     expect(formatWeeks({ days: 7, weeks: 1 })).toBe('1 week (7 days)');
   });
+
+  it('says how long an underpowered test needs in whole weeks, thousands separated', async () => {
+    // 20 units a day for a 5% relative lift on a 30% rate: thousands of days.
+    const slow = planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20 } }));
+    const repo = makeTwoCommitRepo(baseFiles(), { 'experiments/good.yaml': slow });
+    try {
+      const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr: {} });
+      if (outcome.kind !== 'review') throw new Error('settings invalid');
+      const message = outcome.review.findings.find((f) => f.code === 'underpowered')!.message;
+      expect(message).toMatch(/ It needs \d{1,3}(,\d{3})* weeks \(\d{1,3}(,\d{3})+ days\)\.$/);
+    } finally {
+      rmSync(repo.root, { recursive: true, force: true });
+    }
+  });
+
 });

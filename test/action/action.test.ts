@@ -49,7 +49,9 @@ describe('the bundled Action against a fake GitHub', () => {
     const { repo, github, event } = await setup(blockingChange);
     const run = await runAction({ github, workspace: repo.root, event });
     expect(run.status).toBe(1);
-    expect(run.stdout).toMatch(/::error title=Plumbline decisions-missing,file=experiments\/good\.yaml,line=1::No decision rule for flat, loss, guardrail-breach/);
+    // The annotation lands on the plan's decisions: line, where the fix goes.
+    const decisionsLine = blockingChange['experiments/good.yaml'].split('\n').findIndex((l) => l.startsWith('decisions:')) + 1;
+    expect(run.stdout).toContain(`::error title=Plumbline decisions-missing,file=experiments/good.yaml,line=${decisionsLine}::No decision rule for flat, loss, guardrail-breach`);
     expect(run.outputs.verdict).toBe('blocked');
     expect(github.comments(7)[0]!.body).toContain('⛔ Plumbline: blocked');
     expect(github.refused).toEqual([]);

@@ -16,11 +16,14 @@ const repo = (files: Record<string, string>, changes: Record<string, string | nu
 
 describe('plumbline check', () => {
   it('exits 1 and explains when a decision rule is missing', () => {
-    const r = repo(baseFiles(), { 'experiments/good.yaml': planYaml(cleanPlan({ decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED });
+    const plan = planYaml(cleanPlan({ decisions: { win: 'Ship.' } }));
+    const r = repo(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': CART_CODE_TOUCHED });
+    // The finding points at the plan's decisions: line, where the fix goes.
+    const decisionsLine = plan.split('\n').findIndex((l) => l.startsWith('decisions:')) + 1;
     const run = runCli(['-C', r.root, 'check', '--base', 'main']);
     expect(run.status).toBe(1);
     expect(run.stdout).toMatch(/^Plumbline: blocked \(1 blocking, 0 warnings, 0 notes\) for [0-9a-f]{7}\.\.\.[0-9a-f]{7}$/m);
-    expect(run.stdout).toContain('experiments/good.yaml:1: BLOCK decisions-missing [good]: No decision rule for flat, loss, guardrail-breach');
+    expect(run.stdout).toContain(`experiments/good.yaml:${decisionsLine}: BLOCK decisions-missing [good]: No decision rule for flat, loss, guardrail-breach`);
   });
 
   it('exits 0 on a clean change and writes the JSON report to --output', () => {

@@ -5321,12 +5321,12 @@ var require_formdata_parser = __commonJS({
               return "failure";
             }
             if (bufferStartsWith(input2, filenameBuffer, position)) {
-              let check2 = position.position + filenameBuffer.length;
-              if (input2[check2] === 42) {
+              let check3 = position.position + filenameBuffer.length;
+              if (input2[check3] === 42) {
                 position.position += 1;
-                check2 += 1;
+                check3 += 1;
               }
-              if (input2[check2] !== 61 || input2[check2 + 1] !== 34) {
+              if (input2[check3] !== 61 || input2[check3 + 1] !== 34) {
                 return "failure";
               }
               position.position += 12;
@@ -35409,12 +35409,12 @@ var __awaiter6 = function(thisArg, _arguments, P, generator) {
     step((generator = generator.apply(thisArg, _arguments || [])).next());
   });
 };
-function which(tool, check2) {
+function which(tool, check3) {
   return __awaiter6(this, void 0, void 0, function* () {
     if (!tool) {
       throw new Error("parameter 'tool' is required");
     }
-    if (check2) {
+    if (check3) {
       const result = yield which(tool, false);
       if (!result) {
         if (IS_WINDOWS) {
@@ -45983,18 +45983,18 @@ function isRecursive(inst, stack, resolve2) {
     return PROVEN;
   stack.add(inst);
   let result = NONE;
-  const check2 = (child2) => {
+  const check3 = (child2) => {
     if (result !== PROVEN && child2?._zod) {
       const answer = isRecursive(child2, stack, resolve2);
       if (answer > result)
         result = answer;
     }
   };
-  const shape = (sh, spread) => {
+  const shape = (sh, spread2) => {
     let answer = NONE;
     for (const key of Reflect.ownKeys(sh)) {
       const desc = Object.getOwnPropertyDescriptor(sh, key);
-      if (spread && !desc.enumerable)
+      if (spread2 && !desc.enumerable)
         continue;
       const child2 = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve2) : NONE;
       if (child2 > answer)
@@ -46012,32 +46012,32 @@ function isRecursive(inst, stack, resolve2) {
     case "object": {
       const raw = rawShape(def);
       merge3(raw ? shape(raw, true) : ASSUMED);
-      check2(def.catchall);
+      check3(def.catchall);
       break;
     }
     case "array":
-      check2(def.element);
+      check3(def.element);
       break;
     case "tuple":
       for (const el of def.items)
-        check2(el);
-      check2(def.rest);
+        check3(el);
+      check3(def.rest);
       break;
     case "record":
     case "map":
-      check2(def.keyType);
-      check2(def.valueType);
+      check3(def.keyType);
+      check3(def.valueType);
       break;
     case "set":
-      check2(def.valueType);
+      check3(def.valueType);
       break;
     case "union":
       for (const el of def.options)
-        check2(el);
+        check3(el);
       break;
     case "intersection":
-      check2(def.left);
-      check2(def.right);
+      check3(def.left);
+      check3(def.right);
       break;
     case "optional":
     case "nullable":
@@ -46048,15 +46048,15 @@ function isRecursive(inst, stack, resolve2) {
     case "nonoptional":
     case "promise":
     case "success":
-      check2(def.innerType);
+      check3(def.innerType);
       break;
     case "pipe":
-      check2(def.in);
-      check2(def.out);
+      check3(def.in);
+      check3(def.out);
       break;
     case "function":
-      check2(def.input);
-      check2(def.output);
+      check3(def.input);
+      check3(def.output);
       break;
     // `$ZodLazy` caches its inner on the def, so a resolved edge is followed exactly
     case "lazy": {
@@ -46097,10 +46097,10 @@ function isRecursive(inst, stack, resolve2) {
         if (!value || typeof value !== "object")
           continue;
         if (value._zod)
-          check2(value);
+          check3(value);
         else if (Array.isArray(value))
           for (const el of value)
-            check2(el);
+            check3(el);
       }
     }
   }
@@ -54046,8 +54046,8 @@ function generateChecks(doc, ctx, schema, accessor) {
   if (!schemaChecks || schemaChecks.length === 0)
     return accessor;
   let currentAccessor = accessor;
-  for (const check2 of schemaChecks) {
-    const def = check2._zod.def;
+  for (const check3 of schemaChecks) {
+    const def = check3._zod.def;
     if (def.when && !WHEN_DEFAULTED_CHECKS.has(def.check)) {
       throw new ZodCompileUnsupportedError(`check with a custom "when" condition`);
     }
@@ -54095,7 +54095,7 @@ function generateChecks(doc, ctx, schema, accessor) {
         currentAccessor = generateStringFormatCheck(doc, ctx, def, currentAccessor);
         break;
       case "custom":
-        currentAccessor = generateCustomRefineCheck(doc, ctx, check2, currentAccessor);
+        currentAccessor = generateCustomRefineCheck(doc, ctx, check3, currentAccessor);
         break;
       case "bigint_format":
         generateBigIntFormatCheck(doc, def, currentAccessor);
@@ -54111,7 +54111,7 @@ function generateChecks(doc, ctx, schema, accessor) {
         break;
       case "overwrite": {
         const newAccessor = newVar(ctx);
-        generateOverwriteCheck(doc, ctx, check2, currentAccessor, newAccessor);
+        generateOverwriteCheck(doc, ctx, check3, currentAccessor, newAccessor);
         currentAccessor = newAccessor;
         break;
       }
@@ -54234,8 +54234,8 @@ function generatePropertyCheck(doc, ctx, def, accessor) {
   const propAccessor = `${accessor}[${JSON.stringify(def.property)}]`;
   generateCheck(doc, ctx, def.schema, propAccessor);
 }
-function generateOverwriteCheck(doc, ctx, check2, currentAccessor, newAccessor) {
-  const tx = check2._zod.def.tx;
+function generateOverwriteCheck(doc, ctx, check3, currentAccessor, newAccessor) {
+  const tx = check3._zod.def.tx;
   if (!tx) {
     throw new ZodCompileUnsupportedError("overwrite check without a transform function");
   }
@@ -54251,8 +54251,8 @@ function throwAsync() {
 function pushIssue(issue3) {
   this.issues.push(issue3);
 }
-function generateCustomRefineCheck(doc, ctx, check2, accessor) {
-  const def = check2._zod.def;
+function generateCustomRefineCheck(doc, ctx, check3, accessor) {
+  const def = check3._zod.def;
   if (def.fn) {
     if (isAsyncFunction(def.fn)) {
       throw new ZodCompileAsyncError("z.compile: async .refine() predicates are not supported");
@@ -54265,11 +54265,11 @@ function generateCustomRefineCheck(doc, ctx, check2, accessor) {
     doc.write(`if (!${resVar}) return INVALID;`);
     return accessor;
   }
-  if (check2._zod.check) {
-    if (isAsyncFunction(check2._zod.check)) {
+  if (check3._zod.check) {
+    if (isAsyncFunction(check3._zod.check)) {
       throw new ZodCompileAsyncError("z.compile: async .superRefine() / check functions are not supported");
     }
-    const checkFn = check2._zod.check;
+    const checkFn = check3._zod.check;
     const helperFn = (value) => {
       const fakePayload = { value, issues: [], addIssue: pushIssue };
       const result = checkFn(fakePayload);
@@ -54891,8 +54891,8 @@ function generateNullableCheck(doc, ctx, schema, accessor, buildsValue = true) {
   return outputVar;
 }
 function generateSizeGate(doc, schema, size) {
-  for (const [max, check2] of sizeCaps(schema._zod.def.checks)) {
-    doc.write(`if (${size} > ${numericOperand(max, check2._zod.def.check)}) return INVALID;`);
+  for (const [max, check3] of sizeCaps(schema._zod.def.checks)) {
+    doc.write(`if (${size} > ${numericOperand(max, check3._zod.def.check)}) return INVALID;`);
   }
 }
 function generateArrayCheck(doc, ctx, schema, accessor, buildsValue = true) {
@@ -58192,8 +58192,8 @@ var ZodType = /* @__PURE__ */ $constructor("ZodType", (inst, def) => {
     reg.add(this, meta3);
     return this;
   },
-  refine(check2, params) {
-    return this.check(refine(check2, params));
+  refine(check3, params) {
+    return this.check(refine(check3, params));
   },
   superRefine(refinement, params) {
     return this.check(superRefine(refinement, params));
@@ -60970,7 +60970,12 @@ ${f.patch}
 // src/core/report/numbers.ts
 var NOT_A_NUMBER = "n/a";
 function formatCount(n) {
-  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
+  if (!Number.isFinite(n)) return NOT_A_NUMBER;
+  if (Math.abs(n) >= 1e15) {
+    const [mantissa, exponent] = n.toExponential(2).split("e");
+    return `${mantissa} \xD7 10^${Number(exponent)}`;
+  }
+  return Math.round(n).toLocaleString("en-US");
 }
 function formatRate(rate) {
   if (!Number.isFinite(rate)) return NOT_A_NUMBER;
@@ -61102,7 +61107,7 @@ function sizeCells(size) {
 }
 function rows(sizing) {
   return sizing.metrics.map((entry) => {
-    const role = entry.role === "guardrail" ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
+    const role = entry.role === "guardrail" ? `guardrail (non-inferiority, \u03B1 ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
     if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
     const s = entry.result.value;
     const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
@@ -61115,8 +61120,33 @@ var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS"
 function multiplierNotes(entry, sizing) {
   const m = sizing.multipliers;
   const out = [];
+  if (sizing.traffic?.kind === "unique" && entry.role === "primary") {
+    const [a, b] = sizing.traffic.points;
+    out.push(`Traffic as people arrive: ${formatCount(a.units)} different units in ${a.days} days and ${formatCount(b.units)} in ${b.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
+  }
+  if (entry.role === "guardrail" && sizing.effect) {
+    out.push(
+      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`
+    );
+  }
+  if (entry.guardrailLooks) {
+    out.push(`The interim boundaries are the primary\u2019s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail\u2019s harm check is its own one-sided test at \u03B1 ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
+  }
+  if (sizing.feasibility && !sizing.feasibility.feasible) {
+    const f = sizing.feasibility;
+    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : "";
+    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
+  }
+  if (sizing.squareRootAllocation) {
+    const a = sizing.squareRootAllocation;
+    out.push(`Several arms share one control: giving the control \u221Ak times a treatment arm\u2019s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
+  }
   if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
+  if (m.designEffect > 1) {
+    const perArm = sizing.headline?.clustersPerArm;
+    const groups2 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
+    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups2}.`);
+  }
   if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
   if (sizing.boundaries) {
     const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
@@ -61132,7 +61162,10 @@ function multiplierNotes(entry, sizing) {
   return out.map((text2) => `${entry.metric}: ${text2}`);
 }
 function notesOf(sizing) {
-  return sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []);
+  const family = sizing.family ? [
+    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
+  ] : [];
+  return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
 }
 function windowLine(sizing, context3) {
   if (sizing.plannedDays !== void 0) {
@@ -61433,11 +61466,33 @@ var uniqueList = (item, expected, min = 0, fewMessage = expected) => external_ex
 // src/core/stats/distributions.ts
 var import_jstat = __toESM(require_jstat(), 1);
 var { jStat } = import_jstat.default;
+function normalUpper(x) {
+  if (Number.isNaN(x)) return Number.NaN;
+  if (x < 3) return 0.5 * jStat.erfc(x / Math.SQRT2);
+  const tiny = 1e-300;
+  let f = x;
+  let c = x;
+  let d = 0;
+  for (let i = 1; i < 500; i++) {
+    d = x + i * d;
+    if (Math.abs(d) < tiny) d = tiny;
+    c = x + i / c;
+    if (Math.abs(c) < tiny) c = tiny;
+    d = 1 / d;
+    const step = c * d;
+    f *= step;
+    if (Math.abs(step - 1) < 1e-16) break;
+  }
+  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / f;
+}
 function normalCdf(x) {
-  return x < 0 ? 0.5 * jStat.erfc(-x / Math.SQRT2) : 1 - 0.5 * jStat.erfc(x / Math.SQRT2);
+  return x < 0 ? normalUpper(-x) : 1 - normalUpper(x);
 }
 function normalQuantile(p) {
   return jStat.normal.inv(p, 0, 1);
+}
+function normalUpperQuantile(p) {
+  return -normalQuantile(p);
 }
 function studentQuantile(p, df) {
   return jStat.studentt.inv(p, df);
@@ -61531,7 +61586,7 @@ function finite(value, input2, what) {
 // src/core/stats/sequential.ts
 var BOUNDARY_KINDS = ["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"];
 var PANELS = 160;
-var NEVER2 = 12;
+var NEVER2 = 40;
 function simpsonGrid(lo, hi) {
   const points = new Float64Array(PANELS + 1);
   const weights = new Float64Array(PANELS + 1);
@@ -61598,7 +61653,7 @@ function walk(looks, sides, eta, boundaryAt) {
 function spentByTime(kind, a, t) {
   if (t <= 0) return 0;
   if (t >= 1) return a;
-  return kind === "obrien-fleming-spending" ? 2 - 2 * normalCdf(normalQuantile(1 - a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+  return kind === "obrien-fleming-spending" ? 2 * normalUpper(normalUpperQuantile(a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
 }
 function checkDesign(design) {
   if (!Number.isInteger(design.looks) || design.looks < 1 || design.looks > 30) return fail("interim-looks", `between 0 and 29 interim looks are supported; got ${design.looks - 1}`);
@@ -61615,7 +61670,7 @@ function sequentialBoundaries(design) {
     const kind = design.kind;
     z2 = walk(looks, design.sides, 0, (k, upperGiven) => {
       const increment = spentByTime(kind, oneSide, k / looks) - spentByTime(kind, oneSide, (k - 1) / looks);
-      if (increment <= 1e-30) return NEVER2;
+      if (!(increment > 0)) return NEVER2;
       const root = findRoot((b) => upperGiven(b) - increment, 0, NEVER2, 1e-12);
       return root ?? NEVER2;
     }).boundaries;
@@ -61625,14 +61680,14 @@ function sequentialBoundaries(design) {
       const { crossings: crossings2 } = walk(looks, design.sides, 0, (k) => c2 * shape(k));
       return crossings2.upper.reduce((a, b) => a + b, 0);
     };
-    const c = findRoot((x) => total(x) - oneSide, normalQuantile(1 - oneSide) * 0.5, NEVER2, 1e-12);
+    const c = findRoot((x) => total(x) - oneSide, normalUpperQuantile(oneSide) * 0.5, NEVER2, 1e-12);
     if (c === void 0) return fail("interim-looks", "no boundary constant found");
     z2 = Array.from({ length: looks }, (_, i) => c * shape(i + 1));
   }
   const { crossings } = walk(looks, design.sides, 0, (k) => z2[k - 1]);
   return ok({
     z: z2,
-    nominalP: z2.map((b) => design.sides * (1 - normalCdf(b))),
+    nominalP: z2.map((b) => design.sides * normalUpper(b)),
     alphaSpent: crossings.upper.map((u, i) => u + crossings.lower[i])
   });
 }
@@ -61655,7 +61710,7 @@ function integrateInflation(design, power) {
   if (!(power > design.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
-  const fixed = normalQuantile(1 - design.alpha / design.sides) + normalQuantile(power);
+  const fixed = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
   if (design.looks === 1) return ok({ boundaries: bounds.value, inflation: 1, expectedUnderAlternative: 1 });
   const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed * 0.9, fixed * 2, 1e-11);
   if (eta === void 0) return fail("power", "no design reaches this power");
@@ -61711,7 +61766,17 @@ var metricCommon = {
   description: optionalText("a sentence describing the metric"),
   events: uniqueList(eventName, "a list of the logging events the metric is computed from, e.g. [order_completed]", 1, "at least one logging event, e.g. [order_completed]"),
   direction: direction.optional().describe("Desired direction. The primary metric defaults to the hypothesis direction."),
-  tolerance: effectSize.optional().describe("Guardrails: the largest harm (movement against the desired direction) that is tolerated.")
+  tolerance: effectSize.optional().describe("Guardrails: the largest harm (movement against the desired direction) that is tolerated."),
+  // Per-metric sizing settings (issue 13): each overrides the design's or the settings' default for this metric.
+  alpha: openShare("a significance level for this metric strictly between 0 and 1, e.g. 0.05").optional(),
+  power: openShare("a power for this metric strictly between 0 and 1, e.g. 0.8").optional(),
+  "pre-period": external_exports.strictObject(
+    {
+      correlation: external_exports.number({ error: "a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5" }).gte(0, { error: "a correlation from 0 to below 1, e.g. 0.5" }).lt(1, { error: "a correlation from 0 to below 1, e.g. 0.5" }).describe("Correlation of the metric with its own value before the test (CUPED)."),
+      coverage: positiveShare("the share of units that have a pre-period value, in (0, 1], e.g. 0.7").default(1).describe("Share of units with a pre-period value; new units have none. The variance left is 1 - coverage \xD7 correlation\xB2.")
+    },
+    { error: "a mapping with correlation and coverage, e.g. { correlation: 0.5, coverage: 0.7 }" }
+  ).optional().describe("Variance reduction from the metric\u2019s pre-period value (CUPED); overrides design.pre-period-correlation.")
 };
 var proportionMetric = external_exports.strictObject({
   ...metricCommon,
@@ -61724,6 +61789,7 @@ var proportionMetric = external_exports.strictObject({
 var meanMetric = external_exports.strictObject({
   ...metricCommon,
   kind: external_exports.literal("mean").describe("An average per unit (revenue, items, latency)."),
+  "capped-at": external_exports.number({ error: "a percentile above 50 and at most 100 at which values are capped, e.g. 99" }).gt(50, { error: "a percentile above 50 and at most 100, e.g. 99" }).lte(100, { error: "a percentile above 50 and at most 100, e.g. 99" }).optional().describe("Percentile at which each unit\u2019s value is capped (winsorized) in the analysis; give baseline.sd of the capped values."),
   baseline: external_exports.strictObject(
     {
       mean: finiteNumber("the metric\u2019s mean per unit, e.g. 42.5"),
@@ -61742,7 +61808,8 @@ var ratioMetric = external_exports.strictObject({
       correlation: external_exports.number({ error: "the correlation of numerator and denominator per unit, between -1 and 1, e.g. 0.6" }).gte(-1, { error: "a correlation between -1 and 1" }).lte(1, { error: "a correlation between -1 and 1" }).default(0).describe("Correlation of numerator and denominator per unit.")
     },
     { error: "a mapping with numerator, denominator and correlation" }
-  ).describe("Baseline figures for sizing: per-unit moments of the numerator and denominator.")
+  ).describe("Baseline figures for sizing: per-unit moments of the numerator and denominator."),
+  "denominator-may-move": external_exports.boolean({ error: "true or false" }).default(false).describe("True when the change may move the denominator itself (e.g. more sessions); the review then asks for numerator and denominator as secondary metrics.")
 });
 var metric = external_exports.discriminatedUnion("kind", [proportionMetric, meanMetric, ratioMetric], {
   error: "a metric whose kind is proportion, mean or ratio"
@@ -61889,7 +61956,19 @@ var writtenPlanSchema = external_exports.strictObject({
           "size-cv": nonNegativeNumber("the coefficient of variation of group sizes, e.g. 0.6").default(0)
         },
         { error: "a mapping with mean-size, icc and size-cv" }
-      ).optional().describe("For group units: mean group size and intra-cluster correlation.")
+      ).optional().describe("For group units: mean group size and intra-cluster correlation."),
+      // Traffic as people arrive and groups that exist (issue 13).
+      "unique-units": external_exports.array(
+        external_exports.strictObject(
+          {
+            days: wholeNumber("a whole number of days from 1 to 3650, e.g. 7", 1, 3650),
+            units: positiveNumber("the number of different eligible units seen over those days, e.g. 31000")
+          },
+          { error: "a point { days: 7, units: 31000 }" }
+        ),
+        { error: "a list of two points, e.g. [{ days: 7, units: 31000 }, { days: 28, units: 60000 }]" }
+      ).length(2, { error: "exactly two points: the first 7 days and the planned window (or 28 days)" }).optional().describe("Different eligible units seen over the first days and over a longer span; sizing interpolates between them (a power law) because returning units do not add to the sample."),
+      "groups-available": positiveNumber("the number of groups that exist to randomize, e.g. 400").optional().describe("For group units: how many groups exist; the review warns when the design needs more.")
     },
     { error: "a mapping of design settings" }
   ).default({
@@ -61931,9 +62010,18 @@ var writtenPlanSchema = external_exports.strictObject({
   notes: optionalText("free text")
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
 function normalizeMetric(written, fallbackDirection) {
-  const { direction: direction2, ...rest } = written;
+  const { direction: direction2, "pre-period": prePeriod, ...rest } = written;
   const chosen = direction2 ?? fallbackDirection;
-  return { ...rest, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
+  const renamed = { ...rest };
+  if ("capped-at" in renamed) {
+    renamed.cappedAt = renamed["capped-at"];
+    delete renamed["capped-at"];
+  }
+  if ("denominator-may-move" in renamed) {
+    renamed.denominatorMayMove = renamed["denominator-may-move"];
+    delete renamed["denominator-may-move"];
+  }
+  return { ...renamed, ...prePeriod ? { prePeriod } : {}, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
 }
 var PRIMARY_COUNT_CODE = "plan/primary-metric-count";
 var planSchema = writtenPlanSchema.transform((written, ctx) => {
@@ -61984,7 +62072,9 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
       interimLooks: d["interim-looks"],
       interimBoundary: d["interim-boundary"],
       prePeriodCorrelation: d["pre-period-correlation"],
-      ...d.cluster ? { cluster: { meanSize: d.cluster["mean-size"], icc: d.cluster.icc, sizeCv: d.cluster["size-cv"] } } : {}
+      ...d.cluster ? { cluster: { meanSize: d.cluster["mean-size"], icc: d.cluster.icc, sizeCv: d.cluster["size-cv"] } } : {},
+      ...d["unique-units"] ? { uniqueUnits: [...d["unique-units"]].sort((a, b) => a.days - b.days) } : {},
+      ...d["groups-available"] !== void 0 ? { groupsAvailable: d["groups-available"] } : {}
     },
     decisions: {
       ...written.decisions.win ? { win: written.decisions.win } : {},
@@ -61998,6 +62088,31 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     ...written.notes ? { notes: written.notes } : {}
   };
 });
+var designShape = writtenPlanSchema.shape.design.unwrap().shape;
+var clusterShape = designShape.cluster.unwrap().shape;
+var SIZING_FLAG_FIELDS = {
+  alpha: designShape.alpha.unwrap(),
+  power: designShape.power.unwrap(),
+  "daily-units": designShape["daily-units"].unwrap(),
+  "traffic-share": designShape["traffic-share"].unwrap(),
+  reach: writtenPlanSchema.shape.exposure.unwrap().shape.reach.unwrap(),
+  "interim-looks": designShape["interim-looks"].unwrap(),
+  "pre-period-correlation": designShape["pre-period-correlation"].unwrap(),
+  "cluster-size": clusterShape["mean-size"],
+  icc: clusterShape.icc,
+  "size-cv": clusterShape["size-cv"].unwrap(),
+  "groups-available": designShape["groups-available"].unwrap(),
+  rate: proportionMetric.shape.baseline.shape.rate,
+  mean: meanMetric.shape.baseline.shape.mean,
+  sd: meanMetric.shape.baseline.shape.sd,
+  "moment-mean": ratioMetric.shape.baseline.shape.numerator.shape.mean,
+  "moment-sd": ratioMetric.shape.baseline.shape.numerator.shape.sd,
+  "denominator-mean": ratioMetric.shape.baseline.shape.denominator.shape.mean,
+  correlation: ratioMetric.shape.baseline.shape.correlation.unwrap(),
+  "arm-weight": arm.shape.weight,
+  effect: effectSize.shape.relative.unwrap(),
+  "effect-absolute": effectSize.shape.absolute.unwrap()
+};
 
 // src/core/registry/schema.ts
 var writtenEntry = external_exports.strictObject(
@@ -62076,18 +62191,82 @@ function inclusiveDays(start, end) {
 function designEffect(meanSize, icc, sizeCv = 0) {
   return Math.max(1, 1 + ((sizeCv * sizeCv + 1) * meanSize - 1) * icc);
 }
-function varianceReduction(rho) {
-  return 1 - rho * rho;
+function varianceReduction(rho, coverage = 1) {
+  return 1 - coverage * rho * rho;
 }
 function bonferroniAlpha(alpha, comparisons) {
   return alpha / Math.max(1, comparisons);
 }
 
-// src/core/stats/duration.ts
-function durationFor(unitsNeeded, unitsPerDay) {
-  if (!(unitsPerDay > 0) || !Number.isFinite(unitsNeeded) || !Number.isFinite(unitsPerDay)) return void 0;
-  const days = Math.max(1, Math.ceil(unitsNeeded / unitsPerDay - 1e-9));
-  return { days, weeks: Math.ceil(days / 7) };
+// src/core/stats/non-inferiority.ts
+function check2(test) {
+  if (!(test.p > 0 && test.p < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${test.p}`);
+  if (!(test.alpha > 0 && test.alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${test.alpha}`);
+  if (!(test.ratio > 0)) return fail("ratio", `the allocation ratio must be above 0; got ${test.ratio}`);
+  return void 0;
+}
+var spread = (test) => Math.sqrt(test.p * (1 - test.p) * (1 + 1 / test.ratio));
+function nonInferiorityProportionSize(test, margin, power) {
+  const problem = check2(test);
+  if (problem) return problem;
+  if (!(margin > 0)) return fail("tolerance", "the tolerance must be above 0");
+  if (!(power > test.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
+  const z2 = normalUpperQuantile(test.alpha) + normalQuantile(power);
+  return finite((z2 * spread(test) / margin) ** 2, "tolerance", "the sample size");
+}
+function nonInferiorityProportionPower(test, margin, n1) {
+  const problem = check2(test);
+  if (problem) return problem;
+  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
+  return finite(normalCdf(Math.sqrt(n1) * margin / spread(test) - normalUpperQuantile(test.alpha)), "n", "power");
+}
+function nonInferiorityProportionMargin(test, n1, power) {
+  const problem = check2(test);
+  if (problem) return problem;
+  if (!(n1 > 0)) return fail("n", `the sample size must be above 0; got ${n1}`);
+  const z2 = normalUpperQuantile(test.alpha) + normalQuantile(power);
+  return finite(z2 * spread(test) / Math.sqrt(n1), "n", "the detectable margin");
+}
+
+// src/core/stats/traffic.ts
+var LAST_DAY = 36500;
+function dailyCurve(perDay) {
+  if (!(perDay > 0 && Number.isFinite(perDay))) return fail("daily-units", "zero traffic: no test can reach its sample");
+  return ok({
+    unitsBy: (day) => perDay * day,
+    dayFor: (units2) => {
+      const day = Math.max(1, Math.ceil(units2 / perDay - 1e-9));
+      return Number.isFinite(day) && day <= LAST_DAY ? day : void 0;
+    },
+    source: { kind: "daily", perDay }
+  });
+}
+function uniqueUnitsCurve(points) {
+  if (points.length !== 2) return fail("unique-units", "exactly two points are needed, e.g. the first 7 days and 28 days");
+  const [first, second] = [...points].sort((a, b) => a.days - b.days);
+  if (!(first.days > 0 && first.units > 0)) return fail("unique-units", "days and units must be above 0");
+  if (first.days === second.days) return fail("unique-units", `the two points must count different spans; both are ${first.days} days`);
+  if (second.units < first.units) {
+    return fail("unique-units", `${second.units} different units over ${second.days} days is fewer than the ${first.units} over the first ${first.days}; a longer span sees at least as many`);
+  }
+  const exponent = Math.log(second.units / first.units) / Math.log(second.days / first.days);
+  if (exponent > 1 + 1e-12) {
+    return fail("unique-units", `${second.units} over ${second.days} days grows faster than the first ${first.days} days' rate; if every unit is new, give daily-units instead`);
+  }
+  const unitsBy = (day) => day <= 0 ? 0 : first.units * (day / first.days) ** exponent;
+  return ok({
+    unitsBy,
+    dayFor: (units2) => {
+      if (exponent <= 0) return units2 <= first.units ? first.days : void 0;
+      const exact = first.days * (units2 / first.units) ** (1 / exponent);
+      if (!Number.isFinite(exact) || exact > LAST_DAY) return void 0;
+      let day = Math.max(1, Math.ceil(exact - 1e-9));
+      while (day > 1 && unitsBy(day - 1) >= units2) day--;
+      while (unitsBy(day) < units2 * (1 - 1e-12)) day++;
+      return day;
+    },
+    source: { kind: "unique", points: [first, second], exponent }
+  });
 }
 
 // src/core/stats/inputs.ts
@@ -62104,6 +62283,9 @@ function checkSettings(settings, power) {
 function upperQuantileLevel(settings) {
   return 1 - settings.alpha / settings.sides;
 }
+function criticalZ(settings) {
+  return normalUpperQuantile(settings.alpha / settings.sides);
+}
 
 // src/core/stats/mean.ts
 function minimumControlUnits(ratio) {
@@ -62119,7 +62301,7 @@ function powerUnchecked(test, n1) {
   const standardError = test.sd * Math.sqrt(1 / n1 + 1 / n2);
   const shift = Math.abs(test.delta) / standardError;
   const level = upperQuantileLevel(test);
-  if (test.method === "normal") return normalCdf(shift - normalQuantile(level));
+  if (test.method === "normal") return normalCdf(shift - criticalZ(test));
   const df = n1 + n2 - 2;
   return noncentralTUpper(studentQuantile(level, df), df, shift);
 }
@@ -62132,7 +62314,7 @@ function meanPower(test, n1) {
 function meanSampleSize(test, power) {
   const problem = checkSettings(test, power) ?? checkMoments(test.delta, test.sd);
   if (problem) return problem;
-  const z2 = normalQuantile(upperQuantileLevel(test)) + normalQuantile(power);
+  const z2 = criticalZ(test) + normalQuantile(power);
   const normal = (test.sd * z2 / test.delta) ** 2 * (1 + 1 / test.ratio);
   if (test.method === "normal") return finite(normal, "effect", "the sample size");
   const min = minimumControlUnits(test.ratio);
@@ -62144,7 +62326,7 @@ function meanDetectable(settings, n1, power) {
   const problem = checkSettings(settings, power) ?? checkMoments(1, settings.sd);
   if (problem) return problem;
   if (!(n1 >= minimumControlUnits(settings.ratio))) return fail("n", `at least ${minimumControlUnits(settings.ratio)} control units are needed; got ${n1}`);
-  const z2 = normalQuantile(upperQuantileLevel(settings)) + normalQuantile(power);
+  const z2 = criticalZ(settings) + normalQuantile(power);
   const guess = settings.sd * z2 * Math.sqrt(1 / n1 + 1 / (settings.ratio * n1));
   if (settings.method === "normal") return finite(guess, "n", "the detectable effect");
   const delta = solveIncreasing((d) => powerUnchecked({ ...settings, delta: d }, n1), power, guess, 1e-300, 1e300, 1e-12);
@@ -62167,7 +62349,7 @@ function unitErrors(test) {
   };
 }
 function powerUnchecked2(test, n1) {
-  const z2 = normalQuantile(upperQuantileLevel(test));
+  const z2 = criticalZ(test);
   const { null0, alt1 } = unitErrors(test);
   return normalCdf((Math.sqrt(n1) * Math.abs(test.p2 - test.p1) - z2 * null0) / alt1);
 }
@@ -62180,7 +62362,7 @@ function proportionPower(test, n1) {
 function proportionSampleSize(test, power) {
   const problem = checkSettings(test, power) ?? checkRates(test.p1, test.p2);
   if (problem) return problem;
-  const za = normalQuantile(upperQuantileLevel(test));
+  const za = criticalZ(test);
   const zb = normalQuantile(power);
   const { null0, alt1 } = unitErrors(test);
   const n1 = ((za * null0 + zb * alt1) / (test.p2 - test.p1)) ** 2;
@@ -62217,6 +62399,8 @@ function ratioMoments(baseline) {
 }
 
 // src/core/stats/sizing.ts
+var ABSURD_UNITS = 1e12;
+var DEFAULT_LONGEST_DAYS = 56;
 function comparisonFor(request2, ratio, alpha, method) {
   const settings = { alpha, sides: request2.sides, ratio };
   const sign = request2.direction === "increase" ? 1 : -1;
@@ -62224,6 +62408,15 @@ function comparisonFor(request2, ratio, alpha, method) {
   if (baseline.kind === "proportion") {
     const p1 = baseline.rate;
     if (!(p1 > 0 && p1 < 1)) return fail("baseline.rate", `a baseline rate must be strictly between 0 and 1; got ${p1}`);
+    if (request2.hypothesis === "non-inferiority") {
+      const test = { p: p1, alpha, ratio };
+      return ok({
+        value: p1,
+        controlUnits: (d) => nonInferiorityProportionSize(test, d, request2.power),
+        power: (d, n1) => nonInferiorityProportionPower(test, d, n1),
+        detectable: (n1) => nonInferiorityProportionMargin(test, n1, request2.power)
+      });
+    }
     return ok({
       value: p1,
       controlUnits: (d) => proportionSampleSize({ ...settings, p1, p2: p1 + sign * d }, request2.power),
@@ -62255,7 +62448,7 @@ function effectIn(effect, value, kind) {
   return ok(Math.abs(value) * effect.relative);
 }
 var EXACT_T_LIMIT = 1e3;
-function chooseMethod(request2, normal, enrolledPerDay) {
+function chooseMethod(request2, normal, enrolledAtEnd) {
   if (request2.method === "normal" || request2.method === "exact") return request2.method;
   if (request2.baseline.kind === "proportion") return "normal";
   let n1;
@@ -62263,8 +62456,8 @@ function chooseMethod(request2, normal, enrolledPerDay) {
     const d = effectIn(request2.effect, normal.value, request2.baseline.kind);
     const size = d.ok ? normal.controlUnits(d.value * request2.reach) : void 0;
     n1 = size?.ok ? size.value : void 0;
-  } else if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
-    n1 = request2.plannedDays * enrolledPerDay;
+  } else if (enrolledAtEnd !== void 0) {
+    n1 = enrolledAtEnd;
   }
   return n1 !== void 0 && n1 > EXACT_T_LIMIT ? "normal" : "exact";
 }
@@ -62280,18 +62473,25 @@ function sizeMetric(request2) {
   if (!(request2.trafficShare > 0 && request2.trafficShare <= 1)) return fail("traffic-share", `the share of traffic must be in (0, 1]; got ${request2.trafficShare}`);
   if (!(request2.reach > 0 && request2.reach <= 1)) return fail("exposure.reach", `reach must be in (0, 1]; got ${request2.reach}`);
   if (request2.dailyUnits !== void 0 && !(request2.dailyUnits > 0)) return fail("daily-units", "zero traffic: no test can reach its sample");
+  const coverage = request2.prePeriodCoverage ?? 1;
+  if (!(coverage > 0 && coverage <= 1)) return fail("pre-period.coverage", `the share of units with a pre-period value must be in (0, 1]; got ${coverage}`);
+  const curve = request2.uniqueUnits ? uniqueUnitsCurve(request2.uniqueUnits) : request2.dailyUnits !== void 0 ? dailyCurve(request2.dailyUnits) : void 0;
+  if (curve && !curve.ok) return curve;
+  const traffic = curve?.value;
+  const longestDays = request2.longestDays ?? DEFAULT_LONGEST_DAYS;
   const totalWeight = request2.arms.reduce((s, a) => s + a.weight, 0);
-  const alphaPerComparison = bonferroniAlpha(request2.alpha, treatments.length);
+  const alphaPerComparison = request2.armCorrection === false ? request2.alpha : bonferroniAlpha(request2.alpha, treatments.length);
   const sequential = request2.interimLooks > 0 ? sequentialInflation({ kind: request2.boundary, looks: request2.interimLooks + 1, alpha: alphaPerComparison, sides: request2.sides }, request2.power) : ok({ inflation: 1, boundaries: void 0 });
   if (!sequential.ok) return sequential;
   const boundaries = sequential.value.boundaries;
   const de = request2.cluster ? designEffect(request2.cluster.meanSize, request2.cluster.icc, request2.cluster.sizeCv) : 1;
-  const vr = varianceReduction(request2.prePeriodCorrelation);
+  const vr = varianceReduction(request2.prePeriodCorrelation, coverage);
   const inflate = de * vr * sequential.value.inflation;
-  const enrolledPerDay = request2.dailyUnits === void 0 ? void 0 : request2.dailyUnits * request2.trafficShare;
+  const enrolledBy = traffic ? (day) => traffic.unitsBy(day) * request2.trafficShare : void 0;
+  const enrolledPerDay = enrolledBy?.(1);
   const probe = comparisonFor(request2, 1, alphaPerComparison, "normal");
   if (!probe.ok) return probe;
-  const method = chooseMethod(request2, probe.value, enrolledPerDay);
+  const method = chooseMethod(request2, probe.value, request2.plannedDays !== void 0 && enrolledBy ? enrolledBy(request2.plannedDays) : void 0);
   const comparisons = [];
   for (const arm2 of treatments) {
     const built = comparisonFor(request2, arm2.weight / control.weight, alphaPerComparison, method);
@@ -62309,14 +62509,21 @@ function sizeMetric(request2) {
     }
     return ok(worst * inflate);
   };
-  const sizeFromTotal = (total, perDay) => {
-    const perArm = request2.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
+  const sizeFromTotal = (total, reachShare) => {
+    let perArm = request2.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
+    let clustersPerArm;
+    if (request2.cluster) {
+      const groups2 = wholeGroupsPerArm(perArm, request2.cluster.meanSize, alphaPerComparison, request2.sides, request2.power);
+      clustersPerArm = groups2;
+      perArm = groups2.map((g) => ({ arm: g.arm, units: units(g.groups * request2.cluster.meanSize) }));
+    }
     const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
-    const duration3 = perDay === void 0 ? void 0 : durationFor(totalUnits, perDay);
+    const day = traffic && reachShare !== void 0 && totalUnits < ABSURD_UNITS ? traffic.dayFor(totalUnits / (request2.trafficShare * reachShare)) : void 0;
+    const duration3 = day === void 0 ? void 0 : { days: day, weeks: Math.ceil(day / 7) };
     return {
       perArm,
       totalUnits,
-      ...request2.cluster ? { clusters: units(totalUnits / request2.cluster.meanSize) } : {},
+      ...clustersPerArm ? { clusters: clustersPerArm.reduce((s, g) => s + g.groups, 0), clustersPerArm } : {},
       ...duration3 ? { duration: duration3 } : {}
     };
   };
@@ -62333,11 +62540,11 @@ function sizeMetric(request2) {
     effect = { absolute: sign * d.value, relative: value === 0 ? 0 : sign * d.value / Math.abs(value), from: value, to: value + sign * d.value };
     const trig = totalFor(d.value);
     if (!trig.ok) return trig;
-    triggered = sizeFromTotal(trig.value, enrolledPerDay === void 0 ? void 0 : enrolledPerDay * request2.reach);
+    triggered = sizeFromTotal(trig.value, traffic ? request2.reach : void 0);
     if (dilutedAnalysis) {
       const dil = totalFor(d.value * request2.reach);
       if (!dil.ok) return dil;
-      diluted = sizeFromTotal(dil.value, enrolledPerDay);
+      diluted = sizeFromTotal(dil.value, traffic ? 1 : void 0);
       dilutionUnits = dil.value / trig.value;
       dilutionDays = dilutionUnits * request2.reach;
     }
@@ -62355,44 +62562,65 @@ function sizeMetric(request2) {
     }
     return ok(weakest);
   };
+  const detectableAt = (totalEnrolled) => {
+    const n1 = controlAt(totalEnrolled);
+    let detectable = 0;
+    for (const c of comparisons) {
+      const dd = c.detectable(n1);
+      if (!dd.ok) return dd;
+      detectable = Math.max(detectable, dd.value / headlineScale);
+    }
+    const sign = request2.direction === "increase" ? 1 : -1;
+    return ok({ absolute: sign * detectable, relative: value === 0 ? 0 : sign * detectable / Math.abs(value), to: value + sign * detectable });
+  };
   let atPlannedEnd;
-  if (request2.plannedDays !== void 0 && enrolledPerDay !== void 0) {
-    const totalUnits = Math.floor(request2.plannedDays * enrolledPerDay * headlineReach);
-    const n1 = controlAt(totalUnits);
+  if (request2.plannedDays !== void 0 && enrolledBy) {
+    const totalUnits = Math.floor(enrolledBy(request2.plannedDays) * headlineReach);
     atPlannedEnd = { days: request2.plannedDays, totalUnits };
     if (effect) {
       const p = powerAt(totalUnits, Math.abs(effect.absolute));
       if (p.ok) atPlannedEnd.power = p.value;
     }
-    let detectable = 0;
-    let failed;
-    for (const c of comparisons) {
-      const dd = c.detectable(n1);
-      if (!dd.ok) {
-        failed = dd.error.message;
-        break;
-      }
-      detectable = Math.max(detectable, dd.value / headlineScale);
-    }
-    if (failed) notes.push(`No effect is detectable by the planned end: ${failed}.`);
-    else {
-      const sign = request2.direction === "increase" ? 1 : -1;
-      atPlannedEnd.detectable = { absolute: sign * detectable, relative: value === 0 ? 0 : sign * detectable / Math.abs(value), to: value + sign * detectable };
-    }
+    const detectable = detectableAt(totalUnits);
+    if (!detectable.ok) notes.push(`No effect is detectable by the planned end: ${detectable.error.message}.`);
+    else atPlannedEnd.detectable = detectable.value;
     if (atPlannedEnd.power !== void 0 && atPlannedEnd.power < request2.power) {
       notes.push(`The planned ${request2.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request2.power * 100).toFixed(0)}%.`);
     }
   }
   const headline2 = diluted ?? triggered;
   let powerByDay;
-  if (effect && enrolledPerDay !== void 0 && headline2?.duration) {
+  if (effect && enrolledBy && headline2?.duration) {
     const horizon = Math.max(headline2.duration.days, request2.plannedDays ?? 0);
     const step = horizon <= 21 ? 1 : 7;
     const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
     powerByDay = [];
     for (let day = step; day <= last; day += step) {
-      const p = powerAt(day * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
+      const p = powerAt(enrolledBy(day) * headlineReach, Math.abs(effect.absolute));
       if (p.ok) powerByDay.push({ day, power: p.value });
+    }
+  }
+  let feasibility;
+  if (headline2) {
+    const tooMany = headline2.totalUnits >= ABSURD_UNITS;
+    const tooLong = enrolledBy !== void 0 && (headline2.duration === void 0 || headline2.duration.days > longestDays);
+    if (tooMany || tooLong) {
+      const reason = tooMany ? `it needs more than ${ABSURD_UNITS.toExponential(0).replace("e+", " \xD7 10^")} units` : headline2.duration ? `it needs ${headline2.duration.days} days, beyond the longest sensible window of ${longestDays} days` : `the traffic never reaches its sample`;
+      const atLongest = enrolledBy ? detectableAt(enrolledBy(longestDays) * headlineReach) : void 0;
+      feasibility = { feasible: false, longestDays, reason, ...atLongest?.ok ? { detectableAtLongest: atLongest.value } : {} };
+    } else feasibility = { feasible: true, longestDays };
+  }
+  let squareRootAllocation;
+  const k = treatments.length;
+  if (k >= 2 && headline2 && !request2.cluster) {
+    const treatmentWeight = treatments.reduce((s, a) => s + a.weight, 0) / k;
+    const controlWeight = Math.sqrt(k) * treatmentWeight;
+    if (Math.abs(control.weight / treatmentWeight - Math.sqrt(k)) > 0.05) {
+      const better = sizeMetric({ ...request2, arms: [{ name: control.name, weight: controlWeight }, ...treatments.map((a) => ({ name: a.name, weight: treatmentWeight }))] });
+      const betterHeadline = better.ok ? better.value.headline : void 0;
+      if (betterHeadline && betterHeadline.totalUnits < headline2.totalUnits) {
+        squareRootAllocation = { controlWeight, treatmentWeight, totalUnits: betterHeadline.totalUnits, unitsSaved: headline2.totalUnits - betterHeadline.totalUnits };
+      }
     }
   }
   return ok({
@@ -62400,7 +62628,7 @@ function sizeMetric(request2) {
     ...probe.value.sd !== void 0 ? { sd: probe.value.sd } : {},
     ...effect ? { effect } : {},
     multipliers: {
-      comparisons: treatments.length,
+      comparisons: request2.armCorrection === false ? 1 : treatments.length,
       alphaPerComparison,
       designEffect: de,
       varianceReduction: vr,
@@ -62414,35 +62642,58 @@ function sizeMetric(request2) {
     ...headline2 ? { headline: headline2 } : {},
     ...atPlannedEnd ? { atPlannedEnd } : {},
     ...powerByDay ? { powerByDay } : {},
+    ...traffic ? { traffic: traffic.source } : {},
+    ...feasibility ? { feasibility } : {},
+    ...squareRootAllocation ? { squareRootAllocation } : {},
     notes
   });
 }
+function wholeGroupsPerArm(perArm, meanSize, alpha, sides, power) {
+  const zSum = normalUpperQuantile(alpha / sides) + normalQuantile(power);
+  let groups2 = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
+  for (let round = 0; round < 50; round++) {
+    const df = groups2.reduce((s, g) => s + g.groups, 0) - 2;
+    const tSum = studentQuantile(1 - alpha / sides, df) + studentQuantile(power, df);
+    const factor = (tSum / zSum) ** 2;
+    const next = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units * factor / meanSize - 1e-9)) }));
+    if (next.every((g, i) => g.groups === groups2[i].groups)) return next;
+    groups2 = next;
+  }
+  return groups2;
+}
 
 // src/core/stats/plan-sizing.ts
+var DEFAULT_SIZING_POLICY = { guardrailAlpha: 0.05, guardrailPower: 0.8, guardrailArmCorrection: false, longestDays: DEFAULT_LONGEST_DAYS };
 function baselineOf(metric2) {
   if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
   if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
   return { kind: "ratio", ...metric2.baseline };
 }
-function sizePlan(plan) {
+function prePeriodOf(metric2, plan, role) {
+  if (metric2.prePeriod) return { prePeriodCorrelation: metric2.prePeriod.correlation, prePeriodCoverage: metric2.prePeriod.coverage };
+  return { prePeriodCorrelation: role === "primary" ? plan.design.prePeriodCorrelation : 0, prePeriodCoverage: 1 };
+}
+function sizePlan(plan, policy = DEFAULT_SIZING_POLICY) {
   const { design } = plan;
   const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
   const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
   const common = {
     arms: design.arms,
     control: design.control,
-    alpha: design.alpha,
-    power: design.power,
     trafficShare: design.trafficShare,
     reach: plan.exposure.reach,
     interimLooks: design.interimLooks,
     boundary: design.interimBoundary,
-    prePeriodCorrelation: design.prePeriodCorrelation,
+    longestDays: policy.longestDays,
     ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    ...clustered && design.cluster ? { cluster: design.cluster } : {},
+    ...design.uniqueUnits ? { uniqueUnits: design.uniqueUnits } : {},
+    ...clustered && design.cluster ? { cluster: { ...design.cluster, ...design.groupsAvailable !== void 0 ? { available: design.groupsAvailable } : {} } } : {},
     ...plannedDays !== void 0 ? { plannedDays } : {}
   };
   const primary = plan.metrics.primary;
+  const primaryAlpha = primary.alpha ?? design.alpha;
+  const primaryPower = primary.power ?? design.power;
+  const analyses = design.interimLooks + 1;
   const entries = [
     {
       metric: primary.name,
@@ -62450,8 +62701,13 @@ function sizePlan(plan) {
       kind: primary.kind,
       direction: primary.direction,
       sides: design.sides,
+      alpha: primaryAlpha,
+      power: primaryPower,
       result: sizeMetric({
         ...common,
+        ...prePeriodOf(primary, plan, "primary"),
+        alpha: primaryAlpha,
+        power: primaryPower,
         baseline: baselineOf(primary),
         direction: primary.direction,
         sides: design.sides,
@@ -62460,14 +62716,25 @@ function sizePlan(plan) {
     },
     ...plan.metrics.guardrails.map((metric2) => {
       const harm = metric2.direction === "increase" ? "decrease" : "increase";
+      const alpha = metric2.alpha ?? policy.guardrailAlpha;
+      const power = metric2.power ?? policy.guardrailPower;
       return {
         metric: metric2.name,
         role: "guardrail",
         kind: metric2.kind,
         direction: harm,
         sides: 1,
+        alpha,
+        power,
+        ...analyses > 1 ? { guardrailLooks: { looks: analyses, falseAlarm: sequentialPower(Array.from({ length: analyses }, () => normalUpperQuantile(alpha)), 1, 0) } } : {},
         result: sizeMetric({
           ...common,
+          ...prePeriodOf(metric2, plan, "guardrail"),
+          interimLooks: 0,
+          alpha,
+          power,
+          hypothesis: "non-inferiority",
+          armCorrection: policy.guardrailArmCorrection,
           baseline: baselineOf(metric2),
           direction: harm,
           sides: 1,
@@ -62480,8 +62747,24 @@ function sizePlan(plan) {
     planId: plan.id,
     ...plannedDays !== void 0 ? { plannedDays } : {},
     ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    metrics: entries
+    ...design.uniqueUnits ? { uniqueUnits: design.uniqueUnits } : {},
+    metrics: entries,
+    ...familyOf(entries)
   };
+}
+function familyOf(entries) {
+  const [primary, ...guardrails] = entries;
+  if (!primary?.result.ok || guardrails.length === 0) return {};
+  const primaryPower = primary.result.value.atPlannedEnd?.power ?? (primary.result.value.effect ? primary.power : void 0);
+  if (primaryPower === void 0) return {};
+  let noFalseAlarm = 1;
+  let allClear = 1;
+  for (const g of guardrails) {
+    if (!g.result.ok || !g.result.value.effect) return {};
+    noFalseAlarm *= 1 - (g.guardrailLooks?.falseAlarm ?? g.alpha);
+    allClear *= g.result.value.atPlannedEnd?.power ?? g.power;
+  }
+  return { family: { primaryPower, noFalseAlarm: primaryPower * noFalseAlarm, allGuardrailsClear: primaryPower * allClear } };
 }
 
 // src/core/source/closest-name.ts
@@ -63473,11 +63756,12 @@ var populationChecks = ({ linked }) => linked.flatMap(({ loaded }) => {
 });
 
 // src/core/checks/sizing.ts
-var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
+var sizingChecks = ({ linked, settings }) => linked.flatMap(({ loaded, sizing }) => {
   const { plan } = loaded;
   const out = [];
-  if (!plan.design.minDetectableEffect || plan.design.dailyUnits === void 0) {
-    const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", plan.design.dailyUnits === void 0 ? "design.daily-units" : ""].filter(Boolean);
+  const noTraffic = plan.design.dailyUnits === void 0 && plan.design.uniqueUnits === void 0;
+  if (!plan.design.minDetectableEffect || noTraffic) {
+    const missing = [plan.design.minDetectableEffect ? "" : "design.min-detectable-effect", noTraffic ? "design.daily-units (or design.unique-units)" : ""].filter(Boolean);
     const key = plan.design.minDetectableEffect ? "daily-units" : "min-detectable-effect";
     out.push({ code: "sizing-incomplete", message: `The test cannot be sized without ${missing.join(" and ")}.`, fix: `Add ${missing.join(" and ")}; then Plumbline says how many units and days the test needs.`, ...atPlanKey(loaded, ["design", key]) });
   }
@@ -63489,17 +63773,19 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
     }
     const s = entry.result.value;
     const end = s.atPlannedEnd;
-    if (end?.power !== void 0 && end.power < plan.design.power) {
+    if (end?.power !== void 0 && end.power < entry.power) {
       const needed = s.headline?.duration ? ` It needs ${formatWeeks(s.headline.duration)}.` : "";
       out.push({
         code: "underpowered",
-        message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(plan.design.power)}.${needed}`,
+        message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} reaches ${formatPower(end.power)} power by the planned end, below the planned ${formatPower(entry.power)}.${needed}`,
         fix: "Extend the window, enrol more traffic, or plan for a larger effect, and say which in the plan.",
         ...at
       });
     }
   }
-  const diluted = plan.exposure.reach < 1 ? dilution(sizing, plan.design.power) : void 0;
+  const atDesign = atPlanKey(loaded, ["design"]);
+  out.push(...practiceFindings(plan, sizing, settings).map((f) => ({ ...f, ...atDesign })));
+  const diluted = plan.exposure.reach < 1 ? dilution(sizing) : void 0;
   if (diluted) {
     out.push({
       code: "exposure-diluted",
@@ -63510,16 +63796,85 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   }
   return out;
 });
-function dilution(sizing, plannedPower) {
+function dilution(sizing) {
   const asLogged = lengthSetter2(sizing, (s) => s.diluted);
   const triggered = lengthSetter2(sizing, (s) => s.triggered);
   if (!asLogged || !triggered) return void 0;
-  const powers = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [m.result.value.atPlannedEnd.power] : []);
-  const weakest = powers.length ? Math.min(...powers) : void 0;
-  const enough = weakest !== void 0 && weakest >= plannedPower;
+  const ends = sizing.metrics.flatMap((m) => m.result.ok && m.result.value.atPlannedEnd?.power !== void 0 ? [{ power: m.result.value.atPlannedEnd.power, target: m.power }] : []);
+  const shortest = ends.length ? ends.reduce((a, b) => b.power - b.target < a.power - a.target ? b : a) : void 0;
+  const weakest = shortest?.power;
+  const plannedPower = shortest?.target ?? 0;
+  const enough = shortest !== void 0 && ends.every((e) => e.power >= e.target);
   const planned = sizing.plannedDays !== void 0 ? countOf(sizing.plannedDays, "day") : void 0;
   const verdict = weakest === void 0 || planned === void 0 ? "Without a planned window it cannot be said whether the test runs long enough." : enough ? `The planned ${planned} still suffice: every metric reaches at least ${formatPower(weakest)} power by the end.` : `The planned ${planned} do not suffice: the weakest metric reaches ${formatPower(weakest)} power by the end, below the planned ${formatPower(plannedPower)}.`;
   return { needs: formatWeeks(asLogged.duration, describeSetter(asLogged)), couldNeed: formatWeeks(triggered.duration), verdict, enough };
+}
+var RETURNING = /\b(returning|repeat|regulars?|existing|loyal|weekly|monthly|past orders?|subscribers?|members?|logged[- ]in)\b/i;
+function populationReturns(plan) {
+  return RETURNING.test(`${plan.population.segment ?? ""} ${plan.hypothesis.change}`);
+}
+function practiceFindings(plan, sizing, settings) {
+  const out = [];
+  for (const entry of sizing.metrics) {
+    if (!entry.result.ok) continue;
+    const f = entry.result.value.feasibility;
+    if (f && !f.feasible) {
+      out.push({
+        code: "not-feasible",
+        message: `${entry.role === "primary" ? "The primary metric" : `Guardrail ${entry.metric}`} is not feasible at this traffic: ${f.reason}.`,
+        fix: "Plan for a larger effect, pick a more sensitive metric, or ship as a guarded rollout without a test; the sizing shows what the longest window can detect."
+      });
+    }
+  }
+  if (populationReturns(plan) && plan.design.dailyUnits !== void 0 && !plan.design.uniqueUnits) {
+    out.push({
+      code: "returning-units",
+      message: "The population comes back (returning or regular users), but traffic is given only as design.daily-units, which sizing reads as new units each day.",
+      fix: "Give design.unique-units: the different units seen in the first 7 days and over the planned window, e.g. [{ days: 7, units: 40000 }, { days: 28, units: 60000 }]."
+    });
+  }
+  const primary = sizing.metrics[0]?.result;
+  const groups2 = primary?.ok ? primary.value.headline?.clusters : void 0;
+  if (groups2 !== void 0 && plan.design.groupsAvailable !== void 0 && groups2 > plan.design.groupsAvailable) {
+    out.push({
+      code: "groups-short",
+      message: `The design needs ${countOf(groups2, "group")}, but only ${formatCount(plan.design.groupsAvailable)} exist.`,
+      fix: "Plan for a larger effect, reduce the intra-cluster correlation with a pre-period adjustment, or randomize a smaller unit if spillover allows."
+    });
+  }
+  const metrics = [plan.metrics.primary, ...plan.metrics.guardrails];
+  for (const metric2 of metrics) {
+    if (metric2.kind !== "ratio" || !metric2.denominatorMayMove) continue;
+    const secondaryEvents = new Set(plan.metrics.secondary.flatMap((m) => m.events));
+    const covered = plan.metrics.secondary.filter((m) => m.events.every((e) => metric2.events.includes(e))).length >= 2 && metric2.events.every((e) => secondaryEvents.has(e));
+    if (!covered) {
+      out.push({
+        code: "ratio-denominator",
+        message: `${metric2.name} is a ratio whose denominator the change may move: a ratio can rise because its denominator falls.`,
+        fix: `List the numerator and the denominator of ${metric2.name} as secondary metrics (each from its events), so the readout shows which moved.`
+      });
+    }
+  }
+  const { start, end } = plan.window;
+  if (start && end) {
+    for (const period of settings.sizing.atypicalPeriods) {
+      if (period.start <= end && period.end >= start) {
+        out.push({
+          code: "atypical-period",
+          message: `The planned window overlaps ${period.name} (${period.start} to ${period.end}), when behaviour is unusual.`,
+          fix: "Move or extend the window so that typical weeks dominate, or say in the plan why the period is the one to test."
+        });
+      }
+    }
+    if (populationReturns(plan) && end >= start && inclusiveDays(start, end) < 14) {
+      out.push({
+        code: "novelty-window",
+        message: `The change is aimed at returning users and the window is ${countOf(inclusiveDays(start, end), "day")}: early reactions to something new fade.`,
+        fix: "Plan at least two weeks so that the novelty effect can wear off, and compare the first week with the second at the readout."
+      });
+    }
+  }
+  return out;
 }
 
 // src/core/checks/unit.ts
@@ -63581,6 +63936,12 @@ var FINDING_CODES = {
   "sizing-incomplete": { severity: "note", about: "the plan lacks the figures sizing needs" },
   "sizing-impossible": { severity: "warn", about: "the plan\u2019s figures cannot be sized" },
   "exposure-diluted": { severity: "note", about: "exposure is logged before the change is reached; says whether the planned window still suffices (when it does not, underpowered warns)" },
+  "not-feasible": { severity: "warn", about: "the test needs more than the longest sensible window at this traffic" },
+  "returning-units": { severity: "note", about: "the population returns, but traffic is given only as units a day" },
+  "groups-short": { severity: "warn", about: "the design needs more groups than exist" },
+  "ratio-denominator": { severity: "note", about: "a ratio metric whose denominator may move lacks its parts as secondary metrics" },
+  "atypical-period": { severity: "note", about: "the planned window overlaps a holiday, sale or other atypical period" },
+  "novelty-window": { severity: "note", about: "a change for returning users planned for less than two weeks" },
   spillover: { severity: "warn", about: "people randomized one by one on a surface they share" },
   "analysis-unit-differs": { severity: "note", about: "metrics are averaged over another unit than the one randomized" },
   collision: { severity: "warn", about: "the test overlaps a running test on the same surface; says what isolating them would cost" },
@@ -63598,7 +63959,7 @@ var CHECKLIST = [
   { label: "Hypothesis says why the change should work", codes: ["reason-missing"] },
   { label: "One primary metric and at least one guardrail", codes: ["guardrails-missing"] },
   { label: "Planned end, at least a week, in whole weeks", codes: ["end-missing", "window-short", "window-partial-week"] },
-  { label: "Enough power by the planned end", codes: ["underpowered", "sizing-incomplete", "sizing-impossible"] },
+  { label: "Enough power by the planned end", codes: ["underpowered", "sizing-incomplete", "sizing-impossible", "not-feasible", "groups-short"] },
   { label: "Exposure logged where the change is seen", codes: ["exposure-diluted"] },
   { label: "Randomization unit fits the surface", codes: ["spillover"] },
   { label: "No collision with a running test", codes: ["collision"] },
@@ -63620,7 +63981,7 @@ function findingKey(f) {
 function knownAtBase(base) {
   if (!base) return /* @__PURE__ */ new Set();
   return new Set(
-    CHECKS.flatMap((check2) => check2(base)).filter((f) => f.plan !== void 0).map(findingKey)
+    CHECKS.flatMap((check3) => check3(base)).filter((f) => f.plan !== void 0).map(findingKey)
   );
 }
 function byMention(a, b) {
@@ -63628,7 +63989,7 @@ function byMention(a, b) {
   return named(a) - named(b);
 }
 function buildReview(context3, change2, base) {
-  const raw = CHECKS.flatMap((check2) => check2(context3));
+  const raw = CHECKS.flatMap((check3) => check3(context3));
   const codes = Object.keys(FINDING_CODES);
   for (const code of Object.keys(context3.settings.severity)) {
     if (codes.includes(code)) continue;
@@ -64043,6 +64404,16 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
+// src/core/config/sizing-policy.ts
+function sizingPolicy(settings) {
+  return {
+    guardrailAlpha: settings.sizing.guardrailAlpha,
+    guardrailPower: settings.sizing.guardrailPower,
+    guardrailArmCorrection: settings.sizing.guardrailArmCorrection,
+    longestDays: settings.sizing.longestWindowDays
+  };
+}
+
 // src/core/config/schema.ts
 var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
 function compiles(pattern) {
@@ -64123,6 +64494,27 @@ var writtenSettingsSchema = external_exports.strictObject(
       },
       { error: "a mapping of digest settings" }
     ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
+    // Sizing conventions (issue 13): guardrails' own error rates, the longest sensible window, atypical periods.
+    sizing: external_exports.strictObject(
+      {
+        "guardrail-alpha": openShare("a one-sided significance level for guardrails strictly between 0 and 1, e.g. 0.05").default(0.05),
+        "guardrail-power": openShare("a power for guardrails strictly between 0 and 1, e.g. 0.8").default(0.8),
+        "guardrail-arm-correction": external_exports.boolean({ error: "true or false" }).default(false).describe("Divide a guardrail\u2019s \u03B1 among several treatment arms (Bonferroni); off by default, since it makes a safety check less sensitive."),
+        "longest-window-days": external_exports.number({ error: "a whole number of days from 7 to 365" }).int({ error: "a whole number of days from 7 to 365" }).min(7, { error: "at least 7 days" }).max(365, { error: "at most 365 days" }).default(56).describe("Beyond this a test is not feasible at its traffic."),
+        "atypical-periods": external_exports.array(
+          external_exports.strictObject(
+            {
+              name: text("a name for the period, e.g. winter sale"),
+              start: calendarDate("a start date written YYYY-MM-DD, e.g. 2026-11-27"),
+              end: calendarDate("an end date written YYYY-MM-DD, e.g. 2026-11-30")
+            },
+            { error: "a period: { name, start, end }" }
+          ),
+          { error: "a list of periods, e.g. [{ name: winter sale, start: 2026-11-27, end: 2026-11-30 }]" }
+        ).default([]).describe("Holidays, sales and other periods when behaviour is unusual; a window that overlaps one gets a note.")
+      },
+      { error: "a mapping of sizing settings" }
+    ).default({ "guardrail-alpha": 0.05, "guardrail-power": 0.8, "guardrail-arm-correction": false, "longest-window-days": 56, "atypical-periods": [] }).describe("Sizing conventions: guardrails\u2019 error rates, the longest sensible window, atypical periods."),
     severity: external_exports.record(
       external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
       external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
@@ -64150,6 +64542,13 @@ var settingsSchema = writtenSettingsSchema.transform((w) => ({
     nonProductPaths: w["bug-fix"]["non-product-paths"],
     ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
     ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  sizing: {
+    guardrailAlpha: w.sizing["guardrail-alpha"],
+    guardrailPower: w.sizing["guardrail-power"],
+    guardrailArmCorrection: w.sizing["guardrail-arm-correction"],
+    longestWindowDays: w.sizing["longest-window-days"],
+    atypicalPeriods: w.sizing["atypical-periods"]
   },
   digest: {
     timeZone: w.digest["time-zone"],
@@ -64380,7 +64779,7 @@ async function reviewChange(options) {
   const touches = [...definitionTouches, ...codeTouches];
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
-  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan) }));
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)

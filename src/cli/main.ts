@@ -26,7 +26,7 @@ import { digestRepository } from '../run/digest.js';
 import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../core/report/digest-markdown.js';
 import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText } from '../core/report/readout.js';
 import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
-import { benjaminiHochberg, bonferroniAdjust } from '../core/stats/multiple-testing.js';
+import { adjustPValues } from '../core/stats/multiple-testing.js';
 import { VERSION } from '../version.js';
 
 /** Exit codes, documented in --help and the README. */
@@ -212,23 +212,17 @@ export function buildProgram(setExit: (code: number) => void): Command {
 
   program
     .command('adjust')
-    .description('adjust p-values for multiple comparisons (Benjamini-Hochberg and Bonferroni)')
+    .description('adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)')
     .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
     .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
     .addOption(formatOption())
     .action((values: string[], local: { q: string; format: string }) => {
       const p = parseNumbers('p-values', values);
       const q = parseNumbers('q', [local.q])[0]!;
-      const bh = benjaminiHochberg(p);
-      const bonferroni = bonferroniAdjust(p);
-      if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
-      if (!bonferroni.ok) throw new UsageError(`${bonferroni.error.input}: ${bonferroni.error.message}`);
+      const adjusted = adjustPValues(p);
+      if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
       const output = createCliOutput({ noColorFlag: true });
-      output.out(
-        local.format === 'json'
-          ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni.value }, null, 2)
-          : renderAdjustedText(p, bh.value, bonferroni.value, q),
-      );
+      output.out(local.format === 'json' ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
       setExit(EXIT.ok);
     });
 

@@ -1,4 +1,6 @@
 import { Command, Option } from 'commander';
+import type { ZodType } from 'zod';
+import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
 import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/sequential.js';
 import type { MetricBaseline, SizingRequest } from '../core/stats/sizing.js';
 import { UsageError } from '../errors.js';
@@ -28,6 +30,7 @@ export interface SizeFlags {
   clusterSize?: string;
   icc?: string;
   sizeCv: string;
+  groups?: string;
   days?: string;
   method: 'auto' | 'exact' | 'normal';
 }
@@ -48,7 +51,7 @@ export function addSizeOptions(command: Command): Command {
     .option('--power <number>', 'power', '0.8')
     .addOption(new Option('--sides <n>', 'one- or two-sided test').choices(['1', '2']).default('2'))
     .option('--arms <weights>', 'arm weights, control first, e.g. 50,50 or 34,33,33', '50,50')
-    .option('--daily-units <number>', 'expected new eligible units per day')
+    .option('--daily-units <number>', 'new eligible units per day (units not seen before that day)')
     .option('--traffic-share <number>', 'share of eligible units enrolled', '1')
     .option('--reach <number>', 'share of exposed units that reach the change', '1')
     .option('--interim-looks <n>', 'interim analyses before the final one', '0')
@@ -57,6 +60,7 @@ export function addSizeOptions(command: Command): Command {
     .option('--cluster-size <number>', 'mean group size, when groups are randomized')
     .option('--icc <number>', 'intra-cluster correlation, when groups are randomized')
     .option('--size-cv <number>', 'coefficient of variation of group sizes', '0')
+    .option('--groups <number>', 'how many groups exist to randomize, when groups are randomized')
     .option('--days <n>', 'planned days, for power and detectable effect at the end')
     .addOption(new Option('--method <method>', 'mean and ratio metrics: exact t, normal approximation, or auto').choices(['auto', 'exact', 'normal']).default('auto'));
 }
@@ -72,38 +76,68 @@ const EXAMPLES: Record<string, string> = {
   days: '28',
 };
 
-function number(flag: string, text: string | undefined): number {
-  const value = Number(text);
-  if (text === undefined || text.trim() === '' || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text ?? '')}`, `e.g. --${flag} ${EXAMPLES[flag] ?? '0.5'}`);
+/** A plain decimal number as people write it: no hex, binary, octal, Infinity or blanks. */
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+function number(flag: string, text: string | undefined, required = ''): number {
+  if (text === undefined) throw new UsageError(`--${flag} is required${required}`, `e.g. --${flag} ${EXAMPLES[flag] ?? '0.5'}`);
+  const value = Number(text.trim());
+  if (!DECIMAL.test(text.trim()) || !Number.isFinite(value)) {
+    throw new UsageError(`--${flag} needs a decimal number; got ${JSON.stringify(text)}`, `e.g. --${flag} ${EXAMPLES[flag] ?? '0.5'}`);
   }
   return value;
 }
 
-function pair(flag: string, text: string | undefined): { mean: number; sd: number } {
-  const parts = (text ?? '').split(',');
-  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
-  return { mean: number(flag, parts[0]), sd: number(flag, parts[1]) };
+/** Reads a flag and validates it with the plan field that holds the same figure. */
+function field(flag: string, text: string | undefined, schema: ZodType<number>, required = ''): number {
+  const value = number(flag, text, required);
+  const checked = schema.safeParse(value);
+  if (!checked.success) throw new UsageError(`--${flag} needs ${checked.error.issues[0]?.message ?? 'a valid value'}; got ${text}`);
+  return checked.data;
 }
+
+function pair(flag: string, text: string | undefined, required: string, meanSchema: ZodType<number>): { mean: number; sd: number } {
+  if (text === undefined) throw new UsageError(`--${flag} is required${required}`, `e.g. --${flag} 0.9,1.4`);
+  const parts = text.split(',');
+  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
+  return { mean: field(flag, parts[0], meanSchema), sd: field(flag, parts[1], F['moment-sd']) };
+}
+
+const F = SIZING_FLAG_FIELDS;
 
 /** Turns flags into a sizing request; every bad flag is a usage error naming the flag. */
 export function requestFromFlags(flags: SizeFlags): SizingRequest {
   if (!flags.kind) throw new UsageError('name a plan (id or file), or describe the metric with --kind', 'e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05');
+  const forKind = ` for --kind ${flags.kind}`;
   let baseline: MetricBaseline;
-  if (flags.kind === 'proportion') baseline = { kind: 'proportion', rate: number('baseline', flags.baseline) };
-  else if (flags.kind === 'mean') baseline = { kind: 'mean', mean: number('baseline', flags.baseline), sd: number('sd', flags.sd) };
-  else baseline = { kind: 'ratio', numerator: pair('numerator', flags.numerator), denominator: pair('denominator', flags.denominator), correlation: number('correlation', flags.correlation) };
+  if (flags.kind === 'proportion') baseline = { kind: 'proportion', rate: field('baseline', flags.baseline, F.rate, forKind) };
+  else if (flags.kind === 'mean') baseline = { kind: 'mean', mean: field('baseline', flags.baseline, F.mean, forKind), sd: field('sd', flags.sd, F.sd, forKind) };
+  else {
+    baseline = {
+      kind: 'ratio',
+      numerator: pair('numerator', flags.numerator, forKind, F['moment-mean']),
+      denominator: pair('denominator', flags.denominator, forKind, F['denominator-mean']),
+      correlation: field('correlation', flags.correlation, F.correlation),
+    };
+  }
 
-  const weights = flags.arms.split(',').map((w) => number('arms', w));
+  const weights = flags.arms.split(',').map((w) => field('arms', w, F['arm-weight']));
   if (weights.length < 2) throw new UsageError('--arms needs at least two weights, control first', 'e.g. --arms 50,50');
   const arms = weights.map((weight, i) => ({ name: i === 0 ? 'control' : weights.length === 2 ? 'treatment' : `treatment-${i}`, weight }));
-  const looks = number('interim-looks', flags.interimLooks);
-  if (!Number.isInteger(looks) || looks < 0 || looks > 20) throw new UsageError('--interim-looks needs a whole number from 0 to 20');
+  const looks = field('interim-looks', flags.interimLooks, F['interim-looks']);
   const days = flags.days === undefined ? undefined : number('days', flags.days);
   if (days !== undefined && !(Number.isInteger(days) && days > 0)) throw new UsageError('--days needs a whole number of days above 0');
-  const effect = flags.effect === undefined ? undefined : number('effect', flags.effect);
-  const clusterSize = flags.clusterSize === undefined ? undefined : number('cluster-size', flags.clusterSize);
+  const effect = flags.effect === undefined ? undefined : field('effect', flags.effect, flags.absolute ? F['effect-absolute'] : F.effect);
+  const dailyUnits = flags.dailyUnits === undefined ? undefined : field('daily-units', flags.dailyUnits, F['daily-units']);
+  if (effect === undefined && (days === undefined || dailyUnits === undefined)) {
+    throw new UsageError(
+      days === undefined ? '--effect is required, unless --days and --daily-units ask what is detectable by then' : '--days without --effect asks what is detectable by then, which needs --daily-units',
+      'e.g. --effect 0.03, or --days 28 --daily-units 12000',
+    );
+  }
+  const clusterSize = flags.clusterSize === undefined ? undefined : field('cluster-size', flags.clusterSize, F['cluster-size']);
   if ((clusterSize === undefined) !== (flags.icc === undefined)) throw new UsageError('--cluster-size and --icc go together');
+  const groupsAvailable = flags.groups === undefined ? undefined : field('groups', flags.groups, F['groups-available']);
 
   return {
     baseline,
@@ -111,16 +145,18 @@ export function requestFromFlags(flags: SizeFlags): SizingRequest {
     ...(effect !== undefined ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {}),
     arms,
     control: 'control',
-    alpha: number('alpha', flags.alpha),
-    power: number('power', flags.power),
+    alpha: field('alpha', flags.alpha, F.alpha),
+    power: field('power', flags.power, F.power),
     sides: flags.sides === '1' ? 1 : 2,
-    ...(flags.dailyUnits !== undefined ? { dailyUnits: number('daily-units', flags.dailyUnits) } : {}),
-    trafficShare: number('traffic-share', flags.trafficShare),
-    reach: number('reach', flags.reach),
+    ...(dailyUnits !== undefined ? { dailyUnits } : {}),
+    trafficShare: field('traffic-share', flags.trafficShare, F['traffic-share']),
+    reach: field('reach', flags.reach, F.reach),
     interimLooks: looks,
     boundary: flags.boundary,
-    prePeriodCorrelation: number('pre-period-correlation', flags.prePeriodCorrelation),
-    ...(clusterSize !== undefined ? { cluster: { meanSize: clusterSize, icc: number('icc', flags.icc), sizeCv: number('size-cv', flags.sizeCv) } } : {}),
+    prePeriodCorrelation: field('pre-period-correlation', flags.prePeriodCorrelation, F['pre-period-correlation']),
+    ...(clusterSize !== undefined
+      ? { cluster: { meanSize: clusterSize, icc: field('icc', flags.icc, F.icc), sizeCv: field('size-cv', flags.sizeCv, F['size-cv']), ...(groupsAvailable !== undefined ? { available: groupsAvailable } : {}) } }
+      : {}),
     ...(days !== undefined ? { plannedDays: days } : {}),
     method: flags.method,
   };

@@ -1,4 +1,5 @@
 import { designSummary, type SizingContext } from '../core/report/sizing.js';
+import { sizingPolicy } from '../core/config/sizing-policy.js';
 import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
 import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
 import { formatProblem } from '../core/source/problem.js';
@@ -24,7 +25,7 @@ export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: stri
   }
   const { plan } = found;
   return {
-    sizing: sizePlan(plan),
+    sizing: sizePlan(plan, sizingPolicy(workspace.settings)),
     power: plan.design.power,
     context: {
       title: `Sizing for ${plan.id} (${found.file})`,
@@ -40,7 +41,7 @@ export function sizeFromRequest(request: SizingRequest, window?: { start: string
     planId: 'command-line',
     ...(request.plannedDays !== undefined ? { plannedDays: request.plannedDays } : {}),
     ...(request.dailyUnits !== undefined ? { dailyUnits: request.dailyUnits } : {}),
-    metrics: [{ metric: 'metric', role: 'primary', kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }],
+    metrics: [{ metric: 'metric', role: 'primary', kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }],
   };
   return {
     sizing,

@@ -24,11 +24,13 @@ describe('plumbline srm', () => {
 });
 
 describe('plumbline adjust', () => {
-  it('reproduces the Benjamini & Hochberg (1995) example: 4 found by BH, 3 by Bonferroni', () => {
+  it('reproduces the Benjamini & Hochberg (1995) example: 4 found by BH, 3 by Holm, 3 by Bonferroni', () => {
     const p = ['0.0001', '0.0004', '0.0019', '0.0095', '0.0201', '0.0278', '0.0298', '0.0344', '0.0459', '0.3240', '0.4262', '0.5719', '0.6528', '0.7590', '1.000'];
     const run = runCli(['adjust', ...p]);
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain('At 0.05: Benjamini-Hochberg (false discovery rate) finds 4 of 15 significant; Bonferroni (any false alarm) finds 3.');
+    expect(run.stdout).toContain('At 0.05: Benjamini-Hochberg (false discovery rate) finds 4 of 15 significant; Holm (any false alarm, step-down) finds 3; Bonferroni (any false alarm) finds 3.');
+    const holm = JSON.parse(runCli(['adjust', '--format', 'json', ...p]).stdout).holm as number[];
+    [0.0015, 0.0056, 0.0247, 0.114].forEach((v, i) => expect(holm[i]).toBeCloseTo(v, 12));
   });
 
   it('refuses what is not a p-value', () => {

@@ -16,7 +16,7 @@ describe('plumbline size', () => {
 
   it('sizes by file path and reports exposure dilution in days', () => {
     const run = runCli([...demo, 'size', 'experiments/shared-list-invite.yaml']);
-    expect(run.stdout).toMatch(/design effect ×1\.53 on units, [\d,]+ groups in all/);
+    expect(run.stdout).toMatch(/design effect ×1\.53 on units, whole groups per arm [\d,]+ \/ [\d,]+ \([\d,]+ groups in all; t reference with groups − 2 degrees of freedom\)/);
     expect(run.stdout).toMatch(/needs ×[\d.]+ the units and ×[\d.]+ the days of an analysis of reached units \(\d+ days\)/);
   });
 
@@ -48,16 +48,59 @@ describe('plumbline size', () => {
 
   it.each([
     [['size'], 'name a plan (id or file), or describe the metric with --kind'],
-    [['size', '--kind', 'proportion', '--baseline', 'ten'], '--baseline needs a number; got "ten"'],
+    [['size', '--kind', 'proportion', '--baseline', 'ten'], '--baseline needs a decimal number; got "ten"'],
+    [['size', '--kind', 'proportion', '--baseline', '0x10', '--effect', '0.1'], '--baseline needs a decimal number; got "0x10"'],
+    [['size', '--kind', 'proportion', '--effect', '0.1'], '--baseline is required for --kind proportion'],
+    [['size', '--kind', 'mean', '--baseline', '4', '--effect', '0.1'], '--sd is required for --kind mean'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1'], '--effect is required, unless --days and --daily-units ask what is detectable by then'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--days', '28'], '--days without --effect asks what is detectable by then, which needs --daily-units'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--pre-period-correlation', '1'], '--pre-period-correlation needs a correlation from 0 to below 1'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--cluster-size', '20', '--icc', '1.5'], '--icc needs an intra-cluster correlation from 0 to 1'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--cluster-size', '20', '--icc', '-0.1'], '--icc needs an intra-cluster correlation from 0 to 1'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--cluster-size', '0', '--icc', '0.1'], '--cluster-size needs a mean group size of at least 1'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--cluster-size', '0.5', '--icc', '0.1'], '--cluster-size needs a mean group size of at least 1'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--cluster-size', '20', '--icc', '0.1', '--size-cv', '-1'], '--size-cv needs the coefficient of variation of group sizes'],
     [['size', '--kind', 'proportion', '--baseline', '0.95', '--effect', '0.1'], 'cannot size this metric: effect: the effect takes the rate from 0.95 to 1.045, outside (0, 1)'],
-    [['size', '--kind', 'proportion', '--baseline', '1', '--effect', '0.1'], 'baseline.rate'],
+    [['size', '--kind', 'proportion', '--baseline', '1', '--effect', '0.1'], '--baseline needs a baseline rate strictly between 0 and 1'],
     [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--power', '0.04'], 'power (0.04) must exceed the significance level (0.05)'],
-    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '0'], 'zero traffic'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '0'], '--daily-units needs expected eligible units per day'],
     [['-C', 'demo/repo', 'size', 'nope'], 'no plan "nope" in this repository'],
   ])('refuses %j with a clear message and exit code 2', (args, message) => {
     const run = runCli(args);
     expect(run.status).toBe(2);
     expect(run.stderr).toContain(message);
     expect(run.stderr).not.toMatch(/\n\s+at /);
+  });
+
+  it('without --effect, --days and --daily-units answer what is detectable by then', () => {
+    const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.1', '--days', '28', '--daily-units', '1000']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('10.0% → 11.0% (+10.3% relative, +1.0 pp)');
+  });
+
+  it('rounds groups up in each arm, not in total: m = 20, ICC 0.05 (design effect 1.95)', () => {
+    const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.3', '--effect', '0.1', '--cluster-size', '20', '--icc', '0.05', '--format', 'json']);
+    expect(run.status).toBe(0);
+    const size = JSON.parse(run.stdout).metrics[0].result.value.headline;
+    expect(size.clustersPerArm.map((g: { groups: number }) => g.groups)).toEqual([size.clustersPerArm[0].groups, size.clustersPerArm[0].groups]);
+    expect(size.clusters).toBe(2 * size.clustersPerArm[0].groups);
+    expect(size.perArm[0].units).toBe(20 * size.clustersPerArm[0].groups);
+  });
+
+  it('says "not feasible" at 800 units a day, 3% baseline, +5% relative, and keeps counts to the digits they carry', () => {
+    const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.03', '--effect', '0.05', '--daily-units', '800', '--days', '28']);
+    expect(run.stdout).toMatch(/Not feasible at this traffic: it needs \d+ days, beyond the longest sensible window of 56 days\. The longest window \(56 days\) can detect 3\.00% → /);
+    const tiny = runCli(['size', '--kind', 'proportion', '--baseline', '0.03', '--effect', '1e-9', '--daily-units', '800']);
+    expect(tiny.status).toBe(0);
+    expect(tiny.stdout).toMatch(/\d\.\d\d × 10\^2\d/);
+    expect(tiny.stdout).not.toMatch(/\d{16}/);
+    expect(tiny.stdout).toContain('Not feasible at this traffic: it needs more than 1 × 10^12 units.');
+  });
+
+  it('the demo weekly-shopper test gives traffic as different people and shows the guardrail underpowered', () => {
+    const run = runCli([...demo, 'size', 'basket-reorder-shortcut']);
+    expect(run.stdout).toContain('40,000 different eligible units in 7 days and 60,000 different eligible units in 28 days');
+    expect(run.stdout).toMatch(/basket-abandonment: The planned 28 days give \d+% power, below the planned 80%\./);
+    expect(run.stdout).toContain('Power for the family: ');
   });
 });

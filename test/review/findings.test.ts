@@ -94,6 +94,52 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     trigger: { changes: withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 0.5 } })) },
     nearMiss: { changes: withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 1 } })) },
   },
+  'not-feasible': {
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 300 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 3000 } })) },
+  },
+  'returning-units': {
+    trigger: { changes: withPlan(cleanPlan({ population: { platforms: ['web'], locales: ['en-GB'], segment: 'returning customers', ready: { platforms: ['web'], locales: ['en-GB'] } } })) },
+    nearMiss: {
+      changes: withPlan(
+        cleanPlan({
+          population: { platforms: ['web'], locales: ['en-GB'], segment: 'returning customers', ready: { platforms: ['web'], locales: ['en-GB'] } },
+          design: { 'min-detectable-effect': { relative: 0.05 }, 'unique-units': [{ days: 7, units: 90000 }, { days: 28, units: 200000 }] },
+        }),
+      ),
+    },
+  },
+  'groups-short': {
+    trigger: { changes: withPlan(cleanPlan({ unit: { randomization: 'team', analysis: 'user' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, cluster: { 'mean-size': 4, icc: 0.01 }, 'groups-available': 100 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ unit: { randomization: 'team', analysis: 'user' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, cluster: { 'mean-size': 4, icc: 0.01 }, 'groups-available': 1000000 } })) },
+  },
+  'ratio-denominator': {
+    trigger: {
+      changes: withPlan(cleanPlan({ metrics: { primary: { name: 'clicks-per-visit', kind: 'ratio', baseline: { numerator: { mean: 1, sd: 1 }, denominator: { mean: 3, sd: 2 }, correlation: 0.5 }, events: ['order_done', 'cart_viewed'], 'denominator-may-move': true }, guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails } })),
+    },
+    nearMiss: {
+      changes: withPlan(
+        cleanPlan({
+          metrics: {
+            primary: { name: 'clicks-per-visit', kind: 'ratio', baseline: { numerator: { mean: 1, sd: 1 }, denominator: { mean: 3, sd: 2 }, correlation: 0.5 }, events: ['order_done', 'cart_viewed'], 'denominator-may-move': true },
+            guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails,
+            secondary: [
+              { name: 'orders', kind: 'mean', baseline: { mean: 1, sd: 1 }, events: ['order_done'] },
+              { name: 'visits', kind: 'mean', baseline: { mean: 3, sd: 2 }, events: ['cart_viewed'] },
+            ],
+          },
+        }),
+      ),
+    },
+  },
+  'atypical-period': {
+    trigger: { files: baseFiles({ '.plumbline.yml': 'sizing:\n  atypical-periods: [{ name: winter sale, start: 2026-11-27, end: 2026-11-30 }]\n' }), changes: withPlan(cleanPlan()) },
+    nearMiss: { files: baseFiles({ '.plumbline.yml': 'sizing:\n  atypical-periods: [{ name: winter sale, start: 2026-11-30, end: 2026-12-02 }]\n' }), changes: withPlan(cleanPlan()) },
+  },
+  'novelty-window': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-08' }, population: { platforms: ['web'], locales: ['en-GB'], segment: 'returning customers', ready: { platforms: ['web'], locales: ['en-GB'] } } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-15' }, population: { platforms: ['web'], locales: ['en-GB'], segment: 'returning customers', ready: { platforms: ['web'], locales: ['en-GB'] } } })) },
+  },
   spillover: {
     trigger: { files: baseFiles({ '.plumbline.yml': 'group-surfaces: [shop]\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'group-surfaces: [shopping]\n' }), changes: withPlan(cleanPlan()) },

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { text, uniqueList } from '../source/fields.js';
+import { calendarDate, openShare, text, uniqueList } from '../source/fields.js';
 import { flagKey, surfacePath } from '../plan/schema.js';
 
 /**
@@ -131,6 +131,33 @@ export const writtenSettingsSchema = z
         )
         .default({ 'time-zone': 'UTC', 'ending-soon-days': 7, 'on-hold-days': 14, label: 'plumbline-digest' })
         .describe('The weekly digest: the day boundary’s time zone, what counts as ending soon and as on hold too long, the issue label.'),
+      // Sizing conventions (issue 13): guardrails' own error rates, the longest sensible window, atypical periods.
+      sizing: z
+        .strictObject(
+          {
+            'guardrail-alpha': openShare('a one-sided significance level for guardrails strictly between 0 and 1, e.g. 0.05').default(0.05),
+            'guardrail-power': openShare('a power for guardrails strictly between 0 and 1, e.g. 0.8').default(0.8),
+            'guardrail-arm-correction': z.boolean({ error: 'true or false' }).default(false).describe('Divide a guardrail’s α among several treatment arms (Bonferroni); off by default, since it makes a safety check less sensitive.'),
+            'longest-window-days': z.number({ error: 'a whole number of days from 7 to 365' }).int({ error: 'a whole number of days from 7 to 365' }).min(7, { error: 'at least 7 days' }).max(365, { error: 'at most 365 days' }).default(56).describe('Beyond this a test is not feasible at its traffic.'),
+            'atypical-periods': z
+              .array(
+                z.strictObject(
+                  {
+                    name: text('a name for the period, e.g. winter sale'),
+                    start: calendarDate('a start date written YYYY-MM-DD, e.g. 2026-11-27'),
+                    end: calendarDate('an end date written YYYY-MM-DD, e.g. 2026-11-30'),
+                  },
+                  { error: 'a period: { name, start, end }' },
+                ),
+                { error: 'a list of periods, e.g. [{ name: winter sale, start: 2026-11-27, end: 2026-11-30 }]' },
+              )
+              .default([])
+              .describe('Holidays, sales and other periods when behaviour is unusual; a window that overlaps one gets a note.'),
+          },
+          { error: 'a mapping of sizing settings' },
+        )
+        .default({ 'guardrail-alpha': 0.05, 'guardrail-power': 0.8, 'guardrail-arm-correction': false, 'longest-window-days': 56, 'atypical-periods': [] })
+        .describe('Sizing conventions: guardrails’ error rates, the longest sensible window, atypical periods.'),
       severity: z
         .record(
           z.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: 'a finding code, e.g. plan-missing' }),
@@ -163,6 +190,13 @@ export const settingsSchema = writtenSettingsSchema.transform((w) => ({
     nonProductPaths: w['bug-fix']['non-product-paths'],
     ...(w['bug-fix'].guardrail ? { guardrail: w['bug-fix'].guardrail } : {}),
     ...(w['bug-fix']['daily-units'] !== undefined ? { dailyUnits: w['bug-fix']['daily-units'] } : {}),
+  },
+  sizing: {
+    guardrailAlpha: w.sizing['guardrail-alpha'],
+    guardrailPower: w.sizing['guardrail-power'],
+    guardrailArmCorrection: w.sizing['guardrail-arm-correction'],
+    longestWindowDays: w.sizing['longest-window-days'],
+    atypicalPeriods: w.sizing['atypical-periods'],
   },
   digest: {
     timeZone: w.digest['time-zone'],

@@ -88,6 +88,25 @@ const metricCommon = {
   tolerance: effectSize
     .optional()
     .describe('Guardrails: the largest harm (movement against the desired direction) that is tolerated.'),
+  // Per-metric sizing settings (issue 13): each overrides the design's or the settings' default for this metric.
+  alpha: openShare('a significance level for this metric strictly between 0 and 1, e.g. 0.05').optional(),
+  power: openShare('a power for this metric strictly between 0 and 1, e.g. 0.8').optional(),
+  'pre-period': z
+    .strictObject(
+      {
+        correlation: z
+          .number({ error: 'a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5' })
+          .gte(0, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+          .lt(1, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+          .describe('Correlation of the metric with its own value before the test (CUPED).'),
+        coverage: positiveShare('the share of units that have a pre-period value, in (0, 1], e.g. 0.7')
+          .default(1)
+          .describe('Share of units with a pre-period value; new units have none. The variance left is 1 - coverage × correlation².'),
+      },
+      { error: 'a mapping with correlation and coverage, e.g. { correlation: 0.5, coverage: 0.7 }' },
+    )
+    .optional()
+    .describe('Variance reduction from the metric’s pre-period value (CUPED); overrides design.pre-period-correlation.'),
 };
 
 const proportionMetric = z.strictObject({
@@ -102,6 +121,12 @@ const proportionMetric = z.strictObject({
 const meanMetric = z.strictObject({
   ...metricCommon,
   kind: z.literal('mean').describe('An average per unit (revenue, items, latency).'),
+  'capped-at': z
+    .number({ error: 'a percentile above 50 and at most 100 at which values are capped, e.g. 99' })
+    .gt(50, { error: 'a percentile above 50 and at most 100, e.g. 99' })
+    .lte(100, { error: 'a percentile above 50 and at most 100, e.g. 99' })
+    .optional()
+    .describe('Percentile at which each unit’s value is capped (winsorized) in the analysis; give baseline.sd of the capped values.'),
   baseline: z.strictObject(
     {
       mean: finiteNumber('the metric’s mean per unit, e.g. 42.5'),
@@ -127,6 +152,10 @@ const ratioMetric = z.strictObject({
     },
     { error: 'a mapping with numerator, denominator and correlation' },
   ).describe('Baseline figures for sizing: per-unit moments of the numerator and denominator.'),
+  'denominator-may-move': z
+    .boolean({ error: 'true or false' })
+    .default(false)
+    .describe('True when the change may move the denominator itself (e.g. more sessions); the review then asks for numerator and denominator as secondary metrics.'),
 });
 
 // The id makes the JSON Schema define a metric once (under $defs) and refer to it three times.
@@ -368,6 +397,24 @@ export const writtenPlanSchema = z
             )
             .optional()
             .describe('For group units: mean group size and intra-cluster correlation.'),
+          // Traffic as people arrive and groups that exist (issue 13).
+          'unique-units': z
+            .array(
+              z.strictObject(
+                {
+                  days: wholeNumber('a whole number of days from 1 to 3650, e.g. 7', 1, 3650),
+                  units: positiveNumber('the number of different eligible units seen over those days, e.g. 31000'),
+                },
+                { error: 'a point { days: 7, units: 31000 }' },
+              ),
+              { error: 'a list of two points, e.g. [{ days: 7, units: 31000 }, { days: 28, units: 60000 }]' },
+            )
+            .length(2, { error: 'exactly two points: the first 7 days and the planned window (or 28 days)' })
+            .optional()
+            .describe('Different eligible units seen over the first days and over a longer span; sizing interpolates between them (a power law) because returning units do not add to the sample.'),
+          'groups-available': positiveNumber('the number of groups that exist to randomize, e.g. 400')
+            .optional()
+            .describe('For group units: how many groups exist; the review warns when the design needs more.'),
         },
         { error: 'a mapping of design settings' },
       )
@@ -432,13 +479,18 @@ interface MetricBase {
   /** True when the direction was not written and a default was taken. */
   directionAssumed: boolean;
   tolerance?: { relative?: number; absolute?: number };
+  /** Per-metric sizing settings, when written. */
+  alpha?: number;
+  power?: number;
+  prePeriod?: { correlation: number; coverage: number };
 }
 export type Metric =
   | (MetricBase & { kind: 'proportion'; baseline: { rate: number } })
-  | (MetricBase & { kind: 'mean'; baseline: { mean: number; sd: number } })
+  | (MetricBase & { kind: 'mean'; baseline: { mean: number; sd: number }; cappedAt?: number })
   | (MetricBase & {
       kind: 'ratio';
       baseline: { numerator: { mean: number; sd: number }; denominator: { mean: number; sd: number }; correlation: number };
+      denominatorMayMove: boolean;
     });
 
 export interface Arm {
@@ -481,6 +533,9 @@ export interface Plan {
     interimBoundary: BoundaryKind;
     prePeriodCorrelation: number;
     cluster?: { meanSize: number; icc: number; sizeCv: number };
+    /** Different units seen over two spans, earlier first. */
+    uniqueUnits?: { days: number; units: number }[];
+    groupsAvailable?: number;
   };
   decisions: { win?: string; flat?: string; loss?: string; guardrailBreach?: string; launchRegardless?: { reason: string } };
   sensitive: { area: SensitiveArea; review?: string; reference?: string }[];
@@ -489,9 +544,18 @@ export interface Plan {
 }
 
 function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
-  const { direction, ...rest } = written;
+  const { direction, 'pre-period': prePeriod, ...rest } = written;
   const chosen = direction ?? fallbackDirection;
-  return { ...rest, direction: chosen ?? 'increase', directionAssumed: chosen === undefined } as Metric;
+  const renamed: Record<string, unknown> = { ...rest };
+  if ('capped-at' in renamed) {
+    renamed.cappedAt = renamed['capped-at'];
+    delete renamed['capped-at'];
+  }
+  if ('denominator-may-move' in renamed) {
+    renamed.denominatorMayMove = renamed['denominator-may-move'];
+    delete renamed['denominator-may-move'];
+  }
+  return { ...renamed, ...(prePeriod ? { prePeriod } : {}), direction: chosen ?? 'increase', directionAssumed: chosen === undefined } as Metric;
 }
 
 export const PRIMARY_COUNT_CODE = 'plan/primary-metric-count';
@@ -545,6 +609,8 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
       interimBoundary: d['interim-boundary'],
       prePeriodCorrelation: d['pre-period-correlation'],
       ...(d.cluster ? { cluster: { meanSize: d.cluster['mean-size'], icc: d.cluster.icc, sizeCv: d.cluster['size-cv'] } } : {}),
+      ...(d['unique-units'] ? { uniqueUnits: [...d['unique-units']].sort((a, b) => a.days - b.days) } : {}),
+      ...(d['groups-available'] !== undefined ? { groupsAvailable: d['groups-available'] } : {}),
     },
     decisions: {
       ...(written.decisions.win ? { win: written.decisions.win } : {}),
@@ -558,3 +624,33 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
     ...(written.notes ? { notes: written.notes } : {}),
   };
 });
+
+/**
+ * The plan's own schemas for the figures the `size` command also takes as flags: flags and plans
+ * are validated by one definition, so the command refuses exactly what a plan refuses.
+ */
+const designShape = writtenPlanSchema.shape.design.unwrap().shape;
+const clusterShape = designShape.cluster.unwrap().shape;
+export const SIZING_FLAG_FIELDS = {
+  alpha: designShape.alpha.unwrap(),
+  power: designShape.power.unwrap(),
+  'daily-units': designShape['daily-units'].unwrap(),
+  'traffic-share': designShape['traffic-share'].unwrap(),
+  reach: writtenPlanSchema.shape.exposure.unwrap().shape.reach.unwrap(),
+  'interim-looks': designShape['interim-looks'].unwrap(),
+  'pre-period-correlation': designShape['pre-period-correlation'].unwrap(),
+  'cluster-size': clusterShape['mean-size'],
+  icc: clusterShape.icc,
+  'size-cv': clusterShape['size-cv'].unwrap(),
+  'groups-available': designShape['groups-available'].unwrap(),
+  rate: proportionMetric.shape.baseline.shape.rate,
+  mean: meanMetric.shape.baseline.shape.mean,
+  sd: meanMetric.shape.baseline.shape.sd,
+  'moment-mean': ratioMetric.shape.baseline.shape.numerator.shape.mean,
+  'moment-sd': ratioMetric.shape.baseline.shape.numerator.shape.sd,
+  'denominator-mean': ratioMetric.shape.baseline.shape.denominator.shape.mean,
+  correlation: ratioMetric.shape.baseline.shape.correlation.unwrap(),
+  'arm-weight': arm.shape.weight,
+  effect: effectSize.shape.relative.unwrap(),
+  'effect-absolute': effectSize.shape.absolute.unwrap(),
+} satisfies Record<string, z.ZodType<number>>;

@@ -5,8 +5,17 @@
 
 const NOT_A_NUMBER = 'n/a';
 
+/**
+ * Counts beyond 10^15 are past the digits a double carries (and far past any real sample): they
+ * keep three significant digits, "2.07 × 10^21", rather than 22 digits of which most are noise.
+ */
 export function formatCount(n: number): string {
-  return Number.isFinite(n) ? Math.round(n).toLocaleString('en-US') : NOT_A_NUMBER;
+  if (!Number.isFinite(n)) return NOT_A_NUMBER;
+  if (Math.abs(n) >= 1e15) {
+    const [mantissa, exponent] = n.toExponential(2).split('e');
+    return `${mantissa} × 10^${Number(exponent)}`;
+  }
+  return Math.round(n).toLocaleString('en-US');
 }
 
 /** 0.1 -> "10.0%"; small rates keep two significant digits (0.0015 -> "0.15%"). */

@@ -1,3 +1,4 @@
+import type { AdjustedPValues } from '../stats/multiple-testing.js';
 import type { SampleRatioCheck } from '../stats/srm.js';
 import { formatCount } from './numbers.js';
 import { formatTable } from './terminal-style.js';
@@ -26,12 +27,13 @@ export function renderSrmText(check: SampleRatioCheck, observed: readonly number
   return [formatTable(['ARM', 'PLANNED', 'OBSERVED', 'EXPECTED', 'SHARE'], rows), '', `chi-square = ${check.statistic.toFixed(3)} on ${check.degreesOfFreedom} df. ${verdict}`].join('\n');
 }
 
-export function renderAdjustedText(pValues: readonly number[], bh: readonly number[], bonferroni: readonly number[], q: number): string {
-  const rows = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]!), bh[i]! <= q ? 'yes' : 'no', formatP(bonferroni[i]!), bonferroni[i]! <= q ? 'yes' : 'no']);
+export function renderAdjustedText(pValues: readonly number[], adjusted: AdjustedPValues, q: number): string {
+  const { benjaminiHochberg: bh, holm, bonferroni } = adjusted;
+  const rows = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]!), bh[i]! <= q ? 'yes' : 'no', formatP(holm[i]!), holm[i]! <= q ? 'yes' : 'no', formatP(bonferroni[i]!), bonferroni[i]! <= q ? 'yes' : 'no']);
   const found = (list: readonly number[]) => list.filter((x) => x <= q).length;
   return [
-    formatTable(['#', 'P', 'BH-ADJUSTED', `BH ≤ ${q}`, 'BONFERRONI', `BONF ≤ ${q}`], rows),
+    formatTable(['#', 'P', 'BH-ADJUSTED', `BH ≤ ${q}`, 'HOLM', `HOLM ≤ ${q}`, 'BONFERRONI', `BONF ≤ ${q}`], rows),
     '',
-    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni)}.`,
+    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Holm (any false alarm, step-down) finds ${found(holm)}; Bonferroni (any false alarm) finds ${found(bonferroni)}.`,
   ].join('\n');
 }

@@ -40,7 +40,7 @@ interface Row {
 
 function rows(sizing: PlanSizing): Row[] {
   return sizing.metrics.map((entry) => {
-    const role = entry.role === 'guardrail' ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
+    const role = entry.role === 'guardrail' ? `guardrail (non-inferiority, α ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
     if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, '', '', '', '', '', ''] };
     const s = entry.result.value;
     const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : 'no effect given';
@@ -56,8 +56,33 @@ const HEADER = ['METRIC', 'ROLE', 'EFFECT TO DETECT', 'UNITS/ARM', 'TOTAL', 'DAY
 export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing): string[] {
   const m = sizing.multipliers;
   const out: string[] = [];
+  if (sizing.traffic?.kind === 'unique' && entry.role === 'primary') {
+    const [a, b] = sizing.traffic.points;
+    out.push(`Traffic as people arrive: ${formatCount(a!.units)} different units in ${a!.days} days and ${formatCount(b!.units)} in ${b!.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
+  }
+  if (entry.role === 'guardrail' && sizing.effect) {
+    out.push(
+      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`,
+    );
+  }
+  if (entry.guardrailLooks) {
+    out.push(`The interim boundaries are the primary’s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail’s harm check is its own one-sided test at α ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
+  }
+  if (sizing.feasibility && !sizing.feasibility.feasible) {
+    const f = sizing.feasibility;
+    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : '';
+    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
+  }
+  if (sizing.squareRootAllocation) {
+    const a = sizing.squareRootAllocation;
+    out.push(`Several arms share one control: giving the control √k times a treatment arm’s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
+  }
   if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: α ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== undefined ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ''}.`);
+  if (m.designEffect > 1) {
+    const perArm = sizing.headline?.clustersPerArm;
+    const groups = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(' / ')} (${formatCount(sizing.headline!.clusters!)} groups in all; t reference with groups − 2 degrees of freedom)` : '';
+    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups}.`);
+  }
   if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
   if (sizing.boundaries) {
     const z = sizing.boundaries.z.map((v) => v.toFixed(3)).join(', ');
@@ -74,7 +99,12 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
 }
 
 function notesOf(sizing: PlanSizing): string[] {
-  return sizing.metrics.flatMap((entry) => (entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []));
+  const family = sizing.family
+    ? [
+        `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`,
+      ]
+    : [];
+  return [...family, ...sizing.metrics.flatMap((entry) => (entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []))];
 }
 
 function windowLine(sizing: PlanSizing, context: SizingContext): string {
@@ -87,7 +117,7 @@ function windowLine(sizing: PlanSizing, context: SizingContext): string {
 
 export function renderSizingText(sizing: PlanSizing, context: SizingContext): string {
   const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
-  const traffic = sizing.dailyUnits === undefined ? 'No daily-units given, so no durations.' : '';
+  const traffic = sizing.dailyUnits === undefined && sizing.uniqueUnits === undefined ? 'No daily-units or unique-units given, so no durations.' : '';
   const notes = notesOf(sizing);
   return [
     context.title,
@@ -151,15 +181,18 @@ export function designSummary(design: {
   sides: 1 | 2;
   power: number;
   dailyUnits?: number;
+  uniqueUnits?: { days: number; units: number }[];
   trafficShare: number;
   reach: number;
 }): string {
   const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(', ')})`;
   const test = `α ${formatValue(design.alpha)} ${design.sides === 2 ? 'two-sided' : 'one-sided'}, power ${formatValue(design.power * 100)}%`;
-  const traffic =
-    design.dailyUnits === undefined
+  const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ''}`;
+  const traffic = design.uniqueUnits
+    ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(' and ')}, ${reached}`
+    : design.dailyUnits === undefined
       ? ''
-      : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ''}`;
+      : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
   return `${arms}, ${test}${traffic}.`;
 }
 

@@ -76,7 +76,7 @@ const CHECKLIST: { label: string; codes: string[]; when?: (p: ReviewContext['lin
   { label: 'Hypothesis says why the change should work', codes: ['reason-missing'] },
   { label: 'One primary metric and at least one guardrail', codes: ['guardrails-missing'] },
   { label: 'Planned end, at least a week, in whole weeks', codes: ['end-missing', 'window-short', 'window-partial-week'] },
-  { label: 'Enough power by the planned end', codes: ['underpowered', 'sizing-incomplete', 'sizing-impossible'] },
+  { label: 'Enough power by the planned end', codes: ['underpowered', 'sizing-incomplete', 'sizing-impossible', 'not-feasible', 'groups-short'] },
   { label: 'Exposure logged where the change is seen', codes: ['exposure-diluted'] },
   { label: 'Randomization unit fits the surface', codes: ['spillover'] },
   { label: 'No collision with a running test', codes: ['collision'] },

@@ -15,10 +15,12 @@ export function designEffect(meanSize: number, icc: number, sizeCv = 0): number 
 
 /**
  * Variance left after adjusting for a pre-period covariate with correlation rho
- * (CUPED; Deng, Xu, Kohavi & Walker 2013): 1 - rho^2.
+ * (CUPED; Deng, Xu, Kohavi & Walker 2013): 1 - rho^2 when every unit has a pre-period value.
+ * Units without one (new users) gain nothing, so with a share f covered the variance left is
+ * 1 - f rho^2 (the covered units' variance shrinks by rho^2, the rest keep theirs).
  */
-export function varianceReduction(rho: number): number {
-  return 1 - rho * rho;
+export function varianceReduction(rho: number, coverage = 1): number {
+  return 1 - coverage * rho * rho;
 }
 
 /**

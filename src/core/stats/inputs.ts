@@ -1,3 +1,4 @@
+import { normalUpperQuantile } from './distributions.js';
 import { fail, type StatsResult } from './result.js';
 
 /** What every two-sample calculation shares. `ratio` is treatment units per control unit (1 = equal arms). */
@@ -22,4 +23,9 @@ export function checkSettings(settings: TestSettings, power?: number): StatsResu
 /** The critical value: z (or t) quantile at 1 - alpha / sides. */
 export function upperQuantileLevel(settings: TestSettings): number {
   return 1 - settings.alpha / settings.sides;
+}
+
+/** The normal critical value z with P(Z > z) = alpha / sides, from the tail itself. */
+export function criticalZ(settings: TestSettings): number {
+  return normalUpperQuantile(settings.alpha / settings.sides);
 }

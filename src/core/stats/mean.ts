@@ -1,5 +1,5 @@
 import { noncentralTUpper, normalCdf, normalQuantile, studentQuantile } from './distributions.js';
-import { checkSettings, upperQuantileLevel, type TestSettings } from './inputs.js';
+import { checkSettings, criticalZ, upperQuantileLevel, type TestSettings } from './inputs.js';
 import { solveIncreasing } from './root.js';
 import { fail, finite, ok, type StatsResult } from './result.js';
 
@@ -40,7 +40,7 @@ function powerUnchecked(test: MeanTest, n1: number): number {
   const standardError = test.sd * Math.sqrt(1 / n1 + 1 / n2);
   const shift = Math.abs(test.delta) / standardError;
   const level = upperQuantileLevel(test);
-  if (test.method === 'normal') return normalCdf(shift - normalQuantile(level));
+  if (test.method === 'normal') return normalCdf(shift - criticalZ(test));
   const df = n1 + n2 - 2;
   return noncentralTUpper(studentQuantile(level, df), df, shift);
 }
@@ -56,7 +56,7 @@ export function meanPower(test: MeanTest, n1: number): StatsResult<number> {
 export function meanSampleSize(test: MeanTest, power: number): StatsResult<number> {
   const problem = checkSettings(test, power) ?? checkMoments(test.delta, test.sd);
   if (problem) return problem;
-  const z = normalQuantile(upperQuantileLevel(test)) + normalQuantile(power);
+  const z = criticalZ(test) + normalQuantile(power);
   const normal = ((test.sd * z) / test.delta) ** 2 * (1 + 1 / test.ratio);
   if (test.method === 'normal') return finite(normal, 'effect', 'the sample size');
   const min = minimumControlUnits(test.ratio);
@@ -70,7 +70,7 @@ export function meanDetectable(settings: TestSettings & { sd: number; method: Me
   const problem = checkSettings(settings, power) ?? checkMoments(1, settings.sd);
   if (problem) return problem;
   if (!(n1 >= minimumControlUnits(settings.ratio))) return fail('n', `at least ${minimumControlUnits(settings.ratio)} control units are needed; got ${n1}`);
-  const z = normalQuantile(upperQuantileLevel(settings)) + normalQuantile(power);
+  const z = criticalZ(settings) + normalQuantile(power);
   const guess = settings.sd * z * Math.sqrt(1 / n1 + 1 / (settings.ratio * n1));
   if (settings.method === 'normal') return finite(guess, 'n', 'the detectable effect');
   const delta = solveIncreasing((d) => powerUnchecked({ ...settings, delta: d }, n1), power, guess, 1e-300, 1e300, 1e-12);

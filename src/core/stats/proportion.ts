@@ -1,5 +1,5 @@
 import { normalCdf, normalQuantile } from './distributions.js';
-import { checkSettings, upperQuantileLevel, type TestSettings } from './inputs.js';
+import { checkSettings, criticalZ, upperQuantileLevel, type TestSettings } from './inputs.js';
 import { findRoot } from './root.js';
 import { fail, finite, ok, type StatsResult } from './result.js';
 
@@ -38,7 +38,7 @@ function unitErrors(test: ProportionTest): { null0: number; alt1: number } {
 }
 
 function powerUnchecked(test: ProportionTest, n1: number): number {
-  const z = normalQuantile(upperQuantileLevel(test));
+  const z = criticalZ(test);
   const { null0, alt1 } = unitErrors(test);
   return normalCdf((Math.sqrt(n1) * Math.abs(test.p2 - test.p1) - z * null0) / alt1);
 }
@@ -55,7 +55,7 @@ export function proportionPower(test: ProportionTest, n1: number): StatsResult<n
 export function proportionSampleSize(test: ProportionTest, power: number): StatsResult<number> {
   const problem = checkSettings(test, power) ?? checkRates(test.p1, test.p2);
   if (problem) return problem;
-  const za = normalQuantile(upperQuantileLevel(test));
+  const za = criticalZ(test);
   const zb = normalQuantile(power);
   const { null0, alt1 } = unitErrors(test);
   const n1 = ((za * null0 + zb * alt1) / (test.p2 - test.p1)) ** 2;

@@ -1,4 +1,4 @@
-import { normalCdf, normalQuantile } from './distributions.js';
+import { normalCdf, normalQuantile, normalUpper, normalUpperQuantile } from './distributions.js';
 import { findRoot } from './root.js';
 import { fail, ok, type StatsResult } from './result.js';
 
@@ -37,8 +37,12 @@ export interface SequentialBoundaries {
 
 /** Simpson panels per look: 100 already agrees with 1,200 to 1e-6 in every boundary and inflation factor; 160 leaves margin. */
 const PANELS = 160;
-/** A boundary this large is never crossed (P < 1e-30); used where a look spends no alpha. */
-const NEVER = 12;
+/**
+ * A boundary this large is never crossed (P(Z > 40) underflows to 0); used where a look spends no
+ * alpha at all. Early O'Brien-Fleming-type boundaries reach 10 to 12 with 20 to 30 looks, so the
+ * search for a boundary must reach well beyond them.
+ */
+const NEVER = 40;
 
 interface Grid {
   points: Float64Array;
@@ -133,7 +137,8 @@ function walk(
 export function spentByTime(kind: 'obrien-fleming-spending' | 'pocock-spending', a: number, t: number): number {
   if (t <= 0) return 0;
   if (t >= 1) return a;
-  return kind === 'obrien-fleming-spending' ? 2 - 2 * normalCdf(normalQuantile(1 - a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+  // 2 * (1 - Phi(x)) written as an upper tail, which keeps its digits when it is 1e-20.
+  return kind === 'obrien-fleming-spending' ? 2 * normalUpper(normalUpperQuantile(a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
 }
 
 function checkDesign(design: SequentialDesign): StatsResult<never> | undefined {
@@ -154,7 +159,7 @@ export function sequentialBoundaries(design: SequentialDesign): StatsResult<Sequ
     const kind = design.kind;
     z = walk(looks, design.sides, 0, (k, upperGiven) => {
       const increment = spentByTime(kind, oneSide, k / looks) - spentByTime(kind, oneSide, (k - 1) / looks);
-      if (increment <= 1e-30) return NEVER;
+      if (!(increment > 0)) return NEVER;
       const root = findRoot((b) => upperGiven(b) - increment, 0, NEVER, 1e-12);
       return root ?? NEVER;
     }).boundaries;
@@ -165,14 +170,14 @@ export function sequentialBoundaries(design: SequentialDesign): StatsResult<Sequ
       const { crossings } = walk(looks, design.sides, 0, (k) => c * shape(k));
       return crossings.upper.reduce((a, b) => a + b, 0);
     };
-    const c = findRoot((x) => total(x) - oneSide, normalQuantile(1 - oneSide) * 0.5, NEVER, 1e-12);
+    const c = findRoot((x) => total(x) - oneSide, normalUpperQuantile(oneSide) * 0.5, NEVER, 1e-12);
     if (c === undefined) return fail('interim-looks', 'no boundary constant found');
     z = Array.from({ length: looks }, (_, i) => c * shape(i + 1));
   }
   const { crossings } = walk(looks, design.sides, 0, (k) => z[k - 1]!);
   return ok({
     z,
-    nominalP: z.map((b) => design.sides * (1 - normalCdf(b))),
+    nominalP: z.map((b) => design.sides * normalUpper(b)),
     alphaSpent: crossings.upper.map((u, i) => u + crossings.lower[i]!),
   });
 }
@@ -215,7 +220,7 @@ export function integrateInflation(design: SequentialDesign, power: number): Sta
   if (!(power > design.alpha && power < 1)) return fail('power', `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
-  const fixed = normalQuantile(1 - design.alpha / design.sides) + normalQuantile(power);
+  const fixed = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
   if (design.looks === 1) return ok({ boundaries: bounds.value, inflation: 1, expectedUnderAlternative: 1 });
   const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed * 0.9, fixed * 2, 1e-11);
   if (eta === undefined) return fail('power', 'no design reaches this power');

@@ -1,5 +1,8 @@
 import { bonferroniAlpha, designEffect, varianceReduction } from './adjustments.js';
-import { durationFor, type Duration } from './duration.js';
+import type { Duration } from './duration.js';
+import { normalQuantile, normalUpperQuantile, studentQuantile } from './distributions.js';
+import { nonInferiorityProportionMargin, nonInferiorityProportionPower, nonInferiorityProportionSize } from './non-inferiority.js';
+import { dailyCurve, uniqueUnitsCurve, type TrafficCurve } from './traffic.js';
 import { meanDetectable, meanPower, meanSampleSize, type MeanMethod } from './mean.js';
 import { proportionDetectable, proportionPower, proportionSampleSize } from './proportion.js';
 import { ratioMoments, type RatioBaseline } from './ratio.js';
@@ -34,8 +37,18 @@ export interface SizingRequest {
   alpha: number;
   power: number;
   sides: 1 | 2;
-  /** Expected new eligible units per day; absent: no durations. */
+  /** New eligible units per day (units not seen before); absent with no uniqueUnits: no durations. */
   dailyUnits?: number;
+  /** Different eligible units seen over two spans; replaces dailyUnits for days, power and detectable effect. */
+  uniqueUnits?: { days: number; units: number }[];
+  /** `non-inferiority`: rule out harm of the effect's size when there is no true difference (guardrails). */
+  hypothesis?: 'superiority' | 'non-inferiority';
+  /** Share of units with a pre-period value (CUPED); the variance left is 1 - coverage × correlation². Default 1. */
+  prePeriodCoverage?: number;
+  /** False: no Bonferroni correction across treatment arms (guardrails, unless the settings ask). Default true. */
+  armCorrection?: boolean;
+  /** Beyond this many days a test is not feasible at this traffic (default 56). */
+  longestDays?: number;
   /** Share of eligible units enrolled, (0, 1]. */
   trafficShare: number;
   /** Share of exposed units that reach the changed experience, (0, 1]. */
@@ -44,7 +57,7 @@ export interface SizingRequest {
   boundary: BoundaryKind;
   prePeriodCorrelation: number;
   /** Group randomization with analysis over smaller units. */
-  cluster?: { meanSize: number; icc: number; sizeCv: number };
+  cluster?: { meanSize: number; icc: number; sizeCv: number; available?: number };
   /** Days in the planned window, both ends included. */
   plannedDays?: number;
   /** `auto` (the default): exact t below EXACT_T_LIMIT control units, normal above. Proportions always use the z test. */
@@ -68,8 +81,9 @@ export interface AnalysisSize {
   /** Units needed in each arm, rounded up. */
   perArm: { arm: string; units: number }[];
   totalUnits: number;
-  /** Groups to randomize, when groups are randomized. */
+  /** Groups to randomize, when groups are randomized: whole groups in each arm, and their sum. */
   clusters?: number;
+  clustersPerArm?: { arm: string; groups: number }[];
   duration?: Duration;
 }
 
@@ -97,8 +111,27 @@ export interface MetricSizing {
   };
   /** Power of the headline analysis by day: daily up to three weeks, weekly beyond. */
   powerByDay?: { day: number; power: number }[];
+  /** How the traffic was given: new units a day, or a curve of different units. */
+  traffic?: TrafficCurve['source'];
+  /** Whether the test fits the longest sensible window at this traffic, and what that window can detect. */
+  feasibility?: Feasibility;
+  /** Several treatment arms: control at sqrt(k) times a treatment arm's share, when that saves units. */
+  squareRootAllocation?: { controlWeight: number; treatmentWeight: number; totalUnits: number; unitsSaved: number };
   notes: string[];
 }
+
+export interface Feasibility {
+  feasible: boolean;
+  longestDays: number;
+  /** Why not, when not. */
+  reason?: string;
+  /** What the longest window can detect. */
+  detectableAtLongest?: { absolute: number; relative: number; to: number };
+}
+
+/** A test needing more units than this is not a test at any traffic (and beyond what a double counts exactly). */
+export const ABSURD_UNITS = 1e12;
+export const DEFAULT_LONGEST_DAYS = 56;
 
 interface Comparison {
   /** Control units needed for the target power, before multipliers. */
@@ -115,6 +148,15 @@ function comparisonFor(request: SizingRequest, ratio: number, alpha: number, met
   if (baseline.kind === 'proportion') {
     const p1 = baseline.rate;
     if (!(p1 > 0 && p1 < 1)) return fail('baseline.rate', `a baseline rate must be strictly between 0 and 1; got ${p1}`);
+    if (request.hypothesis === 'non-inferiority') {
+      const test = { p: p1, alpha, ratio };
+      return ok({
+        value: p1,
+        controlUnits: (d) => nonInferiorityProportionSize(test, d, request.power),
+        power: (d, n1) => nonInferiorityProportionPower(test, d, n1),
+        detectable: (n1) => nonInferiorityProportionMargin(test, n1, request.power),
+      });
+    }
     return ok({
       value: p1,
       controlUnits: (d) => proportionSampleSize({ ...settings, p1, p2: p1 + sign * d }, request.power),
@@ -156,7 +198,7 @@ function effectIn(effect: EffectSize, value: number, kind: MetricBaseline['kind'
 export const EXACT_T_LIMIT = 1_000;
 
 /** `auto`: the exact noncentral-t calculation for small samples, the normal one beyond EXACT_T_LIMIT. */
-function chooseMethod(request: SizingRequest, normal: Comparison & { value: number }, enrolledPerDay: number | undefined): MeanMethod {
+function chooseMethod(request: SizingRequest, normal: Comparison & { value: number }, enrolledAtEnd: number | undefined): MeanMethod {
   if (request.method === 'normal' || request.method === 'exact') return request.method;
   if (request.baseline.kind === 'proportion') return 'normal';
   let n1: number | undefined;
@@ -164,8 +206,8 @@ function chooseMethod(request: SizingRequest, normal: Comparison & { value: numb
     const d = effectIn(request.effect, normal.value, request.baseline.kind);
     const size = d.ok ? normal.controlUnits(d.value * request.reach) : undefined;
     n1 = size?.ok ? size.value : undefined;
-  } else if (request.plannedDays !== undefined && enrolledPerDay !== undefined) {
-    n1 = request.plannedDays * enrolledPerDay;
+  } else if (enrolledAtEnd !== undefined) {
+    n1 = enrolledAtEnd;
   }
   return n1 !== undefined && n1 > EXACT_T_LIMIT ? 'normal' : 'exact';
 }
@@ -184,9 +226,15 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   if (!(request.trafficShare > 0 && request.trafficShare <= 1)) return fail('traffic-share', `the share of traffic must be in (0, 1]; got ${request.trafficShare}`);
   if (!(request.reach > 0 && request.reach <= 1)) return fail('exposure.reach', `reach must be in (0, 1]; got ${request.reach}`);
   if (request.dailyUnits !== undefined && !(request.dailyUnits > 0)) return fail('daily-units', 'zero traffic: no test can reach its sample');
+  const coverage = request.prePeriodCoverage ?? 1;
+  if (!(coverage > 0 && coverage <= 1)) return fail('pre-period.coverage', `the share of units with a pre-period value must be in (0, 1]; got ${coverage}`);
+  const curve = request.uniqueUnits ? uniqueUnitsCurve(request.uniqueUnits) : request.dailyUnits !== undefined ? dailyCurve(request.dailyUnits) : undefined;
+  if (curve && !curve.ok) return curve;
+  const traffic = curve?.value;
+  const longestDays = request.longestDays ?? DEFAULT_LONGEST_DAYS;
 
   const totalWeight = request.arms.reduce((s, a) => s + a.weight, 0);
-  const alphaPerComparison = bonferroniAlpha(request.alpha, treatments.length);
+  const alphaPerComparison = request.armCorrection === false ? request.alpha : bonferroniAlpha(request.alpha, treatments.length);
   const sequential =
     request.interimLooks > 0
       ? sequentialInflation({ kind: request.boundary, looks: request.interimLooks + 1, alpha: alphaPerComparison, sides: request.sides }, request.power)
@@ -194,13 +242,15 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   if (!sequential.ok) return sequential;
   const boundaries = sequential.value.boundaries;
   const de = request.cluster ? designEffect(request.cluster.meanSize, request.cluster.icc, request.cluster.sizeCv) : 1;
-  const vr = varianceReduction(request.prePeriodCorrelation);
+  const vr = varianceReduction(request.prePeriodCorrelation, coverage);
   const inflate = de * vr * sequential.value.inflation;
-  const enrolledPerDay = request.dailyUnits === undefined ? undefined : request.dailyUnits * request.trafficShare;
+  /** Units enrolled by day d: different eligible units seen, times the share enrolled. */
+  const enrolledBy = traffic ? (day: number) => traffic.unitsBy(day) * request.trafficShare : undefined;
+  const enrolledPerDay = enrolledBy?.(1);
 
   const probe = comparisonFor(request, 1, alphaPerComparison, 'normal');
   if (!probe.ok) return probe;
-  const method = chooseMethod(request, probe.value, enrolledPerDay);
+  const method = chooseMethod(request, probe.value, request.plannedDays !== undefined && enrolledBy ? enrolledBy(request.plannedDays) : undefined);
 
   const comparisons: (Comparison & { weight: number })[] = [];
   for (const arm of treatments) {
@@ -221,15 +271,22 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     }
     return ok(worst * inflate);
   };
-  const sizeFromTotal = (total: number, perDay: number | undefined): AnalysisSize => {
+  const sizeFromTotal = (total: number, reachShare: number | undefined): AnalysisSize => {
     // No arm can be analysed with fewer than two units, whatever the formula says.
-    const perArm = request.arms.map((a) => ({ arm: a.name, units: Math.max(2, units((total * a.weight) / totalWeight)) }));
+    let perArm = request.arms.map((a) => ({ arm: a.name, units: Math.max(2, units((total * a.weight) / totalWeight)) }));
+    let clustersPerArm: { arm: string; groups: number }[] | undefined;
+    if (request.cluster) {
+      const groups = wholeGroupsPerArm(perArm, request.cluster.meanSize, alphaPerComparison, request.sides, request.power);
+      clustersPerArm = groups;
+      perArm = groups.map((g) => ({ arm: g.arm, units: units(g.groups * request.cluster!.meanSize) }));
+    }
     const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
-    const duration = perDay === undefined ? undefined : durationFor(totalUnits, perDay);
+    const day = traffic && reachShare !== undefined && totalUnits < ABSURD_UNITS ? traffic.dayFor(totalUnits / (request.trafficShare * reachShare)) : undefined;
+    const duration = day === undefined ? undefined : { days: day, weeks: Math.ceil(day / 7) };
     return {
       perArm,
       totalUnits,
-      ...(request.cluster ? { clusters: units(totalUnits / request.cluster.meanSize) } : {}),
+      ...(clustersPerArm ? { clusters: clustersPerArm.reduce((s, g) => s + g.groups, 0), clustersPerArm } : {}),
       ...(duration ? { duration } : {}),
     };
   };
@@ -247,12 +304,12 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     effect = { absolute: sign * d.value, relative: value === 0 ? 0 : (sign * d.value) / Math.abs(value), from: value, to: value + sign * d.value };
     const trig = totalFor(d.value);
     if (!trig.ok) return trig;
-    triggered = sizeFromTotal(trig.value, enrolledPerDay === undefined ? undefined : enrolledPerDay * request.reach);
+    triggered = sizeFromTotal(trig.value, traffic ? request.reach : undefined);
     if (dilutedAnalysis) {
       // Units that never reach the change still count: the effect on all exposed units shrinks by reach.
       const dil = totalFor(d.value * request.reach);
       if (!dil.ok) return dil;
-      diluted = sizeFromTotal(dil.value, enrolledPerDay);
+      diluted = sizeFromTotal(dil.value, traffic ? 1 : undefined);
       dilutionUnits = dil.value / trig.value;
       dilutionDays = dilutionUnits * request.reach;
     }
@@ -273,30 +330,30 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     return ok(weakest);
   };
 
+  /** The effect the headline analysis detects with the planned power at a total enrolment. */
+  const detectableAt = (totalEnrolled: number): StatsResult<{ absolute: number; relative: number; to: number }> => {
+    const n1 = controlAt(totalEnrolled);
+    let detectable = 0;
+    for (const c of comparisons) {
+      const dd = c.detectable(n1);
+      if (!dd.ok) return dd;
+      detectable = Math.max(detectable, dd.value / headlineScale);
+    }
+    const sign = request.direction === 'increase' ? 1 : -1;
+    return ok({ absolute: sign * detectable, relative: value === 0 ? 0 : (sign * detectable) / Math.abs(value), to: value + sign * detectable });
+  };
+
   let atPlannedEnd: MetricSizing['atPlannedEnd'];
-  if (request.plannedDays !== undefined && enrolledPerDay !== undefined) {
-    const totalUnits = Math.floor(request.plannedDays * enrolledPerDay * headlineReach);
-    const n1 = controlAt(totalUnits);
+  if (request.plannedDays !== undefined && enrolledBy) {
+    const totalUnits = Math.floor(enrolledBy(request.plannedDays) * headlineReach);
     atPlannedEnd = { days: request.plannedDays, totalUnits };
     if (effect) {
       const p = powerAt(totalUnits, Math.abs(effect.absolute));
       if (p.ok) atPlannedEnd.power = p.value;
     }
-    let detectable = 0;
-    let failed: string | undefined;
-    for (const c of comparisons) {
-      const dd = c.detectable(n1);
-      if (!dd.ok) {
-        failed = dd.error.message;
-        break;
-      }
-      detectable = Math.max(detectable, dd.value / headlineScale);
-    }
-    if (failed) notes.push(`No effect is detectable by the planned end: ${failed}.`);
-    else {
-      const sign = request.direction === 'increase' ? 1 : -1;
-      atPlannedEnd.detectable = { absolute: sign * detectable, relative: value === 0 ? 0 : (sign * detectable) / Math.abs(value), to: value + sign * detectable };
-    }
+    const detectable = detectableAt(totalUnits);
+    if (!detectable.ok) notes.push(`No effect is detectable by the planned end: ${detectable.error.message}.`);
+    else atPlannedEnd.detectable = detectable.value;
     if (atPlannedEnd.power !== undefined && atPlannedEnd.power < request.power) {
       notes.push(`The planned ${request.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request.power * 100).toFixed(0)}%.`);
     }
@@ -304,7 +361,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
 
   const headline = diluted ?? triggered;
   let powerByDay: MetricSizing['powerByDay'];
-  if (effect && enrolledPerDay !== undefined && headline?.duration) {
+  if (effect && enrolledBy && headline?.duration) {
     // Daily points for short tests, weekly ones beyond three weeks; one step past the longer of
     // the needed and the planned duration, and never more than 30 points.
     const horizon = Math.max(headline.duration.days, request.plannedDays ?? 0);
@@ -312,8 +369,42 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     const last = Math.min(30 * step, Math.ceil(horizon / step) * step + step);
     powerByDay = [];
     for (let day = step; day <= last; day += step) {
-      const p = powerAt(day * enrolledPerDay * headlineReach, Math.abs(effect.absolute));
+      const p = powerAt(enrolledBy(day) * headlineReach, Math.abs(effect.absolute));
       if (p.ok) powerByDay.push({ day, power: p.value });
+    }
+  }
+
+  // Feasibility: a test that needs more than the longest sensible window, or an absurd sample, is
+  // not a test at this traffic; say what the longest window can detect instead.
+  let feasibility: Feasibility | undefined;
+  if (headline) {
+    const tooMany = headline.totalUnits >= ABSURD_UNITS;
+    const tooLong = enrolledBy !== undefined && (headline.duration === undefined || headline.duration.days > longestDays);
+    if (tooMany || tooLong) {
+      const reason = tooMany
+        ? `it needs more than ${ABSURD_UNITS.toExponential(0).replace('e+', ' × 10^')} units`
+        : headline.duration
+          ? `it needs ${headline.duration.days} days, beyond the longest sensible window of ${longestDays} days`
+          : `the traffic never reaches its sample`;
+      const atLongest = enrolledBy ? detectableAt(enrolledBy(longestDays) * headlineReach) : undefined;
+      feasibility = { feasible: false, longestDays, reason, ...(atLongest?.ok ? { detectableAtLongest: atLongest.value } : {}) };
+    } else feasibility = { feasible: true, longestDays };
+  }
+
+  // Several treatment arms share one control: giving the control sqrt(k) times a treatment arm's
+  // share minimizes the total for k equal comparisons (Dunnett 1955; e.g. Bretz, Hothorn & Westfall,
+  // "Multiple Comparisons Using R", 2010, sec. 4.1; from memory).
+  let squareRootAllocation: MetricSizing['squareRootAllocation'];
+  const k = treatments.length;
+  if (k >= 2 && headline && !request.cluster) {
+    const treatmentWeight = treatments.reduce((s, a) => s + a.weight, 0) / k;
+    const controlWeight = Math.sqrt(k) * treatmentWeight;
+    if (Math.abs(control.weight / treatmentWeight - Math.sqrt(k)) > 0.05) {
+      const better = sizeMetric({ ...request, arms: [{ name: control.name, weight: controlWeight }, ...treatments.map((a) => ({ name: a.name, weight: treatmentWeight }))] });
+      const betterHeadline = better.ok ? better.value.headline : undefined;
+      if (betterHeadline && betterHeadline.totalUnits < headline.totalUnits) {
+        squareRootAllocation = { controlWeight, treatmentWeight, totalUnits: betterHeadline.totalUnits, unitsSaved: headline.totalUnits - betterHeadline.totalUnits };
+      }
     }
   }
 
@@ -322,7 +413,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     ...(probe.value.sd !== undefined ? { sd: probe.value.sd } : {}),
     ...(effect ? { effect } : {}),
     multipliers: {
-      comparisons: treatments.length,
+      comparisons: request.armCorrection === false ? 1 : treatments.length,
       alphaPerComparison,
       designEffect: de,
       varianceReduction: vr,
@@ -336,6 +427,30 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     ...(headline ? { headline } : {}),
     ...(atPlannedEnd ? { atPlannedEnd } : {}),
     ...(powerByDay ? { powerByDay } : {}),
+    ...(traffic ? { traffic: traffic.source } : {}),
+    ...(feasibility ? { feasibility } : {}),
+    ...(squareRootAllocation ? { squareRootAllocation } : {}),
     notes,
   });
+}
+
+/**
+ * Whole groups in each arm. Each arm's units become ceil(units / mean size) groups, and the
+ * normal critical values behind those units are replaced by t quantiles with G - 2 degrees of
+ * freedom (G groups in all), iterated until the counts settle: with few groups the normal
+ * reference overstates power (Donner & Klar, "Design and Analysis of Cluster Randomization
+ * Trials", 2000, ch. 5, from memory). With many groups the t and normal answers agree.
+ */
+export function wholeGroupsPerArm(perArm: readonly { arm: string; units: number }[], meanSize: number, alpha: number, sides: 1 | 2, power: number): { arm: string; groups: number }[] {
+  const zSum = normalUpperQuantile(alpha / sides) + normalQuantile(power);
+  let groups = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
+  for (let round = 0; round < 50; round++) {
+    const df = groups.reduce((s, g) => s + g.groups, 0) - 2;
+    const tSum = studentQuantile(1 - alpha / sides, df) + studentQuantile(power, df);
+    const factor = (tSum / zSum) ** 2;
+    const next = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil((a.units * factor) / meanSize - 1e-9)) }));
+    if (next.every((g, i) => g.groups === groups[i]!.groups)) return next;
+    groups = next;
+  }
+  return groups;
 }

@@ -42,3 +42,9 @@ export function chiSquareUpper(x: number, df: number): number {
   if (df === 1) return 2 * normalUpper(Math.sqrt(x));
   return Math.max(0, 1 - jStat.lowRegGamma(df / 2, x / 2));
 }
+
+/** P(T > x) for a Student t with `df` degrees of freedom (a normal tail when df is very large). */
+export function studentUpper(x: number, df: number): number {
+  if (df > 1e7) return normalUpper(x);
+  return x < 0 ? 1 - jStat.studentt.cdf(-x, df) : jStat.studentt.cdf(-x, df);
+}

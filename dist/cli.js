@@ -41,9 +41,9 @@ var __toESM = (mod, isNodeMode, target) => (target = mod != null ? __create(__ge
   mod
 ));
 
-// node_modules/commander/lib/error.js
+// ../main/node_modules/commander/lib/error.js
 var require_error = __commonJS({
-  "node_modules/commander/lib/error.js"(exports) {
+  "../main/node_modules/commander/lib/error.js"(exports) {
     var CommanderError2 = class extends Error {
       /**
        * Constructs the CommanderError class
@@ -76,9 +76,9 @@ var require_error = __commonJS({
   }
 });
 
-// node_modules/commander/lib/argument.js
+// ../main/node_modules/commander/lib/argument.js
 var require_argument = __commonJS({
-  "node_modules/commander/lib/argument.js"(exports) {
+  "../main/node_modules/commander/lib/argument.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Argument2 = class {
       /**
@@ -204,9 +204,9 @@ var require_argument = __commonJS({
   }
 });
 
-// node_modules/commander/lib/help.js
+// ../main/node_modules/commander/lib/help.js
 var require_help = __commonJS({
-  "node_modules/commander/lib/help.js"(exports) {
+  "../main/node_modules/commander/lib/help.js"(exports) {
     var { humanReadableArgName } = require_argument();
     var Help2 = class {
       constructor() {
@@ -542,15 +542,15 @@ var require_help = __commonJS({
       groupItems(unsortedItems, visibleItems, getGroup) {
         const result = /* @__PURE__ */ new Map();
         unsortedItems.forEach((item) => {
-          const group = getGroup(item);
-          if (!result.has(group)) result.set(group, []);
+          const group2 = getGroup(item);
+          if (!result.has(group2)) result.set(group2, []);
         });
         visibleItems.forEach((item) => {
-          const group = getGroup(item);
-          if (!result.has(group)) {
-            result.set(group, []);
+          const group2 = getGroup(item);
+          if (!result.has(group2)) {
+            result.set(group2, []);
           }
-          result.get(group).push(item);
+          result.get(group2).push(item);
         });
         return result;
       }
@@ -595,14 +595,14 @@ var require_help = __commonJS({
           helper.visibleOptions(cmd),
           (option) => option.helpGroupHeading ?? "Options:"
         );
-        optionGroups.forEach((options, group) => {
+        optionGroups.forEach((options, group2) => {
           const optionList = options.map((option) => {
             return callFormatItem(
               helper.styleOptionTerm(helper.optionTerm(option)),
               helper.styleOptionDescription(helper.optionDescription(option))
             );
           });
-          output2 = output2.concat(this.formatItemList(group, optionList, helper));
+          output2 = output2.concat(this.formatItemList(group2, optionList, helper));
         });
         if (helper.showGlobalOptions) {
           const globalOptionList = helper.visibleGlobalOptions(cmd).map((option) => {
@@ -620,14 +620,14 @@ var require_help = __commonJS({
           helper.visibleCommands(cmd),
           (sub) => sub.helpGroup() || "Commands:"
         );
-        commandGroups.forEach((commands, group) => {
+        commandGroups.forEach((commands, group2) => {
           const commandList = commands.map((sub) => {
             return callFormatItem(
               helper.styleSubcommandTerm(helper.subcommandTerm(sub)),
               helper.styleSubcommandDescription(helper.subcommandDescription(sub))
             );
           });
-          output2 = output2.concat(this.formatItemList(group, commandList, helper));
+          output2 = output2.concat(this.formatItemList(group2, commandList, helper));
         });
         return output2.join("\n");
       }
@@ -806,9 +806,9 @@ ${itemIndentStr}`);
   }
 });
 
-// node_modules/commander/lib/option.js
+// ../main/node_modules/commander/lib/option.js
 var require_option = __commonJS({
-  "node_modules/commander/lib/option.js"(exports) {
+  "../main/node_modules/commander/lib/option.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Option2 = class {
       /**
@@ -1119,9 +1119,9 @@ var require_option = __commonJS({
   }
 });
 
-// node_modules/commander/lib/suggestSimilar.js
+// ../main/node_modules/commander/lib/suggestSimilar.js
 var require_suggestSimilar = __commonJS({
-  "node_modules/commander/lib/suggestSimilar.js"(exports) {
+  "../main/node_modules/commander/lib/suggestSimilar.js"(exports) {
     var maxDistance = 3;
     function editDistance2(a, b) {
       if (Math.abs(a.length - b.length) > maxDistance)
@@ -1199,9 +1199,9 @@ var require_suggestSimilar = __commonJS({
   }
 });
 
-// node_modules/commander/lib/command.js
+// ../main/node_modules/commander/lib/command.js
 var require_command = __commonJS({
-  "node_modules/commander/lib/command.js"(exports) {
+  "../main/node_modules/commander/lib/command.js"(exports) {
     var EventEmitter = __require("node:events").EventEmitter;
     var childProcess = __require("node:child_process");
     var path = __require("node:path");
@@ -3445,9 +3445,9 @@ Expecting one of '${allowedValues.join("', '")}'`);
   }
 });
 
-// node_modules/commander/index.js
+// ../main/node_modules/commander/index.js
 var require_commander = __commonJS({
-  "node_modules/commander/index.js"(exports) {
+  "../main/node_modules/commander/index.js"(exports) {
     var { Argument: Argument2 } = require_argument();
     var { Command: Command3 } = require_command();
     var { CommanderError: CommanderError2, InvalidArgumentError: InvalidArgumentError2 } = require_error();
@@ -3467,9 +3467,9 @@ var require_commander = __commonJS({
   }
 });
 
-// node_modules/jstat/dist/jstat.js
+// ../main/node_modules/jstat/dist/jstat.js
 var require_jstat = __commonJS({
-  "node_modules/jstat/dist/jstat.js"(exports, module) {
+  "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
     (function(window, factory) {
       if (typeof exports === "object") {
         module.exports = factory();
@@ -4082,12 +4082,12 @@ var require_jstat = __commonJS({
           var currentRank = 1;
           for (i = 0; i < sortedDistinctNumbers.length; i++) {
             var number5 = sortedDistinctNumbers[i];
-            var count2 = numberCounts[number5];
+            var count3 = numberCounts[number5];
             var first = currentRank;
-            var last = currentRank + count2 - 1;
+            var last = currentRank + count3 - 1;
             var rank = (first + last) / 2;
             numberRanks[number5] = rank;
-            currentRank += count2;
+            currentRank += count3;
           }
           return arr.map(function(number6) {
             return numberRanks[number6];
@@ -4096,24 +4096,24 @@ var require_jstat = __commonJS({
         jStat3.mode = function mode(arr) {
           var arrLen = arr.length;
           var _arr = arr.slice().sort(ascNum);
-          var count2 = 1;
+          var count3 = 1;
           var maxCount = 0;
           var numMaxCount = 0;
           var mode_arr = [];
           var i;
           for (i = 0; i < arrLen; i++) {
             if (_arr[i] === _arr[i + 1]) {
-              count2++;
+              count3++;
             } else {
-              if (count2 > maxCount) {
+              if (count3 > maxCount) {
                 mode_arr = [_arr[i]];
-                maxCount = count2;
+                maxCount = count3;
                 numMaxCount = 0;
-              } else if (count2 === maxCount) {
+              } else if (count3 === maxCount) {
                 mode_arr.push(_arr[i]);
                 numMaxCount++;
               }
-              count2 = 1;
+              count3 = 1;
             }
           }
           return numMaxCount === 0 ? mode_arr[0] : mode_arr;
@@ -4128,10 +4128,10 @@ var require_jstat = __commonJS({
           var sumsqerr = arr.reduce(function(a, samples) {
             return a + jStat3.sumsqerr(samples);
           }, 0);
-          var count2 = arr.reduce(function(a, samples) {
+          var count3 = arr.reduce(function(a, samples) {
             return a + samples.length;
           }, 0);
-          return sumsqerr / (count2 - arr.length);
+          return sumsqerr / (count3 - arr.length);
         };
         jStat3.deviation = function(arr) {
           var mean = jStat3.mean(arr);
@@ -7318,9 +7318,9 @@ var require_jstat = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/identity.js
+// ../main/node_modules/yaml/dist/nodes/identity.js
 var require_identity = __commonJS({
-  "node_modules/yaml/dist/nodes/identity.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/identity.js"(exports) {
     "use strict";
     var ALIAS = /* @__PURE__ */ Symbol.for("yaml.alias");
     var DOC = /* @__PURE__ */ Symbol.for("yaml.document");
@@ -7331,7 +7331,7 @@ var require_identity = __commonJS({
     var NODE_TYPE = /* @__PURE__ */ Symbol.for("yaml.node.type");
     var isAlias = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === ALIAS;
     var isDocument = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === DOC;
-    var isMap2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === MAP;
+    var isMap3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === MAP;
     var isPair2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === PAIR;
     var isScalar2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SCALAR;
     var isSeq2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SEQ;
@@ -7367,7 +7367,7 @@ var require_identity = __commonJS({
     exports.isAlias = isAlias;
     exports.isCollection = isCollection;
     exports.isDocument = isDocument;
-    exports.isMap = isMap2;
+    exports.isMap = isMap3;
     exports.isNode = isNode;
     exports.isPair = isPair2;
     exports.isScalar = isScalar2;
@@ -7375,9 +7375,9 @@ var require_identity = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/visit.js
+// ../main/node_modules/yaml/dist/visit.js
 var require_visit = __commonJS({
-  "node_modules/yaml/dist/visit.js"(exports) {
+  "../main/node_modules/yaml/dist/visit.js"(exports) {
     "use strict";
     var identity = require_identity();
     var BREAK = /* @__PURE__ */ Symbol("break visit");
@@ -7533,9 +7533,9 @@ var require_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/directives.js
+// ../main/node_modules/yaml/dist/doc/directives.js
 var require_directives = __commonJS({
-  "node_modules/yaml/dist/doc/directives.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/directives.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7704,9 +7704,9 @@ var require_directives = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/anchors.js
+// ../main/node_modules/yaml/dist/doc/anchors.js
 var require_anchors = __commonJS({
-  "node_modules/yaml/dist/doc/anchors.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/anchors.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7774,9 +7774,9 @@ var require_anchors = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/applyReviver.js
+// ../main/node_modules/yaml/dist/doc/applyReviver.js
 var require_applyReviver = __commonJS({
-  "node_modules/yaml/dist/doc/applyReviver.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/applyReviver.js"(exports) {
     "use strict";
     function applyReviver(reviver, obj, key, val) {
       if (val && typeof val === "object") {
@@ -7824,9 +7824,9 @@ var require_applyReviver = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/toJS.js
+// ../main/node_modules/yaml/dist/nodes/toJS.js
 var require_toJS = __commonJS({
-  "node_modules/yaml/dist/nodes/toJS.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/toJS.js"(exports) {
     "use strict";
     var identity = require_identity();
     function toJS(value, arg, ctx) {
@@ -7854,9 +7854,9 @@ var require_toJS = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Node.js
+// ../main/node_modules/yaml/dist/nodes/Node.js
 var require_Node = __commonJS({
-  "node_modules/yaml/dist/nodes/Node.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Node.js"(exports) {
     "use strict";
     var applyReviver = require_applyReviver();
     var identity = require_identity();
@@ -7886,8 +7886,8 @@ var require_Node = __commonJS({
         };
         const res = toJS.toJS(this, "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count: count2, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count2);
+          for (const { count: count3, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count3);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
     };
@@ -7895,9 +7895,9 @@ var require_Node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Alias.js
+// ../main/node_modules/yaml/dist/nodes/Alias.js
 var require_Alias = __commonJS({
-  "node_modules/yaml/dist/nodes/Alias.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Alias.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var visit3 = require_visit();
@@ -7995,13 +7995,13 @@ var require_Alias = __commonJS({
         const anchor2 = anchors2 && source && anchors2.get(source);
         return anchor2 ? anchor2.count * anchor2.aliasCount : 0;
       } else if (identity.isCollection(node2)) {
-        let count2 = 0;
+        let count3 = 0;
         for (const item of node2.items) {
           const c = getAliasCount(doc, item, anchors2);
-          if (c > count2)
-            count2 = c;
+          if (c > count3)
+            count3 = c;
         }
-        return count2;
+        return count3;
       } else if (identity.isPair(node2)) {
         const kc = getAliasCount(doc, node2.key, anchors2);
         const vc = getAliasCount(doc, node2.value, anchors2);
@@ -8013,9 +8013,9 @@ var require_Alias = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Scalar.js
+// ../main/node_modules/yaml/dist/nodes/Scalar.js
 var require_Scalar = __commonJS({
-  "node_modules/yaml/dist/nodes/Scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Node = require_Node();
@@ -8043,9 +8043,9 @@ var require_Scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/createNode.js
+// ../main/node_modules/yaml/dist/doc/createNode.js
 var require_createNode = __commonJS({
-  "node_modules/yaml/dist/doc/createNode.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/createNode.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -8118,9 +8118,9 @@ var require_createNode = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Collection.js
+// ../main/node_modules/yaml/dist/nodes/Collection.js
 var require_Collection = __commonJS({
-  "node_modules/yaml/dist/nodes/Collection.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Collection.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var identity = require_identity();
@@ -8261,9 +8261,9 @@ var require_Collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyComment.js
+// ../main/node_modules/yaml/dist/stringify/stringifyComment.js
 var require_stringifyComment = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
     "use strict";
     var stringifyComment = (str) => str.replace(/^(?!$)(?: $)?/gm, "#");
     function indentComment(comment, indent) {
@@ -8278,9 +8278,9 @@ var require_stringifyComment = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/foldFlowLines.js
+// ../main/node_modules/yaml/dist/stringify/foldFlowLines.js
 var require_foldFlowLines = __commonJS({
-  "node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
     "use strict";
     var FOLD_FLOW = "flow";
     var FOLD_BLOCK = "block";
@@ -8414,9 +8414,9 @@ ${indent}${text2.slice(fold + 1, end2)}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyString.js
+// ../main/node_modules/yaml/dist/stringify/stringifyString.js
 var require_stringifyString = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var foldFlowLines = require_foldFlowLines();
@@ -8697,9 +8697,9 @@ ${indent}`);
   }
 });
 
-// node_modules/yaml/dist/stringify/stringify.js
+// ../main/node_modules/yaml/dist/stringify/stringify.js
 var require_stringify = __commonJS({
-  "node_modules/yaml/dist/stringify/stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringify.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var identity = require_identity();
@@ -8821,9 +8821,9 @@ ${ctx.indent}${str}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyPair.js
+// ../main/node_modules/yaml/dist/stringify/stringifyPair.js
 var require_stringifyPair = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -8954,9 +8954,9 @@ ${ctx.indent}`;
   }
 });
 
-// node_modules/yaml/dist/log.js
+// ../main/node_modules/yaml/dist/log.js
 var require_log = __commonJS({
-  "node_modules/yaml/dist/log.js"(exports) {
+  "../main/node_modules/yaml/dist/log.js"(exports) {
     "use strict";
     var node_process = __require("process");
     function debug(logLevel, ...messages) {
@@ -8976,9 +8976,9 @@ var require_log = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/merge.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js
 var require_merge = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -9036,9 +9036,9 @@ var require_merge = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/addPairToJSMap.js
+// ../main/node_modules/yaml/dist/nodes/addPairToJSMap.js
 var require_addPairToJSMap = __commonJS({
-  "node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
     "use strict";
     var log = require_log();
     var merge2 = require_merge();
@@ -9100,9 +9100,9 @@ var require_addPairToJSMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Pair.js
+// ../main/node_modules/yaml/dist/nodes/Pair.js
 var require_Pair = __commonJS({
-  "node_modules/yaml/dist/nodes/Pair.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Pair.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyPair = require_stringifyPair();
@@ -9140,9 +9140,9 @@ var require_Pair = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyCollection.js
+// ../main/node_modules/yaml/dist/stringify/stringifyCollection.js
 var require_stringifyCollection = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -9291,9 +9291,9 @@ ${indent}${end}`;
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLMap.js
+// ../main/node_modules/yaml/dist/nodes/YAMLMap.js
 var require_YAMLMap = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
     "use strict";
     var stringifyCollection = require_stringifyCollection();
     var addPairToJSMap = require_addPairToJSMap();
@@ -9435,9 +9435,9 @@ var require_YAMLMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/map.js
+// ../main/node_modules/yaml/dist/schema/common/map.js
 var require_map = __commonJS({
-  "node_modules/yaml/dist/schema/common/map.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/map.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLMap = require_YAMLMap();
@@ -9457,9 +9457,9 @@ var require_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLSeq.js
+// ../main/node_modules/yaml/dist/nodes/YAMLSeq.js
 var require_YAMLSeq = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyCollection = require_stringifyCollection();
@@ -9573,9 +9573,9 @@ var require_YAMLSeq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/seq.js
+// ../main/node_modules/yaml/dist/schema/common/seq.js
 var require_seq = __commonJS({
-  "node_modules/yaml/dist/schema/common/seq.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/seq.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLSeq = require_YAMLSeq();
@@ -9595,9 +9595,9 @@ var require_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/string.js
+// ../main/node_modules/yaml/dist/schema/common/string.js
 var require_string = __commonJS({
-  "node_modules/yaml/dist/schema/common/string.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/string.js"(exports) {
     "use strict";
     var stringifyString = require_stringifyString();
     var string4 = {
@@ -9614,9 +9614,9 @@ var require_string = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/null.js
+// ../main/node_modules/yaml/dist/schema/common/null.js
 var require_null = __commonJS({
-  "node_modules/yaml/dist/schema/common/null.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/null.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var nullTag = {
@@ -9632,9 +9632,9 @@ var require_null = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/bool.js
+// ../main/node_modules/yaml/dist/schema/core/bool.js
 var require_bool = __commonJS({
-  "node_modules/yaml/dist/schema/core/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var boolTag = {
@@ -9656,9 +9656,9 @@ var require_bool = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyNumber.js
+// ../main/node_modules/yaml/dist/stringify/stringifyNumber.js
 var require_stringifyNumber = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
     "use strict";
     function stringifyNumber({ format, minFractionDigits, tag, value }) {
       if (typeof value === "bigint")
@@ -9683,9 +9683,9 @@ var require_stringifyNumber = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/float.js
+// ../main/node_modules/yaml/dist/schema/core/float.js
 var require_float = __commonJS({
-  "node_modules/yaml/dist/schema/core/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -9729,9 +9729,9 @@ var require_float = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/int.js
+// ../main/node_modules/yaml/dist/schema/core/int.js
 var require_int = __commonJS({
-  "node_modules/yaml/dist/schema/core/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -9774,9 +9774,9 @@ var require_int = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/schema.js
+// ../main/node_modules/yaml/dist/schema/core/schema.js
 var require_schema = __commonJS({
-  "node_modules/yaml/dist/schema/core/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -9802,9 +9802,9 @@ var require_schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/json/schema.js
+// ../main/node_modules/yaml/dist/schema/json/schema.js
 var require_schema2 = __commonJS({
-  "node_modules/yaml/dist/schema/json/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/json/schema.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var map2 = require_map();
@@ -9869,9 +9869,9 @@ var require_schema2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/binary.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js
 var require_binary = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
     "use strict";
     var node_buffer = __require("buffer");
     var Scalar = require_Scalar();
@@ -9935,9 +9935,9 @@ var require_binary = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/pairs.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js
 var require_pairs = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10013,9 +10013,9 @@ ${cn.comment}` : item.comment;
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/omap.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js
 var require_omap = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
     "use strict";
     var identity = require_identity();
     var toJS = require_toJS();
@@ -10091,9 +10091,9 @@ var require_omap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/bool.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js
 var require_bool2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function boolStringify({ value, source }, ctx) {
@@ -10123,9 +10123,9 @@ var require_bool2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/float.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/float.js
 var require_float2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -10172,9 +10172,9 @@ var require_float2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/int.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/int.js
 var require_int2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -10251,9 +10251,9 @@ var require_int2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/set.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/set.js
 var require_set = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10340,9 +10340,9 @@ var require_set = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
 var require_timestamp = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     function parseSexagesimal(str, asBigInt) {
@@ -10428,9 +10428,9 @@ var require_timestamp = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/schema.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js
 var require_schema3 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10472,9 +10472,9 @@ var require_schema3 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/tags.js
+// ../main/node_modules/yaml/dist/schema/tags.js
 var require_tags = __commonJS({
-  "node_modules/yaml/dist/schema/tags.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/tags.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10566,9 +10566,9 @@ var require_tags = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/Schema.js
+// ../main/node_modules/yaml/dist/schema/Schema.js
 var require_Schema = __commonJS({
-  "node_modules/yaml/dist/schema/Schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/Schema.js"(exports) {
     "use strict";
     var identity = require_identity();
     var map2 = require_map();
@@ -10598,9 +10598,9 @@ var require_Schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyDocument.js
+// ../main/node_modules/yaml/dist/stringify/stringifyDocument.js
 var require_stringifyDocument = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -10678,9 +10678,9 @@ var require_stringifyDocument = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/Document.js
+// ../main/node_modules/yaml/dist/doc/Document.js
 var require_Document = __commonJS({
-  "node_modules/yaml/dist/doc/Document.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/Document.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var Collection = require_Collection();
@@ -10954,8 +10954,8 @@ var require_Document = __commonJS({
         };
         const res = toJS.toJS(this.contents, jsonArg ?? "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count: count2, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count2);
+          for (const { count: count3, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count3);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
       /**
@@ -10987,9 +10987,9 @@ var require_Document = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/errors.js
+// ../main/node_modules/yaml/dist/errors.js
 var require_errors = __commonJS({
-  "node_modules/yaml/dist/errors.js"(exports) {
+  "../main/node_modules/yaml/dist/errors.js"(exports) {
     "use strict";
     var YAMLError = class extends Error {
       constructor(name, pos, code, message) {
@@ -11032,12 +11032,12 @@ var require_errors = __commonJS({
         lineStr = prev + lineStr;
       }
       if (/[^ ]/.test(lineStr)) {
-        let count2 = 1;
+        let count3 = 1;
         const end = error62.linePos[1];
         if (end?.line === line && end.col > col) {
-          count2 = Math.max(1, Math.min(end.col - col, 80 - ci));
+          count3 = Math.max(1, Math.min(end.col - col, 80 - ci));
         }
-        const pointer = " ".repeat(ci) + "^".repeat(count2);
+        const pointer = " ".repeat(ci) + "^".repeat(count3);
         error62.message += `:
 
 ${lineStr}
@@ -11052,9 +11052,9 @@ ${pointer}
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-props.js
+// ../main/node_modules/yaml/dist/compose/resolve-props.js
 var require_resolve_props = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-props.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-props.js"(exports) {
     "use strict";
     function resolveProps(tokens, { flow, indicator, next, offset, onError, parentIndent, startOnNewline }) {
       let spaceBefore = false;
@@ -11186,9 +11186,9 @@ var require_resolve_props = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-contains-newline.js
+// ../main/node_modules/yaml/dist/compose/util-contains-newline.js
 var require_util_contains_newline = __commonJS({
-  "node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
     "use strict";
     function containsNewline(key) {
       if (!key)
@@ -11228,9 +11228,9 @@ var require_util_contains_newline = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-flow-indent-check.js
+// ../main/node_modules/yaml/dist/compose/util-flow-indent-check.js
 var require_util_flow_indent_check = __commonJS({
-  "node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
     "use strict";
     var utilContainsNewline = require_util_contains_newline();
     function flowIndentCheck(indent, fc, onError) {
@@ -11246,9 +11246,9 @@ var require_util_flow_indent_check = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-map-includes.js
+// ../main/node_modules/yaml/dist/compose/util-map-includes.js
 var require_util_map_includes = __commonJS({
-  "node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
     "use strict";
     var identity = require_identity();
     function mapIncludes(ctx, items, search) {
@@ -11262,9 +11262,9 @@ var require_util_map_includes = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-map.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-map.js
 var require_resolve_block_map = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
     "use strict";
     var Pair = require_Pair();
     var YAMLMap = require_YAMLMap();
@@ -11370,9 +11370,9 @@ var require_resolve_block_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-seq.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-seq.js
 var require_resolve_block_seq = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
     "use strict";
     var YAMLSeq = require_YAMLSeq();
     var resolveProps = require_resolve_props();
@@ -11421,9 +11421,9 @@ var require_resolve_block_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-end.js
+// ../main/node_modules/yaml/dist/compose/resolve-end.js
 var require_resolve_end = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-end.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-end.js"(exports) {
     "use strict";
     function resolveEnd(end, offset, reqSpace, onError) {
       let comment = "";
@@ -11464,9 +11464,9 @@ var require_resolve_end = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-collection.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-collection.js
 var require_resolve_flow_collection = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -11479,9 +11479,9 @@ var require_resolve_flow_collection = __commonJS({
     var blockMsg = "Block collections are not allowed within flow collections";
     var isBlock = (token) => token && (token.type === "block-map" || token.type === "block-seq");
     function resolveFlowCollection({ composeNode, composeEmptyNode }, ctx, fc, onError, tag) {
-      const isMap2 = fc.start.source === "{";
-      const fcName = isMap2 ? "flow map" : "flow sequence";
-      const NodeClass = tag?.nodeClass ?? (isMap2 ? YAMLMap.YAMLMap : YAMLSeq.YAMLSeq);
+      const isMap3 = fc.start.source === "{";
+      const fcName = isMap3 ? "flow map" : "flow sequence";
+      const NodeClass = tag?.nodeClass ?? (isMap3 ? YAMLMap.YAMLMap : YAMLSeq.YAMLSeq);
       const coll = new NodeClass(ctx.schema);
       coll.flow = true;
       const atRoot = ctx.atRoot;
@@ -11517,7 +11517,7 @@ var require_resolve_flow_collection = __commonJS({
             offset = props.end;
             continue;
           }
-          if (!isMap2 && ctx.options.strict && utilContainsNewline.containsNewline(key))
+          if (!isMap3 && ctx.options.strict && utilContainsNewline.containsNewline(key))
             onError(
               key,
               // checked by containsNewline()
@@ -11557,7 +11557,7 @@ var require_resolve_flow_collection = __commonJS({
             }
           }
         }
-        if (!isMap2 && !sep2 && !props.found) {
+        if (!isMap3 && !sep2 && !props.found) {
           const valueNode = value ? composeNode(ctx, value, props, onError) : composeEmptyNode(ctx, props.end, sep2, null, props, onError);
           coll.items.push(valueNode);
           offset = valueNode.range[2];
@@ -11580,7 +11580,7 @@ var require_resolve_flow_collection = __commonJS({
             startOnNewline: false
           });
           if (valueProps.found) {
-            if (!isMap2 && !props.found && ctx.options.strict) {
+            if (!isMap3 && !props.found && ctx.options.strict) {
               if (sep2)
                 for (const st of sep2) {
                   if (st === valueProps.found)
@@ -11612,7 +11612,7 @@ var require_resolve_flow_collection = __commonJS({
           const pair2 = new Pair.Pair(keyNode, valueNode);
           if (ctx.options.keepSourceTokens)
             pair2.srcToken = collItem;
-          if (isMap2) {
+          if (isMap3) {
             const map2 = coll;
             if (utilMapIncludes.mapIncludes(ctx, map2.items, keyNode))
               onError(keyStart, "DUPLICATE_KEY", "Map keys must be unique");
@@ -11628,7 +11628,7 @@ var require_resolve_flow_collection = __commonJS({
           offset = valueNode ? valueNode.range[2] : valueProps.end;
         }
       }
-      const expectedEnd = isMap2 ? "}" : "]";
+      const expectedEnd = isMap3 ? "}" : "]";
       const [ce, ...ee] = fc.end;
       let cePos = offset;
       if (ce?.source === expectedEnd)
@@ -11658,9 +11658,9 @@ var require_resolve_flow_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-collection.js
+// ../main/node_modules/yaml/dist/compose/compose-collection.js
 var require_compose_collection = __commonJS({
-  "node_modules/yaml/dist/compose/compose-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -11723,9 +11723,9 @@ var require_compose_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-scalar.js
 var require_resolve_block_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function resolveBlockScalar(ctx, scalar, onError) {
@@ -11906,9 +11906,9 @@ var require_resolve_block_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js
 var require_resolve_flow_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var resolveEnd = require_resolve_end();
@@ -12127,9 +12127,9 @@ var require_resolve_flow_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-scalar.js
+// ../main/node_modules/yaml/dist/compose/compose-scalar.js
 var require_compose_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -12208,9 +12208,9 @@ var require_compose_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-empty-scalar-position.js
+// ../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js
 var require_util_empty_scalar_position = __commonJS({
-  "node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
     "use strict";
     function emptyScalarPosition(offset, before, pos) {
       if (before) {
@@ -12238,9 +12238,9 @@ var require_util_empty_scalar_position = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-node.js
+// ../main/node_modules/yaml/dist/compose/compose-node.js
 var require_compose_node = __commonJS({
-  "node_modules/yaml/dist/compose/compose-node.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-node.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -12344,9 +12344,9 @@ var require_compose_node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-doc.js
+// ../main/node_modules/yaml/dist/compose/compose-doc.js
 var require_compose_doc = __commonJS({
-  "node_modules/yaml/dist/compose/compose-doc.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-doc.js"(exports) {
     "use strict";
     var Document = require_Document();
     var composeNode = require_compose_node();
@@ -12387,9 +12387,9 @@ var require_compose_doc = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/composer.js
+// ../main/node_modules/yaml/dist/compose/composer.js
 var require_composer = __commonJS({
-  "node_modules/yaml/dist/compose/composer.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/composer.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var directives = require_directives();
@@ -12595,9 +12595,9 @@ ${end.comment}` : end.comment;
   }
 });
 
-// node_modules/yaml/dist/parse/cst-scalar.js
+// ../main/node_modules/yaml/dist/parse/cst-scalar.js
 var require_cst_scalar = __commonJS({
-  "node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
     "use strict";
     var resolveBlockScalar = require_resolve_block_scalar();
     var resolveFlowScalar = require_resolve_flow_scalar();
@@ -12780,9 +12780,9 @@ var require_cst_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-stringify.js
+// ../main/node_modules/yaml/dist/parse/cst-stringify.js
 var require_cst_stringify = __commonJS({
-  "node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
     "use strict";
     var stringify = (cst) => "type" in cst ? stringifyToken(cst) : stringifyItem(cst);
     function stringifyToken(token) {
@@ -12841,9 +12841,9 @@ var require_cst_stringify = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-visit.js
+// ../main/node_modules/yaml/dist/parse/cst-visit.js
 var require_cst_visit = __commonJS({
-  "node_modules/yaml/dist/parse/cst-visit.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-visit.js"(exports) {
     "use strict";
     var BREAK = /* @__PURE__ */ Symbol("break visit");
     var SKIP = /* @__PURE__ */ Symbol("skip children");
@@ -12903,9 +12903,9 @@ var require_cst_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst.js
+// ../main/node_modules/yaml/dist/parse/cst.js
 var require_cst = __commonJS({
-  "node_modules/yaml/dist/parse/cst.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst.js"(exports) {
     "use strict";
     var cstScalar = require_cst_scalar();
     var cstStringify = require_cst_stringify();
@@ -13005,9 +13005,9 @@ var require_cst = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/lexer.js
+// ../main/node_modules/yaml/dist/parse/lexer.js
 var require_lexer = __commonJS({
-  "node_modules/yaml/dist/parse/lexer.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/lexer.js"(exports) {
     "use strict";
     var cst = require_cst();
     function isEmpty(ch) {
@@ -13594,9 +13594,9 @@ var require_lexer = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/line-counter.js
+// ../main/node_modules/yaml/dist/parse/line-counter.js
 var require_line_counter = __commonJS({
-  "node_modules/yaml/dist/parse/line-counter.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/line-counter.js"(exports) {
     "use strict";
     var LineCounter2 = class {
       constructor() {
@@ -13625,9 +13625,9 @@ var require_line_counter = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/parser.js
+// ../main/node_modules/yaml/dist/parse/parser.js
 var require_parser = __commonJS({
-  "node_modules/yaml/dist/parse/parser.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/parser.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var cst = require_cst();
@@ -14499,9 +14499,9 @@ var require_parser = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/public-api.js
+// ../main/node_modules/yaml/dist/public-api.js
 var require_public_api = __commonJS({
-  "node_modules/yaml/dist/public-api.js"(exports) {
+  "../main/node_modules/yaml/dist/public-api.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14529,7 +14529,7 @@ var require_public_api = __commonJS({
         return docs;
       return Object.assign([], { empty: true }, composer$1.streamInfo());
     }
-    function parseDocument2(source, options = {}) {
+    function parseDocument3(source, options = {}) {
       const { lineCounter: lineCounter2, prettyErrors } = parseOptions(options);
       const parser$1 = new parser.Parser(lineCounter2?.addNewLine);
       const composer$1 = new composer.Composer(options);
@@ -14555,7 +14555,7 @@ var require_public_api = __commonJS({
       } else if (options === void 0 && reviver && typeof reviver === "object") {
         options = reviver;
       }
-      const doc = parseDocument2(src, options);
+      const doc = parseDocument3(src, options);
       if (!doc)
         return null;
       doc.warnings.forEach((warning) => log.warn(doc.options.logLevel, warning));
@@ -14591,14 +14591,14 @@ var require_public_api = __commonJS({
     }
     exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
-    exports.parseDocument = parseDocument2;
+    exports.parseDocument = parseDocument3;
     exports.stringify = stringify;
   }
 });
 
-// node_modules/yaml/dist/index.js
+// ../main/node_modules/yaml/dist/index.js
 var require_dist = __commonJS({
-  "node_modules/yaml/dist/index.js"(exports) {
+  "../main/node_modules/yaml/dist/index.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14648,9 +14648,9 @@ var require_dist = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/constants.js
+// ../main/node_modules/picomatch/lib/constants.js
 var require_constants = __commonJS({
-  "node_modules/picomatch/lib/constants.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
     "use strict";
     var WIN_SLASH = "\\\\/";
     var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
@@ -14847,9 +14847,9 @@ var require_constants = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/utils.js
+// ../main/node_modules/picomatch/lib/utils.js
 var require_utils = __commonJS({
-  "node_modules/picomatch/lib/utils.js"(exports) {
+  "../main/node_modules/picomatch/lib/utils.js"(exports) {
     "use strict";
     var {
       REGEX_BACKSLASH,
@@ -14911,9 +14911,9 @@ var require_utils = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/scan.js
+// ../main/node_modules/picomatch/lib/scan.js
 var require_scan = __commonJS({
-  "node_modules/picomatch/lib/scan.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
     "use strict";
     var utils = require_utils();
     var {
@@ -15241,9 +15241,9 @@ var require_scan = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/parse.js
+// ../main/node_modules/picomatch/lib/parse.js
 var require_parse = __commonJS({
-  "node_modules/picomatch/lib/parse.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
     "use strict";
     var constants = require_constants();
     var utils = require_utils();
@@ -15349,13 +15349,13 @@ var require_parse = __commonJS({
         consume(token.value);
       };
       const negate = () => {
-        let count2 = 1;
+        let count3 = 1;
         while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
           advance();
           state.start++;
-          count2++;
+          count3++;
         }
-        if (count2 % 2 === 0) {
+        if (count3 % 2 === 0) {
           return false;
         }
         state.negated = true;
@@ -16009,9 +16009,9 @@ var require_parse = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/picomatch.js
+// ../main/node_modules/picomatch/lib/picomatch.js
 var require_picomatch = __commonJS({
-  "node_modules/picomatch/lib/picomatch.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
     var parse4 = require_parse();
@@ -16149,9 +16149,9 @@ var require_picomatch = __commonJS({
   }
 });
 
-// node_modules/picomatch/index.js
+// ../main/node_modules/picomatch/index.js
 var require_picomatch2 = __commonJS({
-  "node_modules/picomatch/index.js"(exports, module) {
+  "../main/node_modules/picomatch/index.js"(exports, module) {
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
@@ -16167,9 +16167,9 @@ var require_picomatch2 = __commonJS({
 });
 
 // src/cli/main.ts
-import { resolve as resolve2 } from "node:path";
+import { resolve as resolve3 } from "node:path";
 
-// node_modules/commander/esm.mjs
+// ../main/node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
 var {
   program,
@@ -16274,7 +16274,7 @@ function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
 }
 
-// node_modules/zod/v4/classic/external.js
+// ../main/node_modules/zod/v4/classic/external.js
 var external_exports = {};
 __export(external_exports, {
   $brand: () => $brand,
@@ -16537,7 +16537,7 @@ __export(external_exports, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/core/index.js
+// ../main/node_modules/zod/v4/core/index.js
 var core_exports2 = {};
 __export(core_exports2, {
   $ZodAny: () => $ZodAny,
@@ -16854,7 +16854,7 @@ __export(core_exports2, {
   withParser: () => withParser
 });
 
-// node_modules/zod/v4/core/util.js
+// ../main/node_modules/zod/v4/core/util.js
 var util_exports = {};
 __export(util_exports, {
   BIGINT_FORMAT_RANGES: () => BIGINT_FORMAT_RANGES,
@@ -17501,14 +17501,14 @@ function codePointLength(str) {
   const units2 = str.length;
   if (!highSurrogate.test(str))
     return units2;
-  let count2 = units2;
+  let count3 = units2;
   for (let i = 0; i < units2 - 1; i++) {
     if ((str.charCodeAt(i) & 64512) === 55296 && (str.charCodeAt(i + 1) & 64512) === 56320) {
-      count2--;
+      count3--;
       i++;
     }
   }
-  return count2;
+  return count3;
 }
 function getLengthableOrigin(input2) {
   if (Array.isArray(input2))
@@ -17596,9 +17596,9 @@ var Class = class {
   constructor(..._args) {
   }
 };
-function members(proto, table) {
-  for (const key in table) {
-    const desc = Object.getOwnPropertyDescriptor(table, key);
+function members(proto, table2) {
+  for (const key in table2) {
+    const desc = Object.getOwnPropertyDescriptor(table2, key);
     if (desc.get)
       Object.defineProperty(proto, key, { ...desc, enumerable: false });
     else
@@ -17613,10 +17613,10 @@ function hide(inst, key, value) {
   return own(inst, key, value, false);
 }
 // @__NO_SIDE_EFFECTS__
-function derived(computes, table) {
+function derived(computes, table2) {
   for (const key in computes) {
     const compute = computes[key];
-    Object.defineProperty(table, key, {
+    Object.defineProperty(table2, key, {
       configurable: true,
       enumerable: true,
       get() {
@@ -17627,7 +17627,7 @@ function derived(computes, table) {
       }
     });
   }
-  return table;
+  return table2;
 }
 function defineBound(proto, key, fn) {
   Object.defineProperty(proto, key, {
@@ -17710,7 +17710,7 @@ function constantCatch(value) {
   return fn;
 }
 
-// node_modules/zod/v4/core/core.js
+// ../main/node_modules/zod/v4/core/core.js
 var _a;
 var NEVER = /* @__PURE__ */ Object.freeze({
   status: "aborted"
@@ -17832,7 +17832,7 @@ function config(newConfig) {
   return globalConfig;
 }
 
-// node_modules/zod/v4/core/errors.js
+// ../main/node_modules/zod/v4/core/errors.js
 function _getMessage() {
   const internals = this._zod;
   internals.message ?? (internals.message = JSON.stringify(internals.def, jsonStringifyReplacer, 2));
@@ -18024,7 +18024,7 @@ function prettifyError(error62) {
   return lines.join("\n");
 }
 
-// node_modules/zod/v4/core/parse.js
+// ../main/node_modules/zod/v4/core/parse.js
 function finalizeParams(callee, params) {
   return { callee: params?.callee ?? callee, Err: params?.Err };
 }
@@ -18184,7 +18184,7 @@ var _safeDecodeAsync = (_Err) => async (schema, value, _ctx) => {
 };
 var safeDecodeAsync = /* @__PURE__ */ _safeDecodeAsync($ZodRealError);
 
-// node_modules/zod/v4/core/regexes.js
+// ../main/node_modules/zod/v4/core/regexes.js
 var regexes_exports = {};
 __export(regexes_exports, {
   anyString: () => anyString,
@@ -18356,7 +18356,7 @@ var sha512_hex = /^[0-9a-fA-F]{128}$/;
 var sha512_base64 = /* @__PURE__ */ fixedBase64(86, "==");
 var sha512_base64url = /* @__PURE__ */ fixedBase64url(86);
 
-// node_modules/zod/v4/core/checks.js
+// ../main/node_modules/zod/v4/core/checks.js
 var $ZodCheck = /* @__PURE__ */ $constructor("$ZodCheck", (inst, def) => {
   var _a3;
   inst._zod ?? (inst._zod = {});
@@ -18832,7 +18832,7 @@ var $ZodCheckOverwrite = /* @__PURE__ */ $constructor("$ZodCheckOverwrite", (ins
   };
 });
 
-// node_modules/zod/v4/core/doc.js
+// ../main/node_modules/zod/v4/core/doc.js
 var Doc = class {
   constructor(args = [], closed = {}) {
     this.content = [];
@@ -18873,14 +18873,14 @@ ${content.join("\n")}
   }
 };
 
-// node_modules/zod/v4/core/versions.js
+// ../main/node_modules/zod/v4/core/versions.js
 var version = {
   major: 4,
   minor: 6,
   patch: 7
 };
 
-// node_modules/zod/v4/core/schemas.js
+// ../main/node_modules/zod/v4/core/schemas.js
 var $ZodType = /* @__PURE__ */ $constructor("$ZodType", (inst, def) => {
   var _a3;
   inst ?? (inst = {});
@@ -21322,7 +21322,7 @@ function handleRefineResult(result, payload, input2, inst) {
   }
 }
 
-// node_modules/zod/v4/core/memoizer.js
+// ../main/node_modules/zod/v4/core/memoizer.js
 var $ZodCyclicError = class extends Error {
   constructor() {
     super(`Cannot parse a reference cycle that closes through a transform`);
@@ -21341,17 +21341,17 @@ var recursive = /* @__PURE__ */ new WeakMap();
 var NONE = 0;
 var ASSUMED = 1;
 var PROVEN = 2;
-function isRecursive(inst, stack, resolve3) {
-  const cached3 = recursive.get(inst);
-  if (cached3 !== void 0)
-    return cached3 ? PROVEN : NONE;
+function isRecursive(inst, stack, resolve4) {
+  const cached4 = recursive.get(inst);
+  if (cached4 !== void 0)
+    return cached4 ? PROVEN : NONE;
   if (stack.has(inst))
     return PROVEN;
   stack.add(inst);
   let result = NONE;
   const check2 = (child) => {
     if (result !== PROVEN && child?._zod) {
-      const answer = isRecursive(child, stack, resolve3);
+      const answer = isRecursive(child, stack, resolve4);
       if (answer > result)
         result = answer;
     }
@@ -21362,7 +21362,7 @@ function isRecursive(inst, stack, resolve3) {
       const desc = Object.getOwnPropertyDescriptor(sh, key);
       if (spread && !desc.enumerable)
         continue;
-      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve3) : NONE;
+      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve4) : NONE;
       if (child > answer)
         answer = child;
     }
@@ -21426,7 +21426,7 @@ function isRecursive(inst, stack, resolve3) {
       break;
     // `$ZodLazy` caches its inner on the def, so a resolved edge is followed exactly
     case "lazy": {
-      const inner = def._cachedInner ?? (resolve3 ? inst._zod.innerType : void 0);
+      const inner = def._cachedInner ?? (resolve4 ? inst._zod.innerType : void 0);
       merge2(inner ? isRecursive(inner, stack, false) : ASSUMED);
       break;
     }
@@ -21599,7 +21599,7 @@ function isBackEdge(ctx, value) {
   return backEdges !== void 0 && isRef(value) && backEdges.has(value);
 }
 
-// node_modules/zod/v4/locales/index.js
+// ../main/node_modules/zod/v4/locales/index.js
 var locales_exports = {};
 __export(locales_exports, {
   ar: () => ar_default,
@@ -21667,7 +21667,7 @@ __export(locales_exports, {
   zhTW: () => zh_TW_default
 });
 
-// node_modules/zod/v4/locales/ar.js
+// ../main/node_modules/zod/v4/locales/ar.js
 var error = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0641", verb: "\u0623\u0646 \u064A\u062D\u0648\u064A" },
@@ -21779,7 +21779,7 @@ function ar_default() {
   };
 }
 
-// node_modules/zod/v4/locales/az.js
+// ../main/node_modules/zod/v4/locales/az.js
 var error2 = () => {
   const Sizable = {
     string: { unit: "simvol", verb: "olmal\u0131d\u0131r" },
@@ -21890,9 +21890,9 @@ function az_default() {
   };
 }
 
-// node_modules/zod/v4/locales/be.js
-function getBelarusianPlural(count2, one, few, many) {
-  const absCount = Math.abs(count2);
+// ../main/node_modules/zod/v4/locales/be.js
+function getBelarusianPlural(count3, one, few, many) {
+  const absCount = Math.abs(count3);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -22059,7 +22059,7 @@ function be_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bg.js
+// ../main/node_modules/zod/v4/locales/bg.js
 var error4 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0430", verb: "\u0434\u0430 \u0441\u044A\u0434\u044A\u0440\u0436\u0430" },
@@ -22185,7 +22185,7 @@ function bg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bn.js
+// ../main/node_modules/zod/v4/locales/bn.js
 var error5 = () => {
   const Sizable = {
     string: { unit: "\u0985\u0995\u09CD\u09B7\u09B0", verb: "\u09A5\u09BE\u0995\u09A4\u09C7 \u09B9\u09AC\u09C7" },
@@ -22299,7 +22299,7 @@ function bn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ca.js
+// ../main/node_modules/zod/v4/locales/ca.js
 var error6 = () => {
   const Sizable = {
     string: { unit: "car\xE0cters", verb: "contenir" },
@@ -22413,7 +22413,7 @@ function ca_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ckb.js
+// ../main/node_modules/zod/v4/locales/ckb.js
 var error7 = () => {
   const Sizable = {
     string: { unit: "\u067E\u06CC\u062A", verb: "\u0628\u06CE\u062A" },
@@ -22546,7 +22546,7 @@ function ckb_default() {
   };
 }
 
-// node_modules/zod/v4/locales/cs.js
+// ../main/node_modules/zod/v4/locales/cs.js
 var error8 = () => {
   const Sizable = {
     string: { unit: "znak\u016F", verb: "m\xEDt" },
@@ -22663,7 +22663,7 @@ function cs_default() {
   };
 }
 
-// node_modules/zod/v4/locales/da.js
+// ../main/node_modules/zod/v4/locales/da.js
 var error9 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "havde" },
@@ -22784,7 +22784,7 @@ function da_default() {
   };
 }
 
-// node_modules/zod/v4/locales/de.js
+// ../main/node_modules/zod/v4/locales/de.js
 var error10 = () => {
   const Sizable = {
     string: { unit: "Zeichen", verb: "zu haben" },
@@ -22898,7 +22898,7 @@ function de_default() {
   };
 }
 
-// node_modules/zod/v4/locales/el.js
+// ../main/node_modules/zod/v4/locales/el.js
 var error11 = () => {
   const Sizable = {
     string: { unit: "\u03C7\u03B1\u03C1\u03B1\u03BA\u03C4\u03AE\u03C1\u03B5\u03C2", verb: "\u03BD\u03B1 \u03AD\u03C7\u03B5\u03B9" },
@@ -23011,7 +23011,7 @@ function el_default() {
   };
 }
 
-// node_modules/zod/v4/locales/en.js
+// ../main/node_modules/zod/v4/locales/en.js
 var error12 = () => {
   const Sizable = {
     string: { unit: "characters", verb: "to have" },
@@ -23136,7 +23136,7 @@ function en_default() {
   };
 }
 
-// node_modules/zod/v4/locales/eo.js
+// ../main/node_modules/zod/v4/locales/eo.js
 var error13 = () => {
   const Sizable = {
     string: { unit: "karaktrojn", verb: "havi" },
@@ -23251,7 +23251,7 @@ function eo_default() {
   };
 }
 
-// node_modules/zod/v4/locales/es.js
+// ../main/node_modules/zod/v4/locales/es.js
 var error14 = () => {
   const Sizable = {
     string: { unit: "caracteres", verb: "tener" },
@@ -23388,7 +23388,7 @@ function es_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fa.js
+// ../main/node_modules/zod/v4/locales/fa.js
 var error15 = () => {
   const Sizable = {
     string: { unit: "\u06A9\u0627\u0631\u0627\u06A9\u062A\u0631", verb: "\u062F\u0627\u0634\u062A\u0647 \u0628\u0627\u0634\u062F" },
@@ -23508,7 +23508,7 @@ function fa_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fi.js
+// ../main/node_modules/zod/v4/locales/fi.js
 var error16 = () => {
   const Sizable = {
     string: { unit: "merkki\xE4", subject: "merkkijonon" },
@@ -23626,7 +23626,7 @@ function fi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr.js
+// ../main/node_modules/zod/v4/locales/fr.js
 var error17 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23756,7 +23756,7 @@ function fr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr-CA.js
+// ../main/node_modules/zod/v4/locales/fr-CA.js
 var error18 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23869,7 +23869,7 @@ function fr_CA_default() {
   };
 }
 
-// node_modules/zod/v4/locales/gu.js
+// ../main/node_modules/zod/v4/locales/gu.js
 var error19 = () => {
   const Sizable = {
     string: { unit: "\u0A85\u0A95\u0ACD\u0AB7\u0AB0", verb: "\u0AB9\u0ACB\u0AB5\u0ABE \u0A9C\u0ACB\u0A88\u0A8F" },
@@ -23983,7 +23983,7 @@ function gu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/he.js
+// ../main/node_modules/zod/v4/locales/he.js
 var error20 = () => {
   const TypeNames = {
     string: { label: "\u05DE\u05D7\u05E8\u05D5\u05D6\u05EA", gender: "f" },
@@ -24185,7 +24185,7 @@ function he_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hi.js
+// ../main/node_modules/zod/v4/locales/hi.js
 var error21 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0930\u0916\u0928\u0947 \u0915\u0947 \u0932\u093F\u090F" },
@@ -24297,7 +24297,7 @@ function hi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hr.js
+// ../main/node_modules/zod/v4/locales/hr.js
 var error22 = () => {
   const Sizable = {
     string: { unit: "znakova", verb: "imati" },
@@ -24424,7 +24424,7 @@ function hr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hu.js
+// ../main/node_modules/zod/v4/locales/hu.js
 var error23 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "legyen" },
@@ -24538,9 +24538,9 @@ function hu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hy.js
-function getArmenianPlural(count2, one, many) {
-  return Math.abs(count2) === 1 ? one : many;
+// ../main/node_modules/zod/v4/locales/hy.js
+function getArmenianPlural(count3, one, many) {
+  return Math.abs(count3) === 1 ? one : many;
 }
 function withDefiniteArticle(word) {
   if (!word)
@@ -24697,7 +24697,7 @@ function hy_default() {
   };
 }
 
-// node_modules/zod/v4/locales/id.js
+// ../main/node_modules/zod/v4/locales/id.js
 var error25 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "memiliki" },
@@ -24809,7 +24809,7 @@ function id_default() {
   };
 }
 
-// node_modules/zod/v4/locales/is.js
+// ../main/node_modules/zod/v4/locales/is.js
 var error26 = () => {
   const Sizable = {
     string: { unit: "stafi", verb: "a\xF0 hafa" },
@@ -24924,7 +24924,7 @@ function is_default() {
   };
 }
 
-// node_modules/zod/v4/locales/it.js
+// ../main/node_modules/zod/v4/locales/it.js
 var error27 = () => {
   const Sizable = {
     string: { unit: "caratteri", verb: "avere" },
@@ -25038,7 +25038,7 @@ function it_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ja.js
+// ../main/node_modules/zod/v4/locales/ja.js
 var error28 = () => {
   const Sizable = {
     string: { unit: "\u6587\u5B57", verb: "\u3067\u3042\u308B" },
@@ -25151,7 +25151,7 @@ function ja_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ka.js
+// ../main/node_modules/zod/v4/locales/ka.js
 var error29 = () => {
   const Sizable = {
     string: { unit: "\u10E1\u10D8\u10DB\u10D1\u10DD\u10DA\u10DD", verb: "\u10E3\u10DC\u10D3\u10D0 \u10E8\u10D4\u10D8\u10EA\u10D0\u10D5\u10D3\u10D4\u10E1" },
@@ -25269,7 +25269,7 @@ function ka_default() {
   };
 }
 
-// node_modules/zod/v4/locales/km.js
+// ../main/node_modules/zod/v4/locales/km.js
 var error30 = () => {
   const Sizable = {
     string: { unit: "\u178F\u17BD\u17A2\u1780\u17D2\u179F\u179A", verb: "\u1782\u17BD\u179A\u1798\u17B6\u1793" },
@@ -25385,12 +25385,12 @@ function km_default() {
   };
 }
 
-// node_modules/zod/v4/locales/kh.js
+// ../main/node_modules/zod/v4/locales/kh.js
 function kh_default() {
   return km_default();
 }
 
-// node_modules/zod/v4/locales/kn.js
+// ../main/node_modules/zod/v4/locales/kn.js
 var error31 = () => {
   const Sizable = {
     string: { unit: "\u0C85\u0C95\u0CCD\u0CB7\u0CB0\u0C97\u0CB3\u0CC1", verb: "\u0CB9\u0CCA\u0C82\u0CA6\u0CB2\u0CC1" },
@@ -25506,7 +25506,7 @@ function kn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ko.js
+// ../main/node_modules/zod/v4/locales/ko.js
 var error32 = () => {
   const Sizable = {
     string: { unit: "\uBB38\uC790", verb: "to have" },
@@ -25623,7 +25623,7 @@ function ko_default() {
   };
 }
 
-// node_modules/zod/v4/locales/lt.js
+// ../main/node_modules/zod/v4/locales/lt.js
 var capitalizeFirstCharacter = (text2) => {
   return text2.charAt(0).toUpperCase() + text2.slice(1);
 };
@@ -25831,7 +25831,7 @@ function lt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/mk.js
+// ../main/node_modules/zod/v4/locales/mk.js
 var error34 = () => {
   const Sizable = {
     string: { unit: "\u0437\u043D\u0430\u0446\u0438", verb: "\u0434\u0430 \u0438\u043C\u0430\u0430\u0442" },
@@ -25946,7 +25946,7 @@ function mk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ms.js
+// ../main/node_modules/zod/v4/locales/ms.js
 var error35 = () => {
   const Sizable = {
     string: { unit: "aksara", verb: "mempunyai" },
@@ -26059,7 +26059,7 @@ function ms_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ne.js
+// ../main/node_modules/zod/v4/locales/ne.js
 var error36 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0939\u0941\u0928\u0941\u092A\u0930\u094D\u091B" },
@@ -26171,7 +26171,7 @@ function ne_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nl.js
+// ../main/node_modules/zod/v4/locales/nl.js
 var error37 = () => {
   const Sizable = {
     string: { unit: "tekens", verb: "heeft" },
@@ -26287,7 +26287,7 @@ function nl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nn.js
+// ../main/node_modules/zod/v4/locales/nn.js
 var error38 = () => {
   const Sizable = {
     string: { unit: "teikn", verb: "\xE5 ha" },
@@ -26401,7 +26401,7 @@ function nn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/no.js
+// ../main/node_modules/zod/v4/locales/no.js
 var error39 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "\xE5 ha" },
@@ -26515,7 +26515,7 @@ function no_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ota.js
+// ../main/node_modules/zod/v4/locales/ota.js
 var error40 = () => {
   const Sizable = {
     string: { unit: "harf", verb: "olmal\u0131d\u0131r" },
@@ -26630,7 +26630,7 @@ function ota_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ps.js
+// ../main/node_modules/zod/v4/locales/ps.js
 var error41 = () => {
   const Sizable = {
     string: { unit: "\u062A\u0648\u06A9\u064A", verb: "\u0648\u0644\u0631\u064A" },
@@ -26750,7 +26750,7 @@ function ps_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pl.js
+// ../main/node_modules/zod/v4/locales/pl.js
 var error42 = () => {
   const Sizable = {
     string: { unit: "znak\xF3w", verb: "mie\u0107" },
@@ -26865,7 +26865,7 @@ function pl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt.js
+// ../main/node_modules/zod/v4/locales/pt.js
 var error43 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27009,7 +27009,7 @@ function pt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt-BR.js
+// ../main/node_modules/zod/v4/locales/pt-BR.js
 var error44 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27154,7 +27154,7 @@ function pt_BR_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ro.js
+// ../main/node_modules/zod/v4/locales/ro.js
 var error45 = () => {
   const Sizable = {
     string: { unit: "caractere", verb: "s\u0103 aib\u0103" },
@@ -27277,9 +27277,9 @@ function ro_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ru.js
-function getRussianPlural(count2, one, few, many) {
-  const absCount = Math.abs(count2);
+// ../main/node_modules/zod/v4/locales/ru.js
+function getRussianPlural(count3, one, few, many) {
+  const absCount = Math.abs(count3);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -27446,7 +27446,7 @@ function ru_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sk.js
+// ../main/node_modules/zod/v4/locales/sk.js
 var error47 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "ma\u0165" },
@@ -27563,7 +27563,7 @@ function sk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sl.js
+// ../main/node_modules/zod/v4/locales/sl.js
 var error48 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "imeti" },
@@ -27678,7 +27678,7 @@ function sl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sv.js
+// ../main/node_modules/zod/v4/locales/sv.js
 var error49 = () => {
   const Sizable = {
     string: { unit: "tecken", verb: "att ha" },
@@ -27794,7 +27794,7 @@ function sv_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ta.js
+// ../main/node_modules/zod/v4/locales/ta.js
 var error50 = () => {
   const Sizable = {
     string: { unit: "\u0B8E\u0BB4\u0BC1\u0BA4\u0BCD\u0BA4\u0BC1\u0B95\u0BCD\u0B95\u0BB3\u0BCD", verb: "\u0B95\u0BCA\u0BA3\u0BCD\u0B9F\u0BBF\u0BB0\u0BC1\u0B95\u0BCD\u0B95 \u0BB5\u0BC7\u0BA3\u0BCD\u0B9F\u0BC1\u0BAE\u0BCD" },
@@ -27910,7 +27910,7 @@ function ta_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tg.js
+// ../main/node_modules/zod/v4/locales/tg.js
 var error51 = () => {
   const Sizable = {
     string: { unit: "\u0430\u043B\u043E\u043C\u0430\u0442", verb: "\u0434\u043E\u0448\u0442\u0430 \u0431\u043E\u0448\u0430\u0434" },
@@ -28027,7 +28027,7 @@ function tg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/th.js
+// ../main/node_modules/zod/v4/locales/th.js
 var error52 = () => {
   const Sizable = {
     string: { unit: "\u0E15\u0E31\u0E27\u0E2D\u0E31\u0E01\u0E29\u0E23", verb: "\u0E04\u0E27\u0E23\u0E21\u0E35" },
@@ -28143,7 +28143,7 @@ function th_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tk.js
+// ../main/node_modules/zod/v4/locales/tk.js
 var error53 = () => {
   const Sizable = {
     string: { unit: "simwol", verb: "bolmaly" },
@@ -28251,7 +28251,7 @@ function tk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tr.js
+// ../main/node_modules/zod/v4/locales/tr.js
 var error54 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "olmal\u0131" },
@@ -28362,7 +28362,7 @@ function tr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uk.js
+// ../main/node_modules/zod/v4/locales/uk.js
 var error55 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0456\u0432", verb: "\u043C\u0430\u0442\u0438\u043C\u0435" },
@@ -28476,12 +28476,12 @@ function uk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ua.js
+// ../main/node_modules/zod/v4/locales/ua.js
 function ua_default() {
   return uk_default();
 }
 
-// node_modules/zod/v4/locales/ur.js
+// ../main/node_modules/zod/v4/locales/ur.js
 var error56 = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0648\u0641", verb: "\u06C1\u0648\u0646\u0627" },
@@ -28597,7 +28597,7 @@ function ur_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uz.js
+// ../main/node_modules/zod/v4/locales/uz.js
 var error57 = () => {
   const Sizable = {
     string: { unit: "belgi", verb: "bo\u2018lishi kerak" },
@@ -28711,7 +28711,7 @@ function uz_default() {
   };
 }
 
-// node_modules/zod/v4/locales/vi.js
+// ../main/node_modules/zod/v4/locales/vi.js
 var error58 = () => {
   const Sizable = {
     string: { unit: "k\xFD t\u1EF1", verb: "c\xF3" },
@@ -28825,7 +28825,7 @@ function vi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-CN.js
+// ../main/node_modules/zod/v4/locales/zh-CN.js
 var error59 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u7B26", verb: "\u5305\u542B" },
@@ -28940,7 +28940,7 @@ function zh_CN_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-TW.js
+// ../main/node_modules/zod/v4/locales/zh-TW.js
 var error60 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u5143", verb: "\u64C1\u6709" },
@@ -29053,7 +29053,7 @@ function zh_TW_default() {
   };
 }
 
-// node_modules/zod/v4/locales/yo.js
+// ../main/node_modules/zod/v4/locales/yo.js
 var error61 = () => {
   const Sizable = {
     string: { unit: "\xE0mi", verb: "n\xED" },
@@ -29166,7 +29166,7 @@ function yo_default() {
   };
 }
 
-// node_modules/zod/v4/core/registries.js
+// ../main/node_modules/zod/v4/core/registries.js
 var _a2;
 var $output = /* @__PURE__ */ Symbol("ZodOutput");
 var $input = /* @__PURE__ */ Symbol("ZodInput");
@@ -29216,7 +29216,7 @@ function registry() {
 (_a2 = globalThis).__zod_globalRegistry ?? (_a2.__zod_globalRegistry = registry());
 var globalRegistry = globalThis.__zod_globalRegistry;
 
-// node_modules/zod/v4/core/compile.js
+// ../main/node_modules/zod/v4/core/compile.js
 var INVALID = /* @__PURE__ */ Symbol.for("zod.compile.invalid");
 var FALLBACK_FLAG = /* @__PURE__ */ Symbol.for("zod.compile.fallback");
 var ZodCompileAsyncError = class extends Error {
@@ -30826,7 +30826,7 @@ function generateTransformCheck(doc, ctx, schema, accessor) {
   return accessor;
 }
 
-// node_modules/zod/v4/core/api.js
+// ../main/node_modules/zod/v4/core/api.js
 function snapshotChecks(def) {
   if (def.checks)
     def.checks = [...def.checks];
@@ -31885,7 +31885,7 @@ function _stringFormat(Class2, format, fnOrRegex, _params = {}) {
   return inst;
 }
 
-// node_modules/zod/v4/core/to-json-schema.js
+// ../main/node_modules/zod/v4/core/to-json-schema.js
 function assignProps(target, ...sources) {
   for (const source of sources) {
     for (const key of Reflect.ownKeys(source)) {
@@ -32415,7 +32415,7 @@ var createStandardJSONSchemaMethod = (schema, io, processors = {}) => (params) =
   return finalize(ctx, schema);
 };
 
-// node_modules/zod/v4/core/json-schema-processors.js
+// ../main/node_modules/zod/v4/core/json-schema-processors.js
 var narrowMin = (agg, key, value) => {
   if (agg[key] === void 0 || value > agg[key])
     agg[key] = value;
@@ -33163,7 +33163,7 @@ function toJSONSchema(input2, params) {
   return finalize(ctx, input2);
 }
 
-// node_modules/zod/v4/core/json-schema-generator.js
+// ../main/node_modules/zod/v4/core/json-schema-generator.js
 var JSONSchemaGenerator = class {
   /** @deprecated Access via ctx instead */
   get metadataRegistry() {
@@ -33241,10 +33241,10 @@ var JSONSchemaGenerator = class {
   }
 };
 
-// node_modules/zod/v4/core/json-schema.js
+// ../main/node_modules/zod/v4/core/json-schema.js
 var json_schema_exports = {};
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 var schemas_exports2 = {};
 __export(schemas_exports2, {
   ZodAny: () => ZodAny,
@@ -33425,7 +33425,7 @@ __export(schemas_exports2, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/classic/checks.js
+// ../main/node_modules/zod/v4/classic/checks.js
 var checks_exports2 = {};
 __export(checks_exports2, {
   endsWith: () => _endsWith,
@@ -33460,7 +33460,7 @@ __export(checks_exports2, {
   uppercase: () => _uppercase
 });
 
-// node_modules/zod/v4/classic/errors.js
+// ../main/node_modules/zod/v4/classic/errors.js
 var _installedErrorProtos = /* @__PURE__ */ new WeakSet([Object.prototype, Error.prototype]);
 function _lazyMethod(proto, key, make) {
   Object.defineProperty(proto, key, {
@@ -33506,7 +33506,7 @@ var ZodRealError = /* @__PURE__ */ $constructor("ZodError", initializer2, void 0
   Parent: Error
 });
 
-// node_modules/zod/v4/classic/parse.js
+// ../main/node_modules/zod/v4/classic/parse.js
 var parse2 = /* @__PURE__ */ _parse(ZodRealError);
 var parseAsync2 = /* @__PURE__ */ _parseAsync(ZodRealError);
 var safeParse2 = /* @__PURE__ */ _safeParse(ZodRealError);
@@ -33520,7 +33520,7 @@ var safeDecode2 = /* @__PURE__ */ _safeDecode(ZodRealError);
 var safeEncodeAsync2 = /* @__PURE__ */ _safeEncodeAsync(ZodRealError);
 var safeDecodeAsync2 = /* @__PURE__ */ _safeDecodeAsync(ZodRealError);
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 function _ensureDefaultLocale() {
   if (!globalConfig.localeError)
     config(en_default());
@@ -34985,7 +34985,7 @@ function preprocess(fn, schema) {
   });
 }
 
-// node_modules/zod/v4/classic/compat.js
+// ../main/node_modules/zod/v4/classic/compat.js
 var ZodIssueCode = {
   invalid_type: "invalid_type",
   too_big: "too_big",
@@ -35011,7 +35011,7 @@ var ZodFirstPartyTypeKind;
 /* @__PURE__ */ (function(ZodFirstPartyTypeKind2) {
 })(ZodFirstPartyTypeKind || (ZodFirstPartyTypeKind = {}));
 
-// node_modules/zod/v4/classic/iso.js
+// ../main/node_modules/zod/v4/classic/iso.js
 var iso_exports = {};
 __export(iso_exports, {
   ZodISODate: () => ZodISODate,
@@ -35036,7 +35036,7 @@ function duration2(params) {
   return _isoDuration(ZodISODuration, params);
 }
 
-// node_modules/zod/v4/classic/from-json-schema.js
+// ../main/node_modules/zod/v4/classic/from-json-schema.js
 var z = {
   ...schemas_exports2,
   ...checks_exports2,
@@ -35769,7 +35769,7 @@ function fromJSONSchema(schema, params) {
   return convertSchema(normalized, ctx);
 }
 
-// node_modules/zod/v4/core/visit.js
+// ../main/node_modules/zod/v4/core/visit.js
 var RESOLVING = /* @__PURE__ */ Symbol("z.visit/resolving");
 function visit(schema, fnOrHandlers) {
   const fn = typeof fnOrHandlers === "function" ? fnOrHandlers : (node2, rewritten) => {
@@ -35778,15 +35778,15 @@ function visit(schema, fnOrHandlers) {
   };
   const cache = /* @__PURE__ */ new Map();
   function run(s) {
-    const cached3 = cache.get(s);
-    if (cached3 === RESOLVING) {
+    const cached4 = cache.get(s);
+    if (cached4 === RESOLVING) {
       return new $ZodLazy({
         type: "lazy",
         getter: () => cache.get(s)
       });
     }
-    if (cached3 !== void 0)
-      return cached3;
+    if (cached4 !== void 0)
+      return cached4;
     cache.set(s, RESOLVING);
     const inner = mapInner(s);
     const mapped = fn(inner, inner !== s);
@@ -35924,7 +35924,7 @@ function visit(schema, fnOrHandlers) {
   return run(schema);
 }
 
-// node_modules/zod/v4/classic/deep-partial.js
+// ../main/node_modules/zod/v4/classic/deep-partial.js
 function deepPartial(schema) {
   return visit(schema, {
     object: (s) => s.partial(),
@@ -35936,7 +35936,7 @@ function deepPartial(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/in-out.js
+// ../main/node_modules/zod/v4/classic/in-out.js
 function withChecks(side, checks) {
   if (!checks?.length)
     return side;
@@ -35966,7 +35966,7 @@ function output(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/coerce.js
+// ../main/node_modules/zod/v4/classic/coerce.js
 var coerce_exports = {};
 __export(coerce_exports, {
   bigint: () => bigint3,
@@ -36039,6 +36039,10 @@ function chiSquareUpper(x, df) {
   if (x <= 0) return 1;
   if (df === 1) return 2 * normalUpper(Math.sqrt(x));
   return Math.max(0, 1 - jStat.lowRegGamma(df / 2, x / 2));
+}
+function studentUpper(x, df) {
+  if (df > 1e7) return normalUpper(x);
+  return x < 0 ? 1 - jStat.studentt.cdf(-x, df) : jStat.studentt.cdf(-x, df);
 }
 
 // src/core/stats/root.ts
@@ -36137,7 +36141,7 @@ function simpsonGrid(lo, hi) {
   }
   return { points, weights };
 }
-function walk(looks, sides, eta, boundaryAt) {
+function walk(looks, sides, eta, boundaryAt, fractions = Array.from({ length: looks }, (_, i) => (i + 1) / looks)) {
   const upper = [];
   const lower = [];
   const boundaries = [];
@@ -36145,7 +36149,7 @@ function walk(looks, sides, eta, boundaryAt) {
   let density;
   let previousT = 0;
   for (let k = 1; k <= looks; k++) {
-    const t = k / looks;
+    const t = fractions[k - 1];
     const dt = t - previousT;
     const sdStep = Math.sqrt(dt);
     const mean = eta * dt;
@@ -36194,6 +36198,25 @@ function spentByTime(kind, a, t) {
   if (t <= 0) return 0;
   if (t >= 1) return a;
   return kind === "obrien-fleming-spending" ? 2 - 2 * normalCdf(normalQuantile(1 - a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+}
+function spendingBoundaryAt(kind, alpha, sides, fractions) {
+  if (!(alpha > 0 && alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${alpha}`);
+  if (fractions.length === 0 || fractions.some((t, i) => !(t > 0 && t <= 1) || i > 0 && !(t > fractions[i - 1]))) {
+    return fail("information fraction", "information fractions must increase within (0, 1]");
+  }
+  const oneSide = alpha / sides;
+  const { boundaries } = walk(
+    fractions.length,
+    sides,
+    0,
+    (k, upperGiven) => {
+      const increment = spentByTime(kind, oneSide, fractions[k - 1]) - (k > 1 ? spentByTime(kind, oneSide, fractions[k - 2]) : 0);
+      if (increment <= 1e-30) return NEVER2;
+      return findRoot((b) => upperGiven(b) - increment, 0, NEVER2, 1e-12) ?? NEVER2;
+    },
+    fractions
+  );
+  return ok(boundaries[boundaries.length - 1]);
 }
 function checkDesign(design) {
   if (!Number.isInteger(design.looks) || design.looks < 1 || design.looks > 30) return fail("interim-looks", `between 0 and 29 interim looks are supported; got ${design.looks - 1}`);
@@ -36265,6 +36288,43 @@ function integrateInflation(design, power) {
   const inflation = (eta / fixed) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
+
+// src/core/plan/outcome.ts
+var OUTCOME_CLASSES = ["win", "loss", "flat", "inconclusive", "guardrail-breach"];
+var outcomeClass = external_exports.enum(OUTCOME_CLASSES, { error: `one of ${OUTCOME_CLASSES.join(", ")}` });
+var figure = external_exports.strictObject(
+  {
+    arm: kebabName("the treatment arm, e.g. treatment"),
+    metric: kebabName("the metric name, e.g. order-completed"),
+    difference: finiteNumber("the absolute difference, treatment minus control, in the metric\u2019s units"),
+    low: finiteNumber("the lower end of the interval of the difference"),
+    high: finiteNumber("the upper end of the interval of the difference"),
+    relative: finiteNumber("the relative difference as a fraction, e.g. 0.011").optional(),
+    "p-value": external_exports.number({ error: "a p-value from 0 to 1" }).gte(0, { error: "a p-value from 0 to 1" }).lte(1, { error: "a p-value from 0 to 1" })
+  },
+  { error: "a figure: { arm, metric, difference, low, high, relative, p-value }" }
+).describe("The primary metric\u2019s figures for one treatment arm.");
+var outcomeSchema = external_exports.strictObject(
+  {
+    class: outcomeClass.describe("The class the registered rule gave, as computed by the readout."),
+    arms: external_exports.array(kebabName("an arm name, e.g. treatment"), { error: "a list of arm names" }).default([]).describe("The arms the class names (the winners of a win)."),
+    "data-through": calendarDate("the last day of the data read, written YYYY-MM-DD"),
+    totals: text("the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml").optional(),
+    "read-early": external_exports.boolean({ error: "true or false" }).optional().describe("True when the data ended before the planned end."),
+    figures: external_exports.array(figure, { error: "a list of figures" }).default([]).describe("The primary metric\u2019s figures per treatment arm."),
+    "decided-by": text("who decided, e.g. @ana-lima"),
+    "recorded-on": calendarDate("the day the outcome was recorded, written YYYY-MM-DD").optional(),
+    override: external_exports.strictObject(
+      {
+        class: outcomeClass.optional().describe("The class acted on instead of the computed one."),
+        ship: external_exports.array(kebabName("an arm name"), { error: "a list of arm names" }).optional().describe("The arms shipped, when the rule does not name them."),
+        reason: text("why the team departs from the registered rule")
+      },
+      { error: "a mapping with class, ship and reason" }
+    ).optional().describe("A decision that departs from the registered rule, with its reason; reviewers judge it first.")
+  },
+  { error: "an outcome: a mapping with class, data-through, figures and decided-by" }
+).describe("The recorded outcome of the test: written by plumbline readout --record after the readout.");
 
 // src/core/plan/schema.ts
 var PLAN_STATES = ["draft", "live", "on-hold", "concluded"];
@@ -36496,7 +36556,8 @@ var writtenPlanSchema = external_exports.strictObject({
   "bundle-rationale": optionalText("why several changes or flags are tested together").describe(
     "Required when the plan bundles several flags or changes."
   ),
-  notes: optionalText("free text")
+  notes: optionalText("free text"),
+  outcome: outcomeSchema.optional()
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
 function normalizeMetric(written, fallbackDirection) {
   const { direction: direction2, ...rest } = written;
@@ -36566,7 +36627,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     },
     sensitive: written.sensitive,
     ...written["bundle-rationale"] ? { bundleRationale: written["bundle-rationale"] } : {},
-    ...written.notes ? { notes: written.notes } : {}
+    ...written.notes ? { notes: written.notes } : {},
+    ...written.outcome ? { outcome: written.outcome } : {}
   };
 });
 
@@ -36997,9 +37059,9 @@ function compiles(pattern) {
     return false;
   }
 }
-var callPattern = (group, example) => {
-  const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
+var callPattern = (group2, example) => {
+  const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
+  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
 };
 var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
@@ -37305,15 +37367,15 @@ var armsAreDistinct = ({ value: plan, report }) => {
   }
 };
 var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group = plan.surface.exclusionGroup;
-  if (!group) return;
-  const width = group.slice.to - group.slice.from;
+  const group2 = plan.surface.exclusionGroup;
+  if (!group2) return;
+  const width = group2.slice.to - group2.slice.from;
   if (width <= 0) {
     report({
       severity: "error",
       code: "plan/empty-slice",
       path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
+      message: `the slice from ${group2.slice.from}% to ${group2.slice.to}% holds no units`,
       expected: "from below to, e.g. { from: 0, to: 50 }"
     });
   } else if (plan.design.trafficShare > width / 100 + 1e-9) {
@@ -37885,7 +37947,7 @@ function windowLine(sizing, context2) {
   return "Planned window: not set, so power and detectable effect at the end are not computed.";
 }
 function renderSizingText(sizing, context2) {
-  const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
   const traffic = sizing.dailyUnits === void 0 ? "No daily-units given, so no durations." : "";
   const notes = notesOf(sizing);
   return [
@@ -37894,7 +37956,7 @@ function renderSizingText(sizing, context2) {
     windowLine(sizing, context2),
     ...traffic ? [traffic] : [],
     "",
-    table,
+    table2,
     ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
   ].join("\n");
 }
@@ -37919,7 +37981,7 @@ function markdownCell(text2) {
   return text2.replace(/\|/g, "\\|");
 }
 function renderSizingMarkdown(sizing, context2) {
-  const table = [
+  const table2 = [
     `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
     `| ${HEADER.map(() => "---").join(" | ")} |`,
     ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
@@ -37932,7 +37994,7 @@ function renderSizingMarkdown(sizing, context2) {
     "",
     [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
     "",
-    ...table,
+    ...table2,
     ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
     ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
     ""
@@ -38360,18 +38422,22 @@ function sizePlan(plan) {
   };
 }
 
+// src/run/find-plan.ts
+function findNamedPlan(workspace, name, then) {
+  const wanted = name.replace(/^\.\//, "");
+  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  if (found) return found;
+  const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
+  if (broken.length) throw new UsageError(`${wanted} has errors:
+${broken.map(formatProblem).join("\n")}`, `fix them, then ${then} again`);
+  const known = workspace.plans.map((p) => p.plan.id);
+  throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
+}
+
 // src/run/size.ts
 async function sizeNamedPlan(options) {
   const workspace = await requireWorkspace(options);
-  const wanted = options.plan.replace(/^\.\//, "");
-  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
-  if (!found) {
-    const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
-    if (broken.length) throw new UsageError(`${wanted} has errors:
-${broken.map(formatProblem).join("\n")}`, "fix them, then size again");
-    const known = workspace.plans.map((p) => p.plan.id);
-    throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
-  }
+  const found = findNamedPlan(workspace, options.plan, "size");
   const { plan } = found;
   return {
     sizing: sizePlan(plan),
@@ -38402,7 +38468,7 @@ import { spawn } from "node:child_process";
 import { closeSync, fstatSync, openSync, readSync } from "node:fs";
 import { join as join2 } from "node:path";
 function runGit(cwd, args, options = {}) {
-  return new Promise((resolve3, reject) => {
+  return new Promise((resolve4, reject) => {
     const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
       cwd,
       stdio: ["pipe", "pipe", "pipe"]
@@ -38416,7 +38482,7 @@ function runGit(cwd, args, options = {}) {
       (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
     );
     child.on("close", (code) => {
-      if (code === 0 || options.allow?.includes(code ?? -1)) resolve3(Buffer.concat(out));
+      if (code === 0 || options.allow?.includes(code ?? -1)) resolve4(Buffer.concat(out));
       else {
         const stderr = Buffer.concat(err).toString("utf8").trim();
         reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
@@ -38457,12 +38523,12 @@ async function openChange(repoDir, baseRef, headRef) {
   const trackedCache = /* @__PURE__ */ new Map();
   const trackedFiles = (side) => {
     const commit = commitOf(side);
-    let cached3 = trackedCache.get(commit);
-    if (!cached3) {
-      cached3 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
-      trackedCache.set(commit, cached3);
+    let cached4 = trackedCache.get(commit);
+    if (!cached4) {
+      cached4 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
+      trackedCache.set(commit, cached4);
     }
-    return cached3;
+    return cached4;
   };
   const streamFiles = async (side, paths, onFile) => {
     if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
@@ -38519,7 +38585,7 @@ function parseNameStatus(out) {
 function catFiles(cwd, commit, paths, onFile) {
   const asked = paths.filter((p) => !p.includes("\n"));
   if (asked.length === 0) return Promise.resolve();
-  return new Promise((resolve3, reject) => {
+  return new Promise((resolve4, reject) => {
     const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
     let index = 0;
     let pending = Buffer.alloc(0);
@@ -38550,7 +38616,7 @@ function catFiles(cwd, commit, paths, onFile) {
     child.stderr.on("data", (chunk) => err.push(chunk));
     child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
     child.on("close", (code) => {
-      if (code === 0) resolve3();
+      if (code === 0) resolve4();
       else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
     });
     child.stdin.on("error", () => void 0);
@@ -39322,10 +39388,10 @@ function findFlagTouches(inputs) {
         for (const pattern of inputs.patterns) {
           pattern.lastIndex = 0;
           for (const match of text2.matchAll(pattern)) {
-            const groups = match.groups ?? {};
-            if (groups.key) add({ key: groups.key, file: file2, line, side, via: "call" });
-            else if (groups.ident) {
-              const key = resolveConstant(inputs.textOf(side, file2), groups.ident);
+            const groups2 = match.groups ?? {};
+            if (groups2.key) add({ key: groups2.key, file: file2, line, side, via: "call" });
+            else if (groups2.ident) {
+              const key = resolveConstant(inputs.textOf(side, file2), groups2.ident);
               if (key) add({ key, file: file2, line, side, via: "constant" });
             }
           }
@@ -39724,7 +39790,7 @@ function renderReviewText(review, options) {
     clear: style.green("all clear"),
     "nothing-to-check": style.green("nothing to check")
   }[review.verdict];
-  const n = (count2, noun) => `${count2} ${noun}${count2 === 1 ? "" : "s"}`;
+  const n = (count3, noun) => `${count3} ${noun}${count3 === 1 ? "" : "s"}`;
   out.push(`${style.bold("Plumbline")}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, "warning")}, ${n(review.counts.note, "note")}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
   if (review.verdict === "nothing-to-check") {
     out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
@@ -40133,13 +40199,13 @@ function renderSrmText(check2, observed, weights, threshold) {
   const verdict = check2.mismatch ? `Sample ratio mismatch: p = ${formatP(check2.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check2.pValue)} (alarm below ${threshold}).`;
   return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check2.statistic.toFixed(3)} on ${check2.degreesOfFreedom} df. ${verdict}`].join("\n");
 }
-function renderAdjustedText(pValues, bh, bonferroni, q) {
-  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni[i]), bonferroni[i] <= q ? "yes" : "no"]);
+function renderAdjustedText(pValues, bh, bonferroni2, q) {
+  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni2[i]), bonferroni2[i] <= q ? "yes" : "no"]);
   const found = (list2) => list2.filter((x) => x <= q).length;
   return [
     formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
     "",
-    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni)}.`
+    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni2)}.`
   ].join("\n");
 }
 
@@ -40182,12 +40248,1117 @@ function bonferroniAdjust(pValues) {
 // src/version.ts
 var VERSION = "0.1.0";
 
+// src/cli/readout-command.ts
+import { resolve as resolve2 } from "node:path";
+
+// src/core/report/readout-figures.ts
+var VERDICT_LABEL = {
+  win: "win",
+  loss: "loss",
+  flat: "flat",
+  inconclusive: "inconclusive",
+  "guardrail-breach": "guardrail breach",
+  "not-read": "not read"
+};
+function formatP2(p) {
+  if (p < 1e-12) return "< 1e-12";
+  return p < 1e-3 ? p.toExponential(1) : p.toFixed(3);
+}
+function sig(x, digits = 3) {
+  if (x === 0) return "0";
+  const text2 = Math.abs(x) < 1e-3 ? x.toExponential(2) : Number(x.toPrecision(digits)).toLocaleString("en-US", { maximumFractionDigits: 8 });
+  return x > 0 ? `+${text2}` : text2;
+}
+function metricValue(read, value) {
+  return read.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function metricDifference(read, value) {
+  return read.kind === "proportion" ? `${sig(value * 100)} pp` : sig(value, 4);
+}
+function intervalOf(read, interval) {
+  const ends = read.kind === "proportion" ? [interval.low * 100, interval.high * 100] : [interval.low, interval.high];
+  return `[${sig(ends[0])}, ${sig(ends[1])}]`;
+}
+function relativeText(value) {
+  return `${sig(value * 100)}%`;
+}
+function armCells(read, arm2) {
+  const c = arm2.comparison;
+  if (!c) return [arm2.arm, "\u2014", "\u2014", `not computed: ${arm2.reason ?? "no data"}`, "", "", ""];
+  const relative2 = c.relative ? `${relativeText(c.relative.value)} [${relativeText(c.relative.interval.low)}, ${relativeText(c.relative.interval.high)}]` : "none (control is 0)";
+  return [
+    arm2.arm,
+    `${metricValue(read, c.control.value)} (n ${formatCount(c.control.n)})`,
+    `${metricValue(read, c.treatment.value)} (n ${formatCount(c.treatment.n)})`,
+    `${metricDifference(read, c.difference)} ${intervalOf(read, c.interval)}`,
+    relative2,
+    formatP2(c.pValue),
+    arm2.adjustedP !== void 0 ? formatP2(arm2.adjustedP) : formatP2(c.pValue)
+  ];
+}
+function confidenceOf(read) {
+  const c = read.arms.find((a) => a.comparison)?.comparison;
+  return c ? `${Number((c.confidence * 100).toPrecision(4))}%` : "";
+}
+function guardrailClassText(arm2, read) {
+  if (!arm2.guardrailClass || !arm2.harm) return "not computed";
+  const bound = `harm at most ${metricDifference(read, arm2.harm.upperBound)}`;
+  const tolerance = read.tolerance !== void 0 ? ` (tolerance ${metricDifference(read, read.tolerance).replace(/^\+/, "")})` : " (no tolerance registered)";
+  if (arm2.guardrailClass === "breach") return `BREACH: harm is significant; ${bound}`;
+  if (arm2.guardrailClass === "harm-ruled-out") return `harm ruled out: ${bound}${tolerance}`;
+  return `harm not ruled out: ${bound}${tolerance}`;
+}
+function ruleLine(readout) {
+  const arms = readout.verdictArms.length && readout.treatments.length > 1 ? ` (${readout.verdictArms.join(", ")})` : "";
+  return { label: VERDICT_LABEL[readout.verdict], arms, ...readout.decision ? { quote: readout.decision.text } : {} };
+}
+function srmLine(readout) {
+  const srm = readout.srm;
+  if (!srm) return void 0;
+  const split = srm.arms.map((a) => formatCount(a.units)).join(" / ");
+  const weights = srm.arms.map((a) => formatValue(a.weight)).join(" / ");
+  const days = srm.daysChecked ? `; ${srm.daysChecked} days checked, ${srm.days.length} alarmed` : "";
+  return `Sample ratio: ${split} units against weights ${weights}: chi-square ${srm.statistic.toFixed(2)} on ${srm.degreesOfFreedom} df, p = ${formatP2(srm.pValue)}, ${srm.mismatch ? "MISMATCH" : "no mismatch"} (alarm below ${srm.threshold})${days}.`;
+}
+function timingLine(readout) {
+  const t = readout.timing;
+  const end = t.plannedEnd ? `planned end ${t.plannedEnd}` : "no planned end";
+  const fraction = t.informationFraction !== void 0 ? `; ${formatCount(Object.values(readout.srm?.arms ?? []).reduce((s, a) => s + a.units, 0))} units, ${Math.round(t.informationFraction * 100)}% of the ${formatCount(t.plannedUnits)} planned` : "";
+  return `Data through ${t.dataThrough} (${end}${t.readEarly ? ", READ EARLY" : ""})${fraction}.`;
+}
+function primaryClassText(arm2) {
+  return arm2.primaryClass ?? "not computed";
+}
+
+// src/core/report/readout-markdown.ts
+var HEADER2 = ["arm", "control", "treatment", "difference [CI]", "relative [CI]", "p", "adjusted p"];
+function table(header, rows2) {
+  return [`| ${header.join(" | ")} |`, `| ${header.map(() => "---").join(" | ")} |`, ...rows2.map((r) => `| ${r.map(safeCell).join(" | ")} |`)];
+}
+function metricTitle(read, what) {
+  const segment = read.segment !== void 0 ? ` in \u201C${safeText(read.segment)}\u201D` : "";
+  const cuped = read.cuped ? `; CUPED \u03B8 ${read.cuped.theta.toPrecision(3)}, variance \u2212${Math.round(read.cuped.varianceReduction * 100)}%` : "";
+  return `**${what}: ${codeSpan(read.metric)}${segment}** (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${cuped})`;
+}
+function renderReadoutMarkdown(readout) {
+  const rule = ruleLine(readout);
+  const quote = rule.quote ? `: \xAB${safeText(rule.quote)}\xBB` : readout.verdict === "not-read" ? "" : " (the plan registers no decision for this)";
+  const lines = [
+    `### Readout of ${codeSpan(readout.planId)}: ${safeText(readout.title)}`,
+    "",
+    `Rule applied: **${rule.label}**${safeText(rule.arms)}${quote}`,
+    "",
+    `${timingLine(readout)} Plan as launched: ${codeSpan(readout.planCommit)}.`
+  ];
+  const blocking = readout.findings.filter((f) => f.severity === "block");
+  if (blocking.length) lines.push("", ...blocking.map((f) => `- :no_entry: ${safeText(f.message)}`));
+  const srm = srmLine(readout);
+  if (srm) lines.push("", srm);
+  if (readout.verdict === "not-read") {
+    lines.push("", "Metrics are withheld: with a sample ratio mismatch no difference between the arms can be trusted.");
+    return `${lines.join("\n")}
+`;
+  }
+  lines.push("", metricTitle(readout.primary, "Primary"), "", ...table([...HEADER2, "class"], readout.primary.arms.map((a) => [...armCells(readout.primary, a), primaryClassText(a)])));
+  if (readout.primary.minDetectableEffect !== void 0) lines.push("", `Minimum detectable effect: \xB1${metricDifference(readout.primary, readout.primary.minDetectableEffect).replace(/^\+/, "")}.`);
+  for (const g of readout.guardrails) {
+    lines.push("", metricTitle(g, "Guardrail (non-inferiority, one-sided)"), "", ...table([...HEADER2, "class"], g.arms.map((a) => [...armCells(g, a), guardrailClassText(a, g)])));
+  }
+  const exploratory = [...readout.secondary, ...readout.segments];
+  if (exploratory.length) {
+    lines.push("", "<details><summary>Exploratory: secondary metrics and segments (Benjamini\u2013Hochberg across them); leads to confirm, not results</summary>");
+    for (const m of exploratory) {
+      lines.push("", metricTitle(m, m.role === "segment" ? "Segment" : "Secondary"), "", ...table([...HEADER2, "signal"], m.arms.map((a) => [...armCells(m, a), a.exploratorySignal ? "lead" : "\u2014"])));
+    }
+    lines.push("", "</details>");
+  }
+  const others = readout.findings.filter((f) => f.severity !== "block");
+  if (others.length) lines.push("", ...others.map((f) => `- ${f.severity === "warn" ? ":warning:" : ":information_source:"} ${safeText(f.message)}`));
+  return `${lines.join("\n")}
+`;
+}
+
+// src/core/report/readout-text.ts
+var HEADER3 = ["ARM", "CONTROL", "TREATMENT", "DIFFERENCE [CI]", "RELATIVE [CI]", "P", "ADJUSTED P"];
+function metricTitle2(read, what) {
+  return `${what}: ${terminalSafe(read.metric)}${read.segment !== void 0 ? ` in "${terminalSafe(read.segment)}"` : ""} (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${read.cuped ? `; CUPED \u03B8 ${read.cuped.theta.toPrecision(3)}, variance \u2212${Math.round(read.cuped.varianceReduction * 100)}%` : ""})`;
+}
+function renderReadoutText(readout, options) {
+  const style = terminalStyle(options.color);
+  const rule = ruleLine(readout);
+  const colour = readout.verdict === "win" ? style.green : readout.verdict === "inconclusive" || readout.verdict === "flat" ? style.yellow : style.red;
+  const lines = [
+    style.bold(`Readout of ${terminalSafe(readout.planId)}: ${terminalSafe(readout.title)}`),
+    `${timingLine(readout)} Plan as launched: ${terminalSafe(readout.planCommit)}.`,
+    "",
+    `Rule applied: ${colour(style.bold(rule.label))}${terminalSafe(rule.arms)}${rule.quote ? `: \xAB${terminalSafe(rule.quote)}\xBB` : readout.verdict === "not-read" ? "" : " (the plan registers no decision for this)"}`
+  ];
+  const blocking = readout.findings.filter((f) => f.severity === "block");
+  const others = readout.findings.filter((f) => f.severity !== "block");
+  if (blocking.length) lines.push("", ...blocking.map((f) => `${style.red("BLOCK")} ${terminalSafe(f.message)}`));
+  const srm = srmLine(readout);
+  if (srm) lines.push("", srm);
+  if (readout.verdict === "not-read") {
+    lines.push("", "Metrics are withheld: with a sample ratio mismatch no difference between the arms can be trusted.");
+    return lines.join("\n");
+  }
+  lines.push("", style.bold(metricTitle2(readout.primary, "Primary")));
+  lines.push(formatTable([...HEADER3, "CLASS"], readout.primary.arms.map((a) => [...armCells(readout.primary, a), primaryClassText(a)])));
+  if (readout.primary.minDetectableEffect !== void 0) lines.push(`Minimum detectable effect: \xB1${metricDifference(readout.primary, readout.primary.minDetectableEffect).replace(/^\+/, "")}.`);
+  for (const g of readout.guardrails) {
+    lines.push("", style.bold(metricTitle2(g, "Guardrail (non-inferiority, one-sided)")));
+    lines.push(formatTable([...HEADER3, "CLASS"], g.arms.map((a) => [...armCells(g, a), guardrailClassText(a, g)])));
+  }
+  const exploratory = [...readout.secondary, ...readout.segments];
+  if (exploratory.length) {
+    lines.push("", style.bold("Exploratory (secondary metrics and segments; Benjamini\u2013Hochberg across them): leads to confirm, not results"));
+    for (const m of exploratory) {
+      lines.push("", metricTitle2(m, m.role === "segment" ? "Segment" : "Secondary"));
+      lines.push(formatTable([...HEADER3, "SIGNAL"], m.arms.map((a) => [...armCells(m, a), a.exploratorySignal ? "lead" : "\u2014"])));
+    }
+  }
+  if (others.length) lines.push("", ...others.map((f) => `${f.severity === "warn" ? style.yellow("WARN") : style.dim("NOTE")}  ${terminalSafe(f.message)}`));
+  return lines.join("\n");
+}
+
+// src/core/plan/record-outcome.ts
+var import_yaml3 = __toESM(require_dist(), 1);
+var DIGITS = 6;
+var round = (x) => Number(x.toPrecision(DIGITS));
+function recordOutcome(planText, readout, request) {
+  if (readout.verdict === "not-read") return { ok: false, reason: "a readout with a sample ratio mismatch has no outcome to record: find the cause first" };
+  const doc = (0, import_yaml3.parseDocument)(planText, { keepSourceTokens: false });
+  if (doc.errors.length || !(0, import_yaml3.isMap)(doc.contents)) return { ok: false, reason: "the plan is not a YAML mapping that can be edited" };
+  const previous = doc.getIn(["outcome", "override"], true);
+  const figures = readout.primary.arms.flatMap((a) => {
+    const c = a.comparison;
+    if (!c) return [];
+    return [
+      {
+        arm: a.arm,
+        metric: readout.primary.metric,
+        difference: round(c.difference),
+        low: round(c.interval.low),
+        high: round(c.interval.high),
+        ...c.relative ? { relative: round(c.relative.value) } : {},
+        "p-value": round(a.adjustedP ?? c.pValue)
+      }
+    ];
+  });
+  const outcome = {
+    class: readout.verdict,
+    arms: readout.verdictArms,
+    "data-through": readout.dataThrough,
+    totals: request.totalsFile,
+    ...readout.timing.readEarly ? { "read-early": true } : {},
+    figures,
+    "decided-by": request.decidedBy,
+    "recorded-on": request.recordedOn
+  };
+  const node2 = doc.createNode(outcome);
+  for (const key of ["arms", "figures"]) {
+    const list2 = node2.get(key, true);
+    if (key === "arms" && list2) list2.flow = true;
+    if (key === "figures") for (const item of list2?.items ?? []) item.flow = true;
+  }
+  if (previous) node2.set("override", previous);
+  doc.setIn(["outcome"], node2);
+  const text2 = doc.toString({ lineWidth: 0 });
+  return { ok: true, text: text2 };
+}
+
+// src/core/readout/combine.ts
+function addTotals(parts) {
+  const [first, ...rest] = parts;
+  if (!first || rest.some((p) => p.kind !== first.kind)) return void 0;
+  if (first.kind === "ratio") {
+    const ratios = parts;
+    const sum = (pick2) => ratios.reduce((s, r) => s + pick2(r), 0);
+    return {
+      kind: "ratio",
+      n: sum((r) => r.n),
+      numerator: { sum: sum((r) => r.numerator.sum), sumSquares: sum((r) => r.numerator.sumSquares) },
+      denominator: { sum: sum((r) => r.denominator.sum), sumSquares: sum((r) => r.denominator.sumSquares) },
+      sumProducts: sum((r) => r.sumProducts)
+    };
+  }
+  const simple = parts;
+  return {
+    kind: first.kind,
+    n: simple.reduce((s, p) => s + p.n, 0),
+    sum: simple.reduce((s, p) => s + p.sum, 0),
+    sumSquares: simple.reduce((s, p) => s + p.sumSquares, 0)
+  };
+}
+
+// src/core/readout/compare.ts
+var NORMAL_DF = 1e7;
+function welchDf(control, treatment) {
+  if (control.df === void 0 || treatment.df === void 0) return void 0;
+  const vc = control.variance;
+  const vt = treatment.variance;
+  const denominator = vc * vc / control.df + vt * vt / treatment.df;
+  if (!(denominator > 0)) return void 0;
+  return Math.min(NORMAL_DF, (vc + vt) * (vc + vt) / denominator);
+}
+function compareArms(control, treatment, settings) {
+  const difference = treatment.value - control.value;
+  const standardError = Math.sqrt(control.variance + treatment.variance);
+  if (!(standardError > 0) || !Number.isFinite(standardError)) return { ok: false, reason: "no variation in either arm, so there is no interval to compute" };
+  const df = settings.boundaryZ === void 0 ? welchDf(control, treatment) : void 0;
+  const level = 1 - settings.alpha / settings.sides;
+  const critical = settings.boundaryZ ?? (df !== void 0 ? studentQuantile(level, df) : normalQuantile(level));
+  const statistic = difference / standardError;
+  const upper = (x) => df !== void 0 ? studentUpper(x, df) : normalUpper(x);
+  const pValue = settings.sides === 2 ? Math.min(1, 2 * upper(Math.abs(statistic))) : upper(settings.direction === "increase" ? statistic : -statistic);
+  const comparison = {
+    control,
+    treatment,
+    difference,
+    standardError,
+    interval: { low: difference - critical * standardError, high: difference + critical * standardError },
+    statistic,
+    ...df !== void 0 ? { df } : {},
+    pValue,
+    critical,
+    confidence: 1 - 2 * settings.alpha / settings.sides
+  };
+  if (control.value !== 0) {
+    const mc = control.value;
+    const relativeSe = Math.sqrt(treatment.variance / (mc * mc) + treatment.value * treatment.value * control.variance / mc ** 4);
+    const z2 = settings.boundaryZ ?? normalQuantile(level);
+    const value = difference / Math.abs(mc);
+    if (Number.isFinite(relativeSe) && Number.isFinite(value)) {
+      comparison.relative = { value, standardError: relativeSe, interval: { low: value - z2 * relativeSe, high: value + z2 * relativeSe } };
+    }
+  }
+  return { ok: true, comparison };
+}
+
+// src/core/readout/estimate.ts
+function sampleVariance(n, sum, sumSquares) {
+  return Math.max(0, (sumSquares - sum * sum / n) / (n - 1));
+}
+function sampleCovariance(n, sumA, sumB, sumProducts) {
+  return (sumProducts - sumA * sumB / n) / (n - 1);
+}
+function estimateArm(totals, cuped) {
+  if (totals.n < 2) return { ok: false, reason: `only ${totals.n} units: at least 2 per arm are needed` };
+  const n = totals.n;
+  if (totals.kind === "ratio") {
+    const x = totals.denominator;
+    const y = totals.numerator;
+    if (!(x.sum > 0)) return { ok: false, reason: "the denominator sums to 0: the ratio is undefined" };
+    const ratio = y.sum / x.sum;
+    const meanX = x.sum / n;
+    const variance2 = (sampleVariance(n, y.sum, y.sumSquares) - 2 * ratio * sampleCovariance(n, x.sum, y.sum, totals.sumProducts) + ratio * ratio * sampleVariance(n, x.sum, x.sumSquares)) / (n * meanX * meanX);
+    return { ok: true, estimate: { n, value: ratio, variance: Math.max(0, variance2) } };
+  }
+  const mean = totals.sum / n;
+  const df = totals.kind === "mean" ? { df: n - 1 } : {};
+  if (cuped && totals.pre) {
+    const pre = totals.pre;
+    const theta = cuped.theta;
+    const adjusted = mean - theta * (pre.sum / n - cuped.pooledPreMean);
+    const variance2 = sampleVariance(n, totals.sum, totals.sumSquares) - 2 * theta * sampleCovariance(n, totals.sum, pre.sum, pre.sumProducts) + theta * theta * sampleVariance(n, pre.sum, pre.sumSquares);
+    return { ok: true, estimate: { n, value: adjusted, variance: Math.max(0, variance2) / n, ...df } };
+  }
+  const variance = totals.kind === "proportion" ? mean * (1 - mean) / n : sampleVariance(n, totals.sum, totals.sumSquares) / n;
+  return { ok: true, estimate: { n, value: mean, variance, ...df } };
+}
+function cupedAdjustment(arms) {
+  if (arms.some((a) => !a.pre)) return void 0;
+  const n = arms.reduce((s, a) => s + a.n, 0);
+  const sumY = arms.reduce((s, a) => s + a.sum, 0);
+  const sumYY = arms.reduce((s, a) => s + a.sumSquares, 0);
+  const sumP = arms.reduce((s, a) => s + a.pre.sum, 0);
+  const sumPP = arms.reduce((s, a) => s + a.pre.sumSquares, 0);
+  const sumYP = arms.reduce((s, a) => s + a.pre.sumProducts, 0);
+  if (n < 3) return void 0;
+  const varP = sampleVariance(n, sumP, sumPP);
+  const varY = sampleVariance(n, sumY, sumYY);
+  if (!(varP > 0) || !(varY > 0)) return void 0;
+  const cov = sampleCovariance(n, sumY, sumP, sumYP);
+  const theta = cov / varP;
+  return { theta, pooledPreMean: sumP / n, varianceReduction: Math.min(1, cov * cov / (varP * varY)) };
+}
+
+// src/core/readout/timing.ts
+function plannedMaximumUnits(plan) {
+  const primary = sizePlan(plan).metrics.find((m) => m.role === "primary");
+  if (primary?.result.ok && primary.result.value.headline) return primary.result.value.headline.totalUnits;
+  return void 0;
+}
+function readoutTiming(plan, dataThrough, unitsSeen, alphaPerComparison) {
+  const plannedEnd = plan.window.end;
+  const readEarly = plannedEnd !== void 0 && dataThrough < plannedEnd;
+  const plannedUnits = plannedMaximumUnits(plan);
+  const fraction = plannedUnits ? unitsSeen / plannedUnits : void 0;
+  const timing = {
+    ...plannedEnd ? { plannedEnd } : {},
+    dataThrough,
+    readEarly,
+    ...fraction !== void 0 && Number.isFinite(fraction) ? { informationFraction: fraction, plannedUnits } : {}
+  };
+  const looks = plan.design.interimLooks + 1;
+  if (!readEarly || looks === 1) return timing;
+  const { interimBoundary: kind, sides } = plan.design;
+  const t = Math.min(1, fraction ?? 1);
+  const planned = Array.from({ length: looks }, (_, i) => (i + 1) / looks);
+  let z2;
+  let look = looks;
+  if ((kind === "obrien-fleming-spending" || kind === "pocock-spending") && t > 0) {
+    const earlier = planned.filter((p) => p < t - 1e-9);
+    look = earlier.length + 1;
+    const boundary = spendingBoundaryAt(kind, alphaPerComparison, sides, [...earlier, t]);
+    if (boundary.ok) z2 = boundary.value;
+  } else {
+    const bounds = sequentialBoundaries({ kind, looks, alpha: alphaPerComparison, sides });
+    look = Math.max(1, Math.min(looks, Math.floor(t * looks + 1e-9)));
+    if (bounds.ok) z2 = bounds.value.z[look - 1];
+  }
+  if (z2 === void 0 || !Number.isFinite(z2)) return timing;
+  return { ...timing, boundary: { z: z2, nominalP: sides * normalUpper(z2), look, looks } };
+}
+
+// src/core/readout/build-readout.ts
+var NOVELTY_P = 0.01;
+var LOW_POWER = 0.5;
+function resolveThreshold(effect, controlValue) {
+  if (!effect) return void 0;
+  if (effect.absolute !== void 0) return effect.absolute;
+  if (effect.relative !== void 0 && controlValue !== void 0 && controlValue !== 0) return effect.relative * Math.abs(controlValue);
+  return void 0;
+}
+function metricTotalsOf(groups2, metric2) {
+  return Object.fromEntries(Object.entries(groups2).map(([arm2, g]) => [arm2, g?.metrics[metric2]]));
+}
+function readMetric(ctx, metric2, role, byArm, settings, segment) {
+  const controlTotals = byArm[ctx.control];
+  if (!controlTotals) return void 0;
+  let cuped;
+  if (settings.useCuped && controlTotals.kind !== "ratio") {
+    const all = [ctx.control, ...ctx.treatments].map((a) => byArm[a]);
+    if (all.every((t) => t !== void 0 && t.kind !== "ratio")) cuped = cupedAdjustment(all);
+  }
+  const controlEstimate = estimateArm(controlTotals, cuped);
+  const controlValue = controlEstimate.ok ? controlEstimate.estimate.value : void 0;
+  const arms = ctx.treatments.flatMap((arm2) => {
+    const totals = byArm[arm2];
+    if (!totals) return role === "segment" ? [] : [{ arm: arm2, ok: false, reason: `no totals for arm "${arm2}"` }];
+    const treatment = estimateArm(totals, cuped);
+    if (!controlEstimate.ok) return [{ arm: arm2, ok: false, reason: `control: ${controlEstimate.reason}` }];
+    if (!treatment.ok) return [{ arm: arm2, ok: false, reason: treatment.reason }];
+    const compared = compareArms(controlEstimate.estimate, treatment.estimate, {
+      alpha: settings.alpha,
+      sides: settings.sides,
+      direction: settings.direction,
+      ...settings.boundaryZ !== void 0 ? { boundaryZ: settings.boundaryZ } : {}
+    });
+    return [compared.ok ? { arm: arm2, ok: true, comparison: compared.comparison } : { arm: arm2, ok: false, reason: compared.reason }];
+  });
+  if (arms.length === 0) return void 0;
+  return {
+    metric: metric2.name,
+    kind: metric2.kind,
+    role,
+    ...segment !== void 0 ? { segment } : {},
+    direction: metric2.direction,
+    ...cuped ? { cuped: { theta: cuped.theta, varianceReduction: cuped.varianceReduction } } : {},
+    arms
+  };
+}
+function good(direction2) {
+  return direction2 === "increase" ? 1 : -1;
+}
+function classifyPrimary(read, mde, early) {
+  const s = good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const lowGood = s === 1 ? c.interval.low : -c.interval.high;
+    const highGood = s === 1 ? c.interval.high : -c.interval.low;
+    if (lowGood > 0) arm2.primaryClass = "win";
+    else if (highGood < 0) arm2.primaryClass = "loss";
+    else if (!early && mde !== void 0 && c.interval.low > -mde && c.interval.high < mde) arm2.primaryClass = "flat";
+    else arm2.primaryClass = "inconclusive";
+  }
+}
+function classifyGuardrail(read, tolerance) {
+  const harmSign = -good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const estimate = harmSign * c.difference;
+    const lower = harmSign === 1 ? c.interval.low : -c.interval.high;
+    const upper = harmSign === 1 ? c.interval.high : -c.interval.low;
+    arm2.harm = { estimate, upperBound: upper };
+    arm2.guardrailClass = lower > 0 ? "breach" : tolerance !== void 0 && upper < tolerance ? "harm-ruled-out" : "harm-not-ruled-out";
+  }
+}
+function bonferroni(read, k) {
+  for (const arm2 of read.arms) if (arm2.comparison) arm2.adjustedP = Math.min(1, arm2.comparison.pValue * k);
+}
+function checkSampleRatio(ctx) {
+  const arms = [ctx.control, ...ctx.treatments];
+  const weights = arms.map((a) => ctx.plan.design.arms.find((p) => p.name === a).weight);
+  const units2 = arms.map((a) => ctx.totals.arms[a]?.units ?? 0);
+  const overall = sampleRatioMismatch(units2, weights, SRM_ALARM_P);
+  if (!overall.ok) return void 0;
+  const dates = [...new Set(arms.flatMap((a) => (ctx.totals.arms[a]?.days ?? []).map((d) => d.date)))].sort();
+  const days = [];
+  let daysChecked = 0;
+  for (const date5 of dates) {
+    const counts = arms.map((a) => ctx.totals.arms[a]?.days.find((d) => d.date === date5)?.units);
+    if (counts.some((c) => c === void 0)) continue;
+    const check2 = sampleRatioMismatch(counts, weights, SRM_ALARM_P);
+    if (!check2.ok) continue;
+    daysChecked++;
+    if (check2.value.mismatch) days.push({ date: date5, units: counts, pValue: check2.value.pValue });
+  }
+  return {
+    threshold: SRM_ALARM_P,
+    arms: arms.map((arm2, i) => ({ arm: arm2, weight: weights[i], units: units2[i], expected: overall.value.expected[i] })),
+    statistic: overall.value.statistic,
+    degreesOfFreedom: overall.value.degreesOfFreedom,
+    pValue: overall.value.pValue,
+    mismatch: overall.value.mismatch,
+    days,
+    daysChecked
+  };
+}
+function noveltyCheck(ctx, metric2) {
+  const findings = [];
+  const weeksOf = (arm2) => [...ctx.totals.arms[arm2]?.weeks ?? []].sort((a, b) => a.starting.localeCompare(b.starting));
+  const control = weeksOf(ctx.control);
+  if (control.length < 2) return findings;
+  for (const arm2 of ctx.treatments) {
+    const treatment = weeksOf(arm2);
+    const split = (weeks) => {
+      const first2 = weeks[0]?.metrics[metric2.name];
+      const later2 = addTotals(weeks.slice(1).map((w) => w.metrics[metric2.name]).filter((m) => m !== void 0));
+      return first2 && later2 ? { first: first2, later: later2 } : void 0;
+    };
+    const c = split(control);
+    const t = split(treatment);
+    if (!c || !t || treatment[0]?.starting !== control[0]?.starting) continue;
+    const effect = (a, b) => {
+      const ea = estimateArm(a);
+      const eb = estimateArm(b);
+      if (!ea.ok || !eb.ok) return void 0;
+      return { value: eb.estimate.value - ea.estimate.value, variance: ea.estimate.variance + eb.estimate.variance };
+    };
+    const first = effect(c.first, t.first);
+    const later = effect(c.later, t.later);
+    if (!first || !later) continue;
+    const se = Math.sqrt(first.variance + later.variance);
+    if (!(se > 0)) continue;
+    const p = 2 * normalUpper(Math.abs(first.value - later.value) / se);
+    if (p < NOVELTY_P) {
+      findings.push({
+        severity: "note",
+        code: "readout/novelty",
+        message: `${arm2}: the first week's effect on ${metric2.name} (${signed(first.value)}) differs from the later weeks' (${signed(later.value)}), p = ${formatP3(p)}: a novelty or learning effect; the later weeks say more about the lasting effect.`
+      });
+    }
+  }
+  return findings;
+}
+function signed(x) {
+  const text2 = Number(x.toPrecision(3)).toString();
+  return x > 0 ? `+${text2}` : text2;
+}
+function formatP3(p) {
+  return p < 1e-3 ? p.toExponential(1) : p.toFixed(3);
+}
+function buildReadout(plan, totals) {
+  const control = plan.design.control;
+  const treatments = plan.design.arms.map((a) => a.name).filter((a) => a !== control);
+  const k = Math.max(1, treatments.length);
+  const alphaPerComparison = plan.design.alpha / k;
+  const unitsSeen = Object.values(totals.arms).reduce((s, a) => s + a.units, 0);
+  const timing = readoutTiming(plan, totals.dataThrough, unitsSeen, alphaPerComparison);
+  const cupedRegistered = plan.design.prePeriodCorrelation > 0;
+  const ctx = {
+    plan,
+    totals,
+    control,
+    treatments,
+    alphaPerComparison,
+    cupedRegistered,
+    ...timing.boundary ? { boundaryZ: timing.boundary.z } : {}
+  };
+  const findings = [];
+  const overall = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]]));
+  const srm = checkSampleRatio(ctx);
+  if (srm?.mismatch) {
+    findings.push({
+      severity: "block",
+      code: "readout/sample-ratio-mismatch",
+      message: `Sample ratio mismatch: the units per arm do not fit the planned weights (p = ${formatP3(srm.pValue)} < ${srm.threshold}). Nothing here is a result: find why assignment or logging lost units, fix it, and read again.`
+    });
+  }
+  if (srm && srm.days.length) {
+    findings.push({
+      severity: "warn",
+      code: "readout/sample-ratio-mismatch-day",
+      message: `The split alone raises the alarm on ${srm.days.length} of ${srm.daysChecked} days (${srm.days.map((d) => d.date).join(", ")}): check what changed in assignment or logging on those days.`
+    });
+  }
+  if (timing.readEarly && !timing.boundary) {
+    findings.push({
+      severity: "block",
+      code: "readout/read-early",
+      message: `Read early: the data runs through ${totals.dataThrough}, before the planned end (${timing.plannedEnd}), and the plan registered no interim looks. Looking before the end and stopping on a good day inflates false wins; wait for the planned end.`
+    });
+  }
+  const primaryMetric = plan.metrics.primary;
+  const primaryRead = readMetric(ctx, primaryMetric, "primary", metricTotalsOf(overall, primaryMetric.name), {
+    alpha: alphaPerComparison,
+    sides: plan.design.sides,
+    direction: primaryMetric.direction,
+    ...ctx.boundaryZ !== void 0 ? { boundaryZ: ctx.boundaryZ } : {},
+    useCuped: cupedRegistered
+  }) ?? { metric: primaryMetric.name, kind: primaryMetric.kind, role: "primary", direction: primaryMetric.direction, arms: treatments.map((arm2) => ({ arm: arm2, ok: false, reason: "no totals for the control arm" })) };
+  const controlPrimary = primaryRead.arms.find((a) => a.comparison)?.comparison?.control.value;
+  const mde = resolveThreshold(plan.design.minDetectableEffect, controlPrimary);
+  if (mde !== void 0) primaryRead.minDetectableEffect = mde;
+  bonferroni(primaryRead, k);
+  classifyPrimary(primaryRead, mde, timing.readEarly);
+  if (timing.boundary) {
+    const crossed = primaryRead.arms.some((a) => a.primaryClass === "win" || a.primaryClass === "loss");
+    findings.push({
+      severity: "note",
+      code: "readout/interim-look",
+      message: `Interim analysis at ${formatShare(timing.informationFraction)} of the planned information (look ${timing.boundary.look} of ${timing.boundary.looks}): the ${plan.design.interimBoundary} boundary is |z| \u2265 ${timing.boundary.z.toFixed(3)} (nominal p ${formatP3(timing.boundary.nominalP)}); ${crossed ? "crossed, so the test may stop here" : "not crossed: keep the test running to the next look or the planned end"}.`
+    });
+  }
+  for (const arm2 of primaryRead.arms) {
+    if (!arm2.ok) findings.push({ severity: "block", code: "readout/primary-not-computed", message: `${primaryMetric.name}, ${arm2.arm}: ${arm2.reason}` });
+  }
+  if (mde === void 0) {
+    findings.push({ severity: "note", code: "readout/no-minimum-effect", message: "The plan registers no minimum detectable effect, so no result can be called flat; a non-significant result is inconclusive." });
+  }
+  if (cupedRegistered) {
+    if (!primaryRead.cuped) {
+      findings.push({ severity: "warn", code: "readout/cuped-missing", message: `The plan was sized with variance reduction (pre-period correlation ${plan.design.prePeriodCorrelation}), but the totals give no usable pre-period sums for ${primaryMetric.name}: the interval is wider than planned.` });
+    }
+  } else if (Object.values(totals.arms).some((a) => Object.values(a.metrics).some((m) => m.kind !== "ratio" && m.pre))) {
+    findings.push({ severity: "note", code: "readout/cuped-not-registered", message: "The totals carry pre-period sums, but the plan did not register variance reduction (design.pre-period-correlation), so they are not used: a method chosen after the data is in is not the registered test." });
+  }
+  const guardrails = [];
+  for (const metric2 of plan.metrics.guardrails) {
+    const harm = metric2.direction === "increase" ? "decrease" : "increase";
+    const read = readMetric(ctx, metric2, "guardrail", metricTotalsOf(overall, metric2.name), { alpha: alphaPerComparison, sides: 1, direction: harm, useCuped: cupedRegistered });
+    if (!read) {
+      findings.push({ severity: "block", code: "readout/guardrail-missing", message: `No totals for the guardrail ${metric2.name}: a launch cannot show it did no harm.` });
+      continue;
+    }
+    const controlValue = read.arms.find((a) => a.comparison)?.comparison?.control.value;
+    const tolerance = resolveThreshold(metric2.tolerance, controlValue);
+    if (tolerance !== void 0) read.tolerance = tolerance;
+    else findings.push({ severity: "warn", code: "readout/no-tolerance", message: `The guardrail ${metric2.name} has no tolerance, so harm can never be ruled out; only a breach can be seen.` });
+    bonferroni(read, k);
+    classifyGuardrail(read, tolerance);
+    guardrails.push(read);
+  }
+  const secondary = [];
+  for (const metric2 of plan.metrics.secondary) {
+    const read = readMetric(ctx, metric2, "secondary", metricTotalsOf(overall, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: cupedRegistered });
+    if (read) secondary.push(read);
+    else findings.push({ severity: "note", code: "readout/secondary-missing", message: `No totals for the secondary metric ${metric2.name}.` });
+  }
+  const segments = [];
+  const allMetrics2 = [primaryMetric, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+  const segmentNames = [...new Set((totals.arms[control]?.segments ?? []).map((s) => s.segment))];
+  for (const name of segmentNames) {
+    const groups2 = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]?.segments.find((s) => s.segment === name)]));
+    for (const metric2 of allMetrics2) {
+      const read = readMetric(ctx, metric2, "segment", metricTotalsOf(groups2, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: false }, name);
+      if (read) segments.push(read);
+    }
+  }
+  const exploratory = [...secondary, ...segments].flatMap((m) => m.arms.filter((a) => a.comparison));
+  const adjusted = benjaminiHochberg(exploratory.map((a) => a.comparison.pValue));
+  if (adjusted.ok) {
+    exploratory.forEach((arm2, i) => {
+      arm2.adjustedP = adjusted.value[i];
+      arm2.exploratorySignal = adjusted.value[i] <= plan.design.alpha;
+    });
+  }
+  const perArm = treatments.map((arm2) => {
+    const breached = guardrails.some((g) => g.arms.some((a) => a.arm === arm2 && a.guardrailClass === "breach"));
+    const primaryClass = primaryRead.arms.find((a) => a.arm === arm2)?.primaryClass ?? "inconclusive";
+    return { arm: arm2, verdict: breached ? "guardrail-breach" : primaryClass };
+  });
+  let verdict;
+  const armsWith = (v) => perArm.filter((a) => a.verdict === v).map((a) => a.arm);
+  if (srm?.mismatch) verdict = "not-read";
+  else if (armsWith("win").length) verdict = "win";
+  else if (armsWith("guardrail-breach").length) verdict = "guardrail-breach";
+  else if (armsWith("loss").length) verdict = "loss";
+  else if (perArm.length && perArm.every((a) => a.verdict === "flat")) verdict = "flat";
+  else verdict = "inconclusive";
+  const verdictArms = verdict === "not-read" ? [] : armsWith(verdict);
+  for (const g of guardrails) {
+    for (const a of g.arms) {
+      if (a.guardrailClass === "breach") findings.push({ severity: "block", code: "readout/guardrail-breach", message: `${a.arm} harms the guardrail ${g.metric} significantly${armsWith("guardrail-breach").includes(a.arm) && primaryRead.arms.find((p) => p.arm === a.arm)?.primaryClass === "win" ? ", which overrides its win on the primary metric" : ""}.` });
+    }
+  }
+  const primaryFlatOverall = verdict === "flat" || verdict === "inconclusive";
+  if (primaryFlatOverall) {
+    for (const s of segments) {
+      if (s.metric !== primaryMetric.name) continue;
+      for (const a of s.arms) {
+        const c = a.comparison;
+        if (a.exploratorySignal && c && good(s.direction) * c.difference > 0) {
+          findings.push({
+            severity: "note",
+            code: "readout/segment-pattern",
+            message: `Flat overall, but ${a.arm} wins in the segment "${s.segment}" (Benjamini\u2013Hochberg adjusted p = ${formatP3(a.adjustedP)}): a pattern to confirm with a new test on that segment, not a result.`
+          });
+        }
+      }
+    }
+  }
+  findings.push(...noveltyCheck(ctx, primaryMetric));
+  if (verdict === "win" || verdict === "loss") {
+    for (const arm2 of primaryRead.arms) {
+      const c = arm2.comparison;
+      if (!c || arm2.primaryClass !== "win" && arm2.primaryClass !== "loss") continue;
+      const effect = mde ?? Math.abs(c.difference);
+      const power = normalCdf(effect / c.standardError - c.critical);
+      if (power < LOW_POWER) {
+        findings.push({
+          severity: "note",
+          code: "readout/winners-curse",
+          message: `${arm2.arm}: this readout had ${formatShare(power)} power at ${mde !== void 0 ? "the minimum detectable effect" : "the observed effect"}; a significant estimate from an underpowered test usually overstates the true effect (the winner's curse). Expect a smaller effect after launch.`
+        });
+      }
+    }
+  }
+  if (plan.sensitive.length && (verdict === "win" || verdict === "loss")) {
+    findings.push({
+      severity: "note",
+      code: "readout/sensitive",
+      message: `This test touches ${plan.sensitive.map((s) => s.area).join(", ")}: before acting on the result, take it to ${plan.sensitive.map((s) => s.review ?? `the ${s.area} review`).join(", ")}; local law and licensed practice come before this rule.`
+    });
+  }
+  const rule = verdict === "win" ? "win" : verdict === "loss" ? "loss" : verdict === "guardrail-breach" ? "guardrail-breach" : verdict === "not-read" ? void 0 : "flat";
+  const text2 = rule === "win" ? plan.decisions.win : rule === "loss" ? plan.decisions.loss : rule === "guardrail-breach" ? plan.decisions.guardrailBreach : rule === "flat" ? plan.decisions.flat : void 0;
+  return {
+    planId: plan.id,
+    title: plan.title,
+    planCommit: totals.planCommit,
+    dataThrough: totals.dataThrough,
+    control,
+    treatments,
+    alpha: plan.design.alpha,
+    sides: plan.design.sides,
+    alphaPerComparison,
+    ...srm ? { srm } : {},
+    timing,
+    primary: primaryRead,
+    guardrails,
+    secondary,
+    segments,
+    verdict,
+    verdictArms,
+    ...rule && text2 ? { decision: { rule, text: text2 } } : {},
+    findings
+  };
+}
+function formatShare(x) {
+  if (x === void 0 || !Number.isFinite(x)) return "an unknown share";
+  return `${(x * 100).toFixed(x < 0.1 ? 1 : 0)}%`;
+}
+
+// src/core/totals/rules.ts
+var RELATIVE_SLACK = 1e-9;
+function* groups(totals) {
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    yield { arm: arm2, path: ["arms", arm2], group: totalsOfArm };
+    for (const [i, day] of totalsOfArm.days.entries()) yield { arm: arm2, path: ["arms", arm2, "days", i], group: day };
+    for (const [i, week] of totalsOfArm.weeks.entries()) yield { arm: arm2, path: ["arms", arm2, "weeks", i], group: week };
+    for (const [i, segment] of totalsOfArm.segments.entries()) yield { arm: arm2, path: ["arms", arm2, "segments", i], group: segment };
+  }
+}
+function centredSquares(n, sum, sumSquares) {
+  return { value: sumSquares - (n > 0 ? sum * sum / n : 0), slack: RELATIVE_SLACK * Math.max(sumSquares, 1) };
+}
+function checkSquares(ctx, path, n, sum, sumSquares, what) {
+  const { value, slack } = centredSquares(n, sum, sumSquares);
+  if (value >= -slack) return true;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path,
+    message: `the sum of squares of ${what} is below (\u03A3y)\xB2/n = ${Number((sum * sum / n).toPrecision(8))}, which no data can give`,
+    expected: "a sum of squares of at least (sum)\xB2 / n; check that it sums squares of per-unit values, not squares of the sum",
+    showFound: true
+  });
+  return false;
+}
+function checkProducts(ctx, path, n, a, b, sumProducts) {
+  if (n < 2) return;
+  const saa = Math.max(0, a.sumSquares - a.sum * a.sum / n);
+  const sbb = Math.max(0, b.sumSquares - b.sum * b.sum / n);
+  const sab = sumProducts - a.sum * b.sum / n;
+  const bound = Math.sqrt(saa * sbb);
+  if (Math.abs(sab) <= bound + RELATIVE_SLACK * Math.max(Math.abs(sumProducts), bound, 1)) return;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path,
+    message: "the sum of products implies a correlation outside -1 to 1, which no data can give",
+    expected: "\u03A3xy \u2212 \u03A3x\u03A3y/n no larger in size than \u221A((\u03A3x\xB2 \u2212 (\u03A3x)\xB2/n)(\u03A3y\xB2 \u2212 (\u03A3y)\xB2/n))",
+    showFound: true
+  });
+}
+function checkPre(ctx, path, metric2, pre) {
+  if (!checkSquares(ctx, [...path, "pre-period", "sum-of-squares"], metric2.n, pre.sum, pre.sumSquares, "the pre-period value")) return;
+  checkProducts(ctx, [...path, "pre-period", "sum-of-products"], metric2.n, metric2, pre, pre.sumProducts);
+}
+function checkMetric(ctx, path, units2, metric2) {
+  if (metric2.n > units2) {
+    ctx.report({
+      severity: "error",
+      code: "totals/more-than-units",
+      path: [...path, "n"],
+      message: `n is ${metric2.n}, more than the ${units2} units exposed`,
+      expected: `at most ${units2} (the units exposed)`
+    });
+  }
+  if (metric2.kind === "proportion") {
+    if (metric2.sum > metric2.n) {
+      ctx.report({
+        severity: "error",
+        code: "totals/more-than-units",
+        path: [...path, "units-with-event"],
+        message: `${metric2.sum} units with the event out of ${metric2.n}`,
+        expected: `at most ${metric2.n} (each unit counts once however many events it has)`,
+        showFound: false
+      });
+    } else if (metric2.pre) checkPre(ctx, path, metric2, metric2.pre);
+    return;
+  }
+  if (metric2.kind === "mean") {
+    if (checkSquares(ctx, [...path, "sum-of-squares"], metric2.n, metric2.sum, metric2.sumSquares, "the metric value") && metric2.pre) checkPre(ctx, path, metric2, metric2.pre);
+    return;
+  }
+  const numeratorOk = checkSquares(ctx, [...path, "numerator", "sum-of-squares"], metric2.n, metric2.numerator.sum, metric2.numerator.sumSquares, "the numerator");
+  const denominatorOk = checkSquares(ctx, [...path, "denominator", "sum-of-squares"], metric2.n, metric2.denominator.sum, metric2.denominator.sumSquares, "the denominator");
+  if (numeratorOk && denominatorOk) checkProducts(ctx, [...path, "sum-of-products"], metric2.n, metric2.numerator, metric2.denominator, metric2.sumProducts);
+}
+var possibleSums = (ctx) => {
+  for (const { path, group: group2 } of groups(ctx.value.totals)) {
+    for (const [name, metric2] of Object.entries(group2.metrics)) checkMetric(ctx, [...path, "metrics", name], group2.units, metric2);
+  }
+};
+var atLeastTwoArms = (ctx) => {
+  if (Object.keys(ctx.value.totals.arms).length < 2) {
+    ctx.report({ severity: "error", code: "totals/arm-count", path: ["arms"], message: "a readout compares arms; fewer than two are given", expected: "the totals of every arm of the plan" });
+  }
+};
+var datesInOrder = (ctx) => {
+  const { totals } = ctx.value;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    const seen = /* @__PURE__ */ new Set();
+    totalsOfArm.days.forEach((day, i) => {
+      const path = ["arms", arm2, "days", i, "date"];
+      if (day.date > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path, message: `${day.date} is after data-through (${totals.dataThrough})`, expected: `a day on or before ${totals.dataThrough}` });
+      }
+      if (seen.has(day.date)) ctx.report({ severity: "error", code: "totals/duplicate-date", path, message: `${day.date} is listed twice`, expected: "each day once" });
+      seen.add(day.date);
+    });
+    totalsOfArm.weeks.forEach((week, i) => {
+      if (week.starting > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path: ["arms", arm2, "weeks", i, "starting"], message: `${week.starting} is after data-through (${totals.dataThrough})`, expected: `a week starting on or before ${totals.dataThrough}` });
+      }
+    });
+  }
+};
+var TOTALS_RULES = [atLeastTwoArms, possibleSums, datesInOrder];
+function planMetrics(plan) {
+  return [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+}
+var samePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (plan && totals.planId !== plan.id) {
+    ctx.report({ severity: "error", code: "totals/other-plan", path: ["plan"], message: `these totals are for plan "${totals.planId}", not "${plan.id}"`, expected: `plan: ${plan.id}` });
+  }
+};
+var armsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const planned = plan.design.arms.map((a) => a.name);
+  for (const arm2 of Object.keys(totals.arms)) {
+    if (planned.includes(arm2)) continue;
+    const suggestion = closestName(arm2, planned);
+    ctx.report({
+      severity: "error",
+      code: "totals/unknown-arm",
+      path: ["arms", arm2],
+      message: `arm "${arm2}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}`,
+      expected: `one of the plan's arms: ${planned.join(", ")}`
+    });
+  }
+  const missing = planned.filter((a) => !(a in totals.arms));
+  if (missing.length) {
+    ctx.report({ severity: "error", code: "totals/missing-arm", path: ["arms"], message: `no totals for ${missing.map((a) => `"${a}"`).join(", ")}`, expected: `totals for every arm of the plan: ${planned.join(", ")}` });
+  }
+};
+var metricsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const known = new Map(planMetrics(plan).map((m) => [m.name, m]));
+  for (const { path, group: group2 } of groups(totals)) {
+    for (const [name, metric2] of Object.entries(group2.metrics)) {
+      const registered = known.get(name);
+      if (!registered) {
+        const suggestion = closestName(name, [...known.keys()]);
+        ctx.report({
+          severity: "error",
+          code: "totals/unknown-metric",
+          path: [...path, "metrics", name],
+          message: `metric "${name}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}: a metric chosen after the data is in is not a pre-registered result`,
+          expected: `one of the plan's metrics: ${[...known.keys()].join(", ")}`
+        });
+      } else if (registered.kind !== metric2.kind) {
+        ctx.report({
+          severity: "error",
+          code: "totals/metric-kind",
+          path: [...path, "metrics", name],
+          message: `the plan registers "${name}" as a ${registered.kind} metric, but these are ${metric2.kind} totals`,
+          expected: registered.kind === "proportion" ? "{ units-with-event }" : registered.kind === "mean" ? "{ n, sum, sum-of-squares }" : "{ n, numerator, denominator, sum-of-products }"
+        });
+      }
+    }
+  }
+  const primary = plan.metrics.primary.name;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    if (!(primary in totalsOfArm.metrics)) {
+      ctx.report({ severity: "error", code: "totals/missing-primary", path: ["arms", arm2, "metrics"], message: `no totals for the primary metric "${primary}" in arm "${arm2}"`, expected: `metrics.${primary}` });
+    }
+  }
+};
+var insideTheWindow = (ctx) => {
+  const { totals, plan } = ctx.value;
+  const start = plan?.window.start;
+  if (!start) return;
+  if (totals.dataThrough < start) {
+    ctx.report({ severity: "error", code: "totals/before-start", path: ["data-through"], message: `the data runs through ${totals.dataThrough}, before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+  }
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    totalsOfArm.days.forEach((day, i) => {
+      if (day.date < start) ctx.report({ severity: "error", code: "totals/before-start", path: ["arms", arm2, "days", i, "date"], message: `${day.date} is before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+    });
+  }
+};
+var TOTALS_PLAN_RULES = [samePlan, armsOfThePlan, metricsOfThePlan, insideTheWindow];
+
+// src/core/totals/schema.ts
+var count2 = (expected) => external_exports.number({ error: expected }).int({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
+var sumOf = (what) => finiteNumber(`the sum of ${what} over the units, e.g. 10250.5`);
+var squaresOf = (what) => nonNegativeNumber(`the sum of squares of ${what} over the units (0 or more), e.g. 84210.25`);
+var prePeriod = external_exports.strictObject(
+  {
+    sum: sumOf("each unit\u2019s pre-period value"),
+    "sum-of-squares": squaresOf("each unit\u2019s pre-period value"),
+    "sum-of-products": finiteNumber("the sum over the units of the metric value times the pre-period value, e.g. 5120.75")
+  },
+  { error: "a mapping with sum, sum-of-squares and sum-of-products of the pre-period value" }
+).describe("The same metric measured on the same units before the test (for variance reduction, CUPED).");
+var proportionTotals = external_exports.strictObject(
+  {
+    "units-with-event": count2("the number of units with the event, a whole number of 0 or more, e.g. 1520"),
+    n: count2("the number of units the share is taken over, a whole number of 0 or more (default: the units)").optional(),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with units-with-event" }
+).describe("A proportion metric: how many units had the event.");
+var meanTotals = external_exports.strictObject(
+  {
+    n: count2("the number of units the mean is taken over, a whole number of 0 or more, e.g. 12000"),
+    sum: sumOf("the metric value"),
+    "sum-of-squares": squaresOf("the metric value"),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with n, sum and sum-of-squares" }
+).describe("A mean metric: n, the sum and the sum of squares of the per-unit values.");
+var sideOfRatio = (what) => external_exports.strictObject({ sum: sumOf(`each unit\u2019s ${what}`), "sum-of-squares": squaresOf(`each unit\u2019s ${what}`) }, { error: `a mapping with sum and sum-of-squares of the ${what}` }).describe(`Sums of each unit\u2019s ${what}.`);
+var ratioTotals = external_exports.strictObject(
+  {
+    n: count2("the number of units (the randomization unit), a whole number of 0 or more, e.g. 12000"),
+    numerator: sideOfRatio("numerator"),
+    denominator: sideOfRatio("denominator"),
+    "sum-of-products": finiteNumber("the sum over the units of numerator times denominator, e.g. 40210")
+  },
+  { error: "a mapping with n, numerator, denominator and sum-of-products" }
+).describe("A ratio metric: per-unit sums of numerator and denominator, their squares and their products.");
+var metricTotals = external_exports.union([proportionTotals, meanTotals, ratioTotals], {
+  error: "metric totals: { units-with-event } for a proportion, { n, sum, sum-of-squares } for a mean, or { n, numerator, denominator, sum-of-products } for a ratio"
+}).meta({ id: "metricTotals", description: "The totals of one metric in one arm (or one day, week or segment of it)." });
+var metricsMap = external_exports.record(kebabName("a metric name of the plan, e.g. order-completed"), metricTotals, { error: "a mapping of metric names to their totals" }).default({}).describe("Totals per metric, keyed by the metric\u2019s name in the plan.");
+var unitsField = count2("the number of units exposed, a whole number of 0 or more, e.g. 12000");
+var group = { units: unitsField, metrics: metricsMap };
+var armTotals = external_exports.strictObject(
+  {
+    ...group,
+    days: external_exports.array(external_exports.strictObject({ date: calendarDate("a date written YYYY-MM-DD, e.g. 2026-11-09"), ...group }, { error: "a mapping with date, units and metrics" }), {
+      error: "a list of days, e.g. [{ date: 2026-11-09, units: 7000 }]"
+    }).default([]).describe("Per day: the units first exposed that day (and, optionally, metric totals of those units)."),
+    weeks: external_exports.array(external_exports.strictObject({ starting: calendarDate("the week\u2019s first day written YYYY-MM-DD, e.g. 2026-11-09"), ...group }, { error: "a mapping with starting, units and metrics" }), {
+      error: "a list of weeks, e.g. [{ starting: 2026-11-09, units: 49000, metrics: { ... } }]"
+    }).default([]).describe("Per week of first exposure: units and metric totals (for the novelty check)."),
+    segments: external_exports.array(
+      external_exports.strictObject(
+        { segment: external_exports.string({ error: 'a segment name, e.g. "platform: ios"' }).trim().min(1, { error: 'a segment name, e.g. "platform: ios"' }), ...group },
+        { error: "a mapping with segment, units and metrics" }
+      ),
+      { error: 'a list of segments, e.g. [{ segment: "platform: ios", units: 5000, metrics: { ... } }]' }
+    ).default([]).describe("Per segment: units and metric totals (exploratory).")
+  },
+  { error: "an arm\u2019s totals: a mapping with units and metrics" }
+).describe("Totals of one arm.");
+var writtenTotalsSchema = external_exports.strictObject(
+  {
+    plan: planId.describe("The id of the plan this readout is for."),
+    "plan-commit": external_exports.string({ error: "the commit of the plan at launch, 7 to 40 hexadecimal digits, e.g. 4b1d2e7" }).regex(/^[0-9a-f]{7,40}$/, { error: "the commit of the plan at launch, 7 to 40 lower-case hexadecimal digits, e.g. 4b1d2e7" }).describe("The commit of the plan when the test launched: the rule read out is the one registered then."),
+    "data-through": calendarDate("the last day the data covers, written YYYY-MM-DD, e.g. 2026-12-06").describe("The last day (UTC, included) the data covers."),
+    arms: external_exports.record(kebabName("an arm name of the plan, e.g. control"), armTotals, { error: "a mapping of arm names to their totals" }).describe("Totals per arm, keyed by the arm\u2019s name in the plan."),
+    notes: external_exports.string({ error: "free text" }).optional().describe("Free text: where the totals came from.")
+  },
+  { error: "arm totals: a mapping with plan, plan-commit, data-through and arms" }
+).describe("Plumbline arm totals: the sufficient statistics of one readout.");
+function normalizePre(pre) {
+  return pre ? { pre: { sum: pre.sum, sumSquares: pre["sum-of-squares"], sumProducts: pre["sum-of-products"] } } : {};
+}
+function normalizeMetricTotals(written, units2) {
+  if ("units-with-event" in written) {
+    const x = written["units-with-event"];
+    return { kind: "proportion", n: written.n ?? units2, sum: x, sumSquares: x, ...normalizePre(written["pre-period"]) };
+  }
+  if ("numerator" in written) {
+    return {
+      kind: "ratio",
+      n: written.n,
+      numerator: { sum: written.numerator.sum, sumSquares: written.numerator["sum-of-squares"] },
+      denominator: { sum: written.denominator.sum, sumSquares: written.denominator["sum-of-squares"] },
+      sumProducts: written["sum-of-products"]
+    };
+  }
+  return { kind: "mean", n: written.n, sum: written.sum, sumSquares: written["sum-of-squares"], ...normalizePre(written["pre-period"]) };
+}
+function normalizeGroup(written) {
+  return {
+    units: written.units,
+    metrics: Object.fromEntries(Object.entries(written.metrics).map(([name, m]) => [name, normalizeMetricTotals(m, written.units)]))
+  };
+}
+var totalsSchema = writtenTotalsSchema.transform(
+  (written) => ({
+    planId: written.plan,
+    planCommit: written["plan-commit"],
+    dataThrough: written["data-through"],
+    arms: Object.fromEntries(
+      Object.entries(written.arms).map(([name, arm2]) => [
+        name,
+        {
+          ...normalizeGroup(arm2),
+          days: arm2.days.map((d) => ({ date: d.date, ...normalizeGroup(d) })),
+          weeks: arm2.weeks.map((w) => ({ starting: w.starting, ...normalizeGroup(w) })),
+          segments: arm2.segments.map((s) => ({ segment: s.segment, ...normalizeGroup(s) }))
+        }
+      ])
+    ),
+    ...written.notes !== void 0 ? { notes: written.notes } : {}
+  })
+);
+
+// src/core/totals/load.ts
+var TOTALS_LIMITS = { maxBytes: 1024 * 1024, maxAliases: 100 };
+var TOTALS_SCHEMA_ID = "https://plumbline.dev/schema/totals.schema.json";
+var cached3;
+function totalsJsonSchema() {
+  cached3 ??= {
+    $id: TOTALS_SCHEMA_ID,
+    title: "Plumbline arm totals",
+    ...external_exports.toJSONSchema(writtenTotalsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cached3;
+}
+function loadTotals(text2, file2, plan) {
+  const read = readYaml(text2, file2, TOTALS_LIMITS, "totals");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema(), "totals");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = runRules({ totals: checked.value, ...plan ? { plan } : {} }, read.source, [...TOTALS_RULES, ...plan ? TOTALS_PLAN_RULES : []]);
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, totals: checked.value, warnings };
+}
+
+// src/run/readout.ts
+async function readOutPlan(options) {
+  const workspace = await requireWorkspace(options);
+  const found = findNamedPlan(workspace, options.plan, "read out");
+  const text2 = await options.files.readText(options.totals);
+  if (text2 === void 0) throw new UsageError(`the totals file ${options.totals} does not exist`, "the path is relative to --cwd (the repository root)");
+  const loaded = loadTotals(text2, options.totals, found.plan);
+  if (!loaded.ok) {
+    throw new UsageError(`${options.totals} cannot be read out:
+${[...loaded.errors, ...loaded.warnings].map(formatProblem).join("\n")}`, "see docs/totals-reference.md for the format");
+  }
+  const readout = buildReadout(found.plan, loaded.totals);
+  const outcome = { readout, planFile: found.file, warnings: loaded.warnings };
+  if (options.record) {
+    const planText = await options.files.readText(found.file);
+    if (planText === void 0) throw new UsageError(`the plan file ${found.file} disappeared while reading`);
+    const recorded = recordOutcome(planText, readout, { ...options.record, totalsFile: options.totals });
+    if (!recorded.ok) throw new UsageError(`nothing recorded: ${recorded.reason}`);
+    outcome.recordedText = recorded.text;
+  }
+  return outcome;
+}
+
+// src/cli/readout-command.ts
+var READOUT_JSON_FORMAT = "plumbline.readout/1";
+function addReadoutCommand(program2, setExit, exitCodes) {
+  program2.command("readout").description("read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan").argument("<plan>", "plan id or plan file").requiredOption("--totals <file>", "the arm-totals file (see docs/totals-reference.md)").addOption(new Option("--format <format>", "output format").choices(["text", "markdown", "json"]).default("text")).option("--record", "write the outcome block into the plan (comments and layout kept)", false).option("--decided-by <handle>", "who decided, e.g. @ana-lima (required with --record)").option("--today <date>", "the day recorded, YYYY-MM-DD (default: the system date, UTC)").action(async (planName, flags) => {
+    const options = program2.opts();
+    const output2 = createCliOutput({ noColorFlag: !options.color });
+    const cwd = resolve2(options.cwd);
+    if (flags.record && !flags.decidedBy) throw new UsageError("--record needs --decided-by", "name who decided, e.g. --decided-by @ana-lima");
+    const today = flags.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
+    if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
+    const outcome = await readOutPlan({
+      files: createRepoFiles(cwd),
+      ...options.config ? { settingsPath: options.config } : {},
+      plan: planName,
+      totals: flags.totals.replace(/^\.\//, ""),
+      ...flags.record ? { record: { decidedBy: flags.decidedBy, recordedOn: today } } : {}
+    });
+    const { readout } = outcome;
+    if (flags.format === "json") output2.out(JSON.stringify({ format: READOUT_JSON_FORMAT, ...readout }, null, 2));
+    else if (flags.format === "markdown") output2.out(renderReadoutMarkdown(readout));
+    else output2.out(renderReadoutText(readout, { color: output2.color }));
+    if (outcome.recordedText !== void 0) {
+      await writeFileAtomic(resolve2(cwd, outcome.planFile), outcome.recordedText, { overwrite: true });
+      output2.err(`Recorded the outcome (${readout.verdict}) in ${outcome.planFile}.`);
+    }
+    setExit(readout.findings.some((f) => f.severity === "block") ? exitCodes.findings : exitCodes.ok);
+  });
+}
+
 // src/cli/main.ts
 var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
 var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
 function context(options) {
   const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve2(options.cwd));
+  const files = createRepoFiles(resolve3(options.cwd));
   return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
 }
 function reportSettingsProblems(output2, format, file2, problems) {
@@ -40231,7 +41402,7 @@ function buildProgram(setExit) {
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
     if (local.stdout) return output2.out(result.text);
-    await writeFileAtomic(resolve2(options.cwd, result.path), result.text, { overwrite: local.force });
+    await writeFileAtomic(resolve3(options.cwd, result.path), result.text, { overwrite: local.force });
     output2.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
   });
   addSizeOptions(
@@ -40253,13 +41424,13 @@ function buildProgram(setExit) {
   program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
     const options = program2.opts();
     const { output: output2 } = context({ ...options, format: "text" });
-    const cwd = resolve2(options.cwd);
+    const cwd = resolve3(options.cwd);
     const pr = await pullRequestInfo(flags, cwd);
     const change2 = await openChange(cwd, flags.base, flags.head);
     const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
-    if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
+    if (flags.output) await writeFileAtomic(resolve3(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
 `, { overwrite: true });
     const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
     if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
@@ -40291,12 +41462,12 @@ function buildProgram(setExit) {
     const p = parseNumbers("p-values", values);
     const q = parseNumbers("q", [local.q])[0];
     const bh = benjaminiHochberg(p);
-    const bonferroni = bonferroniAdjust(p);
+    const bonferroni2 = bonferroniAdjust(p);
     if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
-    if (!bonferroni.ok) throw new UsageError(`${bonferroni.error.input}: ${bonferroni.error.message}`);
+    if (!bonferroni2.ok) throw new UsageError(`${bonferroni2.error.input}: ${bonferroni2.error.message}`);
     const output2 = createCliOutput({ noColorFlag: true });
     output2.out(
-      local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni.value }, null, 2) : renderAdjustedText(p, bh.value, bonferroni.value, q)
+      local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni2.value }, null, 2) : renderAdjustedText(p, bh.value, bonferroni2.value, q)
     );
     setExit(EXIT.ok);
   });
@@ -40305,6 +41476,7 @@ function buildProgram(setExit) {
     process.stdout.write(`${JSON.stringify(schema, null, 2)}
 `);
   });
+  addReadoutCommand(program2, setExit, EXIT);
   return program2;
 }
 async function runCli(argv) {

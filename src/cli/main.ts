@@ -28,6 +28,7 @@ import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText 
 import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
 import { benjaminiHochberg, bonferroniAdjust } from '../core/stats/multiple-testing.js';
 import { VERSION } from '../version.js';
+import { addReadoutCommand } from './readout-command.js';
 
 /** Exit codes, documented in --help and the README. */
 export const EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 } as const;
@@ -240,6 +241,8 @@ export function buildProgram(setExit: (code: number) => void): Command {
       const schema = which === 'plan' ? planJsonSchema() : which === 'registry' ? registryJsonSchema() : settingsJsonSchema();
       process.stdout.write(`${JSON.stringify(schema, null, 2)}\n`);
     });
+
+  addReadoutCommand(program, setExit, EXIT);
 
   return program;
 }

@@ -157,6 +157,7 @@ const armsOfThePlan: Rule<TotalsRuleInput> = (ctx) => {
       severity: 'error',
       code: 'totals/unknown-arm',
       path: ['arms', arm],
+      atKey: true,
       message: `arm "${arm}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ''}`,
       expected: `one of the plan's arms: ${planned.join(', ')}`,
     });
@@ -180,6 +181,7 @@ const metricsOfThePlan: Rule<TotalsRuleInput> = (ctx) => {
           severity: 'error',
           code: 'totals/unknown-metric',
           path: [...path, 'metrics', name],
+          atKey: true,
           message: `metric "${name}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ''}: a metric chosen after the data is in is not a pre-registered result`,
           expected: `one of the plan's metrics: ${[...known.keys()].join(', ')}`,
         });

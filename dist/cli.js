@@ -7333,8 +7333,8 @@ var require_identity = __commonJS({
     var isDocument = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === DOC;
     var isMap3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === MAP;
     var isPair2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === PAIR;
-    var isScalar2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SCALAR;
-    var isSeq2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SEQ;
+    var isScalar3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SCALAR;
+    var isSeq3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SEQ;
     function isCollection(node2) {
       if (node2 && typeof node2 === "object")
         switch (node2[NODE_TYPE]) {
@@ -7355,7 +7355,7 @@ var require_identity = __commonJS({
         }
       return false;
     }
-    var hasAnchor = (node2) => (isScalar2(node2) || isCollection(node2)) && !!node2.anchor;
+    var hasAnchor = (node2) => (isScalar3(node2) || isCollection(node2)) && !!node2.anchor;
     exports.ALIAS = ALIAS;
     exports.DOC = DOC;
     exports.MAP = MAP;
@@ -7370,8 +7370,8 @@ var require_identity = __commonJS({
     exports.isMap = isMap3;
     exports.isNode = isNode;
     exports.isPair = isPair2;
-    exports.isScalar = isScalar2;
-    exports.isSeq = isSeq2;
+    exports.isScalar = isScalar3;
+    exports.isSeq = isSeq3;
   }
 });
 
@@ -10693,7 +10693,7 @@ var require_Document = __commonJS({
     var applyReviver = require_applyReviver();
     var createNode = require_createNode();
     var directives = require_directives();
-    var Document = class _Document {
+    var Document2 = class _Document {
       constructor(value, replacer, options) {
         this.commentBefore = null;
         this.comment = null;
@@ -10983,7 +10983,7 @@ var require_Document = __commonJS({
         return true;
       throw new Error("Expected a YAML collection as document contents");
     }
-    exports.Document = Document;
+    exports.Document = Document2;
   }
 });
 
@@ -12348,13 +12348,13 @@ var require_compose_node = __commonJS({
 var require_compose_doc = __commonJS({
   "../main/node_modules/yaml/dist/compose/compose-doc.js"(exports) {
     "use strict";
-    var Document = require_Document();
+    var Document2 = require_Document();
     var composeNode = require_compose_node();
     var resolveEnd = require_resolve_end();
     var resolveProps = require_resolve_props();
     function composeDoc(options, directives, { offset, start, value, end }, onError) {
       const opts = Object.assign({ _directives: directives }, options);
-      const doc = new Document.Document(void 0, opts);
+      const doc = new Document2.Document(void 0, opts);
       const ctx = {
         atKey: false,
         atRoot: true,
@@ -12393,7 +12393,7 @@ var require_composer = __commonJS({
     "use strict";
     var node_process = __require("process");
     var directives = require_directives();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var errors = require_errors();
     var identity = require_identity();
     var composeDoc = require_compose_doc();
@@ -12582,7 +12582,7 @@ ${end.comment}` : end.comment;
           this.doc = null;
         } else if (forceDoc) {
           const opts = Object.assign({ _directives: this.directives }, this.options);
-          const doc = new Document.Document(void 0, opts);
+          const doc = new Document2.Document(void 0, opts);
           if (this.atDirectives)
             this.onError(endOffset, "MISSING_CHAR", "Missing directives-end indicator line");
           doc.range = [0, endOffset, endOffset];
@@ -12915,7 +12915,7 @@ var require_cst = __commonJS({
     var FLOW_END = "";
     var SCALAR = "";
     var isCollection = (token) => !!token && "items" in token;
-    var isScalar2 = (token) => !!token && (token.type === "scalar" || token.type === "single-quoted-scalar" || token.type === "double-quoted-scalar" || token.type === "block-scalar");
+    var isScalar3 = (token) => !!token && (token.type === "scalar" || token.type === "single-quoted-scalar" || token.type === "double-quoted-scalar" || token.type === "block-scalar");
     function prettyToken(token) {
       switch (token) {
         case BOM:
@@ -12999,7 +12999,7 @@ var require_cst = __commonJS({
     exports.FLOW_END = FLOW_END;
     exports.SCALAR = SCALAR;
     exports.isCollection = isCollection;
-    exports.isScalar = isScalar2;
+    exports.isScalar = isScalar3;
     exports.prettyToken = prettyToken;
     exports.tokenType = tokenType;
   }
@@ -14504,7 +14504,7 @@ var require_public_api = __commonJS({
   "../main/node_modules/yaml/dist/public-api.js"(exports) {
     "use strict";
     var composer = require_composer();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var errors = require_errors();
     var log = require_log();
     var identity = require_identity();
@@ -14587,7 +14587,7 @@ var require_public_api = __commonJS({
       }
       if (identity.isDocument(value) && !_replacer)
         return value.toString(options);
-      return new Document.Document(value, _replacer, options).toString(options);
+      return new Document2.Document(value, _replacer, options).toString(options);
     }
     exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
@@ -14601,7 +14601,7 @@ var require_dist = __commonJS({
   "../main/node_modules/yaml/dist/index.js"(exports) {
     "use strict";
     var composer = require_composer();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var Schema = require_Schema();
     var errors = require_errors();
     var Alias = require_Alias();
@@ -14617,7 +14617,7 @@ var require_dist = __commonJS({
     var publicApi = require_public_api();
     var visit3 = require_visit();
     exports.Composer = composer.Composer;
-    exports.Document = Document.Document;
+    exports.Document = Document2.Document;
     exports.Schema = Schema.Schema;
     exports.YAMLError = errors.YAMLError;
     exports.YAMLParseError = errors.YAMLParseError;
@@ -37301,12 +37301,13 @@ function runRules(value, source, rules) {
   const problems = [];
   const context2 = {
     value,
-    report({ severity: severity2, code, path, message, expected, showFound }) {
+    report({ severity: severity2, code, path, message, expected, showFound, atKey }) {
       const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
       problems.push({
         severity: severity2,
         code,
-        ...source.locate(path),
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path),
         field: formatFieldPath(path),
         message,
         ...expected ? { expected } : {},
@@ -40427,9 +40428,10 @@ var DIGITS = 6;
 var round = (x) => Number(x.toPrecision(DIGITS));
 function recordOutcome(planText, readout, request) {
   if (readout.verdict === "not-read") return { ok: false, reason: "a readout with a sample ratio mismatch has no outcome to record: find the cause first" };
-  const doc = (0, import_yaml3.parseDocument)(planText, { keepSourceTokens: false });
+  const doc = (0, import_yaml3.parseDocument)(planText);
   if (doc.errors.length || !(0, import_yaml3.isMap)(doc.contents)) return { ok: false, reason: "the plan is not a YAML mapping that can be edited" };
-  const previous = doc.getIn(["outcome", "override"], true);
+  const existing = doc.contents.items.find((pair2) => (0, import_yaml3.isScalar)(pair2.key) && pair2.key.value === "outcome");
+  const override = doc.getIn(["outcome", "override"]);
   const figures = readout.primary.arms.flatMap((a) => {
     const c = a.comparison;
     if (!c) return [];
@@ -40453,18 +40455,31 @@ function recordOutcome(planText, readout, request) {
     ...readout.timing.readEarly ? { "read-early": true } : {},
     figures,
     "decided-by": request.decidedBy,
-    "recorded-on": request.recordedOn
+    "recorded-on": request.recordedOn,
+    ...override !== void 0 ? { override } : {}
   };
-  const node2 = doc.createNode(outcome);
-  for (const key of ["arms", "figures"]) {
-    const list2 = node2.get(key, true);
-    if (key === "arms" && list2) list2.flow = true;
-    if (key === "figures") for (const item of list2?.items ?? []) item.flow = true;
+  const block = new import_yaml3.Document({ outcome });
+  const node2 = block.getIn(["outcome"], true);
+  const arms = node2.get("arms", true);
+  if ((0, import_yaml3.isSeq)(arms)) arms.flow = true;
+  const listed = node2.get("figures", true);
+  if ((0, import_yaml3.isSeq)(listed)) {
+    for (const item of listed.items) if ((0, import_yaml3.isMap)(item)) item.flow = true;
   }
-  if (previous) node2.set("override", previous);
-  doc.setIn(["outcome"], node2);
-  const text2 = doc.toString({ lineWidth: 0 });
-  return { ok: true, text: text2 };
+  const over = node2.get("override", true);
+  if ((0, import_yaml3.isMap)(over)) over.flow = true;
+  const blockText = block.toString({ lineWidth: 0, flowCollectionPadding: false });
+  if (!existing) {
+    const separated = planText.length === 0 || planText.endsWith("\n") ? planText : `${planText}
+`;
+    return { ok: true, text: `${separated}${blockText}` };
+  }
+  const keyStart = existing.key.range[0];
+  const lineStart = planText.lastIndexOf("\n", keyStart - 1) + 1;
+  const valueEnd = existing.value?.range?.[1] ?? existing.key.range[1];
+  const restStart = planText.indexOf("\n", valueEnd);
+  const rest = restStart === -1 ? "" : planText.slice(restStart + 1);
+  return { ok: true, text: `${planText.slice(0, lineStart)}${blockText}${rest}` };
 }
 
 // src/core/readout/combine.ts
@@ -41100,6 +41115,7 @@ var armsOfThePlan = (ctx) => {
       severity: "error",
       code: "totals/unknown-arm",
       path: ["arms", arm2],
+      atKey: true,
       message: `arm "${arm2}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}`,
       expected: `one of the plan's arms: ${planned.join(", ")}`
     });
@@ -41122,6 +41138,7 @@ var metricsOfThePlan = (ctx) => {
           severity: "error",
           code: "totals/unknown-metric",
           path: [...path, "metrics", name],
+          atKey: true,
           message: `metric "${name}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}: a metric chosen after the data is in is not a pre-registered result`,
           expected: `one of the plan's metrics: ${[...known.keys()].join(", ")}`
         });

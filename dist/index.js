@@ -63901,12 +63901,13 @@ function runRules(value, source, rules) {
   const problems = [];
   const context3 = {
     value,
-    report({ severity: severity2, code, path: path6, message, expected, showFound }) {
+    report({ severity: severity2, code, path: path6, message, expected, showFound, atKey }) {
       const found = showFound ? describeValue(valueAt(source.value, path6)) : void 0;
       problems.push({
         severity: severity2,
         code,
-        ...source.locate(path6),
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...atKey && path6.length ? source.locateKey(path6.slice(0, -1), String(path6[path6.length - 1])) : source.locate(path6),
         field: formatFieldPath(path6),
         message,
         ...expected ? { expected } : {},

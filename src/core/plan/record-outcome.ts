@@ -1,4 +1,4 @@
-import { isMap, parseDocument, type YAMLMap } from 'yaml';
+import { Document, isMap, isScalar, isSeq, parseDocument, type Node, type YAMLMap } from 'yaml';
 import type { Readout } from '../readout/build-readout.js';
 import type { OutcomeClass } from './outcome.js';
 
@@ -17,15 +17,17 @@ const DIGITS = 6;
 const round = (x: number) => Number(x.toPrecision(DIGITS));
 
 /**
- * Writes (or rewrites) the `outcome` block of a plan's text from a readout, through yaml's Document
- * API so that every comment, blank line and key order of the rest of the plan stays as it was. An
- * `override` a person wrote is kept: it is their decision, not the computation's.
+ * Writes (or rewrites) the `outcome` block of a plan's text from a readout. yaml's Document API
+ * finds the existing block and builds the new one; only that block's text is replaced (or the
+ * block is appended), so every other byte of the plan (comments, blank lines, key order, flow
+ * style) stays exactly as it was. An `override` a person wrote is kept: it is their decision.
  */
 export function recordOutcome(planText: string, readout: Readout, request: RecordRequest): RecordResult {
   if (readout.verdict === 'not-read') return { ok: false, reason: 'a readout with a sample ratio mismatch has no outcome to record: find the cause first' };
-  const doc = parseDocument(planText, { keepSourceTokens: false });
+  const doc = parseDocument(planText);
   if (doc.errors.length || !isMap(doc.contents)) return { ok: false, reason: 'the plan is not a YAML mapping that can be edited' };
-  const previous = doc.getIn(['outcome', 'override'], true);
+  const existing = doc.contents.items.find((pair) => isScalar(pair.key) && pair.key.value === 'outcome');
+  const override: unknown = doc.getIn(['outcome', 'override']);
   const figures = readout.primary.arms.flatMap((a) => {
     const c = a.comparison;
     if (!c) return [];
@@ -50,16 +52,27 @@ export function recordOutcome(planText: string, readout: Readout, request: Recor
     figures,
     'decided-by': request.decidedBy,
     'recorded-on': request.recordedOn,
+    ...(override !== undefined ? { override } : {}),
   };
-  const node = doc.createNode(outcome) as YAMLMap;
+  const block = new Document({ outcome });
+  const node = block.getIn(['outcome'], true) as YAMLMap;
   // Short lists and each figure on one line keep the block small in a diff.
-  for (const key of ['arms', 'figures']) {
-    const list = node.get(key, true) as { flow?: boolean; items?: { flow?: boolean }[] } | undefined;
-    if (key === 'arms' && list) list.flow = true;
-    if (key === 'figures') for (const item of list?.items ?? []) item.flow = true;
+  const arms = node.get('arms', true);
+  if (isSeq(arms)) arms.flow = true;
+  const listed = node.get('figures', true);
+  if (isSeq(listed)) for (const item of listed.items) if (isMap(item)) item.flow = true;
+  const over = node.get('override', true);
+  if (isMap(over)) over.flow = true;
+  const blockText = block.toString({ lineWidth: 0, flowCollectionPadding: false });
+
+  if (!existing) {
+    const separated = planText.length === 0 || planText.endsWith('\n') ? planText : `${planText}\n`;
+    return { ok: true, text: `${separated}${blockText}` };
   }
-  if (previous) node.set('override', previous);
-  doc.setIn(['outcome'], node);
-  const text = doc.toString({ lineWidth: 0 });
-  return { ok: true, text };
+  const keyStart = (existing.key as Node).range![0];
+  const lineStart = planText.lastIndexOf('\n', keyStart - 1) + 1;
+  const valueEnd = (existing.value as Node | null)?.range?.[1] ?? (existing.key as Node).range![1];
+  const restStart = planText.indexOf('\n', valueEnd);
+  const rest = restStart === -1 ? '' : planText.slice(restStart + 1);
+  return { ok: true, text: `${planText.slice(0, lineStart)}${blockText}${rest}` };
 }

@@ -3467,6 +3467,1524 @@ var require_commander = __commonJS({
   }
 });
 
+// ../main/node_modules/picomatch/lib/constants.js
+var require_constants = __commonJS({
+  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
+    "use strict";
+    var WIN_SLASH = "\\\\/";
+    var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
+    var DOT_LITERAL = "\\.";
+    var PLUS_LITERAL = "\\+";
+    var QMARK_LITERAL = "\\?";
+    var SLASH_LITERAL = "\\/";
+    var ONE_CHAR = "(?=.)";
+    var QMARK = "[^/]";
+    var END_ANCHOR = `(?:${SLASH_LITERAL}|$)`;
+    var START_ANCHOR = `(?:^|${SLASH_LITERAL})`;
+    var DOTS_SLASH = `${DOT_LITERAL}{1,2}${END_ANCHOR}`;
+    var NO_DOT = `(?!${DOT_LITERAL})`;
+    var NO_DOTS = `(?!${START_ANCHOR}${DOTS_SLASH})`;
+    var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
+    var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
+    var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
+    var STAR = `${QMARK}*?`;
+    var SEP = "/";
+    var POSIX_CHARS = {
+      DOT_LITERAL,
+      PLUS_LITERAL,
+      QMARK_LITERAL,
+      SLASH_LITERAL,
+      ONE_CHAR,
+      QMARK,
+      END_ANCHOR,
+      DOTS_SLASH,
+      NO_DOT,
+      NO_DOTS,
+      NO_DOT_SLASH,
+      NO_DOTS_SLASH,
+      QMARK_NO_DOT,
+      STAR,
+      START_ANCHOR,
+      SEP
+    };
+    var WINDOWS_CHARS = {
+      ...POSIX_CHARS,
+      SLASH_LITERAL: `[${WIN_SLASH}]`,
+      QMARK: WIN_NO_SLASH,
+      STAR: `${WIN_NO_SLASH}*?`,
+      DOTS_SLASH: `${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$)`,
+      NO_DOT: `(?!${DOT_LITERAL})`,
+      NO_DOTS: `(?!(?:^|[${WIN_SLASH}])${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
+      NO_DOT_SLASH: `(?!${DOT_LITERAL}{0,1}(?:[${WIN_SLASH}]|$))`,
+      NO_DOTS_SLASH: `(?!${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
+      QMARK_NO_DOT: `[^.${WIN_SLASH}]`,
+      START_ANCHOR: `(?:^|[${WIN_SLASH}])`,
+      END_ANCHOR: `(?:[${WIN_SLASH}]|$)`,
+      SEP: "\\"
+    };
+    var POSIX_REGEX_SOURCE = {
+      alnum: "a-zA-Z0-9",
+      alpha: "a-zA-Z",
+      ascii: "\\x00-\\x7F",
+      blank: " \\t",
+      cntrl: "\\x00-\\x1F\\x7F",
+      digit: "0-9",
+      graph: "\\x21-\\x7E",
+      lower: "a-z",
+      print: "\\x20-\\x7E ",
+      punct: "\\-!\"#$%&'()\\*+,./:;<=>?@[\\]^_`{|}~",
+      space: " \\t\\r\\n\\v\\f",
+      upper: "A-Z",
+      word: "A-Za-z0-9_",
+      xdigit: "A-Fa-f0-9"
+    };
+    module.exports = {
+      MAX_LENGTH: 1024 * 64,
+      POSIX_REGEX_SOURCE,
+      // regular expressions
+      REGEX_BACKSLASH: /\\(?![*+?^${}(|)[\]])/g,
+      REGEX_NON_SPECIAL_CHARS: /^[^@![\].,$*+?^{}()|\\/]+/,
+      REGEX_SPECIAL_CHARS: /[-*+?.^${}(|)[\]]/,
+      REGEX_SPECIAL_CHARS_BACKREF: /(\\?)((\W)(\3*))/g,
+      REGEX_SPECIAL_CHARS_GLOBAL: /([-*+?.^${}(|)[\]])/g,
+      REGEX_REMOVE_BACKSLASH: /(?:\[.*?[^\\]\]|\\(?=.))/g,
+      // Replace globs with equivalent patterns to reduce parsing time.
+      REPLACEMENTS: {
+        __proto__: null,
+        "***": "*",
+        "**/**": "**",
+        "**/**/**": "**"
+      },
+      // Digits
+      CHAR_0: 48,
+      /* 0 */
+      CHAR_9: 57,
+      /* 9 */
+      // Alphabet chars.
+      CHAR_UPPERCASE_A: 65,
+      /* A */
+      CHAR_LOWERCASE_A: 97,
+      /* a */
+      CHAR_UPPERCASE_Z: 90,
+      /* Z */
+      CHAR_LOWERCASE_Z: 122,
+      /* z */
+      CHAR_LEFT_PARENTHESES: 40,
+      /* ( */
+      CHAR_RIGHT_PARENTHESES: 41,
+      /* ) */
+      CHAR_ASTERISK: 42,
+      /* * */
+      // Non-alphabetic chars.
+      CHAR_AMPERSAND: 38,
+      /* & */
+      CHAR_AT: 64,
+      /* @ */
+      CHAR_BACKWARD_SLASH: 92,
+      /* \ */
+      CHAR_CARRIAGE_RETURN: 13,
+      /* \r */
+      CHAR_CIRCUMFLEX_ACCENT: 94,
+      /* ^ */
+      CHAR_COLON: 58,
+      /* : */
+      CHAR_COMMA: 44,
+      /* , */
+      CHAR_DOT: 46,
+      /* . */
+      CHAR_DOUBLE_QUOTE: 34,
+      /* " */
+      CHAR_EQUAL: 61,
+      /* = */
+      CHAR_EXCLAMATION_MARK: 33,
+      /* ! */
+      CHAR_FORM_FEED: 12,
+      /* \f */
+      CHAR_FORWARD_SLASH: 47,
+      /* / */
+      CHAR_GRAVE_ACCENT: 96,
+      /* ` */
+      CHAR_HASH: 35,
+      /* # */
+      CHAR_HYPHEN_MINUS: 45,
+      /* - */
+      CHAR_LEFT_ANGLE_BRACKET: 60,
+      /* < */
+      CHAR_LEFT_CURLY_BRACE: 123,
+      /* { */
+      CHAR_LEFT_SQUARE_BRACKET: 91,
+      /* [ */
+      CHAR_LINE_FEED: 10,
+      /* \n */
+      CHAR_NO_BREAK_SPACE: 160,
+      /* \u00A0 */
+      CHAR_PERCENT: 37,
+      /* % */
+      CHAR_PLUS: 43,
+      /* + */
+      CHAR_QUESTION_MARK: 63,
+      /* ? */
+      CHAR_RIGHT_ANGLE_BRACKET: 62,
+      /* > */
+      CHAR_RIGHT_CURLY_BRACE: 125,
+      /* } */
+      CHAR_RIGHT_SQUARE_BRACKET: 93,
+      /* ] */
+      CHAR_SEMICOLON: 59,
+      /* ; */
+      CHAR_SINGLE_QUOTE: 39,
+      /* ' */
+      CHAR_SPACE: 32,
+      /*   */
+      CHAR_TAB: 9,
+      /* \t */
+      CHAR_UNDERSCORE: 95,
+      /* _ */
+      CHAR_VERTICAL_LINE: 124,
+      /* | */
+      CHAR_ZERO_WIDTH_NOBREAK_SPACE: 65279,
+      /* \uFEFF */
+      /**
+       * Create EXTGLOB_CHARS
+       */
+      extglobChars(chars) {
+        return {
+          "!": { type: "negate", open: "(?:(?!(?:", close: `))${chars.STAR})` },
+          "?": { type: "qmark", open: "(?:", close: ")?" },
+          "+": { type: "plus", open: "(?:", close: ")+" },
+          "*": { type: "star", open: "(?:", close: ")*" },
+          "@": { type: "at", open: "(?:", close: ")" }
+        };
+      },
+      /**
+       * Create GLOB_CHARS
+       */
+      globChars(win32) {
+        return win32 === true ? WINDOWS_CHARS : POSIX_CHARS;
+      }
+    };
+  }
+});
+
+// ../main/node_modules/picomatch/lib/utils.js
+var require_utils = __commonJS({
+  "../main/node_modules/picomatch/lib/utils.js"(exports) {
+    "use strict";
+    var {
+      REGEX_BACKSLASH,
+      REGEX_REMOVE_BACKSLASH,
+      REGEX_SPECIAL_CHARS,
+      REGEX_SPECIAL_CHARS_GLOBAL
+    } = require_constants();
+    exports.isObject = (val) => val !== null && typeof val === "object" && !Array.isArray(val);
+    exports.hasRegexChars = (str) => REGEX_SPECIAL_CHARS.test(str);
+    exports.isRegexChar = (str) => str.length === 1 && exports.hasRegexChars(str);
+    exports.escapeRegex = (str) => str.replace(REGEX_SPECIAL_CHARS_GLOBAL, "\\$1");
+    exports.toPosixSlashes = (str) => str.replace(REGEX_BACKSLASH, "/");
+    exports.isWindows = () => {
+      if (typeof navigator !== "undefined" && navigator.platform) {
+        const platform2 = navigator.platform.toLowerCase();
+        return platform2 === "win32" || platform2 === "windows";
+      }
+      if (typeof process !== "undefined" && process.platform) {
+        return process.platform === "win32";
+      }
+      return false;
+    };
+    exports.removeBackslashes = (str) => {
+      return str.replace(REGEX_REMOVE_BACKSLASH, (match) => {
+        return match === "\\" ? "" : match;
+      });
+    };
+    exports.escapeLast = (input2, char, lastIdx) => {
+      const idx = input2.lastIndexOf(char, lastIdx);
+      if (idx === -1) return input2;
+      if (input2[idx - 1] === "\\") return exports.escapeLast(input2, char, idx - 1);
+      return `${input2.slice(0, idx)}\\${input2.slice(idx)}`;
+    };
+    exports.removePrefix = (input2, state = {}) => {
+      let output2 = input2;
+      if (output2.startsWith("./")) {
+        output2 = output2.slice(2);
+        state.prefix = "./";
+      }
+      return output2;
+    };
+    exports.wrapOutput = (input2, state = {}, options = {}) => {
+      const prepend = options.contains ? "" : "^";
+      const append = options.contains ? "" : "$";
+      let output2 = `${prepend}(?:${input2})${append}`;
+      if (state.negated === true) {
+        output2 = `(?:^(?!${output2}).*$)`;
+      }
+      return output2;
+    };
+    exports.basename = (path, { windows } = {}) => {
+      const segs = path.split(windows ? /[\\/]/ : "/");
+      const last = segs[segs.length - 1];
+      if (last === "") {
+        return segs[segs.length - 2];
+      }
+      return last;
+    };
+  }
+});
+
+// ../main/node_modules/picomatch/lib/scan.js
+var require_scan = __commonJS({
+  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
+    "use strict";
+    var utils = require_utils();
+    var {
+      CHAR_ASTERISK,
+      /* * */
+      CHAR_AT,
+      /* @ */
+      CHAR_BACKWARD_SLASH,
+      /* \ */
+      CHAR_COMMA,
+      /* , */
+      CHAR_DOT,
+      /* . */
+      CHAR_EXCLAMATION_MARK,
+      /* ! */
+      CHAR_FORWARD_SLASH,
+      /* / */
+      CHAR_LEFT_CURLY_BRACE,
+      /* { */
+      CHAR_LEFT_PARENTHESES,
+      /* ( */
+      CHAR_LEFT_SQUARE_BRACKET,
+      /* [ */
+      CHAR_PLUS,
+      /* + */
+      CHAR_QUESTION_MARK,
+      /* ? */
+      CHAR_RIGHT_CURLY_BRACE,
+      /* } */
+      CHAR_RIGHT_PARENTHESES,
+      /* ) */
+      CHAR_RIGHT_SQUARE_BRACKET
+      /* ] */
+    } = require_constants();
+    var isPathSeparator = (code) => {
+      return code === CHAR_FORWARD_SLASH || code === CHAR_BACKWARD_SLASH;
+    };
+    var depth = (token) => {
+      if (token.isPrefix !== true) {
+        token.depth = token.isGlobstar ? Infinity : 1;
+      }
+    };
+    var scan = (input2, options) => {
+      const opts = options || {};
+      const length = input2.length - 1;
+      const scanToEnd = opts.parts === true || opts.scanToEnd === true;
+      const slashes = [];
+      const tokens = [];
+      const parts = [];
+      let str = input2;
+      let index = -1;
+      let start = 0;
+      let lastIndex = 0;
+      let isBrace = false;
+      let isBracket = false;
+      let isGlob = false;
+      let isExtglob = false;
+      let isGlobstar = false;
+      let braceEscaped = false;
+      let backslashes = false;
+      let negated = false;
+      let negatedExtglob = false;
+      let finished = false;
+      let braces = 0;
+      let prev;
+      let code;
+      let token = { value: "", depth: 0, isGlob: false };
+      const eos = () => index >= length;
+      const peek = () => str.charCodeAt(index + 1);
+      const advance = () => {
+        prev = code;
+        return str.charCodeAt(++index);
+      };
+      while (index < length) {
+        code = advance();
+        let next;
+        if (code === CHAR_BACKWARD_SLASH) {
+          backslashes = token.backslashes = true;
+          code = advance();
+          if (code === CHAR_LEFT_CURLY_BRACE) {
+            braceEscaped = true;
+          }
+          continue;
+        }
+        if (braceEscaped === true || code === CHAR_LEFT_CURLY_BRACE) {
+          braces++;
+          while (eos() !== true && (code = advance())) {
+            if (code === CHAR_BACKWARD_SLASH) {
+              backslashes = token.backslashes = true;
+              advance();
+              continue;
+            }
+            if (code === CHAR_LEFT_CURLY_BRACE) {
+              braces++;
+              continue;
+            }
+            if (braceEscaped !== true && code === CHAR_DOT && (code = advance()) === CHAR_DOT) {
+              isBrace = token.isBrace = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              if (scanToEnd === true) {
+                continue;
+              }
+              break;
+            }
+            if (braceEscaped !== true && code === CHAR_COMMA) {
+              isBrace = token.isBrace = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              if (scanToEnd === true) {
+                continue;
+              }
+              break;
+            }
+            if (code === CHAR_RIGHT_CURLY_BRACE) {
+              braces--;
+              if (braces === 0) {
+                braceEscaped = false;
+                isBrace = token.isBrace = true;
+                finished = true;
+                break;
+              }
+            }
+          }
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_FORWARD_SLASH) {
+          slashes.push(index);
+          tokens.push(token);
+          token = { value: "", depth: 0, isGlob: false };
+          if (finished === true) continue;
+          if (prev === CHAR_DOT && index === start + 1) {
+            start += 2;
+            continue;
+          }
+          lastIndex = index + 1;
+          continue;
+        }
+        if (opts.noext !== true) {
+          const isExtglobChar = code === CHAR_PLUS || code === CHAR_AT || code === CHAR_ASTERISK || code === CHAR_QUESTION_MARK || code === CHAR_EXCLAMATION_MARK;
+          if (isExtglobChar === true && peek() === CHAR_LEFT_PARENTHESES) {
+            isGlob = token.isGlob = true;
+            isExtglob = token.isExtglob = true;
+            finished = true;
+            if (code === CHAR_EXCLAMATION_MARK && index === start) {
+              negatedExtglob = true;
+            }
+            if (scanToEnd === true) {
+              while (eos() !== true && (code = advance())) {
+                if (code === CHAR_BACKWARD_SLASH) {
+                  backslashes = token.backslashes = true;
+                  code = advance();
+                  continue;
+                }
+                if (code === CHAR_RIGHT_PARENTHESES) {
+                  isGlob = token.isGlob = true;
+                  finished = true;
+                  break;
+                }
+              }
+              continue;
+            }
+            break;
+          }
+        }
+        if (code === CHAR_ASTERISK) {
+          if (prev === CHAR_ASTERISK) isGlobstar = token.isGlobstar = true;
+          isGlob = token.isGlob = true;
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_QUESTION_MARK) {
+          isGlob = token.isGlob = true;
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_LEFT_SQUARE_BRACKET) {
+          while (eos() !== true && (next = advance())) {
+            if (next === CHAR_BACKWARD_SLASH) {
+              backslashes = token.backslashes = true;
+              advance();
+              continue;
+            }
+            if (next === CHAR_RIGHT_SQUARE_BRACKET) {
+              isBracket = token.isBracket = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              break;
+            }
+          }
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (opts.nonegate !== true && code === CHAR_EXCLAMATION_MARK && index === start) {
+          negated = token.negated = true;
+          start++;
+          continue;
+        }
+        if (opts.noparen !== true && code === CHAR_LEFT_PARENTHESES) {
+          isGlob = token.isGlob = true;
+          if (scanToEnd === true) {
+            while (eos() !== true && (code = advance())) {
+              if (code === CHAR_LEFT_PARENTHESES) {
+                backslashes = token.backslashes = true;
+                code = advance();
+                continue;
+              }
+              if (code === CHAR_RIGHT_PARENTHESES) {
+                finished = true;
+                break;
+              }
+            }
+            continue;
+          }
+          break;
+        }
+        if (isGlob === true) {
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+      }
+      if (opts.noext === true) {
+        isExtglob = false;
+        isGlob = false;
+      }
+      let base = str;
+      let prefix = "";
+      let glob = "";
+      if (start > 0) {
+        prefix = str.slice(0, start);
+        str = str.slice(start);
+        lastIndex -= start;
+      }
+      if (base && isGlob === true && lastIndex > 0) {
+        base = str.slice(0, lastIndex);
+        glob = str.slice(lastIndex);
+      } else if (isGlob === true) {
+        base = "";
+        glob = str;
+      } else {
+        base = str;
+      }
+      if (base && base !== "" && base !== "/" && base !== str) {
+        if (isPathSeparator(base.charCodeAt(base.length - 1))) {
+          base = base.slice(0, -1);
+        }
+      }
+      if (opts.unescape === true) {
+        if (glob) glob = utils.removeBackslashes(glob);
+        if (base && backslashes === true) {
+          base = utils.removeBackslashes(base);
+        }
+      }
+      const state = {
+        prefix,
+        input: input2,
+        start,
+        base,
+        glob,
+        isBrace,
+        isBracket,
+        isGlob,
+        isExtglob,
+        isGlobstar,
+        negated,
+        negatedExtglob
+      };
+      if (opts.tokens === true) {
+        state.maxDepth = 0;
+        if (!isPathSeparator(code)) {
+          tokens.push(token);
+        }
+        state.tokens = tokens;
+      }
+      if (opts.parts === true || opts.tokens === true) {
+        let prevIndex;
+        for (let idx = 0; idx < slashes.length; idx++) {
+          const n = prevIndex ? prevIndex + 1 : start;
+          const i = slashes[idx];
+          const value = input2.slice(n, i);
+          if (opts.tokens) {
+            if (idx === 0 && start !== 0) {
+              tokens[idx].isPrefix = true;
+              tokens[idx].value = prefix;
+            } else {
+              tokens[idx].value = value;
+            }
+            depth(tokens[idx]);
+            state.maxDepth += tokens[idx].depth;
+          }
+          if (idx !== 0 || value !== "") {
+            parts.push(value);
+          }
+          prevIndex = i;
+        }
+        if (prevIndex && prevIndex + 1 < input2.length) {
+          const value = input2.slice(prevIndex + 1);
+          parts.push(value);
+          if (opts.tokens) {
+            tokens[tokens.length - 1].value = value;
+            depth(tokens[tokens.length - 1]);
+            state.maxDepth += tokens[tokens.length - 1].depth;
+          }
+        }
+        state.slashes = slashes;
+        state.parts = parts;
+      }
+      return state;
+    };
+    module.exports = scan;
+  }
+});
+
+// ../main/node_modules/picomatch/lib/parse.js
+var require_parse = __commonJS({
+  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
+    "use strict";
+    var constants = require_constants();
+    var utils = require_utils();
+    var {
+      MAX_LENGTH,
+      POSIX_REGEX_SOURCE,
+      REGEX_NON_SPECIAL_CHARS,
+      REGEX_SPECIAL_CHARS_BACKREF,
+      REPLACEMENTS
+    } = constants;
+    var expandRange = (args, options) => {
+      if (typeof options.expandRange === "function") {
+        return options.expandRange(...args, options);
+      }
+      args.sort();
+      const value = `[${args.join("-")}]`;
+      try {
+        new RegExp(value);
+      } catch (ex) {
+        return args.map((v) => utils.escapeRegex(v)).join("..");
+      }
+      return value;
+    };
+    var syntaxError = (type, char) => {
+      return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
+    };
+    var parse4 = (input2, options) => {
+      if (typeof input2 !== "string") {
+        throw new TypeError("Expected a string");
+      }
+      input2 = REPLACEMENTS[input2] || input2;
+      const opts = { ...options };
+      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
+      let len = input2.length;
+      if (len > max) {
+        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
+      }
+      const bos = { type: "bos", value: "", output: opts.prepend || "" };
+      const tokens = [bos];
+      const capture = opts.capture ? "" : "?:";
+      const PLATFORM_CHARS = constants.globChars(opts.windows);
+      const EXTGLOB_CHARS = constants.extglobChars(PLATFORM_CHARS);
+      const {
+        DOT_LITERAL,
+        PLUS_LITERAL,
+        SLASH_LITERAL,
+        ONE_CHAR,
+        DOTS_SLASH,
+        NO_DOT,
+        NO_DOT_SLASH,
+        NO_DOTS_SLASH,
+        QMARK,
+        QMARK_NO_DOT,
+        STAR,
+        START_ANCHOR
+      } = PLATFORM_CHARS;
+      const globstar = (opts2) => {
+        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
+      };
+      const nodot = opts.dot ? "" : NO_DOT;
+      const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
+      let star = opts.bash === true ? globstar(opts) : STAR;
+      if (opts.capture) {
+        star = `(${star})`;
+      }
+      if (typeof opts.noext === "boolean") {
+        opts.noextglob = opts.noext;
+      }
+      const state = {
+        input: input2,
+        index: -1,
+        start: 0,
+        dot: opts.dot === true,
+        consumed: "",
+        output: "",
+        prefix: "",
+        backtrack: false,
+        negated: false,
+        brackets: 0,
+        braces: 0,
+        parens: 0,
+        quotes: 0,
+        globstar: false,
+        tokens
+      };
+      input2 = utils.removePrefix(input2, state);
+      len = input2.length;
+      const extglobs = [];
+      const braces = [];
+      const stack = [];
+      let prev = bos;
+      let value;
+      const eos = () => state.index === len - 1;
+      const peek = state.peek = (n = 1) => input2[state.index + n];
+      const advance = state.advance = () => input2[++state.index] || "";
+      const remaining = () => input2.slice(state.index + 1);
+      const consume = (value2 = "", num = 0) => {
+        state.consumed += value2;
+        state.index += num;
+      };
+      const append = (token) => {
+        state.output += token.output != null ? token.output : token.value;
+        consume(token.value);
+      };
+      const negate = () => {
+        let count3 = 1;
+        while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
+          advance();
+          state.start++;
+          count3++;
+        }
+        if (count3 % 2 === 0) {
+          return false;
+        }
+        state.negated = true;
+        state.start++;
+        return true;
+      };
+      const increment = (type) => {
+        state[type]++;
+        stack.push(type);
+      };
+      const decrement = (type) => {
+        state[type]--;
+        stack.pop();
+      };
+      const push = (tok) => {
+        if (prev.type === "globstar") {
+          const isBrace = state.braces > 0 && (tok.type === "comma" || tok.type === "brace");
+          const isExtglob = tok.extglob === true || extglobs.length && (tok.type === "pipe" || tok.type === "paren");
+          if (tok.type !== "slash" && tok.type !== "paren" && !isBrace && !isExtglob) {
+            state.output = state.output.slice(0, -prev.output.length);
+            prev.type = "star";
+            prev.value = "*";
+            prev.output = star;
+            state.output += prev.output;
+          }
+        }
+        if (extglobs.length && tok.type !== "paren") {
+          extglobs[extglobs.length - 1].inner += tok.value;
+        }
+        if (tok.value || tok.output) append(tok);
+        if (prev && prev.type === "text" && tok.type === "text") {
+          prev.output = (prev.output || prev.value) + tok.value;
+          prev.value += tok.value;
+          return;
+        }
+        tok.prev = prev;
+        tokens.push(tok);
+        prev = tok;
+      };
+      const extglobOpen = (type, value2) => {
+        const token = { ...EXTGLOB_CHARS[value2], conditions: 1, inner: "" };
+        token.prev = prev;
+        token.parens = state.parens;
+        token.output = state.output;
+        const output2 = (opts.capture ? "(" : "") + token.open;
+        increment("parens");
+        push({ type, value: value2, output: state.output ? "" : ONE_CHAR });
+        push({ type: "paren", extglob: true, value: advance(), output: output2 });
+        extglobs.push(token);
+      };
+      const extglobClose = (token) => {
+        let output2 = token.close + (opts.capture ? ")" : "");
+        let rest;
+        if (token.type === "negate") {
+          let extglobStar = star;
+          if (token.inner && token.inner.length > 1 && token.inner.includes("/")) {
+            extglobStar = globstar(opts);
+          }
+          if (extglobStar !== star || eos() || /^\)+$/.test(remaining())) {
+            output2 = token.close = `)$))${extglobStar}`;
+          }
+          if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
+            const expression = parse4(rest, { ...options, fastpaths: false }).output;
+            output2 = token.close = `)${expression})${extglobStar})`;
+          }
+          if (token.prev.type === "bos") {
+            state.negatedExtglob = true;
+          }
+        }
+        push({ type: "paren", extglob: true, value, output: output2 });
+        decrement("parens");
+      };
+      if (opts.fastpaths !== false && !/(^[*!]|[/()[\]{}"])/.test(input2)) {
+        let backslashes = false;
+        let output2 = input2.replace(REGEX_SPECIAL_CHARS_BACKREF, (m, esc2, chars, first, rest, index) => {
+          if (first === "\\") {
+            backslashes = true;
+            return m;
+          }
+          if (first === "?") {
+            if (esc2) {
+              return esc2 + first + (rest ? QMARK.repeat(rest.length) : "");
+            }
+            if (index === 0) {
+              return qmarkNoDot + (rest ? QMARK.repeat(rest.length) : "");
+            }
+            return QMARK.repeat(chars.length);
+          }
+          if (first === ".") {
+            return DOT_LITERAL.repeat(chars.length);
+          }
+          if (first === "*") {
+            if (esc2) {
+              return esc2 + first + (rest ? star : "");
+            }
+            return star;
+          }
+          return esc2 ? m : `\\${m}`;
+        });
+        if (backslashes === true) {
+          if (opts.unescape === true) {
+            output2 = output2.replace(/\\/g, "");
+          } else {
+            output2 = output2.replace(/\\+/g, (m) => {
+              return m.length % 2 === 0 ? "\\\\" : m ? "\\" : "";
+            });
+          }
+        }
+        if (output2 === input2 && opts.contains === true) {
+          state.output = input2;
+          return state;
+        }
+        state.output = utils.wrapOutput(output2, state, options);
+        return state;
+      }
+      while (!eos()) {
+        value = advance();
+        if (value === "\0") {
+          continue;
+        }
+        if (value === "\\") {
+          const next = peek();
+          if (next === "/" && opts.bash !== true) {
+            continue;
+          }
+          if (next === "." || next === ";") {
+            continue;
+          }
+          if (!next) {
+            value += "\\";
+            push({ type: "text", value });
+            continue;
+          }
+          const match = /^\\+/.exec(remaining());
+          let slashes = 0;
+          if (match && match[0].length > 2) {
+            slashes = match[0].length;
+            state.index += slashes;
+            if (slashes % 2 !== 0) {
+              value += "\\";
+            }
+          }
+          if (opts.unescape === true) {
+            value = advance();
+          } else {
+            value += advance();
+          }
+          if (state.brackets === 0) {
+            push({ type: "text", value });
+            continue;
+          }
+        }
+        if (state.brackets > 0 && (value !== "]" || prev.value === "[" || prev.value === "[^")) {
+          if (opts.posix !== false && value === ":") {
+            const inner = prev.value.slice(1);
+            if (inner.includes("[")) {
+              prev.posix = true;
+              if (inner.includes(":")) {
+                const idx = prev.value.lastIndexOf("[");
+                const pre = prev.value.slice(0, idx);
+                const rest2 = prev.value.slice(idx + 2);
+                const posix2 = POSIX_REGEX_SOURCE[rest2];
+                if (posix2) {
+                  prev.value = pre + posix2;
+                  state.backtrack = true;
+                  advance();
+                  if (!bos.output && tokens.indexOf(prev) === 1) {
+                    bos.output = ONE_CHAR;
+                  }
+                  continue;
+                }
+              }
+            }
+          }
+          if (value === "[" && peek() !== ":" || value === "-" && peek() === "]") {
+            value = `\\${value}`;
+          }
+          if (value === "]" && (prev.value === "[" || prev.value === "[^")) {
+            value = `\\${value}`;
+          }
+          if (opts.posix === true && value === "!" && prev.value === "[") {
+            value = "^";
+          }
+          prev.value += value;
+          append({ value });
+          continue;
+        }
+        if (state.quotes === 1 && value !== '"') {
+          value = utils.escapeRegex(value);
+          prev.value += value;
+          append({ value });
+          continue;
+        }
+        if (value === '"') {
+          state.quotes = state.quotes === 1 ? 0 : 1;
+          if (opts.keepQuotes === true) {
+            push({ type: "text", value });
+          }
+          continue;
+        }
+        if (value === "(") {
+          increment("parens");
+          push({ type: "paren", value });
+          continue;
+        }
+        if (value === ")") {
+          if (state.parens === 0 && opts.strictBrackets === true) {
+            throw new SyntaxError(syntaxError("opening", "("));
+          }
+          const extglob = extglobs[extglobs.length - 1];
+          if (extglob && state.parens === extglob.parens + 1) {
+            extglobClose(extglobs.pop());
+            continue;
+          }
+          push({ type: "paren", value, output: state.parens ? ")" : "\\)" });
+          decrement("parens");
+          continue;
+        }
+        if (value === "[") {
+          if (opts.nobracket === true || !remaining().includes("]")) {
+            if (opts.nobracket !== true && opts.strictBrackets === true) {
+              throw new SyntaxError(syntaxError("closing", "]"));
+            }
+            value = `\\${value}`;
+          } else {
+            increment("brackets");
+          }
+          push({ type: "bracket", value });
+          continue;
+        }
+        if (value === "]") {
+          if (opts.nobracket === true || prev && prev.type === "bracket" && prev.value.length === 1) {
+            push({ type: "text", value, output: `\\${value}` });
+            continue;
+          }
+          if (state.brackets === 0) {
+            if (opts.strictBrackets === true) {
+              throw new SyntaxError(syntaxError("opening", "["));
+            }
+            push({ type: "text", value, output: `\\${value}` });
+            continue;
+          }
+          decrement("brackets");
+          const prevValue = prev.value.slice(1);
+          if (prev.posix !== true && prevValue[0] === "^" && !prevValue.includes("/")) {
+            value = `/${value}`;
+          }
+          prev.value += value;
+          append({ value });
+          if (opts.literalBrackets === false || utils.hasRegexChars(prevValue)) {
+            continue;
+          }
+          const escaped = utils.escapeRegex(prev.value);
+          state.output = state.output.slice(0, -prev.value.length);
+          if (opts.literalBrackets === true) {
+            state.output += escaped;
+            prev.value = escaped;
+            continue;
+          }
+          prev.value = `(${capture}${escaped}|${prev.value})`;
+          state.output += prev.value;
+          continue;
+        }
+        if (value === "{" && opts.nobrace !== true) {
+          increment("braces");
+          const open2 = {
+            type: "brace",
+            value,
+            output: "(",
+            outputIndex: state.output.length,
+            tokensIndex: state.tokens.length
+          };
+          braces.push(open2);
+          push(open2);
+          continue;
+        }
+        if (value === "}") {
+          const brace = braces[braces.length - 1];
+          if (opts.nobrace === true || !brace) {
+            push({ type: "text", value, output: value });
+            continue;
+          }
+          let output2 = ")";
+          if (brace.dots === true) {
+            const arr = tokens.slice();
+            const range = [];
+            for (let i = arr.length - 1; i >= 0; i--) {
+              tokens.pop();
+              if (arr[i].type === "brace") {
+                break;
+              }
+              if (arr[i].type !== "dots") {
+                range.unshift(arr[i].value);
+              }
+            }
+            output2 = expandRange(range, opts);
+            state.backtrack = true;
+          }
+          if (brace.comma !== true && brace.dots !== true) {
+            const out = state.output.slice(0, brace.outputIndex);
+            const toks = state.tokens.slice(brace.tokensIndex);
+            brace.value = brace.output = "\\{";
+            value = output2 = "\\}";
+            state.output = out;
+            for (const t of toks) {
+              state.output += t.output || t.value;
+            }
+          }
+          push({ type: "brace", value, output: output2 });
+          decrement("braces");
+          braces.pop();
+          continue;
+        }
+        if (value === "|") {
+          if (extglobs.length > 0) {
+            extglobs[extglobs.length - 1].conditions++;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (value === ",") {
+          let output2 = value;
+          const brace = braces[braces.length - 1];
+          if (brace && stack[stack.length - 1] === "braces") {
+            brace.comma = true;
+            output2 = "|";
+          }
+          push({ type: "comma", value, output: output2 });
+          continue;
+        }
+        if (value === "/") {
+          if (prev.type === "dot" && state.index === state.start + 1) {
+            state.start = state.index + 1;
+            state.consumed = "";
+            state.output = "";
+            tokens.pop();
+            prev = bos;
+            continue;
+          }
+          push({ type: "slash", value, output: SLASH_LITERAL });
+          continue;
+        }
+        if (value === ".") {
+          if (state.braces > 0 && prev.type === "dot") {
+            if (prev.value === ".") prev.output = DOT_LITERAL;
+            const brace = braces[braces.length - 1];
+            prev.type = "dots";
+            prev.output += value;
+            prev.value += value;
+            brace.dots = true;
+            continue;
+          }
+          if (state.braces + state.parens === 0 && prev.type !== "bos" && prev.type !== "slash") {
+            push({ type: "text", value, output: DOT_LITERAL });
+            continue;
+          }
+          push({ type: "dot", value, output: DOT_LITERAL });
+          continue;
+        }
+        if (value === "?") {
+          const isGroup = prev && prev.value === "(";
+          if (!isGroup && opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            extglobOpen("qmark", value);
+            continue;
+          }
+          if (prev && prev.type === "paren") {
+            const next = peek();
+            let output2 = value;
+            if (prev.value === "(" && !/[!=<:]/.test(next) || next === "<" && !/<([!=]|\w+>)/.test(remaining())) {
+              output2 = `\\${value}`;
+            }
+            push({ type: "text", value, output: output2 });
+            continue;
+          }
+          if (opts.dot !== true && (prev.type === "slash" || prev.type === "bos")) {
+            push({ type: "qmark", value, output: QMARK_NO_DOT });
+            continue;
+          }
+          push({ type: "qmark", value, output: QMARK });
+          continue;
+        }
+        if (value === "!") {
+          if (opts.noextglob !== true && peek() === "(") {
+            if (peek(2) !== "?" || !/[!=<:]/.test(peek(3))) {
+              extglobOpen("negate", value);
+              continue;
+            }
+          }
+          if (opts.nonegate !== true && state.index === 0) {
+            negate();
+            continue;
+          }
+        }
+        if (value === "+") {
+          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            extglobOpen("plus", value);
+            continue;
+          }
+          if (prev && prev.value === "(" || opts.regex === false) {
+            push({ type: "plus", value, output: PLUS_LITERAL });
+            continue;
+          }
+          if (prev && (prev.type === "bracket" || prev.type === "paren" || prev.type === "brace") || state.parens > 0) {
+            push({ type: "plus", value });
+            continue;
+          }
+          push({ type: "plus", value: PLUS_LITERAL });
+          continue;
+        }
+        if (value === "@") {
+          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            push({ type: "at", extglob: true, value, output: "" });
+            continue;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (value !== "*") {
+          if (value === "$" || value === "^") {
+            value = `\\${value}`;
+          }
+          const match = REGEX_NON_SPECIAL_CHARS.exec(remaining());
+          if (match) {
+            value += match[0];
+            state.index += match[0].length;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (prev && (prev.type === "globstar" || prev.star === true)) {
+          prev.type = "star";
+          prev.star = true;
+          prev.value += value;
+          prev.output = star;
+          state.backtrack = true;
+          state.globstar = true;
+          consume(value);
+          continue;
+        }
+        let rest = remaining();
+        if (opts.noextglob !== true && /^\([^?]/.test(rest)) {
+          extglobOpen("star", value);
+          continue;
+        }
+        if (prev.type === "star") {
+          if (opts.noglobstar === true) {
+            consume(value);
+            continue;
+          }
+          const prior = prev.prev;
+          const before = prior.prev;
+          const isStart = prior.type === "slash" || prior.type === "bos";
+          const afterStar = before && (before.type === "star" || before.type === "globstar");
+          if (opts.bash === true && (!isStart || rest[0] && rest[0] !== "/")) {
+            push({ type: "star", value, output: "" });
+            continue;
+          }
+          const isBrace = state.braces > 0 && (prior.type === "comma" || prior.type === "brace");
+          const isExtglob = extglobs.length && (prior.type === "pipe" || prior.type === "paren");
+          if (!isStart && prior.type !== "paren" && !isBrace && !isExtglob) {
+            push({ type: "star", value, output: "" });
+            continue;
+          }
+          while (rest.slice(0, 3) === "/**") {
+            const after = input2[state.index + 4];
+            if (after && after !== "/") {
+              break;
+            }
+            rest = rest.slice(3);
+            consume("/**", 3);
+          }
+          if (prior.type === "bos" && eos()) {
+            prev.type = "globstar";
+            prev.value += value;
+            prev.output = globstar(opts);
+            state.output = prev.output;
+            state.globstar = true;
+            consume(value);
+            continue;
+          }
+          if (prior.type === "slash" && prior.prev.type !== "bos" && !afterStar && eos()) {
+            state.output = state.output.slice(0, -(prior.output + prev.output).length);
+            prior.output = `(?:${prior.output}`;
+            prev.type = "globstar";
+            prev.output = globstar(opts) + (opts.strictSlashes ? ")" : "|$)");
+            prev.value += value;
+            state.globstar = true;
+            state.output += prior.output + prev.output;
+            consume(value);
+            continue;
+          }
+          if (prior.type === "slash" && prior.prev.type !== "bos" && rest[0] === "/") {
+            const end = rest[1] !== void 0 ? "|$" : "";
+            state.output = state.output.slice(0, -(prior.output + prev.output).length);
+            prior.output = `(?:${prior.output}`;
+            prev.type = "globstar";
+            prev.output = `${globstar(opts)}${SLASH_LITERAL}|${SLASH_LITERAL}${end})`;
+            prev.value += value;
+            state.output += prior.output + prev.output;
+            state.globstar = true;
+            consume(value + advance());
+            push({ type: "slash", value: "/", output: "" });
+            continue;
+          }
+          if (prior.type === "bos" && rest[0] === "/") {
+            prev.type = "globstar";
+            prev.value += value;
+            prev.output = `(?:^|${SLASH_LITERAL}|${globstar(opts)}${SLASH_LITERAL})`;
+            state.output = prev.output;
+            state.globstar = true;
+            consume(value + advance());
+            push({ type: "slash", value: "/", output: "" });
+            continue;
+          }
+          state.output = state.output.slice(0, -prev.output.length);
+          prev.type = "globstar";
+          prev.output = globstar(opts);
+          prev.value += value;
+          state.output += prev.output;
+          state.globstar = true;
+          consume(value);
+          continue;
+        }
+        const token = { type: "star", value, output: star };
+        if (opts.bash === true) {
+          token.output = ".*?";
+          if (prev.type === "bos" || prev.type === "slash") {
+            token.output = nodot + token.output;
+          }
+          push(token);
+          continue;
+        }
+        if (prev && (prev.type === "bracket" || prev.type === "paren") && opts.regex === true) {
+          token.output = value;
+          push(token);
+          continue;
+        }
+        if (state.index === state.start || prev.type === "slash" || prev.type === "dot") {
+          if (prev.type === "dot") {
+            state.output += NO_DOT_SLASH;
+            prev.output += NO_DOT_SLASH;
+          } else if (opts.dot === true) {
+            state.output += NO_DOTS_SLASH;
+            prev.output += NO_DOTS_SLASH;
+          } else {
+            state.output += nodot;
+            prev.output += nodot;
+          }
+          if (peek() !== "*") {
+            state.output += ONE_CHAR;
+            prev.output += ONE_CHAR;
+          }
+        }
+        push(token);
+      }
+      while (state.brackets > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "]"));
+        state.output = utils.escapeLast(state.output, "[");
+        decrement("brackets");
+      }
+      while (state.parens > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", ")"));
+        state.output = utils.escapeLast(state.output, "(");
+        decrement("parens");
+      }
+      while (state.braces > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "}"));
+        state.output = utils.escapeLast(state.output, "{");
+        decrement("braces");
+      }
+      if (opts.strictSlashes !== true && (prev.type === "star" || prev.type === "bracket")) {
+        push({ type: "maybe_slash", value: "", output: `${SLASH_LITERAL}?` });
+      }
+      if (state.backtrack === true) {
+        state.output = "";
+        for (const token of state.tokens) {
+          state.output += token.output != null ? token.output : token.value;
+          if (token.suffix) {
+            state.output += token.suffix;
+          }
+        }
+      }
+      return state;
+    };
+    parse4.fastpaths = (input2, options) => {
+      const opts = { ...options };
+      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
+      const len = input2.length;
+      if (len > max) {
+        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
+      }
+      input2 = REPLACEMENTS[input2] || input2;
+      const {
+        DOT_LITERAL,
+        SLASH_LITERAL,
+        ONE_CHAR,
+        DOTS_SLASH,
+        NO_DOT,
+        NO_DOTS,
+        NO_DOTS_SLASH,
+        STAR,
+        START_ANCHOR
+      } = constants.globChars(opts.windows);
+      const nodot = opts.dot ? NO_DOTS : NO_DOT;
+      const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
+      const capture = opts.capture ? "" : "?:";
+      const state = { negated: false, prefix: "" };
+      let star = opts.bash === true ? ".*?" : STAR;
+      if (opts.capture) {
+        star = `(${star})`;
+      }
+      const globstar = (opts2) => {
+        if (opts2.noglobstar === true) return star;
+        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
+      };
+      const create = (str) => {
+        switch (str) {
+          case "*":
+            return `${nodot}${ONE_CHAR}${star}`;
+          case ".*":
+            return `${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "*.*":
+            return `${nodot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "*/*":
+            return `${nodot}${star}${SLASH_LITERAL}${ONE_CHAR}${slashDot}${star}`;
+          case "**":
+            return nodot + globstar(opts);
+          case "**/*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${ONE_CHAR}${star}`;
+          case "**/*.*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "**/.*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${DOT_LITERAL}${ONE_CHAR}${star}`;
+          default: {
+            const match = /^(.*?)\.(\w+)$/.exec(str);
+            if (!match) return;
+            const source2 = create(match[1]);
+            if (!source2) return;
+            return source2 + DOT_LITERAL + match[2];
+          }
+        }
+      };
+      const output2 = utils.removePrefix(input2, state);
+      let source = create(output2);
+      if (source && opts.strictSlashes !== true) {
+        source += `${SLASH_LITERAL}?`;
+      }
+      return source;
+    };
+    module.exports = parse4;
+  }
+});
+
+// ../main/node_modules/picomatch/lib/picomatch.js
+var require_picomatch = __commonJS({
+  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
+    "use strict";
+    var scan = require_scan();
+    var parse4 = require_parse();
+    var utils = require_utils();
+    var constants = require_constants();
+    var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
+    var picomatch5 = (glob, options, returnState = false) => {
+      if (Array.isArray(glob)) {
+        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
+        const arrayMatcher = (str) => {
+          for (const isMatch of fns) {
+            const state2 = isMatch(str);
+            if (state2) return state2;
+          }
+          return false;
+        };
+        return arrayMatcher;
+      }
+      const isState = isObject2(glob) && glob.tokens && glob.input;
+      if (glob === "" || typeof glob !== "string" && !isState) {
+        throw new TypeError("Expected pattern to be a non-empty string");
+      }
+      const opts = options || {};
+      const posix2 = opts.windows;
+      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
+      const state = regex.state;
+      delete regex.state;
+      let isIgnored = () => false;
+      if (opts.ignore) {
+        const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
+        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
+      }
+      const matcher = (input2, returnObject = false) => {
+        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
+        const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
+        if (typeof opts.onResult === "function") {
+          opts.onResult(result);
+        }
+        if (isMatch === false) {
+          result.isMatch = false;
+          return returnObject ? result : false;
+        }
+        if (isIgnored(input2)) {
+          if (typeof opts.onIgnore === "function") {
+            opts.onIgnore(result);
+          }
+          result.isMatch = false;
+          return returnObject ? result : false;
+        }
+        if (typeof opts.onMatch === "function") {
+          opts.onMatch(result);
+        }
+        return returnObject ? result : true;
+      };
+      if (returnState) {
+        matcher.state = state;
+      }
+      return matcher;
+    };
+    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
+      if (typeof input2 !== "string") {
+        throw new TypeError("Expected input to be a string");
+      }
+      if (input2 === "") {
+        return { isMatch: false, output: "" };
+      }
+      const opts = options || {};
+      const format = opts.format || (posix2 ? utils.toPosixSlashes : null);
+      let match = input2 === glob;
+      let output2 = match && format ? format(input2) : input2;
+      if (match === false) {
+        output2 = format ? format(input2) : input2;
+        match = output2 === glob;
+      }
+      if (match === false || opts.capture === true) {
+        if (opts.matchBase === true || opts.basename === true) {
+          match = picomatch5.matchBase(input2, regex, options, posix2);
+        } else {
+          match = regex.exec(output2);
+        }
+      }
+      return { isMatch: Boolean(match), match, output: output2 };
+    };
+    picomatch5.matchBase = (input2, glob, options) => {
+      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
+      return regex.test(utils.basename(input2));
+    };
+    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
+    picomatch5.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
+      return parse4(pattern, { ...options, fastpaths: false });
+    };
+    picomatch5.scan = (input2, options) => scan(input2, options);
+    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
+      if (returnOutput === true) {
+        return state.output;
+      }
+      const opts = options || {};
+      const prepend = opts.contains ? "" : "^";
+      const append = opts.contains ? "" : "$";
+      let source = `${prepend}(?:${state.output})${append}`;
+      if (state && state.negated === true) {
+        source = `^(?!${source}).*$`;
+      }
+      const regex = picomatch5.toRegex(source, options);
+      if (returnState === true) {
+        regex.state = state;
+      }
+      return regex;
+    };
+    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+      if (!input2 || typeof input2 !== "string") {
+        throw new TypeError("Expected a non-empty string");
+      }
+      let parsed = { negated: false, fastpaths: true };
+      if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
+        parsed.output = parse4.fastpaths(input2, options);
+      }
+      if (!parsed.output) {
+        parsed = parse4(input2, options);
+      }
+      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
+    };
+    picomatch5.toRegex = (source, options) => {
+      try {
+        const opts = options || {};
+        return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
+      } catch (err) {
+        if (options && options.debug === true) throw err;
+        return /$^/;
+      }
+    };
+    picomatch5.constants = constants;
+    module.exports = picomatch5;
+  }
+});
+
+// ../main/node_modules/picomatch/index.js
+var require_picomatch2 = __commonJS({
+  "../main/node_modules/picomatch/index.js"(exports, module) {
+    "use strict";
+    var pico = require_picomatch();
+    var utils = require_utils();
+    function picomatch5(glob, options, returnState = false) {
+      if (options && (options.windows === null || options.windows === void 0)) {
+        options = { ...options, windows: utils.isWindows() };
+      }
+      return pico(glob, options, returnState);
+    }
+    Object.assign(picomatch5, pico);
+    module.exports = picomatch5;
+  }
+});
+
 // ../main/node_modules/jstat/dist/jstat.js
 var require_jstat = __commonJS({
   "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
@@ -14648,1527 +16166,6 @@ var require_dist = __commonJS({
   }
 });
 
-// ../main/node_modules/picomatch/lib/constants.js
-var require_constants = __commonJS({
-  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
-    "use strict";
-    var WIN_SLASH = "\\\\/";
-    var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
-    var DOT_LITERAL = "\\.";
-    var PLUS_LITERAL = "\\+";
-    var QMARK_LITERAL = "\\?";
-    var SLASH_LITERAL = "\\/";
-    var ONE_CHAR = "(?=.)";
-    var QMARK = "[^/]";
-    var END_ANCHOR = `(?:${SLASH_LITERAL}|$)`;
-    var START_ANCHOR = `(?:^|${SLASH_LITERAL})`;
-    var DOTS_SLASH = `${DOT_LITERAL}{1,2}${END_ANCHOR}`;
-    var NO_DOT = `(?!${DOT_LITERAL})`;
-    var NO_DOTS = `(?!${START_ANCHOR}${DOTS_SLASH})`;
-    var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
-    var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
-    var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
-    var STAR = `${QMARK}*?`;
-    var SEP = "/";
-    var POSIX_CHARS = {
-      DOT_LITERAL,
-      PLUS_LITERAL,
-      QMARK_LITERAL,
-      SLASH_LITERAL,
-      ONE_CHAR,
-      QMARK,
-      END_ANCHOR,
-      DOTS_SLASH,
-      NO_DOT,
-      NO_DOTS,
-      NO_DOT_SLASH,
-      NO_DOTS_SLASH,
-      QMARK_NO_DOT,
-      STAR,
-      START_ANCHOR,
-      SEP
-    };
-    var WINDOWS_CHARS = {
-      ...POSIX_CHARS,
-      SLASH_LITERAL: `[${WIN_SLASH}]`,
-      QMARK: WIN_NO_SLASH,
-      STAR: `${WIN_NO_SLASH}*?`,
-      DOTS_SLASH: `${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$)`,
-      NO_DOT: `(?!${DOT_LITERAL})`,
-      NO_DOTS: `(?!(?:^|[${WIN_SLASH}])${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
-      NO_DOT_SLASH: `(?!${DOT_LITERAL}{0,1}(?:[${WIN_SLASH}]|$))`,
-      NO_DOTS_SLASH: `(?!${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
-      QMARK_NO_DOT: `[^.${WIN_SLASH}]`,
-      START_ANCHOR: `(?:^|[${WIN_SLASH}])`,
-      END_ANCHOR: `(?:[${WIN_SLASH}]|$)`,
-      SEP: "\\"
-    };
-    var POSIX_REGEX_SOURCE = {
-      alnum: "a-zA-Z0-9",
-      alpha: "a-zA-Z",
-      ascii: "\\x00-\\x7F",
-      blank: " \\t",
-      cntrl: "\\x00-\\x1F\\x7F",
-      digit: "0-9",
-      graph: "\\x21-\\x7E",
-      lower: "a-z",
-      print: "\\x20-\\x7E ",
-      punct: "\\-!\"#$%&'()\\*+,./:;<=>?@[\\]^_`{|}~",
-      space: " \\t\\r\\n\\v\\f",
-      upper: "A-Z",
-      word: "A-Za-z0-9_",
-      xdigit: "A-Fa-f0-9"
-    };
-    module.exports = {
-      MAX_LENGTH: 1024 * 64,
-      POSIX_REGEX_SOURCE,
-      // regular expressions
-      REGEX_BACKSLASH: /\\(?![*+?^${}(|)[\]])/g,
-      REGEX_NON_SPECIAL_CHARS: /^[^@![\].,$*+?^{}()|\\/]+/,
-      REGEX_SPECIAL_CHARS: /[-*+?.^${}(|)[\]]/,
-      REGEX_SPECIAL_CHARS_BACKREF: /(\\?)((\W)(\3*))/g,
-      REGEX_SPECIAL_CHARS_GLOBAL: /([-*+?.^${}(|)[\]])/g,
-      REGEX_REMOVE_BACKSLASH: /(?:\[.*?[^\\]\]|\\(?=.))/g,
-      // Replace globs with equivalent patterns to reduce parsing time.
-      REPLACEMENTS: {
-        __proto__: null,
-        "***": "*",
-        "**/**": "**",
-        "**/**/**": "**"
-      },
-      // Digits
-      CHAR_0: 48,
-      /* 0 */
-      CHAR_9: 57,
-      /* 9 */
-      // Alphabet chars.
-      CHAR_UPPERCASE_A: 65,
-      /* A */
-      CHAR_LOWERCASE_A: 97,
-      /* a */
-      CHAR_UPPERCASE_Z: 90,
-      /* Z */
-      CHAR_LOWERCASE_Z: 122,
-      /* z */
-      CHAR_LEFT_PARENTHESES: 40,
-      /* ( */
-      CHAR_RIGHT_PARENTHESES: 41,
-      /* ) */
-      CHAR_ASTERISK: 42,
-      /* * */
-      // Non-alphabetic chars.
-      CHAR_AMPERSAND: 38,
-      /* & */
-      CHAR_AT: 64,
-      /* @ */
-      CHAR_BACKWARD_SLASH: 92,
-      /* \ */
-      CHAR_CARRIAGE_RETURN: 13,
-      /* \r */
-      CHAR_CIRCUMFLEX_ACCENT: 94,
-      /* ^ */
-      CHAR_COLON: 58,
-      /* : */
-      CHAR_COMMA: 44,
-      /* , */
-      CHAR_DOT: 46,
-      /* . */
-      CHAR_DOUBLE_QUOTE: 34,
-      /* " */
-      CHAR_EQUAL: 61,
-      /* = */
-      CHAR_EXCLAMATION_MARK: 33,
-      /* ! */
-      CHAR_FORM_FEED: 12,
-      /* \f */
-      CHAR_FORWARD_SLASH: 47,
-      /* / */
-      CHAR_GRAVE_ACCENT: 96,
-      /* ` */
-      CHAR_HASH: 35,
-      /* # */
-      CHAR_HYPHEN_MINUS: 45,
-      /* - */
-      CHAR_LEFT_ANGLE_BRACKET: 60,
-      /* < */
-      CHAR_LEFT_CURLY_BRACE: 123,
-      /* { */
-      CHAR_LEFT_SQUARE_BRACKET: 91,
-      /* [ */
-      CHAR_LINE_FEED: 10,
-      /* \n */
-      CHAR_NO_BREAK_SPACE: 160,
-      /* \u00A0 */
-      CHAR_PERCENT: 37,
-      /* % */
-      CHAR_PLUS: 43,
-      /* + */
-      CHAR_QUESTION_MARK: 63,
-      /* ? */
-      CHAR_RIGHT_ANGLE_BRACKET: 62,
-      /* > */
-      CHAR_RIGHT_CURLY_BRACE: 125,
-      /* } */
-      CHAR_RIGHT_SQUARE_BRACKET: 93,
-      /* ] */
-      CHAR_SEMICOLON: 59,
-      /* ; */
-      CHAR_SINGLE_QUOTE: 39,
-      /* ' */
-      CHAR_SPACE: 32,
-      /*   */
-      CHAR_TAB: 9,
-      /* \t */
-      CHAR_UNDERSCORE: 95,
-      /* _ */
-      CHAR_VERTICAL_LINE: 124,
-      /* | */
-      CHAR_ZERO_WIDTH_NOBREAK_SPACE: 65279,
-      /* \uFEFF */
-      /**
-       * Create EXTGLOB_CHARS
-       */
-      extglobChars(chars) {
-        return {
-          "!": { type: "negate", open: "(?:(?!(?:", close: `))${chars.STAR})` },
-          "?": { type: "qmark", open: "(?:", close: ")?" },
-          "+": { type: "plus", open: "(?:", close: ")+" },
-          "*": { type: "star", open: "(?:", close: ")*" },
-          "@": { type: "at", open: "(?:", close: ")" }
-        };
-      },
-      /**
-       * Create GLOB_CHARS
-       */
-      globChars(win32) {
-        return win32 === true ? WINDOWS_CHARS : POSIX_CHARS;
-      }
-    };
-  }
-});
-
-// ../main/node_modules/picomatch/lib/utils.js
-var require_utils = __commonJS({
-  "../main/node_modules/picomatch/lib/utils.js"(exports) {
-    "use strict";
-    var {
-      REGEX_BACKSLASH,
-      REGEX_REMOVE_BACKSLASH,
-      REGEX_SPECIAL_CHARS,
-      REGEX_SPECIAL_CHARS_GLOBAL
-    } = require_constants();
-    exports.isObject = (val) => val !== null && typeof val === "object" && !Array.isArray(val);
-    exports.hasRegexChars = (str) => REGEX_SPECIAL_CHARS.test(str);
-    exports.isRegexChar = (str) => str.length === 1 && exports.hasRegexChars(str);
-    exports.escapeRegex = (str) => str.replace(REGEX_SPECIAL_CHARS_GLOBAL, "\\$1");
-    exports.toPosixSlashes = (str) => str.replace(REGEX_BACKSLASH, "/");
-    exports.isWindows = () => {
-      if (typeof navigator !== "undefined" && navigator.platform) {
-        const platform2 = navigator.platform.toLowerCase();
-        return platform2 === "win32" || platform2 === "windows";
-      }
-      if (typeof process !== "undefined" && process.platform) {
-        return process.platform === "win32";
-      }
-      return false;
-    };
-    exports.removeBackslashes = (str) => {
-      return str.replace(REGEX_REMOVE_BACKSLASH, (match) => {
-        return match === "\\" ? "" : match;
-      });
-    };
-    exports.escapeLast = (input2, char, lastIdx) => {
-      const idx = input2.lastIndexOf(char, lastIdx);
-      if (idx === -1) return input2;
-      if (input2[idx - 1] === "\\") return exports.escapeLast(input2, char, idx - 1);
-      return `${input2.slice(0, idx)}\\${input2.slice(idx)}`;
-    };
-    exports.removePrefix = (input2, state = {}) => {
-      let output2 = input2;
-      if (output2.startsWith("./")) {
-        output2 = output2.slice(2);
-        state.prefix = "./";
-      }
-      return output2;
-    };
-    exports.wrapOutput = (input2, state = {}, options = {}) => {
-      const prepend = options.contains ? "" : "^";
-      const append = options.contains ? "" : "$";
-      let output2 = `${prepend}(?:${input2})${append}`;
-      if (state.negated === true) {
-        output2 = `(?:^(?!${output2}).*$)`;
-      }
-      return output2;
-    };
-    exports.basename = (path, { windows } = {}) => {
-      const segs = path.split(windows ? /[\\/]/ : "/");
-      const last = segs[segs.length - 1];
-      if (last === "") {
-        return segs[segs.length - 2];
-      }
-      return last;
-    };
-  }
-});
-
-// ../main/node_modules/picomatch/lib/scan.js
-var require_scan = __commonJS({
-  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
-    "use strict";
-    var utils = require_utils();
-    var {
-      CHAR_ASTERISK,
-      /* * */
-      CHAR_AT,
-      /* @ */
-      CHAR_BACKWARD_SLASH,
-      /* \ */
-      CHAR_COMMA,
-      /* , */
-      CHAR_DOT,
-      /* . */
-      CHAR_EXCLAMATION_MARK,
-      /* ! */
-      CHAR_FORWARD_SLASH,
-      /* / */
-      CHAR_LEFT_CURLY_BRACE,
-      /* { */
-      CHAR_LEFT_PARENTHESES,
-      /* ( */
-      CHAR_LEFT_SQUARE_BRACKET,
-      /* [ */
-      CHAR_PLUS,
-      /* + */
-      CHAR_QUESTION_MARK,
-      /* ? */
-      CHAR_RIGHT_CURLY_BRACE,
-      /* } */
-      CHAR_RIGHT_PARENTHESES,
-      /* ) */
-      CHAR_RIGHT_SQUARE_BRACKET
-      /* ] */
-    } = require_constants();
-    var isPathSeparator = (code) => {
-      return code === CHAR_FORWARD_SLASH || code === CHAR_BACKWARD_SLASH;
-    };
-    var depth = (token) => {
-      if (token.isPrefix !== true) {
-        token.depth = token.isGlobstar ? Infinity : 1;
-      }
-    };
-    var scan = (input2, options) => {
-      const opts = options || {};
-      const length = input2.length - 1;
-      const scanToEnd = opts.parts === true || opts.scanToEnd === true;
-      const slashes = [];
-      const tokens = [];
-      const parts = [];
-      let str = input2;
-      let index = -1;
-      let start = 0;
-      let lastIndex = 0;
-      let isBrace = false;
-      let isBracket = false;
-      let isGlob = false;
-      let isExtglob = false;
-      let isGlobstar = false;
-      let braceEscaped = false;
-      let backslashes = false;
-      let negated = false;
-      let negatedExtglob = false;
-      let finished = false;
-      let braces = 0;
-      let prev;
-      let code;
-      let token = { value: "", depth: 0, isGlob: false };
-      const eos = () => index >= length;
-      const peek = () => str.charCodeAt(index + 1);
-      const advance = () => {
-        prev = code;
-        return str.charCodeAt(++index);
-      };
-      while (index < length) {
-        code = advance();
-        let next;
-        if (code === CHAR_BACKWARD_SLASH) {
-          backslashes = token.backslashes = true;
-          code = advance();
-          if (code === CHAR_LEFT_CURLY_BRACE) {
-            braceEscaped = true;
-          }
-          continue;
-        }
-        if (braceEscaped === true || code === CHAR_LEFT_CURLY_BRACE) {
-          braces++;
-          while (eos() !== true && (code = advance())) {
-            if (code === CHAR_BACKWARD_SLASH) {
-              backslashes = token.backslashes = true;
-              advance();
-              continue;
-            }
-            if (code === CHAR_LEFT_CURLY_BRACE) {
-              braces++;
-              continue;
-            }
-            if (braceEscaped !== true && code === CHAR_DOT && (code = advance()) === CHAR_DOT) {
-              isBrace = token.isBrace = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              if (scanToEnd === true) {
-                continue;
-              }
-              break;
-            }
-            if (braceEscaped !== true && code === CHAR_COMMA) {
-              isBrace = token.isBrace = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              if (scanToEnd === true) {
-                continue;
-              }
-              break;
-            }
-            if (code === CHAR_RIGHT_CURLY_BRACE) {
-              braces--;
-              if (braces === 0) {
-                braceEscaped = false;
-                isBrace = token.isBrace = true;
-                finished = true;
-                break;
-              }
-            }
-          }
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_FORWARD_SLASH) {
-          slashes.push(index);
-          tokens.push(token);
-          token = { value: "", depth: 0, isGlob: false };
-          if (finished === true) continue;
-          if (prev === CHAR_DOT && index === start + 1) {
-            start += 2;
-            continue;
-          }
-          lastIndex = index + 1;
-          continue;
-        }
-        if (opts.noext !== true) {
-          const isExtglobChar = code === CHAR_PLUS || code === CHAR_AT || code === CHAR_ASTERISK || code === CHAR_QUESTION_MARK || code === CHAR_EXCLAMATION_MARK;
-          if (isExtglobChar === true && peek() === CHAR_LEFT_PARENTHESES) {
-            isGlob = token.isGlob = true;
-            isExtglob = token.isExtglob = true;
-            finished = true;
-            if (code === CHAR_EXCLAMATION_MARK && index === start) {
-              negatedExtglob = true;
-            }
-            if (scanToEnd === true) {
-              while (eos() !== true && (code = advance())) {
-                if (code === CHAR_BACKWARD_SLASH) {
-                  backslashes = token.backslashes = true;
-                  code = advance();
-                  continue;
-                }
-                if (code === CHAR_RIGHT_PARENTHESES) {
-                  isGlob = token.isGlob = true;
-                  finished = true;
-                  break;
-                }
-              }
-              continue;
-            }
-            break;
-          }
-        }
-        if (code === CHAR_ASTERISK) {
-          if (prev === CHAR_ASTERISK) isGlobstar = token.isGlobstar = true;
-          isGlob = token.isGlob = true;
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_QUESTION_MARK) {
-          isGlob = token.isGlob = true;
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_LEFT_SQUARE_BRACKET) {
-          while (eos() !== true && (next = advance())) {
-            if (next === CHAR_BACKWARD_SLASH) {
-              backslashes = token.backslashes = true;
-              advance();
-              continue;
-            }
-            if (next === CHAR_RIGHT_SQUARE_BRACKET) {
-              isBracket = token.isBracket = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              break;
-            }
-          }
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (opts.nonegate !== true && code === CHAR_EXCLAMATION_MARK && index === start) {
-          negated = token.negated = true;
-          start++;
-          continue;
-        }
-        if (opts.noparen !== true && code === CHAR_LEFT_PARENTHESES) {
-          isGlob = token.isGlob = true;
-          if (scanToEnd === true) {
-            while (eos() !== true && (code = advance())) {
-              if (code === CHAR_LEFT_PARENTHESES) {
-                backslashes = token.backslashes = true;
-                code = advance();
-                continue;
-              }
-              if (code === CHAR_RIGHT_PARENTHESES) {
-                finished = true;
-                break;
-              }
-            }
-            continue;
-          }
-          break;
-        }
-        if (isGlob === true) {
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-      }
-      if (opts.noext === true) {
-        isExtglob = false;
-        isGlob = false;
-      }
-      let base = str;
-      let prefix = "";
-      let glob = "";
-      if (start > 0) {
-        prefix = str.slice(0, start);
-        str = str.slice(start);
-        lastIndex -= start;
-      }
-      if (base && isGlob === true && lastIndex > 0) {
-        base = str.slice(0, lastIndex);
-        glob = str.slice(lastIndex);
-      } else if (isGlob === true) {
-        base = "";
-        glob = str;
-      } else {
-        base = str;
-      }
-      if (base && base !== "" && base !== "/" && base !== str) {
-        if (isPathSeparator(base.charCodeAt(base.length - 1))) {
-          base = base.slice(0, -1);
-        }
-      }
-      if (opts.unescape === true) {
-        if (glob) glob = utils.removeBackslashes(glob);
-        if (base && backslashes === true) {
-          base = utils.removeBackslashes(base);
-        }
-      }
-      const state = {
-        prefix,
-        input: input2,
-        start,
-        base,
-        glob,
-        isBrace,
-        isBracket,
-        isGlob,
-        isExtglob,
-        isGlobstar,
-        negated,
-        negatedExtglob
-      };
-      if (opts.tokens === true) {
-        state.maxDepth = 0;
-        if (!isPathSeparator(code)) {
-          tokens.push(token);
-        }
-        state.tokens = tokens;
-      }
-      if (opts.parts === true || opts.tokens === true) {
-        let prevIndex;
-        for (let idx = 0; idx < slashes.length; idx++) {
-          const n = prevIndex ? prevIndex + 1 : start;
-          const i = slashes[idx];
-          const value = input2.slice(n, i);
-          if (opts.tokens) {
-            if (idx === 0 && start !== 0) {
-              tokens[idx].isPrefix = true;
-              tokens[idx].value = prefix;
-            } else {
-              tokens[idx].value = value;
-            }
-            depth(tokens[idx]);
-            state.maxDepth += tokens[idx].depth;
-          }
-          if (idx !== 0 || value !== "") {
-            parts.push(value);
-          }
-          prevIndex = i;
-        }
-        if (prevIndex && prevIndex + 1 < input2.length) {
-          const value = input2.slice(prevIndex + 1);
-          parts.push(value);
-          if (opts.tokens) {
-            tokens[tokens.length - 1].value = value;
-            depth(tokens[tokens.length - 1]);
-            state.maxDepth += tokens[tokens.length - 1].depth;
-          }
-        }
-        state.slashes = slashes;
-        state.parts = parts;
-      }
-      return state;
-    };
-    module.exports = scan;
-  }
-});
-
-// ../main/node_modules/picomatch/lib/parse.js
-var require_parse = __commonJS({
-  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
-    "use strict";
-    var constants = require_constants();
-    var utils = require_utils();
-    var {
-      MAX_LENGTH,
-      POSIX_REGEX_SOURCE,
-      REGEX_NON_SPECIAL_CHARS,
-      REGEX_SPECIAL_CHARS_BACKREF,
-      REPLACEMENTS
-    } = constants;
-    var expandRange = (args, options) => {
-      if (typeof options.expandRange === "function") {
-        return options.expandRange(...args, options);
-      }
-      args.sort();
-      const value = `[${args.join("-")}]`;
-      try {
-        new RegExp(value);
-      } catch (ex) {
-        return args.map((v) => utils.escapeRegex(v)).join("..");
-      }
-      return value;
-    };
-    var syntaxError = (type, char) => {
-      return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
-    };
-    var parse4 = (input2, options) => {
-      if (typeof input2 !== "string") {
-        throw new TypeError("Expected a string");
-      }
-      input2 = REPLACEMENTS[input2] || input2;
-      const opts = { ...options };
-      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
-      let len = input2.length;
-      if (len > max) {
-        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
-      }
-      const bos = { type: "bos", value: "", output: opts.prepend || "" };
-      const tokens = [bos];
-      const capture = opts.capture ? "" : "?:";
-      const PLATFORM_CHARS = constants.globChars(opts.windows);
-      const EXTGLOB_CHARS = constants.extglobChars(PLATFORM_CHARS);
-      const {
-        DOT_LITERAL,
-        PLUS_LITERAL,
-        SLASH_LITERAL,
-        ONE_CHAR,
-        DOTS_SLASH,
-        NO_DOT,
-        NO_DOT_SLASH,
-        NO_DOTS_SLASH,
-        QMARK,
-        QMARK_NO_DOT,
-        STAR,
-        START_ANCHOR
-      } = PLATFORM_CHARS;
-      const globstar = (opts2) => {
-        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
-      };
-      const nodot = opts.dot ? "" : NO_DOT;
-      const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
-      let star = opts.bash === true ? globstar(opts) : STAR;
-      if (opts.capture) {
-        star = `(${star})`;
-      }
-      if (typeof opts.noext === "boolean") {
-        opts.noextglob = opts.noext;
-      }
-      const state = {
-        input: input2,
-        index: -1,
-        start: 0,
-        dot: opts.dot === true,
-        consumed: "",
-        output: "",
-        prefix: "",
-        backtrack: false,
-        negated: false,
-        brackets: 0,
-        braces: 0,
-        parens: 0,
-        quotes: 0,
-        globstar: false,
-        tokens
-      };
-      input2 = utils.removePrefix(input2, state);
-      len = input2.length;
-      const extglobs = [];
-      const braces = [];
-      const stack = [];
-      let prev = bos;
-      let value;
-      const eos = () => state.index === len - 1;
-      const peek = state.peek = (n = 1) => input2[state.index + n];
-      const advance = state.advance = () => input2[++state.index] || "";
-      const remaining = () => input2.slice(state.index + 1);
-      const consume = (value2 = "", num = 0) => {
-        state.consumed += value2;
-        state.index += num;
-      };
-      const append = (token) => {
-        state.output += token.output != null ? token.output : token.value;
-        consume(token.value);
-      };
-      const negate = () => {
-        let count3 = 1;
-        while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
-          advance();
-          state.start++;
-          count3++;
-        }
-        if (count3 % 2 === 0) {
-          return false;
-        }
-        state.negated = true;
-        state.start++;
-        return true;
-      };
-      const increment = (type) => {
-        state[type]++;
-        stack.push(type);
-      };
-      const decrement = (type) => {
-        state[type]--;
-        stack.pop();
-      };
-      const push = (tok) => {
-        if (prev.type === "globstar") {
-          const isBrace = state.braces > 0 && (tok.type === "comma" || tok.type === "brace");
-          const isExtglob = tok.extglob === true || extglobs.length && (tok.type === "pipe" || tok.type === "paren");
-          if (tok.type !== "slash" && tok.type !== "paren" && !isBrace && !isExtglob) {
-            state.output = state.output.slice(0, -prev.output.length);
-            prev.type = "star";
-            prev.value = "*";
-            prev.output = star;
-            state.output += prev.output;
-          }
-        }
-        if (extglobs.length && tok.type !== "paren") {
-          extglobs[extglobs.length - 1].inner += tok.value;
-        }
-        if (tok.value || tok.output) append(tok);
-        if (prev && prev.type === "text" && tok.type === "text") {
-          prev.output = (prev.output || prev.value) + tok.value;
-          prev.value += tok.value;
-          return;
-        }
-        tok.prev = prev;
-        tokens.push(tok);
-        prev = tok;
-      };
-      const extglobOpen = (type, value2) => {
-        const token = { ...EXTGLOB_CHARS[value2], conditions: 1, inner: "" };
-        token.prev = prev;
-        token.parens = state.parens;
-        token.output = state.output;
-        const output2 = (opts.capture ? "(" : "") + token.open;
-        increment("parens");
-        push({ type, value: value2, output: state.output ? "" : ONE_CHAR });
-        push({ type: "paren", extglob: true, value: advance(), output: output2 });
-        extglobs.push(token);
-      };
-      const extglobClose = (token) => {
-        let output2 = token.close + (opts.capture ? ")" : "");
-        let rest;
-        if (token.type === "negate") {
-          let extglobStar = star;
-          if (token.inner && token.inner.length > 1 && token.inner.includes("/")) {
-            extglobStar = globstar(opts);
-          }
-          if (extglobStar !== star || eos() || /^\)+$/.test(remaining())) {
-            output2 = token.close = `)$))${extglobStar}`;
-          }
-          if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
-            const expression = parse4(rest, { ...options, fastpaths: false }).output;
-            output2 = token.close = `)${expression})${extglobStar})`;
-          }
-          if (token.prev.type === "bos") {
-            state.negatedExtglob = true;
-          }
-        }
-        push({ type: "paren", extglob: true, value, output: output2 });
-        decrement("parens");
-      };
-      if (opts.fastpaths !== false && !/(^[*!]|[/()[\]{}"])/.test(input2)) {
-        let backslashes = false;
-        let output2 = input2.replace(REGEX_SPECIAL_CHARS_BACKREF, (m, esc2, chars, first, rest, index) => {
-          if (first === "\\") {
-            backslashes = true;
-            return m;
-          }
-          if (first === "?") {
-            if (esc2) {
-              return esc2 + first + (rest ? QMARK.repeat(rest.length) : "");
-            }
-            if (index === 0) {
-              return qmarkNoDot + (rest ? QMARK.repeat(rest.length) : "");
-            }
-            return QMARK.repeat(chars.length);
-          }
-          if (first === ".") {
-            return DOT_LITERAL.repeat(chars.length);
-          }
-          if (first === "*") {
-            if (esc2) {
-              return esc2 + first + (rest ? star : "");
-            }
-            return star;
-          }
-          return esc2 ? m : `\\${m}`;
-        });
-        if (backslashes === true) {
-          if (opts.unescape === true) {
-            output2 = output2.replace(/\\/g, "");
-          } else {
-            output2 = output2.replace(/\\+/g, (m) => {
-              return m.length % 2 === 0 ? "\\\\" : m ? "\\" : "";
-            });
-          }
-        }
-        if (output2 === input2 && opts.contains === true) {
-          state.output = input2;
-          return state;
-        }
-        state.output = utils.wrapOutput(output2, state, options);
-        return state;
-      }
-      while (!eos()) {
-        value = advance();
-        if (value === "\0") {
-          continue;
-        }
-        if (value === "\\") {
-          const next = peek();
-          if (next === "/" && opts.bash !== true) {
-            continue;
-          }
-          if (next === "." || next === ";") {
-            continue;
-          }
-          if (!next) {
-            value += "\\";
-            push({ type: "text", value });
-            continue;
-          }
-          const match = /^\\+/.exec(remaining());
-          let slashes = 0;
-          if (match && match[0].length > 2) {
-            slashes = match[0].length;
-            state.index += slashes;
-            if (slashes % 2 !== 0) {
-              value += "\\";
-            }
-          }
-          if (opts.unescape === true) {
-            value = advance();
-          } else {
-            value += advance();
-          }
-          if (state.brackets === 0) {
-            push({ type: "text", value });
-            continue;
-          }
-        }
-        if (state.brackets > 0 && (value !== "]" || prev.value === "[" || prev.value === "[^")) {
-          if (opts.posix !== false && value === ":") {
-            const inner = prev.value.slice(1);
-            if (inner.includes("[")) {
-              prev.posix = true;
-              if (inner.includes(":")) {
-                const idx = prev.value.lastIndexOf("[");
-                const pre = prev.value.slice(0, idx);
-                const rest2 = prev.value.slice(idx + 2);
-                const posix2 = POSIX_REGEX_SOURCE[rest2];
-                if (posix2) {
-                  prev.value = pre + posix2;
-                  state.backtrack = true;
-                  advance();
-                  if (!bos.output && tokens.indexOf(prev) === 1) {
-                    bos.output = ONE_CHAR;
-                  }
-                  continue;
-                }
-              }
-            }
-          }
-          if (value === "[" && peek() !== ":" || value === "-" && peek() === "]") {
-            value = `\\${value}`;
-          }
-          if (value === "]" && (prev.value === "[" || prev.value === "[^")) {
-            value = `\\${value}`;
-          }
-          if (opts.posix === true && value === "!" && prev.value === "[") {
-            value = "^";
-          }
-          prev.value += value;
-          append({ value });
-          continue;
-        }
-        if (state.quotes === 1 && value !== '"') {
-          value = utils.escapeRegex(value);
-          prev.value += value;
-          append({ value });
-          continue;
-        }
-        if (value === '"') {
-          state.quotes = state.quotes === 1 ? 0 : 1;
-          if (opts.keepQuotes === true) {
-            push({ type: "text", value });
-          }
-          continue;
-        }
-        if (value === "(") {
-          increment("parens");
-          push({ type: "paren", value });
-          continue;
-        }
-        if (value === ")") {
-          if (state.parens === 0 && opts.strictBrackets === true) {
-            throw new SyntaxError(syntaxError("opening", "("));
-          }
-          const extglob = extglobs[extglobs.length - 1];
-          if (extglob && state.parens === extglob.parens + 1) {
-            extglobClose(extglobs.pop());
-            continue;
-          }
-          push({ type: "paren", value, output: state.parens ? ")" : "\\)" });
-          decrement("parens");
-          continue;
-        }
-        if (value === "[") {
-          if (opts.nobracket === true || !remaining().includes("]")) {
-            if (opts.nobracket !== true && opts.strictBrackets === true) {
-              throw new SyntaxError(syntaxError("closing", "]"));
-            }
-            value = `\\${value}`;
-          } else {
-            increment("brackets");
-          }
-          push({ type: "bracket", value });
-          continue;
-        }
-        if (value === "]") {
-          if (opts.nobracket === true || prev && prev.type === "bracket" && prev.value.length === 1) {
-            push({ type: "text", value, output: `\\${value}` });
-            continue;
-          }
-          if (state.brackets === 0) {
-            if (opts.strictBrackets === true) {
-              throw new SyntaxError(syntaxError("opening", "["));
-            }
-            push({ type: "text", value, output: `\\${value}` });
-            continue;
-          }
-          decrement("brackets");
-          const prevValue = prev.value.slice(1);
-          if (prev.posix !== true && prevValue[0] === "^" && !prevValue.includes("/")) {
-            value = `/${value}`;
-          }
-          prev.value += value;
-          append({ value });
-          if (opts.literalBrackets === false || utils.hasRegexChars(prevValue)) {
-            continue;
-          }
-          const escaped = utils.escapeRegex(prev.value);
-          state.output = state.output.slice(0, -prev.value.length);
-          if (opts.literalBrackets === true) {
-            state.output += escaped;
-            prev.value = escaped;
-            continue;
-          }
-          prev.value = `(${capture}${escaped}|${prev.value})`;
-          state.output += prev.value;
-          continue;
-        }
-        if (value === "{" && opts.nobrace !== true) {
-          increment("braces");
-          const open2 = {
-            type: "brace",
-            value,
-            output: "(",
-            outputIndex: state.output.length,
-            tokensIndex: state.tokens.length
-          };
-          braces.push(open2);
-          push(open2);
-          continue;
-        }
-        if (value === "}") {
-          const brace = braces[braces.length - 1];
-          if (opts.nobrace === true || !brace) {
-            push({ type: "text", value, output: value });
-            continue;
-          }
-          let output2 = ")";
-          if (brace.dots === true) {
-            const arr = tokens.slice();
-            const range = [];
-            for (let i = arr.length - 1; i >= 0; i--) {
-              tokens.pop();
-              if (arr[i].type === "brace") {
-                break;
-              }
-              if (arr[i].type !== "dots") {
-                range.unshift(arr[i].value);
-              }
-            }
-            output2 = expandRange(range, opts);
-            state.backtrack = true;
-          }
-          if (brace.comma !== true && brace.dots !== true) {
-            const out = state.output.slice(0, brace.outputIndex);
-            const toks = state.tokens.slice(brace.tokensIndex);
-            brace.value = brace.output = "\\{";
-            value = output2 = "\\}";
-            state.output = out;
-            for (const t of toks) {
-              state.output += t.output || t.value;
-            }
-          }
-          push({ type: "brace", value, output: output2 });
-          decrement("braces");
-          braces.pop();
-          continue;
-        }
-        if (value === "|") {
-          if (extglobs.length > 0) {
-            extglobs[extglobs.length - 1].conditions++;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (value === ",") {
-          let output2 = value;
-          const brace = braces[braces.length - 1];
-          if (brace && stack[stack.length - 1] === "braces") {
-            brace.comma = true;
-            output2 = "|";
-          }
-          push({ type: "comma", value, output: output2 });
-          continue;
-        }
-        if (value === "/") {
-          if (prev.type === "dot" && state.index === state.start + 1) {
-            state.start = state.index + 1;
-            state.consumed = "";
-            state.output = "";
-            tokens.pop();
-            prev = bos;
-            continue;
-          }
-          push({ type: "slash", value, output: SLASH_LITERAL });
-          continue;
-        }
-        if (value === ".") {
-          if (state.braces > 0 && prev.type === "dot") {
-            if (prev.value === ".") prev.output = DOT_LITERAL;
-            const brace = braces[braces.length - 1];
-            prev.type = "dots";
-            prev.output += value;
-            prev.value += value;
-            brace.dots = true;
-            continue;
-          }
-          if (state.braces + state.parens === 0 && prev.type !== "bos" && prev.type !== "slash") {
-            push({ type: "text", value, output: DOT_LITERAL });
-            continue;
-          }
-          push({ type: "dot", value, output: DOT_LITERAL });
-          continue;
-        }
-        if (value === "?") {
-          const isGroup = prev && prev.value === "(";
-          if (!isGroup && opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            extglobOpen("qmark", value);
-            continue;
-          }
-          if (prev && prev.type === "paren") {
-            const next = peek();
-            let output2 = value;
-            if (prev.value === "(" && !/[!=<:]/.test(next) || next === "<" && !/<([!=]|\w+>)/.test(remaining())) {
-              output2 = `\\${value}`;
-            }
-            push({ type: "text", value, output: output2 });
-            continue;
-          }
-          if (opts.dot !== true && (prev.type === "slash" || prev.type === "bos")) {
-            push({ type: "qmark", value, output: QMARK_NO_DOT });
-            continue;
-          }
-          push({ type: "qmark", value, output: QMARK });
-          continue;
-        }
-        if (value === "!") {
-          if (opts.noextglob !== true && peek() === "(") {
-            if (peek(2) !== "?" || !/[!=<:]/.test(peek(3))) {
-              extglobOpen("negate", value);
-              continue;
-            }
-          }
-          if (opts.nonegate !== true && state.index === 0) {
-            negate();
-            continue;
-          }
-        }
-        if (value === "+") {
-          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            extglobOpen("plus", value);
-            continue;
-          }
-          if (prev && prev.value === "(" || opts.regex === false) {
-            push({ type: "plus", value, output: PLUS_LITERAL });
-            continue;
-          }
-          if (prev && (prev.type === "bracket" || prev.type === "paren" || prev.type === "brace") || state.parens > 0) {
-            push({ type: "plus", value });
-            continue;
-          }
-          push({ type: "plus", value: PLUS_LITERAL });
-          continue;
-        }
-        if (value === "@") {
-          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            push({ type: "at", extglob: true, value, output: "" });
-            continue;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (value !== "*") {
-          if (value === "$" || value === "^") {
-            value = `\\${value}`;
-          }
-          const match = REGEX_NON_SPECIAL_CHARS.exec(remaining());
-          if (match) {
-            value += match[0];
-            state.index += match[0].length;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (prev && (prev.type === "globstar" || prev.star === true)) {
-          prev.type = "star";
-          prev.star = true;
-          prev.value += value;
-          prev.output = star;
-          state.backtrack = true;
-          state.globstar = true;
-          consume(value);
-          continue;
-        }
-        let rest = remaining();
-        if (opts.noextglob !== true && /^\([^?]/.test(rest)) {
-          extglobOpen("star", value);
-          continue;
-        }
-        if (prev.type === "star") {
-          if (opts.noglobstar === true) {
-            consume(value);
-            continue;
-          }
-          const prior = prev.prev;
-          const before = prior.prev;
-          const isStart = prior.type === "slash" || prior.type === "bos";
-          const afterStar = before && (before.type === "star" || before.type === "globstar");
-          if (opts.bash === true && (!isStart || rest[0] && rest[0] !== "/")) {
-            push({ type: "star", value, output: "" });
-            continue;
-          }
-          const isBrace = state.braces > 0 && (prior.type === "comma" || prior.type === "brace");
-          const isExtglob = extglobs.length && (prior.type === "pipe" || prior.type === "paren");
-          if (!isStart && prior.type !== "paren" && !isBrace && !isExtglob) {
-            push({ type: "star", value, output: "" });
-            continue;
-          }
-          while (rest.slice(0, 3) === "/**") {
-            const after = input2[state.index + 4];
-            if (after && after !== "/") {
-              break;
-            }
-            rest = rest.slice(3);
-            consume("/**", 3);
-          }
-          if (prior.type === "bos" && eos()) {
-            prev.type = "globstar";
-            prev.value += value;
-            prev.output = globstar(opts);
-            state.output = prev.output;
-            state.globstar = true;
-            consume(value);
-            continue;
-          }
-          if (prior.type === "slash" && prior.prev.type !== "bos" && !afterStar && eos()) {
-            state.output = state.output.slice(0, -(prior.output + prev.output).length);
-            prior.output = `(?:${prior.output}`;
-            prev.type = "globstar";
-            prev.output = globstar(opts) + (opts.strictSlashes ? ")" : "|$)");
-            prev.value += value;
-            state.globstar = true;
-            state.output += prior.output + prev.output;
-            consume(value);
-            continue;
-          }
-          if (prior.type === "slash" && prior.prev.type !== "bos" && rest[0] === "/") {
-            const end = rest[1] !== void 0 ? "|$" : "";
-            state.output = state.output.slice(0, -(prior.output + prev.output).length);
-            prior.output = `(?:${prior.output}`;
-            prev.type = "globstar";
-            prev.output = `${globstar(opts)}${SLASH_LITERAL}|${SLASH_LITERAL}${end})`;
-            prev.value += value;
-            state.output += prior.output + prev.output;
-            state.globstar = true;
-            consume(value + advance());
-            push({ type: "slash", value: "/", output: "" });
-            continue;
-          }
-          if (prior.type === "bos" && rest[0] === "/") {
-            prev.type = "globstar";
-            prev.value += value;
-            prev.output = `(?:^|${SLASH_LITERAL}|${globstar(opts)}${SLASH_LITERAL})`;
-            state.output = prev.output;
-            state.globstar = true;
-            consume(value + advance());
-            push({ type: "slash", value: "/", output: "" });
-            continue;
-          }
-          state.output = state.output.slice(0, -prev.output.length);
-          prev.type = "globstar";
-          prev.output = globstar(opts);
-          prev.value += value;
-          state.output += prev.output;
-          state.globstar = true;
-          consume(value);
-          continue;
-        }
-        const token = { type: "star", value, output: star };
-        if (opts.bash === true) {
-          token.output = ".*?";
-          if (prev.type === "bos" || prev.type === "slash") {
-            token.output = nodot + token.output;
-          }
-          push(token);
-          continue;
-        }
-        if (prev && (prev.type === "bracket" || prev.type === "paren") && opts.regex === true) {
-          token.output = value;
-          push(token);
-          continue;
-        }
-        if (state.index === state.start || prev.type === "slash" || prev.type === "dot") {
-          if (prev.type === "dot") {
-            state.output += NO_DOT_SLASH;
-            prev.output += NO_DOT_SLASH;
-          } else if (opts.dot === true) {
-            state.output += NO_DOTS_SLASH;
-            prev.output += NO_DOTS_SLASH;
-          } else {
-            state.output += nodot;
-            prev.output += nodot;
-          }
-          if (peek() !== "*") {
-            state.output += ONE_CHAR;
-            prev.output += ONE_CHAR;
-          }
-        }
-        push(token);
-      }
-      while (state.brackets > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "]"));
-        state.output = utils.escapeLast(state.output, "[");
-        decrement("brackets");
-      }
-      while (state.parens > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", ")"));
-        state.output = utils.escapeLast(state.output, "(");
-        decrement("parens");
-      }
-      while (state.braces > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "}"));
-        state.output = utils.escapeLast(state.output, "{");
-        decrement("braces");
-      }
-      if (opts.strictSlashes !== true && (prev.type === "star" || prev.type === "bracket")) {
-        push({ type: "maybe_slash", value: "", output: `${SLASH_LITERAL}?` });
-      }
-      if (state.backtrack === true) {
-        state.output = "";
-        for (const token of state.tokens) {
-          state.output += token.output != null ? token.output : token.value;
-          if (token.suffix) {
-            state.output += token.suffix;
-          }
-        }
-      }
-      return state;
-    };
-    parse4.fastpaths = (input2, options) => {
-      const opts = { ...options };
-      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
-      const len = input2.length;
-      if (len > max) {
-        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
-      }
-      input2 = REPLACEMENTS[input2] || input2;
-      const {
-        DOT_LITERAL,
-        SLASH_LITERAL,
-        ONE_CHAR,
-        DOTS_SLASH,
-        NO_DOT,
-        NO_DOTS,
-        NO_DOTS_SLASH,
-        STAR,
-        START_ANCHOR
-      } = constants.globChars(opts.windows);
-      const nodot = opts.dot ? NO_DOTS : NO_DOT;
-      const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
-      const capture = opts.capture ? "" : "?:";
-      const state = { negated: false, prefix: "" };
-      let star = opts.bash === true ? ".*?" : STAR;
-      if (opts.capture) {
-        star = `(${star})`;
-      }
-      const globstar = (opts2) => {
-        if (opts2.noglobstar === true) return star;
-        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
-      };
-      const create = (str) => {
-        switch (str) {
-          case "*":
-            return `${nodot}${ONE_CHAR}${star}`;
-          case ".*":
-            return `${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "*.*":
-            return `${nodot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "*/*":
-            return `${nodot}${star}${SLASH_LITERAL}${ONE_CHAR}${slashDot}${star}`;
-          case "**":
-            return nodot + globstar(opts);
-          case "**/*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${ONE_CHAR}${star}`;
-          case "**/*.*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "**/.*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${DOT_LITERAL}${ONE_CHAR}${star}`;
-          default: {
-            const match = /^(.*?)\.(\w+)$/.exec(str);
-            if (!match) return;
-            const source2 = create(match[1]);
-            if (!source2) return;
-            return source2 + DOT_LITERAL + match[2];
-          }
-        }
-      };
-      const output2 = utils.removePrefix(input2, state);
-      let source = create(output2);
-      if (source && opts.strictSlashes !== true) {
-        source += `${SLASH_LITERAL}?`;
-      }
-      return source;
-    };
-    module.exports = parse4;
-  }
-});
-
-// ../main/node_modules/picomatch/lib/picomatch.js
-var require_picomatch = __commonJS({
-  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
-    "use strict";
-    var scan = require_scan();
-    var parse4 = require_parse();
-    var utils = require_utils();
-    var constants = require_constants();
-    var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch5 = (glob, options, returnState = false) => {
-      if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
-        const arrayMatcher = (str) => {
-          for (const isMatch of fns) {
-            const state2 = isMatch(str);
-            if (state2) return state2;
-          }
-          return false;
-        };
-        return arrayMatcher;
-      }
-      const isState = isObject2(glob) && glob.tokens && glob.input;
-      if (glob === "" || typeof glob !== "string" && !isState) {
-        throw new TypeError("Expected pattern to be a non-empty string");
-      }
-      const opts = options || {};
-      const posix2 = opts.windows;
-      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
-      const state = regex.state;
-      delete regex.state;
-      let isIgnored = () => false;
-      if (opts.ignore) {
-        const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
-      }
-      const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
-        const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
-        if (typeof opts.onResult === "function") {
-          opts.onResult(result);
-        }
-        if (isMatch === false) {
-          result.isMatch = false;
-          return returnObject ? result : false;
-        }
-        if (isIgnored(input2)) {
-          if (typeof opts.onIgnore === "function") {
-            opts.onIgnore(result);
-          }
-          result.isMatch = false;
-          return returnObject ? result : false;
-        }
-        if (typeof opts.onMatch === "function") {
-          opts.onMatch(result);
-        }
-        return returnObject ? result : true;
-      };
-      if (returnState) {
-        matcher.state = state;
-      }
-      return matcher;
-    };
-    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
-      if (typeof input2 !== "string") {
-        throw new TypeError("Expected input to be a string");
-      }
-      if (input2 === "") {
-        return { isMatch: false, output: "" };
-      }
-      const opts = options || {};
-      const format = opts.format || (posix2 ? utils.toPosixSlashes : null);
-      let match = input2 === glob;
-      let output2 = match && format ? format(input2) : input2;
-      if (match === false) {
-        output2 = format ? format(input2) : input2;
-        match = output2 === glob;
-      }
-      if (match === false || opts.capture === true) {
-        if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch5.matchBase(input2, regex, options, posix2);
-        } else {
-          match = regex.exec(output2);
-        }
-      }
-      return { isMatch: Boolean(match), match, output: output2 };
-    };
-    picomatch5.matchBase = (input2, glob, options) => {
-      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
-      return regex.test(utils.basename(input2));
-    };
-    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
-    picomatch5.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
-      return parse4(pattern, { ...options, fastpaths: false });
-    };
-    picomatch5.scan = (input2, options) => scan(input2, options);
-    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
-      if (returnOutput === true) {
-        return state.output;
-      }
-      const opts = options || {};
-      const prepend = opts.contains ? "" : "^";
-      const append = opts.contains ? "" : "$";
-      let source = `${prepend}(?:${state.output})${append}`;
-      if (state && state.negated === true) {
-        source = `^(?!${source}).*$`;
-      }
-      const regex = picomatch5.toRegex(source, options);
-      if (returnState === true) {
-        regex.state = state;
-      }
-      return regex;
-    };
-    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
-      if (!input2 || typeof input2 !== "string") {
-        throw new TypeError("Expected a non-empty string");
-      }
-      let parsed = { negated: false, fastpaths: true };
-      if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
-        parsed.output = parse4.fastpaths(input2, options);
-      }
-      if (!parsed.output) {
-        parsed = parse4(input2, options);
-      }
-      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
-    };
-    picomatch5.toRegex = (source, options) => {
-      try {
-        const opts = options || {};
-        return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
-      } catch (err) {
-        if (options && options.debug === true) throw err;
-        return /$^/;
-      }
-    };
-    picomatch5.constants = constants;
-    module.exports = picomatch5;
-  }
-});
-
-// ../main/node_modules/picomatch/index.js
-var require_picomatch2 = __commonJS({
-  "../main/node_modules/picomatch/index.js"(exports, module) {
-    "use strict";
-    var pico = require_picomatch();
-    var utils = require_utils();
-    function picomatch5(glob, options, returnState = false) {
-      if (options && (options.windows === null || options.windows === void 0)) {
-        options = { ...options, windows: utils.isWindows() };
-      }
-      return pico(glob, options, returnState);
-    }
-    Object.assign(picomatch5, pico);
-    module.exports = picomatch5;
-  }
-});
-
-// src/cli/main.ts
-import { resolve as resolve3 } from "node:path";
-
 // ../main/node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
 var {
@@ -16185,11 +16182,6 @@ var {
   Option,
   Help
 } = import_index.default;
-
-// src/adapters/files.ts
-import { mkdir, readdir, readFile, rename, rm, writeFile } from "node:fs/promises";
-import { dirname, join, relative, sep } from "node:path";
-import { randomBytes } from "node:crypto";
 
 // src/errors.ts
 var UsageError = class extends Error {
@@ -16210,7 +16202,118 @@ var ExternalError = class extends Error {
 };
 var BUG_REPORT_HINT = "This is a bug in Plumbline, not in your files. Please open an issue with the command you ran and the output above.";
 
+// src/version.ts
+var VERSION = "0.1.0";
+
+// src/core/report/numbers.ts
+var NOT_A_NUMBER = "n/a";
+function formatCount(n) {
+  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
+}
+function formatRate(rate) {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  const percent = rate * 100;
+  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
+  return `${percent.toFixed(Math.min(digits, 4))}%`;
+}
+function formatRelative(change2) {
+  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
+  const percent = change2 * 100;
+  const text2 = Number(percent.toPrecision(3)).toString();
+  return `${percent >= 0 ? "+" : ""}${text2}%`;
+}
+function formatValue(value) {
+  if (!Number.isFinite(value)) return NOT_A_NUMBER;
+  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
+  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+}
+function formatPower(power) {
+  if (!Number.isFinite(power)) return NOT_A_NUMBER;
+  if (power > 0.999) return ">99.9%";
+  if (power < 1e-3) return "<0.1%";
+  return `${(power * 100).toFixed(1)}%`;
+}
+function formatMultiplier(m) {
+  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+
+// src/core/report/terminal-style.ts
+function terminalStyle(color) {
+  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
+  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
+}
+function terminalSafe(text2) {
+  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
+}
+function formatTable(header, rows2) {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
+  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
+  return [line(header), ...rows2.map(line)].join("\n");
+}
+
+// src/core/report/readout.ts
+var SRM_JSON_FORMAT = "plumbline.srm/1";
+var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
+function formatP(p) {
+  if (p < 1e-12) return "< 1e-12";
+  return p < 1e-3 ? p.toExponential(2) : p.toFixed(4);
+}
+function renderSrmText(check2, observed, weights, threshold) {
+  const total = observed.reduce((a, b) => a + b, 0);
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const rows2 = observed.map((o, i) => [
+    `arm ${i + 1}`,
+    `${(weights[i] / weightSum * 100).toFixed(1)}%`,
+    formatCount(o),
+    formatCount(check2.expected[i]),
+    `${(o / total * 100).toFixed(2)}%`
+  ]);
+  const verdict = check2.mismatch ? `Sample ratio mismatch: p = ${formatP(check2.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check2.pValue)} (alarm below ${threshold}).`;
+  return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check2.statistic.toFixed(3)} on ${check2.degreesOfFreedom} df. ${verdict}`].join("\n");
+}
+function renderAdjustedText(pValues, bh, bonferroni2, q) {
+  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni2[i]), bonferroni2[i] <= q ? "yes" : "no"]);
+  const found = (list2) => list2.filter((x) => x <= q).length;
+  return [
+    formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
+    "",
+    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni2)}.`
+  ].join("\n");
+}
+
+// src/core/stats/result.ts
+var ok = (value) => ({ ok: true, value });
+var fail = (input2, message) => ({ ok: false, error: { input: input2, message } });
+function finite(value, input2, what) {
+  return Number.isFinite(value) ? ok(value) : fail(input2, `${what} cannot be computed for these inputs`);
+}
+
+// src/core/stats/multiple-testing.ts
+function benjaminiHochberg(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
+  const adjusted = new Array(m);
+  let running = 1;
+  order.forEach(({ p, i }, rankFromTop) => {
+    const rank = m - rankFromTop;
+    running = Math.min(running, p * m / rank);
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+function bonferroniAdjust(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
+}
+
+// src/cli/common.ts
+import { resolve } from "node:path";
+
 // src/adapters/files.ts
+import { mkdir, readdir, readFile, rename, rm, writeFile } from "node:fs/promises";
+import { dirname, join, relative, sep } from "node:path";
+import { randomBytes } from "node:crypto";
 var SKIPPED_FOLDERS = /* @__PURE__ */ new Set([".git", "node_modules"]);
 function createRepoFiles(root) {
   const readText = async (path) => {
@@ -16272,6 +16375,603 @@ async function writeFileAtomic(path, text2, options) {
 }
 function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
+}
+
+// src/core/source/problem.ts
+function formatProblem(problem) {
+  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
+  const field = problem.field ? `${problem.field}: ` : "";
+  const detail = [
+    problem.expected ? `expected ${problem.expected}` : "",
+    problem.found ? `found ${problem.found}` : ""
+  ].filter(Boolean).join("; ");
+  return `${where2}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
+}
+function sortProblems(problems) {
+  return [...problems].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
+  );
+}
+function describeValue(value) {
+  if (value === void 0) return "nothing";
+  if (value === null) return "an empty value";
+  if (typeof value === "string") {
+    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
+    return `the text ${JSON.stringify(shown)}`;
+  }
+  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
+  if (typeof value === "boolean") return `${value}`;
+  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
+  if (typeof value === "object") return "a mapping of keys";
+  return typeof value;
+}
+
+// src/cli/output.ts
+function createCliOutput(options) {
+  const env = process.env;
+  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
+  const interactive = process.stderr.isTTY === true && env.CI !== "true";
+  let drawn = false;
+  return {
+    color,
+    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    progress(done, total, what) {
+      if (!interactive || total < 200) return;
+      if (done < total) {
+        if (done % 50 === 0) {
+          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
+          drawn = true;
+        }
+      } else if (drawn) {
+        process.stderr.write("\r\x1B[2K");
+        drawn = false;
+      }
+    }
+  };
+}
+
+// src/cli/common.ts
+var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
+var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
+function context(options) {
+  const output2 = createCliOutput({ noColorFlag: !options.color });
+  const files = createRepoFiles(resolve(options.cwd));
+  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
+}
+function reportSettingsProblems(output2, format, file2, problems) {
+  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
+  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
+  return EXIT.usage;
+}
+function parseNumbers(what, texts) {
+  return texts.map((text2) => {
+    const value = Number(text2);
+    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
+    return value;
+  });
+}
+
+// src/cli/adjust-command.ts
+function addAdjustCommand(program2, setExit) {
+  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
+    const p = parseNumbers("p-values", values);
+    const q = parseNumbers("q", [local.q])[0];
+    const bh = benjaminiHochberg(p);
+    const bonferroni2 = bonferroniAdjust(p);
+    if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
+    if (!bonferroni2.ok) throw new UsageError(`${bonferroni2.error.input}: ${bonferroni2.error.message}`);
+    const output2 = createCliOutput({ noColorFlag: true });
+    output2.out(
+      local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni2.value }, null, 2) : renderAdjustedText(p, bh.value, bonferroni2.value, q)
+    );
+    setExit(EXIT.ok);
+  });
+}
+
+// src/cli/check-command.ts
+import { readFile as readFile2 } from "node:fs/promises";
+
+// src/adapters/git.ts
+import { spawn } from "node:child_process";
+import { closeSync, fstatSync, openSync, readSync } from "node:fs";
+import { join as join2 } from "node:path";
+function runGit(cwd, args, options = {}) {
+  return new Promise((resolve5, reject) => {
+    const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
+      cwd,
+      stdio: ["pipe", "pipe", "pipe"]
+    });
+    const out = [];
+    const err = [];
+    child.stdout.on("data", (chunk) => out.push(chunk));
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on(
+      "error",
+      (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
+    );
+    child.on("close", (code) => {
+      if (code === 0 || options.allow?.includes(code ?? -1)) resolve5(Buffer.concat(out));
+      else {
+        const stderr = Buffer.concat(err).toString("utf8").trim();
+        reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
+      }
+    });
+    child.stdin.on("error", () => void 0);
+    child.stdin.end(options.input ?? "");
+  });
+}
+function hintFor(stderr) {
+  if (/not a git repository/i.test(stderr)) return "run plumbline inside a git repository, or pass --cwd";
+  if (/unknown revision|bad revision|Needed a single revision|invalid object name/i.test(stderr)) {
+    return "check --base and --head; in a shallow clone (actions/checkout fetches one commit by default) fetch more history, e.g. fetch-depth: 0";
+  }
+  return void 0;
+}
+async function resolveCommit(cwd, ref, flag) {
+  try {
+    return (await runGit(cwd, ["rev-parse", "--verify", "--end-of-options", `${ref}^{commit}`])).toString("utf8").trim();
+  } catch (error62) {
+    const hint = error62 instanceof ExternalError ? error62.hint : void 0;
+    throw new ExternalError(`${flag} ${ref} is not a commit in this repository`, hint ?? "check the ref name", { cause: error62 });
+  }
+}
+async function openChange(repoDir, baseRef, headRef) {
+  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, "--head"), resolveCommit(repoDir, baseRef, "--base")]);
+  const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
+  const base = mergeBase || baseTip;
+  const commitOf = (side) => side === "base" ? base : head;
+  const checkedOutIsHead = (async () => {
+    const current = (await runGit(repoDir, ["rev-parse", "--verify", "--quiet", "HEAD"], { allow: [1] })).toString("utf8").trim();
+    if (current !== head) return false;
+    return runGit(repoDir, ["diff", "--quiet", "HEAD", "--"]).then(
+      () => true,
+      () => false
+    );
+  })();
+  const trackedCache = /* @__PURE__ */ new Map();
+  const trackedFiles = (side) => {
+    const commit = commitOf(side);
+    let cached4 = trackedCache.get(commit);
+    if (!cached4) {
+      cached4 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
+      trackedCache.set(commit, cached4);
+    }
+    return cached4;
+  };
+  const streamFiles = async (side, paths, onFile) => {
+    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
+    return catFiles(repoDir, commitOf(side), paths, onFile);
+  };
+  const filesAt = (side) => {
+    const readTexts = async (paths) => {
+      const found = /* @__PURE__ */ new Map();
+      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString("utf8")));
+      return paths.map((p) => found.get(p));
+    };
+    return {
+      async listFiles(folder) {
+        const prefix = folder === "" || folder === "." ? "" : `${folder.replace(/\/+$/, "")}/`;
+        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
+      },
+      async readText(path) {
+        return (await readTexts([path]))[0];
+      },
+      readTexts
+    };
+  };
+  return {
+    base,
+    head,
+    async changedFiles() {
+      const out = (await runGit(repoDir, ["diff", "--name-status", "-z", "-M", base, head])).toString("utf8");
+      return parseNameStatus(out);
+    },
+    async diff() {
+      return (await runGit(repoDir, ["diff", "--unified=0", "--no-ext-diff", "--no-textconv", "-M", "--src-prefix=a/", "--dst-prefix=b/", base, head])).toString("utf8");
+    },
+    filesAt,
+    streamFiles,
+    trackedFiles
+  };
+}
+function parseNameStatus(out) {
+  const parts = out.split("\0").filter((p) => p !== "");
+  const files = [];
+  for (let i = 0; i < parts.length; ) {
+    const code = parts[i++];
+    if (code.startsWith("R") || code.startsWith("C")) {
+      const previousPath = parts[i++];
+      const path = parts[i++];
+      files.push({ path, status: "renamed", previousPath });
+    } else {
+      const path = parts[i++];
+      files.push({ path, status: code === "A" ? "added" : code === "D" ? "deleted" : "modified" });
+    }
+  }
+  return files;
+}
+function catFiles(cwd, commit, paths, onFile) {
+  const asked = paths.filter((p) => !p.includes("\n"));
+  if (asked.length === 0) return Promise.resolve();
+  return new Promise((resolve5, reject) => {
+    const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
+    let index = 0;
+    let pending = Buffer.alloc(0);
+    let current;
+    const err = [];
+    child.stdout.on("data", (chunk) => {
+      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
+      for (; ; ) {
+        if (!current) {
+          const newline = pending.indexOf(10);
+          if (newline < 0) return;
+          const header = pending.subarray(0, newline).toString("utf8");
+          pending = pending.subarray(newline + 1);
+          if (header.endsWith(" missing") || header.endsWith(" ambiguous")) {
+            index++;
+            continue;
+          }
+          const size = Number(header.slice(header.lastIndexOf(" ") + 1));
+          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(" blob ") };
+        }
+        if (pending.length < current.size + 1) return;
+        if (current.deliver) onFile(asked[index], pending.subarray(0, current.size));
+        pending = pending.subarray(current.size + 1);
+        index++;
+        current = void 0;
+      }
+    });
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
+    child.on("close", (code) => {
+      if (code === 0) resolve5();
+      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
+    });
+    child.stdin.on("error", () => void 0);
+    child.stdin.end(asked.map((p) => `${commit}:${p}
+`).join(""));
+  });
+}
+async function readWorkingTree(root, paths, onFile) {
+  let buffer = Buffer.allocUnsafe(1 << 20);
+  for (const path of paths) {
+    let fd;
+    try {
+      fd = openSync(join2(root, path), "r");
+      const size = fstatSync(fd).size;
+      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
+      let read = 0;
+      while (read < size) {
+        const n = readSync(fd, buffer, read, size - read, read);
+        if (n === 0) break;
+        read += n;
+      }
+      onFile(path, buffer.subarray(0, read));
+    } catch {
+    } finally {
+      if (fd !== void 0) closeSync(fd);
+    }
+  }
+}
+
+// src/core/report/markdown-safe.ts
+function safeText(text2) {
+  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
+}
+function safeCell(text2) {
+  return safeText(text2).replace(/\|/g, "\\|");
+}
+function codeSpan(text2) {
+  const clean = text2.replace(/\r?\n/g, " ");
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
+  return `${fence}${pad}${clean}${pad}${fence}`;
+}
+
+// src/core/report/sizing.ts
+var SIZING_JSON_FORMAT = "plumbline.sizing/1";
+function valueText(entry, value) {
+  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function describeChange(entry, change2, from) {
+  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
+  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
+}
+function sizeCells(size) {
+  if (!size) return ["", "", "", ""];
+  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
+  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : "", size.duration ? String(size.duration.weeks) : ""];
+}
+function rows(sizing) {
+  return sizing.metrics.map((entry) => {
+    const role = entry.role === "guardrail" ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
+    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
+    const s = entry.result.value;
+    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
+    const end = s.atPlannedEnd;
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
+  });
+}
+var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
+function multiplierNotes(entry, sizing) {
+  const m = sizing.multipliers;
+  const out = [];
+  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
+  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
+  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
+  if (sizing.boundaries) {
+    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
+    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
+  }
+  if (sizing.diluted && sizing.triggered) {
+    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
+    out.push(
+      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
+    );
+  }
+  return out.map((text2) => `${entry.metric}: ${text2}`);
+}
+function notesOf(sizing) {
+  return sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []);
+}
+function windowLine(sizing, context2) {
+  if (sizing.plannedDays !== void 0) {
+    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
+    return `Planned window: ${sizing.plannedDays} days${dates}.`;
+  }
+  return "Planned window: not set, so power and detectable effect at the end are not computed.";
+}
+function renderSizingText(sizing, context2) {
+  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const traffic = sizing.dailyUnits === void 0 ? "No daily-units given, so no durations." : "";
+  const notes = notesOf(sizing);
+  return [
+    context2.title,
+    context2.designLine,
+    windowLine(sizing, context2),
+    ...traffic ? [traffic] : [],
+    "",
+    table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
+  ].join("\n");
+}
+function mermaidPowerChart(entry, sizing, target) {
+  const points = sizing.powerByDay;
+  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
+  const days = points.map((p) => p.day).join(", ");
+  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
+  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
+  return [
+    "```mermaid",
+    "xychart-beta",
+    `  title "Power by day: ${entry.metric}"`,
+    `  x-axis "day" [${days}]`,
+    '  y-axis "power (%)" 0 --> 100',
+    `  line [${power}]`,
+    `  line [${goal}]`,
+    "```"
+  ].join("\n");
+}
+function markdownCell(text2) {
+  return text2.replace(/\|/g, "\\|");
+}
+function renderSizingMarkdown(sizing, context2) {
+  const table2 = [
+    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
+    `| ${HEADER.map(() => "---").join(" | ")} |`,
+    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
+  ];
+  const primary = sizing.metrics.find((m) => m.role === "primary");
+  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
+  const notes = notesOf(sizing);
+  return [
+    `### ${context2.title}`,
+    "",
+    [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
+    "",
+    ...table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
+    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
+    ""
+  ].join("\n");
+}
+function sizingJson(sizing, context2) {
+  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
+}
+function designSummary(design) {
+  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
+  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
+  const traffic = design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
+  return `${arms}, ${test}${traffic}.`;
+}
+
+// src/core/report/review-markdown.ts
+var REVIEW_MARKER = "<!-- plumbline:review -->";
+var COMMENT_LIMIT = 65536;
+var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
+var HEADLINE = {
+  blocked: "\u26D4 Plumbline: blocked",
+  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
+  clear: "\u2705 Plumbline: all clear",
+  "nothing-to-check": "\u2705 Plumbline: nothing to check"
+};
+function plural(n, noun) {
+  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+}
+function where(path, line, options) {
+  if (!path) return "";
+  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
+  return options.link ? `[${label}](${options.link(path, line ?? 1)})` : label;
+}
+function findingLine(f, options) {
+  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
+  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+}
+function verdictLine(review) {
+  if (review.verdict === "nothing-to-check") return `### ${HEADLINE[review.verdict]}`;
+  const parts = [
+    review.counts.block ? plural(review.counts.block, "blocking finding") : "",
+    review.counts.warn ? plural(review.counts.warn, "warning") : "",
+    review.counts.note ? plural(review.counts.note, "note") : ""
+  ].filter(Boolean);
+  return `### ${HEADLINE[review.verdict]}${parts.length ? ` \u2014 ${parts.join(", ")}` : ""}`;
+}
+function planSection(plan, options, detail) {
+  const lines = [
+    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
+    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
+    "",
+    ...plan.checklist.map((item) => `- [${item.done ? "x" : " "}] ${item.label}`)
+  ];
+  if (!detail.planDetails) return lines;
+  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
+  const body = detail.charts ? sizing : cutChart(sizing);
+  const found = plan.events.filter((e) => e.location).length;
+  lines.push(
+    "",
+    "<details><summary>Sizing: units, days and power</summary>",
+    "",
+    ...body,
+    "</details>",
+    "",
+    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
+    "",
+    "| event | used for | first logged at |",
+    "| --- | --- | --- |",
+    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`),
+    "",
+    "</details>"
+  );
+  return lines;
+}
+function cutChart(lines) {
+  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
+  return start < 0 ? lines : lines.slice(0, start);
+}
+function render(review, options, detail, omitted) {
+  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  if (review.findings.length) {
+    out.push("#### Findings", "", ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
+    const hidden = review.findings.length - detail.findingsShown;
+    if (hidden > 0) out.push(`- \u2026 and ${plural(hidden, "more finding")}${options.fullReport ? ` in ${options.fullReport}` : ""}.`);
+    out.push("");
+  }
+  for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
+  if (review.nudge) {
+    out.push(
+      "#### A small check test for this fix?",
+      "",
+      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
+      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
+      "",
+      "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
+      "",
+      "```yaml",
+      review.nudge.planStub.replace(/```/g, "'''"),
+      "```",
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (review.collisions.length) {
+    out.push(
+      "#### Running tests on the same surface",
+      "",
+      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
+      "| --- | --- | --- | --- | --- | --- | --- | --- |",
+      ...review.collisions.map(
+        (c) => `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
+      ),
+      ""
+    );
+  }
+  if (review.flags.length) {
+    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
+    out.push(
+      "<details><summary>Feature flags this change touches</summary>",
+      "",
+      "| flag | where | how | plans |",
+      "| --- | --- | --- | --- |",
+      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeSpan).join(", ") : "**none**"} |`),
+      ...review.flags.length > shown.length ? [``, `\u2026and ${review.flags.length - shown.length} more.`] : [],
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(", ")}${options.fullReport ? `; the full report is in ${options.fullReport}` : ""}.</sub>`);
+  return out.join("\n").replace(/\n{3,}/g, "\n\n");
+}
+function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT) {
+  const steps = [
+    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
+    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ["the power charts"]],
+    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ["the power charts", "the sizing and events tables"]]
+  ];
+  for (const [detail, omitted] of steps) {
+    const body = render(review, options, detail, omitted);
+    if (body.length <= limit) return body;
+  }
+  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
+    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ["the power charts", "the sizing and events tables", "some findings"]);
+    if (body.length <= limit) return body;
+  }
+  return `${REVIEW_MARKER}
+${verdictLine(review)}
+
+The full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+}
+
+// src/core/report/review-text.ts
+var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
+function renderReviewText(review, options) {
+  const style = terminalStyle(options.color);
+  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
+  const out = [];
+  const verdict = {
+    blocked: style.red("blocked"),
+    warnings: style.yellow("passes, with warnings"),
+    clear: style.green("all clear"),
+    "nothing-to-check": style.green("nothing to check")
+  }[review.verdict];
+  const n = (count3, noun) => `${count3} ${noun}${count3 === 1 ? "" : "s"}`;
+  out.push(`${style.bold("Plumbline")}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, "warning")}, ${n(review.counts.note, "note")}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  for (const f of review.findings) {
+    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
+    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ""}: ${terminalSafe(f.message)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`);
+  }
+  for (const plan of review.plans) {
+    out.push("", `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(", "))}) ${plan.file}:${plan.line}`);
+    for (const item of plan.checklist) out.push(`  [${item.done ? style.green("x") : style.red(" ")}] ${item.label}`);
+    const primary = plan.sizing.metrics[0];
+    if (primary?.result.ok && primary.result.value.headline) {
+      const h = primary.result.value.headline;
+      const end = primary.result.value.atPlannedEnd;
+      out.push(
+        `  sizing: ${h.totalUnits.toLocaleString("en-US")} units${h.duration ? `, ${h.duration.days} days (${h.duration.weeks} weeks)` : ""}${end?.power !== void 0 ? `, ${(end.power * 100).toFixed(1)}% power by the planned end` : ""}; details: plumbline size ${plan.id}`
+      );
+    }
+    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
+    out.push(`  events: ${plan.events.length - missing.length} of ${plan.events.length} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
+  }
+  return out.join("\n");
 }
 
 // ../main/node_modules/zod/v4/classic/external.js
@@ -21341,7 +22041,7 @@ var recursive = /* @__PURE__ */ new WeakMap();
 var NONE = 0;
 var ASSUMED = 1;
 var PROVEN = 2;
-function isRecursive(inst, stack, resolve4) {
+function isRecursive(inst, stack, resolve5) {
   const cached4 = recursive.get(inst);
   if (cached4 !== void 0)
     return cached4 ? PROVEN : NONE;
@@ -21351,7 +22051,7 @@ function isRecursive(inst, stack, resolve4) {
   let result = NONE;
   const check2 = (child) => {
     if (result !== PROVEN && child?._zod) {
-      const answer = isRecursive(child, stack, resolve4);
+      const answer = isRecursive(child, stack, resolve5);
       if (answer > result)
         result = answer;
     }
@@ -21362,7 +22062,7 @@ function isRecursive(inst, stack, resolve4) {
       const desc = Object.getOwnPropertyDescriptor(sh, key);
       if (spread && !desc.enumerable)
         continue;
-      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve4) : NONE;
+      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve5) : NONE;
       if (child > answer)
         answer = child;
     }
@@ -21426,7 +22126,7 @@ function isRecursive(inst, stack, resolve4) {
       break;
     // `$ZodLazy` caches its inner on the def, so a resolved edge is followed exactly
     case "lazy": {
-      const inner = def._cachedInner ?? (resolve4 ? inst._zod.innerType : void 0);
+      const inner = def._cachedInner ?? (resolve5 ? inst._zod.innerType : void 0);
       merge2(inner ? isRecursive(inner, stack, false) : ASSUMED);
       break;
     }
@@ -35276,7 +35976,7 @@ function containsRef(value) {
     return Object.values(sub).some(containsRef);
   });
 }
-function plural(n) {
+function plural2(n) {
   return n === 1 ? "element" : "elements";
 }
 function checkArrayGuards(arraySchema, guards) {
@@ -35315,7 +36015,7 @@ function checkArrayGuards(arraySchema, guards) {
       if (matches < minContains) {
         payload.issues.push({
           code: "custom",
-          message: `Array must contain at least ${minContains} matching ${plural(minContains)}; found ${matches}`,
+          message: `Array must contain at least ${minContains} matching ${plural2(minContains)}; found ${matches}`,
           input: items,
           continue: true
         });
@@ -35323,7 +36023,7 @@ function checkArrayGuards(arraySchema, guards) {
       if (guards.maxContains !== void 0 && matches > guards.maxContains) {
         payload.issues.push({
           code: "custom",
-          message: `Array must contain at most ${guards.maxContains} matching ${plural(guards.maxContains)}`,
+          message: `Array must contain at most ${guards.maxContains} matching ${plural2(guards.maxContains)}`,
           input: items,
           continue: true
         });
@@ -35991,6 +36691,133 @@ function date4(params) {
   return _coercedDate(ZodDate, params);
 }
 
+// src/core/review/report-schema.ts
+var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
+var severity = external_exports.enum(["block", "warn", "note"]);
+var analysisSize = external_exports.object({
+  perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
+  totalUnits: external_exports.number().int(),
+  clusters: external_exports.number().int().optional(),
+  duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
+});
+var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
+var sizeResult = external_exports.union([
+  external_exports.object({
+    ok: external_exports.literal(true),
+    value: external_exports.object({
+      baselineValue: external_exports.number(),
+      sd: external_exports.number().optional(),
+      effect: change.extend({ from: external_exports.number() }).optional(),
+      multipliers: external_exports.object({
+        comparisons: external_exports.number(),
+        alphaPerComparison: external_exports.number(),
+        designEffect: external_exports.number(),
+        varianceReduction: external_exports.number(),
+        sequential: external_exports.number(),
+        dilutionUnits: external_exports.number(),
+        dilutionDays: external_exports.number()
+      }),
+      boundaries: external_exports.object({ kind: external_exports.enum(["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"]), z: external_exports.array(external_exports.number()), nominalP: external_exports.array(external_exports.number()) }).optional(),
+      triggered: analysisSize.optional(),
+      diluted: analysisSize.optional(),
+      headline: analysisSize.optional(),
+      atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
+      powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
+      notes: external_exports.array(external_exports.string())
+    })
+  }),
+  external_exports.object({ ok: external_exports.literal(false), error: external_exports.object({ input: external_exports.string(), message: external_exports.string() }) })
+]);
+var reviewReportSchema = external_exports.object({
+  format: external_exports.literal("plumbline.review/1"),
+  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check"]),
+  counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
+  base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  findings: external_exports.array(
+    external_exports.object({
+      code: external_exports.string(),
+      severity,
+      message: external_exports.string(),
+      fix: external_exports.string(),
+      plan: external_exports.string().optional(),
+      file: external_exports.string().optional(),
+      line: external_exports.number().int().positive().optional()
+    })
+  ),
+  plans: external_exports.array(
+    external_exports.object({
+      id: external_exports.string(),
+      title: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      state: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      reasons: external_exports.array(external_exports.enum(["named in the description", "plan file changed", "flag touched"])),
+      checklist: external_exports.array(external_exports.object({ label: external_exports.string(), done: external_exports.boolean() })),
+      sizing: external_exports.object({
+        planId: external_exports.string(),
+        plannedDays: external_exports.number().int().optional(),
+        dailyUnits: external_exports.number().optional(),
+        metrics: external_exports.array(
+          external_exports.object({
+            metric: external_exports.string(),
+            role: external_exports.enum(["primary", "guardrail"]),
+            kind: external_exports.enum(["proportion", "mean", "ratio"]),
+            direction: external_exports.enum(["increase", "decrease"]),
+            sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
+            result: sizeResult
+          })
+        )
+      }),
+      power: external_exports.number(),
+      window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
+      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
+    })
+  ),
+  flags: external_exports.array(
+    external_exports.object({
+      key: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      side: external_exports.enum(["added", "removed"]),
+      via: external_exports.string(),
+      plans: external_exports.array(external_exports.string()),
+      exempt: external_exports.boolean()
+    })
+  ),
+  collisions: external_exports.array(
+    external_exports.object({
+      plan: external_exports.string(),
+      other: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      otherSurface: external_exports.string(),
+      overlapDays: external_exports.number().int().optional(),
+      overlapWindow: external_exports.object({ start: external_exports.string(), end: external_exports.string() }).optional(),
+      platforms: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      locales: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      trafficShare: external_exports.number(),
+      known: external_exports.boolean()
+    })
+  ),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
+}).describe("The Plumbline pull-request review report.");
+var REVIEW_JSON_FORMAT = "plumbline.review/1";
+function reviewJson(review) {
+  return { format: REVIEW_JSON_FORMAT, ...review };
+}
+
+// src/run/review-change.ts
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
+
+// src/core/config/scan-files.ts
+var import_picomatch = __toESM(require_picomatch2(), 1);
+function scanMatcher(scan) {
+  const include = (0, import_picomatch.default)([...scan.include], { dot: true });
+  const exclude = scan.exclude.length ? (0, import_picomatch.default)([...scan.exclude], { dot: true }) : () => false;
+  return (path) => include(path) && !exclude(path);
+}
+
 // src/core/source/fields.ts
 function asDescription(expected) {
   return `${expected.charAt(0).toUpperCase()}${expected.slice(1)}.`;
@@ -36118,13 +36945,6 @@ function solveIncreasing(f, target, guess, min, max, tolerance = 1e-10) {
   while (g(lo) > 0 && lo > min) lo = Math.max(min, lo / 4);
   while (g(hi) < 0 && hi < max) hi = Math.min(max, hi * 4);
   return findRoot(g, lo, hi, tolerance * Math.max(1, Math.abs(guess)));
-}
-
-// src/core/stats/result.ts
-var ok = (value) => ({ ok: true, value });
-var fail = (input2, message) => ({ ok: false, error: { input: input2, message } });
-function finite(value, input2, what) {
-  return Number.isFinite(value) ? ok(value) : fail(input2, `${what} cannot be computed for these inputs`);
 }
 
 // src/core/stats/sequential.ts
@@ -36632,317 +37452,6 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
   };
 });
 
-// src/core/plan/json-schema.ts
-var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
-var cached2;
-function planJsonSchema() {
-  cached2 ??= {
-    $id: PLAN_SCHEMA_ID,
-    title: "Plumbline experiment plan",
-    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
-  };
-  return cached2;
-}
-
-// src/core/source/closest-name.ts
-function closestName(typed, known) {
-  const wanted = typed.toLowerCase();
-  let best;
-  let bestDistance = Infinity;
-  for (const candidate of known) {
-    const distance = editDistance(wanted, candidate.toLowerCase());
-    if (distance < bestDistance) {
-      best = candidate;
-      bestDistance = distance;
-    }
-  }
-  const tolerance = Math.max(2, Math.floor(typed.length / 3));
-  if (best !== void 0 && bestDistance <= tolerance) return best;
-  return known.find((candidate) => stem(candidate) === stem(typed));
-}
-function stem(name) {
-  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
-}
-function editDistance(a, b) {
-  const rows2 = a.length + 1;
-  const cols = b.length + 1;
-  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
-  for (let i = 1; i < rows2; i++) {
-    for (let j = 1; j < cols; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
-        value = Math.min(value, d[i - 2][j - 2] + 1);
-      }
-      d[i][j] = value;
-    }
-  }
-  return d[a.length][b.length];
-}
-
-// src/core/source/problem.ts
-function formatProblem(problem) {
-  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
-  const field = problem.field ? `${problem.field}: ` : "";
-  const detail = [
-    problem.expected ? `expected ${problem.expected}` : "",
-    problem.found ? `found ${problem.found}` : ""
-  ].filter(Boolean).join("; ");
-  return `${where2}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ""}`;
-}
-function sortProblems(problems) {
-  return [...problems].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
-  );
-}
-function describeValue(value) {
-  if (value === void 0) return "nothing";
-  if (value === null) return "an empty value";
-  if (typeof value === "string") {
-    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
-    return `the text ${JSON.stringify(shown)}`;
-  }
-  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
-  if (typeof value === "boolean") return `${value}`;
-  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
-  if (typeof value === "object") return "a mapping of keys";
-  return typeof value;
-}
-
-// src/core/source/check-written.ts
-function checkWritten(source, schema, jsonSchema, codePrefix) {
-  const parsed = schema.safeParse(source.value);
-  if (parsed.success) return { ok: true, value: parsed.data };
-  const problems = [];
-  for (const issue2 of parsed.error.issues) {
-    problems.push(...issueToProblems(issue2, source, jsonSchema, codePrefix));
-  }
-  return { ok: false, problems: dedupe(problems) };
-}
-function issueToProblems(issue2, source, jsonSchema, codePrefix) {
-  const path = issue2.path.filter((p) => typeof p !== "symbol");
-  if (issue2.code === "unrecognized_keys") {
-    const known = knownKeysAt(jsonSchema, source.value, path);
-    return (issue2.keys ?? []).map((key) => {
-      const suggestion = closestName(key, known);
-      return {
-        severity: "error",
-        code: `${codePrefix}/unknown-key`,
-        ...source.locateKey(path, key),
-        field: formatFieldPath([...path, key]),
-        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
-        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
-      };
-    });
-  }
-  if (issue2.code === "invalid_union") {
-    if (issue2.discriminator) {
-      const discriminatorPath = path[path.length - 1] === issue2.discriminator ? path : [...path, issue2.discriminator];
-      return [{ ...fieldProblem(issue2, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
-    }
-    const branch = pickUnionBranch(issue2.errors ?? []);
-    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue2.path, ...inner.path] }, source, jsonSchema, codePrefix));
-  }
-  return [fieldProblem(issue2, path, source, codePrefix)];
-}
-function fieldProblem(issue2, path, source, codePrefix) {
-  const found = valueAt(source.value, path);
-  const missing = found === void 0;
-  const customCode = issue2.code === "custom" ? issue2.params?.code : void 0;
-  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : path.length === 0 && found === null ? "the file is empty" : summaryFor(issue2);
-  return {
-    severity: "error",
-    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
-    ...source.locate(path),
-    field: formatFieldPath(path),
-    message,
-    expected: cleanZodMessage(issue2.message),
-    ...missing ? {} : { found: describeFound(found) }
-  };
-}
-function describeFound(found) {
-  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
-  const described = describeValue(found);
-  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
-}
-function summaryFor(issue2) {
-  switch (issue2.code) {
-    case "invalid_type":
-      return "has the wrong type";
-    case "too_small":
-      return issue2.origin === "array" ? "has too few items" : issue2.origin === "string" ? "is empty" : "is out of range";
-    case "too_big":
-      return issue2.origin === "array" ? "has too many items" : issue2.origin === "string" ? "is too long" : "is out of range";
-    case "invalid_value":
-      return "is not one of the allowed values";
-    case "invalid_format":
-      return "is not in the expected format";
-    default:
-      return "is not valid";
-  }
-}
-function cleanZodMessage(message) {
-  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
-}
-function pickUnionBranch(branches) {
-  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
-  if (shaped.length === 0) return void 0;
-  return shaped.reduce((best, next) => next.length < best.length ? next : best);
-}
-function dedupe(problems) {
-  const seen = /* @__PURE__ */ new Set();
-  return problems.filter((p) => {
-    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
-    if (seen.has(key)) return false;
-    seen.add(key);
-    return true;
-  });
-}
-function formatFieldPath(path) {
-  return path.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
-}
-function valueAt(value, path) {
-  let current = value;
-  for (const segment of path) {
-    if (current === null || typeof current !== "object") return void 0;
-    current = current[segment];
-  }
-  return current;
-}
-function knownKeysAt(schema, data, path) {
-  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
-  let nodes = [schema];
-  let current = data;
-  for (const segment of path) {
-    nodes = nodes.flatMap((n) => branchesFor(n, current));
-    const next = [];
-    for (const node2 of nodes) {
-      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
-      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
-    }
-    nodes = next;
-    current = current !== null && typeof current === "object" ? current[segment] : void 0;
-  }
-  const keys = /* @__PURE__ */ new Set();
-  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
-    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
-  }
-  return [...keys];
-}
-function resolveRef2(root, node2) {
-  const ref = node2.$ref;
-  if (!ref?.startsWith("#/$defs/")) return node2;
-  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
-}
-function unionBranches(node2, data, root) {
-  const options = node2.anyOf ?? node2.oneOf;
-  if (!options) return [node2];
-  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
-  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
-  const matching = all.filter((option) => {
-    if (Array.isArray(data)) return option.items !== void 0;
-    if (!record2) return true;
-    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
-  });
-  return matching.length ? matching : all;
-}
-
-// src/core/source/yaml-source.ts
-var import_yaml = __toESM(require_dist(), 1);
-function readYaml(text2, file2, limits, codePrefix) {
-  const fail2 = (line, column, code, message, expected) => ({
-    ok: false,
-    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
-  });
-  const bytes = Buffer.byteLength(text2, "utf8");
-  if (bytes > limits.maxBytes) {
-    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
-  }
-  const lineCounter = new import_yaml.LineCounter();
-  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
-  const firstError = doc.errors[0];
-  if (firstError) {
-    const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
-    if (firstError.code === "DUPLICATE_KEY") {
-      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
-    }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
-  }
-  let complexKeyAt;
-  (0, import_yaml.visit)(doc, {
-    Pair(_, pair2) {
-      if (pair2.key !== null && !(0, import_yaml.isScalar)(pair2.key)) {
-        complexKeyAt = pair2.key.range?.[0] ?? 0;
-        return import_yaml.visit.BREAK;
-      }
-      return void 0;
-    }
-  });
-  if (complexKeyAt !== void 0) {
-    const pos = lineCounter.linePos(complexKeyAt);
-    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
-  }
-  let value;
-  try {
-    value = doc.toJS({ maxAliasCount: limits.maxAliases });
-  } catch (error62) {
-    const message = error62 instanceof Error ? error62.message : String(error62);
-    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
-  }
-  const at = (offset) => {
-    const pos = lineCounter.linePos(offset);
-    return { file: file2, line: pos.line, column: pos.col };
-  };
-  const rootOffset = doc.contents?.range[0] ?? 0;
-  const walk2 = (path) => {
-    let node2 = doc.contents;
-    let depth = 0;
-    for (const segment of path) {
-      const next = childOf(node2, segment);
-      if (!next) break;
-      node2 = next;
-      depth++;
-    }
-    return { node: node2, depth };
-  };
-  return {
-    ok: true,
-    source: {
-      file: file2,
-      value,
-      locate(path) {
-        const { node: node2 } = walk2(path);
-        return at(node2?.range?.[0] ?? rootOffset);
-      },
-      locateKey(path, key) {
-        const { node: node2, depth } = walk2(path);
-        if (depth === path.length && (0, import_yaml.isMap)(node2)) {
-          const pair2 = node2.items.find((item) => (0, import_yaml.isScalar)(item.key) && String(item.key.value) === key);
-          const keyNode = pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : void 0;
-          if (keyNode?.range) return at(keyNode.range[0]);
-        }
-        return at(node2?.range?.[0] ?? rootOffset);
-      }
-    }
-  };
-}
-function childOf(node2, segment) {
-  if ((0, import_yaml.isMap)(node2)) {
-    const pair2 = node2.items.find((item) => (0, import_yaml.isPair)(item) && (0, import_yaml.isScalar)(item.key) && String(item.key.value) === String(segment));
-    return pair2?.value ?? (pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : null);
-  }
-  if ((0, import_yaml.isSeq)(node2) && typeof segment === "number") {
-    return node2.items[segment] ?? null;
-  }
-  return null;
-}
-function plainYamlMessage(message) {
-  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
-}
-
 // src/core/registry/schema.ts
 var writtenEntry = external_exports.strictObject(
   {
@@ -37004,632 +37513,6 @@ function entryFromPlan(plan, file2, line) {
   };
 }
 
-// src/core/registry/load.ts
-var REGISTRY_LIMITS = { maxBytes: 4 * 1024 * 1024, maxAliases: 1e3 };
-var cachedJsonSchema;
-function registryJsonSchema() {
-  cachedJsonSchema ??= {
-    $id: "https://plumbline.dev/schema/registry.schema.json",
-    title: "Plumbline registry file",
-    ...external_exports.toJSONSchema(writtenRegistrySchema, { io: "input", target: "draft-2020-12" })
-  };
-  return cachedJsonSchema;
-}
-function loadRegistryFile(text2, file2) {
-  const read = readYaml(text2, file2, REGISTRY_LIMITS, "registry");
-  if (!read.ok) return { ok: false, errors: read.problems };
-  const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
-  if (!checked.ok) return { ok: false, errors: checked.problems };
-  const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
-  return { ok: true, entries };
-}
-function buildRegistry(plans, extra) {
-  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line
-  );
-  const byId = /* @__PURE__ */ new Map();
-  const problems = [];
-  for (const entry of candidates) {
-    const first = byId.get(entry.id);
-    if (first) {
-      problems.push({
-        severity: "error",
-        code: "registry/duplicate-id",
-        file: entry.file,
-        line: entry.line,
-        column: 1,
-        field: "id",
-        message: `id "${entry.id}" is already used by ${first.file}:${first.line}`,
-        expected: "an id unique across all plans and registry files"
-      });
-      continue;
-    }
-    byId.set(entry.id, entry);
-  }
-  return { registry: { entries: [...byId.values()] }, problems };
-}
-
-// src/core/config/schema.ts
-var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
-function compiles(pattern) {
-  try {
-    new RegExp(pattern, "u");
-    return true;
-  } catch {
-    return false;
-  }
-}
-var callPattern = (group2, example) => {
-  const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
-};
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
-var DEFAULT_PLAN_FOLDERS = ["experiments"];
-var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
-var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
-function isTimeZone(zone) {
-  try {
-    new Intl.DateTimeFormat("en-US", { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
-}
-var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
-var writtenSettingsSchema = external_exports.strictObject(
-  {
-    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
-    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
-    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
-    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
-    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
-    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
-    scan: external_exports.strictObject(
-      {
-        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
-        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
-      },
-      { error: "a mapping with include and exclude" }
-    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
-    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
-    "bug-fix": external_exports.strictObject(
-      {
-        enabled: external_exports.boolean({ error: "true or false" }).default(true),
-        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
-        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
-        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
-        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
-        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
-        guardrail: external_exports.strictObject(
-          {
-            name: text("a metric name, e.g. error-rate"),
-            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
-            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
-            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
-          },
-          { error: "a guardrail: { name, rate, events, direction }" }
-        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
-      },
-      { error: "a mapping of bug-fix nudge settings" }
-    ).default({
-      enabled: true,
-      labels: DEFAULT_BUG_LABELS,
-      "title-prefixes": ["fix", "bugfix", "hotfix"],
-      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
-      "silence-label": "no-check-test",
-      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
-    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
-    digest: external_exports.strictObject(
-      {
-        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
-        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
-        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
-        label: text("the label of the digest issue").default("plumbline-digest")
-      },
-      { error: "a mapping of digest settings" }
-    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
-    severity: external_exports.record(
-      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
-      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
-      { error: "a mapping of finding code to block, warn, note or off" }
-    ).default({}).describe("Raise or lower the severity of findings by code.")
-  },
-  { error: "a settings file: a mapping of settings" }
-).describe("Plumbline repository settings.");
-var settingsSchema = writtenSettingsSchema.transform((w) => ({
-  planPaths: w.plans,
-  registryFiles: w.registries,
-  flagCalls: w["flag-calls"],
-  logCalls: w["log-calls"],
-  builtinPatterns: w["builtin-patterns"],
-  groupSurfaces: w["group-surfaces"],
-  scan: w.scan,
-  exemptFlags: w["exempt-flags"],
-  severity: w.severity,
-  bugFix: {
-    enabled: w["bug-fix"].enabled,
-    labels: w["bug-fix"].labels,
-    titlePrefixes: w["bug-fix"]["title-prefixes"],
-    branchPrefixes: w["bug-fix"]["branch-prefixes"],
-    silenceLabel: w["bug-fix"]["silence-label"],
-    nonProductPaths: w["bug-fix"]["non-product-paths"],
-    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
-    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
-  },
-  digest: {
-    timeZone: w.digest["time-zone"],
-    endingSoonDays: w.digest["ending-soon-days"],
-    onHoldDays: w.digest["on-hold-days"],
-    label: w.digest.label
-  }
-}));
-
-// src/core/config/load.ts
-var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
-var cachedJsonSchema2;
-function settingsJsonSchema() {
-  cachedJsonSchema2 ??= {
-    $id: "https://plumbline.dev/schema/settings.schema.json",
-    title: "Plumbline settings file",
-    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
-  };
-  return cachedJsonSchema2;
-}
-function defaultSettings() {
-  return settingsSchema.parse({});
-}
-function loadSettings(text2, file2) {
-  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
-  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
-  if (!read.ok) return { ok: false, errors: read.problems };
-  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
-  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
-  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
-}
-
-// src/core/report/terminal-style.ts
-function terminalStyle(color) {
-  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
-  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
-}
-function terminalSafe(text2) {
-  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
-}
-function formatTable(header, rows2) {
-  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
-  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
-  return [line(header), ...rows2.map(line)].join("\n");
-}
-
-// src/core/report/registry-list.ts
-var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
-function sortEntries(entries) {
-  return [...entries].sort(
-    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
-  );
-}
-function formatWindow(window) {
-  if (!window.start && !window.end) return "not set";
-  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
-}
-var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
-function registryJson(registry2) {
-  return {
-    format: REGISTRY_JSON_FORMAT,
-    tests: sortEntries(registry2.entries).map((e) => ({
-      id: e.id,
-      title: e.title,
-      state: e.state,
-      surface: e.surface.path,
-      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
-      window: e.window,
-      owners: e.owners,
-      flags: e.flags,
-      trafficShare: e.trafficShare,
-      events: e.events,
-      file: e.file,
-      line: e.line
-    }))
-  };
-}
-function renderRegistryText(registry2, options) {
-  const style = terminalStyle(options.color);
-  const entries = sortEntries(registry2.entries);
-  const rows2 = entries.map(
-    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
-  );
-  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
-  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
-  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
-  if (options.skippedFiles) {
-    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
-  }
-  return out.join("\n");
-}
-
-// src/core/report/validation.ts
-var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
-function validationJson(report) {
-  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
-}
-function renderValidationText(report, options) {
-  const style = terminalStyle(options.color);
-  const lines = report.problems.map((problem) => {
-    const line = terminalSafe(formatProblem(problem));
-    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
-  });
-  const invalid = report.planFiles - report.validPlans;
-  const files = `${count(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count(report.registryFiles, "registry file")}` : ""}`;
-  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count(report.warnings, "warning")}` : "all valid") : style.red(`${count(report.errors, "error")}${invalid ? ` in ${count(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count(report.warnings, "warning")}` : "");
-  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
-  if (report.planFiles === 0) {
-    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
-  }
-  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
-  return lines.join("\n");
-}
-function count(n, noun) {
-  return `${n} ${noun}${n === 1 ? "" : "s"}`;
-}
-
-// src/core/config/plan-files.ts
-var import_picomatch = __toESM(require_picomatch2(), 1);
-var PLAN_EXTENSIONS = [".yaml", ".yml"];
-function planSearchRoots(entries) {
-  return entries.map((raw) => {
-    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch.default.scan(entry);
-    if (scan.isGlob) {
-      const matcher = (0, import_picomatch.default)(entry, { dot: false });
-      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
-    }
-    if (isYamlFile(entry)) {
-      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
-      return { folder: parent, matches: (path) => path === entry };
-    }
-    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
-    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
-  });
-}
-function isYamlFile(path) {
-  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
-}
-
-// src/core/source/rule-context.ts
-function runRules(value, source, rules) {
-  const problems = [];
-  const context2 = {
-    value,
-    report({ severity: severity2, code, path, message, expected, showFound, atKey }) {
-      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
-      problems.push({
-        severity: severity2,
-        code,
-        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
-        ...atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path),
-        field: formatFieldPath(path),
-        message,
-        ...expected ? { expected } : {},
-        ...found ? { found } : {}
-      });
-    }
-  };
-  for (const rule of rules) rule(context2);
-  return problems;
-}
-
-// src/core/plan/rules.ts
-var windowInOrder = ({ value: plan, report }) => {
-  const { start, end } = plan.window;
-  if (start && end && end < start) {
-    report({
-      severity: "error",
-      code: "plan/window-order",
-      path: ["window", "end"],
-      message: `the window ends (${end}) before it starts (${start})`,
-      expected: `an end date on or after ${start}`
-    });
-  }
-};
-var liveHasStart = ({ value: plan, report }) => {
-  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
-    report({
-      severity: "warning",
-      code: "plan/start-missing",
-      path: ["window"],
-      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
-      expected: "window.start, e.g. 2026-11-02"
-    });
-  }
-};
-var armsAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  plan.design.arms.forEach((arm2, index) => {
-    if (seen.has(arm2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-arm",
-        path: ["design", "arms", index, "name"],
-        message: `arm "${arm2.name}" is listed twice`,
-        expected: "each arm name once"
-      });
-    }
-    seen.add(arm2.name);
-  });
-  if (!seen.has(plan.design.control)) {
-    report({
-      severity: "error",
-      code: "plan/unknown-control-arm",
-      path: ["design", "control"],
-      message: `the control arm "${plan.design.control}" is not one of the arms`,
-      expected: `one of ${[...seen].join(", ")}`
-    });
-  }
-};
-var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group2 = plan.surface.exclusionGroup;
-  if (!group2) return;
-  const width = group2.slice.to - group2.slice.from;
-  if (width <= 0) {
-    report({
-      severity: "error",
-      code: "plan/empty-slice",
-      path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group2.slice.from}% to ${group2.slice.to}% holds no units`,
-      expected: "from below to, e.g. { from: 0, to: 50 }"
-    });
-  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
-    report({
-      severity: "error",
-      code: "plan/traffic-beyond-slice",
-      path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
-      expected: `at most ${width / 100}`
-    });
-  }
-};
-function allMetrics(plan) {
-  return [
-    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
-    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
-    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
-  ];
-}
-var metricNamesAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  for (const { metric: metric2, path } of allMetrics(plan)) {
-    if (seen.has(metric2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-metric",
-        path: [...path, "name"],
-        message: `metric "${metric2.name}" is defined more than once`,
-        expected: "each metric name once across primary, guardrails and secondary"
-      });
-    }
-    seen.add(metric2.name);
-  }
-};
-var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
-  for (const { metric: metric2, path, role } of allMetrics(plan)) {
-    if (role !== "guardrail") continue;
-    if (metric2.directionAssumed) {
-      report({
-        severity: "warning",
-        code: "plan/direction-assumed",
-        path: [...path, "direction"],
-        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
-        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
-      });
-    }
-    if (!metric2.tolerance) {
-      report({
-        severity: "warning",
-        code: "plan/tolerance-missing",
-        path: [...path, "tolerance"],
-        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
-        expected: "tolerance, e.g. { relative: 0.02 }"
-      });
-    }
-  }
-};
-var groupUnitsDescribeClusters = ({ value: plan, report }) => {
-  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
-  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-missing",
-      path: ["design", "cluster"],
-      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
-      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
-    });
-  }
-  if (!isGroup && plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-unused",
-      path: ["design", "cluster"],
-      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
-    });
-  }
-};
-var readinessNamesTargets = ({ value: plan, report }) => {
-  const { platforms, locales, ready } = plan.population;
-  ready.platforms.forEach((name, i) => {
-    if (platforms.length && !platforms.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "platforms", i],
-        message: `ready names platform "${name}", which is not in population.platforms`,
-        expected: `one of ${platforms.join(", ")}`
-      });
-    }
-  });
-  ready.locales.forEach((name, i) => {
-    if (locales.length && !locales.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "locales", i],
-        message: `ready names locale "${name}", which is not in population.locales`,
-        expected: `one of ${locales.join(", ")}`
-      });
-    }
-  });
-};
-var overlapsNameOthers = ({ value: plan, report }) => {
-  plan.surface.overlapsWith.forEach((id, i) => {
-    if (id === plan.id) {
-      report({
-        severity: "warning",
-        code: "plan/overlaps-itself",
-        path: ["surface", "overlaps-with", i],
-        message: "a plan cannot overlap with itself; remove its own id"
-      });
-    }
-  });
-};
-var DECISION_OUTCOMES = [
-  { key: "win", field: "win" },
-  { key: "flat", field: "flat" },
-  { key: "loss", field: "loss" },
-  { key: "guardrailBreach", field: "guardrail-breach" }
-];
-function missingDecisions(plan) {
-  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
-  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
-}
-var decisionsAreWritten = ({ value: plan, report }) => {
-  const missing = missingDecisions(plan);
-  if (missing.length === 0) return;
-  report({
-    severity: "warning",
-    code: "plan/decisions-missing",
-    path: ["decisions"],
-    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
-    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
-  });
-};
-var PLAN_RULES = [
-  windowInOrder,
-  liveHasStart,
-  armsAreDistinct,
-  sliceIsNotEmpty,
-  metricNamesAreDistinct,
-  guardrailsSayWhatHarmIs,
-  groupUnitsDescribeClusters,
-  readinessNamesTargets,
-  overlapsNameOthers,
-  decisionsAreWritten
-];
-
-// src/core/plan/load.ts
-var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
-function loadPlan(text2, file2) {
-  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
-  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
-  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
-  const errors = problems.filter((p) => p.severity === "error");
-  const warnings = problems.filter((p) => p.severity === "warning");
-  if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
-}
-
-// src/run/load-workspace.ts
-async function loadWorkspace(options) {
-  const { files } = options;
-  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
-  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
-  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
-  const settings = settingsResult.settings;
-  const planFiles = await findPlanFiles(files, settings.planPaths);
-  const problems = [];
-  const plans = [];
-  const texts = await files.readTexts(planFiles);
-  for (const [index, file2] of planFiles.entries()) {
-    options.onProgress?.(index, planFiles.length, "plans");
-    const result = loadPlan(texts[index] ?? "", file2);
-    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
-    if (result.ok) plans.push(result.loaded);
-  }
-  options.onProgress?.(planFiles.length, planFiles.length, "plans");
-  const extra = [];
-  for (const [index, file2] of settings.registryFiles.entries()) {
-    const text2 = await files.readText(file2);
-    if (text2 === void 0) {
-      return {
-        ok: false,
-        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
-        settingsProblems: [
-          {
-            severity: "error",
-            code: "settings/registry-missing",
-            ...settingsResult.locate(["registries", index]),
-            field: `registries[${index}]`,
-            message: `the registry file ${file2} does not exist`,
-            expected: "a path relative to the repository root"
-          }
-        ]
-      };
-    }
-    const result = loadRegistryFile(text2, file2);
-    if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
-  }
-  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
-  problems.push(...registryProblems);
-  return {
-    ok: true,
-    workspace: {
-      settings,
-      ...settingsFile ? { settingsFile } : {},
-      planFiles,
-      plans,
-      registry: registry2,
-      problems: sortProblems(problems)
-    }
-  };
-}
-function ownFilesOf(workspace) {
-  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
-}
-async function requireWorkspace(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) {
-    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
-${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
-  }
-  return loaded.workspace;
-}
-async function readSettingsText(files, named) {
-  if (named) {
-    const text2 = await files.readText(named);
-    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
-    return { text: text2, file: named };
-  }
-  for (const candidate of SETTINGS_FILE_NAMES) {
-    const text2 = await files.readText(candidate);
-    if (text2 !== void 0) return { text: text2, file: candidate };
-  }
-  return {};
-}
-async function findPlanFiles(files, planPaths) {
-  const found = /* @__PURE__ */ new Set();
-  for (const root of planSearchRoots(planPaths)) {
-    for (const path of await files.listFiles(root.folder)) {
-      if (root.matches(path)) found.add(path);
-    }
-  }
-  return [...found].sort();
-}
-
-// src/run/scaffold.ts
-import { posix } from "node:path";
-
 // src/core/calendar.ts
 var DAY_MS = 864e5;
 function toUtcMs(date5) {
@@ -37646,370 +37529,91 @@ function inclusiveDays(start, end) {
   return daysBetween(start, end) + 1;
 }
 
-// src/core/plan/scaffold.ts
-function planIdFromFlag(flagKey2) {
-  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
+// src/core/checks/surfaces.ts
+function isSameOrBelow(path, ancestor) {
+  return path === ancestor || path.startsWith(`${ancestor}/`);
 }
-function renderPlanScaffold(options) {
-  const id = options.id ?? planIdFromFlag(options.flagKey);
-  const start = addDays(options.today, 7);
-  const end = addDays(start, 27);
-  const quote = (s) => JSON.stringify(s);
-  return `# yaml-language-server: $schema=${options.schemaPath}
-# Experiment plan, written before launch. Reference: docs/plan-reference.md
-id: ${id}
-title: ${quote(`Describe the change behind ${options.flagKey}`)}
-owners: [${quote(options.owner ?? "@your-handle")}]
-flags: [${quote(options.flagKey)}]
-state: draft                # draft, live, on-hold or concluded
-window:
-  start: ${start}
-  end: ${end}           # four whole weeks; weekly cycles matter
-
-hypothesis:
-  change: "What users will see or get that they do not today."
-  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
-  expected-direction: increase
-
-unit:
-  randomization: user       # user, device, session, account, team, organization, household, region
-  # analysis: session       # only when metrics are averaged over another unit
-
-surface:
-  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
-  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
-  # overlaps-with: [another-plan-id]
-
-population:
-  platforms: [web]
-  locales: [en-GB]
-  ready:                    # where the change was checked: rendered, translated
-    platforms: []
-    locales: []
-
-exposure:
-  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
-  reach: 1                  # share of exposed units that reach the changed experience
-
-metrics:
-  primary:
-    name: conversion
-    kind: proportion        # proportion, mean or ratio
-    baseline: { rate: 0.1 } # replace with the measured baseline
-    events: [conversion_completed]
-  guardrails: []
-    # - name: page-latency
-    #   kind: mean
-    #   baseline: { mean: 420, sd: 180 }
-    #   events: [page_rendered]
-    #   direction: decrease
-    #   tolerance: { relative: 0.02 }
-
-design:
-  arms:
-    - { name: control, weight: 50 }
-    - { name: treatment, weight: 50 }
-  alpha: 0.05
-  power: 0.8
-  min-detectable-effect: { relative: 0.05 }
-  # daily-units: 10000      # expected eligible units per day
-
-# Decision rules: write them now, before any data arrives.
-# decisions:
-#   win: ""
-#   flat: ""
-#   loss: ""
-#   guardrail-breach: ""
-`;
+function surfacesMeet(a, b) {
+  return isSameOrBelow(a, b) || isSameOrBelow(b, a);
 }
 
-// src/run/scaffold.ts
-var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
-async function scaffoldPlan(request) {
-  const workspace = await requireWorkspace(request);
-  const id = request.id ?? planIdFromFlag(request.flagKey);
-  const taken = workspace.registry.entries.find((entry) => entry.id === id);
-  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
-  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
-  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
-  const path = request.out ?? posix.join(folder, `${id}.yaml`);
-  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
-  const text2 = renderPlanScaffold({
-    flagKey: request.flagKey,
-    id,
-    today: request.today,
-    schemaPath,
-    ...request.owner ? { owner: request.owner } : {},
-    ...request.surface ? { surface: request.surface } : {}
-  });
-  const check2 = loadPlan(text2, path);
-  if (!check2.ok) {
-    throw new UsageError(`the new plan would not be valid:
-${check2.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
+// src/core/checks/collisions.ts
+function intersect(a, b) {
+  if (a.length === 0 && b.length === 0) return "all";
+  if (a.length === 0) return [...b];
+  if (b.length === 0) return [...a];
+  const common = a.filter((x) => b.includes(x));
+  return common.length ? common : void 0;
+}
+function windowOverlap(a, b) {
+  if (!a.start || !a.end || !b.start || !b.end) return {};
+  const start = a.start > b.start ? a.start : b.start;
+  const end = a.end < b.end ? a.end : b.end;
+  if (end < start) return void 0;
+  return { days: daysBetween(start, end) + 1, window: { start, end } };
+}
+function sharedTraffic(a, b) {
+  const ga = a.surface.exclusionGroup;
+  const gb = b.surface.exclusionGroup;
+  if (ga && gb && ga.name === gb.name) {
+    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
+    return Math.max(0, overlap) / 100;
   }
-  return { path, text: text2, id };
+  return a.trafficShare * b.trafficShare;
 }
-
-// src/run/validate.ts
-async function validateRepository(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
-  const { workspace } = loaded;
-  return {
-    kind: "report",
-    report: {
-      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
-      planFiles: workspace.planFiles.length,
-      validPlans: workspace.plans.length,
-      registryFiles: workspace.settings.registryFiles.length,
-      registryEntries: workspace.registry.entries.length,
-      errors: workspace.problems.filter((p) => p.severity === "error").length,
-      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
-      problems: workspace.problems
-    }
+function findCollisions(subject, others) {
+  const collisions = [];
+  for (const other of others) {
+    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
+    const when = windowOverlap(subject.window, other.window);
+    if (!when) continue;
+    const platforms = intersect(subject.population.platforms, other.population.platforms);
+    const locales = intersect(subject.population.locales, other.population.locales);
+    const regions = intersect(subject.population.regions, other.population.regions);
+    if (!platforms || !locales || !regions) continue;
+    const trafficShare = sharedTraffic(subject, other);
+    if (trafficShare <= 0) continue;
+    collisions.push({
+      other,
+      surface: subject.surface.path === other.surface.path ? "same" : isSameOrBelow(subject.surface.path, other.surface.path) ? "above" : "below",
+      ...when.days !== void 0 ? { overlapDays: when.days } : {},
+      ...when.window ? { overlapWindow: when.window } : {},
+      platforms,
+      locales,
+      regions,
+      trafficShare,
+      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id)
+    });
+  }
+  return collisions;
+}
+function runningEntries(entries) {
+  return entries.filter((e) => e.state === "live");
+}
+function collisionsOfLinked(context2) {
+  const running = runningEntries(context2.registry.entries);
+  return context2.linked.flatMap(
+    ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
+  );
+}
+var list = (values) => values === "all" ? "everyone" : values.join(", ");
+var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
+  const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
+  const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
+  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
+  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
+  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
+    code: "collision",
+    message,
+    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
+    plan,
+    file: linked.loaded.file,
+    line: linked.loaded.line
   };
-}
+});
 
-// src/cli/output.ts
-function createCliOutput(options) {
-  const env = process.env;
-  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
-  const interactive = process.stderr.isTTY === true && env.CI !== "true";
-  let drawn = false;
-  return {
-    color,
-    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    progress(done, total, what) {
-      if (!interactive || total < 200) return;
-      if (done < total) {
-        if (done % 50 === 0) {
-          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
-          drawn = true;
-        }
-      } else if (drawn) {
-        process.stderr.write("\r\x1B[2K");
-        drawn = false;
-      }
-    }
-  };
-}
-
-// src/cli/size-command.ts
-function addSizeOptions(command) {
-  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "expected new eligible units per day").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
-}
-var EXAMPLES = {
-  baseline: "0.12 (a rate) or 42.5 (a mean)",
-  sd: "30",
-  effect: "0.03 (3% relative)",
-  alpha: "0.05",
-  power: "0.8",
-  arms: "50,50",
-  "daily-units": "12000",
-  days: "28"
-};
-function number4(flag, text2) {
-  const value = Number(text2);
-  if (text2 === void 0 || text2.trim() === "" || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
-  }
-  return value;
-}
-function pair(flag, text2) {
-  const parts = (text2 ?? "").split(",");
-  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
-  return { mean: number4(flag, parts[0]), sd: number4(flag, parts[1]) };
-}
-function requestFromFlags(flags) {
-  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
-  let baseline;
-  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: number4("baseline", flags.baseline) };
-  else if (flags.kind === "mean") baseline = { kind: "mean", mean: number4("baseline", flags.baseline), sd: number4("sd", flags.sd) };
-  else baseline = { kind: "ratio", numerator: pair("numerator", flags.numerator), denominator: pair("denominator", flags.denominator), correlation: number4("correlation", flags.correlation) };
-  const weights = flags.arms.split(",").map((w) => number4("arms", w));
-  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
-  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
-  const looks = number4("interim-looks", flags.interimLooks);
-  if (!Number.isInteger(looks) || looks < 0 || looks > 20) throw new UsageError("--interim-looks needs a whole number from 0 to 20");
-  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
-  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
-  const effect = flags.effect === void 0 ? void 0 : number4("effect", flags.effect);
-  const clusterSize = flags.clusterSize === void 0 ? void 0 : number4("cluster-size", flags.clusterSize);
-  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
-  return {
-    baseline,
-    direction: flags.direction,
-    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
-    arms,
-    control: "control",
-    alpha: number4("alpha", flags.alpha),
-    power: number4("power", flags.power),
-    sides: flags.sides === "1" ? 1 : 2,
-    ...flags.dailyUnits !== void 0 ? { dailyUnits: number4("daily-units", flags.dailyUnits) } : {},
-    trafficShare: number4("traffic-share", flags.trafficShare),
-    reach: number4("reach", flags.reach),
-    interimLooks: looks,
-    boundary: flags.boundary,
-    prePeriodCorrelation: number4("pre-period-correlation", flags.prePeriodCorrelation),
-    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: number4("icc", flags.icc), sizeCv: number4("size-cv", flags.sizeCv) } } : {},
-    ...days !== void 0 ? { plannedDays: days } : {},
-    method: flags.method
-  };
-}
-
-// src/core/report/numbers.ts
-var NOT_A_NUMBER = "n/a";
-function formatCount(n) {
-  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
-}
-function formatRate(rate) {
-  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent = rate * 100;
-  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
-  return `${percent.toFixed(Math.min(digits, 4))}%`;
-}
-function formatRelative(change2) {
-  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent = change2 * 100;
-  const text2 = Number(percent.toPrecision(3)).toString();
-  return `${percent >= 0 ? "+" : ""}${text2}%`;
-}
-function formatValue(value) {
-  if (!Number.isFinite(value)) return NOT_A_NUMBER;
-  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
-  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
-}
-function formatPower(power) {
-  if (!Number.isFinite(power)) return NOT_A_NUMBER;
-  if (power > 0.999) return ">99.9%";
-  if (power < 1e-3) return "<0.1%";
-  return `${(power * 100).toFixed(1)}%`;
-}
-function formatMultiplier(m) {
-  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
-}
-
-// src/core/report/sizing.ts
-var SIZING_JSON_FORMAT = "plumbline.sizing/1";
-function valueText(entry, value) {
-  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
-}
-function describeChange(entry, change2, from) {
-  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
-  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
-}
-function sizeCells(size) {
-  if (!size) return ["", "", "", ""];
-  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
-  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : "", size.duration ? String(size.duration.weeks) : ""];
-}
-function rows(sizing) {
-  return sizing.metrics.map((entry) => {
-    const role = entry.role === "guardrail" ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
-    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
-    const s = entry.result.value;
-    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
-    const end = s.atPlannedEnd;
-    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
-    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
-  });
-}
-var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
-function multiplierNotes(entry, sizing) {
-  const m = sizing.multipliers;
-  const out = [];
-  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
-  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (sizing.boundaries) {
-    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
-    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
-    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
-  }
-  if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
-    out.push(
-      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
-    );
-  }
-  return out.map((text2) => `${entry.metric}: ${text2}`);
-}
-function notesOf(sizing) {
-  return sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []);
-}
-function windowLine(sizing, context2) {
-  if (sizing.plannedDays !== void 0) {
-    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
-    return `Planned window: ${sizing.plannedDays} days${dates}.`;
-  }
-  return "Planned window: not set, so power and detectable effect at the end are not computed.";
-}
-function renderSizingText(sizing, context2) {
-  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
-  const traffic = sizing.dailyUnits === void 0 ? "No daily-units given, so no durations." : "";
-  const notes = notesOf(sizing);
-  return [
-    context2.title,
-    context2.designLine,
-    windowLine(sizing, context2),
-    ...traffic ? [traffic] : [],
-    "",
-    table2,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
-  ].join("\n");
-}
-function mermaidPowerChart(entry, sizing, target) {
-  const points = sizing.powerByDay;
-  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
-  const days = points.map((p) => p.day).join(", ");
-  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
-  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
-  return [
-    "```mermaid",
-    "xychart-beta",
-    `  title "Power by day: ${entry.metric}"`,
-    `  x-axis "day" [${days}]`,
-    '  y-axis "power (%)" 0 --> 100',
-    `  line [${power}]`,
-    `  line [${goal}]`,
-    "```"
-  ].join("\n");
-}
-function markdownCell(text2) {
-  return text2.replace(/\|/g, "\\|");
-}
-function renderSizingMarkdown(sizing, context2) {
-  const table2 = [
-    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
-    `| ${HEADER.map(() => "---").join(" | ")} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
-  ];
-  const primary = sizing.metrics.find((m) => m.role === "primary");
-  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
-  const notes = notesOf(sizing);
-  return [
-    `### ${context2.title}`,
-    "",
-    [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
-    "",
-    ...table2,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
-    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
-    ""
-  ].join("\n");
-}
-function sizingJson(sizing, context2) {
-  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
-}
-function designSummary(design) {
-  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
-  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
-  const traffic = design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
-  return `${arms}, ${test}${traffic}.`;
-}
+// src/core/checks/bug-fix.ts
+var import_picomatch2 = __toESM(require_picomatch2(), 1);
 
 // src/core/stats/adjustments.ts
 function designEffect(meanSize, icc, sizeCv = 0) {
@@ -38357,392 +37961,7 @@ function sizeMetric(request) {
   });
 }
 
-// src/core/stats/plan-sizing.ts
-function baselineOf(metric2) {
-  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
-  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
-  return { kind: "ratio", ...metric2.baseline };
-}
-function sizePlan(plan) {
-  const { design } = plan;
-  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
-  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
-  const common = {
-    arms: design.arms,
-    control: design.control,
-    alpha: design.alpha,
-    power: design.power,
-    trafficShare: design.trafficShare,
-    reach: plan.exposure.reach,
-    interimLooks: design.interimLooks,
-    boundary: design.interimBoundary,
-    prePeriodCorrelation: design.prePeriodCorrelation,
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    ...clustered && design.cluster ? { cluster: design.cluster } : {},
-    ...plannedDays !== void 0 ? { plannedDays } : {}
-  };
-  const primary = plan.metrics.primary;
-  const entries = [
-    {
-      metric: primary.name,
-      role: "primary",
-      kind: primary.kind,
-      direction: primary.direction,
-      sides: design.sides,
-      result: sizeMetric({
-        ...common,
-        baseline: baselineOf(primary),
-        direction: primary.direction,
-        sides: design.sides,
-        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
-      })
-    },
-    ...plan.metrics.guardrails.map((metric2) => {
-      const harm = metric2.direction === "increase" ? "decrease" : "increase";
-      return {
-        metric: metric2.name,
-        role: "guardrail",
-        kind: metric2.kind,
-        direction: harm,
-        sides: 1,
-        result: sizeMetric({
-          ...common,
-          baseline: baselineOf(metric2),
-          direction: harm,
-          sides: 1,
-          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
-        })
-      };
-    })
-  ];
-  return {
-    planId: plan.id,
-    ...plannedDays !== void 0 ? { plannedDays } : {},
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    metrics: entries
-  };
-}
-
-// src/run/find-plan.ts
-function findNamedPlan(workspace, name, then) {
-  const wanted = name.replace(/^\.\//, "");
-  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
-  if (found) return found;
-  const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
-  if (broken.length) throw new UsageError(`${wanted} has errors:
-${broken.map(formatProblem).join("\n")}`, `fix them, then ${then} again`);
-  const known = workspace.plans.map((p) => p.plan.id);
-  throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
-}
-
-// src/run/size.ts
-async function sizeNamedPlan(options) {
-  const workspace = await requireWorkspace(options);
-  const found = findNamedPlan(workspace, options.plan, "size");
-  const { plan } = found;
-  return {
-    sizing: sizePlan(plan),
-    power: plan.design.power,
-    context: {
-      title: `Sizing for ${plan.id} (${found.file})`,
-      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
-      window: plan.window
-    }
-  };
-}
-function sizeFromRequest(request, window) {
-  const sizing = {
-    planId: "command-line",
-    ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
-    ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
-    metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }]
-  };
-  return {
-    sizing,
-    power: request.power,
-    context: { title: "Sizing from the command line", designLine: designSummary(request), ...window ? { window } : {} }
-  };
-}
-
-// src/adapters/git.ts
-import { spawn } from "node:child_process";
-import { closeSync, fstatSync, openSync, readSync } from "node:fs";
-import { join as join2 } from "node:path";
-function runGit(cwd, args, options = {}) {
-  return new Promise((resolve4, reject) => {
-    const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
-      cwd,
-      stdio: ["pipe", "pipe", "pipe"]
-    });
-    const out = [];
-    const err = [];
-    child.stdout.on("data", (chunk) => out.push(chunk));
-    child.stderr.on("data", (chunk) => err.push(chunk));
-    child.on(
-      "error",
-      (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
-    );
-    child.on("close", (code) => {
-      if (code === 0 || options.allow?.includes(code ?? -1)) resolve4(Buffer.concat(out));
-      else {
-        const stderr = Buffer.concat(err).toString("utf8").trim();
-        reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
-      }
-    });
-    child.stdin.on("error", () => void 0);
-    child.stdin.end(options.input ?? "");
-  });
-}
-function hintFor(stderr) {
-  if (/not a git repository/i.test(stderr)) return "run plumbline inside a git repository, or pass --cwd";
-  if (/unknown revision|bad revision|Needed a single revision|invalid object name/i.test(stderr)) {
-    return "check --base and --head; in a shallow clone (actions/checkout fetches one commit by default) fetch more history, e.g. fetch-depth: 0";
-  }
-  return void 0;
-}
-async function resolveCommit(cwd, ref, flag) {
-  try {
-    return (await runGit(cwd, ["rev-parse", "--verify", "--end-of-options", `${ref}^{commit}`])).toString("utf8").trim();
-  } catch (error62) {
-    const hint = error62 instanceof ExternalError ? error62.hint : void 0;
-    throw new ExternalError(`${flag} ${ref} is not a commit in this repository`, hint ?? "check the ref name", { cause: error62 });
-  }
-}
-async function openChange(repoDir, baseRef, headRef) {
-  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, "--head"), resolveCommit(repoDir, baseRef, "--base")]);
-  const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
-  const base = mergeBase || baseTip;
-  const commitOf = (side) => side === "base" ? base : head;
-  const checkedOutIsHead = (async () => {
-    const current = (await runGit(repoDir, ["rev-parse", "--verify", "--quiet", "HEAD"], { allow: [1] })).toString("utf8").trim();
-    if (current !== head) return false;
-    return runGit(repoDir, ["diff", "--quiet", "HEAD", "--"]).then(
-      () => true,
-      () => false
-    );
-  })();
-  const trackedCache = /* @__PURE__ */ new Map();
-  const trackedFiles = (side) => {
-    const commit = commitOf(side);
-    let cached4 = trackedCache.get(commit);
-    if (!cached4) {
-      cached4 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
-      trackedCache.set(commit, cached4);
-    }
-    return cached4;
-  };
-  const streamFiles = async (side, paths, onFile) => {
-    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
-    return catFiles(repoDir, commitOf(side), paths, onFile);
-  };
-  const filesAt = (side) => {
-    const readTexts = async (paths) => {
-      const found = /* @__PURE__ */ new Map();
-      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString("utf8")));
-      return paths.map((p) => found.get(p));
-    };
-    return {
-      async listFiles(folder) {
-        const prefix = folder === "" || folder === "." ? "" : `${folder.replace(/\/+$/, "")}/`;
-        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
-      },
-      async readText(path) {
-        return (await readTexts([path]))[0];
-      },
-      readTexts
-    };
-  };
-  return {
-    base,
-    head,
-    async changedFiles() {
-      const out = (await runGit(repoDir, ["diff", "--name-status", "-z", "-M", base, head])).toString("utf8");
-      return parseNameStatus(out);
-    },
-    async diff() {
-      return (await runGit(repoDir, ["diff", "--unified=0", "--no-ext-diff", "--no-textconv", "-M", "--src-prefix=a/", "--dst-prefix=b/", base, head])).toString("utf8");
-    },
-    filesAt,
-    streamFiles,
-    trackedFiles
-  };
-}
-function parseNameStatus(out) {
-  const parts = out.split("\0").filter((p) => p !== "");
-  const files = [];
-  for (let i = 0; i < parts.length; ) {
-    const code = parts[i++];
-    if (code.startsWith("R") || code.startsWith("C")) {
-      const previousPath = parts[i++];
-      const path = parts[i++];
-      files.push({ path, status: "renamed", previousPath });
-    } else {
-      const path = parts[i++];
-      files.push({ path, status: code === "A" ? "added" : code === "D" ? "deleted" : "modified" });
-    }
-  }
-  return files;
-}
-function catFiles(cwd, commit, paths, onFile) {
-  const asked = paths.filter((p) => !p.includes("\n"));
-  if (asked.length === 0) return Promise.resolve();
-  return new Promise((resolve4, reject) => {
-    const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
-    let index = 0;
-    let pending = Buffer.alloc(0);
-    let current;
-    const err = [];
-    child.stdout.on("data", (chunk) => {
-      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
-      for (; ; ) {
-        if (!current) {
-          const newline = pending.indexOf(10);
-          if (newline < 0) return;
-          const header = pending.subarray(0, newline).toString("utf8");
-          pending = pending.subarray(newline + 1);
-          if (header.endsWith(" missing") || header.endsWith(" ambiguous")) {
-            index++;
-            continue;
-          }
-          const size = Number(header.slice(header.lastIndexOf(" ") + 1));
-          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(" blob ") };
-        }
-        if (pending.length < current.size + 1) return;
-        if (current.deliver) onFile(asked[index], pending.subarray(0, current.size));
-        pending = pending.subarray(current.size + 1);
-        index++;
-        current = void 0;
-      }
-    });
-    child.stderr.on("data", (chunk) => err.push(chunk));
-    child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
-    child.on("close", (code) => {
-      if (code === 0) resolve4();
-      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
-    });
-    child.stdin.on("error", () => void 0);
-    child.stdin.end(asked.map((p) => `${commit}:${p}
-`).join(""));
-  });
-}
-async function readWorkingTree(root, paths, onFile) {
-  let buffer = Buffer.allocUnsafe(1 << 20);
-  for (const path of paths) {
-    let fd;
-    try {
-      fd = openSync(join2(root, path), "r");
-      const size = fstatSync(fd).size;
-      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
-      let read = 0;
-      while (read < size) {
-        const n = readSync(fd, buffer, read, size - read, read);
-        if (n === 0) break;
-        read += n;
-      }
-      onFile(path, buffer.subarray(0, read));
-    } catch {
-    } finally {
-      if (fd !== void 0) closeSync(fd);
-    }
-  }
-}
-
-// src/run/review-change.ts
-var import_picomatch4 = __toESM(require_picomatch2(), 1);
-
-// src/core/config/scan-files.ts
-var import_picomatch2 = __toESM(require_picomatch2(), 1);
-function scanMatcher(scan) {
-  const include = (0, import_picomatch2.default)([...scan.include], { dot: true });
-  const exclude = scan.exclude.length ? (0, import_picomatch2.default)([...scan.exclude], { dot: true }) : () => false;
-  return (path) => include(path) && !exclude(path);
-}
-
-// src/core/checks/surfaces.ts
-function isSameOrBelow(path, ancestor) {
-  return path === ancestor || path.startsWith(`${ancestor}/`);
-}
-function surfacesMeet(a, b) {
-  return isSameOrBelow(a, b) || isSameOrBelow(b, a);
-}
-
-// src/core/checks/collisions.ts
-function intersect(a, b) {
-  if (a.length === 0 && b.length === 0) return "all";
-  if (a.length === 0) return [...b];
-  if (b.length === 0) return [...a];
-  const common = a.filter((x) => b.includes(x));
-  return common.length ? common : void 0;
-}
-function windowOverlap(a, b) {
-  if (!a.start || !a.end || !b.start || !b.end) return {};
-  const start = a.start > b.start ? a.start : b.start;
-  const end = a.end < b.end ? a.end : b.end;
-  if (end < start) return void 0;
-  return { days: daysBetween(start, end) + 1, window: { start, end } };
-}
-function sharedTraffic(a, b) {
-  const ga = a.surface.exclusionGroup;
-  const gb = b.surface.exclusionGroup;
-  if (ga && gb && ga.name === gb.name) {
-    const overlap = Math.min(ga.slice.to, gb.slice.to) - Math.max(ga.slice.from, gb.slice.from);
-    return Math.max(0, overlap) / 100;
-  }
-  return a.trafficShare * b.trafficShare;
-}
-function findCollisions(subject, others) {
-  const collisions = [];
-  for (const other of others) {
-    if (other.id === subject.id || !surfacesMeet(subject.surface.path, other.surface.path)) continue;
-    const when = windowOverlap(subject.window, other.window);
-    if (!when) continue;
-    const platforms = intersect(subject.population.platforms, other.population.platforms);
-    const locales = intersect(subject.population.locales, other.population.locales);
-    const regions = intersect(subject.population.regions, other.population.regions);
-    if (!platforms || !locales || !regions) continue;
-    const trafficShare = sharedTraffic(subject, other);
-    if (trafficShare <= 0) continue;
-    collisions.push({
-      other,
-      surface: subject.surface.path === other.surface.path ? "same" : isSameOrBelow(subject.surface.path, other.surface.path) ? "above" : "below",
-      ...when.days !== void 0 ? { overlapDays: when.days } : {},
-      ...when.window ? { overlapWindow: when.window } : {},
-      platforms,
-      locales,
-      regions,
-      trafficShare,
-      known: subject.surface.overlapsWith.includes(other.id) || other.surface.overlapsWith.includes(subject.id)
-    });
-  }
-  return collisions;
-}
-function runningEntries(entries) {
-  return entries.filter((e) => e.state === "live");
-}
-function collisionsOfLinked(context2) {
-  const running = runningEntries(context2.registry.entries);
-  return context2.linked.flatMap(
-    ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
-  );
-}
-var list = (values) => values === "all" ? "everyone" : values.join(", ");
-var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
-  const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
-  const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
-  const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
-  const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
-    code: "collision",
-    message,
-    fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
-    plan,
-    file: linked.loaded.file,
-    line: linked.loaded.line
-  };
-});
-
 // src/core/checks/bug-fix.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
 function bugFixReason(pr, settings) {
   const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
   const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
@@ -38762,7 +37981,7 @@ function bugFixNudge(context2) {
   if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
   const reason = bugFixReason(context2.pr, settings);
   if (!reason || context2.touches.length > 0 || context2.linked.length > 0) return void 0;
-  const notProduct = (0, import_picomatch3.default)(settings.nonProductPaths, { dot: true });
+  const notProduct = (0, import_picomatch2.default)(settings.nonProductPaths, { dot: true });
   const productFiles = context2.changedPaths.filter((p) => !notProduct(p));
   if (productFiles.length === 0) return void 0;
   const guardrail = settings.guardrail;
@@ -38899,6 +38118,212 @@ var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...remov
     }
   ];
 });
+
+// src/core/plan/rules.ts
+var windowInOrder = ({ value: plan, report }) => {
+  const { start, end } = plan.window;
+  if (start && end && end < start) {
+    report({
+      severity: "error",
+      code: "plan/window-order",
+      path: ["window", "end"],
+      message: `the window ends (${end}) before it starts (${start})`,
+      expected: `an end date on or after ${start}`
+    });
+  }
+};
+var liveHasStart = ({ value: plan, report }) => {
+  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
+    report({
+      severity: "warning",
+      code: "plan/start-missing",
+      path: ["window"],
+      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
+      expected: "window.start, e.g. 2026-11-02"
+    });
+  }
+};
+var armsAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  plan.design.arms.forEach((arm2, index) => {
+    if (seen.has(arm2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-arm",
+        path: ["design", "arms", index, "name"],
+        message: `arm "${arm2.name}" is listed twice`,
+        expected: "each arm name once"
+      });
+    }
+    seen.add(arm2.name);
+  });
+  if (!seen.has(plan.design.control)) {
+    report({
+      severity: "error",
+      code: "plan/unknown-control-arm",
+      path: ["design", "control"],
+      message: `the control arm "${plan.design.control}" is not one of the arms`,
+      expected: `one of ${[...seen].join(", ")}`
+    });
+  }
+};
+var sliceIsNotEmpty = ({ value: plan, report }) => {
+  const group2 = plan.surface.exclusionGroup;
+  if (!group2) return;
+  const width = group2.slice.to - group2.slice.from;
+  if (width <= 0) {
+    report({
+      severity: "error",
+      code: "plan/empty-slice",
+      path: ["surface", "exclusion-group", "slice"],
+      message: `the slice from ${group2.slice.from}% to ${group2.slice.to}% holds no units`,
+      expected: "from below to, e.g. { from: 0, to: 50 }"
+    });
+  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
+    report({
+      severity: "error",
+      code: "plan/traffic-beyond-slice",
+      path: ["design", "traffic-share"],
+      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      expected: `at most ${width / 100}`
+    });
+  }
+};
+function allMetrics(plan) {
+  return [
+    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
+    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
+    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
+  ];
+}
+var metricNamesAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  for (const { metric: metric2, path } of allMetrics(plan)) {
+    if (seen.has(metric2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-metric",
+        path: [...path, "name"],
+        message: `metric "${metric2.name}" is defined more than once`,
+        expected: "each metric name once across primary, guardrails and secondary"
+      });
+    }
+    seen.add(metric2.name);
+  }
+};
+var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
+  for (const { metric: metric2, path, role } of allMetrics(plan)) {
+    if (role !== "guardrail") continue;
+    if (metric2.directionAssumed) {
+      report({
+        severity: "warning",
+        code: "plan/direction-assumed",
+        path: [...path, "direction"],
+        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
+        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
+      });
+    }
+    if (!metric2.tolerance) {
+      report({
+        severity: "warning",
+        code: "plan/tolerance-missing",
+        path: [...path, "tolerance"],
+        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
+        expected: "tolerance, e.g. { relative: 0.02 }"
+      });
+    }
+  }
+};
+var groupUnitsDescribeClusters = ({ value: plan, report }) => {
+  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
+  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-missing",
+      path: ["design", "cluster"],
+      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
+      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
+    });
+  }
+  if (!isGroup && plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-unused",
+      path: ["design", "cluster"],
+      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
+    });
+  }
+};
+var readinessNamesTargets = ({ value: plan, report }) => {
+  const { platforms, locales, ready } = plan.population;
+  ready.platforms.forEach((name, i) => {
+    if (platforms.length && !platforms.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "platforms", i],
+        message: `ready names platform "${name}", which is not in population.platforms`,
+        expected: `one of ${platforms.join(", ")}`
+      });
+    }
+  });
+  ready.locales.forEach((name, i) => {
+    if (locales.length && !locales.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "locales", i],
+        message: `ready names locale "${name}", which is not in population.locales`,
+        expected: `one of ${locales.join(", ")}`
+      });
+    }
+  });
+};
+var overlapsNameOthers = ({ value: plan, report }) => {
+  plan.surface.overlapsWith.forEach((id, i) => {
+    if (id === plan.id) {
+      report({
+        severity: "warning",
+        code: "plan/overlaps-itself",
+        path: ["surface", "overlaps-with", i],
+        message: "a plan cannot overlap with itself; remove its own id"
+      });
+    }
+  });
+};
+var DECISION_OUTCOMES = [
+  { key: "win", field: "win" },
+  { key: "flat", field: "flat" },
+  { key: "loss", field: "loss" },
+  { key: "guardrailBreach", field: "guardrail-breach" }
+];
+function missingDecisions(plan) {
+  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
+  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
+}
+var decisionsAreWritten = ({ value: plan, report }) => {
+  const missing = missingDecisions(plan);
+  if (missing.length === 0) return;
+  report({
+    severity: "warning",
+    code: "plan/decisions-missing",
+    path: ["decisions"],
+    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
+    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
+  });
+};
+var PLAN_RULES = [
+  windowInOrder,
+  liveHasStart,
+  armsAreDistinct,
+  sliceIsNotEmpty,
+  metricNamesAreDistinct,
+  guardrailsSayWhatHarmIs,
+  groupUnitsDescribeClusters,
+  readinessNamesTargets,
+  overlapsNameOthers,
+  decisionsAreWritten
+];
 
 // src/core/checks/plans.ts
 var planInvalid = ({ invalidPlanFiles }) => invalidPlanFiles.map(({ file: file2, problems }) => {
@@ -39087,6 +38512,42 @@ var CHECKS = [
   eventMissing,
   bugFixUnmeasured
 ];
+
+// src/core/source/closest-name.ts
+function closestName(typed, known) {
+  const wanted = typed.toLowerCase();
+  let best;
+  let bestDistance = Infinity;
+  for (const candidate of known) {
+    const distance = editDistance(wanted, candidate.toLowerCase());
+    if (distance < bestDistance) {
+      best = candidate;
+      bestDistance = distance;
+    }
+  }
+  const tolerance = Math.max(2, Math.floor(typed.length / 3));
+  if (best !== void 0 && bestDistance <= tolerance) return best;
+  return known.find((candidate) => stem(candidate) === stem(typed));
+}
+function stem(name) {
+  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
+}
+function editDistance(a, b) {
+  const rows2 = a.length + 1;
+  const cols = b.length + 1;
+  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
+  for (let i = 1; i < rows2; i++) {
+    for (let j = 1; j < cols; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
+        value = Math.min(value, d[i - 2][j - 2] + 1);
+      }
+      d[i][j] = value;
+    }
+  }
+  return d[a.length][b.length];
+}
 
 // src/core/review/finding.ts
 var FINDING_CODES = {
@@ -39296,13 +38757,13 @@ function parseUnifiedDiff(text2) {
 }
 
 // src/core/scan/flag-files.ts
-var import_yaml2 = __toESM(require_dist(), 1);
+var import_yaml = __toESM(require_dist(), 1);
 var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
 function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100 });
   } catch {
     return void 0;
   }
@@ -39551,6 +39012,650 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
+// src/core/stats/plan-sizing.ts
+function baselineOf(metric2) {
+  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
+  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
+  return { kind: "ratio", ...metric2.baseline };
+}
+function sizePlan(plan) {
+  const { design } = plan;
+  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
+  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
+  const common = {
+    arms: design.arms,
+    control: design.control,
+    alpha: design.alpha,
+    power: design.power,
+    trafficShare: design.trafficShare,
+    reach: plan.exposure.reach,
+    interimLooks: design.interimLooks,
+    boundary: design.interimBoundary,
+    prePeriodCorrelation: design.prePeriodCorrelation,
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    ...clustered && design.cluster ? { cluster: design.cluster } : {},
+    ...plannedDays !== void 0 ? { plannedDays } : {}
+  };
+  const primary = plan.metrics.primary;
+  const entries = [
+    {
+      metric: primary.name,
+      role: "primary",
+      kind: primary.kind,
+      direction: primary.direction,
+      sides: design.sides,
+      result: sizeMetric({
+        ...common,
+        baseline: baselineOf(primary),
+        direction: primary.direction,
+        sides: design.sides,
+        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
+      })
+    },
+    ...plan.metrics.guardrails.map((metric2) => {
+      const harm = metric2.direction === "increase" ? "decrease" : "increase";
+      return {
+        metric: metric2.name,
+        role: "guardrail",
+        kind: metric2.kind,
+        direction: harm,
+        sides: 1,
+        result: sizeMetric({
+          ...common,
+          baseline: baselineOf(metric2),
+          direction: harm,
+          sides: 1,
+          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
+        })
+      };
+    })
+  ];
+  return {
+    planId: plan.id,
+    ...plannedDays !== void 0 ? { plannedDays } : {},
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    metrics: entries
+  };
+}
+
+// src/core/source/check-written.ts
+function checkWritten(source, schema, jsonSchema, codePrefix) {
+  const parsed = schema.safeParse(source.value);
+  if (parsed.success) return { ok: true, value: parsed.data };
+  const problems = [];
+  for (const issue2 of parsed.error.issues) {
+    problems.push(...issueToProblems(issue2, source, jsonSchema, codePrefix));
+  }
+  return { ok: false, problems: dedupe(problems) };
+}
+function issueToProblems(issue2, source, jsonSchema, codePrefix) {
+  const path = issue2.path.filter((p) => typeof p !== "symbol");
+  if (issue2.code === "unrecognized_keys") {
+    const known = knownKeysAt(jsonSchema, source.value, path);
+    return (issue2.keys ?? []).map((key) => {
+      const suggestion = closestName(key, known);
+      return {
+        severity: "error",
+        code: `${codePrefix}/unknown-key`,
+        ...source.locateKey(path, key),
+        field: formatFieldPath([...path, key]),
+        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
+        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
+      };
+    });
+  }
+  if (issue2.code === "invalid_union") {
+    if (issue2.discriminator) {
+      const discriminatorPath = path[path.length - 1] === issue2.discriminator ? path : [...path, issue2.discriminator];
+      return [{ ...fieldProblem(issue2, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
+    }
+    const branch = pickUnionBranch(issue2.errors ?? []);
+    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue2.path, ...inner.path] }, source, jsonSchema, codePrefix));
+  }
+  return [fieldProblem(issue2, path, source, codePrefix)];
+}
+function fieldProblem(issue2, path, source, codePrefix) {
+  const found = valueAt(source.value, path);
+  const missing = found === void 0;
+  const customCode = issue2.code === "custom" ? issue2.params?.code : void 0;
+  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : path.length === 0 && found === null ? "the file is empty" : summaryFor(issue2);
+  return {
+    severity: "error",
+    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
+    ...source.locate(path),
+    field: formatFieldPath(path),
+    message,
+    expected: cleanZodMessage(issue2.message),
+    ...missing ? {} : { found: describeFound(found) }
+  };
+}
+function describeFound(found) {
+  const percent = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent ? `${described}; write ${percent[1]}% as ${Number(percent[1]) / 100}` : described;
+}
+function summaryFor(issue2) {
+  switch (issue2.code) {
+    case "invalid_type":
+      return "has the wrong type";
+    case "too_small":
+      return issue2.origin === "array" ? "has too few items" : issue2.origin === "string" ? "is empty" : "is out of range";
+    case "too_big":
+      return issue2.origin === "array" ? "has too many items" : issue2.origin === "string" ? "is too long" : "is out of range";
+    case "invalid_value":
+      return "is not one of the allowed values";
+    case "invalid_format":
+      return "is not in the expected format";
+    default:
+      return "is not valid";
+  }
+}
+function cleanZodMessage(message) {
+  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
+}
+function pickUnionBranch(branches) {
+  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
+  if (shaped.length === 0) return void 0;
+  return shaped.reduce((best, next) => next.length < best.length ? next : best);
+}
+function dedupe(problems) {
+  const seen = /* @__PURE__ */ new Set();
+  return problems.filter((p) => {
+    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+function formatFieldPath(path) {
+  return path.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
+}
+function valueAt(value, path) {
+  let current = value;
+  for (const segment of path) {
+    if (current === null || typeof current !== "object") return void 0;
+    current = current[segment];
+  }
+  return current;
+}
+function knownKeysAt(schema, data, path) {
+  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
+  let nodes = [schema];
+  let current = data;
+  for (const segment of path) {
+    nodes = nodes.flatMap((n) => branchesFor(n, current));
+    const next = [];
+    for (const node2 of nodes) {
+      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
+      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
+    }
+    nodes = next;
+    current = current !== null && typeof current === "object" ? current[segment] : void 0;
+  }
+  const keys = /* @__PURE__ */ new Set();
+  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
+    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
+  }
+  return [...keys];
+}
+function resolveRef2(root, node2) {
+  const ref = node2.$ref;
+  if (!ref?.startsWith("#/$defs/")) return node2;
+  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
+}
+function unionBranches(node2, data, root) {
+  const options = node2.anyOf ?? node2.oneOf;
+  if (!options) return [node2];
+  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
+  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
+  const matching = all.filter((option) => {
+    if (Array.isArray(data)) return option.items !== void 0;
+    if (!record2) return true;
+    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
+  });
+  return matching.length ? matching : all;
+}
+
+// src/core/source/yaml-source.ts
+var import_yaml2 = __toESM(require_dist(), 1);
+function readYaml(text2, file2, limits, codePrefix) {
+  const fail2 = (line, column, code, message, expected) => ({
+    ok: false,
+    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
+  });
+  const bytes = Buffer.byteLength(text2, "utf8");
+  if (bytes > limits.maxBytes) {
+    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
+  }
+  const lineCounter = new import_yaml2.LineCounter();
+  const doc = (0, import_yaml2.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const firstError = doc.errors[0];
+  if (firstError) {
+    const pos = lineCounter.linePos(firstError.pos[0]);
+    if (firstError.code === "MULTIPLE_DOCS") {
+      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+    }
+    if (firstError.code === "DUPLICATE_KEY") {
+      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
+    }
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+  let complexKeyAt;
+  (0, import_yaml2.visit)(doc, {
+    Pair(_, pair2) {
+      if (pair2.key !== null && !(0, import_yaml2.isScalar)(pair2.key)) {
+        complexKeyAt = pair2.key.range?.[0] ?? 0;
+        return import_yaml2.visit.BREAK;
+      }
+      return void 0;
+    }
+  });
+  if (complexKeyAt !== void 0) {
+    const pos = lineCounter.linePos(complexKeyAt);
+    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
+  }
+  let value;
+  try {
+    value = doc.toJS({ maxAliasCount: limits.maxAliases });
+  } catch (error62) {
+    const message = error62 instanceof Error ? error62.message : String(error62);
+    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
+  }
+  const at = (offset) => {
+    const pos = lineCounter.linePos(offset);
+    return { file: file2, line: pos.line, column: pos.col };
+  };
+  const rootOffset = doc.contents?.range[0] ?? 0;
+  const walk2 = (path) => {
+    let node2 = doc.contents;
+    let depth = 0;
+    for (const segment of path) {
+      const next = childOf(node2, segment);
+      if (!next) break;
+      node2 = next;
+      depth++;
+    }
+    return { node: node2, depth };
+  };
+  return {
+    ok: true,
+    source: {
+      file: file2,
+      value,
+      locate(path) {
+        const { node: node2 } = walk2(path);
+        return at(node2?.range?.[0] ?? rootOffset);
+      },
+      locateKey(path, key) {
+        const { node: node2, depth } = walk2(path);
+        if (depth === path.length && (0, import_yaml2.isMap)(node2)) {
+          const pair2 = node2.items.find((item) => (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === key);
+          const keyNode = pair2 && (0, import_yaml2.isScalar)(pair2.key) ? pair2.key : void 0;
+          if (keyNode?.range) return at(keyNode.range[0]);
+        }
+        return at(node2?.range?.[0] ?? rootOffset);
+      }
+    }
+  };
+}
+function childOf(node2, segment) {
+  if ((0, import_yaml2.isMap)(node2)) {
+    const pair2 = node2.items.find((item) => (0, import_yaml2.isPair)(item) && (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === String(segment));
+    return pair2?.value ?? (pair2 && (0, import_yaml2.isScalar)(pair2.key) ? pair2.key : null);
+  }
+  if ((0, import_yaml2.isSeq)(node2) && typeof segment === "number") {
+    return node2.items[segment] ?? null;
+  }
+  return null;
+}
+function plainYamlMessage(message) {
+  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
+}
+
+// src/core/config/schema.ts
+var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
+function compiles(pattern) {
+  try {
+    new RegExp(pattern, "u");
+    return true;
+  } catch {
+    return false;
+  }
+}
+var callPattern = (group2, example) => {
+  const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
+  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
+};
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var DEFAULT_PLAN_FOLDERS = ["experiments"];
+var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
+var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
+function isTimeZone(zone) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
+var writtenSettingsSchema = external_exports.strictObject(
+  {
+    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
+    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
+    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
+    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
+    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
+    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
+    scan: external_exports.strictObject(
+      {
+        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
+        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
+      },
+      { error: "a mapping with include and exclude" }
+    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
+    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
+    "bug-fix": external_exports.strictObject(
+      {
+        enabled: external_exports.boolean({ error: "true or false" }).default(true),
+        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
+        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
+        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
+        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
+        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
+        guardrail: external_exports.strictObject(
+          {
+            name: text("a metric name, e.g. error-rate"),
+            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
+            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
+            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
+          },
+          { error: "a guardrail: { name, rate, events, direction }" }
+        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+      },
+      { error: "a mapping of bug-fix nudge settings" }
+    ).default({
+      enabled: true,
+      labels: DEFAULT_BUG_LABELS,
+      "title-prefixes": ["fix", "bugfix", "hotfix"],
+      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
+      "silence-label": "no-check-test",
+      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
+    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
+    digest: external_exports.strictObject(
+      {
+        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
+        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
+        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
+        label: text("the label of the digest issue").default("plumbline-digest")
+      },
+      { error: "a mapping of digest settings" }
+    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
+    severity: external_exports.record(
+      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
+      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
+      { error: "a mapping of finding code to block, warn, note or off" }
+    ).default({}).describe("Raise or lower the severity of findings by code.")
+  },
+  { error: "a settings file: a mapping of settings" }
+).describe("Plumbline repository settings.");
+var settingsSchema = writtenSettingsSchema.transform((w) => ({
+  planPaths: w.plans,
+  registryFiles: w.registries,
+  flagCalls: w["flag-calls"],
+  logCalls: w["log-calls"],
+  builtinPatterns: w["builtin-patterns"],
+  groupSurfaces: w["group-surfaces"],
+  scan: w.scan,
+  exemptFlags: w["exempt-flags"],
+  severity: w.severity,
+  bugFix: {
+    enabled: w["bug-fix"].enabled,
+    labels: w["bug-fix"].labels,
+    titlePrefixes: w["bug-fix"]["title-prefixes"],
+    branchPrefixes: w["bug-fix"]["branch-prefixes"],
+    silenceLabel: w["bug-fix"]["silence-label"],
+    nonProductPaths: w["bug-fix"]["non-product-paths"],
+    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
+    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  digest: {
+    timeZone: w.digest["time-zone"],
+    endingSoonDays: w.digest["ending-soon-days"],
+    onHoldDays: w.digest["on-hold-days"],
+    label: w.digest.label
+  }
+}));
+
+// src/core/config/load.ts
+var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
+var cachedJsonSchema;
+function settingsJsonSchema() {
+  cachedJsonSchema ??= {
+    $id: "https://plumbline.dev/schema/settings.schema.json",
+    title: "Plumbline settings file",
+    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cachedJsonSchema;
+}
+function defaultSettings() {
+  return settingsSchema.parse({});
+}
+function loadSettings(text2, file2) {
+  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
+  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
+  if (!read.ok) return { ok: false, errors: read.problems };
+  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
+  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
+  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
+}
+
+// src/core/config/plan-files.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var PLAN_EXTENSIONS = [".yaml", ".yml"];
+function planSearchRoots(entries) {
+  return entries.map((raw) => {
+    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
+    const scan = import_picomatch3.default.scan(entry);
+    if (scan.isGlob) {
+      const matcher = (0, import_picomatch3.default)(entry, { dot: false });
+      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
+    }
+    if (isYamlFile(entry)) {
+      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
+      return { folder: parent, matches: (path) => path === entry };
+    }
+    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
+    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
+  });
+}
+function isYamlFile(path) {
+  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
+}
+
+// src/core/source/rule-context.ts
+function runRules(value, source, rules) {
+  const problems = [];
+  const context2 = {
+    value,
+    report({ severity: severity2, code, path, message, expected, showFound, atKey }) {
+      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
+      problems.push({
+        severity: severity2,
+        code,
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path),
+        field: formatFieldPath(path),
+        message,
+        ...expected ? { expected } : {},
+        ...found ? { found } : {}
+      });
+    }
+  };
+  for (const rule of rules) rule(context2);
+  return problems;
+}
+
+// src/core/plan/json-schema.ts
+var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
+var cached2;
+function planJsonSchema() {
+  cached2 ??= {
+    $id: PLAN_SCHEMA_ID,
+    title: "Plumbline experiment plan",
+    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
+  };
+  return cached2;
+}
+
+// src/core/plan/load.ts
+var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function loadPlan(text2, file2) {
+  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
+}
+
+// src/core/registry/load.ts
+var REGISTRY_LIMITS = { maxBytes: 4 * 1024 * 1024, maxAliases: 1e3 };
+var cachedJsonSchema2;
+function registryJsonSchema() {
+  cachedJsonSchema2 ??= {
+    $id: "https://plumbline.dev/schema/registry.schema.json",
+    title: "Plumbline registry file",
+    ...external_exports.toJSONSchema(writtenRegistrySchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cachedJsonSchema2;
+}
+function loadRegistryFile(text2, file2) {
+  const read = readYaml(text2, file2, REGISTRY_LIMITS, "registry");
+  if (!read.ok) return { ok: false, errors: read.problems };
+  const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
+  if (!checked.ok) return { ok: false, errors: checked.problems };
+  const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
+  return { ok: true, entries };
+}
+function buildRegistry(plans, extra) {
+  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line
+  );
+  const byId = /* @__PURE__ */ new Map();
+  const problems = [];
+  for (const entry of candidates) {
+    const first = byId.get(entry.id);
+    if (first) {
+      problems.push({
+        severity: "error",
+        code: "registry/duplicate-id",
+        file: entry.file,
+        line: entry.line,
+        column: 1,
+        field: "id",
+        message: `id "${entry.id}" is already used by ${first.file}:${first.line}`,
+        expected: "an id unique across all plans and registry files"
+      });
+      continue;
+    }
+    byId.set(entry.id, entry);
+  }
+  return { registry: { entries: [...byId.values()] }, problems };
+}
+
+// src/run/load-workspace.ts
+async function loadWorkspace(options) {
+  const { files } = options;
+  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
+  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
+  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
+  const settings = settingsResult.settings;
+  const planFiles = await findPlanFiles(files, settings.planPaths);
+  const problems = [];
+  const plans = [];
+  const texts = await files.readTexts(planFiles);
+  for (const [index, file2] of planFiles.entries()) {
+    options.onProgress?.(index, planFiles.length, "plans");
+    const result = loadPlan(texts[index] ?? "", file2);
+    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
+    if (result.ok) plans.push(result.loaded);
+  }
+  options.onProgress?.(planFiles.length, planFiles.length, "plans");
+  const extra = [];
+  for (const [index, file2] of settings.registryFiles.entries()) {
+    const text2 = await files.readText(file2);
+    if (text2 === void 0) {
+      return {
+        ok: false,
+        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
+        settingsProblems: [
+          {
+            severity: "error",
+            code: "settings/registry-missing",
+            ...settingsResult.locate(["registries", index]),
+            field: `registries[${index}]`,
+            message: `the registry file ${file2} does not exist`,
+            expected: "a path relative to the repository root"
+          }
+        ]
+      };
+    }
+    const result = loadRegistryFile(text2, file2);
+    if (result.ok) extra.push(...result.entries);
+    else problems.push(...result.errors);
+  }
+  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
+  problems.push(...registryProblems);
+  return {
+    ok: true,
+    workspace: {
+      settings,
+      ...settingsFile ? { settingsFile } : {},
+      planFiles,
+      plans,
+      registry: registry2,
+      problems: sortProblems(problems)
+    }
+  };
+}
+function ownFilesOf(workspace) {
+  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+}
+async function requireWorkspace(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
+${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  }
+  return loaded.workspace;
+}
+async function readSettingsText(files, named) {
+  if (named) {
+    const text2 = await files.readText(named);
+    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
+    return { text: text2, file: named };
+  }
+  for (const candidate of SETTINGS_FILE_NAMES) {
+    const text2 = await files.readText(candidate);
+    if (text2 !== void 0) return { text: text2, file: candidate };
+  }
+  return {};
+}
+async function findPlanFiles(files, planPaths) {
+  const found = /* @__PURE__ */ new Set();
+  for (const root of planSearchRoots(planPaths)) {
+    for (const path of await files.listFiles(root.folder)) {
+      if (root.matches(path)) found.add(path);
+    }
+  }
+  return [...found].sort();
+}
+
 // src/run/review-change.ts
 async function reviewChange(options) {
   const { change: change2 } = options;
@@ -39621,329 +39726,14 @@ async function reviewChange(options) {
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
 }
 
-// src/core/report/markdown-safe.ts
-function safeText(text2) {
-  return text2.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/@(?=[A-Za-z0-9_-])/g, "@\u200B").replace(/\r?\n/g, " ");
-}
-function safeCell(text2) {
-  return safeText(text2).replace(/\|/g, "\\|");
-}
-function codeSpan(text2) {
-  const clean = text2.replace(/\r?\n/g, " ");
-  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
-  const fence = "`".repeat(longest + 1);
-  const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
-  return `${fence}${pad}${clean}${pad}${fence}`;
-}
-
-// src/core/report/review-markdown.ts
-var REVIEW_MARKER = "<!-- plumbline:review -->";
-var COMMENT_LIMIT = 65536;
-var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
-var HEADLINE = {
-  blocked: "\u26D4 Plumbline: blocked",
-  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
-  clear: "\u2705 Plumbline: all clear",
-  "nothing-to-check": "\u2705 Plumbline: nothing to check"
-};
-function plural2(n, noun) {
-  return `${n} ${noun}${n === 1 ? "" : "s"}`;
-}
-function where(path, line, options) {
-  if (!path) return "";
-  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
-  return options.link ? `[${label}](${options.link(path, line ?? 1)})` : label;
-}
-function findingLine(f, options) {
-  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
-  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
-}
-function verdictLine(review) {
-  if (review.verdict === "nothing-to-check") return `### ${HEADLINE[review.verdict]}`;
-  const parts = [
-    review.counts.block ? plural2(review.counts.block, "blocking finding") : "",
-    review.counts.warn ? plural2(review.counts.warn, "warning") : "",
-    review.counts.note ? plural2(review.counts.note, "note") : ""
-  ].filter(Boolean);
-  return `### ${HEADLINE[review.verdict]}${parts.length ? ` \u2014 ${parts.join(", ")}` : ""}`;
-}
-function planSection(plan, options, detail) {
-  const lines = [
-    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
-    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
-    "",
-    ...plan.checklist.map((item) => `- [${item.done ? "x" : " "}] ${item.label}`)
-  ];
-  if (!detail.planDetails) return lines;
-  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
-  const body = detail.charts ? sizing : cutChart(sizing);
-  const found = plan.events.filter((e) => e.location).length;
-  lines.push(
-    "",
-    "<details><summary>Sizing: units, days and power</summary>",
-    "",
-    ...body,
-    "</details>",
-    "",
-    `<details><summary>Events: ${found} of ${plan.events.length} logged in the code</summary>`,
-    "",
-    "| event | used for | first logged at |",
-    "| --- | --- | --- |",
-    ...plan.events.map((e) => `| ${codeSpan(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${where(e.location.file, e.location.line, options)}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`),
-    "",
-    "</details>"
-  );
-  return lines;
-}
-function cutChart(lines) {
-  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
-  return start < 0 ? lines : lines.slice(0, start);
-}
-function render(review, options, detail, omitted) {
-  const out = [REVIEW_MARKER, verdictLine(review), `<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`, ""];
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  if (review.findings.length) {
-    out.push("#### Findings", "", ...review.findings.slice(0, detail.findingsShown).map((f) => findingLine(f, options)));
-    const hidden = review.findings.length - detail.findingsShown;
-    if (hidden > 0) out.push(`- \u2026 and ${plural2(hidden, "more finding")}${options.fullReport ? ` in ${options.fullReport}` : ""}.`);
-    out.push("");
-  }
-  for (const plan of review.plans) out.push(...planSection(plan, options, detail), "");
-  if (review.nudge) {
-    out.push(
-      "#### A small check test for this fix?",
-      "",
-      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      ...review.nudge.sizingLine ? ["", safeText(review.nudge.sizingLine)] : [],
-      "",
-      "<details><summary>A plan to paste into experiments/ (edit the placeholders)</summary>",
-      "",
-      "```yaml",
-      review.nudge.planStub.replace(/```/g, "'''"),
-      "```",
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (review.collisions.length) {
-    out.push(
-      "#### Running tests on the same surface",
-      "",
-      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
-      "| --- | --- | --- | --- | --- | --- | --- | --- |",
-      ...review.collisions.map(
-        (c) => `| ${codeSpan(c.plan)} | ${codeSpan(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeSpan(c.otherSurface)} | ${c.overlapDays ?? "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
-      ),
-      ""
-    );
-  }
-  if (review.flags.length) {
-    const shown = review.flags.slice(0, detail.planDetails ? 50 : 10);
-    out.push(
-      "<details><summary>Feature flags this change touches</summary>",
-      "",
-      "| flag | where | how | plans |",
-      "| --- | --- | --- | --- |",
-      ...shown.map((f) => `| ${codeSpan(f.key)} | ${where(f.file, f.line, options)} (${f.side}) | ${f.via} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeSpan).join(", ") : "**none**"} |`),
-      ...review.flags.length > shown.length ? [``, `\u2026and ${review.flags.length - shown.length} more.`] : [],
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (omitted.length) out.push(`<sub>To fit GitHub's comment size limit, this comment leaves out ${omitted.join(", ")}${options.fullReport ? `; the full report is in ${options.fullReport}` : ""}.</sub>`);
-  return out.join("\n").replace(/\n{3,}/g, "\n\n");
-}
-function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT) {
-  const steps = [
-    [{ charts: true, planDetails: true, findingsShown: review.findings.length }, []],
-    [{ charts: false, planDetails: true, findingsShown: review.findings.length }, ["the power charts"]],
-    [{ charts: false, planDetails: false, findingsShown: review.findings.length }, ["the power charts", "the sizing and events tables"]]
-  ];
-  for (const [detail, omitted] of steps) {
-    const body = render(review, options, detail, omitted);
-    if (body.length <= limit) return body;
-  }
-  for (let shown = Math.min(review.findings.length, 200); shown >= 0; shown = shown > 20 ? Math.floor(shown / 2) : shown - 1) {
-    const body = render(review, options, { charts: false, planDetails: false, findingsShown: shown }, ["the power charts", "the sizing and events tables", "some findings"]);
-    if (body.length <= limit) return body;
-  }
-  return `${REVIEW_MARKER}
-${verdictLine(review)}
-
-The full review does not fit in a comment${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
-}
-
-// src/core/report/review-text.ts
-var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
-function renderReviewText(review, options) {
-  const style = terminalStyle(options.color);
-  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
-  const out = [];
-  const verdict = {
-    blocked: style.red("blocked"),
-    warnings: style.yellow("passes, with warnings"),
-    clear: style.green("all clear"),
-    "nothing-to-check": style.green("nothing to check")
-  }[review.verdict];
-  const n = (count3, noun) => `${count3} ${noun}${count3 === 1 ? "" : "s"}`;
-  out.push(`${style.bold("Plumbline")}: ${verdict} (${review.counts.block} blocking, ${n(review.counts.warn, "warning")}, ${n(review.counts.note, "note")}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  for (const f of review.findings) {
-    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
-    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ""}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
-  }
-  for (const plan of review.plans) {
-    out.push("", `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(", "))}) ${plan.file}:${plan.line}`);
-    for (const item of plan.checklist) out.push(`  [${item.done ? style.green("x") : style.red(" ")}] ${item.label}`);
-    const primary = plan.sizing.metrics[0];
-    if (primary?.result.ok && primary.result.value.headline) {
-      const h = primary.result.value.headline;
-      const end = primary.result.value.atPlannedEnd;
-      out.push(
-        `  sizing: ${h.totalUnits.toLocaleString("en-US")} units${h.duration ? `, ${h.duration.days} days (${h.duration.weeks} weeks)` : ""}${end?.power !== void 0 ? `, ${(end.power * 100).toFixed(1)}% power by the planned end` : ""}; details: plumbline size ${plan.id}`
-      );
-    }
-    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
-    out.push(`  events: ${plan.events.length - missing.length} of ${plan.events.length} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
-  }
-  return out.join("\n");
-}
-
-// src/core/review/report-schema.ts
-var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
-var severity = external_exports.enum(["block", "warn", "note"]);
-var analysisSize = external_exports.object({
-  perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
-  totalUnits: external_exports.number().int(),
-  clusters: external_exports.number().int().optional(),
-  duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
-});
-var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
-var sizeResult = external_exports.union([
-  external_exports.object({
-    ok: external_exports.literal(true),
-    value: external_exports.object({
-      baselineValue: external_exports.number(),
-      sd: external_exports.number().optional(),
-      effect: change.extend({ from: external_exports.number() }).optional(),
-      multipliers: external_exports.object({
-        comparisons: external_exports.number(),
-        alphaPerComparison: external_exports.number(),
-        designEffect: external_exports.number(),
-        varianceReduction: external_exports.number(),
-        sequential: external_exports.number(),
-        dilutionUnits: external_exports.number(),
-        dilutionDays: external_exports.number()
-      }),
-      boundaries: external_exports.object({ kind: external_exports.enum(["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"]), z: external_exports.array(external_exports.number()), nominalP: external_exports.array(external_exports.number()) }).optional(),
-      triggered: analysisSize.optional(),
-      diluted: analysisSize.optional(),
-      headline: analysisSize.optional(),
-      atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
-      powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
-      notes: external_exports.array(external_exports.string())
-    })
-  }),
-  external_exports.object({ ok: external_exports.literal(false), error: external_exports.object({ input: external_exports.string(), message: external_exports.string() }) })
-]);
-var reviewReportSchema = external_exports.object({
-  format: external_exports.literal("plumbline.review/1"),
-  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check"]),
-  counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
-  base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
-  head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
-  findings: external_exports.array(
-    external_exports.object({
-      code: external_exports.string(),
-      severity,
-      message: external_exports.string(),
-      fix: external_exports.string(),
-      plan: external_exports.string().optional(),
-      file: external_exports.string().optional(),
-      line: external_exports.number().int().positive().optional()
-    })
-  ),
-  plans: external_exports.array(
-    external_exports.object({
-      id: external_exports.string(),
-      title: external_exports.string(),
-      file: external_exports.string(),
-      line: external_exports.number().int(),
-      state: external_exports.string(),
-      owners: external_exports.array(external_exports.string()),
-      reasons: external_exports.array(external_exports.enum(["named in the description", "plan file changed", "flag touched"])),
-      checklist: external_exports.array(external_exports.object({ label: external_exports.string(), done: external_exports.boolean() })),
-      sizing: external_exports.object({
-        planId: external_exports.string(),
-        plannedDays: external_exports.number().int().optional(),
-        dailyUnits: external_exports.number().optional(),
-        metrics: external_exports.array(
-          external_exports.object({
-            metric: external_exports.string(),
-            role: external_exports.enum(["primary", "guardrail"]),
-            kind: external_exports.enum(["proportion", "mean", "ratio"]),
-            direction: external_exports.enum(["increase", "decrease"]),
-            sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
-            result: sizeResult
-          })
-        )
-      }),
-      power: external_exports.number(),
-      window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
-      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
-    })
-  ),
-  flags: external_exports.array(
-    external_exports.object({
-      key: external_exports.string(),
-      file: external_exports.string(),
-      line: external_exports.number().int(),
-      side: external_exports.enum(["added", "removed"]),
-      via: external_exports.string(),
-      plans: external_exports.array(external_exports.string()),
-      exempt: external_exports.boolean()
-    })
-  ),
-  collisions: external_exports.array(
-    external_exports.object({
-      plan: external_exports.string(),
-      other: external_exports.string(),
-      owners: external_exports.array(external_exports.string()),
-      otherSurface: external_exports.string(),
-      overlapDays: external_exports.number().int().optional(),
-      overlapWindow: external_exports.object({ start: external_exports.string(), end: external_exports.string() }).optional(),
-      platforms: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
-      locales: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
-      trafficShare: external_exports.number(),
-      known: external_exports.boolean()
-    })
-  ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), sizingLine: external_exports.string().optional() }).optional()
-}).describe("The Plumbline pull-request review report.");
-var REVIEW_JSON_FORMAT = "plumbline.review/1";
-function reviewJson(review) {
-  return { format: REVIEW_JSON_FORMAT, ...review };
-}
-
 // src/cli/check-command.ts
-import { readFile as readFile2 } from "node:fs/promises";
-import { resolve } from "node:path";
+import { resolve as resolve2 } from "node:path";
 async function pullRequestInfo(flags, cwd) {
   let fromFile = {};
   if (flags.prJson) {
     let parsed;
     try {
-      parsed = JSON.parse(await readFile2(resolve(cwd, flags.prJson), "utf8"));
+      parsed = JSON.parse(await readFile2(resolve2(cwd, flags.prJson), "utf8"));
     } catch (error62) {
       throw new UsageError(`--pr-json ${flags.prJson} is not a readable JSON file (${error62 instanceof Error ? error62.message : String(error62)})`, 'give { "title": ..., "body": ..., "labels": [...], "branch": ... } or a pull-request object');
     }
@@ -39952,7 +39742,7 @@ async function pullRequestInfo(flags, cwd) {
   let body = flags.body ?? fromFile.body;
   if (flags.bodyFile) {
     try {
-      body = await readFile2(resolve(cwd, flags.bodyFile), "utf8");
+      body = await readFile2(resolve2(cwd, flags.bodyFile), "utf8");
     } catch (error62) {
       throw new ExternalError(`cannot read --body-file ${flags.bodyFile}`, void 0, { cause: error62 });
     }
@@ -39985,6 +39775,104 @@ function fromJson(value, file2) {
   const branch = text2(pr.branch ?? headRef, "branch");
   return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
 }
+function addCheckCommand(program2, setExit) {
+  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
+    const options = program2.opts();
+    const { output: output2 } = context({ ...options, format: "text" });
+    const cwd = resolve2(options.cwd);
+    const pr = await pullRequestInfo(flags, cwd);
+    const change2 = await openChange(cwd, flags.base, flags.head);
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
+    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
+    const { review } = outcome;
+    if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
+`, { overwrite: true });
+    const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
+    if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
+    else if (flags.format === "markdown") output2.out(renderReviewMarkdown(review, repoUrl ? { link: (path, line) => `${repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}` } : {}));
+    else output2.out(renderReviewText(review, { color: output2.color }));
+    setExit(review.verdict === "blocked" ? EXIT.findings : EXIT.ok);
+  });
+}
+
+// src/core/report/digest-markdown.ts
+var DIGEST_MARKER = "<!-- plumbline:digest -->";
+var DIGEST_START = "<!-- plumbline:digest:start -->";
+var DIGEST_END = "<!-- plumbline:digest:end -->";
+var TIMELINE_LIMIT = 40;
+var LABEL2 = {
+  overdue: "\u23F0 past its end",
+  "flag-gone": "\u{1F9F9} flag gone from the code",
+  collision: "\u{1F4A5} collides",
+  "draft-past-start": "\u{1F4DD} draft past its start",
+  "long-on-hold": "\u23F8\uFE0F on hold too long",
+  "ending-soon": "\u{1F4C5} ending soon"
+};
+function countLine(d) {
+  const c = d.counts;
+  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
+}
+function ownerHeading(owner2) {
+  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
+}
+function taskName(id) {
+  return id.replace(/[:#;]/g, "-");
+}
+function gantt(d) {
+  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
+  const lines = ["```mermaid", "gantt", "  title Live and planned tests by surface", "  dateFormat YYYY-MM-DD", `  todayMarker stroke-width:3px`];
+  let section = "";
+  shown.forEach((t, i) => {
+    const area = t.surface.split("/")[0];
+    if (area !== section) {
+      section = area;
+      lines.push(`  section ${taskName(area)}`);
+    }
+    const tag = t.overdue ? "crit, " : t.state === "live" ? "active, " : "";
+    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+  });
+  lines.push("```");
+  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
+  return lines;
+}
+function render2(d, withTimeline, itemsPerOwner) {
+  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
+  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  for (const { owner: owner2, items } of d.owners) {
+    out.push(ownerHeading(owner2), "");
+    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL2[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
+    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
+    out.push("");
+  }
+  if (d.orphanFlags.length) {
+    out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
+    out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
+  }
+  if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
+  out.push(DIGEST_END);
+  return out.join("\n");
+}
+function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
+  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
+    const body = render2(d, timeline, per);
+    if (body.length <= limit) return body;
+  }
+  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
+}
+function renderDigestText(d) {
+  const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
+  for (const { owner: owner2, items } of d.owners) {
+    out.push("", terminalSafe(owner2));
+    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
+  }
+  if (d.orphanFlags.length) {
+    out.push("", "Flags in code that no plan covers:");
+    for (const f of d.orphanFlags) out.push(`  ${terminalSafe(f.key)} at ${f.location.file}:${f.location.line}`);
+  }
+  return out.join("\n");
+}
+var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
@@ -40101,156 +39989,207 @@ async function digestRepository(options) {
   return { digest, settings };
 }
 
-// src/core/report/digest-markdown.ts
-var DIGEST_MARKER = "<!-- plumbline:digest -->";
-var DIGEST_START = "<!-- plumbline:digest:start -->";
-var DIGEST_END = "<!-- plumbline:digest:end -->";
-var TIMELINE_LIMIT = 40;
-var LABEL2 = {
-  overdue: "\u23F0 past its end",
-  "flag-gone": "\u{1F9F9} flag gone from the code",
-  collision: "\u{1F4A5} collides",
-  "draft-past-start": "\u{1F4DD} draft past its start",
-  "long-on-hold": "\u23F8\uFE0F on hold too long",
-  "ending-soon": "\u{1F4C5} ending soon"
-};
-function countLine(d) {
-  const c = d.counts;
-  return `${c.overdue} past their planned end \xB7 ${c["ending-soon"]} ending soon \xB7 ${c["draft-past-start"]} drafts past their start \xB7 ${c["long-on-hold"]} on hold too long \xB7 ${c.collision} collisions \xB7 ${c["flag-gone"]} live with their flag gone \xB7 ${c.orphanFlags} flags in code without a plan \u2014 ${c.live} live, ${c.planned} drafts`;
-}
-function ownerHeading(owner2) {
-  return /^@[A-Za-z0-9][\w./-]*$/.test(owner2) ? `### ${owner2}` : `### ${safeText(owner2)}`;
-}
-function taskName(id) {
-  return id.replace(/[:#;]/g, "-");
-}
-function gantt(d) {
-  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
-  const lines = ["```mermaid", "gantt", "  title Live and planned tests by surface", "  dateFormat YYYY-MM-DD", `  todayMarker stroke-width:3px`];
-  let section = "";
-  shown.forEach((t, i) => {
-    const area = t.surface.split("/")[0];
-    if (area !== section) {
-      section = area;
-      lines.push(`  section ${taskName(area)}`);
-    }
-    const tag = t.overdue ? "crit, " : t.state === "live" ? "active, " : "";
-    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+// src/cli/digest-command.ts
+function addDigestCommand(program2, setExit) {
+  program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
+    const options = program2.opts();
+    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
+    const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
+    if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
+    else if (local.format === "markdown") output2.out(renderDigestMarkdown(digest));
+    else output2.out(renderDigestText(digest));
+    setExit(EXIT.ok);
   });
-  lines.push("```");
-  if (d.timeline.length > shown.length) lines.push("", `${d.timeline.length - shown.length} more tests are not drawn (the list above has them all).`);
-  return lines;
 }
-function render2(d, withTimeline, itemsPerOwner) {
-  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
-  if (d.owners.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
-  for (const { owner: owner2, items } of d.owners) {
-    out.push(ownerHeading(owner2), "");
-    for (const it of items.slice(0, itemsPerOwner)) out.push(`- ${LABEL2[it.kind]}: ${codeSpan(it.test)} ${safeText(it.title)} (${codeSpan(`${it.file}:${it.line}`)}). ${safeText(it.detail)}`);
-    if (items.length > itemsPerOwner) out.push(`- \u2026and ${items.length - itemsPerOwner} more (see the JSON report).`);
-    out.push("");
-  }
-  if (d.orphanFlags.length) {
-    out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${d.orphanFlags.length - 50} more.`);
-    out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
-  }
-  if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
-  out.push(DIGEST_END);
-  return out.join("\n");
+
+// src/core/report/registry-list.ts
+var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
+function sortEntries(entries) {
+  return [...entries].sort(
+    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
+  );
 }
-function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
-  for (const [timeline, per] of [[true, Infinity], [false, Infinity], [false, 20], [false, 5], [false, 1]]) {
-    const body = render2(d, timeline, per);
-    if (body.length <= limit) return body;
-  }
-  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
+function formatWindow(window) {
+  if (!window.start && !window.end) return "not set";
+  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
 }
-function renderDigestText(d) {
-  const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
-  for (const { owner: owner2, items } of d.owners) {
-    out.push("", terminalSafe(owner2));
-    for (const it of items) out.push(`  ${it.kind.padEnd(16)} ${it.test} (${it.file}:${it.line}): ${terminalSafe(it.detail)}`);
-  }
-  if (d.orphanFlags.length) {
-    out.push("", "Flags in code that no plan covers:");
-    for (const f of d.orphanFlags) out.push(`  ${terminalSafe(f.key)} at ${f.location.file}:${f.location.line}`);
+var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
+function registryJson(registry2) {
+  return {
+    format: REGISTRY_JSON_FORMAT,
+    tests: sortEntries(registry2.entries).map((e) => ({
+      id: e.id,
+      title: e.title,
+      state: e.state,
+      surface: e.surface.path,
+      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
+      window: e.window,
+      owners: e.owners,
+      flags: e.flags,
+      trafficShare: e.trafficShare,
+      events: e.events,
+      file: e.file,
+      line: e.line
+    }))
+  };
+}
+function renderRegistryText(registry2, options) {
+  const style = terminalStyle(options.color);
+  const entries = sortEntries(registry2.entries);
+  const rows2 = entries.map(
+    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
+  );
+  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
+  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
+  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
+  if (options.skippedFiles) {
+    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
   }
   return out.join("\n");
 }
-var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 
-// src/core/report/readout.ts
-var SRM_JSON_FORMAT = "plumbline.srm/1";
-var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
-function formatP(p) {
-  if (p < 1e-12) return "< 1e-12";
-  return p < 1e-3 ? p.toExponential(2) : p.toFixed(4);
-}
-function renderSrmText(check2, observed, weights, threshold) {
-  const total = observed.reduce((a, b) => a + b, 0);
-  const weightSum = weights.reduce((a, b) => a + b, 0);
-  const rows2 = observed.map((o, i) => [
-    `arm ${i + 1}`,
-    `${(weights[i] / weightSum * 100).toFixed(1)}%`,
-    formatCount(o),
-    formatCount(check2.expected[i]),
-    `${(o / total * 100).toFixed(2)}%`
-  ]);
-  const verdict = check2.mismatch ? `Sample ratio mismatch: p = ${formatP(check2.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check2.pValue)} (alarm below ${threshold}).`;
-  return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check2.statistic.toFixed(3)} on ${check2.degreesOfFreedom} df. ${verdict}`].join("\n");
-}
-function renderAdjustedText(pValues, bh, bonferroni2, q) {
-  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(bonferroni2[i]), bonferroni2[i] <= q ? "yes" : "no"]);
-  const found = (list2) => list2.filter((x) => x <= q).length;
-  return [
-    formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
-    "",
-    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Bonferroni (any false alarm) finds ${found(bonferroni2)}.`
-  ].join("\n");
-}
-
-// src/core/stats/srm.ts
-var SRM_ALARM_P = 5e-4;
-function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
-  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
-  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
-  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
-  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
-  const total = observed.reduce((a, b) => a + b, 0);
-  if (total === 0) return fail("observed", "no units observed yet");
-  const weightSum = weights.reduce((a, b) => a + b, 0);
-  const expected = weights.map((w) => total * w / weightSum);
-  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
-  const degreesOfFreedom = observed.length - 1;
-  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
-  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
-}
-
-// src/core/stats/multiple-testing.ts
-function benjaminiHochberg(pValues) {
-  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
-  const m = pValues.length;
-  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
-  const adjusted = new Array(m);
-  let running = 1;
-  order.forEach(({ p, i }, rankFromTop) => {
-    const rank = m - rankFromTop;
-    running = Math.min(running, p * m / rank);
-    adjusted[i] = running;
+// src/cli/list-command.ts
+function addListCommand(program2, setExit) {
+  program2.command("list").description("show the registry of tests: state, surface, window, owners").addOption(formatOption()).addOption(new Option("--state <state>", "only tests in this state").choices(["draft", "live", "on-hold", "concluded"])).action(async (local) => {
+    const options = { ...program2.opts(), ...local };
+    const { output: output2, ...ports } = context(options);
+    const loaded = await loadWorkspace(ports);
+    if (!loaded.ok) return setExit(reportSettingsProblems(output2, options.format, loaded.settingsFile, loaded.settingsProblems));
+    const { workspace } = loaded;
+    const registry2 = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
+    const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === "error").map((p) => p.file)).size;
+    output2.out(options.format === "json" ? JSON.stringify(registryJson(registry2), null, 2) : renderRegistryText(registry2, { color: output2.color, skippedFiles }));
+    setExit(EXIT.ok);
   });
-  return ok(adjusted);
-}
-function bonferroniAdjust(pValues) {
-  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
-  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
 }
 
-// src/version.ts
-var VERSION = "0.1.0";
+// src/cli/new-command.ts
+import { resolve as resolve3 } from "node:path";
+
+// src/run/scaffold.ts
+import { posix } from "node:path";
+
+// src/core/plan/scaffold.ts
+function planIdFromFlag(flagKey2) {
+  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
+}
+function renderPlanScaffold(options) {
+  const id = options.id ?? planIdFromFlag(options.flagKey);
+  const start = addDays(options.today, 7);
+  const end = addDays(start, 27);
+  const quote = (s) => JSON.stringify(s);
+  return `# yaml-language-server: $schema=${options.schemaPath}
+# Experiment plan, written before launch. Reference: docs/plan-reference.md
+id: ${id}
+title: ${quote(`Describe the change behind ${options.flagKey}`)}
+owners: [${quote(options.owner ?? "@your-handle")}]
+flags: [${quote(options.flagKey)}]
+state: draft                # draft, live, on-hold or concluded
+window:
+  start: ${start}
+  end: ${end}           # four whole weeks; weekly cycles matter
+
+hypothesis:
+  change: "What users will see or get that they do not today."
+  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
+  expected-direction: increase
+
+unit:
+  randomization: user       # user, device, session, account, team, organization, household, region
+  # analysis: session       # only when metrics are averaged over another unit
+
+surface:
+  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
+  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
+  # overlaps-with: [another-plan-id]
+
+population:
+  platforms: [web]
+  locales: [en-GB]
+  ready:                    # where the change was checked: rendered, translated
+    platforms: []
+    locales: []
+
+exposure:
+  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
+  reach: 1                  # share of exposed units that reach the changed experience
+
+metrics:
+  primary:
+    name: conversion
+    kind: proportion        # proportion, mean or ratio
+    baseline: { rate: 0.1 } # replace with the measured baseline
+    events: [conversion_completed]
+  guardrails: []
+    # - name: page-latency
+    #   kind: mean
+    #   baseline: { mean: 420, sd: 180 }
+    #   events: [page_rendered]
+    #   direction: decrease
+    #   tolerance: { relative: 0.02 }
+
+design:
+  arms:
+    - { name: control, weight: 50 }
+    - { name: treatment, weight: 50 }
+  alpha: 0.05
+  power: 0.8
+  min-detectable-effect: { relative: 0.05 }
+  # daily-units: 10000      # expected eligible units per day
+
+# Decision rules: write them now, before any data arrives.
+# decisions:
+#   win: ""
+#   flat: ""
+#   loss: ""
+#   guardrail-breach: ""
+`;
+}
+
+// src/run/scaffold.ts
+var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
+async function scaffoldPlan(request) {
+  const workspace = await requireWorkspace(request);
+  const id = request.id ?? planIdFromFlag(request.flagKey);
+  const taken = workspace.registry.entries.find((entry) => entry.id === id);
+  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
+  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
+  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
+  const path = request.out ?? posix.join(folder, `${id}.yaml`);
+  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
+  const text2 = renderPlanScaffold({
+    flagKey: request.flagKey,
+    id,
+    today: request.today,
+    schemaPath,
+    ...request.owner ? { owner: request.owner } : {},
+    ...request.surface ? { surface: request.surface } : {}
+  });
+  const check2 = loadPlan(text2, path);
+  if (!check2.ok) {
+    throw new UsageError(`the new plan would not be valid:
+${check2.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
+  }
+  return { path, text: text2, id };
+}
+
+// src/cli/new-command.ts
+function addNewCommand(program2, setExit) {
+  program2.command("new").description("write a new commented draft plan for a feature flag").argument("<flag-key>", "the feature-flag key the test reads").option("--id <id>", "plan id (default: from the flag key)").option("--owner <handle>", "owner, e.g. @ana-lima").option("--surface <path>", "surface path, e.g. checkout/payment").option("--out <file>", "where to write it (default: <plans folder>/<id>.yaml)").option("--today <date>", "today as YYYY-MM-DD (default: the system date, UTC)").option("--force", "replace an existing file", false).option("--stdout", "print the plan instead of writing it", false).action(async (flagKey2, local) => {
+    const options = program2.opts();
+    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const today = local.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
+    if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
+    const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
+    if (local.stdout) return output2.out(result.text);
+    await writeFileAtomic(resolve3(options.cwd, result.path), result.text, { overwrite: local.force });
+    output2.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
+  });
+}
 
 // src/cli/readout-command.ts
-import { resolve as resolve2 } from "node:path";
+import { resolve as resolve4 } from "node:path";
 
 // src/core/report/readout-figures.ts
 var VERDICT_LABEL = {
@@ -40480,6 +40419,23 @@ function recordOutcome(planText, readout, request) {
   const restStart = planText.indexOf("\n", valueEnd);
   const rest = restStart === -1 ? "" : planText.slice(restStart + 1);
   return { ok: true, text: `${planText.slice(0, lineStart)}${blockText}${rest}` };
+}
+
+// src/core/stats/srm.ts
+var SRM_ALARM_P = 5e-4;
+function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
+  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
+  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
+  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
+  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
+  const total = observed.reduce((a, b) => a + b, 0);
+  if (total === 0) return fail("observed", "no units observed yet");
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const expected = weights.map((w) => total * w / weightSum);
+  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
+  const degreesOfFreedom = observed.length - 1;
+  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
+  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
 }
 
 // src/core/readout/combine.ts
@@ -41176,7 +41132,7 @@ var insideTheWindow = (ctx) => {
 var TOTALS_PLAN_RULES = [samePlan, armsOfThePlan, metricsOfThePlan, insideTheWindow];
 
 // src/core/totals/schema.ts
-var count2 = (expected) => external_exports.number({ error: expected }).int({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
+var count = (expected) => external_exports.number({ error: expected }).int({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
 var sumOf = (what) => finiteNumber(`the sum of ${what} over the units, e.g. 10250.5`);
 var squaresOf = (what) => nonNegativeNumber(`the sum of squares of ${what} over the units (0 or more), e.g. 84210.25`);
 var prePeriod = external_exports.strictObject(
@@ -41189,15 +41145,15 @@ var prePeriod = external_exports.strictObject(
 ).describe("The same metric measured on the same units before the test (for variance reduction, CUPED).");
 var proportionTotals = external_exports.strictObject(
   {
-    "units-with-event": count2("the number of units with the event, a whole number of 0 or more, e.g. 1520"),
-    n: count2("the number of units the share is taken over, a whole number of 0 or more (default: the units)").optional(),
+    "units-with-event": count("the number of units with the event, a whole number of 0 or more, e.g. 1520"),
+    n: count("the number of units the share is taken over, a whole number of 0 or more (default: the units)").optional(),
     "pre-period": prePeriod.optional()
   },
   { error: "a mapping with units-with-event" }
 ).describe("A proportion metric: how many units had the event.");
 var meanTotals = external_exports.strictObject(
   {
-    n: count2("the number of units the mean is taken over, a whole number of 0 or more, e.g. 12000"),
+    n: count("the number of units the mean is taken over, a whole number of 0 or more, e.g. 12000"),
     sum: sumOf("the metric value"),
     "sum-of-squares": squaresOf("the metric value"),
     "pre-period": prePeriod.optional()
@@ -41207,7 +41163,7 @@ var meanTotals = external_exports.strictObject(
 var sideOfRatio = (what) => external_exports.strictObject({ sum: sumOf(`each unit\u2019s ${what}`), "sum-of-squares": squaresOf(`each unit\u2019s ${what}`) }, { error: `a mapping with sum and sum-of-squares of the ${what}` }).describe(`Sums of each unit\u2019s ${what}.`);
 var ratioTotals = external_exports.strictObject(
   {
-    n: count2("the number of units (the randomization unit), a whole number of 0 or more, e.g. 12000"),
+    n: count("the number of units (the randomization unit), a whole number of 0 or more, e.g. 12000"),
     numerator: sideOfRatio("numerator"),
     denominator: sideOfRatio("denominator"),
     "sum-of-products": finiteNumber("the sum over the units of numerator times denominator, e.g. 40210")
@@ -41218,7 +41174,7 @@ var metricTotals = external_exports.union([proportionTotals, meanTotals, ratioTo
   error: "metric totals: { units-with-event } for a proportion, { n, sum, sum-of-squares } for a mean, or { n, numerator, denominator, sum-of-products } for a ratio"
 }).meta({ id: "metricTotals", description: "The totals of one metric in one arm (or one day, week or segment of it)." });
 var metricsMap = external_exports.record(kebabName("a metric name of the plan, e.g. order-completed"), metricTotals, { error: "a mapping of metric names to their totals" }).default({}).describe("Totals per metric, keyed by the metric\u2019s name in the plan.");
-var unitsField = count2("the number of units exposed, a whole number of 0 or more, e.g. 12000");
+var unitsField = count("the number of units exposed, a whole number of 0 or more, e.g. 12000");
 var group = { units: unitsField, metrics: metricsMap };
 var armTotals = external_exports.strictObject(
   {
@@ -41318,6 +41274,18 @@ function loadTotals(text2, file2, plan) {
   return { ok: true, totals: checked.value, warnings };
 }
 
+// src/run/find-plan.ts
+function findNamedPlan(workspace, name, then) {
+  const wanted = name.replace(/^\.\//, "");
+  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  if (found) return found;
+  const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
+  if (broken.length) throw new UsageError(`${wanted} has errors:
+${broken.map(formatProblem).join("\n")}`, `fix them, then ${then} again`);
+  const known = workspace.plans.map((p) => p.plan.id);
+  throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
+}
+
 // src/run/readout.ts
 async function readOutPlan(options) {
   const workspace = await requireWorkspace(options);
@@ -41343,11 +41311,11 @@ ${[...loaded.errors, ...loaded.warnings].map(formatProblem).join("\n")}`, "see d
 
 // src/cli/readout-command.ts
 var READOUT_JSON_FORMAT = "plumbline.readout/1";
-function addReadoutCommand(program2, setExit, exitCodes) {
+function addReadoutCommand(program2, setExit) {
   program2.command("readout").description("read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan").argument("<plan>", "plan id or plan file").requiredOption("--totals <file>", "the arm-totals file (see docs/totals-reference.md)").addOption(new Option("--format <format>", "output format").choices(["text", "markdown", "json"]).default("text")).option("--record", "write the outcome block into the plan (comments and layout kept)", false).option("--decided-by <handle>", "who decided, e.g. @ana-lima (required with --record)").option("--today <date>", "the day recorded, YYYY-MM-DD (default: the system date, UTC)").action(async (planName, flags) => {
     const options = program2.opts();
     const output2 = createCliOutput({ noColorFlag: !options.color });
-    const cwd = resolve2(options.cwd);
+    const cwd = resolve4(options.cwd);
     if (flags.record && !flags.decidedBy) throw new UsageError("--record needs --decided-by", "name who decided, e.g. --decided-by @ana-lima");
     const today = flags.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
@@ -41363,65 +41331,114 @@ function addReadoutCommand(program2, setExit, exitCodes) {
     else if (flags.format === "markdown") output2.out(renderReadoutMarkdown(readout));
     else output2.out(renderReadoutText(readout, { color: output2.color }));
     if (outcome.recordedText !== void 0) {
-      await writeFileAtomic(resolve2(cwd, outcome.planFile), outcome.recordedText, { overwrite: true });
+      await writeFileAtomic(resolve4(cwd, outcome.planFile), outcome.recordedText, { overwrite: true });
       output2.err(`Recorded the outcome (${readout.verdict}) in ${outcome.planFile}.`);
     }
-    setExit(readout.findings.some((f) => f.severity === "block") ? exitCodes.findings : exitCodes.ok);
+    setExit(readout.findings.some((f) => f.severity === "block") ? EXIT.findings : EXIT.ok);
   });
 }
 
-// src/cli/main.ts
-var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
-var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
-function context(options) {
-  const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve3(options.cwd));
-  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
-}
-function reportSettingsProblems(output2, format, file2, problems) {
-  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
-  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
-  return EXIT.usage;
-}
-function parseNumbers(what, texts) {
-  return texts.map((text2) => {
-    const value = Number(text2);
-    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
-    return value;
+// src/cli/schema-command.ts
+function addSchemaCommand(program2, setExit) {
+  program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {
+    const schema = which === "plan" ? planJsonSchema() : which === "registry" ? registryJsonSchema() : settingsJsonSchema();
+    process.stdout.write(`${JSON.stringify(schema, null, 2)}
+`);
   });
 }
-function buildProgram(setExit) {
-  const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
-  program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
-    const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
-    const outcome = await validateRepository(ports);
-    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
-    const { report } = outcome;
-    output2.out(options.format === "json" ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output2.color }));
-    setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
-  });
-  program2.command("list").description("show the registry of tests: state, surface, window, owners").addOption(formatOption()).addOption(new Option("--state <state>", "only tests in this state").choices(["draft", "live", "on-hold", "concluded"])).action(async (local) => {
-    const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
-    const loaded = await loadWorkspace(ports);
-    if (!loaded.ok) return setExit(reportSettingsProblems(output2, options.format, loaded.settingsFile, loaded.settingsProblems));
-    const { workspace } = loaded;
-    const registry2 = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
-    const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === "error").map((p) => p.file)).size;
-    output2.out(options.format === "json" ? JSON.stringify(registryJson(registry2), null, 2) : renderRegistryText(registry2, { color: output2.color, skippedFiles }));
-    setExit(EXIT.ok);
-  });
-  program2.command("new").description("write a new commented draft plan for a feature flag").argument("<flag-key>", "the feature-flag key the test reads").option("--id <id>", "plan id (default: from the flag key)").option("--owner <handle>", "owner, e.g. @ana-lima").option("--surface <path>", "surface path, e.g. checkout/payment").option("--out <file>", "where to write it (default: <plans folder>/<id>.yaml)").option("--today <date>", "today as YYYY-MM-DD (default: the system date, UTC)").option("--force", "replace an existing file", false).option("--stdout", "print the plan instead of writing it", false).action(async (flagKey2, local) => {
-    const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
-    const today = local.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
-    if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
-    const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
-    if (local.stdout) return output2.out(result.text);
-    await writeFileAtomic(resolve3(options.cwd, result.path), result.text, { overwrite: local.force });
-    output2.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
-  });
+
+// src/run/size.ts
+async function sizeNamedPlan(options) {
+  const workspace = await requireWorkspace(options);
+  const found = findNamedPlan(workspace, options.plan, "size");
+  const { plan } = found;
+  return {
+    sizing: sizePlan(plan),
+    power: plan.design.power,
+    context: {
+      title: `Sizing for ${plan.id} (${found.file})`,
+      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
+      window: plan.window
+    }
+  };
+}
+function sizeFromRequest(request, window) {
+  const sizing = {
+    planId: "command-line",
+    ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
+    ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
+    metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }]
+  };
+  return {
+    sizing,
+    power: request.power,
+    context: { title: "Sizing from the command line", designLine: designSummary(request), ...window ? { window } : {} }
+  };
+}
+
+// src/cli/size-command.ts
+function addSizeOptions(command) {
+  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "expected new eligible units per day").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
+}
+var EXAMPLES = {
+  baseline: "0.12 (a rate) or 42.5 (a mean)",
+  sd: "30",
+  effect: "0.03 (3% relative)",
+  alpha: "0.05",
+  power: "0.8",
+  arms: "50,50",
+  "daily-units": "12000",
+  days: "28"
+};
+function number4(flag, text2) {
+  const value = Number(text2);
+  if (text2 === void 0 || text2.trim() === "" || !Number.isFinite(value)) {
+    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
+  }
+  return value;
+}
+function pair(flag, text2) {
+  const parts = (text2 ?? "").split(",");
+  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
+  return { mean: number4(flag, parts[0]), sd: number4(flag, parts[1]) };
+}
+function requestFromFlags(flags) {
+  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
+  let baseline;
+  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: number4("baseline", flags.baseline) };
+  else if (flags.kind === "mean") baseline = { kind: "mean", mean: number4("baseline", flags.baseline), sd: number4("sd", flags.sd) };
+  else baseline = { kind: "ratio", numerator: pair("numerator", flags.numerator), denominator: pair("denominator", flags.denominator), correlation: number4("correlation", flags.correlation) };
+  const weights = flags.arms.split(",").map((w) => number4("arms", w));
+  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
+  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
+  const looks = number4("interim-looks", flags.interimLooks);
+  if (!Number.isInteger(looks) || looks < 0 || looks > 20) throw new UsageError("--interim-looks needs a whole number from 0 to 20");
+  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
+  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
+  const effect = flags.effect === void 0 ? void 0 : number4("effect", flags.effect);
+  const clusterSize = flags.clusterSize === void 0 ? void 0 : number4("cluster-size", flags.clusterSize);
+  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
+  return {
+    baseline,
+    direction: flags.direction,
+    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
+    arms,
+    control: "control",
+    alpha: number4("alpha", flags.alpha),
+    power: number4("power", flags.power),
+    sides: flags.sides === "1" ? 1 : 2,
+    ...flags.dailyUnits !== void 0 ? { dailyUnits: number4("daily-units", flags.dailyUnits) } : {},
+    trafficShare: number4("traffic-share", flags.trafficShare),
+    reach: number4("reach", flags.reach),
+    interimLooks: looks,
+    boundary: flags.boundary,
+    prePeriodCorrelation: number4("pre-period-correlation", flags.prePeriodCorrelation),
+    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: number4("icc", flags.icc), sizeCv: number4("size-cv", flags.sizeCv) } } : {},
+    ...days !== void 0 ? { plannedDays: days } : {},
+    method: flags.method
+  };
+}
+function addSizeCommand(program2, setExit) {
   addSizeOptions(
     program2.command("size").description("size a test: units per arm, days, power and detectable effect by the planned end").argument("[plan]", "plan id or plan file; omit to describe a metric with --kind and the flags below")
   ).action(async (planName, flags) => {
@@ -41438,33 +41455,10 @@ function buildProgram(setExit) {
     else output2.out(renderSizingText(outcome.sizing, outcome.context));
     setExit(EXIT.ok);
   });
-  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
-    const options = program2.opts();
-    const { output: output2 } = context({ ...options, format: "text" });
-    const cwd = resolve3(options.cwd);
-    const pr = await pullRequestInfo(flags, cwd);
-    const change2 = await openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
-    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
-    const { review } = outcome;
-    if (flags.output) await writeFileAtomic(resolve3(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
-`, { overwrite: true });
-    const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
-    if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
-    else if (flags.format === "markdown") output2.out(renderReviewMarkdown(review, repoUrl ? { link: (path, line) => `${repoUrl}/blob/${review.head}/${encodeURI(path)}#L${line}` } : {}));
-    else output2.out(renderReviewText(review, { color: output2.color }));
-    setExit(review.verdict === "blocked" ? EXIT.findings : EXIT.ok);
-  });
-  program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
-    const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
-    if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
-    const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
-    if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
-    else if (local.format === "markdown") output2.out(renderDigestMarkdown(digest));
-    else output2.out(renderDigestText(digest));
-    setExit(EXIT.ok);
-  });
+}
+
+// src/cli/srm-command.ts
+function addSrmCommand(program2, setExit) {
   program2.command("srm").description("sample ratio mismatch: do the units seen per arm fit the planned weights?").argument("<counts...>", "units observed in each arm, control first, e.g. 50412 49288").option("--weights <weights>", "planned weights, e.g. 50,50 (default: equal)").option("--threshold <p>", "alarm below this p-value", String(SRM_ALARM_P)).addOption(formatOption()).action((counts, local) => {
     const observed = parseNumbers("counts", counts);
     const weights = local.weights ? parseNumbers("weights", local.weights.split(",")) : observed.map(() => 1);
@@ -41475,25 +41469,79 @@ function buildProgram(setExit) {
     output2.out(local.format === "json" ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check2.value }, null, 2) : renderSrmText(check2.value, observed, weights, threshold));
     setExit(check2.value.mismatch ? EXIT.findings : EXIT.ok);
   });
-  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
-    const p = parseNumbers("p-values", values);
-    const q = parseNumbers("q", [local.q])[0];
-    const bh = benjaminiHochberg(p);
-    const bonferroni2 = bonferroniAdjust(p);
-    if (!bh.ok) throw new UsageError(`${bh.error.input}: ${bh.error.message}`);
-    if (!bonferroni2.ok) throw new UsageError(`${bonferroni2.error.input}: ${bonferroni2.error.message}`);
-    const output2 = createCliOutput({ noColorFlag: true });
-    output2.out(
-      local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, benjaminiHochberg: bh.value, bonferroni: bonferroni2.value }, null, 2) : renderAdjustedText(p, bh.value, bonferroni2.value, q)
-    );
-    setExit(EXIT.ok);
+}
+
+// src/core/report/validation.ts
+var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
+function validationJson(report) {
+  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
+}
+function renderValidationText(report, options) {
+  const style = terminalStyle(options.color);
+  const lines = report.problems.map((problem) => {
+    const line = terminalSafe(formatProblem(problem));
+    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
   });
-  program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {
-    const schema = which === "plan" ? planJsonSchema() : which === "registry" ? registryJsonSchema() : settingsJsonSchema();
-    process.stdout.write(`${JSON.stringify(schema, null, 2)}
-`);
+  const invalid = report.planFiles - report.validPlans;
+  const files = `${count2(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count2(report.registryFiles, "registry file")}` : ""}`;
+  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count2(report.warnings, "warning")}` : "all valid") : style.red(`${count2(report.errors, "error")}${invalid ? ` in ${count2(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count2(report.warnings, "warning")}` : "");
+  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
+  if (report.planFiles === 0) {
+    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
+  }
+  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
+  return lines.join("\n");
+}
+function count2(n, noun) {
+  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+}
+
+// src/run/validate.ts
+async function validateRepository(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
+  const { workspace } = loaded;
+  return {
+    kind: "report",
+    report: {
+      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
+      planFiles: workspace.planFiles.length,
+      validPlans: workspace.plans.length,
+      registryFiles: workspace.settings.registryFiles.length,
+      registryEntries: workspace.registry.entries.length,
+      errors: workspace.problems.filter((p) => p.severity === "error").length,
+      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
+      problems: workspace.problems
+    }
+  };
+}
+
+// src/cli/validate-command.ts
+function addValidateCommand(program2, setExit) {
+  program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
+    const options = { ...program2.opts(), ...local };
+    const { output: output2, ...ports } = context(options);
+    const outcome = await validateRepository(ports);
+    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
+    const { report } = outcome;
+    output2.out(options.format === "json" ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output2.color }));
+    setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
   });
-  addReadoutCommand(program2, setExit, EXIT);
+}
+
+// src/cli/main.ts
+function buildProgram(setExit) {
+  const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
+  addValidateCommand(program2, setExit);
+  addListCommand(program2, setExit);
+  addNewCommand(program2, setExit);
+  addSizeCommand(program2, setExit);
+  addCheckCommand(program2, setExit);
+  addDigestCommand(program2, setExit);
+  addSrmCommand(program2, setExit);
+  addAdjustCommand(program2, setExit);
+  addSchemaCommand(program2, setExit);
+  addReadoutCommand(program2, setExit);
   return program2;
 }
 async function runCli(argv) {

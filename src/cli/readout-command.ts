@@ -6,6 +6,7 @@ import { renderReadoutText } from '../core/report/readout-text.js';
 import { isCalendarDate } from '../core/source/fields.js';
 import { UsageError } from '../errors.js';
 import { readOutPlan } from '../run/readout.js';
+import { EXIT, type CommonOptions, type SetExit } from './common.js';
 import { createCliOutput } from './output.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
@@ -18,14 +19,9 @@ interface ReadoutFlags {
   today?: string;
 }
 
-interface GlobalOptions {
-  cwd: string;
-  config?: string;
-  color: boolean;
-}
 
 /** `plumbline readout <plan> --totals <file>`: the registered rule applied to the arm totals. */
-export function addReadoutCommand(program: Command, setExit: (code: number) => void, exitCodes: { ok: number; findings: number }): void {
+export function addReadoutCommand(program: Command, setExit: SetExit): void {
   program
     .command('readout')
     .description('read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan')
@@ -36,7 +32,7 @@ export function addReadoutCommand(program: Command, setExit: (code: number) => v
     .option('--decided-by <handle>', 'who decided, e.g. @ana-lima (required with --record)')
     .option('--today <date>', 'the day recorded, YYYY-MM-DD (default: the system date, UTC)')
     .action(async (planName: string, flags: ReadoutFlags) => {
-      const options = program.opts<GlobalOptions>();
+      const options = program.opts<Omit<CommonOptions, 'format'>>();
       const output = createCliOutput({ noColorFlag: !options.color });
       const cwd = resolve(options.cwd);
       if (flags.record && !flags.decidedBy) throw new UsageError('--record needs --decided-by', 'name who decided, e.g. --decided-by @ana-lima');
@@ -57,6 +53,6 @@ export function addReadoutCommand(program: Command, setExit: (code: number) => v
         await writeFileAtomic(resolve(cwd, outcome.planFile), outcome.recordedText, { overwrite: true });
         output.err(`Recorded the outcome (${readout.verdict}) in ${outcome.planFile}.`);
       }
-      setExit(readout.findings.some((f) => f.severity === 'block') ? exitCodes.findings : exitCodes.ok);
+      setExit(readout.findings.some((f) => f.severity === 'block') ? EXIT.findings : EXIT.ok);
     });
 }

@@ -41050,7 +41050,22 @@ var datesInOrder = (ctx) => {
     });
   }
 };
-var TOTALS_RULES = [atLeastTwoArms, possibleSums, datesInOrder];
+var daysAddUp = (ctx) => {
+  for (const [arm2, totalsOfArm] of Object.entries(ctx.value.totals.arms)) {
+    if (!totalsOfArm.days.length) continue;
+    const sum = totalsOfArm.days.reduce((s, d) => s + d.units, 0);
+    if (sum === totalsOfArm.units) continue;
+    ctx.report({
+      severity: sum > totalsOfArm.units ? "error" : "warning",
+      code: "totals/days-sum",
+      path: ["arms", arm2, "days"],
+      atKey: true,
+      message: `the days add up to ${sum} units, the arm to ${totalsOfArm.units}${sum > totalsOfArm.units ? ": a unit is counted on more than one day" : ": some days are missing"}`,
+      expected: "the units first exposed on each day, adding up to the arm\u2019s units"
+    });
+  }
+};
+var TOTALS_RULES = [atLeastTwoArms, possibleSums, datesInOrder, daysAddUp];
 function planMetrics(plan) {
   return [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary];
 }
@@ -41327,6 +41342,7 @@ function addReadoutCommand(program2, setExit) {
       ...flags.record ? { record: { decidedBy: flags.decidedBy, recordedOn: today } } : {}
     });
     const { readout } = outcome;
+    if (outcome.warnings.length) output2.err(outcome.warnings.map(formatProblem).join("\n"));
     if (flags.format === "json") output2.out(JSON.stringify({ format: READOUT_JSON_FORMAT, ...readout }, null, 2));
     else if (flags.format === "markdown") output2.out(renderReadoutMarkdown(readout));
     else output2.out(renderReadoutText(readout, { color: output2.color }));

@@ -4,6 +4,7 @@ import { createRepoFiles, writeFileAtomic } from '../adapters/files.js';
 import { renderReadoutMarkdown } from '../core/report/readout-markdown.js';
 import { renderReadoutText } from '../core/report/readout-text.js';
 import { isCalendarDate } from '../core/source/fields.js';
+import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { readOutPlan } from '../run/readout.js';
 import { EXIT, type CommonOptions, type SetExit } from './common.js';
@@ -46,6 +47,7 @@ export function addReadoutCommand(program: Command, setExit: SetExit): void {
         ...(flags.record ? { record: { decidedBy: flags.decidedBy!, recordedOn: today } } : {}),
       });
       const { readout } = outcome;
+      if (outcome.warnings.length) output.err(outcome.warnings.map(formatProblem).join('\n'));
       if (flags.format === 'json') output.out(JSON.stringify({ format: READOUT_JSON_FORMAT, ...readout }, null, 2));
       else if (flags.format === 'markdown') output.out(renderReadoutMarkdown(readout));
       else output.out(renderReadoutText(readout, { color: output.color }));

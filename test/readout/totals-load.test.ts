@@ -90,6 +90,14 @@ describe('arm totals: bad input is named by file, line and field', () => {
     });
   }
 
+  it('days that add up to more units than the arm are an error, to fewer a warning', () => {
+    const days = (a: number, b: number) => `    days:\n      - { date: 2026-11-02, units: ${a} }\n      - { date: 2026-11-03, units: ${b} }`;
+    const over = errorsOf(totalsText({ ...good, treatment: { ...good.treatment, extra: days(600, 500) } }));
+    expect(over.find((p) => p.code === 'totals/days-sum')).toMatchObject({ line: 15, field: 'arms.treatment.days' });
+    const under = loadTotals(totalsText({ ...good, treatment: { ...good.treatment, extra: days(400, 500) } }), FILE, plan());
+    expect(under.ok && under.warnings.map((w) => w.code)).toEqual(['totals/days-sum']);
+  });
+
   it('a plan id that is not the plan read', () => {
     const text = totalsText(good).replace('plan: wallet-test', 'plan: other-test');
     expect(errorsOf(text)[0]).toMatchObject({ code: 'totals/other-plan', line: 1, field: 'plan' });

@@ -132,8 +132,25 @@ const datesInOrder: Rule<TotalsRuleInput> = (ctx) => {
   }
 };
 
+/** Days list the units first exposed each day, so they add up to the arm's units; a gap means a lost or doubled day. */
+const daysAddUp: Rule<TotalsRuleInput> = (ctx) => {
+  for (const [arm, totalsOfArm] of Object.entries(ctx.value.totals.arms)) {
+    if (!totalsOfArm.days.length) continue;
+    const sum = totalsOfArm.days.reduce((s, d) => s + d.units, 0);
+    if (sum === totalsOfArm.units) continue;
+    ctx.report({
+      severity: sum > totalsOfArm.units ? 'error' : 'warning',
+      code: 'totals/days-sum',
+      path: ['arms', arm, 'days'],
+      atKey: true,
+      message: `the days add up to ${sum} units, the arm to ${totalsOfArm.units}${sum > totalsOfArm.units ? ': a unit is counted on more than one day' : ': some days are missing'}`,
+      expected: 'the units first exposed on each day, adding up to the arm’s units',
+    });
+  }
+};
+
 /** The rules that need no plan. */
-export const TOTALS_RULES: readonly Rule<TotalsRuleInput>[] = [atLeastTwoArms, possibleSums, datesInOrder];
+export const TOTALS_RULES: readonly Rule<TotalsRuleInput>[] = [atLeastTwoArms, possibleSums, datesInOrder, daysAddUp];
 
 function planMetrics(plan: Plan): Metric[] {
   return [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary];

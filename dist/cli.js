@@ -542,15 +542,15 @@ var require_help = __commonJS({
       groupItems(unsortedItems, visibleItems, getGroup) {
         const result = /* @__PURE__ */ new Map();
         unsortedItems.forEach((item) => {
-          const group = getGroup(item);
-          if (!result.has(group)) result.set(group, []);
+          const group2 = getGroup(item);
+          if (!result.has(group2)) result.set(group2, []);
         });
         visibleItems.forEach((item) => {
-          const group = getGroup(item);
-          if (!result.has(group)) {
-            result.set(group, []);
+          const group2 = getGroup(item);
+          if (!result.has(group2)) {
+            result.set(group2, []);
           }
-          result.get(group).push(item);
+          result.get(group2).push(item);
         });
         return result;
       }
@@ -595,14 +595,14 @@ var require_help = __commonJS({
           helper.visibleOptions(cmd),
           (option) => option.helpGroupHeading ?? "Options:"
         );
-        optionGroups.forEach((options, group) => {
+        optionGroups.forEach((options, group2) => {
           const optionList = options.map((option) => {
             return callFormatItem(
               helper.styleOptionTerm(helper.optionTerm(option)),
               helper.styleOptionDescription(helper.optionDescription(option))
             );
           });
-          output2 = output2.concat(this.formatItemList(group, optionList, helper));
+          output2 = output2.concat(this.formatItemList(group2, optionList, helper));
         });
         if (helper.showGlobalOptions) {
           const globalOptionList = helper.visibleGlobalOptions(cmd).map((option) => {
@@ -620,14 +620,14 @@ var require_help = __commonJS({
           helper.visibleCommands(cmd),
           (sub) => sub.helpGroup() || "Commands:"
         );
-        commandGroups.forEach((commands, group) => {
+        commandGroups.forEach((commands, group2) => {
           const commandList = commands.map((sub) => {
             return callFormatItem(
               helper.styleSubcommandTerm(helper.subcommandTerm(sub)),
               helper.styleSubcommandDescription(helper.subcommandDescription(sub))
             );
           });
-          output2 = output2.concat(this.formatItemList(group, commandList, helper));
+          output2 = output2.concat(this.formatItemList(group2, commandList, helper));
         });
         return output2.join("\n");
       }
@@ -3467,6 +3467,1524 @@ var require_commander = __commonJS({
   }
 });
 
+// ../main/node_modules/picomatch/lib/constants.js
+var require_constants = __commonJS({
+  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
+    "use strict";
+    var WIN_SLASH = "\\\\/";
+    var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
+    var DOT_LITERAL = "\\.";
+    var PLUS_LITERAL = "\\+";
+    var QMARK_LITERAL = "\\?";
+    var SLASH_LITERAL = "\\/";
+    var ONE_CHAR = "(?=.)";
+    var QMARK = "[^/]";
+    var END_ANCHOR = `(?:${SLASH_LITERAL}|$)`;
+    var START_ANCHOR = `(?:^|${SLASH_LITERAL})`;
+    var DOTS_SLASH = `${DOT_LITERAL}{1,2}${END_ANCHOR}`;
+    var NO_DOT = `(?!${DOT_LITERAL})`;
+    var NO_DOTS = `(?!${START_ANCHOR}${DOTS_SLASH})`;
+    var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
+    var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
+    var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
+    var STAR = `${QMARK}*?`;
+    var SEP = "/";
+    var POSIX_CHARS = {
+      DOT_LITERAL,
+      PLUS_LITERAL,
+      QMARK_LITERAL,
+      SLASH_LITERAL,
+      ONE_CHAR,
+      QMARK,
+      END_ANCHOR,
+      DOTS_SLASH,
+      NO_DOT,
+      NO_DOTS,
+      NO_DOT_SLASH,
+      NO_DOTS_SLASH,
+      QMARK_NO_DOT,
+      STAR,
+      START_ANCHOR,
+      SEP
+    };
+    var WINDOWS_CHARS = {
+      ...POSIX_CHARS,
+      SLASH_LITERAL: `[${WIN_SLASH}]`,
+      QMARK: WIN_NO_SLASH,
+      STAR: `${WIN_NO_SLASH}*?`,
+      DOTS_SLASH: `${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$)`,
+      NO_DOT: `(?!${DOT_LITERAL})`,
+      NO_DOTS: `(?!(?:^|[${WIN_SLASH}])${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
+      NO_DOT_SLASH: `(?!${DOT_LITERAL}{0,1}(?:[${WIN_SLASH}]|$))`,
+      NO_DOTS_SLASH: `(?!${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
+      QMARK_NO_DOT: `[^.${WIN_SLASH}]`,
+      START_ANCHOR: `(?:^|[${WIN_SLASH}])`,
+      END_ANCHOR: `(?:[${WIN_SLASH}]|$)`,
+      SEP: "\\"
+    };
+    var POSIX_REGEX_SOURCE = {
+      alnum: "a-zA-Z0-9",
+      alpha: "a-zA-Z",
+      ascii: "\\x00-\\x7F",
+      blank: " \\t",
+      cntrl: "\\x00-\\x1F\\x7F",
+      digit: "0-9",
+      graph: "\\x21-\\x7E",
+      lower: "a-z",
+      print: "\\x20-\\x7E ",
+      punct: "\\-!\"#$%&'()\\*+,./:;<=>?@[\\]^_`{|}~",
+      space: " \\t\\r\\n\\v\\f",
+      upper: "A-Z",
+      word: "A-Za-z0-9_",
+      xdigit: "A-Fa-f0-9"
+    };
+    module.exports = {
+      MAX_LENGTH: 1024 * 64,
+      POSIX_REGEX_SOURCE,
+      // regular expressions
+      REGEX_BACKSLASH: /\\(?![*+?^${}(|)[\]])/g,
+      REGEX_NON_SPECIAL_CHARS: /^[^@![\].,$*+?^{}()|\\/]+/,
+      REGEX_SPECIAL_CHARS: /[-*+?.^${}(|)[\]]/,
+      REGEX_SPECIAL_CHARS_BACKREF: /(\\?)((\W)(\3*))/g,
+      REGEX_SPECIAL_CHARS_GLOBAL: /([-*+?.^${}(|)[\]])/g,
+      REGEX_REMOVE_BACKSLASH: /(?:\[.*?[^\\]\]|\\(?=.))/g,
+      // Replace globs with equivalent patterns to reduce parsing time.
+      REPLACEMENTS: {
+        __proto__: null,
+        "***": "*",
+        "**/**": "**",
+        "**/**/**": "**"
+      },
+      // Digits
+      CHAR_0: 48,
+      /* 0 */
+      CHAR_9: 57,
+      /* 9 */
+      // Alphabet chars.
+      CHAR_UPPERCASE_A: 65,
+      /* A */
+      CHAR_LOWERCASE_A: 97,
+      /* a */
+      CHAR_UPPERCASE_Z: 90,
+      /* Z */
+      CHAR_LOWERCASE_Z: 122,
+      /* z */
+      CHAR_LEFT_PARENTHESES: 40,
+      /* ( */
+      CHAR_RIGHT_PARENTHESES: 41,
+      /* ) */
+      CHAR_ASTERISK: 42,
+      /* * */
+      // Non-alphabetic chars.
+      CHAR_AMPERSAND: 38,
+      /* & */
+      CHAR_AT: 64,
+      /* @ */
+      CHAR_BACKWARD_SLASH: 92,
+      /* \ */
+      CHAR_CARRIAGE_RETURN: 13,
+      /* \r */
+      CHAR_CIRCUMFLEX_ACCENT: 94,
+      /* ^ */
+      CHAR_COLON: 58,
+      /* : */
+      CHAR_COMMA: 44,
+      /* , */
+      CHAR_DOT: 46,
+      /* . */
+      CHAR_DOUBLE_QUOTE: 34,
+      /* " */
+      CHAR_EQUAL: 61,
+      /* = */
+      CHAR_EXCLAMATION_MARK: 33,
+      /* ! */
+      CHAR_FORM_FEED: 12,
+      /* \f */
+      CHAR_FORWARD_SLASH: 47,
+      /* / */
+      CHAR_GRAVE_ACCENT: 96,
+      /* ` */
+      CHAR_HASH: 35,
+      /* # */
+      CHAR_HYPHEN_MINUS: 45,
+      /* - */
+      CHAR_LEFT_ANGLE_BRACKET: 60,
+      /* < */
+      CHAR_LEFT_CURLY_BRACE: 123,
+      /* { */
+      CHAR_LEFT_SQUARE_BRACKET: 91,
+      /* [ */
+      CHAR_LINE_FEED: 10,
+      /* \n */
+      CHAR_NO_BREAK_SPACE: 160,
+      /* \u00A0 */
+      CHAR_PERCENT: 37,
+      /* % */
+      CHAR_PLUS: 43,
+      /* + */
+      CHAR_QUESTION_MARK: 63,
+      /* ? */
+      CHAR_RIGHT_ANGLE_BRACKET: 62,
+      /* > */
+      CHAR_RIGHT_CURLY_BRACE: 125,
+      /* } */
+      CHAR_RIGHT_SQUARE_BRACKET: 93,
+      /* ] */
+      CHAR_SEMICOLON: 59,
+      /* ; */
+      CHAR_SINGLE_QUOTE: 39,
+      /* ' */
+      CHAR_SPACE: 32,
+      /*   */
+      CHAR_TAB: 9,
+      /* \t */
+      CHAR_UNDERSCORE: 95,
+      /* _ */
+      CHAR_VERTICAL_LINE: 124,
+      /* | */
+      CHAR_ZERO_WIDTH_NOBREAK_SPACE: 65279,
+      /* \uFEFF */
+      /**
+       * Create EXTGLOB_CHARS
+       */
+      extglobChars(chars) {
+        return {
+          "!": { type: "negate", open: "(?:(?!(?:", close: `))${chars.STAR})` },
+          "?": { type: "qmark", open: "(?:", close: ")?" },
+          "+": { type: "plus", open: "(?:", close: ")+" },
+          "*": { type: "star", open: "(?:", close: ")*" },
+          "@": { type: "at", open: "(?:", close: ")" }
+        };
+      },
+      /**
+       * Create GLOB_CHARS
+       */
+      globChars(win32) {
+        return win32 === true ? WINDOWS_CHARS : POSIX_CHARS;
+      }
+    };
+  }
+});
+
+// ../main/node_modules/picomatch/lib/utils.js
+var require_utils = __commonJS({
+  "../main/node_modules/picomatch/lib/utils.js"(exports) {
+    "use strict";
+    var {
+      REGEX_BACKSLASH,
+      REGEX_REMOVE_BACKSLASH,
+      REGEX_SPECIAL_CHARS,
+      REGEX_SPECIAL_CHARS_GLOBAL
+    } = require_constants();
+    exports.isObject = (val) => val !== null && typeof val === "object" && !Array.isArray(val);
+    exports.hasRegexChars = (str) => REGEX_SPECIAL_CHARS.test(str);
+    exports.isRegexChar = (str) => str.length === 1 && exports.hasRegexChars(str);
+    exports.escapeRegex = (str) => str.replace(REGEX_SPECIAL_CHARS_GLOBAL, "\\$1");
+    exports.toPosixSlashes = (str) => str.replace(REGEX_BACKSLASH, "/");
+    exports.isWindows = () => {
+      if (typeof navigator !== "undefined" && navigator.platform) {
+        const platform2 = navigator.platform.toLowerCase();
+        return platform2 === "win32" || platform2 === "windows";
+      }
+      if (typeof process !== "undefined" && process.platform) {
+        return process.platform === "win32";
+      }
+      return false;
+    };
+    exports.removeBackslashes = (str) => {
+      return str.replace(REGEX_REMOVE_BACKSLASH, (match) => {
+        return match === "\\" ? "" : match;
+      });
+    };
+    exports.escapeLast = (input2, char, lastIdx) => {
+      const idx = input2.lastIndexOf(char, lastIdx);
+      if (idx === -1) return input2;
+      if (input2[idx - 1] === "\\") return exports.escapeLast(input2, char, idx - 1);
+      return `${input2.slice(0, idx)}\\${input2.slice(idx)}`;
+    };
+    exports.removePrefix = (input2, state = {}) => {
+      let output2 = input2;
+      if (output2.startsWith("./")) {
+        output2 = output2.slice(2);
+        state.prefix = "./";
+      }
+      return output2;
+    };
+    exports.wrapOutput = (input2, state = {}, options = {}) => {
+      const prepend = options.contains ? "" : "^";
+      const append = options.contains ? "" : "$";
+      let output2 = `${prepend}(?:${input2})${append}`;
+      if (state.negated === true) {
+        output2 = `(?:^(?!${output2}).*$)`;
+      }
+      return output2;
+    };
+    exports.basename = (path, { windows } = {}) => {
+      const segs = path.split(windows ? /[\\/]/ : "/");
+      const last = segs[segs.length - 1];
+      if (last === "") {
+        return segs[segs.length - 2];
+      }
+      return last;
+    };
+  }
+});
+
+// ../main/node_modules/picomatch/lib/scan.js
+var require_scan = __commonJS({
+  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
+    "use strict";
+    var utils = require_utils();
+    var {
+      CHAR_ASTERISK,
+      /* * */
+      CHAR_AT,
+      /* @ */
+      CHAR_BACKWARD_SLASH,
+      /* \ */
+      CHAR_COMMA,
+      /* , */
+      CHAR_DOT,
+      /* . */
+      CHAR_EXCLAMATION_MARK,
+      /* ! */
+      CHAR_FORWARD_SLASH,
+      /* / */
+      CHAR_LEFT_CURLY_BRACE,
+      /* { */
+      CHAR_LEFT_PARENTHESES,
+      /* ( */
+      CHAR_LEFT_SQUARE_BRACKET,
+      /* [ */
+      CHAR_PLUS,
+      /* + */
+      CHAR_QUESTION_MARK,
+      /* ? */
+      CHAR_RIGHT_CURLY_BRACE,
+      /* } */
+      CHAR_RIGHT_PARENTHESES,
+      /* ) */
+      CHAR_RIGHT_SQUARE_BRACKET
+      /* ] */
+    } = require_constants();
+    var isPathSeparator = (code) => {
+      return code === CHAR_FORWARD_SLASH || code === CHAR_BACKWARD_SLASH;
+    };
+    var depth = (token) => {
+      if (token.isPrefix !== true) {
+        token.depth = token.isGlobstar ? Infinity : 1;
+      }
+    };
+    var scan = (input2, options) => {
+      const opts = options || {};
+      const length = input2.length - 1;
+      const scanToEnd = opts.parts === true || opts.scanToEnd === true;
+      const slashes = [];
+      const tokens = [];
+      const parts = [];
+      let str = input2;
+      let index = -1;
+      let start = 0;
+      let lastIndex = 0;
+      let isBrace = false;
+      let isBracket = false;
+      let isGlob = false;
+      let isExtglob = false;
+      let isGlobstar = false;
+      let braceEscaped = false;
+      let backslashes = false;
+      let negated = false;
+      let negatedExtglob = false;
+      let finished = false;
+      let braces = 0;
+      let prev;
+      let code;
+      let token = { value: "", depth: 0, isGlob: false };
+      const eos = () => index >= length;
+      const peek = () => str.charCodeAt(index + 1);
+      const advance = () => {
+        prev = code;
+        return str.charCodeAt(++index);
+      };
+      while (index < length) {
+        code = advance();
+        let next;
+        if (code === CHAR_BACKWARD_SLASH) {
+          backslashes = token.backslashes = true;
+          code = advance();
+          if (code === CHAR_LEFT_CURLY_BRACE) {
+            braceEscaped = true;
+          }
+          continue;
+        }
+        if (braceEscaped === true || code === CHAR_LEFT_CURLY_BRACE) {
+          braces++;
+          while (eos() !== true && (code = advance())) {
+            if (code === CHAR_BACKWARD_SLASH) {
+              backslashes = token.backslashes = true;
+              advance();
+              continue;
+            }
+            if (code === CHAR_LEFT_CURLY_BRACE) {
+              braces++;
+              continue;
+            }
+            if (braceEscaped !== true && code === CHAR_DOT && (code = advance()) === CHAR_DOT) {
+              isBrace = token.isBrace = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              if (scanToEnd === true) {
+                continue;
+              }
+              break;
+            }
+            if (braceEscaped !== true && code === CHAR_COMMA) {
+              isBrace = token.isBrace = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              if (scanToEnd === true) {
+                continue;
+              }
+              break;
+            }
+            if (code === CHAR_RIGHT_CURLY_BRACE) {
+              braces--;
+              if (braces === 0) {
+                braceEscaped = false;
+                isBrace = token.isBrace = true;
+                finished = true;
+                break;
+              }
+            }
+          }
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_FORWARD_SLASH) {
+          slashes.push(index);
+          tokens.push(token);
+          token = { value: "", depth: 0, isGlob: false };
+          if (finished === true) continue;
+          if (prev === CHAR_DOT && index === start + 1) {
+            start += 2;
+            continue;
+          }
+          lastIndex = index + 1;
+          continue;
+        }
+        if (opts.noext !== true) {
+          const isExtglobChar = code === CHAR_PLUS || code === CHAR_AT || code === CHAR_ASTERISK || code === CHAR_QUESTION_MARK || code === CHAR_EXCLAMATION_MARK;
+          if (isExtglobChar === true && peek() === CHAR_LEFT_PARENTHESES) {
+            isGlob = token.isGlob = true;
+            isExtglob = token.isExtglob = true;
+            finished = true;
+            if (code === CHAR_EXCLAMATION_MARK && index === start) {
+              negatedExtglob = true;
+            }
+            if (scanToEnd === true) {
+              while (eos() !== true && (code = advance())) {
+                if (code === CHAR_BACKWARD_SLASH) {
+                  backslashes = token.backslashes = true;
+                  code = advance();
+                  continue;
+                }
+                if (code === CHAR_RIGHT_PARENTHESES) {
+                  isGlob = token.isGlob = true;
+                  finished = true;
+                  break;
+                }
+              }
+              continue;
+            }
+            break;
+          }
+        }
+        if (code === CHAR_ASTERISK) {
+          if (prev === CHAR_ASTERISK) isGlobstar = token.isGlobstar = true;
+          isGlob = token.isGlob = true;
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_QUESTION_MARK) {
+          isGlob = token.isGlob = true;
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (code === CHAR_LEFT_SQUARE_BRACKET) {
+          while (eos() !== true && (next = advance())) {
+            if (next === CHAR_BACKWARD_SLASH) {
+              backslashes = token.backslashes = true;
+              advance();
+              continue;
+            }
+            if (next === CHAR_RIGHT_SQUARE_BRACKET) {
+              isBracket = token.isBracket = true;
+              isGlob = token.isGlob = true;
+              finished = true;
+              break;
+            }
+          }
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+        if (opts.nonegate !== true && code === CHAR_EXCLAMATION_MARK && index === start) {
+          negated = token.negated = true;
+          start++;
+          continue;
+        }
+        if (opts.noparen !== true && code === CHAR_LEFT_PARENTHESES) {
+          isGlob = token.isGlob = true;
+          if (scanToEnd === true) {
+            while (eos() !== true && (code = advance())) {
+              if (code === CHAR_LEFT_PARENTHESES) {
+                backslashes = token.backslashes = true;
+                code = advance();
+                continue;
+              }
+              if (code === CHAR_RIGHT_PARENTHESES) {
+                finished = true;
+                break;
+              }
+            }
+            continue;
+          }
+          break;
+        }
+        if (isGlob === true) {
+          finished = true;
+          if (scanToEnd === true) {
+            continue;
+          }
+          break;
+        }
+      }
+      if (opts.noext === true) {
+        isExtglob = false;
+        isGlob = false;
+      }
+      let base = str;
+      let prefix = "";
+      let glob = "";
+      if (start > 0) {
+        prefix = str.slice(0, start);
+        str = str.slice(start);
+        lastIndex -= start;
+      }
+      if (base && isGlob === true && lastIndex > 0) {
+        base = str.slice(0, lastIndex);
+        glob = str.slice(lastIndex);
+      } else if (isGlob === true) {
+        base = "";
+        glob = str;
+      } else {
+        base = str;
+      }
+      if (base && base !== "" && base !== "/" && base !== str) {
+        if (isPathSeparator(base.charCodeAt(base.length - 1))) {
+          base = base.slice(0, -1);
+        }
+      }
+      if (opts.unescape === true) {
+        if (glob) glob = utils.removeBackslashes(glob);
+        if (base && backslashes === true) {
+          base = utils.removeBackslashes(base);
+        }
+      }
+      const state = {
+        prefix,
+        input: input2,
+        start,
+        base,
+        glob,
+        isBrace,
+        isBracket,
+        isGlob,
+        isExtglob,
+        isGlobstar,
+        negated,
+        negatedExtglob
+      };
+      if (opts.tokens === true) {
+        state.maxDepth = 0;
+        if (!isPathSeparator(code)) {
+          tokens.push(token);
+        }
+        state.tokens = tokens;
+      }
+      if (opts.parts === true || opts.tokens === true) {
+        let prevIndex;
+        for (let idx = 0; idx < slashes.length; idx++) {
+          const n = prevIndex ? prevIndex + 1 : start;
+          const i = slashes[idx];
+          const value = input2.slice(n, i);
+          if (opts.tokens) {
+            if (idx === 0 && start !== 0) {
+              tokens[idx].isPrefix = true;
+              tokens[idx].value = prefix;
+            } else {
+              tokens[idx].value = value;
+            }
+            depth(tokens[idx]);
+            state.maxDepth += tokens[idx].depth;
+          }
+          if (idx !== 0 || value !== "") {
+            parts.push(value);
+          }
+          prevIndex = i;
+        }
+        if (prevIndex && prevIndex + 1 < input2.length) {
+          const value = input2.slice(prevIndex + 1);
+          parts.push(value);
+          if (opts.tokens) {
+            tokens[tokens.length - 1].value = value;
+            depth(tokens[tokens.length - 1]);
+            state.maxDepth += tokens[tokens.length - 1].depth;
+          }
+        }
+        state.slashes = slashes;
+        state.parts = parts;
+      }
+      return state;
+    };
+    module.exports = scan;
+  }
+});
+
+// ../main/node_modules/picomatch/lib/parse.js
+var require_parse = __commonJS({
+  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
+    "use strict";
+    var constants = require_constants();
+    var utils = require_utils();
+    var {
+      MAX_LENGTH,
+      POSIX_REGEX_SOURCE,
+      REGEX_NON_SPECIAL_CHARS,
+      REGEX_SPECIAL_CHARS_BACKREF,
+      REPLACEMENTS
+    } = constants;
+    var expandRange = (args, options) => {
+      if (typeof options.expandRange === "function") {
+        return options.expandRange(...args, options);
+      }
+      args.sort();
+      const value = `[${args.join("-")}]`;
+      try {
+        new RegExp(value);
+      } catch (ex) {
+        return args.map((v) => utils.escapeRegex(v)).join("..");
+      }
+      return value;
+    };
+    var syntaxError = (type, char) => {
+      return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
+    };
+    var parse4 = (input2, options) => {
+      if (typeof input2 !== "string") {
+        throw new TypeError("Expected a string");
+      }
+      input2 = REPLACEMENTS[input2] || input2;
+      const opts = { ...options };
+      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
+      let len = input2.length;
+      if (len > max) {
+        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
+      }
+      const bos = { type: "bos", value: "", output: opts.prepend || "" };
+      const tokens = [bos];
+      const capture = opts.capture ? "" : "?:";
+      const PLATFORM_CHARS = constants.globChars(opts.windows);
+      const EXTGLOB_CHARS = constants.extglobChars(PLATFORM_CHARS);
+      const {
+        DOT_LITERAL,
+        PLUS_LITERAL,
+        SLASH_LITERAL,
+        ONE_CHAR,
+        DOTS_SLASH,
+        NO_DOT,
+        NO_DOT_SLASH,
+        NO_DOTS_SLASH,
+        QMARK,
+        QMARK_NO_DOT,
+        STAR,
+        START_ANCHOR
+      } = PLATFORM_CHARS;
+      const globstar = (opts2) => {
+        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
+      };
+      const nodot = opts.dot ? "" : NO_DOT;
+      const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
+      let star = opts.bash === true ? globstar(opts) : STAR;
+      if (opts.capture) {
+        star = `(${star})`;
+      }
+      if (typeof opts.noext === "boolean") {
+        opts.noextglob = opts.noext;
+      }
+      const state = {
+        input: input2,
+        index: -1,
+        start: 0,
+        dot: opts.dot === true,
+        consumed: "",
+        output: "",
+        prefix: "",
+        backtrack: false,
+        negated: false,
+        brackets: 0,
+        braces: 0,
+        parens: 0,
+        quotes: 0,
+        globstar: false,
+        tokens
+      };
+      input2 = utils.removePrefix(input2, state);
+      len = input2.length;
+      const extglobs = [];
+      const braces = [];
+      const stack = [];
+      let prev = bos;
+      let value;
+      const eos = () => state.index === len - 1;
+      const peek = state.peek = (n = 1) => input2[state.index + n];
+      const advance = state.advance = () => input2[++state.index] || "";
+      const remaining = () => input2.slice(state.index + 1);
+      const consume = (value2 = "", num = 0) => {
+        state.consumed += value2;
+        state.index += num;
+      };
+      const append = (token) => {
+        state.output += token.output != null ? token.output : token.value;
+        consume(token.value);
+      };
+      const negate = () => {
+        let count3 = 1;
+        while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
+          advance();
+          state.start++;
+          count3++;
+        }
+        if (count3 % 2 === 0) {
+          return false;
+        }
+        state.negated = true;
+        state.start++;
+        return true;
+      };
+      const increment = (type) => {
+        state[type]++;
+        stack.push(type);
+      };
+      const decrement = (type) => {
+        state[type]--;
+        stack.pop();
+      };
+      const push = (tok) => {
+        if (prev.type === "globstar") {
+          const isBrace = state.braces > 0 && (tok.type === "comma" || tok.type === "brace");
+          const isExtglob = tok.extglob === true || extglobs.length && (tok.type === "pipe" || tok.type === "paren");
+          if (tok.type !== "slash" && tok.type !== "paren" && !isBrace && !isExtglob) {
+            state.output = state.output.slice(0, -prev.output.length);
+            prev.type = "star";
+            prev.value = "*";
+            prev.output = star;
+            state.output += prev.output;
+          }
+        }
+        if (extglobs.length && tok.type !== "paren") {
+          extglobs[extglobs.length - 1].inner += tok.value;
+        }
+        if (tok.value || tok.output) append(tok);
+        if (prev && prev.type === "text" && tok.type === "text") {
+          prev.output = (prev.output || prev.value) + tok.value;
+          prev.value += tok.value;
+          return;
+        }
+        tok.prev = prev;
+        tokens.push(tok);
+        prev = tok;
+      };
+      const extglobOpen = (type, value2) => {
+        const token = { ...EXTGLOB_CHARS[value2], conditions: 1, inner: "" };
+        token.prev = prev;
+        token.parens = state.parens;
+        token.output = state.output;
+        const output2 = (opts.capture ? "(" : "") + token.open;
+        increment("parens");
+        push({ type, value: value2, output: state.output ? "" : ONE_CHAR });
+        push({ type: "paren", extglob: true, value: advance(), output: output2 });
+        extglobs.push(token);
+      };
+      const extglobClose = (token) => {
+        let output2 = token.close + (opts.capture ? ")" : "");
+        let rest;
+        if (token.type === "negate") {
+          let extglobStar = star;
+          if (token.inner && token.inner.length > 1 && token.inner.includes("/")) {
+            extglobStar = globstar(opts);
+          }
+          if (extglobStar !== star || eos() || /^\)+$/.test(remaining())) {
+            output2 = token.close = `)$))${extglobStar}`;
+          }
+          if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
+            const expression = parse4(rest, { ...options, fastpaths: false }).output;
+            output2 = token.close = `)${expression})${extglobStar})`;
+          }
+          if (token.prev.type === "bos") {
+            state.negatedExtglob = true;
+          }
+        }
+        push({ type: "paren", extglob: true, value, output: output2 });
+        decrement("parens");
+      };
+      if (opts.fastpaths !== false && !/(^[*!]|[/()[\]{}"])/.test(input2)) {
+        let backslashes = false;
+        let output2 = input2.replace(REGEX_SPECIAL_CHARS_BACKREF, (m, esc2, chars, first, rest, index) => {
+          if (first === "\\") {
+            backslashes = true;
+            return m;
+          }
+          if (first === "?") {
+            if (esc2) {
+              return esc2 + first + (rest ? QMARK.repeat(rest.length) : "");
+            }
+            if (index === 0) {
+              return qmarkNoDot + (rest ? QMARK.repeat(rest.length) : "");
+            }
+            return QMARK.repeat(chars.length);
+          }
+          if (first === ".") {
+            return DOT_LITERAL.repeat(chars.length);
+          }
+          if (first === "*") {
+            if (esc2) {
+              return esc2 + first + (rest ? star : "");
+            }
+            return star;
+          }
+          return esc2 ? m : `\\${m}`;
+        });
+        if (backslashes === true) {
+          if (opts.unescape === true) {
+            output2 = output2.replace(/\\/g, "");
+          } else {
+            output2 = output2.replace(/\\+/g, (m) => {
+              return m.length % 2 === 0 ? "\\\\" : m ? "\\" : "";
+            });
+          }
+        }
+        if (output2 === input2 && opts.contains === true) {
+          state.output = input2;
+          return state;
+        }
+        state.output = utils.wrapOutput(output2, state, options);
+        return state;
+      }
+      while (!eos()) {
+        value = advance();
+        if (value === "\0") {
+          continue;
+        }
+        if (value === "\\") {
+          const next = peek();
+          if (next === "/" && opts.bash !== true) {
+            continue;
+          }
+          if (next === "." || next === ";") {
+            continue;
+          }
+          if (!next) {
+            value += "\\";
+            push({ type: "text", value });
+            continue;
+          }
+          const match = /^\\+/.exec(remaining());
+          let slashes = 0;
+          if (match && match[0].length > 2) {
+            slashes = match[0].length;
+            state.index += slashes;
+            if (slashes % 2 !== 0) {
+              value += "\\";
+            }
+          }
+          if (opts.unescape === true) {
+            value = advance();
+          } else {
+            value += advance();
+          }
+          if (state.brackets === 0) {
+            push({ type: "text", value });
+            continue;
+          }
+        }
+        if (state.brackets > 0 && (value !== "]" || prev.value === "[" || prev.value === "[^")) {
+          if (opts.posix !== false && value === ":") {
+            const inner = prev.value.slice(1);
+            if (inner.includes("[")) {
+              prev.posix = true;
+              if (inner.includes(":")) {
+                const idx = prev.value.lastIndexOf("[");
+                const pre = prev.value.slice(0, idx);
+                const rest2 = prev.value.slice(idx + 2);
+                const posix2 = POSIX_REGEX_SOURCE[rest2];
+                if (posix2) {
+                  prev.value = pre + posix2;
+                  state.backtrack = true;
+                  advance();
+                  if (!bos.output && tokens.indexOf(prev) === 1) {
+                    bos.output = ONE_CHAR;
+                  }
+                  continue;
+                }
+              }
+            }
+          }
+          if (value === "[" && peek() !== ":" || value === "-" && peek() === "]") {
+            value = `\\${value}`;
+          }
+          if (value === "]" && (prev.value === "[" || prev.value === "[^")) {
+            value = `\\${value}`;
+          }
+          if (opts.posix === true && value === "!" && prev.value === "[") {
+            value = "^";
+          }
+          prev.value += value;
+          append({ value });
+          continue;
+        }
+        if (state.quotes === 1 && value !== '"') {
+          value = utils.escapeRegex(value);
+          prev.value += value;
+          append({ value });
+          continue;
+        }
+        if (value === '"') {
+          state.quotes = state.quotes === 1 ? 0 : 1;
+          if (opts.keepQuotes === true) {
+            push({ type: "text", value });
+          }
+          continue;
+        }
+        if (value === "(") {
+          increment("parens");
+          push({ type: "paren", value });
+          continue;
+        }
+        if (value === ")") {
+          if (state.parens === 0 && opts.strictBrackets === true) {
+            throw new SyntaxError(syntaxError("opening", "("));
+          }
+          const extglob = extglobs[extglobs.length - 1];
+          if (extglob && state.parens === extglob.parens + 1) {
+            extglobClose(extglobs.pop());
+            continue;
+          }
+          push({ type: "paren", value, output: state.parens ? ")" : "\\)" });
+          decrement("parens");
+          continue;
+        }
+        if (value === "[") {
+          if (opts.nobracket === true || !remaining().includes("]")) {
+            if (opts.nobracket !== true && opts.strictBrackets === true) {
+              throw new SyntaxError(syntaxError("closing", "]"));
+            }
+            value = `\\${value}`;
+          } else {
+            increment("brackets");
+          }
+          push({ type: "bracket", value });
+          continue;
+        }
+        if (value === "]") {
+          if (opts.nobracket === true || prev && prev.type === "bracket" && prev.value.length === 1) {
+            push({ type: "text", value, output: `\\${value}` });
+            continue;
+          }
+          if (state.brackets === 0) {
+            if (opts.strictBrackets === true) {
+              throw new SyntaxError(syntaxError("opening", "["));
+            }
+            push({ type: "text", value, output: `\\${value}` });
+            continue;
+          }
+          decrement("brackets");
+          const prevValue = prev.value.slice(1);
+          if (prev.posix !== true && prevValue[0] === "^" && !prevValue.includes("/")) {
+            value = `/${value}`;
+          }
+          prev.value += value;
+          append({ value });
+          if (opts.literalBrackets === false || utils.hasRegexChars(prevValue)) {
+            continue;
+          }
+          const escaped = utils.escapeRegex(prev.value);
+          state.output = state.output.slice(0, -prev.value.length);
+          if (opts.literalBrackets === true) {
+            state.output += escaped;
+            prev.value = escaped;
+            continue;
+          }
+          prev.value = `(${capture}${escaped}|${prev.value})`;
+          state.output += prev.value;
+          continue;
+        }
+        if (value === "{" && opts.nobrace !== true) {
+          increment("braces");
+          const open2 = {
+            type: "brace",
+            value,
+            output: "(",
+            outputIndex: state.output.length,
+            tokensIndex: state.tokens.length
+          };
+          braces.push(open2);
+          push(open2);
+          continue;
+        }
+        if (value === "}") {
+          const brace = braces[braces.length - 1];
+          if (opts.nobrace === true || !brace) {
+            push({ type: "text", value, output: value });
+            continue;
+          }
+          let output2 = ")";
+          if (brace.dots === true) {
+            const arr = tokens.slice();
+            const range = [];
+            for (let i = arr.length - 1; i >= 0; i--) {
+              tokens.pop();
+              if (arr[i].type === "brace") {
+                break;
+              }
+              if (arr[i].type !== "dots") {
+                range.unshift(arr[i].value);
+              }
+            }
+            output2 = expandRange(range, opts);
+            state.backtrack = true;
+          }
+          if (brace.comma !== true && brace.dots !== true) {
+            const out = state.output.slice(0, brace.outputIndex);
+            const toks = state.tokens.slice(brace.tokensIndex);
+            brace.value = brace.output = "\\{";
+            value = output2 = "\\}";
+            state.output = out;
+            for (const t of toks) {
+              state.output += t.output || t.value;
+            }
+          }
+          push({ type: "brace", value, output: output2 });
+          decrement("braces");
+          braces.pop();
+          continue;
+        }
+        if (value === "|") {
+          if (extglobs.length > 0) {
+            extglobs[extglobs.length - 1].conditions++;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (value === ",") {
+          let output2 = value;
+          const brace = braces[braces.length - 1];
+          if (brace && stack[stack.length - 1] === "braces") {
+            brace.comma = true;
+            output2 = "|";
+          }
+          push({ type: "comma", value, output: output2 });
+          continue;
+        }
+        if (value === "/") {
+          if (prev.type === "dot" && state.index === state.start + 1) {
+            state.start = state.index + 1;
+            state.consumed = "";
+            state.output = "";
+            tokens.pop();
+            prev = bos;
+            continue;
+          }
+          push({ type: "slash", value, output: SLASH_LITERAL });
+          continue;
+        }
+        if (value === ".") {
+          if (state.braces > 0 && prev.type === "dot") {
+            if (prev.value === ".") prev.output = DOT_LITERAL;
+            const brace = braces[braces.length - 1];
+            prev.type = "dots";
+            prev.output += value;
+            prev.value += value;
+            brace.dots = true;
+            continue;
+          }
+          if (state.braces + state.parens === 0 && prev.type !== "bos" && prev.type !== "slash") {
+            push({ type: "text", value, output: DOT_LITERAL });
+            continue;
+          }
+          push({ type: "dot", value, output: DOT_LITERAL });
+          continue;
+        }
+        if (value === "?") {
+          const isGroup = prev && prev.value === "(";
+          if (!isGroup && opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            extglobOpen("qmark", value);
+            continue;
+          }
+          if (prev && prev.type === "paren") {
+            const next = peek();
+            let output2 = value;
+            if (prev.value === "(" && !/[!=<:]/.test(next) || next === "<" && !/<([!=]|\w+>)/.test(remaining())) {
+              output2 = `\\${value}`;
+            }
+            push({ type: "text", value, output: output2 });
+            continue;
+          }
+          if (opts.dot !== true && (prev.type === "slash" || prev.type === "bos")) {
+            push({ type: "qmark", value, output: QMARK_NO_DOT });
+            continue;
+          }
+          push({ type: "qmark", value, output: QMARK });
+          continue;
+        }
+        if (value === "!") {
+          if (opts.noextglob !== true && peek() === "(") {
+            if (peek(2) !== "?" || !/[!=<:]/.test(peek(3))) {
+              extglobOpen("negate", value);
+              continue;
+            }
+          }
+          if (opts.nonegate !== true && state.index === 0) {
+            negate();
+            continue;
+          }
+        }
+        if (value === "+") {
+          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            extglobOpen("plus", value);
+            continue;
+          }
+          if (prev && prev.value === "(" || opts.regex === false) {
+            push({ type: "plus", value, output: PLUS_LITERAL });
+            continue;
+          }
+          if (prev && (prev.type === "bracket" || prev.type === "paren" || prev.type === "brace") || state.parens > 0) {
+            push({ type: "plus", value });
+            continue;
+          }
+          push({ type: "plus", value: PLUS_LITERAL });
+          continue;
+        }
+        if (value === "@") {
+          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
+            push({ type: "at", extglob: true, value, output: "" });
+            continue;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (value !== "*") {
+          if (value === "$" || value === "^") {
+            value = `\\${value}`;
+          }
+          const match = REGEX_NON_SPECIAL_CHARS.exec(remaining());
+          if (match) {
+            value += match[0];
+            state.index += match[0].length;
+          }
+          push({ type: "text", value });
+          continue;
+        }
+        if (prev && (prev.type === "globstar" || prev.star === true)) {
+          prev.type = "star";
+          prev.star = true;
+          prev.value += value;
+          prev.output = star;
+          state.backtrack = true;
+          state.globstar = true;
+          consume(value);
+          continue;
+        }
+        let rest = remaining();
+        if (opts.noextglob !== true && /^\([^?]/.test(rest)) {
+          extglobOpen("star", value);
+          continue;
+        }
+        if (prev.type === "star") {
+          if (opts.noglobstar === true) {
+            consume(value);
+            continue;
+          }
+          const prior = prev.prev;
+          const before = prior.prev;
+          const isStart = prior.type === "slash" || prior.type === "bos";
+          const afterStar = before && (before.type === "star" || before.type === "globstar");
+          if (opts.bash === true && (!isStart || rest[0] && rest[0] !== "/")) {
+            push({ type: "star", value, output: "" });
+            continue;
+          }
+          const isBrace = state.braces > 0 && (prior.type === "comma" || prior.type === "brace");
+          const isExtglob = extglobs.length && (prior.type === "pipe" || prior.type === "paren");
+          if (!isStart && prior.type !== "paren" && !isBrace && !isExtglob) {
+            push({ type: "star", value, output: "" });
+            continue;
+          }
+          while (rest.slice(0, 3) === "/**") {
+            const after = input2[state.index + 4];
+            if (after && after !== "/") {
+              break;
+            }
+            rest = rest.slice(3);
+            consume("/**", 3);
+          }
+          if (prior.type === "bos" && eos()) {
+            prev.type = "globstar";
+            prev.value += value;
+            prev.output = globstar(opts);
+            state.output = prev.output;
+            state.globstar = true;
+            consume(value);
+            continue;
+          }
+          if (prior.type === "slash" && prior.prev.type !== "bos" && !afterStar && eos()) {
+            state.output = state.output.slice(0, -(prior.output + prev.output).length);
+            prior.output = `(?:${prior.output}`;
+            prev.type = "globstar";
+            prev.output = globstar(opts) + (opts.strictSlashes ? ")" : "|$)");
+            prev.value += value;
+            state.globstar = true;
+            state.output += prior.output + prev.output;
+            consume(value);
+            continue;
+          }
+          if (prior.type === "slash" && prior.prev.type !== "bos" && rest[0] === "/") {
+            const end = rest[1] !== void 0 ? "|$" : "";
+            state.output = state.output.slice(0, -(prior.output + prev.output).length);
+            prior.output = `(?:${prior.output}`;
+            prev.type = "globstar";
+            prev.output = `${globstar(opts)}${SLASH_LITERAL}|${SLASH_LITERAL}${end})`;
+            prev.value += value;
+            state.output += prior.output + prev.output;
+            state.globstar = true;
+            consume(value + advance());
+            push({ type: "slash", value: "/", output: "" });
+            continue;
+          }
+          if (prior.type === "bos" && rest[0] === "/") {
+            prev.type = "globstar";
+            prev.value += value;
+            prev.output = `(?:^|${SLASH_LITERAL}|${globstar(opts)}${SLASH_LITERAL})`;
+            state.output = prev.output;
+            state.globstar = true;
+            consume(value + advance());
+            push({ type: "slash", value: "/", output: "" });
+            continue;
+          }
+          state.output = state.output.slice(0, -prev.output.length);
+          prev.type = "globstar";
+          prev.output = globstar(opts);
+          prev.value += value;
+          state.output += prev.output;
+          state.globstar = true;
+          consume(value);
+          continue;
+        }
+        const token = { type: "star", value, output: star };
+        if (opts.bash === true) {
+          token.output = ".*?";
+          if (prev.type === "bos" || prev.type === "slash") {
+            token.output = nodot + token.output;
+          }
+          push(token);
+          continue;
+        }
+        if (prev && (prev.type === "bracket" || prev.type === "paren") && opts.regex === true) {
+          token.output = value;
+          push(token);
+          continue;
+        }
+        if (state.index === state.start || prev.type === "slash" || prev.type === "dot") {
+          if (prev.type === "dot") {
+            state.output += NO_DOT_SLASH;
+            prev.output += NO_DOT_SLASH;
+          } else if (opts.dot === true) {
+            state.output += NO_DOTS_SLASH;
+            prev.output += NO_DOTS_SLASH;
+          } else {
+            state.output += nodot;
+            prev.output += nodot;
+          }
+          if (peek() !== "*") {
+            state.output += ONE_CHAR;
+            prev.output += ONE_CHAR;
+          }
+        }
+        push(token);
+      }
+      while (state.brackets > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "]"));
+        state.output = utils.escapeLast(state.output, "[");
+        decrement("brackets");
+      }
+      while (state.parens > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", ")"));
+        state.output = utils.escapeLast(state.output, "(");
+        decrement("parens");
+      }
+      while (state.braces > 0) {
+        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "}"));
+        state.output = utils.escapeLast(state.output, "{");
+        decrement("braces");
+      }
+      if (opts.strictSlashes !== true && (prev.type === "star" || prev.type === "bracket")) {
+        push({ type: "maybe_slash", value: "", output: `${SLASH_LITERAL}?` });
+      }
+      if (state.backtrack === true) {
+        state.output = "";
+        for (const token of state.tokens) {
+          state.output += token.output != null ? token.output : token.value;
+          if (token.suffix) {
+            state.output += token.suffix;
+          }
+        }
+      }
+      return state;
+    };
+    parse4.fastpaths = (input2, options) => {
+      const opts = { ...options };
+      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
+      const len = input2.length;
+      if (len > max) {
+        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
+      }
+      input2 = REPLACEMENTS[input2] || input2;
+      const {
+        DOT_LITERAL,
+        SLASH_LITERAL,
+        ONE_CHAR,
+        DOTS_SLASH,
+        NO_DOT,
+        NO_DOTS,
+        NO_DOTS_SLASH,
+        STAR,
+        START_ANCHOR
+      } = constants.globChars(opts.windows);
+      const nodot = opts.dot ? NO_DOTS : NO_DOT;
+      const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
+      const capture = opts.capture ? "" : "?:";
+      const state = { negated: false, prefix: "" };
+      let star = opts.bash === true ? ".*?" : STAR;
+      if (opts.capture) {
+        star = `(${star})`;
+      }
+      const globstar = (opts2) => {
+        if (opts2.noglobstar === true) return star;
+        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
+      };
+      const create = (str) => {
+        switch (str) {
+          case "*":
+            return `${nodot}${ONE_CHAR}${star}`;
+          case ".*":
+            return `${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "*.*":
+            return `${nodot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "*/*":
+            return `${nodot}${star}${SLASH_LITERAL}${ONE_CHAR}${slashDot}${star}`;
+          case "**":
+            return nodot + globstar(opts);
+          case "**/*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${ONE_CHAR}${star}`;
+          case "**/*.*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
+          case "**/.*":
+            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${DOT_LITERAL}${ONE_CHAR}${star}`;
+          default: {
+            const match = /^(.*?)\.(\w+)$/.exec(str);
+            if (!match) return;
+            const source2 = create(match[1]);
+            if (!source2) return;
+            return source2 + DOT_LITERAL + match[2];
+          }
+        }
+      };
+      const output2 = utils.removePrefix(input2, state);
+      let source = create(output2);
+      if (source && opts.strictSlashes !== true) {
+        source += `${SLASH_LITERAL}?`;
+      }
+      return source;
+    };
+    module.exports = parse4;
+  }
+});
+
+// ../main/node_modules/picomatch/lib/picomatch.js
+var require_picomatch = __commonJS({
+  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
+    "use strict";
+    var scan = require_scan();
+    var parse4 = require_parse();
+    var utils = require_utils();
+    var constants = require_constants();
+    var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
+    var picomatch5 = (glob, options, returnState = false) => {
+      if (Array.isArray(glob)) {
+        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
+        const arrayMatcher = (str) => {
+          for (const isMatch of fns) {
+            const state2 = isMatch(str);
+            if (state2) return state2;
+          }
+          return false;
+        };
+        return arrayMatcher;
+      }
+      const isState = isObject2(glob) && glob.tokens && glob.input;
+      if (glob === "" || typeof glob !== "string" && !isState) {
+        throw new TypeError("Expected pattern to be a non-empty string");
+      }
+      const opts = options || {};
+      const posix2 = opts.windows;
+      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
+      const state = regex.state;
+      delete regex.state;
+      let isIgnored = () => false;
+      if (opts.ignore) {
+        const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
+        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
+      }
+      const matcher = (input2, returnObject = false) => {
+        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
+        const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
+        if (typeof opts.onResult === "function") {
+          opts.onResult(result);
+        }
+        if (isMatch === false) {
+          result.isMatch = false;
+          return returnObject ? result : false;
+        }
+        if (isIgnored(input2)) {
+          if (typeof opts.onIgnore === "function") {
+            opts.onIgnore(result);
+          }
+          result.isMatch = false;
+          return returnObject ? result : false;
+        }
+        if (typeof opts.onMatch === "function") {
+          opts.onMatch(result);
+        }
+        return returnObject ? result : true;
+      };
+      if (returnState) {
+        matcher.state = state;
+      }
+      return matcher;
+    };
+    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
+      if (typeof input2 !== "string") {
+        throw new TypeError("Expected input to be a string");
+      }
+      if (input2 === "") {
+        return { isMatch: false, output: "" };
+      }
+      const opts = options || {};
+      const format = opts.format || (posix2 ? utils.toPosixSlashes : null);
+      let match = input2 === glob;
+      let output2 = match && format ? format(input2) : input2;
+      if (match === false) {
+        output2 = format ? format(input2) : input2;
+        match = output2 === glob;
+      }
+      if (match === false || opts.capture === true) {
+        if (opts.matchBase === true || opts.basename === true) {
+          match = picomatch5.matchBase(input2, regex, options, posix2);
+        } else {
+          match = regex.exec(output2);
+        }
+      }
+      return { isMatch: Boolean(match), match, output: output2 };
+    };
+    picomatch5.matchBase = (input2, glob, options) => {
+      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
+      return regex.test(utils.basename(input2));
+    };
+    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
+    picomatch5.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
+      return parse4(pattern, { ...options, fastpaths: false });
+    };
+    picomatch5.scan = (input2, options) => scan(input2, options);
+    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
+      if (returnOutput === true) {
+        return state.output;
+      }
+      const opts = options || {};
+      const prepend = opts.contains ? "" : "^";
+      const append = opts.contains ? "" : "$";
+      let source = `${prepend}(?:${state.output})${append}`;
+      if (state && state.negated === true) {
+        source = `^(?!${source}).*$`;
+      }
+      const regex = picomatch5.toRegex(source, options);
+      if (returnState === true) {
+        regex.state = state;
+      }
+      return regex;
+    };
+    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+      if (!input2 || typeof input2 !== "string") {
+        throw new TypeError("Expected a non-empty string");
+      }
+      let parsed = { negated: false, fastpaths: true };
+      if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
+        parsed.output = parse4.fastpaths(input2, options);
+      }
+      if (!parsed.output) {
+        parsed = parse4(input2, options);
+      }
+      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
+    };
+    picomatch5.toRegex = (source, options) => {
+      try {
+        const opts = options || {};
+        return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
+      } catch (err) {
+        if (options && options.debug === true) throw err;
+        return /$^/;
+      }
+    };
+    picomatch5.constants = constants;
+    module.exports = picomatch5;
+  }
+});
+
+// ../main/node_modules/picomatch/index.js
+var require_picomatch2 = __commonJS({
+  "../main/node_modules/picomatch/index.js"(exports, module) {
+    "use strict";
+    var pico = require_picomatch();
+    var utils = require_utils();
+    function picomatch5(glob, options, returnState = false) {
+      if (options && (options.windows === null || options.windows === void 0)) {
+        options = { ...options, windows: utils.isWindows() };
+      }
+      return pico(glob, options, returnState);
+    }
+    Object.assign(picomatch5, pico);
+    module.exports = picomatch5;
+  }
+});
+
 // ../main/node_modules/jstat/dist/jstat.js
 var require_jstat = __commonJS({
   "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
@@ -4082,12 +5600,12 @@ var require_jstat = __commonJS({
           var currentRank = 1;
           for (i = 0; i < sortedDistinctNumbers.length; i++) {
             var number5 = sortedDistinctNumbers[i];
-            var count2 = numberCounts[number5];
+            var count3 = numberCounts[number5];
             var first = currentRank;
-            var last = currentRank + count2 - 1;
+            var last = currentRank + count3 - 1;
             var rank = (first + last) / 2;
             numberRanks[number5] = rank;
-            currentRank += count2;
+            currentRank += count3;
           }
           return arr.map(function(number6) {
             return numberRanks[number6];
@@ -4096,24 +5614,24 @@ var require_jstat = __commonJS({
         jStat3.mode = function mode(arr) {
           var arrLen = arr.length;
           var _arr = arr.slice().sort(ascNum);
-          var count2 = 1;
+          var count3 = 1;
           var maxCount = 0;
           var numMaxCount = 0;
           var mode_arr = [];
           var i;
           for (i = 0; i < arrLen; i++) {
             if (_arr[i] === _arr[i + 1]) {
-              count2++;
+              count3++;
             } else {
-              if (count2 > maxCount) {
+              if (count3 > maxCount) {
                 mode_arr = [_arr[i]];
-                maxCount = count2;
+                maxCount = count3;
                 numMaxCount = 0;
-              } else if (count2 === maxCount) {
+              } else if (count3 === maxCount) {
                 mode_arr.push(_arr[i]);
                 numMaxCount++;
               }
-              count2 = 1;
+              count3 = 1;
             }
           }
           return numMaxCount === 0 ? mode_arr[0] : mode_arr;
@@ -4128,10 +5646,10 @@ var require_jstat = __commonJS({
           var sumsqerr = arr.reduce(function(a, samples) {
             return a + jStat3.sumsqerr(samples);
           }, 0);
-          var count2 = arr.reduce(function(a, samples) {
+          var count3 = arr.reduce(function(a, samples) {
             return a + samples.length;
           }, 0);
-          return sumsqerr / (count2 - arr.length);
+          return sumsqerr / (count3 - arr.length);
         };
         jStat3.deviation = function(arr) {
           var mean = jStat3.mean(arr);
@@ -7331,10 +8849,10 @@ var require_identity = __commonJS({
     var NODE_TYPE = /* @__PURE__ */ Symbol.for("yaml.node.type");
     var isAlias = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === ALIAS;
     var isDocument = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === DOC;
-    var isMap2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === MAP;
+    var isMap3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === MAP;
     var isPair2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === PAIR;
-    var isScalar2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SCALAR;
-    var isSeq2 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SEQ;
+    var isScalar3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SCALAR;
+    var isSeq3 = (node2) => !!node2 && typeof node2 === "object" && node2[NODE_TYPE] === SEQ;
     function isCollection(node2) {
       if (node2 && typeof node2 === "object")
         switch (node2[NODE_TYPE]) {
@@ -7355,7 +8873,7 @@ var require_identity = __commonJS({
         }
       return false;
     }
-    var hasAnchor = (node2) => (isScalar2(node2) || isCollection(node2)) && !!node2.anchor;
+    var hasAnchor = (node2) => (isScalar3(node2) || isCollection(node2)) && !!node2.anchor;
     exports.ALIAS = ALIAS;
     exports.DOC = DOC;
     exports.MAP = MAP;
@@ -7367,11 +8885,11 @@ var require_identity = __commonJS({
     exports.isAlias = isAlias;
     exports.isCollection = isCollection;
     exports.isDocument = isDocument;
-    exports.isMap = isMap2;
+    exports.isMap = isMap3;
     exports.isNode = isNode;
     exports.isPair = isPair2;
-    exports.isScalar = isScalar2;
-    exports.isSeq = isSeq2;
+    exports.isScalar = isScalar3;
+    exports.isSeq = isSeq3;
   }
 });
 
@@ -7886,8 +9404,8 @@ var require_Node = __commonJS({
         };
         const res = toJS.toJS(this, "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count: count2, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count2);
+          for (const { count: count3, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count3);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
     };
@@ -7995,13 +9513,13 @@ var require_Alias = __commonJS({
         const anchor2 = anchors2 && source && anchors2.get(source);
         return anchor2 ? anchor2.count * anchor2.aliasCount : 0;
       } else if (identity.isCollection(node2)) {
-        let count2 = 0;
+        let count3 = 0;
         for (const item of node2.items) {
           const c = getAliasCount(doc, item, anchors2);
-          if (c > count2)
-            count2 = c;
+          if (c > count3)
+            count3 = c;
         }
-        return count2;
+        return count3;
       } else if (identity.isPair(node2)) {
         const kc = getAliasCount(doc, node2.key, anchors2);
         const vc = getAliasCount(doc, node2.value, anchors2);
@@ -10693,7 +12211,7 @@ var require_Document = __commonJS({
     var applyReviver = require_applyReviver();
     var createNode = require_createNode();
     var directives = require_directives();
-    var Document = class _Document {
+    var Document2 = class _Document {
       constructor(value, replacer, options) {
         this.commentBefore = null;
         this.comment = null;
@@ -10954,8 +12472,8 @@ var require_Document = __commonJS({
         };
         const res = toJS.toJS(this.contents, jsonArg ?? "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count: count2, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count2);
+          for (const { count: count3, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count3);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
       /**
@@ -10983,7 +12501,7 @@ var require_Document = __commonJS({
         return true;
       throw new Error("Expected a YAML collection as document contents");
     }
-    exports.Document = Document;
+    exports.Document = Document2;
   }
 });
 
@@ -11032,12 +12550,12 @@ var require_errors = __commonJS({
         lineStr = prev + lineStr;
       }
       if (/[^ ]/.test(lineStr)) {
-        let count2 = 1;
+        let count3 = 1;
         const end = error62.linePos[1];
         if (end?.line === line && end.col > col) {
-          count2 = Math.max(1, Math.min(end.col - col, 80 - ci));
+          count3 = Math.max(1, Math.min(end.col - col, 80 - ci));
         }
-        const pointer = " ".repeat(ci) + "^".repeat(count2);
+        const pointer = " ".repeat(ci) + "^".repeat(count3);
         error62.message += `:
 
 ${lineStr}
@@ -11479,9 +12997,9 @@ var require_resolve_flow_collection = __commonJS({
     var blockMsg = "Block collections are not allowed within flow collections";
     var isBlock = (token) => token && (token.type === "block-map" || token.type === "block-seq");
     function resolveFlowCollection({ composeNode, composeEmptyNode }, ctx, fc, onError, tag) {
-      const isMap2 = fc.start.source === "{";
-      const fcName = isMap2 ? "flow map" : "flow sequence";
-      const NodeClass = tag?.nodeClass ?? (isMap2 ? YAMLMap.YAMLMap : YAMLSeq.YAMLSeq);
+      const isMap3 = fc.start.source === "{";
+      const fcName = isMap3 ? "flow map" : "flow sequence";
+      const NodeClass = tag?.nodeClass ?? (isMap3 ? YAMLMap.YAMLMap : YAMLSeq.YAMLSeq);
       const coll = new NodeClass(ctx.schema);
       coll.flow = true;
       const atRoot = ctx.atRoot;
@@ -11517,7 +13035,7 @@ var require_resolve_flow_collection = __commonJS({
             offset = props.end;
             continue;
           }
-          if (!isMap2 && ctx.options.strict && utilContainsNewline.containsNewline(key))
+          if (!isMap3 && ctx.options.strict && utilContainsNewline.containsNewline(key))
             onError(
               key,
               // checked by containsNewline()
@@ -11557,7 +13075,7 @@ var require_resolve_flow_collection = __commonJS({
             }
           }
         }
-        if (!isMap2 && !sep2 && !props.found) {
+        if (!isMap3 && !sep2 && !props.found) {
           const valueNode = value ? composeNode(ctx, value, props, onError) : composeEmptyNode(ctx, props.end, sep2, null, props, onError);
           coll.items.push(valueNode);
           offset = valueNode.range[2];
@@ -11580,7 +13098,7 @@ var require_resolve_flow_collection = __commonJS({
             startOnNewline: false
           });
           if (valueProps.found) {
-            if (!isMap2 && !props.found && ctx.options.strict) {
+            if (!isMap3 && !props.found && ctx.options.strict) {
               if (sep2)
                 for (const st of sep2) {
                   if (st === valueProps.found)
@@ -11612,7 +13130,7 @@ var require_resolve_flow_collection = __commonJS({
           const pair2 = new Pair.Pair(keyNode, valueNode);
           if (ctx.options.keepSourceTokens)
             pair2.srcToken = collItem;
-          if (isMap2) {
+          if (isMap3) {
             const map2 = coll;
             if (utilMapIncludes.mapIncludes(ctx, map2.items, keyNode))
               onError(keyStart, "DUPLICATE_KEY", "Map keys must be unique");
@@ -11628,7 +13146,7 @@ var require_resolve_flow_collection = __commonJS({
           offset = valueNode ? valueNode.range[2] : valueProps.end;
         }
       }
-      const expectedEnd = isMap2 ? "}" : "]";
+      const expectedEnd = isMap3 ? "}" : "]";
       const [ce, ...ee] = fc.end;
       let cePos = offset;
       if (ce?.source === expectedEnd)
@@ -12348,13 +13866,13 @@ var require_compose_node = __commonJS({
 var require_compose_doc = __commonJS({
   "../main/node_modules/yaml/dist/compose/compose-doc.js"(exports) {
     "use strict";
-    var Document = require_Document();
+    var Document2 = require_Document();
     var composeNode = require_compose_node();
     var resolveEnd = require_resolve_end();
     var resolveProps = require_resolve_props();
     function composeDoc(options, directives, { offset, start, value, end }, onError) {
       const opts = Object.assign({ _directives: directives }, options);
-      const doc = new Document.Document(void 0, opts);
+      const doc = new Document2.Document(void 0, opts);
       const ctx = {
         atKey: false,
         atRoot: true,
@@ -12393,7 +13911,7 @@ var require_composer = __commonJS({
     "use strict";
     var node_process = __require("process");
     var directives = require_directives();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var errors = require_errors();
     var identity = require_identity();
     var composeDoc = require_compose_doc();
@@ -12582,7 +14100,7 @@ ${end.comment}` : end.comment;
           this.doc = null;
         } else if (forceDoc) {
           const opts = Object.assign({ _directives: this.directives }, this.options);
-          const doc = new Document.Document(void 0, opts);
+          const doc = new Document2.Document(void 0, opts);
           if (this.atDirectives)
             this.onError(endOffset, "MISSING_CHAR", "Missing directives-end indicator line");
           doc.range = [0, endOffset, endOffset];
@@ -12915,7 +14433,7 @@ var require_cst = __commonJS({
     var FLOW_END = "";
     var SCALAR = "";
     var isCollection = (token) => !!token && "items" in token;
-    var isScalar2 = (token) => !!token && (token.type === "scalar" || token.type === "single-quoted-scalar" || token.type === "double-quoted-scalar" || token.type === "block-scalar");
+    var isScalar3 = (token) => !!token && (token.type === "scalar" || token.type === "single-quoted-scalar" || token.type === "double-quoted-scalar" || token.type === "block-scalar");
     function prettyToken(token) {
       switch (token) {
         case BOM:
@@ -12999,7 +14517,7 @@ var require_cst = __commonJS({
     exports.FLOW_END = FLOW_END;
     exports.SCALAR = SCALAR;
     exports.isCollection = isCollection;
-    exports.isScalar = isScalar2;
+    exports.isScalar = isScalar3;
     exports.prettyToken = prettyToken;
     exports.tokenType = tokenType;
   }
@@ -14504,7 +16022,7 @@ var require_public_api = __commonJS({
   "../main/node_modules/yaml/dist/public-api.js"(exports) {
     "use strict";
     var composer = require_composer();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var errors = require_errors();
     var log = require_log();
     var identity = require_identity();
@@ -14529,7 +16047,7 @@ var require_public_api = __commonJS({
         return docs;
       return Object.assign([], { empty: true }, composer$1.streamInfo());
     }
-    function parseDocument2(source, options = {}) {
+    function parseDocument3(source, options = {}) {
       const { lineCounter: lineCounter2, prettyErrors } = parseOptions(options);
       const parser$1 = new parser.Parser(lineCounter2?.addNewLine);
       const composer$1 = new composer.Composer(options);
@@ -14555,7 +16073,7 @@ var require_public_api = __commonJS({
       } else if (options === void 0 && reviver && typeof reviver === "object") {
         options = reviver;
       }
-      const doc = parseDocument2(src, options);
+      const doc = parseDocument3(src, options);
       if (!doc)
         return null;
       doc.warnings.forEach((warning) => log.warn(doc.options.logLevel, warning));
@@ -14587,11 +16105,11 @@ var require_public_api = __commonJS({
       }
       if (identity.isDocument(value) && !_replacer)
         return value.toString(options);
-      return new Document.Document(value, _replacer, options).toString(options);
+      return new Document2.Document(value, _replacer, options).toString(options);
     }
     exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
-    exports.parseDocument = parseDocument2;
+    exports.parseDocument = parseDocument3;
     exports.stringify = stringify;
   }
 });
@@ -14601,7 +16119,7 @@ var require_dist = __commonJS({
   "../main/node_modules/yaml/dist/index.js"(exports) {
     "use strict";
     var composer = require_composer();
-    var Document = require_Document();
+    var Document2 = require_Document();
     var Schema = require_Schema();
     var errors = require_errors();
     var Alias = require_Alias();
@@ -14617,7 +16135,7 @@ var require_dist = __commonJS({
     var publicApi = require_public_api();
     var visit3 = require_visit();
     exports.Composer = composer.Composer;
-    exports.Document = Document.Document;
+    exports.Document = Document2.Document;
     exports.Schema = Schema.Schema;
     exports.YAMLError = errors.YAMLError;
     exports.YAMLParseError = errors.YAMLParseError;
@@ -14648,1527 +16166,6 @@ var require_dist = __commonJS({
   }
 });
 
-// ../main/node_modules/picomatch/lib/constants.js
-var require_constants = __commonJS({
-  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
-    "use strict";
-    var WIN_SLASH = "\\\\/";
-    var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
-    var DOT_LITERAL = "\\.";
-    var PLUS_LITERAL = "\\+";
-    var QMARK_LITERAL = "\\?";
-    var SLASH_LITERAL = "\\/";
-    var ONE_CHAR = "(?=.)";
-    var QMARK = "[^/]";
-    var END_ANCHOR = `(?:${SLASH_LITERAL}|$)`;
-    var START_ANCHOR = `(?:^|${SLASH_LITERAL})`;
-    var DOTS_SLASH = `${DOT_LITERAL}{1,2}${END_ANCHOR}`;
-    var NO_DOT = `(?!${DOT_LITERAL})`;
-    var NO_DOTS = `(?!${START_ANCHOR}${DOTS_SLASH})`;
-    var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
-    var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
-    var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
-    var STAR = `${QMARK}*?`;
-    var SEP = "/";
-    var POSIX_CHARS = {
-      DOT_LITERAL,
-      PLUS_LITERAL,
-      QMARK_LITERAL,
-      SLASH_LITERAL,
-      ONE_CHAR,
-      QMARK,
-      END_ANCHOR,
-      DOTS_SLASH,
-      NO_DOT,
-      NO_DOTS,
-      NO_DOT_SLASH,
-      NO_DOTS_SLASH,
-      QMARK_NO_DOT,
-      STAR,
-      START_ANCHOR,
-      SEP
-    };
-    var WINDOWS_CHARS = {
-      ...POSIX_CHARS,
-      SLASH_LITERAL: `[${WIN_SLASH}]`,
-      QMARK: WIN_NO_SLASH,
-      STAR: `${WIN_NO_SLASH}*?`,
-      DOTS_SLASH: `${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$)`,
-      NO_DOT: `(?!${DOT_LITERAL})`,
-      NO_DOTS: `(?!(?:^|[${WIN_SLASH}])${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
-      NO_DOT_SLASH: `(?!${DOT_LITERAL}{0,1}(?:[${WIN_SLASH}]|$))`,
-      NO_DOTS_SLASH: `(?!${DOT_LITERAL}{1,2}(?:[${WIN_SLASH}]|$))`,
-      QMARK_NO_DOT: `[^.${WIN_SLASH}]`,
-      START_ANCHOR: `(?:^|[${WIN_SLASH}])`,
-      END_ANCHOR: `(?:[${WIN_SLASH}]|$)`,
-      SEP: "\\"
-    };
-    var POSIX_REGEX_SOURCE = {
-      alnum: "a-zA-Z0-9",
-      alpha: "a-zA-Z",
-      ascii: "\\x00-\\x7F",
-      blank: " \\t",
-      cntrl: "\\x00-\\x1F\\x7F",
-      digit: "0-9",
-      graph: "\\x21-\\x7E",
-      lower: "a-z",
-      print: "\\x20-\\x7E ",
-      punct: "\\-!\"#$%&'()\\*+,./:;<=>?@[\\]^_`{|}~",
-      space: " \\t\\r\\n\\v\\f",
-      upper: "A-Z",
-      word: "A-Za-z0-9_",
-      xdigit: "A-Fa-f0-9"
-    };
-    module.exports = {
-      MAX_LENGTH: 1024 * 64,
-      POSIX_REGEX_SOURCE,
-      // regular expressions
-      REGEX_BACKSLASH: /\\(?![*+?^${}(|)[\]])/g,
-      REGEX_NON_SPECIAL_CHARS: /^[^@![\].,$*+?^{}()|\\/]+/,
-      REGEX_SPECIAL_CHARS: /[-*+?.^${}(|)[\]]/,
-      REGEX_SPECIAL_CHARS_BACKREF: /(\\?)((\W)(\3*))/g,
-      REGEX_SPECIAL_CHARS_GLOBAL: /([-*+?.^${}(|)[\]])/g,
-      REGEX_REMOVE_BACKSLASH: /(?:\[.*?[^\\]\]|\\(?=.))/g,
-      // Replace globs with equivalent patterns to reduce parsing time.
-      REPLACEMENTS: {
-        __proto__: null,
-        "***": "*",
-        "**/**": "**",
-        "**/**/**": "**"
-      },
-      // Digits
-      CHAR_0: 48,
-      /* 0 */
-      CHAR_9: 57,
-      /* 9 */
-      // Alphabet chars.
-      CHAR_UPPERCASE_A: 65,
-      /* A */
-      CHAR_LOWERCASE_A: 97,
-      /* a */
-      CHAR_UPPERCASE_Z: 90,
-      /* Z */
-      CHAR_LOWERCASE_Z: 122,
-      /* z */
-      CHAR_LEFT_PARENTHESES: 40,
-      /* ( */
-      CHAR_RIGHT_PARENTHESES: 41,
-      /* ) */
-      CHAR_ASTERISK: 42,
-      /* * */
-      // Non-alphabetic chars.
-      CHAR_AMPERSAND: 38,
-      /* & */
-      CHAR_AT: 64,
-      /* @ */
-      CHAR_BACKWARD_SLASH: 92,
-      /* \ */
-      CHAR_CARRIAGE_RETURN: 13,
-      /* \r */
-      CHAR_CIRCUMFLEX_ACCENT: 94,
-      /* ^ */
-      CHAR_COLON: 58,
-      /* : */
-      CHAR_COMMA: 44,
-      /* , */
-      CHAR_DOT: 46,
-      /* . */
-      CHAR_DOUBLE_QUOTE: 34,
-      /* " */
-      CHAR_EQUAL: 61,
-      /* = */
-      CHAR_EXCLAMATION_MARK: 33,
-      /* ! */
-      CHAR_FORM_FEED: 12,
-      /* \f */
-      CHAR_FORWARD_SLASH: 47,
-      /* / */
-      CHAR_GRAVE_ACCENT: 96,
-      /* ` */
-      CHAR_HASH: 35,
-      /* # */
-      CHAR_HYPHEN_MINUS: 45,
-      /* - */
-      CHAR_LEFT_ANGLE_BRACKET: 60,
-      /* < */
-      CHAR_LEFT_CURLY_BRACE: 123,
-      /* { */
-      CHAR_LEFT_SQUARE_BRACKET: 91,
-      /* [ */
-      CHAR_LINE_FEED: 10,
-      /* \n */
-      CHAR_NO_BREAK_SPACE: 160,
-      /* \u00A0 */
-      CHAR_PERCENT: 37,
-      /* % */
-      CHAR_PLUS: 43,
-      /* + */
-      CHAR_QUESTION_MARK: 63,
-      /* ? */
-      CHAR_RIGHT_ANGLE_BRACKET: 62,
-      /* > */
-      CHAR_RIGHT_CURLY_BRACE: 125,
-      /* } */
-      CHAR_RIGHT_SQUARE_BRACKET: 93,
-      /* ] */
-      CHAR_SEMICOLON: 59,
-      /* ; */
-      CHAR_SINGLE_QUOTE: 39,
-      /* ' */
-      CHAR_SPACE: 32,
-      /*   */
-      CHAR_TAB: 9,
-      /* \t */
-      CHAR_UNDERSCORE: 95,
-      /* _ */
-      CHAR_VERTICAL_LINE: 124,
-      /* | */
-      CHAR_ZERO_WIDTH_NOBREAK_SPACE: 65279,
-      /* \uFEFF */
-      /**
-       * Create EXTGLOB_CHARS
-       */
-      extglobChars(chars) {
-        return {
-          "!": { type: "negate", open: "(?:(?!(?:", close: `))${chars.STAR})` },
-          "?": { type: "qmark", open: "(?:", close: ")?" },
-          "+": { type: "plus", open: "(?:", close: ")+" },
-          "*": { type: "star", open: "(?:", close: ")*" },
-          "@": { type: "at", open: "(?:", close: ")" }
-        };
-      },
-      /**
-       * Create GLOB_CHARS
-       */
-      globChars(win32) {
-        return win32 === true ? WINDOWS_CHARS : POSIX_CHARS;
-      }
-    };
-  }
-});
-
-// ../main/node_modules/picomatch/lib/utils.js
-var require_utils = __commonJS({
-  "../main/node_modules/picomatch/lib/utils.js"(exports) {
-    "use strict";
-    var {
-      REGEX_BACKSLASH,
-      REGEX_REMOVE_BACKSLASH,
-      REGEX_SPECIAL_CHARS,
-      REGEX_SPECIAL_CHARS_GLOBAL
-    } = require_constants();
-    exports.isObject = (val) => val !== null && typeof val === "object" && !Array.isArray(val);
-    exports.hasRegexChars = (str) => REGEX_SPECIAL_CHARS.test(str);
-    exports.isRegexChar = (str) => str.length === 1 && exports.hasRegexChars(str);
-    exports.escapeRegex = (str) => str.replace(REGEX_SPECIAL_CHARS_GLOBAL, "\\$1");
-    exports.toPosixSlashes = (str) => str.replace(REGEX_BACKSLASH, "/");
-    exports.isWindows = () => {
-      if (typeof navigator !== "undefined" && navigator.platform) {
-        const platform2 = navigator.platform.toLowerCase();
-        return platform2 === "win32" || platform2 === "windows";
-      }
-      if (typeof process !== "undefined" && process.platform) {
-        return process.platform === "win32";
-      }
-      return false;
-    };
-    exports.removeBackslashes = (str) => {
-      return str.replace(REGEX_REMOVE_BACKSLASH, (match) => {
-        return match === "\\" ? "" : match;
-      });
-    };
-    exports.escapeLast = (input2, char, lastIdx) => {
-      const idx = input2.lastIndexOf(char, lastIdx);
-      if (idx === -1) return input2;
-      if (input2[idx - 1] === "\\") return exports.escapeLast(input2, char, idx - 1);
-      return `${input2.slice(0, idx)}\\${input2.slice(idx)}`;
-    };
-    exports.removePrefix = (input2, state = {}) => {
-      let output2 = input2;
-      if (output2.startsWith("./")) {
-        output2 = output2.slice(2);
-        state.prefix = "./";
-      }
-      return output2;
-    };
-    exports.wrapOutput = (input2, state = {}, options = {}) => {
-      const prepend = options.contains ? "" : "^";
-      const append = options.contains ? "" : "$";
-      let output2 = `${prepend}(?:${input2})${append}`;
-      if (state.negated === true) {
-        output2 = `(?:^(?!${output2}).*$)`;
-      }
-      return output2;
-    };
-    exports.basename = (path, { windows } = {}) => {
-      const segs = path.split(windows ? /[\\/]/ : "/");
-      const last = segs[segs.length - 1];
-      if (last === "") {
-        return segs[segs.length - 2];
-      }
-      return last;
-    };
-  }
-});
-
-// ../main/node_modules/picomatch/lib/scan.js
-var require_scan = __commonJS({
-  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
-    "use strict";
-    var utils = require_utils();
-    var {
-      CHAR_ASTERISK,
-      /* * */
-      CHAR_AT,
-      /* @ */
-      CHAR_BACKWARD_SLASH,
-      /* \ */
-      CHAR_COMMA,
-      /* , */
-      CHAR_DOT,
-      /* . */
-      CHAR_EXCLAMATION_MARK,
-      /* ! */
-      CHAR_FORWARD_SLASH,
-      /* / */
-      CHAR_LEFT_CURLY_BRACE,
-      /* { */
-      CHAR_LEFT_PARENTHESES,
-      /* ( */
-      CHAR_LEFT_SQUARE_BRACKET,
-      /* [ */
-      CHAR_PLUS,
-      /* + */
-      CHAR_QUESTION_MARK,
-      /* ? */
-      CHAR_RIGHT_CURLY_BRACE,
-      /* } */
-      CHAR_RIGHT_PARENTHESES,
-      /* ) */
-      CHAR_RIGHT_SQUARE_BRACKET
-      /* ] */
-    } = require_constants();
-    var isPathSeparator = (code) => {
-      return code === CHAR_FORWARD_SLASH || code === CHAR_BACKWARD_SLASH;
-    };
-    var depth = (token) => {
-      if (token.isPrefix !== true) {
-        token.depth = token.isGlobstar ? Infinity : 1;
-      }
-    };
-    var scan = (input2, options) => {
-      const opts = options || {};
-      const length = input2.length - 1;
-      const scanToEnd = opts.parts === true || opts.scanToEnd === true;
-      const slashes = [];
-      const tokens = [];
-      const parts = [];
-      let str = input2;
-      let index = -1;
-      let start = 0;
-      let lastIndex = 0;
-      let isBrace = false;
-      let isBracket = false;
-      let isGlob = false;
-      let isExtglob = false;
-      let isGlobstar = false;
-      let braceEscaped = false;
-      let backslashes = false;
-      let negated = false;
-      let negatedExtglob = false;
-      let finished = false;
-      let braces = 0;
-      let prev;
-      let code;
-      let token = { value: "", depth: 0, isGlob: false };
-      const eos = () => index >= length;
-      const peek = () => str.charCodeAt(index + 1);
-      const advance = () => {
-        prev = code;
-        return str.charCodeAt(++index);
-      };
-      while (index < length) {
-        code = advance();
-        let next;
-        if (code === CHAR_BACKWARD_SLASH) {
-          backslashes = token.backslashes = true;
-          code = advance();
-          if (code === CHAR_LEFT_CURLY_BRACE) {
-            braceEscaped = true;
-          }
-          continue;
-        }
-        if (braceEscaped === true || code === CHAR_LEFT_CURLY_BRACE) {
-          braces++;
-          while (eos() !== true && (code = advance())) {
-            if (code === CHAR_BACKWARD_SLASH) {
-              backslashes = token.backslashes = true;
-              advance();
-              continue;
-            }
-            if (code === CHAR_LEFT_CURLY_BRACE) {
-              braces++;
-              continue;
-            }
-            if (braceEscaped !== true && code === CHAR_DOT && (code = advance()) === CHAR_DOT) {
-              isBrace = token.isBrace = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              if (scanToEnd === true) {
-                continue;
-              }
-              break;
-            }
-            if (braceEscaped !== true && code === CHAR_COMMA) {
-              isBrace = token.isBrace = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              if (scanToEnd === true) {
-                continue;
-              }
-              break;
-            }
-            if (code === CHAR_RIGHT_CURLY_BRACE) {
-              braces--;
-              if (braces === 0) {
-                braceEscaped = false;
-                isBrace = token.isBrace = true;
-                finished = true;
-                break;
-              }
-            }
-          }
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_FORWARD_SLASH) {
-          slashes.push(index);
-          tokens.push(token);
-          token = { value: "", depth: 0, isGlob: false };
-          if (finished === true) continue;
-          if (prev === CHAR_DOT && index === start + 1) {
-            start += 2;
-            continue;
-          }
-          lastIndex = index + 1;
-          continue;
-        }
-        if (opts.noext !== true) {
-          const isExtglobChar = code === CHAR_PLUS || code === CHAR_AT || code === CHAR_ASTERISK || code === CHAR_QUESTION_MARK || code === CHAR_EXCLAMATION_MARK;
-          if (isExtglobChar === true && peek() === CHAR_LEFT_PARENTHESES) {
-            isGlob = token.isGlob = true;
-            isExtglob = token.isExtglob = true;
-            finished = true;
-            if (code === CHAR_EXCLAMATION_MARK && index === start) {
-              negatedExtglob = true;
-            }
-            if (scanToEnd === true) {
-              while (eos() !== true && (code = advance())) {
-                if (code === CHAR_BACKWARD_SLASH) {
-                  backslashes = token.backslashes = true;
-                  code = advance();
-                  continue;
-                }
-                if (code === CHAR_RIGHT_PARENTHESES) {
-                  isGlob = token.isGlob = true;
-                  finished = true;
-                  break;
-                }
-              }
-              continue;
-            }
-            break;
-          }
-        }
-        if (code === CHAR_ASTERISK) {
-          if (prev === CHAR_ASTERISK) isGlobstar = token.isGlobstar = true;
-          isGlob = token.isGlob = true;
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_QUESTION_MARK) {
-          isGlob = token.isGlob = true;
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (code === CHAR_LEFT_SQUARE_BRACKET) {
-          while (eos() !== true && (next = advance())) {
-            if (next === CHAR_BACKWARD_SLASH) {
-              backslashes = token.backslashes = true;
-              advance();
-              continue;
-            }
-            if (next === CHAR_RIGHT_SQUARE_BRACKET) {
-              isBracket = token.isBracket = true;
-              isGlob = token.isGlob = true;
-              finished = true;
-              break;
-            }
-          }
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-        if (opts.nonegate !== true && code === CHAR_EXCLAMATION_MARK && index === start) {
-          negated = token.negated = true;
-          start++;
-          continue;
-        }
-        if (opts.noparen !== true && code === CHAR_LEFT_PARENTHESES) {
-          isGlob = token.isGlob = true;
-          if (scanToEnd === true) {
-            while (eos() !== true && (code = advance())) {
-              if (code === CHAR_LEFT_PARENTHESES) {
-                backslashes = token.backslashes = true;
-                code = advance();
-                continue;
-              }
-              if (code === CHAR_RIGHT_PARENTHESES) {
-                finished = true;
-                break;
-              }
-            }
-            continue;
-          }
-          break;
-        }
-        if (isGlob === true) {
-          finished = true;
-          if (scanToEnd === true) {
-            continue;
-          }
-          break;
-        }
-      }
-      if (opts.noext === true) {
-        isExtglob = false;
-        isGlob = false;
-      }
-      let base = str;
-      let prefix = "";
-      let glob = "";
-      if (start > 0) {
-        prefix = str.slice(0, start);
-        str = str.slice(start);
-        lastIndex -= start;
-      }
-      if (base && isGlob === true && lastIndex > 0) {
-        base = str.slice(0, lastIndex);
-        glob = str.slice(lastIndex);
-      } else if (isGlob === true) {
-        base = "";
-        glob = str;
-      } else {
-        base = str;
-      }
-      if (base && base !== "" && base !== "/" && base !== str) {
-        if (isPathSeparator(base.charCodeAt(base.length - 1))) {
-          base = base.slice(0, -1);
-        }
-      }
-      if (opts.unescape === true) {
-        if (glob) glob = utils.removeBackslashes(glob);
-        if (base && backslashes === true) {
-          base = utils.removeBackslashes(base);
-        }
-      }
-      const state = {
-        prefix,
-        input: input2,
-        start,
-        base,
-        glob,
-        isBrace,
-        isBracket,
-        isGlob,
-        isExtglob,
-        isGlobstar,
-        negated,
-        negatedExtglob
-      };
-      if (opts.tokens === true) {
-        state.maxDepth = 0;
-        if (!isPathSeparator(code)) {
-          tokens.push(token);
-        }
-        state.tokens = tokens;
-      }
-      if (opts.parts === true || opts.tokens === true) {
-        let prevIndex;
-        for (let idx = 0; idx < slashes.length; idx++) {
-          const n = prevIndex ? prevIndex + 1 : start;
-          const i = slashes[idx];
-          const value = input2.slice(n, i);
-          if (opts.tokens) {
-            if (idx === 0 && start !== 0) {
-              tokens[idx].isPrefix = true;
-              tokens[idx].value = prefix;
-            } else {
-              tokens[idx].value = value;
-            }
-            depth(tokens[idx]);
-            state.maxDepth += tokens[idx].depth;
-          }
-          if (idx !== 0 || value !== "") {
-            parts.push(value);
-          }
-          prevIndex = i;
-        }
-        if (prevIndex && prevIndex + 1 < input2.length) {
-          const value = input2.slice(prevIndex + 1);
-          parts.push(value);
-          if (opts.tokens) {
-            tokens[tokens.length - 1].value = value;
-            depth(tokens[tokens.length - 1]);
-            state.maxDepth += tokens[tokens.length - 1].depth;
-          }
-        }
-        state.slashes = slashes;
-        state.parts = parts;
-      }
-      return state;
-    };
-    module.exports = scan;
-  }
-});
-
-// ../main/node_modules/picomatch/lib/parse.js
-var require_parse = __commonJS({
-  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
-    "use strict";
-    var constants = require_constants();
-    var utils = require_utils();
-    var {
-      MAX_LENGTH,
-      POSIX_REGEX_SOURCE,
-      REGEX_NON_SPECIAL_CHARS,
-      REGEX_SPECIAL_CHARS_BACKREF,
-      REPLACEMENTS
-    } = constants;
-    var expandRange = (args, options) => {
-      if (typeof options.expandRange === "function") {
-        return options.expandRange(...args, options);
-      }
-      args.sort();
-      const value = `[${args.join("-")}]`;
-      try {
-        new RegExp(value);
-      } catch (ex) {
-        return args.map((v) => utils.escapeRegex(v)).join("..");
-      }
-      return value;
-    };
-    var syntaxError = (type, char) => {
-      return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
-    };
-    var parse4 = (input2, options) => {
-      if (typeof input2 !== "string") {
-        throw new TypeError("Expected a string");
-      }
-      input2 = REPLACEMENTS[input2] || input2;
-      const opts = { ...options };
-      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
-      let len = input2.length;
-      if (len > max) {
-        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
-      }
-      const bos = { type: "bos", value: "", output: opts.prepend || "" };
-      const tokens = [bos];
-      const capture = opts.capture ? "" : "?:";
-      const PLATFORM_CHARS = constants.globChars(opts.windows);
-      const EXTGLOB_CHARS = constants.extglobChars(PLATFORM_CHARS);
-      const {
-        DOT_LITERAL,
-        PLUS_LITERAL,
-        SLASH_LITERAL,
-        ONE_CHAR,
-        DOTS_SLASH,
-        NO_DOT,
-        NO_DOT_SLASH,
-        NO_DOTS_SLASH,
-        QMARK,
-        QMARK_NO_DOT,
-        STAR,
-        START_ANCHOR
-      } = PLATFORM_CHARS;
-      const globstar = (opts2) => {
-        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
-      };
-      const nodot = opts.dot ? "" : NO_DOT;
-      const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
-      let star = opts.bash === true ? globstar(opts) : STAR;
-      if (opts.capture) {
-        star = `(${star})`;
-      }
-      if (typeof opts.noext === "boolean") {
-        opts.noextglob = opts.noext;
-      }
-      const state = {
-        input: input2,
-        index: -1,
-        start: 0,
-        dot: opts.dot === true,
-        consumed: "",
-        output: "",
-        prefix: "",
-        backtrack: false,
-        negated: false,
-        brackets: 0,
-        braces: 0,
-        parens: 0,
-        quotes: 0,
-        globstar: false,
-        tokens
-      };
-      input2 = utils.removePrefix(input2, state);
-      len = input2.length;
-      const extglobs = [];
-      const braces = [];
-      const stack = [];
-      let prev = bos;
-      let value;
-      const eos = () => state.index === len - 1;
-      const peek = state.peek = (n = 1) => input2[state.index + n];
-      const advance = state.advance = () => input2[++state.index] || "";
-      const remaining = () => input2.slice(state.index + 1);
-      const consume = (value2 = "", num = 0) => {
-        state.consumed += value2;
-        state.index += num;
-      };
-      const append = (token) => {
-        state.output += token.output != null ? token.output : token.value;
-        consume(token.value);
-      };
-      const negate = () => {
-        let count2 = 1;
-        while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
-          advance();
-          state.start++;
-          count2++;
-        }
-        if (count2 % 2 === 0) {
-          return false;
-        }
-        state.negated = true;
-        state.start++;
-        return true;
-      };
-      const increment = (type) => {
-        state[type]++;
-        stack.push(type);
-      };
-      const decrement = (type) => {
-        state[type]--;
-        stack.pop();
-      };
-      const push = (tok) => {
-        if (prev.type === "globstar") {
-          const isBrace = state.braces > 0 && (tok.type === "comma" || tok.type === "brace");
-          const isExtglob = tok.extglob === true || extglobs.length && (tok.type === "pipe" || tok.type === "paren");
-          if (tok.type !== "slash" && tok.type !== "paren" && !isBrace && !isExtglob) {
-            state.output = state.output.slice(0, -prev.output.length);
-            prev.type = "star";
-            prev.value = "*";
-            prev.output = star;
-            state.output += prev.output;
-          }
-        }
-        if (extglobs.length && tok.type !== "paren") {
-          extglobs[extglobs.length - 1].inner += tok.value;
-        }
-        if (tok.value || tok.output) append(tok);
-        if (prev && prev.type === "text" && tok.type === "text") {
-          prev.output = (prev.output || prev.value) + tok.value;
-          prev.value += tok.value;
-          return;
-        }
-        tok.prev = prev;
-        tokens.push(tok);
-        prev = tok;
-      };
-      const extglobOpen = (type, value2) => {
-        const token = { ...EXTGLOB_CHARS[value2], conditions: 1, inner: "" };
-        token.prev = prev;
-        token.parens = state.parens;
-        token.output = state.output;
-        const output2 = (opts.capture ? "(" : "") + token.open;
-        increment("parens");
-        push({ type, value: value2, output: state.output ? "" : ONE_CHAR });
-        push({ type: "paren", extglob: true, value: advance(), output: output2 });
-        extglobs.push(token);
-      };
-      const extglobClose = (token) => {
-        let output2 = token.close + (opts.capture ? ")" : "");
-        let rest;
-        if (token.type === "negate") {
-          let extglobStar = star;
-          if (token.inner && token.inner.length > 1 && token.inner.includes("/")) {
-            extglobStar = globstar(opts);
-          }
-          if (extglobStar !== star || eos() || /^\)+$/.test(remaining())) {
-            output2 = token.close = `)$))${extglobStar}`;
-          }
-          if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
-            const expression = parse4(rest, { ...options, fastpaths: false }).output;
-            output2 = token.close = `)${expression})${extglobStar})`;
-          }
-          if (token.prev.type === "bos") {
-            state.negatedExtglob = true;
-          }
-        }
-        push({ type: "paren", extglob: true, value, output: output2 });
-        decrement("parens");
-      };
-      if (opts.fastpaths !== false && !/(^[*!]|[/()[\]{}"])/.test(input2)) {
-        let backslashes = false;
-        let output2 = input2.replace(REGEX_SPECIAL_CHARS_BACKREF, (m, esc2, chars, first, rest, index) => {
-          if (first === "\\") {
-            backslashes = true;
-            return m;
-          }
-          if (first === "?") {
-            if (esc2) {
-              return esc2 + first + (rest ? QMARK.repeat(rest.length) : "");
-            }
-            if (index === 0) {
-              return qmarkNoDot + (rest ? QMARK.repeat(rest.length) : "");
-            }
-            return QMARK.repeat(chars.length);
-          }
-          if (first === ".") {
-            return DOT_LITERAL.repeat(chars.length);
-          }
-          if (first === "*") {
-            if (esc2) {
-              return esc2 + first + (rest ? star : "");
-            }
-            return star;
-          }
-          return esc2 ? m : `\\${m}`;
-        });
-        if (backslashes === true) {
-          if (opts.unescape === true) {
-            output2 = output2.replace(/\\/g, "");
-          } else {
-            output2 = output2.replace(/\\+/g, (m) => {
-              return m.length % 2 === 0 ? "\\\\" : m ? "\\" : "";
-            });
-          }
-        }
-        if (output2 === input2 && opts.contains === true) {
-          state.output = input2;
-          return state;
-        }
-        state.output = utils.wrapOutput(output2, state, options);
-        return state;
-      }
-      while (!eos()) {
-        value = advance();
-        if (value === "\0") {
-          continue;
-        }
-        if (value === "\\") {
-          const next = peek();
-          if (next === "/" && opts.bash !== true) {
-            continue;
-          }
-          if (next === "." || next === ";") {
-            continue;
-          }
-          if (!next) {
-            value += "\\";
-            push({ type: "text", value });
-            continue;
-          }
-          const match = /^\\+/.exec(remaining());
-          let slashes = 0;
-          if (match && match[0].length > 2) {
-            slashes = match[0].length;
-            state.index += slashes;
-            if (slashes % 2 !== 0) {
-              value += "\\";
-            }
-          }
-          if (opts.unescape === true) {
-            value = advance();
-          } else {
-            value += advance();
-          }
-          if (state.brackets === 0) {
-            push({ type: "text", value });
-            continue;
-          }
-        }
-        if (state.brackets > 0 && (value !== "]" || prev.value === "[" || prev.value === "[^")) {
-          if (opts.posix !== false && value === ":") {
-            const inner = prev.value.slice(1);
-            if (inner.includes("[")) {
-              prev.posix = true;
-              if (inner.includes(":")) {
-                const idx = prev.value.lastIndexOf("[");
-                const pre = prev.value.slice(0, idx);
-                const rest2 = prev.value.slice(idx + 2);
-                const posix2 = POSIX_REGEX_SOURCE[rest2];
-                if (posix2) {
-                  prev.value = pre + posix2;
-                  state.backtrack = true;
-                  advance();
-                  if (!bos.output && tokens.indexOf(prev) === 1) {
-                    bos.output = ONE_CHAR;
-                  }
-                  continue;
-                }
-              }
-            }
-          }
-          if (value === "[" && peek() !== ":" || value === "-" && peek() === "]") {
-            value = `\\${value}`;
-          }
-          if (value === "]" && (prev.value === "[" || prev.value === "[^")) {
-            value = `\\${value}`;
-          }
-          if (opts.posix === true && value === "!" && prev.value === "[") {
-            value = "^";
-          }
-          prev.value += value;
-          append({ value });
-          continue;
-        }
-        if (state.quotes === 1 && value !== '"') {
-          value = utils.escapeRegex(value);
-          prev.value += value;
-          append({ value });
-          continue;
-        }
-        if (value === '"') {
-          state.quotes = state.quotes === 1 ? 0 : 1;
-          if (opts.keepQuotes === true) {
-            push({ type: "text", value });
-          }
-          continue;
-        }
-        if (value === "(") {
-          increment("parens");
-          push({ type: "paren", value });
-          continue;
-        }
-        if (value === ")") {
-          if (state.parens === 0 && opts.strictBrackets === true) {
-            throw new SyntaxError(syntaxError("opening", "("));
-          }
-          const extglob = extglobs[extglobs.length - 1];
-          if (extglob && state.parens === extglob.parens + 1) {
-            extglobClose(extglobs.pop());
-            continue;
-          }
-          push({ type: "paren", value, output: state.parens ? ")" : "\\)" });
-          decrement("parens");
-          continue;
-        }
-        if (value === "[") {
-          if (opts.nobracket === true || !remaining().includes("]")) {
-            if (opts.nobracket !== true && opts.strictBrackets === true) {
-              throw new SyntaxError(syntaxError("closing", "]"));
-            }
-            value = `\\${value}`;
-          } else {
-            increment("brackets");
-          }
-          push({ type: "bracket", value });
-          continue;
-        }
-        if (value === "]") {
-          if (opts.nobracket === true || prev && prev.type === "bracket" && prev.value.length === 1) {
-            push({ type: "text", value, output: `\\${value}` });
-            continue;
-          }
-          if (state.brackets === 0) {
-            if (opts.strictBrackets === true) {
-              throw new SyntaxError(syntaxError("opening", "["));
-            }
-            push({ type: "text", value, output: `\\${value}` });
-            continue;
-          }
-          decrement("brackets");
-          const prevValue = prev.value.slice(1);
-          if (prev.posix !== true && prevValue[0] === "^" && !prevValue.includes("/")) {
-            value = `/${value}`;
-          }
-          prev.value += value;
-          append({ value });
-          if (opts.literalBrackets === false || utils.hasRegexChars(prevValue)) {
-            continue;
-          }
-          const escaped = utils.escapeRegex(prev.value);
-          state.output = state.output.slice(0, -prev.value.length);
-          if (opts.literalBrackets === true) {
-            state.output += escaped;
-            prev.value = escaped;
-            continue;
-          }
-          prev.value = `(${capture}${escaped}|${prev.value})`;
-          state.output += prev.value;
-          continue;
-        }
-        if (value === "{" && opts.nobrace !== true) {
-          increment("braces");
-          const open2 = {
-            type: "brace",
-            value,
-            output: "(",
-            outputIndex: state.output.length,
-            tokensIndex: state.tokens.length
-          };
-          braces.push(open2);
-          push(open2);
-          continue;
-        }
-        if (value === "}") {
-          const brace = braces[braces.length - 1];
-          if (opts.nobrace === true || !brace) {
-            push({ type: "text", value, output: value });
-            continue;
-          }
-          let output2 = ")";
-          if (brace.dots === true) {
-            const arr = tokens.slice();
-            const range = [];
-            for (let i = arr.length - 1; i >= 0; i--) {
-              tokens.pop();
-              if (arr[i].type === "brace") {
-                break;
-              }
-              if (arr[i].type !== "dots") {
-                range.unshift(arr[i].value);
-              }
-            }
-            output2 = expandRange(range, opts);
-            state.backtrack = true;
-          }
-          if (brace.comma !== true && brace.dots !== true) {
-            const out = state.output.slice(0, brace.outputIndex);
-            const toks = state.tokens.slice(brace.tokensIndex);
-            brace.value = brace.output = "\\{";
-            value = output2 = "\\}";
-            state.output = out;
-            for (const t of toks) {
-              state.output += t.output || t.value;
-            }
-          }
-          push({ type: "brace", value, output: output2 });
-          decrement("braces");
-          braces.pop();
-          continue;
-        }
-        if (value === "|") {
-          if (extglobs.length > 0) {
-            extglobs[extglobs.length - 1].conditions++;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (value === ",") {
-          let output2 = value;
-          const brace = braces[braces.length - 1];
-          if (brace && stack[stack.length - 1] === "braces") {
-            brace.comma = true;
-            output2 = "|";
-          }
-          push({ type: "comma", value, output: output2 });
-          continue;
-        }
-        if (value === "/") {
-          if (prev.type === "dot" && state.index === state.start + 1) {
-            state.start = state.index + 1;
-            state.consumed = "";
-            state.output = "";
-            tokens.pop();
-            prev = bos;
-            continue;
-          }
-          push({ type: "slash", value, output: SLASH_LITERAL });
-          continue;
-        }
-        if (value === ".") {
-          if (state.braces > 0 && prev.type === "dot") {
-            if (prev.value === ".") prev.output = DOT_LITERAL;
-            const brace = braces[braces.length - 1];
-            prev.type = "dots";
-            prev.output += value;
-            prev.value += value;
-            brace.dots = true;
-            continue;
-          }
-          if (state.braces + state.parens === 0 && prev.type !== "bos" && prev.type !== "slash") {
-            push({ type: "text", value, output: DOT_LITERAL });
-            continue;
-          }
-          push({ type: "dot", value, output: DOT_LITERAL });
-          continue;
-        }
-        if (value === "?") {
-          const isGroup = prev && prev.value === "(";
-          if (!isGroup && opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            extglobOpen("qmark", value);
-            continue;
-          }
-          if (prev && prev.type === "paren") {
-            const next = peek();
-            let output2 = value;
-            if (prev.value === "(" && !/[!=<:]/.test(next) || next === "<" && !/<([!=]|\w+>)/.test(remaining())) {
-              output2 = `\\${value}`;
-            }
-            push({ type: "text", value, output: output2 });
-            continue;
-          }
-          if (opts.dot !== true && (prev.type === "slash" || prev.type === "bos")) {
-            push({ type: "qmark", value, output: QMARK_NO_DOT });
-            continue;
-          }
-          push({ type: "qmark", value, output: QMARK });
-          continue;
-        }
-        if (value === "!") {
-          if (opts.noextglob !== true && peek() === "(") {
-            if (peek(2) !== "?" || !/[!=<:]/.test(peek(3))) {
-              extglobOpen("negate", value);
-              continue;
-            }
-          }
-          if (opts.nonegate !== true && state.index === 0) {
-            negate();
-            continue;
-          }
-        }
-        if (value === "+") {
-          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            extglobOpen("plus", value);
-            continue;
-          }
-          if (prev && prev.value === "(" || opts.regex === false) {
-            push({ type: "plus", value, output: PLUS_LITERAL });
-            continue;
-          }
-          if (prev && (prev.type === "bracket" || prev.type === "paren" || prev.type === "brace") || state.parens > 0) {
-            push({ type: "plus", value });
-            continue;
-          }
-          push({ type: "plus", value: PLUS_LITERAL });
-          continue;
-        }
-        if (value === "@") {
-          if (opts.noextglob !== true && peek() === "(" && peek(2) !== "?") {
-            push({ type: "at", extglob: true, value, output: "" });
-            continue;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (value !== "*") {
-          if (value === "$" || value === "^") {
-            value = `\\${value}`;
-          }
-          const match = REGEX_NON_SPECIAL_CHARS.exec(remaining());
-          if (match) {
-            value += match[0];
-            state.index += match[0].length;
-          }
-          push({ type: "text", value });
-          continue;
-        }
-        if (prev && (prev.type === "globstar" || prev.star === true)) {
-          prev.type = "star";
-          prev.star = true;
-          prev.value += value;
-          prev.output = star;
-          state.backtrack = true;
-          state.globstar = true;
-          consume(value);
-          continue;
-        }
-        let rest = remaining();
-        if (opts.noextglob !== true && /^\([^?]/.test(rest)) {
-          extglobOpen("star", value);
-          continue;
-        }
-        if (prev.type === "star") {
-          if (opts.noglobstar === true) {
-            consume(value);
-            continue;
-          }
-          const prior = prev.prev;
-          const before = prior.prev;
-          const isStart = prior.type === "slash" || prior.type === "bos";
-          const afterStar = before && (before.type === "star" || before.type === "globstar");
-          if (opts.bash === true && (!isStart || rest[0] && rest[0] !== "/")) {
-            push({ type: "star", value, output: "" });
-            continue;
-          }
-          const isBrace = state.braces > 0 && (prior.type === "comma" || prior.type === "brace");
-          const isExtglob = extglobs.length && (prior.type === "pipe" || prior.type === "paren");
-          if (!isStart && prior.type !== "paren" && !isBrace && !isExtglob) {
-            push({ type: "star", value, output: "" });
-            continue;
-          }
-          while (rest.slice(0, 3) === "/**") {
-            const after = input2[state.index + 4];
-            if (after && after !== "/") {
-              break;
-            }
-            rest = rest.slice(3);
-            consume("/**", 3);
-          }
-          if (prior.type === "bos" && eos()) {
-            prev.type = "globstar";
-            prev.value += value;
-            prev.output = globstar(opts);
-            state.output = prev.output;
-            state.globstar = true;
-            consume(value);
-            continue;
-          }
-          if (prior.type === "slash" && prior.prev.type !== "bos" && !afterStar && eos()) {
-            state.output = state.output.slice(0, -(prior.output + prev.output).length);
-            prior.output = `(?:${prior.output}`;
-            prev.type = "globstar";
-            prev.output = globstar(opts) + (opts.strictSlashes ? ")" : "|$)");
-            prev.value += value;
-            state.globstar = true;
-            state.output += prior.output + prev.output;
-            consume(value);
-            continue;
-          }
-          if (prior.type === "slash" && prior.prev.type !== "bos" && rest[0] === "/") {
-            const end = rest[1] !== void 0 ? "|$" : "";
-            state.output = state.output.slice(0, -(prior.output + prev.output).length);
-            prior.output = `(?:${prior.output}`;
-            prev.type = "globstar";
-            prev.output = `${globstar(opts)}${SLASH_LITERAL}|${SLASH_LITERAL}${end})`;
-            prev.value += value;
-            state.output += prior.output + prev.output;
-            state.globstar = true;
-            consume(value + advance());
-            push({ type: "slash", value: "/", output: "" });
-            continue;
-          }
-          if (prior.type === "bos" && rest[0] === "/") {
-            prev.type = "globstar";
-            prev.value += value;
-            prev.output = `(?:^|${SLASH_LITERAL}|${globstar(opts)}${SLASH_LITERAL})`;
-            state.output = prev.output;
-            state.globstar = true;
-            consume(value + advance());
-            push({ type: "slash", value: "/", output: "" });
-            continue;
-          }
-          state.output = state.output.slice(0, -prev.output.length);
-          prev.type = "globstar";
-          prev.output = globstar(opts);
-          prev.value += value;
-          state.output += prev.output;
-          state.globstar = true;
-          consume(value);
-          continue;
-        }
-        const token = { type: "star", value, output: star };
-        if (opts.bash === true) {
-          token.output = ".*?";
-          if (prev.type === "bos" || prev.type === "slash") {
-            token.output = nodot + token.output;
-          }
-          push(token);
-          continue;
-        }
-        if (prev && (prev.type === "bracket" || prev.type === "paren") && opts.regex === true) {
-          token.output = value;
-          push(token);
-          continue;
-        }
-        if (state.index === state.start || prev.type === "slash" || prev.type === "dot") {
-          if (prev.type === "dot") {
-            state.output += NO_DOT_SLASH;
-            prev.output += NO_DOT_SLASH;
-          } else if (opts.dot === true) {
-            state.output += NO_DOTS_SLASH;
-            prev.output += NO_DOTS_SLASH;
-          } else {
-            state.output += nodot;
-            prev.output += nodot;
-          }
-          if (peek() !== "*") {
-            state.output += ONE_CHAR;
-            prev.output += ONE_CHAR;
-          }
-        }
-        push(token);
-      }
-      while (state.brackets > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "]"));
-        state.output = utils.escapeLast(state.output, "[");
-        decrement("brackets");
-      }
-      while (state.parens > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", ")"));
-        state.output = utils.escapeLast(state.output, "(");
-        decrement("parens");
-      }
-      while (state.braces > 0) {
-        if (opts.strictBrackets === true) throw new SyntaxError(syntaxError("closing", "}"));
-        state.output = utils.escapeLast(state.output, "{");
-        decrement("braces");
-      }
-      if (opts.strictSlashes !== true && (prev.type === "star" || prev.type === "bracket")) {
-        push({ type: "maybe_slash", value: "", output: `${SLASH_LITERAL}?` });
-      }
-      if (state.backtrack === true) {
-        state.output = "";
-        for (const token of state.tokens) {
-          state.output += token.output != null ? token.output : token.value;
-          if (token.suffix) {
-            state.output += token.suffix;
-          }
-        }
-      }
-      return state;
-    };
-    parse4.fastpaths = (input2, options) => {
-      const opts = { ...options };
-      const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
-      const len = input2.length;
-      if (len > max) {
-        throw new SyntaxError(`Input length: ${len}, exceeds maximum allowed length: ${max}`);
-      }
-      input2 = REPLACEMENTS[input2] || input2;
-      const {
-        DOT_LITERAL,
-        SLASH_LITERAL,
-        ONE_CHAR,
-        DOTS_SLASH,
-        NO_DOT,
-        NO_DOTS,
-        NO_DOTS_SLASH,
-        STAR,
-        START_ANCHOR
-      } = constants.globChars(opts.windows);
-      const nodot = opts.dot ? NO_DOTS : NO_DOT;
-      const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
-      const capture = opts.capture ? "" : "?:";
-      const state = { negated: false, prefix: "" };
-      let star = opts.bash === true ? ".*?" : STAR;
-      if (opts.capture) {
-        star = `(${star})`;
-      }
-      const globstar = (opts2) => {
-        if (opts2.noglobstar === true) return star;
-        return `(${capture}(?:(?!${START_ANCHOR}${opts2.dot ? DOTS_SLASH : DOT_LITERAL}).)*?)`;
-      };
-      const create = (str) => {
-        switch (str) {
-          case "*":
-            return `${nodot}${ONE_CHAR}${star}`;
-          case ".*":
-            return `${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "*.*":
-            return `${nodot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "*/*":
-            return `${nodot}${star}${SLASH_LITERAL}${ONE_CHAR}${slashDot}${star}`;
-          case "**":
-            return nodot + globstar(opts);
-          case "**/*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${ONE_CHAR}${star}`;
-          case "**/*.*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${slashDot}${star}${DOT_LITERAL}${ONE_CHAR}${star}`;
-          case "**/.*":
-            return `(?:${nodot}${globstar(opts)}${SLASH_LITERAL})?${DOT_LITERAL}${ONE_CHAR}${star}`;
-          default: {
-            const match = /^(.*?)\.(\w+)$/.exec(str);
-            if (!match) return;
-            const source2 = create(match[1]);
-            if (!source2) return;
-            return source2 + DOT_LITERAL + match[2];
-          }
-        }
-      };
-      const output2 = utils.removePrefix(input2, state);
-      let source = create(output2);
-      if (source && opts.strictSlashes !== true) {
-        source += `${SLASH_LITERAL}?`;
-      }
-      return source;
-    };
-    module.exports = parse4;
-  }
-});
-
-// ../main/node_modules/picomatch/lib/picomatch.js
-var require_picomatch = __commonJS({
-  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
-    "use strict";
-    var scan = require_scan();
-    var parse4 = require_parse();
-    var utils = require_utils();
-    var constants = require_constants();
-    var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch5 = (glob, options, returnState = false) => {
-      if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
-        const arrayMatcher = (str) => {
-          for (const isMatch of fns) {
-            const state2 = isMatch(str);
-            if (state2) return state2;
-          }
-          return false;
-        };
-        return arrayMatcher;
-      }
-      const isState = isObject2(glob) && glob.tokens && glob.input;
-      if (glob === "" || typeof glob !== "string" && !isState) {
-        throw new TypeError("Expected pattern to be a non-empty string");
-      }
-      const opts = options || {};
-      const posix2 = opts.windows;
-      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
-      const state = regex.state;
-      delete regex.state;
-      let isIgnored = () => false;
-      if (opts.ignore) {
-        const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
-      }
-      const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
-        const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
-        if (typeof opts.onResult === "function") {
-          opts.onResult(result);
-        }
-        if (isMatch === false) {
-          result.isMatch = false;
-          return returnObject ? result : false;
-        }
-        if (isIgnored(input2)) {
-          if (typeof opts.onIgnore === "function") {
-            opts.onIgnore(result);
-          }
-          result.isMatch = false;
-          return returnObject ? result : false;
-        }
-        if (typeof opts.onMatch === "function") {
-          opts.onMatch(result);
-        }
-        return returnObject ? result : true;
-      };
-      if (returnState) {
-        matcher.state = state;
-      }
-      return matcher;
-    };
-    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
-      if (typeof input2 !== "string") {
-        throw new TypeError("Expected input to be a string");
-      }
-      if (input2 === "") {
-        return { isMatch: false, output: "" };
-      }
-      const opts = options || {};
-      const format = opts.format || (posix2 ? utils.toPosixSlashes : null);
-      let match = input2 === glob;
-      let output2 = match && format ? format(input2) : input2;
-      if (match === false) {
-        output2 = format ? format(input2) : input2;
-        match = output2 === glob;
-      }
-      if (match === false || opts.capture === true) {
-        if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch5.matchBase(input2, regex, options, posix2);
-        } else {
-          match = regex.exec(output2);
-        }
-      }
-      return { isMatch: Boolean(match), match, output: output2 };
-    };
-    picomatch5.matchBase = (input2, glob, options) => {
-      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
-      return regex.test(utils.basename(input2));
-    };
-    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
-    picomatch5.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
-      return parse4(pattern, { ...options, fastpaths: false });
-    };
-    picomatch5.scan = (input2, options) => scan(input2, options);
-    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
-      if (returnOutput === true) {
-        return state.output;
-      }
-      const opts = options || {};
-      const prepend = opts.contains ? "" : "^";
-      const append = opts.contains ? "" : "$";
-      let source = `${prepend}(?:${state.output})${append}`;
-      if (state && state.negated === true) {
-        source = `^(?!${source}).*$`;
-      }
-      const regex = picomatch5.toRegex(source, options);
-      if (returnState === true) {
-        regex.state = state;
-      }
-      return regex;
-    };
-    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
-      if (!input2 || typeof input2 !== "string") {
-        throw new TypeError("Expected a non-empty string");
-      }
-      let parsed = { negated: false, fastpaths: true };
-      if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
-        parsed.output = parse4.fastpaths(input2, options);
-      }
-      if (!parsed.output) {
-        parsed = parse4(input2, options);
-      }
-      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
-    };
-    picomatch5.toRegex = (source, options) => {
-      try {
-        const opts = options || {};
-        return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
-      } catch (err) {
-        if (options && options.debug === true) throw err;
-        return /$^/;
-      }
-    };
-    picomatch5.constants = constants;
-    module.exports = picomatch5;
-  }
-});
-
-// ../main/node_modules/picomatch/index.js
-var require_picomatch2 = __commonJS({
-  "../main/node_modules/picomatch/index.js"(exports, module) {
-    "use strict";
-    var pico = require_picomatch();
-    var utils = require_utils();
-    function picomatch5(glob, options, returnState = false) {
-      if (options && (options.windows === null || options.windows === void 0)) {
-        options = { ...options, windows: utils.isWindows() };
-      }
-      return pico(glob, options, returnState);
-    }
-    Object.assign(picomatch5, pico);
-    module.exports = picomatch5;
-  }
-});
-
-// src/cli/main.ts
-import { resolve as resolve2 } from "node:path";
-
 // ../main/node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
 var {
@@ -16185,11 +16182,6 @@ var {
   Option,
   Help
 } = import_index.default;
-
-// src/adapters/files.ts
-import { mkdir, readdir, readFile, rename, rm, writeFile } from "node:fs/promises";
-import { dirname, join, relative, sep } from "node:path";
-import { randomBytes } from "node:crypto";
 
 // src/errors.ts
 var UsageError = class extends Error {
@@ -16210,7 +16202,151 @@ var ExternalError = class extends Error {
 };
 var BUG_REPORT_HINT = "This is a bug in Plumbline, not in your files. Please open an issue with the command you ran and the output above.";
 
+// src/version.ts
+var VERSION = "0.1.0";
+
+// src/core/report/numbers.ts
+var NOT_A_NUMBER = "n/a";
+function formatCount(n) {
+  if (!Number.isFinite(n)) return NOT_A_NUMBER;
+  if (Math.abs(n) >= 1e15) {
+    const [mantissa, exponent] = n.toExponential(2).split("e");
+    return `${mantissa} \xD7 10^${Number(exponent)}`;
+  }
+  return Math.round(n).toLocaleString("en-US");
+}
+function formatRate(rate) {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  const percent2 = rate * 100;
+  const digits = Math.abs(percent2) >= 10 ? 1 : Math.abs(percent2) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent2) || 1)));
+  return `${percent2.toFixed(Math.min(digits, 4))}%`;
+}
+function formatRelative(change2) {
+  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
+  const percent2 = change2 * 100;
+  const text2 = Number(percent2.toPrecision(3)).toString();
+  return `${percent2 >= 0 ? "+" : ""}${text2}%`;
+}
+function formatValue(value) {
+  if (!Number.isFinite(value)) return NOT_A_NUMBER;
+  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
+  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+}
+function formatPower(power) {
+  if (!Number.isFinite(power)) return NOT_A_NUMBER;
+  if (power > 0.999) return ">99.9%";
+  if (power < 1e-3) return "<0.1%";
+  return `${(power * 100).toFixed(1)}%`;
+}
+function formatMultiplier(m) {
+  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+function countOf(n, singular, plural2 = `${singular}s`) {
+  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural2}`;
+}
+function formatWeeks(duration3, why) {
+  return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
+}
+
+// src/core/report/terminal-style.ts
+function terminalStyle(color) {
+  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
+  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
+}
+function terminalSafe(text2) {
+  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
+}
+function formatTable(header, rows2) {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
+  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
+  return [line(header), ...rows2.map(line)].join("\n");
+}
+
+// src/core/report/readout.ts
+var SRM_JSON_FORMAT = "plumbline.srm/1";
+var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
+function formatP(p) {
+  if (p < 1e-12) return "< 1e-12";
+  return p < 1e-3 ? p.toExponential(2) : p.toFixed(4);
+}
+function renderSrmText(check3, observed, weights, threshold) {
+  const total = observed.reduce((a, b) => a + b, 0);
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const rows2 = observed.map((o, i) => [
+    `arm ${i + 1}`,
+    `${(weights[i] / weightSum * 100).toFixed(1)}%`,
+    formatCount(o),
+    formatCount(check3.expected[i]),
+    `${(o / total * 100).toFixed(2)}%`
+  ]);
+  const verdict = check3.mismatch ? `Sample ratio mismatch: p = ${formatP(check3.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check3.pValue)} (alarm below ${threshold}).`;
+  return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check3.statistic.toFixed(3)} on ${check3.degreesOfFreedom} df. ${verdict}`].join("\n");
+}
+function renderAdjustedText(pValues, adjusted, q) {
+  const { benjaminiHochberg: bh, holm, bonferroni: bonferroni2 } = adjusted;
+  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(holm[i]), holm[i] <= q ? "yes" : "no", formatP(bonferroni2[i]), bonferroni2[i] <= q ? "yes" : "no"]);
+  const found = (list2) => list2.filter((x) => x <= q).length;
+  return [
+    formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "HOLM", `HOLM \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
+    "",
+    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Holm (any false alarm, step-down) finds ${found(holm)}; Bonferroni (any false alarm) finds ${found(bonferroni2)}.`
+  ].join("\n");
+}
+
+// src/core/stats/result.ts
+var ok = (value) => ({ ok: true, value });
+var fail = (input2, message) => ({ ok: false, error: { input: input2, message } });
+function finite(value, input2, what) {
+  return Number.isFinite(value) ? ok(value) : fail(input2, `${what} cannot be computed for these inputs`);
+}
+
+// src/core/stats/multiple-testing.ts
+function benjaminiHochberg(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
+  const adjusted = new Array(m);
+  let running = 1;
+  order.forEach(({ p, i }, rankFromTop) => {
+    const rank = m - rankFromTop;
+    running = Math.min(running, p * m / rank);
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+function bonferroniAdjust(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
+}
+function holmAdjust(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => a.p - b.p);
+  const adjusted = new Array(m);
+  let running = 0;
+  order.forEach(({ p, i }, rank) => {
+    running = Math.max(running, Math.min(1, (m - rank) * p));
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+function adjustPValues(pValues) {
+  const bh = benjaminiHochberg(pValues);
+  const holm = holmAdjust(pValues);
+  const bonferroni2 = bonferroniAdjust(pValues);
+  if (!bh.ok) return bh;
+  if (!holm.ok) return holm;
+  if (!bonferroni2.ok) return bonferroni2;
+  return ok({ benjaminiHochberg: bh.value, holm: holm.value, bonferroni: bonferroni2.value });
+}
+
+// src/cli/common.ts
+import { resolve } from "node:path";
+
 // src/adapters/files.ts
+import { mkdir, readdir, readFile, rename, rm, writeFile } from "node:fs/promises";
+import { dirname, join, relative, sep } from "node:path";
+import { randomBytes } from "node:crypto";
 var SKIPPED_FOLDERS = /* @__PURE__ */ new Set([".git", "node_modules"]);
 function createRepoFiles(root) {
   const readText = async (path) => {
@@ -16272,6 +16408,751 @@ async function writeFileAtomic(path, text2, options) {
 }
 function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
+}
+
+// src/core/source/problem.ts
+function formatProblem(problem) {
+  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
+  const field2 = problem.field ? `${problem.field}: ` : "";
+  const detail = [
+    problem.expected ? `expected ${problem.expected}` : "",
+    problem.found ? `found ${problem.found}` : ""
+  ].filter(Boolean).join("; ");
+  return `${where2}: ${problem.severity}: ${field2}${problem.message}${detail ? ` (${detail})` : ""}`;
+}
+function sortProblems(problems) {
+  return [...problems].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
+  );
+}
+function describeValue(value) {
+  if (value === void 0) return "nothing";
+  if (value === null) return "an empty value";
+  if (typeof value === "string") {
+    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
+    return `the text ${JSON.stringify(shown)}`;
+  }
+  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
+  if (typeof value === "boolean") return `${value}`;
+  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
+  if (typeof value === "object") return "a mapping of keys";
+  return typeof value;
+}
+
+// src/cli/output.ts
+function createCliOutput(options) {
+  const env = process.env;
+  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
+  const interactive = process.stderr.isTTY === true && env.CI !== "true";
+  let drawn = false;
+  return {
+    color,
+    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    progress(done, total, what) {
+      if (!interactive || total < 200) return;
+      if (done < total) {
+        if (done % 50 === 0) {
+          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
+          drawn = true;
+        }
+      } else if (drawn) {
+        process.stderr.write("\r\x1B[2K");
+        drawn = false;
+      }
+    }
+  };
+}
+
+// src/cli/common.ts
+var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
+var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
+function context(options) {
+  const output2 = createCliOutput({ noColorFlag: !options.color });
+  const files = createRepoFiles(resolve(options.cwd));
+  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
+}
+function reportSettingsProblems(output2, format, file2, problems) {
+  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
+  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
+  return EXIT.usage;
+}
+function parseNumbers(what, texts) {
+  return texts.map((text2) => {
+    const value = Number(text2);
+    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
+    return value;
+  });
+}
+
+// src/cli/adjust-command.ts
+function addAdjustCommand(program2, setExit) {
+  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
+    const p = parseNumbers("p-values", values);
+    const q = parseNumbers("q", [local.q])[0];
+    const adjusted = adjustPValues(p);
+    if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
+    const output2 = createCliOutput({ noColorFlag: true });
+    output2.out(local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
+    setExit(EXIT.ok);
+  });
+}
+
+// src/cli/check-command.ts
+import { readFile as readFile2 } from "node:fs/promises";
+
+// src/adapters/git.ts
+import { spawn } from "node:child_process";
+import { closeSync, fstatSync, openSync, readSync } from "node:fs";
+import { join as join2 } from "node:path";
+function runGit(cwd, args, options = {}) {
+  return new Promise((resolve5, reject) => {
+    const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
+      cwd,
+      stdio: ["pipe", "pipe", "pipe"]
+    });
+    const out = [];
+    const err = [];
+    child.stdout.on("data", (chunk) => out.push(chunk));
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on(
+      "error",
+      (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
+    );
+    child.on("close", (code) => {
+      if (code === 0 || options.allow?.includes(code ?? -1)) resolve5(Buffer.concat(out));
+      else {
+        const stderr = Buffer.concat(err).toString("utf8").trim();
+        reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
+      }
+    });
+    child.stdin.on("error", () => void 0);
+    child.stdin.end(options.input ?? "");
+  });
+}
+function hintFor(stderr) {
+  if (/not a git repository/i.test(stderr)) return "run plumbline inside a git repository, or pass --cwd";
+  if (/unknown revision|bad revision|Needed a single revision|invalid object name/i.test(stderr)) {
+    return "check --base and --head; in a shallow clone (actions/checkout fetches one commit by default) fetch more history, e.g. fetch-depth: 0";
+  }
+  return void 0;
+}
+async function resolveCommit(cwd, ref, flag) {
+  try {
+    return (await runGit(cwd, ["rev-parse", "--verify", "--end-of-options", `${ref}^{commit}`])).toString("utf8").trim();
+  } catch (error62) {
+    const hint = error62 instanceof ExternalError ? error62.hint : void 0;
+    throw new ExternalError(`${flag} ${ref} is not a commit in this repository`, hint ?? "check the ref name", { cause: error62 });
+  }
+}
+async function openChange(repoDir, baseRef, headRef) {
+  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, "--head"), resolveCommit(repoDir, baseRef, "--base")]);
+  const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
+  const base = mergeBase || baseTip;
+  const commitOf = (side) => side === "base" ? base : head;
+  const checkedOutIsHead = (async () => {
+    const current = (await runGit(repoDir, ["rev-parse", "--verify", "--quiet", "HEAD"], { allow: [1] })).toString("utf8").trim();
+    if (current !== head) return false;
+    return runGit(repoDir, ["diff", "--quiet", "HEAD", "--"]).then(
+      () => true,
+      () => false
+    );
+  })();
+  const trackedCache = /* @__PURE__ */ new Map();
+  const trackedFiles = (side) => {
+    const commit = commitOf(side);
+    let cached4 = trackedCache.get(commit);
+    if (!cached4) {
+      cached4 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
+      trackedCache.set(commit, cached4);
+    }
+    return cached4;
+  };
+  const streamFiles = async (side, paths, onFile) => {
+    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
+    return catFiles(repoDir, commitOf(side), paths, onFile);
+  };
+  const filesAt = (side) => {
+    const readTexts = async (paths) => {
+      const found = /* @__PURE__ */ new Map();
+      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString("utf8")));
+      return paths.map((p) => found.get(p));
+    };
+    return {
+      async listFiles(folder) {
+        const prefix = folder === "" || folder === "." ? "" : `${folder.replace(/\/+$/, "")}/`;
+        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
+      },
+      async readText(path) {
+        return (await readTexts([path]))[0];
+      },
+      readTexts
+    };
+  };
+  return {
+    base,
+    head,
+    async changedFiles() {
+      const out = (await runGit(repoDir, ["diff", "--name-status", "-z", "-M", base, head])).toString("utf8");
+      return parseNameStatus(out);
+    },
+    async diff() {
+      return (await runGit(repoDir, ["diff", "--unified=0", "--no-ext-diff", "--no-textconv", "-M", "--src-prefix=a/", "--dst-prefix=b/", base, head])).toString("utf8");
+    },
+    filesAt,
+    streamFiles,
+    trackedFiles
+  };
+}
+function parseNameStatus(out) {
+  const parts = out.split("\0").filter((p) => p !== "");
+  const files = [];
+  for (let i = 0; i < parts.length; ) {
+    const code = parts[i++];
+    if (code.startsWith("R") || code.startsWith("C")) {
+      const previousPath = parts[i++];
+      const path = parts[i++];
+      files.push({ path, status: "renamed", previousPath });
+    } else {
+      const path = parts[i++];
+      files.push({ path, status: code === "A" ? "added" : code === "D" ? "deleted" : "modified" });
+    }
+  }
+  return files;
+}
+function catFiles(cwd, commit, paths, onFile) {
+  const asked = paths.filter((p) => !p.includes("\n"));
+  if (asked.length === 0) return Promise.resolve();
+  return new Promise((resolve5, reject) => {
+    const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
+    let index = 0;
+    let pending = Buffer.alloc(0);
+    let current;
+    const err = [];
+    child.stdout.on("data", (chunk) => {
+      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
+      for (; ; ) {
+        if (!current) {
+          const newline = pending.indexOf(10);
+          if (newline < 0) return;
+          const header = pending.subarray(0, newline).toString("utf8");
+          pending = pending.subarray(newline + 1);
+          if (header.endsWith(" missing") || header.endsWith(" ambiguous")) {
+            index++;
+            continue;
+          }
+          const size = Number(header.slice(header.lastIndexOf(" ") + 1));
+          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(" blob ") };
+        }
+        if (pending.length < current.size + 1) return;
+        if (current.deliver) onFile(asked[index], pending.subarray(0, current.size));
+        pending = pending.subarray(current.size + 1);
+        index++;
+        current = void 0;
+      }
+    });
+    child.stderr.on("data", (chunk) => err.push(chunk));
+    child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
+    child.on("close", (code) => {
+      if (code === 0) resolve5();
+      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
+    });
+    child.stdin.on("error", () => void 0);
+    child.stdin.end(asked.map((p) => `${commit}:${p}
+`).join(""));
+  });
+}
+async function readWorkingTree(root, paths, onFile) {
+  let buffer = Buffer.allocUnsafe(1 << 20);
+  for (const path of paths) {
+    let fd;
+    try {
+      fd = openSync(join2(root, path), "r");
+      const size = fstatSync(fd).size;
+      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
+      let read = 0;
+      while (read < size) {
+        const n = readSync(fd, buffer, read, size - read, read);
+        if (n === 0) break;
+        read += n;
+      }
+      onFile(path, buffer.subarray(0, read));
+    } catch {
+    } finally {
+      if (fd !== void 0) closeSync(fd);
+    }
+  }
+}
+
+// src/core/report/markdown-safe.ts
+var ZERO_WIDTH_SPACE = "\u200B";
+function inert(text2) {
+  return text2.replace(/@(?=[A-Za-z0-9_-])/g, `@${ZERO_WIDTH_SPACE}`).replace(/#(?=\d)/g, `#${ZERO_WIDTH_SPACE}`);
+}
+function oneLine(text2) {
+  return text2.replace(/\r\n?|\n/g, " ");
+}
+function escapePlain(text2) {
+  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
+}
+function escapeCode(text2) {
+  return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
+}
+function safeText(text2) {
+  return escapePlain(oneLine(text2));
+}
+function safeMessage(text2) {
+  const clean = oneLine(text2);
+  let out = "";
+  let at = 0;
+  const runs = [...clean.matchAll(/`+/g)];
+  for (let i = 0; i < runs.length; i++) {
+    const open2 = runs[i];
+    if (open2.index < at) continue;
+    const close = runs.slice(i + 1).find((r) => r[0].length === open2[0].length);
+    out += escapePlain(clean.slice(at, open2.index));
+    if (!close) {
+      out += open2[0].replace(/`/g, "\\`");
+      at = open2.index + open2[0].length;
+      continue;
+    }
+    const inner = clean.slice(open2.index + open2[0].length, close.index);
+    out += `${open2[0]}${escapeCode(inner)}${close[0]}`;
+    at = close.index + close[0].length;
+    i = runs.indexOf(close);
+  }
+  return out + escapePlain(clean.slice(at));
+}
+function inCell(markdown) {
+  return markdown.replace(/\|/g, "\\|");
+}
+function safeCell(text2) {
+  return inCell(safeText(text2));
+}
+function codeSpan(text2) {
+  const clean = escapeCode(oneLine(text2));
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") || /^ .* $/.test(clean) ? " " : "";
+  return clean === "" ? "` `" : `${fence}${pad}${clean}${pad}${fence}`;
+}
+function codeCell(text2) {
+  return inCell(codeSpan(text2));
+}
+function urlPath(path) {
+  return path.split("/").map((segment) => encodeURIComponent(segment).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)).join("/");
+}
+function linkTarget(url2) {
+  return url2.replace(/[^A-Za-z0-9\-._~:/?#[\]@!$&'*+,;=%]/gu, (c) => encodeURIComponent(c)).replace(/[()'!*[\]]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+}
+
+// src/core/report/coverage-notice.ts
+function coverageNotice(review) {
+  const unseen = review.partial;
+  if (!unseen) return [];
+  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
+  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
+}
+
+// src/core/report/review-summary.ts
+function checklistSummary(items) {
+  const held = items.filter((i) => i.done).length;
+  return { count: `${formatCount(held)} of ${formatCount(items.length)} ${held === 1 ? "holds" : "hold"}`, failing: items.filter((i) => !i.done).map((i) => i.label) };
+}
+
+// src/core/report/sizing.ts
+var SIZING_JSON_FORMAT = "plumbline.sizing/1";
+function valueText(entry, value) {
+  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function describeChange(entry, change2, from) {
+  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
+  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
+}
+function sizeCells(size) {
+  if (!size) return ["", "", "", ""];
+  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
+  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : "", size.duration ? formatCount(size.duration.weeks) : ""];
+}
+function rows(sizing) {
+  return sizing.metrics.map((entry) => {
+    const role = entry.role === "guardrail" ? `guardrail (non-inferiority, \u03B1 ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
+    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
+    const s = entry.result.value;
+    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
+    const end = s.atPlannedEnd;
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
+  });
+}
+var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
+function multiplierNotes(entry, sizing) {
+  const m = sizing.multipliers;
+  const out = [];
+  if (sizing.traffic?.kind === "unique" && entry.role === "primary") {
+    const [a, b] = sizing.traffic.points;
+    out.push(`Traffic as people arrive: ${formatCount(a.units)} different units in ${a.days} days and ${formatCount(b.units)} in ${b.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
+  }
+  if (entry.role === "guardrail" && sizing.effect) {
+    out.push(
+      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`
+    );
+  }
+  if (entry.guardrailLooks) {
+    out.push(`The interim boundaries are the primary\u2019s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail\u2019s harm check is its own one-sided test at \u03B1 ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
+  }
+  if (sizing.feasibility && !sizing.feasibility.feasible) {
+    const f = sizing.feasibility;
+    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : "";
+    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
+  }
+  if (sizing.squareRootAllocation) {
+    const a = sizing.squareRootAllocation;
+    out.push(`Several arms share one control: giving the control \u221Ak times a treatment arm\u2019s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
+  }
+  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
+  if (m.designEffect > 1) {
+    const perArm = sizing.headline?.clustersPerArm;
+    const groups2 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
+    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups2}.`);
+  }
+  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
+  if (sizing.boundaries) {
+    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
+    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
+  }
+  if (sizing.diluted && sizing.triggered) {
+    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, "day")})` : "";
+    out.push(
+      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
+    );
+  }
+  return out.map((text2) => `${entry.metric}: ${text2}`);
+}
+function notesOf(sizing) {
+  const family = sizing.family ? [
+    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
+  ] : [];
+  return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
+}
+function windowLine(sizing, context2) {
+  if (sizing.plannedDays !== void 0) {
+    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
+    return `Planned window: ${countOf(sizing.plannedDays, "day")}${dates}.`;
+  }
+  return "Planned window: not set, so power and detectable effect at the end are not computed.";
+}
+function renderSizingText(sizing, context2) {
+  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const traffic = sizing.dailyUnits === void 0 && sizing.uniqueUnits === void 0 ? "No daily-units or unique-units given, so no durations." : "";
+  const notes = notesOf(sizing);
+  return [
+    context2.title,
+    context2.designLine,
+    windowLine(sizing, context2),
+    ...traffic ? [traffic] : [],
+    "",
+    table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
+  ].join("\n");
+}
+function mermaidPowerChart(entry, sizing, target) {
+  const points = sizing.powerByDay;
+  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
+  const days = points.map((p) => p.day).join(", ");
+  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
+  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
+  return [
+    "```mermaid",
+    "xychart-beta",
+    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, " ")}"`,
+    `  x-axis "day" [${days}]`,
+    '  y-axis "power (%)" 0 --> 100',
+    `  line [${power}]`,
+    `  line [${goal}]`,
+    "```"
+  ].join("\n");
+}
+function renderSizingMarkdown(sizing, context2) {
+  const table2 = [
+    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
+    `| ${HEADER.map(() => "---").join(" | ")} |`,
+    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(" | ")} |`)
+  ];
+  const primary = sizing.metrics.find((m) => m.role === "primary");
+  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
+  const notes = notesOf(sizing);
+  return [
+    `### ${safeText(context2.title)}`,
+    "",
+    [safeText(context2.designLine), windowLine(sizing, context2)].filter(Boolean).join(" "),
+    "",
+    ...table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${safeText(n)}`)] : [],
+    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
+    ""
+  ].join("\n");
+}
+function sizingJson(sizing, context2) {
+  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
+}
+function designSummary(design) {
+  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
+  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
+  const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
+  const traffic = design.uniqueUnits ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(" and ")}, ${reached}` : design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
+  return `${arms}, ${test}${traffic}.`;
+}
+function lengthSetter(sizing) {
+  let best;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? entry.result.value.headline?.duration : void 0;
+    if (entry.result.ok && duration3 && (!best || duration3.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration: duration3 };
+  }
+  return best;
+}
+function lengthSummary(sizing) {
+  const setter = lengthSetter(sizing);
+  if (!setter) return void 0;
+  const { entry, duration: duration3 } = setter;
+  const who = entry.role === "guardrail" ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
+  const length = `${countOf(duration3.weeks, "week")} (${who} sets the length: ${countOf(duration3.days, "day")})`;
+  const end = setter.sizing.atPlannedEnd;
+  return end?.power !== void 0 ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, "day")})` } : { length };
+}
+
+// src/core/report/review-markdown.ts
+var REVIEW_MARKER = "<!-- plumbline:review -->";
+var COMMENT_LIMIT = 65536;
+var SUMMARY_LIMIT = 1024 * 1024;
+var measureCharacters = (text2) => text2.length;
+var encoder = new TextEncoder();
+var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
+var HEADLINE = {
+  blocked: "\u26D4 Plumbline: blocked",
+  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
+  clear: "\u2705 Plumbline: all clear",
+  "nothing-to-check": "\u2705 Plumbline: nothing to check",
+  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
+};
+var NOUN = { block: ["blocking finding", "blocking findings"], warn: ["warning", "warnings"], note: ["note", "notes"] };
+function countsText(findings) {
+  return ["block", "warn", "note"].map((s) => [s, findings.filter((f) => f.severity === s).length]).filter(([, n]) => n > 0).map(([s, n]) => countOf(n, ...NOUN[s])).join(", ");
+}
+function where(path, line, options) {
+  if (!path) return "";
+  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
+  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
+}
+function findingLine(f, options) {
+  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
+  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
+}
+function headline(review) {
+  const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
+  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
+  return `### ${HEADLINE[review.verdict]}${todo}`;
+}
+function countsLine(review) {
+  const introduced = review.findings.filter((f) => f.origin === "introduced");
+  const known = review.findings.length - introduced.length;
+  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? "Nothing new from this change." : ""];
+  if (known) parts.push(`Already known before it: ${countOf(known, "finding")}.`);
+  parts.push(`<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`);
+  return parts.filter(Boolean).join(" ");
+}
+function planSection(plan, options, detail, withTables) {
+  const checklist = checklistSummary(plan.checklist);
+  const length = lengthSummary(plan.sizing);
+  const found = plan.events.filter((e) => e.location).length;
+  const lines = [
+    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
+    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
+    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join("; ")}.` : ""}`
+  ];
+  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ""} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
+  if (!withTables) return lines;
+  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
+  lines.push(
+    "",
+    "<details><summary>Sizing and events</summary>",
+    "",
+    ...detail.charts ? sizing : cutChart(sizing),
+    "| event | used for | first logged at |",
+    "| --- | --- | --- |",
+    ...plan.events.map(
+      (e) => `| ${codeCell(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`
+    ),
+    "",
+    "</details>"
+  );
+  return lines;
+}
+function cutChart(lines) {
+  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
+  return start < 0 ? lines : [...lines.slice(0, start), ""];
+}
+function hasChart(review) {
+  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: "", designLine: "", window: p.window, power: p.power }).includes("<summary>Power by day"));
+}
+function findingsSection(review, options, shown) {
+  const listed = review.findings.slice(0, shown);
+  const introduced = listed.filter((f) => f.origin === "introduced");
+  const knownBlocking = listed.filter((f) => f.origin === "known" && f.severity === "block");
+  const knownRest = listed.filter((f) => f.origin === "known" && f.severity !== "block");
+  const out = [];
+  if (introduced.length) out.push("#### Introduced by this change", "", ...introduced.map((f) => findingLine(f, options)), "");
+  if (knownBlocking.length) out.push("#### Still blocking from before this change", "", ...knownBlocking.map((f) => findingLine(f, options)), "");
+  if (knownRest.length) {
+    out.push(`<details><summary>Already known: ${countOf(knownRest.length, "finding")} that held before this change</summary>`, "", ...knownRest.map((f) => findingLine(f, options)), "", "</details>", "");
+  }
+  return out;
+}
+function render(review, options, detail, omitted) {
+  const out = [REVIEW_MARKER, headline(review), countsLine(review), ""];
+  out.push(...coverageNotice(review));
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  out.push(...findingsSection(review, options, detail.findingsShown));
+  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ""));
+  if (review.nudge) {
+    out.push(
+      "#### A small check test for this fix?",
+      "",
+      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
+      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
+      "",
+      "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
+      "",
+      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
+      "```yaml",
+      review.nudge.planStub.replace(/```/g, "'''"),
+      "```",
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (review.collisions.length) {
+    out.push(
+      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, "overlap")}</summary>`,
+      "",
+      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
+      "| --- | --- | --- | --- | --- | --- | --- | --- |",
+      ...review.collisions.map(
+        (c) => `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== void 0 ? formatCount(c.overlapDays) : "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
+      ),
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
+    out.push(
+      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
+      "",
+      "| flag | where | how | plans |",
+      "| --- | --- | --- | --- |",
+      ...shown.map(
+        (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
+      ),
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (omitted.length) {
+    const list2 = omitted.length > 1 ? `${omitted.slice(0, -1).join(", ")} and ${omitted.at(-1)}` : omitted[0];
+    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list2}${options.fullReport ? `. They are in ${options.fullReport}` : ""}.</sub>`);
+  }
+  return out.join("\n").replace(/\n{3,}/g, "\n\n");
+}
+function omissions(review, detail, charts) {
+  const out = [];
+  if (!detail.charts && charts && detail.tablesFor > 0) out.push("the power charts");
+  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
+  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, "plan")}`);
+  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
+  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, "more plan")}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, "row")} of the flags table`);
+  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
+  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, "finding"));
+  return out;
+}
+function halving(n) {
+  const out = [];
+  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
+  return [...out, 0];
+}
+function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measure = measureCharacters) {
+  const plans = review.plans.length;
+  const findings = review.findings.length;
+  const charts = hasChart(review);
+  const attempt = (detail) => {
+    const body = render(review, options, detail, omissions(review, detail, charts));
+    return measure(body) <= limit ? body : void 0;
+  };
+  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
+  const steps = [full, { ...full, charts: false }];
+  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
+  for (const detail of steps) {
+    const body = attempt(detail);
+    if (body !== void 0) return body;
+  }
+  return `${REVIEW_MARKER}
+${headline(review)}
+
+The review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+}
+
+// src/core/report/review-text.ts
+var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
+function renderReviewText(review, options) {
+  const style = terminalStyle(options.color);
+  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
+  const out = [];
+  const verdict = {
+    blocked: style.red("blocked"),
+    warnings: style.yellow("passes, with warnings"),
+    clear: style.green("all clear"),
+    "nothing-to-check": style.green("nothing to check"),
+    partial: style.yellow("partial review, nothing found in the files seen")
+  }[review.verdict];
+  const known = review.findings.filter((f) => f.origin === "known").length;
+  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, "warning")}, ${countOf(review.counts.note, "note")}${known ? `; ${formatCount(known)} already held before this change` : ""}`;
+  out.push(`${style.bold("Plumbline")}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  for (const f of review.findings) {
+    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
+    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ""}${f.origin === "known" ? style.dim(" (already known)") : ""}: ${terminalSafe(f.message)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`);
+  }
+  for (const plan of review.plans) {
+    out.push("", `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(", "))}) ${terminalSafe(plan.file)}:${plan.line}`);
+    const checklist = checklistSummary(plan.checklist);
+    out.push(`  checklist: ${checklist.count}`);
+    for (const label of checklist.failing) out.push(`  [${style.red(" ")}] ${label}`);
+    const length = lengthSummary(plan.sizing);
+    if (length) out.push(`  length: ${terminalSafe(length.length)}${length.power ? `; power: ${terminalSafe(length.power)}` : ""}; details: plumbline size ${terminalSafe(plan.id)}`);
+    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
+    out.push(`  events: ${formatCount(plan.events.length - missing.length)} of ${formatCount(plan.events.length)} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
+  }
+  return out.join("\n");
 }
 
 // ../main/node_modules/zod/v4/classic/external.js
@@ -17501,14 +18382,14 @@ function codePointLength(str) {
   const units2 = str.length;
   if (!highSurrogate.test(str))
     return units2;
-  let count2 = units2;
+  let count3 = units2;
   for (let i = 0; i < units2 - 1; i++) {
     if ((str.charCodeAt(i) & 64512) === 55296 && (str.charCodeAt(i + 1) & 64512) === 56320) {
-      count2--;
+      count3--;
       i++;
     }
   }
-  return count2;
+  return count3;
 }
 function getLengthableOrigin(input2) {
   if (Array.isArray(input2))
@@ -17596,9 +18477,9 @@ var Class = class {
   constructor(..._args) {
   }
 };
-function members(proto, table) {
-  for (const key in table) {
-    const desc = Object.getOwnPropertyDescriptor(table, key);
+function members(proto, table2) {
+  for (const key in table2) {
+    const desc = Object.getOwnPropertyDescriptor(table2, key);
     if (desc.get)
       Object.defineProperty(proto, key, { ...desc, enumerable: false });
     else
@@ -17613,10 +18494,10 @@ function hide(inst, key, value) {
   return own(inst, key, value, false);
 }
 // @__NO_SIDE_EFFECTS__
-function derived(computes, table) {
+function derived(computes, table2) {
   for (const key in computes) {
     const compute = computes[key];
-    Object.defineProperty(table, key, {
+    Object.defineProperty(table2, key, {
       configurable: true,
       enumerable: true,
       get() {
@@ -17627,7 +18508,7 @@ function derived(computes, table) {
       }
     });
   }
-  return table;
+  return table2;
 }
 function defineBound(proto, key, fn) {
   Object.defineProperty(proto, key, {
@@ -21341,17 +22222,17 @@ var recursive = /* @__PURE__ */ new WeakMap();
 var NONE = 0;
 var ASSUMED = 1;
 var PROVEN = 2;
-function isRecursive(inst, stack, resolve3) {
-  const cached3 = recursive.get(inst);
-  if (cached3 !== void 0)
-    return cached3 ? PROVEN : NONE;
+function isRecursive(inst, stack, resolve5) {
+  const cached4 = recursive.get(inst);
+  if (cached4 !== void 0)
+    return cached4 ? PROVEN : NONE;
   if (stack.has(inst))
     return PROVEN;
   stack.add(inst);
   let result = NONE;
   const check3 = (child) => {
     if (result !== PROVEN && child?._zod) {
-      const answer = isRecursive(child, stack, resolve3);
+      const answer = isRecursive(child, stack, resolve5);
       if (answer > result)
         result = answer;
     }
@@ -21362,7 +22243,7 @@ function isRecursive(inst, stack, resolve3) {
       const desc = Object.getOwnPropertyDescriptor(sh, key);
       if (spread2 && !desc.enumerable)
         continue;
-      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve3) : NONE;
+      const child = desc.get ? ASSUMED : desc.value?._zod ? isRecursive(desc.value, stack, resolve5) : NONE;
       if (child > answer)
         answer = child;
     }
@@ -21426,7 +22307,7 @@ function isRecursive(inst, stack, resolve3) {
       break;
     // `$ZodLazy` caches its inner on the def, so a resolved edge is followed exactly
     case "lazy": {
-      const inner = def._cachedInner ?? (resolve3 ? inst._zod.innerType : void 0);
+      const inner = def._cachedInner ?? (resolve5 ? inst._zod.innerType : void 0);
       merge2(inner ? isRecursive(inner, stack, false) : ASSUMED);
       break;
     }
@@ -21891,8 +22772,8 @@ function az_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/be.js
-function getBelarusianPlural(count2, one, few, many) {
-  const absCount = Math.abs(count2);
+function getBelarusianPlural(count3, one, few, many) {
+  const absCount = Math.abs(count3);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -24539,8 +25420,8 @@ function hu_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/hy.js
-function getArmenianPlural(count2, one, many) {
-  return Math.abs(count2) === 1 ? one : many;
+function getArmenianPlural(count3, one, many) {
+  return Math.abs(count3) === 1 ? one : many;
 }
 function withDefiniteArticle(word) {
   if (!word)
@@ -27278,8 +28159,8 @@ function ro_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/ru.js
-function getRussianPlural(count2, one, few, many) {
-  const absCount = Math.abs(count2);
+function getRussianPlural(count3, one, few, many) {
+  const absCount = Math.abs(count3);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -35778,15 +36659,15 @@ function visit(schema, fnOrHandlers) {
   };
   const cache = /* @__PURE__ */ new Map();
   function run(s) {
-    const cached3 = cache.get(s);
-    if (cached3 === RESOLVING) {
+    const cached4 = cache.get(s);
+    if (cached4 === RESOLVING) {
       return new $ZodLazy({
         type: "lazy",
         getter: () => cache.get(s)
       });
     }
-    if (cached3 !== void 0)
-      return cached3;
+    if (cached4 !== void 0)
+      return cached4;
     cache.set(s, RESOLVING);
     const inner = mapInner(s);
     const mapped = fn(inner, inner !== s);
@@ -35991,6 +36872,135 @@ function date4(params) {
   return _coercedDate(ZodDate, params);
 }
 
+// src/core/review/report-schema.ts
+var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
+var severity = external_exports.enum(["block", "warn", "note"]);
+var analysisSize = external_exports.object({
+  perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
+  totalUnits: external_exports.number().int(),
+  clusters: external_exports.number().int().optional(),
+  duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
+});
+var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
+var sizeResult = external_exports.union([
+  external_exports.object({
+    ok: external_exports.literal(true),
+    value: external_exports.object({
+      baselineValue: external_exports.number(),
+      sd: external_exports.number().optional(),
+      effect: change.extend({ from: external_exports.number() }).optional(),
+      multipliers: external_exports.object({
+        comparisons: external_exports.number(),
+        alphaPerComparison: external_exports.number(),
+        designEffect: external_exports.number(),
+        varianceReduction: external_exports.number(),
+        sequential: external_exports.number(),
+        dilutionUnits: external_exports.number(),
+        dilutionDays: external_exports.number()
+      }),
+      boundaries: external_exports.object({ kind: external_exports.enum(["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"]), z: external_exports.array(external_exports.number()), nominalP: external_exports.array(external_exports.number()) }).optional(),
+      triggered: analysisSize.optional(),
+      diluted: analysisSize.optional(),
+      headline: analysisSize.optional(),
+      atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
+      powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
+      notes: external_exports.array(external_exports.string())
+    })
+  }),
+  external_exports.object({ ok: external_exports.literal(false), error: external_exports.object({ input: external_exports.string(), message: external_exports.string() }) })
+]);
+var reviewReportSchema = external_exports.object({
+  format: external_exports.literal("plumbline.review/1"),
+  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check", "partial"]),
+  counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
+  base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
+  findings: external_exports.array(
+    external_exports.object({
+      code: external_exports.string(),
+      severity,
+      message: external_exports.string(),
+      fix: external_exports.string(),
+      plan: external_exports.string().optional(),
+      file: external_exports.string().optional(),
+      line: external_exports.number().int().positive().optional(),
+      origin: external_exports.enum(["introduced", "known"]).describe("introduced: this change brought it; known: the same finding already held for the plan at the base commit")
+    })
+  ),
+  plans: external_exports.array(
+    external_exports.object({
+      id: external_exports.string(),
+      title: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      state: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      reasons: external_exports.array(external_exports.enum(["named in the description", "plan file changed", "flag touched"])),
+      checklist: external_exports.array(external_exports.object({ label: external_exports.string(), done: external_exports.boolean() })),
+      sizing: external_exports.object({
+        planId: external_exports.string(),
+        plannedDays: external_exports.number().int().optional(),
+        dailyUnits: external_exports.number().optional(),
+        metrics: external_exports.array(
+          external_exports.object({
+            metric: external_exports.string(),
+            role: external_exports.enum(["primary", "guardrail"]),
+            kind: external_exports.enum(["proportion", "mean", "ratio"]),
+            direction: external_exports.enum(["increase", "decrease"]),
+            sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
+            result: sizeResult
+          })
+        )
+      }),
+      power: external_exports.number(),
+      window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
+      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
+    })
+  ),
+  flags: external_exports.array(
+    external_exports.object({
+      key: external_exports.string(),
+      file: external_exports.string(),
+      line: external_exports.number().int(),
+      side: external_exports.enum(["added", "removed"]),
+      via: external_exports.string(),
+      plans: external_exports.array(external_exports.string()),
+      exempt: external_exports.boolean()
+    })
+  ),
+  collisions: external_exports.array(
+    external_exports.object({
+      plan: external_exports.string(),
+      other: external_exports.string(),
+      owners: external_exports.array(external_exports.string()),
+      otherSurface: external_exports.string(),
+      overlapDays: external_exports.number().int().optional(),
+      overlapWindow: external_exports.object({ start: external_exports.string(), end: external_exports.string() }).optional(),
+      platforms: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      locales: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
+      trafficShare: external_exports.number(),
+      known: external_exports.boolean()
+    })
+  ),
+  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), twoWeeksLine: external_exports.string().optional(), sizingLine: external_exports.string().optional() }).optional(),
+  partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
+}).describe("The Plumbline pull-request review report.");
+var REVIEW_JSON_FORMAT = "plumbline.review/1";
+function reviewJson(review) {
+  return { format: REVIEW_JSON_FORMAT, ...review };
+}
+
+// src/run/review-change.ts
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
+
+// src/core/config/scan-files.ts
+var import_picomatch = __toESM(require_picomatch2(), 1);
+function scanMatcher(scan) {
+  const include = (0, import_picomatch.default)([...scan.include], { dot: true });
+  const exclude = scan.exclude.length ? (0, import_picomatch.default)([...scan.exclude], { dot: true }) : () => false;
+  return (path) => include(path) && !exclude(path);
+}
+
 // src/core/source/fields.ts
 function asDescription(expected) {
   return `${expected.charAt(0).toUpperCase()}${expected.slice(1)}.`;
@@ -36081,6 +37091,10 @@ function upperRegularizedGamma(a, x) {
   }
   return Math.exp(-x + a * Math.log(x) - jStat.gammaln(a)) * h;
 }
+function studentUpper(x, df) {
+  if (df > 1e7) return normalUpper(x);
+  return x < 0 ? 1 - jStat.studentt.cdf(-x, df) : jStat.studentt.cdf(-x, df);
+}
 
 // src/core/stats/root.ts
 function findRoot(f, lo, hi, tolerance = 1e-12, maxIterations = 200) {
@@ -36157,13 +37171,6 @@ function solveIncreasing(f, target, guess, min, max, tolerance = 1e-10) {
   return findRoot(g, lo, hi, tolerance * Math.max(1, Math.abs(guess)));
 }
 
-// src/core/stats/result.ts
-var ok = (value) => ({ ok: true, value });
-var fail = (input2, message) => ({ ok: false, error: { input: input2, message } });
-function finite(value, input2, what) {
-  return Number.isFinite(value) ? ok(value) : fail(input2, `${what} cannot be computed for these inputs`);
-}
-
 // src/core/stats/sequential.ts
 var BOUNDARY_KINDS = ["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"];
 var PANELS = 160;
@@ -36178,7 +37185,7 @@ function simpsonGrid(lo, hi) {
   }
   return { points, weights };
 }
-function walk(looks, sides, eta, boundaryAt) {
+function walk(looks, sides, eta, boundaryAt, fractions = Array.from({ length: looks }, (_, i) => (i + 1) / looks)) {
   const upper = [];
   const lower = [];
   const boundaries = [];
@@ -36186,7 +37193,7 @@ function walk(looks, sides, eta, boundaryAt) {
   let density;
   let previousT = 0;
   for (let k = 1; k <= looks; k++) {
-    const t = k / looks;
+    const t = fractions[k - 1];
     const dt = t - previousT;
     const sdStep = Math.sqrt(dt);
     const mean = eta * dt;
@@ -36235,6 +37242,25 @@ function spentByTime(kind, a, t) {
   if (t <= 0) return 0;
   if (t >= 1) return a;
   return kind === "obrien-fleming-spending" ? 2 * normalUpper(normalUpperQuantile(a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+}
+function spendingBoundaryAt(kind, alpha, sides, fractions) {
+  if (!(alpha > 0 && alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${alpha}`);
+  if (fractions.length === 0 || fractions.some((t, i) => !(t > 0 && t <= 1) || i > 0 && !(t > fractions[i - 1]))) {
+    return fail("information fraction", "information fractions must increase within (0, 1]");
+  }
+  const oneSide = alpha / sides;
+  const { boundaries } = walk(
+    fractions.length,
+    sides,
+    0,
+    (k, upperGiven) => {
+      const increment = spentByTime(kind, oneSide, fractions[k - 1]) - (k > 1 ? spentByTime(kind, oneSide, fractions[k - 2]) : 0);
+      if (increment <= 1e-30) return NEVER2;
+      return findRoot((b) => upperGiven(b) - increment, 0, NEVER2, 1e-12) ?? NEVER2;
+    },
+    fractions
+  );
+  return ok(boundaries[boundaries.length - 1]);
 }
 function checkDesign(design) {
   if (!Number.isInteger(design.looks) || design.looks < 1 || design.looks > 30) return fail("interim-looks", `between 0 and 29 interim looks are supported; got ${design.looks - 1}`);
@@ -36306,6 +37332,43 @@ function integrateInflation(design, power) {
   const inflation = (eta / fixed) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
+
+// src/core/plan/outcome.ts
+var OUTCOME_CLASSES = ["win", "loss", "flat", "inconclusive", "guardrail-breach"];
+var outcomeClass = external_exports.enum(OUTCOME_CLASSES, { error: `one of ${OUTCOME_CLASSES.join(", ")}` });
+var figure = external_exports.strictObject(
+  {
+    arm: kebabName("the treatment arm, e.g. treatment"),
+    metric: kebabName("the metric name, e.g. order-completed"),
+    difference: finiteNumber("the absolute difference, treatment minus control, in the metric\u2019s units"),
+    low: finiteNumber("the lower end of the interval of the difference"),
+    high: finiteNumber("the upper end of the interval of the difference"),
+    relative: finiteNumber("the relative difference as a fraction, e.g. 0.011").optional(),
+    "p-value": external_exports.number({ error: "a p-value from 0 to 1" }).gte(0, { error: "a p-value from 0 to 1" }).lte(1, { error: "a p-value from 0 to 1" })
+  },
+  { error: "a figure: { arm, metric, difference, low, high, relative, p-value }" }
+).describe("The primary metric\u2019s figures for one treatment arm.");
+var outcomeSchema = external_exports.strictObject(
+  {
+    class: outcomeClass.describe("The class the registered rule gave, as computed by the readout."),
+    arms: external_exports.array(kebabName("an arm name, e.g. treatment"), { error: "a list of arm names" }).default([]).describe("The arms the class names (the winners of a win)."),
+    "data-through": calendarDate("the last day of the data read, written YYYY-MM-DD"),
+    totals: text("the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml").optional(),
+    "read-early": external_exports.boolean({ error: "true or false" }).optional().describe("True when the data ended before the planned end."),
+    figures: external_exports.array(figure, { error: "a list of figures" }).default([]).describe("The primary metric\u2019s figures per treatment arm."),
+    "decided-by": text("who decided, e.g. @ana-lima"),
+    "recorded-on": calendarDate("the day the outcome was recorded, written YYYY-MM-DD").optional(),
+    override: external_exports.strictObject(
+      {
+        class: outcomeClass.optional().describe("The class acted on instead of the computed one."),
+        ship: external_exports.array(kebabName("an arm name"), { error: "a list of arm names" }).optional().describe("The arms shipped, when the rule does not name them."),
+        reason: text("why the team departs from the registered rule")
+      },
+      { error: "a mapping with class, ship and reason" }
+    ).optional().describe("A decision that departs from the registered rule, with its reason; reviewers judge it first.")
+  },
+  { error: "an outcome: a mapping with class, data-through, figures and decided-by" }
+).describe("The recorded outcome of the test: written by plumbline readout --record after the readout.");
 
 // src/core/plan/schema.ts
 var PLAN_STATES = ["draft", "live", "on-hold", "concluded"];
@@ -36588,10 +37651,11 @@ var writtenPlanSchema = external_exports.strictObject({
   "bundle-rationale": optionalText("why several changes or flags are tested together").describe(
     "Required when the plan bundles several flags or changes."
   ),
-  notes: optionalText("free text")
+  notes: optionalText("free text"),
+  outcome: outcomeSchema.optional()
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
 function normalizeMetric(written, fallbackDirection) {
-  const { direction: direction2, "pre-period": prePeriod, ...rest } = written;
+  const { direction: direction2, "pre-period": prePeriod2, ...rest } = written;
   const chosen = direction2 ?? fallbackDirection;
   const renamed = { ...rest };
   if ("capped-at" in renamed) {
@@ -36602,7 +37666,7 @@ function normalizeMetric(written, fallbackDirection) {
     renamed.denominatorMayMove = renamed["denominator-may-move"];
     delete renamed["denominator-may-move"];
   }
-  return { ...renamed, ...prePeriod ? { prePeriod } : {}, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
+  return { ...renamed, ...prePeriod2 ? { prePeriod: prePeriod2 } : {}, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
 }
 var PRIMARY_COUNT_CODE = "plan/primary-metric-count";
 var planSchema = writtenPlanSchema.transform((written, ctx) => {
@@ -36666,7 +37730,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     },
     sensitive: written.sensitive,
     ...written["bundle-rationale"] ? { bundleRationale: written["bundle-rationale"] } : {},
-    ...written.notes ? { notes: written.notes } : {}
+    ...written.notes ? { notes: written.notes } : {},
+    ...written.outcome ? { outcome: written.outcome } : {}
   };
 });
 var designShape = writtenPlanSchema.shape.design.unwrap().shape;
@@ -36694,346 +37759,6 @@ var SIZING_FLAG_FIELDS = {
   effect: effectSize.shape.relative.unwrap(),
   "effect-absolute": effectSize.shape.absolute.unwrap()
 };
-
-// src/core/plan/json-schema.ts
-var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
-var cached2;
-function planJsonSchema() {
-  cached2 ??= {
-    $id: PLAN_SCHEMA_ID,
-    title: "Plumbline experiment plan",
-    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
-  };
-  return cached2;
-}
-
-// src/core/source/closest-name.ts
-function closestName(typed, known) {
-  const wanted = typed.toLowerCase();
-  let best;
-  let bestDistance = Infinity;
-  for (const candidate of known) {
-    const distance = editDistance(wanted, candidate.toLowerCase());
-    if (distance < bestDistance) {
-      best = candidate;
-      bestDistance = distance;
-    }
-  }
-  const tolerance = Math.max(2, Math.floor(typed.length / 3));
-  if (best !== void 0 && bestDistance <= tolerance) return best;
-  return known.find((candidate) => stem(candidate) === stem(typed));
-}
-function stem(name) {
-  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
-}
-function editDistance(a, b) {
-  const rows2 = a.length + 1;
-  const cols = b.length + 1;
-  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
-  for (let i = 1; i < rows2; i++) {
-    for (let j = 1; j < cols; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
-        value = Math.min(value, d[i - 2][j - 2] + 1);
-      }
-      d[i][j] = value;
-    }
-  }
-  return d[a.length][b.length];
-}
-
-// src/core/source/problem.ts
-function formatProblem(problem) {
-  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
-  const field2 = problem.field ? `${problem.field}: ` : "";
-  const detail = [
-    problem.expected ? `expected ${problem.expected}` : "",
-    problem.found ? `found ${problem.found}` : ""
-  ].filter(Boolean).join("; ");
-  return `${where2}: ${problem.severity}: ${field2}${problem.message}${detail ? ` (${detail})` : ""}`;
-}
-function sortProblems(problems) {
-  return [...problems].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
-  );
-}
-function describeValue(value) {
-  if (value === void 0) return "nothing";
-  if (value === null) return "an empty value";
-  if (typeof value === "string") {
-    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
-    return `the text ${JSON.stringify(shown)}`;
-  }
-  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
-  if (typeof value === "boolean") return `${value}`;
-  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
-  if (typeof value === "object") return "a mapping of keys";
-  return typeof value;
-}
-
-// src/core/source/check-written.ts
-function checkWritten(source, schema, jsonSchema, codePrefix) {
-  const parsed = schema.safeParse(source.value);
-  if (parsed.success) return { ok: true, value: parsed.data };
-  const problems = [];
-  for (const issue2 of parsed.error.issues) {
-    problems.push(...issueToProblems(issue2, source, jsonSchema, codePrefix));
-  }
-  return { ok: false, problems: dedupe(problems) };
-}
-function issueToProblems(issue2, source, jsonSchema, codePrefix) {
-  const path = issue2.path.filter((p) => typeof p !== "symbol");
-  if (issue2.code === "unrecognized_keys") {
-    const known = knownKeysAt(jsonSchema, source.value, path);
-    return (issue2.keys ?? []).map((key) => {
-      const suggestion = closestName(key, known);
-      return {
-        severity: "error",
-        code: `${codePrefix}/unknown-key`,
-        ...source.locateKey(path, key),
-        field: formatFieldPath([...path, key]),
-        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
-        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
-      };
-    });
-  }
-  if (issue2.code === "invalid_union") {
-    if (issue2.discriminator) {
-      const discriminatorPath = path[path.length - 1] === issue2.discriminator ? path : [...path, issue2.discriminator];
-      return [{ ...fieldProblem(issue2, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
-    }
-    const branch = pickUnionBranch(issue2.errors ?? []);
-    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue2.path, ...inner.path] }, source, jsonSchema, codePrefix));
-  }
-  return [fieldProblem(issue2, path, source, codePrefix)];
-}
-function fieldProblem(issue2, path, source, codePrefix) {
-  const found = valueAt(source.value, path);
-  const missing = found === void 0;
-  const customCode = issue2.code === "custom" ? issue2.params?.code : void 0;
-  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : path.length === 0 && found === null ? "the file is empty" : summaryFor(issue2);
-  return {
-    severity: "error",
-    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
-    ...source.locate(path),
-    field: formatFieldPath(path),
-    message,
-    expected: cleanZodMessage(issue2.message),
-    ...missing ? {} : { found: describeFound(found) }
-  };
-}
-function describeFound(found) {
-  const percent2 = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
-  const described = describeValue(found);
-  return percent2 ? `${described}; write ${percent2[1]}% as ${Number(percent2[1]) / 100}` : described;
-}
-function summaryFor(issue2) {
-  switch (issue2.code) {
-    case "invalid_type":
-      return "has the wrong type";
-    case "too_small":
-      return issue2.origin === "array" ? "has too few items" : issue2.origin === "string" ? "is empty" : "is out of range";
-    case "too_big":
-      return issue2.origin === "array" ? "has too many items" : issue2.origin === "string" ? "is too long" : "is out of range";
-    case "invalid_value":
-      return "is not one of the allowed values";
-    case "invalid_format":
-      return "is not in the expected format";
-    default:
-      return "is not valid";
-  }
-}
-function cleanZodMessage(message) {
-  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
-}
-function pickUnionBranch(branches) {
-  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
-  if (shaped.length === 0) return void 0;
-  return shaped.reduce((best, next) => next.length < best.length ? next : best);
-}
-function dedupe(problems) {
-  const seen = /* @__PURE__ */ new Set();
-  return problems.filter((p) => {
-    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
-    if (seen.has(key)) return false;
-    seen.add(key);
-    return true;
-  });
-}
-function formatFieldPath(path) {
-  return path.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
-}
-function valueAt(value, path) {
-  let current = value;
-  for (const segment of path) {
-    if (current === null || typeof current !== "object") return void 0;
-    current = current[segment];
-  }
-  return current;
-}
-function knownKeysAt(schema, data, path) {
-  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
-  let nodes = [schema];
-  let current = data;
-  for (const segment of path) {
-    nodes = nodes.flatMap((n) => branchesFor(n, current));
-    const next = [];
-    for (const node2 of nodes) {
-      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
-      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
-    }
-    nodes = next;
-    current = current !== null && typeof current === "object" ? current[segment] : void 0;
-  }
-  const keys = /* @__PURE__ */ new Set();
-  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
-    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
-  }
-  return [...keys];
-}
-function resolveRef2(root, node2) {
-  const ref = node2.$ref;
-  if (!ref?.startsWith("#/$defs/")) return node2;
-  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
-}
-function unionBranches(node2, data, root) {
-  const options = node2.anyOf ?? node2.oneOf;
-  if (!options) return [node2];
-  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
-  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
-  const matching = all.filter((option) => {
-    if (Array.isArray(data)) return option.items !== void 0;
-    if (!record2) return true;
-    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
-  });
-  return matching.length ? matching : all;
-}
-
-// src/core/plan/renamed-keys.ts
-var SURFACE_RENAMES = [
-  {
-    old: "exclusion-group",
-    replacement: "traffic-split",
-    how: "its slice: { from, to } is now range: { start, end }, with the same percent values",
-    example: "traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }"
-  }
-];
-function renamedSurfaceKeys(source, surfaces, codePrefix) {
-  const problems = [];
-  for (const path of surfaces) {
-    const surface = valueAt(source.value, path);
-    if (!surface || typeof surface !== "object" || Array.isArray(surface)) continue;
-    for (const rename2 of SURFACE_RENAMES) {
-      if (!(rename2.old in surface)) continue;
-      problems.push({
-        severity: "warning",
-        code: `${codePrefix}/renamed-key`,
-        ...source.locateKey(path, rename2.old),
-        field: formatFieldPath([...path, rename2.old]),
-        message: `"${rename2.old}" is the old name of "${rename2.replacement}" and is still read for now; rename it (${rename2.how})`,
-        expected: rename2.example
-      });
-    }
-  }
-  return problems;
-}
-
-// src/core/source/yaml-source.ts
-var import_yaml = __toESM(require_dist(), 1);
-function readYaml(text2, file2, limits, codePrefix) {
-  const fail2 = (line, column, code, message, expected) => ({
-    ok: false,
-    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
-  });
-  const bytes = Buffer.byteLength(text2, "utf8");
-  if (bytes > limits.maxBytes) {
-    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
-  }
-  const lineCounter = new import_yaml.LineCounter();
-  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
-  const firstError = doc.errors[0];
-  if (firstError) {
-    const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
-    if (firstError.code === "DUPLICATE_KEY") {
-      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
-    }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
-  }
-  let complexKeyAt;
-  (0, import_yaml.visit)(doc, {
-    Pair(_, pair2) {
-      if (pair2.key !== null && !(0, import_yaml.isScalar)(pair2.key)) {
-        complexKeyAt = pair2.key.range?.[0] ?? 0;
-        return import_yaml.visit.BREAK;
-      }
-      return void 0;
-    }
-  });
-  if (complexKeyAt !== void 0) {
-    const pos = lineCounter.linePos(complexKeyAt);
-    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
-  }
-  let value;
-  try {
-    value = doc.toJS({ maxAliasCount: limits.maxAliases });
-  } catch (error62) {
-    const message = error62 instanceof Error ? error62.message : String(error62);
-    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
-  }
-  const at = (offset) => {
-    const pos = lineCounter.linePos(offset);
-    return { file: file2, line: pos.line, column: pos.col };
-  };
-  const rootOffset = doc.contents?.range[0] ?? 0;
-  const walk2 = (path) => {
-    let node2 = doc.contents;
-    let depth = 0;
-    for (const segment of path) {
-      const next = childOf(node2, segment);
-      if (!next) break;
-      node2 = next;
-      depth++;
-    }
-    return { node: node2, depth };
-  };
-  return {
-    ok: true,
-    source: {
-      file: file2,
-      value,
-      locate(path) {
-        const { node: node2 } = walk2(path);
-        return at(node2?.range?.[0] ?? rootOffset);
-      },
-      locateKey(path, key) {
-        const { node: node2, depth } = walk2(path);
-        if (depth === path.length && (0, import_yaml.isMap)(node2)) {
-          const pair2 = node2.items.find((item) => (0, import_yaml.isScalar)(item.key) && String(item.key.value) === key);
-          const keyNode = pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : void 0;
-          if (keyNode?.range) return at(keyNode.range[0]);
-        }
-        return at(node2?.range?.[0] ?? rootOffset);
-      }
-    }
-  };
-}
-function childOf(node2, segment) {
-  if ((0, import_yaml.isMap)(node2)) {
-    const pair2 = node2.items.find((item) => (0, import_yaml.isPair)(item) && (0, import_yaml.isScalar)(item.key) && String(item.key.value) === String(segment));
-    return pair2?.value ?? (pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : null);
-  }
-  if ((0, import_yaml.isSeq)(node2) && typeof segment === "number") {
-    return node2.items[segment] ?? null;
-  }
-  return null;
-}
-function plainYamlMessage(message) {
-  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
-}
 
 // src/core/registry/schema.ts
 var writtenEntry = external_exports.strictObject(
@@ -37092,686 +37817,6 @@ function entryFromPlan(plan, file2, line) {
   };
 }
 
-// src/core/registry/load.ts
-var REGISTRY_LIMITS = { maxBytes: 4 * 1024 * 1024, maxAliases: 1e3 };
-var cachedJsonSchema;
-function registryJsonSchema() {
-  cachedJsonSchema ??= {
-    $id: "https://plumbline.dev/schema/registry.schema.json",
-    title: "Plumbline registry file",
-    ...external_exports.toJSONSchema(writtenRegistrySchema, { io: "input", target: "draft-2020-12" })
-  };
-  return cachedJsonSchema;
-}
-function loadRegistryFile(text2, file2) {
-  const read = readYaml(text2, file2, REGISTRY_LIMITS, "registry");
-  if (!read.ok) return { ok: false, errors: read.problems };
-  const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
-  if (!checked.ok) return { ok: false, errors: checked.problems };
-  const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
-  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ["tests", index, "surface"]), "registry");
-  return { ok: true, entries, warnings };
-}
-function buildRegistry(plans, extra) {
-  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line
-  );
-  const byId = /* @__PURE__ */ new Map();
-  const problems = [];
-  for (const entry of candidates) {
-    const first = byId.get(entry.id);
-    if (first) {
-      problems.push({
-        severity: "error",
-        code: "registry/duplicate-id",
-        file: entry.file,
-        line: entry.line,
-        column: 1,
-        field: "id",
-        message: `id "${entry.id}" is already used by ${first.file}:${first.line}`,
-        expected: "an id unique across all plans and registry files"
-      });
-      continue;
-    }
-    byId.set(entry.id, entry);
-  }
-  return { registry: { entries: [...byId.values()] }, problems };
-}
-
-// src/core/config/schema.ts
-var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
-function compiles(pattern) {
-  try {
-    new RegExp(pattern, "u");
-    return true;
-  } catch {
-    return false;
-  }
-}
-var callPattern = (group, example) => {
-  const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
-};
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
-var DEFAULT_PLAN_FOLDERS = ["experiments"];
-var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
-var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
-function isTimeZone(zone) {
-  try {
-    new Intl.DateTimeFormat("en-US", { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
-}
-var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
-var writtenSettingsSchema = external_exports.strictObject(
-  {
-    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
-    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
-    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
-    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
-    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
-    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
-    scan: external_exports.strictObject(
-      {
-        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
-        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
-      },
-      { error: "a mapping with include and exclude" }
-    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
-    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
-    "bug-fix": external_exports.strictObject(
-      {
-        enabled: external_exports.boolean({ error: "true or false" }).default(true),
-        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
-        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
-        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
-        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
-        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
-        guardrail: external_exports.strictObject(
-          {
-            name: text("a metric name, e.g. error-rate"),
-            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
-            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
-            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
-          },
-          { error: "a guardrail: { name, rate, events, direction }" }
-        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
-      },
-      { error: "a mapping of bug-fix nudge settings" }
-    ).default({
-      enabled: true,
-      labels: DEFAULT_BUG_LABELS,
-      "title-prefixes": ["fix", "bugfix", "hotfix"],
-      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
-      "silence-label": "no-check-test",
-      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
-    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
-    digest: external_exports.strictObject(
-      {
-        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
-        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
-        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
-        label: text("the label of the digest issue").default("plumbline-digest")
-      },
-      { error: "a mapping of digest settings" }
-    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
-    // Sizing conventions (issue 13): guardrails' own error rates, the longest sensible window, atypical periods.
-    sizing: external_exports.strictObject(
-      {
-        "guardrail-alpha": openShare("a one-sided significance level for guardrails strictly between 0 and 1, e.g. 0.05").default(0.05),
-        "guardrail-power": openShare("a power for guardrails strictly between 0 and 1, e.g. 0.8").default(0.8),
-        "guardrail-arm-correction": external_exports.boolean({ error: "true or false" }).default(false).describe("Divide a guardrail\u2019s \u03B1 among several treatment arms (Bonferroni); off by default, since it makes a safety check less sensitive."),
-        "longest-window-days": external_exports.number({ error: "a whole number of days from 7 to 365" }).int({ error: "a whole number of days from 7 to 365" }).min(7, { error: "at least 7 days" }).max(365, { error: "at most 365 days" }).default(56).describe("Beyond this a test is not feasible at its traffic."),
-        "atypical-periods": external_exports.array(
-          external_exports.strictObject(
-            {
-              name: text("a name for the period, e.g. winter sale"),
-              start: calendarDate("a start date written YYYY-MM-DD, e.g. 2026-11-27"),
-              end: calendarDate("an end date written YYYY-MM-DD, e.g. 2026-11-30")
-            },
-            { error: "a period: { name, start, end }" }
-          ),
-          { error: "a list of periods, e.g. [{ name: winter sale, start: 2026-11-27, end: 2026-11-30 }]" }
-        ).default([]).describe("Holidays, sales and other periods when behaviour is unusual; a window that overlaps one gets a note.")
-      },
-      { error: "a mapping of sizing settings" }
-    ).default({ "guardrail-alpha": 0.05, "guardrail-power": 0.8, "guardrail-arm-correction": false, "longest-window-days": 56, "atypical-periods": [] }).describe("Sizing conventions: guardrails\u2019 error rates, the longest sensible window, atypical periods."),
-    severity: external_exports.record(
-      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
-      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
-      { error: "a mapping of finding code to block, warn, note or off" }
-    ).default({}).describe("Raise or lower the severity of findings by code.")
-  },
-  { error: "a settings file: a mapping of settings" }
-).describe("Plumbline repository settings.");
-var settingsSchema = writtenSettingsSchema.transform((w) => ({
-  planPaths: w.plans,
-  registryFiles: w.registries,
-  flagCalls: w["flag-calls"],
-  logCalls: w["log-calls"],
-  builtinPatterns: w["builtin-patterns"],
-  groupSurfaces: w["group-surfaces"],
-  scan: w.scan,
-  exemptFlags: w["exempt-flags"],
-  severity: w.severity,
-  bugFix: {
-    enabled: w["bug-fix"].enabled,
-    labels: w["bug-fix"].labels,
-    titlePrefixes: w["bug-fix"]["title-prefixes"],
-    branchPrefixes: w["bug-fix"]["branch-prefixes"],
-    silenceLabel: w["bug-fix"]["silence-label"],
-    nonProductPaths: w["bug-fix"]["non-product-paths"],
-    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
-    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
-  },
-  sizing: {
-    guardrailAlpha: w.sizing["guardrail-alpha"],
-    guardrailPower: w.sizing["guardrail-power"],
-    guardrailArmCorrection: w.sizing["guardrail-arm-correction"],
-    longestWindowDays: w.sizing["longest-window-days"],
-    atypicalPeriods: w.sizing["atypical-periods"]
-  },
-  digest: {
-    timeZone: w.digest["time-zone"],
-    endingSoonDays: w.digest["ending-soon-days"],
-    onHoldDays: w.digest["on-hold-days"],
-    label: w.digest.label
-  }
-}));
-
-// src/core/config/load.ts
-var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
-var cachedJsonSchema2;
-function settingsJsonSchema() {
-  cachedJsonSchema2 ??= {
-    $id: "https://plumbline.dev/schema/settings.schema.json",
-    title: "Plumbline settings file",
-    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
-  };
-  return cachedJsonSchema2;
-}
-function defaultSettings() {
-  return settingsSchema.parse({});
-}
-function loadSettings(text2, file2) {
-  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
-  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
-  if (!read.ok) return { ok: false, errors: read.problems };
-  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
-  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
-  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
-}
-
-// src/core/report/terminal-style.ts
-function terminalStyle(color) {
-  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
-  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
-}
-function terminalSafe(text2) {
-  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
-}
-function formatTable(header, rows2) {
-  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
-  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
-  return [line(header), ...rows2.map(line)].join("\n");
-}
-
-// src/core/report/registry-list.ts
-var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
-function sortEntries(entries) {
-  return [...entries].sort(
-    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
-  );
-}
-function formatWindow(window) {
-  if (!window.start && !window.end) return "not set";
-  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
-}
-var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
-function registryJson(registry2) {
-  return {
-    format: REGISTRY_JSON_FORMAT,
-    tests: sortEntries(registry2.entries).map((e) => ({
-      id: e.id,
-      title: e.title,
-      state: e.state,
-      surface: e.surface.path,
-      ...e.surface.trafficSplit ? { trafficSplit: e.surface.trafficSplit } : {},
-      window: e.window,
-      owners: e.owners,
-      flags: e.flags,
-      trafficShare: e.trafficShare,
-      events: e.events,
-      file: e.file,
-      line: e.line
-    }))
-  };
-}
-function renderRegistryText(registry2, options) {
-  const style = terminalStyle(options.color);
-  const entries = sortEntries(registry2.entries);
-  const rows2 = entries.map(
-    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
-  );
-  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
-  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
-  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
-  if (options.skippedFiles) {
-    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
-  }
-  return out.join("\n");
-}
-
-// src/core/report/validation.ts
-var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
-function validationJson(report) {
-  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
-}
-function renderValidationText(report, options) {
-  const style = terminalStyle(options.color);
-  const lines = report.problems.map((problem) => {
-    const line = terminalSafe(formatProblem(problem));
-    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
-  });
-  const invalid = report.planFiles - report.validPlans;
-  const files = `${count(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count(report.registryFiles, "registry file")}` : ""}`;
-  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count(report.warnings, "warning")}` : "all valid") : style.red(`${count(report.errors, "error")}${invalid ? ` in ${count(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count(report.warnings, "warning")}` : "");
-  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
-  if (report.planFiles === 0) {
-    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
-  }
-  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
-  return lines.join("\n");
-}
-function count(n, noun) {
-  return `${n} ${noun}${n === 1 ? "" : "s"}`;
-}
-
-// src/core/config/plan-files.ts
-var import_picomatch = __toESM(require_picomatch2(), 1);
-var PLAN_EXTENSIONS = [".yaml", ".yml"];
-function planSearchRoots(entries) {
-  return entries.map((raw) => {
-    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch.default.scan(entry);
-    if (scan.isGlob) {
-      const matcher = (0, import_picomatch.default)(entry, { dot: false });
-      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
-    }
-    if (isYamlFile(entry)) {
-      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
-      return { folder: parent, matches: (path) => path === entry };
-    }
-    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
-    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
-  });
-}
-function isYamlFile(path) {
-  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
-}
-
-// src/core/source/rule-context.ts
-function runRules(value, source, rules) {
-  const problems = [];
-  const context2 = {
-    value,
-    report({ severity: severity2, code, path, message, expected, showFound }) {
-      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
-      problems.push({
-        severity: severity2,
-        code,
-        ...source.locate(path),
-        field: formatFieldPath(path),
-        message,
-        ...expected ? { expected } : {},
-        ...found ? { found } : {}
-      });
-    }
-  };
-  for (const rule of rules) rule(context2);
-  return problems;
-}
-
-// src/core/plan/rules.ts
-var windowInOrder = ({ value: plan, report }) => {
-  const { start, end } = plan.window;
-  if (start && end && end < start) {
-    report({
-      severity: "error",
-      code: "plan/window-order",
-      path: ["window", "end"],
-      message: `the window ends (${end}) before it starts (${start})`,
-      expected: `an end date on or after ${start}`
-    });
-  }
-};
-var liveHasStart = ({ value: plan, report }) => {
-  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
-    report({
-      severity: "warning",
-      code: "plan/start-missing",
-      path: ["window"],
-      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
-      expected: "window.start, e.g. 2026-11-02"
-    });
-  }
-};
-var armsAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  plan.design.arms.forEach((arm2, index) => {
-    if (seen.has(arm2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-arm",
-        path: ["design", "arms", index, "name"],
-        message: `arm "${arm2.name}" is listed twice`,
-        expected: "each arm name once"
-      });
-    }
-    seen.add(arm2.name);
-  });
-  if (!seen.has(plan.design.control)) {
-    report({
-      severity: "error",
-      code: "plan/unknown-control-arm",
-      path: ["design", "control"],
-      message: `the control arm "${plan.design.control}" is not one of the arms`,
-      expected: `one of ${[...seen].join(", ")}`
-    });
-  }
-};
-var rangeIsNotEmpty = ({ value: plan, report }) => {
-  const split = plan.surface.trafficSplit;
-  if (!split) return;
-  const width = split.range.end - split.range.start;
-  if (width <= 0) {
-    report({
-      severity: "error",
-      code: "plan/empty-range",
-      // A file still on the old key is located at its surface (and warned about the rename).
-      path: ["surface", "traffic-split", "range"],
-      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
-      expected: "a start below the end, e.g. { start: 0, end: 50 }"
-    });
-  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
-    report({
-      severity: "error",
-      code: "plan/traffic-beyond-range",
-      path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
-      expected: `at most ${width / 100}`
-    });
-  }
-};
-function allMetrics(plan) {
-  return [
-    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
-    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
-    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
-  ];
-}
-var metricNamesAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  for (const { metric: metric2, path } of allMetrics(plan)) {
-    if (seen.has(metric2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-metric",
-        path: [...path, "name"],
-        message: `metric "${metric2.name}" is defined more than once`,
-        expected: "each metric name once across primary, guardrails and secondary"
-      });
-    }
-    seen.add(metric2.name);
-  }
-};
-var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
-  for (const { metric: metric2, path, role } of allMetrics(plan)) {
-    if (role !== "guardrail") continue;
-    if (metric2.directionAssumed) {
-      report({
-        severity: "warning",
-        code: "plan/direction-assumed",
-        path: [...path, "direction"],
-        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
-        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
-      });
-    }
-    if (!metric2.tolerance) {
-      report({
-        severity: "warning",
-        code: "plan/tolerance-missing",
-        path: [...path, "tolerance"],
-        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
-        expected: "tolerance, e.g. { relative: 0.02 }"
-      });
-    }
-  }
-};
-var groupUnitsDescribeClusters = ({ value: plan, report }) => {
-  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
-  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-missing",
-      path: ["design", "cluster"],
-      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
-      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
-    });
-  }
-  if (!isGroup && plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-unused",
-      path: ["design", "cluster"],
-      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
-    });
-  }
-};
-var readinessNamesTargets = ({ value: plan, report }) => {
-  const { platforms, locales, ready } = plan.population;
-  ready.platforms.forEach((name, i) => {
-    if (platforms.length && !platforms.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "platforms", i],
-        message: `ready names platform "${name}", which is not in population.platforms`,
-        expected: `one of ${platforms.join(", ")}`
-      });
-    }
-  });
-  ready.locales.forEach((name, i) => {
-    if (locales.length && !locales.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "locales", i],
-        message: `ready names locale "${name}", which is not in population.locales`,
-        expected: `one of ${locales.join(", ")}`
-      });
-    }
-  });
-};
-var overlapsNameOthers = ({ value: plan, report }) => {
-  plan.surface.overlapsWith.forEach((id, i) => {
-    if (id === plan.id) {
-      report({
-        severity: "warning",
-        code: "plan/overlaps-itself",
-        path: ["surface", "overlaps-with", i],
-        message: "a plan cannot overlap with itself; remove its own id"
-      });
-    }
-  });
-};
-var DECISION_OUTCOMES = [
-  { key: "win", field: "win" },
-  { key: "flat", field: "flat" },
-  { key: "loss", field: "loss" },
-  { key: "guardrailBreach", field: "guardrail-breach" }
-];
-function missingDecisions(plan) {
-  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
-  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
-}
-var decisionsAreWritten = ({ value: plan, report }) => {
-  const missing = missingDecisions(plan);
-  if (missing.length === 0) return;
-  report({
-    severity: "warning",
-    code: "plan/decisions-missing",
-    path: ["decisions"],
-    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
-    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
-  });
-};
-var PLAN_RULES = [
-  windowInOrder,
-  liveHasStart,
-  armsAreDistinct,
-  rangeIsNotEmpty,
-  metricNamesAreDistinct,
-  guardrailsSayWhatHarmIs,
-  groupUnitsDescribeClusters,
-  readinessNamesTargets,
-  overlapsNameOthers,
-  decisionsAreWritten
-];
-
-// src/core/plan/load.ts
-var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
-function lineOfKey(loaded, path) {
-  for (let depth = path.length; depth > 0; depth--) {
-    const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
-    if (line !== void 0) return line;
-  }
-  return loaded.line;
-}
-function keyLinesOf(source) {
-  const lines = /* @__PURE__ */ new Map();
-  const walk2 = (value, path) => {
-    if (Array.isArray(value)) {
-      value.forEach((item, index) => {
-        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
-        walk2(item, [...path, index]);
-      });
-    } else if (value !== null && typeof value === "object") {
-      for (const [key, item] of Object.entries(value)) {
-        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
-        walk2(item, [...path, key]);
-      }
-    }
-  };
-  walk2(source.value, []);
-  return lines;
-}
-function loadPlan(text2, file2) {
-  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
-  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
-  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = [...renamedSurfaceKeys(read.source, [["surface"]], "plan"), ...runRules(checked.value, read.source, PLAN_RULES)];
-  const errors = problems.filter((p) => p.severity === "error");
-  const warnings = problems.filter((p) => p.severity === "warning");
-  if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line, keyLines: keyLinesOf(read.source) }, warnings };
-}
-
-// src/run/load-workspace.ts
-async function loadWorkspace(options) {
-  const { files } = options;
-  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
-  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
-  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
-  const settings = settingsResult.settings;
-  const planFiles = await findPlanFiles(files, settings.planPaths);
-  const problems = [];
-  const plans = [];
-  const texts = await files.readTexts(planFiles);
-  for (const [index, file2] of planFiles.entries()) {
-    options.onProgress?.(index, planFiles.length, "plans");
-    const result = loadPlan(texts[index] ?? "", file2);
-    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
-    if (result.ok) plans.push(result.loaded);
-  }
-  options.onProgress?.(planFiles.length, planFiles.length, "plans");
-  const extra = [];
-  for (const [index, file2] of settings.registryFiles.entries()) {
-    const text2 = await files.readText(file2);
-    if (text2 === void 0) {
-      return {
-        ok: false,
-        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
-        settingsProblems: [
-          {
-            severity: "error",
-            code: "settings/registry-missing",
-            ...settingsResult.locate(["registries", index]),
-            field: `registries[${index}]`,
-            message: `the registry file ${file2} does not exist`,
-            expected: "a path relative to the repository root"
-          }
-        ]
-      };
-    }
-    const result = loadRegistryFile(text2, file2);
-    if (result.ok) extra.push(...result.entries);
-    problems.push(...result.ok ? result.warnings : result.errors);
-  }
-  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
-  problems.push(...registryProblems);
-  return {
-    ok: true,
-    workspace: {
-      settings,
-      ...settingsFile ? { settingsFile } : {},
-      planFiles,
-      plans,
-      registry: registry2,
-      problems: sortProblems(problems)
-    }
-  };
-}
-function ownFilesOf(workspace) {
-  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
-}
-async function requireWorkspace(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) {
-    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
-${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
-  }
-  return loaded.workspace;
-}
-async function readSettingsText(files, named) {
-  if (named) {
-    const text2 = await files.readText(named);
-    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
-    return { text: text2, file: named };
-  }
-  for (const candidate of SETTINGS_FILE_NAMES) {
-    const text2 = await files.readText(candidate);
-    if (text2 !== void 0) return { text: text2, file: candidate };
-  }
-  return {};
-}
-async function findPlanFiles(files, planPaths) {
-  const found = /* @__PURE__ */ new Set();
-  for (const root of planSearchRoots(planPaths)) {
-    for (const path of await files.listFiles(root.folder)) {
-      if (root.matches(path)) found.add(path);
-    }
-  }
-  return [...found].sort();
-}
-
-// src/run/scaffold.ts
-import { posix } from "node:path";
-
 // src/core/calendar.ts
 var DAY_MS = 864e5;
 function toUtcMs(date5) {
@@ -37786,522 +37831,6 @@ function daysBetween(from, to) {
 }
 function inclusiveDays(start, end) {
   return daysBetween(start, end) + 1;
-}
-
-// src/core/plan/scaffold.ts
-function planIdFromFlag(flagKey2) {
-  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
-}
-function renderPlanScaffold(options) {
-  const id = options.id ?? planIdFromFlag(options.flagKey);
-  const start = addDays(options.today, 7);
-  const end = addDays(start, 27);
-  const quote = (s) => JSON.stringify(s);
-  return `# yaml-language-server: $schema=${options.schemaPath}
-# Experiment plan, written before launch. Reference: docs/plan-reference.md
-id: ${id}
-title: ${quote(`Describe the change behind ${options.flagKey}`)}
-owners: [${quote(options.owner ?? "@your-handle")}]
-flags: [${quote(options.flagKey)}]
-state: draft                # draft, live, on-hold or concluded
-window:
-  start: ${start}
-  end: ${end}           # four whole weeks; weekly cycles matter
-
-hypothesis:
-  change: "What users will see or get that they do not today."
-  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
-  expected-direction: increase
-
-unit:
-  randomization: user       # user, device, session, account, team, organization, household, region
-  # analysis: session       # only when metrics are averaged over another unit
-
-surface:
-  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
-  # traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }   # percent of the pool, start included, end excluded
-  # overlaps-with: [another-plan-id]
-
-population:
-  platforms: [web]
-  locales: [en-GB]
-  ready:                    # where the change was checked: rendered, translated
-    platforms: []
-    locales: []
-
-exposure:
-  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
-  reach: 1                  # share of exposed units that reach the changed experience
-
-metrics:
-  primary:
-    name: conversion
-    kind: proportion        # proportion, mean or ratio
-    baseline: { rate: 0.1 } # replace with the measured baseline
-    events: [conversion_completed]
-  guardrails: []
-    # - name: page-latency
-    #   kind: mean
-    #   baseline: { mean: 420, sd: 180 }
-    #   events: [page_rendered]
-    #   direction: decrease
-    #   tolerance: { relative: 0.02 }
-
-design:
-  arms:
-    - { name: control, weight: 50 }
-    - { name: treatment, weight: 50 }
-  alpha: 0.05
-  power: 0.8
-  min-detectable-effect: { relative: 0.05 }
-  # daily-units: 10000      # expected eligible units per day
-
-# Decision rules: write them now, before any data arrives.
-# decisions:
-#   win: ""
-#   flat: ""
-#   loss: ""
-#   guardrail-breach: ""
-`;
-}
-
-// src/run/scaffold.ts
-var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
-async function scaffoldPlan(request) {
-  const workspace = await requireWorkspace(request);
-  const id = request.id ?? planIdFromFlag(request.flagKey);
-  const taken = workspace.registry.entries.find((entry) => entry.id === id);
-  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
-  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
-  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
-  const path = request.out ?? posix.join(folder, `${id}.yaml`);
-  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
-  const text2 = renderPlanScaffold({
-    flagKey: request.flagKey,
-    id,
-    today: request.today,
-    schemaPath,
-    ...request.owner ? { owner: request.owner } : {},
-    ...request.surface ? { surface: request.surface } : {}
-  });
-  const check3 = loadPlan(text2, path);
-  if (!check3.ok) {
-    throw new UsageError(`the new plan would not be valid:
-${check3.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
-  }
-  return { path, text: text2, id };
-}
-
-// src/run/validate.ts
-async function validateRepository(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
-  const { workspace } = loaded;
-  return {
-    kind: "report",
-    report: {
-      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
-      planFiles: workspace.planFiles.length,
-      validPlans: workspace.plans.length,
-      registryFiles: workspace.settings.registryFiles.length,
-      registryEntries: workspace.registry.entries.length,
-      errors: workspace.problems.filter((p) => p.severity === "error").length,
-      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
-      problems: workspace.problems
-    }
-  };
-}
-
-// src/cli/output.ts
-function createCliOutput(options) {
-  const env = process.env;
-  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
-  const interactive = process.stderr.isTTY === true && env.CI !== "true";
-  let drawn = false;
-  return {
-    color,
-    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    progress(done, total, what) {
-      if (!interactive || total < 200) return;
-      if (done < total) {
-        if (done % 50 === 0) {
-          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
-          drawn = true;
-        }
-      } else if (drawn) {
-        process.stderr.write("\r\x1B[2K");
-        drawn = false;
-      }
-    }
-  };
-}
-
-// src/cli/size-command.ts
-function addSizeOptions(command) {
-  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "new eligible units per day (units not seen before that day)").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--groups <number>", "how many groups exist to randomize, when groups are randomized").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
-}
-var EXAMPLES = {
-  baseline: "0.12 (a rate) or 42.5 (a mean)",
-  sd: "30",
-  effect: "0.03 (3% relative)",
-  alpha: "0.05",
-  power: "0.8",
-  arms: "50,50",
-  "daily-units": "12000",
-  days: "28"
-};
-var DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-function number4(flag, text2, required2 = "") {
-  if (text2 === void 0) throw new UsageError(`--${flag} is required${required2}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
-  const value = Number(text2.trim());
-  if (!DECIMAL.test(text2.trim()) || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a decimal number; got ${JSON.stringify(text2)}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
-  }
-  return value;
-}
-function field(flag, text2, schema, required2 = "") {
-  const value = number4(flag, text2, required2);
-  const checked = schema.safeParse(value);
-  if (!checked.success) throw new UsageError(`--${flag} needs ${checked.error.issues[0]?.message ?? "a valid value"}; got ${text2}`);
-  return checked.data;
-}
-function pair(flag, text2, required2, meanSchema) {
-  if (text2 === void 0) throw new UsageError(`--${flag} is required${required2}`, `e.g. --${flag} 0.9,1.4`);
-  const parts = text2.split(",");
-  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
-  return { mean: field(flag, parts[0], meanSchema), sd: field(flag, parts[1], F["moment-sd"]) };
-}
-var F = SIZING_FLAG_FIELDS;
-function requestFromFlags(flags) {
-  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
-  const forKind = ` for --kind ${flags.kind}`;
-  let baseline;
-  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: field("baseline", flags.baseline, F.rate, forKind) };
-  else if (flags.kind === "mean") baseline = { kind: "mean", mean: field("baseline", flags.baseline, F.mean, forKind), sd: field("sd", flags.sd, F.sd, forKind) };
-  else {
-    baseline = {
-      kind: "ratio",
-      numerator: pair("numerator", flags.numerator, forKind, F["moment-mean"]),
-      denominator: pair("denominator", flags.denominator, forKind, F["denominator-mean"]),
-      correlation: field("correlation", flags.correlation, F.correlation)
-    };
-  }
-  const weights = flags.arms.split(",").map((w) => field("arms", w, F["arm-weight"]));
-  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
-  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
-  const looks = field("interim-looks", flags.interimLooks, F["interim-looks"]);
-  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
-  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
-  const effect = flags.effect === void 0 ? void 0 : field("effect", flags.effect, flags.absolute ? F["effect-absolute"] : F.effect);
-  const dailyUnits = flags.dailyUnits === void 0 ? void 0 : field("daily-units", flags.dailyUnits, F["daily-units"]);
-  if (effect === void 0 && (days === void 0 || dailyUnits === void 0)) {
-    throw new UsageError(
-      days === void 0 ? "--effect is required, unless --days and --daily-units ask what is detectable by then" : "--days without --effect asks what is detectable by then, which needs --daily-units",
-      "e.g. --effect 0.03, or --days 28 --daily-units 12000"
-    );
-  }
-  const clusterSize = flags.clusterSize === void 0 ? void 0 : field("cluster-size", flags.clusterSize, F["cluster-size"]);
-  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
-  const groupsAvailable = flags.groups === void 0 ? void 0 : field("groups", flags.groups, F["groups-available"]);
-  return {
-    baseline,
-    direction: flags.direction,
-    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
-    arms,
-    control: "control",
-    alpha: field("alpha", flags.alpha, F.alpha),
-    power: field("power", flags.power, F.power),
-    sides: flags.sides === "1" ? 1 : 2,
-    ...dailyUnits !== void 0 ? { dailyUnits } : {},
-    trafficShare: field("traffic-share", flags.trafficShare, F["traffic-share"]),
-    reach: field("reach", flags.reach, F.reach),
-    interimLooks: looks,
-    boundary: flags.boundary,
-    prePeriodCorrelation: field("pre-period-correlation", flags.prePeriodCorrelation, F["pre-period-correlation"]),
-    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: field("icc", flags.icc, F.icc), sizeCv: field("size-cv", flags.sizeCv, F["size-cv"]), ...groupsAvailable !== void 0 ? { available: groupsAvailable } : {} } } : {},
-    ...days !== void 0 ? { plannedDays: days } : {},
-    method: flags.method
-  };
-}
-
-// src/core/report/numbers.ts
-var NOT_A_NUMBER = "n/a";
-function formatCount(n) {
-  if (!Number.isFinite(n)) return NOT_A_NUMBER;
-  if (Math.abs(n) >= 1e15) {
-    const [mantissa, exponent] = n.toExponential(2).split("e");
-    return `${mantissa} \xD7 10^${Number(exponent)}`;
-  }
-  return Math.round(n).toLocaleString("en-US");
-}
-function formatRate(rate) {
-  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent2 = rate * 100;
-  const digits = Math.abs(percent2) >= 10 ? 1 : Math.abs(percent2) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent2) || 1)));
-  return `${percent2.toFixed(Math.min(digits, 4))}%`;
-}
-function formatRelative(change2) {
-  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent2 = change2 * 100;
-  const text2 = Number(percent2.toPrecision(3)).toString();
-  return `${percent2 >= 0 ? "+" : ""}${text2}%`;
-}
-function formatValue(value) {
-  if (!Number.isFinite(value)) return NOT_A_NUMBER;
-  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
-  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
-}
-function formatPower(power) {
-  if (!Number.isFinite(power)) return NOT_A_NUMBER;
-  if (power > 0.999) return ">99.9%";
-  if (power < 1e-3) return "<0.1%";
-  return `${(power * 100).toFixed(1)}%`;
-}
-function formatMultiplier(m) {
-  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
-}
-function countOf(n, singular, plural2 = `${singular}s`) {
-  return `${formatCount(n)} ${Math.round(n) === 1 ? singular : plural2}`;
-}
-function formatWeeks(duration3, why) {
-  return `${countOf(duration3.weeks, "week")} (${countOf(duration3.days, "day")}${why ? `; ${why}` : ""})`;
-}
-
-// src/core/report/markdown-safe.ts
-var ZERO_WIDTH_SPACE = "\u200B";
-function inert(text2) {
-  return text2.replace(/@(?=[A-Za-z0-9_-])/g, `@${ZERO_WIDTH_SPACE}`).replace(/#(?=\d)/g, `#${ZERO_WIDTH_SPACE}`);
-}
-function oneLine(text2) {
-  return text2.replace(/\r\n?|\n/g, " ");
-}
-function escapePlain(text2) {
-  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
-}
-function escapeCode(text2) {
-  return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
-}
-function safeText(text2) {
-  return escapePlain(oneLine(text2));
-}
-function safeMessage(text2) {
-  const clean = oneLine(text2);
-  let out = "";
-  let at = 0;
-  const runs = [...clean.matchAll(/`+/g)];
-  for (let i = 0; i < runs.length; i++) {
-    const open2 = runs[i];
-    if (open2.index < at) continue;
-    const close = runs.slice(i + 1).find((r) => r[0].length === open2[0].length);
-    out += escapePlain(clean.slice(at, open2.index));
-    if (!close) {
-      out += open2[0].replace(/`/g, "\\`");
-      at = open2.index + open2[0].length;
-      continue;
-    }
-    const inner = clean.slice(open2.index + open2[0].length, close.index);
-    out += `${open2[0]}${escapeCode(inner)}${close[0]}`;
-    at = close.index + close[0].length;
-    i = runs.indexOf(close);
-  }
-  return out + escapePlain(clean.slice(at));
-}
-function inCell(markdown) {
-  return markdown.replace(/\|/g, "\\|");
-}
-function safeCell(text2) {
-  return inCell(safeText(text2));
-}
-function codeSpan(text2) {
-  const clean = escapeCode(oneLine(text2));
-  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
-  const fence = "`".repeat(longest + 1);
-  const pad = clean.startsWith("`") || clean.endsWith("`") || /^ .* $/.test(clean) ? " " : "";
-  return clean === "" ? "` `" : `${fence}${pad}${clean}${pad}${fence}`;
-}
-function codeCell(text2) {
-  return inCell(codeSpan(text2));
-}
-function urlPath(path) {
-  return path.split("/").map((segment) => encodeURIComponent(segment).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)).join("/");
-}
-function linkTarget(url2) {
-  return url2.replace(/[^A-Za-z0-9\-._~:/?#[\]@!$&'*+,;=%]/gu, (c) => encodeURIComponent(c)).replace(/[()'!*[\]]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
-}
-
-// src/core/report/sizing.ts
-var SIZING_JSON_FORMAT = "plumbline.sizing/1";
-function valueText(entry, value) {
-  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
-}
-function describeChange(entry, change2, from) {
-  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
-  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
-}
-function sizeCells(size) {
-  if (!size) return ["", "", "", ""];
-  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
-  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : "", size.duration ? formatCount(size.duration.weeks) : ""];
-}
-function rows(sizing) {
-  return sizing.metrics.map((entry) => {
-    const role = entry.role === "guardrail" ? `guardrail (non-inferiority, \u03B1 ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
-    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
-    const s = entry.result.value;
-    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
-    const end = s.atPlannedEnd;
-    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
-    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
-  });
-}
-var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
-function multiplierNotes(entry, sizing) {
-  const m = sizing.multipliers;
-  const out = [];
-  if (sizing.traffic?.kind === "unique" && entry.role === "primary") {
-    const [a, b] = sizing.traffic.points;
-    out.push(`Traffic as people arrive: ${formatCount(a.units)} different units in ${a.days} days and ${formatCount(b.units)} in ${b.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
-  }
-  if (entry.role === "guardrail" && sizing.effect) {
-    out.push(
-      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`
-    );
-  }
-  if (entry.guardrailLooks) {
-    out.push(`The interim boundaries are the primary\u2019s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail\u2019s harm check is its own one-sided test at \u03B1 ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
-  }
-  if (sizing.feasibility && !sizing.feasibility.feasible) {
-    const f = sizing.feasibility;
-    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : "";
-    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
-  }
-  if (sizing.squareRootAllocation) {
-    const a = sizing.squareRootAllocation;
-    out.push(`Several arms share one control: giving the control \u221Ak times a treatment arm\u2019s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
-  }
-  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) {
-    const perArm = sizing.headline?.clustersPerArm;
-    const groups = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
-    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups}.`);
-  }
-  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (sizing.boundaries) {
-    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
-    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
-    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
-  }
-  if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, "day")})` : "";
-    out.push(
-      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
-    );
-  }
-  return out.map((text2) => `${entry.metric}: ${text2}`);
-}
-function notesOf(sizing) {
-  const family = sizing.family ? [
-    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
-  ] : [];
-  return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
-}
-function windowLine(sizing, context2) {
-  if (sizing.plannedDays !== void 0) {
-    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
-    return `Planned window: ${countOf(sizing.plannedDays, "day")}${dates}.`;
-  }
-  return "Planned window: not set, so power and detectable effect at the end are not computed.";
-}
-function renderSizingText(sizing, context2) {
-  const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
-  const traffic = sizing.dailyUnits === void 0 && sizing.uniqueUnits === void 0 ? "No daily-units or unique-units given, so no durations." : "";
-  const notes = notesOf(sizing);
-  return [
-    context2.title,
-    context2.designLine,
-    windowLine(sizing, context2),
-    ...traffic ? [traffic] : [],
-    "",
-    table,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
-  ].join("\n");
-}
-function mermaidPowerChart(entry, sizing, target) {
-  const points = sizing.powerByDay;
-  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
-  const days = points.map((p) => p.day).join(", ");
-  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
-  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
-  return [
-    "```mermaid",
-    "xychart-beta",
-    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, " ")}"`,
-    `  x-axis "day" [${days}]`,
-    '  y-axis "power (%)" 0 --> 100',
-    `  line [${power}]`,
-    `  line [${goal}]`,
-    "```"
-  ].join("\n");
-}
-function renderSizingMarkdown(sizing, context2) {
-  const table = [
-    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
-    `| ${HEADER.map(() => "---").join(" | ")} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(" | ")} |`)
-  ];
-  const primary = sizing.metrics.find((m) => m.role === "primary");
-  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
-  const notes = notesOf(sizing);
-  return [
-    `### ${safeText(context2.title)}`,
-    "",
-    [safeText(context2.designLine), windowLine(sizing, context2)].filter(Boolean).join(" "),
-    "",
-    ...table,
-    ...notes.length ? ["", ...notes.map((n) => `- ${safeText(n)}`)] : [],
-    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
-    ""
-  ].join("\n");
-}
-function sizingJson(sizing, context2) {
-  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
-}
-function designSummary(design) {
-  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
-  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
-  const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
-  const traffic = design.uniqueUnits ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(" and ")}, ${reached}` : design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
-  return `${arms}, ${test}${traffic}.`;
-}
-function lengthSetter(sizing) {
-  let best;
-  for (const entry of sizing.metrics) {
-    const duration3 = entry.result.ok ? entry.result.value.headline?.duration : void 0;
-    if (entry.result.ok && duration3 && (!best || duration3.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration: duration3 };
-  }
-  return best;
-}
-function lengthSummary(sizing) {
-  const setter = lengthSetter(sizing);
-  if (!setter) return void 0;
-  const { entry, duration: duration3 } = setter;
-  const who = entry.role === "guardrail" ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
-  const length = `${countOf(duration3.weeks, "week")} (${who} sets the length: ${countOf(duration3.days, "day")})`;
-  const end = setter.sizing.atPlannedEnd;
-  return end?.power !== void 0 ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, "day")})` } : { length };
-}
-
-// src/core/config/sizing-policy.ts
-function sizingPolicy(settings) {
-  return {
-    guardrailAlpha: settings.sizing.guardrailAlpha,
-    guardrailPower: settings.sizing.guardrailPower,
-    guardrailArmCorrection: settings.sizing.guardrailArmCorrection,
-    longestDays: settings.sizing.longestWindowDays
-  };
 }
 
 // src/core/stats/adjustments.ts
@@ -38630,9 +38159,9 @@ function sizeMetric(request) {
     let perArm = request.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
     let clustersPerArm;
     if (request.cluster) {
-      const groups = wholeGroupsPerArm(perArm, request.cluster.meanSize, alphaPerComparison, request.sides, request.power);
-      clustersPerArm = groups;
-      perArm = groups.map((g) => ({ arm: g.arm, units: units(g.groups * request.cluster.meanSize) }));
+      const groups2 = wholeGroupsPerArm(perArm, request.cluster.meanSize, alphaPerComparison, request.sides, request.power);
+      clustersPerArm = groups2;
+      perArm = groups2.map((g) => ({ arm: g.arm, units: units(g.groups * request.cluster.meanSize) }));
     }
     const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
     const day = traffic && reachShare !== void 0 && totalUnits < ABSURD_UNITS ? traffic.dayFor(totalUnits / (request.trafficShare * reachShare)) : void 0;
@@ -38767,16 +38296,16 @@ function sizeMetric(request) {
 }
 function wholeGroupsPerArm(perArm, meanSize, alpha, sides, power) {
   const zSum = normalUpperQuantile(alpha / sides) + normalQuantile(power);
-  let groups = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
-  for (let round = 0; round < 50; round++) {
-    const df = groups.reduce((s, g) => s + g.groups, 0) - 2;
+  let groups2 = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
+  for (let round2 = 0; round2 < 50; round2++) {
+    const df = groups2.reduce((s, g) => s + g.groups, 0) - 2;
     const tSum = studentQuantile(1 - alpha / sides, df) + studentQuantile(power, df);
     const factor = (tSum / zSum) ** 2;
     const next = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units * factor / meanSize - 1e-9)) }));
-    if (next.every((g, i) => g.groups === groups[i].groups)) return next;
-    groups = next;
+    if (next.every((g, i) => g.groups === groups2[i].groups)) return next;
+    groups2 = next;
   }
-  return groups;
+  return groups2;
 }
 
 // src/core/stats/plan-sizing.ts
@@ -38884,235 +38413,584 @@ function familyOf(entries) {
   return { family: { primaryPower, noFalseAlarm: primaryPower * noFalseAlarm, allGuardrailsClear: primaryPower * allClear } };
 }
 
-// src/run/size.ts
-async function sizeNamedPlan(options) {
-  const workspace = await requireWorkspace(options);
-  const wanted = options.plan.replace(/^\.\//, "");
-  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
-  if (!found) {
-    const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
-    if (broken.length) throw new UsageError(`${wanted} has errors:
-${broken.map(formatProblem).join("\n")}`, "fix them, then size again");
-    const known = workspace.plans.map((p) => p.plan.id);
-    throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
-  }
-  const { plan } = found;
-  return {
-    sizing: sizePlan(plan, sizingPolicy(workspace.settings)),
-    power: plan.design.power,
-    context: {
-      title: `Sizing for ${plan.id} (${found.file})`,
-      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
-      window: plan.window
+// src/core/source/closest-name.ts
+function closestName(typed, known) {
+  const wanted = typed.toLowerCase();
+  let best;
+  let bestDistance = Infinity;
+  for (const candidate of known) {
+    const distance = editDistance(wanted, candidate.toLowerCase());
+    if (distance < bestDistance) {
+      best = candidate;
+      bestDistance = distance;
     }
-  };
+  }
+  const tolerance = Math.max(2, Math.floor(typed.length / 3));
+  if (best !== void 0 && bestDistance <= tolerance) return best;
+  return known.find((candidate) => stem(candidate) === stem(typed));
 }
-function sizeFromRequest(request, window) {
-  const sizing = {
-    planId: "command-line",
-    ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
-    ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
-    metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }]
-  };
-  return {
-    sizing,
-    power: request.power,
-    context: { title: "Sizing from the command line", designLine: designSummary(request), ...window ? { window } : {} }
-  };
+function stem(name) {
+  return name.replace(/[-_\s]/g, "").toLowerCase().replace(/ies$/, "y").replace(/s$/, "");
+}
+function editDistance(a, b) {
+  const rows2 = a.length + 1;
+  const cols = b.length + 1;
+  const d = Array.from({ length: rows2 }, (_, i) => Array.from({ length: cols }, (_2, j) => i === 0 ? j : j === 0 ? i : 0));
+  for (let i = 1; i < rows2; i++) {
+    for (let j = 1; j < cols; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let value = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) {
+        value = Math.min(value, d[i - 2][j - 2] + 1);
+      }
+      d[i][j] = value;
+    }
+  }
+  return d[a.length][b.length];
 }
 
-// src/adapters/git.ts
-import { spawn } from "node:child_process";
-import { closeSync, fstatSync, openSync, readSync } from "node:fs";
-import { join as join2 } from "node:path";
-function runGit(cwd, args, options = {}) {
-  return new Promise((resolve3, reject) => {
-    const child = spawn("git", ["-c", "core.quotePath=false", "-c", "diff.noprefix=false", "-c", "color.ui=false", ...args], {
-      cwd,
-      stdio: ["pipe", "pipe", "pipe"]
+// src/core/source/check-written.ts
+function checkWritten(source, schema, jsonSchema, codePrefix) {
+  const parsed = schema.safeParse(source.value);
+  if (parsed.success) return { ok: true, value: parsed.data };
+  const problems = [];
+  for (const issue2 of parsed.error.issues) {
+    problems.push(...issueToProblems(issue2, source, jsonSchema, codePrefix));
+  }
+  return { ok: false, problems: dedupe(problems) };
+}
+function issueToProblems(issue2, source, jsonSchema, codePrefix) {
+  const path = issue2.path.filter((p) => typeof p !== "symbol");
+  if (issue2.code === "unrecognized_keys") {
+    const known = knownKeysAt(jsonSchema, source.value, path);
+    return (issue2.keys ?? []).map((key) => {
+      const suggestion = closestName(key, known);
+      return {
+        severity: "error",
+        code: `${codePrefix}/unknown-key`,
+        ...source.locateKey(path, key),
+        field: formatFieldPath([...path, key]),
+        message: suggestion ? `unknown key "${key}"; did you mean "${suggestion}"?` : `unknown key "${key}"`,
+        ...known.length ? { expected: `one of ${known.join(", ")}` } : {}
+      };
     });
-    const out = [];
-    const err = [];
-    child.stdout.on("data", (chunk) => out.push(chunk));
-    child.stderr.on("data", (chunk) => err.push(chunk));
-    child.on(
-      "error",
-      (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 }))
-    );
-    child.on("close", (code) => {
-      if (code === 0 || options.allow?.includes(code ?? -1)) resolve3(Buffer.concat(out));
-      else {
-        const stderr = Buffer.concat(err).toString("utf8").trim();
-        reject(new ExternalError(`git ${args.join(" ")} failed: ${stderr || `exit code ${code}`}`, hintFor(stderr)));
-      }
-    });
-    child.stdin.on("error", () => void 0);
-    child.stdin.end(options.input ?? "");
+  }
+  if (issue2.code === "invalid_union") {
+    if (issue2.discriminator) {
+      const discriminatorPath = path[path.length - 1] === issue2.discriminator ? path : [...path, issue2.discriminator];
+      return [{ ...fieldProblem(issue2, discriminatorPath, source, codePrefix), message: "is not one of the allowed kinds" }];
+    }
+    const branch = pickUnionBranch(issue2.errors ?? []);
+    if (branch) return branch.flatMap((inner) => issueToProblems({ ...inner, path: [...issue2.path, ...inner.path] }, source, jsonSchema, codePrefix));
+  }
+  return [fieldProblem(issue2, path, source, codePrefix)];
+}
+function fieldProblem(issue2, path, source, codePrefix) {
+  const found = valueAt(source.value, path);
+  const missing = found === void 0;
+  const customCode = issue2.code === "custom" ? issue2.params?.code : void 0;
+  const message = customCode ? issue2.params?.summary ?? "is not valid" : missing ? "required field is missing" : path.length === 0 && found === null ? "the file is empty" : summaryFor(issue2);
+  return {
+    severity: "error",
+    code: customCode ?? (missing ? `${codePrefix}/missing-field` : `${codePrefix}/invalid-value`),
+    ...source.locate(path),
+    field: formatFieldPath(path),
+    message,
+    expected: cleanZodMessage(issue2.message),
+    ...missing ? {} : { found: describeFound(found) }
+  };
+}
+function describeFound(found) {
+  const percent2 = typeof found === "string" ? /^\s*(-?\d+(?:\.\d+)?)\s*%\s*$/.exec(found) : null;
+  const described = describeValue(found);
+  return percent2 ? `${described}; write ${percent2[1]}% as ${Number(percent2[1]) / 100}` : described;
+}
+function summaryFor(issue2) {
+  switch (issue2.code) {
+    case "invalid_type":
+      return "has the wrong type";
+    case "too_small":
+      return issue2.origin === "array" ? "has too few items" : issue2.origin === "string" ? "is empty" : "is out of range";
+    case "too_big":
+      return issue2.origin === "array" ? "has too many items" : issue2.origin === "string" ? "is too long" : "is out of range";
+    case "invalid_value":
+      return "is not one of the allowed values";
+    case "invalid_format":
+      return "is not in the expected format";
+    default:
+      return "is not valid";
+  }
+}
+function cleanZodMessage(message) {
+  return message.replace(/^Invalid input: expected /, "").replace(/^Invalid input: /, "");
+}
+function pickUnionBranch(branches) {
+  const shaped = branches.filter((issues) => issues.every((i) => !(i.code === "invalid_type" && i.path.length === 0)));
+  if (shaped.length === 0) return void 0;
+  return shaped.reduce((best, next) => next.length < best.length ? next : best);
+}
+function dedupe(problems) {
+  const seen = /* @__PURE__ */ new Set();
+  return problems.filter((p) => {
+    const key = p.code.endsWith("/unknown-key") ? `${p.field}:unknown` : p.field;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
   });
 }
-function hintFor(stderr) {
-  if (/not a git repository/i.test(stderr)) return "run plumbline inside a git repository, or pass --cwd";
-  if (/unknown revision|bad revision|Needed a single revision|invalid object name/i.test(stderr)) {
-    return "check --base and --head; in a shallow clone (actions/checkout fetches one commit by default) fetch more history, e.g. fetch-depth: 0";
-  }
-  return void 0;
+function formatFieldPath(path) {
+  return path.reduce((out, segment) => typeof segment === "number" ? `${out}[${segment}]` : out ? `${out}.${segment}` : segment, "");
 }
-async function resolveCommit(cwd, ref, flag) {
+function valueAt(value, path) {
+  let current = value;
+  for (const segment of path) {
+    if (current === null || typeof current !== "object") return void 0;
+    current = current[segment];
+  }
+  return current;
+}
+function knownKeysAt(schema, data, path) {
+  const branchesFor = (node2, value) => unionBranches(resolveRef2(schema, node2), value, schema);
+  let nodes = [schema];
+  let current = data;
+  for (const segment of path) {
+    nodes = nodes.flatMap((n) => branchesFor(n, current));
+    const next = [];
+    for (const node2 of nodes) {
+      if (typeof segment === "number" && node2.items) next.push(resolveRef2(schema, node2.items));
+      if (typeof segment === "string" && node2.properties?.[segment]) next.push(resolveRef2(schema, node2.properties[segment]));
+    }
+    nodes = next;
+    current = current !== null && typeof current === "object" ? current[segment] : void 0;
+  }
+  const keys = /* @__PURE__ */ new Set();
+  for (const node2 of nodes.flatMap((n) => branchesFor(n, current))) {
+    for (const key of Object.keys(node2.properties ?? {})) keys.add(key);
+  }
+  return [...keys];
+}
+function resolveRef2(root, node2) {
+  const ref = node2.$ref;
+  if (!ref?.startsWith("#/$defs/")) return node2;
+  return root.$defs?.[ref.slice("#/$defs/".length)] ?? node2;
+}
+function unionBranches(node2, data, root) {
+  const options = node2.anyOf ?? node2.oneOf;
+  if (!options) return [node2];
+  const all = options.flatMap((o) => unionBranches(resolveRef2(root, o), data, root));
+  const record2 = data !== null && typeof data === "object" && !Array.isArray(data) ? data : void 0;
+  const matching = all.filter((option) => {
+    if (Array.isArray(data)) return option.items !== void 0;
+    if (!record2) return true;
+    return Object.entries(option.properties ?? {}).every(([key, prop]) => prop.const === void 0 || record2[key] === prop.const);
+  });
+  return matching.length ? matching : all;
+}
+
+// src/core/source/rule-context.ts
+function runRules(value, source, rules) {
+  const problems = [];
+  const context2 = {
+    value,
+    report({ severity: severity2, code, path, message, expected, showFound, atKey }) {
+      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
+      problems.push({
+        severity: severity2,
+        code,
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path),
+        field: formatFieldPath(path),
+        message,
+        ...expected ? { expected } : {},
+        ...found ? { found } : {}
+      });
+    }
+  };
+  for (const rule of rules) rule(context2);
+  return problems;
+}
+
+// src/core/source/yaml-source.ts
+var import_yaml = __toESM(require_dist(), 1);
+function readYaml(text2, file2, limits, codePrefix) {
+  const fail2 = (line, column, code, message, expected) => ({
+    ok: false,
+    problems: [{ severity: "error", code: `${codePrefix}/${code}`, file: file2, line, column, field: "", message, ...expected ? { expected } : {} }]
+  });
+  const bytes = Buffer.byteLength(text2, "utf8");
+  if (bytes > limits.maxBytes) {
+    return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
+  }
+  const lineCounter = new import_yaml.LineCounter();
+  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const firstError = doc.errors[0];
+  if (firstError) {
+    const pos = lineCounter.linePos(firstError.pos[0]);
+    if (firstError.code === "MULTIPLE_DOCS") {
+      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+    }
+    if (firstError.code === "DUPLICATE_KEY") {
+      return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
+    }
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+  }
+  let complexKeyAt;
+  (0, import_yaml.visit)(doc, {
+    Pair(_, pair2) {
+      if (pair2.key !== null && !(0, import_yaml.isScalar)(pair2.key)) {
+        complexKeyAt = pair2.key.range?.[0] ?? 0;
+        return import_yaml.visit.BREAK;
+      }
+      return void 0;
+    }
+  });
+  if (complexKeyAt !== void 0) {
+    const pos = lineCounter.linePos(complexKeyAt);
+    return fail2(pos.line, pos.col, "complex-key", "a key here is a list or mapping", "keys written as plain words, e.g. title");
+  }
+  let value;
   try {
-    return (await runGit(cwd, ["rev-parse", "--verify", "--end-of-options", `${ref}^{commit}`])).toString("utf8").trim();
+    value = doc.toJS({ maxAliasCount: limits.maxAliases });
   } catch (error62) {
-    const hint = error62 instanceof ExternalError ? error62.hint : void 0;
-    throw new ExternalError(`${flag} ${ref} is not a commit in this repository`, hint ?? "check the ref name", { cause: error62 });
+    const message = error62 instanceof Error ? error62.message : String(error62);
+    return fail2(1, 1, "too-many-aliases", `the file expands too many aliases (${message})`, `at most ${limits.maxAliases} alias expansions`);
   }
-}
-async function openChange(repoDir, baseRef, headRef) {
-  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, "--head"), resolveCommit(repoDir, baseRef, "--base")]);
-  const mergeBase = (await runGit(repoDir, ["merge-base", baseTip, head], { allow: [1] })).toString("utf8").trim();
-  const base = mergeBase || baseTip;
-  const commitOf = (side) => side === "base" ? base : head;
-  const checkedOutIsHead = (async () => {
-    const current = (await runGit(repoDir, ["rev-parse", "--verify", "--quiet", "HEAD"], { allow: [1] })).toString("utf8").trim();
-    if (current !== head) return false;
-    return runGit(repoDir, ["diff", "--quiet", "HEAD", "--"]).then(
-      () => true,
-      () => false
-    );
-  })();
-  const trackedCache = /* @__PURE__ */ new Map();
-  const trackedFiles = (side) => {
-    const commit = commitOf(side);
-    let cached3 = trackedCache.get(commit);
-    if (!cached3) {
-      cached3 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
-      trackedCache.set(commit, cached3);
+  const at = (offset) => {
+    const pos = lineCounter.linePos(offset);
+    return { file: file2, line: pos.line, column: pos.col };
+  };
+  const rootOffset = doc.contents?.range[0] ?? 0;
+  const walk2 = (path) => {
+    let node2 = doc.contents;
+    let depth = 0;
+    for (const segment of path) {
+      const next = childOf(node2, segment);
+      if (!next) break;
+      node2 = next;
+      depth++;
     }
-    return cached3;
-  };
-  const streamFiles = async (side, paths, onFile) => {
-    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
-    return catFiles(repoDir, commitOf(side), paths, onFile);
-  };
-  const filesAt = (side) => {
-    const readTexts = async (paths) => {
-      const found = /* @__PURE__ */ new Map();
-      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString("utf8")));
-      return paths.map((p) => found.get(p));
-    };
-    return {
-      async listFiles(folder) {
-        const prefix = folder === "" || folder === "." ? "" : `${folder.replace(/\/+$/, "")}/`;
-        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
-      },
-      async readText(path) {
-        return (await readTexts([path]))[0];
-      },
-      readTexts
-    };
+    return { node: node2, depth };
   };
   return {
-    base,
-    head,
-    async changedFiles() {
-      const out = (await runGit(repoDir, ["diff", "--name-status", "-z", "-M", base, head])).toString("utf8");
-      return parseNameStatus(out);
-    },
-    async diff() {
-      return (await runGit(repoDir, ["diff", "--unified=0", "--no-ext-diff", "--no-textconv", "-M", "--src-prefix=a/", "--dst-prefix=b/", base, head])).toString("utf8");
-    },
-    filesAt,
-    streamFiles,
-    trackedFiles
+    ok: true,
+    source: {
+      file: file2,
+      value,
+      locate(path) {
+        const { node: node2 } = walk2(path);
+        return at(node2?.range?.[0] ?? rootOffset);
+      },
+      locateKey(path, key) {
+        const { node: node2, depth } = walk2(path);
+        if (depth === path.length && (0, import_yaml.isMap)(node2)) {
+          const pair2 = node2.items.find((item) => (0, import_yaml.isScalar)(item.key) && String(item.key.value) === key);
+          const keyNode = pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : void 0;
+          if (keyNode?.range) return at(keyNode.range[0]);
+        }
+        return at(node2?.range?.[0] ?? rootOffset);
+      }
+    }
   };
 }
-function parseNameStatus(out) {
-  const parts = out.split("\0").filter((p) => p !== "");
-  const files = [];
-  for (let i = 0; i < parts.length; ) {
-    const code = parts[i++];
-    if (code.startsWith("R") || code.startsWith("C")) {
-      const previousPath = parts[i++];
-      const path = parts[i++];
-      files.push({ path, status: "renamed", previousPath });
-    } else {
-      const path = parts[i++];
-      files.push({ path, status: code === "A" ? "added" : code === "D" ? "deleted" : "modified" });
+function childOf(node2, segment) {
+  if ((0, import_yaml.isMap)(node2)) {
+    const pair2 = node2.items.find((item) => (0, import_yaml.isPair)(item) && (0, import_yaml.isScalar)(item.key) && String(item.key.value) === String(segment));
+    return pair2?.value ?? (pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : null);
+  }
+  if ((0, import_yaml.isSeq)(node2) && typeof segment === "number") {
+    return node2.items[segment] ?? null;
+  }
+  return null;
+}
+function plainYamlMessage(message) {
+  return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
+}
+
+// src/core/plan/json-schema.ts
+var PLAN_SCHEMA_ID = "https://plumbline.dev/schema/plan.schema.json";
+var cached2;
+function planJsonSchema() {
+  cached2 ??= {
+    $id: PLAN_SCHEMA_ID,
+    title: "Plumbline experiment plan",
+    ...external_exports.toJSONSchema(writtenPlanSchema, { io: "input", target: "draft-2020-12", unrepresentable: "any" })
+  };
+  return cached2;
+}
+
+// src/core/plan/renamed-keys.ts
+var SURFACE_RENAMES = [
+  {
+    old: "exclusion-group",
+    replacement: "traffic-split",
+    how: "its slice: { from, to } is now range: { start, end }, with the same percent values",
+    example: "traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }"
+  }
+];
+function renamedSurfaceKeys(source, surfaces, codePrefix) {
+  const problems = [];
+  for (const path of surfaces) {
+    const surface = valueAt(source.value, path);
+    if (!surface || typeof surface !== "object" || Array.isArray(surface)) continue;
+    for (const rename2 of SURFACE_RENAMES) {
+      if (!(rename2.old in surface)) continue;
+      problems.push({
+        severity: "warning",
+        code: `${codePrefix}/renamed-key`,
+        ...source.locateKey(path, rename2.old),
+        field: formatFieldPath([...path, rename2.old]),
+        message: `"${rename2.old}" is the old name of "${rename2.replacement}" and is still read for now; rename it (${rename2.how})`,
+        expected: rename2.example
+      });
     }
   }
-  return files;
+  return problems;
 }
-function catFiles(cwd, commit, paths, onFile) {
-  const asked = paths.filter((p) => !p.includes("\n"));
-  if (asked.length === 0) return Promise.resolve();
-  return new Promise((resolve3, reject) => {
-    const child = spawn("git", ["cat-file", "--batch"], { cwd, stdio: ["pipe", "pipe", "pipe"] });
-    let index = 0;
-    let pending = Buffer.alloc(0);
-    let current;
-    const err = [];
-    child.stdout.on("data", (chunk) => {
-      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
-      for (; ; ) {
-        if (!current) {
-          const newline = pending.indexOf(10);
-          if (newline < 0) return;
-          const header = pending.subarray(0, newline).toString("utf8");
-          pending = pending.subarray(newline + 1);
-          if (header.endsWith(" missing") || header.endsWith(" ambiguous")) {
-            index++;
-            continue;
-          }
-          const size = Number(header.slice(header.lastIndexOf(" ") + 1));
-          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(" blob ") };
-        }
-        if (pending.length < current.size + 1) return;
-        if (current.deliver) onFile(asked[index], pending.subarray(0, current.size));
-        pending = pending.subarray(current.size + 1);
-        index++;
-        current = void 0;
-      }
+
+// src/core/plan/rules.ts
+var windowInOrder = ({ value: plan, report }) => {
+  const { start, end } = plan.window;
+  if (start && end && end < start) {
+    report({
+      severity: "error",
+      code: "plan/window-order",
+      path: ["window", "end"],
+      message: `the window ends (${end}) before it starts (${start})`,
+      expected: `an end date on or after ${start}`
     });
-    child.stderr.on("data", (chunk) => err.push(chunk));
-    child.on("error", (error62) => reject(new ExternalError("cannot run git", "install git and make sure it is on the PATH", { cause: error62 })));
-    child.on("close", (code) => {
-      if (code === 0) resolve3();
-      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString("utf8").trim()}`));
+  }
+};
+var liveHasStart = ({ value: plan, report }) => {
+  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
+    report({
+      severity: "warning",
+      code: "plan/start-missing",
+      path: ["window"],
+      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
+      expected: "window.start, e.g. 2026-11-02"
     });
-    child.stdin.on("error", () => void 0);
-    child.stdin.end(asked.map((p) => `${commit}:${p}
-`).join(""));
+  }
+};
+var armsAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  plan.design.arms.forEach((arm2, index) => {
+    if (seen.has(arm2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-arm",
+        path: ["design", "arms", index, "name"],
+        message: `arm "${arm2.name}" is listed twice`,
+        expected: "each arm name once"
+      });
+    }
+    seen.add(arm2.name);
   });
+  if (!seen.has(plan.design.control)) {
+    report({
+      severity: "error",
+      code: "plan/unknown-control-arm",
+      path: ["design", "control"],
+      message: `the control arm "${plan.design.control}" is not one of the arms`,
+      expected: `one of ${[...seen].join(", ")}`
+    });
+  }
+};
+var rangeIsNotEmpty = ({ value: plan, report }) => {
+  const split = plan.surface.trafficSplit;
+  if (!split) return;
+  const width = split.range.end - split.range.start;
+  if (width <= 0) {
+    report({
+      severity: "error",
+      code: "plan/empty-range",
+      // A file still on the old key is located at its surface (and warned about the rename).
+      path: ["surface", "traffic-split", "range"],
+      message: `the range from ${split.range.start}% up to ${split.range.end}% holds no units`,
+      expected: "a start below the end, e.g. { start: 0, end: 50 }"
+    });
+  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
+    report({
+      severity: "error",
+      code: "plan/traffic-beyond-range",
+      path: ["design", "traffic-share"],
+      message: `traffic-share ${plan.design.trafficShare} is more than the traffic-split range of ${width}% allows`,
+      expected: `at most ${width / 100}`
+    });
+  }
+};
+function allMetrics(plan) {
+  return [
+    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
+    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
+    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
+  ];
 }
-async function readWorkingTree(root, paths, onFile) {
-  let buffer = Buffer.allocUnsafe(1 << 20);
-  for (const path of paths) {
-    let fd;
-    try {
-      fd = openSync(join2(root, path), "r");
-      const size = fstatSync(fd).size;
-      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
-      let read = 0;
-      while (read < size) {
-        const n = readSync(fd, buffer, read, size - read, read);
-        if (n === 0) break;
-        read += n;
-      }
-      onFile(path, buffer.subarray(0, read));
-    } catch {
-    } finally {
-      if (fd !== void 0) closeSync(fd);
+var metricNamesAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  for (const { metric: metric2, path } of allMetrics(plan)) {
+    if (seen.has(metric2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-metric",
+        path: [...path, "name"],
+        message: `metric "${metric2.name}" is defined more than once`,
+        expected: "each metric name once across primary, guardrails and secondary"
+      });
+    }
+    seen.add(metric2.name);
+  }
+};
+var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
+  for (const { metric: metric2, path, role } of allMetrics(plan)) {
+    if (role !== "guardrail") continue;
+    if (metric2.directionAssumed) {
+      report({
+        severity: "warning",
+        code: "plan/direction-assumed",
+        path: [...path, "direction"],
+        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
+        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
+      });
+    }
+    if (!metric2.tolerance) {
+      report({
+        severity: "warning",
+        code: "plan/tolerance-missing",
+        path: [...path, "tolerance"],
+        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
+        expected: "tolerance, e.g. { relative: 0.02 }"
+      });
     }
   }
+};
+var groupUnitsDescribeClusters = ({ value: plan, report }) => {
+  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
+  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-missing",
+      path: ["design", "cluster"],
+      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
+      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
+    });
+  }
+  if (!isGroup && plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-unused",
+      path: ["design", "cluster"],
+      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
+    });
+  }
+};
+var readinessNamesTargets = ({ value: plan, report }) => {
+  const { platforms, locales, ready } = plan.population;
+  ready.platforms.forEach((name, i) => {
+    if (platforms.length && !platforms.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "platforms", i],
+        message: `ready names platform "${name}", which is not in population.platforms`,
+        expected: `one of ${platforms.join(", ")}`
+      });
+    }
+  });
+  ready.locales.forEach((name, i) => {
+    if (locales.length && !locales.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "locales", i],
+        message: `ready names locale "${name}", which is not in population.locales`,
+        expected: `one of ${locales.join(", ")}`
+      });
+    }
+  });
+};
+var overlapsNameOthers = ({ value: plan, report }) => {
+  plan.surface.overlapsWith.forEach((id, i) => {
+    if (id === plan.id) {
+      report({
+        severity: "warning",
+        code: "plan/overlaps-itself",
+        path: ["surface", "overlaps-with", i],
+        message: "a plan cannot overlap with itself; remove its own id"
+      });
+    }
+  });
+};
+var DECISION_OUTCOMES = [
+  { key: "win", field: "win" },
+  { key: "flat", field: "flat" },
+  { key: "loss", field: "loss" },
+  { key: "guardrailBreach", field: "guardrail-breach" }
+];
+function missingDecisions(plan) {
+  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
+  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
 }
+var decisionsAreWritten = ({ value: plan, report }) => {
+  const missing = missingDecisions(plan);
+  if (missing.length === 0) return;
+  report({
+    severity: "warning",
+    code: "plan/decisions-missing",
+    path: ["decisions"],
+    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
+    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
+  });
+};
+var PLAN_RULES = [
+  windowInOrder,
+  liveHasStart,
+  armsAreDistinct,
+  rangeIsNotEmpty,
+  metricNamesAreDistinct,
+  guardrailsSayWhatHarmIs,
+  groupUnitsDescribeClusters,
+  readinessNamesTargets,
+  overlapsNameOthers,
+  decisionsAreWritten
+];
 
-// src/run/review-change.ts
-var import_picomatch4 = __toESM(require_picomatch2(), 1);
-
-// src/core/config/scan-files.ts
-var import_picomatch2 = __toESM(require_picomatch2(), 1);
-function scanMatcher(scan) {
-  const include = (0, import_picomatch2.default)([...scan.include], { dot: true });
-  const exclude = scan.exclude.length ? (0, import_picomatch2.default)([...scan.exclude], { dot: true }) : () => false;
-  return (path) => include(path) && !exclude(path);
+// src/core/plan/load.ts
+var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function lineOfKey(loaded, path) {
+  for (let depth = path.length; depth > 0; depth--) {
+    const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
+    if (line !== void 0) return line;
+  }
+  return loaded.line;
+}
+function keyLinesOf(source) {
+  const lines = /* @__PURE__ */ new Map();
+  const walk2 = (value, path) => {
+    if (Array.isArray(value)) {
+      value.forEach((item, index) => {
+        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
+        walk2(item, [...path, index]);
+      });
+    } else if (value !== null && typeof value === "object") {
+      for (const [key, item] of Object.entries(value)) {
+        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
+        walk2(item, [...path, key]);
+      }
+    }
+  };
+  walk2(source.value, []);
+  return lines;
+}
+function loadPlan(text2, file2) {
+  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = [...renamedSurfaceKeys(read.source, [["surface"]], "plan"), ...runRules(checked.value, read.source, PLAN_RULES)];
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line, keyLines: keyLinesOf(read.source) }, warnings };
 }
 
 // src/core/checks/plan-key.ts
@@ -39240,7 +39118,7 @@ var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, col
 });
 
 // src/core/checks/bug-fix.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var import_picomatch2 = __toESM(require_picomatch2(), 1);
 function bugFixReason(pr, settings) {
   const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
   const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
@@ -39261,7 +39139,7 @@ function bugFixNudge(context2) {
   if (labels.includes(settings.silenceLabel.toLowerCase())) return void 0;
   const reason = bugFixReason(context2.pr, settings);
   if (!reason || context2.touches.length > 0 || context2.linked.length > 0) return void 0;
-  const notProduct = (0, import_picomatch3.default)(settings.nonProductPaths, { dot: true });
+  const notProduct = (0, import_picomatch2.default)(settings.nonProductPaths, { dot: true });
   const productFiles = context2.changedPaths.filter((p) => !notProduct(p));
   if (productFiles.length === 0) return void 0;
   const guardrail = settings.guardrail;
@@ -39574,11 +39452,11 @@ function practiceFindings(plan, sizing, settings) {
     });
   }
   const primary = sizing.metrics[0]?.result;
-  const groups = primary?.ok ? primary.value.headline?.clusters : void 0;
-  if (groups !== void 0 && plan.design.groupsAvailable !== void 0 && groups > plan.design.groupsAvailable) {
+  const groups2 = primary?.ok ? primary.value.headline?.clusters : void 0;
+  if (groups2 !== void 0 && plan.design.groupsAvailable !== void 0 && groups2 > plan.design.groupsAvailable) {
     out.push({
       code: "groups-short",
-      message: `The design needs ${countOf(groups, "group")}, but only ${formatCount(plan.design.groupsAvailable)} exist.`,
+      message: `The design needs ${countOf(groups2, "group")}, but only ${formatCount(plan.design.groupsAvailable)} exist.`,
       fix: "Plan for a larger effect, reduce the intra-cluster correlation with a pre-period adjustment, or randomize a smaller unit if spillover allows."
     });
   }
@@ -39617,6 +39495,28 @@ function practiceFindings(plan, sizing, settings) {
   return out;
 }
 
+// src/core/checks/outcome.ts
+var outcomeRecorded = (context2) => context2.linked.flatMap(({ loaded, readout }) => {
+  const outcome = loaded.plan.outcome;
+  if (!outcome) return [];
+  const where2 = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  if (!readout) {
+    return [{ code: "outcome-mismatch", message: `${loaded.plan.id} records the outcome "${outcome.class}" without the totals file it was read from.`, fix: "Add outcome.totals (the arm-totals file) so the review can apply the rule to it, or run plumbline readout --record.", ...where2 }];
+  }
+  if (!readout.readout) return [{ code: "outcome-mismatch", message: `${loaded.plan.id}: the recorded outcome cannot be checked: ${readout.problem}.`, fix: "Fix the totals file, then record again with plumbline readout --record.", ...where2 }];
+  const computed = readout.readout.verdict;
+  const named = readout.readout.verdictArms;
+  const shipped = outcome.override?.ship ?? [];
+  const strayArms = computed === "win" ? shipped.filter((a) => !named.includes(a)) : shipped;
+  const departs = computed !== outcome.class || strayArms.length > 0;
+  if (!departs && !outcome.override) return [];
+  const what = computed !== outcome.class ? `records "${outcome.class}" but the registered rule gives "${computed}" on ${readout.file}` : `ships ${strayArms.join(", ")}, which the rule does not name`;
+  if (outcome.override) {
+    return [{ code: "outcome-override", message: `${loaded.plan.id} departs from its registered rule: ${departs ? what : "an override is recorded"}. Reason given: \xAB${outcome.override.reason}\xBB`, fix: "Judge the reason: an override is the one decision in this change the rule did not make.", ...where2 }];
+  }
+  return [{ code: "outcome-mismatch", message: `${loaded.plan.id} ${what}.`, fix: "Record what the rule gives (plumbline readout --record), or add outcome.override with a reason.", ...where2 }];
+});
+
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
   const { plan } = loaded;
@@ -39641,6 +39541,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
 // src/core/checks/index.ts
 var CHECKS = [
   planInvalid,
+  outcomeRecorded,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
@@ -39689,6 +39590,8 @@ var FINDING_CODES = {
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
   "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
+  "outcome-mismatch": { severity: "block", about: "a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override" },
+  "outcome-override": { severity: "warn", about: "a recorded outcome departs from the registered rule with an override and a reason to judge" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -39982,10 +39885,10 @@ function findFlagTouches(inputs) {
         for (const pattern of inputs.patterns) {
           pattern.lastIndex = 0;
           for (const match of text2.matchAll(pattern)) {
-            const groups = match.groups ?? {};
-            if (groups.key) add({ key: groups.key, file: file2, line, side, via: "call" });
-            else if (groups.ident) {
-              const key = resolveConstant(inputs.textOf(side, file2), groups.ident);
+            const groups2 = match.groups ?? {};
+            if (groups2.key) add({ key: groups2.key, file: file2, line, side, via: "call" });
+            else if (groups2.ident) {
+              const key = resolveConstant(inputs.textOf(side, file2), groups2.ident);
               if (key) add({ key, file: file2, line, side, via: "constant" });
             }
           }
@@ -40144,6 +40047,1223 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
+// src/core/stats/srm.ts
+var SRM_ALARM_P = 5e-4;
+function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
+  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
+  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
+  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
+  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
+  const total = observed.reduce((a, b) => a + b, 0);
+  if (total === 0) return fail("observed", "no units observed yet");
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const expected = weights.map((w) => total * w / weightSum);
+  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
+  const degreesOfFreedom = observed.length - 1;
+  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
+  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
+}
+
+// src/core/readout/combine.ts
+function addTotals(parts) {
+  const [first, ...rest] = parts;
+  if (!first || rest.some((p) => p.kind !== first.kind)) return void 0;
+  if (first.kind === "ratio") {
+    const ratios = parts;
+    const sum = (pick2) => ratios.reduce((s, r) => s + pick2(r), 0);
+    return {
+      kind: "ratio",
+      n: sum((r) => r.n),
+      numerator: { sum: sum((r) => r.numerator.sum), sumSquares: sum((r) => r.numerator.sumSquares) },
+      denominator: { sum: sum((r) => r.denominator.sum), sumSquares: sum((r) => r.denominator.sumSquares) },
+      sumProducts: sum((r) => r.sumProducts)
+    };
+  }
+  const simple = parts;
+  return {
+    kind: first.kind,
+    n: simple.reduce((s, p) => s + p.n, 0),
+    sum: simple.reduce((s, p) => s + p.sum, 0),
+    sumSquares: simple.reduce((s, p) => s + p.sumSquares, 0)
+  };
+}
+
+// src/core/readout/compare.ts
+var NORMAL_DF = 1e7;
+function welchDf(control, treatment) {
+  if (control.df === void 0 || treatment.df === void 0) return void 0;
+  const vc = control.variance;
+  const vt = treatment.variance;
+  const denominator = vc * vc / control.df + vt * vt / treatment.df;
+  if (!(denominator > 0)) return void 0;
+  return Math.min(NORMAL_DF, (vc + vt) * (vc + vt) / denominator);
+}
+function compareArms(control, treatment, settings) {
+  const difference = treatment.value - control.value;
+  const standardError = Math.sqrt(control.variance + treatment.variance);
+  if (!(standardError > 0) || !Number.isFinite(standardError)) return { ok: false, reason: "no variation in either arm, so there is no interval to compute" };
+  const df = settings.boundaryZ === void 0 ? welchDf(control, treatment) : void 0;
+  const level = 1 - settings.alpha / settings.sides;
+  const critical = settings.boundaryZ ?? (df !== void 0 ? studentQuantile(level, df) : normalQuantile(level));
+  const statistic = difference / standardError;
+  const upper = (x) => df !== void 0 ? studentUpper(x, df) : normalUpper(x);
+  const pValue = settings.sides === 2 ? Math.min(1, 2 * upper(Math.abs(statistic))) : upper(settings.direction === "increase" ? statistic : -statistic);
+  const comparison = {
+    control,
+    treatment,
+    difference,
+    standardError,
+    interval: { low: difference - critical * standardError, high: difference + critical * standardError },
+    statistic,
+    ...df !== void 0 ? { df } : {},
+    pValue,
+    critical,
+    confidence: 1 - 2 * settings.alpha / settings.sides
+  };
+  if (control.value !== 0) {
+    const mc = control.value;
+    const relativeSe = Math.sqrt(treatment.variance / (mc * mc) + treatment.value * treatment.value * control.variance / mc ** 4);
+    const z2 = settings.boundaryZ ?? normalQuantile(level);
+    const value = difference / Math.abs(mc);
+    if (Number.isFinite(relativeSe) && Number.isFinite(value)) {
+      comparison.relative = { value, standardError: relativeSe, interval: { low: value - z2 * relativeSe, high: value + z2 * relativeSe } };
+    }
+  }
+  return { ok: true, comparison };
+}
+
+// src/core/readout/estimate.ts
+function sampleVariance(n, sum, sumSquares) {
+  return Math.max(0, (sumSquares - sum * sum / n) / (n - 1));
+}
+function sampleCovariance(n, sumA, sumB, sumProducts) {
+  return (sumProducts - sumA * sumB / n) / (n - 1);
+}
+function estimateArm(totals, cuped) {
+  if (totals.n < 2) return { ok: false, reason: `only ${totals.n} units: at least 2 per arm are needed` };
+  const n = totals.n;
+  if (totals.kind === "ratio") {
+    const x = totals.denominator;
+    const y = totals.numerator;
+    if (!(x.sum > 0)) return { ok: false, reason: "the denominator sums to 0: the ratio is undefined" };
+    const ratio = y.sum / x.sum;
+    const meanX = x.sum / n;
+    const variance2 = (sampleVariance(n, y.sum, y.sumSquares) - 2 * ratio * sampleCovariance(n, x.sum, y.sum, totals.sumProducts) + ratio * ratio * sampleVariance(n, x.sum, x.sumSquares)) / (n * meanX * meanX);
+    return { ok: true, estimate: { n, value: ratio, variance: Math.max(0, variance2) } };
+  }
+  const mean = totals.sum / n;
+  const df = totals.kind === "mean" ? { df: n - 1 } : {};
+  if (cuped && totals.pre) {
+    const pre = totals.pre;
+    const theta = cuped.theta;
+    const adjusted = mean - theta * (pre.sum / n - cuped.pooledPreMean);
+    const variance2 = sampleVariance(n, totals.sum, totals.sumSquares) - 2 * theta * sampleCovariance(n, totals.sum, pre.sum, pre.sumProducts) + theta * theta * sampleVariance(n, pre.sum, pre.sumSquares);
+    return { ok: true, estimate: { n, value: adjusted, variance: Math.max(0, variance2) / n, ...df } };
+  }
+  const variance = totals.kind === "proportion" ? mean * (1 - mean) / n : sampleVariance(n, totals.sum, totals.sumSquares) / n;
+  return { ok: true, estimate: { n, value: mean, variance, ...df } };
+}
+function cupedAdjustment(arms) {
+  if (arms.some((a) => !a.pre)) return void 0;
+  const n = arms.reduce((s, a) => s + a.n, 0);
+  const sumY = arms.reduce((s, a) => s + a.sum, 0);
+  const sumYY = arms.reduce((s, a) => s + a.sumSquares, 0);
+  const sumP = arms.reduce((s, a) => s + a.pre.sum, 0);
+  const sumPP = arms.reduce((s, a) => s + a.pre.sumSquares, 0);
+  const sumYP = arms.reduce((s, a) => s + a.pre.sumProducts, 0);
+  if (n < 3) return void 0;
+  const varP = sampleVariance(n, sumP, sumPP);
+  const varY = sampleVariance(n, sumY, sumYY);
+  if (!(varP > 0) || !(varY > 0)) return void 0;
+  const cov = sampleCovariance(n, sumY, sumP, sumYP);
+  const theta = cov / varP;
+  return { theta, pooledPreMean: sumP / n, varianceReduction: Math.min(1, cov * cov / (varP * varY)) };
+}
+
+// src/core/readout/timing.ts
+function plannedMaximumUnits(plan) {
+  const primary = sizePlan(plan).metrics.find((m) => m.role === "primary");
+  if (primary?.result.ok && primary.result.value.headline) return primary.result.value.headline.totalUnits;
+  return void 0;
+}
+function readoutTiming(plan, dataThrough, unitsSeen, alphaPerComparison) {
+  const plannedEnd = plan.window.end;
+  const readEarly = plannedEnd !== void 0 && dataThrough < plannedEnd;
+  const plannedUnits = plannedMaximumUnits(plan);
+  const fraction = plannedUnits ? unitsSeen / plannedUnits : void 0;
+  const timing = {
+    ...plannedEnd ? { plannedEnd } : {},
+    dataThrough,
+    readEarly,
+    ...fraction !== void 0 && Number.isFinite(fraction) ? { informationFraction: fraction, plannedUnits } : {}
+  };
+  const looks = plan.design.interimLooks + 1;
+  if (!readEarly || looks === 1) return timing;
+  const { interimBoundary: kind, sides } = plan.design;
+  const t = Math.min(1, fraction ?? 1);
+  const planned = Array.from({ length: looks }, (_, i) => (i + 1) / looks);
+  let z2;
+  let look = looks;
+  if ((kind === "obrien-fleming-spending" || kind === "pocock-spending") && t > 0) {
+    const earlier = planned.filter((p) => p < t - 1e-9);
+    look = earlier.length + 1;
+    const boundary = spendingBoundaryAt(kind, alphaPerComparison, sides, [...earlier, t]);
+    if (boundary.ok) z2 = boundary.value;
+  } else {
+    const bounds = sequentialBoundaries({ kind, looks, alpha: alphaPerComparison, sides });
+    look = Math.max(1, Math.min(looks, Math.floor(t * looks + 1e-9)));
+    if (bounds.ok) z2 = bounds.value.z[look - 1];
+  }
+  if (z2 === void 0 || !Number.isFinite(z2)) return timing;
+  return { ...timing, boundary: { z: z2, nominalP: sides * normalUpper(z2), look, looks } };
+}
+
+// src/core/readout/build-readout.ts
+var NOVELTY_P = 0.01;
+var LOW_POWER = 0.5;
+function resolveThreshold(effect, controlValue) {
+  if (!effect) return void 0;
+  if (effect.absolute !== void 0) return effect.absolute;
+  if (effect.relative !== void 0 && controlValue !== void 0 && controlValue !== 0) return effect.relative * Math.abs(controlValue);
+  return void 0;
+}
+function metricTotalsOf(groups2, metric2) {
+  return Object.fromEntries(Object.entries(groups2).map(([arm2, g]) => [arm2, g?.metrics[metric2]]));
+}
+function readMetric(ctx, metric2, role, byArm, settings, segment) {
+  const controlTotals = byArm[ctx.control];
+  if (!controlTotals) return void 0;
+  let cuped;
+  if (settings.useCuped && controlTotals.kind !== "ratio") {
+    const all = [ctx.control, ...ctx.treatments].map((a) => byArm[a]);
+    if (all.every((t) => t !== void 0 && t.kind !== "ratio")) cuped = cupedAdjustment(all);
+  }
+  const controlEstimate = estimateArm(controlTotals, cuped);
+  const controlValue = controlEstimate.ok ? controlEstimate.estimate.value : void 0;
+  const arms = ctx.treatments.flatMap((arm2) => {
+    const totals = byArm[arm2];
+    if (!totals) return role === "segment" ? [] : [{ arm: arm2, ok: false, reason: `no totals for arm "${arm2}"` }];
+    const treatment = estimateArm(totals, cuped);
+    if (!controlEstimate.ok) return [{ arm: arm2, ok: false, reason: `control: ${controlEstimate.reason}` }];
+    if (!treatment.ok) return [{ arm: arm2, ok: false, reason: treatment.reason }];
+    const compared = compareArms(controlEstimate.estimate, treatment.estimate, {
+      alpha: settings.alpha,
+      sides: settings.sides,
+      direction: settings.direction,
+      ...settings.boundaryZ !== void 0 ? { boundaryZ: settings.boundaryZ } : {}
+    });
+    return [compared.ok ? { arm: arm2, ok: true, comparison: compared.comparison } : { arm: arm2, ok: false, reason: compared.reason }];
+  });
+  if (arms.length === 0) return void 0;
+  return {
+    metric: metric2.name,
+    kind: metric2.kind,
+    role,
+    ...segment !== void 0 ? { segment } : {},
+    direction: metric2.direction,
+    ...cuped ? { cuped: { theta: cuped.theta, varianceReduction: cuped.varianceReduction } } : {},
+    arms
+  };
+}
+function good(direction2) {
+  return direction2 === "increase" ? 1 : -1;
+}
+function classifyPrimary(read, mde, early) {
+  const s = good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const lowGood = s === 1 ? c.interval.low : -c.interval.high;
+    const highGood = s === 1 ? c.interval.high : -c.interval.low;
+    if (lowGood > 0) arm2.primaryClass = "win";
+    else if (highGood < 0) arm2.primaryClass = "loss";
+    else if (!early && mde !== void 0 && c.interval.low > -mde && c.interval.high < mde) arm2.primaryClass = "flat";
+    else arm2.primaryClass = "inconclusive";
+  }
+}
+function classifyGuardrail(read, tolerance) {
+  const harmSign = -good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const estimate = harmSign * c.difference;
+    const lower = harmSign === 1 ? c.interval.low : -c.interval.high;
+    const upper = harmSign === 1 ? c.interval.high : -c.interval.low;
+    arm2.harm = { estimate, upperBound: upper };
+    arm2.guardrailClass = lower > 0 ? "breach" : tolerance !== void 0 && upper < tolerance ? "harm-ruled-out" : "harm-not-ruled-out";
+  }
+}
+function bonferroni(read, k) {
+  for (const arm2 of read.arms) if (arm2.comparison) arm2.adjustedP = Math.min(1, arm2.comparison.pValue * k);
+}
+function checkSampleRatio(ctx) {
+  const arms = [ctx.control, ...ctx.treatments];
+  const weights = arms.map((a) => ctx.plan.design.arms.find((p) => p.name === a).weight);
+  const units2 = arms.map((a) => ctx.totals.arms[a]?.units ?? 0);
+  const overall = sampleRatioMismatch(units2, weights, SRM_ALARM_P);
+  if (!overall.ok) return void 0;
+  const dates = [...new Set(arms.flatMap((a) => (ctx.totals.arms[a]?.days ?? []).map((d) => d.date)))].sort();
+  const days = [];
+  let daysChecked = 0;
+  for (const date5 of dates) {
+    const counts = arms.map((a) => ctx.totals.arms[a]?.days.find((d) => d.date === date5)?.units);
+    if (counts.some((c) => c === void 0)) continue;
+    const check3 = sampleRatioMismatch(counts, weights, SRM_ALARM_P);
+    if (!check3.ok) continue;
+    daysChecked++;
+    if (check3.value.mismatch) days.push({ date: date5, units: counts, pValue: check3.value.pValue });
+  }
+  return {
+    threshold: SRM_ALARM_P,
+    arms: arms.map((arm2, i) => ({ arm: arm2, weight: weights[i], units: units2[i], expected: overall.value.expected[i] })),
+    statistic: overall.value.statistic,
+    degreesOfFreedom: overall.value.degreesOfFreedom,
+    pValue: overall.value.pValue,
+    mismatch: overall.value.mismatch,
+    days,
+    daysChecked
+  };
+}
+function noveltyCheck(ctx, metric2) {
+  const findings = [];
+  const weeksOf = (arm2) => [...ctx.totals.arms[arm2]?.weeks ?? []].sort((a, b) => a.starting.localeCompare(b.starting));
+  const control = weeksOf(ctx.control);
+  if (control.length < 2) return findings;
+  for (const arm2 of ctx.treatments) {
+    const treatment = weeksOf(arm2);
+    const split = (weeks) => {
+      const first2 = weeks[0]?.metrics[metric2.name];
+      const later2 = addTotals(weeks.slice(1).map((w) => w.metrics[metric2.name]).filter((m) => m !== void 0));
+      return first2 && later2 ? { first: first2, later: later2 } : void 0;
+    };
+    const c = split(control);
+    const t = split(treatment);
+    if (!c || !t || treatment[0]?.starting !== control[0]?.starting) continue;
+    const effect = (a, b) => {
+      const ea = estimateArm(a);
+      const eb = estimateArm(b);
+      if (!ea.ok || !eb.ok) return void 0;
+      return { value: eb.estimate.value - ea.estimate.value, variance: ea.estimate.variance + eb.estimate.variance };
+    };
+    const first = effect(c.first, t.first);
+    const later = effect(c.later, t.later);
+    if (!first || !later) continue;
+    const se = Math.sqrt(first.variance + later.variance);
+    if (!(se > 0)) continue;
+    const p = 2 * normalUpper(Math.abs(first.value - later.value) / se);
+    if (p < NOVELTY_P) {
+      findings.push({
+        severity: "note",
+        code: "readout/novelty",
+        message: `${arm2}: the first week's effect on ${metric2.name} (${signed(first.value)}) differs from the later weeks' (${signed(later.value)}), p = ${formatP2(p)}: a novelty or learning effect; the later weeks say more about the lasting effect.`
+      });
+    }
+  }
+  return findings;
+}
+function signed(x) {
+  const text2 = Number(x.toPrecision(3)).toString();
+  return x > 0 ? `+${text2}` : text2;
+}
+function formatP2(p) {
+  return p < 1e-3 ? p.toExponential(1) : p.toFixed(3);
+}
+function buildReadout(plan, totals) {
+  const control = plan.design.control;
+  const treatments = plan.design.arms.map((a) => a.name).filter((a) => a !== control);
+  const k = Math.max(1, treatments.length);
+  const alphaPerComparison = plan.design.alpha / k;
+  const unitsSeen = Object.values(totals.arms).reduce((s, a) => s + a.units, 0);
+  const timing = readoutTiming(plan, totals.dataThrough, unitsSeen, alphaPerComparison);
+  const cupedRegistered = plan.design.prePeriodCorrelation > 0;
+  const ctx = {
+    plan,
+    totals,
+    control,
+    treatments,
+    alphaPerComparison,
+    cupedRegistered,
+    ...timing.boundary ? { boundaryZ: timing.boundary.z } : {}
+  };
+  const findings = [];
+  const overall = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]]));
+  const srm = checkSampleRatio(ctx);
+  if (srm?.mismatch) {
+    findings.push({
+      severity: "block",
+      code: "readout/sample-ratio-mismatch",
+      message: `Sample ratio mismatch: the units per arm do not fit the planned weights (p = ${formatP2(srm.pValue)} < ${srm.threshold}). Nothing here is a result: find why assignment or logging lost units, fix it, and read again.`
+    });
+  }
+  if (srm && srm.days.length) {
+    findings.push({
+      severity: "warn",
+      code: "readout/sample-ratio-mismatch-day",
+      message: `The split alone raises the alarm on ${srm.days.length} of ${srm.daysChecked} days (${srm.days.map((d) => d.date).join(", ")}): check what changed in assignment or logging on those days.`
+    });
+  }
+  if (timing.readEarly && !timing.boundary) {
+    findings.push({
+      severity: "block",
+      code: "readout/read-early",
+      message: `Read early: the data runs through ${totals.dataThrough}, before the planned end (${timing.plannedEnd}), and the plan registered no interim looks. Looking before the end and stopping on a good day inflates false wins; wait for the planned end.`
+    });
+  }
+  const primaryMetric = plan.metrics.primary;
+  const primaryRead = readMetric(ctx, primaryMetric, "primary", metricTotalsOf(overall, primaryMetric.name), {
+    alpha: alphaPerComparison,
+    sides: plan.design.sides,
+    direction: primaryMetric.direction,
+    ...ctx.boundaryZ !== void 0 ? { boundaryZ: ctx.boundaryZ } : {},
+    useCuped: cupedRegistered
+  }) ?? { metric: primaryMetric.name, kind: primaryMetric.kind, role: "primary", direction: primaryMetric.direction, arms: treatments.map((arm2) => ({ arm: arm2, ok: false, reason: "no totals for the control arm" })) };
+  const controlPrimary = primaryRead.arms.find((a) => a.comparison)?.comparison?.control.value;
+  const mde = resolveThreshold(plan.design.minDetectableEffect, controlPrimary);
+  if (mde !== void 0) primaryRead.minDetectableEffect = mde;
+  bonferroni(primaryRead, k);
+  classifyPrimary(primaryRead, mde, timing.readEarly);
+  if (timing.boundary) {
+    const crossed = primaryRead.arms.some((a) => a.primaryClass === "win" || a.primaryClass === "loss");
+    findings.push({
+      severity: "note",
+      code: "readout/interim-look",
+      message: `Interim analysis at ${formatShare(timing.informationFraction)} of the planned information (look ${timing.boundary.look} of ${timing.boundary.looks}): the ${plan.design.interimBoundary} boundary is |z| \u2265 ${timing.boundary.z.toFixed(3)} (nominal p ${formatP2(timing.boundary.nominalP)}); ${crossed ? "crossed, so the test may stop here" : "not crossed: keep the test running to the next look or the planned end"}.`
+    });
+  }
+  for (const arm2 of primaryRead.arms) {
+    if (!arm2.ok) findings.push({ severity: "block", code: "readout/primary-not-computed", message: `${primaryMetric.name}, ${arm2.arm}: ${arm2.reason}` });
+  }
+  if (mde === void 0) {
+    findings.push({ severity: "note", code: "readout/no-minimum-effect", message: "The plan registers no minimum detectable effect, so no result can be called flat; a non-significant result is inconclusive." });
+  }
+  if (cupedRegistered) {
+    if (!primaryRead.cuped) {
+      findings.push({ severity: "warn", code: "readout/cuped-missing", message: `The plan was sized with variance reduction (pre-period correlation ${plan.design.prePeriodCorrelation}), but the totals give no usable pre-period sums for ${primaryMetric.name}: the interval is wider than planned.` });
+    }
+  } else if (Object.values(totals.arms).some((a) => Object.values(a.metrics).some((m) => m.kind !== "ratio" && m.pre))) {
+    findings.push({ severity: "note", code: "readout/cuped-not-registered", message: "The totals carry pre-period sums, but the plan did not register variance reduction (design.pre-period-correlation), so they are not used: a method chosen after the data is in is not the registered test." });
+  }
+  const guardrails = [];
+  for (const metric2 of plan.metrics.guardrails) {
+    const harm = metric2.direction === "increase" ? "decrease" : "increase";
+    const read = readMetric(ctx, metric2, "guardrail", metricTotalsOf(overall, metric2.name), { alpha: alphaPerComparison, sides: 1, direction: harm, useCuped: cupedRegistered });
+    if (!read) {
+      findings.push({ severity: "block", code: "readout/guardrail-missing", message: `No totals for the guardrail ${metric2.name}: a launch cannot show it did no harm.` });
+      continue;
+    }
+    const controlValue = read.arms.find((a) => a.comparison)?.comparison?.control.value;
+    const tolerance = resolveThreshold(metric2.tolerance, controlValue);
+    if (tolerance !== void 0) read.tolerance = tolerance;
+    else findings.push({ severity: "warn", code: "readout/no-tolerance", message: `The guardrail ${metric2.name} has no tolerance, so harm can never be ruled out; only a breach can be seen.` });
+    bonferroni(read, k);
+    classifyGuardrail(read, tolerance);
+    guardrails.push(read);
+  }
+  const secondary = [];
+  for (const metric2 of plan.metrics.secondary) {
+    const read = readMetric(ctx, metric2, "secondary", metricTotalsOf(overall, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: cupedRegistered });
+    if (read) secondary.push(read);
+    else findings.push({ severity: "note", code: "readout/secondary-missing", message: `No totals for the secondary metric ${metric2.name}.` });
+  }
+  const segments = [];
+  const allMetrics2 = [primaryMetric, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+  const segmentNames = [...new Set((totals.arms[control]?.segments ?? []).map((s) => s.segment))];
+  for (const name of segmentNames) {
+    const groups2 = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]?.segments.find((s) => s.segment === name)]));
+    for (const metric2 of allMetrics2) {
+      const read = readMetric(ctx, metric2, "segment", metricTotalsOf(groups2, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: false }, name);
+      if (read) segments.push(read);
+    }
+  }
+  const exploratory = [...secondary, ...segments].flatMap((m) => m.arms.filter((a) => a.comparison));
+  const adjusted = benjaminiHochberg(exploratory.map((a) => a.comparison.pValue));
+  if (adjusted.ok) {
+    exploratory.forEach((arm2, i) => {
+      arm2.adjustedP = adjusted.value[i];
+      arm2.exploratorySignal = adjusted.value[i] <= plan.design.alpha;
+    });
+  }
+  const perArm = treatments.map((arm2) => {
+    const breached = guardrails.some((g) => g.arms.some((a) => a.arm === arm2 && a.guardrailClass === "breach"));
+    const primaryClass = primaryRead.arms.find((a) => a.arm === arm2)?.primaryClass ?? "inconclusive";
+    return { arm: arm2, verdict: breached ? "guardrail-breach" : primaryClass };
+  });
+  let verdict;
+  const armsWith = (v) => perArm.filter((a) => a.verdict === v).map((a) => a.arm);
+  if (srm?.mismatch) verdict = "not-read";
+  else if (armsWith("win").length) verdict = "win";
+  else if (armsWith("guardrail-breach").length) verdict = "guardrail-breach";
+  else if (armsWith("loss").length) verdict = "loss";
+  else if (perArm.length && perArm.every((a) => a.verdict === "flat")) verdict = "flat";
+  else verdict = "inconclusive";
+  const verdictArms = verdict === "not-read" ? [] : armsWith(verdict);
+  for (const g of guardrails) {
+    for (const a of g.arms) {
+      if (a.guardrailClass === "breach") findings.push({ severity: "block", code: "readout/guardrail-breach", message: `${a.arm} harms the guardrail ${g.metric} significantly${armsWith("guardrail-breach").includes(a.arm) && primaryRead.arms.find((p) => p.arm === a.arm)?.primaryClass === "win" ? ", which overrides its win on the primary metric" : ""}.` });
+    }
+  }
+  const primaryFlatOverall = verdict === "flat" || verdict === "inconclusive";
+  if (primaryFlatOverall) {
+    for (const s of segments) {
+      if (s.metric !== primaryMetric.name) continue;
+      for (const a of s.arms) {
+        const c = a.comparison;
+        if (a.exploratorySignal && c && good(s.direction) * c.difference > 0) {
+          findings.push({
+            severity: "note",
+            code: "readout/segment-pattern",
+            message: `Flat overall, but ${a.arm} wins in the segment "${s.segment}" (Benjamini\u2013Hochberg adjusted p = ${formatP2(a.adjustedP)}): a pattern to confirm with a new test on that segment, not a result.`
+          });
+        }
+      }
+    }
+  }
+  findings.push(...noveltyCheck(ctx, primaryMetric));
+  if (verdict === "win" || verdict === "loss") {
+    for (const arm2 of primaryRead.arms) {
+      const c = arm2.comparison;
+      if (!c || arm2.primaryClass !== "win" && arm2.primaryClass !== "loss") continue;
+      const effect = mde ?? Math.abs(c.difference);
+      const power = normalCdf(effect / c.standardError - c.critical);
+      if (power < LOW_POWER) {
+        findings.push({
+          severity: "note",
+          code: "readout/winners-curse",
+          message: `${arm2.arm}: this readout had ${formatShare(power)} power at ${mde !== void 0 ? "the minimum detectable effect" : "the observed effect"}; a significant estimate from an underpowered test usually overstates the true effect (the winner's curse). Expect a smaller effect after launch.`
+        });
+      }
+    }
+  }
+  if (plan.sensitive.length && (verdict === "win" || verdict === "loss")) {
+    findings.push({
+      severity: "note",
+      code: "readout/sensitive",
+      message: `This test touches ${plan.sensitive.map((s) => s.area).join(", ")}: before acting on the result, take it to ${plan.sensitive.map((s) => s.review ?? `the ${s.area} review`).join(", ")}; local law and licensed practice come before this rule.`
+    });
+  }
+  const rule = verdict === "win" ? "win" : verdict === "loss" ? "loss" : verdict === "guardrail-breach" ? "guardrail-breach" : verdict === "not-read" ? void 0 : "flat";
+  const text2 = rule === "win" ? plan.decisions.win : rule === "loss" ? plan.decisions.loss : rule === "guardrail-breach" ? plan.decisions.guardrailBreach : rule === "flat" ? plan.decisions.flat : void 0;
+  return {
+    planId: plan.id,
+    title: plan.title,
+    planCommit: totals.planCommit,
+    dataThrough: totals.dataThrough,
+    control,
+    treatments,
+    alpha: plan.design.alpha,
+    sides: plan.design.sides,
+    alphaPerComparison,
+    ...srm ? { srm } : {},
+    timing,
+    primary: primaryRead,
+    guardrails,
+    secondary,
+    segments,
+    verdict,
+    verdictArms,
+    ...rule && text2 ? { decision: { rule, text: text2 } } : {},
+    findings
+  };
+}
+function formatShare(x) {
+  if (x === void 0 || !Number.isFinite(x)) return "an unknown share";
+  return `${(x * 100).toFixed(x < 0.1 ? 1 : 0)}%`;
+}
+
+// src/core/totals/rules.ts
+var RELATIVE_SLACK = 1e-9;
+function* groups(totals) {
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    yield { arm: arm2, path: ["arms", arm2], group: totalsOfArm };
+    for (const [i, day] of totalsOfArm.days.entries()) yield { arm: arm2, path: ["arms", arm2, "days", i], group: day };
+    for (const [i, week] of totalsOfArm.weeks.entries()) yield { arm: arm2, path: ["arms", arm2, "weeks", i], group: week };
+    for (const [i, segment] of totalsOfArm.segments.entries()) yield { arm: arm2, path: ["arms", arm2, "segments", i], group: segment };
+  }
+}
+function centredSquares(n, sum, sumSquares) {
+  return { value: sumSquares - (n > 0 ? sum * sum / n : 0), slack: RELATIVE_SLACK * Math.max(sumSquares, 1) };
+}
+function checkSquares(ctx, path, n, sum, sumSquares, what) {
+  const { value, slack } = centredSquares(n, sum, sumSquares);
+  if (value >= -slack) return true;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path,
+    message: `the sum of squares of ${what} is below (\u03A3y)\xB2/n = ${Number((sum * sum / n).toPrecision(8))}, which no data can give`,
+    expected: "a sum of squares of at least (sum)\xB2 / n; check that it sums squares of per-unit values, not squares of the sum",
+    showFound: true
+  });
+  return false;
+}
+function checkProducts(ctx, path, n, a, b, sumProducts) {
+  if (n < 2) return;
+  const saa = Math.max(0, a.sumSquares - a.sum * a.sum / n);
+  const sbb = Math.max(0, b.sumSquares - b.sum * b.sum / n);
+  const sab = sumProducts - a.sum * b.sum / n;
+  const bound = Math.sqrt(saa * sbb);
+  if (Math.abs(sab) <= bound + RELATIVE_SLACK * Math.max(Math.abs(sumProducts), bound, 1)) return;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path,
+    message: "the sum of products implies a correlation outside -1 to 1, which no data can give",
+    expected: "\u03A3xy \u2212 \u03A3x\u03A3y/n no larger in size than \u221A((\u03A3x\xB2 \u2212 (\u03A3x)\xB2/n)(\u03A3y\xB2 \u2212 (\u03A3y)\xB2/n))",
+    showFound: true
+  });
+}
+function checkPre(ctx, path, metric2, pre) {
+  if (!checkSquares(ctx, [...path, "pre-period", "sum-of-squares"], metric2.n, pre.sum, pre.sumSquares, "the pre-period value")) return;
+  checkProducts(ctx, [...path, "pre-period", "sum-of-products"], metric2.n, metric2, pre, pre.sumProducts);
+}
+function checkMetric(ctx, path, units2, metric2) {
+  if (metric2.n > units2) {
+    ctx.report({
+      severity: "error",
+      code: "totals/more-than-units",
+      path: [...path, "n"],
+      message: `n is ${metric2.n}, more than the ${units2} units exposed`,
+      expected: `at most ${units2} (the units exposed)`
+    });
+  }
+  if (metric2.kind === "proportion") {
+    if (metric2.sum > metric2.n) {
+      ctx.report({
+        severity: "error",
+        code: "totals/more-than-units",
+        path: [...path, "units-with-event"],
+        message: `${metric2.sum} units with the event out of ${metric2.n}`,
+        expected: `at most ${metric2.n} (each unit counts once however many events it has)`,
+        showFound: false
+      });
+    } else if (metric2.pre) checkPre(ctx, path, metric2, metric2.pre);
+    return;
+  }
+  if (metric2.kind === "mean") {
+    if (checkSquares(ctx, [...path, "sum-of-squares"], metric2.n, metric2.sum, metric2.sumSquares, "the metric value") && metric2.pre) checkPre(ctx, path, metric2, metric2.pre);
+    return;
+  }
+  const numeratorOk = checkSquares(ctx, [...path, "numerator", "sum-of-squares"], metric2.n, metric2.numerator.sum, metric2.numerator.sumSquares, "the numerator");
+  const denominatorOk = checkSquares(ctx, [...path, "denominator", "sum-of-squares"], metric2.n, metric2.denominator.sum, metric2.denominator.sumSquares, "the denominator");
+  if (numeratorOk && denominatorOk) checkProducts(ctx, [...path, "sum-of-products"], metric2.n, metric2.numerator, metric2.denominator, metric2.sumProducts);
+}
+var possibleSums = (ctx) => {
+  for (const { path, group: group2 } of groups(ctx.value.totals)) {
+    for (const [name, metric2] of Object.entries(group2.metrics)) checkMetric(ctx, [...path, "metrics", name], group2.units, metric2);
+  }
+};
+var atLeastTwoArms = (ctx) => {
+  if (Object.keys(ctx.value.totals.arms).length < 2) {
+    ctx.report({ severity: "error", code: "totals/arm-count", path: ["arms"], message: "a readout compares arms; fewer than two are given", expected: "the totals of every arm of the plan" });
+  }
+};
+var datesInOrder = (ctx) => {
+  const { totals } = ctx.value;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    const seen = /* @__PURE__ */ new Set();
+    totalsOfArm.days.forEach((day, i) => {
+      const path = ["arms", arm2, "days", i, "date"];
+      if (day.date > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path, message: `${day.date} is after data-through (${totals.dataThrough})`, expected: `a day on or before ${totals.dataThrough}` });
+      }
+      if (seen.has(day.date)) ctx.report({ severity: "error", code: "totals/duplicate-date", path, message: `${day.date} is listed twice`, expected: "each day once" });
+      seen.add(day.date);
+    });
+    totalsOfArm.weeks.forEach((week, i) => {
+      if (week.starting > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path: ["arms", arm2, "weeks", i, "starting"], message: `${week.starting} is after data-through (${totals.dataThrough})`, expected: `a week starting on or before ${totals.dataThrough}` });
+      }
+    });
+  }
+};
+var daysAddUp = (ctx) => {
+  for (const [arm2, totalsOfArm] of Object.entries(ctx.value.totals.arms)) {
+    if (!totalsOfArm.days.length) continue;
+    const sum = totalsOfArm.days.reduce((s, d) => s + d.units, 0);
+    if (sum === totalsOfArm.units) continue;
+    ctx.report({
+      severity: sum > totalsOfArm.units ? "error" : "warning",
+      code: "totals/days-sum",
+      path: ["arms", arm2, "days"],
+      atKey: true,
+      message: `the days add up to ${sum} units, the arm to ${totalsOfArm.units}${sum > totalsOfArm.units ? ": a unit is counted on more than one day" : ": some days are missing"}`,
+      expected: "the units first exposed on each day, adding up to the arm\u2019s units"
+    });
+  }
+};
+var TOTALS_RULES = [atLeastTwoArms, possibleSums, datesInOrder, daysAddUp];
+function planMetrics(plan) {
+  return [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+}
+var samePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (plan && totals.planId !== plan.id) {
+    ctx.report({ severity: "error", code: "totals/other-plan", path: ["plan"], message: `these totals are for plan "${totals.planId}", not "${plan.id}"`, expected: `plan: ${plan.id}` });
+  }
+};
+var armsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const planned = plan.design.arms.map((a) => a.name);
+  for (const arm2 of Object.keys(totals.arms)) {
+    if (planned.includes(arm2)) continue;
+    const suggestion = closestName(arm2, planned);
+    ctx.report({
+      severity: "error",
+      code: "totals/unknown-arm",
+      path: ["arms", arm2],
+      atKey: true,
+      message: `arm "${arm2}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}`,
+      expected: `one of the plan's arms: ${planned.join(", ")}`
+    });
+  }
+  const missing = planned.filter((a) => !(a in totals.arms));
+  if (missing.length) {
+    ctx.report({ severity: "error", code: "totals/missing-arm", path: ["arms"], message: `no totals for ${missing.map((a) => `"${a}"`).join(", ")}`, expected: `totals for every arm of the plan: ${planned.join(", ")}` });
+  }
+};
+var metricsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const known = new Map(planMetrics(plan).map((m) => [m.name, m]));
+  for (const { path, group: group2 } of groups(totals)) {
+    for (const [name, metric2] of Object.entries(group2.metrics)) {
+      const registered = known.get(name);
+      if (!registered) {
+        const suggestion = closestName(name, [...known.keys()]);
+        ctx.report({
+          severity: "error",
+          code: "totals/unknown-metric",
+          path: [...path, "metrics", name],
+          atKey: true,
+          message: `metric "${name}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}: a metric chosen after the data is in is not a pre-registered result`,
+          expected: `one of the plan's metrics: ${[...known.keys()].join(", ")}`
+        });
+      } else if (registered.kind !== metric2.kind) {
+        ctx.report({
+          severity: "error",
+          code: "totals/metric-kind",
+          path: [...path, "metrics", name],
+          message: `the plan registers "${name}" as a ${registered.kind} metric, but these are ${metric2.kind} totals`,
+          expected: registered.kind === "proportion" ? "{ units-with-event }" : registered.kind === "mean" ? "{ n, sum, sum-of-squares }" : "{ n, numerator, denominator, sum-of-products }"
+        });
+      }
+    }
+  }
+  const primary = plan.metrics.primary.name;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    if (!(primary in totalsOfArm.metrics)) {
+      ctx.report({ severity: "error", code: "totals/missing-primary", path: ["arms", arm2, "metrics"], message: `no totals for the primary metric "${primary}" in arm "${arm2}"`, expected: `metrics.${primary}` });
+    }
+  }
+};
+var insideTheWindow = (ctx) => {
+  const { totals, plan } = ctx.value;
+  const start = plan?.window.start;
+  if (!start) return;
+  if (totals.dataThrough < start) {
+    ctx.report({ severity: "error", code: "totals/before-start", path: ["data-through"], message: `the data runs through ${totals.dataThrough}, before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+  }
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    totalsOfArm.days.forEach((day, i) => {
+      if (day.date < start) ctx.report({ severity: "error", code: "totals/before-start", path: ["arms", arm2, "days", i, "date"], message: `${day.date} is before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+    });
+  }
+};
+var TOTALS_PLAN_RULES = [samePlan, armsOfThePlan, metricsOfThePlan, insideTheWindow];
+
+// src/core/totals/schema.ts
+var count = (expected) => external_exports.number({ error: expected }).int({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
+var sumOf = (what) => finiteNumber(`the sum of ${what} over the units, e.g. 10250.5`);
+var squaresOf = (what) => nonNegativeNumber(`the sum of squares of ${what} over the units (0 or more), e.g. 84210.25`);
+var prePeriod = external_exports.strictObject(
+  {
+    sum: sumOf("each unit\u2019s pre-period value"),
+    "sum-of-squares": squaresOf("each unit\u2019s pre-period value"),
+    "sum-of-products": finiteNumber("the sum over the units of the metric value times the pre-period value, e.g. 5120.75")
+  },
+  { error: "a mapping with sum, sum-of-squares and sum-of-products of the pre-period value" }
+).describe("The same metric measured on the same units before the test (for variance reduction, CUPED).");
+var proportionTotals = external_exports.strictObject(
+  {
+    "units-with-event": count("the number of units with the event, a whole number of 0 or more, e.g. 1520"),
+    n: count("the number of units the share is taken over, a whole number of 0 or more (default: the units)").optional(),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with units-with-event" }
+).describe("A proportion metric: how many units had the event.");
+var meanTotals = external_exports.strictObject(
+  {
+    n: count("the number of units the mean is taken over, a whole number of 0 or more, e.g. 12000"),
+    sum: sumOf("the metric value"),
+    "sum-of-squares": squaresOf("the metric value"),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with n, sum and sum-of-squares" }
+).describe("A mean metric: n, the sum and the sum of squares of the per-unit values.");
+var sideOfRatio = (what) => external_exports.strictObject({ sum: sumOf(`each unit\u2019s ${what}`), "sum-of-squares": squaresOf(`each unit\u2019s ${what}`) }, { error: `a mapping with sum and sum-of-squares of the ${what}` }).describe(`Sums of each unit\u2019s ${what}.`);
+var ratioTotals = external_exports.strictObject(
+  {
+    n: count("the number of units (the randomization unit), a whole number of 0 or more, e.g. 12000"),
+    numerator: sideOfRatio("numerator"),
+    denominator: sideOfRatio("denominator"),
+    "sum-of-products": finiteNumber("the sum over the units of numerator times denominator, e.g. 40210")
+  },
+  { error: "a mapping with n, numerator, denominator and sum-of-products" }
+).describe("A ratio metric: per-unit sums of numerator and denominator, their squares and their products.");
+var metricTotals = external_exports.union([proportionTotals, meanTotals, ratioTotals], {
+  error: "metric totals: { units-with-event } for a proportion, { n, sum, sum-of-squares } for a mean, or { n, numerator, denominator, sum-of-products } for a ratio"
+}).meta({ id: "metricTotals", description: "The totals of one metric in one arm (or one day, week or segment of it)." });
+var metricsMap = external_exports.record(kebabName("a metric name of the plan, e.g. order-completed"), metricTotals, { error: "a mapping of metric names to their totals" }).default({}).describe("Totals per metric, keyed by the metric\u2019s name in the plan.");
+var unitsField = count("the number of units exposed, a whole number of 0 or more, e.g. 12000");
+var group = { units: unitsField, metrics: metricsMap };
+var armTotals = external_exports.strictObject(
+  {
+    ...group,
+    days: external_exports.array(external_exports.strictObject({ date: calendarDate("a date written YYYY-MM-DD, e.g. 2026-11-09"), ...group }, { error: "a mapping with date, units and metrics" }), {
+      error: "a list of days, e.g. [{ date: 2026-11-09, units: 7000 }]"
+    }).default([]).describe("Per day: the units first exposed that day (and, optionally, metric totals of those units)."),
+    weeks: external_exports.array(external_exports.strictObject({ starting: calendarDate("the week\u2019s first day written YYYY-MM-DD, e.g. 2026-11-09"), ...group }, { error: "a mapping with starting, units and metrics" }), {
+      error: "a list of weeks, e.g. [{ starting: 2026-11-09, units: 49000, metrics: { ... } }]"
+    }).default([]).describe("Per week of first exposure: units and metric totals (for the novelty check)."),
+    segments: external_exports.array(
+      external_exports.strictObject(
+        { segment: external_exports.string({ error: 'a segment name, e.g. "platform: ios"' }).trim().min(1, { error: 'a segment name, e.g. "platform: ios"' }), ...group },
+        { error: "a mapping with segment, units and metrics" }
+      ),
+      { error: 'a list of segments, e.g. [{ segment: "platform: ios", units: 5000, metrics: { ... } }]' }
+    ).default([]).describe("Per segment: units and metric totals (exploratory).")
+  },
+  { error: "an arm\u2019s totals: a mapping with units and metrics" }
+).describe("Totals of one arm.");
+var writtenTotalsSchema = external_exports.strictObject(
+  {
+    plan: planId.describe("The id of the plan this readout is for."),
+    "plan-commit": external_exports.string({ error: "the commit of the plan at launch, 7 to 40 hexadecimal digits, e.g. 4b1d2e7" }).regex(/^[0-9a-f]{7,40}$/, { error: "the commit of the plan at launch, 7 to 40 lower-case hexadecimal digits, e.g. 4b1d2e7" }).describe("The commit of the plan when the test launched: the rule read out is the one registered then."),
+    "data-through": calendarDate("the last day the data covers, written YYYY-MM-DD, e.g. 2026-12-06").describe("The last day (UTC, included) the data covers."),
+    arms: external_exports.record(kebabName("an arm name of the plan, e.g. control"), armTotals, { error: "a mapping of arm names to their totals" }).describe("Totals per arm, keyed by the arm\u2019s name in the plan."),
+    notes: external_exports.string({ error: "free text" }).optional().describe("Free text: where the totals came from.")
+  },
+  { error: "arm totals: a mapping with plan, plan-commit, data-through and arms" }
+).describe("Plumbline arm totals: the sufficient statistics of one readout.");
+function normalizePre(pre) {
+  return pre ? { pre: { sum: pre.sum, sumSquares: pre["sum-of-squares"], sumProducts: pre["sum-of-products"] } } : {};
+}
+function normalizeMetricTotals(written, units2) {
+  if ("units-with-event" in written) {
+    const x = written["units-with-event"];
+    return { kind: "proportion", n: written.n ?? units2, sum: x, sumSquares: x, ...normalizePre(written["pre-period"]) };
+  }
+  if ("numerator" in written) {
+    return {
+      kind: "ratio",
+      n: written.n,
+      numerator: { sum: written.numerator.sum, sumSquares: written.numerator["sum-of-squares"] },
+      denominator: { sum: written.denominator.sum, sumSquares: written.denominator["sum-of-squares"] },
+      sumProducts: written["sum-of-products"]
+    };
+  }
+  return { kind: "mean", n: written.n, sum: written.sum, sumSquares: written["sum-of-squares"], ...normalizePre(written["pre-period"]) };
+}
+function normalizeGroup(written) {
+  return {
+    units: written.units,
+    metrics: Object.fromEntries(Object.entries(written.metrics).map(([name, m]) => [name, normalizeMetricTotals(m, written.units)]))
+  };
+}
+var totalsSchema = writtenTotalsSchema.transform(
+  (written) => ({
+    planId: written.plan,
+    planCommit: written["plan-commit"],
+    dataThrough: written["data-through"],
+    arms: Object.fromEntries(
+      Object.entries(written.arms).map(([name, arm2]) => [
+        name,
+        {
+          ...normalizeGroup(arm2),
+          days: arm2.days.map((d) => ({ date: d.date, ...normalizeGroup(d) })),
+          weeks: arm2.weeks.map((w) => ({ starting: w.starting, ...normalizeGroup(w) })),
+          segments: arm2.segments.map((s) => ({ segment: s.segment, ...normalizeGroup(s) }))
+        }
+      ])
+    ),
+    ...written.notes !== void 0 ? { notes: written.notes } : {}
+  })
+);
+
+// src/core/totals/load.ts
+var TOTALS_LIMITS = { maxBytes: 1024 * 1024, maxAliases: 100 };
+var TOTALS_SCHEMA_ID = "https://plumbline.dev/schema/totals.schema.json";
+var cached3;
+function totalsJsonSchema() {
+  cached3 ??= {
+    $id: TOTALS_SCHEMA_ID,
+    title: "Plumbline arm totals",
+    ...external_exports.toJSONSchema(writtenTotalsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cached3;
+}
+function loadTotals(text2, file2, plan) {
+  const read = readYaml(text2, file2, TOTALS_LIMITS, "totals");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema(), "totals");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = runRules({ totals: checked.value, ...plan ? { plan } : {} }, read.source, [...TOTALS_RULES, ...plan ? TOTALS_PLAN_RULES : []]);
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, totals: checked.value, warnings };
+}
+
+// src/run/review-readouts.ts
+async function attachReadouts(linked, head) {
+  for (const l of linked) {
+    const file2 = l.loaded.plan.outcome?.totals;
+    if (!file2) continue;
+    const text2 = await head.readText(file2);
+    if (text2 === void 0) {
+      l.readout = { file: file2, problem: `the totals file ${file2} named by the outcome is not in the repository` };
+      continue;
+    }
+    const loaded = loadTotals(text2, file2, l.loaded.plan);
+    l.readout = loaded.ok ? { file: file2, readout: buildReadout(l.loaded.plan, loaded.totals) } : { file: file2, problem: `${file2} cannot be read out: ${loaded.errors.map((e) => `line ${e.line}: ${e.field}: ${e.message}`).join("; ")}` };
+  }
+}
+
+// src/core/config/sizing-policy.ts
+function sizingPolicy(settings) {
+  return {
+    guardrailAlpha: settings.sizing.guardrailAlpha,
+    guardrailPower: settings.sizing.guardrailPower,
+    guardrailArmCorrection: settings.sizing.guardrailArmCorrection,
+    longestDays: settings.sizing.longestWindowDays
+  };
+}
+
+// src/core/config/schema.ts
+var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
+function compiles(pattern) {
+  try {
+    new RegExp(pattern, "u");
+    return true;
+  } catch {
+    return false;
+  }
+}
+var callPattern = (group2, example) => {
+  const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
+  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
+};
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var DEFAULT_PLAN_FOLDERS = ["experiments"];
+var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
+var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
+function isTimeZone(zone) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
+var writtenSettingsSchema = external_exports.strictObject(
+  {
+    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
+    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
+    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
+    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
+    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
+    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
+    scan: external_exports.strictObject(
+      {
+        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
+        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
+      },
+      { error: "a mapping with include and exclude" }
+    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
+    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
+    "bug-fix": external_exports.strictObject(
+      {
+        enabled: external_exports.boolean({ error: "true or false" }).default(true),
+        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
+        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
+        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
+        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
+        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
+        guardrail: external_exports.strictObject(
+          {
+            name: text("a metric name, e.g. error-rate"),
+            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
+            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
+            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
+          },
+          { error: "a guardrail: { name, rate, events, direction }" }
+        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+      },
+      { error: "a mapping of bug-fix nudge settings" }
+    ).default({
+      enabled: true,
+      labels: DEFAULT_BUG_LABELS,
+      "title-prefixes": ["fix", "bugfix", "hotfix"],
+      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
+      "silence-label": "no-check-test",
+      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
+    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
+    digest: external_exports.strictObject(
+      {
+        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
+        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
+        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
+        label: text("the label of the digest issue").default("plumbline-digest")
+      },
+      { error: "a mapping of digest settings" }
+    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
+    // Sizing conventions (issue 13): guardrails' own error rates, the longest sensible window, atypical periods.
+    sizing: external_exports.strictObject(
+      {
+        "guardrail-alpha": openShare("a one-sided significance level for guardrails strictly between 0 and 1, e.g. 0.05").default(0.05),
+        "guardrail-power": openShare("a power for guardrails strictly between 0 and 1, e.g. 0.8").default(0.8),
+        "guardrail-arm-correction": external_exports.boolean({ error: "true or false" }).default(false).describe("Divide a guardrail\u2019s \u03B1 among several treatment arms (Bonferroni); off by default, since it makes a safety check less sensitive."),
+        "longest-window-days": external_exports.number({ error: "a whole number of days from 7 to 365" }).int({ error: "a whole number of days from 7 to 365" }).min(7, { error: "at least 7 days" }).max(365, { error: "at most 365 days" }).default(56).describe("Beyond this a test is not feasible at its traffic."),
+        "atypical-periods": external_exports.array(
+          external_exports.strictObject(
+            {
+              name: text("a name for the period, e.g. winter sale"),
+              start: calendarDate("a start date written YYYY-MM-DD, e.g. 2026-11-27"),
+              end: calendarDate("an end date written YYYY-MM-DD, e.g. 2026-11-30")
+            },
+            { error: "a period: { name, start, end }" }
+          ),
+          { error: "a list of periods, e.g. [{ name: winter sale, start: 2026-11-27, end: 2026-11-30 }]" }
+        ).default([]).describe("Holidays, sales and other periods when behaviour is unusual; a window that overlaps one gets a note.")
+      },
+      { error: "a mapping of sizing settings" }
+    ).default({ "guardrail-alpha": 0.05, "guardrail-power": 0.8, "guardrail-arm-correction": false, "longest-window-days": 56, "atypical-periods": [] }).describe("Sizing conventions: guardrails\u2019 error rates, the longest sensible window, atypical periods."),
+    severity: external_exports.record(
+      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
+      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
+      { error: "a mapping of finding code to block, warn, note or off" }
+    ).default({}).describe("Raise or lower the severity of findings by code.")
+  },
+  { error: "a settings file: a mapping of settings" }
+).describe("Plumbline repository settings.");
+var settingsSchema = writtenSettingsSchema.transform((w) => ({
+  planPaths: w.plans,
+  registryFiles: w.registries,
+  flagCalls: w["flag-calls"],
+  logCalls: w["log-calls"],
+  builtinPatterns: w["builtin-patterns"],
+  groupSurfaces: w["group-surfaces"],
+  scan: w.scan,
+  exemptFlags: w["exempt-flags"],
+  severity: w.severity,
+  bugFix: {
+    enabled: w["bug-fix"].enabled,
+    labels: w["bug-fix"].labels,
+    titlePrefixes: w["bug-fix"]["title-prefixes"],
+    branchPrefixes: w["bug-fix"]["branch-prefixes"],
+    silenceLabel: w["bug-fix"]["silence-label"],
+    nonProductPaths: w["bug-fix"]["non-product-paths"],
+    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
+    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  sizing: {
+    guardrailAlpha: w.sizing["guardrail-alpha"],
+    guardrailPower: w.sizing["guardrail-power"],
+    guardrailArmCorrection: w.sizing["guardrail-arm-correction"],
+    longestWindowDays: w.sizing["longest-window-days"],
+    atypicalPeriods: w.sizing["atypical-periods"]
+  },
+  digest: {
+    timeZone: w.digest["time-zone"],
+    endingSoonDays: w.digest["ending-soon-days"],
+    onHoldDays: w.digest["on-hold-days"],
+    label: w.digest.label
+  }
+}));
+
+// src/core/config/load.ts
+var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
+var cachedJsonSchema;
+function settingsJsonSchema() {
+  cachedJsonSchema ??= {
+    $id: "https://plumbline.dev/schema/settings.schema.json",
+    title: "Plumbline settings file",
+    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cachedJsonSchema;
+}
+function defaultSettings() {
+  return settingsSchema.parse({});
+}
+function loadSettings(text2, file2) {
+  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
+  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
+  if (!read.ok) return { ok: false, errors: read.problems };
+  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
+  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
+  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
+}
+
+// src/core/config/plan-files.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var PLAN_EXTENSIONS = [".yaml", ".yml"];
+function planSearchRoots(entries) {
+  return entries.map((raw) => {
+    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
+    const scan = import_picomatch3.default.scan(entry);
+    if (scan.isGlob) {
+      const matcher = (0, import_picomatch3.default)(entry, { dot: false });
+      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
+    }
+    if (isYamlFile(entry)) {
+      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
+      return { folder: parent, matches: (path) => path === entry };
+    }
+    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
+    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
+  });
+}
+function isYamlFile(path) {
+  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
+}
+
+// src/core/registry/load.ts
+var REGISTRY_LIMITS = { maxBytes: 4 * 1024 * 1024, maxAliases: 1e3 };
+var cachedJsonSchema2;
+function registryJsonSchema() {
+  cachedJsonSchema2 ??= {
+    $id: "https://plumbline.dev/schema/registry.schema.json",
+    title: "Plumbline registry file",
+    ...external_exports.toJSONSchema(writtenRegistrySchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cachedJsonSchema2;
+}
+function loadRegistryFile(text2, file2) {
+  const read = readYaml(text2, file2, REGISTRY_LIMITS, "registry");
+  if (!read.ok) return { ok: false, errors: read.problems };
+  const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), "registry");
+  if (!checked.ok) return { ok: false, errors: checked.problems };
+  const entries = checked.value.map((entry, index) => ({ ...entry, file: file2, line: read.source.locate(["tests", index, "id"]).line }));
+  const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ["tests", index, "surface"]), "registry");
+  return { ok: true, entries, warnings };
+}
+function buildRegistry(plans, extra) {
+  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line
+  );
+  const byId = /* @__PURE__ */ new Map();
+  const problems = [];
+  for (const entry of candidates) {
+    const first = byId.get(entry.id);
+    if (first) {
+      problems.push({
+        severity: "error",
+        code: "registry/duplicate-id",
+        file: entry.file,
+        line: entry.line,
+        column: 1,
+        field: "id",
+        message: `id "${entry.id}" is already used by ${first.file}:${first.line}`,
+        expected: "an id unique across all plans and registry files"
+      });
+      continue;
+    }
+    byId.set(entry.id, entry);
+  }
+  return { registry: { entries: [...byId.values()] }, problems };
+}
+
+// src/run/load-workspace.ts
+async function loadWorkspace(options) {
+  const { files } = options;
+  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
+  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
+  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
+  const settings = settingsResult.settings;
+  const planFiles = await findPlanFiles(files, settings.planPaths);
+  const problems = [];
+  const plans = [];
+  const texts = await files.readTexts(planFiles);
+  for (const [index, file2] of planFiles.entries()) {
+    options.onProgress?.(index, planFiles.length, "plans");
+    const result = loadPlan(texts[index] ?? "", file2);
+    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
+    if (result.ok) plans.push(result.loaded);
+  }
+  options.onProgress?.(planFiles.length, planFiles.length, "plans");
+  const extra = [];
+  for (const [index, file2] of settings.registryFiles.entries()) {
+    const text2 = await files.readText(file2);
+    if (text2 === void 0) {
+      return {
+        ok: false,
+        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
+        settingsProblems: [
+          {
+            severity: "error",
+            code: "settings/registry-missing",
+            ...settingsResult.locate(["registries", index]),
+            field: `registries[${index}]`,
+            message: `the registry file ${file2} does not exist`,
+            expected: "a path relative to the repository root"
+          }
+        ]
+      };
+    }
+    const result = loadRegistryFile(text2, file2);
+    if (result.ok) extra.push(...result.entries);
+    problems.push(...result.ok ? result.warnings : result.errors);
+  }
+  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
+  problems.push(...registryProblems);
+  return {
+    ok: true,
+    workspace: {
+      settings,
+      ...settingsFile ? { settingsFile } : {},
+      planFiles,
+      plans,
+      registry: registry2,
+      problems: sortProblems(problems)
+    }
+  };
+}
+function ownFilesOf(workspace) {
+  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+}
+async function requireWorkspace(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
+${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  }
+  return loaded.workspace;
+}
+async function readSettingsText(files, named) {
+  if (named) {
+    const text2 = await files.readText(named);
+    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
+    return { text: text2, file: named };
+  }
+  for (const candidate of SETTINGS_FILE_NAMES) {
+    const text2 = await files.readText(candidate);
+    if (text2 !== void 0) return { text: text2, file: candidate };
+  }
+  return {};
+}
+async function findPlanFiles(files, planPaths) {
+  const found = /* @__PURE__ */ new Set();
+  for (const root of planSearchRoots(planPaths)) {
+    for (const path of await files.listFiles(root.folder)) {
+      if (root.matches(path)) found.add(path);
+    }
+  }
+  return [...found].sort();
+}
+
 // src/run/review-change.ts
 async function contextAtBase(change2, head, settingsPath) {
   const loaded = await loadWorkspace({ files: change2.filesAt("base"), ...settingsPath ? { settingsPath } : {} }).catch(() => void 0);
@@ -40186,6 +41306,7 @@ async function reviewChange(options) {
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+  await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)
@@ -40223,378 +41344,14 @@ async function reviewChange(options) {
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
 }
 
-// src/core/report/coverage-notice.ts
-function coverageNotice(review) {
-  const unseen = review.partial;
-  if (!unseen) return [];
-  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
-  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
-}
-
-// src/core/report/review-summary.ts
-function checklistSummary(items) {
-  const held = items.filter((i) => i.done).length;
-  return { count: `${formatCount(held)} of ${formatCount(items.length)} ${held === 1 ? "holds" : "hold"}`, failing: items.filter((i) => !i.done).map((i) => i.label) };
-}
-
-// src/core/report/review-markdown.ts
-var REVIEW_MARKER = "<!-- plumbline:review -->";
-var COMMENT_LIMIT = 65536;
-var SUMMARY_LIMIT = 1024 * 1024;
-var measureCharacters = (text2) => text2.length;
-var encoder = new TextEncoder();
-var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
-var HEADLINE = {
-  blocked: "\u26D4 Plumbline: blocked",
-  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
-  clear: "\u2705 Plumbline: all clear",
-  "nothing-to-check": "\u2705 Plumbline: nothing to check",
-  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
-};
-var NOUN = { block: ["blocking finding", "blocking findings"], warn: ["warning", "warnings"], note: ["note", "notes"] };
-function countsText(findings) {
-  return ["block", "warn", "note"].map((s) => [s, findings.filter((f) => f.severity === s).length]).filter(([, n]) => n > 0).map(([s, n]) => countOf(n, ...NOUN[s])).join(", ");
-}
-function where(path, line, options) {
-  if (!path) return "";
-  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
-  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
-}
-function findingLine(f, options) {
-  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
-  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
-}
-function headline(review) {
-  const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
-  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
-  return `### ${HEADLINE[review.verdict]}${todo}`;
-}
-function countsLine(review) {
-  const introduced = review.findings.filter((f) => f.origin === "introduced");
-  const known = review.findings.length - introduced.length;
-  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? "Nothing new from this change." : ""];
-  if (known) parts.push(`Already known before it: ${countOf(known, "finding")}.`);
-  parts.push(`<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`);
-  return parts.filter(Boolean).join(" ");
-}
-function planSection(plan, options, detail, withTables) {
-  const checklist = checklistSummary(plan.checklist);
-  const length = lengthSummary(plan.sizing);
-  const found = plan.events.filter((e) => e.location).length;
-  const lines = [
-    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
-    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
-    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join("; ")}.` : ""}`
-  ];
-  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ""} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
-  if (!withTables) return lines;
-  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
-  lines.push(
-    "",
-    "<details><summary>Sizing and events</summary>",
-    "",
-    ...detail.charts ? sizing : cutChart(sizing),
-    "| event | used for | first logged at |",
-    "| --- | --- | --- |",
-    ...plan.events.map(
-      (e) => `| ${codeCell(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`
-    ),
-    "",
-    "</details>"
-  );
-  return lines;
-}
-function cutChart(lines) {
-  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
-  return start < 0 ? lines : [...lines.slice(0, start), ""];
-}
-function hasChart(review) {
-  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: "", designLine: "", window: p.window, power: p.power }).includes("<summary>Power by day"));
-}
-function findingsSection(review, options, shown) {
-  const listed = review.findings.slice(0, shown);
-  const introduced = listed.filter((f) => f.origin === "introduced");
-  const knownBlocking = listed.filter((f) => f.origin === "known" && f.severity === "block");
-  const knownRest = listed.filter((f) => f.origin === "known" && f.severity !== "block");
-  const out = [];
-  if (introduced.length) out.push("#### Introduced by this change", "", ...introduced.map((f) => findingLine(f, options)), "");
-  if (knownBlocking.length) out.push("#### Still blocking from before this change", "", ...knownBlocking.map((f) => findingLine(f, options)), "");
-  if (knownRest.length) {
-    out.push(`<details><summary>Already known: ${countOf(knownRest.length, "finding")} that held before this change</summary>`, "", ...knownRest.map((f) => findingLine(f, options)), "", "</details>", "");
-  }
-  return out;
-}
-function render(review, options, detail, omitted) {
-  const out = [REVIEW_MARKER, headline(review), countsLine(review), ""];
-  out.push(...coverageNotice(review));
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  out.push(...findingsSection(review, options, detail.findingsShown));
-  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ""));
-  if (review.nudge) {
-    out.push(
-      "#### A small check test for this fix?",
-      "",
-      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
-      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      "",
-      "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
-      "",
-      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
-      "```yaml",
-      review.nudge.planStub.replace(/```/g, "'''"),
-      "```",
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (review.collisions.length) {
-    out.push(
-      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, "overlap")}</summary>`,
-      "",
-      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
-      "| --- | --- | --- | --- | --- | --- | --- | --- |",
-      ...review.collisions.map(
-        (c) => `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== void 0 ? formatCount(c.overlapDays) : "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
-      ),
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (review.flags.length && detail.flagsShown > 0) {
-    const shown = review.flags.slice(0, detail.flagsShown);
-    out.push(
-      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
-      "",
-      "| flag | where | how | plans |",
-      "| --- | --- | --- | --- |",
-      ...shown.map(
-        (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
-      ),
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (omitted.length) {
-    const list2 = omitted.length > 1 ? `${omitted.slice(0, -1).join(", ")} and ${omitted.at(-1)}` : omitted[0];
-    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list2}${options.fullReport ? `. They are in ${options.fullReport}` : ""}.</sub>`);
-  }
-  return out.join("\n").replace(/\n{3,}/g, "\n\n");
-}
-function omissions(review, detail, charts) {
-  const out = [];
-  if (!detail.charts && charts && detail.tablesFor > 0) out.push("the power charts");
-  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
-  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, "plan")}`);
-  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
-  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, "more plan")}`);
-  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
-  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, "row")} of the flags table`);
-  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
-  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, "finding"));
-  return out;
-}
-function halving(n) {
-  const out = [];
-  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
-  return [...out, 0];
-}
-function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measure = measureCharacters) {
-  const plans = review.plans.length;
-  const findings = review.findings.length;
-  const charts = hasChart(review);
-  const attempt = (detail) => {
-    const body = render(review, options, detail, omissions(review, detail, charts));
-    return measure(body) <= limit ? body : void 0;
-  };
-  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
-  const steps = [full, { ...full, charts: false }];
-  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
-  const lean = { ...full, charts: false, tablesFor: 0 };
-  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
-  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
-  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
-  for (const detail of steps) {
-    const body = attempt(detail);
-    if (body !== void 0) return body;
-  }
-  return `${REVIEW_MARKER}
-${headline(review)}
-
-The review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
-}
-
-// src/core/report/review-text.ts
-var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
-function renderReviewText(review, options) {
-  const style = terminalStyle(options.color);
-  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
-  const out = [];
-  const verdict = {
-    blocked: style.red("blocked"),
-    warnings: style.yellow("passes, with warnings"),
-    clear: style.green("all clear"),
-    "nothing-to-check": style.green("nothing to check"),
-    partial: style.yellow("partial review, nothing found in the files seen")
-  }[review.verdict];
-  const known = review.findings.filter((f) => f.origin === "known").length;
-  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, "warning")}, ${countOf(review.counts.note, "note")}${known ? `; ${formatCount(known)} already held before this change` : ""}`;
-  out.push(`${style.bold("Plumbline")}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  for (const f of review.findings) {
-    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
-    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ""}${f.origin === "known" ? style.dim(" (already known)") : ""}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
-  }
-  for (const plan of review.plans) {
-    out.push("", `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(", "))}) ${terminalSafe(plan.file)}:${plan.line}`);
-    const checklist = checklistSummary(plan.checklist);
-    out.push(`  checklist: ${checklist.count}`);
-    for (const label of checklist.failing) out.push(`  [${style.red(" ")}] ${label}`);
-    const length = lengthSummary(plan.sizing);
-    if (length) out.push(`  length: ${terminalSafe(length.length)}${length.power ? `; power: ${terminalSafe(length.power)}` : ""}; details: plumbline size ${terminalSafe(plan.id)}`);
-    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
-    out.push(`  events: ${formatCount(plan.events.length - missing.length)} of ${formatCount(plan.events.length)} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
-  }
-  return out.join("\n");
-}
-
-// src/core/review/report-schema.ts
-var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
-var severity = external_exports.enum(["block", "warn", "note"]);
-var analysisSize = external_exports.object({
-  perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
-  totalUnits: external_exports.number().int(),
-  clusters: external_exports.number().int().optional(),
-  duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
-});
-var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
-var sizeResult = external_exports.union([
-  external_exports.object({
-    ok: external_exports.literal(true),
-    value: external_exports.object({
-      baselineValue: external_exports.number(),
-      sd: external_exports.number().optional(),
-      effect: change.extend({ from: external_exports.number() }).optional(),
-      multipliers: external_exports.object({
-        comparisons: external_exports.number(),
-        alphaPerComparison: external_exports.number(),
-        designEffect: external_exports.number(),
-        varianceReduction: external_exports.number(),
-        sequential: external_exports.number(),
-        dilutionUnits: external_exports.number(),
-        dilutionDays: external_exports.number()
-      }),
-      boundaries: external_exports.object({ kind: external_exports.enum(["obrien-fleming-spending", "pocock-spending", "obrien-fleming", "pocock"]), z: external_exports.array(external_exports.number()), nominalP: external_exports.array(external_exports.number()) }).optional(),
-      triggered: analysisSize.optional(),
-      diluted: analysisSize.optional(),
-      headline: analysisSize.optional(),
-      atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
-      powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
-      notes: external_exports.array(external_exports.string())
-    })
-  }),
-  external_exports.object({ ok: external_exports.literal(false), error: external_exports.object({ input: external_exports.string(), message: external_exports.string() }) })
-]);
-var reviewReportSchema = external_exports.object({
-  format: external_exports.literal("plumbline.review/1"),
-  verdict: external_exports.enum(["blocked", "warnings", "clear", "nothing-to-check", "partial"]),
-  counts: external_exports.object({ block: external_exports.number().int(), warn: external_exports.number().int(), note: external_exports.number().int() }),
-  base: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
-  head: external_exports.string().regex(/^[0-9a-f]{40,64}$/),
-  findings: external_exports.array(
-    external_exports.object({
-      code: external_exports.string(),
-      severity,
-      message: external_exports.string(),
-      fix: external_exports.string(),
-      plan: external_exports.string().optional(),
-      file: external_exports.string().optional(),
-      line: external_exports.number().int().positive().optional(),
-      origin: external_exports.enum(["introduced", "known"]).describe("introduced: this change brought it; known: the same finding already held for the plan at the base commit")
-    })
-  ),
-  plans: external_exports.array(
-    external_exports.object({
-      id: external_exports.string(),
-      title: external_exports.string(),
-      file: external_exports.string(),
-      line: external_exports.number().int(),
-      state: external_exports.string(),
-      owners: external_exports.array(external_exports.string()),
-      reasons: external_exports.array(external_exports.enum(["named in the description", "plan file changed", "flag touched"])),
-      checklist: external_exports.array(external_exports.object({ label: external_exports.string(), done: external_exports.boolean() })),
-      sizing: external_exports.object({
-        planId: external_exports.string(),
-        plannedDays: external_exports.number().int().optional(),
-        dailyUnits: external_exports.number().optional(),
-        metrics: external_exports.array(
-          external_exports.object({
-            metric: external_exports.string(),
-            role: external_exports.enum(["primary", "guardrail"]),
-            kind: external_exports.enum(["proportion", "mean", "ratio"]),
-            direction: external_exports.enum(["increase", "decrease"]),
-            sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
-            result: sizeResult
-          })
-        )
-      }),
-      power: external_exports.number(),
-      window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
-      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
-    })
-  ),
-  flags: external_exports.array(
-    external_exports.object({
-      key: external_exports.string(),
-      file: external_exports.string(),
-      line: external_exports.number().int(),
-      side: external_exports.enum(["added", "removed"]),
-      via: external_exports.string(),
-      plans: external_exports.array(external_exports.string()),
-      exempt: external_exports.boolean()
-    })
-  ),
-  collisions: external_exports.array(
-    external_exports.object({
-      plan: external_exports.string(),
-      other: external_exports.string(),
-      owners: external_exports.array(external_exports.string()),
-      otherSurface: external_exports.string(),
-      overlapDays: external_exports.number().int().optional(),
-      overlapWindow: external_exports.object({ start: external_exports.string(), end: external_exports.string() }).optional(),
-      platforms: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
-      locales: external_exports.union([external_exports.array(external_exports.string()), external_exports.literal("all")]),
-      trafficShare: external_exports.number(),
-      known: external_exports.boolean()
-    })
-  ),
-  nudge: external_exports.object({ reason: external_exports.string(), productFiles: external_exports.array(external_exports.string()), planStub: external_exports.string(), twoWeeksLine: external_exports.string().optional(), sizingLine: external_exports.string().optional() }).optional(),
-  partial: external_exports.object({ reason: external_exports.string(), reviewedFiles: external_exports.number().int(), changedFiles: external_exports.number().int().optional() }).optional().describe("Present when some files of the change were not reviewed; the verdict is then never clear.")
-}).describe("The Plumbline pull-request review report.");
-var REVIEW_JSON_FORMAT = "plumbline.review/1";
-function reviewJson(review) {
-  return { format: REVIEW_JSON_FORMAT, ...review };
-}
-
 // src/cli/check-command.ts
-import { readFile as readFile2 } from "node:fs/promises";
-import { resolve } from "node:path";
+import { resolve as resolve2 } from "node:path";
 async function pullRequestInfo(flags, cwd) {
   let fromFile = {};
   if (flags.prJson) {
     let parsed;
     try {
-      parsed = JSON.parse(await readFile2(resolve(cwd, flags.prJson), "utf8"));
+      parsed = JSON.parse(await readFile2(resolve2(cwd, flags.prJson), "utf8"));
     } catch (error62) {
       throw new UsageError(`--pr-json ${flags.prJson} is not a readable JSON file (${error62 instanceof Error ? error62.message : String(error62)})`, 'give { "title": ..., "body": ..., "labels": [...], "branch": ... } or a pull-request object');
     }
@@ -40603,7 +41360,7 @@ async function pullRequestInfo(flags, cwd) {
   let body = flags.body ?? fromFile.body;
   if (flags.bodyFile) {
     try {
-      body = await readFile2(resolve(cwd, flags.bodyFile), "utf8");
+      body = await readFile2(resolve2(cwd, flags.bodyFile), "utf8");
     } catch (error62) {
       throw new ExternalError(`cannot read --body-file ${flags.bodyFile}`, void 0, { cause: error62 });
     }
@@ -40636,6 +41393,120 @@ function fromJson(value, file2) {
   const branch = text2(pr.branch ?? headRef, "branch");
   return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
 }
+function addCheckCommand(program2, setExit) {
+  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
+    const options = program2.opts();
+    const { output: output2 } = context({ ...options, format: "text" });
+    const cwd = resolve2(options.cwd);
+    const pr = await pullRequestInfo(flags, cwd);
+    const change2 = await openChange(cwd, flags.base, flags.head);
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
+    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
+    const { review } = outcome;
+    if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
+`, { overwrite: true });
+    const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
+    if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
+    else if (flags.format === "markdown") output2.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
+    else output2.out(renderReviewText(review, { color: output2.color }));
+    setExit(review.verdict === "blocked" ? EXIT.findings : EXIT.ok);
+  });
+}
+
+// src/core/report/digest-markdown.ts
+var DIGEST_MARKER = "<!-- plumbline:digest -->";
+var DIGEST_START = "<!-- plumbline:digest:start -->";
+var DIGEST_END = "<!-- plumbline:digest:end -->";
+var TIMELINE_LIMIT = 40;
+var LABEL2 = {
+  overdue: "\u23F0 past its end",
+  "flag-gone": "\u{1F9F9} flag gone from the code",
+  collision: "\u{1F4A5} collides",
+  "draft-past-start": "\u{1F4DD} draft past its start",
+  "long-on-hold": "\u23F8\uFE0F on hold too long",
+  "ending-soon": "\u{1F4C5} ending soon"
+};
+function countLine(d) {
+  const c = d.counts;
+  const parts = [
+    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? "its" : "their"} planned end` : "",
+    c["ending-soon"] ? `${formatCount(c["ending-soon"])} ending soon` : "",
+    c["draft-past-start"] ? `${countOf(c["draft-past-start"], "draft")} past ${c["draft-past-start"] === 1 ? "its" : "their"} start` : "",
+    c["long-on-hold"] ? `${formatCount(c["long-on-hold"])} on hold too long` : "",
+    c.collision ? countOf(c.collision, "collision") : "",
+    c["flag-gone"] ? `${countOf(c["flag-gone"], "live test")} with ${c["flag-gone"] === 1 ? "its flag" : "their flags"} gone` : "",
+    c.orphanFlags ? `${countOf(c.orphanFlags, "flag")} in code without a plan` : ""
+  ].filter(Boolean);
+  const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
+  return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
+}
+function ownersOf(owners, mentioned) {
+  return owners.map((owner2) => {
+    const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
+    if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
+    mentioned.add(owner2.toLowerCase());
+    return owner2;
+  }).join(", ");
+}
+function taskName(id) {
+  return id.replace(/[:#;]/g, "-");
+}
+function gantt(d) {
+  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
+  const lines = ["```mermaid", "gantt", "  title Live and planned tests by surface", "  dateFormat YYYY-MM-DD", `  todayMarker stroke-width:3px`];
+  let section = "";
+  shown.forEach((t, i) => {
+    const area = t.surface.split("/")[0];
+    if (area !== section) {
+      section = area;
+      lines.push(`  section ${taskName(area)}`);
+    }
+    const tag = t.overdue ? "crit, " : t.state === "live" ? "active, " : "";
+    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+  });
+  lines.push("```");
+  if (d.timeline.length > shown.length) lines.push("", `${countOf(d.timeline.length - shown.length, "more test")} ${d.timeline.length - shown.length === 1 ? "is" : "are"} not drawn (the list above has them all).`);
+  return lines;
+}
+function render2(d, withTimeline, maxTests) {
+  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
+  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
+  const mentioned = /* @__PURE__ */ new Set();
+  for (const test of d.tests.slice(0, maxTests)) {
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
+    for (const it of test.items) out.push(`  - ${LABEL2[it.kind]}: ${safeText(it.detail)}`);
+  }
+  if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
+  if (d.tests.length) out.push("");
+  if (d.orphanFlags.length) {
+    out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
+    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${formatCount(d.orphanFlags.length - 50)} more.`);
+    out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
+  }
+  if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
+  out.push(DIGEST_END);
+  return out.join("\n");
+}
+function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
+  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]]) {
+    const body = render2(d, timeline, tests);
+    if (body.length <= limit) return body;
+  }
+  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
+}
+function renderDigestText(d) {
+  const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
+  for (const test of d.tests) {
+    out.push("", `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(", "))}`);
+    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
+  }
+  if (d.orphanFlags.length) {
+    out.push("", "Flags in code that no plan covers:");
+    for (const f of d.orphanFlags) out.push(`  ${terminalSafe(f.key)} at ${f.location.file}:${f.location.line}`);
+  }
+  return out.join("\n");
+}
+var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
@@ -40755,223 +41626,68 @@ async function digestRepository(options) {
   return { digest, settings };
 }
 
-// src/core/report/digest-markdown.ts
-var DIGEST_MARKER = "<!-- plumbline:digest -->";
-var DIGEST_START = "<!-- plumbline:digest:start -->";
-var DIGEST_END = "<!-- plumbline:digest:end -->";
-var TIMELINE_LIMIT = 40;
-var LABEL2 = {
-  overdue: "\u23F0 past its end",
-  "flag-gone": "\u{1F9F9} flag gone from the code",
-  collision: "\u{1F4A5} collides",
-  "draft-past-start": "\u{1F4DD} draft past its start",
-  "long-on-hold": "\u23F8\uFE0F on hold too long",
-  "ending-soon": "\u{1F4C5} ending soon"
-};
-function countLine(d) {
-  const c = d.counts;
-  const parts = [
-    c.overdue ? `${formatCount(c.overdue)} past ${c.overdue === 1 ? "its" : "their"} planned end` : "",
-    c["ending-soon"] ? `${formatCount(c["ending-soon"])} ending soon` : "",
-    c["draft-past-start"] ? `${countOf(c["draft-past-start"], "draft")} past ${c["draft-past-start"] === 1 ? "its" : "their"} start` : "",
-    c["long-on-hold"] ? `${formatCount(c["long-on-hold"])} on hold too long` : "",
-    c.collision ? countOf(c.collision, "collision") : "",
-    c["flag-gone"] ? `${countOf(c["flag-gone"], "live test")} with ${c["flag-gone"] === 1 ? "its flag" : "their flags"} gone` : "",
-    c.orphanFlags ? `${countOf(c.orphanFlags, "flag")} in code without a plan` : ""
-  ].filter(Boolean);
-  const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
-  return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
-}
-function ownersOf(owners, mentioned) {
-  return owners.map((owner2) => {
-    const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
-    if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
-    mentioned.add(owner2.toLowerCase());
-    return owner2;
-  }).join(", ");
-}
-function taskName(id) {
-  return id.replace(/[:#;]/g, "-");
-}
-function gantt(d) {
-  const shown = d.timeline.slice(0, TIMELINE_LIMIT);
-  const lines = ["```mermaid", "gantt", "  title Live and planned tests by surface", "  dateFormat YYYY-MM-DD", `  todayMarker stroke-width:3px`];
-  let section = "";
-  shown.forEach((t, i) => {
-    const area = t.surface.split("/")[0];
-    if (area !== section) {
-      section = area;
-      lines.push(`  section ${taskName(area)}`);
-    }
-    const tag = t.overdue ? "crit, " : t.state === "live" ? "active, " : "";
-    lines.push(`  ${taskName(t.id)} :${tag}t${i}, ${t.start}, ${t.end}`);
+// src/cli/digest-command.ts
+function addDigestCommand(program2, setExit) {
+  program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
+    const options = program2.opts();
+    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
+    const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
+    if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
+    else if (local.format === "markdown") output2.out(renderDigestMarkdown(digest));
+    else output2.out(renderDigestText(digest));
+    setExit(EXIT.ok);
   });
-  lines.push("```");
-  if (d.timeline.length > shown.length) lines.push("", `${countOf(d.timeline.length - shown.length, "more test")} ${d.timeline.length - shown.length === 1 ? "is" : "are"} not drawn (the list above has them all).`);
-  return lines;
 }
-function render2(d, withTimeline, maxTests) {
-  const out = [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, ""];
-  if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
-  const mentioned = /* @__PURE__ */ new Set();
-  for (const test of d.tests.slice(0, maxTests)) {
-    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
-    for (const it of test.items) out.push(`  - ${LABEL2[it.kind]}: ${safeText(it.detail)}`);
-  }
-  if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
-  if (d.tests.length) out.push("");
-  if (d.orphanFlags.length) {
-    out.push("### Flags in code that no plan covers", "", ...d.orphanFlags.slice(0, 50).map((f) => `- ${codeSpan(f.key)} at ${codeSpan(`${f.location.file}:${f.location.line}`)}`));
-    if (d.orphanFlags.length > 50) out.push(`- \u2026and ${formatCount(d.orphanFlags.length - 50)} more.`);
-    out.push("", "Write a plan for each, or list kill switches and operational toggles under exempt-flags.", "");
-  }
-  if (withTimeline && d.timeline.length) out.push("### Timeline", "", ...gantt(d), "");
-  out.push(DIGEST_END);
-  return out.join("\n");
+
+// src/core/report/registry-list.ts
+var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
+function sortEntries(entries) {
+  return [...entries].sort(
+    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
+  );
 }
-function renderDigestMarkdown(d, limit = COMMENT_LIMIT - 2e3) {
-  for (const [timeline, tests] of [[true, Infinity], [false, Infinity], [false, 100], [false, 20], [false, 5]]) {
-    const body = render2(d, timeline, tests);
-    if (body.length <= limit) return body;
-  }
-  return [DIGEST_MARKER, DIGEST_START, `## Plumbline weekly digest, ${d.today}`, "", `**${countLine(d)}**`, "", "The full list is too long for an issue; see the JSON report.", DIGEST_END].join("\n");
+function formatWindow(window) {
+  if (!window.start && !window.end) return "not set";
+  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
 }
-function renderDigestText(d) {
-  const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
-  for (const test of d.tests) {
-    out.push("", `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(", "))}`);
-    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
-  }
-  if (d.orphanFlags.length) {
-    out.push("", "Flags in code that no plan covers:");
-    for (const f of d.orphanFlags) out.push(`  ${terminalSafe(f.key)} at ${f.location.file}:${f.location.line}`);
+var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
+function registryJson(registry2) {
+  return {
+    format: REGISTRY_JSON_FORMAT,
+    tests: sortEntries(registry2.entries).map((e) => ({
+      id: e.id,
+      title: e.title,
+      state: e.state,
+      surface: e.surface.path,
+      ...e.surface.trafficSplit ? { trafficSplit: e.surface.trafficSplit } : {},
+      window: e.window,
+      owners: e.owners,
+      flags: e.flags,
+      trafficShare: e.trafficShare,
+      events: e.events,
+      file: e.file,
+      line: e.line
+    }))
+  };
+}
+function renderRegistryText(registry2, options) {
+  const style = terminalStyle(options.color);
+  const entries = sortEntries(registry2.entries);
+  const rows2 = entries.map(
+    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
+  );
+  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
+  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
+  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
+  if (options.skippedFiles) {
+    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
   }
   return out.join("\n");
 }
-var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 
-// src/core/report/readout.ts
-var SRM_JSON_FORMAT = "plumbline.srm/1";
-var ADJUST_JSON_FORMAT = "plumbline.adjusted-p/1";
-function formatP(p) {
-  if (p < 1e-12) return "< 1e-12";
-  return p < 1e-3 ? p.toExponential(2) : p.toFixed(4);
-}
-function renderSrmText(check3, observed, weights, threshold) {
-  const total = observed.reduce((a, b) => a + b, 0);
-  const weightSum = weights.reduce((a, b) => a + b, 0);
-  const rows2 = observed.map((o, i) => [
-    `arm ${i + 1}`,
-    `${(weights[i] / weightSum * 100).toFixed(1)}%`,
-    formatCount(o),
-    formatCount(check3.expected[i]),
-    `${(o / total * 100).toFixed(2)}%`
-  ]);
-  const verdict = check3.mismatch ? `Sample ratio mismatch: p = ${formatP(check3.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.` : `No sample ratio mismatch: p = ${formatP(check3.pValue)} (alarm below ${threshold}).`;
-  return [formatTable(["ARM", "PLANNED", "OBSERVED", "EXPECTED", "SHARE"], rows2), "", `chi-square = ${check3.statistic.toFixed(3)} on ${check3.degreesOfFreedom} df. ${verdict}`].join("\n");
-}
-function renderAdjustedText(pValues, adjusted, q) {
-  const { benjaminiHochberg: bh, holm, bonferroni } = adjusted;
-  const rows2 = pValues.map((p, i) => [String(i + 1), formatP(p), formatP(bh[i]), bh[i] <= q ? "yes" : "no", formatP(holm[i]), holm[i] <= q ? "yes" : "no", formatP(bonferroni[i]), bonferroni[i] <= q ? "yes" : "no"]);
-  const found = (list2) => list2.filter((x) => x <= q).length;
-  return [
-    formatTable(["#", "P", "BH-ADJUSTED", `BH \u2264 ${q}`, "HOLM", `HOLM \u2264 ${q}`, "BONFERRONI", `BONF \u2264 ${q}`], rows2),
-    "",
-    `At ${q}: Benjamini-Hochberg (false discovery rate) finds ${found(bh)} of ${pValues.length} significant; Holm (any false alarm, step-down) finds ${found(holm)}; Bonferroni (any false alarm) finds ${found(bonferroni)}.`
-  ].join("\n");
-}
-
-// src/core/stats/srm.ts
-var SRM_ALARM_P = 5e-4;
-function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
-  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
-  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
-  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
-  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
-  const total = observed.reduce((a, b) => a + b, 0);
-  if (total === 0) return fail("observed", "no units observed yet");
-  const weightSum = weights.reduce((a, b) => a + b, 0);
-  const expected = weights.map((w) => total * w / weightSum);
-  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
-  const degreesOfFreedom = observed.length - 1;
-  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
-  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
-}
-
-// src/core/stats/multiple-testing.ts
-function benjaminiHochberg(pValues) {
-  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
-  const m = pValues.length;
-  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
-  const adjusted = new Array(m);
-  let running = 1;
-  order.forEach(({ p, i }, rankFromTop) => {
-    const rank = m - rankFromTop;
-    running = Math.min(running, p * m / rank);
-    adjusted[i] = running;
-  });
-  return ok(adjusted);
-}
-function bonferroniAdjust(pValues) {
-  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
-  return ok(pValues.map((p) => Math.min(1, p * pValues.length)));
-}
-function holmAdjust(pValues) {
-  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
-  const m = pValues.length;
-  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => a.p - b.p);
-  const adjusted = new Array(m);
-  let running = 0;
-  order.forEach(({ p, i }, rank) => {
-    running = Math.max(running, Math.min(1, (m - rank) * p));
-    adjusted[i] = running;
-  });
-  return ok(adjusted);
-}
-function adjustPValues(pValues) {
-  const bh = benjaminiHochberg(pValues);
-  const holm = holmAdjust(pValues);
-  const bonferroni = bonferroniAdjust(pValues);
-  if (!bh.ok) return bh;
-  if (!holm.ok) return holm;
-  if (!bonferroni.ok) return bonferroni;
-  return ok({ benjaminiHochberg: bh.value, holm: holm.value, bonferroni: bonferroni.value });
-}
-
-// src/version.ts
-var VERSION = "0.1.0";
-
-// src/cli/main.ts
-var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
-var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
-function context(options) {
-  const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve2(options.cwd));
-  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
-}
-function reportSettingsProblems(output2, format, file2, problems) {
-  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
-  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
-  return EXIT.usage;
-}
-function parseNumbers(what, texts) {
-  return texts.map((text2) => {
-    const value = Number(text2);
-    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
-    return value;
-  });
-}
-function buildProgram(setExit) {
-  const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
-  program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
-    const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
-    const outcome = await validateRepository(ports);
-    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
-    const { report } = outcome;
-    output2.out(options.format === "json" ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output2.color }));
-    setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
-  });
+// src/cli/list-command.ts
+function addListCommand(program2, setExit) {
   program2.command("list").description("show the registry of tests: state, surface, window, owners").addOption(formatOption()).addOption(new Option("--state <state>", "only tests in this state").choices(["draft", "live", "on-hold", "concluded"])).action(async (local) => {
     const options = { ...program2.opts(), ...local };
     const { output: output2, ...ports } = context(options);
@@ -40983,6 +41699,120 @@ function buildProgram(setExit) {
     output2.out(options.format === "json" ? JSON.stringify(registryJson(registry2), null, 2) : renderRegistryText(registry2, { color: output2.color, skippedFiles }));
     setExit(EXIT.ok);
   });
+}
+
+// src/cli/new-command.ts
+import { resolve as resolve3 } from "node:path";
+
+// src/run/scaffold.ts
+import { posix } from "node:path";
+
+// src/core/plan/scaffold.ts
+function planIdFromFlag(flagKey2) {
+  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
+}
+function renderPlanScaffold(options) {
+  const id = options.id ?? planIdFromFlag(options.flagKey);
+  const start = addDays(options.today, 7);
+  const end = addDays(start, 27);
+  const quote = (s) => JSON.stringify(s);
+  return `# yaml-language-server: $schema=${options.schemaPath}
+# Experiment plan, written before launch. Reference: docs/plan-reference.md
+id: ${id}
+title: ${quote(`Describe the change behind ${options.flagKey}`)}
+owners: [${quote(options.owner ?? "@your-handle")}]
+flags: [${quote(options.flagKey)}]
+state: draft                # draft, live, on-hold or concluded
+window:
+  start: ${start}
+  end: ${end}           # four whole weeks; weekly cycles matter
+
+hypothesis:
+  change: "What users will see or get that they do not today."
+  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
+  expected-direction: increase
+
+unit:
+  randomization: user       # user, device, session, account, team, organization, household, region
+  # analysis: session       # only when metrics are averaged over another unit
+
+surface:
+  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
+  # traffic-split: { name: checkout-core, range: { start: 0, end: 50 } }   # percent of the pool, start included, end excluded
+  # overlaps-with: [another-plan-id]
+
+population:
+  platforms: [web]
+  locales: [en-GB]
+  ready:                    # where the change was checked: rendered, translated
+    platforms: []
+    locales: []
+
+exposure:
+  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
+  reach: 1                  # share of exposed units that reach the changed experience
+
+metrics:
+  primary:
+    name: conversion
+    kind: proportion        # proportion, mean or ratio
+    baseline: { rate: 0.1 } # replace with the measured baseline
+    events: [conversion_completed]
+  guardrails: []
+    # - name: page-latency
+    #   kind: mean
+    #   baseline: { mean: 420, sd: 180 }
+    #   events: [page_rendered]
+    #   direction: decrease
+    #   tolerance: { relative: 0.02 }
+
+design:
+  arms:
+    - { name: control, weight: 50 }
+    - { name: treatment, weight: 50 }
+  alpha: 0.05
+  power: 0.8
+  min-detectable-effect: { relative: 0.05 }
+  # daily-units: 10000      # expected eligible units per day
+
+# Decision rules: write them now, before any data arrives.
+# decisions:
+#   win: ""
+#   flat: ""
+#   loss: ""
+#   guardrail-breach: ""
+`;
+}
+
+// src/run/scaffold.ts
+var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
+async function scaffoldPlan(request) {
+  const workspace = await requireWorkspace(request);
+  const id = request.id ?? planIdFromFlag(request.flagKey);
+  const taken = workspace.registry.entries.find((entry) => entry.id === id);
+  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
+  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
+  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
+  const path = request.out ?? posix.join(folder, `${id}.yaml`);
+  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
+  const text2 = renderPlanScaffold({
+    flagKey: request.flagKey,
+    id,
+    today: request.today,
+    schemaPath,
+    ...request.owner ? { owner: request.owner } : {},
+    ...request.surface ? { surface: request.surface } : {}
+  });
+  const check3 = loadPlan(text2, path);
+  if (!check3.ok) {
+    throw new UsageError(`the new plan would not be valid:
+${check3.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
+  }
+  return { path, text: text2, id };
+}
+
+// src/cli/new-command.ts
+function addNewCommand(program2, setExit) {
   program2.command("new").description("write a new commented draft plan for a feature flag").argument("<flag-key>", "the feature-flag key the test reads").option("--id <id>", "plan id (default: from the flag key)").option("--owner <handle>", "owner, e.g. @ana-lima").option("--surface <path>", "surface path, e.g. checkout/payment").option("--out <file>", "where to write it (default: <plans folder>/<id>.yaml)").option("--today <date>", "today as YYYY-MM-DD (default: the system date, UTC)").option("--force", "replace an existing file", false).option("--stdout", "print the plan instead of writing it", false).action(async (flagKey2, local) => {
     const options = program2.opts();
     const { output: output2, ...ports } = context({ ...options, format: "text" });
@@ -40990,9 +41820,435 @@ function buildProgram(setExit) {
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
     if (local.stdout) return output2.out(result.text);
-    await writeFileAtomic(resolve2(options.cwd, result.path), result.text, { overwrite: local.force });
+    await writeFileAtomic(resolve3(options.cwd, result.path), result.text, { overwrite: local.force });
     output2.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
   });
+}
+
+// src/cli/readout-command.ts
+import { resolve as resolve4 } from "node:path";
+
+// src/core/report/readout-figures.ts
+var VERDICT_LABEL = {
+  win: "win",
+  loss: "loss",
+  flat: "flat",
+  inconclusive: "inconclusive",
+  "guardrail-breach": "guardrail breach",
+  "not-read": "not read"
+};
+function formatP3(p) {
+  if (p < 1e-12) return "< 1e-12";
+  return p < 1e-3 ? p.toExponential(1) : p.toFixed(3);
+}
+function sig(x, digits = 3) {
+  if (x === 0) return "0";
+  const text2 = Math.abs(x) < 1e-3 ? x.toExponential(2) : Number(x.toPrecision(digits)).toLocaleString("en-US", { maximumFractionDigits: 8 });
+  return x > 0 ? `+${text2}` : text2;
+}
+function metricValue(read, value) {
+  return read.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function metricDifference(read, value) {
+  return read.kind === "proportion" ? `${sig(value * 100)} pp` : sig(value, 4);
+}
+function intervalOf(read, interval) {
+  const ends = read.kind === "proportion" ? [interval.low * 100, interval.high * 100] : [interval.low, interval.high];
+  return `[${sig(ends[0])}, ${sig(ends[1])}]`;
+}
+function relativeText(value) {
+  return `${sig(value * 100)}%`;
+}
+function armCells(read, arm2) {
+  const c = arm2.comparison;
+  if (!c) return [arm2.arm, "\u2014", "\u2014", `not computed: ${arm2.reason ?? "no data"}`, "", "", ""];
+  const relative2 = c.relative ? `${relativeText(c.relative.value)} [${relativeText(c.relative.interval.low)}, ${relativeText(c.relative.interval.high)}]` : "none (control is 0)";
+  return [
+    arm2.arm,
+    `${metricValue(read, c.control.value)} (n ${formatCount(c.control.n)})`,
+    `${metricValue(read, c.treatment.value)} (n ${formatCount(c.treatment.n)})`,
+    `${metricDifference(read, c.difference)} ${intervalOf(read, c.interval)}`,
+    relative2,
+    formatP3(c.pValue),
+    arm2.adjustedP !== void 0 ? formatP3(arm2.adjustedP) : formatP3(c.pValue)
+  ];
+}
+function confidenceOf(read) {
+  const c = read.arms.find((a) => a.comparison)?.comparison;
+  return c ? `${Number((c.confidence * 100).toPrecision(4))}%` : "";
+}
+function guardrailClassText(arm2, read) {
+  if (!arm2.guardrailClass || !arm2.harm) return "not computed";
+  const bound = `harm at most ${metricDifference(read, arm2.harm.upperBound)}`;
+  const tolerance = read.tolerance !== void 0 ? ` (tolerance ${metricDifference(read, read.tolerance).replace(/^\+/, "")})` : " (no tolerance registered)";
+  if (arm2.guardrailClass === "breach") return `BREACH: harm is significant; ${bound}`;
+  if (arm2.guardrailClass === "harm-ruled-out") return `harm ruled out: ${bound}${tolerance}`;
+  return `harm not ruled out: ${bound}${tolerance}`;
+}
+function ruleLine(readout) {
+  const arms = readout.verdictArms.length && readout.treatments.length > 1 ? ` (${readout.verdictArms.join(", ")})` : "";
+  return { label: VERDICT_LABEL[readout.verdict], arms, ...readout.decision ? { quote: readout.decision.text } : {} };
+}
+function srmLine(readout) {
+  const srm = readout.srm;
+  if (!srm) return void 0;
+  const split = srm.arms.map((a) => formatCount(a.units)).join(" / ");
+  const weights = srm.arms.map((a) => formatValue(a.weight)).join(" / ");
+  const days = srm.daysChecked ? `; ${srm.daysChecked} days checked, ${srm.days.length} alarmed` : "";
+  return `Sample ratio: ${split} units against weights ${weights}: chi-square ${srm.statistic.toFixed(2)} on ${srm.degreesOfFreedom} df, p = ${formatP3(srm.pValue)}, ${srm.mismatch ? "MISMATCH" : "no mismatch"} (alarm below ${srm.threshold})${days}.`;
+}
+function timingLine(readout) {
+  const t = readout.timing;
+  const end = t.plannedEnd ? `planned end ${t.plannedEnd}` : "no planned end";
+  const fraction = t.informationFraction !== void 0 ? `; ${formatCount(Object.values(readout.srm?.arms ?? []).reduce((s, a) => s + a.units, 0))} units, ${Math.round(t.informationFraction * 100)}% of the ${formatCount(t.plannedUnits)} planned` : "";
+  return `Data through ${t.dataThrough} (${end}${t.readEarly ? ", READ EARLY" : ""})${fraction}.`;
+}
+function primaryClassText(arm2) {
+  return arm2.primaryClass ?? "not computed";
+}
+
+// src/core/report/readout-markdown.ts
+var HEADER2 = ["arm", "control", "treatment", "difference [CI]", "relative [CI]", "p", "adjusted p"];
+function table(header, rows2) {
+  return [`| ${header.join(" | ")} |`, `| ${header.map(() => "---").join(" | ")} |`, ...rows2.map((r) => `| ${r.map(safeCell).join(" | ")} |`)];
+}
+function metricTitle(read, what) {
+  const segment = read.segment !== void 0 ? ` in \u201C${safeText(read.segment)}\u201D` : "";
+  const cuped = read.cuped ? `; CUPED \u03B8 ${read.cuped.theta.toPrecision(3)}, variance \u2212${Math.round(read.cuped.varianceReduction * 100)}%` : "";
+  return `**${what}: ${codeSpan(read.metric)}${segment}** (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${cuped})`;
+}
+function renderReadoutMarkdown(readout) {
+  const rule = ruleLine(readout);
+  const quote = rule.quote ? `: \xAB${safeText(rule.quote)}\xBB` : readout.verdict === "not-read" ? "" : " (the plan registers no decision for this)";
+  const lines = [
+    `### Readout of ${codeSpan(readout.planId)}: ${safeText(readout.title)}`,
+    "",
+    `Rule applied: **${rule.label}**${safeText(rule.arms)}${quote}`,
+    "",
+    `${timingLine(readout)} Plan as launched: ${codeSpan(readout.planCommit)}.`
+  ];
+  const blocking = readout.findings.filter((f) => f.severity === "block");
+  if (blocking.length) lines.push("", ...blocking.map((f) => `- :no_entry: ${safeText(f.message)}`));
+  const srm = srmLine(readout);
+  if (srm) lines.push("", srm);
+  if (readout.verdict === "not-read") {
+    lines.push("", "Metrics are withheld: with a sample ratio mismatch no difference between the arms can be trusted.");
+    return `${lines.join("\n")}
+`;
+  }
+  lines.push("", metricTitle(readout.primary, "Primary"), "", ...table([...HEADER2, "class"], readout.primary.arms.map((a) => [...armCells(readout.primary, a), primaryClassText(a)])));
+  if (readout.primary.minDetectableEffect !== void 0) lines.push("", `Minimum detectable effect: \xB1${metricDifference(readout.primary, readout.primary.minDetectableEffect).replace(/^\+/, "")}.`);
+  for (const g of readout.guardrails) {
+    lines.push("", metricTitle(g, "Guardrail (non-inferiority, one-sided)"), "", ...table([...HEADER2, "class"], g.arms.map((a) => [...armCells(g, a), guardrailClassText(a, g)])));
+  }
+  const exploratory = [...readout.secondary, ...readout.segments];
+  if (exploratory.length) {
+    lines.push("", "<details><summary>Exploratory: secondary metrics and segments (Benjamini\u2013Hochberg across them); leads to confirm, not results</summary>");
+    for (const m of exploratory) {
+      lines.push("", metricTitle(m, m.role === "segment" ? "Segment" : "Secondary"), "", ...table([...HEADER2, "signal"], m.arms.map((a) => [...armCells(m, a), a.exploratorySignal ? "lead" : "\u2014"])));
+    }
+    lines.push("", "</details>");
+  }
+  const others = readout.findings.filter((f) => f.severity !== "block");
+  if (others.length) lines.push("", ...others.map((f) => `- ${f.severity === "warn" ? ":warning:" : ":information_source:"} ${safeText(f.message)}`));
+  return `${lines.join("\n")}
+`;
+}
+
+// src/core/report/readout-text.ts
+var HEADER3 = ["ARM", "CONTROL", "TREATMENT", "DIFFERENCE [CI]", "RELATIVE [CI]", "P", "ADJUSTED P"];
+function metricTitle2(read, what) {
+  return `${what}: ${terminalSafe(read.metric)}${read.segment !== void 0 ? ` in "${terminalSafe(read.segment)}"` : ""} (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${read.cuped ? `; CUPED \u03B8 ${read.cuped.theta.toPrecision(3)}, variance \u2212${Math.round(read.cuped.varianceReduction * 100)}%` : ""})`;
+}
+function renderReadoutText(readout, options) {
+  const style = terminalStyle(options.color);
+  const rule = ruleLine(readout);
+  const colour = readout.verdict === "win" ? style.green : readout.verdict === "inconclusive" || readout.verdict === "flat" ? style.yellow : style.red;
+  const lines = [
+    style.bold(`Readout of ${terminalSafe(readout.planId)}: ${terminalSafe(readout.title)}`),
+    `${timingLine(readout)} Plan as launched: ${terminalSafe(readout.planCommit)}.`,
+    "",
+    `Rule applied: ${colour(style.bold(rule.label))}${terminalSafe(rule.arms)}${rule.quote ? `: \xAB${terminalSafe(rule.quote)}\xBB` : readout.verdict === "not-read" ? "" : " (the plan registers no decision for this)"}`
+  ];
+  const blocking = readout.findings.filter((f) => f.severity === "block");
+  const others = readout.findings.filter((f) => f.severity !== "block");
+  if (blocking.length) lines.push("", ...blocking.map((f) => `${style.red("BLOCK")} ${terminalSafe(f.message)}`));
+  const srm = srmLine(readout);
+  if (srm) lines.push("", srm);
+  if (readout.verdict === "not-read") {
+    lines.push("", "Metrics are withheld: with a sample ratio mismatch no difference between the arms can be trusted.");
+    return lines.join("\n");
+  }
+  lines.push("", style.bold(metricTitle2(readout.primary, "Primary")));
+  lines.push(formatTable([...HEADER3, "CLASS"], readout.primary.arms.map((a) => [...armCells(readout.primary, a), primaryClassText(a)])));
+  if (readout.primary.minDetectableEffect !== void 0) lines.push(`Minimum detectable effect: \xB1${metricDifference(readout.primary, readout.primary.minDetectableEffect).replace(/^\+/, "")}.`);
+  for (const g of readout.guardrails) {
+    lines.push("", style.bold(metricTitle2(g, "Guardrail (non-inferiority, one-sided)")));
+    lines.push(formatTable([...HEADER3, "CLASS"], g.arms.map((a) => [...armCells(g, a), guardrailClassText(a, g)])));
+  }
+  const exploratory = [...readout.secondary, ...readout.segments];
+  if (exploratory.length) {
+    lines.push("", style.bold("Exploratory (secondary metrics and segments; Benjamini\u2013Hochberg across them): leads to confirm, not results"));
+    for (const m of exploratory) {
+      lines.push("", metricTitle2(m, m.role === "segment" ? "Segment" : "Secondary"));
+      lines.push(formatTable([...HEADER3, "SIGNAL"], m.arms.map((a) => [...armCells(m, a), a.exploratorySignal ? "lead" : "\u2014"])));
+    }
+  }
+  if (others.length) lines.push("", ...others.map((f) => `${f.severity === "warn" ? style.yellow("WARN") : style.dim("NOTE")}  ${terminalSafe(f.message)}`));
+  return lines.join("\n");
+}
+
+// src/core/plan/record-outcome.ts
+var import_yaml3 = __toESM(require_dist(), 1);
+var DIGITS = 6;
+var round = (x) => Number(x.toPrecision(DIGITS));
+function recordOutcome(planText, readout, request) {
+  if (readout.verdict === "not-read") return { ok: false, reason: "a readout with a sample ratio mismatch has no outcome to record: find the cause first" };
+  const doc = (0, import_yaml3.parseDocument)(planText);
+  if (doc.errors.length || !(0, import_yaml3.isMap)(doc.contents)) return { ok: false, reason: "the plan is not a YAML mapping that can be edited" };
+  const existing = doc.contents.items.find((pair2) => (0, import_yaml3.isScalar)(pair2.key) && pair2.key.value === "outcome");
+  const override = doc.getIn(["outcome", "override"]);
+  const figures = readout.primary.arms.flatMap((a) => {
+    const c = a.comparison;
+    if (!c) return [];
+    return [
+      {
+        arm: a.arm,
+        metric: readout.primary.metric,
+        difference: round(c.difference),
+        low: round(c.interval.low),
+        high: round(c.interval.high),
+        ...c.relative ? { relative: round(c.relative.value) } : {},
+        "p-value": round(a.adjustedP ?? c.pValue)
+      }
+    ];
+  });
+  const outcome = {
+    class: readout.verdict,
+    arms: readout.verdictArms,
+    "data-through": readout.dataThrough,
+    totals: request.totalsFile,
+    ...readout.timing.readEarly ? { "read-early": true } : {},
+    figures,
+    "decided-by": request.decidedBy,
+    "recorded-on": request.recordedOn,
+    ...override !== void 0 ? { override } : {}
+  };
+  const block = new import_yaml3.Document({ outcome });
+  const node2 = block.getIn(["outcome"], true);
+  const arms = node2.get("arms", true);
+  if ((0, import_yaml3.isSeq)(arms)) arms.flow = true;
+  const listed = node2.get("figures", true);
+  if ((0, import_yaml3.isSeq)(listed)) {
+    for (const item of listed.items) if ((0, import_yaml3.isMap)(item)) item.flow = true;
+  }
+  const over = node2.get("override", true);
+  if ((0, import_yaml3.isMap)(over)) over.flow = true;
+  const blockText = block.toString({ lineWidth: 0, flowCollectionPadding: false });
+  if (!existing) {
+    const separated = planText.length === 0 || planText.endsWith("\n") ? planText : `${planText}
+`;
+    return { ok: true, text: `${separated}${blockText}` };
+  }
+  const keyStart = existing.key.range[0];
+  const lineStart = planText.lastIndexOf("\n", keyStart - 1) + 1;
+  const valueEnd = existing.value?.range?.[1] ?? existing.key.range[1];
+  const restStart = planText.indexOf("\n", valueEnd);
+  const rest = restStart === -1 ? "" : planText.slice(restStart + 1);
+  return { ok: true, text: `${planText.slice(0, lineStart)}${blockText}${rest}` };
+}
+
+// src/run/find-plan.ts
+function findNamedPlan(workspace, name, then) {
+  const wanted = name.replace(/^\.\//, "");
+  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
+  if (found) return found;
+  const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === "error");
+  if (broken.length) throw new UsageError(`${wanted} has errors:
+${broken.map(formatProblem).join("\n")}`, `fix them, then ${then} again`);
+  const known = workspace.plans.map((p) => p.plan.id);
+  throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(", ")}` : "create one with plumbline new <flag-key>");
+}
+
+// src/run/readout.ts
+async function readOutPlan(options) {
+  const workspace = await requireWorkspace(options);
+  const found = findNamedPlan(workspace, options.plan, "read out");
+  const text2 = await options.files.readText(options.totals);
+  if (text2 === void 0) throw new UsageError(`the totals file ${options.totals} does not exist`, "the path is relative to --cwd (the repository root)");
+  const loaded = loadTotals(text2, options.totals, found.plan);
+  if (!loaded.ok) {
+    throw new UsageError(`${options.totals} cannot be read out:
+${[...loaded.errors, ...loaded.warnings].map(formatProblem).join("\n")}`, "see docs/totals-reference.md for the format");
+  }
+  const readout = buildReadout(found.plan, loaded.totals);
+  const outcome = { readout, planFile: found.file, warnings: loaded.warnings };
+  if (options.record) {
+    const planText = await options.files.readText(found.file);
+    if (planText === void 0) throw new UsageError(`the plan file ${found.file} disappeared while reading`);
+    const recorded = recordOutcome(planText, readout, { ...options.record, totalsFile: options.totals });
+    if (!recorded.ok) throw new UsageError(`nothing recorded: ${recorded.reason}`);
+    outcome.recordedText = recorded.text;
+  }
+  return outcome;
+}
+
+// src/cli/readout-command.ts
+var READOUT_JSON_FORMAT = "plumbline.readout/1";
+function addReadoutCommand(program2, setExit) {
+  program2.command("readout").description("read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan").argument("<plan>", "plan id or plan file").requiredOption("--totals <file>", "the arm-totals file (see docs/totals-reference.md)").addOption(new Option("--format <format>", "output format").choices(["text", "markdown", "json"]).default("text")).option("--record", "write the outcome block into the plan (comments and layout kept)", false).option("--decided-by <handle>", "who decided, e.g. @ana-lima (required with --record)").option("--today <date>", "the day recorded, YYYY-MM-DD (default: the system date, UTC)").action(async (planName, flags) => {
+    const options = program2.opts();
+    const output2 = createCliOutput({ noColorFlag: !options.color });
+    const cwd = resolve4(options.cwd);
+    if (flags.record && !flags.decidedBy) throw new UsageError("--record needs --decided-by", "name who decided, e.g. --decided-by @ana-lima");
+    const today = flags.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
+    if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
+    const outcome = await readOutPlan({
+      files: createRepoFiles(cwd),
+      ...options.config ? { settingsPath: options.config } : {},
+      plan: planName,
+      totals: flags.totals.replace(/^\.\//, ""),
+      ...flags.record ? { record: { decidedBy: flags.decidedBy, recordedOn: today } } : {}
+    });
+    const { readout } = outcome;
+    if (outcome.warnings.length) output2.err(outcome.warnings.map(formatProblem).join("\n"));
+    if (flags.format === "json") output2.out(JSON.stringify({ format: READOUT_JSON_FORMAT, ...readout }, null, 2));
+    else if (flags.format === "markdown") output2.out(renderReadoutMarkdown(readout));
+    else output2.out(renderReadoutText(readout, { color: output2.color }));
+    if (outcome.recordedText !== void 0) {
+      await writeFileAtomic(resolve4(cwd, outcome.planFile), outcome.recordedText, { overwrite: true });
+      output2.err(`Recorded the outcome (${readout.verdict}) in ${outcome.planFile}.`);
+    }
+    setExit(readout.findings.some((f) => f.severity === "block") ? EXIT.findings : EXIT.ok);
+  });
+}
+
+// src/cli/schema-command.ts
+function addSchemaCommand(program2, setExit) {
+  program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {
+    const schema = which === "plan" ? planJsonSchema() : which === "registry" ? registryJsonSchema() : settingsJsonSchema();
+    process.stdout.write(`${JSON.stringify(schema, null, 2)}
+`);
+  });
+}
+
+// src/run/size.ts
+async function sizeNamedPlan(options) {
+  const workspace = await requireWorkspace(options);
+  const found = findNamedPlan(workspace, options.plan, "size");
+  const { plan } = found;
+  return {
+    sizing: sizePlan(plan, sizingPolicy(workspace.settings)),
+    power: plan.design.power,
+    context: {
+      title: `Sizing for ${plan.id} (${found.file})`,
+      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
+      window: plan.window
+    }
+  };
+}
+function sizeFromRequest(request, window) {
+  const sizing = {
+    planId: "command-line",
+    ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
+    ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
+    metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }]
+  };
+  return {
+    sizing,
+    power: request.power,
+    context: { title: "Sizing from the command line", designLine: designSummary(request), ...window ? { window } : {} }
+  };
+}
+
+// src/cli/size-command.ts
+function addSizeOptions(command) {
+  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "new eligible units per day (units not seen before that day)").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--groups <number>", "how many groups exist to randomize, when groups are randomized").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
+}
+var EXAMPLES = {
+  baseline: "0.12 (a rate) or 42.5 (a mean)",
+  sd: "30",
+  effect: "0.03 (3% relative)",
+  alpha: "0.05",
+  power: "0.8",
+  arms: "50,50",
+  "daily-units": "12000",
+  days: "28"
+};
+var DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+function number4(flag, text2, required2 = "") {
+  if (text2 === void 0) throw new UsageError(`--${flag} is required${required2}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
+  const value = Number(text2.trim());
+  if (!DECIMAL.test(text2.trim()) || !Number.isFinite(value)) {
+    throw new UsageError(`--${flag} needs a decimal number; got ${JSON.stringify(text2)}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
+  }
+  return value;
+}
+function field(flag, text2, schema, required2 = "") {
+  const value = number4(flag, text2, required2);
+  const checked = schema.safeParse(value);
+  if (!checked.success) throw new UsageError(`--${flag} needs ${checked.error.issues[0]?.message ?? "a valid value"}; got ${text2}`);
+  return checked.data;
+}
+function pair(flag, text2, required2, meanSchema) {
+  if (text2 === void 0) throw new UsageError(`--${flag} is required${required2}`, `e.g. --${flag} 0.9,1.4`);
+  const parts = text2.split(",");
+  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
+  return { mean: field(flag, parts[0], meanSchema), sd: field(flag, parts[1], F["moment-sd"]) };
+}
+var F = SIZING_FLAG_FIELDS;
+function requestFromFlags(flags) {
+  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
+  const forKind = ` for --kind ${flags.kind}`;
+  let baseline;
+  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: field("baseline", flags.baseline, F.rate, forKind) };
+  else if (flags.kind === "mean") baseline = { kind: "mean", mean: field("baseline", flags.baseline, F.mean, forKind), sd: field("sd", flags.sd, F.sd, forKind) };
+  else {
+    baseline = {
+      kind: "ratio",
+      numerator: pair("numerator", flags.numerator, forKind, F["moment-mean"]),
+      denominator: pair("denominator", flags.denominator, forKind, F["denominator-mean"]),
+      correlation: field("correlation", flags.correlation, F.correlation)
+    };
+  }
+  const weights = flags.arms.split(",").map((w) => field("arms", w, F["arm-weight"]));
+  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
+  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
+  const looks = field("interim-looks", flags.interimLooks, F["interim-looks"]);
+  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
+  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
+  const effect = flags.effect === void 0 ? void 0 : field("effect", flags.effect, flags.absolute ? F["effect-absolute"] : F.effect);
+  const dailyUnits = flags.dailyUnits === void 0 ? void 0 : field("daily-units", flags.dailyUnits, F["daily-units"]);
+  if (effect === void 0 && (days === void 0 || dailyUnits === void 0)) {
+    throw new UsageError(
+      days === void 0 ? "--effect is required, unless --days and --daily-units ask what is detectable by then" : "--days without --effect asks what is detectable by then, which needs --daily-units",
+      "e.g. --effect 0.03, or --days 28 --daily-units 12000"
+    );
+  }
+  const clusterSize = flags.clusterSize === void 0 ? void 0 : field("cluster-size", flags.clusterSize, F["cluster-size"]);
+  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
+  const groupsAvailable = flags.groups === void 0 ? void 0 : field("groups", flags.groups, F["groups-available"]);
+  return {
+    baseline,
+    direction: flags.direction,
+    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
+    arms,
+    control: "control",
+    alpha: field("alpha", flags.alpha, F.alpha),
+    power: field("power", flags.power, F.power),
+    sides: flags.sides === "1" ? 1 : 2,
+    ...dailyUnits !== void 0 ? { dailyUnits } : {},
+    trafficShare: field("traffic-share", flags.trafficShare, F["traffic-share"]),
+    reach: field("reach", flags.reach, F.reach),
+    interimLooks: looks,
+    boundary: flags.boundary,
+    prePeriodCorrelation: field("pre-period-correlation", flags.prePeriodCorrelation, F["pre-period-correlation"]),
+    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: field("icc", flags.icc, F.icc), sizeCv: field("size-cv", flags.sizeCv, F["size-cv"]), ...groupsAvailable !== void 0 ? { available: groupsAvailable } : {} } } : {},
+    ...days !== void 0 ? { plannedDays: days } : {},
+    method: flags.method
+  };
+}
+function addSizeCommand(program2, setExit) {
   addSizeOptions(
     program2.command("size").description("size a test: units per arm, days, power and detectable effect by the planned end").argument("[plan]", "plan id or plan file; omit to describe a metric with --kind and the flags below")
   ).action(async (planName, flags) => {
@@ -41009,33 +42265,10 @@ function buildProgram(setExit) {
     else output2.out(renderSizingText(outcome.sizing, outcome.context));
     setExit(EXIT.ok);
   });
-  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
-    const options = program2.opts();
-    const { output: output2 } = context({ ...options, format: "text" });
-    const cwd = resolve2(options.cwd);
-    const pr = await pullRequestInfo(flags, cwd);
-    const change2 = await openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
-    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
-    const { review } = outcome;
-    if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
-`, { overwrite: true });
-    const repoUrl = flags.repoUrl?.replace(/\/+$/, "");
-    if (flags.format === "json") output2.out(JSON.stringify(reviewJson(review), null, 2));
-    else if (flags.format === "markdown") output2.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
-    else output2.out(renderReviewText(review, { color: output2.color }));
-    setExit(review.verdict === "blocked" ? EXIT.findings : EXIT.ok);
-  });
-  program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
-    const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
-    if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
-    const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
-    if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
-    else if (local.format === "markdown") output2.out(renderDigestMarkdown(digest));
-    else output2.out(renderDigestText(digest));
-    setExit(EXIT.ok);
-  });
+}
+
+// src/cli/srm-command.ts
+function addSrmCommand(program2, setExit) {
   program2.command("srm").description("sample ratio mismatch: do the units seen per arm fit the planned weights?").argument("<counts...>", "units observed in each arm, control first, e.g. 50412 49288").option("--weights <weights>", "planned weights, e.g. 50,50 (default: equal)").option("--threshold <p>", "alarm below this p-value", String(SRM_ALARM_P)).addOption(formatOption()).action((counts, local) => {
     const observed = parseNumbers("counts", counts);
     const weights = local.weights ? parseNumbers("weights", local.weights.split(",")) : observed.map(() => 1);
@@ -41046,20 +42279,79 @@ function buildProgram(setExit) {
     output2.out(local.format === "json" ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check3.value }, null, 2) : renderSrmText(check3.value, observed, weights, threshold));
     setExit(check3.value.mismatch ? EXIT.findings : EXIT.ok);
   });
-  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
-    const p = parseNumbers("p-values", values);
-    const q = parseNumbers("q", [local.q])[0];
-    const adjusted = adjustPValues(p);
-    if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
-    const output2 = createCliOutput({ noColorFlag: true });
-    output2.out(local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
-    setExit(EXIT.ok);
+}
+
+// src/core/report/validation.ts
+var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
+function validationJson(report) {
+  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
+}
+function renderValidationText(report, options) {
+  const style = terminalStyle(options.color);
+  const lines = report.problems.map((problem) => {
+    const line = terminalSafe(formatProblem(problem));
+    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
   });
-  program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {
-    const schema = which === "plan" ? planJsonSchema() : which === "registry" ? registryJsonSchema() : settingsJsonSchema();
-    process.stdout.write(`${JSON.stringify(schema, null, 2)}
-`);
+  const invalid = report.planFiles - report.validPlans;
+  const files = `${count2(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count2(report.registryFiles, "registry file")}` : ""}`;
+  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count2(report.warnings, "warning")}` : "all valid") : style.red(`${count2(report.errors, "error")}${invalid ? ` in ${count2(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count2(report.warnings, "warning")}` : "");
+  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
+  if (report.planFiles === 0) {
+    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
+  }
+  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
+  return lines.join("\n");
+}
+function count2(n, noun) {
+  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+}
+
+// src/run/validate.ts
+async function validateRepository(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
+  const { workspace } = loaded;
+  return {
+    kind: "report",
+    report: {
+      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
+      planFiles: workspace.planFiles.length,
+      validPlans: workspace.plans.length,
+      registryFiles: workspace.settings.registryFiles.length,
+      registryEntries: workspace.registry.entries.length,
+      errors: workspace.problems.filter((p) => p.severity === "error").length,
+      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
+      problems: workspace.problems
+    }
+  };
+}
+
+// src/cli/validate-command.ts
+function addValidateCommand(program2, setExit) {
+  program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
+    const options = { ...program2.opts(), ...local };
+    const { output: output2, ...ports } = context(options);
+    const outcome = await validateRepository(ports);
+    if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
+    const { report } = outcome;
+    output2.out(options.format === "json" ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output2.color }));
+    setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
   });
+}
+
+// src/cli/main.ts
+function buildProgram(setExit) {
+  const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
+  addValidateCommand(program2, setExit);
+  addListCommand(program2, setExit);
+  addNewCommand(program2, setExit);
+  addSizeCommand(program2, setExit);
+  addCheckCommand(program2, setExit);
+  addDigestCommand(program2, setExit);
+  addSrmCommand(program2, setExit);
+  addAdjustCommand(program2, setExit);
+  addSchemaCommand(program2, setExit);
+  addReadoutCommand(program2, setExit);
   return program2;
 }
 async function runCli(argv) {

@@ -11242,11 +11242,11 @@ var require_pluralizer = __commonJS({
         this.singular = singular;
         this.plural = plural2;
       }
-      pluralize(count) {
-        const one = count === 1;
+      pluralize(count2) {
+        const one = count2 === 1;
         const keys = one ? singulars : plurals;
         const noun = one ? this.singular : this.plural;
-        return { ...keys, count, noun };
+        return { ...keys, count: count2, noun };
       }
     };
   }
@@ -18665,15 +18665,15 @@ ${value}`;
           pos = 0;
         }
       }
-      discardLeadingBytes(count) {
-        while (count > 0 && this.lineChunkIndex < this.chunks.length) {
+      discardLeadingBytes(count2) {
+        while (count2 > 0 && this.lineChunkIndex < this.chunks.length) {
           const chunk = this.chunks[this.lineChunkIndex];
           const remaining = chunk.length - this.linePos;
-          if (count < remaining) {
-            this.linePos += count;
-            count = 0;
+          if (count2 < remaining) {
+            this.linePos += count2;
+            count2 = 0;
           } else {
-            count -= remaining;
+            count2 -= remaining;
             this.lineChunkIndex++;
             this.linePos = 0;
           }
@@ -21947,13 +21947,13 @@ var require_parse2 = __commonJS({
         consume(token.value);
       };
       const negate = () => {
-        let count = 1;
+        let count2 = 1;
         while (peek() === "!" && (peek(2) !== "(" || peek(3) === "?")) {
           advance();
           state.start++;
-          count++;
+          count2++;
         }
-        if (count % 2 === 0) {
+        if (count2 % 2 === 0) {
           return false;
         }
         state.negated = true;
@@ -23379,12 +23379,12 @@ var require_jstat = __commonJS({
           var currentRank = 1;
           for (i = 0; i < sortedDistinctNumbers.length; i++) {
             var number4 = sortedDistinctNumbers[i];
-            var count = numberCounts[number4];
+            var count2 = numberCounts[number4];
             var first = currentRank;
-            var last = currentRank + count - 1;
+            var last = currentRank + count2 - 1;
             var rank = (first + last) / 2;
             numberRanks[number4] = rank;
-            currentRank += count;
+            currentRank += count2;
           }
           return arr.map(function(number5) {
             return numberRanks[number5];
@@ -23393,24 +23393,24 @@ var require_jstat = __commonJS({
         jStat3.mode = function mode(arr) {
           var arrLen = arr.length;
           var _arr = arr.slice().sort(ascNum);
-          var count = 1;
+          var count2 = 1;
           var maxCount = 0;
           var numMaxCount = 0;
           var mode_arr = [];
           var i;
           for (i = 0; i < arrLen; i++) {
             if (_arr[i] === _arr[i + 1]) {
-              count++;
+              count2++;
             } else {
-              if (count > maxCount) {
+              if (count2 > maxCount) {
                 mode_arr = [_arr[i]];
-                maxCount = count;
+                maxCount = count2;
                 numMaxCount = 0;
-              } else if (count === maxCount) {
+              } else if (count2 === maxCount) {
                 mode_arr.push(_arr[i]);
                 numMaxCount++;
               }
-              count = 1;
+              count2 = 1;
             }
           }
           return numMaxCount === 0 ? mode_arr[0] : mode_arr;
@@ -23425,10 +23425,10 @@ var require_jstat = __commonJS({
           var sumsqerr = arr.reduce(function(a, samples) {
             return a + jStat3.sumsqerr(samples);
           }, 0);
-          var count = arr.reduce(function(a, samples) {
+          var count2 = arr.reduce(function(a, samples) {
             return a + samples.length;
           }, 0);
-          return sumsqerr / (count - arr.length);
+          return sumsqerr / (count2 - arr.length);
         };
         jStat3.deviation = function(arr) {
           var mean = jStat3.mean(arr);
@@ -27183,8 +27183,8 @@ var require_Node = __commonJS({
         };
         const res = toJS.toJS(this, "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count);
+          for (const { count: count2, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count2);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
     };
@@ -27292,13 +27292,13 @@ var require_Alias = __commonJS({
         const anchor2 = anchors2 && source && anchors2.get(source);
         return anchor2 ? anchor2.count * anchor2.aliasCount : 0;
       } else if (identity.isCollection(node2)) {
-        let count = 0;
+        let count2 = 0;
         for (const item of node2.items) {
           const c = getAliasCount(doc, item, anchors2);
-          if (c > count)
-            count = c;
+          if (c > count2)
+            count2 = c;
         }
-        return count;
+        return count2;
       } else if (identity.isPair(node2)) {
         const kc = getAliasCount(doc, node2.key, anchors2);
         const vc = getAliasCount(doc, node2.value, anchors2);
@@ -30251,8 +30251,8 @@ var require_Document = __commonJS({
         };
         const res = toJS.toJS(this.contents, jsonArg ?? "", ctx);
         if (typeof onAnchor === "function")
-          for (const { count, res: res2 } of ctx.anchors.values())
-            onAnchor(res2, count);
+          for (const { count: count2, res: res2 } of ctx.anchors.values())
+            onAnchor(res2, count2);
         return typeof reviver === "function" ? applyReviver.applyReviver(reviver, { "": res }, "", res) : res;
       }
       /**
@@ -30329,12 +30329,12 @@ var require_errors2 = __commonJS({
         lineStr = prev + lineStr;
       }
       if (/[^ ]/.test(lineStr)) {
-        let count = 1;
+        let count2 = 1;
         const end = error63.linePos[1];
         if (end?.line === line && end.col > col) {
-          count = Math.max(1, Math.min(end.col - col, 80 - ci));
+          count2 = Math.max(1, Math.min(end.col - col, 80 - ci));
         }
-        const pointer = " ".repeat(ci) + "^".repeat(count);
+        const pointer = " ".repeat(ci) + "^".repeat(count2);
         error63.message += `:
 
 ${lineStr}
@@ -42135,14 +42135,14 @@ function codePointLength(str) {
   const units2 = str.length;
   if (!highSurrogate.test(str))
     return units2;
-  let count = units2;
+  let count2 = units2;
   for (let i = 0; i < units2 - 1; i++) {
     if ((str.charCodeAt(i) & 64512) === 55296 && (str.charCodeAt(i + 1) & 64512) === 56320) {
-      count--;
+      count2--;
       i++;
     }
   }
-  return count;
+  return count2;
 }
 function getLengthableOrigin(input2) {
   if (Array.isArray(input2))
@@ -45976,9 +45976,9 @@ var NONE = 0;
 var ASSUMED = 1;
 var PROVEN = 2;
 function isRecursive(inst, stack, resolve2) {
-  const cached3 = recursive.get(inst);
-  if (cached3 !== void 0)
-    return cached3 ? PROVEN : NONE;
+  const cached4 = recursive.get(inst);
+  if (cached4 !== void 0)
+    return cached4 ? PROVEN : NONE;
   if (stack.has(inst))
     return PROVEN;
   stack.add(inst);
@@ -46525,8 +46525,8 @@ function az_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/be.js
-function getBelarusianPlural(count, one, few, many) {
-  const absCount = Math.abs(count);
+function getBelarusianPlural(count2, one, few, many) {
+  const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -49173,8 +49173,8 @@ function hu_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/hy.js
-function getArmenianPlural(count, one, many) {
-  return Math.abs(count) === 1 ? one : many;
+function getArmenianPlural(count2, one, many) {
+  return Math.abs(count2) === 1 ? one : many;
 }
 function withDefiniteArticle(word) {
   if (!word)
@@ -51912,8 +51912,8 @@ function ro_default() {
 }
 
 // ../main/node_modules/zod/v4/locales/ru.js
-function getRussianPlural(count, one, few, many) {
-  const absCount = Math.abs(count);
+function getRussianPlural(count2, one, few, many) {
+  const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
   const lastTwoDigits = absCount % 100;
   if (lastTwoDigits >= 11 && lastTwoDigits <= 19) {
@@ -60412,15 +60412,15 @@ function visit(schema, fnOrHandlers) {
   };
   const cache = /* @__PURE__ */ new Map();
   function run(s) {
-    const cached3 = cache.get(s);
-    if (cached3 === RESOLVING) {
+    const cached4 = cache.get(s);
+    if (cached4 === RESOLVING) {
       return new $ZodLazy({
         type: "lazy",
         getter: () => cache.get(s)
       });
     }
-    if (cached3 !== void 0)
-      return cached3;
+    if (cached4 !== void 0)
+      return cached4;
     cache.set(s, RESOLVING);
     const inner = mapInner(s);
     const mapped = fn(inner, inner !== s);
@@ -60807,12 +60807,12 @@ async function openChange(repoDir, baseRef, headRef) {
   const trackedCache = /* @__PURE__ */ new Map();
   const trackedFiles = (side) => {
     const commit = commitOf(side);
-    let cached3 = trackedCache.get(commit);
-    if (!cached3) {
-      cached3 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
-      trackedCache.set(commit, cached3);
+    let cached4 = trackedCache.get(commit);
+    if (!cached4) {
+      cached4 = (side === "head" ? checkedOutIsHead : Promise.resolve(false)).then((clean) => runGit(repoDir, clean ? ["ls-files", "-z"] : ["ls-tree", "-r", "-z", "--name-only", commit])).then((out) => out.toString("utf8").split("\0").filter(Boolean).sort());
+      trackedCache.set(commit, cached4);
     }
-    return cached3;
+    return cached4;
   };
   const streamFiles = async (side, paths, onFile) => {
     if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
@@ -61144,8 +61144,8 @@ function multiplierNotes(entry, sizing) {
   if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
   if (m.designEffect > 1) {
     const perArm = sizing.headline?.clustersPerArm;
-    const groups2 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
-    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups2}.`);
+    const groups3 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
+    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups3}.`);
   }
   if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
   if (sizing.boundaries) {
@@ -61500,6 +61500,37 @@ function studentQuantile(p, df) {
 function noncentralTUpper(x, df, ncp) {
   return 1 - jStat.noncentralt.cdf(x, df, ncp);
 }
+function chiSquareUpper(x, df) {
+  if (x <= 0) return 1;
+  if (df === 1) return 2 * normalUpper(Math.sqrt(x));
+  return upperRegularizedGamma(df / 2, x / 2);
+}
+function upperRegularizedGamma(a, x) {
+  if (x <= 0) return 1;
+  if (x < a + 1) return Math.max(0, 1 - jStat.lowRegGamma(a, x));
+  const tiny = 1e-300;
+  let b = x + 1 - a;
+  let c = 1 / tiny;
+  let d = 1 / b;
+  let h = d;
+  for (let i = 1; i < 1e4; i++) {
+    const an = -i * (i - a);
+    b += 2;
+    d = an * d + b;
+    if (Math.abs(d) < tiny) d = tiny;
+    c = b + an / c;
+    if (Math.abs(c) < tiny) c = tiny;
+    d = 1 / d;
+    const step = d * c;
+    h *= step;
+    if (Math.abs(step - 1) < 1e-16) break;
+  }
+  return Math.exp(-x + a * Math.log(x) - jStat.gammaln(a)) * h;
+}
+function studentUpper(x, df) {
+  if (df > 1e7) return normalUpper(x);
+  return x < 0 ? 1 - jStat.studentt.cdf(-x, df) : jStat.studentt.cdf(-x, df);
+}
 
 // src/core/stats/root.ts
 function findRoot(f, lo, hi, tolerance = 1e-12, maxIterations = 200) {
@@ -61597,7 +61628,7 @@ function simpsonGrid(lo, hi) {
   }
   return { points, weights };
 }
-function walk(looks, sides, eta, boundaryAt) {
+function walk(looks, sides, eta, boundaryAt, fractions = Array.from({ length: looks }, (_, i) => (i + 1) / looks)) {
   const upper = [];
   const lower = [];
   const boundaries = [];
@@ -61605,7 +61636,7 @@ function walk(looks, sides, eta, boundaryAt) {
   let density;
   let previousT = 0;
   for (let k = 1; k <= looks; k++) {
-    const t = k / looks;
+    const t = fractions[k - 1];
     const dt = t - previousT;
     const sdStep = Math.sqrt(dt);
     const mean = eta * dt;
@@ -61654,6 +61685,25 @@ function spentByTime(kind, a, t) {
   if (t <= 0) return 0;
   if (t >= 1) return a;
   return kind === "obrien-fleming-spending" ? 2 * normalUpper(normalUpperQuantile(a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+}
+function spendingBoundaryAt(kind, alpha, sides, fractions) {
+  if (!(alpha > 0 && alpha < 1)) return fail("alpha", `the significance level must be strictly between 0 and 1; got ${alpha}`);
+  if (fractions.length === 0 || fractions.some((t, i) => !(t > 0 && t <= 1) || i > 0 && !(t > fractions[i - 1]))) {
+    return fail("information fraction", "information fractions must increase within (0, 1]");
+  }
+  const oneSide = alpha / sides;
+  const { boundaries } = walk(
+    fractions.length,
+    sides,
+    0,
+    (k, upperGiven) => {
+      const increment = spentByTime(kind, oneSide, fractions[k - 1]) - (k > 1 ? spentByTime(kind, oneSide, fractions[k - 2]) : 0);
+      if (increment <= 1e-30) return NEVER2;
+      return findRoot((b) => upperGiven(b) - increment, 0, NEVER2, 1e-12) ?? NEVER2;
+    },
+    fractions
+  );
+  return ok(boundaries[boundaries.length - 1]);
 }
 function checkDesign(design) {
   if (!Number.isInteger(design.looks) || design.looks < 1 || design.looks > 30) return fail("interim-looks", `between 0 and 29 interim looks are supported; got ${design.looks - 1}`);
@@ -61725,6 +61775,43 @@ function integrateInflation(design, power) {
   const inflation = (eta / fixed) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
+
+// src/core/plan/outcome.ts
+var OUTCOME_CLASSES = ["win", "loss", "flat", "inconclusive", "guardrail-breach"];
+var outcomeClass = external_exports.enum(OUTCOME_CLASSES, { error: `one of ${OUTCOME_CLASSES.join(", ")}` });
+var figure = external_exports.strictObject(
+  {
+    arm: kebabName("the treatment arm, e.g. treatment"),
+    metric: kebabName("the metric name, e.g. order-completed"),
+    difference: finiteNumber("the absolute difference, treatment minus control, in the metric\u2019s units"),
+    low: finiteNumber("the lower end of the interval of the difference"),
+    high: finiteNumber("the upper end of the interval of the difference"),
+    relative: finiteNumber("the relative difference as a fraction, e.g. 0.011").optional(),
+    "p-value": external_exports.number({ error: "a p-value from 0 to 1" }).gte(0, { error: "a p-value from 0 to 1" }).lte(1, { error: "a p-value from 0 to 1" })
+  },
+  { error: "a figure: { arm, metric, difference, low, high, relative, p-value }" }
+).describe("The primary metric\u2019s figures for one treatment arm.");
+var outcomeSchema = external_exports.strictObject(
+  {
+    class: outcomeClass.describe("The class the registered rule gave, as computed by the readout."),
+    arms: external_exports.array(kebabName("an arm name, e.g. treatment"), { error: "a list of arm names" }).default([]).describe("The arms the class names (the winners of a win)."),
+    "data-through": calendarDate("the last day of the data read, written YYYY-MM-DD"),
+    totals: text("the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml").optional(),
+    "read-early": external_exports.boolean({ error: "true or false" }).optional().describe("True when the data ended before the planned end."),
+    figures: external_exports.array(figure, { error: "a list of figures" }).default([]).describe("The primary metric\u2019s figures per treatment arm."),
+    "decided-by": text("who decided, e.g. @ana-lima"),
+    "recorded-on": calendarDate("the day the outcome was recorded, written YYYY-MM-DD").optional(),
+    override: external_exports.strictObject(
+      {
+        class: outcomeClass.optional().describe("The class acted on instead of the computed one."),
+        ship: external_exports.array(kebabName("an arm name"), { error: "a list of arm names" }).optional().describe("The arms shipped, when the rule does not name them."),
+        reason: text("why the team departs from the registered rule")
+      },
+      { error: "a mapping with class, ship and reason" }
+    ).optional().describe("A decision that departs from the registered rule, with its reason; reviewers judge it first.")
+  },
+  { error: "an outcome: a mapping with class, data-through, figures and decided-by" }
+).describe("The recorded outcome of the test: written by plumbline readout --record after the readout.");
 
 // src/core/plan/schema.ts
 var PLAN_STATES = ["draft", "live", "on-hold", "concluded"];
@@ -62007,10 +62094,11 @@ var writtenPlanSchema = external_exports.strictObject({
   "bundle-rationale": optionalText("why several changes or flags are tested together").describe(
     "Required when the plan bundles several flags or changes."
   ),
-  notes: optionalText("free text")
+  notes: optionalText("free text"),
+  outcome: outcomeSchema.optional()
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
 function normalizeMetric(written, fallbackDirection) {
-  const { direction: direction2, "pre-period": prePeriod, ...rest } = written;
+  const { direction: direction2, "pre-period": prePeriod2, ...rest } = written;
   const chosen = direction2 ?? fallbackDirection;
   const renamed = { ...rest };
   if ("capped-at" in renamed) {
@@ -62021,7 +62109,7 @@ function normalizeMetric(written, fallbackDirection) {
     renamed.denominatorMayMove = renamed["denominator-may-move"];
     delete renamed["denominator-may-move"];
   }
-  return { ...renamed, ...prePeriod ? { prePeriod } : {}, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
+  return { ...renamed, ...prePeriod2 ? { prePeriod: prePeriod2 } : {}, direction: chosen ?? "increase", directionAssumed: chosen === void 0 };
 }
 var PRIMARY_COUNT_CODE = "plan/primary-metric-count";
 var planSchema = writtenPlanSchema.transform((written, ctx) => {
@@ -62085,7 +62173,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     },
     sensitive: written.sensitive,
     ...written["bundle-rationale"] ? { bundleRationale: written["bundle-rationale"] } : {},
-    ...written.notes ? { notes: written.notes } : {}
+    ...written.notes ? { notes: written.notes } : {},
+    ...written.outcome ? { outcome: written.outcome } : {}
   };
 });
 var designShape = writtenPlanSchema.shape.design.unwrap().shape;
@@ -62513,9 +62602,9 @@ function sizeMetric(request2) {
     let perArm = request2.arms.map((a) => ({ arm: a.name, units: Math.max(2, units(total * a.weight / totalWeight)) }));
     let clustersPerArm;
     if (request2.cluster) {
-      const groups2 = wholeGroupsPerArm(perArm, request2.cluster.meanSize, alphaPerComparison, request2.sides, request2.power);
-      clustersPerArm = groups2;
-      perArm = groups2.map((g) => ({ arm: g.arm, units: units(g.groups * request2.cluster.meanSize) }));
+      const groups3 = wholeGroupsPerArm(perArm, request2.cluster.meanSize, alphaPerComparison, request2.sides, request2.power);
+      clustersPerArm = groups3;
+      perArm = groups3.map((g) => ({ arm: g.arm, units: units(g.groups * request2.cluster.meanSize) }));
     }
     const totalUnits = perArm.reduce((s, a) => s + a.units, 0);
     const day = traffic && reachShare !== void 0 && totalUnits < ABSURD_UNITS ? traffic.dayFor(totalUnits / (request2.trafficShare * reachShare)) : void 0;
@@ -62650,16 +62739,16 @@ function sizeMetric(request2) {
 }
 function wholeGroupsPerArm(perArm, meanSize, alpha, sides, power) {
   const zSum = normalUpperQuantile(alpha / sides) + normalQuantile(power);
-  let groups2 = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
+  let groups3 = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units / meanSize - 1e-9)) }));
   for (let round = 0; round < 50; round++) {
-    const df = groups2.reduce((s, g) => s + g.groups, 0) - 2;
+    const df = groups3.reduce((s, g) => s + g.groups, 0) - 2;
     const tSum = studentQuantile(1 - alpha / sides, df) + studentQuantile(power, df);
     const factor = (tSum / zSum) ** 2;
     const next = perArm.map((a) => ({ arm: a.arm, groups: Math.max(2, Math.ceil(a.units * factor / meanSize - 1e-9)) }));
-    if (next.every((g, i) => g.groups === groups2[i].groups)) return next;
-    groups2 = next;
+    if (next.every((g, i) => g.groups === groups3[i].groups)) return next;
+    groups3 = next;
   }
-  return groups2;
+  return groups3;
 }
 
 // src/core/stats/plan-sizing.ts
@@ -62975,12 +63064,13 @@ function runRules(value, source, rules) {
   const problems = [];
   const context3 = {
     value,
-    report({ severity: severity2, code, path: path6, message, expected, showFound }) {
+    report({ severity: severity2, code, path: path6, message, expected, showFound, atKey }) {
       const found = showFound ? describeValue(valueAt(source.value, path6)) : void 0;
       problems.push({
         severity: severity2,
         code,
-        ...source.locate(path6),
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...atKey && path6.length ? source.locateKey(path6.slice(0, -1), String(path6[path6.length - 1])) : source.locate(path6),
         field: formatFieldPath(path6),
         message,
         ...expected ? { expected } : {},
@@ -63834,11 +63924,11 @@ function practiceFindings(plan, sizing, settings) {
     });
   }
   const primary = sizing.metrics[0]?.result;
-  const groups2 = primary?.ok ? primary.value.headline?.clusters : void 0;
-  if (groups2 !== void 0 && plan.design.groupsAvailable !== void 0 && groups2 > plan.design.groupsAvailable) {
+  const groups3 = primary?.ok ? primary.value.headline?.clusters : void 0;
+  if (groups3 !== void 0 && plan.design.groupsAvailable !== void 0 && groups3 > plan.design.groupsAvailable) {
     out.push({
       code: "groups-short",
-      message: `The design needs ${countOf(groups2, "group")}, but only ${formatCount(plan.design.groupsAvailable)} exist.`,
+      message: `The design needs ${countOf(groups3, "group")}, but only ${formatCount(plan.design.groupsAvailable)} exist.`,
       fix: "Plan for a larger effect, reduce the intra-cluster correlation with a pre-period adjustment, or randomize a smaller unit if spillover allows."
     });
   }
@@ -63877,6 +63967,28 @@ function practiceFindings(plan, sizing, settings) {
   return out;
 }
 
+// src/core/checks/outcome.ts
+var outcomeRecorded = (context3) => context3.linked.flatMap(({ loaded, readout }) => {
+  const outcome = loaded.plan.outcome;
+  if (!outcome) return [];
+  const where2 = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
+  if (!readout) {
+    return [{ code: "outcome-mismatch", message: `${loaded.plan.id} records the outcome "${outcome.class}" without the totals file it was read from.`, fix: "Add outcome.totals (the arm-totals file) so the review can apply the rule to it, or run plumbline readout --record.", ...where2 }];
+  }
+  if (!readout.readout) return [{ code: "outcome-mismatch", message: `${loaded.plan.id}: the recorded outcome cannot be checked: ${readout.problem}.`, fix: "Fix the totals file, then record again with plumbline readout --record.", ...where2 }];
+  const computed = readout.readout.verdict;
+  const named = readout.readout.verdictArms;
+  const shipped = outcome.override?.ship ?? [];
+  const strayArms = computed === "win" ? shipped.filter((a) => !named.includes(a)) : shipped;
+  const departs = computed !== outcome.class || strayArms.length > 0;
+  if (!departs && !outcome.override) return [];
+  const what = computed !== outcome.class ? `records "${outcome.class}" but the registered rule gives "${computed}" on ${readout.file}` : `ships ${strayArms.join(", ")}, which the rule does not name`;
+  if (outcome.override) {
+    return [{ code: "outcome-override", message: `${loaded.plan.id} departs from its registered rule: ${departs ? what : "an override is recorded"}. Reason given: \xAB${outcome.override.reason}\xBB`, fix: "Judge the reason: an override is the one decision in this change the rule did not make.", ...where2 }];
+  }
+  return [{ code: "outcome-mismatch", message: `${loaded.plan.id} ${what}.`, fix: "Record what the rule gives (plumbline readout --record), or add outcome.override with a reason.", ...where2 }];
+});
+
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
   const { plan } = loaded;
@@ -63901,6 +64013,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
 // src/core/checks/index.ts
 var CHECKS = [
   planInvalid,
+  outcomeRecorded,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
@@ -63949,6 +64062,8 @@ var FINDING_CODES = {
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
   "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
+  "outcome-mismatch": { severity: "block", about: "a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override" },
+  "outcome-override": { severity: "warn", about: "a recorded outcome departs from the registered rule with an override and a reason to judge" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -64242,10 +64357,10 @@ function findFlagTouches(inputs) {
         for (const pattern of inputs.patterns) {
           pattern.lastIndex = 0;
           for (const match of text2.matchAll(pattern)) {
-            const groups2 = match.groups ?? {};
-            if (groups2.key) add({ key: groups2.key, file: file2, line, side, via: "call" });
-            else if (groups2.ident) {
-              const key = resolveConstant(inputs.textOf(side, file2), groups2.ident);
+            const groups3 = match.groups ?? {};
+            if (groups3.key) add({ key: groups3.key, file: file2, line, side, via: "call" });
+            else if (groups3.ident) {
+              const key = resolveConstant(inputs.textOf(side, file2), groups3.ident);
               if (key) add({ key, file: file2, line, side, via: "constant" });
             }
           }
@@ -64404,6 +64519,904 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
+// src/core/stats/multiple-testing.ts
+function benjaminiHochberg(pValues) {
+  if (pValues.some((p) => !(p >= 0 && p <= 1))) return fail("p-values", "every p-value must lie in [0, 1]");
+  const m = pValues.length;
+  const order = pValues.map((p, i) => ({ p, i })).sort((a, b) => b.p - a.p);
+  const adjusted = new Array(m);
+  let running = 1;
+  order.forEach(({ p, i }, rankFromTop) => {
+    const rank = m - rankFromTop;
+    running = Math.min(running, p * m / rank);
+    adjusted[i] = running;
+  });
+  return ok(adjusted);
+}
+
+// src/core/stats/srm.ts
+var SRM_ALARM_P = 5e-4;
+function sampleRatioMismatch(observed, weights, threshold = SRM_ALARM_P) {
+  if (observed.length !== weights.length) return fail("arms", `${observed.length} observed counts for ${weights.length} planned arms`);
+  if (observed.length < 2) return fail("arms", "a ratio needs at least two arms");
+  if (observed.some((n) => !(n >= 0) || !Number.isFinite(n))) return fail("observed", "observed counts must be finite and not negative");
+  if (weights.some((w) => !(w > 0) || !Number.isFinite(w))) return fail("weights", "planned weights must be above 0");
+  const total = observed.reduce((a, b) => a + b, 0);
+  if (total === 0) return fail("observed", "no units observed yet");
+  const weightSum = weights.reduce((a, b) => a + b, 0);
+  const expected = weights.map((w) => total * w / weightSum);
+  const statistic = observed.reduce((sum, o, i) => sum + (o - expected[i]) ** 2 / expected[i], 0);
+  const degreesOfFreedom = observed.length - 1;
+  const pValue = chiSquareUpper(statistic, degreesOfFreedom);
+  return ok({ statistic, degreesOfFreedom, pValue, expected, mismatch: pValue < threshold });
+}
+
+// src/core/readout/combine.ts
+function addTotals(parts) {
+  const [first, ...rest] = parts;
+  if (!first || rest.some((p) => p.kind !== first.kind)) return void 0;
+  if (first.kind === "ratio") {
+    const ratios = parts;
+    const sum = (pick2) => ratios.reduce((s, r) => s + pick2(r), 0);
+    return {
+      kind: "ratio",
+      n: sum((r) => r.n),
+      numerator: { sum: sum((r) => r.numerator.sum), sumSquares: sum((r) => r.numerator.sumSquares) },
+      denominator: { sum: sum((r) => r.denominator.sum), sumSquares: sum((r) => r.denominator.sumSquares) },
+      sumProducts: sum((r) => r.sumProducts)
+    };
+  }
+  const simple = parts;
+  return {
+    kind: first.kind,
+    n: simple.reduce((s, p) => s + p.n, 0),
+    sum: simple.reduce((s, p) => s + p.sum, 0),
+    sumSquares: simple.reduce((s, p) => s + p.sumSquares, 0)
+  };
+}
+
+// src/core/readout/compare.ts
+var NORMAL_DF = 1e7;
+function welchDf(control, treatment) {
+  if (control.df === void 0 || treatment.df === void 0) return void 0;
+  const vc = control.variance;
+  const vt = treatment.variance;
+  const denominator = vc * vc / control.df + vt * vt / treatment.df;
+  if (!(denominator > 0)) return void 0;
+  return Math.min(NORMAL_DF, (vc + vt) * (vc + vt) / denominator);
+}
+function compareArms(control, treatment, settings) {
+  const difference = treatment.value - control.value;
+  const standardError = Math.sqrt(control.variance + treatment.variance);
+  if (!(standardError > 0) || !Number.isFinite(standardError)) return { ok: false, reason: "no variation in either arm, so there is no interval to compute" };
+  const df = settings.boundaryZ === void 0 ? welchDf(control, treatment) : void 0;
+  const level = 1 - settings.alpha / settings.sides;
+  const critical = settings.boundaryZ ?? (df !== void 0 ? studentQuantile(level, df) : normalQuantile(level));
+  const statistic = difference / standardError;
+  const upper = (x) => df !== void 0 ? studentUpper(x, df) : normalUpper(x);
+  const pValue = settings.sides === 2 ? Math.min(1, 2 * upper(Math.abs(statistic))) : upper(settings.direction === "increase" ? statistic : -statistic);
+  const comparison = {
+    control,
+    treatment,
+    difference,
+    standardError,
+    interval: { low: difference - critical * standardError, high: difference + critical * standardError },
+    statistic,
+    ...df !== void 0 ? { df } : {},
+    pValue,
+    critical,
+    confidence: 1 - 2 * settings.alpha / settings.sides
+  };
+  if (control.value !== 0) {
+    const mc = control.value;
+    const relativeSe = Math.sqrt(treatment.variance / (mc * mc) + treatment.value * treatment.value * control.variance / mc ** 4);
+    const z2 = settings.boundaryZ ?? normalQuantile(level);
+    const value = difference / Math.abs(mc);
+    if (Number.isFinite(relativeSe) && Number.isFinite(value)) {
+      comparison.relative = { value, standardError: relativeSe, interval: { low: value - z2 * relativeSe, high: value + z2 * relativeSe } };
+    }
+  }
+  return { ok: true, comparison };
+}
+
+// src/core/readout/estimate.ts
+function sampleVariance(n, sum, sumSquares) {
+  return Math.max(0, (sumSquares - sum * sum / n) / (n - 1));
+}
+function sampleCovariance(n, sumA, sumB, sumProducts) {
+  return (sumProducts - sumA * sumB / n) / (n - 1);
+}
+function estimateArm(totals, cuped) {
+  if (totals.n < 2) return { ok: false, reason: `only ${totals.n} units: at least 2 per arm are needed` };
+  const n = totals.n;
+  if (totals.kind === "ratio") {
+    const x = totals.denominator;
+    const y = totals.numerator;
+    if (!(x.sum > 0)) return { ok: false, reason: "the denominator sums to 0: the ratio is undefined" };
+    const ratio = y.sum / x.sum;
+    const meanX = x.sum / n;
+    const variance2 = (sampleVariance(n, y.sum, y.sumSquares) - 2 * ratio * sampleCovariance(n, x.sum, y.sum, totals.sumProducts) + ratio * ratio * sampleVariance(n, x.sum, x.sumSquares)) / (n * meanX * meanX);
+    return { ok: true, estimate: { n, value: ratio, variance: Math.max(0, variance2) } };
+  }
+  const mean = totals.sum / n;
+  const df = totals.kind === "mean" ? { df: n - 1 } : {};
+  if (cuped && totals.pre) {
+    const pre = totals.pre;
+    const theta = cuped.theta;
+    const adjusted = mean - theta * (pre.sum / n - cuped.pooledPreMean);
+    const variance2 = sampleVariance(n, totals.sum, totals.sumSquares) - 2 * theta * sampleCovariance(n, totals.sum, pre.sum, pre.sumProducts) + theta * theta * sampleVariance(n, pre.sum, pre.sumSquares);
+    return { ok: true, estimate: { n, value: adjusted, variance: Math.max(0, variance2) / n, ...df } };
+  }
+  const variance = totals.kind === "proportion" ? mean * (1 - mean) / n : sampleVariance(n, totals.sum, totals.sumSquares) / n;
+  return { ok: true, estimate: { n, value: mean, variance, ...df } };
+}
+function cupedAdjustment(arms) {
+  if (arms.some((a) => !a.pre)) return void 0;
+  const n = arms.reduce((s, a) => s + a.n, 0);
+  const sumY = arms.reduce((s, a) => s + a.sum, 0);
+  const sumYY = arms.reduce((s, a) => s + a.sumSquares, 0);
+  const sumP = arms.reduce((s, a) => s + a.pre.sum, 0);
+  const sumPP = arms.reduce((s, a) => s + a.pre.sumSquares, 0);
+  const sumYP = arms.reduce((s, a) => s + a.pre.sumProducts, 0);
+  if (n < 3) return void 0;
+  const varP = sampleVariance(n, sumP, sumPP);
+  const varY = sampleVariance(n, sumY, sumYY);
+  if (!(varP > 0) || !(varY > 0)) return void 0;
+  const cov = sampleCovariance(n, sumY, sumP, sumYP);
+  const theta = cov / varP;
+  return { theta, pooledPreMean: sumP / n, varianceReduction: Math.min(1, cov * cov / (varP * varY)) };
+}
+
+// src/core/readout/timing.ts
+function plannedMaximumUnits(plan) {
+  const primary = sizePlan(plan).metrics.find((m) => m.role === "primary");
+  if (primary?.result.ok && primary.result.value.headline) return primary.result.value.headline.totalUnits;
+  return void 0;
+}
+function readoutTiming(plan, dataThrough, unitsSeen, alphaPerComparison) {
+  const plannedEnd = plan.window.end;
+  const readEarly = plannedEnd !== void 0 && dataThrough < plannedEnd;
+  const plannedUnits = plannedMaximumUnits(plan);
+  const fraction = plannedUnits ? unitsSeen / plannedUnits : void 0;
+  const timing = {
+    ...plannedEnd ? { plannedEnd } : {},
+    dataThrough,
+    readEarly,
+    ...fraction !== void 0 && Number.isFinite(fraction) ? { informationFraction: fraction, plannedUnits } : {}
+  };
+  const looks = plan.design.interimLooks + 1;
+  if (!readEarly || looks === 1) return timing;
+  const { interimBoundary: kind, sides } = plan.design;
+  const t = Math.min(1, fraction ?? 1);
+  const planned = Array.from({ length: looks }, (_, i) => (i + 1) / looks);
+  let z2;
+  let look = looks;
+  if ((kind === "obrien-fleming-spending" || kind === "pocock-spending") && t > 0) {
+    const earlier = planned.filter((p) => p < t - 1e-9);
+    look = earlier.length + 1;
+    const boundary = spendingBoundaryAt(kind, alphaPerComparison, sides, [...earlier, t]);
+    if (boundary.ok) z2 = boundary.value;
+  } else {
+    const bounds = sequentialBoundaries({ kind, looks, alpha: alphaPerComparison, sides });
+    look = Math.max(1, Math.min(looks, Math.floor(t * looks + 1e-9)));
+    if (bounds.ok) z2 = bounds.value.z[look - 1];
+  }
+  if (z2 === void 0 || !Number.isFinite(z2)) return timing;
+  return { ...timing, boundary: { z: z2, nominalP: sides * normalUpper(z2), look, looks } };
+}
+
+// src/core/readout/build-readout.ts
+var NOVELTY_P = 0.01;
+var LOW_POWER = 0.5;
+function resolveThreshold(effect, controlValue) {
+  if (!effect) return void 0;
+  if (effect.absolute !== void 0) return effect.absolute;
+  if (effect.relative !== void 0 && controlValue !== void 0 && controlValue !== 0) return effect.relative * Math.abs(controlValue);
+  return void 0;
+}
+function metricTotalsOf(groups3, metric2) {
+  return Object.fromEntries(Object.entries(groups3).map(([arm2, g]) => [arm2, g?.metrics[metric2]]));
+}
+function readMetric(ctx, metric2, role, byArm, settings, segment) {
+  const controlTotals = byArm[ctx.control];
+  if (!controlTotals) return void 0;
+  let cuped;
+  if (settings.useCuped && controlTotals.kind !== "ratio") {
+    const all = [ctx.control, ...ctx.treatments].map((a) => byArm[a]);
+    if (all.every((t) => t !== void 0 && t.kind !== "ratio")) cuped = cupedAdjustment(all);
+  }
+  const controlEstimate = estimateArm(controlTotals, cuped);
+  const controlValue = controlEstimate.ok ? controlEstimate.estimate.value : void 0;
+  const arms = ctx.treatments.flatMap((arm2) => {
+    const totals = byArm[arm2];
+    if (!totals) return role === "segment" ? [] : [{ arm: arm2, ok: false, reason: `no totals for arm "${arm2}"` }];
+    const treatment = estimateArm(totals, cuped);
+    if (!controlEstimate.ok) return [{ arm: arm2, ok: false, reason: `control: ${controlEstimate.reason}` }];
+    if (!treatment.ok) return [{ arm: arm2, ok: false, reason: treatment.reason }];
+    const compared = compareArms(controlEstimate.estimate, treatment.estimate, {
+      alpha: settings.alpha,
+      sides: settings.sides,
+      direction: settings.direction,
+      ...settings.boundaryZ !== void 0 ? { boundaryZ: settings.boundaryZ } : {}
+    });
+    return [compared.ok ? { arm: arm2, ok: true, comparison: compared.comparison } : { arm: arm2, ok: false, reason: compared.reason }];
+  });
+  if (arms.length === 0) return void 0;
+  return {
+    metric: metric2.name,
+    kind: metric2.kind,
+    role,
+    ...segment !== void 0 ? { segment } : {},
+    direction: metric2.direction,
+    ...cuped ? { cuped: { theta: cuped.theta, varianceReduction: cuped.varianceReduction } } : {},
+    arms
+  };
+}
+function good(direction2) {
+  return direction2 === "increase" ? 1 : -1;
+}
+function classifyPrimary(read, mde, early) {
+  const s = good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const lowGood = s === 1 ? c.interval.low : -c.interval.high;
+    const highGood = s === 1 ? c.interval.high : -c.interval.low;
+    if (lowGood > 0) arm2.primaryClass = "win";
+    else if (highGood < 0) arm2.primaryClass = "loss";
+    else if (!early && mde !== void 0 && c.interval.low > -mde && c.interval.high < mde) arm2.primaryClass = "flat";
+    else arm2.primaryClass = "inconclusive";
+  }
+}
+function classifyGuardrail(read, tolerance) {
+  const harmSign = -good(read.direction);
+  for (const arm2 of read.arms) {
+    const c = arm2.comparison;
+    if (!c) continue;
+    const estimate = harmSign * c.difference;
+    const lower = harmSign === 1 ? c.interval.low : -c.interval.high;
+    const upper = harmSign === 1 ? c.interval.high : -c.interval.low;
+    arm2.harm = { estimate, upperBound: upper };
+    arm2.guardrailClass = lower > 0 ? "breach" : tolerance !== void 0 && upper < tolerance ? "harm-ruled-out" : "harm-not-ruled-out";
+  }
+}
+function bonferroni(read, k) {
+  for (const arm2 of read.arms) if (arm2.comparison) arm2.adjustedP = Math.min(1, arm2.comparison.pValue * k);
+}
+function checkSampleRatio(ctx) {
+  const arms = [ctx.control, ...ctx.treatments];
+  const weights = arms.map((a) => ctx.plan.design.arms.find((p) => p.name === a).weight);
+  const units2 = arms.map((a) => ctx.totals.arms[a]?.units ?? 0);
+  const overall = sampleRatioMismatch(units2, weights, SRM_ALARM_P);
+  if (!overall.ok) return void 0;
+  const dates = [...new Set(arms.flatMap((a) => (ctx.totals.arms[a]?.days ?? []).map((d) => d.date)))].sort();
+  const days = [];
+  let daysChecked = 0;
+  for (const date5 of dates) {
+    const counts = arms.map((a) => ctx.totals.arms[a]?.days.find((d) => d.date === date5)?.units);
+    if (counts.some((c) => c === void 0)) continue;
+    const check3 = sampleRatioMismatch(counts, weights, SRM_ALARM_P);
+    if (!check3.ok) continue;
+    daysChecked++;
+    if (check3.value.mismatch) days.push({ date: date5, units: counts, pValue: check3.value.pValue });
+  }
+  return {
+    threshold: SRM_ALARM_P,
+    arms: arms.map((arm2, i) => ({ arm: arm2, weight: weights[i], units: units2[i], expected: overall.value.expected[i] })),
+    statistic: overall.value.statistic,
+    degreesOfFreedom: overall.value.degreesOfFreedom,
+    pValue: overall.value.pValue,
+    mismatch: overall.value.mismatch,
+    days,
+    daysChecked
+  };
+}
+function noveltyCheck(ctx, metric2) {
+  const findings = [];
+  const weeksOf = (arm2) => [...ctx.totals.arms[arm2]?.weeks ?? []].sort((a, b) => a.starting.localeCompare(b.starting));
+  const control = weeksOf(ctx.control);
+  if (control.length < 2) return findings;
+  for (const arm2 of ctx.treatments) {
+    const treatment = weeksOf(arm2);
+    const split = (weeks) => {
+      const first2 = weeks[0]?.metrics[metric2.name];
+      const later2 = addTotals(weeks.slice(1).map((w) => w.metrics[metric2.name]).filter((m) => m !== void 0));
+      return first2 && later2 ? { first: first2, later: later2 } : void 0;
+    };
+    const c = split(control);
+    const t = split(treatment);
+    if (!c || !t || treatment[0]?.starting !== control[0]?.starting) continue;
+    const effect = (a, b) => {
+      const ea = estimateArm(a);
+      const eb = estimateArm(b);
+      if (!ea.ok || !eb.ok) return void 0;
+      return { value: eb.estimate.value - ea.estimate.value, variance: ea.estimate.variance + eb.estimate.variance };
+    };
+    const first = effect(c.first, t.first);
+    const later = effect(c.later, t.later);
+    if (!first || !later) continue;
+    const se = Math.sqrt(first.variance + later.variance);
+    if (!(se > 0)) continue;
+    const p = 2 * normalUpper(Math.abs(first.value - later.value) / se);
+    if (p < NOVELTY_P) {
+      findings.push({
+        severity: "note",
+        code: "readout/novelty",
+        message: `${arm2}: the first week's effect on ${metric2.name} (${signed(first.value)}) differs from the later weeks' (${signed(later.value)}), p = ${formatP(p)}: a novelty or learning effect; the later weeks say more about the lasting effect.`
+      });
+    }
+  }
+  return findings;
+}
+function signed(x) {
+  const text2 = Number(x.toPrecision(3)).toString();
+  return x > 0 ? `+${text2}` : text2;
+}
+function formatP(p) {
+  return p < 1e-3 ? p.toExponential(1) : p.toFixed(3);
+}
+function buildReadout(plan, totals) {
+  const control = plan.design.control;
+  const treatments = plan.design.arms.map((a) => a.name).filter((a) => a !== control);
+  const k = Math.max(1, treatments.length);
+  const alphaPerComparison = plan.design.alpha / k;
+  const unitsSeen = Object.values(totals.arms).reduce((s, a) => s + a.units, 0);
+  const timing = readoutTiming(plan, totals.dataThrough, unitsSeen, alphaPerComparison);
+  const cupedRegistered = plan.design.prePeriodCorrelation > 0;
+  const ctx = {
+    plan,
+    totals,
+    control,
+    treatments,
+    alphaPerComparison,
+    cupedRegistered,
+    ...timing.boundary ? { boundaryZ: timing.boundary.z } : {}
+  };
+  const findings = [];
+  const overall = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]]));
+  const srm = checkSampleRatio(ctx);
+  if (srm?.mismatch) {
+    findings.push({
+      severity: "block",
+      code: "readout/sample-ratio-mismatch",
+      message: `Sample ratio mismatch: the units per arm do not fit the planned weights (p = ${formatP(srm.pValue)} < ${srm.threshold}). Nothing here is a result: find why assignment or logging lost units, fix it, and read again.`
+    });
+  }
+  if (srm && srm.days.length) {
+    findings.push({
+      severity: "warn",
+      code: "readout/sample-ratio-mismatch-day",
+      message: `The split alone raises the alarm on ${srm.days.length} of ${srm.daysChecked} days (${srm.days.map((d) => d.date).join(", ")}): check what changed in assignment or logging on those days.`
+    });
+  }
+  if (timing.readEarly && !timing.boundary) {
+    findings.push({
+      severity: "block",
+      code: "readout/read-early",
+      message: `Read early: the data runs through ${totals.dataThrough}, before the planned end (${timing.plannedEnd}), and the plan registered no interim looks. Looking before the end and stopping on a good day inflates false wins; wait for the planned end.`
+    });
+  }
+  const primaryMetric = plan.metrics.primary;
+  const primaryRead = readMetric(ctx, primaryMetric, "primary", metricTotalsOf(overall, primaryMetric.name), {
+    alpha: alphaPerComparison,
+    sides: plan.design.sides,
+    direction: primaryMetric.direction,
+    ...ctx.boundaryZ !== void 0 ? { boundaryZ: ctx.boundaryZ } : {},
+    useCuped: cupedRegistered
+  }) ?? { metric: primaryMetric.name, kind: primaryMetric.kind, role: "primary", direction: primaryMetric.direction, arms: treatments.map((arm2) => ({ arm: arm2, ok: false, reason: "no totals for the control arm" })) };
+  const controlPrimary = primaryRead.arms.find((a) => a.comparison)?.comparison?.control.value;
+  const mde = resolveThreshold(plan.design.minDetectableEffect, controlPrimary);
+  if (mde !== void 0) primaryRead.minDetectableEffect = mde;
+  bonferroni(primaryRead, k);
+  classifyPrimary(primaryRead, mde, timing.readEarly);
+  if (timing.boundary) {
+    const crossed = primaryRead.arms.some((a) => a.primaryClass === "win" || a.primaryClass === "loss");
+    findings.push({
+      severity: "note",
+      code: "readout/interim-look",
+      message: `Interim analysis at ${formatShare(timing.informationFraction)} of the planned information (look ${timing.boundary.look} of ${timing.boundary.looks}): the ${plan.design.interimBoundary} boundary is |z| \u2265 ${timing.boundary.z.toFixed(3)} (nominal p ${formatP(timing.boundary.nominalP)}); ${crossed ? "crossed, so the test may stop here" : "not crossed: keep the test running to the next look or the planned end"}.`
+    });
+  }
+  for (const arm2 of primaryRead.arms) {
+    if (!arm2.ok) findings.push({ severity: "block", code: "readout/primary-not-computed", message: `${primaryMetric.name}, ${arm2.arm}: ${arm2.reason}` });
+  }
+  if (mde === void 0) {
+    findings.push({ severity: "note", code: "readout/no-minimum-effect", message: "The plan registers no minimum detectable effect, so no result can be called flat; a non-significant result is inconclusive." });
+  }
+  if (cupedRegistered) {
+    if (!primaryRead.cuped) {
+      findings.push({ severity: "warn", code: "readout/cuped-missing", message: `The plan was sized with variance reduction (pre-period correlation ${plan.design.prePeriodCorrelation}), but the totals give no usable pre-period sums for ${primaryMetric.name}: the interval is wider than planned.` });
+    }
+  } else if (Object.values(totals.arms).some((a) => Object.values(a.metrics).some((m) => m.kind !== "ratio" && m.pre))) {
+    findings.push({ severity: "note", code: "readout/cuped-not-registered", message: "The totals carry pre-period sums, but the plan did not register variance reduction (design.pre-period-correlation), so they are not used: a method chosen after the data is in is not the registered test." });
+  }
+  const guardrails = [];
+  for (const metric2 of plan.metrics.guardrails) {
+    const harm = metric2.direction === "increase" ? "decrease" : "increase";
+    const read = readMetric(ctx, metric2, "guardrail", metricTotalsOf(overall, metric2.name), { alpha: alphaPerComparison, sides: 1, direction: harm, useCuped: cupedRegistered });
+    if (!read) {
+      findings.push({ severity: "block", code: "readout/guardrail-missing", message: `No totals for the guardrail ${metric2.name}: a launch cannot show it did no harm.` });
+      continue;
+    }
+    const controlValue = read.arms.find((a) => a.comparison)?.comparison?.control.value;
+    const tolerance = resolveThreshold(metric2.tolerance, controlValue);
+    if (tolerance !== void 0) read.tolerance = tolerance;
+    else findings.push({ severity: "warn", code: "readout/no-tolerance", message: `The guardrail ${metric2.name} has no tolerance, so harm can never be ruled out; only a breach can be seen.` });
+    bonferroni(read, k);
+    classifyGuardrail(read, tolerance);
+    guardrails.push(read);
+  }
+  const secondary = [];
+  for (const metric2 of plan.metrics.secondary) {
+    const read = readMetric(ctx, metric2, "secondary", metricTotalsOf(overall, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: cupedRegistered });
+    if (read) secondary.push(read);
+    else findings.push({ severity: "note", code: "readout/secondary-missing", message: `No totals for the secondary metric ${metric2.name}.` });
+  }
+  const segments = [];
+  const allMetrics2 = [primaryMetric, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+  const segmentNames = [...new Set((totals.arms[control]?.segments ?? []).map((s) => s.segment))];
+  for (const name of segmentNames) {
+    const groups3 = Object.fromEntries([control, ...treatments].map((a) => [a, totals.arms[a]?.segments.find((s) => s.segment === name)]));
+    for (const metric2 of allMetrics2) {
+      const read = readMetric(ctx, metric2, "segment", metricTotalsOf(groups3, metric2.name), { alpha: plan.design.alpha, sides: plan.design.sides, direction: metric2.direction, useCuped: false }, name);
+      if (read) segments.push(read);
+    }
+  }
+  const exploratory = [...secondary, ...segments].flatMap((m) => m.arms.filter((a) => a.comparison));
+  const adjusted = benjaminiHochberg(exploratory.map((a) => a.comparison.pValue));
+  if (adjusted.ok) {
+    exploratory.forEach((arm2, i) => {
+      arm2.adjustedP = adjusted.value[i];
+      arm2.exploratorySignal = adjusted.value[i] <= plan.design.alpha;
+    });
+  }
+  const perArm = treatments.map((arm2) => {
+    const breached = guardrails.some((g) => g.arms.some((a) => a.arm === arm2 && a.guardrailClass === "breach"));
+    const primaryClass = primaryRead.arms.find((a) => a.arm === arm2)?.primaryClass ?? "inconclusive";
+    return { arm: arm2, verdict: breached ? "guardrail-breach" : primaryClass };
+  });
+  let verdict;
+  const armsWith = (v) => perArm.filter((a) => a.verdict === v).map((a) => a.arm);
+  if (srm?.mismatch) verdict = "not-read";
+  else if (armsWith("win").length) verdict = "win";
+  else if (armsWith("guardrail-breach").length) verdict = "guardrail-breach";
+  else if (armsWith("loss").length) verdict = "loss";
+  else if (perArm.length && perArm.every((a) => a.verdict === "flat")) verdict = "flat";
+  else verdict = "inconclusive";
+  const verdictArms = verdict === "not-read" ? [] : armsWith(verdict);
+  for (const g of guardrails) {
+    for (const a of g.arms) {
+      if (a.guardrailClass === "breach") findings.push({ severity: "block", code: "readout/guardrail-breach", message: `${a.arm} harms the guardrail ${g.metric} significantly${armsWith("guardrail-breach").includes(a.arm) && primaryRead.arms.find((p) => p.arm === a.arm)?.primaryClass === "win" ? ", which overrides its win on the primary metric" : ""}.` });
+    }
+  }
+  const primaryFlatOverall = verdict === "flat" || verdict === "inconclusive";
+  if (primaryFlatOverall) {
+    for (const s of segments) {
+      if (s.metric !== primaryMetric.name) continue;
+      for (const a of s.arms) {
+        const c = a.comparison;
+        if (a.exploratorySignal && c && good(s.direction) * c.difference > 0) {
+          findings.push({
+            severity: "note",
+            code: "readout/segment-pattern",
+            message: `Flat overall, but ${a.arm} wins in the segment "${s.segment}" (Benjamini\u2013Hochberg adjusted p = ${formatP(a.adjustedP)}): a pattern to confirm with a new test on that segment, not a result.`
+          });
+        }
+      }
+    }
+  }
+  findings.push(...noveltyCheck(ctx, primaryMetric));
+  if (verdict === "win" || verdict === "loss") {
+    for (const arm2 of primaryRead.arms) {
+      const c = arm2.comparison;
+      if (!c || arm2.primaryClass !== "win" && arm2.primaryClass !== "loss") continue;
+      const effect = mde ?? Math.abs(c.difference);
+      const power = normalCdf(effect / c.standardError - c.critical);
+      if (power < LOW_POWER) {
+        findings.push({
+          severity: "note",
+          code: "readout/winners-curse",
+          message: `${arm2.arm}: this readout had ${formatShare(power)} power at ${mde !== void 0 ? "the minimum detectable effect" : "the observed effect"}; a significant estimate from an underpowered test usually overstates the true effect (the winner's curse). Expect a smaller effect after launch.`
+        });
+      }
+    }
+  }
+  if (plan.sensitive.length && (verdict === "win" || verdict === "loss")) {
+    findings.push({
+      severity: "note",
+      code: "readout/sensitive",
+      message: `This test touches ${plan.sensitive.map((s) => s.area).join(", ")}: before acting on the result, take it to ${plan.sensitive.map((s) => s.review ?? `the ${s.area} review`).join(", ")}; local law and licensed practice come before this rule.`
+    });
+  }
+  const rule = verdict === "win" ? "win" : verdict === "loss" ? "loss" : verdict === "guardrail-breach" ? "guardrail-breach" : verdict === "not-read" ? void 0 : "flat";
+  const text2 = rule === "win" ? plan.decisions.win : rule === "loss" ? plan.decisions.loss : rule === "guardrail-breach" ? plan.decisions.guardrailBreach : rule === "flat" ? plan.decisions.flat : void 0;
+  return {
+    planId: plan.id,
+    title: plan.title,
+    planCommit: totals.planCommit,
+    dataThrough: totals.dataThrough,
+    control,
+    treatments,
+    alpha: plan.design.alpha,
+    sides: plan.design.sides,
+    alphaPerComparison,
+    ...srm ? { srm } : {},
+    timing,
+    primary: primaryRead,
+    guardrails,
+    secondary,
+    segments,
+    verdict,
+    verdictArms,
+    ...rule && text2 ? { decision: { rule, text: text2 } } : {},
+    findings
+  };
+}
+function formatShare(x) {
+  if (x === void 0 || !Number.isFinite(x)) return "an unknown share";
+  return `${(x * 100).toFixed(x < 0.1 ? 1 : 0)}%`;
+}
+
+// src/core/totals/rules.ts
+var RELATIVE_SLACK = 1e-9;
+function* groups2(totals) {
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    yield { arm: arm2, path: ["arms", arm2], group: totalsOfArm };
+    for (const [i, day] of totalsOfArm.days.entries()) yield { arm: arm2, path: ["arms", arm2, "days", i], group: day };
+    for (const [i, week] of totalsOfArm.weeks.entries()) yield { arm: arm2, path: ["arms", arm2, "weeks", i], group: week };
+    for (const [i, segment] of totalsOfArm.segments.entries()) yield { arm: arm2, path: ["arms", arm2, "segments", i], group: segment };
+  }
+}
+function centredSquares(n, sum, sumSquares) {
+  return { value: sumSquares - (n > 0 ? sum * sum / n : 0), slack: RELATIVE_SLACK * Math.max(sumSquares, 1) };
+}
+function checkSquares(ctx, path6, n, sum, sumSquares, what) {
+  const { value, slack } = centredSquares(n, sum, sumSquares);
+  if (value >= -slack) return true;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path: path6,
+    message: `the sum of squares of ${what} is below (\u03A3y)\xB2/n = ${Number((sum * sum / n).toPrecision(8))}, which no data can give`,
+    expected: "a sum of squares of at least (sum)\xB2 / n; check that it sums squares of per-unit values, not squares of the sum",
+    showFound: true
+  });
+  return false;
+}
+function checkProducts(ctx, path6, n, a, b, sumProducts) {
+  if (n < 2) return;
+  const saa = Math.max(0, a.sumSquares - a.sum * a.sum / n);
+  const sbb = Math.max(0, b.sumSquares - b.sum * b.sum / n);
+  const sab = sumProducts - a.sum * b.sum / n;
+  const bound = Math.sqrt(saa * sbb);
+  if (Math.abs(sab) <= bound + RELATIVE_SLACK * Math.max(Math.abs(sumProducts), bound, 1)) return;
+  ctx.report({
+    severity: "error",
+    code: "totals/impossible-sums",
+    path: path6,
+    message: "the sum of products implies a correlation outside -1 to 1, which no data can give",
+    expected: "\u03A3xy \u2212 \u03A3x\u03A3y/n no larger in size than \u221A((\u03A3x\xB2 \u2212 (\u03A3x)\xB2/n)(\u03A3y\xB2 \u2212 (\u03A3y)\xB2/n))",
+    showFound: true
+  });
+}
+function checkPre(ctx, path6, metric2, pre) {
+  if (!checkSquares(ctx, [...path6, "pre-period", "sum-of-squares"], metric2.n, pre.sum, pre.sumSquares, "the pre-period value")) return;
+  checkProducts(ctx, [...path6, "pre-period", "sum-of-products"], metric2.n, metric2, pre, pre.sumProducts);
+}
+function checkMetric(ctx, path6, units2, metric2) {
+  if (metric2.n > units2) {
+    ctx.report({
+      severity: "error",
+      code: "totals/more-than-units",
+      path: [...path6, "n"],
+      message: `n is ${metric2.n}, more than the ${units2} units exposed`,
+      expected: `at most ${units2} (the units exposed)`
+    });
+  }
+  if (metric2.kind === "proportion") {
+    if (metric2.sum > metric2.n) {
+      ctx.report({
+        severity: "error",
+        code: "totals/more-than-units",
+        path: [...path6, "units-with-event"],
+        message: `${metric2.sum} units with the event out of ${metric2.n}`,
+        expected: `at most ${metric2.n} (each unit counts once however many events it has)`,
+        showFound: false
+      });
+    } else if (metric2.pre) checkPre(ctx, path6, metric2, metric2.pre);
+    return;
+  }
+  if (metric2.kind === "mean") {
+    if (checkSquares(ctx, [...path6, "sum-of-squares"], metric2.n, metric2.sum, metric2.sumSquares, "the metric value") && metric2.pre) checkPre(ctx, path6, metric2, metric2.pre);
+    return;
+  }
+  const numeratorOk = checkSquares(ctx, [...path6, "numerator", "sum-of-squares"], metric2.n, metric2.numerator.sum, metric2.numerator.sumSquares, "the numerator");
+  const denominatorOk = checkSquares(ctx, [...path6, "denominator", "sum-of-squares"], metric2.n, metric2.denominator.sum, metric2.denominator.sumSquares, "the denominator");
+  if (numeratorOk && denominatorOk) checkProducts(ctx, [...path6, "sum-of-products"], metric2.n, metric2.numerator, metric2.denominator, metric2.sumProducts);
+}
+var possibleSums = (ctx) => {
+  for (const { path: path6, group: group3 } of groups2(ctx.value.totals)) {
+    for (const [name, metric2] of Object.entries(group3.metrics)) checkMetric(ctx, [...path6, "metrics", name], group3.units, metric2);
+  }
+};
+var atLeastTwoArms = (ctx) => {
+  if (Object.keys(ctx.value.totals.arms).length < 2) {
+    ctx.report({ severity: "error", code: "totals/arm-count", path: ["arms"], message: "a readout compares arms; fewer than two are given", expected: "the totals of every arm of the plan" });
+  }
+};
+var datesInOrder = (ctx) => {
+  const { totals } = ctx.value;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    const seen = /* @__PURE__ */ new Set();
+    totalsOfArm.days.forEach((day, i) => {
+      const path6 = ["arms", arm2, "days", i, "date"];
+      if (day.date > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path: path6, message: `${day.date} is after data-through (${totals.dataThrough})`, expected: `a day on or before ${totals.dataThrough}` });
+      }
+      if (seen.has(day.date)) ctx.report({ severity: "error", code: "totals/duplicate-date", path: path6, message: `${day.date} is listed twice`, expected: "each day once" });
+      seen.add(day.date);
+    });
+    totalsOfArm.weeks.forEach((week, i) => {
+      if (week.starting > totals.dataThrough) {
+        ctx.report({ severity: "error", code: "totals/date-after-data", path: ["arms", arm2, "weeks", i, "starting"], message: `${week.starting} is after data-through (${totals.dataThrough})`, expected: `a week starting on or before ${totals.dataThrough}` });
+      }
+    });
+  }
+};
+var daysAddUp = (ctx) => {
+  for (const [arm2, totalsOfArm] of Object.entries(ctx.value.totals.arms)) {
+    if (!totalsOfArm.days.length) continue;
+    const sum = totalsOfArm.days.reduce((s, d) => s + d.units, 0);
+    if (sum === totalsOfArm.units) continue;
+    ctx.report({
+      severity: sum > totalsOfArm.units ? "error" : "warning",
+      code: "totals/days-sum",
+      path: ["arms", arm2, "days"],
+      atKey: true,
+      message: `the days add up to ${sum} units, the arm to ${totalsOfArm.units}${sum > totalsOfArm.units ? ": a unit is counted on more than one day" : ": some days are missing"}`,
+      expected: "the units first exposed on each day, adding up to the arm\u2019s units"
+    });
+  }
+};
+var TOTALS_RULES = [atLeastTwoArms, possibleSums, datesInOrder, daysAddUp];
+function planMetrics(plan) {
+  return [plan.metrics.primary, ...plan.metrics.guardrails, ...plan.metrics.secondary];
+}
+var samePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (plan && totals.planId !== plan.id) {
+    ctx.report({ severity: "error", code: "totals/other-plan", path: ["plan"], message: `these totals are for plan "${totals.planId}", not "${plan.id}"`, expected: `plan: ${plan.id}` });
+  }
+};
+var armsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const planned = plan.design.arms.map((a) => a.name);
+  for (const arm2 of Object.keys(totals.arms)) {
+    if (planned.includes(arm2)) continue;
+    const suggestion = closestName(arm2, planned);
+    ctx.report({
+      severity: "error",
+      code: "totals/unknown-arm",
+      path: ["arms", arm2],
+      atKey: true,
+      message: `arm "${arm2}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}`,
+      expected: `one of the plan's arms: ${planned.join(", ")}`
+    });
+  }
+  const missing = planned.filter((a) => !(a in totals.arms));
+  if (missing.length) {
+    ctx.report({ severity: "error", code: "totals/missing-arm", path: ["arms"], message: `no totals for ${missing.map((a) => `"${a}"`).join(", ")}`, expected: `totals for every arm of the plan: ${planned.join(", ")}` });
+  }
+};
+var metricsOfThePlan = (ctx) => {
+  const { totals, plan } = ctx.value;
+  if (!plan) return;
+  const known = new Map(planMetrics(plan).map((m) => [m.name, m]));
+  for (const { path: path6, group: group3 } of groups2(totals)) {
+    for (const [name, metric2] of Object.entries(group3.metrics)) {
+      const registered = known.get(name);
+      if (!registered) {
+        const suggestion = closestName(name, [...known.keys()]);
+        ctx.report({
+          severity: "error",
+          code: "totals/unknown-metric",
+          path: [...path6, "metrics", name],
+          atKey: true,
+          message: `metric "${name}" is not in the plan${suggestion ? `; did you mean "${suggestion}"?` : ""}: a metric chosen after the data is in is not a pre-registered result`,
+          expected: `one of the plan's metrics: ${[...known.keys()].join(", ")}`
+        });
+      } else if (registered.kind !== metric2.kind) {
+        ctx.report({
+          severity: "error",
+          code: "totals/metric-kind",
+          path: [...path6, "metrics", name],
+          message: `the plan registers "${name}" as a ${registered.kind} metric, but these are ${metric2.kind} totals`,
+          expected: registered.kind === "proportion" ? "{ units-with-event }" : registered.kind === "mean" ? "{ n, sum, sum-of-squares }" : "{ n, numerator, denominator, sum-of-products }"
+        });
+      }
+    }
+  }
+  const primary = plan.metrics.primary.name;
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    if (!(primary in totalsOfArm.metrics)) {
+      ctx.report({ severity: "error", code: "totals/missing-primary", path: ["arms", arm2, "metrics"], message: `no totals for the primary metric "${primary}" in arm "${arm2}"`, expected: `metrics.${primary}` });
+    }
+  }
+};
+var insideTheWindow = (ctx) => {
+  const { totals, plan } = ctx.value;
+  const start = plan?.window.start;
+  if (!start) return;
+  if (totals.dataThrough < start) {
+    ctx.report({ severity: "error", code: "totals/before-start", path: ["data-through"], message: `the data runs through ${totals.dataThrough}, before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+  }
+  for (const [arm2, totalsOfArm] of Object.entries(totals.arms)) {
+    totalsOfArm.days.forEach((day, i) => {
+      if (day.date < start) ctx.report({ severity: "error", code: "totals/before-start", path: ["arms", arm2, "days", i, "date"], message: `${day.date} is before the test started on ${start}`, expected: `a day on or after ${start}`, showFound: true });
+    });
+  }
+};
+var TOTALS_PLAN_RULES = [samePlan, armsOfThePlan, metricsOfThePlan, insideTheWindow];
+
+// src/core/totals/schema.ts
+var count = (expected) => external_exports.number({ error: expected }).int({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
+var sumOf = (what) => finiteNumber(`the sum of ${what} over the units, e.g. 10250.5`);
+var squaresOf = (what) => nonNegativeNumber(`the sum of squares of ${what} over the units (0 or more), e.g. 84210.25`);
+var prePeriod = external_exports.strictObject(
+  {
+    sum: sumOf("each unit\u2019s pre-period value"),
+    "sum-of-squares": squaresOf("each unit\u2019s pre-period value"),
+    "sum-of-products": finiteNumber("the sum over the units of the metric value times the pre-period value, e.g. 5120.75")
+  },
+  { error: "a mapping with sum, sum-of-squares and sum-of-products of the pre-period value" }
+).describe("The same metric measured on the same units before the test (for variance reduction, CUPED).");
+var proportionTotals = external_exports.strictObject(
+  {
+    "units-with-event": count("the number of units with the event, a whole number of 0 or more, e.g. 1520"),
+    n: count("the number of units the share is taken over, a whole number of 0 or more (default: the units)").optional(),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with units-with-event" }
+).describe("A proportion metric: how many units had the event.");
+var meanTotals = external_exports.strictObject(
+  {
+    n: count("the number of units the mean is taken over, a whole number of 0 or more, e.g. 12000"),
+    sum: sumOf("the metric value"),
+    "sum-of-squares": squaresOf("the metric value"),
+    "pre-period": prePeriod.optional()
+  },
+  { error: "a mapping with n, sum and sum-of-squares" }
+).describe("A mean metric: n, the sum and the sum of squares of the per-unit values.");
+var sideOfRatio = (what) => external_exports.strictObject({ sum: sumOf(`each unit\u2019s ${what}`), "sum-of-squares": squaresOf(`each unit\u2019s ${what}`) }, { error: `a mapping with sum and sum-of-squares of the ${what}` }).describe(`Sums of each unit\u2019s ${what}.`);
+var ratioTotals = external_exports.strictObject(
+  {
+    n: count("the number of units (the randomization unit), a whole number of 0 or more, e.g. 12000"),
+    numerator: sideOfRatio("numerator"),
+    denominator: sideOfRatio("denominator"),
+    "sum-of-products": finiteNumber("the sum over the units of numerator times denominator, e.g. 40210")
+  },
+  { error: "a mapping with n, numerator, denominator and sum-of-products" }
+).describe("A ratio metric: per-unit sums of numerator and denominator, their squares and their products.");
+var metricTotals = external_exports.union([proportionTotals, meanTotals, ratioTotals], {
+  error: "metric totals: { units-with-event } for a proportion, { n, sum, sum-of-squares } for a mean, or { n, numerator, denominator, sum-of-products } for a ratio"
+}).meta({ id: "metricTotals", description: "The totals of one metric in one arm (or one day, week or segment of it)." });
+var metricsMap = external_exports.record(kebabName("a metric name of the plan, e.g. order-completed"), metricTotals, { error: "a mapping of metric names to their totals" }).default({}).describe("Totals per metric, keyed by the metric\u2019s name in the plan.");
+var unitsField = count("the number of units exposed, a whole number of 0 or more, e.g. 12000");
+var group2 = { units: unitsField, metrics: metricsMap };
+var armTotals = external_exports.strictObject(
+  {
+    ...group2,
+    days: external_exports.array(external_exports.strictObject({ date: calendarDate("a date written YYYY-MM-DD, e.g. 2026-11-09"), ...group2 }, { error: "a mapping with date, units and metrics" }), {
+      error: "a list of days, e.g. [{ date: 2026-11-09, units: 7000 }]"
+    }).default([]).describe("Per day: the units first exposed that day (and, optionally, metric totals of those units)."),
+    weeks: external_exports.array(external_exports.strictObject({ starting: calendarDate("the week\u2019s first day written YYYY-MM-DD, e.g. 2026-11-09"), ...group2 }, { error: "a mapping with starting, units and metrics" }), {
+      error: "a list of weeks, e.g. [{ starting: 2026-11-09, units: 49000, metrics: { ... } }]"
+    }).default([]).describe("Per week of first exposure: units and metric totals (for the novelty check)."),
+    segments: external_exports.array(
+      external_exports.strictObject(
+        { segment: external_exports.string({ error: 'a segment name, e.g. "platform: ios"' }).trim().min(1, { error: 'a segment name, e.g. "platform: ios"' }), ...group2 },
+        { error: "a mapping with segment, units and metrics" }
+      ),
+      { error: 'a list of segments, e.g. [{ segment: "platform: ios", units: 5000, metrics: { ... } }]' }
+    ).default([]).describe("Per segment: units and metric totals (exploratory).")
+  },
+  { error: "an arm\u2019s totals: a mapping with units and metrics" }
+).describe("Totals of one arm.");
+var writtenTotalsSchema = external_exports.strictObject(
+  {
+    plan: planId.describe("The id of the plan this readout is for."),
+    "plan-commit": external_exports.string({ error: "the commit of the plan at launch, 7 to 40 hexadecimal digits, e.g. 4b1d2e7" }).regex(/^[0-9a-f]{7,40}$/, { error: "the commit of the plan at launch, 7 to 40 lower-case hexadecimal digits, e.g. 4b1d2e7" }).describe("The commit of the plan when the test launched: the rule read out is the one registered then."),
+    "data-through": calendarDate("the last day the data covers, written YYYY-MM-DD, e.g. 2026-12-06").describe("The last day (UTC, included) the data covers."),
+    arms: external_exports.record(kebabName("an arm name of the plan, e.g. control"), armTotals, { error: "a mapping of arm names to their totals" }).describe("Totals per arm, keyed by the arm\u2019s name in the plan."),
+    notes: external_exports.string({ error: "free text" }).optional().describe("Free text: where the totals came from.")
+  },
+  { error: "arm totals: a mapping with plan, plan-commit, data-through and arms" }
+).describe("Plumbline arm totals: the sufficient statistics of one readout.");
+function normalizePre(pre) {
+  return pre ? { pre: { sum: pre.sum, sumSquares: pre["sum-of-squares"], sumProducts: pre["sum-of-products"] } } : {};
+}
+function normalizeMetricTotals(written, units2) {
+  if ("units-with-event" in written) {
+    const x = written["units-with-event"];
+    return { kind: "proportion", n: written.n ?? units2, sum: x, sumSquares: x, ...normalizePre(written["pre-period"]) };
+  }
+  if ("numerator" in written) {
+    return {
+      kind: "ratio",
+      n: written.n,
+      numerator: { sum: written.numerator.sum, sumSquares: written.numerator["sum-of-squares"] },
+      denominator: { sum: written.denominator.sum, sumSquares: written.denominator["sum-of-squares"] },
+      sumProducts: written["sum-of-products"]
+    };
+  }
+  return { kind: "mean", n: written.n, sum: written.sum, sumSquares: written["sum-of-squares"], ...normalizePre(written["pre-period"]) };
+}
+function normalizeGroup(written) {
+  return {
+    units: written.units,
+    metrics: Object.fromEntries(Object.entries(written.metrics).map(([name, m]) => [name, normalizeMetricTotals(m, written.units)]))
+  };
+}
+var totalsSchema = writtenTotalsSchema.transform(
+  (written) => ({
+    planId: written.plan,
+    planCommit: written["plan-commit"],
+    dataThrough: written["data-through"],
+    arms: Object.fromEntries(
+      Object.entries(written.arms).map(([name, arm2]) => [
+        name,
+        {
+          ...normalizeGroup(arm2),
+          days: arm2.days.map((d) => ({ date: d.date, ...normalizeGroup(d) })),
+          weeks: arm2.weeks.map((w) => ({ starting: w.starting, ...normalizeGroup(w) })),
+          segments: arm2.segments.map((s) => ({ segment: s.segment, ...normalizeGroup(s) }))
+        }
+      ])
+    ),
+    ...written.notes !== void 0 ? { notes: written.notes } : {}
+  })
+);
+
+// src/core/totals/load.ts
+var TOTALS_LIMITS = { maxBytes: 1024 * 1024, maxAliases: 100 };
+var TOTALS_SCHEMA_ID = "https://plumbline.dev/schema/totals.schema.json";
+var cached3;
+function totalsJsonSchema() {
+  cached3 ??= {
+    $id: TOTALS_SCHEMA_ID,
+    title: "Plumbline arm totals",
+    ...external_exports.toJSONSchema(writtenTotalsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cached3;
+}
+function loadTotals(text2, file2, plan) {
+  const read = readYaml(text2, file2, TOTALS_LIMITS, "totals");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema(), "totals");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = runRules({ totals: checked.value, ...plan ? { plan } : {} }, read.source, [...TOTALS_RULES, ...plan ? TOTALS_PLAN_RULES : []]);
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, totals: checked.value, warnings };
+}
+
+// src/run/review-readouts.ts
+async function attachReadouts(linked, head) {
+  for (const l of linked) {
+    const file2 = l.loaded.plan.outcome?.totals;
+    if (!file2) continue;
+    const text2 = await head.readText(file2);
+    if (text2 === void 0) {
+      l.readout = { file: file2, problem: `the totals file ${file2} named by the outcome is not in the repository` };
+      continue;
+    }
+    const loaded = loadTotals(text2, file2, l.loaded.plan);
+    l.readout = loaded.ok ? { file: file2, readout: buildReadout(l.loaded.plan, loaded.totals) } : { file: file2, problem: `${file2} cannot be read out: ${loaded.errors.map((e) => `line ${e.line}: ${e.field}: ${e.message}`).join("; ")}` };
+  }
+}
+
 // src/core/config/sizing-policy.ts
 function sizingPolicy(settings) {
   return {
@@ -64424,9 +65437,9 @@ function compiles(pattern) {
     return false;
   }
 }
-var callPattern = (group2, example) => {
-  const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
+var callPattern = (group3, example) => {
+  const expected = `a regular expression with a (?<${group3}>...) group, e.g. ${example}`;
+  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group3}>`), { error: `${expected}; this one has no (?<${group3}>...) group` });
 };
 var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
@@ -64780,6 +65793,7 @@ async function reviewChange(options) {
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+  await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)

@@ -1,4 +1,12 @@
 import { readFile } from 'node:fs/promises';
+import { Option, type Command } from 'commander';
+import { writeFileAtomic } from '../adapters/files.js';
+import { openChange } from '../adapters/git.js';
+import { renderReviewMarkdown } from '../core/report/review-markdown.js';
+import { renderReviewText } from '../core/report/review-text.js';
+import { reviewJson } from '../core/review/report-schema.js';
+import { reviewChange } from '../run/review-change.js';
+import { EXIT, context, reportSettingsProblems, type CommonOptions, type SetExit } from './common.js';
 import { resolve } from 'node:path';
 import type { PullRequestInfo } from '../core/review/context.js';
 import { ExternalError, UsageError } from '../errors.js';
@@ -71,4 +79,38 @@ function fromJson(value: unknown, file: string): PullRequestInfo {
   const body = text(pr.body, 'body');
   const branch = text(pr.branch ?? headRef, 'branch');
   return { ...(title !== undefined ? { title } : {}), ...(body !== undefined ? { body } : {}), ...(labels ? { labels } : {}), ...(branch !== undefined ? { branch } : {}) };
+}
+
+/** `plumbline check --base <ref>`: the pull-request review of a change. */
+export function addCheckCommand(program: Command, setExit: SetExit): void {
+  program
+    .command('check')
+    .description('review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks')
+    .requiredOption('--base <ref>', 'the commit the change is compared with (its merge base with head is used), e.g. origin/main')
+    .option('--head <ref>', 'the commit with the change', 'HEAD')
+    .option('--title <text>', 'pull-request title')
+    .option('--body <text>', 'pull-request description (may name plans by id or path)')
+    .option('--body-file <file>', 'read the description from a file')
+    .option('--label <name>', 'a pull-request label (repeatable)', (value: string, all: string[]) => [...all, value], [] as string[])
+    .option('--branch <name>', 'the pull request’s branch')
+    .option('--pr-json <file>', 'pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }')
+    .option('--repo-url <url>', 'repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop')
+    .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
+    .option('--output <file>', 'also write the JSON report to this file')
+    .action(async (flags: CheckFlags) => {
+      const options = program.opts<CommonOptions>();
+      const { output } = context({ ...options, format: 'text' });
+      const cwd = resolve(options.cwd);
+      const pr = await pullRequestInfo(flags, cwd);
+      const change = await openChange(cwd, flags.base!, flags.head);
+      const outcome = await reviewChange({ change, pr, onProgress: output.progress, today: new Date().toISOString().slice(0, 10), ...(options.config ? { settingsPath: options.config } : {}) });
+      if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
+      const { review } = outcome;
+      if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });
+      const repoUrl = flags.repoUrl?.replace(/\/+$/, '');
+      if (flags.format === 'json') output.out(JSON.stringify(reviewJson(review), null, 2));
+      else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
+      else output.out(renderReviewText(review, { color: output.color }));
+      setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
+    });
 }

@@ -1,66 +1,21 @@
-import { resolve } from 'node:path';
-import { Command, CommanderError, Option } from 'commander';
-import { createRepoFiles, writeFileAtomic } from '../adapters/files.js';
-import { planJsonSchema } from '../core/plan/json-schema.js';
-import { registryJsonSchema } from '../core/registry/load.js';
-import { settingsJsonSchema } from '../core/config/load.js';
-import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
-import { renderValidationText, validationJson } from '../core/report/validation.js';
-import { formatProblem, type Problem } from '../core/source/problem.js';
-import { isCalendarDate } from '../core/source/fields.js';
+import { Command, CommanderError } from 'commander';
 import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
-import { loadWorkspace } from '../run/load-workspace.js';
-import { scaffoldPlan } from '../run/scaffold.js';
-import { validateRepository } from '../run/validate.js';
-import { createCliOutput, type CliOutput } from './output.js';
-import { addSizeOptions, requestFromFlags, type SizeFlags } from './size-command.js';
-import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
-import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
-import { openChange } from '../adapters/git.js';
-import { reviewChange } from '../run/review-change.js';
-import { renderReviewMarkdown } from '../core/report/review-markdown.js';
-import { renderReviewText } from '../core/report/review-text.js';
-import { reviewJson } from '../core/review/report-schema.js';
-import { pullRequestInfo, type CheckFlags } from './check-command.js';
-import { digestRepository } from '../run/digest.js';
-import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../core/report/digest-markdown.js';
-import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText } from '../core/report/readout.js';
-import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
-import { adjustPValues } from '../core/stats/multiple-testing.js';
 import { VERSION } from '../version.js';
+import { addAdjustCommand } from './adjust-command.js';
+import { addCheckCommand } from './check-command.js';
+import { EXIT } from './common.js';
+import { addDigestCommand } from './digest-command.js';
+import { addListCommand } from './list-command.js';
+import { addNewCommand } from './new-command.js';
+import { addReadoutCommand } from './readout-command.js';
+import { addSchemaCommand } from './schema-command.js';
+import { addSizeCommand } from './size-command.js';
+import { addSrmCommand } from './srm-command.js';
+import { addValidateCommand } from './validate-command.js';
 
-/** Exit codes, documented in --help and the README. */
-export const EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 } as const;
+export { EXIT } from './common.js';
 
-interface CommonOptions {
-  cwd: string;
-  config?: string;
-  format: 'text' | 'json';
-  color: boolean;
-}
-
-const formatOption = () => new Option('--format <format>', 'output format').choices(['text', 'json']).default('text');
-
-function context(options: CommonOptions) {
-  const output = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve(options.cwd));
-  return { output, files, settingsPath: options.config, onProgress: output.progress };
-}
-
-function reportSettingsProblems(output: CliOutput, format: string, file: string, problems: Problem[]): number {
-  if (format === 'json') output.out(JSON.stringify({ format: 'plumbline.settings-errors/1', settingsFile: file, problems }, null, 2));
-  else output.err([`The settings file ${file} has errors:`, ...problems.map(formatProblem)].join('\n'));
-  return EXIT.usage;
-}
-
-function parseNumbers(what: string, texts: readonly string[]): number[] {
-  return texts.map((text) => {
-    const value = Number(text);
-    if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text)} is not a number`);
-    return value;
-  });
-}
-
+/** The program: global options, then each command from its own module, in the order --help lists them. */
 export function buildProgram(setExit: (code: number) => void): Command {
   const program = new Command('plumbline')
     .description('Experiment hygiene for code review: validate plans, list the registry, size and check changes.')
@@ -72,172 +27,19 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .exitOverride()
     .addHelpText('after', '\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).');
 
-  program
-    .command('validate')
-    .description('check every plan file, registry file and the settings file')
-    .addOption(formatOption())
-    .action(async (local: { format: 'text' | 'json' }) => {
-      const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
-      const outcome = await validateRepository(ports);
-      if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
-      const { report } = outcome;
-      output.out(options.format === 'json' ? JSON.stringify(validationJson(report), null, 2) : renderValidationText(report, { color: output.color }));
-      setExit(report.errors > 0 ? EXIT.findings : EXIT.ok);
-    });
-
-  program
-    .command('list')
-    .description('show the registry of tests: state, surface, window, owners')
-    .addOption(formatOption())
-    .addOption(new Option('--state <state>', 'only tests in this state').choices(['draft', 'live', 'on-hold', 'concluded']))
-    .action(async (local: { format: 'text' | 'json'; state?: string }) => {
-      const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
-      const loaded = await loadWorkspace(ports);
-      if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
-      const { workspace } = loaded;
-      const registry = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
-      const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === 'error').map((p) => p.file)).size;
-      output.out(options.format === 'json' ? JSON.stringify(registryJson(registry), null, 2) : renderRegistryText(registry, { color: output.color, skippedFiles }));
-      setExit(EXIT.ok);
-    });
-
-  program
-    .command('new')
-    .description('write a new commented draft plan for a feature flag')
-    .argument('<flag-key>', 'the feature-flag key the test reads')
-    .option('--id <id>', 'plan id (default: from the flag key)')
-    .option('--owner <handle>', 'owner, e.g. @ana-lima')
-    .option('--surface <path>', 'surface path, e.g. checkout/payment')
-    .option('--out <file>', 'where to write it (default: <plans folder>/<id>.yaml)')
-    .option('--today <date>', 'today as YYYY-MM-DD (default: the system date, UTC)')
-    .option('--force', 'replace an existing file', false)
-    .option('--stdout', 'print the plan instead of writing it', false)
-    .action(async (flagKey: string, local: { id?: string; owner?: string; surface?: string; out?: string; today?: string; force: boolean; stdout: boolean }) => {
-      const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
-      const today = local.today ?? new Date().toISOString().slice(0, 10);
-      if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
-      const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });
-      if (local.stdout) return output.out(result.text);
-      await writeFileAtomic(resolve(options.cwd, result.path), result.text, { overwrite: local.force });
-      output.out(`Wrote ${result.path} (plan ${result.id}). Fill it in, then run: plumbline validate`);
-    });
-
-  addSizeOptions(
-    program
-      .command('size')
-      .description('size a test: units per arm, days, power and detectable effect by the planned end')
-      .argument('[plan]', 'plan id or plan file; omit to describe a metric with --kind and the flags below'),
-  ).action(async (planName: string | undefined, flags: SizeFlags) => {
-    const options = program.opts<CommonOptions>();
-    const { output, ...ports } = context({ ...options, format: 'text' });
-    if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
-    const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
-    if (!planName && !outcome.sizing.metrics[0]!.result.ok) {
-      const { error } = outcome.sizing.metrics[0]!.result;
-      throw new UsageError(`cannot size this metric: ${error.input}: ${error.message}`);
-    }
-    if (flags.format === 'json') output.out(JSON.stringify(sizingJson(outcome.sizing, outcome.context), null, 2));
-    else if (flags.format === 'markdown') output.out(renderSizingMarkdown(outcome.sizing, { ...outcome.context, power: outcome.power }));
-    else output.out(renderSizingText(outcome.sizing, outcome.context));
-    setExit(EXIT.ok);
-  });
-
-  program
-    .command('check')
-    .description('review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks')
-    .requiredOption('--base <ref>', 'the commit the change is compared with (its merge base with head is used), e.g. origin/main')
-    .option('--head <ref>', 'the commit with the change', 'HEAD')
-    .option('--title <text>', 'pull-request title')
-    .option('--body <text>', 'pull-request description (may name plans by id or path)')
-    .option('--body-file <file>', 'read the description from a file')
-    .option('--label <name>', 'a pull-request label (repeatable)', (value: string, all: string[]) => [...all, value], [] as string[])
-    .option('--branch <name>', 'the pull request’s branch')
-    .option('--pr-json <file>', 'pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }')
-    .option('--repo-url <url>', 'repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop')
-    .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
-    .option('--output <file>', 'also write the JSON report to this file')
-    .action(async (flags: CheckFlags) => {
-      const options = program.opts<CommonOptions>();
-      const { output } = context({ ...options, format: 'text' });
-      const cwd = resolve(options.cwd);
-      const pr = await pullRequestInfo(flags, cwd);
-      const change = await openChange(cwd, flags.base!, flags.head);
-      const outcome = await reviewChange({ change, pr, onProgress: output.progress, today: new Date().toISOString().slice(0, 10), ...(options.config ? { settingsPath: options.config } : {}) });
-      if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
-      const { review } = outcome;
-      if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });
-      const repoUrl = flags.repoUrl?.replace(/\/+$/, '');
-      if (flags.format === 'json') output.out(JSON.stringify(reviewJson(review), null, 2));
-      else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
-      else output.out(renderReviewText(review, { color: output.color }));
-      setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
-    });
-
-  program
-    .command('digest')
-    .description('the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans')
-    .option('--today <date>', 'the day to judge by, YYYY-MM-DD (default: today in the settings’ time zone, UTC unless set)')
-    .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
-    .action(async (local: { today?: string; format: string }) => {
-      const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
-      if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
-      const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
-      if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
-      else if (local.format === 'markdown') output.out(renderDigestMarkdown(digest));
-      else output.out(renderDigestText(digest));
-      setExit(EXIT.ok);
-    });
-
-  program
-    .command('srm')
-    .description('sample ratio mismatch: do the units seen per arm fit the planned weights?')
-    .argument('<counts...>', 'units observed in each arm, control first, e.g. 50412 49288')
-    .option('--weights <weights>', 'planned weights, e.g. 50,50 (default: equal)')
-    .option('--threshold <p>', 'alarm below this p-value', String(SRM_ALARM_P))
-    .addOption(formatOption())
-    .action((counts: string[], local: { weights?: string; threshold: string; format: string }) => {
-      const observed = parseNumbers('counts', counts);
-      const weights = local.weights ? parseNumbers('weights', local.weights.split(',')) : observed.map(() => 1);
-      const threshold = parseNumbers('threshold', [local.threshold])[0]!;
-      const check = sampleRatioMismatch(observed, weights, threshold);
-      if (!check.ok) throw new UsageError(`${check.error.input}: ${check.error.message}`);
-      const output = createCliOutput({ noColorFlag: true });
-      output.out(local.format === 'json' ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check.value }, null, 2) : renderSrmText(check.value, observed, weights, threshold));
-      setExit(check.value.mismatch ? EXIT.findings : EXIT.ok);
-    });
-
-  program
-    .command('adjust')
-    .description('adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)')
-    .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
-    .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
-    .addOption(formatOption())
-    .action((values: string[], local: { q: string; format: string }) => {
-      const p = parseNumbers('p-values', values);
-      const q = parseNumbers('q', [local.q])[0]!;
-      const adjusted = adjustPValues(p);
-      if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
-      const output = createCliOutput({ noColorFlag: true });
-      output.out(local.format === 'json' ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
-      setExit(EXIT.ok);
-    });
-
-  program
-    .command('schema')
-    .description('print the JSON Schema of a file format, for editors and other tools')
-    .addArgument(new Command().createArgument('[format]', 'plan, registry or settings').choices(['plan', 'registry', 'settings']).default('plan'))
-    .action((which: 'plan' | 'registry' | 'settings') => {
-      const schema = which === 'plan' ? planJsonSchema() : which === 'registry' ? registryJsonSchema() : settingsJsonSchema();
-      process.stdout.write(`${JSON.stringify(schema, null, 2)}\n`);
-    });
+  addValidateCommand(program, setExit);
+  addListCommand(program, setExit);
+  addNewCommand(program, setExit);
+  addSizeCommand(program, setExit);
+  addCheckCommand(program, setExit);
+  addDigestCommand(program, setExit);
+  addSrmCommand(program, setExit);
+  addAdjustCommand(program, setExit);
+  addSchemaCommand(program, setExit);
+  addReadoutCommand(program, setExit);
 
   return program;
 }
-
 /** Runs the CLI and returns its exit code; the single place where errors are reported. */
 export async function runCli(argv: string[]): Promise<number> {
   let exitCode: number = EXIT.ok;

@@ -1,4 +1,7 @@
 import { Command, Option } from 'commander';
+import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
+import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
+import { EXIT, context, type CommonOptions, type SetExit } from './common.js';
 import type { ZodType } from 'zod';
 import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
 import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/sequential.js';
@@ -160,4 +163,27 @@ export function requestFromFlags(flags: SizeFlags): SizingRequest {
     ...(days !== undefined ? { plannedDays: days } : {}),
     method: flags.method,
   };
+}
+
+/** `plumbline size [plan]`: units per arm, days, power and detectable effect. */
+export function addSizeCommand(program: Command, setExit: SetExit): void {
+  addSizeOptions(
+    program
+      .command('size')
+      .description('size a test: units per arm, days, power and detectable effect by the planned end')
+      .argument('[plan]', 'plan id or plan file; omit to describe a metric with --kind and the flags below'),
+  ).action(async (planName: string | undefined, flags: SizeFlags) => {
+    const options = program.opts<CommonOptions>();
+    const { output, ...ports } = context({ ...options, format: 'text' });
+    if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
+    const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
+    if (!planName && !outcome.sizing.metrics[0]!.result.ok) {
+      const { error } = outcome.sizing.metrics[0]!.result;
+      throw new UsageError(`cannot size this metric: ${error.input}: ${error.message}`);
+    }
+    if (flags.format === 'json') output.out(JSON.stringify(sizingJson(outcome.sizing, outcome.context), null, 2));
+    else if (flags.format === 'markdown') output.out(renderSizingMarkdown(outcome.sizing, { ...outcome.context, power: outcome.power }));
+    else output.out(renderSizingText(outcome.sizing, outcome.context));
+    setExit(EXIT.ok);
+  });
 }

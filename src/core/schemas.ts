@@ -1,6 +1,7 @@
 import { settingsJsonSchema } from './config/load.js';
 import { planJsonSchema } from './plan/json-schema.js';
 import { registryJsonSchema } from './registry/load.js';
+import { totalsJsonSchema } from './totals/load.js';
 import { renderSchemaReference } from './report/schema-reference.js';
 import { reviewReportSchema } from './review/report-schema.js';
 import { z } from 'zod';
@@ -19,6 +20,7 @@ export function generatedSchemaFiles(): Record<string, string> {
     'schema/plan.schema.json': json(planJsonSchema()),
     'schema/registry.schema.json': json(registryJsonSchema()),
     'schema/settings.schema.json': json(settingsJsonSchema()),
+    'schema/totals.schema.json': json(totalsJsonSchema()),
     'schema/review-report.schema.json': json({
       $id: 'https://plumbline.dev/schema/review-report.schema.json',
       title: 'Plumbline review report',
@@ -35,6 +37,11 @@ export function generatedSchemaFiles(): Record<string, string> {
       'Optional: `.plumbline.yml` at the repository root (or `--config FILE`). With no file, every default below applies.',
     ),
     'docs/findings.md': renderFindingReference(),
+    'docs/totals-reference.md': renderSchemaReference(
+      totalsJsonSchema(),
+      'Arm totals reference',
+      'One YAML file per readout (for example `readouts/<plan-id>.totals.yaml`), read by `plumbline readout <plan> --totals <file>`. It holds only sums per arm, the sufficient statistics of every metric: no unit-level or personal data. Metric and arm names are the plan’s. A proportion’s `n` defaults to the units of its group (arm, day, week or segment).',
+    ),
     'docs/registry-reference.md': renderSchemaReference(
       registryJsonSchema(),
       'Registry file reference',

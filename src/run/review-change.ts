@@ -12,6 +12,7 @@ import { findFlagTouches } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location } from '../core/scan/name-scan.js';
 import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
+import { attachReadouts } from './review-readouts.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
@@ -89,6 +90,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const linked: LinkedPlan[] = workspace.plans
     .filter((p) => links.has(p.plan.id))
     .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+  await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
     file,
     problems: workspace.problems.filter((p) => p.file === file),

@@ -2,8 +2,7 @@ import { designSummary, type SizingContext } from '../core/report/sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
 import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
 import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
-import { formatProblem } from '../core/source/problem.js';
-import { UsageError } from '../errors.js';
+import { findNamedPlan } from './find-plan.js';
 import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
 export interface SizeOutcome {
@@ -15,14 +14,7 @@ export interface SizeOutcome {
 /** Sizes a plan of the repository, named by id or by file path. */
 export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: string }): Promise<SizeOutcome> {
   const workspace = await requireWorkspace(options);
-  const wanted = options.plan.replace(/^\.\//, '');
-  const found = workspace.plans.find((p) => p.plan.id === wanted || p.file === wanted);
-  if (!found) {
-    const broken = workspace.problems.filter((p) => p.file === wanted && p.severity === 'error');
-    if (broken.length) throw new UsageError(`${wanted} has errors:\n${broken.map(formatProblem).join('\n')}`, 'fix them, then size again');
-    const known = workspace.plans.map((p) => p.plan.id);
-    throw new UsageError(`no plan "${wanted}" in this repository`, known.length ? `known plans: ${known.join(', ')}` : 'create one with plumbline new <flag-key>');
-  }
+  const found = findNamedPlan(workspace, options.plan, 'size');
   const { plan } = found;
   return {
     sizing: sizePlan(plan, sizingPolicy(workspace.settings)),

@@ -26,6 +26,13 @@ const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | 
 const other = (overrides: Record<string, unknown>) =>
   planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
 
+
+/** Totals for the good plan through its planned end: the treatment's purchases as given. */
+const goodTotals = (bought: number) =>
+  `plan: good\nplan-commit: 4b1d2e7\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
+const recorded = (outcome: Record<string, unknown>, bought: number) =>
+  withPlan(cleanPlan({ outcome: { 'data-through': '2026-11-29', totals: 'readouts/good.totals.yaml', 'decided-by': '@owner-one', ...outcome } }), { 'readouts/good.totals.yaml': goodTotals(bought) });
+
 type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
 
 // For every finding code: a scenario that must raise it, and a near miss that must not.
@@ -173,6 +180,14 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
       files: baseFiles({ 'experiments/other.yaml': other({ exposure: { event: 'keeper_seen' } }), 'src/keeper.ts': "track('keeper_seen');\n" }),
       changes: { 'src/keeper.ts': '// moved away\n', 'src/elsewhere.ts': "track('keeper_seen');\n" },
     },
+  },
+  'outcome-mismatch': {
+    trigger: { changes: recorded({ class: 'win', arms: ['treatment'] }, 6050) },
+    nearMiss: { changes: recorded({ class: 'win', arms: ['treatment'] }, 6400) },
+  },
+  'outcome-override': {
+    trigger: { changes: recorded({ class: 'win', arms: ['treatment'], override: { class: 'win', reason: 'Support costs fall either way.' } }, 6050) },
+    nearMiss: { changes: recorded({ class: 'inconclusive' }, 6050) },
   },
   'bug-fix-unmeasured': {
     trigger: { changes: { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' }, pr: { title: 'fix: totals were off by one', labels: [] } },

@@ -14,11 +14,13 @@ import {
   windowChecks,
 } from './plans.js';
 import { sizingChecks } from './sizing.js';
+import { outcomeRecorded } from './outcome.js';
 import { analysisUnitDiffers, spillover } from './unit.js';
 
 /** Every check of the pull-request review, in the order their findings are listed. */
 export const CHECKS: readonly Check[] = [
   planInvalid,
+  outcomeRecorded,
   decisionsMissing,
   reviewMissing,
   eventRemoved,

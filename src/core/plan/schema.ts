@@ -14,6 +14,7 @@ import {
   wholeNumber,
 } from '../source/fields.js';
 import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/sequential.js';
+import { outcomeSchema, type WrittenOutcome } from './outcome.js';
 
 /**
  * The plan file: one YAML file per experiment, written before launch.
@@ -465,6 +466,7 @@ export const writtenPlanSchema = z
       'Required when the plan bundles several flags or changes.',
     ),
     notes: optionalText('free text'),
+    outcome: outcomeSchema.optional(),
   }, { error: 'a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics' })
   .describe('A Plumbline experiment plan.');
 
@@ -541,6 +543,7 @@ export interface Plan {
   sensitive: { area: SensitiveArea; review?: string; reference?: string }[];
   bundleRationale?: string;
   notes?: string;
+  outcome?: WrittenOutcome;
 }
 
 function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
@@ -622,6 +625,7 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
     sensitive: written.sensitive,
     ...(written['bundle-rationale'] ? { bundleRationale: written['bundle-rationale'] } : {}),
     ...(written.notes ? { notes: written.notes } : {}),
+    ...(written.outcome ? { outcome: written.outcome } : {}),
   };
 });
 

@@ -5,6 +5,7 @@ import type { FlagTouch } from '../scan/flag-touches.js';
 import type { Location, NameHits } from '../scan/name-scan.js';
 import type { Problem } from '../source/problem.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
+import type { Readout } from '../readout/build-readout.js';
 import type { Finding } from './finding.js';
 
 /** What the pull request says about itself; every field optional (a local run may know none). */
@@ -21,6 +22,8 @@ export interface LinkedPlan {
   loaded: LoadedPlan;
   reasons: LinkReason[];
   sizing: PlanSizing;
+  /** For a plan that records an outcome: the readout of the totals it names, or why there is none. */
+  readout?: { file: string; readout?: Readout; problem?: string };
 }
 
 /** Everything a check may look at. Built by the review use case; checks only read it. */

@@ -48,6 +48,8 @@ export const FINDING_CODES = {
   'event-missing': { severity: 'warn', about: 'an event the plan names is not logged in the code' },
   'event-removed': { severity: 'block', about: 'the change removes an event a running test depends on' },
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
+  'outcome-mismatch': { severity: 'block', about: 'a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override' },
+  'outcome-override': { severity: 'warn', about: 'a recorded outcome departs from the registered rule with an override and a reason to judge' },
   'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 

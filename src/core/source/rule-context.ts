@@ -5,7 +5,7 @@ import type { FieldPath, YamlSource } from './yaml-source.js';
 /** What a cross-field rule needs: the value it checks and a way to report at a written field. */
 export interface RuleContext<T> {
   value: T;
-  report(problem: { severity: ProblemSeverity; code: string; path: FieldPath; message: string; expected?: string; showFound?: boolean }): void;
+  report(problem: { severity: ProblemSeverity; code: string; path: FieldPath; message: string; expected?: string; showFound?: boolean; atKey?: boolean }): void;
 }
 
 export type Rule<T> = (context: RuleContext<T>) => void;
@@ -15,12 +15,13 @@ export function runRules<T>(value: T, source: YamlSource, rules: readonly Rule<T
   const problems: Problem[] = [];
   const context: RuleContext<T> = {
     value,
-    report({ severity, code, path, message, expected, showFound }) {
+    report({ severity, code, path, message, expected, showFound, atKey }) {
       const found = showFound ? describeValue(valueAt(source.value, path)) : undefined;
       problems.push({
         severity,
         code,
-        ...source.locate(path),
+        // A wrong key (an arm or metric name) is pointed at where the key is written, not at its value.
+        ...(atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path)),
         field: formatFieldPath(path),
         message,
         ...(expected ? { expected } : {}),

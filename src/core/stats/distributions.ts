@@ -105,3 +105,9 @@ export function upperRegularizedGamma(a: number, x: number): number {
   }
   return Math.exp(-x + a * Math.log(x) - (jStat as unknown as { gammaln(a: number): number }).gammaln(a)) * h;
 }
+
+/** P(T > x) for a Student t with `df` degrees of freedom (a normal tail when df is very large). */
+export function studentUpper(x: number, df: number): number {
+  if (df > 1e7) return normalUpper(x);
+  return x < 0 ? 1 - jStat.studentt.cdf(-x, df) : jStat.studentt.cdf(-x, df);
+}

@@ -76,6 +76,7 @@ function walk(
   sides: 1 | 2,
   eta: number,
   boundaryAt: (k: number, upperGiven: (b: number) => number) => number,
+  fractions: readonly number[] = Array.from({ length: looks }, (_, i) => (i + 1) / looks),
 ): { crossings: Crossings; boundaries: number[] } {
   const upper: number[] = [];
   const lower: number[] = [];
@@ -84,7 +85,7 @@ function walk(
   let density: Float64Array | undefined;
   let previousT = 0;
   for (let k = 1; k <= looks; k++) {
-    const t = k / looks;
+    const t = fractions[k - 1]!;
     const dt = t - previousT;
     const sdStep = Math.sqrt(dt);
     const mean = eta * dt;
@@ -139,6 +140,31 @@ export function spentByTime(kind: 'obrien-fleming-spending' | 'pocock-spending',
   if (t >= 1) return a;
   // 2 * (1 - Phi(x)) written as an upper tail, which keeps its digits when it is 1e-20.
   return kind === 'obrien-fleming-spending' ? 2 * normalUpper(normalUpperQuantile(a / 2) / Math.sqrt(t)) : a * Math.log(1 + (Math.E - 1) * t);
+}
+
+/**
+ * The spending boundary (critical |Z|) at an analysis taken at information fraction `fractions[last]`,
+ * after earlier analyses at the other fractions (increasing, in (0, 1]): each analysis spends
+ * what the spending function has reached by its fraction, less what the earlier ones spent.
+ */
+export function spendingBoundaryAt(kind: 'obrien-fleming-spending' | 'pocock-spending', alpha: number, sides: 1 | 2, fractions: readonly number[]): StatsResult<number> {
+  if (!(alpha > 0 && alpha < 1)) return fail('alpha', `the significance level must be strictly between 0 and 1; got ${alpha}`);
+  if (fractions.length === 0 || fractions.some((t, i) => !(t > 0 && t <= 1) || (i > 0 && !(t > fractions[i - 1]!)))) {
+    return fail('information fraction', 'information fractions must increase within (0, 1]');
+  }
+  const oneSide = alpha / sides;
+  const { boundaries } = walk(
+    fractions.length,
+    sides,
+    0,
+    (k, upperGiven) => {
+      const increment = spentByTime(kind, oneSide, fractions[k - 1]!) - (k > 1 ? spentByTime(kind, oneSide, fractions[k - 2]!) : 0);
+      if (increment <= 1e-30) return NEVER;
+      return findRoot((b) => upperGiven(b) - increment, 0, NEVER, 1e-12) ?? NEVER;
+    },
+    fractions,
+  );
+  return ok(boundaries[boundaries.length - 1]!);
 }
 
 function checkDesign(design: SequentialDesign): StatsResult<never> | undefined {

@@ -1,0 +1,25 @@
+import type { Command } from 'commander';
+import { ADJUST_JSON_FORMAT, renderAdjustedText } from '../core/report/readout.js';
+import { adjustPValues } from '../core/stats/multiple-testing.js';
+import { UsageError } from '../errors.js';
+import { EXIT, formatOption, parseNumbers, type SetExit } from './common.js';
+import { createCliOutput } from './output.js';
+
+/** `plumbline adjust <p-values...>`: Benjamini–Hochberg, Holm and Bonferroni. */
+export function addAdjustCommand(program: Command, setExit: SetExit): void {
+  program
+    .command('adjust')
+    .description('adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)')
+    .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
+    .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
+    .addOption(formatOption())
+    .action((values: string[], local: { q: string; format: string }) => {
+      const p = parseNumbers('p-values', values);
+      const q = parseNumbers('q', [local.q])[0]!;
+      const adjusted = adjustPValues(p);
+      if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
+      const output = createCliOutput({ noColorFlag: true });
+      output.out(local.format === 'json' ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
+      setExit(EXIT.ok);
+    });
+}

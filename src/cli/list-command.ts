@@ -1,0 +1,24 @@
+import { Option, type Command } from 'commander';
+import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
+import { loadWorkspace } from '../run/load-workspace.js';
+import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit } from './common.js';
+
+/** `plumbline list`: the registry of tests. */
+export function addListCommand(program: Command, setExit: SetExit): void {
+  program
+    .command('list')
+    .description('show the registry of tests: state, surface, window, owners')
+    .addOption(formatOption())
+    .addOption(new Option('--state <state>', 'only tests in this state').choices(['draft', 'live', 'on-hold', 'concluded']))
+    .action(async (local: { format: 'text' | 'json'; state?: string }) => {
+      const options = { ...program.opts<CommonOptions>(), ...local };
+      const { output, ...ports } = context(options);
+      const loaded = await loadWorkspace(ports);
+      if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
+      const { workspace } = loaded;
+      const registry = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
+      const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === 'error').map((p) => p.file)).size;
+      output.out(options.format === 'json' ? JSON.stringify(registryJson(registry), null, 2) : renderRegistryText(registry, { color: output.color, skippedFiles }));
+      setExit(EXIT.ok);
+    });
+}

@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import { calendarDate, finiteNumber, kebabName, text } from '../source/fields.js';
+
+/**
+ * The outcome block of a plan: what the readout computed and who decided, written by
+ * `plumbline readout --record`; an override, with its reason, is written by people. Kept apart
+ * from the rest of the plan schema because it is written after the test, not before.
+ */
+export const OUTCOME_CLASSES = ['win', 'loss', 'flat', 'inconclusive', 'guardrail-breach'] as const;
+export type OutcomeClass = (typeof OUTCOME_CLASSES)[number];
+
+const outcomeClass = z.enum(OUTCOME_CLASSES, { error: `one of ${OUTCOME_CLASSES.join(', ')}` });
+
+const figure = z
+  .strictObject(
+    {
+      arm: kebabName('the treatment arm, e.g. treatment'),
+      metric: kebabName('the metric name, e.g. order-completed'),
+      difference: finiteNumber('the absolute difference, treatment minus control, in the metric’s units'),
+      low: finiteNumber('the lower end of the interval of the difference'),
+      high: finiteNumber('the upper end of the interval of the difference'),
+      relative: finiteNumber('the relative difference as a fraction, e.g. 0.011').optional(),
+      'p-value': z.number({ error: 'a p-value from 0 to 1' }).gte(0, { error: 'a p-value from 0 to 1' }).lte(1, { error: 'a p-value from 0 to 1' }),
+    },
+    { error: 'a figure: { arm, metric, difference, low, high, relative, p-value }' },
+  )
+  .describe('The primary metric’s figures for one treatment arm.');
+
+export const outcomeSchema = z
+  .strictObject(
+    {
+      class: outcomeClass.describe('The class the registered rule gave, as computed by the readout.'),
+      arms: z.array(kebabName('an arm name, e.g. treatment'), { error: 'a list of arm names' }).default([]).describe('The arms the class names (the winners of a win).'),
+      'data-through': calendarDate('the last day of the data read, written YYYY-MM-DD'),
+      totals: text('the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml').optional(),
+      'read-early': z.boolean({ error: 'true or false' }).optional().describe('True when the data ended before the planned end.'),
+      figures: z.array(figure, { error: 'a list of figures' }).default([]).describe('The primary metric’s figures per treatment arm.'),
+      'decided-by': text('who decided, e.g. @ana-lima'),
+      'recorded-on': calendarDate('the day the outcome was recorded, written YYYY-MM-DD').optional(),
+      override: z
+        .strictObject(
+          {
+            class: outcomeClass.optional().describe('The class acted on instead of the computed one.'),
+            ship: z.array(kebabName('an arm name'), { error: 'a list of arm names' }).optional().describe('The arms shipped, when the rule does not name them.'),
+            reason: text('why the team departs from the registered rule'),
+          },
+          { error: 'a mapping with class, ship and reason' },
+        )
+        .optional()
+        .describe('A decision that departs from the registered rule, with its reason; reviewers judge it first.'),
+    },
+    { error: 'an outcome: a mapping with class, data-through, figures and decided-by' },
+  )
+  .describe('The recorded outcome of the test: written by plumbline readout --record after the readout.');
+
+export type WrittenOutcome = z.output<typeof outcomeSchema>;

@@ -4,6 +4,9 @@ import { formatCount, formatRate, formatRelative } from '../report/numbers.js';
 import type { Check, PullRequestInfo, ReviewContext } from '../review/context.js';
 import { sizeMetric } from '../stats/sizing.js';
 
+/** What follows the type in a conventional-commit title: an optional (scope), an optional !, then a colon. */
+const CONVENTIONAL_TAIL = /^(\([^)]*\))?!?:/;
+
 /** Why a pull request counts as a bug fix, or undefined when it does not. */
 export function bugFixReason(pr: PullRequestInfo, settings: Settings['bugFix']): string | undefined {
   const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
@@ -11,7 +14,7 @@ export function bugFixReason(pr: PullRequestInfo, settings: Settings['bugFix']):
   if (label) return `it has the label ${label}`;
   const title = pr.title ?? '';
   // Conventional commits: "fix: ...", "fix(cart): ...", "fix!: ...".
-  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(\\([^)]*\\))?!?:`, 'i').test(title));
+  const prefix = settings.titlePrefixes.find((p) => title.toLowerCase().startsWith(p.toLowerCase()) && CONVENTIONAL_TAIL.test(title.slice(p.length)));
   if (prefix) return `its title starts with ${prefix}:`;
   const branch = (pr.branch ?? '').toLowerCase();
   const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));

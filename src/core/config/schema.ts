@@ -19,11 +19,19 @@ function compiles(pattern: string): boolean {
   }
 }
 
+/**
+ * The longest call pattern. These are the one place a regular expression is written by a person (the repository's
+ * maintainers, in the settings file); plan, registry and pull-request text never becomes a pattern. A call pattern
+ * describes one call on one line: 500 characters is several times the longest built-in one.
+ */
+export const CALL_PATTERN_MAX_LENGTH = 500;
+
 /** A regular expression (JavaScript syntax, `u` flag) with a named group that captures the key or event. */
 const callPattern = (group: 'key' | 'event', example: string) => {
   const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
   return z
     .string({ error: expected })
+    .max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` })
     .refine(compiles, { error: `${expected}; this one does not compile` })
     .refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
 };

@@ -12431,7 +12431,7 @@ var require_composer = __commonJS({
       }
       return { comment, afterEmptyLine };
     }
-    var Composer = class {
+    var Composer2 = class {
       constructor(options = {}) {
         this.doc = null;
         this.atDirectives = false;
@@ -12591,7 +12591,7 @@ ${end.comment}` : end.comment;
         }
       }
     };
-    exports.Composer = Composer;
+    exports.Composer = Composer2;
   }
 });
 
@@ -13722,7 +13722,7 @@ var require_parser = __commonJS({
         }
       }
     }
-    var Parser = class {
+    var Parser2 = class {
       /**
        * @param onNewLine - If defined, called separately with the start position of
        *   each new line (in `parse()`, including the start of input).
@@ -14495,7 +14495,7 @@ var require_parser = __commonJS({
         }
       }
     };
-    exports.Parser = Parser;
+    exports.Parser = Parser2;
   }
 });
 
@@ -14529,7 +14529,7 @@ var require_public_api = __commonJS({
         return docs;
       return Object.assign([], { empty: true }, composer$1.streamInfo());
     }
-    function parseDocument2(source, options = {}) {
+    function parseDocument(source, options = {}) {
       const { lineCounter: lineCounter2, prettyErrors } = parseOptions(options);
       const parser$1 = new parser.Parser(lineCounter2?.addNewLine);
       const composer$1 = new composer.Composer(options);
@@ -14555,7 +14555,7 @@ var require_public_api = __commonJS({
       } else if (options === void 0 && reviver && typeof reviver === "object") {
         options = reviver;
       }
-      const doc = parseDocument2(src, options);
+      const doc = parseDocument(src, options);
       if (!doc)
         return null;
       doc.warnings.forEach((warning) => log.warn(doc.options.logLevel, warning));
@@ -14591,7 +14591,7 @@ var require_public_api = __commonJS({
     }
     exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
-    exports.parseDocument = parseDocument2;
+    exports.parseDocument = parseDocument;
     exports.stringify = stringify;
   }
 });
@@ -36251,9 +36251,9 @@ function integrateInflation(design, power) {
   if (!(power > design.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
-  const fixed = normalQuantile(1 - design.alpha / design.sides) + normalQuantile(power);
+  const fixed2 = normalQuantile(1 - design.alpha / design.sides) + normalQuantile(power);
   if (design.looks === 1) return ok({ boundaries: bounds.value, inflation: 1, expectedUnderAlternative: 1 });
-  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed * 0.9, fixed * 2, 1e-11);
+  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed2 * 0.9, fixed2 * 2, 1e-11);
   if (eta === void 0) return fail("power", "no design reaches this power");
   const { crossings } = walk(design.looks, design.sides, eta, (k) => bounds.value.z[k - 1]);
   let continuing = 1;
@@ -36263,7 +36263,7 @@ function integrateInflation(design, power) {
     expected += (k + 1) / design.looks * (k === design.looks - 1 ? continuing : stopHere);
     continuing -= stopHere;
   }
-  const inflation = (eta / fixed) ** 2;
+  const inflation = (eta / fixed2) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
 
@@ -36788,6 +36788,126 @@ function unionBranches(node2, data, root) {
 
 // src/core/source/yaml-source.ts
 var import_yaml = __toESM(require_dist(), 1);
+
+// src/core/source/yaml-messages.ts
+var fixed = (message, expected) => () => ({ message, expected });
+var TRANSLATIONS = [
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    startsWith: "Nested mappings",
+    explain: fixed(
+      'a second "key:" follows on the same line as a key (as in "a: b: c")',
+      'one key per line: put the inner mapping on the lines below, indented, or quote a value that contains ": "'
+    )
+  },
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    explain: fixed("a list item stands where a key was expected", 'list items ("- ...") on their own lines, indented under the key they belong to')
+  },
+  {
+    code: "MULTILINE_IMPLICIT_KEY",
+    explain: fixed(
+      'a key runs over more than one line (often a line above lacks its colon, or a value holding ": " is not quoted)',
+      'each key and its colon on one line, as in "title: Wallet first"; quote a value that contains ": "'
+    )
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Implicit map keys need to be followed by map values",
+    explain: fixed("a line inside a mapping has no colon", '"key: value" on every line of a mapping')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Sequence item without - indicator",
+    explain: fixed('a line inside a list does not start with "-"', 'every item of a list on its own line starting with "- "')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing closing",
+    explain: fixed("a quoted value is never closed", `the same quote mark (" or ') at the end of the value as at its start`)
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Comments must be separated",
+    explain: fixed('a "#" touches the text before it', 'a space before "#" to start a comment, or quotes around a value that contains "#"')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing ,",
+    explain: fixed("items inside [ ] or { } are not separated by commas", "a comma between items, as in [web, ios] or {start: 2026-11-02, end: 2026-11-29}")
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing space after :",
+    explain: fixed("a colon inside [ ] or { } has no space after it", "a space after each colon, as in {relative: 0.05}")
+  },
+  {
+    code: "TAB_AS_INDENT",
+    explain: fixed("a tab is used for indentation", "spaces for indentation (YAML does not allow tabs there)")
+  },
+  {
+    code: "BAD_INDENT",
+    startsWith: "All sequence items",
+    explain: fixed("the items of this list do not line up", 'every "-" of one list in the same column')
+  },
+  {
+    code: "BAD_INDENT",
+    explain: fixed(
+      "the indentation here does not fit the lines around it",
+      "the keys of one mapping in the same column, and what belongs under a key indented further with spaces"
+    )
+  },
+  {
+    code: "BAD_SCALAR_START",
+    explain: (original) => {
+      const mark = /start with (?:reserved character )?(\S+)/.exec(original)?.[1] ?? "this character";
+      return {
+        message: `a value starts with ${mark}, which YAML reserves`,
+        expected: `quotes around a value that starts with ${mark}, as in '${mark === "@" ? "@ana-lima" : `${mark}...`}'`
+      };
+    }
+  },
+  {
+    code: "BAD_DQ_ESCAPE",
+    explain: fixed(
+      "a backslash in a double-quoted value starts an escape YAML does not know",
+      "single quotes around a value with backslashes ('a\\b'), or \\\\ for each backslash inside double quotes"
+    )
+  },
+  {
+    code: "BLOCK_IN_FLOW",
+    explain: fixed('a list or mapping written with "-" or indentation sits inside [ ] or { }', "one style per value: either brackets and commas, or indented lines")
+  },
+  {
+    code: "KEY_OVER_1024_CHARS",
+    explain: fixed("a key is longer than 1024 characters (or a colon is missing far above)", 'short keys, each followed by ": " on the same line')
+  },
+  {
+    code: "TAG_RESOLVE_FAILED",
+    explain: fixed('a value carries a "!" tag this file format does not use', 'plain values without "!" tags; quote a value that starts with "!"')
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected scalar at node end",
+    explain: fixed("more text follows a complete value on this line", "quotes around the whole value, or the rest on a line of its own")
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected flow-",
+    explain: fixed("a bracket here has no partner", "each [ closed by ] and each { closed by }, or quotes around a value that starts with [ or {")
+  },
+  {
+    code: "RESOURCE_EXHAUSTION",
+    explain: fixed("the file nests lists and mappings too deeply to read", "a plan nested a few levels deep, as in the examples")
+  }
+];
+function explainYamlError(code, message) {
+  const translation = TRANSLATIONS.find((t) => t.code === code && (t.startsWith === void 0 || message.startsWith(t.startsWith)));
+  return translation ? translation.explain(message) : { message };
+}
+
+// src/core/source/yaml-source.ts
+var MAX_NESTING_DEPTH = 32;
 function readYaml(text2, file2, limits, codePrefix) {
   const fail2 = (line, column, code, message, expected) => ({
     ok: false,
@@ -36798,17 +36918,41 @@ function readYaml(text2, file2, limits, codePrefix) {
     return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
   }
   const lineCounter = new import_yaml.LineCounter();
-  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const tokens = Array.from(new import_yaml.Parser(lineCounter.addNewLine).parse(text2));
+  const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
+  if (tooDeepAt !== void 0) {
+    const pos = lineCounter.linePos(tooDeepAt);
+    return fail2(
+      pos.line,
+      pos.col,
+      "too-deep",
+      `lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`,
+      `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`
+    );
+  }
+  const composer = new import_yaml.Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
+  let doc;
+  let secondDocumentAt;
+  for (const composed of composer.compose(tokens, true, text2.length)) {
+    if (!doc) doc = composed;
+    else {
+      secondDocumentAt = composed.range[0];
+      break;
+    }
+  }
+  if (!doc) return fail2(1, 1, "bad-yaml", "this is not valid YAML");
+  if (secondDocumentAt !== void 0 && doc.errors.length === 0) {
+    const pos = lineCounter.linePos(secondDocumentAt);
+    return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+  }
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
     if (firstError.code === "DUPLICATE_KEY") {
       return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
     }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+    const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${explained.message}`, explained.expected);
   }
   let complexKeyAt;
   (0, import_yaml.visit)(doc, {
@@ -36877,6 +37021,34 @@ function childOf(node2, segment) {
     return node2.items[segment] ?? null;
   }
   return null;
+}
+function firstOffsetDeeperThan(tokens, limit) {
+  const stack = tokens.map((token) => ({ token, depth: 0 }));
+  let first;
+  while (stack.length > 0) {
+    const { token, depth } = stack.pop();
+    const children = [];
+    let childDepth = depth;
+    switch (token.type) {
+      case "document":
+        children.push(token.value);
+        break;
+      case "block-map":
+      case "block-seq":
+      case "flow-collection":
+        childDepth = depth + 1;
+        if (childDepth > limit) {
+          first = first === void 0 ? token.offset : Math.min(first, token.offset);
+          continue;
+        }
+        for (const item of token.items) children.push("key" in item ? item.key : void 0, item.value);
+        break;
+      default:
+        break;
+    }
+    for (const child of children) if (child) stack.push({ token: child, depth: childDepth });
+  }
+  return first;
 }
 function plainYamlMessage(message) {
   return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();

@@ -33,3 +33,14 @@ describe('a plan id tens of thousands of characters long', () => {
     expect(run.stdout + run.stderr).toMatch(/experiments\/good\.yaml:1:\d+: .*id: .*at most 100 characters long/);
   });
 });
+
+describe('deeply nested YAML', () => {
+  it.each([300, 1000])('%i levels are a plan error at the line where the nesting passes the limit', (levels) => {
+    const nested = `id: good\ntitle: ${'['.repeat(levels)}1${']'.repeat(levels)}\n`;
+    const r = repo(baseFiles({ 'experiments/good.yaml': nested }), {});
+    const run = runCli(['-C', r.root, 'validate']);
+    expect(run.status).toBe(1);
+    expect(run.stdout + run.stderr).toMatch(/experiments\/good\.yaml:2:\d+: .*nested more than 32 levels deep/);
+    expect(run.stdout + run.stderr).not.toMatch(/Maximum call stack|internal error/);
+  });
+});

@@ -37430,317 +37430,6 @@ function runRules(value, source, rules) {
   return problems;
 }
 
-// src/core/plan/rules.ts
-var windowInOrder = ({ value: plan, report }) => {
-  const { start, end } = plan.window;
-  if (start && end && end < start) {
-    report({
-      severity: "error",
-      code: "plan/window-order",
-      path: ["window", "end"],
-      message: `the window ends (${end}) before it starts (${start})`,
-      expected: `an end date on or after ${start}`
-    });
-  }
-};
-var liveHasStart = ({ value: plan, report }) => {
-  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
-    report({
-      severity: "warning",
-      code: "plan/start-missing",
-      path: ["window"],
-      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
-      expected: "window.start, e.g. 2026-11-02"
-    });
-  }
-};
-var armsAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  plan.design.arms.forEach((arm2, index) => {
-    if (seen.has(arm2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-arm",
-        path: ["design", "arms", index, "name"],
-        message: `arm "${arm2.name}" is listed twice`,
-        expected: "each arm name once"
-      });
-    }
-    seen.add(arm2.name);
-  });
-  if (!seen.has(plan.design.control)) {
-    report({
-      severity: "error",
-      code: "plan/unknown-control-arm",
-      path: ["design", "control"],
-      message: `the control arm "${plan.design.control}" is not one of the arms`,
-      expected: `one of ${[...seen].join(", ")}`
-    });
-  }
-};
-var sliceIsNotEmpty = ({ value: plan, report }) => {
-  const group = plan.surface.exclusionGroup;
-  if (!group) return;
-  const width = group.slice.to - group.slice.from;
-  if (width <= 0) {
-    report({
-      severity: "error",
-      code: "plan/empty-slice",
-      path: ["surface", "exclusion-group", "slice"],
-      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
-      expected: "from below to, e.g. { from: 0, to: 50 }"
-    });
-  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
-    report({
-      severity: "error",
-      code: "plan/traffic-beyond-slice",
-      path: ["design", "traffic-share"],
-      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
-      expected: `at most ${width / 100}`
-    });
-  }
-};
-function allMetrics(plan) {
-  return [
-    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
-    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
-    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
-  ];
-}
-var metricNamesAreDistinct = ({ value: plan, report }) => {
-  const seen = /* @__PURE__ */ new Set();
-  for (const { metric: metric2, path } of allMetrics(plan)) {
-    if (seen.has(metric2.name)) {
-      report({
-        severity: "error",
-        code: "plan/duplicate-metric",
-        path: [...path, "name"],
-        message: `metric "${metric2.name}" is defined more than once`,
-        expected: "each metric name once across primary, guardrails and secondary"
-      });
-    }
-    seen.add(metric2.name);
-  }
-};
-var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
-  for (const { metric: metric2, path, role } of allMetrics(plan)) {
-    if (role !== "guardrail") continue;
-    if (metric2.directionAssumed) {
-      report({
-        severity: "warning",
-        code: "plan/direction-assumed",
-        path: [...path, "direction"],
-        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
-        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
-      });
-    }
-    if (!metric2.tolerance) {
-      report({
-        severity: "warning",
-        code: "plan/tolerance-missing",
-        path: [...path, "tolerance"],
-        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
-        expected: "tolerance, e.g. { relative: 0.02 }"
-      });
-    }
-  }
-};
-var groupUnitsDescribeClusters = ({ value: plan, report }) => {
-  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
-  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-missing",
-      path: ["design", "cluster"],
-      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
-      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
-    });
-  }
-  if (!isGroup && plan.design.cluster) {
-    report({
-      severity: "warning",
-      code: "plan/cluster-unused",
-      path: ["design", "cluster"],
-      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
-    });
-  }
-};
-var readinessNamesTargets = ({ value: plan, report }) => {
-  const { platforms, locales, ready } = plan.population;
-  ready.platforms.forEach((name, i) => {
-    if (platforms.length && !platforms.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "platforms", i],
-        message: `ready names platform "${name}", which is not in population.platforms`,
-        expected: `one of ${platforms.join(", ")}`
-      });
-    }
-  });
-  ready.locales.forEach((name, i) => {
-    if (locales.length && !locales.includes(name)) {
-      report({
-        severity: "warning",
-        code: "plan/ready-unknown-target",
-        path: ["population", "ready", "locales", i],
-        message: `ready names locale "${name}", which is not in population.locales`,
-        expected: `one of ${locales.join(", ")}`
-      });
-    }
-  });
-};
-var overlapsNameOthers = ({ value: plan, report }) => {
-  plan.surface.overlapsWith.forEach((id, i) => {
-    if (id === plan.id) {
-      report({
-        severity: "warning",
-        code: "plan/overlaps-itself",
-        path: ["surface", "overlaps-with", i],
-        message: "a plan cannot overlap with itself; remove its own id"
-      });
-    }
-  });
-};
-var DECISION_OUTCOMES = [
-  { key: "win", field: "win" },
-  { key: "flat", field: "flat" },
-  { key: "loss", field: "loss" },
-  { key: "guardrailBreach", field: "guardrail-breach" }
-];
-function missingDecisions(plan) {
-  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
-  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
-}
-var decisionsAreWritten = ({ value: plan, report }) => {
-  const missing = missingDecisions(plan);
-  if (missing.length === 0) return;
-  report({
-    severity: "warning",
-    code: "plan/decisions-missing",
-    path: ["decisions"],
-    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
-    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
-  });
-};
-var PLAN_RULES = [
-  windowInOrder,
-  liveHasStart,
-  armsAreDistinct,
-  sliceIsNotEmpty,
-  metricNamesAreDistinct,
-  guardrailsSayWhatHarmIs,
-  groupUnitsDescribeClusters,
-  readinessNamesTargets,
-  overlapsNameOthers,
-  decisionsAreWritten
-];
-
-// src/core/plan/load.ts
-var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
-function loadPlan(text2, file2) {
-  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
-  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
-  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
-  const problems = runRules(checked.value, read.source, PLAN_RULES);
-  const errors = problems.filter((p) => p.severity === "error");
-  const warnings = problems.filter((p) => p.severity === "warning");
-  if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
-}
-
-// src/run/load-workspace.ts
-async function loadWorkspace(options) {
-  const { files } = options;
-  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
-  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
-  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
-  const settings = settingsResult.settings;
-  const planFiles = await findPlanFiles(files, settings.planPaths);
-  const problems = [];
-  const plans = [];
-  const texts = await files.readTexts(planFiles);
-  for (const [index, file2] of planFiles.entries()) {
-    options.onProgress?.(index, planFiles.length, "plans");
-    const result = loadPlan(texts[index] ?? "", file2);
-    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
-    if (result.ok) plans.push(result.loaded);
-  }
-  options.onProgress?.(planFiles.length, planFiles.length, "plans");
-  const extra = [];
-  for (const [index, file2] of settings.registryFiles.entries()) {
-    const text2 = await files.readText(file2);
-    if (text2 === void 0) {
-      return {
-        ok: false,
-        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
-        settingsProblems: [
-          {
-            severity: "error",
-            code: "settings/registry-missing",
-            ...settingsResult.locate(["registries", index]),
-            field: `registries[${index}]`,
-            message: `the registry file ${file2} does not exist`,
-            expected: "a path relative to the repository root"
-          }
-        ]
-      };
-    }
-    const result = loadRegistryFile(text2, file2);
-    if (result.ok) extra.push(...result.entries);
-    else problems.push(...result.errors);
-  }
-  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
-  problems.push(...registryProblems);
-  return {
-    ok: true,
-    workspace: {
-      settings,
-      ...settingsFile ? { settingsFile } : {},
-      planFiles,
-      plans,
-      registry: registry2,
-      problems: sortProblems(problems)
-    }
-  };
-}
-function ownFilesOf(workspace) {
-  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
-}
-async function requireWorkspace(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) {
-    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
-${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
-  }
-  return loaded.workspace;
-}
-async function readSettingsText(files, named) {
-  if (named) {
-    const text2 = await files.readText(named);
-    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
-    return { text: text2, file: named };
-  }
-  for (const candidate of SETTINGS_FILE_NAMES) {
-    const text2 = await files.readText(candidate);
-    if (text2 !== void 0) return { text: text2, file: candidate };
-  }
-  return {};
-}
-async function findPlanFiles(files, planPaths) {
-  const found = /* @__PURE__ */ new Set();
-  for (const root of planSearchRoots(planPaths)) {
-    for (const path of await files.listFiles(root.folder)) {
-      if (root.matches(path)) found.add(path);
-    }
-  }
-  return [...found].sort();
-}
-
-// src/run/scaffold.ts
-import { posix } from "node:path";
-
 // src/core/calendar.ts
 var DAY_MS = 864e5;
 function toUtcMs(date5) {
@@ -37755,371 +37444,6 @@ function daysBetween(from, to) {
 }
 function inclusiveDays(start, end) {
   return daysBetween(start, end) + 1;
-}
-
-// src/core/plan/scaffold.ts
-function planIdFromFlag(flagKey2) {
-  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
-}
-function renderPlanScaffold(options) {
-  const id = options.id ?? planIdFromFlag(options.flagKey);
-  const start = addDays(options.today, 7);
-  const end = addDays(start, 27);
-  const quote = (s) => JSON.stringify(s);
-  return `# yaml-language-server: $schema=${options.schemaPath}
-# Experiment plan, written before launch. Reference: docs/plan-reference.md
-id: ${id}
-title: ${quote(`Describe the change behind ${options.flagKey}`)}
-owners: [${quote(options.owner ?? "@your-handle")}]
-flags: [${quote(options.flagKey)}]
-state: draft                # draft, live, on-hold or concluded
-window:
-  start: ${start}
-  end: ${end}           # four whole weeks; weekly cycles matter
-
-hypothesis:
-  change: "What users will see or get that they do not today."
-  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
-  expected-direction: increase
-
-unit:
-  randomization: user       # user, device, session, account, team, organization, household, region
-  # analysis: session       # only when metrics are averaged over another unit
-
-surface:
-  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
-  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
-  # overlaps-with: [another-plan-id]
-
-population:
-  platforms: [web]
-  locales: [en-GB]
-  ready:                    # where the change was checked: rendered, translated
-    platforms: []
-    locales: []
-
-exposure:
-  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
-  reach: 1                  # share of exposed units that reach the changed experience
-
-metrics:
-  primary:
-    name: conversion
-    kind: proportion        # proportion, mean or ratio
-    baseline: { rate: 0.1 } # replace with the measured baseline
-    events: [conversion_completed]
-  guardrails: []
-    # - name: page-latency
-    #   kind: mean
-    #   baseline: { mean: 420, sd: 180 }
-    #   events: [page_rendered]
-    #   direction: decrease
-    #   tolerance: { relative: 0.02 }
-
-design:
-  arms:
-    - { name: control, weight: 50 }
-    - { name: treatment, weight: 50 }
-  alpha: 0.05
-  power: 0.8
-  min-detectable-effect: { relative: 0.05 }
-  # daily-units: 10000      # expected eligible units per day
-
-# Decision rules: write them now, before any data arrives.
-# decisions:
-#   win: ""
-#   flat: ""
-#   loss: ""
-#   guardrail-breach: ""
-`;
-}
-
-// src/run/scaffold.ts
-var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
-async function scaffoldPlan(request) {
-  const workspace = await requireWorkspace(request);
-  const id = request.id ?? planIdFromFlag(request.flagKey);
-  const taken = workspace.registry.entries.find((entry) => entry.id === id);
-  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
-  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
-  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
-  const path = request.out ?? posix.join(folder, `${id}.yaml`);
-  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
-  const text2 = renderPlanScaffold({
-    flagKey: request.flagKey,
-    id,
-    today: request.today,
-    schemaPath,
-    ...request.owner ? { owner: request.owner } : {},
-    ...request.surface ? { surface: request.surface } : {}
-  });
-  const check2 = loadPlan(text2, path);
-  if (!check2.ok) {
-    throw new UsageError(`the new plan would not be valid:
-${check2.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
-  }
-  return { path, text: text2, id };
-}
-
-// src/run/validate.ts
-async function validateRepository(options) {
-  const loaded = await loadWorkspace(options);
-  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
-  const { workspace } = loaded;
-  return {
-    kind: "report",
-    report: {
-      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
-      planFiles: workspace.planFiles.length,
-      validPlans: workspace.plans.length,
-      registryFiles: workspace.settings.registryFiles.length,
-      registryEntries: workspace.registry.entries.length,
-      errors: workspace.problems.filter((p) => p.severity === "error").length,
-      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
-      problems: workspace.problems
-    }
-  };
-}
-
-// src/cli/output.ts
-function createCliOutput(options) {
-  const env = process.env;
-  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
-  const interactive = process.stderr.isTTY === true && env.CI !== "true";
-  let drawn = false;
-  return {
-    color,
-    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    progress(done, total, what) {
-      if (!interactive || total < 200) return;
-      if (done < total) {
-        if (done % 50 === 0) {
-          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
-          drawn = true;
-        }
-      } else if (drawn) {
-        process.stderr.write("\r\x1B[2K");
-        drawn = false;
-      }
-    }
-  };
-}
-
-// src/cli/size-command.ts
-function addSizeOptions(command) {
-  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "expected new eligible units per day").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
-}
-var EXAMPLES = {
-  baseline: "0.12 (a rate) or 42.5 (a mean)",
-  sd: "30",
-  effect: "0.03 (3% relative)",
-  alpha: "0.05",
-  power: "0.8",
-  arms: "50,50",
-  "daily-units": "12000",
-  days: "28"
-};
-function number4(flag, text2) {
-  const value = Number(text2);
-  if (text2 === void 0 || text2.trim() === "" || !Number.isFinite(value)) {
-    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
-  }
-  return value;
-}
-function pair(flag, text2) {
-  const parts = (text2 ?? "").split(",");
-  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
-  return { mean: number4(flag, parts[0]), sd: number4(flag, parts[1]) };
-}
-function requestFromFlags(flags) {
-  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
-  let baseline;
-  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: number4("baseline", flags.baseline) };
-  else if (flags.kind === "mean") baseline = { kind: "mean", mean: number4("baseline", flags.baseline), sd: number4("sd", flags.sd) };
-  else baseline = { kind: "ratio", numerator: pair("numerator", flags.numerator), denominator: pair("denominator", flags.denominator), correlation: number4("correlation", flags.correlation) };
-  const weights = flags.arms.split(",").map((w) => number4("arms", w));
-  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
-  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
-  const looks = number4("interim-looks", flags.interimLooks);
-  if (!Number.isInteger(looks) || looks < 0 || looks > 20) throw new UsageError("--interim-looks needs a whole number from 0 to 20");
-  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
-  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
-  const effect = flags.effect === void 0 ? void 0 : number4("effect", flags.effect);
-  const clusterSize = flags.clusterSize === void 0 ? void 0 : number4("cluster-size", flags.clusterSize);
-  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
-  return {
-    baseline,
-    direction: flags.direction,
-    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
-    arms,
-    control: "control",
-    alpha: number4("alpha", flags.alpha),
-    power: number4("power", flags.power),
-    sides: flags.sides === "1" ? 1 : 2,
-    ...flags.dailyUnits !== void 0 ? { dailyUnits: number4("daily-units", flags.dailyUnits) } : {},
-    trafficShare: number4("traffic-share", flags.trafficShare),
-    reach: number4("reach", flags.reach),
-    interimLooks: looks,
-    boundary: flags.boundary,
-    prePeriodCorrelation: number4("pre-period-correlation", flags.prePeriodCorrelation),
-    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: number4("icc", flags.icc), sizeCv: number4("size-cv", flags.sizeCv) } } : {},
-    ...days !== void 0 ? { plannedDays: days } : {},
-    method: flags.method
-  };
-}
-
-// src/core/report/numbers.ts
-var NOT_A_NUMBER = "n/a";
-function formatCount(n) {
-  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
-}
-function formatRate(rate) {
-  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
-  const percent = rate * 100;
-  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
-  return `${percent.toFixed(Math.min(digits, 4))}%`;
-}
-function formatRelative(change2) {
-  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
-  const percent = change2 * 100;
-  const text2 = Number(percent.toPrecision(3)).toString();
-  return `${percent >= 0 ? "+" : ""}${text2}%`;
-}
-function formatValue(value) {
-  if (!Number.isFinite(value)) return NOT_A_NUMBER;
-  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
-  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
-}
-function formatPower(power) {
-  if (!Number.isFinite(power)) return NOT_A_NUMBER;
-  if (power > 0.999) return ">99.9%";
-  if (power < 1e-3) return "<0.1%";
-  return `${(power * 100).toFixed(1)}%`;
-}
-function formatMultiplier(m) {
-  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
-}
-
-// src/core/report/sizing.ts
-var SIZING_JSON_FORMAT = "plumbline.sizing/1";
-function valueText(entry, value) {
-  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
-}
-function describeChange(entry, change2, from) {
-  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
-  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
-}
-function sizeCells(size) {
-  if (!size) return ["", "", "", ""];
-  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
-  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : "", size.duration ? String(size.duration.weeks) : ""];
-}
-function rows(sizing) {
-  return sizing.metrics.map((entry) => {
-    const role = entry.role === "guardrail" ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
-    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
-    const s = entry.result.value;
-    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
-    const end = s.atPlannedEnd;
-    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
-    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
-  });
-}
-var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
-function multiplierNotes(entry, sizing) {
-  const m = sizing.multipliers;
-  const out = [];
-  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
-  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (sizing.boundaries) {
-    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
-    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
-    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
-  }
-  if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
-    out.push(
-      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
-    );
-  }
-  return out.map((text2) => `${entry.metric}: ${text2}`);
-}
-function notesOf(sizing) {
-  return sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []);
-}
-function windowLine(sizing, context2) {
-  if (sizing.plannedDays !== void 0) {
-    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
-    return `Planned window: ${sizing.plannedDays} days${dates}.`;
-  }
-  return "Planned window: not set, so power and detectable effect at the end are not computed.";
-}
-function renderSizingText(sizing, context2) {
-  const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
-  const traffic = sizing.dailyUnits === void 0 ? "No daily-units given, so no durations." : "";
-  const notes = notesOf(sizing);
-  return [
-    context2.title,
-    context2.designLine,
-    windowLine(sizing, context2),
-    ...traffic ? [traffic] : [],
-    "",
-    table,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
-  ].join("\n");
-}
-function mermaidPowerChart(entry, sizing, target) {
-  const points = sizing.powerByDay;
-  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
-  const days = points.map((p) => p.day).join(", ");
-  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
-  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
-  return [
-    "```mermaid",
-    "xychart-beta",
-    `  title "Power by day: ${entry.metric}"`,
-    `  x-axis "day" [${days}]`,
-    '  y-axis "power (%)" 0 --> 100',
-    `  line [${power}]`,
-    `  line [${goal}]`,
-    "```"
-  ].join("\n");
-}
-function markdownCell(text2) {
-  return text2.replace(/\|/g, "\\|");
-}
-function renderSizingMarkdown(sizing, context2) {
-  const table = [
-    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
-    `| ${HEADER.map(() => "---").join(" | ")} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
-  ];
-  const primary = sizing.metrics.find((m) => m.role === "primary");
-  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
-  const notes = notesOf(sizing);
-  return [
-    `### ${context2.title}`,
-    "",
-    [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
-    "",
-    ...table,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
-    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
-    ""
-  ].join("\n");
-}
-function sizingJson(sizing, context2) {
-  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
-}
-function designSummary(design) {
-  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
-  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
-  const traffic = design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
-  return `${arms}, ${test}${traffic}.`;
 }
 
 // src/core/stats/adjustments.ts
@@ -38534,6 +37858,815 @@ function sizePlan(plan) {
   };
 }
 
+// src/core/plan/number-rules.ts
+var METRIC_FIGURE = { min: 1e-12, max: 1e15, why: "a figure from 1e-12 to 1e15 in size (or 0 where 0 is allowed)" };
+var RELATIVE_EFFECT = { min: 1e-6, max: 100, why: "a relative change from 0.000001 to 100 (one in a million to a 101-fold change)" };
+var DAILY_UNITS = { min: 0.01, max: 1e10, why: "from 0.01 (one unit in a hundred days) to 10,000,000,000 (more than the world\u2019s population)" };
+var ARM_WEIGHT = { min: 1e-6, max: 1e6, why: "a weight from 0.000001 to 1,000,000" };
+var SMALLEST_ARM_SHARE = 1e-3;
+var CLUSTER_MEAN_SIZE = { min: 1, max: 1e7, why: "a mean group size from 1 to 10,000,000" };
+var CLUSTER_SIZE_CV = { min: 0, max: 10, why: "a coefficient of variation of group sizes from 0 to 10" };
+function checkBound(report, path, value, bound, zeroAllowed = false) {
+  if (value === void 0) return;
+  const size = Math.abs(value);
+  if (zeroAllowed && value === 0) return;
+  if (size >= bound.min && size <= bound.max) return;
+  report({
+    severity: "error",
+    code: "plan/number-out-of-range",
+    path,
+    message: `${value} is ${size < bound.min ? "too small" : "too large"} for sizing to give a meaningful figure`,
+    expected: bound.why
+  });
+}
+function metricFigures(metric2, path, report) {
+  const baseline = [...path, "baseline"];
+  if (metric2.kind === "mean") {
+    checkBound(report, [...baseline, "mean"], metric2.baseline.mean, METRIC_FIGURE, true);
+    checkBound(report, [...baseline, "sd"], metric2.baseline.sd, METRIC_FIGURE);
+  }
+  if (metric2.kind === "ratio") {
+    for (const part of ["numerator", "denominator"]) {
+      checkBound(report, [...baseline, part, "mean"], metric2.baseline[part].mean, METRIC_FIGURE, true);
+      checkBound(report, [...baseline, part, "sd"], metric2.baseline[part].sd, METRIC_FIGURE, true);
+    }
+  }
+  if (metric2.tolerance) effectFigures(metric2.tolerance, [...path, "tolerance"], report);
+}
+function effectFigures(effect, path, report) {
+  checkBound(report, [...path, "relative"], effect.relative, RELATIVE_EFFECT);
+  checkBound(report, [...path, "absolute"], effect.absolute, METRIC_FIGURE);
+}
+function numbersInRange(plan, report) {
+  const { design } = plan;
+  checkBound(report, ["design", "daily-units"], design.dailyUnits, DAILY_UNITS);
+  if (design.minDetectableEffect) effectFigures(design.minDetectableEffect, ["design", "min-detectable-effect"], report);
+  design.arms.forEach((arm2, i) => checkBound(report, ["design", "arms", i, "weight"], arm2.weight, ARM_WEIGHT));
+  const total = design.arms.reduce((sum, arm2) => sum + arm2.weight, 0);
+  const smallest = design.arms.reduce((min, arm2, i) => arm2.weight < design.arms[min].weight ? i : min, 0);
+  if (design.arms.length > 0 && Number.isFinite(total) && design.arms[smallest].weight / total < SMALLEST_ARM_SHARE) {
+    report({
+      severity: "error",
+      code: "plan/number-out-of-range",
+      path: ["design", "arms", smallest, "weight"],
+      message: `arm "${design.arms[smallest].name}" gets ${design.arms[smallest].weight} of ${total} weight, less than one unit in ${1 / SMALLEST_ARM_SHARE}`,
+      expected: `a weight giving every arm at least ${SMALLEST_ARM_SHARE * 100}% of the units`
+    });
+  }
+  if (design.cluster) {
+    checkBound(report, ["design", "cluster", "mean-size"], design.cluster.meanSize, CLUSTER_MEAN_SIZE);
+    checkBound(report, ["design", "cluster", "size-cv"], design.cluster.sizeCv, CLUSTER_SIZE_CV, true);
+  }
+  metricFigures(plan.metrics.primary, ["metrics", "primary"], report);
+  plan.metrics.guardrails.forEach((m, i) => metricFigures(m, ["metrics", "guardrails", i], report));
+  plan.metrics.secondary.forEach((m, i) => metricFigures(m, ["metrics", "secondary", i], report));
+}
+function sizeable(plan, report) {
+  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } });
+  for (const entry of sizing.metrics) {
+    if (entry.result.ok) continue;
+    const { input: input2, message } = entry.result.error;
+    const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === entry.metric);
+    if (entry.role !== "primary" && guardrail < 0) continue;
+    const metricPath = entry.role === "primary" ? ["metrics", "primary"] : ["metrics", "guardrails", guardrail];
+    const effectPath = entry.role === "primary" ? ["design", "min-detectable-effect"] : [...metricPath, "tolerance"];
+    let path;
+    if (input2 === "effect") path = effectPath;
+    else if (input2 === "baseline" || input2.startsWith("baseline.")) path = [...metricPath, ...input2.split(".")];
+    if (!path) continue;
+    report({
+      severity: "error",
+      code: "plan/cannot-be-sized",
+      path,
+      message: `${entry.metric} cannot be sized: ${message}`,
+      expected: input2 === "effect" ? "an effect sizing can use (an absolute one where the baseline is 0)" : "baseline figures sizing can use"
+    });
+  }
+}
+var numbersAreSizeable = ({ value: plan, report }) => {
+  let outOfRange = 0;
+  numbersInRange(plan, (problem) => {
+    outOfRange++;
+    report(problem);
+  });
+  if (outOfRange === 0) sizeable(plan, report);
+};
+var NUMBER_RULES = [numbersAreSizeable];
+
+// src/core/plan/rules.ts
+var windowInOrder = ({ value: plan, report }) => {
+  const { start, end } = plan.window;
+  if (start && end && end < start) {
+    report({
+      severity: "error",
+      code: "plan/window-order",
+      path: ["window", "end"],
+      message: `the window ends (${end}) before it starts (${start})`,
+      expected: `an end date on or after ${start}`
+    });
+  }
+};
+var liveHasStart = ({ value: plan, report }) => {
+  if ((plan.state === "live" || plan.state === "on-hold" || plan.state === "concluded") && !plan.window.start) {
+    report({
+      severity: "warning",
+      code: "plan/start-missing",
+      path: ["window"],
+      message: `the plan is ${plan.state} but has no start date, so its window cannot be checked`,
+      expected: "window.start, e.g. 2026-11-02"
+    });
+  }
+};
+var armsAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  plan.design.arms.forEach((arm2, index) => {
+    if (seen.has(arm2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-arm",
+        path: ["design", "arms", index, "name"],
+        message: `arm "${arm2.name}" is listed twice`,
+        expected: "each arm name once"
+      });
+    }
+    seen.add(arm2.name);
+  });
+  if (!seen.has(plan.design.control)) {
+    report({
+      severity: "error",
+      code: "plan/unknown-control-arm",
+      path: ["design", "control"],
+      message: `the control arm "${plan.design.control}" is not one of the arms`,
+      expected: `one of ${[...seen].join(", ")}`
+    });
+  }
+};
+var sliceIsNotEmpty = ({ value: plan, report }) => {
+  const group = plan.surface.exclusionGroup;
+  if (!group) return;
+  const width = group.slice.to - group.slice.from;
+  if (width <= 0) {
+    report({
+      severity: "error",
+      code: "plan/empty-slice",
+      path: ["surface", "exclusion-group", "slice"],
+      message: `the slice from ${group.slice.from}% to ${group.slice.to}% holds no units`,
+      expected: "from below to, e.g. { from: 0, to: 50 }"
+    });
+  } else if (plan.design.trafficShare > width / 100 + 1e-9) {
+    report({
+      severity: "error",
+      code: "plan/traffic-beyond-slice",
+      path: ["design", "traffic-share"],
+      message: `traffic-share ${plan.design.trafficShare} is more than the exclusion-group slice of ${width}% allows`,
+      expected: `at most ${width / 100}`
+    });
+  }
+};
+function allMetrics(plan) {
+  return [
+    { metric: plan.metrics.primary, path: ["metrics", "primary"], role: "primary" },
+    ...plan.metrics.guardrails.map((metric2, i) => ({ metric: metric2, path: ["metrics", "guardrails", i], role: "guardrail" })),
+    ...plan.metrics.secondary.map((metric2, i) => ({ metric: metric2, path: ["metrics", "secondary", i], role: "secondary" }))
+  ];
+}
+var metricNamesAreDistinct = ({ value: plan, report }) => {
+  const seen = /* @__PURE__ */ new Set();
+  for (const { metric: metric2, path } of allMetrics(plan)) {
+    if (seen.has(metric2.name)) {
+      report({
+        severity: "error",
+        code: "plan/duplicate-metric",
+        path: [...path, "name"],
+        message: `metric "${metric2.name}" is defined more than once`,
+        expected: "each metric name once across primary, guardrails and secondary"
+      });
+    }
+    seen.add(metric2.name);
+  }
+};
+var guardrailsSayWhatHarmIs = ({ value: plan, report }) => {
+  for (const { metric: metric2, path, role } of allMetrics(plan)) {
+    if (role !== "guardrail") continue;
+    if (metric2.directionAssumed) {
+      report({
+        severity: "warning",
+        code: "plan/direction-assumed",
+        path: [...path, "direction"],
+        message: `guardrail "${metric2.name}" does not say which direction is good; "increase" was assumed`,
+        expected: "direction: increase or decrease (e.g. decrease for latency or errors)"
+      });
+    }
+    if (!metric2.tolerance) {
+      report({
+        severity: "warning",
+        code: "plan/tolerance-missing",
+        path: [...path, "tolerance"],
+        message: `guardrail "${metric2.name}" has no tolerated harm, so a breach cannot be judged`,
+        expected: "tolerance, e.g. { relative: 0.02 }"
+      });
+    }
+  }
+};
+var groupUnitsDescribeClusters = ({ value: plan, report }) => {
+  const isGroup = GROUP_UNITS.includes(plan.unit.randomization);
+  if (isGroup && plan.unit.analysis !== plan.unit.randomization && !plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-missing",
+      path: ["design", "cluster"],
+      message: `${plan.unit.randomization}s are randomized and ${plan.unit.analysis}s analysed, but the design gives no group size or intra-cluster correlation, so sizing cannot apply the design effect`,
+      expected: "design.cluster, e.g. { mean-size: 8, icc: 0.05 }"
+    });
+  }
+  if (!isGroup && plan.design.cluster) {
+    report({
+      severity: "warning",
+      code: "plan/cluster-unused",
+      path: ["design", "cluster"],
+      message: `design.cluster applies only when a group (${GROUP_UNITS.join(", ")}) is randomized; it is ignored for ${plan.unit.randomization}`
+    });
+  }
+};
+var readinessNamesTargets = ({ value: plan, report }) => {
+  const { platforms, locales, ready } = plan.population;
+  ready.platforms.forEach((name, i) => {
+    if (platforms.length && !platforms.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "platforms", i],
+        message: `ready names platform "${name}", which is not in population.platforms`,
+        expected: `one of ${platforms.join(", ")}`
+      });
+    }
+  });
+  ready.locales.forEach((name, i) => {
+    if (locales.length && !locales.includes(name)) {
+      report({
+        severity: "warning",
+        code: "plan/ready-unknown-target",
+        path: ["population", "ready", "locales", i],
+        message: `ready names locale "${name}", which is not in population.locales`,
+        expected: `one of ${locales.join(", ")}`
+      });
+    }
+  });
+};
+var overlapsNameOthers = ({ value: plan, report }) => {
+  plan.surface.overlapsWith.forEach((id, i) => {
+    if (id === plan.id) {
+      report({
+        severity: "warning",
+        code: "plan/overlaps-itself",
+        path: ["surface", "overlaps-with", i],
+        message: "a plan cannot overlap with itself; remove its own id"
+      });
+    }
+  });
+};
+var DECISION_OUTCOMES = [
+  { key: "win", field: "win" },
+  { key: "flat", field: "flat" },
+  { key: "loss", field: "loss" },
+  { key: "guardrailBreach", field: "guardrail-breach" }
+];
+function missingDecisions(plan) {
+  const owed = plan.decisions.launchRegardless ? DECISION_OUTCOMES.filter((o) => o.key === "guardrailBreach") : DECISION_OUTCOMES;
+  return owed.filter((o) => !plan.decisions[o.key]).map((o) => o.field);
+}
+var decisionsAreWritten = ({ value: plan, report }) => {
+  const missing = missingDecisions(plan);
+  if (missing.length === 0) return;
+  report({
+    severity: "warning",
+    code: "plan/decisions-missing",
+    path: ["decisions"],
+    message: `no decision rule for ${missing.join(", ")}; without rules written before launch any result can be read as a win, and the pull-request review blocks`,
+    expected: `decisions with ${missing.map((m) => `${m}: "..."`).join(", ")}`
+  });
+};
+var PLAN_RULES = [
+  windowInOrder,
+  liveHasStart,
+  armsAreDistinct,
+  sliceIsNotEmpty,
+  metricNamesAreDistinct,
+  guardrailsSayWhatHarmIs,
+  groupUnitsDescribeClusters,
+  readinessNamesTargets,
+  overlapsNameOthers,
+  decisionsAreWritten,
+  ...NUMBER_RULES
+];
+
+// src/core/plan/load.ts
+var PLAN_LIMITS = { maxBytes: 256 * 1024, maxAliases: 100 };
+function loadPlan(text2, file2) {
+  const read = readYaml(text2, file2, PLAN_LIMITS, "plan");
+  if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  const checked = checkWritten(read.source, planSchema, planJsonSchema(), "plan");
+  if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
+  const problems = runRules(checked.value, read.source, PLAN_RULES);
+  const errors = problems.filter((p) => p.severity === "error");
+  const warnings = problems.filter((p) => p.severity === "warning");
+  if (errors.length) return { ok: false, errors, warnings };
+  return { ok: true, loaded: { plan: checked.value, file: file2, line: read.source.locate(["id"]).line }, warnings };
+}
+
+// src/run/load-workspace.ts
+async function loadWorkspace(options) {
+  const { files } = options;
+  const { text: settingsText, file: settingsFile } = await readSettingsText(files, options.settingsPath);
+  const settingsResult = loadSettings(settingsText, settingsFile ?? SETTINGS_FILE_NAMES[0]);
+  if (!settingsResult.ok) return { ok: false, settingsProblems: settingsResult.errors, settingsFile };
+  const settings = settingsResult.settings;
+  const planFiles = await findPlanFiles(files, settings.planPaths);
+  const problems = [];
+  const plans = [];
+  const texts = await files.readTexts(planFiles);
+  for (const [index, file2] of planFiles.entries()) {
+    options.onProgress?.(index, planFiles.length, "plans");
+    const result = loadPlan(texts[index] ?? "", file2);
+    problems.push(...result.ok ? [] : result.errors, ...result.warnings);
+    if (result.ok) plans.push(result.loaded);
+  }
+  options.onProgress?.(planFiles.length, planFiles.length, "plans");
+  const extra = [];
+  for (const [index, file2] of settings.registryFiles.entries()) {
+    const text2 = await files.readText(file2);
+    if (text2 === void 0) {
+      return {
+        ok: false,
+        settingsFile: settingsFile ?? SETTINGS_FILE_NAMES[0],
+        settingsProblems: [
+          {
+            severity: "error",
+            code: "settings/registry-missing",
+            ...settingsResult.locate(["registries", index]),
+            field: `registries[${index}]`,
+            message: `the registry file ${file2} does not exist`,
+            expected: "a path relative to the repository root"
+          }
+        ]
+      };
+    }
+    const result = loadRegistryFile(text2, file2);
+    if (result.ok) extra.push(...result.entries);
+    else problems.push(...result.errors);
+  }
+  const { registry: registry2, problems: registryProblems } = buildRegistry(plans, extra);
+  problems.push(...registryProblems);
+  return {
+    ok: true,
+    workspace: {
+      settings,
+      ...settingsFile ? { settingsFile } : {},
+      planFiles,
+      plans,
+      registry: registry2,
+      problems: sortProblems(problems)
+    }
+  };
+}
+function ownFilesOf(workspace) {
+  return /* @__PURE__ */ new Set([...workspace.planFiles, ...workspace.settings.registryFiles, ...workspace.settingsFile ? [workspace.settingsFile] : []]);
+}
+async function requireWorkspace(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) {
+    throw new UsageError(`the settings file ${loaded.settingsFile} has errors:
+${loaded.settingsProblems.map(formatProblem).join("\n")}`, "run plumbline validate");
+  }
+  return loaded.workspace;
+}
+async function readSettingsText(files, named) {
+  if (named) {
+    const text2 = await files.readText(named);
+    if (text2 === void 0) throw new UsageError(`the settings file ${named} does not exist`, "check the --config path; it is relative to --cwd");
+    return { text: text2, file: named };
+  }
+  for (const candidate of SETTINGS_FILE_NAMES) {
+    const text2 = await files.readText(candidate);
+    if (text2 !== void 0) return { text: text2, file: candidate };
+  }
+  return {};
+}
+async function findPlanFiles(files, planPaths) {
+  const found = /* @__PURE__ */ new Set();
+  for (const root of planSearchRoots(planPaths)) {
+    for (const path of await files.listFiles(root.folder)) {
+      if (root.matches(path)) found.add(path);
+    }
+  }
+  return [...found].sort();
+}
+
+// src/run/scaffold.ts
+import { posix } from "node:path";
+
+// src/core/plan/scaffold.ts
+function planIdFromFlag(flagKey2) {
+  return flagKey2.replace(/([a-z0-9])([A-Z])/g, "$1-$2").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "") || "new-plan";
+}
+function renderPlanScaffold(options) {
+  const id = options.id ?? planIdFromFlag(options.flagKey);
+  const start = addDays(options.today, 7);
+  const end = addDays(start, 27);
+  const quote = (s) => JSON.stringify(s);
+  return `# yaml-language-server: $schema=${options.schemaPath}
+# Experiment plan, written before launch. Reference: docs/plan-reference.md
+id: ${id}
+title: ${quote(`Describe the change behind ${options.flagKey}`)}
+owners: [${quote(options.owner ?? "@your-handle")}]
+flags: [${quote(options.flagKey)}]
+state: draft                # draft, live, on-hold or concluded
+window:
+  start: ${start}
+  end: ${end}           # four whole weeks; weekly cycles matter
+
+hypothesis:
+  change: "What users will see or get that they do not today."
+  # because: "Why it should work: the mechanism, not just 'the metric goes up'."
+  expected-direction: increase
+
+unit:
+  randomization: user       # user, device, session, account, team, organization, household, region
+  # analysis: session       # only when metrics are averaged over another unit
+
+surface:
+  path: ${options.surface ?? "area/page"}            # where the change lands, most general first, e.g. checkout/payment
+  # exclusion-group: { name: checkout-core, slice: { from: 0, to: 50 } }
+  # overlaps-with: [another-plan-id]
+
+population:
+  platforms: [web]
+  locales: [en-GB]
+  ready:                    # where the change was checked: rendered, translated
+    platforms: []
+    locales: []
+
+exposure:
+  event: ${id.replace(/-/g, "_")}_exposed   # logged when a unit is assigned AND sees the change
+  reach: 1                  # share of exposed units that reach the changed experience
+
+metrics:
+  primary:
+    name: conversion
+    kind: proportion        # proportion, mean or ratio
+    baseline: { rate: 0.1 } # replace with the measured baseline
+    events: [conversion_completed]
+  guardrails: []
+    # - name: page-latency
+    #   kind: mean
+    #   baseline: { mean: 420, sd: 180 }
+    #   events: [page_rendered]
+    #   direction: decrease
+    #   tolerance: { relative: 0.02 }
+
+design:
+  arms:
+    - { name: control, weight: 50 }
+    - { name: treatment, weight: 50 }
+  alpha: 0.05
+  power: 0.8
+  min-detectable-effect: { relative: 0.05 }
+  # daily-units: 10000      # expected eligible units per day
+
+# Decision rules: write them now, before any data arrives.
+# decisions:
+#   win: ""
+#   flat: ""
+#   loss: ""
+#   guardrail-breach: ""
+`;
+}
+
+// src/run/scaffold.ts
+var INSTALLED_SCHEMA = "node_modules/plumbline/schema/plan.schema.json";
+async function scaffoldPlan(request) {
+  const workspace = await requireWorkspace(request);
+  const id = request.id ?? planIdFromFlag(request.flagKey);
+  const taken = workspace.registry.entries.find((entry) => entry.id === id);
+  if (taken) throw new UsageError(`a plan with id "${id}" already exists in ${taken.file}:${taken.line}`, "choose another id with --id");
+  const firstPlans = workspace.settings.planPaths[0] ?? "experiments";
+  const folder = /[*?[{]/.test(firstPlans) || /\.ya?ml$/.test(firstPlans) ? "experiments" : firstPlans.replace(/\/+$/, "");
+  const path = request.out ?? posix.join(folder, `${id}.yaml`);
+  const schemaPath = posix.relative(posix.dirname(path), INSTALLED_SCHEMA);
+  const text2 = renderPlanScaffold({
+    flagKey: request.flagKey,
+    id,
+    today: request.today,
+    schemaPath,
+    ...request.owner ? { owner: request.owner } : {},
+    ...request.surface ? { surface: request.surface } : {}
+  });
+  const check2 = loadPlan(text2, path);
+  if (!check2.ok) {
+    throw new UsageError(`the new plan would not be valid:
+${check2.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface and the flag key");
+  }
+  return { path, text: text2, id };
+}
+
+// src/run/validate.ts
+async function validateRepository(options) {
+  const loaded = await loadWorkspace(options);
+  if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
+  const { workspace } = loaded;
+  return {
+    kind: "report",
+    report: {
+      ...workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {},
+      planFiles: workspace.planFiles.length,
+      validPlans: workspace.plans.length,
+      registryFiles: workspace.settings.registryFiles.length,
+      registryEntries: workspace.registry.entries.length,
+      errors: workspace.problems.filter((p) => p.severity === "error").length,
+      warnings: workspace.problems.filter((p) => p.severity === "warning").length,
+      problems: workspace.problems
+    }
+  };
+}
+
+// src/cli/output.ts
+function createCliOutput(options) {
+  const env = process.env;
+  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
+  const interactive = process.stderr.isTTY === true && env.CI !== "true";
+  let drawn = false;
+  return {
+    color,
+    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    progress(done, total, what) {
+      if (!interactive || total < 200) return;
+      if (done < total) {
+        if (done % 50 === 0) {
+          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
+          drawn = true;
+        }
+      } else if (drawn) {
+        process.stderr.write("\r\x1B[2K");
+        drawn = false;
+      }
+    }
+  };
+}
+
+// src/cli/size-command.ts
+function addSizeOptions(command) {
+  return command.addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).addOption(new Option("--kind <kind>", "metric kind, to size without a plan").choices(["proportion", "mean", "ratio"])).option("--baseline <number>", "baseline rate (proportion, e.g. 0.12) or mean (mean)").option("--sd <number>", "standard deviation per unit (mean)").option("--numerator <mean,sd>", "per-unit mean and sd of the numerator (ratio), e.g. 0.9,1.4").option("--denominator <mean,sd>", "per-unit mean and sd of the denominator (ratio), e.g. 3.2,2.5").option("--correlation <number>", "correlation of numerator and denominator (ratio)", "0").option("--effect <number>", "minimum detectable effect, relative (0.03 = 3%) unless --absolute").option("--absolute", "read --effect in the metric\u2019s own units", false).addOption(new Option("--direction <direction>", "direction of the effect").choices(["increase", "decrease"]).default("increase")).option("--alpha <number>", "significance level", "0.05").option("--power <number>", "power", "0.8").addOption(new Option("--sides <n>", "one- or two-sided test").choices(["1", "2"]).default("2")).option("--arms <weights>", "arm weights, control first, e.g. 50,50 or 34,33,33", "50,50").option("--daily-units <number>", "expected new eligible units per day").option("--traffic-share <number>", "share of eligible units enrolled", "1").option("--reach <number>", "share of exposed units that reach the change", "1").option("--interim-looks <n>", "interim analyses before the final one", "0").addOption(new Option("--boundary <kind>", "stopping boundary for interim looks").choices([...BOUNDARY_KINDS]).default("obrien-fleming-spending")).option("--pre-period-correlation <number>", "correlation with the pre-period value (CUPED)", "0").option("--cluster-size <number>", "mean group size, when groups are randomized").option("--icc <number>", "intra-cluster correlation, when groups are randomized").option("--size-cv <number>", "coefficient of variation of group sizes", "0").option("--days <n>", "planned days, for power and detectable effect at the end").addOption(new Option("--method <method>", "mean and ratio metrics: exact t, normal approximation, or auto").choices(["auto", "exact", "normal"]).default("auto"));
+}
+var EXAMPLES = {
+  baseline: "0.12 (a rate) or 42.5 (a mean)",
+  sd: "30",
+  effect: "0.03 (3% relative)",
+  alpha: "0.05",
+  power: "0.8",
+  arms: "50,50",
+  "daily-units": "12000",
+  days: "28"
+};
+function number4(flag, text2) {
+  const value = Number(text2);
+  if (text2 === void 0 || text2.trim() === "" || !Number.isFinite(value)) {
+    throw new UsageError(`--${flag} needs a number; got ${JSON.stringify(text2 ?? "")}`, `e.g. --${flag} ${EXAMPLES[flag] ?? "0.5"}`);
+  }
+  return value;
+}
+function pair(flag, text2) {
+  const parts = (text2 ?? "").split(",");
+  if (parts.length !== 2) throw new UsageError(`--${flag} needs a mean and a standard deviation separated by a comma`, `e.g. --${flag} 0.9,1.4`);
+  return { mean: number4(flag, parts[0]), sd: number4(flag, parts[1]) };
+}
+function requestFromFlags(flags) {
+  if (!flags.kind) throw new UsageError("name a plan (id or file), or describe the metric with --kind", "e.g. plumbline size checkout-wallet-first, or plumbline size --kind proportion --baseline 0.1 --effect 0.05");
+  let baseline;
+  if (flags.kind === "proportion") baseline = { kind: "proportion", rate: number4("baseline", flags.baseline) };
+  else if (flags.kind === "mean") baseline = { kind: "mean", mean: number4("baseline", flags.baseline), sd: number4("sd", flags.sd) };
+  else baseline = { kind: "ratio", numerator: pair("numerator", flags.numerator), denominator: pair("denominator", flags.denominator), correlation: number4("correlation", flags.correlation) };
+  const weights = flags.arms.split(",").map((w) => number4("arms", w));
+  if (weights.length < 2) throw new UsageError("--arms needs at least two weights, control first", "e.g. --arms 50,50");
+  const arms = weights.map((weight, i) => ({ name: i === 0 ? "control" : weights.length === 2 ? "treatment" : `treatment-${i}`, weight }));
+  const looks = number4("interim-looks", flags.interimLooks);
+  if (!Number.isInteger(looks) || looks < 0 || looks > 20) throw new UsageError("--interim-looks needs a whole number from 0 to 20");
+  const days = flags.days === void 0 ? void 0 : number4("days", flags.days);
+  if (days !== void 0 && !(Number.isInteger(days) && days > 0)) throw new UsageError("--days needs a whole number of days above 0");
+  const effect = flags.effect === void 0 ? void 0 : number4("effect", flags.effect);
+  const clusterSize = flags.clusterSize === void 0 ? void 0 : number4("cluster-size", flags.clusterSize);
+  if (clusterSize === void 0 !== (flags.icc === void 0)) throw new UsageError("--cluster-size and --icc go together");
+  return {
+    baseline,
+    direction: flags.direction,
+    ...effect !== void 0 ? { effect: flags.absolute ? { absolute: effect } : { relative: effect } } : {},
+    arms,
+    control: "control",
+    alpha: number4("alpha", flags.alpha),
+    power: number4("power", flags.power),
+    sides: flags.sides === "1" ? 1 : 2,
+    ...flags.dailyUnits !== void 0 ? { dailyUnits: number4("daily-units", flags.dailyUnits) } : {},
+    trafficShare: number4("traffic-share", flags.trafficShare),
+    reach: number4("reach", flags.reach),
+    interimLooks: looks,
+    boundary: flags.boundary,
+    prePeriodCorrelation: number4("pre-period-correlation", flags.prePeriodCorrelation),
+    ...clusterSize !== void 0 ? { cluster: { meanSize: clusterSize, icc: number4("icc", flags.icc), sizeCv: number4("size-cv", flags.sizeCv) } } : {},
+    ...days !== void 0 ? { plannedDays: days } : {},
+    method: flags.method
+  };
+}
+
+// src/core/report/numbers.ts
+var NOT_A_NUMBER = "n/a";
+function formatCount(n) {
+  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
+}
+function formatRate(rate) {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  const percent = rate * 100;
+  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
+  return `${percent.toFixed(Math.min(digits, 4))}%`;
+}
+function formatRelative(change2) {
+  if (!Number.isFinite(change2)) return NOT_A_NUMBER;
+  const percent = change2 * 100;
+  const text2 = Number(percent.toPrecision(3)).toString();
+  return `${percent >= 0 ? "+" : ""}${text2}%`;
+}
+function formatValue(value) {
+  if (!Number.isFinite(value)) return NOT_A_NUMBER;
+  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
+  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+}
+function formatPower(power) {
+  if (!Number.isFinite(power)) return NOT_A_NUMBER;
+  if (power > 0.999) return ">99.9%";
+  if (power < 1e-3) return "<0.1%";
+  return `${(power * 100).toFixed(1)}%`;
+}
+function formatMultiplier(m) {
+  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+
+// src/core/report/sizing.ts
+var SIZING_JSON_FORMAT = "plumbline.sizing/1";
+function valueText(entry, value) {
+  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function describeChange(entry, change2, from) {
+  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
+  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
+}
+function sizeCells(size) {
+  if (!size) return ["", "", "", ""];
+  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
+  return [perArm, formatCount(size.totalUnits), size.duration ? String(size.duration.days) : "", size.duration ? String(size.duration.weeks) : ""];
+}
+function rows(sizing) {
+  return sizing.metrics.map((entry) => {
+    const role = entry.role === "guardrail" ? `guardrail (harm, ${entry.sides}-sided)` : `primary (${entry.sides}-sided)`;
+    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
+    const s = entry.result.value;
+    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
+    const end = s.atPlannedEnd;
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
+  });
+}
+var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
+function multiplierNotes(entry, sizing) {
+  const m = sizing.multipliers;
+  const out = [];
+  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
+  if (m.designEffect > 1) out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${sizing.headline?.clusters !== void 0 ? `, ${formatCount(sizing.headline.clusters)} groups in all` : ""}.`);
+  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
+  if (sizing.boundaries) {
+    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
+    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
+  }
+  if (sizing.diluted && sizing.triggered) {
+    const triggeredDays = sizing.triggered.duration ? ` (${sizing.triggered.duration.days} days)` : "";
+    out.push(
+      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
+    );
+  }
+  return out.map((text2) => `${entry.metric}: ${text2}`);
+}
+function notesOf(sizing) {
+  return sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []);
+}
+function windowLine(sizing, context2) {
+  if (sizing.plannedDays !== void 0) {
+    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
+    return `Planned window: ${sizing.plannedDays} days${dates}.`;
+  }
+  return "Planned window: not set, so power and detectable effect at the end are not computed.";
+}
+function renderSizingText(sizing, context2) {
+  const table = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const traffic = sizing.dailyUnits === void 0 ? "No daily-units given, so no durations." : "";
+  const notes = notesOf(sizing);
+  return [
+    context2.title,
+    context2.designLine,
+    windowLine(sizing, context2),
+    ...traffic ? [traffic] : [],
+    "",
+    table,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
+  ].join("\n");
+}
+function mermaidPowerChart(entry, sizing, target) {
+  const points = sizing.powerByDay;
+  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
+  const days = points.map((p) => p.day).join(", ");
+  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
+  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
+  return [
+    "```mermaid",
+    "xychart-beta",
+    `  title "Power by day: ${entry.metric}"`,
+    `  x-axis "day" [${days}]`,
+    '  y-axis "power (%)" 0 --> 100',
+    `  line [${power}]`,
+    `  line [${goal}]`,
+    "```"
+  ].join("\n");
+}
+function markdownCell(text2) {
+  return text2.replace(/\|/g, "\\|");
+}
+function renderSizingMarkdown(sizing, context2) {
+  const table = [
+    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
+    `| ${HEADER.map(() => "---").join(" | ")} |`,
+    ...rows(sizing).map((r) => `| ${r.cells.map(markdownCell).join(" | ")} |`)
+  ];
+  const primary = sizing.metrics.find((m) => m.role === "primary");
+  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
+  const notes = notesOf(sizing);
+  return [
+    `### ${context2.title}`,
+    "",
+    [context2.designLine, windowLine(sizing, context2)].filter(Boolean).join(" "),
+    "",
+    ...table,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : [],
+    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
+    ""
+  ].join("\n");
+}
+function sizingJson(sizing, context2) {
+  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
+}
+function designSummary(design) {
+  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
+  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
+  const traffic = design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} eligible units a day, ${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
+  return `${arms}, ${test}${traffic}.`;
+}
+
+// src/core/stats/finite-sizing.ts
+var SUSPECTS = [
+  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
+  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
+  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
+  { figure: /power|detectable/, input: "effect", name: "the power" },
+  { figure: /./, input: "baseline", name: "a figure" }
+];
+function firstNonFinite(value) {
+  const stack = [{ at: "", value }];
+  while (stack.length > 0) {
+    const { at, value: current } = stack.pop();
+    if (typeof current === "number") {
+      if (!Number.isFinite(current)) return at;
+    } else if (current !== null && typeof current === "object") {
+      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
+      for (const [key, child] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child });
+    }
+  }
+  return void 0;
+}
+function finiteSizing(sizing) {
+  return {
+    ...sizing,
+    metrics: sizing.metrics.map((entry) => {
+      if (!entry.result.ok) return entry;
+      const at = firstNonFinite(entry.result.value);
+      if (at === void 0) return entry;
+      const suspect = SUSPECTS.find((s) => s.figure.test(at));
+      return {
+        ...entry,
+        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
+      };
+    })
+  };
+}
+
 // src/run/size.ts
 async function sizeNamedPlan(options) {
   const workspace = await requireWorkspace(options);
@@ -38548,7 +38681,7 @@ ${broken.map(formatProblem).join("\n")}`, "fix them, then size again");
   }
   const { plan } = found;
   return {
-    sizing: sizePlan(plan),
+    sizing: finiteSizing(sizePlan(plan)),
     power: plan.design.power,
     context: {
       title: `Sizing for ${plan.id} (${found.file})`,
@@ -38558,12 +38691,12 @@ ${broken.map(formatProblem).join("\n")}`, "fix them, then size again");
   };
 }
 function sizeFromRequest(request, window) {
-  const sizing = {
+  const sizing = finiteSizing({
     planId: "command-line",
     ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
     ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
     metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }]
-  };
+  });
   return {
     sizing,
     power: request.power,
@@ -39713,7 +39846,7 @@ async function reviewChange(options) {
   const touches = [...definitionTouches, ...codeTouches];
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
-  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan) }));
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: finiteSizing(sizePlan(p.plan)) }));
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)
@@ -40120,7 +40253,7 @@ function fromJson(value, file2) {
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
   if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = sizePlan(entry.plan).metrics[0];
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
   const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
   const daily = entry.plan.design.dailyUnits;
   if (!headline || daily === void 0) return void 0;

@@ -62475,6 +62475,167 @@ var eventRemoved = ({ removedEvents, events: events2, registry: registry2 }) => 
   ];
 });
 
+// src/core/stats/plan-sizing.ts
+function baselineOf(metric2) {
+  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
+  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
+  return { kind: "ratio", ...metric2.baseline };
+}
+function sizePlan(plan) {
+  const { design } = plan;
+  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
+  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
+  const common = {
+    arms: design.arms,
+    control: design.control,
+    alpha: design.alpha,
+    power: design.power,
+    trafficShare: design.trafficShare,
+    reach: plan.exposure.reach,
+    interimLooks: design.interimLooks,
+    boundary: design.interimBoundary,
+    prePeriodCorrelation: design.prePeriodCorrelation,
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    ...clustered && design.cluster ? { cluster: design.cluster } : {},
+    ...plannedDays !== void 0 ? { plannedDays } : {}
+  };
+  const primary = plan.metrics.primary;
+  const entries = [
+    {
+      metric: primary.name,
+      role: "primary",
+      kind: primary.kind,
+      direction: primary.direction,
+      sides: design.sides,
+      result: sizeMetric({
+        ...common,
+        baseline: baselineOf(primary),
+        direction: primary.direction,
+        sides: design.sides,
+        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
+      })
+    },
+    ...plan.metrics.guardrails.map((metric2) => {
+      const harm = metric2.direction === "increase" ? "decrease" : "increase";
+      return {
+        metric: metric2.name,
+        role: "guardrail",
+        kind: metric2.kind,
+        direction: harm,
+        sides: 1,
+        result: sizeMetric({
+          ...common,
+          baseline: baselineOf(metric2),
+          direction: harm,
+          sides: 1,
+          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
+        })
+      };
+    })
+  ];
+  return {
+    planId: plan.id,
+    ...plannedDays !== void 0 ? { plannedDays } : {},
+    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
+    metrics: entries
+  };
+}
+
+// src/core/plan/number-rules.ts
+var METRIC_FIGURE = { min: 1e-12, max: 1e15, why: "a figure from 1e-12 to 1e15 in size (or 0 where 0 is allowed)" };
+var RELATIVE_EFFECT = { min: 1e-6, max: 100, why: "a relative change from 0.000001 to 100 (one in a million to a 101-fold change)" };
+var DAILY_UNITS = { min: 0.01, max: 1e10, why: "from 0.01 (one unit in a hundred days) to 10,000,000,000 (more than the world\u2019s population)" };
+var ARM_WEIGHT = { min: 1e-6, max: 1e6, why: "a weight from 0.000001 to 1,000,000" };
+var SMALLEST_ARM_SHARE = 1e-3;
+var CLUSTER_MEAN_SIZE = { min: 1, max: 1e7, why: "a mean group size from 1 to 10,000,000" };
+var CLUSTER_SIZE_CV = { min: 0, max: 10, why: "a coefficient of variation of group sizes from 0 to 10" };
+function checkBound(report, path6, value, bound, zeroAllowed = false) {
+  if (value === void 0) return;
+  const size = Math.abs(value);
+  if (zeroAllowed && value === 0) return;
+  if (size >= bound.min && size <= bound.max) return;
+  report({
+    severity: "error",
+    code: "plan/number-out-of-range",
+    path: path6,
+    message: `${value} is ${size < bound.min ? "too small" : "too large"} for sizing to give a meaningful figure`,
+    expected: bound.why
+  });
+}
+function metricFigures(metric2, path6, report) {
+  const baseline = [...path6, "baseline"];
+  if (metric2.kind === "mean") {
+    checkBound(report, [...baseline, "mean"], metric2.baseline.mean, METRIC_FIGURE, true);
+    checkBound(report, [...baseline, "sd"], metric2.baseline.sd, METRIC_FIGURE);
+  }
+  if (metric2.kind === "ratio") {
+    for (const part of ["numerator", "denominator"]) {
+      checkBound(report, [...baseline, part, "mean"], metric2.baseline[part].mean, METRIC_FIGURE, true);
+      checkBound(report, [...baseline, part, "sd"], metric2.baseline[part].sd, METRIC_FIGURE, true);
+    }
+  }
+  if (metric2.tolerance) effectFigures(metric2.tolerance, [...path6, "tolerance"], report);
+}
+function effectFigures(effect, path6, report) {
+  checkBound(report, [...path6, "relative"], effect.relative, RELATIVE_EFFECT);
+  checkBound(report, [...path6, "absolute"], effect.absolute, METRIC_FIGURE);
+}
+function numbersInRange(plan, report) {
+  const { design } = plan;
+  checkBound(report, ["design", "daily-units"], design.dailyUnits, DAILY_UNITS);
+  if (design.minDetectableEffect) effectFigures(design.minDetectableEffect, ["design", "min-detectable-effect"], report);
+  design.arms.forEach((arm2, i) => checkBound(report, ["design", "arms", i, "weight"], arm2.weight, ARM_WEIGHT));
+  const total = design.arms.reduce((sum, arm2) => sum + arm2.weight, 0);
+  const smallest = design.arms.reduce((min, arm2, i) => arm2.weight < design.arms[min].weight ? i : min, 0);
+  if (design.arms.length > 0 && Number.isFinite(total) && design.arms[smallest].weight / total < SMALLEST_ARM_SHARE) {
+    report({
+      severity: "error",
+      code: "plan/number-out-of-range",
+      path: ["design", "arms", smallest, "weight"],
+      message: `arm "${design.arms[smallest].name}" gets ${design.arms[smallest].weight} of ${total} weight, less than one unit in ${1 / SMALLEST_ARM_SHARE}`,
+      expected: `a weight giving every arm at least ${SMALLEST_ARM_SHARE * 100}% of the units`
+    });
+  }
+  if (design.cluster) {
+    checkBound(report, ["design", "cluster", "mean-size"], design.cluster.meanSize, CLUSTER_MEAN_SIZE);
+    checkBound(report, ["design", "cluster", "size-cv"], design.cluster.sizeCv, CLUSTER_SIZE_CV, true);
+  }
+  metricFigures(plan.metrics.primary, ["metrics", "primary"], report);
+  plan.metrics.guardrails.forEach((m, i) => metricFigures(m, ["metrics", "guardrails", i], report));
+  plan.metrics.secondary.forEach((m, i) => metricFigures(m, ["metrics", "secondary", i], report));
+}
+function sizeable(plan, report) {
+  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } });
+  for (const entry of sizing.metrics) {
+    if (entry.result.ok) continue;
+    const { input: input2, message } = entry.result.error;
+    const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === entry.metric);
+    if (entry.role !== "primary" && guardrail < 0) continue;
+    const metricPath = entry.role === "primary" ? ["metrics", "primary"] : ["metrics", "guardrails", guardrail];
+    const effectPath = entry.role === "primary" ? ["design", "min-detectable-effect"] : [...metricPath, "tolerance"];
+    let path6;
+    if (input2 === "effect") path6 = effectPath;
+    else if (input2 === "baseline" || input2.startsWith("baseline.")) path6 = [...metricPath, ...input2.split(".")];
+    if (!path6) continue;
+    report({
+      severity: "error",
+      code: "plan/cannot-be-sized",
+      path: path6,
+      message: `${entry.metric} cannot be sized: ${message}`,
+      expected: input2 === "effect" ? "an effect sizing can use (an absolute one where the baseline is 0)" : "baseline figures sizing can use"
+    });
+  }
+}
+var numbersAreSizeable = ({ value: plan, report }) => {
+  let outOfRange = 0;
+  numbersInRange(plan, (problem) => {
+    outOfRange++;
+    report(problem);
+  });
+  if (outOfRange === 0) sizeable(plan, report);
+};
+var NUMBER_RULES = [numbersAreSizeable];
+
 // src/core/plan/rules.ts
 var windowInOrder = ({ value: plan, report }) => {
   const { start, end } = plan.window;
@@ -62678,7 +62839,8 @@ var PLAN_RULES = [
   groupUnitsDescribeClusters,
   readinessNamesTargets,
   overlapsNameOthers,
-  decisionsAreWritten
+  decisionsAreWritten,
+  ...NUMBER_RULES
 ];
 
 // src/core/source/problem.ts
@@ -63420,69 +63582,40 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
-// src/core/stats/plan-sizing.ts
-function baselineOf(metric2) {
-  if (metric2.kind === "proportion") return { kind: "proportion", rate: metric2.baseline.rate };
-  if (metric2.kind === "mean") return { kind: "mean", mean: metric2.baseline.mean, sd: metric2.baseline.sd };
-  return { kind: "ratio", ...metric2.baseline };
+// src/core/stats/finite-sizing.ts
+var SUSPECTS = [
+  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
+  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
+  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
+  { figure: /power|detectable/, input: "effect", name: "the power" },
+  { figure: /./, input: "baseline", name: "a figure" }
+];
+function firstNonFinite(value) {
+  const stack = [{ at: "", value }];
+  while (stack.length > 0) {
+    const { at, value: current } = stack.pop();
+    if (typeof current === "number") {
+      if (!Number.isFinite(current)) return at;
+    } else if (current !== null && typeof current === "object") {
+      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
+      for (const [key, child2] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child2 });
+    }
+  }
+  return void 0;
 }
-function sizePlan(plan) {
-  const { design } = plan;
-  const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : void 0;
-  const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
-  const common = {
-    arms: design.arms,
-    control: design.control,
-    alpha: design.alpha,
-    power: design.power,
-    trafficShare: design.trafficShare,
-    reach: plan.exposure.reach,
-    interimLooks: design.interimLooks,
-    boundary: design.interimBoundary,
-    prePeriodCorrelation: design.prePeriodCorrelation,
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    ...clustered && design.cluster ? { cluster: design.cluster } : {},
-    ...plannedDays !== void 0 ? { plannedDays } : {}
-  };
-  const primary = plan.metrics.primary;
-  const entries = [
-    {
-      metric: primary.name,
-      role: "primary",
-      kind: primary.kind,
-      direction: primary.direction,
-      sides: design.sides,
-      result: sizeMetric({
-        ...common,
-        baseline: baselineOf(primary),
-        direction: primary.direction,
-        sides: design.sides,
-        ...design.minDetectableEffect ? { effect: design.minDetectableEffect } : {}
-      })
-    },
-    ...plan.metrics.guardrails.map((metric2) => {
-      const harm = metric2.direction === "increase" ? "decrease" : "increase";
+function finiteSizing(sizing) {
+  return {
+    ...sizing,
+    metrics: sizing.metrics.map((entry) => {
+      if (!entry.result.ok) return entry;
+      const at = firstNonFinite(entry.result.value);
+      if (at === void 0) return entry;
+      const suspect = SUSPECTS.find((s) => s.figure.test(at));
       return {
-        metric: metric2.name,
-        role: "guardrail",
-        kind: metric2.kind,
-        direction: harm,
-        sides: 1,
-        result: sizeMetric({
-          ...common,
-          baseline: baselineOf(metric2),
-          direction: harm,
-          sides: 1,
-          ...metric2.tolerance ? { effect: metric2.tolerance } : {}
-        })
+        ...entry,
+        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
       };
     })
-  ];
-  return {
-    planId: plan.id,
-    ...plannedDays !== void 0 ? { plannedDays } : {},
-    ...design.dailyUnits !== void 0 ? { dailyUnits: design.dailyUnits } : {},
-    metrics: entries
   };
 }
 
@@ -64267,7 +64400,7 @@ async function reviewChange(options) {
   const touches = [...definitionTouches, ...codeTouches];
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
-  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan) }));
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: finiteSizing(sizePlan(p.plan)) }));
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)
@@ -64452,7 +64585,7 @@ var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
   if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = sizePlan(entry.plan).metrics[0];
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
   const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
   const daily = entry.plan.design.dailyUnits;
   if (!headline || daily === void 0) return void 0;

@@ -13,6 +13,7 @@ import { createNameScanner, type Location } from '../core/scan/name-scan.js';
 import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
+import { finiteSizing } from '../core/stats/finite-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
 import { loadWorkspace, ownFilesOf } from './load-workspace.js';
 
@@ -68,7 +69,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked: LinkedPlan[] = workspace.plans
     .filter((p) => links.has(p.plan.id))
-    .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: sizePlan(p.plan) }));
+    .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: finiteSizing(sizePlan(p.plan)) }));
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
     file,
     problems: workspace.problems.filter((p) => p.file === file),

@@ -1,4 +1,5 @@
 import { designSummary, type SizingContext } from '../core/report/sizing.js';
+import { finiteSizing } from '../core/stats/finite-sizing.js';
 import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
 import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
 import { formatProblem } from '../core/source/problem.js';
@@ -24,7 +25,7 @@ export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: stri
   }
   const { plan } = found;
   return {
-    sizing: sizePlan(plan),
+    sizing: finiteSizing(sizePlan(plan)),
     power: plan.design.power,
     context: {
       title: `Sizing for ${plan.id} (${found.file})`,
@@ -36,12 +37,12 @@ export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: stri
 
 /** Sizes one metric described entirely by command-line flags. */
 export function sizeFromRequest(request: SizingRequest, window?: { start: string; end: string }): SizeOutcome {
-  const sizing: PlanSizing = {
+  const sizing: PlanSizing = finiteSizing({
     planId: 'command-line',
     ...(request.plannedDays !== undefined ? { plannedDays: request.plannedDays } : {}),
     ...(request.dailyUnits !== undefined ? { dailyUnits: request.dailyUnits } : {}),
     metrics: [{ metric: 'metric', role: 'primary', kind: request.baseline.kind, direction: request.direction, sides: request.sides, result: sizeMetric(request) }],
-  };
+  });
   return {
     sizing,
     power: request.power,

@@ -38392,14 +38392,14 @@ async function validateRepository(options) {
 // src/cli/output.ts
 function createCliOutput(options) {
   const env = process.env;
-  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
-  const interactive = process.stderr.isTTY === true && env.CI !== "true";
+  const color = !options.write && !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
+  const interactive = !options.write && process.stderr.isTTY === true && env.CI !== "true";
   let drawn = false;
   return {
     color,
-    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
+    out: (text2) => (options.write ? options.write.out : (t) => process.stdout.write(t))(text2.endsWith("\n") ? text2 : `${text2}
 `),
-    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
+    err: (text2) => (options.write ? options.write.err : (t) => process.stderr.write(t))(text2.endsWith("\n") ? text2 : `${text2}
 `),
     progress(done, total, what) {
       if (!interactive || total < 200) return;
@@ -39554,7 +39554,7 @@ function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
   } catch {
     return void 0;
   }
@@ -40516,9 +40516,10 @@ var VERSION = "0.1.0";
 // src/cli/main.ts
 var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
 var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
-function context(options) {
-  const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve2(options.cwd));
+var REAL_DEPS = { files: createRepoFiles, openChange };
+function context(options, deps) {
+  const output2 = createCliOutput({ noColorFlag: !options.color, ...deps.write ? { write: deps.write } : {} });
+  const files = deps.files(resolve2(options.cwd));
   return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
 }
 function reportSettingsProblems(output2, format, file2, problems) {
@@ -40533,11 +40534,11 @@ function parseNumbers(what, texts) {
     return value;
   });
 }
-function buildProgram(setExit) {
+function buildProgram(setExit, deps = REAL_DEPS) {
   const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
   program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
     const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
+    const { output: output2, ...ports } = context(options, deps);
     const outcome = await validateRepository(ports);
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
     const { report } = outcome;
@@ -40546,7 +40547,7 @@ function buildProgram(setExit) {
   });
   program2.command("list").description("show the registry of tests: state, surface, window, owners").addOption(formatOption()).addOption(new Option("--state <state>", "only tests in this state").choices(["draft", "live", "on-hold", "concluded"])).action(async (local) => {
     const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
+    const { output: output2, ...ports } = context(options, deps);
     const loaded = await loadWorkspace(ports);
     if (!loaded.ok) return setExit(reportSettingsProblems(output2, options.format, loaded.settingsFile, loaded.settingsProblems));
     const { workspace } = loaded;
@@ -40557,7 +40558,7 @@ function buildProgram(setExit) {
   });
   program2.command("new").description("write a new commented draft plan for a feature flag").argument("<flag-key>", "the feature-flag key the test reads").option("--id <id>", "plan id (default: from the flag key)").option("--owner <handle>", "owner, e.g. @ana-lima").option("--surface <path>", "surface path, e.g. checkout/payment").option("--out <file>", "where to write it (default: <plans folder>/<id>.yaml)").option("--today <date>", "today as YYYY-MM-DD (default: the system date, UTC)").option("--force", "replace an existing file", false).option("--stdout", "print the plan instead of writing it", false).action(async (flagKey2, local) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     const today = local.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
@@ -40569,7 +40570,7 @@ function buildProgram(setExit) {
     program2.command("size").description("size a test: units per arm, days, power and detectable effect by the planned end").argument("[plan]", "plan id or plan file; omit to describe a metric with --kind and the flags below")
   ).action(async (planName, flags) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     if (planName && flags.kind) throw new UsageError("name a plan or give --kind, not both");
     const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
     if (!planName && !outcome.sizing.metrics[0].result.ok) {
@@ -40583,10 +40584,10 @@ function buildProgram(setExit) {
   });
   program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
     const options = program2.opts();
-    const { output: output2 } = context({ ...options, format: "text" });
+    const { output: output2 } = context({ ...options, format: "text" }, deps);
     const cwd = resolve2(options.cwd);
     const pr = await pullRequestInfo(flags, cwd);
-    const change2 = await openChange(cwd, flags.base, flags.head);
+    const change2 = await deps.openChange(cwd, flags.base, flags.head);
     const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
@@ -40600,7 +40601,7 @@ function buildProgram(setExit) {
   });
   program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
     if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
@@ -40638,9 +40639,10 @@ function buildProgram(setExit) {
   });
   return program2;
 }
-async function runCli(argv) {
+async function runCli(argv, deps = REAL_DEPS) {
   let exitCode = EXIT.ok;
-  const program2 = buildProgram((code) => exitCode = code);
+  const program2 = buildProgram((code) => exitCode = code, deps);
+  const stderr = (text2) => deps.write ? deps.write.err(text2) : process.stderr.write(text2);
   try {
     await program2.parseAsync(argv);
     return exitCode;
@@ -40649,7 +40651,7 @@ async function runCli(argv) {
       return error62.exitCode === 0 ? EXIT.ok : EXIT.usage;
     }
     if (error62 instanceof UsageError) {
-      process.stderr.write(`plumbline: ${error62.message}${error62.hint ? `
+      stderr(`plumbline: ${error62.message}${error62.hint ? `
   hint: ${error62.hint}` : ""}
 `);
       return EXIT.usage;
@@ -40657,13 +40659,13 @@ async function runCli(argv) {
     if (error62 instanceof ExternalError) {
       const cause = error62.cause instanceof Error ? `
   cause: ${error62.cause.message}` : "";
-      process.stderr.write(`plumbline: ${error62.message}${cause}${error62.hint ? `
+      stderr(`plumbline: ${error62.message}${cause}${error62.hint ? `
   hint: ${error62.hint}` : ""}
 `);
       return EXIT.usage;
     }
     const detail = error62 instanceof Error ? error62.stack ?? error62.message : String(error62);
-    process.stderr.write(`plumbline: internal error: ${detail}
+    stderr(`plumbline: internal error: ${detail}
 ${BUG_REPORT_HINT}
 `);
     return EXIT.internal;

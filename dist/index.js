@@ -63321,7 +63321,7 @@ function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
   } catch {
     return void 0;
   }

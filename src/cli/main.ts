@@ -17,6 +17,7 @@ import { addSizeOptions, requestFromFlags, type SizeFlags } from './size-command
 import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
 import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
 import { openChange } from '../adapters/git.js';
+import type { ChangeSource, RepoFiles } from '../ports.js';
 import { reviewChange } from '../run/review-change.js';
 import { renderReviewMarkdown } from '../core/report/review-markdown.js';
 import { renderReviewText } from '../core/report/review-text.js';
@@ -41,9 +42,21 @@ interface CommonOptions {
 
 const formatOption = () => new Option('--format <format>', 'output format').choices(['text', 'json']).default('text');
 
-function context(options: CommonOptions) {
-  const output = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve(options.cwd));
+/**
+ * What the commands reach outside the process through. The defaults are the real ones; the fuzzer
+ * (scripts/fuzz.ts) runs the very same program over files in memory and captures what it prints.
+ */
+export interface CliDeps {
+  files(root: string): RepoFiles;
+  openChange(root: string, base: string, head: string): Promise<ChangeSource>;
+  write?: { out(text: string): void; err(text: string): void };
+}
+
+const REAL_DEPS: CliDeps = { files: createRepoFiles, openChange };
+
+function context(options: CommonOptions, deps: CliDeps) {
+  const output = createCliOutput({ noColorFlag: !options.color, ...(deps.write ? { write: deps.write } : {}) });
+  const files = deps.files(resolve(options.cwd));
   return { output, files, settingsPath: options.config, onProgress: output.progress };
 }
 
@@ -61,7 +74,7 @@ function parseNumbers(what: string, texts: readonly string[]): number[] {
   });
 }
 
-export function buildProgram(setExit: (code: number) => void): Command {
+export function buildProgram(setExit: (code: number) => void, deps: CliDeps = REAL_DEPS): Command {
   const program = new Command('plumbline')
     .description('Experiment hygiene for code review: validate plans, list the registry, size and check changes.')
     .version(VERSION)
@@ -78,7 +91,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .addOption(formatOption())
     .action(async (local: { format: 'text' | 'json' }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
+      const { output, ...ports } = context(options, deps);
       const outcome = await validateRepository(ports);
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
       const { report } = outcome;
@@ -93,7 +106,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .addOption(new Option('--state <state>', 'only tests in this state').choices(['draft', 'live', 'on-hold', 'concluded']))
     .action(async (local: { format: 'text' | 'json'; state?: string }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
+      const { output, ...ports } = context(options, deps);
       const loaded = await loadWorkspace(ports);
       if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
       const { workspace } = loaded;
@@ -116,7 +129,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .option('--stdout', 'print the plan instead of writing it', false)
     .action(async (flagKey: string, local: { id?: string; owner?: string; surface?: string; out?: string; today?: string; force: boolean; stdout: boolean }) => {
       const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
+      const { output, ...ports } = context({ ...options, format: 'text' }, deps);
       const today = local.today ?? new Date().toISOString().slice(0, 10);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });
@@ -132,7 +145,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
       .argument('[plan]', 'plan id or plan file; omit to describe a metric with --kind and the flags below'),
   ).action(async (planName: string | undefined, flags: SizeFlags) => {
     const options = program.opts<CommonOptions>();
-    const { output, ...ports } = context({ ...options, format: 'text' });
+    const { output, ...ports } = context({ ...options, format: 'text' }, deps);
     if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
     const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
     if (!planName && !outcome.sizing.metrics[0]!.result.ok) {
@@ -161,10 +174,10 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .option('--output <file>', 'also write the JSON report to this file')
     .action(async (flags: CheckFlags) => {
       const options = program.opts<CommonOptions>();
-      const { output } = context({ ...options, format: 'text' });
+      const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
       const pr = await pullRequestInfo(flags, cwd);
-      const change = await openChange(cwd, flags.base!, flags.head);
+      const change = await deps.openChange(cwd, flags.base!, flags.head);
       const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
@@ -183,7 +196,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
     .action(async (local: { today?: string; format: string }) => {
       const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
+      const { output, ...ports } = context({ ...options, format: 'text' }, deps);
       if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
       if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
@@ -245,9 +258,10 @@ export function buildProgram(setExit: (code: number) => void): Command {
 }
 
 /** Runs the CLI and returns its exit code; the single place where errors are reported. */
-export async function runCli(argv: string[]): Promise<number> {
+export async function runCli(argv: string[], deps: CliDeps = REAL_DEPS): Promise<number> {
   let exitCode: number = EXIT.ok;
-  const program = buildProgram((code) => (exitCode = code));
+  const program = buildProgram((code) => (exitCode = code), deps);
+  const stderr = (text: string) => (deps.write ? deps.write.err(text) : process.stderr.write(text));
   try {
     await program.parseAsync(argv);
     return exitCode;
@@ -257,17 +271,17 @@ export async function runCli(argv: string[]): Promise<number> {
       return error.exitCode === 0 ? EXIT.ok : EXIT.usage;
     }
     if (error instanceof UsageError) {
-      process.stderr.write(`plumbline: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      stderr(`plumbline: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
       return EXIT.usage;
     }
     if (error instanceof ExternalError) {
       // The environment failed (a file system or git error): not the user's plans, so not exit 1.
       const cause = error.cause instanceof Error ? `\n  cause: ${error.cause.message}` : '';
-      process.stderr.write(`plumbline: ${error.message}${cause}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      stderr(`plumbline: ${error.message}${cause}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
       return EXIT.usage;
     }
     const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
-    process.stderr.write(`plumbline: internal error: ${detail}\n${BUG_REPORT_HINT}\n`);
+    stderr(`plumbline: internal error: ${detail}\n${BUG_REPORT_HINT}\n`);
     return EXIT.internal;
   }
 }

@@ -12,7 +12,7 @@ export function flagDefinitions(text: string | undefined): Map<string, string> |
   if (text === undefined) return new Map();
   let value: unknown;
   try {
-    value = parse(text, { maxAliasCount: 100 });
+    value = parse(text, { maxAliasCount: 100, logLevel: 'silent' });
   } catch {
     return undefined;
   }

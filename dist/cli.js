@@ -39400,9 +39400,16 @@ function buildReview(context2, change2) {
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
+  const codesByPlan = /* @__PURE__ */ new Map();
+  for (const f of findings) {
+    if (f.plan === void 0) continue;
+    const codes = codesByPlan.get(f.plan) ?? /* @__PURE__ */ new Set();
+    codes.add(f.code);
+    codesByPlan.set(f.plan, codes);
+  }
   const plans = context2.linked.map((linked) => {
     const { plan } = linked.loaded;
-    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    const mine = codesByPlan.get(plan.id) ?? /* @__PURE__ */ new Set();
     return {
       id: plan.id,
       title: plan.title,

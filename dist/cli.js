@@ -37160,276 +37160,6 @@ function buildRegistry(plans, extra) {
   return { registry: { entries: [...byId.values()] }, problems };
 }
 
-// src/core/config/schema.ts
-var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
-function compiles(pattern) {
-  try {
-    new RegExp(pattern, "u");
-    return true;
-  } catch {
-    return false;
-  }
-}
-var CALL_PATTERN_MAX_LENGTH = 500;
-var callPattern = (group, example) => {
-  const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
-};
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
-var DEFAULT_PLAN_FOLDERS = ["experiments"];
-var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
-var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
-function isTimeZone(zone) {
-  try {
-    new Intl.DateTimeFormat("en-US", { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
-}
-var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
-var writtenSettingsSchema = external_exports.strictObject(
-  {
-    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
-    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
-    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
-    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
-    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
-    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
-    scan: external_exports.strictObject(
-      {
-        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
-        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
-      },
-      { error: "a mapping with include and exclude" }
-    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
-    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
-    "bug-fix": external_exports.strictObject(
-      {
-        enabled: external_exports.boolean({ error: "true or false" }).default(true),
-        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
-        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
-        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
-        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
-        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
-        guardrail: external_exports.strictObject(
-          {
-            name: text("a metric name, e.g. error-rate"),
-            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
-            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
-            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
-          },
-          { error: "a guardrail: { name, rate, events, direction }" }
-        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
-      },
-      { error: "a mapping of bug-fix nudge settings" }
-    ).default({
-      enabled: true,
-      labels: DEFAULT_BUG_LABELS,
-      "title-prefixes": ["fix", "bugfix", "hotfix"],
-      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
-      "silence-label": "no-check-test",
-      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
-    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
-    digest: external_exports.strictObject(
-      {
-        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
-        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
-        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
-        label: text("the label of the digest issue").default("plumbline-digest")
-      },
-      { error: "a mapping of digest settings" }
-    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
-    severity: external_exports.record(
-      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
-      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
-      { error: "a mapping of finding code to block, warn, note or off" }
-    ).default({}).describe("Raise or lower the severity of findings by code.")
-  },
-  { error: "a settings file: a mapping of settings" }
-).describe("Plumbline repository settings.");
-var settingsSchema = writtenSettingsSchema.transform((w) => ({
-  planPaths: w.plans,
-  registryFiles: w.registries,
-  flagCalls: w["flag-calls"],
-  logCalls: w["log-calls"],
-  builtinPatterns: w["builtin-patterns"],
-  groupSurfaces: w["group-surfaces"],
-  scan: w.scan,
-  exemptFlags: w["exempt-flags"],
-  severity: w.severity,
-  bugFix: {
-    enabled: w["bug-fix"].enabled,
-    labels: w["bug-fix"].labels,
-    titlePrefixes: w["bug-fix"]["title-prefixes"],
-    branchPrefixes: w["bug-fix"]["branch-prefixes"],
-    silenceLabel: w["bug-fix"]["silence-label"],
-    nonProductPaths: w["bug-fix"]["non-product-paths"],
-    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
-    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
-  },
-  digest: {
-    timeZone: w.digest["time-zone"],
-    endingSoonDays: w.digest["ending-soon-days"],
-    onHoldDays: w.digest["on-hold-days"],
-    label: w.digest.label
-  }
-}));
-
-// src/core/config/load.ts
-var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
-var cachedJsonSchema2;
-function settingsJsonSchema() {
-  cachedJsonSchema2 ??= {
-    $id: "https://plumbline.dev/schema/settings.schema.json",
-    title: "Plumbline settings file",
-    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
-  };
-  return cachedJsonSchema2;
-}
-function defaultSettings() {
-  return settingsSchema.parse({});
-}
-function loadSettings(text2, file2) {
-  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
-  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
-  if (!read.ok) return { ok: false, errors: read.problems };
-  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
-  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
-  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
-}
-
-// src/core/report/terminal-style.ts
-function terminalStyle(color) {
-  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
-  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
-}
-function terminalSafe(text2) {
-  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
-}
-function formatTable(header, rows2) {
-  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
-  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
-  return [line(header), ...rows2.map(line)].join("\n");
-}
-
-// src/core/report/registry-list.ts
-var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
-function sortEntries(entries) {
-  return [...entries].sort(
-    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
-  );
-}
-function formatWindow(window) {
-  if (!window.start && !window.end) return "not set";
-  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
-}
-var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
-function registryJson(registry2) {
-  return {
-    format: REGISTRY_JSON_FORMAT,
-    tests: sortEntries(registry2.entries).map((e) => ({
-      id: e.id,
-      title: e.title,
-      state: e.state,
-      surface: e.surface.path,
-      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
-      window: e.window,
-      owners: e.owners,
-      flags: e.flags,
-      trafficShare: e.trafficShare,
-      events: e.events,
-      file: e.file,
-      line: e.line
-    }))
-  };
-}
-function renderRegistryText(registry2, options) {
-  const style = terminalStyle(options.color);
-  const entries = sortEntries(registry2.entries);
-  const rows2 = entries.map(
-    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
-  );
-  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
-  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
-  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
-  if (options.skippedFiles) {
-    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
-  }
-  return out.join("\n");
-}
-
-// src/core/report/validation.ts
-var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
-function validationJson(report) {
-  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
-}
-function renderValidationText(report, options) {
-  const style = terminalStyle(options.color);
-  const lines = report.problems.map((problem) => {
-    const line = terminalSafe(formatProblem(problem));
-    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
-  });
-  const invalid = report.planFiles - report.validPlans;
-  const files = `${count(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count(report.registryFiles, "registry file")}` : ""}`;
-  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count(report.warnings, "warning")}` : "all valid") : style.red(`${count(report.errors, "error")}${invalid ? ` in ${count(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count(report.warnings, "warning")}` : "");
-  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
-  if (report.planFiles === 0) {
-    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
-  }
-  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
-  return lines.join("\n");
-}
-function count(n, noun) {
-  return `${n} ${noun}${n === 1 ? "" : "s"}`;
-}
-
-// src/core/config/plan-files.ts
-var import_picomatch = __toESM(require_picomatch2(), 1);
-var PLAN_EXTENSIONS = [".yaml", ".yml"];
-function planSearchRoots(entries) {
-  return entries.map((raw) => {
-    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch.default.scan(entry);
-    if (scan.isGlob) {
-      const matcher = (0, import_picomatch.default)(entry, { dot: false });
-      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
-    }
-    if (isYamlFile(entry)) {
-      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
-      return { folder: parent, matches: (path) => path === entry };
-    }
-    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
-    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
-  });
-}
-function isYamlFile(path) {
-  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
-}
-
-// src/core/source/rule-context.ts
-function runRules(value, source, rules) {
-  const problems = [];
-  const context2 = {
-    value,
-    report({ severity: severity2, code, path, message, expected, showFound }) {
-      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
-      problems.push({
-        severity: severity2,
-        code,
-        ...source.locate(path),
-        field: formatFieldPath(path),
-        message,
-        ...expected ? { expected } : {},
-        ...found ? { found } : {}
-      });
-    }
-  };
-  for (const rule of rules) rule(context2);
-  return problems;
-}
-
 // src/core/calendar.ts
 var DAY_MS = 864e5;
 function toUtcMs(date5) {
@@ -37952,6 +37682,276 @@ var numbersAreSizeable = ({ value: plan, report }) => {
   if (outOfRange === 0) sizeable(plan, report);
 };
 var NUMBER_RULES = [numbersAreSizeable];
+
+// src/core/config/schema.ts
+var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
+function compiles(pattern) {
+  try {
+    new RegExp(pattern, "u");
+    return true;
+  } catch {
+    return false;
+  }
+}
+var CALL_PATTERN_MAX_LENGTH = 500;
+var callPattern = (group, example) => {
+  const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
+  return external_exports.string({ error: expected }).max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
+};
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var DEFAULT_PLAN_FOLDERS = ["experiments"];
+var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
+var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
+function isTimeZone(zone) {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+var DEFAULT_SCAN_EXCLUDE = ["**/node_modules/**", "**/dist/**", "**/build/**", "**/vendor/**", "**/*.min.js", "**/*.map"];
+var writtenSettingsSchema = external_exports.strictObject(
+  {
+    plans: uniqueList(pathGlob, "a list of folders or globs that hold plan files, e.g. [experiments]").default(DEFAULT_PLAN_FOLDERS).describe("Where plan files live: folders (every .yaml/.yml file below) or globs. Default: [experiments]."),
+    registries: uniqueList(pathGlob, "a list of registry files, e.g. [ops/other-tests.yaml]").default([]).describe("Extra registry files listing tests defined elsewhere."),
+    "flag-calls": external_exports.array(callPattern("key", String.raw`isOn\(\s*["'](?<key>[\w.-]+)["']`), { error: "a list of flag-call patterns" }).default([]).describe("Extra patterns for code that evaluates a feature flag; added to the built-in ones."),
+    "log-calls": external_exports.array(callPattern("event", String.raw`logEvent\(\s*["'](?<event>[\w.-]+)["']`), { error: "a list of logging-call patterns" }).default([]).describe("Extra patterns for code that logs an event; added to the built-in ones."),
+    "builtin-patterns": external_exports.boolean({ error: "true or false" }).default(true).describe("Set false to use only the patterns written here."),
+    "group-surfaces": uniqueList(surfacePath, "a list of surface paths shared between people, e.g. [teams/board]").default([]).describe("Surfaces (and everything below them) where people interact, so the unit must be a group."),
+    scan: external_exports.strictObject(
+      {
+        include: uniqueList(pathGlob, "a list of globs to scan, e.g. [src/**]").default(["**"]),
+        exclude: uniqueList(pathGlob, "a list of globs to skip, e.g. [**/fixtures/**]").default(DEFAULT_SCAN_EXCLUDE)
+      },
+      { error: "a mapping with include and exclude" }
+    ).default({ include: ["**"], exclude: DEFAULT_SCAN_EXCLUDE }).describe("Which tracked files are searched for flags and events."),
+    "exempt-flags": uniqueList(flagKey, "a list of flag keys that need no plan, e.g. [kill-payments]").default([]).describe("Flags that are not experiments (kill switches, operational toggles)."),
+    "bug-fix": external_exports.strictObject(
+      {
+        enabled: external_exports.boolean({ error: "true or false" }).default(true),
+        labels: uniqueList(text("a label name"), "a list of labels that mark a bug fix, e.g. [bug]").default(DEFAULT_BUG_LABELS),
+        "title-prefixes": uniqueList(text("a conventional-commit type"), "a list of title prefixes, e.g. [fix]").default(["fix", "bugfix", "hotfix"]),
+        "branch-prefixes": uniqueList(text("a branch prefix"), "a list of branch prefixes, e.g. [fix/]").default(["fix/", "bugfix/", "hotfix/"]),
+        "silence-label": text("a label that turns the nudge off for one pull request").default("no-check-test"),
+        "non-product-paths": uniqueList(pathGlob, "globs of files that are not product code").default(DEFAULT_NON_PRODUCT_PATHS),
+        guardrail: external_exports.strictObject(
+          {
+            name: text("a metric name, e.g. error-rate"),
+            rate: external_exports.number({ error: "a baseline rate strictly between 0 and 1" }).gt(0, { error: "a rate above 0" }).lt(1, { error: "a rate below 1" }),
+            events: uniqueList(text("an event name"), "the events the guardrail is computed from", 1),
+            direction: external_exports.enum(["increase", "decrease"], { error: "increase or decrease" }).default("decrease")
+          },
+          { error: "a guardrail: { name, rate, events, direction }" }
+        ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` }).lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` }).optional()
+      },
+      { error: "a mapping of bug-fix nudge settings" }
+    ).default({
+      enabled: true,
+      labels: DEFAULT_BUG_LABELS,
+      "title-prefixes": ["fix", "bugfix", "hotfix"],
+      "branch-prefixes": ["fix/", "bugfix/", "hotfix/"],
+      "silence-label": "no-check-test",
+      "non-product-paths": DEFAULT_NON_PRODUCT_PATHS
+    }).describe("The nudge on bug-fix pull requests to ship the fix behind a flag with a small check test."),
+    digest: external_exports.strictObject(
+      {
+        "time-zone": external_exports.string({ error: "an IANA time zone, e.g. Europe/London" }).refine(isTimeZone, { error: "an IANA time zone, e.g. Europe/London or UTC" }).default("UTC"),
+        "ending-soon-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(7),
+        "on-hold-days": external_exports.number({ error: "a whole number of days" }).int().min(1, { error: "at least 1 day" }).default(14),
+        label: text("the label of the digest issue").default("plumbline-digest")
+      },
+      { error: "a mapping of digest settings" }
+    ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
+    severity: external_exports.record(
+      external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
+      external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
+      { error: "a mapping of finding code to block, warn, note or off" }
+    ).default({}).describe("Raise or lower the severity of findings by code.")
+  },
+  { error: "a settings file: a mapping of settings" }
+).describe("Plumbline repository settings.");
+var settingsSchema = writtenSettingsSchema.transform((w) => ({
+  planPaths: w.plans,
+  registryFiles: w.registries,
+  flagCalls: w["flag-calls"],
+  logCalls: w["log-calls"],
+  builtinPatterns: w["builtin-patterns"],
+  groupSurfaces: w["group-surfaces"],
+  scan: w.scan,
+  exemptFlags: w["exempt-flags"],
+  severity: w.severity,
+  bugFix: {
+    enabled: w["bug-fix"].enabled,
+    labels: w["bug-fix"].labels,
+    titlePrefixes: w["bug-fix"]["title-prefixes"],
+    branchPrefixes: w["bug-fix"]["branch-prefixes"],
+    silenceLabel: w["bug-fix"]["silence-label"],
+    nonProductPaths: w["bug-fix"]["non-product-paths"],
+    ...w["bug-fix"].guardrail ? { guardrail: w["bug-fix"].guardrail } : {},
+    ...w["bug-fix"]["daily-units"] !== void 0 ? { dailyUnits: w["bug-fix"]["daily-units"] } : {}
+  },
+  digest: {
+    timeZone: w.digest["time-zone"],
+    endingSoonDays: w.digest["ending-soon-days"],
+    onHoldDays: w.digest["on-hold-days"],
+    label: w.digest.label
+  }
+}));
+
+// src/core/config/load.ts
+var SETTINGS_FILE_NAMES = [".plumbline.yml", ".plumbline.yaml"];
+var cachedJsonSchema2;
+function settingsJsonSchema() {
+  cachedJsonSchema2 ??= {
+    $id: "https://plumbline.dev/schema/settings.schema.json",
+    title: "Plumbline settings file",
+    ...external_exports.toJSONSchema(writtenSettingsSchema, { io: "input", target: "draft-2020-12" })
+  };
+  return cachedJsonSchema2;
+}
+function defaultSettings() {
+  return settingsSchema.parse({});
+}
+function loadSettings(text2, file2) {
+  if (text2 === void 0) return { ok: true, settings: defaultSettings(), locate: () => ({ file: file2, line: 1, column: 1 }) };
+  const read = readYaml(text2, file2, { maxBytes: 256 * 1024, maxAliases: 100 }, "settings");
+  if (!read.ok) return { ok: false, errors: read.problems };
+  const source = read.source.value === null || read.source.value === void 0 ? { ...read.source, value: {} } : read.source;
+  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), "settings");
+  return checked.ok ? { ok: true, settings: checked.value, locate: (path) => read.source.locate(path) } : { ok: false, errors: checked.problems };
+}
+
+// src/core/report/terminal-style.ts
+function terminalStyle(color) {
+  const wrap = (open2, close) => (text2) => color ? `\x1B[${open2}m${text2}\x1B[${close}m` : text2;
+  return { bold: wrap(1, 22), dim: wrap(2, 22), red: wrap(31, 39), yellow: wrap(33, 39), green: wrap(32, 39) };
+}
+function terminalSafe(text2) {
+  return text2.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, "\uFFFD").replace(/\n/g, " ");
+}
+function formatTable(header, rows2) {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows2.map((r) => (r[i] ?? "").length)));
+  const line = (cells) => cells.map((c, i) => i === cells.length - 1 ? c : c.padEnd(widths[i])).join("  ").trimEnd();
+  return [line(header), ...rows2.map(line)].join("\n");
+}
+
+// src/core/report/registry-list.ts
+var STATE_ORDER = { live: 0, "on-hold": 1, draft: 2, concluded: 3 };
+function sortEntries(entries) {
+  return [...entries].sort(
+    (a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state] || (a.window.start ?? "9999").localeCompare(b.window.start ?? "9999") || a.id.localeCompare(b.id)
+  );
+}
+function formatWindow(window) {
+  if (!window.start && !window.end) return "not set";
+  return `${window.start ?? "?"} to ${window.end ?? "open"}`;
+}
+var REGISTRY_JSON_FORMAT = "plumbline.registry/1";
+function registryJson(registry2) {
+  return {
+    format: REGISTRY_JSON_FORMAT,
+    tests: sortEntries(registry2.entries).map((e) => ({
+      id: e.id,
+      title: e.title,
+      state: e.state,
+      surface: e.surface.path,
+      ...e.surface.exclusionGroup ? { exclusionGroup: e.surface.exclusionGroup } : {},
+      window: e.window,
+      owners: e.owners,
+      flags: e.flags,
+      trafficShare: e.trafficShare,
+      events: e.events,
+      file: e.file,
+      line: e.line
+    }))
+  };
+}
+function renderRegistryText(registry2, options) {
+  const style = terminalStyle(options.color);
+  const entries = sortEntries(registry2.entries);
+  const rows2 = entries.map(
+    (e) => [e.id, e.state, e.surface.path, formatWindow(e.window), e.owners.join(", "), `${e.file}:${e.line}`].map(terminalSafe)
+  );
+  const out = entries.length ? [formatTable(["ID", "STATE", "SURFACE", "WINDOW", "OWNERS", "FILE"], rows2)] : ["The registry is empty."];
+  const byState = ["live", "on-hold", "draft", "concluded"].map((s) => [s, entries.filter((e) => e.state === s).length]).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${s}`);
+  out.push(style.dim(`${entries.length} test${entries.length === 1 ? "" : "s"}${byState.length ? `: ${byState.join(", ")}` : ""}.`));
+  if (options.skippedFiles) {
+    out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? "" : "s"} with errors left out; run plumbline validate.`));
+  }
+  return out.join("\n");
+}
+
+// src/core/report/validation.ts
+var VALIDATION_JSON_FORMAT = "plumbline.validation/1";
+function validationJson(report) {
+  return { format: VALIDATION_JSON_FORMAT, valid: report.errors === 0, ...report };
+}
+function renderValidationText(report, options) {
+  const style = terminalStyle(options.color);
+  const lines = report.problems.map((problem) => {
+    const line = terminalSafe(formatProblem(problem));
+    return problem.severity === "error" ? line.replace(": error: ", `: ${style.red("error")}: `) : line.replace(": warning: ", `: ${style.yellow("warning")}: `);
+  });
+  const invalid = report.planFiles - report.validPlans;
+  const files = `${count(report.planFiles, "plan file")}${report.registryFiles ? ` and ${count(report.registryFiles, "registry file")}` : ""}`;
+  const verdict = report.errors === 0 ? style.green(report.warnings ? `valid, with ${count(report.warnings, "warning")}` : "all valid") : style.red(`${count(report.errors, "error")}${invalid ? ` in ${count(invalid, "plan file")}` : ""}`) + (report.warnings ? `, ${count(report.warnings, "warning")}` : "");
+  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : " (no settings file: defaults)";
+  if (report.planFiles === 0) {
+    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
+  }
+  lines.push(`${style.bold("Checked")} ${files}${settings}: ${verdict}.`);
+  return lines.join("\n");
+}
+function count(n, noun) {
+  return `${n} ${noun}${n === 1 ? "" : "s"}`;
+}
+
+// src/core/config/plan-files.ts
+var import_picomatch = __toESM(require_picomatch2(), 1);
+var PLAN_EXTENSIONS = [".yaml", ".yml"];
+function planSearchRoots(entries) {
+  return entries.map((raw) => {
+    const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
+    const scan = import_picomatch.default.scan(entry);
+    if (scan.isGlob) {
+      const matcher = (0, import_picomatch.default)(entry, { dot: false });
+      return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
+    }
+    if (isYamlFile(entry)) {
+      const parent = entry.includes("/") ? entry.slice(0, entry.lastIndexOf("/")) : "";
+      return { folder: parent, matches: (path) => path === entry };
+    }
+    const prefix = entry === "" || entry === "." ? "" : `${entry}/`;
+    return { folder: entry === "." ? "" : entry, matches: (path) => path.startsWith(prefix) && isYamlFile(path) };
+  });
+}
+function isYamlFile(path) {
+  return PLAN_EXTENSIONS.some((ext) => path.toLowerCase().endsWith(ext));
+}
+
+// src/core/source/rule-context.ts
+function runRules(value, source, rules) {
+  const problems = [];
+  const context2 = {
+    value,
+    report({ severity: severity2, code, path, message, expected, showFound }) {
+      const found = showFound ? describeValue(valueAt(source.value, path)) : void 0;
+      problems.push({
+        severity: severity2,
+        code,
+        ...source.locate(path),
+        field: formatFieldPath(path),
+        message,
+        ...expected ? { expected } : {},
+        ...found ? { found } : {}
+      });
+    }
+  };
+  for (const rule of rules) rule(context2);
+  return problems;
+}
 
 // src/core/plan/rules.ts
 var windowInOrder = ({ value: plan, report }) => {
@@ -39030,7 +39030,7 @@ function bugFixNudge(context2) {
       prePeriodCorrelation: 0,
       plannedDays: 14
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === void 0) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";

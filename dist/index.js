@@ -61970,6 +61970,43 @@ var collisionCheck = (context3) => collisionsOfLinked(context3).map(({ plan, col
 // src/core/checks/bug-fix.ts
 var import_picomatch2 = __toESM(require_picomatch2(), 1);
 
+// src/core/stats/finite-sizing.ts
+var SUSPECTS = [
+  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
+  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
+  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
+  { figure: /power|detectable/, input: "effect", name: "the power" },
+  { figure: /./, input: "baseline", name: "a figure" }
+];
+function firstNonFinite(value) {
+  const stack = [{ at: "", value }];
+  while (stack.length > 0) {
+    const { at, value: current } = stack.pop();
+    if (typeof current === "number") {
+      if (!Number.isFinite(current)) return at;
+    } else if (current !== null && typeof current === "object") {
+      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
+      for (const [key, child2] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child2 });
+    }
+  }
+  return void 0;
+}
+function finiteSizing(sizing) {
+  return {
+    ...sizing,
+    metrics: sizing.metrics.map((entry) => {
+      if (!entry.result.ok) return entry;
+      const at = firstNonFinite(entry.result.value);
+      if (at === void 0) return entry;
+      const suspect = SUSPECTS.find((s) => s.figure.test(at));
+      return {
+        ...entry,
+        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
+      };
+    })
+  };
+}
+
 // src/core/stats/adjustments.ts
 function designEffect(meanSize, icc, sizeCv = 0) {
   return Math.max(1, 1 + ((sizeCv * sizeCv + 1) * meanSize - 1) * icc);
@@ -62364,7 +62401,7 @@ function bugFixNudge(context3) {
       prePeriodCorrelation: 0,
       plannedDays: 14
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === void 0) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : "";
@@ -63589,43 +63626,6 @@ function isLoggedOnLine(bytes, lineStart, name, patterns) {
   return false;
 }
 
-// src/core/stats/finite-sizing.ts
-var SUSPECTS = [
-  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
-  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
-  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
-  { figure: /power|detectable/, input: "effect", name: "the power" },
-  { figure: /./, input: "baseline", name: "a figure" }
-];
-function firstNonFinite(value) {
-  const stack = [{ at: "", value }];
-  while (stack.length > 0) {
-    const { at, value: current } = stack.pop();
-    if (typeof current === "number") {
-      if (!Number.isFinite(current)) return at;
-    } else if (current !== null && typeof current === "object") {
-      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
-      for (const [key, child2] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child2 });
-    }
-  }
-  return void 0;
-}
-function finiteSizing(sizing) {
-  return {
-    ...sizing,
-    metrics: sizing.metrics.map((entry) => {
-      if (!entry.result.ok) return entry;
-      const at = firstNonFinite(entry.result.value);
-      if (at === void 0) return entry;
-      const suspect = SUSPECTS.find((s) => s.figure.test(at));
-      return {
-        ...entry,
-        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
-      };
-    })
-  };
-}
-
 // src/core/source/check-written.ts
 function checkWritten(source, schema, jsonSchema, codePrefix) {
   const parsed = schema.safeParse(source.value);
@@ -64093,7 +64093,7 @@ var writtenSettingsSchema = external_exports.strictObject(
           },
           { error: "a guardrail: { name, rate, events, direction }" }
         ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` }).lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` }).optional()
       },
       { error: "a mapping of bug-fix nudge settings" }
     ).default({

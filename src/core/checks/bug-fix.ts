@@ -2,6 +2,7 @@ import picomatch from 'picomatch';
 import type { Settings } from '../config/schema.js';
 import { formatCount, formatRate, formatRelative } from '../report/numbers.js';
 import type { Check, PullRequestInfo, ReviewContext } from '../review/context.js';
+import { firstNonFinite } from '../stats/finite-sizing.js';
 import { sizeMetric } from '../stats/sizing.js';
 
 /** What follows the type in a conventional-commit title: an optional (scope), an optional !, then a colon. */
@@ -65,7 +66,8 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
       prePeriodCorrelation: 0,
       plannedDays: 14,
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    // The settings' figures are bounded, but a line with an overflowed figure is better left out than printed.
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === undefined) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const inTwoWeeks = twoWeeks ? ` Two weeks would catch a rise to ${formatRate(twoWeeks.to)} (${formatRelative(twoWeeks.relative)} relative).` : '';

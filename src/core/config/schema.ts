@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { text, uniqueList } from '../source/fields.js';
+import { DAILY_UNITS } from '../plan/number-rules.js';
 import { flagKey, surfacePath } from '../plan/schema.js';
 
 /**
@@ -111,7 +112,11 @@ export const writtenSettingsSchema = z
               )
               .optional()
               .describe('The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line.'),
-            'daily-units': z.number({ error: 'eligible units per day, above 0' }).gt(0, { error: 'eligible units per day, above 0' }).optional(),
+            'daily-units': z
+              .number({ error: 'eligible units per day, above 0' })
+              .gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` })
+              .lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` })
+              .optional(),
           },
           { error: 'a mapping of bug-fix nudge settings' },
         )

@@ -1,18 +1,12 @@
-import { rmSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
-import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { describe, expect, it } from 'vitest';
+import { twoCommitRepos } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
 import { runCli } from './helpers.js';
 
 /** Regression tests for inputs a fuzzer found: each is the smallest reproducer of one failure, run through the CLI. */
-const made: string[] = [];
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
-const repo = (files: Record<string, string>, changes: Record<string, string | null>) => {
-  const r = makeTwoCommitRepo(files, changes);
-  made.push(r.root);
-  return r;
-};
+const repo = twoCommitRepos();
 
 describe('a plan id tens of thousands of characters long', () => {
   const longId = 'x'.repeat(40_000);

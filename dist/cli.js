@@ -37698,7 +37698,10 @@ var callPattern = (group, example) => {
   const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
   return external_exports.string({ error: expected }).max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
 };
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var GLOB_MAX_LENGTH = 500;
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments").max(GLOB_MAX_LENGTH, {
+  error: `a path or glob relative to the repository root, at most ${GLOB_MAX_LENGTH} characters long`
+});
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
 var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
 var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];

@@ -55,3 +55,10 @@ describe('settings numbers', () => {
     expect(result.ok ? [] : result.errors.map((p) => [p.field, p.line])).toEqual([['bug-fix.daily-units', 3]]);
   });
 });
+
+describe('settings globs', () => {
+  it('are at most 500 characters, so no glob compiles to an oversized pattern (found by the fuzzer: exit 3 on check)', () => {
+    const result = loadSettings(`bug-fix:\n  non-product-paths: ["${'a-'.repeat(20_000)}"]\n`, '.plumbline.yml');
+    expect(result.ok ? [] : result.errors.map((p) => [p.field, p.line, p.message.includes('internal')])).toEqual([['bug-fix.non-product-paths[0]', 2, false]]);
+  });
+});

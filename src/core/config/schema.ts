@@ -37,7 +37,15 @@ const callPattern = (group: 'key' | 'event', example: string) => {
     .refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
 };
 
-const pathGlob = text('a path or glob relative to the repository root, e.g. src/** or experiments');
+/**
+ * The longest path or glob. Globs become regular expressions (picomatch); a path of 500 characters is
+ * already longer than most file systems allow in one path, and keeps each compiled pattern small.
+ */
+export const GLOB_MAX_LENGTH = 500;
+
+const pathGlob = text('a path or glob relative to the repository root, e.g. src/** or experiments').max(GLOB_MAX_LENGTH, {
+  error: `a path or glob relative to the repository root, at most ${GLOB_MAX_LENGTH} characters long`,
+});
 
 export const DEFAULT_PLAN_FOLDERS = ['experiments'];
 export const DEFAULT_BUG_LABELS = ['bug', 'bugfix', 'fix', 'regression'];

@@ -13949,7 +13949,7 @@ var require_composer = __commonJS({
       }
       return { comment, afterEmptyLine };
     }
-    var Composer = class {
+    var Composer2 = class {
       constructor(options = {}) {
         this.doc = null;
         this.atDirectives = false;
@@ -14109,7 +14109,7 @@ ${end.comment}` : end.comment;
         }
       }
     };
-    exports.Composer = Composer;
+    exports.Composer = Composer2;
   }
 });
 
@@ -15240,7 +15240,7 @@ var require_parser = __commonJS({
         }
       }
     }
-    var Parser = class {
+    var Parser2 = class {
       /**
        * @param onNewLine - If defined, called separately with the start position of
        *   each new line (in `parse()`, including the start of input).
@@ -16013,7 +16013,7 @@ var require_parser = __commonJS({
         }
       }
     };
-    exports.Parser = Parser;
+    exports.Parser = Parser2;
   }
 });
 
@@ -16047,7 +16047,7 @@ var require_public_api = __commonJS({
         return docs;
       return Object.assign([], { empty: true }, composer$1.streamInfo());
     }
-    function parseDocument3(source, options = {}) {
+    function parseDocument2(source, options = {}) {
       const { lineCounter: lineCounter2, prettyErrors } = parseOptions(options);
       const parser$1 = new parser.Parser(lineCounter2?.addNewLine);
       const composer$1 = new composer.Composer(options);
@@ -16073,7 +16073,7 @@ var require_public_api = __commonJS({
       } else if (options === void 0 && reviver && typeof reviver === "object") {
         options = reviver;
       }
-      const doc = parseDocument3(src, options);
+      const doc = parseDocument2(src, options);
       if (!doc)
         return null;
       doc.warnings.forEach((warning) => log.warn(doc.options.logLevel, warning));
@@ -16109,7 +16109,7 @@ var require_public_api = __commonJS({
     }
     exports.parse = parse4;
     exports.parseAllDocuments = parseAllDocuments;
-    exports.parseDocument = parseDocument3;
+    exports.parseDocument = parseDocument2;
     exports.stringify = stringify;
   }
 });
@@ -16410,99 +16410,6 @@ function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
 }
 
-// src/core/source/problem.ts
-function formatProblem(problem) {
-  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
-  const field2 = problem.field ? `${problem.field}: ` : "";
-  const detail = [
-    problem.expected ? `expected ${problem.expected}` : "",
-    problem.found ? `found ${problem.found}` : ""
-  ].filter(Boolean).join("; ");
-  return `${where2}: ${problem.severity}: ${field2}${problem.message}${detail ? ` (${detail})` : ""}`;
-}
-function sortProblems(problems) {
-  return [...problems].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
-  );
-}
-function describeValue(value) {
-  if (value === void 0) return "nothing";
-  if (value === null) return "an empty value";
-  if (typeof value === "string") {
-    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
-    return `the text ${JSON.stringify(shown)}`;
-  }
-  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
-  if (typeof value === "boolean") return `${value}`;
-  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
-  if (typeof value === "object") return "a mapping of keys";
-  return typeof value;
-}
-
-// src/cli/output.ts
-function createCliOutput(options) {
-  const env = process.env;
-  const color = !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
-  const interactive = process.stderr.isTTY === true && env.CI !== "true";
-  let drawn = false;
-  return {
-    color,
-    out: (text2) => process.stdout.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    err: (text2) => process.stderr.write(text2.endsWith("\n") ? text2 : `${text2}
-`),
-    progress(done, total, what) {
-      if (!interactive || total < 200) return;
-      if (done < total) {
-        if (done % 50 === 0) {
-          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
-          drawn = true;
-        }
-      } else if (drawn) {
-        process.stderr.write("\r\x1B[2K");
-        drawn = false;
-      }
-    }
-  };
-}
-
-// src/cli/common.ts
-var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
-var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
-function context(options) {
-  const output2 = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve(options.cwd));
-  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
-}
-function reportSettingsProblems(output2, format, file2, problems) {
-  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
-  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
-  return EXIT.usage;
-}
-function parseNumbers(what, texts) {
-  return texts.map((text2) => {
-    const value = Number(text2);
-    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
-    return value;
-  });
-}
-
-// src/cli/adjust-command.ts
-function addAdjustCommand(program2, setExit) {
-  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
-    const p = parseNumbers("p-values", values);
-    const q = parseNumbers("q", [local.q])[0];
-    const adjusted = adjustPValues(p);
-    if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
-    const output2 = createCliOutput({ noColorFlag: true });
-    output2.out(local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
-    setExit(EXIT.ok);
-  });
-}
-
-// src/cli/check-command.ts
-import { readFile as readFile2 } from "node:fs/promises";
-
 // src/adapters/git.ts
 import { spawn } from "node:child_process";
 import { closeSync, fstatSync, openSync, readSync } from "node:fs";
@@ -16685,6 +16592,100 @@ async function readWorkingTree(root, paths, onFile) {
     }
   }
 }
+
+// src/core/source/problem.ts
+function formatProblem(problem) {
+  const where2 = `${problem.file}:${problem.line}:${problem.column}`;
+  const field2 = problem.field ? `${problem.field}: ` : "";
+  const detail = [
+    problem.expected ? `expected ${problem.expected}` : "",
+    problem.found ? `found ${problem.found}` : ""
+  ].filter(Boolean).join("; ");
+  return `${where2}: ${problem.severity}: ${field2}${problem.message}${detail ? ` (${detail})` : ""}`;
+}
+function sortProblems(problems) {
+  return [...problems].sort(
+    (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column - b.column || a.code.localeCompare(b.code)
+  );
+}
+function describeValue(value) {
+  if (value === void 0) return "nothing";
+  if (value === null) return "an empty value";
+  if (typeof value === "string") {
+    const shown = value.length > 60 ? `${value.slice(0, 57)}...` : value;
+    return `the text ${JSON.stringify(shown)}`;
+  }
+  if (typeof value === "number") return Number.isFinite(value) ? `the number ${value}` : `${String(value)}, which is not a finite number`;
+  if (typeof value === "boolean") return `${value}`;
+  if (Array.isArray(value)) return value.length === 1 ? "a list of 1 item" : `a list of ${value.length} items`;
+  if (typeof value === "object") return "a mapping of keys";
+  return typeof value;
+}
+
+// src/cli/output.ts
+function createCliOutput(options) {
+  const env = process.env;
+  const color = !options.write && !options.noColorFlag && !("NO_COLOR" in env && env.NO_COLOR !== "") && process.stdout.isTTY === true && env.TERM !== "dumb";
+  const interactive = !options.write && process.stderr.isTTY === true && env.CI !== "true";
+  let drawn = false;
+  return {
+    color,
+    out: (text2) => (options.write ? options.write.out : (t) => process.stdout.write(t))(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    err: (text2) => (options.write ? options.write.err : (t) => process.stderr.write(t))(text2.endsWith("\n") ? text2 : `${text2}
+`),
+    progress(done, total, what) {
+      if (!interactive || total < 200) return;
+      if (done < total) {
+        if (done % 50 === 0) {
+          process.stderr.write(`\rReading ${what}: ${done}/${total}`);
+          drawn = true;
+        }
+      } else if (drawn) {
+        process.stderr.write("\r\x1B[2K");
+        drawn = false;
+      }
+    }
+  };
+}
+
+// src/cli/common.ts
+var EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 };
+var formatOption = () => new Option("--format <format>", "output format").choices(["text", "json"]).default("text");
+var REAL_DEPS = { files: createRepoFiles, openChange };
+function context(options, deps) {
+  const output2 = createCliOutput({ noColorFlag: !options.color, ...deps.write ? { write: deps.write } : {} });
+  const files = deps.files(resolve(options.cwd));
+  return { output: output2, files, settingsPath: options.config, onProgress: output2.progress };
+}
+function reportSettingsProblems(output2, format, file2, problems) {
+  if (format === "json") output2.out(JSON.stringify({ format: "plumbline.settings-errors/1", settingsFile: file2, problems }, null, 2));
+  else output2.err([`The settings file ${file2} has errors:`, ...problems.map(formatProblem)].join("\n"));
+  return EXIT.usage;
+}
+function parseNumbers(what, texts) {
+  return texts.map((text2) => {
+    const value = Number(text2);
+    if (text2.trim() === "" || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text2)} is not a number`);
+    return value;
+  });
+}
+
+// src/cli/adjust-command.ts
+function addAdjustCommand(program2, setExit, deps) {
+  program2.command("adjust").description("adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)").argument("<p-values...>", "p-values, e.g. 0.001 0.02 0.04").option("--q <level>", "false discovery rate (and family-wise level) to compare with", "0.05").addOption(formatOption()).action((values, local) => {
+    const p = parseNumbers("p-values", values);
+    const q = parseNumbers("q", [local.q])[0];
+    const adjusted = adjustPValues(p);
+    if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
+    const output2 = createCliOutput({ noColorFlag: true });
+    output2.out(local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
+    setExit(EXIT.ok);
+  });
+}
+
+// src/cli/check-command.ts
+import { readFile as readFile2 } from "node:fs/promises";
 
 // src/core/report/markdown-safe.ts
 var ZERO_WIDTH_SPACE = "\u200B";
@@ -37007,7 +37008,8 @@ function asDescription(expected) {
 }
 var text = (expected) => external_exports.string({ error: expected }).trim().min(1, { error: expected }).describe(asDescription(expected));
 var optionalText = (expected) => text(expected).optional();
-var kebabName = (expected) => external_exports.string({ error: expected }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
+var NAME_MAX_LENGTH = 100;
+var kebabName = (expected) => external_exports.string({ error: expected }).max(NAME_MAX_LENGTH, { error: `${expected}, at most ${NAME_MAX_LENGTH} characters long` }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
 var openShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lt(1, { error: expected }).describe(asDescription(expected));
 var positiveShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lte(1, { error: expected }).describe(asDescription(expected));
 var positiveNumber = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).describe(asDescription(expected));
@@ -37317,9 +37319,9 @@ function integrateInflation(design, power) {
   if (!(power > design.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
-  const fixed = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
+  const fixed2 = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
   if (design.looks === 1) return ok({ boundaries: bounds.value, inflation: 1, expectedUnderAlternative: 1 });
-  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed * 0.9, fixed * 2, 1e-11);
+  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed2 * 0.9, fixed2 * 2, 1e-11);
   if (eta === void 0) return fail("power", "no design reaches this power");
   const { crossings } = walk(design.looks, design.sides, eta, (k) => bounds.value.z[k - 1]);
   let continuing = 1;
@@ -37329,7 +37331,7 @@ function integrateInflation(design, power) {
     expected += (k + 1) / design.looks * (k === design.looks - 1 ? continuing : stopHere);
     continuing -= stopHere;
   }
-  const inflation = (eta / fixed) ** 2;
+  const inflation = (eta / fixed2) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
 
@@ -38612,6 +38614,126 @@ function runRules(value, source, rules) {
 
 // src/core/source/yaml-source.ts
 var import_yaml = __toESM(require_dist(), 1);
+
+// src/core/source/yaml-messages.ts
+var fixed = (message, expected) => () => ({ message, expected });
+var TRANSLATIONS = [
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    startsWith: "Nested mappings",
+    explain: fixed(
+      'a second "key:" follows on the same line as a key (as in "a: b: c")',
+      'one key per line: put the inner mapping on the lines below, indented, or quote a value that contains ": "'
+    )
+  },
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    explain: fixed("a list item stands where a key was expected", 'list items ("- ...") on their own lines, indented under the key they belong to')
+  },
+  {
+    code: "MULTILINE_IMPLICIT_KEY",
+    explain: fixed(
+      'a key runs over more than one line (often a line above lacks its colon, or a value holding ": " is not quoted)',
+      'each key and its colon on one line, as in "title: Wallet first"; quote a value that contains ": "'
+    )
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Implicit map keys need to be followed by map values",
+    explain: fixed("a line inside a mapping has no colon", '"key: value" on every line of a mapping')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Sequence item without - indicator",
+    explain: fixed('a line inside a list does not start with "-"', 'every item of a list on its own line starting with "- "')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing closing",
+    explain: fixed("a quoted value is never closed", `the same quote mark (" or ') at the end of the value as at its start`)
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Comments must be separated",
+    explain: fixed('a "#" touches the text before it', 'a space before "#" to start a comment, or quotes around a value that contains "#"')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing ,",
+    explain: fixed("items inside [ ] or { } are not separated by commas", "a comma between items, as in [web, ios] or {start: 2026-11-02, end: 2026-11-29}")
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing space after :",
+    explain: fixed("a colon inside [ ] or { } has no space after it", "a space after each colon, as in {relative: 0.05}")
+  },
+  {
+    code: "TAB_AS_INDENT",
+    explain: fixed("a tab is used for indentation", "spaces for indentation (YAML does not allow tabs there)")
+  },
+  {
+    code: "BAD_INDENT",
+    startsWith: "All sequence items",
+    explain: fixed("the items of this list do not line up", 'every "-" of one list in the same column')
+  },
+  {
+    code: "BAD_INDENT",
+    explain: fixed(
+      "the indentation here does not fit the lines around it",
+      "the keys of one mapping in the same column, and what belongs under a key indented further with spaces"
+    )
+  },
+  {
+    code: "BAD_SCALAR_START",
+    explain: (original) => {
+      const mark = /start with (?:reserved character )?(\S+)/.exec(original)?.[1] ?? "this character";
+      return {
+        message: `a value starts with ${mark}, which YAML reserves`,
+        expected: `quotes around a value that starts with ${mark}, as in '${mark === "@" ? "@ana-lima" : `${mark}...`}'`
+      };
+    }
+  },
+  {
+    code: "BAD_DQ_ESCAPE",
+    explain: fixed(
+      "a backslash in a double-quoted value starts an escape YAML does not know",
+      "single quotes around a value with backslashes ('a\\b'), or \\\\ for each backslash inside double quotes"
+    )
+  },
+  {
+    code: "BLOCK_IN_FLOW",
+    explain: fixed('a list or mapping written with "-" or indentation sits inside [ ] or { }', "one style per value: either brackets and commas, or indented lines")
+  },
+  {
+    code: "KEY_OVER_1024_CHARS",
+    explain: fixed("a key is longer than 1024 characters (or a colon is missing far above)", 'short keys, each followed by ": " on the same line')
+  },
+  {
+    code: "TAG_RESOLVE_FAILED",
+    explain: fixed('a value carries a "!" tag this file format does not use', 'plain values without "!" tags; quote a value that starts with "!"')
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected scalar at node end",
+    explain: fixed("more text follows a complete value on this line", "quotes around the whole value, or the rest on a line of its own")
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected flow-",
+    explain: fixed("a bracket here has no partner", "each [ closed by ] and each { closed by }, or quotes around a value that starts with [ or {")
+  },
+  {
+    code: "RESOURCE_EXHAUSTION",
+    explain: fixed("the file nests lists and mappings too deeply to read", "a plan nested a few levels deep, as in the examples")
+  }
+];
+function explainYamlError(code, message) {
+  const translation = TRANSLATIONS.find((t) => t.code === code && (t.startsWith === void 0 || message.startsWith(t.startsWith)));
+  return translation ? translation.explain(message) : { message };
+}
+
+// src/core/source/yaml-source.ts
+var MAX_NESTING_DEPTH = 32;
 function readYaml(text2, file2, limits, codePrefix) {
   const fail2 = (line, column, code, message, expected) => ({
     ok: false,
@@ -38622,17 +38744,41 @@ function readYaml(text2, file2, limits, codePrefix) {
     return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
   }
   const lineCounter = new import_yaml.LineCounter();
-  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const tokens = Array.from(new import_yaml.Parser(lineCounter.addNewLine).parse(text2));
+  const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
+  if (tooDeepAt !== void 0) {
+    const pos = lineCounter.linePos(tooDeepAt);
+    return fail2(
+      pos.line,
+      pos.col,
+      "too-deep",
+      `lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`,
+      `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`
+    );
+  }
+  const composer = new import_yaml.Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
+  let doc;
+  let secondDocumentAt;
+  for (const composed of composer.compose(tokens, true, text2.length)) {
+    if (!doc) doc = composed;
+    else {
+      secondDocumentAt = composed.range[0];
+      break;
+    }
+  }
+  if (!doc) return fail2(1, 1, "bad-yaml", "this is not valid YAML");
+  if (secondDocumentAt !== void 0 && doc.errors.length === 0) {
+    const pos = lineCounter.linePos(secondDocumentAt);
+    return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+  }
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
     if (firstError.code === "DUPLICATE_KEY") {
       return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
     }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+    const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${explained.message}`, explained.expected);
   }
   let complexKeyAt;
   (0, import_yaml.visit)(doc, {
@@ -38702,6 +38848,34 @@ function childOf(node2, segment) {
   }
   return null;
 }
+function firstOffsetDeeperThan(tokens, limit) {
+  const stack = tokens.map((token) => ({ token, depth: 0 }));
+  let first;
+  while (stack.length > 0) {
+    const { token, depth } = stack.pop();
+    const children = [];
+    let childDepth = depth;
+    switch (token.type) {
+      case "document":
+        children.push(token.value);
+        break;
+      case "block-map":
+      case "block-seq":
+      case "flow-collection":
+        childDepth = depth + 1;
+        if (childDepth > limit) {
+          first = first === void 0 ? token.offset : Math.min(first, token.offset);
+          continue;
+        }
+        for (const item of token.items) children.push("key" in item ? item.key : void 0, item.value);
+        break;
+      default:
+        break;
+    }
+    for (const child of children) if (child) stack.push({ token: child, depth: childDepth });
+  }
+  return first;
+}
 function plainYamlMessage(message) {
   return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
 }
@@ -38746,6 +38920,101 @@ function renamedSurfaceKeys(source, surfaces, codePrefix) {
   }
   return problems;
 }
+
+// src/core/plan/number-rules.ts
+var METRIC_FIGURE = { min: 1e-12, max: 1e15, why: "a figure from 1e-12 to 1e15 in size (or 0 where 0 is allowed)" };
+var RELATIVE_EFFECT = { min: 1e-6, max: 100, why: "a relative change from 0.000001 to 100 (one in a million to a 101-fold change)" };
+var DAILY_UNITS = { min: 0.01, max: 1e10, why: "from 0.01 (one unit in a hundred days) to 10,000,000,000 (more than the world\u2019s population)" };
+var ARM_WEIGHT = { min: 1e-6, max: 1e6, why: "a weight from 0.000001 to 1,000,000" };
+var SMALLEST_ARM_SHARE = 1e-3;
+var CLUSTER_MEAN_SIZE = { min: 1, max: 1e7, why: "a mean group size from 1 to 10,000,000" };
+var CLUSTER_SIZE_CV = { min: 0, max: 10, why: "a coefficient of variation of group sizes from 0 to 10" };
+function checkBound(report, path, value, bound, zeroAllowed = false) {
+  if (value === void 0) return;
+  const size = Math.abs(value);
+  if (zeroAllowed && value === 0) return;
+  if (size >= bound.min && size <= bound.max) return;
+  report({
+    severity: "error",
+    code: "plan/number-out-of-range",
+    path,
+    message: `${value} is ${size < bound.min ? "too small" : "too large"} for sizing to give a meaningful figure`,
+    expected: bound.why
+  });
+}
+function metricFigures(metric2, path, report) {
+  const baseline = [...path, "baseline"];
+  if (metric2.kind === "mean") {
+    checkBound(report, [...baseline, "mean"], metric2.baseline.mean, METRIC_FIGURE, true);
+    checkBound(report, [...baseline, "sd"], metric2.baseline.sd, METRIC_FIGURE);
+  }
+  if (metric2.kind === "ratio") {
+    for (const part of ["numerator", "denominator"]) {
+      checkBound(report, [...baseline, part, "mean"], metric2.baseline[part].mean, METRIC_FIGURE, true);
+      checkBound(report, [...baseline, part, "sd"], metric2.baseline[part].sd, METRIC_FIGURE, true);
+    }
+  }
+  if (metric2.tolerance) effectFigures(metric2.tolerance, [...path, "tolerance"], report);
+}
+function effectFigures(effect, path, report) {
+  checkBound(report, [...path, "relative"], effect.relative, RELATIVE_EFFECT);
+  checkBound(report, [...path, "absolute"], effect.absolute, METRIC_FIGURE);
+}
+function numbersInRange(plan, report) {
+  const { design } = plan;
+  checkBound(report, ["design", "daily-units"], design.dailyUnits, DAILY_UNITS);
+  if (design.minDetectableEffect) effectFigures(design.minDetectableEffect, ["design", "min-detectable-effect"], report);
+  design.arms.forEach((arm2, i) => checkBound(report, ["design", "arms", i, "weight"], arm2.weight, ARM_WEIGHT));
+  const total = design.arms.reduce((sum, arm2) => sum + arm2.weight, 0);
+  const smallest = design.arms.reduce((min, arm2, i) => arm2.weight < design.arms[min].weight ? i : min, 0);
+  if (design.arms.length > 0 && Number.isFinite(total) && design.arms[smallest].weight / total < SMALLEST_ARM_SHARE) {
+    report({
+      severity: "error",
+      code: "plan/number-out-of-range",
+      path: ["design", "arms", smallest, "weight"],
+      message: `arm "${design.arms[smallest].name}" gets ${design.arms[smallest].weight} of ${total} weight, less than one unit in ${1 / SMALLEST_ARM_SHARE}`,
+      expected: `a weight giving every arm at least ${SMALLEST_ARM_SHARE * 100}% of the units`
+    });
+  }
+  if (design.cluster) {
+    checkBound(report, ["design", "cluster", "mean-size"], design.cluster.meanSize, CLUSTER_MEAN_SIZE);
+    checkBound(report, ["design", "cluster", "size-cv"], design.cluster.sizeCv, CLUSTER_SIZE_CV, true);
+  }
+  metricFigures(plan.metrics.primary, ["metrics", "primary"], report);
+  plan.metrics.guardrails.forEach((m, i) => metricFigures(m, ["metrics", "guardrails", i], report));
+  plan.metrics.secondary.forEach((m, i) => metricFigures(m, ["metrics", "secondary", i], report));
+}
+function sizeable(plan, report) {
+  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } });
+  for (const entry of sizing.metrics) {
+    if (entry.result.ok) continue;
+    const { input: input2, message } = entry.result.error;
+    const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === entry.metric);
+    if (entry.role !== "primary" && guardrail < 0) continue;
+    const metricPath2 = entry.role === "primary" ? ["metrics", "primary"] : ["metrics", "guardrails", guardrail];
+    const effectPath = entry.role === "primary" ? ["design", "min-detectable-effect"] : [...metricPath2, "tolerance"];
+    let path;
+    if (input2 === "effect") path = effectPath;
+    else if (input2 === "baseline" || input2.startsWith("baseline.")) path = [...metricPath2, ...input2.split(".")];
+    if (!path) continue;
+    report({
+      severity: "error",
+      code: "plan/cannot-be-sized",
+      path,
+      message: `${entry.metric} cannot be sized: ${message}`,
+      expected: input2 === "effect" ? "an effect sizing can use (an absolute one where the baseline is 0)" : "baseline figures sizing can use"
+    });
+  }
+}
+var numbersAreSizeable = ({ value: plan, report }) => {
+  let outOfRange = 0;
+  numbersInRange(plan, (problem) => {
+    outOfRange++;
+    report(problem);
+  });
+  if (outOfRange === 0) sizeable(plan, report);
+};
+var NUMBER_RULES = [numbersAreSizeable];
 
 // src/core/plan/rules.ts
 var windowInOrder = ({ value: plan, report }) => {
@@ -38951,7 +39220,8 @@ var PLAN_RULES = [
   groupUnitsDescribeClusters,
   readinessNamesTargets,
   overlapsNameOthers,
-  decisionsAreWritten
+  decisionsAreWritten,
+  ...NUMBER_RULES
 ];
 
 // src/core/plan/load.ts
@@ -39119,12 +39389,52 @@ var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, col
 
 // src/core/checks/bug-fix.ts
 var import_picomatch2 = __toESM(require_picomatch2(), 1);
+
+// src/core/stats/finite-sizing.ts
+var SUSPECTS = [
+  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
+  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
+  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
+  { figure: /power|detectable/, input: "effect", name: "the power" },
+  { figure: /./, input: "baseline", name: "a figure" }
+];
+function firstNonFinite(value) {
+  const stack = [{ at: "", value }];
+  while (stack.length > 0) {
+    const { at, value: current } = stack.pop();
+    if (typeof current === "number") {
+      if (!Number.isFinite(current)) return at;
+    } else if (current !== null && typeof current === "object") {
+      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
+      for (const [key, child] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child });
+    }
+  }
+  return void 0;
+}
+function finiteSizing(sizing) {
+  return {
+    ...sizing,
+    metrics: sizing.metrics.map((entry) => {
+      if (!entry.result.ok) return entry;
+      const at = firstNonFinite(entry.result.value);
+      if (at === void 0) return entry;
+      const suspect = SUSPECTS.find((s) => s.figure.test(at));
+      return {
+        ...entry,
+        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
+      };
+    })
+  };
+}
+
+// src/core/checks/bug-fix.ts
+var CONVENTIONAL_TAIL = /^(\([^)]*\))?!?:/;
 function bugFixReason(pr, settings) {
   const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
   const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
   if (label) return `it has the label ${label}`;
   const title = pr.title ?? "";
-  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
+  const prefix = settings.titlePrefixes.find((p) => title.toLowerCase().startsWith(p.toLowerCase()) && CONVENTIONAL_TAIL.test(title.slice(p.length)));
   if (prefix) return `its title starts with ${prefix}:`;
   const branch = (pr.branch ?? "").toLowerCase();
   const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
@@ -39167,7 +39477,7 @@ function bugFixNudge(context2) {
       prePeriodCorrelation: 0,
       plannedDays: CHECK_TEST_DAYS
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === void 0) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
@@ -39654,9 +39964,16 @@ function buildReview(context2, change2, base) {
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
+  const codesByPlan = /* @__PURE__ */ new Map();
+  for (const f of findings) {
+    if (f.plan === void 0) continue;
+    const codes2 = codesByPlan.get(f.plan) ?? /* @__PURE__ */ new Set();
+    codes2.add(f.code);
+    codesByPlan.set(f.plan, codes2);
+  }
   const plans = context2.linked.map((linked) => {
     const { plan } = linked.loaded;
-    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    const mine = codesByPlan.get(plan.id) ?? /* @__PURE__ */ new Set();
     return {
       id: plan.id,
       title: plan.title,
@@ -39706,12 +40023,23 @@ function linkPlans(options) {
   const body = options.pr.body ?? "";
   const touched = new Set(options.touches.map((t) => t.key));
   for (const { plan, file: file2 } of options.plans) {
-    const idPattern = new RegExp(`(?<![\\w/-])${plan.id.replace(/[-]/g, "\\-")}(?![\\w-])`);
-    if (body.includes(file2) || idPattern.test(body)) add(plan.id, "named in the description");
+    if (body.includes(file2) || mentionsWord(body, plan.id)) add(plan.id, "named in the description");
     if (options.changedPaths.has(file2)) add(plan.id, "plan file changed");
     if (plan.flags.some((f) => touched.has(f))) add(plan.id, "flag touched");
   }
   return links;
+}
+var WORD_CHAR = /[A-Za-z0-9_]/;
+function mentionsWord(text2, word) {
+  if (word === "") return false;
+  for (let at = text2.indexOf(word); at >= 0; at = text2.indexOf(word, at + 1)) {
+    const before = text2.charAt(at - 1);
+    const after = text2.charAt(at + word.length);
+    const startsWord = before === "" || !(WORD_CHAR.test(before) || before === "/" || before === "-");
+    const endsWord = after === "" || !(WORD_CHAR.test(after) || after === "-");
+    if (startsWord && endsWord) return true;
+  }
+  return false;
 }
 
 // src/core/scan/diff.ts
@@ -39798,7 +40126,7 @@ function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
   } catch {
     return void 0;
   }
@@ -39807,12 +40135,16 @@ function flagDefinitions(text2) {
   const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
   return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
 }
+function isPlainKeyLine(line, key) {
+  const rest = line.trimStart();
+  return rest.startsWith(key) && rest.slice(key.length).trimStart().startsWith(":");
+}
 function flagDefinitionTouches(path, before, after) {
   const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
   const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
   const lineOf = (text2, key) => {
     if (!text2) return 1;
-    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\s*:`).test(l));
+    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || isPlainKeyLine(l, key));
     return index < 0 ? 1 : index + 1;
   };
   const touches = [];
@@ -39851,9 +40183,17 @@ var BUILTIN_FLAG_PATTERNS = [
 var BUILTIN_LOG_PATTERNS = [
   `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
 ];
-function constantDefinition(name) {
-  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
-  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
+var CONSTANT_VALUE = new RegExp(`\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "uy");
+var IDENT_CHAR = /[\w$.]/u;
+function constantValue(text2, name) {
+  if (name === "") return void 0;
+  for (let at = text2.indexOf(name); at >= 0; at = text2.indexOf(name, at + 1)) {
+    if (at > 0 && IDENT_CHAR.test(text2.charAt(at - 1))) continue;
+    CONSTANT_VALUE.lastIndex = at + name.length;
+    const key = CONSTANT_VALUE.exec(text2)?.groups?.key;
+    if (key !== void 0) return key;
+  }
+  return void 0;
 }
 var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
 function compilePatterns(patterns) {
@@ -39904,7 +40244,7 @@ function findFlagTouches(inputs) {
 function resolveConstant(text2, ident) {
   if (!text2) return void 0;
   const name = ident.slice(ident.lastIndexOf(".") + 1);
-  return constantDefinition(name).exec(text2)?.groups?.key;
+  return constantValue(text2, name);
 }
 
 // src/core/scan/aho-corasick.ts
@@ -40950,11 +41290,15 @@ function compiles(pattern) {
     return false;
   }
 }
+var CALL_PATTERN_MAX_LENGTH = 500;
 var callPattern = (group2, example) => {
   const expected = `a regular expression with a (?<${group2}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
+  return external_exports.string({ error: expected }).max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group2}>`), { error: `${expected}; this one has no (?<${group2}>...) group` });
 };
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var GLOB_MAX_LENGTH = 500;
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments").max(GLOB_MAX_LENGTH, {
+  error: `a path or glob relative to the repository root, at most ${GLOB_MAX_LENGTH} characters long`
+});
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
 var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
 var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
@@ -41000,7 +41344,7 @@ var writtenSettingsSchema = external_exports.strictObject(
           },
           { error: "a guardrail: { name, rate, events, direction }" }
         ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` }).lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` }).optional()
       },
       { error: "a mapping of bug-fix nudge settings" }
     ).default({
@@ -41305,7 +41649,7 @@ async function reviewChange(options) {
   const touches = [...definitionTouches, ...codeTouches];
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
-  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
   await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
@@ -41393,13 +41737,13 @@ function fromJson(value, file2) {
   const branch = text2(pr.branch ?? headRef, "branch");
   return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
 }
-function addCheckCommand(program2, setExit) {
+function addCheckCommand(program2, setExit, deps) {
   program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
     const options = program2.opts();
-    const { output: output2 } = context({ ...options, format: "text" });
+    const { output: output2 } = context({ ...options, format: "text" }, deps);
     const cwd = resolve2(options.cwd);
     const pr = await pullRequestInfo(flags, cwd);
-    const change2 = await openChange(cwd, flags.base, flags.head);
+    const change2 = await deps.openChange(cwd, flags.base, flags.head);
     const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
@@ -41511,7 +41855,7 @@ var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
   if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = sizePlan(entry.plan).metrics[0];
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
   const headline2 = sizing?.result.ok ? sizing.result.value.headline : void 0;
   const daily = entry.plan.design.dailyUnits;
   if (!headline2 || daily === void 0) return void 0;
@@ -41627,10 +41971,10 @@ async function digestRepository(options) {
 }
 
 // src/cli/digest-command.ts
-function addDigestCommand(program2, setExit) {
+function addDigestCommand(program2, setExit, deps) {
   program2.command("digest").description("the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans").option("--today <date>", "the day to judge by, YYYY-MM-DD (default: today in the settings\u2019 time zone, UTC unless set)").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).action(async (local) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     if (local.today !== void 0 && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const { digest } = await digestRepository({ files: ports.files, now: /* @__PURE__ */ new Date(), ...ports.settingsPath ? { settingsPath: ports.settingsPath } : {}, ...local.today ? { today: local.today } : {} });
     if (local.format === "json") output2.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
@@ -41687,10 +42031,10 @@ function renderRegistryText(registry2, options) {
 }
 
 // src/cli/list-command.ts
-function addListCommand(program2, setExit) {
+function addListCommand(program2, setExit, deps) {
   program2.command("list").description("show the registry of tests: state, surface, window, owners").addOption(formatOption()).addOption(new Option("--state <state>", "only tests in this state").choices(["draft", "live", "on-hold", "concluded"])).action(async (local) => {
     const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
+    const { output: output2, ...ports } = context(options, deps);
     const loaded = await loadWorkspace(ports);
     if (!loaded.ok) return setExit(reportSettingsProblems(output2, options.format, loaded.settingsFile, loaded.settingsProblems));
     const { workspace } = loaded;
@@ -41812,10 +42156,10 @@ ${check3.errors.map(formatProblem).join("\n")}`, "check --id, --owner, --surface
 }
 
 // src/cli/new-command.ts
-function addNewCommand(program2, setExit) {
+function addNewCommand(program2, setExit, deps) {
   program2.command("new").description("write a new commented draft plan for a feature flag").argument("<flag-key>", "the feature-flag key the test reads").option("--id <id>", "plan id (default: from the flag key)").option("--owner <handle>", "owner, e.g. @ana-lima").option("--surface <path>", "surface path, e.g. checkout/payment").option("--out <file>", "where to write it (default: <plans folder>/<id>.yaml)").option("--today <date>", "today as YYYY-MM-DD (default: the system date, UTC)").option("--force", "replace an existing file", false).option("--stdout", "print the plan instead of writing it", false).action(async (flagKey2, local) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     const today = local.today ?? (/* @__PURE__ */ new Date()).toISOString().slice(0, 10);
     if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const result = await scaffoldPlan({ ...ports, ...local, flagKey: flagKey2, today });
@@ -42095,7 +42439,7 @@ ${[...loaded.errors, ...loaded.warnings].map(formatProblem).join("\n")}`, "see d
 
 // src/cli/readout-command.ts
 var READOUT_JSON_FORMAT = "plumbline.readout/1";
-function addReadoutCommand(program2, setExit) {
+function addReadoutCommand(program2, setExit, deps) {
   program2.command("readout").description("read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan").argument("<plan>", "plan id or plan file").requiredOption("--totals <file>", "the arm-totals file (see docs/totals-reference.md)").addOption(new Option("--format <format>", "output format").choices(["text", "markdown", "json"]).default("text")).option("--record", "write the outcome block into the plan (comments and layout kept)", false).option("--decided-by <handle>", "who decided, e.g. @ana-lima (required with --record)").option("--today <date>", "the day recorded, YYYY-MM-DD (default: the system date, UTC)").action(async (planName, flags) => {
     const options = program2.opts();
     const output2 = createCliOutput({ noColorFlag: !options.color });
@@ -42124,7 +42468,7 @@ function addReadoutCommand(program2, setExit) {
 }
 
 // src/cli/schema-command.ts
-function addSchemaCommand(program2, setExit) {
+function addSchemaCommand(program2, setExit, deps) {
   program2.command("schema").description("print the JSON Schema of a file format, for editors and other tools").addArgument(new Command().createArgument("[format]", "plan, registry or settings").choices(["plan", "registry", "settings"]).default("plan")).action((which) => {
     const schema = which === "plan" ? planJsonSchema() : which === "registry" ? registryJsonSchema() : settingsJsonSchema();
     process.stdout.write(`${JSON.stringify(schema, null, 2)}
@@ -42138,7 +42482,7 @@ async function sizeNamedPlan(options) {
   const found = findNamedPlan(workspace, options.plan, "size");
   const { plan } = found;
   return {
-    sizing: sizePlan(plan, sizingPolicy(workspace.settings)),
+    sizing: finiteSizing(sizePlan(plan, sizingPolicy(workspace.settings))),
     power: plan.design.power,
     context: {
       title: `Sizing for ${plan.id} (${found.file})`,
@@ -42148,12 +42492,12 @@ async function sizeNamedPlan(options) {
   };
 }
 function sizeFromRequest(request, window) {
-  const sizing = {
+  const sizing = finiteSizing({
     planId: "command-line",
     ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
     ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
     metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }]
-  };
+  });
   return {
     sizing,
     power: request.power,
@@ -42248,12 +42592,12 @@ function requestFromFlags(flags) {
     method: flags.method
   };
 }
-function addSizeCommand(program2, setExit) {
+function addSizeCommand(program2, setExit, deps) {
   addSizeOptions(
     program2.command("size").description("size a test: units per arm, days, power and detectable effect by the planned end").argument("[plan]", "plan id or plan file; omit to describe a metric with --kind and the flags below")
   ).action(async (planName, flags) => {
     const options = program2.opts();
-    const { output: output2, ...ports } = context({ ...options, format: "text" });
+    const { output: output2, ...ports } = context({ ...options, format: "text" }, deps);
     if (planName && flags.kind) throw new UsageError("name a plan or give --kind, not both");
     const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
     if (!planName && !outcome.sizing.metrics[0].result.ok) {
@@ -42268,7 +42612,7 @@ function addSizeCommand(program2, setExit) {
 }
 
 // src/cli/srm-command.ts
-function addSrmCommand(program2, setExit) {
+function addSrmCommand(program2, setExit, deps) {
   program2.command("srm").description("sample ratio mismatch: do the units seen per arm fit the planned weights?").argument("<counts...>", "units observed in each arm, control first, e.g. 50412 49288").option("--weights <weights>", "planned weights, e.g. 50,50 (default: equal)").option("--threshold <p>", "alarm below this p-value", String(SRM_ALARM_P)).addOption(formatOption()).action((counts, local) => {
     const observed = parseNumbers("counts", counts);
     const weights = local.weights ? parseNumbers("weights", local.weights.split(",")) : observed.map(() => 1);
@@ -42327,10 +42671,10 @@ async function validateRepository(options) {
 }
 
 // src/cli/validate-command.ts
-function addValidateCommand(program2, setExit) {
+function addValidateCommand(program2, setExit, deps) {
   program2.command("validate").description("check every plan file, registry file and the settings file").addOption(formatOption()).action(async (local) => {
     const options = { ...program2.opts(), ...local };
-    const { output: output2, ...ports } = context(options);
+    const { output: output2, ...ports } = context(options, deps);
     const outcome = await validateRepository(ports);
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, options.format, outcome.settingsFile, outcome.problems));
     const { report } = outcome;
@@ -42340,23 +42684,24 @@ function addValidateCommand(program2, setExit) {
 }
 
 // src/cli/main.ts
-function buildProgram(setExit) {
+function buildProgram(setExit, deps = REAL_DEPS) {
   const program2 = new Command("plumbline").description("Experiment hygiene for code review: validate plans, list the registry, size and check changes.").version(VERSION).option("-C, --cwd <dir>", "repository root", ".").option("-c, --config <file>", "settings file, relative to the repository (default: .plumbline.yml if present)").option("--no-color", "never colour the output (NO_COLOR is respected too)").showHelpAfterError().exitOverride().addHelpText("after", "\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).");
-  addValidateCommand(program2, setExit);
-  addListCommand(program2, setExit);
-  addNewCommand(program2, setExit);
-  addSizeCommand(program2, setExit);
-  addCheckCommand(program2, setExit);
-  addDigestCommand(program2, setExit);
-  addSrmCommand(program2, setExit);
-  addAdjustCommand(program2, setExit);
-  addSchemaCommand(program2, setExit);
-  addReadoutCommand(program2, setExit);
+  addValidateCommand(program2, setExit, deps);
+  addListCommand(program2, setExit, deps);
+  addNewCommand(program2, setExit, deps);
+  addSizeCommand(program2, setExit, deps);
+  addCheckCommand(program2, setExit, deps);
+  addDigestCommand(program2, setExit, deps);
+  addSrmCommand(program2, setExit, deps);
+  addAdjustCommand(program2, setExit, deps);
+  addSchemaCommand(program2, setExit, deps);
+  addReadoutCommand(program2, setExit, deps);
   return program2;
 }
-async function runCli(argv) {
+async function runCli(argv, deps = REAL_DEPS) {
   let exitCode = EXIT.ok;
-  const program2 = buildProgram((code) => exitCode = code);
+  const program2 = buildProgram((code) => exitCode = code, deps);
+  const stderr = (text2) => deps.write ? deps.write.err(text2) : process.stderr.write(text2);
   try {
     await program2.parseAsync(argv);
     return exitCode;
@@ -42365,7 +42710,7 @@ async function runCli(argv) {
       return error62.exitCode === 0 ? EXIT.ok : EXIT.usage;
     }
     if (error62 instanceof UsageError) {
-      process.stderr.write(`plumbline: ${error62.message}${error62.hint ? `
+      stderr(`plumbline: ${error62.message}${error62.hint ? `
   hint: ${error62.hint}` : ""}
 `);
       return EXIT.usage;
@@ -42373,13 +42718,13 @@ async function runCli(argv) {
     if (error62 instanceof ExternalError) {
       const cause = error62.cause instanceof Error ? `
   cause: ${error62.cause.message}` : "";
-      process.stderr.write(`plumbline: ${error62.message}${cause}${error62.hint ? `
+      stderr(`plumbline: ${error62.message}${cause}${error62.hint ? `
   hint: ${error62.hint}` : ""}
 `);
       return EXIT.usage;
     }
     const detail = error62 instanceof Error ? error62.stack ?? error62.message : String(error62);
-    process.stderr.write(`plumbline: internal error: ${detail}
+    stderr(`plumbline: internal error: ${detail}
 ${BUG_REPORT_HINT}
 `);
     return EXIT.internal;

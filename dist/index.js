@@ -5862,7 +5862,7 @@ var require_client_h1 = __commonJS({
     var TIMEOUT_HEADERS = 2 | USE_FAST_TIMER;
     var TIMEOUT_BODY = 4 | USE_FAST_TIMER;
     var TIMEOUT_KEEP_ALIVE = 8 | USE_NATIVE_TIMER;
-    var Parser = class {
+    var Parser2 = class {
       constructor(client, socket, { exports: exports2 }) {
         assert2(Number.isFinite(client[kMaxHeadersSize]) && client[kMaxHeadersSize] > 0);
         this.llhttp = exports2;
@@ -6289,7 +6289,7 @@ var require_client_h1 = __commonJS({
       socket[kIdleSocketValidation] = 0;
       socket[kIdleSocketValidationTimeout] = null;
       socket[kSocketUsed] = false;
-      socket[kParser] = new Parser(client, socket, llhttpInstance);
+      socket[kParser] = new Parser2(client, socket, llhttpInstance);
       addListener(socket, "error", function(err) {
         const parser = this[kParser];
         if (err.code === "ECONNRESET" && parser.statusCode && !parser.shouldKeepAlive) {
@@ -31728,7 +31728,7 @@ var require_composer = __commonJS({
       }
       return { comment, afterEmptyLine };
     }
-    var Composer = class {
+    var Composer2 = class {
       constructor(options = {}) {
         this.doc = null;
         this.atDirectives = false;
@@ -31888,7 +31888,7 @@ ${end.comment}` : end.comment;
         }
       }
     };
-    exports.Composer = Composer;
+    exports.Composer = Composer2;
   }
 });
 
@@ -33019,7 +33019,7 @@ var require_parser = __commonJS({
         }
       }
     }
-    var Parser = class {
+    var Parser2 = class {
       /**
        * @param onNewLine - If defined, called separately with the start position of
        *   each new line (in `parse()`, including the start of input).
@@ -33792,7 +33792,7 @@ var require_parser = __commonJS({
         }
       }
     };
-    exports.Parser = Parser;
+    exports.Parser = Parser2;
   }
 });
 
@@ -33826,7 +33826,7 @@ var require_public_api = __commonJS({
         return docs;
       return Object.assign([], { empty: true }, composer$1.streamInfo());
     }
-    function parseDocument2(source, options = {}) {
+    function parseDocument(source, options = {}) {
       const { lineCounter: lineCounter2, prettyErrors } = parseOptions(options);
       const parser$1 = new parser.Parser(lineCounter2?.addNewLine);
       const composer$1 = new composer.Composer(options);
@@ -33852,7 +33852,7 @@ var require_public_api = __commonJS({
       } else if (options === void 0 && reviver && typeof reviver === "object") {
         options = reviver;
       }
-      const doc = parseDocument2(src, options);
+      const doc = parseDocument(src, options);
       if (!doc)
         return null;
       doc.warnings.forEach((warning2) => log.warn(doc.options.logLevel, warning2));
@@ -33888,7 +33888,7 @@ var require_public_api = __commonJS({
     }
     exports.parse = parse6;
     exports.parseAllDocuments = parseAllDocuments;
-    exports.parseDocument = parseDocument2;
+    exports.parseDocument = parseDocument;
     exports.stringify = stringify;
   }
 });
@@ -61443,7 +61443,8 @@ function asDescription(expected) {
 }
 var text = (expected) => external_exports.string({ error: expected }).trim().min(1, { error: expected }).describe(asDescription(expected));
 var optionalText = (expected) => text(expected).optional();
-var kebabName = (expected) => external_exports.string({ error: expected }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
+var NAME_MAX_LENGTH = 100;
+var kebabName = (expected) => external_exports.string({ error: expected }).max(NAME_MAX_LENGTH, { error: `${expected}, at most ${NAME_MAX_LENGTH} characters long` }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
 var openShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lt(1, { error: expected }).describe(asDescription(expected));
 var positiveShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lte(1, { error: expected }).describe(asDescription(expected));
 var positiveNumber = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).describe(asDescription(expected));
@@ -61760,9 +61761,9 @@ function integrateInflation(design, power) {
   if (!(power > design.alpha && power < 1)) return fail("power", `power must be between the significance level and 1; got ${power}`);
   const bounds = sequentialBoundaries(design);
   if (!bounds.ok) return bounds;
-  const fixed = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
+  const fixed2 = normalUpperQuantile(design.alpha / design.sides) + normalQuantile(power);
   if (design.looks === 1) return ok({ boundaries: bounds.value, inflation: 1, expectedUnderAlternative: 1 });
-  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed * 0.9, fixed * 2, 1e-11);
+  const eta = findRoot((e) => sequentialPower(bounds.value.z, design.sides, e) - power, fixed2 * 0.9, fixed2 * 2, 1e-11);
   if (eta === void 0) return fail("power", "no design reaches this power");
   const { crossings } = walk(design.looks, design.sides, eta, (k) => bounds.value.z[k - 1]);
   let continuing = 1;
@@ -61772,7 +61773,7 @@ function integrateInflation(design, power) {
     expected += (k + 1) / design.looks * (k === design.looks - 1 ? continuing : stopHere);
     continuing -= stopHere;
   }
-  const inflation = (eta / fixed) ** 2;
+  const inflation = (eta / fixed2) ** 2;
   return ok({ boundaries: bounds.value, inflation, expectedUnderAlternative: expected * inflation });
 }
 
@@ -63084,6 +63085,126 @@ function runRules(value, source, rules) {
 
 // src/core/source/yaml-source.ts
 var import_yaml = __toESM(require_dist(), 1);
+
+// src/core/source/yaml-messages.ts
+var fixed = (message, expected) => () => ({ message, expected });
+var TRANSLATIONS = [
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    startsWith: "Nested mappings",
+    explain: fixed(
+      'a second "key:" follows on the same line as a key (as in "a: b: c")',
+      'one key per line: put the inner mapping on the lines below, indented, or quote a value that contains ": "'
+    )
+  },
+  {
+    code: "BLOCK_AS_IMPLICIT_KEY",
+    explain: fixed("a list item stands where a key was expected", 'list items ("- ...") on their own lines, indented under the key they belong to')
+  },
+  {
+    code: "MULTILINE_IMPLICIT_KEY",
+    explain: fixed(
+      'a key runs over more than one line (often a line above lacks its colon, or a value holding ": " is not quoted)',
+      'each key and its colon on one line, as in "title: Wallet first"; quote a value that contains ": "'
+    )
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Implicit map keys need to be followed by map values",
+    explain: fixed("a line inside a mapping has no colon", '"key: value" on every line of a mapping')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Sequence item without - indicator",
+    explain: fixed('a line inside a list does not start with "-"', 'every item of a list on its own line starting with "- "')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing closing",
+    explain: fixed("a quoted value is never closed", `the same quote mark (" or ') at the end of the value as at its start`)
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Comments must be separated",
+    explain: fixed('a "#" touches the text before it', 'a space before "#" to start a comment, or quotes around a value that contains "#"')
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing ,",
+    explain: fixed("items inside [ ] or { } are not separated by commas", "a comma between items, as in [web, ios] or {start: 2026-11-02, end: 2026-11-29}")
+  },
+  {
+    code: "MISSING_CHAR",
+    startsWith: "Missing space after :",
+    explain: fixed("a colon inside [ ] or { } has no space after it", "a space after each colon, as in {relative: 0.05}")
+  },
+  {
+    code: "TAB_AS_INDENT",
+    explain: fixed("a tab is used for indentation", "spaces for indentation (YAML does not allow tabs there)")
+  },
+  {
+    code: "BAD_INDENT",
+    startsWith: "All sequence items",
+    explain: fixed("the items of this list do not line up", 'every "-" of one list in the same column')
+  },
+  {
+    code: "BAD_INDENT",
+    explain: fixed(
+      "the indentation here does not fit the lines around it",
+      "the keys of one mapping in the same column, and what belongs under a key indented further with spaces"
+    )
+  },
+  {
+    code: "BAD_SCALAR_START",
+    explain: (original) => {
+      const mark = /start with (?:reserved character )?(\S+)/.exec(original)?.[1] ?? "this character";
+      return {
+        message: `a value starts with ${mark}, which YAML reserves`,
+        expected: `quotes around a value that starts with ${mark}, as in '${mark === "@" ? "@ana-lima" : `${mark}...`}'`
+      };
+    }
+  },
+  {
+    code: "BAD_DQ_ESCAPE",
+    explain: fixed(
+      "a backslash in a double-quoted value starts an escape YAML does not know",
+      "single quotes around a value with backslashes ('a\\b'), or \\\\ for each backslash inside double quotes"
+    )
+  },
+  {
+    code: "BLOCK_IN_FLOW",
+    explain: fixed('a list or mapping written with "-" or indentation sits inside [ ] or { }', "one style per value: either brackets and commas, or indented lines")
+  },
+  {
+    code: "KEY_OVER_1024_CHARS",
+    explain: fixed("a key is longer than 1024 characters (or a colon is missing far above)", 'short keys, each followed by ": " on the same line')
+  },
+  {
+    code: "TAG_RESOLVE_FAILED",
+    explain: fixed('a value carries a "!" tag this file format does not use', 'plain values without "!" tags; quote a value that starts with "!"')
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected scalar at node end",
+    explain: fixed("more text follows a complete value on this line", "quotes around the whole value, or the rest on a line of its own")
+  },
+  {
+    code: "UNEXPECTED_TOKEN",
+    startsWith: "Unexpected flow-",
+    explain: fixed("a bracket here has no partner", "each [ closed by ] and each { closed by }, or quotes around a value that starts with [ or {")
+  },
+  {
+    code: "RESOURCE_EXHAUSTION",
+    explain: fixed("the file nests lists and mappings too deeply to read", "a plan nested a few levels deep, as in the examples")
+  }
+];
+function explainYamlError(code, message) {
+  const translation = TRANSLATIONS.find((t) => t.code === code && (t.startsWith === void 0 || message.startsWith(t.startsWith)));
+  return translation ? translation.explain(message) : { message };
+}
+
+// src/core/source/yaml-source.ts
+var MAX_NESTING_DEPTH = 32;
 function readYaml(text2, file2, limits, codePrefix) {
   const fail2 = (line, column, code, message, expected) => ({
     ok: false,
@@ -63094,17 +63215,41 @@ function readYaml(text2, file2, limits, codePrefix) {
     return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
   }
   const lineCounter = new import_yaml.LineCounter();
-  const doc = (0, import_yaml.parseDocument)(text2, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  const tokens = Array.from(new import_yaml.Parser(lineCounter.addNewLine).parse(text2));
+  const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
+  if (tooDeepAt !== void 0) {
+    const pos = lineCounter.linePos(tooDeepAt);
+    return fail2(
+      pos.line,
+      pos.col,
+      "too-deep",
+      `lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`,
+      `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`
+    );
+  }
+  const composer = new import_yaml.Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
+  let doc;
+  let secondDocumentAt;
+  for (const composed of composer.compose(tokens, true, text2.length)) {
+    if (!doc) doc = composed;
+    else {
+      secondDocumentAt = composed.range[0];
+      break;
+    }
+  }
+  if (!doc) return fail2(1, 1, "bad-yaml", "this is not valid YAML");
+  if (secondDocumentAt !== void 0 && doc.errors.length === 0) {
+    const pos = lineCounter.linePos(secondDocumentAt);
+    return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
+  }
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === "MULTIPLE_DOCS") {
-      return fail2(pos.line, pos.col, "several-documents", 'the file holds more than one YAML document (a second "---")', "one document per file");
-    }
     if (firstError.code === "DUPLICATE_KEY") {
       return fail2(pos.line, pos.col, "duplicate-key", "this key is written twice in the same mapping", "each key once");
     }
-    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+    const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
+    return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${explained.message}`, explained.expected);
   }
   let complexKeyAt;
   (0, import_yaml.visit)(doc, {
@@ -63174,6 +63319,34 @@ function childOf(node2, segment) {
   }
   return null;
 }
+function firstOffsetDeeperThan(tokens, limit) {
+  const stack = tokens.map((token) => ({ token, depth: 0 }));
+  let first;
+  while (stack.length > 0) {
+    const { token, depth } = stack.pop();
+    const children = [];
+    let childDepth = depth;
+    switch (token.type) {
+      case "document":
+        children.push(token.value);
+        break;
+      case "block-map":
+      case "block-seq":
+      case "flow-collection":
+        childDepth = depth + 1;
+        if (childDepth > limit) {
+          first = first === void 0 ? token.offset : Math.min(first, token.offset);
+          continue;
+        }
+        for (const item of token.items) children.push("key" in item ? item.key : void 0, item.value);
+        break;
+      default:
+        break;
+    }
+    for (const child2 of children) if (child2) stack.push({ token: child2, depth: childDepth });
+  }
+  return first;
+}
 function plainYamlMessage(message) {
   return message.split("\n")[0].replace(/ at line \d+, column \d+:?$/, "").trim();
 }
@@ -63218,6 +63391,101 @@ function renamedSurfaceKeys(source, surfaces, codePrefix) {
   }
   return problems;
 }
+
+// src/core/plan/number-rules.ts
+var METRIC_FIGURE = { min: 1e-12, max: 1e15, why: "a figure from 1e-12 to 1e15 in size (or 0 where 0 is allowed)" };
+var RELATIVE_EFFECT = { min: 1e-6, max: 100, why: "a relative change from 0.000001 to 100 (one in a million to a 101-fold change)" };
+var DAILY_UNITS = { min: 0.01, max: 1e10, why: "from 0.01 (one unit in a hundred days) to 10,000,000,000 (more than the world\u2019s population)" };
+var ARM_WEIGHT = { min: 1e-6, max: 1e6, why: "a weight from 0.000001 to 1,000,000" };
+var SMALLEST_ARM_SHARE = 1e-3;
+var CLUSTER_MEAN_SIZE = { min: 1, max: 1e7, why: "a mean group size from 1 to 10,000,000" };
+var CLUSTER_SIZE_CV = { min: 0, max: 10, why: "a coefficient of variation of group sizes from 0 to 10" };
+function checkBound(report, path6, value, bound, zeroAllowed = false) {
+  if (value === void 0) return;
+  const size = Math.abs(value);
+  if (zeroAllowed && value === 0) return;
+  if (size >= bound.min && size <= bound.max) return;
+  report({
+    severity: "error",
+    code: "plan/number-out-of-range",
+    path: path6,
+    message: `${value} is ${size < bound.min ? "too small" : "too large"} for sizing to give a meaningful figure`,
+    expected: bound.why
+  });
+}
+function metricFigures(metric2, path6, report) {
+  const baseline = [...path6, "baseline"];
+  if (metric2.kind === "mean") {
+    checkBound(report, [...baseline, "mean"], metric2.baseline.mean, METRIC_FIGURE, true);
+    checkBound(report, [...baseline, "sd"], metric2.baseline.sd, METRIC_FIGURE);
+  }
+  if (metric2.kind === "ratio") {
+    for (const part of ["numerator", "denominator"]) {
+      checkBound(report, [...baseline, part, "mean"], metric2.baseline[part].mean, METRIC_FIGURE, true);
+      checkBound(report, [...baseline, part, "sd"], metric2.baseline[part].sd, METRIC_FIGURE, true);
+    }
+  }
+  if (metric2.tolerance) effectFigures(metric2.tolerance, [...path6, "tolerance"], report);
+}
+function effectFigures(effect, path6, report) {
+  checkBound(report, [...path6, "relative"], effect.relative, RELATIVE_EFFECT);
+  checkBound(report, [...path6, "absolute"], effect.absolute, METRIC_FIGURE);
+}
+function numbersInRange(plan, report) {
+  const { design } = plan;
+  checkBound(report, ["design", "daily-units"], design.dailyUnits, DAILY_UNITS);
+  if (design.minDetectableEffect) effectFigures(design.minDetectableEffect, ["design", "min-detectable-effect"], report);
+  design.arms.forEach((arm2, i) => checkBound(report, ["design", "arms", i, "weight"], arm2.weight, ARM_WEIGHT));
+  const total = design.arms.reduce((sum, arm2) => sum + arm2.weight, 0);
+  const smallest = design.arms.reduce((min, arm2, i) => arm2.weight < design.arms[min].weight ? i : min, 0);
+  if (design.arms.length > 0 && Number.isFinite(total) && design.arms[smallest].weight / total < SMALLEST_ARM_SHARE) {
+    report({
+      severity: "error",
+      code: "plan/number-out-of-range",
+      path: ["design", "arms", smallest, "weight"],
+      message: `arm "${design.arms[smallest].name}" gets ${design.arms[smallest].weight} of ${total} weight, less than one unit in ${1 / SMALLEST_ARM_SHARE}`,
+      expected: `a weight giving every arm at least ${SMALLEST_ARM_SHARE * 100}% of the units`
+    });
+  }
+  if (design.cluster) {
+    checkBound(report, ["design", "cluster", "mean-size"], design.cluster.meanSize, CLUSTER_MEAN_SIZE);
+    checkBound(report, ["design", "cluster", "size-cv"], design.cluster.sizeCv, CLUSTER_SIZE_CV, true);
+  }
+  metricFigures(plan.metrics.primary, ["metrics", "primary"], report);
+  plan.metrics.guardrails.forEach((m, i) => metricFigures(m, ["metrics", "guardrails", i], report));
+  plan.metrics.secondary.forEach((m, i) => metricFigures(m, ["metrics", "secondary", i], report));
+}
+function sizeable(plan, report) {
+  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } });
+  for (const entry of sizing.metrics) {
+    if (entry.result.ok) continue;
+    const { input: input2, message } = entry.result.error;
+    const guardrail = plan.metrics.guardrails.findIndex((m) => m.name === entry.metric);
+    if (entry.role !== "primary" && guardrail < 0) continue;
+    const metricPath2 = entry.role === "primary" ? ["metrics", "primary"] : ["metrics", "guardrails", guardrail];
+    const effectPath = entry.role === "primary" ? ["design", "min-detectable-effect"] : [...metricPath2, "tolerance"];
+    let path6;
+    if (input2 === "effect") path6 = effectPath;
+    else if (input2 === "baseline" || input2.startsWith("baseline.")) path6 = [...metricPath2, ...input2.split(".")];
+    if (!path6) continue;
+    report({
+      severity: "error",
+      code: "plan/cannot-be-sized",
+      path: path6,
+      message: `${entry.metric} cannot be sized: ${message}`,
+      expected: input2 === "effect" ? "an effect sizing can use (an absolute one where the baseline is 0)" : "baseline figures sizing can use"
+    });
+  }
+}
+var numbersAreSizeable = ({ value: plan, report }) => {
+  let outOfRange = 0;
+  numbersInRange(plan, (problem) => {
+    outOfRange++;
+    report(problem);
+  });
+  if (outOfRange === 0) sizeable(plan, report);
+};
+var NUMBER_RULES = [numbersAreSizeable];
 
 // src/core/plan/rules.ts
 var windowInOrder = ({ value: plan, report }) => {
@@ -63423,7 +63691,8 @@ var PLAN_RULES = [
   groupUnitsDescribeClusters,
   readinessNamesTargets,
   overlapsNameOthers,
-  decisionsAreWritten
+  decisionsAreWritten,
+  ...NUMBER_RULES
 ];
 
 // src/core/plan/load.ts
@@ -63591,12 +63860,52 @@ var collisionCheck = (context3) => collisionsOfLinked(context3).map(({ plan, col
 
 // src/core/checks/bug-fix.ts
 var import_picomatch2 = __toESM(require_picomatch2(), 1);
+
+// src/core/stats/finite-sizing.ts
+var SUSPECTS = [
+  { figure: /duration|days|weeks|powerByDay/, input: "daily-units", name: "the number of days" },
+  { figure: /clusters|designEffect/, input: "cluster", name: "the number of groups" },
+  { figure: /perArm|totalUnits|units/, input: "effect", name: "the number of units" },
+  { figure: /power|detectable/, input: "effect", name: "the power" },
+  { figure: /./, input: "baseline", name: "a figure" }
+];
+function firstNonFinite(value) {
+  const stack = [{ at: "", value }];
+  while (stack.length > 0) {
+    const { at, value: current } = stack.pop();
+    if (typeof current === "number") {
+      if (!Number.isFinite(current)) return at;
+    } else if (current !== null && typeof current === "object") {
+      const entries = Array.isArray(current) ? current.map((v, i) => [String(i), v]) : Object.entries(current);
+      for (const [key, child2] of entries.reverse()) stack.push({ at: at ? `${at}.${key}` : key, value: child2 });
+    }
+  }
+  return void 0;
+}
+function finiteSizing(sizing) {
+  return {
+    ...sizing,
+    metrics: sizing.metrics.map((entry) => {
+      if (!entry.result.ok) return entry;
+      const at = firstNonFinite(entry.result.value);
+      if (at === void 0) return entry;
+      const suspect = SUSPECTS.find((s) => s.figure.test(at));
+      return {
+        ...entry,
+        result: fail(suspect.input, `${suspect.name} overflows for these inputs (${at}); bring ${suspect.input} and the other figures into the ranges in docs/plan-limits.md`)
+      };
+    })
+  };
+}
+
+// src/core/checks/bug-fix.ts
+var CONVENTIONAL_TAIL = /^(\([^)]*\))?!?:/;
 function bugFixReason(pr, settings) {
   const labels = (pr.labels ?? []).map((l) => l.toLowerCase());
   const label = settings.labels.find((l) => labels.includes(l.toLowerCase()));
   if (label) return `it has the label ${label}`;
   const title = pr.title ?? "";
-  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}(\\([^)]*\\))?!?:`, "i").test(title));
+  const prefix = settings.titlePrefixes.find((p) => title.toLowerCase().startsWith(p.toLowerCase()) && CONVENTIONAL_TAIL.test(title.slice(p.length)));
   if (prefix) return `its title starts with ${prefix}:`;
   const branch = (pr.branch ?? "").toLowerCase();
   const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
@@ -63639,7 +63948,7 @@ function bugFixNudge(context3) {
       prePeriodCorrelation: 0,
       plannedDays: CHECK_TEST_DAYS
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === void 0) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;
@@ -64126,9 +64435,16 @@ function buildReview(context3, change2, base) {
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
+  const codesByPlan = /* @__PURE__ */ new Map();
+  for (const f of findings) {
+    if (f.plan === void 0) continue;
+    const codes2 = codesByPlan.get(f.plan) ?? /* @__PURE__ */ new Set();
+    codes2.add(f.code);
+    codesByPlan.set(f.plan, codes2);
+  }
   const plans = context3.linked.map((linked) => {
     const { plan } = linked.loaded;
-    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    const mine = codesByPlan.get(plan.id) ?? /* @__PURE__ */ new Set();
     return {
       id: plan.id,
       title: plan.title,
@@ -64178,12 +64494,23 @@ function linkPlans(options) {
   const body = options.pr.body ?? "";
   const touched = new Set(options.touches.map((t) => t.key));
   for (const { plan, file: file2 } of options.plans) {
-    const idPattern = new RegExp(`(?<![\\w/-])${plan.id.replace(/[-]/g, "\\-")}(?![\\w-])`);
-    if (body.includes(file2) || idPattern.test(body)) add(plan.id, "named in the description");
+    if (body.includes(file2) || mentionsWord(body, plan.id)) add(plan.id, "named in the description");
     if (options.changedPaths.has(file2)) add(plan.id, "plan file changed");
     if (plan.flags.some((f) => touched.has(f))) add(plan.id, "flag touched");
   }
   return links;
+}
+var WORD_CHAR = /[A-Za-z0-9_]/;
+function mentionsWord(text2, word) {
+  if (word === "") return false;
+  for (let at = text2.indexOf(word); at >= 0; at = text2.indexOf(word, at + 1)) {
+    const before = text2.charAt(at - 1);
+    const after = text2.charAt(at + word.length);
+    const startsWord = before === "" || !(WORD_CHAR.test(before) || before === "/" || before === "-");
+    const endsWord = after === "" || !(WORD_CHAR.test(after) || after === "-");
+    if (startsWord && endsWord) return true;
+  }
+  return false;
 }
 
 // src/core/scan/diff.ts
@@ -64270,7 +64597,7 @@ function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
   } catch {
     return void 0;
   }
@@ -64279,12 +64606,16 @@ function flagDefinitions(text2) {
   const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
   return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
 }
+function isPlainKeyLine(line, key) {
+  const rest = line.trimStart();
+  return rest.startsWith(key) && rest.slice(key.length).trimStart().startsWith(":");
+}
 function flagDefinitionTouches(path6, before, after) {
   const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
   const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
   const lineOf = (text2, key) => {
     if (!text2) return 1;
-    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\s*:`).test(l));
+    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || isPlainKeyLine(l, key));
     return index < 0 ? 1 : index + 1;
   };
   const touches = [];
@@ -64323,9 +64654,17 @@ var BUILTIN_FLAG_PATTERNS = [
 var BUILTIN_LOG_PATTERNS = [
   `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
 ];
-function constantDefinition(name) {
-  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
-  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
+var CONSTANT_VALUE = new RegExp(`\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "uy");
+var IDENT_CHAR = /[\w$.]/u;
+function constantValue(text2, name) {
+  if (name === "") return void 0;
+  for (let at = text2.indexOf(name); at >= 0; at = text2.indexOf(name, at + 1)) {
+    if (at > 0 && IDENT_CHAR.test(text2.charAt(at - 1))) continue;
+    CONSTANT_VALUE.lastIndex = at + name.length;
+    const key = CONSTANT_VALUE.exec(text2)?.groups?.key;
+    if (key !== void 0) return key;
+  }
+  return void 0;
 }
 var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
 function compilePatterns(patterns) {
@@ -64376,7 +64715,7 @@ function findFlagTouches(inputs) {
 function resolveConstant(text2, ident) {
   if (!text2) return void 0;
   const name = ident.slice(ident.lastIndexOf(".") + 1);
-  return constantDefinition(name).exec(text2)?.groups?.key;
+  return constantValue(text2, name);
 }
 
 // src/core/scan/aho-corasick.ts
@@ -65437,11 +65776,15 @@ function compiles(pattern) {
     return false;
   }
 }
+var CALL_PATTERN_MAX_LENGTH = 500;
 var callPattern = (group3, example) => {
   const expected = `a regular expression with a (?<${group3}>...) group, e.g. ${example}`;
-  return external_exports.string({ error: expected }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group3}>`), { error: `${expected}; this one has no (?<${group3}>...) group` });
+  return external_exports.string({ error: expected }).max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` }).refine(compiles, { error: `${expected}; this one does not compile` }).refine((p) => p.includes(`(?<${group3}>`), { error: `${expected}; this one has no (?<${group3}>...) group` });
 };
-var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments");
+var GLOB_MAX_LENGTH = 500;
+var pathGlob = text("a path or glob relative to the repository root, e.g. src/** or experiments").max(GLOB_MAX_LENGTH, {
+  error: `a path or glob relative to the repository root, at most ${GLOB_MAX_LENGTH} characters long`
+});
 var DEFAULT_PLAN_FOLDERS = ["experiments"];
 var DEFAULT_BUG_LABELS = ["bug", "bugfix", "fix", "regression"];
 var DEFAULT_NON_PRODUCT_PATHS = ["**/*.md", "**/*.mdx", "docs/**", "**/test/**", "**/tests/**", "**/__tests__/**", "**/*.test.*", "**/*.spec.*", ".github/**", "**/*.yml", "**/*.yaml", "**/*.json", "**/*.toml", ".*"];
@@ -65487,7 +65830,7 @@ var writtenSettingsSchema = external_exports.strictObject(
           },
           { error: "a guardrail: { name, rate, events, direction }" }
         ).optional().describe("The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line."),
-        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gt(0, { error: "eligible units per day, above 0" }).optional()
+        "daily-units": external_exports.number({ error: "eligible units per day, above 0" }).gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` }).lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` }).optional()
       },
       { error: "a mapping of bug-fix nudge settings" }
     ).default({
@@ -65792,7 +66135,7 @@ async function reviewChange(options) {
   const touches = [...definitionTouches, ...codeTouches];
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
-  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+  const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
   await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
     file: file2,
@@ -66001,7 +66344,7 @@ var DIGEST_JSON_FORMAT = "plumbline.digest/1";
 // src/core/digest/build-digest.ts
 function estimateSampleReached(entry, today) {
   if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = sizePlan(entry.plan).metrics[0];
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
   const headline2 = sizing?.result.ok ? sizing.result.value.headline : void 0;
   const daily = entry.plan.design.dailyUnits;
   if (!headline2 || daily === void 0) return void 0;

@@ -2,11 +2,11 @@ import type { Command } from 'commander';
 import { ADJUST_JSON_FORMAT, renderAdjustedText } from '../core/report/readout.js';
 import { adjustPValues } from '../core/stats/multiple-testing.js';
 import { UsageError } from '../errors.js';
-import { EXIT, formatOption, parseNumbers, type SetExit } from './common.js';
+import { EXIT, formatOption, parseNumbers, type SetExit, type CliDeps } from './common.js';
 import { createCliOutput } from './output.js';
 
 /** `plumbline adjust <p-values...>`: Benjamini–Hochberg, Holm and Bonferroni. */
-export function addAdjustCommand(program: Command, setExit: SetExit): void {
+export function addAdjustCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('adjust')
     .description('adjust p-values for multiple comparisons (Benjamini-Hochberg, Holm and Bonferroni)')

@@ -1,12 +1,11 @@
 import { readFile } from 'node:fs/promises';
 import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
-import { openChange } from '../adapters/git.js';
 import { renderReviewMarkdown } from '../core/report/review-markdown.js';
 import { renderReviewText } from '../core/report/review-text.js';
 import { reviewJson } from '../core/review/report-schema.js';
 import { reviewChange } from '../run/review-change.js';
-import { EXIT, context, reportSettingsProblems, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, context, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 import { resolve } from 'node:path';
 import type { PullRequestInfo } from '../core/review/context.js';
 import { ExternalError, UsageError } from '../errors.js';
@@ -82,7 +81,7 @@ function fromJson(value: unknown, file: string): PullRequestInfo {
 }
 
 /** `plumbline check --base <ref>`: the pull-request review of a change. */
-export function addCheckCommand(program: Command, setExit: SetExit): void {
+export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('check')
     .description('review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks')
@@ -99,10 +98,10 @@ export function addCheckCommand(program: Command, setExit: SetExit): void {
     .option('--output <file>', 'also write the JSON report to this file')
     .action(async (flags: CheckFlags) => {
       const options = program.opts<CommonOptions>();
-      const { output } = context({ ...options, format: 'text' });
+      const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
       const pr = await pullRequestInfo(flags, cwd);
-      const change = await openChange(cwd, flags.base!, flags.head);
+      const change = await deps.openChange(cwd, flags.base!, flags.head);
       const outcome = await reviewChange({ change, pr, onProgress: output.progress, today: new Date().toISOString().slice(0, 10), ...(options.config ? { settingsPath: options.config } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;

@@ -1,6 +1,8 @@
 import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
+import { openChange } from '../adapters/git.js';
+import type { ChangeSource, RepoFiles } from '../ports.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { createCliOutput, type CliOutput } from './output.js';
@@ -21,9 +23,21 @@ export interface CommonOptions {
 
 export const formatOption = () => new Option('--format <format>', 'output format').choices(['text', 'json']).default('text');
 
-export function context(options: CommonOptions) {
-  const output = createCliOutput({ noColorFlag: !options.color });
-  const files = createRepoFiles(resolve(options.cwd));
+/**
+ * What the commands reach outside the process through. The defaults are the real ones; the fuzzer
+ * (scripts/fuzz.ts) runs the very same program over files in memory and captures what it prints.
+ */
+export interface CliDeps {
+  files(root: string): RepoFiles;
+  openChange(root: string, base: string, head: string): Promise<ChangeSource>;
+  write?: { out(text: string): void; err(text: string): void };
+}
+
+export const REAL_DEPS: CliDeps = { files: createRepoFiles, openChange };
+
+export function context(options: CommonOptions, deps: CliDeps) {
+  const output = createCliOutput({ noColorFlag: !options.color, ...(deps.write ? { write: deps.write } : {}) });
+  const files = deps.files(resolve(options.cwd));
   return { output, files, settingsPath: options.config, onProgress: output.progress };
 }
 

@@ -3,10 +3,10 @@ import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../c
 import { isCalendarDate } from '../core/source/fields.js';
 import { UsageError } from '../errors.js';
 import { digestRepository } from '../run/digest.js';
-import { EXIT, context, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline digest`: the weekly digest of the registry. */
-export function addDigestCommand(program: Command, setExit: SetExit): void {
+export function addDigestCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('digest')
     .description('the weekly digest: tests past their end, ending soon, stale drafts, long holds, collisions, flags without plans')
@@ -14,7 +14,7 @@ export function addDigestCommand(program: Command, setExit: SetExit): void {
     .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
     .action(async (local: { today?: string; format: string }) => {
       const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
+      const { output, ...ports } = context({ ...options, format: 'text' }, deps);
       if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
       if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));

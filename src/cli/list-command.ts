@@ -1,10 +1,10 @@
 import { Option, type Command } from 'commander';
 import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
 import { loadWorkspace } from '../run/load-workspace.js';
-import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline list`: the registry of tests. */
-export function addListCommand(program: Command, setExit: SetExit): void {
+export function addListCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('list')
     .description('show the registry of tests: state, surface, window, owners')
@@ -12,7 +12,7 @@ export function addListCommand(program: Command, setExit: SetExit): void {
     .addOption(new Option('--state <state>', 'only tests in this state').choices(['draft', 'live', 'on-hold', 'concluded']))
     .action(async (local: { format: 'text' | 'json'; state?: string }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
+      const { output, ...ports } = context(options, deps);
       const loaded = await loadWorkspace(ports);
       if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
       const { workspace } = loaded;

@@ -3,7 +3,7 @@ import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
 import { VERSION } from '../version.js';
 import { addAdjustCommand } from './adjust-command.js';
 import { addCheckCommand } from './check-command.js';
-import { EXIT } from './common.js';
+import { EXIT, REAL_DEPS, type CliDeps } from './common.js';
 import { addDigestCommand } from './digest-command.js';
 import { addListCommand } from './list-command.js';
 import { addNewCommand } from './new-command.js';
@@ -13,10 +13,10 @@ import { addSizeCommand } from './size-command.js';
 import { addSrmCommand } from './srm-command.js';
 import { addValidateCommand } from './validate-command.js';
 
-export { EXIT } from './common.js';
+export { EXIT, type CliDeps } from './common.js';
 
 /** The program: global options, then each command from its own module, in the order --help lists them. */
-export function buildProgram(setExit: (code: number) => void): Command {
+export function buildProgram(setExit: (code: number) => void, deps: CliDeps = REAL_DEPS): Command {
   const program = new Command('plumbline')
     .description('Experiment hygiene for code review: validate plans, list the registry, size and check changes.')
     .version(VERSION)
@@ -27,23 +27,24 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .exitOverride()
     .addHelpText('after', '\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).');
 
-  addValidateCommand(program, setExit);
-  addListCommand(program, setExit);
-  addNewCommand(program, setExit);
-  addSizeCommand(program, setExit);
-  addCheckCommand(program, setExit);
-  addDigestCommand(program, setExit);
-  addSrmCommand(program, setExit);
-  addAdjustCommand(program, setExit);
-  addSchemaCommand(program, setExit);
-  addReadoutCommand(program, setExit);
+  addValidateCommand(program, setExit, deps);
+  addListCommand(program, setExit, deps);
+  addNewCommand(program, setExit, deps);
+  addSizeCommand(program, setExit, deps);
+  addCheckCommand(program, setExit, deps);
+  addDigestCommand(program, setExit, deps);
+  addSrmCommand(program, setExit, deps);
+  addAdjustCommand(program, setExit, deps);
+  addSchemaCommand(program, setExit, deps);
+  addReadoutCommand(program, setExit, deps);
 
   return program;
 }
 /** Runs the CLI and returns its exit code; the single place where errors are reported. */
-export async function runCli(argv: string[]): Promise<number> {
+export async function runCli(argv: string[], deps: CliDeps = REAL_DEPS): Promise<number> {
   let exitCode: number = EXIT.ok;
-  const program = buildProgram((code) => (exitCode = code));
+  const program = buildProgram((code) => (exitCode = code), deps);
+  const stderr = (text: string) => (deps.write ? deps.write.err(text) : process.stderr.write(text));
   try {
     await program.parseAsync(argv);
     return exitCode;
@@ -53,17 +54,17 @@ export async function runCli(argv: string[]): Promise<number> {
       return error.exitCode === 0 ? EXIT.ok : EXIT.usage;
     }
     if (error instanceof UsageError) {
-      process.stderr.write(`plumbline: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      stderr(`plumbline: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
       return EXIT.usage;
     }
     if (error instanceof ExternalError) {
       // The environment failed (a file system or git error): not the user's plans, so not exit 1.
       const cause = error.cause instanceof Error ? `\n  cause: ${error.cause.message}` : '';
-      process.stderr.write(`plumbline: ${error.message}${cause}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+      stderr(`plumbline: ${error.message}${cause}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
       return EXIT.usage;
     }
     const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
-    process.stderr.write(`plumbline: internal error: ${detail}\n${BUG_REPORT_HINT}\n`);
+    stderr(`plumbline: internal error: ${detail}\n${BUG_REPORT_HINT}\n`);
     return EXIT.internal;
   }
 }

@@ -4,10 +4,10 @@ import { writeFileAtomic } from '../adapters/files.js';
 import { isCalendarDate } from '../core/source/fields.js';
 import { UsageError } from '../errors.js';
 import { scaffoldPlan } from '../run/scaffold.js';
-import { context, type CommonOptions, type SetExit } from './common.js';
+import { context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline new <flag-key>`: a commented draft plan. */
-export function addNewCommand(program: Command, setExit: SetExit): void {
+export function addNewCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('new')
     .description('write a new commented draft plan for a feature flag')
@@ -21,7 +21,7 @@ export function addNewCommand(program: Command, setExit: SetExit): void {
     .option('--stdout', 'print the plan instead of writing it', false)
     .action(async (flagKey: string, local: { id?: string; owner?: string; surface?: string; out?: string; today?: string; force: boolean; stdout: boolean }) => {
       const options = program.opts<CommonOptions>();
-      const { output, ...ports } = context({ ...options, format: 'text' });
+      const { output, ...ports } = context({ ...options, format: 'text' }, deps);
       const today = local.today ?? new Date().toISOString().slice(0, 10);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });

@@ -9,16 +9,18 @@ export interface CliOutput {
   progress: ProgressReporter;
 }
 
-export function createCliOutput(options: { noColorFlag: boolean }): CliOutput {
+/** `write` replaces stdout and stderr (the fuzzer captures output this way); without it nothing is a terminal. */
+export function createCliOutput(options: { noColorFlag: boolean; write?: { out(text: string): void; err(text: string): void } }): CliOutput {
   const env = process.env;
   const color =
+    !options.write &&
     !options.noColorFlag && !('NO_COLOR' in env && env.NO_COLOR !== '') && process.stdout.isTTY === true && env.TERM !== 'dumb';
-  const interactive = process.stderr.isTTY === true && env.CI !== 'true';
+  const interactive = !options.write && process.stderr.isTTY === true && env.CI !== 'true';
   let drawn = false;
   return {
     color,
-    out: (text) => process.stdout.write(text.endsWith('\n') ? text : `${text}\n`),
-    err: (text) => process.stderr.write(text.endsWith('\n') ? text : `${text}\n`),
+    out: (text) => (options.write ? options.write.out : (t: string) => process.stdout.write(t))(text.endsWith('\n') ? text : `${text}\n`),
+    err: (text) => (options.write ? options.write.err : (t: string) => process.stderr.write(t))(text.endsWith('\n') ? text : `${text}\n`),
     progress(done, total, what) {
       // Short work finishes before a progress line would help.
       if (!interactive || total < 200) return;

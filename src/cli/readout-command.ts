@@ -7,7 +7,7 @@ import { isCalendarDate } from '../core/source/fields.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { readOutPlan } from '../run/readout.js';
-import { EXIT, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 import { createCliOutput } from './output.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
@@ -22,7 +22,7 @@ interface ReadoutFlags {
 
 
 /** `plumbline readout <plan> --totals <file>`: the registered rule applied to the arm totals. */
-export function addReadoutCommand(program: Command, setExit: SetExit): void {
+export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('readout')
     .description('read a test out against its plan: sample ratio, every metric, the registered rule applied; --record writes the outcome into the plan')

@@ -1,7 +1,7 @@
 import { Command, Option } from 'commander';
 import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
 import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
-import { EXIT, context, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 import type { ZodType } from 'zod';
 import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
 import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/sequential.js';
@@ -166,7 +166,7 @@ export function requestFromFlags(flags: SizeFlags): SizingRequest {
 }
 
 /** `plumbline size [plan]`: units per arm, days, power and detectable effect. */
-export function addSizeCommand(program: Command, setExit: SetExit): void {
+export function addSizeCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   addSizeOptions(
     program
       .command('size')
@@ -174,7 +174,7 @@ export function addSizeCommand(program: Command, setExit: SetExit): void {
       .argument('[plan]', 'plan id or plan file; omit to describe a metric with --kind and the flags below'),
   ).action(async (planName: string | undefined, flags: SizeFlags) => {
     const options = program.opts<CommonOptions>();
-    const { output, ...ports } = context({ ...options, format: 'text' });
+    const { output, ...ports } = context({ ...options, format: 'text' }, deps);
     if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
     const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
     if (!planName && !outcome.sizing.metrics[0]!.result.ok) {

@@ -2,11 +2,11 @@ import type { Command } from 'commander';
 import { SRM_JSON_FORMAT, renderSrmText } from '../core/report/readout.js';
 import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
 import { UsageError } from '../errors.js';
-import { EXIT, formatOption, parseNumbers, type SetExit } from './common.js';
+import { EXIT, formatOption, parseNumbers, type SetExit, type CliDeps } from './common.js';
 import { createCliOutput } from './output.js';
 
 /** `plumbline srm <counts...>`: sample ratio mismatch against planned weights. */
-export function addSrmCommand(program: Command, setExit: SetExit): void {
+export function addSrmCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('srm')
     .description('sample ratio mismatch: do the units seen per arm fit the planned weights?')

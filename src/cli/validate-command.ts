@@ -1,17 +1,17 @@
 import type { Command } from 'commander';
 import { renderValidationText, validationJson } from '../core/report/validation.js';
 import { validateRepository } from '../run/validate.js';
-import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit } from './common.js';
+import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline validate`: every plan, registry and settings file checked. */
-export function addValidateCommand(program: Command, setExit: SetExit): void {
+export function addValidateCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('validate')
     .description('check every plan file, registry file and the settings file')
     .addOption(formatOption())
     .action(async (local: { format: 'text' | 'json' }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
-      const { output, ...ports } = context(options);
+      const { output, ...ports } = context(options, deps);
       const outcome = await validateRepository(ports);
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
       const { report } = outcome;

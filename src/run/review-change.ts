@@ -15,6 +15,7 @@ import type { Problem } from '../core/source/problem.js';
 import { attachReadouts } from './review-readouts.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
+import { finiteSizing } from '../core/stats/finite-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
 import { loadWorkspace, ownFilesOf } from './load-workspace.js';
 
@@ -89,7 +90,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked: LinkedPlan[] = workspace.plans
     .filter((p) => links.has(p.plan.id))
-    .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: sizePlan(p.plan, sizingPolicy(settings)) }));
+    .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
   await attachReadouts(linked, head);
   const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
     file,

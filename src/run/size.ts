@@ -1,5 +1,6 @@
 import { designSummary, type SizingContext } from '../core/report/sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
+import { finiteSizing } from '../core/stats/finite-sizing.js';
 import { sizePlan, type PlanSizing } from '../core/stats/plan-sizing.js';
 import { sizeMetric, type SizingRequest } from '../core/stats/sizing.js';
 import { findNamedPlan } from './find-plan.js';
@@ -17,7 +18,7 @@ export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: stri
   const found = findNamedPlan(workspace, options.plan, 'size');
   const { plan } = found;
   return {
-    sizing: sizePlan(plan, sizingPolicy(workspace.settings)),
+    sizing: finiteSizing(sizePlan(plan, sizingPolicy(workspace.settings))),
     power: plan.design.power,
     context: {
       title: `Sizing for ${plan.id} (${found.file})`,
@@ -29,12 +30,12 @@ export async function sizeNamedPlan(options: LoadWorkspaceOptions & { plan: stri
 
 /** Sizes one metric described entirely by command-line flags. */
 export function sizeFromRequest(request: SizingRequest, window?: { start: string; end: string }): SizeOutcome {
-  const sizing: PlanSizing = {
+  const sizing: PlanSizing = finiteSizing({
     planId: 'command-line',
     ...(request.plannedDays !== undefined ? { plannedDays: request.plannedDays } : {}),
     ...(request.dailyUnits !== undefined ? { dailyUnits: request.dailyUnits } : {}),
     metrics: [{ metric: 'metric', role: 'primary', kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }],
-  };
+  });
   return {
     sizing,
     power: request.power,

@@ -1,18 +1,12 @@
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
-import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { describe, expect, it } from 'vitest';
+import { twoCommitRepos } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
 import { repoRoot, runCli } from './helpers.js';
 
-const made: string[] = [];
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
-const repo = (files: Record<string, string>, changes: Record<string, string | null>) => {
-  const r = makeTwoCommitRepo(files, changes);
-  made.push(r.root);
-  return r;
-};
+const repo = twoCommitRepos();
 
 describe('plumbline check', () => {
   it('exits 1 and explains when a decision rule is missing', () => {

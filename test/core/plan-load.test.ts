@@ -77,7 +77,7 @@ describe('loadPlan accepts valid plans', () => {
 // Each row: fixture, problem code, line, column (0 = not checked), field, message, and parts of expected/found.
 // Lines and columns are those of the fixture file as written.
 const invalidCases: [string, string, number, number, string, RegExp, RegExp?][] = [
-  ['bad-yaml', 'plan/bad-yaml', 18, 0, '', /not valid YAML: Missing closing "quote/],
+  ['bad-yaml', 'plan/bad-yaml', 18, 0, '', /not valid YAML: a quoted value is never closed/],
   ['wrong-type', 'plan/invalid-value', 4, 9, 'owners', /has the wrong type/, /expected a list of owners.*found the text "@test-owner"/],
   ['impossible-date', 'plan/invalid-value', 7, 18, 'window.start', /is not valid/, /exists in the calendar; found the text "2026-02-30"/],
   ['date-format', 'plan/invalid-value', 7, 18, 'window.start', /expected format/, /YYYY-MM-DD.*found the text "02\/11\/2026"/],

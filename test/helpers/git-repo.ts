@@ -1,3 +1,4 @@
+import { afterAll } from 'vitest';
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -43,4 +44,15 @@ export function makeTwoCommitRepo(files: Record<string, string>, changes: Record
   git('add', '-A');
   git('commit', '-q', '--allow-empty', '-m', 'head');
   return { root, base, head: git('rev-parse', 'HEAD') };
+}
+
+/** makeTwoCommitRepo for one test file: every repository it makes is removed after the file's tests. */
+export function twoCommitRepos(): (files: Record<string, string>, changes: Record<string, string | null>) => TwoCommitRepo {
+  const made: string[] = [];
+  afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+  return (files, changes) => {
+    const r = makeTwoCommitRepo(files, changes);
+    made.push(r.root);
+    return r;
+  };
 }

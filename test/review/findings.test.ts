@@ -93,9 +93,11 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     trigger: { changes: withPlan(cleanPlan({ design: { 'daily-units': 20000 } })) },
     nearMiss: { changes: withPlan(cleanPlan()) },
   },
+  // A plan sizing can never size fails validation (plan/cannot-be-sized); what is left is a design whose interim looks
+  // no boundary can serve, which only sizing with the looks finds.
   'sizing-impossible': {
-    trigger: { changes: withPlan(cleanPlan({ metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.98 }, events: ['order_done'] }, guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails } })) },
-    nearMiss: { changes: withPlan(cleanPlan({ metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.9 }, events: ['order_done'] }, guardrails: (cleanPlan().metrics as { guardrails: unknown }).guardrails } })) },
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 20, 'interim-boundary': 'pocock', alpha: 0.999, power: 0.9999 } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 20, 'interim-boundary': 'pocock' } })) },
   },
   'exposure-diluted': {
     trigger: { changes: withPlan(cleanPlan({ exposure: { event: 'cart_viewed', reach: 0.5 } })) },

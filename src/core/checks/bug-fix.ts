@@ -3,7 +3,11 @@ import type { Settings } from '../config/schema.js';
 import { addDays } from '../calendar.js';
 import { countOf, formatCount, formatRate, formatRelative, formatWeeks } from '../report/numbers.js';
 import type { Check, PullRequestInfo, ReviewContext } from '../review/context.js';
+import { firstNonFinite } from '../stats/finite-sizing.js';
 import { sizeMetric } from '../stats/sizing.js';
+
+/** What follows the type in a conventional-commit title: an optional (scope), an optional !, then a colon. */
+const CONVENTIONAL_TAIL = /^(\([^)]*\))?!?:/;
 
 /** Why a pull request counts as a bug fix, or undefined when it does not. */
 export function bugFixReason(pr: PullRequestInfo, settings: Settings['bugFix']): string | undefined {
@@ -12,7 +16,7 @@ export function bugFixReason(pr: PullRequestInfo, settings: Settings['bugFix']):
   if (label) return `it has the label ${label}`;
   const title = pr.title ?? '';
   // Conventional commits: "fix: ...", "fix(cart): ...", "fix!: ...".
-  const prefix = settings.titlePrefixes.find((p) => new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(\\([^)]*\\))?!?:`, 'i').test(title));
+  const prefix = settings.titlePrefixes.find((p) => title.toLowerCase().startsWith(p.toLowerCase()) && CONVENTIONAL_TAIL.test(title.slice(p.length)));
   if (prefix) return `its title starts with ${prefix}:`;
   const branch = (pr.branch ?? '').toLowerCase();
   const branchPrefix = settings.branchPrefixes.find((p) => branch.startsWith(p.toLowerCase()));
@@ -69,7 +73,8 @@ export function bugFixNudge(context: ReviewContext): BugFixNudge | undefined {
       prePeriodCorrelation: 0,
       plannedDays: CHECK_TEST_DAYS,
     });
-    if (sized.ok && sized.value.headline && sized.value.effect) {
+    // The settings' figures are bounded, but a line with an overflowed figure is better left out than printed.
+    if (sized.ok && sized.value.headline && sized.value.effect && firstNonFinite(sized.value) === undefined) {
       const h = sized.value.headline;
       const twoWeeks = sized.value.atPlannedEnd?.detectable;
       const traffic = `${formatCount(settings.dailyUnits)} eligible units a day, half of them getting the fix`;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { calendarDate, openShare, text, uniqueList } from '../source/fields.js';
+import { DAILY_UNITS } from '../plan/number-rules.js';
 import { flagKey, surfacePath } from '../plan/schema.js';
 
 /**
@@ -19,16 +20,32 @@ function compiles(pattern: string): boolean {
   }
 }
 
+/**
+ * The longest call pattern. These are the one place a regular expression is written by a person (the repository's
+ * maintainers, in the settings file); plan, registry and pull-request text never becomes a pattern. A call pattern
+ * describes one call on one line: 500 characters is several times the longest built-in one.
+ */
+export const CALL_PATTERN_MAX_LENGTH = 500;
+
 /** A regular expression (JavaScript syntax, `u` flag) with a named group that captures the key or event. */
 const callPattern = (group: 'key' | 'event', example: string) => {
   const expected = `a regular expression with a (?<${group}>...) group, e.g. ${example}`;
   return z
     .string({ error: expected })
+    .max(CALL_PATTERN_MAX_LENGTH, { error: `${expected}; at most ${CALL_PATTERN_MAX_LENGTH} characters long` })
     .refine(compiles, { error: `${expected}; this one does not compile` })
     .refine((p) => p.includes(`(?<${group}>`), { error: `${expected}; this one has no (?<${group}>...) group` });
 };
 
-const pathGlob = text('a path or glob relative to the repository root, e.g. src/** or experiments');
+/**
+ * The longest path or glob. Globs become regular expressions (picomatch); a path of 500 characters is
+ * already longer than most file systems allow in one path, and keeps each compiled pattern small.
+ */
+export const GLOB_MAX_LENGTH = 500;
+
+const pathGlob = text('a path or glob relative to the repository root, e.g. src/** or experiments').max(GLOB_MAX_LENGTH, {
+  error: `a path or glob relative to the repository root, at most ${GLOB_MAX_LENGTH} characters long`,
+});
 
 export const DEFAULT_PLAN_FOLDERS = ['experiments'];
 export const DEFAULT_BUG_LABELS = ['bug', 'bugfix', 'fix', 'regression'];
@@ -103,7 +120,11 @@ export const writtenSettingsSchema = z
               )
               .optional()
               .describe('The guardrail a check test of a fix watches (e.g. an error rate); with daily-units it gives the nudge a sizing line.'),
-            'daily-units': z.number({ error: 'eligible units per day, above 0' }).gt(0, { error: 'eligible units per day, above 0' }).optional(),
+            'daily-units': z
+              .number({ error: 'eligible units per day, above 0' })
+              .gte(DAILY_UNITS.min, { error: `eligible units per day, ${DAILY_UNITS.why}` })
+              .lte(DAILY_UNITS.max, { error: `eligible units per day, ${DAILY_UNITS.why}` })
+              .optional(),
           },
           { error: 'a mapping of bug-fix nudge settings' },
         )

@@ -6,6 +6,7 @@ import type { RegistryEntry } from '../registry/schema.js';
 import type { Location } from '../scan/name-scan.js';
 import { countOf } from '../report/numbers.js';
 import { sizePlan } from '../stats/plan-sizing.js';
+import { finiteSizing } from '../stats/finite-sizing.js';
 
 /**
  * The weekly digest: the states of the registry that need someone's attention, as of `today`
@@ -57,7 +58,7 @@ export interface DigestInput {
 
 function estimateSampleReached(entry: RegistryEntry, today: string): boolean | undefined {
   if (!entry.plan || !entry.window.start) return undefined;
-  const sizing = sizePlan(entry.plan).metrics[0];
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
   const headline = sizing?.result.ok ? sizing.result.value.headline : undefined;
   const daily = entry.plan.design.dailyUnits;
   if (!headline || daily === undefined) return undefined;

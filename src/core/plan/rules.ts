@@ -1,5 +1,6 @@
 import type { Rule } from '../source/rule-context.js';
 import type { FieldPath } from '../source/yaml-source.js';
+import { NUMBER_RULES } from './number-rules.js';
 import { GROUP_UNITS, type Metric, type Plan } from './schema.js';
 
 /**
@@ -82,7 +83,7 @@ const rangeIsNotEmpty: Rule<Plan> = ({ value: plan, report }) => {
   }
 };
 
-function allMetrics(plan: Plan): { metric: Metric; path: FieldPath; role: 'primary' | 'guardrail' | 'secondary' }[] {
+export function allMetrics(plan: Plan): { metric: Metric; path: FieldPath; role: 'primary' | 'guardrail' | 'secondary' }[] {
   return [
     { metric: plan.metrics.primary, path: ['metrics', 'primary'], role: 'primary' as const },
     ...plan.metrics.guardrails.map((metric, i) => ({ metric, path: ['metrics', 'guardrails', i], role: 'guardrail' as const })),
@@ -231,4 +232,5 @@ export const PLAN_RULES: readonly Rule<Plan>[] = [
   readinessNamesTargets,
   overlapsNameOthers,
   decisionsAreWritten,
+  ...NUMBER_RULES,
 ];

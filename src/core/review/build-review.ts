@@ -145,9 +145,17 @@ export function buildReview(context: ReviewContext, change: { base: string; head
   const counts = { block: 0, warn: 0, note: 0 };
   for (const f of findings) counts[f.severity]++;
 
+  // Grouped once: collisions make findings grow with the square of the plans, so a scan per plan would too.
+  const codesByPlan = new Map<string, Set<string>>();
+  for (const f of findings) {
+    if (f.plan === undefined) continue;
+    const codes = codesByPlan.get(f.plan) ?? new Set<string>();
+    codes.add(f.code);
+    codesByPlan.set(f.plan, codes);
+  }
   const plans: PlanReview[] = context.linked.map((linked) => {
     const { plan } = linked.loaded;
-    const mine = new Set(findings.filter((f) => f.plan === plan.id).map((f) => f.code));
+    const mine = codesByPlan.get(plan.id) ?? new Set<string>();
     return {
       id: plan.id,
       title: plan.title,

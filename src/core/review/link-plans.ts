@@ -21,11 +21,27 @@ export function linkPlans(options: {
   const body = options.pr.body ?? '';
   const touched = new Set(options.touches.map((t) => t.key));
   for (const { plan, file } of options.plans) {
-    // An id counts only as a whole word: "checkout" must not link "checkout-wallet".
-    const idPattern = new RegExp(`(?<![\\w/-])${plan.id.replace(/[-]/g, '\\-')}(?![\\w-])`);
-    if (body.includes(file) || idPattern.test(body)) add(plan.id, 'named in the description');
+    if (body.includes(file) || mentionsWord(body, plan.id)) add(plan.id, 'named in the description');
     if (options.changedPaths.has(file)) add(plan.id, 'plan file changed');
     if (plan.flags.some((f) => touched.has(f))) add(plan.id, 'flag touched');
   }
   return links;
+}
+
+const WORD_CHAR = /[A-Za-z0-9_]/;
+
+/**
+ * Whether `word` appears in `text` as a whole word: "checkout" must not link "checkout-wallet", nor a path
+ * segment such as "docs/checkout". Plain string search, so no pattern is ever built from a user's text.
+ */
+export function mentionsWord(text: string, word: string): boolean {
+  if (word === '') return false;
+  for (let at = text.indexOf(word); at >= 0; at = text.indexOf(word, at + 1)) {
+    const before = text.charAt(at - 1);
+    const after = text.charAt(at + word.length);
+    const startsWord = before === '' || !(WORD_CHAR.test(before) || before === '/' || before === '-');
+    const endsWord = after === '' || !(WORD_CHAR.test(after) || after === '-');
+    if (startsWord && endsWord) return true;
+  }
+  return false;
 }

@@ -12,7 +12,7 @@ export function flagDefinitions(text: string | undefined): Map<string, string> |
   if (text === undefined) return new Map();
   let value: unknown;
   try {
-    value = parse(text, { maxAliasCount: 100 });
+    value = parse(text, { maxAliasCount: 100, logLevel: 'silent' });
   } catch {
     return undefined;
   }
@@ -22,13 +22,19 @@ export function flagDefinitions(text: string | undefined): Map<string, string> |
   return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
 }
 
+/** A YAML line `key:` with the key unquoted (plain string comparison: keys come from the user's file). */
+function isPlainKeyLine(line: string, key: string): boolean {
+  const rest = line.trimStart();
+  return rest.startsWith(key) && rest.slice(key.length).trimStart().startsWith(':');
+}
+
 /** Keys added, removed or redefined between the two sides of one flag definition file. */
 export function flagDefinitionTouches(path: string, before: string | undefined, after: string | undefined): FlagTouch[] {
   const old = flagDefinitions(before) ?? new Map<string, string>();
   const now = flagDefinitions(after) ?? new Map<string, string>();
   const lineOf = (text: string | undefined, key: string) => {
     if (!text) return 1;
-    const index = text.split('\n').findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\s*:`).test(l));
+    const index = text.split('\n').findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || isPlainKeyLine(l, key));
     return index < 0 ? 1 : index + 1;
   };
   const touches: FlagTouch[] = [];

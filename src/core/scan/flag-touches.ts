@@ -1,5 +1,5 @@
 import type { FileDiff } from './diff.js';
-import { QUOTED_STRING, constantDefinition } from './patterns.js';
+import { QUOTED_STRING, constantValue } from './patterns.js';
 
 /** A changed line that evaluates, defines or names a feature flag. */
 export interface FlagTouch {
@@ -62,5 +62,5 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
 export function resolveConstant(text: string | undefined, ident: string): string | undefined {
   if (!text) return undefined;
   const name = ident.slice(ident.lastIndexOf('.') + 1);
-  return constantDefinition(name).exec(text)?.groups?.key;
+  return constantValue(text, name);
 }

@@ -38,10 +38,24 @@ export const BUILTIN_LOG_PATTERNS: readonly string[] = [
   `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`,
 ];
 
-/** Where a constant's value is written: `const X = 'k'`, `X = "k"`, `static final String X = "k";`, `X: "k"`. */
-export function constantDefinition(name: string): RegExp {
-  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, 'mu');
+/** What follows a constant's name where its value is written: an optional type, `=` or `:`, then the quoted key. */
+const CONSTANT_VALUE = new RegExp(`\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, 'uy');
+const IDENT_CHAR = /[\w$.]/u;
+
+/**
+ * The key a constant holds where it is defined in `text`: `const X = 'k'`, `X = "k"`,
+ * `static final String X = "k";`, `X: "k"`. The name comes from the change's code, so it is found by plain
+ * string search and only the fixed tail is a pattern.
+ */
+export function constantValue(text: string, name: string): string | undefined {
+  if (name === '') return undefined;
+  for (let at = text.indexOf(name); at >= 0; at = text.indexOf(name, at + 1)) {
+    if (at > 0 && IDENT_CHAR.test(text.charAt(at - 1))) continue;
+    CONSTANT_VALUE.lastIndex = at + name.length;
+    const key = CONSTANT_VALUE.exec(text)?.groups?.key;
+    if (key !== undefined) return key;
+  }
+  return undefined;
 }
 
 /** A string literal on one line, quoted with ", ' or `; group 2 is its text. */

@@ -15,9 +15,20 @@ export const text = (expected: string) =>
 
 export const optionalText = (expected: string) => text(expected).optional();
 
+/**
+ * The longest id or name (plan ids, metric, arm and group names). Ids are looked for in pull-request
+ * descriptions and printed in comment headings; 100 characters is far past any readable id and keeps that
+ * search and those headings small.
+ */
+export const NAME_MAX_LENGTH = 100;
+
 /** Lower-case words joined by hyphens, the way ids and names are written across plan files. */
 export const kebabName = (expected: string) =>
-  z.string({ error: expected }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
+  z
+    .string({ error: expected })
+    .max(NAME_MAX_LENGTH, { error: `${expected}, at most ${NAME_MAX_LENGTH} characters long` })
+    .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected })
+    .describe(asDescription(expected));
 
 /** A share strictly between 0 and 1, such as a significance level or a baseline rate. */
 export const openShare = (expected: string) =>

@@ -1,4 +1,5 @@
-import { LineCounter, isMap, isPair, isScalar, isSeq, parseDocument, visit, type Node } from 'yaml';
+import { CST, Composer, LineCounter, Parser, isMap, isPair, isScalar, isSeq, visit, type Document, type Node } from 'yaml';
+import { explainYamlError } from './yaml-messages.js';
 import type { Problem, SourceLocation } from './problem.js';
 
 /** Limits that keep a hostile or accidental file from exhausting memory. */
@@ -8,6 +9,13 @@ export interface YamlLimits {
   /** Most alias expansions; the `yaml` package's own guard against "billion laughs" documents. */
   maxAliases: number;
 }
+
+/**
+ * The deepest nesting of lists and mappings a file may have. Our formats nest at most six levels; 32 leaves room
+ * for any hand-written file while keeping every recursive step after parsing (the yaml package's composer and
+ * toJS, zod, our own walks) far from the engine's stack limit.
+ */
+export const MAX_NESTING_DEPTH = 32;
 
 export type FieldPath = readonly (string | number)[];
 
@@ -41,17 +49,42 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
   }
 
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true, strict: true });
+  // Parsing to tokens is iterative; composing them into nodes recurses, so nesting is measured in between.
+  const tokens = Array.from(new Parser(lineCounter.addNewLine).parse(text));
+  const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
+  if (tooDeepAt !== undefined) {
+    const pos = lineCounter.linePos(tooDeepAt);
+    return fail(
+      pos.line,
+      pos.col,
+      'too-deep',
+      `lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`,
+      `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`,
+    );
+  }
+  const composer = new Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
+  let doc: Document.Parsed | undefined;
+  let secondDocumentAt: number | undefined;
+  for (const composed of composer.compose(tokens, true, text.length)) {
+    if (!doc) doc = composed;
+    else {
+      secondDocumentAt = composed.range[0];
+      break;
+    }
+  }
+  if (!doc) return fail(1, 1, 'bad-yaml', 'this is not valid YAML');
+  if (secondDocumentAt !== undefined && doc.errors.length === 0) {
+    const pos = lineCounter.linePos(secondDocumentAt);
+    return fail(pos.line, pos.col, 'several-documents', 'the file holds more than one YAML document (a second "---")', 'one document per file');
+  }
   const firstError = doc.errors[0];
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
-    if (firstError.code === 'MULTIPLE_DOCS') {
-      return fail(pos.line, pos.col, 'several-documents', 'the file holds more than one YAML document (a second "---")', 'one document per file');
-    }
     if (firstError.code === 'DUPLICATE_KEY') {
       return fail(pos.line, pos.col, 'duplicate-key', 'this key is written twice in the same mapping', 'each key once');
     }
-    return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${plainYamlMessage(firstError.message)}`);
+    const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
+    return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${explained.message}`, explained.expected);
   }
 
   // A mapping or list used as a key has no meaning in our formats (and yaml would stringify it).
@@ -128,6 +161,39 @@ function childOf(node: Node | null, segment: string | number): Node | null {
     return (node.items[segment] as Node | undefined) ?? null;
   }
   return null;
+}
+
+/**
+ * The start of the first collection nested deeper than `limit`, walking the token tree with an explicit stack
+ * (a recursive walk would hit the very limit this guards).
+ */
+function firstOffsetDeeperThan(tokens: readonly CST.Token[], limit: number): number | undefined {
+  const stack: { token: CST.Token; depth: number }[] = tokens.map((token) => ({ token, depth: 0 }));
+  let first: number | undefined;
+  while (stack.length > 0) {
+    const { token, depth } = stack.pop()!;
+    const children: (CST.Token | null | undefined)[] = [];
+    let childDepth = depth;
+    switch (token.type) {
+      case 'document':
+        children.push(token.value);
+        break;
+      case 'block-map':
+      case 'block-seq':
+      case 'flow-collection':
+        childDepth = depth + 1;
+        if (childDepth > limit) {
+          first = first === undefined ? token.offset : Math.min(first, token.offset);
+          continue;
+        }
+        for (const item of token.items) children.push('key' in item ? item.key : undefined, item.value);
+        break;
+      default:
+        break;
+    }
+    for (const child of children) if (child) stack.push({ token: child, depth: childDepth });
+  }
+  return first;
 }
 
 /** The yaml package's messages end with a source excerpt; we print our own location instead. */

@@ -41,9 +41,9 @@ var __toESM = (mod, isNodeMode, target) => (target = mod != null ? __create(__ge
   mod
 ));
 
-// node_modules/commander/lib/error.js
+// ../main/node_modules/commander/lib/error.js
 var require_error = __commonJS({
-  "node_modules/commander/lib/error.js"(exports) {
+  "../main/node_modules/commander/lib/error.js"(exports) {
     var CommanderError2 = class extends Error {
       /**
        * Constructs the CommanderError class
@@ -76,9 +76,9 @@ var require_error = __commonJS({
   }
 });
 
-// node_modules/commander/lib/argument.js
+// ../main/node_modules/commander/lib/argument.js
 var require_argument = __commonJS({
-  "node_modules/commander/lib/argument.js"(exports) {
+  "../main/node_modules/commander/lib/argument.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Argument2 = class {
       /**
@@ -204,9 +204,9 @@ var require_argument = __commonJS({
   }
 });
 
-// node_modules/commander/lib/help.js
+// ../main/node_modules/commander/lib/help.js
 var require_help = __commonJS({
-  "node_modules/commander/lib/help.js"(exports) {
+  "../main/node_modules/commander/lib/help.js"(exports) {
     var { humanReadableArgName } = require_argument();
     var Help2 = class {
       constructor() {
@@ -806,9 +806,9 @@ ${itemIndentStr}`);
   }
 });
 
-// node_modules/commander/lib/option.js
+// ../main/node_modules/commander/lib/option.js
 var require_option = __commonJS({
-  "node_modules/commander/lib/option.js"(exports) {
+  "../main/node_modules/commander/lib/option.js"(exports) {
     var { InvalidArgumentError: InvalidArgumentError2 } = require_error();
     var Option2 = class {
       /**
@@ -1119,9 +1119,9 @@ var require_option = __commonJS({
   }
 });
 
-// node_modules/commander/lib/suggestSimilar.js
+// ../main/node_modules/commander/lib/suggestSimilar.js
 var require_suggestSimilar = __commonJS({
-  "node_modules/commander/lib/suggestSimilar.js"(exports) {
+  "../main/node_modules/commander/lib/suggestSimilar.js"(exports) {
     var maxDistance = 3;
     function editDistance2(a, b) {
       if (Math.abs(a.length - b.length) > maxDistance)
@@ -1199,9 +1199,9 @@ var require_suggestSimilar = __commonJS({
   }
 });
 
-// node_modules/commander/lib/command.js
+// ../main/node_modules/commander/lib/command.js
 var require_command = __commonJS({
-  "node_modules/commander/lib/command.js"(exports) {
+  "../main/node_modules/commander/lib/command.js"(exports) {
     var EventEmitter = __require("node:events").EventEmitter;
     var childProcess = __require("node:child_process");
     var path = __require("node:path");
@@ -3445,9 +3445,9 @@ Expecting one of '${allowedValues.join("', '")}'`);
   }
 });
 
-// node_modules/commander/index.js
+// ../main/node_modules/commander/index.js
 var require_commander = __commonJS({
-  "node_modules/commander/index.js"(exports) {
+  "../main/node_modules/commander/index.js"(exports) {
     var { Argument: Argument2 } = require_argument();
     var { Command: Command3 } = require_command();
     var { CommanderError: CommanderError2, InvalidArgumentError: InvalidArgumentError2 } = require_error();
@@ -3467,9 +3467,9 @@ var require_commander = __commonJS({
   }
 });
 
-// node_modules/jstat/dist/jstat.js
+// ../main/node_modules/jstat/dist/jstat.js
 var require_jstat = __commonJS({
-  "node_modules/jstat/dist/jstat.js"(exports, module) {
+  "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
     (function(window, factory) {
       if (typeof exports === "object") {
         module.exports = factory();
@@ -7318,9 +7318,9 @@ var require_jstat = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/identity.js
+// ../main/node_modules/yaml/dist/nodes/identity.js
 var require_identity = __commonJS({
-  "node_modules/yaml/dist/nodes/identity.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/identity.js"(exports) {
     "use strict";
     var ALIAS = /* @__PURE__ */ Symbol.for("yaml.alias");
     var DOC = /* @__PURE__ */ Symbol.for("yaml.document");
@@ -7375,9 +7375,9 @@ var require_identity = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/visit.js
+// ../main/node_modules/yaml/dist/visit.js
 var require_visit = __commonJS({
-  "node_modules/yaml/dist/visit.js"(exports) {
+  "../main/node_modules/yaml/dist/visit.js"(exports) {
     "use strict";
     var identity = require_identity();
     var BREAK = /* @__PURE__ */ Symbol("break visit");
@@ -7533,9 +7533,9 @@ var require_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/directives.js
+// ../main/node_modules/yaml/dist/doc/directives.js
 var require_directives = __commonJS({
-  "node_modules/yaml/dist/doc/directives.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/directives.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7704,9 +7704,9 @@ var require_directives = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/anchors.js
+// ../main/node_modules/yaml/dist/doc/anchors.js
 var require_anchors = __commonJS({
-  "node_modules/yaml/dist/doc/anchors.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/anchors.js"(exports) {
     "use strict";
     var identity = require_identity();
     var visit3 = require_visit();
@@ -7774,9 +7774,9 @@ var require_anchors = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/applyReviver.js
+// ../main/node_modules/yaml/dist/doc/applyReviver.js
 var require_applyReviver = __commonJS({
-  "node_modules/yaml/dist/doc/applyReviver.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/applyReviver.js"(exports) {
     "use strict";
     function applyReviver(reviver, obj, key, val) {
       if (val && typeof val === "object") {
@@ -7824,9 +7824,9 @@ var require_applyReviver = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/toJS.js
+// ../main/node_modules/yaml/dist/nodes/toJS.js
 var require_toJS = __commonJS({
-  "node_modules/yaml/dist/nodes/toJS.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/toJS.js"(exports) {
     "use strict";
     var identity = require_identity();
     function toJS(value, arg, ctx) {
@@ -7854,9 +7854,9 @@ var require_toJS = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Node.js
+// ../main/node_modules/yaml/dist/nodes/Node.js
 var require_Node = __commonJS({
-  "node_modules/yaml/dist/nodes/Node.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Node.js"(exports) {
     "use strict";
     var applyReviver = require_applyReviver();
     var identity = require_identity();
@@ -7895,9 +7895,9 @@ var require_Node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Alias.js
+// ../main/node_modules/yaml/dist/nodes/Alias.js
 var require_Alias = __commonJS({
-  "node_modules/yaml/dist/nodes/Alias.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Alias.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var visit3 = require_visit();
@@ -8013,9 +8013,9 @@ var require_Alias = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Scalar.js
+// ../main/node_modules/yaml/dist/nodes/Scalar.js
 var require_Scalar = __commonJS({
-  "node_modules/yaml/dist/nodes/Scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Node = require_Node();
@@ -8043,9 +8043,9 @@ var require_Scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/createNode.js
+// ../main/node_modules/yaml/dist/doc/createNode.js
 var require_createNode = __commonJS({
-  "node_modules/yaml/dist/doc/createNode.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/createNode.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -8118,9 +8118,9 @@ var require_createNode = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Collection.js
+// ../main/node_modules/yaml/dist/nodes/Collection.js
 var require_Collection = __commonJS({
-  "node_modules/yaml/dist/nodes/Collection.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Collection.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var identity = require_identity();
@@ -8261,9 +8261,9 @@ var require_Collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyComment.js
+// ../main/node_modules/yaml/dist/stringify/stringifyComment.js
 var require_stringifyComment = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyComment.js"(exports) {
     "use strict";
     var stringifyComment = (str) => str.replace(/^(?!$)(?: $)?/gm, "#");
     function indentComment(comment, indent) {
@@ -8278,9 +8278,9 @@ var require_stringifyComment = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/foldFlowLines.js
+// ../main/node_modules/yaml/dist/stringify/foldFlowLines.js
 var require_foldFlowLines = __commonJS({
-  "node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/foldFlowLines.js"(exports) {
     "use strict";
     var FOLD_FLOW = "flow";
     var FOLD_BLOCK = "block";
@@ -8414,9 +8414,9 @@ ${indent}${text2.slice(fold + 1, end2)}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyString.js
+// ../main/node_modules/yaml/dist/stringify/stringifyString.js
 var require_stringifyString = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyString.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var foldFlowLines = require_foldFlowLines();
@@ -8697,9 +8697,9 @@ ${indent}`);
   }
 });
 
-// node_modules/yaml/dist/stringify/stringify.js
+// ../main/node_modules/yaml/dist/stringify/stringify.js
 var require_stringify = __commonJS({
-  "node_modules/yaml/dist/stringify/stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringify.js"(exports) {
     "use strict";
     var anchors = require_anchors();
     var identity = require_identity();
@@ -8821,9 +8821,9 @@ ${ctx.indent}${str}`;
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyPair.js
+// ../main/node_modules/yaml/dist/stringify/stringifyPair.js
 var require_stringifyPair = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyPair.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -8954,9 +8954,9 @@ ${ctx.indent}`;
   }
 });
 
-// node_modules/yaml/dist/log.js
+// ../main/node_modules/yaml/dist/log.js
 var require_log = __commonJS({
-  "node_modules/yaml/dist/log.js"(exports) {
+  "../main/node_modules/yaml/dist/log.js"(exports) {
     "use strict";
     var node_process = __require("process");
     function debug(logLevel, ...messages) {
@@ -8976,9 +8976,9 @@ var require_log = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/merge.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js
 var require_merge = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/merge.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -9036,9 +9036,9 @@ var require_merge = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/addPairToJSMap.js
+// ../main/node_modules/yaml/dist/nodes/addPairToJSMap.js
 var require_addPairToJSMap = __commonJS({
-  "node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/addPairToJSMap.js"(exports) {
     "use strict";
     var log = require_log();
     var merge2 = require_merge();
@@ -9100,9 +9100,9 @@ var require_addPairToJSMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/Pair.js
+// ../main/node_modules/yaml/dist/nodes/Pair.js
 var require_Pair = __commonJS({
-  "node_modules/yaml/dist/nodes/Pair.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/Pair.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyPair = require_stringifyPair();
@@ -9140,9 +9140,9 @@ var require_Pair = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyCollection.js
+// ../main/node_modules/yaml/dist/stringify/stringifyCollection.js
 var require_stringifyCollection = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyCollection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -9291,9 +9291,9 @@ ${indent}${end}`;
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLMap.js
+// ../main/node_modules/yaml/dist/nodes/YAMLMap.js
 var require_YAMLMap = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLMap.js"(exports) {
     "use strict";
     var stringifyCollection = require_stringifyCollection();
     var addPairToJSMap = require_addPairToJSMap();
@@ -9435,9 +9435,9 @@ var require_YAMLMap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/map.js
+// ../main/node_modules/yaml/dist/schema/common/map.js
 var require_map = __commonJS({
-  "node_modules/yaml/dist/schema/common/map.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/map.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLMap = require_YAMLMap();
@@ -9457,9 +9457,9 @@ var require_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/nodes/YAMLSeq.js
+// ../main/node_modules/yaml/dist/nodes/YAMLSeq.js
 var require_YAMLSeq = __commonJS({
-  "node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
+  "../main/node_modules/yaml/dist/nodes/YAMLSeq.js"(exports) {
     "use strict";
     var createNode = require_createNode();
     var stringifyCollection = require_stringifyCollection();
@@ -9573,9 +9573,9 @@ var require_YAMLSeq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/seq.js
+// ../main/node_modules/yaml/dist/schema/common/seq.js
 var require_seq = __commonJS({
-  "node_modules/yaml/dist/schema/common/seq.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/seq.js"(exports) {
     "use strict";
     var identity = require_identity();
     var YAMLSeq = require_YAMLSeq();
@@ -9595,9 +9595,9 @@ var require_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/string.js
+// ../main/node_modules/yaml/dist/schema/common/string.js
 var require_string = __commonJS({
-  "node_modules/yaml/dist/schema/common/string.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/string.js"(exports) {
     "use strict";
     var stringifyString = require_stringifyString();
     var string4 = {
@@ -9614,9 +9614,9 @@ var require_string = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/common/null.js
+// ../main/node_modules/yaml/dist/schema/common/null.js
 var require_null = __commonJS({
-  "node_modules/yaml/dist/schema/common/null.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/common/null.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var nullTag = {
@@ -9632,9 +9632,9 @@ var require_null = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/bool.js
+// ../main/node_modules/yaml/dist/schema/core/bool.js
 var require_bool = __commonJS({
-  "node_modules/yaml/dist/schema/core/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var boolTag = {
@@ -9656,9 +9656,9 @@ var require_bool = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyNumber.js
+// ../main/node_modules/yaml/dist/stringify/stringifyNumber.js
 var require_stringifyNumber = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyNumber.js"(exports) {
     "use strict";
     function stringifyNumber({ format, minFractionDigits, tag, value }) {
       if (typeof value === "bigint")
@@ -9683,9 +9683,9 @@ var require_stringifyNumber = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/float.js
+// ../main/node_modules/yaml/dist/schema/core/float.js
 var require_float = __commonJS({
-  "node_modules/yaml/dist/schema/core/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -9729,9 +9729,9 @@ var require_float = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/int.js
+// ../main/node_modules/yaml/dist/schema/core/int.js
 var require_int = __commonJS({
-  "node_modules/yaml/dist/schema/core/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -9774,9 +9774,9 @@ var require_int = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/core/schema.js
+// ../main/node_modules/yaml/dist/schema/core/schema.js
 var require_schema = __commonJS({
-  "node_modules/yaml/dist/schema/core/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/core/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -9802,9 +9802,9 @@ var require_schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/json/schema.js
+// ../main/node_modules/yaml/dist/schema/json/schema.js
 var require_schema2 = __commonJS({
-  "node_modules/yaml/dist/schema/json/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/json/schema.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var map2 = require_map();
@@ -9869,9 +9869,9 @@ var require_schema2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/binary.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js
 var require_binary = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/binary.js"(exports) {
     "use strict";
     var node_buffer = __require("buffer");
     var Scalar = require_Scalar();
@@ -9935,9 +9935,9 @@ var require_binary = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/pairs.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js
 var require_pairs = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/pairs.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10013,9 +10013,9 @@ ${cn.comment}` : item.comment;
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/omap.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js
 var require_omap = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/omap.js"(exports) {
     "use strict";
     var identity = require_identity();
     var toJS = require_toJS();
@@ -10091,9 +10091,9 @@ var require_omap = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/bool.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js
 var require_bool2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/bool.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function boolStringify({ value, source }, ctx) {
@@ -10123,9 +10123,9 @@ var require_bool2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/float.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/float.js
 var require_float2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/float.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var stringifyNumber = require_stringifyNumber();
@@ -10172,9 +10172,9 @@ var require_float2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/int.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/int.js
 var require_int2 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/int.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     var intIdentify = (value) => typeof value === "bigint" || Number.isInteger(value);
@@ -10251,9 +10251,9 @@ var require_int2 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/set.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/set.js
 var require_set = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/set.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -10340,9 +10340,9 @@ var require_set = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js
 var require_timestamp = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/timestamp.js"(exports) {
     "use strict";
     var stringifyNumber = require_stringifyNumber();
     function parseSexagesimal(str, asBigInt) {
@@ -10428,9 +10428,9 @@ var require_timestamp = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/yaml-1.1/schema.js
+// ../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js
 var require_schema3 = __commonJS({
-  "node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/yaml-1.1/schema.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10472,9 +10472,9 @@ var require_schema3 = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/tags.js
+// ../main/node_modules/yaml/dist/schema/tags.js
 var require_tags = __commonJS({
-  "node_modules/yaml/dist/schema/tags.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/tags.js"(exports) {
     "use strict";
     var map2 = require_map();
     var _null4 = require_null();
@@ -10566,9 +10566,9 @@ var require_tags = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/schema/Schema.js
+// ../main/node_modules/yaml/dist/schema/Schema.js
 var require_Schema = __commonJS({
-  "node_modules/yaml/dist/schema/Schema.js"(exports) {
+  "../main/node_modules/yaml/dist/schema/Schema.js"(exports) {
     "use strict";
     var identity = require_identity();
     var map2 = require_map();
@@ -10598,9 +10598,9 @@ var require_Schema = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/stringify/stringifyDocument.js
+// ../main/node_modules/yaml/dist/stringify/stringifyDocument.js
 var require_stringifyDocument = __commonJS({
-  "node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
+  "../main/node_modules/yaml/dist/stringify/stringifyDocument.js"(exports) {
     "use strict";
     var identity = require_identity();
     var stringify = require_stringify();
@@ -10678,9 +10678,9 @@ var require_stringifyDocument = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/doc/Document.js
+// ../main/node_modules/yaml/dist/doc/Document.js
 var require_Document = __commonJS({
-  "node_modules/yaml/dist/doc/Document.js"(exports) {
+  "../main/node_modules/yaml/dist/doc/Document.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var Collection = require_Collection();
@@ -10987,9 +10987,9 @@ var require_Document = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/errors.js
+// ../main/node_modules/yaml/dist/errors.js
 var require_errors = __commonJS({
-  "node_modules/yaml/dist/errors.js"(exports) {
+  "../main/node_modules/yaml/dist/errors.js"(exports) {
     "use strict";
     var YAMLError = class extends Error {
       constructor(name, pos, code, message) {
@@ -11052,9 +11052,9 @@ ${pointer}
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-props.js
+// ../main/node_modules/yaml/dist/compose/resolve-props.js
 var require_resolve_props = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-props.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-props.js"(exports) {
     "use strict";
     function resolveProps(tokens, { flow, indicator, next, offset, onError, parentIndent, startOnNewline }) {
       let spaceBefore = false;
@@ -11186,9 +11186,9 @@ var require_resolve_props = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-contains-newline.js
+// ../main/node_modules/yaml/dist/compose/util-contains-newline.js
 var require_util_contains_newline = __commonJS({
-  "node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-contains-newline.js"(exports) {
     "use strict";
     function containsNewline(key) {
       if (!key)
@@ -11228,9 +11228,9 @@ var require_util_contains_newline = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-flow-indent-check.js
+// ../main/node_modules/yaml/dist/compose/util-flow-indent-check.js
 var require_util_flow_indent_check = __commonJS({
-  "node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-flow-indent-check.js"(exports) {
     "use strict";
     var utilContainsNewline = require_util_contains_newline();
     function flowIndentCheck(indent, fc, onError) {
@@ -11246,9 +11246,9 @@ var require_util_flow_indent_check = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-map-includes.js
+// ../main/node_modules/yaml/dist/compose/util-map-includes.js
 var require_util_map_includes = __commonJS({
-  "node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-map-includes.js"(exports) {
     "use strict";
     var identity = require_identity();
     function mapIncludes(ctx, items, search) {
@@ -11262,9 +11262,9 @@ var require_util_map_includes = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-map.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-map.js
 var require_resolve_block_map = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-map.js"(exports) {
     "use strict";
     var Pair = require_Pair();
     var YAMLMap = require_YAMLMap();
@@ -11370,9 +11370,9 @@ var require_resolve_block_map = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-seq.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-seq.js
 var require_resolve_block_seq = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-seq.js"(exports) {
     "use strict";
     var YAMLSeq = require_YAMLSeq();
     var resolveProps = require_resolve_props();
@@ -11421,9 +11421,9 @@ var require_resolve_block_seq = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-end.js
+// ../main/node_modules/yaml/dist/compose/resolve-end.js
 var require_resolve_end = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-end.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-end.js"(exports) {
     "use strict";
     function resolveEnd(end, offset, reqSpace, onError) {
       let comment = "";
@@ -11464,9 +11464,9 @@ var require_resolve_end = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-collection.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-collection.js
 var require_resolve_flow_collection = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Pair = require_Pair();
@@ -11658,9 +11658,9 @@ var require_resolve_flow_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-collection.js
+// ../main/node_modules/yaml/dist/compose/compose-collection.js
 var require_compose_collection = __commonJS({
-  "node_modules/yaml/dist/compose/compose-collection.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-collection.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -11723,9 +11723,9 @@ var require_compose_collection = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-block-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-block-scalar.js
 var require_resolve_block_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-block-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     function resolveBlockScalar(ctx, scalar, onError) {
@@ -11906,9 +11906,9 @@ var require_resolve_block_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/resolve-flow-scalar.js
+// ../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js
 var require_resolve_flow_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/resolve-flow-scalar.js"(exports) {
     "use strict";
     var Scalar = require_Scalar();
     var resolveEnd = require_resolve_end();
@@ -12127,9 +12127,9 @@ var require_resolve_flow_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-scalar.js
+// ../main/node_modules/yaml/dist/compose/compose-scalar.js
 var require_compose_scalar = __commonJS({
-  "node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-scalar.js"(exports) {
     "use strict";
     var identity = require_identity();
     var Scalar = require_Scalar();
@@ -12208,9 +12208,9 @@ var require_compose_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/util-empty-scalar-position.js
+// ../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js
 var require_util_empty_scalar_position = __commonJS({
-  "node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/util-empty-scalar-position.js"(exports) {
     "use strict";
     function emptyScalarPosition(offset, before, pos) {
       if (before) {
@@ -12238,9 +12238,9 @@ var require_util_empty_scalar_position = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-node.js
+// ../main/node_modules/yaml/dist/compose/compose-node.js
 var require_compose_node = __commonJS({
-  "node_modules/yaml/dist/compose/compose-node.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-node.js"(exports) {
     "use strict";
     var Alias = require_Alias();
     var identity = require_identity();
@@ -12344,9 +12344,9 @@ var require_compose_node = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/compose-doc.js
+// ../main/node_modules/yaml/dist/compose/compose-doc.js
 var require_compose_doc = __commonJS({
-  "node_modules/yaml/dist/compose/compose-doc.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/compose-doc.js"(exports) {
     "use strict";
     var Document = require_Document();
     var composeNode = require_compose_node();
@@ -12387,9 +12387,9 @@ var require_compose_doc = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/compose/composer.js
+// ../main/node_modules/yaml/dist/compose/composer.js
 var require_composer = __commonJS({
-  "node_modules/yaml/dist/compose/composer.js"(exports) {
+  "../main/node_modules/yaml/dist/compose/composer.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var directives = require_directives();
@@ -12595,9 +12595,9 @@ ${end.comment}` : end.comment;
   }
 });
 
-// node_modules/yaml/dist/parse/cst-scalar.js
+// ../main/node_modules/yaml/dist/parse/cst-scalar.js
 var require_cst_scalar = __commonJS({
-  "node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-scalar.js"(exports) {
     "use strict";
     var resolveBlockScalar = require_resolve_block_scalar();
     var resolveFlowScalar = require_resolve_flow_scalar();
@@ -12780,9 +12780,9 @@ var require_cst_scalar = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-stringify.js
+// ../main/node_modules/yaml/dist/parse/cst-stringify.js
 var require_cst_stringify = __commonJS({
-  "node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-stringify.js"(exports) {
     "use strict";
     var stringify = (cst) => "type" in cst ? stringifyToken(cst) : stringifyItem(cst);
     function stringifyToken(token) {
@@ -12841,9 +12841,9 @@ var require_cst_stringify = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst-visit.js
+// ../main/node_modules/yaml/dist/parse/cst-visit.js
 var require_cst_visit = __commonJS({
-  "node_modules/yaml/dist/parse/cst-visit.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst-visit.js"(exports) {
     "use strict";
     var BREAK = /* @__PURE__ */ Symbol("break visit");
     var SKIP = /* @__PURE__ */ Symbol("skip children");
@@ -12903,9 +12903,9 @@ var require_cst_visit = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/cst.js
+// ../main/node_modules/yaml/dist/parse/cst.js
 var require_cst = __commonJS({
-  "node_modules/yaml/dist/parse/cst.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/cst.js"(exports) {
     "use strict";
     var cstScalar = require_cst_scalar();
     var cstStringify = require_cst_stringify();
@@ -13005,9 +13005,9 @@ var require_cst = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/lexer.js
+// ../main/node_modules/yaml/dist/parse/lexer.js
 var require_lexer = __commonJS({
-  "node_modules/yaml/dist/parse/lexer.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/lexer.js"(exports) {
     "use strict";
     var cst = require_cst();
     function isEmpty(ch) {
@@ -13594,9 +13594,9 @@ var require_lexer = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/line-counter.js
+// ../main/node_modules/yaml/dist/parse/line-counter.js
 var require_line_counter = __commonJS({
-  "node_modules/yaml/dist/parse/line-counter.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/line-counter.js"(exports) {
     "use strict";
     var LineCounter2 = class {
       constructor() {
@@ -13625,9 +13625,9 @@ var require_line_counter = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/parse/parser.js
+// ../main/node_modules/yaml/dist/parse/parser.js
 var require_parser = __commonJS({
-  "node_modules/yaml/dist/parse/parser.js"(exports) {
+  "../main/node_modules/yaml/dist/parse/parser.js"(exports) {
     "use strict";
     var node_process = __require("process");
     var cst = require_cst();
@@ -14499,9 +14499,9 @@ var require_parser = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/public-api.js
+// ../main/node_modules/yaml/dist/public-api.js
 var require_public_api = __commonJS({
-  "node_modules/yaml/dist/public-api.js"(exports) {
+  "../main/node_modules/yaml/dist/public-api.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14596,9 +14596,9 @@ var require_public_api = __commonJS({
   }
 });
 
-// node_modules/yaml/dist/index.js
+// ../main/node_modules/yaml/dist/index.js
 var require_dist = __commonJS({
-  "node_modules/yaml/dist/index.js"(exports) {
+  "../main/node_modules/yaml/dist/index.js"(exports) {
     "use strict";
     var composer = require_composer();
     var Document = require_Document();
@@ -14648,9 +14648,9 @@ var require_dist = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/constants.js
+// ../main/node_modules/picomatch/lib/constants.js
 var require_constants = __commonJS({
-  "node_modules/picomatch/lib/constants.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/constants.js"(exports, module) {
     "use strict";
     var WIN_SLASH = "\\\\/";
     var WIN_NO_SLASH = `[^${WIN_SLASH}]`;
@@ -14668,7 +14668,7 @@ var require_constants = __commonJS({
     var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
     var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
     var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
-    var STAR = `${QMARK}*?`;
+    var STAR2 = `${QMARK}*?`;
     var SEP = "/";
     var POSIX_CHARS = {
       DOT_LITERAL,
@@ -14684,7 +14684,7 @@ var require_constants = __commonJS({
       NO_DOT_SLASH,
       NO_DOTS_SLASH,
       QMARK_NO_DOT,
-      STAR,
+      STAR: STAR2,
       START_ANCHOR,
       SEP
     };
@@ -14847,9 +14847,9 @@ var require_constants = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/utils.js
+// ../main/node_modules/picomatch/lib/utils.js
 var require_utils = __commonJS({
-  "node_modules/picomatch/lib/utils.js"(exports) {
+  "../main/node_modules/picomatch/lib/utils.js"(exports) {
     "use strict";
     var {
       REGEX_BACKSLASH,
@@ -14911,9 +14911,9 @@ var require_utils = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/scan.js
+// ../main/node_modules/picomatch/lib/scan.js
 var require_scan = __commonJS({
-  "node_modules/picomatch/lib/scan.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/scan.js"(exports, module) {
     "use strict";
     var utils = require_utils();
     var {
@@ -15241,9 +15241,9 @@ var require_scan = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/parse.js
+// ../main/node_modules/picomatch/lib/parse.js
 var require_parse = __commonJS({
-  "node_modules/picomatch/lib/parse.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/parse.js"(exports, module) {
     "use strict";
     var constants = require_constants();
     var utils = require_utils();
@@ -15297,7 +15297,7 @@ var require_parse = __commonJS({
         NO_DOTS_SLASH,
         QMARK,
         QMARK_NO_DOT,
-        STAR,
+        STAR: STAR2,
         START_ANCHOR
       } = PLATFORM_CHARS;
       const globstar = (opts2) => {
@@ -15305,7 +15305,7 @@ var require_parse = __commonJS({
       };
       const nodot = opts.dot ? "" : NO_DOT;
       const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
-      let star = opts.bash === true ? globstar(opts) : STAR;
+      let star = opts.bash === true ? globstar(opts) : STAR2;
       if (opts.capture) {
         star = `(${star})`;
       }
@@ -15956,14 +15956,14 @@ var require_parse = __commonJS({
         NO_DOT,
         NO_DOTS,
         NO_DOTS_SLASH,
-        STAR,
+        STAR: STAR2,
         START_ANCHOR
       } = constants.globChars(opts.windows);
       const nodot = opts.dot ? NO_DOTS : NO_DOT;
       const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
       const capture = opts.capture ? "" : "?:";
       const state = { negated: false, prefix: "" };
-      let star = opts.bash === true ? ".*?" : STAR;
+      let star = opts.bash === true ? ".*?" : STAR2;
       if (opts.capture) {
         star = `(${star})`;
       }
@@ -16009,9 +16009,9 @@ var require_parse = __commonJS({
   }
 });
 
-// node_modules/picomatch/lib/picomatch.js
+// ../main/node_modules/picomatch/lib/picomatch.js
 var require_picomatch = __commonJS({
-  "node_modules/picomatch/lib/picomatch.js"(exports, module) {
+  "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
     var parse4 = require_parse();
@@ -16149,9 +16149,9 @@ var require_picomatch = __commonJS({
   }
 });
 
-// node_modules/picomatch/index.js
+// ../main/node_modules/picomatch/index.js
 var require_picomatch2 = __commonJS({
-  "node_modules/picomatch/index.js"(exports, module) {
+  "../main/node_modules/picomatch/index.js"(exports, module) {
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
@@ -16169,7 +16169,7 @@ var require_picomatch2 = __commonJS({
 // src/cli/main.ts
 import { resolve as resolve2 } from "node:path";
 
-// node_modules/commander/esm.mjs
+// ../main/node_modules/commander/esm.mjs
 var import_index = __toESM(require_commander(), 1);
 var {
   program,
@@ -16274,7 +16274,7 @@ function isCode(error62, code) {
   return typeof error62 === "object" && error62 !== null && error62.code === code;
 }
 
-// node_modules/zod/v4/classic/external.js
+// ../main/node_modules/zod/v4/classic/external.js
 var external_exports = {};
 __export(external_exports, {
   $brand: () => $brand,
@@ -16537,7 +16537,7 @@ __export(external_exports, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/core/index.js
+// ../main/node_modules/zod/v4/core/index.js
 var core_exports2 = {};
 __export(core_exports2, {
   $ZodAny: () => $ZodAny,
@@ -16854,7 +16854,7 @@ __export(core_exports2, {
   withParser: () => withParser
 });
 
-// node_modules/zod/v4/core/util.js
+// ../main/node_modules/zod/v4/core/util.js
 var util_exports = {};
 __export(util_exports, {
   BIGINT_FORMAT_RANGES: () => BIGINT_FORMAT_RANGES,
@@ -17710,7 +17710,7 @@ function constantCatch(value) {
   return fn;
 }
 
-// node_modules/zod/v4/core/core.js
+// ../main/node_modules/zod/v4/core/core.js
 var _a;
 var NEVER = /* @__PURE__ */ Object.freeze({
   status: "aborted"
@@ -17832,7 +17832,7 @@ function config(newConfig) {
   return globalConfig;
 }
 
-// node_modules/zod/v4/core/errors.js
+// ../main/node_modules/zod/v4/core/errors.js
 function _getMessage() {
   const internals = this._zod;
   internals.message ?? (internals.message = JSON.stringify(internals.def, jsonStringifyReplacer, 2));
@@ -18024,7 +18024,7 @@ function prettifyError(error62) {
   return lines.join("\n");
 }
 
-// node_modules/zod/v4/core/parse.js
+// ../main/node_modules/zod/v4/core/parse.js
 function finalizeParams(callee, params) {
   return { callee: params?.callee ?? callee, Err: params?.Err };
 }
@@ -18184,7 +18184,7 @@ var _safeDecodeAsync = (_Err) => async (schema, value, _ctx) => {
 };
 var safeDecodeAsync = /* @__PURE__ */ _safeDecodeAsync($ZodRealError);
 
-// node_modules/zod/v4/core/regexes.js
+// ../main/node_modules/zod/v4/core/regexes.js
 var regexes_exports = {};
 __export(regexes_exports, {
   anyString: () => anyString,
@@ -18356,7 +18356,7 @@ var sha512_hex = /^[0-9a-fA-F]{128}$/;
 var sha512_base64 = /* @__PURE__ */ fixedBase64(86, "==");
 var sha512_base64url = /* @__PURE__ */ fixedBase64url(86);
 
-// node_modules/zod/v4/core/checks.js
+// ../main/node_modules/zod/v4/core/checks.js
 var $ZodCheck = /* @__PURE__ */ $constructor("$ZodCheck", (inst, def) => {
   var _a3;
   inst._zod ?? (inst._zod = {});
@@ -18832,7 +18832,7 @@ var $ZodCheckOverwrite = /* @__PURE__ */ $constructor("$ZodCheckOverwrite", (ins
   };
 });
 
-// node_modules/zod/v4/core/doc.js
+// ../main/node_modules/zod/v4/core/doc.js
 var Doc = class {
   constructor(args = [], closed = {}) {
     this.content = [];
@@ -18873,14 +18873,14 @@ ${content.join("\n")}
   }
 };
 
-// node_modules/zod/v4/core/versions.js
+// ../main/node_modules/zod/v4/core/versions.js
 var version = {
   major: 4,
   minor: 6,
   patch: 7
 };
 
-// node_modules/zod/v4/core/schemas.js
+// ../main/node_modules/zod/v4/core/schemas.js
 var $ZodType = /* @__PURE__ */ $constructor("$ZodType", (inst, def) => {
   var _a3;
   inst ?? (inst = {});
@@ -21322,7 +21322,7 @@ function handleRefineResult(result, payload, input2, inst) {
   }
 }
 
-// node_modules/zod/v4/core/memoizer.js
+// ../main/node_modules/zod/v4/core/memoizer.js
 var $ZodCyclicError = class extends Error {
   constructor() {
     super(`Cannot parse a reference cycle that closes through a transform`);
@@ -21599,7 +21599,7 @@ function isBackEdge(ctx, value) {
   return backEdges !== void 0 && isRef(value) && backEdges.has(value);
 }
 
-// node_modules/zod/v4/locales/index.js
+// ../main/node_modules/zod/v4/locales/index.js
 var locales_exports = {};
 __export(locales_exports, {
   ar: () => ar_default,
@@ -21667,7 +21667,7 @@ __export(locales_exports, {
   zhTW: () => zh_TW_default
 });
 
-// node_modules/zod/v4/locales/ar.js
+// ../main/node_modules/zod/v4/locales/ar.js
 var error = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0641", verb: "\u0623\u0646 \u064A\u062D\u0648\u064A" },
@@ -21779,7 +21779,7 @@ function ar_default() {
   };
 }
 
-// node_modules/zod/v4/locales/az.js
+// ../main/node_modules/zod/v4/locales/az.js
 var error2 = () => {
   const Sizable = {
     string: { unit: "simvol", verb: "olmal\u0131d\u0131r" },
@@ -21890,7 +21890,7 @@ function az_default() {
   };
 }
 
-// node_modules/zod/v4/locales/be.js
+// ../main/node_modules/zod/v4/locales/be.js
 function getBelarusianPlural(count2, one, few, many) {
   const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
@@ -22059,7 +22059,7 @@ function be_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bg.js
+// ../main/node_modules/zod/v4/locales/bg.js
 var error4 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0430", verb: "\u0434\u0430 \u0441\u044A\u0434\u044A\u0440\u0436\u0430" },
@@ -22185,7 +22185,7 @@ function bg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/bn.js
+// ../main/node_modules/zod/v4/locales/bn.js
 var error5 = () => {
   const Sizable = {
     string: { unit: "\u0985\u0995\u09CD\u09B7\u09B0", verb: "\u09A5\u09BE\u0995\u09A4\u09C7 \u09B9\u09AC\u09C7" },
@@ -22299,7 +22299,7 @@ function bn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ca.js
+// ../main/node_modules/zod/v4/locales/ca.js
 var error6 = () => {
   const Sizable = {
     string: { unit: "car\xE0cters", verb: "contenir" },
@@ -22413,7 +22413,7 @@ function ca_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ckb.js
+// ../main/node_modules/zod/v4/locales/ckb.js
 var error7 = () => {
   const Sizable = {
     string: { unit: "\u067E\u06CC\u062A", verb: "\u0628\u06CE\u062A" },
@@ -22546,7 +22546,7 @@ function ckb_default() {
   };
 }
 
-// node_modules/zod/v4/locales/cs.js
+// ../main/node_modules/zod/v4/locales/cs.js
 var error8 = () => {
   const Sizable = {
     string: { unit: "znak\u016F", verb: "m\xEDt" },
@@ -22663,7 +22663,7 @@ function cs_default() {
   };
 }
 
-// node_modules/zod/v4/locales/da.js
+// ../main/node_modules/zod/v4/locales/da.js
 var error9 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "havde" },
@@ -22784,7 +22784,7 @@ function da_default() {
   };
 }
 
-// node_modules/zod/v4/locales/de.js
+// ../main/node_modules/zod/v4/locales/de.js
 var error10 = () => {
   const Sizable = {
     string: { unit: "Zeichen", verb: "zu haben" },
@@ -22898,7 +22898,7 @@ function de_default() {
   };
 }
 
-// node_modules/zod/v4/locales/el.js
+// ../main/node_modules/zod/v4/locales/el.js
 var error11 = () => {
   const Sizable = {
     string: { unit: "\u03C7\u03B1\u03C1\u03B1\u03BA\u03C4\u03AE\u03C1\u03B5\u03C2", verb: "\u03BD\u03B1 \u03AD\u03C7\u03B5\u03B9" },
@@ -23011,7 +23011,7 @@ function el_default() {
   };
 }
 
-// node_modules/zod/v4/locales/en.js
+// ../main/node_modules/zod/v4/locales/en.js
 var error12 = () => {
   const Sizable = {
     string: { unit: "characters", verb: "to have" },
@@ -23136,7 +23136,7 @@ function en_default() {
   };
 }
 
-// node_modules/zod/v4/locales/eo.js
+// ../main/node_modules/zod/v4/locales/eo.js
 var error13 = () => {
   const Sizable = {
     string: { unit: "karaktrojn", verb: "havi" },
@@ -23251,7 +23251,7 @@ function eo_default() {
   };
 }
 
-// node_modules/zod/v4/locales/es.js
+// ../main/node_modules/zod/v4/locales/es.js
 var error14 = () => {
   const Sizable = {
     string: { unit: "caracteres", verb: "tener" },
@@ -23388,7 +23388,7 @@ function es_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fa.js
+// ../main/node_modules/zod/v4/locales/fa.js
 var error15 = () => {
   const Sizable = {
     string: { unit: "\u06A9\u0627\u0631\u0627\u06A9\u062A\u0631", verb: "\u062F\u0627\u0634\u062A\u0647 \u0628\u0627\u0634\u062F" },
@@ -23508,7 +23508,7 @@ function fa_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fi.js
+// ../main/node_modules/zod/v4/locales/fi.js
 var error16 = () => {
   const Sizable = {
     string: { unit: "merkki\xE4", subject: "merkkijonon" },
@@ -23626,7 +23626,7 @@ function fi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr.js
+// ../main/node_modules/zod/v4/locales/fr.js
 var error17 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23756,7 +23756,7 @@ function fr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/fr-CA.js
+// ../main/node_modules/zod/v4/locales/fr-CA.js
 var error18 = () => {
   const Sizable = {
     string: { unit: "caract\xE8res", verb: "avoir" },
@@ -23869,7 +23869,7 @@ function fr_CA_default() {
   };
 }
 
-// node_modules/zod/v4/locales/gu.js
+// ../main/node_modules/zod/v4/locales/gu.js
 var error19 = () => {
   const Sizable = {
     string: { unit: "\u0A85\u0A95\u0ACD\u0AB7\u0AB0", verb: "\u0AB9\u0ACB\u0AB5\u0ABE \u0A9C\u0ACB\u0A88\u0A8F" },
@@ -23983,7 +23983,7 @@ function gu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/he.js
+// ../main/node_modules/zod/v4/locales/he.js
 var error20 = () => {
   const TypeNames = {
     string: { label: "\u05DE\u05D7\u05E8\u05D5\u05D6\u05EA", gender: "f" },
@@ -24185,7 +24185,7 @@ function he_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hi.js
+// ../main/node_modules/zod/v4/locales/hi.js
 var error21 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0930\u0916\u0928\u0947 \u0915\u0947 \u0932\u093F\u090F" },
@@ -24297,7 +24297,7 @@ function hi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hr.js
+// ../main/node_modules/zod/v4/locales/hr.js
 var error22 = () => {
   const Sizable = {
     string: { unit: "znakova", verb: "imati" },
@@ -24424,7 +24424,7 @@ function hr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hu.js
+// ../main/node_modules/zod/v4/locales/hu.js
 var error23 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "legyen" },
@@ -24538,7 +24538,7 @@ function hu_default() {
   };
 }
 
-// node_modules/zod/v4/locales/hy.js
+// ../main/node_modules/zod/v4/locales/hy.js
 function getArmenianPlural(count2, one, many) {
   return Math.abs(count2) === 1 ? one : many;
 }
@@ -24697,7 +24697,7 @@ function hy_default() {
   };
 }
 
-// node_modules/zod/v4/locales/id.js
+// ../main/node_modules/zod/v4/locales/id.js
 var error25 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "memiliki" },
@@ -24809,7 +24809,7 @@ function id_default() {
   };
 }
 
-// node_modules/zod/v4/locales/is.js
+// ../main/node_modules/zod/v4/locales/is.js
 var error26 = () => {
   const Sizable = {
     string: { unit: "stafi", verb: "a\xF0 hafa" },
@@ -24924,7 +24924,7 @@ function is_default() {
   };
 }
 
-// node_modules/zod/v4/locales/it.js
+// ../main/node_modules/zod/v4/locales/it.js
 var error27 = () => {
   const Sizable = {
     string: { unit: "caratteri", verb: "avere" },
@@ -25038,7 +25038,7 @@ function it_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ja.js
+// ../main/node_modules/zod/v4/locales/ja.js
 var error28 = () => {
   const Sizable = {
     string: { unit: "\u6587\u5B57", verb: "\u3067\u3042\u308B" },
@@ -25151,7 +25151,7 @@ function ja_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ka.js
+// ../main/node_modules/zod/v4/locales/ka.js
 var error29 = () => {
   const Sizable = {
     string: { unit: "\u10E1\u10D8\u10DB\u10D1\u10DD\u10DA\u10DD", verb: "\u10E3\u10DC\u10D3\u10D0 \u10E8\u10D4\u10D8\u10EA\u10D0\u10D5\u10D3\u10D4\u10E1" },
@@ -25269,7 +25269,7 @@ function ka_default() {
   };
 }
 
-// node_modules/zod/v4/locales/km.js
+// ../main/node_modules/zod/v4/locales/km.js
 var error30 = () => {
   const Sizable = {
     string: { unit: "\u178F\u17BD\u17A2\u1780\u17D2\u179F\u179A", verb: "\u1782\u17BD\u179A\u1798\u17B6\u1793" },
@@ -25385,12 +25385,12 @@ function km_default() {
   };
 }
 
-// node_modules/zod/v4/locales/kh.js
+// ../main/node_modules/zod/v4/locales/kh.js
 function kh_default() {
   return km_default();
 }
 
-// node_modules/zod/v4/locales/kn.js
+// ../main/node_modules/zod/v4/locales/kn.js
 var error31 = () => {
   const Sizable = {
     string: { unit: "\u0C85\u0C95\u0CCD\u0CB7\u0CB0\u0C97\u0CB3\u0CC1", verb: "\u0CB9\u0CCA\u0C82\u0CA6\u0CB2\u0CC1" },
@@ -25506,7 +25506,7 @@ function kn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ko.js
+// ../main/node_modules/zod/v4/locales/ko.js
 var error32 = () => {
   const Sizable = {
     string: { unit: "\uBB38\uC790", verb: "to have" },
@@ -25623,7 +25623,7 @@ function ko_default() {
   };
 }
 
-// node_modules/zod/v4/locales/lt.js
+// ../main/node_modules/zod/v4/locales/lt.js
 var capitalizeFirstCharacter = (text2) => {
   return text2.charAt(0).toUpperCase() + text2.slice(1);
 };
@@ -25831,7 +25831,7 @@ function lt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/mk.js
+// ../main/node_modules/zod/v4/locales/mk.js
 var error34 = () => {
   const Sizable = {
     string: { unit: "\u0437\u043D\u0430\u0446\u0438", verb: "\u0434\u0430 \u0438\u043C\u0430\u0430\u0442" },
@@ -25946,7 +25946,7 @@ function mk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ms.js
+// ../main/node_modules/zod/v4/locales/ms.js
 var error35 = () => {
   const Sizable = {
     string: { unit: "aksara", verb: "mempunyai" },
@@ -26059,7 +26059,7 @@ function ms_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ne.js
+// ../main/node_modules/zod/v4/locales/ne.js
 var error36 = () => {
   const Sizable = {
     string: { unit: "\u0905\u0915\u094D\u0937\u0930", verb: "\u0939\u0941\u0928\u0941\u092A\u0930\u094D\u091B" },
@@ -26171,7 +26171,7 @@ function ne_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nl.js
+// ../main/node_modules/zod/v4/locales/nl.js
 var error37 = () => {
   const Sizable = {
     string: { unit: "tekens", verb: "heeft" },
@@ -26287,7 +26287,7 @@ function nl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/nn.js
+// ../main/node_modules/zod/v4/locales/nn.js
 var error38 = () => {
   const Sizable = {
     string: { unit: "teikn", verb: "\xE5 ha" },
@@ -26401,7 +26401,7 @@ function nn_default() {
   };
 }
 
-// node_modules/zod/v4/locales/no.js
+// ../main/node_modules/zod/v4/locales/no.js
 var error39 = () => {
   const Sizable = {
     string: { unit: "tegn", verb: "\xE5 ha" },
@@ -26515,7 +26515,7 @@ function no_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ota.js
+// ../main/node_modules/zod/v4/locales/ota.js
 var error40 = () => {
   const Sizable = {
     string: { unit: "harf", verb: "olmal\u0131d\u0131r" },
@@ -26630,7 +26630,7 @@ function ota_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ps.js
+// ../main/node_modules/zod/v4/locales/ps.js
 var error41 = () => {
   const Sizable = {
     string: { unit: "\u062A\u0648\u06A9\u064A", verb: "\u0648\u0644\u0631\u064A" },
@@ -26750,7 +26750,7 @@ function ps_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pl.js
+// ../main/node_modules/zod/v4/locales/pl.js
 var error42 = () => {
   const Sizable = {
     string: { unit: "znak\xF3w", verb: "mie\u0107" },
@@ -26865,7 +26865,7 @@ function pl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt.js
+// ../main/node_modules/zod/v4/locales/pt.js
 var error43 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27009,7 +27009,7 @@ function pt_default() {
   };
 }
 
-// node_modules/zod/v4/locales/pt-BR.js
+// ../main/node_modules/zod/v4/locales/pt-BR.js
 var error44 = () => {
   const Sizable = {
     string: { unit: "caracteres" },
@@ -27154,7 +27154,7 @@ function pt_BR_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ro.js
+// ../main/node_modules/zod/v4/locales/ro.js
 var error45 = () => {
   const Sizable = {
     string: { unit: "caractere", verb: "s\u0103 aib\u0103" },
@@ -27277,7 +27277,7 @@ function ro_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ru.js
+// ../main/node_modules/zod/v4/locales/ru.js
 function getRussianPlural(count2, one, few, many) {
   const absCount = Math.abs(count2);
   const lastDigit = absCount % 10;
@@ -27446,7 +27446,7 @@ function ru_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sk.js
+// ../main/node_modules/zod/v4/locales/sk.js
 var error47 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "ma\u0165" },
@@ -27563,7 +27563,7 @@ function sk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sl.js
+// ../main/node_modules/zod/v4/locales/sl.js
 var error48 = () => {
   const Sizable = {
     string: { unit: "znakov", verb: "imeti" },
@@ -27678,7 +27678,7 @@ function sl_default() {
   };
 }
 
-// node_modules/zod/v4/locales/sv.js
+// ../main/node_modules/zod/v4/locales/sv.js
 var error49 = () => {
   const Sizable = {
     string: { unit: "tecken", verb: "att ha" },
@@ -27794,7 +27794,7 @@ function sv_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ta.js
+// ../main/node_modules/zod/v4/locales/ta.js
 var error50 = () => {
   const Sizable = {
     string: { unit: "\u0B8E\u0BB4\u0BC1\u0BA4\u0BCD\u0BA4\u0BC1\u0B95\u0BCD\u0B95\u0BB3\u0BCD", verb: "\u0B95\u0BCA\u0BA3\u0BCD\u0B9F\u0BBF\u0BB0\u0BC1\u0B95\u0BCD\u0B95 \u0BB5\u0BC7\u0BA3\u0BCD\u0B9F\u0BC1\u0BAE\u0BCD" },
@@ -27910,7 +27910,7 @@ function ta_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tg.js
+// ../main/node_modules/zod/v4/locales/tg.js
 var error51 = () => {
   const Sizable = {
     string: { unit: "\u0430\u043B\u043E\u043C\u0430\u0442", verb: "\u0434\u043E\u0448\u0442\u0430 \u0431\u043E\u0448\u0430\u0434" },
@@ -28027,7 +28027,7 @@ function tg_default() {
   };
 }
 
-// node_modules/zod/v4/locales/th.js
+// ../main/node_modules/zod/v4/locales/th.js
 var error52 = () => {
   const Sizable = {
     string: { unit: "\u0E15\u0E31\u0E27\u0E2D\u0E31\u0E01\u0E29\u0E23", verb: "\u0E04\u0E27\u0E23\u0E21\u0E35" },
@@ -28143,7 +28143,7 @@ function th_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tk.js
+// ../main/node_modules/zod/v4/locales/tk.js
 var error53 = () => {
   const Sizable = {
     string: { unit: "simwol", verb: "bolmaly" },
@@ -28251,7 +28251,7 @@ function tk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/tr.js
+// ../main/node_modules/zod/v4/locales/tr.js
 var error54 = () => {
   const Sizable = {
     string: { unit: "karakter", verb: "olmal\u0131" },
@@ -28362,7 +28362,7 @@ function tr_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uk.js
+// ../main/node_modules/zod/v4/locales/uk.js
 var error55 = () => {
   const Sizable = {
     string: { unit: "\u0441\u0438\u043C\u0432\u043E\u043B\u0456\u0432", verb: "\u043C\u0430\u0442\u0438\u043C\u0435" },
@@ -28476,12 +28476,12 @@ function uk_default() {
   };
 }
 
-// node_modules/zod/v4/locales/ua.js
+// ../main/node_modules/zod/v4/locales/ua.js
 function ua_default() {
   return uk_default();
 }
 
-// node_modules/zod/v4/locales/ur.js
+// ../main/node_modules/zod/v4/locales/ur.js
 var error56 = () => {
   const Sizable = {
     string: { unit: "\u062D\u0631\u0648\u0641", verb: "\u06C1\u0648\u0646\u0627" },
@@ -28597,7 +28597,7 @@ function ur_default() {
   };
 }
 
-// node_modules/zod/v4/locales/uz.js
+// ../main/node_modules/zod/v4/locales/uz.js
 var error57 = () => {
   const Sizable = {
     string: { unit: "belgi", verb: "bo\u2018lishi kerak" },
@@ -28711,7 +28711,7 @@ function uz_default() {
   };
 }
 
-// node_modules/zod/v4/locales/vi.js
+// ../main/node_modules/zod/v4/locales/vi.js
 var error58 = () => {
   const Sizable = {
     string: { unit: "k\xFD t\u1EF1", verb: "c\xF3" },
@@ -28825,7 +28825,7 @@ function vi_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-CN.js
+// ../main/node_modules/zod/v4/locales/zh-CN.js
 var error59 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u7B26", verb: "\u5305\u542B" },
@@ -28940,7 +28940,7 @@ function zh_CN_default() {
   };
 }
 
-// node_modules/zod/v4/locales/zh-TW.js
+// ../main/node_modules/zod/v4/locales/zh-TW.js
 var error60 = () => {
   const Sizable = {
     string: { unit: "\u5B57\u5143", verb: "\u64C1\u6709" },
@@ -29053,7 +29053,7 @@ function zh_TW_default() {
   };
 }
 
-// node_modules/zod/v4/locales/yo.js
+// ../main/node_modules/zod/v4/locales/yo.js
 var error61 = () => {
   const Sizable = {
     string: { unit: "\xE0mi", verb: "n\xED" },
@@ -29166,7 +29166,7 @@ function yo_default() {
   };
 }
 
-// node_modules/zod/v4/core/registries.js
+// ../main/node_modules/zod/v4/core/registries.js
 var _a2;
 var $output = /* @__PURE__ */ Symbol("ZodOutput");
 var $input = /* @__PURE__ */ Symbol("ZodInput");
@@ -29216,7 +29216,7 @@ function registry() {
 (_a2 = globalThis).__zod_globalRegistry ?? (_a2.__zod_globalRegistry = registry());
 var globalRegistry = globalThis.__zod_globalRegistry;
 
-// node_modules/zod/v4/core/compile.js
+// ../main/node_modules/zod/v4/core/compile.js
 var INVALID = /* @__PURE__ */ Symbol.for("zod.compile.invalid");
 var FALLBACK_FLAG = /* @__PURE__ */ Symbol.for("zod.compile.fallback");
 var ZodCompileAsyncError = class extends Error {
@@ -30826,7 +30826,7 @@ function generateTransformCheck(doc, ctx, schema, accessor) {
   return accessor;
 }
 
-// node_modules/zod/v4/core/api.js
+// ../main/node_modules/zod/v4/core/api.js
 function snapshotChecks(def) {
   if (def.checks)
     def.checks = [...def.checks];
@@ -31885,7 +31885,7 @@ function _stringFormat(Class2, format, fnOrRegex, _params = {}) {
   return inst;
 }
 
-// node_modules/zod/v4/core/to-json-schema.js
+// ../main/node_modules/zod/v4/core/to-json-schema.js
 function assignProps(target, ...sources) {
   for (const source of sources) {
     for (const key of Reflect.ownKeys(source)) {
@@ -32415,7 +32415,7 @@ var createStandardJSONSchemaMethod = (schema, io, processors = {}) => (params) =
   return finalize(ctx, schema);
 };
 
-// node_modules/zod/v4/core/json-schema-processors.js
+// ../main/node_modules/zod/v4/core/json-schema-processors.js
 var narrowMin = (agg, key, value) => {
   if (agg[key] === void 0 || value > agg[key])
     agg[key] = value;
@@ -33163,7 +33163,7 @@ function toJSONSchema(input2, params) {
   return finalize(ctx, input2);
 }
 
-// node_modules/zod/v4/core/json-schema-generator.js
+// ../main/node_modules/zod/v4/core/json-schema-generator.js
 var JSONSchemaGenerator = class {
   /** @deprecated Access via ctx instead */
   get metadataRegistry() {
@@ -33241,10 +33241,10 @@ var JSONSchemaGenerator = class {
   }
 };
 
-// node_modules/zod/v4/core/json-schema.js
+// ../main/node_modules/zod/v4/core/json-schema.js
 var json_schema_exports = {};
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 var schemas_exports2 = {};
 __export(schemas_exports2, {
   ZodAny: () => ZodAny,
@@ -33425,7 +33425,7 @@ __export(schemas_exports2, {
   xor: () => xor
 });
 
-// node_modules/zod/v4/classic/checks.js
+// ../main/node_modules/zod/v4/classic/checks.js
 var checks_exports2 = {};
 __export(checks_exports2, {
   endsWith: () => _endsWith,
@@ -33460,7 +33460,7 @@ __export(checks_exports2, {
   uppercase: () => _uppercase
 });
 
-// node_modules/zod/v4/classic/errors.js
+// ../main/node_modules/zod/v4/classic/errors.js
 var _installedErrorProtos = /* @__PURE__ */ new WeakSet([Object.prototype, Error.prototype]);
 function _lazyMethod(proto, key, make) {
   Object.defineProperty(proto, key, {
@@ -33506,7 +33506,7 @@ var ZodRealError = /* @__PURE__ */ $constructor("ZodError", initializer2, void 0
   Parent: Error
 });
 
-// node_modules/zod/v4/classic/parse.js
+// ../main/node_modules/zod/v4/classic/parse.js
 var parse2 = /* @__PURE__ */ _parse(ZodRealError);
 var parseAsync2 = /* @__PURE__ */ _parseAsync(ZodRealError);
 var safeParse2 = /* @__PURE__ */ _safeParse(ZodRealError);
@@ -33520,7 +33520,7 @@ var safeDecode2 = /* @__PURE__ */ _safeDecode(ZodRealError);
 var safeEncodeAsync2 = /* @__PURE__ */ _safeEncodeAsync(ZodRealError);
 var safeDecodeAsync2 = /* @__PURE__ */ _safeDecodeAsync(ZodRealError);
 
-// node_modules/zod/v4/classic/schemas.js
+// ../main/node_modules/zod/v4/classic/schemas.js
 function _ensureDefaultLocale() {
   if (!globalConfig.localeError)
     config(en_default());
@@ -34985,7 +34985,7 @@ function preprocess(fn, schema) {
   });
 }
 
-// node_modules/zod/v4/classic/compat.js
+// ../main/node_modules/zod/v4/classic/compat.js
 var ZodIssueCode = {
   invalid_type: "invalid_type",
   too_big: "too_big",
@@ -35011,7 +35011,7 @@ var ZodFirstPartyTypeKind;
 /* @__PURE__ */ (function(ZodFirstPartyTypeKind2) {
 })(ZodFirstPartyTypeKind || (ZodFirstPartyTypeKind = {}));
 
-// node_modules/zod/v4/classic/iso.js
+// ../main/node_modules/zod/v4/classic/iso.js
 var iso_exports = {};
 __export(iso_exports, {
   ZodISODate: () => ZodISODate,
@@ -35036,7 +35036,7 @@ function duration2(params) {
   return _isoDuration(ZodISODuration, params);
 }
 
-// node_modules/zod/v4/classic/from-json-schema.js
+// ../main/node_modules/zod/v4/classic/from-json-schema.js
 var z = {
   ...schemas_exports2,
   ...checks_exports2,
@@ -35769,7 +35769,7 @@ function fromJSONSchema(schema, params) {
   return convertSchema(normalized, ctx);
 }
 
-// node_modules/zod/v4/core/visit.js
+// ../main/node_modules/zod/v4/core/visit.js
 var RESOLVING = /* @__PURE__ */ Symbol("z.visit/resolving");
 function visit(schema, fnOrHandlers) {
   const fn = typeof fnOrHandlers === "function" ? fnOrHandlers : (node2, rewritten) => {
@@ -35924,7 +35924,7 @@ function visit(schema, fnOrHandlers) {
   return run(schema);
 }
 
-// node_modules/zod/v4/classic/deep-partial.js
+// ../main/node_modules/zod/v4/classic/deep-partial.js
 function deepPartial(schema) {
   return visit(schema, {
     object: (s) => s.partial(),
@@ -35936,7 +35936,7 @@ function deepPartial(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/in-out.js
+// ../main/node_modules/zod/v4/classic/in-out.js
 function withChecks(side, checks) {
   if (!checks?.length)
     return side;
@@ -35966,7 +35966,7 @@ function output(schema) {
   });
 }
 
-// node_modules/zod/v4/classic/coerce.js
+// ../main/node_modules/zod/v4/classic/coerce.js
 var coerce_exports = {};
 __export(coerce_exports, {
   bigint: () => bigint3,
@@ -36395,6 +36395,24 @@ var populationSchema = external_exports.strictObject(
   },
   { error: "a mapping with platforms, locales, regions, segment and ready" }
 ).default({ platforms: [], locales: [], regions: [], ready: { platforms: [], locales: [] } }).describe("Who is eligible: platforms, locales, regions and segment.");
+var amendmentsSchema = external_exports.array(
+  external_exports.strictObject(
+    {
+      date: calendarDate("the date of the amendment written YYYY-MM-DD, e.g. 2026-11-20"),
+      changed: text("what changed, in a sentence, e.g. guardrail order-errors tolerance 1% -> 2%"),
+      reason: text("why the change was needed, in a sentence")
+    },
+    { error: "an amendment: { date: 2026-11-20, changed: ..., reason: ... }" }
+  ),
+  { error: "a list of amendments, each with date, changed and reason" }
+).default([]).describe("Changes made after the test started, oldest first: date, what changed and why. Append only.");
+var outcomeSchema = external_exports.strictObject(
+  {
+    date: calendarDate("the date the test was decided written YYYY-MM-DD, e.g. 2026-12-01").optional(),
+    reason: text("the decision and why, in a sentence, e.g. shipped: +2.1% orders, guardrails held")
+  },
+  { error: "a mapping with date and reason" }
+).optional().describe("The decision once the test is over: when it was made and a one-line reason.");
 var writtenPlanSchema = external_exports.strictObject({
   id: planId,
   title: text("a short title, e.g. Saved wallets shown before card entry"),
@@ -36496,6 +36514,8 @@ var writtenPlanSchema = external_exports.strictObject({
   "bundle-rationale": optionalText("why several changes or flags are tested together").describe(
     "Required when the plan bundles several flags or changes."
   ),
+  amendments: amendmentsSchema,
+  outcome: outcomeSchema,
   notes: optionalText("free text")
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
 function normalizeMetric(written, fallbackDirection) {
@@ -36566,6 +36586,8 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     },
     sensitive: written.sensitive,
     ...written["bundle-rationale"] ? { bundleRationale: written["bundle-rationale"] } : {},
+    amendments: written.amendments,
+    ...written.outcome ? { outcome: written.outcome } : {},
     ...written.notes ? { notes: written.notes } : {}
   };
 });
@@ -36893,7 +36915,8 @@ var writtenEntry = external_exports.strictObject(
     surface: surfaceSchema,
     population: populationSchema,
     "traffic-share": external_exports.number({ error: "the share of eligible units enrolled, in (0, 1]" }).gt(0, { error: "a share in (0, 1]" }).lte(1, { error: "a share in (0, 1]" }).optional(),
-    events: uniqueList(eventName, "a list of logging events the test depends on").default([])
+    events: uniqueList(eventName, "a list of logging events the test depends on").default([]),
+    amendments: amendmentsSchema
   },
   { error: "a test entry with id, title, owners, state, flags, window and surface" }
 );
@@ -36916,7 +36939,8 @@ var registrySchema = writtenRegistrySchema.transform(
     },
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry["traffic-share"] ?? 1,
-    events: entry.events
+    events: entry.events,
+    amendments: entry.amendments
   }))
 );
 function eventsOfPlan(plan) {
@@ -36936,6 +36960,7 @@ function entryFromPlan(plan, file2, line) {
     population: { platforms: plan.population.platforms, locales: plan.population.locales, regions: plan.population.regions },
     trafficShare: plan.design.trafficShare,
     events: eventsOfPlan(plan),
+    amendments: plan.amendments,
     file: file2,
     line,
     plan
@@ -38789,6 +38814,164 @@ var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
   }));
 };
 
+// src/core/plan/compare.ts
+var NOT_SET = "(not set)";
+function showValue(value) {
+  if (value === void 0 || value === null) return NOT_SET;
+  if (typeof value === "string") return value;
+  if (typeof value === "number" || typeof value === "boolean") return String(value);
+  if (Array.isArray(value)) return `[${value.map(showValue).join(", ")}]`;
+  const entries = Object.entries(value).filter(([, v]) => v !== void 0);
+  return `{ ${entries.map(([k, v]) => `${k}: ${showValue(v)}`).join(", ")} }`;
+}
+function metricFields(prefix, metric2, withBaseline, into) {
+  into.set(`${prefix}.name`, metric2.name);
+  into.set(`${prefix}.kind`, metric2.kind);
+  into.set(`${prefix}.events`, metric2.events);
+  into.set(`${prefix}.direction`, metric2.direction);
+  if (metric2.tolerance) into.set(`${prefix}.tolerance`, metric2.tolerance);
+  if (withBaseline) into.set(`${prefix}.baseline`, metric2.baseline);
+}
+function decisiveFields(plan, started) {
+  const fields = /* @__PURE__ */ new Map();
+  metricFields("metrics.primary", plan.metrics.primary, started, fields);
+  fields.set("metrics.guardrails", plan.metrics.guardrails.map((g) => g.name));
+  for (const guardrail of plan.metrics.guardrails) metricFields(`metrics.guardrails[${guardrail.name}]`, guardrail, started, fields);
+  fields.set("hypothesis.expected-direction", plan.hypothesis.direction);
+  fields.set("design.min-detectable-effect", plan.design.minDetectableEffect);
+  fields.set("design.alpha", plan.design.alpha);
+  fields.set("design.power", plan.design.power);
+  fields.set("design.sides", plan.design.sides);
+  fields.set("design.arms", plan.design.arms);
+  fields.set("design.control", plan.design.control);
+  fields.set("design.interim-looks", plan.design.interimLooks);
+  fields.set("design.interim-boundary", plan.design.interimBoundary);
+  fields.set("unit.randomization", plan.unit.randomization);
+  fields.set("unit.analysis", plan.unit.analysis);
+  fields.set("exposure.event", plan.exposure.event);
+  fields.set("decisions.win", plan.decisions.win);
+  fields.set("decisions.flat", plan.decisions.flat);
+  fields.set("decisions.loss", plan.decisions.loss);
+  fields.set("decisions.guardrail-breach", plan.decisions.guardrailBreach);
+  fields.set("decisions.launch-regardless", plan.decisions.launchRegardless?.reason);
+  fields.set("window.start", plan.window.start);
+  return fields;
+}
+function decisiveEntryFields(entry) {
+  return /* @__PURE__ */ new Map([
+    ["window.start", entry.window.start],
+    ["flags", entry.flags],
+    ["events", entry.events],
+    ["traffic-share", entry.trafficShare]
+  ]);
+}
+function changedFields(before, after) {
+  const changes = [];
+  for (const field of /* @__PURE__ */ new Set([...before.keys(), ...after.keys()])) {
+    const was = showValue(before.get(field));
+    const now = showValue(after.get(field));
+    if (was !== now) changes.push({ field, before: was, after: now });
+  }
+  return changes;
+}
+
+// src/core/checks/test-lifecycle.ts
+function hasStarted(entry, today) {
+  if (entry.state === "concluded") return false;
+  if (entry.state === "live" || entry.state === "on-hold") return true;
+  return entry.window.start !== void 0 && entry.window.start <= today;
+}
+function collectingSince(entry, today) {
+  return entry.window.start !== void 0 ? entry.window.start <= today : entry.state === "live" || entry.state === "on-hold";
+}
+function hasOutcome(entry) {
+  return entry.state === "concluded" && (entry.plan === void 0 || entry.plan.outcome !== void 0);
+}
+var ownersOf = (entry) => entry.owners.join(", ");
+
+// src/core/checks/frozen-plan.ts
+function appendedAmendments(before, after) {
+  const rewritten = after.length < before.length || before.some((a, i) => JSON.stringify(a) !== JSON.stringify(after[i]));
+  return { added: rewritten ? [] : after.slice(before.length), rewritten };
+}
+function decisiveChanges(before, after, today) {
+  const baselineFrozen = collectingSince(before, today);
+  if (before.plan && after.plan) return changedFields(decisiveFields(before.plan, baselineFrozen), decisiveFields(after.plan, baselineFrozen));
+  return changedFields(decisiveEntryFields(before), decisiveEntryFields(after));
+}
+var startedOn = (entry) => entry.window.start ? `started on ${entry.window.start}` : `is ${entry.state}`;
+var listChanges = (changes) => changes.map((c) => `${c.field} (${c.before} \u2192 ${c.after})`).join("; ");
+function endMove(before, after) {
+  const was = before.window.end;
+  const now = after.window.end;
+  if (was === now || was === void 0) return void 0;
+  const later = now === void 0 || now > was;
+  if (!later && (after.plan?.design.interimLooks ?? 0) > 0) return void 0;
+  return { field: "window.end", before: showValue(was), after: showValue(now) };
+}
+function reviewOne(before, after, today) {
+  const where2 = { plan: after.id, file: after.file, line: after.line };
+  const { added, rewritten } = appendedAmendments(before.amendments, after.amendments);
+  const changes = decisiveChanges(before, after, today);
+  if (rewritten) changes.push({ field: "amendments", before: `${before.amendments.length} recorded`, after: "earlier entries edited or removed" });
+  const end = endMove(before, after);
+  const amendment = added.at(-1);
+  if (amendment && !rewritten && (changes.length || end)) {
+    const all = end ? [...changes, end] : changes;
+    return [
+      {
+        code: "plan-amended",
+        message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}; this change amends what decides its result (${all.map((c) => c.field).join(", ")}), recorded on ${amendment.date}: \u201C${amendment.changed}\u201D because \u201C${amendment.reason}\u201D.`,
+        fix: "Judge the amendment against the table: a result must not be chosen after seeing data. The readout must say the plan changed on this date.",
+        changes: all,
+        amendment,
+        ...where2
+      }
+    ];
+  }
+  const findings = [];
+  if (changes.length) {
+    findings.push({
+      code: "plan-frozen",
+      message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}, and this change alters what decides its result: ${listChanges(changes)}. Changing these after the start lets the result be chosen after the fact.`,
+      fix: `Put these fields back as they were. If a change is truly needed, append an entry under amendments: with date, changed and reason (reviewers then see a before/after table), or end ${after.id} and plan a new test.`,
+      changes,
+      ...where2
+    });
+  }
+  if (end) {
+    const later = end.after === showValue(void 0) || end.after > end.before;
+    findings.push({
+      code: "plan-end-moved",
+      message: later ? `${after.id} ${startedOn(before)}; this change moves its planned end from ${end.before} to ${end.after}. A later end changes the power the test was sized for and invites stopping when the numbers look good.` : `${after.id} ${startedOn(before)}; this change brings its planned end forward from ${end.before} to ${end.after}, and the plan has no interim looks, so the test ends with less power than planned.`,
+      fix: later ? "Keep the planned end, or record the reason under amendments: and read the result only at the new end." : "Keep the planned end, plan interim looks with a stopping boundary, or record the reason under amendments:.",
+      changes: [end],
+      ...where2
+    });
+  }
+  return findings;
+}
+function deleted(before) {
+  return {
+    code: "plan-deleted",
+    message: `This change deletes ${before.id} (${ownersOf(before)}) from ${before.file}, a test that ${startedOn(before)} and has no recorded outcome; its pre-registered plan is what its result will be judged against.`,
+    fix: `Keep the plan: set state: concluded with an outcome (date and a one-line reason) when the test is over.`,
+    plan: before.id,
+    file: before.file,
+    line: before.line
+  };
+}
+var frozenPlans = (context2) => {
+  const head = new Map(context2.registry.entries.map((e) => [e.id, e]));
+  const unloadable = new Set(context2.invalidPlanFiles.map((f) => f.file));
+  return context2.baseEntries.filter((before) => hasStarted(before, context2.today)).flatMap((before) => {
+    const after = head.get(before.id);
+    if (after) return reviewOne(before, after, context2.today);
+    if (unloadable.has(before.file) || hasOutcome(before)) return [];
+    return [deleted(before)];
+  });
+};
+
 // src/core/checks/logging.ts
 function eventStatuses(context2, planId2) {
   const linked = context2.linked.find((l) => l.loaded.plan.id === planId2);
@@ -39004,6 +39187,7 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
 // src/core/checks/index.ts
 var CHECKS = [
   planInvalid,
+  frozenPlans,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
@@ -39046,6 +39230,10 @@ var FINDING_CODES = {
   "event-missing": { severity: "warn", about: "an event the plan names is not logged in the code" },
   "event-removed": { severity: "block", about: "the change removes an event a running test depends on" },
   "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
+  "plan-frozen": { severity: "block", about: "a started test\u2019s plan changes what decides its result without an amendment" },
+  "plan-amended": { severity: "note", about: "a started test\u2019s plan changes what decides its result and records why (shown before and after)" },
+  "plan-deleted": { severity: "block", about: "the change deletes the plan of a started test that has no outcome" },
+  "plan-end-moved": { severity: "warn", about: "a started test\u2019s planned end moves later, or earlier without interim looks" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -39422,8 +39610,80 @@ function buildAutomaton(names) {
   };
 }
 
-// src/core/scan/name-scan.ts
+// src/core/scan/comments.ts
+var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
+var HASH_AND_SLASH = /\.(?:php)$/i;
+function commentSyntaxOf(path) {
+  if (HASH_ONLY.test(path)) return { slash: false, hash: true };
+  if (HASH_AND_SLASH.test(path)) return { slash: true, hash: true };
+  return { slash: true, hash: false };
+}
+var SLASH = 47;
+var STAR = 42;
+var HASH = 35;
+var NEWLINE = 10;
+var BACKSLASH = 92;
 var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+function commentRanges(length, at, syntax) {
+  const ranges = [];
+  let i = 0;
+  while (i < length) {
+    const c = at(i);
+    if (QUOTES.has(c)) {
+      const quote = c;
+      i++;
+      while (i < length) {
+        const d = at(i);
+        if (d === BACKSLASH) i += 2;
+        else if (d === quote) break;
+        else if (d === NEWLINE && quote !== 96) break;
+        else i++;
+      }
+      i++;
+    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
+      const start = i;
+      while (i < length && at(i) !== NEWLINE) i++;
+      ranges.push([start, i]);
+    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
+      const start = i;
+      i += 2;
+      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
+      i = Math.min(length, i + 2);
+      ranges.push([start, i]);
+    } else i++;
+  }
+  return ranges;
+}
+function insideRanges(ranges, index) {
+  let lo = 0;
+  let hi = ranges.length - 1;
+  while (lo <= hi) {
+    const mid = lo + hi >> 1;
+    const [start, end] = ranges[mid];
+    if (index < start) hi = mid - 1;
+    else if (index >= end) lo = mid + 1;
+    else return true;
+  }
+  return false;
+}
+function commentsOfBytes(bytes, path) {
+  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path));
+}
+
+// src/core/scan/evidence.ts
+var TEST_FOLDER = /(?:^|\/)(?:test|tests|__tests__|spec|specs|e2e|fixtures?|__fixtures__|testdata|test-data|__mocks__|mocks?|stories|__snapshots__)\//i;
+var TEST_FILE = /(?:\.(?:test|spec|stories|e2e|cy)\.[^/]+$|_test\.(?:go|py|rb|exs?)$|(?:^|\/)test_[^/]+\.py$|(?:Tests?|Spec|IT)\.(?:java|kt|cs|swift|scala)$|\.snap$)/;
+var DOCS = /(?:(?:^|\/)(?:docs?|documentation)\/|\.(?:md|mdx|markdown|rst|adoc|txt|html?)$)/i;
+var GENERATED = /(?:(?:^|\/)(?:generated|__generated__|gen|dist|build|out|vendor)\/|\.(?:generated|gen|g|pb|min)\.[^/]+$|\.lock$|-lock\.json$)/i;
+function evidenceKindOf(path) {
+  if (TEST_FOLDER.test(path) || TEST_FILE.test(path)) return "test";
+  if (GENERATED.test(path)) return "generated";
+  if (DOCS.test(path)) return "docs";
+  return "code";
+}
+
+// src/core/scan/name-scan.ts
+var QUOTES2 = /* @__PURE__ */ new Set([34, 39, 96]);
 function looksBinary(bytes) {
   return bytes.subarray(0, 8e3).indexOf(0) !== -1;
 }
@@ -39442,6 +39702,8 @@ function createNameScanner(names, callPatterns = []) {
       }
       files++;
       bytesSeen += bytes.length;
+      const product = evidenceKindOf(path) === "code";
+      let comments;
       let countedTo = 0;
       let line = 1;
       let lineStart = 0;
@@ -39460,9 +39722,18 @@ function createNameScanner(names, callPatterns = []) {
         const here = locate(start, end);
         h.first ??= here;
         const quote = bytes[start - 1];
-        if (quote === void 0 || !QUOTES.has(quote) || bytes[end + 1] !== quote) return;
+        if (quote === void 0 || !QUOTES2.has(quote) || bytes[end + 1] !== quote) return;
+        if (!product) {
+          h.firstMention ??= here;
+          return;
+        }
+        comments ??= commentsOfBytes(bytes, path);
+        if (insideRanges(comments, start)) {
+          h.firstMention ??= here;
+          return;
+        }
         h.firstQuoted ??= here;
-        if (!h.firstCall && callPatterns.length && isLoggedOnLine(bytes, lineStart, unique[name], callPatterns)) h.firstCall = here;
+        if (!h.firstCall && callPatterns.length && isLoggedAt(bytes, lineStart, start - 1, unique[name], callPatterns)) h.firstCall = here;
       });
     },
     results() {
@@ -39473,15 +39744,149 @@ function createNameScanner(names, callPatterns = []) {
     }
   };
 }
-function isLoggedOnLine(bytes, lineStart, name, patterns) {
-  let lineEnd = bytes.indexOf(10, lineStart);
+var CALL_LOOKBACK_LINES = 3;
+function isLoggedAt(bytes, lineStart, quoteAt, name, patterns) {
+  let from = lineStart;
+  for (let n = 0; n < CALL_LOOKBACK_LINES && from > 0; n++) from = from >= 2 ? bytes.lastIndexOf(10, from - 2) + 1 : 0;
+  let lineEnd = bytes.indexOf(10, quoteAt);
   if (lineEnd === -1) lineEnd = bytes.length;
-  const line = Buffer.from(bytes.buffer, bytes.byteOffset + lineStart, lineEnd - lineStart).toString("utf8");
+  const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length);
+  const window = buffer.toString("utf8", from, lineEnd);
+  const quoteIndex = buffer.toString("utf8", from, quoteAt).length;
   for (const pattern of patterns) {
     pattern.lastIndex = 0;
-    for (const match of line.matchAll(pattern)) if (match.groups?.event === name) return true;
+    for (const match of window.matchAll(pattern)) {
+      if (match.groups?.event !== name) continue;
+      if (match.index + match[0].lastIndexOf(name) - 1 === quoteIndex) return true;
+    }
   }
   return false;
+}
+
+// src/core/digest/build-digest.ts
+function estimateSampleReached(entry, today) {
+  if (!entry.plan || !entry.window.start) return void 0;
+  const sizing = sizePlan(entry.plan).metrics[0];
+  const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
+  const daily = entry.plan.design.dailyUnits;
+  if (!headline || daily === void 0) return void 0;
+  const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
+  const days = Math.max(0, inclusiveDays(entry.window.start, end));
+  const enrolled = days * daily * entry.plan.design.trafficShare;
+  return enrolled >= headline.totalUnits;
+}
+function buildDigest(input2) {
+  const { registry: registry2, today, settings } = input2;
+  const items = [];
+  const item = (entry, kind, detail, extra = {}) => items.push({ kind, test: entry.id, title: entry.title, file: entry.file, line: entry.line, detail, ...extra });
+  const soon = addDays(today, settings.digest.endingSoonDays);
+  for (const entry of registry2.entries) {
+    const { start, end } = entry.window;
+    if (entry.state === "live" && end && end < today) {
+      const days = daysBetween(end, today);
+      const reached = estimateSampleReached(entry, today);
+      const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
+      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+    } else if (entry.state === "live" && end && end >= today && end <= soon) {
+      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
+    }
+    if (entry.state === "draft" && start && start < today) {
+      item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
+    }
+    if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
+      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
+    }
+    if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
+      item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
+    }
+  }
+  const running = runningEntries(registry2.entries);
+  const seen = /* @__PURE__ */ new Set();
+  for (const entry of running) {
+    for (const c of findCollisions(entry, running)) {
+      const pair2 = [entry.id, c.other.id].sort().join(" ");
+      if (seen.has(pair2) || c.known) continue;
+      seen.add(pair2);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+    }
+  }
+  const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
+  const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
+  const byOwner = /* @__PURE__ */ new Map();
+  const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
+    const entry = registry2.entries.find((e) => e.id === it.test);
+    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
+  }
+  const counts = {
+    overdue: 0,
+    "ending-soon": 0,
+    "draft-past-start": 0,
+    "long-on-hold": 0,
+    "flag-gone": 0,
+    collision: 0,
+    live: running.length,
+    planned: registry2.entries.filter((e) => e.state === "draft").length,
+    orphanFlags: orphanFlags.length
+  };
+  for (const it of items) counts[it.kind]++;
+  const timeline = registry2.entries.filter((e) => (e.state === "live" || e.state === "draft" || e.state === "on-hold") && e.window.start && e.window.end).map((e) => ({ id: e.id, surface: e.surface.path, start: e.window.start, end: e.window.end, state: e.state, overdue: e.state === "live" && e.window.end < today })).sort((a, b) => a.surface.localeCompare(b.surface) || a.start.localeCompare(b.start));
+  return {
+    today,
+    counts,
+    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
+    orphanFlags,
+    timeline
+  };
+}
+
+// src/run/digest.ts
+function todayIn(timeZone, now) {
+  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+}
+async function flagsInCode(files, settings, skip) {
+  const patterns = flagPatternsOf(settings);
+  const inScope = scanMatcher(settings.scan);
+  const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
+  const found = /* @__PURE__ */ new Map();
+  const texts = await files.readTexts(paths);
+  paths.forEach((path, i) => {
+    const text2 = texts[i];
+    if (text2 === void 0 || text2.includes("\0")) return;
+    const lines = text2.split("\n");
+    lines.forEach((line, n) => {
+      for (const pattern of patterns) {
+        for (const match of line.matchAll(pattern)) {
+          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text2, match.groups.ident) : void 0);
+          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
+        }
+      }
+    });
+  });
+  return found;
+}
+async function digestRepository(options) {
+  const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
+  const { settings } = workspace;
+  const skip = ownFilesOf(workspace);
+  const digest = buildDigest({
+    registry: workspace.registry,
+    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
+    settings,
+    flagsInCode: await flagsInCode(options.files, settings, skip)
+  });
+  return { digest, settings };
+}
+
+// src/run/load-base-plans.ts
+async function loadBaseEntries(change2, settingsPath) {
+  try {
+    const loaded = await loadWorkspace({ files: change2.filesAt("base"), ...settingsPath ? { settingsPath } : {} });
+    return loaded.ok ? loaded.workspace.registry.entries : [];
+  } catch (error62) {
+    if (error62 instanceof UsageError) return [];
+    throw error62;
+  }
 }
 
 // src/run/review-change.ts
@@ -39493,6 +39898,8 @@ async function reviewChange(options) {
   if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
   const { workspace } = loaded;
   const { settings } = workspace;
+  const baseEntries = loadBaseEntries(change2, options.settingsPath);
+  baseEntries.catch(() => void 0);
   const [changed, diffText] = await Promise.all([change2.changedFiles(), change2.diff()]);
   const diffs = parseUnifiedDiff(diffText);
   const changedPaths = new Set(changed.filter((f) => f.status !== "deleted").map((f) => f.path));
@@ -39547,7 +39954,19 @@ async function reviewChange(options) {
     }
   }
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    {
+      settings,
+      pr,
+      linked,
+      invalidPlanFiles,
+      changedPaths: [...changedPaths],
+      touches,
+      registry: workspace.registry,
+      events: scanner.results(),
+      removedEvents,
+      today: options.today ?? todayIn(settings.digest.timeZone, /* @__PURE__ */ new Date()),
+      baseEntries: await baseEntries
+    },
     { base: change2.base, head: change2.head }
   );
   const stats = scanner.stats();
@@ -39567,6 +39986,16 @@ function codeSpan(text2) {
   const fence = "`".repeat(longest + 1);
   const pad = clean.startsWith("`") || clean.endsWith("`") ? " " : "";
   return `${fence}${pad}${clean}${pad}${fence}`;
+}
+
+// src/core/report/plan-amendment.ts
+function planChangeTable(finding) {
+  if (!finding.changes?.length) return "";
+  const rows2 = finding.changes.map((c) => `  | ${codeSpan(c.field)} | ${safeCell(c.before)} | ${safeCell(c.after)} |`);
+  return ["", "", "  | field | at the base commit | in this change |", "  | --- | --- | --- |", ...rows2].join("\n");
+}
+function planChangeLines(finding, clean) {
+  return (finding.changes ?? []).map((c) => `    ${c.field}: ${clean(c.before)} -> ${clean(c.after)}`);
 }
 
 // src/core/report/review-markdown.ts
@@ -39590,7 +40019,7 @@ function where(path, line, options) {
 function findingLine(f, options) {
   const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
   const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}${planChangeTable(f)}`;
 }
 function verdictLine(review) {
   if (review.verdict === "nothing-to-check") return `### ${HEADLINE[review.verdict]}`;
@@ -39733,7 +40162,7 @@ function renderReviewText(review, options) {
   for (const f of review.findings) {
     const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
     out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ""}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`, ...planChangeLines(f, terminalSafe));
   }
   for (const plan of review.plans) {
     out.push("", `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(", "))}) ${plan.file}:${plan.line}`);
@@ -39803,7 +40232,10 @@ var reviewReportSchema = external_exports.object({
       fix: external_exports.string(),
       plan: external_exports.string().optional(),
       file: external_exports.string().optional(),
-      line: external_exports.number().int().positive().optional()
+      line: external_exports.number().int().positive().optional(),
+      changes: external_exports.array(external_exports.object({ field: external_exports.string(), before: external_exports.string(), after: external_exports.string() })).optional().describe("Frozen-plan findings: each changed field of a started test\u2019s plan, as written at the base commit and at head."),
+      amendment: external_exports.object({ date: external_exports.string(), changed: external_exports.string(), reason: external_exports.string() }).optional().describe("plan-amended: the amendment the change records."),
+      dependents: external_exports.array(external_exports.string()).optional().describe("event-removed and test-ended-early: ids of the running tests that depend on what the change removes.")
     })
   ),
   plans: external_exports.array(
@@ -39917,121 +40349,6 @@ function fromJson(value, file2) {
   const body = text2(pr.body, "body");
   const branch = text2(pr.branch ?? headRef, "branch");
   return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
-}
-
-// src/core/digest/build-digest.ts
-function estimateSampleReached(entry, today) {
-  if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = sizePlan(entry.plan).metrics[0];
-  const headline = sizing?.result.ok ? sizing.result.value.headline : void 0;
-  const daily = entry.plan.design.dailyUnits;
-  if (!headline || daily === void 0) return void 0;
-  const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
-  const days = Math.max(0, inclusiveDays(entry.window.start, end));
-  const enrolled = days * daily * entry.plan.design.trafficShare;
-  return enrolled >= headline.totalUnits;
-}
-function buildDigest(input2) {
-  const { registry: registry2, today, settings } = input2;
-  const items = [];
-  const item = (entry, kind, detail, extra = {}) => items.push({ kind, test: entry.id, title: entry.title, file: entry.file, line: entry.line, detail, ...extra });
-  const soon = addDays(today, settings.digest.endingSoonDays);
-  for (const entry of registry2.entries) {
-    const { start, end } = entry.window;
-    if (entry.state === "live" && end && end < today) {
-      const days = daysBetween(end, today);
-      const reached = estimateSampleReached(entry, today);
-      const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
-      item(entry, "overdue", `Past its planned end (${end}) by ${days} day${days === 1 ? "" : "s"}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
-    } else if (entry.state === "live" && end && end >= today && end <= soon) {
-      item(entry, "ending-soon", `Ends on ${end}, in ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"}: prepare the readout.`);
-    }
-    if (entry.state === "draft" && start && start < today) {
-      item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
-    }
-    if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
-    }
-    if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
-      item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
-    }
-  }
-  const running = runningEntries(registry2.entries);
-  const seen = /* @__PURE__ */ new Set();
-  for (const entry of running) {
-    for (const c of findCollisions(entry, running)) {
-      const pair2 = [entry.id, c.other.id].sort().join(" ");
-      if (seen.has(pair2) || c.known) continue;
-      seen.add(pair2);
-      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${c.overlapDays} days` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
-    }
-  }
-  const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
-  const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
-  const byOwner = /* @__PURE__ */ new Map();
-  const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
-  for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
-    const entry = registry2.entries.find((e) => e.id === it.test);
-    for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
-  }
-  const counts = {
-    overdue: 0,
-    "ending-soon": 0,
-    "draft-past-start": 0,
-    "long-on-hold": 0,
-    "flag-gone": 0,
-    collision: 0,
-    live: running.length,
-    planned: registry2.entries.filter((e) => e.state === "draft").length,
-    orphanFlags: orphanFlags.length
-  };
-  for (const it of items) counts[it.kind]++;
-  const timeline = registry2.entries.filter((e) => (e.state === "live" || e.state === "draft" || e.state === "on-hold") && e.window.start && e.window.end).map((e) => ({ id: e.id, surface: e.surface.path, start: e.window.start, end: e.window.end, state: e.state, overdue: e.state === "live" && e.window.end < today })).sort((a, b) => a.surface.localeCompare(b.surface) || a.start.localeCompare(b.start));
-  return {
-    today,
-    counts,
-    owners: [...byOwner].sort(([a], [b]) => a.localeCompare(b)).map(([owner2, list2]) => ({ owner: owner2, items: list2 })),
-    orphanFlags,
-    timeline
-  };
-}
-
-// src/run/digest.ts
-function todayIn(timeZone, now) {
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
-}
-async function flagsInCode(files, settings, skip) {
-  const patterns = flagPatternsOf(settings);
-  const inScope = scanMatcher(settings.scan);
-  const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
-  const found = /* @__PURE__ */ new Map();
-  const texts = await files.readTexts(paths);
-  paths.forEach((path, i) => {
-    const text2 = texts[i];
-    if (text2 === void 0 || text2.includes("\0")) return;
-    const lines = text2.split("\n");
-    lines.forEach((line, n) => {
-      for (const pattern of patterns) {
-        for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text2, match.groups.ident) : void 0);
-          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
-        }
-      }
-    });
-  });
-  return found;
-}
-async function digestRepository(options) {
-  const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
-  const { settings } = workspace;
-  const skip = ownFilesOf(workspace);
-  const digest = buildDigest({
-    registry: workspace.registry,
-    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
-    settings,
-    flagsInCode: await flagsInCode(options.files, settings, skip)
-  });
-  return { digest, settings };
 }
 
 // src/core/report/digest-markdown.ts
@@ -40250,13 +40567,14 @@ function buildProgram(setExit) {
     else output2.out(renderSizingText(outcome.sizing, outcome.context));
     setExit(EXIT.ok);
   });
-  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
+  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").option("--today <date>", "the day to judge running tests by, YYYY-MM-DD (default: today in the settings\u2019 time zone)").action(async (flags) => {
     const options = program2.opts();
     const { output: output2 } = context({ ...options, format: "text" });
     const cwd = resolve2(options.cwd);
+    if (flags.today !== void 0 && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const pr = await pullRequestInfo(flags, cwd);
     const change2 = await openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {} });
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {}, ...flags.today ? { today: flags.today } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
     if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}

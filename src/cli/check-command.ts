@@ -16,6 +16,7 @@ export interface CheckFlags {
   repoUrl?: string;
   format: 'text' | 'json' | 'markdown';
   output?: string;
+  today?: string;
 }
 
 /**

@@ -14,6 +14,8 @@ import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patte
 import type { Problem } from '../core/source/problem.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
+import { todayIn } from './digest.js';
+import { loadBaseEntries } from './load-base-plans.js';
 import { loadWorkspace, ownFilesOf } from './load-workspace.js';
 
 export interface ReviewChangeOptions {
@@ -21,6 +23,8 @@ export interface ReviewChangeOptions {
   settingsPath?: string;
   pr?: PullRequestInfo;
   onProgress?: ProgressReporter;
+  /** The review's day, YYYY-MM-DD; default: today in the settings' time zone by the system clock. */
+  today?: string;
 }
 
 export type ReviewOutcome =
@@ -37,6 +41,9 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   if (!loaded.ok) return { kind: 'settings-invalid', settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
   const { workspace } = loaded;
   const { settings } = workspace;
+  // Running tests are compared with their plans at the base commit.
+  const baseEntries = loadBaseEntries(change, options.settingsPath);
+  baseEntries.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
 
   const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
   const diffs = parseUnifiedDiff(diffText);
@@ -105,7 +112,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }
 
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents },
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents,
+      today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries },
     { base: change.base, head: change.head },
   );
   const stats = scanner.stats();

@@ -9,12 +9,14 @@ import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
+/** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
+const TODAY = '2026-11-16';
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
 
 async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr });
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr, today: TODAY });
   if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
   return outcome.review;
 }
@@ -24,6 +26,8 @@ const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | 
 
 const other = (overrides: Record<string, unknown>) =>
   planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
+
+const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
 
 type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
 
@@ -129,6 +133,32 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
   'bug-fix-unmeasured': {
     trigger: { changes: { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' }, pr: { title: 'fix: totals were off by one', labels: [] } },
     nearMiss: { changes: { 'docs/totals.md': 'Totals are now right.\n' }, pr: { title: 'fix: totals were off by one' } },
+  },
+  'plan-frozen': {
+    trigger: { changes: withPlan(cleanPlan({ metrics: { ...(cleanPlan().metrics as object), primary: { name: 'cart-views', kind: 'proportion', baseline: { rate: 0.3 }, events: ['cart_viewed'] } } })) },
+    // Refining a draft's baseline before its start is fine.
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'draft', window: { start: '2026-11-30', end: '2026-12-27' } })) }),
+      changes: withPlan(cleanPlan({ state: 'draft', window: { start: '2026-11-30', end: '2026-12-27' }, metrics: { ...(cleanPlan().metrics as object), primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.32 }, events: ['order_done'] } } })),
+    },
+  },
+  'plan-amended': {
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.04 }, 'daily-units': 20000 }, amendments: [AMENDMENT] })) },
+    nearMiss: { changes: withPlan(cleanPlan({ title: 'Renamed', amendments: [AMENDMENT] })) },
+  },
+  'plan-deleted': {
+    trigger: { changes: { 'experiments/good.yaml': null } },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', outcome: { date: '2026-11-30', reason: 'Shipped: +2% orders.' } })) }),
+      changes: { 'experiments/good.yaml': null },
+    },
+  },
+  'plan-end-moved': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-12-27' } })) },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })) }),
+      changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-22' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })),
+    },
   },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },

@@ -18,7 +18,7 @@ beforeAll(async () => {
   process.chdir(new URL('.', root).pathname);
   demo = buildDemoChange();
   const pr = JSON.parse(readFileSync(new URL('demo/change/pull-request.json', root), 'utf8'));
-  const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'feature/slot-nudge'), pr });
+  const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'feature/slot-nudge'), pr, today: '2026-12-01' });
   if (outcome.kind !== 'review') throw new Error('demo settings invalid');
   review = outcome.review;
 });

@@ -2,6 +2,7 @@ import type { Check } from '../review/context.js';
 import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
 import { flagWithoutPlan } from './flags.js';
+import { frozenPlans } from './frozen-plan.js';
 import { eventMissing, eventRemoved } from './logging.js';
 import {
   bundleUnexplained,
@@ -19,6 +20,7 @@ import { analysisUnitDiffers, spillover } from './unit.js';
 /** Every check of the pull-request review, in the order their findings are listed. */
 export const CHECKS: readonly Check[] = [
   planInvalid,
+  frozenPlans,
   decisionsMissing,
   reviewMissing,
   eventRemoved,

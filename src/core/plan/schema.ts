@@ -211,6 +211,37 @@ export const populationSchema = z
   .default({ platforms: [], locales: [], regions: [], ready: { platforms: [], locales: [] } })
   .describe('Who is eligible: platforms, locales, regions and segment.');
 
+/**
+ * Once a test has started, what decides its result is frozen. A change to it is allowed only when the same
+ * change appends an amendment saying when, what and why, so reviewers judge it and the readout can cite it.
+ */
+export const amendmentsSchema = z
+  .array(
+    z.strictObject(
+      {
+        date: calendarDate('the date of the amendment written YYYY-MM-DD, e.g. 2026-11-20'),
+        changed: text('what changed, in a sentence, e.g. guardrail order-errors tolerance 1% -> 2%'),
+        reason: text('why the change was needed, in a sentence'),
+      },
+      { error: 'an amendment: { date: 2026-11-20, changed: ..., reason: ... }' },
+    ),
+    { error: 'a list of amendments, each with date, changed and reason' },
+  )
+  .default([])
+  .describe('Changes made after the test started, oldest first: date, what changed and why. Append only.');
+
+/** How the test ended; a concluded test records at least a one-line reason. */
+export const outcomeSchema = z
+  .strictObject(
+    {
+      date: calendarDate('the date the test was decided written YYYY-MM-DD, e.g. 2026-12-01').optional(),
+      reason: text('the decision and why, in a sentence, e.g. shipped: +2.1% orders, guardrails held'),
+    },
+    { error: 'a mapping with date and reason' },
+  )
+  .optional()
+  .describe('The decision once the test is over: when it was made and a one-line reason.');
+
 export const writtenPlanSchema = z
   .strictObject({
     id: planId,
@@ -367,6 +398,8 @@ export const writtenPlanSchema = z
     'bundle-rationale': optionalText('why several changes or flags are tested together').describe(
       'Required when the plan bundles several flags or changes.',
     ),
+    amendments: amendmentsSchema,
+    outcome: outcomeSchema,
     notes: optionalText('free text'),
   }, { error: 'a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics' })
   .describe('A Plumbline experiment plan.');
@@ -435,7 +468,16 @@ export interface Plan {
   decisions: { win?: string; flat?: string; loss?: string; guardrailBreach?: string; launchRegardless?: { reason: string } };
   sensitive: { area: SensitiveArea; review?: string; reference?: string }[];
   bundleRationale?: string;
+  /** Changes made after the start, oldest first. */
+  amendments: Amendment[];
+  outcome?: { date?: string; reason: string };
   notes?: string;
+}
+
+export interface Amendment {
+  date: string;
+  changed: string;
+  reason: string;
 }
 
 function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
@@ -508,6 +550,8 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
     },
     sensitive: written.sensitive,
     ...(written['bundle-rationale'] ? { bundleRationale: written['bundle-rationale'] } : {}),
+    amendments: written.amendments,
+    ...(written.outcome ? { outcome: written.outcome } : {}),
     ...(written.notes ? { notes: written.notes } : {}),
   };
 });

@@ -1,6 +1,7 @@
 import type { PlanReview, Review, Verdict } from '../review/build-review.js';
 import type { Finding, Severity } from '../review/finding.js';
 import { codeSpan, safeCell, safeText } from './markdown-safe.js';
+import { planChangeTable } from './plan-amendment.js';
 import { renderSizingMarkdown } from './sizing.js';
 
 /** The hidden marker that finds our comment again. User text can never contain it: `<` is escaped. */
@@ -36,7 +37,7 @@ function where(path: string | undefined, line: number | undefined, options: Mark
 function findingLine(f: Finding, options: MarkdownOptions): string {
   const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
   const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeText(f.message)} _Fix:_ ${safeText(f.fix)}${planChangeTable(f)}`;
 }
 
 function verdictLine(review: Review): string {

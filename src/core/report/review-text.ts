@@ -1,5 +1,6 @@
 import type { Review } from '../review/build-review.js';
 import type { Severity } from '../review/finding.js';
+import { planChangeLines } from './plan-amendment.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
 
 const LABEL: Record<Severity, string> = { block: 'BLOCK', warn: 'warn ', note: 'note ' };
@@ -24,7 +25,7 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
   for (const f of review.findings) {
     const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ''}: ` : '';
     out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${f.plan}]` : ''}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`, ...planChangeLines(f, terminalSafe));
   }
   for (const plan of review.plans) {
     out.push('', `${style.bold(`Plan ${plan.id}`)} (${plan.state}, ${terminalSafe(plan.owners.join(', '))}) ${plan.file}:${plan.line}`);

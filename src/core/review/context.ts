@@ -1,6 +1,7 @@
 import type { Settings } from '../config/schema.js';
 import type { LoadedPlan } from '../plan/load.js';
 import type { Registry } from '../registry/load.js';
+import type { RegistryEntry } from '../registry/schema.js';
 import type { FlagTouch } from '../scan/flag-touches.js';
 import type { Location, NameHits } from '../scan/name-scan.js';
 import type { Problem } from '../source/problem.js';
@@ -40,6 +41,10 @@ export interface ReviewContext {
   events: ReadonlyMap<string, NameHits>;
   /** Events of running plans that the change deletes from a line (quoted), with where. */
   removedEvents: ReadonlyMap<string, Location>;
+  /** The review's day (YYYY-MM-DD): whether a test has started or passed its planned end. */
+  today: string;
+  /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */
+  baseEntries: readonly RegistryEntry[];
 }
 
 /** A check reads the context and says what it found, at the code's default severity. */

@@ -1,3 +1,6 @@
+import type { FieldChange } from '../plan/compare.js';
+import type { Amendment } from '../plan/schema.js';
+
 /** One thing the review has to say, with where and how to fix it. */
 export type Severity = 'block' | 'warn' | 'note';
 
@@ -12,6 +15,12 @@ export interface Finding {
   plan?: string;
   file?: string;
   line?: number;
+  /** Frozen-plan findings: what changed in a started plan, field by field (before and after as written). */
+  changes?: FieldChange[];
+  /** Frozen-plan findings: the amendment the change adds, when it adds one. */
+  amendment?: Amendment;
+  /** event-removed and test-ended-early: the ids of the running tests that depend on what is removed. */
+  dependents?: string[];
 }
 
 /**
@@ -42,6 +51,10 @@ export const FINDING_CODES = {
   'event-missing': { severity: 'warn', about: 'an event the plan names is not logged in the code' },
   'event-removed': { severity: 'block', about: 'the change removes an event a running test depends on' },
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
+  'plan-frozen': { severity: 'block', about: 'a started test’s plan changes what decides its result without an amendment' },
+  'plan-amended': { severity: 'note', about: 'a started test’s plan changes what decides its result and records why (shown before and after)' },
+  'plan-deleted': { severity: 'block', about: 'the change deletes the plan of a started test that has no outcome' },
+  'plan-end-moved': { severity: 'warn', about: 'a started test’s planned end moves later, or earlier without interim looks' },
   'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 

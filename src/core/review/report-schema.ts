@@ -59,6 +59,12 @@ export const reviewReportSchema = z
         plan: z.string().optional(),
         file: z.string().optional(),
         line: z.number().int().positive().optional(),
+        changes: z
+          .array(z.object({ field: z.string(), before: z.string(), after: z.string() }))
+          .optional()
+          .describe('Frozen-plan findings: each changed field of a started test’s plan, as written at the base commit and at head.'),
+        amendment: z.object({ date: z.string(), changed: z.string(), reason: z.string() }).optional().describe('plan-amended: the amendment the change records.'),
+        dependents: z.array(z.string()).optional().describe('event-removed and test-ended-early: ids of the running tests that depend on what the change removes.'),
       }),
     ),
     plans: z.array(

@@ -1,0 +1,94 @@
+import { execFileSync } from 'node:child_process';
+import { rmSync } from 'node:fs';
+import { afterAll, describe, expect, it } from 'vitest';
+import { openChange } from '../../src/adapters/git.js';
+import type { Review } from '../../src/core/review/build-review.js';
+import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
+import { reviewChange } from '../../src/run/review-change.js';
+import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { baseFiles, cleanPlan, planYaml, CART_CODE_TOUCHED } from './scenarios.js';
+
+// A test that has started: its plan, its flag reads and its events are guarded against silent change.
+
+const made: string[] = [];
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 60_000);
+const TODAY = '2026-11-16';
+
+async function review(files: Record<string, string>, changes: Record<string, string | null>, today = TODAY): Promise<Review> {
+  const repo = makeTwoCommitRepo(files, changes);
+  made.push(repo.root);
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), today });
+  if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
+  return outcome.review;
+}
+
+/** GitHub's own Markdown renderer (cmark-gfm with the table extension), not our parser. */
+const render = (markdown: string) => execFileSync('cmark-gfm', ['-e', 'table', '-e', 'autolink', '-e', 'strikethrough', '-e', 'tagfilter'], { input: markdown, encoding: 'utf8' });
+
+const codes = (r: Review) => r.findings.map((f) => f.code);
+
+describe('frozen plans', () => {
+  it('blocks the cherry-pick: primary switched, tolerance widened, end pushed out, loss rule rewritten', async () => {
+    const metrics = cleanPlan().metrics as { guardrails: Record<string, unknown>[] };
+    const head = cleanPlan({
+      window: { start: '2026-11-02', end: '2026-12-27' },
+      metrics: {
+        primary: { name: 'cart-views', kind: 'proportion', baseline: { rate: 0.3 }, events: ['cart_viewed'] },
+        guardrails: [{ ...metrics.guardrails[0], tolerance: { relative: 2 } }],
+      },
+      decisions: { win: 'Ship.', flat: 'Drop.', loss: 'Ship it anyway.', 'guardrail-breach': 'Stop.' },
+    });
+    const r = await review(baseFiles(), { 'experiments/good.yaml': planYaml(head) });
+    const frozen = r.findings.find((f) => f.code === 'plan-frozen')!;
+    expect(frozen.severity).toBe('block');
+    expect(frozen.changes).toEqual(
+      expect.arrayContaining([
+        { field: 'metrics.primary.name', before: 'bought', after: 'cart-views' },
+        { field: 'metrics.primary.events', before: '[order_done]', after: '[cart_viewed]' },
+        { field: 'metrics.guardrails[errors].tolerance', before: '{ relative: 0.2 }', after: '{ relative: 2 }' },
+        { field: 'decisions.loss', before: 'Drop and study.', after: 'Ship it anyway.' },
+      ]),
+    );
+    expect(r.findings.find((f) => f.code === 'plan-end-moved')?.severity).toBe('warn');
+    expect(r.verdict).toBe('blocked');
+  });
+
+  it('freezes a draft whose start date has passed, but not one that starts later', async () => {
+    const draft = (start: string) => cleanPlan({ state: 'draft', window: { start, end: '2026-12-27' } });
+    const changeAlpha = (start: string) => ({ 'experiments/good.yaml': planYaml({ ...draft(start), design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } }) });
+    expect(codes(await review(baseFiles({ 'experiments/good.yaml': planYaml(draft('2026-11-09')) }), changeAlpha('2026-11-09')))).toContain('plan-frozen');
+    expect(codes(await review(baseFiles({ 'experiments/good.yaml': planYaml(draft('2026-11-30')) }), changeAlpha('2026-11-30')))).not.toContain('plan-frozen');
+  });
+
+  it('lets an amendment through as a note with a before/after table that GitHub renders', async () => {
+    const amendment = { date: '2026-11-16', changed: 'alpha 0.05 -> 0.1', reason: 'A <b>second</b> look @team.' };
+    const head = cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 }, amendments: [amendment] });
+    const r = await review(baseFiles(), { 'experiments/good.yaml': planYaml(head), 'src/cart.ts': CART_CODE_TOUCHED });
+    expect(codes(r)).not.toContain('plan-frozen');
+    const amended = r.findings.find((f) => f.code === 'plan-amended')!;
+    expect(amended.severity).toBe('note');
+    expect(amended.amendment).toEqual(amendment);
+    expect(amended.changes).toEqual([{ field: 'design.alpha', before: '0.05', after: '0.1' }]);
+    const html = render(renderReviewMarkdown(r, {}));
+    expect(html).toContain('<td><code>design.alpha</code></td>\n<td>0.05</td>\n<td>0.1</td>');
+    expect(html).not.toContain('<b>');
+  });
+
+  it('blocks an amendment that rewrites earlier amendments (they are append-only)', async () => {
+    const first = { date: '2026-11-09', changed: 'power 0.8 -> 0.9', reason: 'More traffic.' };
+    const base = cleanPlan({ amendments: [first] });
+    const head = cleanPlan({ amendments: [{ ...first, reason: 'Something else.' }, { date: '2026-11-16', changed: 'x', reason: 'y' }], design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } });
+    const r = await review(baseFiles({ 'experiments/good.yaml': planYaml(base) }), { 'experiments/good.yaml': planYaml(head) });
+    expect(r.findings.find((f) => f.code === 'plan-frozen')?.changes?.map((c) => c.field)).toEqual(['design.alpha', 'amendments']);
+  });
+
+  it('treats registry entries the same way: a changed start blocks, deleting a live entry blocks', async () => {
+    const registry = (start: string) =>
+      `tests:\n  - id: partner-banner\n    title: Partner banner\n    owners: ['@partner']\n    state: live\n    flags: [partner-banner]\n    window: { start: ${start}, end: 2026-11-29 }\n    surface: { path: shop/banner }\n    events: [banner_seen]\n`;
+    const files = baseFiles({ '.plumbline.yml': 'registries: [ops/tests.yaml]\n', 'ops/tests.yaml': registry('2026-11-02') });
+    const moved = await review(files, { 'ops/tests.yaml': registry('2026-11-09') });
+    expect(moved.findings.find((f) => f.code === 'plan-frozen')?.changes).toEqual([{ field: 'window.start', before: '2026-11-02', after: '2026-11-09' }]);
+    const gone = await review(files, { 'ops/tests.yaml': 'tests: []\n' });
+    expect(gone.findings.find((f) => f.code === 'plan-deleted')?.plan).toBe('partner-banner');
+  });
+});

@@ -38984,26 +38984,29 @@ function eventStatuses(context2, planId2) {
   return eventsOfPlan(plan).map((event) => {
     const hits = context2.events.get(event);
     const location2 = hits?.firstCall ?? hits?.firstQuoted;
-    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {} };
+    const mentioned = !location2 && hits?.firstMention ? { mentionedAt: hits.firstMention } : {};
+    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {}, ...mentioned };
   });
 }
 var eventMissing = (context2) => context2.linked.flatMap(
   ({ loaded }) => eventStatuses(context2, loaded.plan.id).filter((s) => !s.location).map((s) => ({
     code: "event-missing",
-    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
+    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head${s.mentionedAt ? ` (only mentioned, in ${s.mentionedAt.file}:${s.mentionedAt.line}, which logs nothing)` : ""}, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
     fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
     plan: loaded.plan.id,
     file: loaded.file,
     line: loaded.line
   }))
 );
-function dependents(entries, event) {
-  return runningEntries(entries).filter((e) => e.events.includes(event));
+function dependents(entries, baseEntries, event) {
+  const byId = /* @__PURE__ */ new Map();
+  for (const e of [...runningEntries(entries), ...runningEntries(baseEntries)]) if (e.events.includes(event) && !byId.has(e.id)) byId.set(e.id, e);
+  return [...byId.values()];
 }
-var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...removedEvents].flatMap(([event, where2]) => {
+var eventRemoved = ({ removedEvents, events, registry: registry2, baseEntries }) => [...removedEvents].flatMap(([event, where2]) => {
   const still = events.get(event);
   if (still?.firstCall || still?.firstQuoted) return [];
-  const plans = dependents(registry2.entries, event);
+  const plans = dependents(registry2.entries, baseEntries, event);
   if (plans.length === 0) return [];
   return [
     {
@@ -39011,7 +39014,8 @@ var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...remov
       message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? "" : "s"} ${plans.map((p) => `${p.id} (${p.owners.join(", ")})`).join(", ")} depend${plans.length === 1 ? "s" : ""} on.`,
       fix: "Keep logging the event, or agree with the owners to end or change those tests first.",
       file: where2.file,
-      line: where2.line
+      line: where2.line,
+      dependents: plans.map((p) => p.id)
     }
   ];
 });
@@ -39450,6 +39454,108 @@ function flagDefinitionTouches(path, before, after) {
   return touches;
 }
 
+// src/core/scan/comments.ts
+var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
+var HASH_AND_SLASH = /\.(?:php)$/i;
+function commentSyntaxOf(path) {
+  if (HASH_ONLY.test(path)) return { slash: false, hash: true };
+  if (HASH_AND_SLASH.test(path)) return { slash: true, hash: true };
+  return { slash: true, hash: false };
+}
+var SLASH = 47;
+var STAR = 42;
+var HASH = 35;
+var NEWLINE = 10;
+var BACKSLASH = 92;
+var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+function commentRanges(length, at, syntax) {
+  const ranges = [];
+  let i = 0;
+  while (i < length) {
+    const c = at(i);
+    if (QUOTES.has(c)) {
+      const quote = c;
+      i++;
+      while (i < length) {
+        const d = at(i);
+        if (d === BACKSLASH) i += 2;
+        else if (d === quote) break;
+        else if (d === NEWLINE && quote !== 96) break;
+        else i++;
+      }
+      i++;
+    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
+      const start = i;
+      while (i < length && at(i) !== NEWLINE) i++;
+      ranges.push([start, i]);
+    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
+      const start = i;
+      i += 2;
+      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
+      i = Math.min(length, i + 2);
+      ranges.push([start, i]);
+    } else i++;
+  }
+  return ranges;
+}
+function insideRanges(ranges, index) {
+  let lo = 0;
+  let hi = ranges.length - 1;
+  while (lo <= hi) {
+    const mid = lo + hi >> 1;
+    const [start, end] = ranges[mid];
+    if (index < start) hi = mid - 1;
+    else if (index >= end) lo = mid + 1;
+    else return true;
+  }
+  return false;
+}
+function commentsOfText(text2, path) {
+  return commentRanges(text2.length, (i) => text2.charCodeAt(i), commentSyntaxOf(path));
+}
+function commentsOfBytes(bytes, path) {
+  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path));
+}
+
+// src/core/scan/calls.ts
+function lineStarts(text2) {
+  const starts = [0];
+  for (let i = text2.indexOf("\n"); i !== -1; i = text2.indexOf("\n", i + 1)) starts.push(i + 1);
+  return starts;
+}
+function lineIndex(text2) {
+  const starts = lineStarts(text2);
+  return (offset) => {
+    let lo = 0;
+    let hi = starts.length - 1;
+    while (lo < hi) {
+      const mid = lo + hi + 1 >> 1;
+      if (starts[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo + 1;
+  };
+}
+function findCalls(text2, path, patterns) {
+  const comments = commentsOfText(text2, path);
+  const lineOf = lineIndex(text2);
+  const sites = [];
+  for (const pattern of patterns) {
+    pattern.lastIndex = 0;
+    for (const match of text2.matchAll(pattern)) {
+      const start = match.index;
+      if (insideRanges(comments, start)) continue;
+      const end = start + match[0].length;
+      const groups = { ...match.groups ?? {} };
+      const value = groups.key ?? groups.event ?? groups.ident;
+      const valueAt2 = value !== void 0 ? start + match[0].lastIndexOf(value) : start;
+      const line = lineOf(start);
+      sites.push({ groups, line, endLine: lineOf(Math.max(start, end - 1)), valueLine: lineOf(valueAt2), column: start - text2.lastIndexOf("\n", start - 1), start, end });
+    }
+  }
+  return sites.sort((a, b) => a.start - b.start);
+}
+
 // src/core/scan/patterns.ts
 var Q = `(?<q>["'\`])`;
 var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
@@ -39474,7 +39580,7 @@ var BUILTIN_FLAG_PATTERNS = [
   ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
 ];
 var BUILTIN_LOG_PATTERNS = [
-  `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
+  `(?:\\b|\\.)(?:[Tt]rack|[Tt]rackEvent|track_event|[Ll]ogEvent|log_event|[Ee]vent|[Cc]apture|[Ee]mit|[Rr]ecord|[Rr]ecordEvent|record_event)(?:Async)?\\s*\\(\\s*(?:(?:ctx|context|context\\.\\w+\\(\\))\\s*,\\s*)?(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
 ];
 function constantDefinition(name) {
   const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
@@ -39506,20 +39612,31 @@ function findFlagTouches(inputs) {
     if (diff.binary) continue;
     for (const side of ["added", "removed"]) {
       const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
-      for (const { line, text: text2 } of diff[side]) {
-        for (const pattern of inputs.patterns) {
-          pattern.lastIndex = 0;
-          for (const match of text2.matchAll(pattern)) {
-            const groups = match.groups ?? {};
-            if (groups.key) add({ key: groups.key, file: file2, line, side, via: "call" });
-            else if (groups.ident) {
-              const key = resolveConstant(inputs.textOf(side, file2), groups.ident);
-              if (key) add({ key, file: file2, line, side, via: "constant" });
-            }
+      const text2 = inputs.textOf(side, file2);
+      const changed = new Set(diff[side].map((l) => l.line));
+      if (text2 !== void 0) {
+        for (const site of findCalls(text2, file2, inputs.patterns)) {
+          let touched = false;
+          for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
+          if (!touched) continue;
+          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
+          if (key) add({ key, file: file2, line: site.valueLine, side, via: site.groups.key ? "call" : "constant" });
+        }
+      } else {
+        for (const { line, text: lineText } of diff[side]) {
+          for (const pattern of inputs.patterns) {
+            pattern.lastIndex = 0;
+            for (const match of lineText.matchAll(pattern)) if (match.groups?.key) add({ key: match.groups.key, file: file2, line, side, via: "call" });
           }
         }
-        for (const match of text2.matchAll(QUOTED_STRING)) {
-          if (inputs.knownKeys.has(match[2])) add({ key: match[2], file: file2, line, side, via: "literal" });
+      }
+      const comments = text2 !== void 0 ? commentsOfText(text2, file2) : [];
+      const lineStart = text2 !== void 0 ? lineStarts(text2) : [];
+      for (const { line, text: lineText } of diff[side]) {
+        for (const match of lineText.matchAll(QUOTED_STRING)) {
+          if (!inputs.knownKeys.has(match[2])) continue;
+          if (text2 !== void 0 && insideRanges(comments, (lineStart[line - 1] ?? 0) + match.index)) continue;
+          add({ key: match[2], file: file2, line, side, via: "literal" });
         }
       }
     }
@@ -39608,66 +39725,6 @@ function buildAutomaton(names) {
       }
     }
   };
-}
-
-// src/core/scan/comments.ts
-var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
-var HASH_AND_SLASH = /\.(?:php)$/i;
-function commentSyntaxOf(path) {
-  if (HASH_ONLY.test(path)) return { slash: false, hash: true };
-  if (HASH_AND_SLASH.test(path)) return { slash: true, hash: true };
-  return { slash: true, hash: false };
-}
-var SLASH = 47;
-var STAR = 42;
-var HASH = 35;
-var NEWLINE = 10;
-var BACKSLASH = 92;
-var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
-function commentRanges(length, at, syntax) {
-  const ranges = [];
-  let i = 0;
-  while (i < length) {
-    const c = at(i);
-    if (QUOTES.has(c)) {
-      const quote = c;
-      i++;
-      while (i < length) {
-        const d = at(i);
-        if (d === BACKSLASH) i += 2;
-        else if (d === quote) break;
-        else if (d === NEWLINE && quote !== 96) break;
-        else i++;
-      }
-      i++;
-    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
-      const start = i;
-      while (i < length && at(i) !== NEWLINE) i++;
-      ranges.push([start, i]);
-    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
-      const start = i;
-      i += 2;
-      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
-      i = Math.min(length, i + 2);
-      ranges.push([start, i]);
-    } else i++;
-  }
-  return ranges;
-}
-function insideRanges(ranges, index) {
-  let lo = 0;
-  let hi = ranges.length - 1;
-  while (lo <= hi) {
-    const mid = lo + hi >> 1;
-    const [start, end] = ranges[mid];
-    if (index < start) hi = mid - 1;
-    else if (index >= end) lo = mid + 1;
-    else return true;
-  }
-  return false;
-}
-function commentsOfBytes(bytes, path) {
-  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path));
 }
 
 // src/core/scan/evidence.ts
@@ -39853,15 +39910,10 @@ async function flagsInCode(files, settings, skip) {
   paths.forEach((path, i) => {
     const text2 = texts[i];
     if (text2 === void 0 || text2.includes("\0")) return;
-    const lines = text2.split("\n");
-    lines.forEach((line, n) => {
-      for (const pattern of patterns) {
-        for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text2, match.groups.ident) : void 0);
-          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
-        }
-      }
-    });
+    for (const site of findCalls(text2, path, patterns)) {
+      const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
+      if (key && !found.has(key)) found.set(key, { file: path, line: site.valueLine, column: site.column });
+    }
   });
   return found;
 }
@@ -39927,7 +39979,7 @@ async function reviewChange(options) {
     file: file2,
     problems: workspace.problems.filter((p) => p.file === file2)
   }));
-  const running = runningEntries(workspace.registry.entries);
+  const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
   const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
@@ -40265,7 +40317,7 @@ var reviewReportSchema = external_exports.object({
       }),
       power: external_exports.number(),
       window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
-      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
+      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional(), mentionedAt: location.optional() }))
     })
   ),
   flags: external_exports.array(

@@ -82,7 +82,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }));
 
   // One pass over the tracked code at head finds every event any linked or running plan names.
-  const running = runningEntries(workspace.registry.entries);
+  // Running at head or at the base commit: a change that also edits the plan still cuts the data collected so far.
+  const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
   const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);

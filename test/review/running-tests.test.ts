@@ -92,3 +92,68 @@ describe('frozen plans', () => {
     expect(gone.findings.find((f) => f.code === 'plan-deleted')?.plan).toBe('partner-banner');
   });
 });
+
+describe('honest logging evidence', () => {
+  const other = (event: string) =>
+    planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/search' }, exposure: { event } }));
+  const keeper = (extra: Record<string, string> = {}) => baseFiles({ 'experiments/other.yaml': other('keeper_seen'), 'src/keeper.ts': "analytics.track('keeper_seen');\n", ...extra });
+  const removed = (r: Review) => r.findings.find((f) => f.code === 'event-removed');
+
+  it('commenting out the only logging call removes the event', async () => {
+    const r = await review(keeper(), { 'src/keeper.ts': "// analytics.track('keeper_seen');\n" });
+    expect(removed(r)?.severity).toBe('block');
+    expect(removed(r)?.dependents).toEqual(['other']);
+  });
+
+  it('a block comment, a Python comment and a test, a fixture or a document that still quote the name do not keep it', async () => {
+    const r = await review(keeper({ 'src/search.py': 'def f():\n    pass\n' }), {
+      'src/keeper.ts': '/*\n * analytics.track("keeper_seen");\n */\n',
+      'src/search.py': "def f():\n    # track('keeper_seen')\n    pass\n",
+      'test/keeper.test.ts': "expect(events).toContain('keeper_seen');\n",
+      'src/__fixtures__/events.json': '["keeper_seen"]\n',
+      'docs/tracking-plan.md': "| `keeper_seen` | logged when 'keeper_seen' shows |\n",
+    });
+    expect(removed(r)?.dependents).toEqual(['other']);
+  });
+
+  it('removing one of two logging calls is fine', async () => {
+    const r = await review(keeper({ 'src/again.ts': "analytics.track(\n  'keeper_seen',\n  { again: true },\n);\n" }), { 'src/keeper.ts': '// moved to again.ts\n' });
+    expect(removed(r)).toBeUndefined();
+  });
+
+  it('a dependent test is still named when the change also drops the event from its plan', async () => {
+    const r = await review(keeper(), { 'src/keeper.ts': '\n', 'experiments/other.yaml': other('other_seen') });
+    expect(removed(r)?.dependents).toEqual(['other']);
+  });
+
+  it('a logging call in a test file is mentioned, not logged', async () => {
+    const r = await review(baseFiles(), { 'experiments/good.yaml': planYaml(cleanPlan({ exposure: { event: 'cart_seen' } })), 'test/cart.test.ts': "track('cart_seen');\n" });
+    const status = r.plans[0]!.events.find((e) => e.event === 'cart_seen')!;
+    expect(status.location).toBeUndefined();
+    expect(status.mentionedAt).toMatchObject({ file: 'test/cart.test.ts', line: 1 });
+    expect(r.findings.find((f) => f.code === 'event-missing')?.message).toContain('only mentioned, in test/cart.test.ts:1');
+  });
+
+  it('counts logging calls split over lines and written the way Go and C# write method names', async () => {
+    const plan = cleanPlan({ exposure: { event: 'cart_seen' }, metrics: { primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.3 }, events: ['order_go'] }, guardrails: [{ name: 'errors', kind: 'proportion', baseline: { rate: 0.02 }, events: ['error_cs'], direction: 'decrease', tolerance: { relative: 0.2 } }] } });
+    const r = await review(baseFiles(), {
+      'experiments/good.yaml': planYaml(plan),
+      'src/cart.ts': "export function cart(track) {\n  track(\n    'cart_seen',\n    { from: 'cart' },\n  );\n}\n",
+      'svc/orders.go': 'func done(ctx context.Context) {\n\tanalytics.Track(ctx, "order_go")\n}\n',
+      'svc/Errors.cs': 'public void Fail() {\n    telemetry.LogEvent("error_cs");\n}\n',
+    });
+    expect(Object.fromEntries(r.plans[0]!.events.map((e) => [e.event, `${e.via}:${e.location?.file}:${e.location?.line}`]))).toEqual({
+      cart_seen: 'call:src/cart.ts:3',
+      order_go: 'call:svc/orders.go:2',
+      error_cs: 'call:svc/Errors.cs:2',
+    });
+  });
+
+  it('sees a new flag evaluated in a call a formatter split over lines, and not one that is commented out', async () => {
+    const r = await review(baseFiles(), {
+      'src/new.ts': 'export const on = client.getBooleanValue(\n  "split-flag",\n  false,\n);\n// client.getBooleanValue("commented-flag", false);\n',
+    });
+    expect(r.flags.map((f) => `${f.key}:${f.line}`)).toEqual(['split-flag:2']);
+    expect(r.findings.find((f) => f.code === 'flag-without-plan')?.message).toContain('split-flag');
+  });
+});

@@ -94,7 +94,7 @@ export const reviewReportSchema = z
         }),
         power: z.number(),
         window: z.object({ start: z.string().optional(), end: z.string().optional() }),
-        events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional() })),
+        events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional(), mentionedAt: location.optional() })),
       }),
     ),
     flags: z.array(

@@ -15,10 +15,16 @@ export interface CallSite {
   end: number;
 }
 
-/** 1-based line of each offset, by binary search over the line starts. */
-export function lineIndex(text: string): (offset: number) => number {
+/** Offset of the start of each line (index 0 is line 1). */
+export function lineStarts(text: string): number[] {
   const starts = [0];
   for (let i = text.indexOf('\n'); i !== -1; i = text.indexOf('\n', i + 1)) starts.push(i + 1);
+  return starts;
+}
+
+/** 1-based line of each offset, by binary search over the line starts. */
+export function lineIndex(text: string): (offset: number) => number {
+  const starts = lineStarts(text);
   return (offset) => {
     let lo = 0;
     let hi = starts.length - 1;

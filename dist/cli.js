@@ -38800,6 +38800,62 @@ var bugFixUnmeasured = (context2) => {
   ];
 };
 
+// src/core/checks/test-lifecycle.ts
+function hasStarted(entry, today) {
+  if (entry.state === "concluded") return false;
+  if (entry.state === "live" || entry.state === "on-hold") return true;
+  return entry.window.start !== void 0 && entry.window.start <= today;
+}
+function collectingSince(entry, today) {
+  return entry.window.start !== void 0 ? entry.window.start <= today : entry.state === "live" || entry.state === "on-hold";
+}
+function hasOutcome(entry) {
+  return entry.state === "concluded" && (entry.plan === void 0 || entry.plan.outcome !== void 0);
+}
+var ownersOf = (entry) => entry.owners.join(", ");
+
+// src/core/checks/ended-early.ts
+function removedReads(touches) {
+  const removed = /* @__PURE__ */ new Map();
+  for (const t of touches) if (t.side === "removed" && (t.via === "call" || t.via === "constant") && !removed.has(t.key)) removed.set(t.key, t);
+  return removed;
+}
+var stillRead = (context2, key) => {
+  const hits = context2.flagsAtHead.get(key);
+  return hits?.firstCall !== void 0 || hits?.firstQuoted !== void 0;
+};
+function finding(before, after, keys, where2, today) {
+  const flags = keys.map((k) => `\`${k}\``).join(", ");
+  const end = after.window.end;
+  const base = { plan: after.id, file: where2.file, line: where2.line, dependents: [after.id] };
+  if (end !== void 0 && end < today) {
+    return {
+      code: "outcome-missing",
+      message: `This change removes the last read of ${flags}; ${after.id} (${ownersOf(after)}) passed its planned end on ${end}, but its plan records no outcome.`,
+      fix: `Record the outcome in ${after.file}: state: concluded and outcome: { date, reason } with the decision in one line.`,
+      ...base
+    };
+  }
+  const left = end !== void 0 ? `its planned end is ${end}, ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"} away` : "it has no planned end";
+  return {
+    code: "test-ended-early",
+    message: `This change removes the last read of ${flags}, which ${before.state === "live" ? "the running" : "the started"} test ${after.id} (${ownersOf(after)}) randomizes; ${left}. Hard-coding one arm ends the test early, and a result read before its planned end overstates the effect.`,
+    fix: `Keep the flag read until the planned end, or end the test on purpose: set state: concluded with an outcome (date and a one-line reason) in ${after.file}.`,
+    ...base
+  };
+}
+var endedEarly = (context2) => {
+  const removed = removedReads(context2.touches);
+  if (removed.size === 0) return [];
+  const head = new Map(context2.registry.entries.map((e) => [e.id, e]));
+  return context2.baseEntries.filter((before) => hasStarted(before, context2.today)).flatMap((before) => {
+    const gone = before.flags.filter((k) => removed.has(k) && !stillRead(context2, k));
+    const after = head.get(before.id) ?? before;
+    if (gone.length === 0 || hasOutcome(after)) return [];
+    return [finding(before, after, gone, removed.get(gone[0]), context2.today)];
+  });
+};
+
 // src/core/checks/flags.ts
 var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
   const planned = new Set(registry2.entries.flatMap((e) => e.flags));
@@ -38874,20 +38930,6 @@ function changedFields(before, after) {
   }
   return changes;
 }
-
-// src/core/checks/test-lifecycle.ts
-function hasStarted(entry, today) {
-  if (entry.state === "concluded") return false;
-  if (entry.state === "live" || entry.state === "on-hold") return true;
-  return entry.window.start !== void 0 && entry.window.start <= today;
-}
-function collectingSince(entry, today) {
-  return entry.window.start !== void 0 ? entry.window.start <= today : entry.state === "live" || entry.state === "on-hold";
-}
-function hasOutcome(entry) {
-  return entry.state === "concluded" && (entry.plan === void 0 || entry.plan.outcome !== void 0);
-}
-var ownersOf = (entry) => entry.owners.join(", ");
 
 // src/core/checks/frozen-plan.ts
 function appendedAmendments(before, after) {
@@ -39195,6 +39237,7 @@ var CHECKS = [
   decisionsMissing,
   reviewMissing,
   eventRemoved,
+  endedEarly,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,
@@ -39238,6 +39281,8 @@ var FINDING_CODES = {
   "plan-amended": { severity: "note", about: "a started test\u2019s plan changes what decides its result and records why (shown before and after)" },
   "plan-deleted": { severity: "block", about: "the change deletes the plan of a started test that has no outcome" },
   "plan-end-moved": { severity: "warn", about: "a started test\u2019s planned end moves later, or earlier without interim looks" },
+  "test-ended-early": { severity: "block", about: "the change removes the last read of a started test\u2019s flag before its planned end, with no outcome recorded" },
+  "outcome-missing": { severity: "note", about: "the change removes the flag of a test past its planned end whose outcome is not recorded" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -39277,9 +39322,9 @@ function buildReview(context2, change2) {
     });
   }
   const findings = [];
-  for (const finding of raw) {
-    const severity2 = severityFor(finding.code, context2.settings.severity);
-    if (severity2 !== "off") findings.push({ ...finding, severity: severity2 });
+  for (const finding2 of raw) {
+    const severity2 = severityFor(finding2.code, context2.settings.severity);
+    if (severity2 !== "off") findings.push({ ...finding2, severity: severity2 });
   }
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
   const counts = { block: 0, warn: 0, note: 0 };
@@ -39980,13 +40025,14 @@ async function reviewChange(options) {
     problems: workspace.problems.filter((p) => p.file === file2)
   }));
   const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
-  const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  const startedFlags = [...workspace.registry.entries, ...await baseEntries].filter((e) => e.state !== "concluded").flatMap((e) => e.flags);
+  const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
     const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && !isFlagFile(p) && inScope(p));
     let done = 0;
     await change2.streamFiles("head", paths, (path, bytes) => {
       scanner.scanFile(path, bytes);
@@ -40005,6 +40051,7 @@ async function reviewChange(options) {
       }
     }
   }
+  const hits = scanner.results();
   const review = buildReview(
     {
       settings,
@@ -40014,7 +40061,8 @@ async function reviewChange(options) {
       changedPaths: [...changedPaths],
       touches,
       registry: workspace.registry,
-      events: scanner.results(),
+      events: hits,
+      flagsAtHead: hits,
       removedEvents,
       today: options.today ?? todayIn(settings.digest.timeZone, /* @__PURE__ */ new Date()),
       baseEntries: await baseEntries
@@ -40041,13 +40089,13 @@ function codeSpan(text2) {
 }
 
 // src/core/report/plan-amendment.ts
-function planChangeTable(finding) {
-  if (!finding.changes?.length) return "";
-  const rows2 = finding.changes.map((c) => `  | ${codeSpan(c.field)} | ${safeCell(c.before)} | ${safeCell(c.after)} |`);
+function planChangeTable(finding2) {
+  if (!finding2.changes?.length) return "";
+  const rows2 = finding2.changes.map((c) => `  | ${codeSpan(c.field)} | ${safeCell(c.before)} | ${safeCell(c.after)} |`);
   return ["", "", "  | field | at the base commit | in this change |", "  | --- | --- | --- |", ...rows2].join("\n");
 }
-function planChangeLines(finding, clean) {
-  return (finding.changes ?? []).map((c) => `    ${c.field}: ${clean(c.before)} -> ${clean(c.after)}`);
+function planChangeLines(finding2, clean) {
+  return (finding2.changes ?? []).map((c) => `    ${c.field}: ${clean(c.before)} -> ${clean(c.after)}`);
 }
 
 // src/core/report/review-markdown.ts

@@ -84,13 +84,16 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   // One pass over the tracked code at head finds every event any linked or running plan names.
   // Running at head or at the base commit: a change that also edits the plan still cuts the data collected so far.
   const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
-  const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  // The same pass finds whether the flags of started tests are still read anywhere.
+  const startedFlags = [...workspace.registry.entries, ...(await baseEntries)].filter((e) => e.state !== 'concluded').flatMap((e) => e.flags);
+  const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
     const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
+    // Flag definition files declare keys; they neither read a flag nor log an event.
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && !isFlagFile(p) && inScope(p));
     let done = 0;
     await change.streamFiles('head', paths, (path, bytes) => {
       scanner.scanFile(path, bytes);
@@ -112,8 +115,9 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     }
   }
 
+  const hits = scanner.results();
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents,
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, removedEvents,
       today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries },
     { base: change.base, head: change.head },
   );

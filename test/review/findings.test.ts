@@ -29,6 +29,9 @@ const other = (overrides: Record<string, unknown>) =>
 
 const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
 
+/** The cart with the winning arm hard-coded: the flag read is gone. */
+const HARD_CODED_CART = CART_CODE.replace("if (client.getBooleanValue('good-flag', false)) {", 'if (true) {');
+
 type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
 
 // For every finding code: a scenario that must raise it, and a near miss that must not.
@@ -158,6 +161,17 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     nearMiss: {
       files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })) }),
       changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-22' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })),
+    },
+  },
+  'test-ended-early': {
+    trigger: { changes: { 'src/cart.ts': HARD_CODED_CART } },
+    nearMiss: { changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', outcome: { date: '2026-11-16', reason: 'Stopped: checkout errors doubled.' } })) } },
+  },
+  'outcome-missing': {
+    trigger: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }), changes: { 'src/cart.ts': HARD_CODED_CART } },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }),
+      changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', window: { start: '2026-10-05', end: '2026-11-01' }, outcome: { date: '2026-11-03', reason: 'Shipped: +2% orders.' } })) },
     },
   },
   'severity-unknown-code': {

@@ -6,7 +6,7 @@ import type { Review } from '../../src/core/review/build-review.js';
 import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, cleanPlan, planYaml, CART_CODE_TOUCHED } from './scenarios.js';
+import { baseFiles, cleanPlan, planYaml, CART_CODE, CART_CODE_TOUCHED } from './scenarios.js';
 
 // A test that has started: its plan, its flag reads and its events are guarded against silent change.
 
@@ -155,5 +155,21 @@ describe('honest logging evidence', () => {
     });
     expect(r.flags.map((f) => `${f.key}:${f.line}`)).toEqual(['split-flag:2']);
     expect(r.findings.find((f) => f.code === 'flag-without-plan')?.message).toContain('split-flag');
+  });
+});
+
+describe('a test ended early', () => {
+  const hardCoded = CART_CODE.replace("if (client.getBooleanValue('good-flag', false)) {", 'if (true) {');
+  it('blocks when the last read goes, naming the days left; a read left only in a comment or a test does not count', async () => {
+    const r = await review(baseFiles(), { 'src/cart.ts': `${hardCoded}// client.getBooleanValue('good-flag', false)\n`, 'test/cart.test.ts': "client.getBooleanValue('good-flag', false);\n" });
+    const ended = r.findings.find((f) => f.code === 'test-ended-early')!;
+    expect(ended.severity).toBe('block');
+    expect(ended.message).toContain('its planned end is 2026-11-29, 13 days away');
+    expect(ended.dependents).toEqual(['good']);
+  });
+
+  it('is quiet when another read of the flag remains', async () => {
+    const r = await review(baseFiles({ 'src/banner.ts': "export const banner = (client) => client.getBooleanValue('good-flag', false);\n" }), { 'src/cart.ts': hardCoded });
+    expect(codes(r)).not.toContain('test-ended-early');
   });
 });

@@ -1,6 +1,7 @@
 import type { Check } from '../review/context.js';
 import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
+import { endedEarly } from './ended-early.js';
 import { flagWithoutPlan } from './flags.js';
 import { frozenPlans } from './frozen-plan.js';
 import { eventMissing, eventRemoved } from './logging.js';
@@ -24,6 +25,7 @@ export const CHECKS: readonly Check[] = [
   decisionsMissing,
   reviewMissing,
   eventRemoved,
+  endedEarly,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,

@@ -62506,6 +62506,302 @@ var endedEarly = (context3) => {
   });
 };
 
+// src/core/scan/comments.ts
+var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
+var HASH_AND_SLASH = /\.(?:php)$/i;
+function commentSyntaxOf(path6) {
+  if (HASH_ONLY.test(path6)) return { slash: false, hash: true };
+  if (HASH_AND_SLASH.test(path6)) return { slash: true, hash: true };
+  return { slash: true, hash: false };
+}
+var SLASH = 47;
+var STAR = 42;
+var HASH = 35;
+var NEWLINE = 10;
+var BACKSLASH = 92;
+var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+function commentRanges(length, at, syntax) {
+  const ranges = [];
+  let i = 0;
+  while (i < length) {
+    const c = at(i);
+    if (QUOTES.has(c)) {
+      const quote = c;
+      i++;
+      while (i < length) {
+        const d = at(i);
+        if (d === BACKSLASH) i += 2;
+        else if (d === quote) break;
+        else if (d === NEWLINE && quote !== 96) break;
+        else i++;
+      }
+      i++;
+    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
+      const start = i;
+      while (i < length && at(i) !== NEWLINE) i++;
+      ranges.push([start, i]);
+    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
+      const start = i;
+      i += 2;
+      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
+      i = Math.min(length, i + 2);
+      ranges.push([start, i]);
+    } else i++;
+  }
+  return ranges;
+}
+function insideRanges(ranges, index) {
+  let lo = 0;
+  let hi = ranges.length - 1;
+  while (lo <= hi) {
+    const mid = lo + hi >> 1;
+    const [start, end] = ranges[mid];
+    if (index < start) hi = mid - 1;
+    else if (index >= end) lo = mid + 1;
+    else return true;
+  }
+  return false;
+}
+function commentsOfText(text2, path6) {
+  return commentRanges(text2.length, (i) => text2.charCodeAt(i), commentSyntaxOf(path6));
+}
+function commentsOfBytes(bytes, path6) {
+  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path6));
+}
+
+// src/core/scan/calls.ts
+function lineStarts(text2) {
+  const starts = [0];
+  for (let i = text2.indexOf("\n"); i !== -1; i = text2.indexOf("\n", i + 1)) starts.push(i + 1);
+  return starts;
+}
+function lineIndex(text2) {
+  const starts = lineStarts(text2);
+  return (offset) => {
+    let lo = 0;
+    let hi = starts.length - 1;
+    while (lo < hi) {
+      const mid = lo + hi + 1 >> 1;
+      if (starts[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo + 1;
+  };
+}
+function findCalls(text2, path6, patterns) {
+  const comments = commentsOfText(text2, path6);
+  const lineOf = lineIndex(text2);
+  const sites = [];
+  for (const pattern of patterns) {
+    pattern.lastIndex = 0;
+    for (const match of text2.matchAll(pattern)) {
+      const start = match.index;
+      if (insideRanges(comments, start)) continue;
+      const end = start + match[0].length;
+      const groups2 = { ...match.groups ?? {} };
+      const value = groups2.key ?? groups2.event ?? groups2.ident;
+      const valueAt2 = value !== void 0 ? start + match[0].lastIndexOf(value) : start;
+      const line = lineOf(start);
+      sites.push({ groups: groups2, line, endLine: lineOf(Math.max(start, end - 1)), valueLine: lineOf(valueAt2), column: start - text2.lastIndexOf("\n", start - 1), start, end });
+    }
+  }
+  return sites.sort((a, b) => a.start - b.start);
+}
+
+// src/core/scan/evidence.ts
+var TEST_FOLDER = /(?:^|\/)(?:test|tests|__tests__|spec|specs|e2e|fixtures?|__fixtures__|testdata|test-data|__mocks__|mocks?|stories|__snapshots__)\//i;
+var TEST_FILE = /(?:\.(?:test|spec|stories|e2e|cy)\.[^/]+$|_test\.(?:go|py|rb|exs?)$|(?:^|\/)test_[^/]+\.py$|(?:Tests?|Spec|IT)\.(?:java|kt|cs|swift|scala)$|\.snap$)/;
+var DOCS = /(?:(?:^|\/)(?:docs?|documentation)\/|\.(?:md|mdx|markdown|rst|adoc|txt|html?)$)/i;
+var GENERATED = /(?:(?:^|\/)(?:generated|__generated__|gen|dist|build|out|vendor)\/|\.(?:generated|gen|g|pb|min)\.[^/]+$|\.lock$|-lock\.json$)/i;
+function evidenceKindOf(path6) {
+  if (TEST_FOLDER.test(path6) || TEST_FILE.test(path6)) return "test";
+  if (GENERATED.test(path6)) return "generated";
+  if (DOCS.test(path6)) return "docs";
+  return "code";
+}
+
+// src/core/scan/code-blocks.ts
+var CONTROL = /^(?:else\b|if\b|for\b|while\b|switch\b|catch\b|try\b|do\b|finally\b|case\b|elif\b|except\b|with\b|match\b)/;
+var FUNCTION_HEADER = /(?:\bfunction\b|=>\s*$|\bfunc\b|\bfn\b|\bdef\b|\)\s*(?::\s*[^=;{]+)?(?:\s*throws\s+[\w.,\s]+)?\s*$)/;
+var isPython = (path6) => /\.pyi?$/i.test(path6);
+function blocksOf(text2, path6) {
+  return isPython(path6) ? indentBlocks(text2) : braceBlocks(text2, path6);
+}
+function braceBlocks(text2, path6) {
+  const comments = commentsOfText(text2, path6);
+  const blocks = [];
+  const stack = [];
+  let quote;
+  for (let i = 0; i < text2.length; i++) {
+    const c = text2[i];
+    if (quote) {
+      if (c === "\\") i++;
+      else if (c === quote || c === "\n" && quote !== "`") quote = void 0;
+      continue;
+    }
+    if (insideRanges(comments, i)) continue;
+    if (c === '"' || c === "'" || c === "`") quote = c;
+    else if (c === "{") stack.push(i);
+    else if (c === "}" && stack.length) {
+      const open3 = stack.pop();
+      blocks.push({ open: open3, close: i, ...headerBefore(text2, open3) });
+    }
+  }
+  return blocks.sort((a, b) => a.open - b.open);
+}
+function headerBefore(text2, open3) {
+  let start = open3 - 1;
+  while (start >= 0 && !";{}".includes(text2[start])) start--;
+  return { header: text2.slice(start + 1, open3).replace(/\s+/g, " ").trim(), headerStart: start + 1 };
+}
+function indentBlocks(text2) {
+  const lines = text2.split("\n");
+  const offsets = [];
+  let at = 0;
+  for (const line of lines) {
+    offsets.push(at);
+    at += line.length + 1;
+  }
+  const indent = (line) => line.length - line.trimStart().length;
+  const blocks = [];
+  lines.forEach((line, n) => {
+    const trimmed = line.trim();
+    if (!trimmed.endsWith(":") || trimmed.startsWith("#")) return;
+    const own2 = indent(line);
+    let end = n + 1;
+    for (let k = n + 1; k < lines.length; k++) {
+      if (lines[k].trim() === "" || lines[k].trim().startsWith("#")) continue;
+      if (indent(lines[k]) <= own2) break;
+      end = k + 1;
+    }
+    blocks.push({ open: offsets[n] + line.length, close: (offsets[end - 1] ?? 0) + (lines[end - 1]?.length ?? 0), header: trimmed.slice(0, -1), headerStart: offsets[n] });
+  });
+  return blocks;
+}
+function enclosing(blocks, offset) {
+  return blocks.filter((b) => b.open < offset && offset <= b.close);
+}
+var isFunctionHeader = (header) => !CONTROL.test(header) && FUNCTION_HEADER.test(header);
+var isControlHeader = (header) => CONTROL.test(header);
+function enclosingFunction(blocks, offset) {
+  return enclosing(blocks, offset).filter((b) => isFunctionHeader(b.header)).at(-1);
+}
+
+// src/core/scan/exposure-branch.ts
+function assignedName(text2, read) {
+  const before = text2.slice(text2.lastIndexOf("\n", read.start - 1) + 1, read.start);
+  return /(?:^|[^\w$.])([A-Za-z_$][\w$]*)\s*(?::\s*[^=]+)?\s*:?=\s*(?:await\s+)?[\w$.]*$/.exec(before)?.[1];
+}
+function conditionsOf(text2, blocks, block) {
+  const chain = [block];
+  let current = block;
+  while (/^else\b/.test(current.header)) {
+    const previous = blocks.filter((b) => b.close < current.open && /^[\s}]*$/.test(text2.slice(b.close + 1, current.open).replace(/\belse\b/, ""))).at(-1);
+    if (!previous) break;
+    chain.push(previous);
+    current = previous;
+  }
+  return chain;
+}
+function exposureInOneArm(text2, path6, reads, exposures) {
+  if (reads.length === 0 || exposures.length === 0) return [];
+  const blocks = blocksOf(text2, path6);
+  const lineOf = lineIndex(text2);
+  const lineText = (offset) => {
+    const start = text2.lastIndexOf("\n", offset - 1) + 1;
+    const end = text2.indexOf("\n", offset);
+    return text2.slice(start, end === -1 ? text2.length : end).trim();
+  };
+  const at = (offset) => ({ line: lineOf(offset), text: lineText(offset) });
+  const found = [];
+  for (const log of exposures) {
+    const fn = enclosingFunction(blocks, log.start);
+    const read = reads.filter((r) => r.start < log.start && enclosingFunction(blocks, r.start) === fn).at(-1);
+    if (!read) continue;
+    const name = assignedName(text2, read);
+    const named = name !== void 0 ? new RegExp(`(?<![\\w$.])${name.replace(/\$/g, "\\$")}(?![\\w$])`) : void 0;
+    const mentions = (b) => read.start >= b.headerStart && read.start < b.open || (named?.test(b.header) ?? false);
+    const inner = enclosing(blocks, log.start).filter((b) => (!fn || b.open > fn.open) && isControlHeader(b.header));
+    const branch = inner.map((b) => conditionsOf(text2, blocks, b).find(mentions)).find((b) => b !== void 0);
+    if (branch) {
+      found.push({ kind: "branch", exposure: at(log.start), flag: at(read.start), condition: at(Math.max(branch.headerStart, branch.open - 1)) });
+      continue;
+    }
+    const between = text2.slice(read.end, log.start);
+    const condition = name ?? "";
+    const oneLine = new RegExp(`\\bif\\b[^\\n]*(?<![\\w$.])${condition.replace(/\$/g, "\\$")}(?![\\w$])[^\\n]*?(?:\\)|:)\\s*(?:\\{\\s*)?(?:\\n\\s*)?(?:return|throw|raise)\\b`);
+    const early = name ? oneLine.exec(between) : null;
+    if (early) found.push({ kind: "early-return", exposure: at(log.start), flag: at(read.start), condition: at(read.end + early.index) });
+  }
+  return found;
+}
+
+// src/core/scan/patterns.ts
+var Q = `(?<q>["'\`])`;
+var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
+var IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
+var TYPES = "(?:Boolean|String|Number|Integer|Int|Double|Float|Object)";
+var TYPES_SNAKE = "(?:boolean|string|number|integer|float|object)";
+var either = (prefix) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
+var BUILTIN_FLAG_PATTERNS = [
+  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
+  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
+  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
+  // Python: client.get_boolean_value("key", False)
+  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
+  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
+  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
+  // The first argument is the context: a name or a call without arguments (context.Background()).
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
+  // React: useBooleanFlagValue('key', false), useFlag('key', default)
+  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
+  // Helpers many codebases write around their flag client.
+  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
+];
+var BUILTIN_LOG_PATTERNS = [
+  `(?:\\b|\\.)(?:[Tt]rack|[Tt]rackEvent|track_event|[Ll]ogEvent|log_event|[Ee]vent|[Cc]apture|[Ee]mit|[Rr]ecord|[Rr]ecordEvent|record_event)(?:Async)?\\s*\\(\\s*(?:(?:ctx|context|context\\.\\w+\\(\\))\\s*,\\s*)?(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
+];
+function constantDefinition(name) {
+  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
+}
+var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
+function compilePatterns(patterns) {
+  return patterns.map((p) => new RegExp(p, "gu"));
+}
+function flagPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+}
+function logPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
+}
+
+// src/core/checks/exposure-arms.ts
+var exposureOneArm = (context3) => {
+  const flagPatterns = flagPatternsOf(context3.settings);
+  const logPatterns = logPatternsOf(context3.settings);
+  return context3.linked.flatMap(({ loaded }) => {
+    const { plan } = loaded;
+    const event = plan.exposure.event;
+    if (!event) return [];
+    const keys = new Set(plan.flags);
+    return [...context3.codeAtHead].flatMap(([path6, text2]) => {
+      if (evidenceKindOf(path6) !== "code" || !text2.includes(event)) return [];
+      const reads = findCalls(text2, path6, flagPatterns).filter((s) => s.groups.key !== void 0 && keys.has(s.groups.key));
+      const exposures = findCalls(text2, path6, logPatterns).filter((s) => s.groups.event === event);
+      return exposureInOneArm(text2, path6, reads, exposures).map((found) => ({
+        code: "exposure-one-arm",
+        message: `Exposure event \`${event}\` is logged ${found.kind === "branch" ? "inside a branch on" : "after an early return on"} the value of ${plan.flags.map((f) => `\`${f}\``).join(", ")}, so some arms never log it: line ${found.flag.line} \`${found.flag.text}\`, line ${found.condition.line} \`${found.condition.text}\`, line ${found.exposure.line} \`${found.exposure.text}\`. The arms are then compared over different people (a classic cause of sample ratio mismatch).`,
+        fix: "Log exposure where the arms first differ, in every arm, control included: right after the flag is read, before any branch or return on its value.",
+        plan: plan.id,
+        file: path6,
+        line: found.exposure.line
+      }));
+    });
+  });
+};
+
 // src/core/checks/flags.ts
 var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
   const planned = new Set(registry2.entries.flatMap((e) => e.flags));
@@ -63134,6 +63430,7 @@ var CHECKS = [
   analysisUnitDiffers,
   collisionCheck,
   eventMissing,
+  exposureOneArm,
   bugFixUnmeasured
 ];
 
@@ -63204,6 +63501,7 @@ var FINDING_CODES = {
   "plan-end-moved": { severity: "warn", about: "a started test\u2019s planned end moves later, or earlier without interim looks" },
   "test-ended-early": { severity: "block", about: "the change removes the last read of a started test\u2019s flag before its planned end, with no outcome recorded" },
   "outcome-missing": { severity: "note", about: "the change removes the flag of a test past its planned end whose outcome is not recorded" },
+  "exposure-one-arm": { severity: "warn", about: "the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -63215,7 +63513,7 @@ var CHECKLIST = [
   { label: "One primary metric and at least one guardrail", codes: ["guardrails-missing"] },
   { label: "Planned end, at least a week, in whole weeks", codes: ["end-missing", "window-short", "window-partial-week"] },
   { label: "Enough power by the planned end", codes: ["underpowered", "sizing-incomplete", "sizing-impossible"] },
-  { label: "Exposure logged where the change is seen", codes: ["exposure-diluted"] },
+  { label: "Exposure logged in every arm where the change is seen (the logging call read against the flag read, not only the plan\u2019s reach)", codes: ["exposure-diluted", "exposure-one-arm"] },
   { label: "Randomization unit fits the surface", codes: ["spillover"] },
   { label: "No collision with a running test", codes: ["collision"] },
   { label: "Every event the plan names is logged in the code", codes: ["event-missing"] },
@@ -63420,149 +63718,6 @@ function flagDefinitionTouches(path6, before, after) {
   return touches;
 }
 
-// src/core/scan/comments.ts
-var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
-var HASH_AND_SLASH = /\.(?:php)$/i;
-function commentSyntaxOf(path6) {
-  if (HASH_ONLY.test(path6)) return { slash: false, hash: true };
-  if (HASH_AND_SLASH.test(path6)) return { slash: true, hash: true };
-  return { slash: true, hash: false };
-}
-var SLASH = 47;
-var STAR = 42;
-var HASH = 35;
-var NEWLINE = 10;
-var BACKSLASH = 92;
-var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
-function commentRanges(length, at, syntax) {
-  const ranges = [];
-  let i = 0;
-  while (i < length) {
-    const c = at(i);
-    if (QUOTES.has(c)) {
-      const quote = c;
-      i++;
-      while (i < length) {
-        const d = at(i);
-        if (d === BACKSLASH) i += 2;
-        else if (d === quote) break;
-        else if (d === NEWLINE && quote !== 96) break;
-        else i++;
-      }
-      i++;
-    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
-      const start = i;
-      while (i < length && at(i) !== NEWLINE) i++;
-      ranges.push([start, i]);
-    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
-      const start = i;
-      i += 2;
-      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
-      i = Math.min(length, i + 2);
-      ranges.push([start, i]);
-    } else i++;
-  }
-  return ranges;
-}
-function insideRanges(ranges, index) {
-  let lo = 0;
-  let hi = ranges.length - 1;
-  while (lo <= hi) {
-    const mid = lo + hi >> 1;
-    const [start, end] = ranges[mid];
-    if (index < start) hi = mid - 1;
-    else if (index >= end) lo = mid + 1;
-    else return true;
-  }
-  return false;
-}
-function commentsOfText(text2, path6) {
-  return commentRanges(text2.length, (i) => text2.charCodeAt(i), commentSyntaxOf(path6));
-}
-function commentsOfBytes(bytes, path6) {
-  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path6));
-}
-
-// src/core/scan/calls.ts
-function lineStarts(text2) {
-  const starts = [0];
-  for (let i = text2.indexOf("\n"); i !== -1; i = text2.indexOf("\n", i + 1)) starts.push(i + 1);
-  return starts;
-}
-function lineIndex(text2) {
-  const starts = lineStarts(text2);
-  return (offset) => {
-    let lo = 0;
-    let hi = starts.length - 1;
-    while (lo < hi) {
-      const mid = lo + hi + 1 >> 1;
-      if (starts[mid] <= offset) lo = mid;
-      else hi = mid - 1;
-    }
-    return lo + 1;
-  };
-}
-function findCalls(text2, path6, patterns) {
-  const comments = commentsOfText(text2, path6);
-  const lineOf = lineIndex(text2);
-  const sites = [];
-  for (const pattern of patterns) {
-    pattern.lastIndex = 0;
-    for (const match of text2.matchAll(pattern)) {
-      const start = match.index;
-      if (insideRanges(comments, start)) continue;
-      const end = start + match[0].length;
-      const groups2 = { ...match.groups ?? {} };
-      const value = groups2.key ?? groups2.event ?? groups2.ident;
-      const valueAt2 = value !== void 0 ? start + match[0].lastIndexOf(value) : start;
-      const line = lineOf(start);
-      sites.push({ groups: groups2, line, endLine: lineOf(Math.max(start, end - 1)), valueLine: lineOf(valueAt2), column: start - text2.lastIndexOf("\n", start - 1), start, end });
-    }
-  }
-  return sites.sort((a, b) => a.start - b.start);
-}
-
-// src/core/scan/patterns.ts
-var Q = `(?<q>["'\`])`;
-var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
-var IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
-var TYPES = "(?:Boolean|String|Number|Integer|Int|Double|Float|Object)";
-var TYPES_SNAKE = "(?:boolean|string|number|integer|float|object)";
-var either = (prefix) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
-var BUILTIN_FLAG_PATTERNS = [
-  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
-  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
-  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
-  // Python: client.get_boolean_value("key", False)
-  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
-  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
-  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
-  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
-  // The first argument is the context: a name or a call without arguments (context.Background()).
-  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
-  // React: useBooleanFlagValue('key', false), useFlag('key', default)
-  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
-  // Helpers many codebases write around their flag client.
-  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
-];
-var BUILTIN_LOG_PATTERNS = [
-  `(?:\\b|\\.)(?:[Tt]rack|[Tt]rackEvent|track_event|[Ll]ogEvent|log_event|[Ee]vent|[Cc]apture|[Ee]mit|[Rr]ecord|[Rr]ecordEvent|record_event)(?:Async)?\\s*\\(\\s*(?:(?:ctx|context|context\\.\\w+\\(\\))\\s*,\\s*)?(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
-];
-function constantDefinition(name) {
-  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
-  return new RegExp(`(?:^|[^\\w$.])${escaped}\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "mu");
-}
-var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
-function compilePatterns(patterns) {
-  return patterns.map((p) => new RegExp(p, "gu"));
-}
-function flagPatternsOf(settings) {
-  return compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
-}
-function logPatternsOf(settings) {
-  return compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
-}
-
 // src/core/scan/flag-touches.ts
 function findFlagTouches(inputs) {
   const touches = [];
@@ -63691,18 +63846,6 @@ function buildAutomaton(names) {
       }
     }
   };
-}
-
-// src/core/scan/evidence.ts
-var TEST_FOLDER = /(?:^|\/)(?:test|tests|__tests__|spec|specs|e2e|fixtures?|__fixtures__|testdata|test-data|__mocks__|mocks?|stories|__snapshots__)\//i;
-var TEST_FILE = /(?:\.(?:test|spec|stories|e2e|cy)\.[^/]+$|_test\.(?:go|py|rb|exs?)$|(?:^|\/)test_[^/]+\.py$|(?:Tests?|Spec|IT)\.(?:java|kt|cs|swift|scala)$|\.snap$)/;
-var DOCS = /(?:(?:^|\/)(?:docs?|documentation)\/|\.(?:md|mdx|markdown|rst|adoc|txt|html?)$)/i;
-var GENERATED = /(?:(?:^|\/)(?:generated|__generated__|gen|dist|build|out|vendor)\/|\.(?:generated|gen|g|pb|min)\.[^/]+$|\.lock$|-lock\.json$)/i;
-function evidenceKindOf(path6) {
-  if (TEST_FOLDER.test(path6) || TEST_FILE.test(path6)) return "test";
-  if (GENERATED.test(path6)) return "generated";
-  if (DOCS.test(path6)) return "docs";
-  return "code";
 }
 
 // src/core/scan/name-scan.ts
@@ -64616,6 +64759,9 @@ async function reviewChange(options) {
     }
   }
   const hits = scanner.results();
+  const codeAtHead = new Map([...textAt.added].filter((entry) => entry[1] !== void 0));
+  const exposureFiles = [...new Set(linked.flatMap((l) => l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : []))].filter((f) => f !== void 0 && !codeAtHead.has(f));
+  (await head.readTexts(exposureFiles)).forEach((text2, i) => text2 !== void 0 && codeAtHead.set(exposureFiles[i], text2));
   const review = buildReview(
     {
       settings,
@@ -64627,6 +64773,7 @@ async function reviewChange(options) {
       registry: workspace.registry,
       events: hits,
       flagsAtHead: hits,
+      codeAtHead,
       removedEvents,
       today: options.today ?? todayIn(settings.digest.timeZone, /* @__PURE__ */ new Date()),
       baseEntries: await baseEntries

@@ -116,8 +116,12 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }
 
   const hits = scanner.results();
+  // Code at head for the checks that read whole functions: changed files, and where linked plans log exposure.
+  const codeAtHead = new Map([...textAt.added].filter((entry): entry is [string, string] => entry[1] !== undefined));
+  const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
+  (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, removedEvents,
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
       today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries },
     { base: change.base, head: change.head },
   );

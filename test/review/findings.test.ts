@@ -174,6 +174,11 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
       changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', window: { start: '2026-10-05', end: '2026-11-01' }, outcome: { date: '2026-11-03', reason: 'Shipped: +2% orders.' } })) },
     },
   },
+  'exposure-one-arm': {
+    trigger: { changes: withPlan(cleanPlan(), { 'src/cart.ts': "export function cart(client, track) {\n  if (client.getBooleanValue('good-flag', true)) {\n    track('cart_viewed');\n    track('order_done');\n  }\n  track('cart_error');\n}\n" }) },
+    // Logged before the branch: every arm logs it.
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },

@@ -173,3 +173,25 @@ describe('a test ended early', () => {
     expect(codes(r)).not.toContain('test-ended-early');
   });
 });
+
+describe('exposure in every arm', () => {
+  const plan = planYaml(cleanPlan());
+  it('warns on an early return on the control value, quoting the lines, and unticks the checklist item', async () => {
+    const code = "export function cart(client, track) {\n  const arm = client.getStringValue('good-flag', 'control');\n  if (arm === 'control') return;\n  track('cart_viewed');\n  track('order_done');\n  track('cart_error');\n}\n";
+    const r = await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': code });
+    const found = r.findings.find((f) => f.code === 'exposure-one-arm')!;
+    expect(found).toMatchObject({ severity: 'warn', file: 'src/cart.ts', line: 4 });
+    expect(found.message).toContain("line 3 `if (arm === 'control') return;`");
+    expect(found.fix).toContain('in every arm, control included');
+    expect(r.plans[0]!.checklist.find((i) => i.label.startsWith('Exposure'))?.done).toBe(false);
+  });
+
+  it('warns for the else branch and in Python; an unrelated branch is fine', async () => {
+    const elseBranch = "export function cart(client, track) {\n  const on = client.getBooleanValue('good-flag', false);\n  if (on) {\n    track('order_done');\n  } else {\n    track('cart_viewed');\n  }\n  track('cart_error');\n}\n";
+    expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': elseBranch }))).toContain('exposure-one-arm');
+    const python = "def cart(client, track):\n    on = client.get_boolean_value('good-flag', False)\n    if not on:\n        return None\n    track('cart_viewed')\n    track('order_done')\n    track('cart_error')\n";
+    expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': null, 'src/cart.py': python }))).toContain('exposure-one-arm');
+    const unrelated = "export function cart(client, user, track) {\n  const on = client.getBooleanValue('good-flag', false);\n  if (user.isNew) {\n    track('cart_viewed');\n  }\n  track(on ? 'order_done' : 'cart_error');\n}\n";
+    expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': unrelated }))).not.toContain('exposure-one-arm');
+  });
+});

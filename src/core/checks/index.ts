@@ -2,6 +2,7 @@ import type { Check } from '../review/context.js';
 import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
 import { endedEarly } from './ended-early.js';
+import { exposureOneArm } from './exposure-arms.js';
 import { flagWithoutPlan } from './flags.js';
 import { frozenPlans } from './frozen-plan.js';
 import { eventMissing, eventRemoved } from './logging.js';
@@ -37,5 +38,6 @@ export const CHECKS: readonly Check[] = [
   analysisUnitDiffers,
   collisionCheck,
   eventMissing,
+  exposureOneArm,
   bugFixUnmeasured,
 ];

@@ -43,6 +43,8 @@ export interface ReviewContext {
   removedEvents: ReadonlyMap<string, Location>;
   /** The review's day (YYYY-MM-DD): whether a test has started or passed its planned end. */
   today: string;
+  /** Text at head of the changed files and of the files where linked plans log exposure, by path. */
+  codeAtHead: ReadonlyMap<string, string>;
   /** First locations at head of every flag key a started test reads (product code only, comments left out). */
   flagsAtHead: ReadonlyMap<string, NameHits>;
   /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */

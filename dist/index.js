@@ -22616,9 +22616,9 @@ var require_picomatch = __commonJS({
     var utils = require_utils2();
     var constants3 = require_constants6();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch5 = (glob, options, returnState = false) => {
+    var picomatch6 = (glob, options, returnState = false) => {
       if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
+        const fns = glob.map((input2) => picomatch6(input2, options, returnState));
         const arrayMatcher = (str) => {
           for (const isMatch of fns) {
             const state2 = isMatch(str);
@@ -22634,16 +22634,16 @@ var require_picomatch = __commonJS({
       }
       const opts = options || {};
       const posix = opts.windows;
-      const regex2 = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
+      const regex2 = isState ? picomatch6.compileRe(glob, options) : picomatch6.makeRe(glob, options, false, true);
       const state = regex2.state;
       delete regex2.state;
       let isIgnored = () => false;
       if (opts.ignore) {
         const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
+        isIgnored = picomatch6(opts.ignore, ignoreOpts, returnState);
       }
       const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex2, options, { glob, posix });
+        const { isMatch, match, output: output2 } = picomatch6.test(input2, regex2, options, { glob, posix });
         const result = { glob, state, regex: regex2, posix, input: input2, output: output2, match, isMatch };
         if (typeof opts.onResult === "function") {
           opts.onResult(result);
@@ -22669,7 +22669,7 @@ var require_picomatch = __commonJS({
       }
       return matcher;
     };
-    picomatch5.test = (input2, regex2, options, { glob, posix } = {}) => {
+    picomatch6.test = (input2, regex2, options, { glob, posix } = {}) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected input to be a string");
       }
@@ -22686,24 +22686,24 @@ var require_picomatch = __commonJS({
       }
       if (match === false || opts.capture === true) {
         if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch5.matchBase(input2, regex2, options, posix);
+          match = picomatch6.matchBase(input2, regex2, options, posix);
         } else {
           match = regex2.exec(output2);
         }
       }
       return { isMatch: Boolean(match), match, output: output2 };
     };
-    picomatch5.matchBase = (input2, glob, options) => {
-      const regex2 = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
+    picomatch6.matchBase = (input2, glob, options) => {
+      const regex2 = glob instanceof RegExp ? glob : picomatch6.makeRe(glob, options);
       return regex2.test(utils.basename(input2));
     };
-    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
-    picomatch5.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
+    picomatch6.isMatch = (str, patterns, options) => picomatch6(patterns, options)(str);
+    picomatch6.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch6.parse(p, options));
       return parse6(pattern, { ...options, fastpaths: false });
     };
-    picomatch5.scan = (input2, options) => scan(input2, options);
-    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
+    picomatch6.scan = (input2, options) => scan(input2, options);
+    picomatch6.compileRe = (state, options, returnOutput = false, returnState = false) => {
       if (returnOutput === true) {
         return state.output;
       }
@@ -22714,13 +22714,13 @@ var require_picomatch = __commonJS({
       if (state && state.negated === true) {
         source = `^(?!${source}).*$`;
       }
-      const regex2 = picomatch5.toRegex(source, options);
+      const regex2 = picomatch6.toRegex(source, options);
       if (returnState === true) {
         regex2.state = state;
       }
       return regex2;
     };
-    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+    picomatch6.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
       if (!input2 || typeof input2 !== "string") {
         throw new TypeError("Expected a non-empty string");
       }
@@ -22731,9 +22731,9 @@ var require_picomatch = __commonJS({
       if (!parsed.output) {
         parsed = parse6(input2, options);
       }
-      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
+      return picomatch6.compileRe(parsed, options, returnOutput, returnState);
     };
-    picomatch5.toRegex = (source, options) => {
+    picomatch6.toRegex = (source, options) => {
       try {
         const opts = options || {};
         return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
@@ -22742,8 +22742,8 @@ var require_picomatch = __commonJS({
         return /$^/;
       }
     };
-    picomatch5.constants = constants3;
-    module.exports = picomatch5;
+    picomatch6.constants = constants3;
+    module.exports = picomatch6;
   }
 });
 
@@ -22753,14 +22753,14 @@ var require_picomatch2 = __commonJS({
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils2();
-    function picomatch5(glob, options, returnState = false) {
+    function picomatch6(glob, options, returnState = false) {
       if (options && (options.windows === null || options.windows === void 0)) {
         options = { ...options, windows: utils.isWindows() };
       }
       return pico(glob, options, returnState);
     }
-    Object.assign(picomatch5, pico);
-    module.exports = picomatch5;
+    Object.assign(picomatch6, pico);
+    module.exports = picomatch6;
   }
 });
 
@@ -61235,7 +61235,7 @@ The full review does not fit in a comment${options.fullReport ? `; see ${options
 }
 
 // src/run/review-change.ts
-var import_picomatch4 = __toESM(require_picomatch2(), 1);
+var import_picomatch5 = __toESM(require_picomatch2(), 1);
 
 // src/core/config/scan-files.ts
 var import_picomatch = __toESM(require_picomatch2(), 1);
@@ -63386,6 +63386,179 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
   return out;
 });
 
+// src/core/checks/treatment-change.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+
+// src/core/scan/flag-files.ts
+var import_yaml = __toESM(require_dist(), 1);
+var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
+function flagDefinitions(text2) {
+  if (text2 === void 0) return /* @__PURE__ */ new Map();
+  let value;
+  try {
+    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100 });
+  } catch {
+    return void 0;
+  }
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return void 0;
+  const record2 = value;
+  const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
+  return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
+}
+function flagDefinitionTouches(path6, before, after) {
+  const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
+  const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
+  const lineOf = (text2, key) => {
+    if (!text2) return 1;
+    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\s*:`).test(l));
+    return index < 0 ? 1 : index + 1;
+  };
+  const touches = [];
+  for (const [key, definition] of now) {
+    if (old.get(key) !== definition) touches.push({ key, file: path6, line: lineOf(after, key), side: "added", via: "definition" });
+  }
+  for (const key of old.keys()) {
+    if (!now.has(key)) touches.push({ key, file: path6, line: lineOf(before, key), side: "removed", via: "definition" });
+  }
+  return touches;
+}
+
+// src/core/scan/flag-touches.ts
+function findFlagTouches(inputs) {
+  const touches = [];
+  const seen = /* @__PURE__ */ new Set();
+  const add = (touch) => {
+    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
+    if (!seen.has(id)) {
+      seen.add(id);
+      touches.push(touch);
+    }
+  };
+  for (const diff of inputs.diffs) {
+    if (diff.binary) continue;
+    for (const side of ["added", "removed"]) {
+      const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
+      const text2 = inputs.textOf(side, file2);
+      const changed = new Set(diff[side].map((l) => l.line));
+      if (text2 !== void 0) {
+        for (const site of findCalls(text2, file2, inputs.patterns)) {
+          let touched = false;
+          for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
+          if (!touched) continue;
+          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
+          if (key) add({ key, file: file2, line: site.valueLine, side, via: site.groups.key ? "call" : "constant" });
+        }
+      } else {
+        for (const { line, text: lineText } of diff[side]) {
+          for (const pattern of inputs.patterns) {
+            pattern.lastIndex = 0;
+            for (const match of lineText.matchAll(pattern)) if (match.groups?.key) add({ key: match.groups.key, file: file2, line, side, via: "call" });
+          }
+        }
+      }
+      const comments = text2 !== void 0 ? commentsOfText(text2, file2) : [];
+      const lineStart = text2 !== void 0 ? lineStarts(text2) : [];
+      for (const { line, text: lineText } of diff[side]) {
+        for (const match of lineText.matchAll(QUOTED_STRING)) {
+          if (!inputs.knownKeys.has(match[2])) continue;
+          if (text2 !== void 0 && insideRanges(comments, (lineStart[line - 1] ?? 0) + match.index)) continue;
+          add({ key: match[2], file: file2, line, side, via: "literal" });
+        }
+      }
+    }
+  }
+  return touches;
+}
+function resolveConstant(text2, ident) {
+  if (!text2) return void 0;
+  const name = ident.slice(ident.lastIndexOf(".") + 1);
+  return constantDefinition(name).exec(text2)?.groups?.key;
+}
+
+// src/core/checks/treatment-change.ts
+function treatmentLines(text2, path6, read, spread) {
+  const blocks = blocksOf(text2, path6);
+  const holder = enclosingFunction(blocks, read.start) ?? enclosing(blocks, read.start).at(-1);
+  if (!holder) return { from: read.line - spread, to: read.endLine + spread };
+  const lineOf = lineIndex(text2);
+  return { from: lineOf(holder.headerStart), to: lineOf(holder.close) };
+}
+function codeLines(text2, path6, lines) {
+  const comments = commentsOfText(text2, path6);
+  const all = text2.split("\n");
+  let offset = 0;
+  const starts = all.map((l) => {
+    const s = offset;
+    offset += l.length + 1;
+    return s;
+  });
+  return new Set(
+    lines.filter((n) => {
+      const line = all[n - 1] ?? "";
+      const first = line.search(/\S/);
+      return first !== -1 && !insideRanges(comments, starts[n - 1] + first);
+    })
+  );
+}
+function changeNearRead(text2, path6, lines, keys, patterns, spread) {
+  if (text2 === void 0 || lines.length === 0) return void 0;
+  const reads = findCalls(text2, path6, patterns).filter((s) => {
+    const key = s.groups.key ?? (s.groups.ident ? resolveConstant(text2, s.groups.ident) : void 0);
+    return key !== void 0 && keys.has(key);
+  });
+  if (reads.length === 0) return void 0;
+  const changed = codeLines(text2, path6, lines);
+  for (const read of reads) {
+    const { from, to } = treatmentLines(text2, path6, read, spread);
+    const hit = [...changed].sort((a, b) => a - b).find((n) => n >= from && n <= to && (n < read.line || n > read.endLine));
+    if (hit !== void 0) return hit;
+  }
+  return void 0;
+}
+function codeChange(entry, file2, patterns, spread) {
+  const keys = new Set(entry.flags);
+  const atHead = changeNearRead(file2.head, file2.path, file2.added, keys, patterns, spread);
+  const atBase = atHead === void 0 ? changeNearRead(file2.base, file2.basePath, file2.removed, keys, patterns, spread) : void 0;
+  if (atHead === void 0 && atBase === void 0) return void 0;
+  return {
+    code: "treatment-changed",
+    message: `This change edits the code around the read of ${entry.flags.map((k) => `\`${k}\``).join(", ")} (${atHead !== void 0 ? `line ${atHead}` : `line ${atBase} at the base commit`}), which the started test ${entry.id} (${ownersOf(entry)}) randomizes: people assigned before and after the change have had different treatments.`,
+    fix: `Ask ${ownersOf(entry)}: restart ${entry.id}, or record the change date under amendments: in its plan so the analysis can be split there.`,
+    plan: entry.id,
+    file: atHead !== void 0 ? file2.path : file2.basePath,
+    line: atHead ?? atBase
+  };
+}
+var treatmentChanged = (context3) => {
+  const patterns = flagPatternsOf(context3.settings);
+  const isFlagFile = (0, import_picomatch3.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const started = /* @__PURE__ */ new Map();
+  for (const e of context3.baseEntries) if (hasStarted(e, context3.today)) started.set(e.id, e);
+  const findings = [];
+  for (const entry of started.values()) {
+    for (const file2 of context3.changedCode) {
+      if (isFlagFile(file2.path) || evidenceKindOf(file2.path) !== "code") continue;
+      const found = codeChange(entry, file2, patterns, context3.settings.treatmentLines);
+      if (found) {
+        findings.push(found);
+        break;
+      }
+    }
+    const ramp = context3.touches.find((t) => t.via === "definition" && entry.flags.includes(t.key));
+    if (ramp) {
+      findings.push({
+        code: "treatment-changed",
+        message: `This change edits the definition of \`${ramp.key}\` in ${ramp.file} (arms, weights, rollout or targeting), which the started test ${entry.id} (${ownersOf(entry)}) randomizes; pooling data from before and after a ramp biases the result.`,
+        fix: `Ask ${ownersOf(entry)}: keep the allocation until the planned end, or restart ${entry.id} (or record the change date under amendments: and analyse the periods apart).`,
+        plan: entry.id,
+        file: ramp.file,
+        line: ramp.line
+      });
+    }
+  }
+  return findings;
+};
+
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
   const { plan } = loaded;
@@ -63419,6 +63592,7 @@ var CHECKS = [
   reviewMissing,
   eventRemoved,
   endedEarly,
+  treatmentChanged,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,
@@ -63502,6 +63676,7 @@ var FINDING_CODES = {
   "test-ended-early": { severity: "block", about: "the change removes the last read of a started test\u2019s flag before its planned end, with no outcome recorded" },
   "outcome-missing": { severity: "note", about: "the change removes the flag of a test past its planned end whose outcome is not recorded" },
   "exposure-one-arm": { severity: "warn", about: "the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm" },
+  "treatment-changed": { severity: "warn", about: "code around a started test\u2019s flag read, or its flag definition, changes mid-test" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -63682,92 +63857,6 @@ function parseUnifiedDiff(text2) {
     }
   }
   return files.filter((f) => f.path !== "");
-}
-
-// src/core/scan/flag-files.ts
-var import_yaml = __toESM(require_dist(), 1);
-var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
-function flagDefinitions(text2) {
-  if (text2 === void 0) return /* @__PURE__ */ new Map();
-  let value;
-  try {
-    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100 });
-  } catch {
-    return void 0;
-  }
-  if (value === null || typeof value !== "object" || Array.isArray(value)) return void 0;
-  const record2 = value;
-  const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
-  return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
-}
-function flagDefinitionTouches(path6, before, after) {
-  const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
-  const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
-  const lineOf = (text2, key) => {
-    if (!text2) return 1;
-    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || new RegExp(`^\\s*${key.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\s*:`).test(l));
-    return index < 0 ? 1 : index + 1;
-  };
-  const touches = [];
-  for (const [key, definition] of now) {
-    if (old.get(key) !== definition) touches.push({ key, file: path6, line: lineOf(after, key), side: "added", via: "definition" });
-  }
-  for (const key of old.keys()) {
-    if (!now.has(key)) touches.push({ key, file: path6, line: lineOf(before, key), side: "removed", via: "definition" });
-  }
-  return touches;
-}
-
-// src/core/scan/flag-touches.ts
-function findFlagTouches(inputs) {
-  const touches = [];
-  const seen = /* @__PURE__ */ new Set();
-  const add = (touch) => {
-    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
-    if (!seen.has(id)) {
-      seen.add(id);
-      touches.push(touch);
-    }
-  };
-  for (const diff of inputs.diffs) {
-    if (diff.binary) continue;
-    for (const side of ["added", "removed"]) {
-      const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
-      const text2 = inputs.textOf(side, file2);
-      const changed = new Set(diff[side].map((l) => l.line));
-      if (text2 !== void 0) {
-        for (const site of findCalls(text2, file2, inputs.patterns)) {
-          let touched = false;
-          for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
-          if (!touched) continue;
-          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
-          if (key) add({ key, file: file2, line: site.valueLine, side, via: site.groups.key ? "call" : "constant" });
-        }
-      } else {
-        for (const { line, text: lineText } of diff[side]) {
-          for (const pattern of inputs.patterns) {
-            pattern.lastIndex = 0;
-            for (const match of lineText.matchAll(pattern)) if (match.groups?.key) add({ key: match.groups.key, file: file2, line, side, via: "call" });
-          }
-        }
-      }
-      const comments = text2 !== void 0 ? commentsOfText(text2, file2) : [];
-      const lineStart = text2 !== void 0 ? lineStarts(text2) : [];
-      for (const { line, text: lineText } of diff[side]) {
-        for (const match of lineText.matchAll(QUOTED_STRING)) {
-          if (!inputs.knownKeys.has(match[2])) continue;
-          if (text2 !== void 0 && insideRanges(comments, (lineStart[line - 1] ?? 0) + match.index)) continue;
-          add({ key: match[2], file: file2, line, side, via: "literal" });
-        }
-      }
-    }
-  }
-  return touches;
-}
-function resolveConstant(text2, ident) {
-  if (!text2) return void 0;
-  const name = ident.slice(ident.lastIndexOf(".") + 1);
-  return constantDefinition(name).exec(text2)?.groups?.key;
 }
 
 // src/core/scan/aho-corasick.ts
@@ -64386,6 +64475,7 @@ var writtenSettingsSchema = external_exports.strictObject(
       },
       { error: "a mapping of digest settings" }
     ).default({ "time-zone": "UTC", "ending-soon-days": 7, "on-hold-days": 14, label: "plumbline-digest" }).describe("The weekly digest: the day boundary\u2019s time zone, what counts as ending soon and as on hold too long, the issue label."),
+    "treatment-lines": external_exports.number({ error: "a whole number of lines from 0 to 200, e.g. 10" }).int({ error: "a whole number of lines, e.g. 10" }).min(0, { error: "a whole number of lines from 0 to 200" }).max(200, { error: "a whole number of lines from 0 to 200" }).default(10).describe("Around a running test\u2019s flag read, code changed within the enclosing function (or block) counts as a treatment change; for a read outside any function or block, this many lines above and below."),
     severity: external_exports.record(
       external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
       external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
@@ -64404,6 +64494,7 @@ var settingsSchema = writtenSettingsSchema.transform((w) => ({
   scan: w.scan,
   exemptFlags: w["exempt-flags"],
   severity: w.severity,
+  treatmentLines: w["treatment-lines"],
   bugFix: {
     enabled: w["bug-fix"].enabled,
     labels: w["bug-fix"].labels,
@@ -64446,14 +64537,14 @@ function loadSettings(text2, file2) {
 }
 
 // src/core/config/plan-files.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
 var PLAN_EXTENSIONS = [".yaml", ".yml"];
 function planSearchRoots(entries) {
   return entries.map((raw) => {
     const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch3.default.scan(entry);
+    const scan = import_picomatch4.default.scan(entry);
     if (scan.isGlob) {
-      const matcher = (0, import_picomatch3.default)(entry, { dot: false });
+      const matcher = (0, import_picomatch4.default)(entry, { dot: false });
       return { folder: scan.base, matches: (path6) => isYamlFile(path6) && matcher(path6) };
     }
     if (isYamlFile(entry)) {
@@ -64712,7 +64803,7 @@ async function reviewChange(options) {
   const basePaths = textual.map((d) => d.previousPath ?? d.path);
   const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change2.filesAt("base").readTexts(basePaths)]);
   const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
-  const isFlagFile = (0, import_picomatch4.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const isFlagFile = (0, import_picomatch5.default)(DEFAULT_FLAG_FILES, { dot: true });
   const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
   const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
@@ -64775,6 +64866,7 @@ async function reviewChange(options) {
       flagsAtHead: hits,
       codeAtHead,
       removedEvents,
+      changedCode: changedCodeOf(textual, textAt),
       today: options.today ?? todayIn(settings.digest.timeZone, /* @__PURE__ */ new Date()),
       baseEntries: await baseEntries
     },
@@ -64782,6 +64874,14 @@ async function reviewChange(options) {
   );
   const stats = scanner.stats();
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+function changedCodeOf(diffs, textAt) {
+  return diffs.map((d) => {
+    const basePath = d.previousPath ?? d.path;
+    const head = textAt.added.get(d.path);
+    const base = textAt.removed.get(basePath);
+    return { path: d.path, basePath, added: d.added.map((l) => l.line), removed: d.removed.map((l) => l.line), ...head !== void 0 ? { head } : {}, ...base !== void 0 ? { base } : {} };
+  });
 }
 
 // src/run/keep-oldest.ts

@@ -4,9 +4,9 @@ import type { LoadedPlan } from '../core/plan/load.js';
 import { eventsOfPlan } from '../core/registry/schema.js';
 import { runningEntries } from '../core/checks/collisions.js';
 import { buildReview, type Review } from '../core/review/build-review.js';
-import type { LinkedPlan, PullRequestInfo } from '../core/review/context.js';
+import type { ChangedCode, LinkedPlan, PullRequestInfo } from '../core/review/context.js';
 import { linkPlans } from '../core/review/link-plans.js';
-import { parseUnifiedDiff } from '../core/scan/diff.js';
+import { parseUnifiedDiff, type FileDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
 import { findFlagTouches } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location } from '../core/scan/name-scan.js';
@@ -121,10 +121,20 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
   (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const review = buildReview(
-    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
+    { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents, changedCode: changedCodeOf(textual, textAt),
       today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries },
     { base: change.base, head: change.head },
   );
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+
+/** The changed text files with their changed lines and both texts, for checks that read around a change. */
+function changedCodeOf(diffs: readonly FileDiff[], textAt: { added: Map<string, string | undefined>; removed: Map<string, string | undefined> }): ChangedCode[] {
+  return diffs.map((d) => {
+    const basePath = d.previousPath ?? d.path;
+    const head = textAt.added.get(d.path);
+    const base = textAt.removed.get(basePath);
+    return { path: d.path, basePath, added: d.added.map((l) => l.line), removed: d.removed.map((l) => l.line), ...(head !== undefined ? { head } : {}), ...(base !== undefined ? { base } : {}) };
+  });
 }

@@ -179,6 +179,11 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     // Logged before the branch: every arm logs it.
     nearMiss: { changes: withPlan(cleanPlan()) },
   },
+  'treatment-changed': {
+    trigger: { changes: { 'src/cart.ts': CART_CODE.replace("    track('order_done');\n", "    showBanner('Free delivery');\n    track('order_done');\n") } },
+    // A change to an unrelated function in the same file as a live flag read is not a treatment change.
+    nearMiss: { changes: { 'src/cart.ts': `${CART_CODE}\nexport function total(items) {\n  return items.length;\n}\n` } },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },

@@ -195,3 +195,20 @@ describe('exposure in every arm', () => {
     expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': unrelated }))).not.toContain('exposure-one-arm');
   });
 });
+
+describe('treatment changed mid-test', () => {
+  it('warns on a changed definition of a started test’s flag (a ramp), naming the owners', async () => {
+    const flagsFile = (weight: number) => `{ "flags": { "good-flag": { "variants": { "on": true, "off": false }, "weights": { "on": ${weight}, "off": ${100 - weight} } } } }\n`;
+    const r = await review(baseFiles({ 'config/flags.json': flagsFile(10) }), { 'config/flags.json': flagsFile(50) });
+    const found = r.findings.find((f) => f.code === 'treatment-changed')!;
+    expect(found).toMatchObject({ severity: 'warn', plan: 'good', file: 'config/flags.json' });
+    expect(found.fix).toContain('@owner-one');
+  });
+
+  it('uses the configured number of lines for a read outside any function', async () => {
+    const top = "const on = client.getBooleanValue('good-flag', false);\nconst a = 1;\nconst b = 2;\nconst c = 3;\n";
+    const edited = top.replace('const c = 3;', 'const c = 4;');
+    expect(codes(await review(baseFiles({ 'src/top.ts': top, '.plumbline.yml': 'treatment-lines: 3\n' }), { 'src/top.ts': edited }))).toContain('treatment-changed');
+    expect(codes(await review(baseFiles({ 'src/top.ts': top, '.plumbline.yml': 'treatment-lines: 2\n' }), { 'src/top.ts': edited }))).not.toContain('treatment-changed');
+  });
+});

@@ -17,6 +17,7 @@ import {
   windowChecks,
 } from './plans.js';
 import { sizingChecks } from './sizing.js';
+import { treatmentChanged } from './treatment-change.js';
 import { analysisUnitDiffers, spillover } from './unit.js';
 
 /** Every check of the pull-request review, in the order their findings are listed. */
@@ -27,6 +28,7 @@ export const CHECKS: readonly Check[] = [
   reviewMissing,
   eventRemoved,
   endedEarly,
+  treatmentChanged,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,

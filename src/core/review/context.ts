@@ -43,12 +43,24 @@ export interface ReviewContext {
   removedEvents: ReadonlyMap<string, Location>;
   /** The review's day (YYYY-MM-DD): whether a test has started or passed its planned end. */
   today: string;
+  /** Changed text files: their path on each side, the changed line numbers and the text on each side. */
+  changedCode: readonly ChangedCode[];
   /** Text at head of the changed files and of the files where linked plans log exposure, by path. */
   codeAtHead: ReadonlyMap<string, string>;
   /** First locations at head of every flag key a started test reads (product code only, comments left out). */
   flagsAtHead: ReadonlyMap<string, NameHits>;
   /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */
   baseEntries: readonly RegistryEntry[];
+}
+
+export interface ChangedCode {
+  path: string;
+  /** Where the file was at the base commit (differs on a rename). */
+  basePath: string;
+  added: readonly number[];
+  removed: readonly number[];
+  head?: string;
+  base?: string;
 }
 
 /** A check reads the context and says what it found, at the code's default severity. */

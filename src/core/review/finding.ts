@@ -58,6 +58,7 @@ export const FINDING_CODES = {
   'test-ended-early': { severity: 'block', about: 'the change removes the last read of a started test’s flag before its planned end, with no outcome recorded' },
   'outcome-missing': { severity: 'note', about: 'the change removes the flag of a test past its planned end whose outcome is not recorded' },
   'exposure-one-arm': { severity: 'warn', about: 'the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm' },
+  'treatment-changed': { severity: 'warn', about: 'code around a started test’s flag read, or its flag definition, changes mid-test' },
   'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 

@@ -62,7 +62,7 @@ describe('plumbline check', () => {
   it('runs on the demo change as npm run demo does', () => {
     const demo = spawnSync(process.execPath, ['scripts/demo.mjs'], { cwd: repoRoot, encoding: 'utf8' });
     expect(demo.status).toBe(0);
-    expect(demo.stdout).toContain('### ⛔ Plumbline: blocked — 2 blocking findings');
+    expect(demo.stdout).toContain('### ⛔ Plumbline: blocked — 3 blocking findings');
     expect(demo.stdout).toContain('(exit code 1: 1 means a blocking finding, which fails the check)');
   });
 });

@@ -16,7 +16,9 @@ const repo = (files: Record<string, string>, changes: Record<string, string | nu
 
 describe('plumbline check', () => {
   it('exits 1 and explains when a decision rule is missing', () => {
-    const r = repo(baseFiles(), { 'experiments/good.yaml': planYaml(cleanPlan({ decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED });
+    // A draft that starts later: its plan may still change, so only the missing rules block.
+    const draft = { state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' } };
+    const r = repo(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan(draft)) }), { 'experiments/good.yaml': planYaml(cleanPlan({ ...draft, decisions: { win: 'Ship.' } })), 'src/cart.ts': CART_CODE_TOUCHED });
     const run = runCli(['-C', r.root, 'check', '--base', 'main']);
     expect(run.status).toBe(1);
     expect(run.stdout).toMatch(/^Plumbline: blocked \(1 blocking, 0 warnings, 0 notes\) for [0-9a-f]{7}\.\.\.[0-9a-f]{7}$/m);
@@ -64,5 +66,5 @@ describe('plumbline check', () => {
     expect(demo.status).toBe(0);
     expect(demo.stdout).toContain('### ⛔ Plumbline: blocked — 3 blocking findings');
     expect(demo.stdout).toContain('(exit code 1: 1 means a blocking finding, which fails the check)');
-  });
+  }, 120_000);
 });

@@ -14548,7 +14548,7 @@ var require_public_api = __commonJS({
       }
       return doc;
     }
-    function parse4(src, reviver, options) {
+    function parse5(src, reviver, options) {
       let _reviver = void 0;
       if (typeof reviver === "function") {
         _reviver = reviver;
@@ -14589,7 +14589,7 @@ var require_public_api = __commonJS({
         return value.toString(options);
       return new Document.Document(value, _replacer, options).toString(options);
     }
-    exports.parse = parse4;
+    exports.parse = parse5;
     exports.parseAllDocuments = parseAllDocuments;
     exports.parseDocument = parseDocument2;
     exports.stringify = stringify;
@@ -15270,7 +15270,7 @@ var require_parse = __commonJS({
     var syntaxError = (type, char) => {
       return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
     };
-    var parse4 = (input2, options) => {
+    var parse5 = (input2, options) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected a string");
       }
@@ -15418,7 +15418,7 @@ var require_parse = __commonJS({
             output2 = token.close = `)$))${extglobStar}`;
           }
           if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
-            const expression = parse4(rest, { ...options, fastpaths: false }).output;
+            const expression = parse5(rest, { ...options, fastpaths: false }).output;
             output2 = token.close = `)${expression})${extglobStar})`;
           }
           if (token.prev.type === "bos") {
@@ -15940,7 +15940,7 @@ var require_parse = __commonJS({
       }
       return state;
     };
-    parse4.fastpaths = (input2, options) => {
+    parse5.fastpaths = (input2, options) => {
       const opts = { ...options };
       const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
       const len = input2.length;
@@ -16005,7 +16005,7 @@ var require_parse = __commonJS({
       }
       return source;
     };
-    module.exports = parse4;
+    module.exports = parse5;
   }
 });
 
@@ -16014,7 +16014,7 @@ var require_picomatch = __commonJS({
   "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
-    var parse4 = require_parse();
+    var parse5 = require_parse();
     var utils = require_utils();
     var constants = require_constants();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
@@ -16102,7 +16102,7 @@ var require_picomatch = __commonJS({
     picomatch6.isMatch = (str, patterns, options) => picomatch6(patterns, options)(str);
     picomatch6.parse = (pattern, options) => {
       if (Array.isArray(pattern)) return pattern.map((p) => picomatch6.parse(p, options));
-      return parse4(pattern, { ...options, fastpaths: false });
+      return parse5(pattern, { ...options, fastpaths: false });
     };
     picomatch6.scan = (input2, options) => scan(input2, options);
     picomatch6.compileRe = (state, options, returnOutput = false, returnState = false) => {
@@ -16128,10 +16128,10 @@ var require_picomatch = __commonJS({
       }
       let parsed = { negated: false, fastpaths: true };
       if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
-        parsed.output = parse4.fastpaths(input2, options);
+        parsed.output = parse5.fastpaths(input2, options);
       }
       if (!parsed.output) {
-        parsed = parse4(input2, options);
+        parsed = parse5(input2, options);
       }
       return picomatch6.compileRe(parsed, options, returnOutput, returnState);
     };
@@ -18132,18 +18132,18 @@ var validateAsync = async (schema, value, _ctx) => {
   return result.issues.length === 0;
 };
 var _encode = (_Err) => {
-  const parse4 = _parse(_Err);
+  const parse5 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
     const ctx = _ctx ? { ..._ctx, direction: "backward" } : { direction: "backward" };
-    return parse4(schema, value, ctx, finalizeParams(fn, _params));
+    return parse5(schema, value, ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
 var encode = /* @__PURE__ */ _encode($ZodRealError);
 var _decode = (_Err) => {
-  const parse4 = _parse(_Err);
+  const parse5 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
-    return parse4(schema, value, _ctx, finalizeParams(fn, _params));
+    return parse5(schema, value, _ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
@@ -19638,7 +19638,7 @@ function capSize(inst, size) {
   if (!caps.length)
     return;
   const cap = Math.min(...caps.map((c) => c[0]));
-  const parse4 = inst._zod.parse;
+  const parse5 = inst._zod.parse;
   inst._zod.parse = (payload, ctx) => {
     const n = size(payload.value);
     if (n > cap && !ctx?.skipChecks && ctx?.direction !== "backward") {
@@ -19652,7 +19652,7 @@ function capSize(inst, size) {
         }
       }
     }
-    return parse4(payload, ctx);
+    return parse5(payload, ctx);
   };
 }
 var arraySize = (input2) => Array.isArray(input2) ? input2.length : -1;
@@ -38618,6 +38618,21 @@ function scanMatcher(scan) {
   return (path) => include(path) && !exclude(path);
 }
 
+// src/core/plan/declared-flags.ts
+var import_yaml2 = __toESM(require_dist(), 1);
+function declaredFlags(text2) {
+  if (text2 === void 0) return [];
+  let value;
+  try {
+    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100, uniqueKeys: false });
+  } catch {
+    return [];
+  }
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return [];
+  const flags = value.flags;
+  return Array.isArray(flags) ? flags.filter((f) => typeof f === "string") : [];
+}
+
 // src/core/checks/surfaces.ts
 function isSameOrBelow(path, ancestor) {
   return path === ancestor || path.startsWith(`${ancestor}/`);
@@ -38685,13 +38700,19 @@ function collisionsOfLinked(context2) {
     ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
   );
 }
+function declaredBy(id, mine, other) {
+  const here = mine.includes(other.id);
+  const there = other.surface.overlapsWith.includes(id);
+  if (here && there) return "Both tests declare this overlap.";
+  return here ? `This plan declares the overlap; ${other.id} does not.` : `${other.id} declares the overlap; this plan does not.`;
+}
 var list = (values) => values === "all" ? "everyone" : values.join(", ");
 var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, collision: c }) => {
   const linked = context2.linked.find((l) => l.loaded.plan.id === plan);
   const where2 = c.surface === "same" ? `the same surface (${c.other.surface.path})` : `${c.other.surface.path}, ${c.surface === "above" ? "which contains this surface" : "inside this surface"}`;
   const when = c.overlapDays !== void 0 ? `${c.overlapDays} days (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
   const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
+  return c.known ? { code: "known-overlap", message: `${message} ${declaredBy(linked.loaded.plan.id, linked.loaded.plan.surface.overlapsWith, c.other)}`, fix: "Check for an interaction between the two when reading out.", plan, file: linked.loaded.file, line: linked.loaded.line } : {
     code: "collision",
     message,
     fix: `Put both in one exclusion group with disjoint slices, move the window, or declare the overlap under surface.overlaps-with after agreeing it with ${c.other.owners.join(", ")}.`,
@@ -39155,8 +39176,8 @@ var exposureOneArm = (context2) => {
 };
 
 // src/core/checks/flags.ts
-var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
-  const planned = new Set(registry2.entries.flatMap((e) => e.flags));
+var flagWithoutPlan = ({ touches, registry: registry2, settings, invalidPlanFiles }) => {
+  const planned = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...invalidPlanFiles.flatMap((f) => f.flags ?? [])]);
   const exempt = new Set(settings.exemptFlags);
   const reported = /* @__PURE__ */ new Set();
   return touches.filter((t) => !planned.has(t.key) && !exempt.has(t.key) && !reported.has(t.key) && reported.add(t.key)).map((t) => ({
@@ -39507,13 +39528,13 @@ var sizingChecks = ({ linked }) => linked.flatMap(({ loaded, sizing }) => {
 var import_picomatch4 = __toESM(require_picomatch2(), 1);
 
 // src/core/scan/flag-files.ts
-var import_yaml2 = __toESM(require_dist(), 1);
+var import_yaml3 = __toESM(require_dist(), 1);
 var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
 function flagDefinitions(text2) {
   if (text2 === void 0) return /* @__PURE__ */ new Map();
   let value;
   try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100 });
+    value = (0, import_yaml3.parse)(text2, { maxAliasCount: 100 });
   } catch {
     return void 0;
   }
@@ -40132,6 +40153,21 @@ function buildDigest(input2) {
     if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
       item(entry, "long-on-hold", `On hold, ${daysBetween(start, today)} days after its start: its units and surface stay reserved; resume or conclude it.`);
     }
+    if (entry.plan && !entry.plan.outcome && (entry.state === "concluded" || entry.state === "on-hold" && end && end < today)) {
+      item(entry, "outcome-missing", `${entry.state === "concluded" ? "Concluded" : `On hold past its planned end (${end})`}, but no outcome is recorded: add outcome: { date, reason } with the decision in one line.`);
+    }
+    const stillRead2 = entry.flags.filter((f) => input2.flagsInCode.has(f));
+    if (entry.plan && entry.state === "concluded" && stillRead2.length) {
+      const since = entry.plan.outcome?.date ?? end;
+      const days = since !== void 0 && since <= today ? daysBetween(since, today) : void 0;
+      const where2 = input2.flagsInCode.get(stillRead2[0]);
+      item(
+        entry,
+        "concluded-flag-in-code",
+        `Concluded${days !== void 0 ? ` ${days} day${days === 1 ? "" : "s"} ago (${since})` : ""}, but its flag${stillRead2.length === 1 ? "" : "s"} ${stillRead2.join(", ")} ${stillRead2.length === 1 ? "is" : "are"} still read in the code (${where2.file}:${where2.line}): remove the flag and the code of the arm that lost.`,
+        days !== void 0 ? { daysSinceConclusion: days } : {}
+      );
+    }
     if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
       item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
     }
@@ -40149,7 +40185,7 @@ function buildDigest(input2) {
   const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
   const byOwner = /* @__PURE__ */ new Map();
-  const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
+  const ORDER2 = ["overdue", "outcome-missing", "flag-gone", "collision", "concluded-flag-in-code", "draft-past-start", "long-on-hold", "ending-soon"];
   for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry2.entries.find((e) => e.id === it.test);
     for (const owner2 of entry.owners) byOwner.set(owner2, [...byOwner.get(owner2) ?? [], it]);
@@ -40161,6 +40197,8 @@ function buildDigest(input2) {
     "long-on-hold": 0,
     "flag-gone": 0,
     collision: 0,
+    "outcome-missing": 0,
+    "concluded-flag-in-code": 0,
     live: running.length,
     planned: registry2.entries.filter((e) => e.state === "draft").length,
     orphanFlags: orphanFlags.length
@@ -40254,10 +40292,10 @@ async function reviewChange(options) {
   const pr = options.pr ?? {};
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: sizePlan(p.plan) }));
-  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
-    file: file2,
-    problems: workspace.problems.filter((p) => p.file === file2)
-  }));
+  const brokenPlans = [...new Set(workspace.problems.filter((p) => p.severity === "error" && workspace.planFiles.includes(p.file)).map((p) => p.file))];
+  const brokenFlags = (await head.readTexts(brokenPlans)).map(declaredFlags);
+  const touchedKeys = new Set(touches.map((t) => t.key));
+  const invalidPlanFiles = brokenPlans.map((file2, i) => ({ file: file2, flags: brokenFlags[i], problems: workspace.problems.filter((p) => p.file === file2) })).filter((f) => changedPaths.has(f.file) || f.flags.some((k) => touchedKeys.has(k)));
   const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
   const startedFlags = [...workspace.registry.entries, ...await baseEntries].filter((e) => e.state !== "concluded").flatMap((e) => e.flags);
   const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
@@ -40709,7 +40747,9 @@ var LABEL2 = {
   collision: "\u{1F4A5} collides",
   "draft-past-start": "\u{1F4DD} draft past its start",
   "long-on-hold": "\u23F8\uFE0F on hold too long",
-  "ending-soon": "\u{1F4C5} ending soon"
+  "ending-soon": "\u{1F4C5} ending soon",
+  "outcome-missing": "\u{1F4CB} no outcome recorded",
+  "concluded-flag-in-code": "\u{1F9F9} concluded, flag still in the code"
 };
 function countLine(d) {
   const c = d.counts;

@@ -1,5 +1,6 @@
 import picomatch from 'picomatch';
 import { scanMatcher } from '../core/config/scan-files.js';
+import { declaredFlags } from '../core/plan/declared-flags.js';
 import type { LoadedPlan } from '../core/plan/load.js';
 import { eventsOfPlan } from '../core/registry/schema.js';
 import { runningEntries } from '../core/checks/collisions.js';
@@ -76,10 +77,13 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const linked: LinkedPlan[] = workspace.plans
     .filter((p) => links.has(p.plan.id))
     .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: sizePlan(p.plan) }));
-  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
-    file,
-    problems: workspace.problems.filter((p) => p.file === file),
-  }));
+  // Plan files that do not load: those the change edits, and those that name a flag the change touches.
+  const brokenPlans = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && workspace.planFiles.includes(p.file)).map((p) => p.file))];
+  const brokenFlags = (await head.readTexts(brokenPlans)).map(declaredFlags);
+  const touchedKeys = new Set(touches.map((t) => t.key));
+  const invalidPlanFiles = brokenPlans
+    .map((file, i) => ({ file, flags: brokenFlags[i]!, problems: workspace.problems.filter((p) => p.file === file) }))
+    .filter((f) => changedPaths.has(f.file) || f.flags.some((k) => touchedKeys.has(k)));
 
   // One pass over the tracked code at head finds every event any linked or running plan names.
   // Running at head or at the base commit: a change that also edits the plan still cuts the data collected so far.

@@ -212,3 +212,32 @@ describe('treatment changed mid-test', () => {
     expect(codes(await review(baseFiles({ 'src/top.ts': top, '.plumbline.yml': 'treatment-lines: 2\n' }), { 'src/top.ts': edited }))).not.toContain('treatment-changed');
   });
 });
+
+describe('smaller truths', () => {
+  it('a flag whose plan does not load is "plan invalid", not "flag without plan"', async () => {
+    const broken = planYaml(cleanPlan({ id: 'broken', flags: ['broken-flag'], design: { alpha: 2 } }));
+    const r = await review(baseFiles({ 'experiments/broken.yaml': broken }), { 'src/new.ts': "client.getBooleanValue('broken-flag', false);\n" });
+    expect(codes(r)).toContain('plan-invalid');
+    expect(codes(r)).not.toContain('flag-without-plan');
+    expect(r.findings.find((f) => f.code === 'plan-invalid')?.file).toBe('experiments/broken.yaml');
+  });
+
+  const other = (overrides: Record<string, unknown>) =>
+    planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
+
+  it('a known overlap says which side declared it', async () => {
+    const r = await review(baseFiles({ 'experiments/other.yaml': other({ surface: { path: 'shop/cart', 'overlaps-with': ['good'] } }) }), { 'experiments/good.yaml': planYaml(cleanPlan({ title: 'Renamed' })) });
+    expect(r.findings.find((f) => f.code === 'known-overlap')?.message).toContain('other declares the overlap; this plan does not.');
+  });
+
+  // Decided: only live tests count as running for collisions. An on-hold test exposes no one while it waits;
+  // a concluded one is over. (The digest lists tests on hold too long so they do not hold a surface forever.)
+  it.each([
+    ['live', true],
+    ['on-hold', false],
+    ['concluded', false],
+  ])('a collision with a %s test: %s', async (state, expected) => {
+    const r = await review(baseFiles({ 'experiments/other.yaml': other({ state }) }), { 'experiments/good.yaml': planYaml(cleanPlan({ title: 'Renamed' })) });
+    expect(codes(r).includes('collision')).toBe(expected);
+  });
+});

@@ -89,6 +89,14 @@ export function collisionsOfLinked(context: Parameters<Check>[0]): { plan: strin
   );
 }
 
+/** Which side wrote the overlap under surface.overlaps-with: an overlap agreed by one side only is worth a look. */
+function declaredBy(id: string, mine: readonly string[], other: RegistryEntry): string {
+  const here = mine.includes(other.id);
+  const there = other.surface.overlapsWith.includes(id);
+  if (here && there) return 'Both tests declare this overlap.';
+  return here ? `This plan declares the overlap; ${other.id} does not.` : `${other.id} declares the overlap; this plan does not.`;
+}
+
 const list = (values: string[] | 'all') => (values === 'all' ? 'everyone' : values.join(', '));
 
 export const collisionCheck: Check = (context) =>
@@ -98,7 +106,7 @@ export const collisionCheck: Check = (context) =>
     const when = c.overlapDays !== undefined ? `${c.overlapDays} days (${c.overlapWindow!.start} to ${c.overlapWindow!.end})` : 'an unknown stretch (a window is not set)';
     const message = `Overlaps ${c.other.id} (${c.other.owners.join(', ')}) on ${where} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${Math.round(c.trafficShare * 100)}% of eligible units would be in both.`;
     return c.known
-      ? { code: 'known-overlap', message: `${message} Both tests declare this overlap.`, fix: 'Check for an interaction between the two when reading out.', plan, file: linked.loaded.file, line: linked.loaded.line }
+      ? { code: 'known-overlap', message: `${message} ${declaredBy(linked.loaded.plan.id, linked.loaded.plan.surface.overlapsWith, c.other)}`, fix: 'Check for an interaction between the two when reading out.', plan, file: linked.loaded.file, line: linked.loaded.line }
       : {
           code: 'collision',
           message,

@@ -18,6 +18,8 @@ const LABEL: Record<DigestItemKind, string> = {
   'draft-past-start': '📝 draft past its start',
   'long-on-hold': '⏸️ on hold too long',
   'ending-soon': '📅 ending soon',
+  'outcome-missing': '📋 no outcome recorded',
+  'concluded-flag-in-code': '🧹 concluded, flag still in the code',
 };
 
 export function countLine(d: Digest): string {

@@ -30,8 +30,8 @@ export interface ReviewContext {
   pr: PullRequestInfo;
   /** Plans this change is about. */
   linked: LinkedPlan[];
-  /** Plan files the change adds or edits that do not load. */
-  invalidPlanFiles: { file: string; problems: Problem[] }[];
+  /** Plan files that do not load and that the change adds or edits, or whose flags (`flags`, read leniently) it touches. */
+  invalidPlanFiles: { file: string; problems: Problem[]; flags?: string[] }[];
   /** Paths the change adds or edits. */
   changedPaths: string[];
   /** Flags the change touches in code or in flag definition files. */

@@ -63507,12 +63507,7 @@ function treatmentLines(text2, path6, read, spread) {
 function codeLines(text2, path6, lines) {
   const comments = commentsOfText(text2, path6);
   const all = text2.split("\n");
-  let offset = 0;
-  const starts = all.map((l) => {
-    const s = offset;
-    offset += l.length + 1;
-    return s;
-  });
+  const starts = lineStarts(text2);
   return new Set(
     lines.filter((n) => {
       const line = all[n - 1] ?? "";

@@ -2,7 +2,7 @@ import picomatch from 'picomatch';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { ChangedCode, Check } from '../review/context.js';
 import type { Finding } from '../review/finding.js';
-import { findCalls, lineIndex, type CallSite } from '../scan/calls.js';
+import { findCalls, lineIndex, lineStarts, type CallSite } from '../scan/calls.js';
 import { blocksOf, enclosing, enclosingFunction } from '../scan/code-blocks.js';
 import { commentsOfText, insideRanges } from '../scan/comments.js';
 import { evidenceKindOf } from '../scan/evidence.js';
@@ -26,12 +26,7 @@ function treatmentLines(text: string, path: string, read: CallSite, spread: numb
 function codeLines(text: string, path: string, lines: readonly number[]): Set<number> {
   const comments = commentsOfText(text, path);
   const all = text.split('\n');
-  let offset = 0;
-  const starts = all.map((l) => {
-    const s = offset;
-    offset += l.length + 1;
-    return s;
-  });
+  const starts = lineStarts(text);
   return new Set(
     lines.filter((n) => {
       const line = all[n - 1] ?? '';

@@ -11,7 +11,7 @@ import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './
 const made: string[] = [];
 /** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
 const TODAY = '2026-11-16';
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 60_000);
 
 async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);

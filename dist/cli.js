@@ -3487,7 +3487,7 @@ var require_constants = __commonJS({
     var NO_DOT_SLASH = `(?!${DOT_LITERAL}{0,1}${END_ANCHOR})`;
     var NO_DOTS_SLASH = `(?!${DOTS_SLASH})`;
     var QMARK_NO_DOT = `[^.${SLASH_LITERAL}]`;
-    var STAR = `${QMARK}*?`;
+    var STAR2 = `${QMARK}*?`;
     var SEP = "/";
     var POSIX_CHARS = {
       DOT_LITERAL,
@@ -3503,7 +3503,7 @@ var require_constants = __commonJS({
       NO_DOT_SLASH,
       NO_DOTS_SLASH,
       QMARK_NO_DOT,
-      STAR,
+      STAR: STAR2,
       START_ANCHOR,
       SEP
     };
@@ -4089,7 +4089,7 @@ var require_parse = __commonJS({
     var syntaxError = (type, char) => {
       return `Missing ${type}: "${char}" - use "\\\\${char}" to match literal characters`;
     };
-    var parse4 = (input2, options) => {
+    var parse5 = (input2, options) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected a string");
       }
@@ -4116,7 +4116,7 @@ var require_parse = __commonJS({
         NO_DOTS_SLASH,
         QMARK,
         QMARK_NO_DOT,
-        STAR,
+        STAR: STAR2,
         START_ANCHOR
       } = PLATFORM_CHARS;
       const globstar = (opts2) => {
@@ -4124,7 +4124,7 @@ var require_parse = __commonJS({
       };
       const nodot = opts.dot ? "" : NO_DOT;
       const qmarkNoDot = opts.dot ? QMARK : QMARK_NO_DOT;
-      let star = opts.bash === true ? globstar(opts) : STAR;
+      let star = opts.bash === true ? globstar(opts) : STAR2;
       if (opts.capture) {
         star = `(${star})`;
       }
@@ -4237,7 +4237,7 @@ var require_parse = __commonJS({
             output2 = token.close = `)$))${extglobStar}`;
           }
           if (token.inner.includes("*") && (rest = remaining()) && /^\.[^\\/.]+$/.test(rest)) {
-            const expression = parse4(rest, { ...options, fastpaths: false }).output;
+            const expression = parse5(rest, { ...options, fastpaths: false }).output;
             output2 = token.close = `)${expression})${extglobStar})`;
           }
           if (token.prev.type === "bos") {
@@ -4759,7 +4759,7 @@ var require_parse = __commonJS({
       }
       return state;
     };
-    parse4.fastpaths = (input2, options) => {
+    parse5.fastpaths = (input2, options) => {
       const opts = { ...options };
       const max = typeof opts.maxLength === "number" ? Math.min(MAX_LENGTH, opts.maxLength) : MAX_LENGTH;
       const len = input2.length;
@@ -4775,14 +4775,14 @@ var require_parse = __commonJS({
         NO_DOT,
         NO_DOTS,
         NO_DOTS_SLASH,
-        STAR,
+        STAR: STAR2,
         START_ANCHOR
       } = constants.globChars(opts.windows);
       const nodot = opts.dot ? NO_DOTS : NO_DOT;
       const slashDot = opts.dot ? NO_DOTS_SLASH : NO_DOT;
       const capture = opts.capture ? "" : "?:";
       const state = { negated: false, prefix: "" };
-      let star = opts.bash === true ? ".*?" : STAR;
+      let star = opts.bash === true ? ".*?" : STAR2;
       if (opts.capture) {
         star = `(${star})`;
       }
@@ -4824,7 +4824,7 @@ var require_parse = __commonJS({
       }
       return source;
     };
-    module.exports = parse4;
+    module.exports = parse5;
   }
 });
 
@@ -4833,13 +4833,13 @@ var require_picomatch = __commonJS({
   "../main/node_modules/picomatch/lib/picomatch.js"(exports, module) {
     "use strict";
     var scan = require_scan();
-    var parse4 = require_parse();
+    var parse5 = require_parse();
     var utils = require_utils();
     var constants = require_constants();
     var isObject2 = (val) => val && typeof val === "object" && !Array.isArray(val);
-    var picomatch5 = (glob, options, returnState = false) => {
+    var picomatch6 = (glob, options, returnState = false) => {
       if (Array.isArray(glob)) {
-        const fns = glob.map((input2) => picomatch5(input2, options, returnState));
+        const fns = glob.map((input2) => picomatch6(input2, options, returnState));
         const arrayMatcher = (str) => {
           for (const isMatch of fns) {
             const state2 = isMatch(str);
@@ -4855,16 +4855,16 @@ var require_picomatch = __commonJS({
       }
       const opts = options || {};
       const posix2 = opts.windows;
-      const regex = isState ? picomatch5.compileRe(glob, options) : picomatch5.makeRe(glob, options, false, true);
+      const regex = isState ? picomatch6.compileRe(glob, options) : picomatch6.makeRe(glob, options, false, true);
       const state = regex.state;
       delete regex.state;
       let isIgnored = () => false;
       if (opts.ignore) {
         const ignoreOpts = { ...options, ignore: null, onMatch: null, onResult: null };
-        isIgnored = picomatch5(opts.ignore, ignoreOpts, returnState);
+        isIgnored = picomatch6(opts.ignore, ignoreOpts, returnState);
       }
       const matcher = (input2, returnObject = false) => {
-        const { isMatch, match, output: output2 } = picomatch5.test(input2, regex, options, { glob, posix: posix2 });
+        const { isMatch, match, output: output2 } = picomatch6.test(input2, regex, options, { glob, posix: posix2 });
         const result = { glob, state, regex, posix: posix2, input: input2, output: output2, match, isMatch };
         if (typeof opts.onResult === "function") {
           opts.onResult(result);
@@ -4890,7 +4890,7 @@ var require_picomatch = __commonJS({
       }
       return matcher;
     };
-    picomatch5.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
+    picomatch6.test = (input2, regex, options, { glob, posix: posix2 } = {}) => {
       if (typeof input2 !== "string") {
         throw new TypeError("Expected input to be a string");
       }
@@ -4907,24 +4907,24 @@ var require_picomatch = __commonJS({
       }
       if (match === false || opts.capture === true) {
         if (opts.matchBase === true || opts.basename === true) {
-          match = picomatch5.matchBase(input2, regex, options, posix2);
+          match = picomatch6.matchBase(input2, regex, options, posix2);
         } else {
           match = regex.exec(output2);
         }
       }
       return { isMatch: Boolean(match), match, output: output2 };
     };
-    picomatch5.matchBase = (input2, glob, options) => {
-      const regex = glob instanceof RegExp ? glob : picomatch5.makeRe(glob, options);
+    picomatch6.matchBase = (input2, glob, options) => {
+      const regex = glob instanceof RegExp ? glob : picomatch6.makeRe(glob, options);
       return regex.test(utils.basename(input2));
     };
-    picomatch5.isMatch = (str, patterns, options) => picomatch5(patterns, options)(str);
-    picomatch5.parse = (pattern, options) => {
-      if (Array.isArray(pattern)) return pattern.map((p) => picomatch5.parse(p, options));
-      return parse4(pattern, { ...options, fastpaths: false });
+    picomatch6.isMatch = (str, patterns, options) => picomatch6(patterns, options)(str);
+    picomatch6.parse = (pattern, options) => {
+      if (Array.isArray(pattern)) return pattern.map((p) => picomatch6.parse(p, options));
+      return parse5(pattern, { ...options, fastpaths: false });
     };
-    picomatch5.scan = (input2, options) => scan(input2, options);
-    picomatch5.compileRe = (state, options, returnOutput = false, returnState = false) => {
+    picomatch6.scan = (input2, options) => scan(input2, options);
+    picomatch6.compileRe = (state, options, returnOutput = false, returnState = false) => {
       if (returnOutput === true) {
         return state.output;
       }
@@ -4935,26 +4935,26 @@ var require_picomatch = __commonJS({
       if (state && state.negated === true) {
         source = `^(?!${source}).*$`;
       }
-      const regex = picomatch5.toRegex(source, options);
+      const regex = picomatch6.toRegex(source, options);
       if (returnState === true) {
         regex.state = state;
       }
       return regex;
     };
-    picomatch5.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
+    picomatch6.makeRe = (input2, options = {}, returnOutput = false, returnState = false) => {
       if (!input2 || typeof input2 !== "string") {
         throw new TypeError("Expected a non-empty string");
       }
       let parsed = { negated: false, fastpaths: true };
       if (options.fastpaths !== false && (input2[0] === "." || input2[0] === "*")) {
-        parsed.output = parse4.fastpaths(input2, options);
+        parsed.output = parse5.fastpaths(input2, options);
       }
       if (!parsed.output) {
-        parsed = parse4(input2, options);
+        parsed = parse5(input2, options);
       }
-      return picomatch5.compileRe(parsed, options, returnOutput, returnState);
+      return picomatch6.compileRe(parsed, options, returnOutput, returnState);
     };
-    picomatch5.toRegex = (source, options) => {
+    picomatch6.toRegex = (source, options) => {
       try {
         const opts = options || {};
         return new RegExp(source, opts.flags || (opts.nocase ? "i" : ""));
@@ -4963,8 +4963,8 @@ var require_picomatch = __commonJS({
         return /$^/;
       }
     };
-    picomatch5.constants = constants;
-    module.exports = picomatch5;
+    picomatch6.constants = constants;
+    module.exports = picomatch6;
   }
 });
 
@@ -4974,3865 +4974,14 @@ var require_picomatch2 = __commonJS({
     "use strict";
     var pico = require_picomatch();
     var utils = require_utils();
-    function picomatch5(glob, options, returnState = false) {
+    function picomatch6(glob, options, returnState = false) {
       if (options && (options.windows === null || options.windows === void 0)) {
         options = { ...options, windows: utils.isWindows() };
       }
       return pico(glob, options, returnState);
     }
-    Object.assign(picomatch5, pico);
-    module.exports = picomatch5;
-  }
-});
-
-// ../main/node_modules/jstat/dist/jstat.js
-var require_jstat = __commonJS({
-  "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
-    (function(window, factory) {
-      if (typeof exports === "object") {
-        module.exports = factory();
-      } else if (typeof define === "function" && define.amd) {
-        define(factory);
-      } else {
-        window.jStat = factory();
-      }
-    })(exports, function() {
-      var jStat2 = (function(Math2, undefined2) {
-        var concat = Array.prototype.concat;
-        var slice = Array.prototype.slice;
-        var toString = Object.prototype.toString;
-        function calcRdx(n, m) {
-          var val = n > m ? n : m;
-          return Math2.pow(
-            10,
-            17 - ~~(Math2.log(val > 0 ? val : -val) * Math2.LOG10E)
-          );
-        }
-        var isArray = Array.isArray || function isArray2(arg) {
-          return toString.call(arg) === "[object Array]";
-        };
-        function isFunction(arg) {
-          return toString.call(arg) === "[object Function]";
-        }
-        function isNumber(num) {
-          return typeof num === "number" ? num - num === 0 : false;
-        }
-        function toVector(arr) {
-          return concat.apply([], arr);
-        }
-        function jStat3() {
-          return new jStat3._init(arguments);
-        }
-        jStat3.fn = jStat3.prototype;
-        jStat3._init = function _init(args) {
-          if (isArray(args[0])) {
-            if (isArray(args[0][0])) {
-              if (isFunction(args[1]))
-                args[0] = jStat3.map(args[0], args[1]);
-              for (var i = 0; i < args[0].length; i++)
-                this[i] = args[0][i];
-              this.length = args[0].length;
-            } else {
-              this[0] = isFunction(args[1]) ? jStat3.map(args[0], args[1]) : args[0];
-              this.length = 1;
-            }
-          } else if (isNumber(args[0])) {
-            this[0] = jStat3.seq.apply(null, args);
-            this.length = 1;
-          } else if (args[0] instanceof jStat3) {
-            return jStat3(args[0].toArray());
-          } else {
-            this[0] = [];
-            this.length = 1;
-          }
-          return this;
-        };
-        jStat3._init.prototype = jStat3.prototype;
-        jStat3._init.constructor = jStat3;
-        jStat3.utils = {
-          calcRdx,
-          isArray,
-          isFunction,
-          isNumber,
-          toVector
-        };
-        jStat3._random_fn = Math2.random;
-        jStat3.setRandom = function setRandom(fn) {
-          if (typeof fn !== "function")
-            throw new TypeError("fn is not a function");
-          jStat3._random_fn = fn;
-        };
-        jStat3.extend = function extend2(obj) {
-          var i, j;
-          if (arguments.length === 1) {
-            for (j in obj)
-              jStat3[j] = obj[j];
-            return this;
-          }
-          for (i = 1; i < arguments.length; i++) {
-            for (j in arguments[i])
-              obj[j] = arguments[i][j];
-          }
-          return obj;
-        };
-        jStat3.rows = function rows2(arr) {
-          return arr.length || 1;
-        };
-        jStat3.cols = function cols(arr) {
-          return arr[0].length || 1;
-        };
-        jStat3.dimensions = function dimensions(arr) {
-          return {
-            rows: jStat3.rows(arr),
-            cols: jStat3.cols(arr)
-          };
-        };
-        jStat3.row = function row(arr, index) {
-          if (isArray(index)) {
-            return index.map(function(i) {
-              return jStat3.row(arr, i);
-            });
-          }
-          return arr[index];
-        };
-        jStat3.rowa = function rowa(arr, i) {
-          return jStat3.row(arr, i);
-        };
-        jStat3.col = function col(arr, index) {
-          if (isArray(index)) {
-            var submat = jStat3.arange(arr.length).map(function() {
-              return new Array(index.length);
-            });
-            index.forEach(function(ind, i2) {
-              jStat3.arange(arr.length).forEach(function(j) {
-                submat[j][i2] = arr[j][ind];
-              });
-            });
-            return submat;
-          }
-          var column = new Array(arr.length);
-          for (var i = 0; i < arr.length; i++)
-            column[i] = [arr[i][index]];
-          return column;
-        };
-        jStat3.cola = function cola(arr, i) {
-          return jStat3.col(arr, i).map(function(a) {
-            return a[0];
-          });
-        };
-        jStat3.diag = function diag(arr) {
-          var nrow = jStat3.rows(arr);
-          var res = new Array(nrow);
-          for (var row = 0; row < nrow; row++)
-            res[row] = [arr[row][row]];
-          return res;
-        };
-        jStat3.antidiag = function antidiag(arr) {
-          var nrow = jStat3.rows(arr) - 1;
-          var res = new Array(nrow);
-          for (var i = 0; nrow >= 0; nrow--, i++)
-            res[i] = [arr[i][nrow]];
-          return res;
-        };
-        jStat3.transpose = function transpose(arr) {
-          var obj = [];
-          var objArr, rows2, cols, j, i;
-          if (!isArray(arr[0]))
-            arr = [arr];
-          rows2 = arr.length;
-          cols = arr[0].length;
-          for (i = 0; i < cols; i++) {
-            objArr = new Array(rows2);
-            for (j = 0; j < rows2; j++)
-              objArr[j] = arr[j][i];
-            obj.push(objArr);
-          }
-          return obj.length === 1 ? obj[0] : obj;
-        };
-        jStat3.map = function map2(arr, func, toAlter) {
-          var row, nrow, ncol, res, col;
-          if (!isArray(arr[0]))
-            arr = [arr];
-          nrow = arr.length;
-          ncol = arr[0].length;
-          res = toAlter ? arr : new Array(nrow);
-          for (row = 0; row < nrow; row++) {
-            if (!res[row])
-              res[row] = new Array(ncol);
-            for (col = 0; col < ncol; col++)
-              res[row][col] = func(arr[row][col], row, col);
-          }
-          return res.length === 1 ? res[0] : res;
-        };
-        jStat3.cumreduce = function cumreduce(arr, func, toAlter) {
-          var row, nrow, ncol, res, col;
-          if (!isArray(arr[0]))
-            arr = [arr];
-          nrow = arr.length;
-          ncol = arr[0].length;
-          res = toAlter ? arr : new Array(nrow);
-          for (row = 0; row < nrow; row++) {
-            if (!res[row])
-              res[row] = new Array(ncol);
-            if (ncol > 0)
-              res[row][0] = arr[row][0];
-            for (col = 1; col < ncol; col++)
-              res[row][col] = func(res[row][col - 1], arr[row][col]);
-          }
-          return res.length === 1 ? res[0] : res;
-        };
-        jStat3.alter = function alter(arr, func) {
-          return jStat3.map(arr, func, true);
-        };
-        jStat3.create = function create(rows2, cols, func) {
-          var res = new Array(rows2);
-          var i, j;
-          if (isFunction(cols)) {
-            func = cols;
-            cols = rows2;
-          }
-          for (i = 0; i < rows2; i++) {
-            res[i] = new Array(cols);
-            for (j = 0; j < cols; j++)
-              res[i][j] = func(i, j);
-          }
-          return res;
-        };
-        function retZero() {
-          return 0;
-        }
-        jStat3.zeros = function zeros(rows2, cols) {
-          if (!isNumber(cols))
-            cols = rows2;
-          return jStat3.create(rows2, cols, retZero);
-        };
-        function retOne() {
-          return 1;
-        }
-        jStat3.ones = function ones(rows2, cols) {
-          if (!isNumber(cols))
-            cols = rows2;
-          return jStat3.create(rows2, cols, retOne);
-        };
-        jStat3.rand = function rand(rows2, cols) {
-          if (!isNumber(cols))
-            cols = rows2;
-          return jStat3.create(rows2, cols, jStat3._random_fn);
-        };
-        function retIdent(i, j) {
-          return i === j ? 1 : 0;
-        }
-        jStat3.identity = function identity(rows2, cols) {
-          if (!isNumber(cols))
-            cols = rows2;
-          return jStat3.create(rows2, cols, retIdent);
-        };
-        jStat3.symmetric = function symmetric(arr) {
-          var size = arr.length;
-          var row, col;
-          if (arr.length !== arr[0].length)
-            return false;
-          for (row = 0; row < size; row++) {
-            for (col = 0; col < size; col++)
-              if (arr[col][row] !== arr[row][col])
-                return false;
-          }
-          return true;
-        };
-        jStat3.clear = function clear(arr) {
-          return jStat3.alter(arr, retZero);
-        };
-        jStat3.seq = function seq(min, max, length, func) {
-          if (!isFunction(func))
-            func = false;
-          var arr = [];
-          var hival = calcRdx(min, max);
-          var step = (max * hival - min * hival) / ((length - 1) * hival);
-          var current = min;
-          var cnt;
-          for (cnt = 0; current <= max && cnt < length; cnt++, current = (min * hival + step * hival * cnt) / hival) {
-            arr.push(func ? func(current, cnt) : current);
-          }
-          return arr;
-        };
-        jStat3.arange = function arange(start, end, step) {
-          var rl = [];
-          var i;
-          step = step || 1;
-          if (end === undefined2) {
-            end = start;
-            start = 0;
-          }
-          if (start === end || step === 0) {
-            return [];
-          }
-          if (start < end && step < 0) {
-            return [];
-          }
-          if (start > end && step > 0) {
-            return [];
-          }
-          if (step > 0) {
-            for (i = start; i < end; i += step) {
-              rl.push(i);
-            }
-          } else {
-            for (i = start; i > end; i += step) {
-              rl.push(i);
-            }
-          }
-          return rl;
-        };
-        jStat3.slice = /* @__PURE__ */ (function() {
-          function _slice(list2, start, end, step) {
-            var i;
-            var rl = [];
-            var length = list2.length;
-            if (start === undefined2 && end === undefined2 && step === undefined2) {
-              return jStat3.copy(list2);
-            }
-            start = start || 0;
-            end = end || list2.length;
-            start = start >= 0 ? start : length + start;
-            end = end >= 0 ? end : length + end;
-            step = step || 1;
-            if (start === end || step === 0) {
-              return [];
-            }
-            if (start < end && step < 0) {
-              return [];
-            }
-            if (start > end && step > 0) {
-              return [];
-            }
-            if (step > 0) {
-              for (i = start; i < end; i += step) {
-                rl.push(list2[i]);
-              }
-            } else {
-              for (i = start; i > end; i += step) {
-                rl.push(list2[i]);
-              }
-            }
-            return rl;
-          }
-          function slice2(list2, rcSlice) {
-            var colSlice, rowSlice;
-            rcSlice = rcSlice || {};
-            if (isNumber(rcSlice.row)) {
-              if (isNumber(rcSlice.col))
-                return list2[rcSlice.row][rcSlice.col];
-              var row = jStat3.rowa(list2, rcSlice.row);
-              colSlice = rcSlice.col || {};
-              return _slice(row, colSlice.start, colSlice.end, colSlice.step);
-            }
-            if (isNumber(rcSlice.col)) {
-              var col = jStat3.cola(list2, rcSlice.col);
-              rowSlice = rcSlice.row || {};
-              return _slice(col, rowSlice.start, rowSlice.end, rowSlice.step);
-            }
-            rowSlice = rcSlice.row || {};
-            colSlice = rcSlice.col || {};
-            var rows2 = _slice(list2, rowSlice.start, rowSlice.end, rowSlice.step);
-            return rows2.map(function(row2) {
-              return _slice(row2, colSlice.start, colSlice.end, colSlice.step);
-            });
-          }
-          return slice2;
-        })();
-        jStat3.sliceAssign = function sliceAssign(A, rcSlice, B) {
-          var nl, ml;
-          if (isNumber(rcSlice.row)) {
-            if (isNumber(rcSlice.col))
-              return A[rcSlice.row][rcSlice.col] = B;
-            rcSlice.col = rcSlice.col || {};
-            rcSlice.col.start = rcSlice.col.start || 0;
-            rcSlice.col.end = rcSlice.col.end || A[0].length;
-            rcSlice.col.step = rcSlice.col.step || 1;
-            nl = jStat3.arange(
-              rcSlice.col.start,
-              Math2.min(A.length, rcSlice.col.end),
-              rcSlice.col.step
-            );
-            var m = rcSlice.row;
-            nl.forEach(function(n2, i) {
-              A[m][n2] = B[i];
-            });
-            return A;
-          }
-          if (isNumber(rcSlice.col)) {
-            rcSlice.row = rcSlice.row || {};
-            rcSlice.row.start = rcSlice.row.start || 0;
-            rcSlice.row.end = rcSlice.row.end || A.length;
-            rcSlice.row.step = rcSlice.row.step || 1;
-            ml = jStat3.arange(
-              rcSlice.row.start,
-              Math2.min(A[0].length, rcSlice.row.end),
-              rcSlice.row.step
-            );
-            var n = rcSlice.col;
-            ml.forEach(function(m2, j) {
-              A[m2][n] = B[j];
-            });
-            return A;
-          }
-          if (B[0].length === undefined2) {
-            B = [B];
-          }
-          rcSlice.row.start = rcSlice.row.start || 0;
-          rcSlice.row.end = rcSlice.row.end || A.length;
-          rcSlice.row.step = rcSlice.row.step || 1;
-          rcSlice.col.start = rcSlice.col.start || 0;
-          rcSlice.col.end = rcSlice.col.end || A[0].length;
-          rcSlice.col.step = rcSlice.col.step || 1;
-          ml = jStat3.arange(
-            rcSlice.row.start,
-            Math2.min(A.length, rcSlice.row.end),
-            rcSlice.row.step
-          );
-          nl = jStat3.arange(
-            rcSlice.col.start,
-            Math2.min(A[0].length, rcSlice.col.end),
-            rcSlice.col.step
-          );
-          ml.forEach(function(m2, i) {
-            nl.forEach(function(n2, j) {
-              A[m2][n2] = B[i][j];
-            });
-          });
-          return A;
-        };
-        jStat3.diagonal = function diagonal(diagArray) {
-          var mat = jStat3.zeros(diagArray.length, diagArray.length);
-          diagArray.forEach(function(t, i) {
-            mat[i][i] = t;
-          });
-          return mat;
-        };
-        jStat3.copy = function copy(A) {
-          return A.map(function(row) {
-            if (isNumber(row))
-              return row;
-            return row.map(function(t) {
-              return t;
-            });
-          });
-        };
-        var jProto = jStat3.prototype;
-        jProto.length = 0;
-        jProto.push = Array.prototype.push;
-        jProto.sort = Array.prototype.sort;
-        jProto.splice = Array.prototype.splice;
-        jProto.slice = Array.prototype.slice;
-        jProto.toArray = function toArray() {
-          return this.length > 1 ? slice.call(this) : slice.call(this)[0];
-        };
-        jProto.map = function map2(func, toAlter) {
-          return jStat3(jStat3.map(this, func, toAlter));
-        };
-        jProto.cumreduce = function cumreduce(func, toAlter) {
-          return jStat3(jStat3.cumreduce(this, func, toAlter));
-        };
-        jProto.alter = function alter(func) {
-          jStat3.alter(this, func);
-          return this;
-        };
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function(func) {
-              var self = this, results;
-              if (func) {
-                setTimeout(function() {
-                  func.call(self, jProto[passfunc].call(self));
-                });
-                return this;
-              }
-              results = jStat3[passfunc](this);
-              return isArray(results) ? jStat3(results) : results;
-            };
-          })(funcs[i]);
-        })("transpose clear symmetric rows cols dimensions diag antidiag".split(" "));
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function(index, func) {
-              var self = this;
-              if (func) {
-                setTimeout(function() {
-                  func.call(self, jProto[passfunc].call(self, index));
-                });
-                return this;
-              }
-              return jStat3(jStat3[passfunc](this, index));
-            };
-          })(funcs[i]);
-        })("row col".split(" "));
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function() {
-              return jStat3(jStat3[passfunc].apply(null, arguments));
-            };
-          })(funcs[i]);
-        })("create zeros ones rand identity".split(" "));
-        return jStat3;
-      })(Math);
-      (function(jStat3, Math2) {
-        var isFunction = jStat3.utils.isFunction;
-        function ascNum(a, b) {
-          return a - b;
-        }
-        function clip(arg, min, max) {
-          return Math2.max(min, Math2.min(arg, max));
-        }
-        jStat3.sum = function sum(arr) {
-          var sum2 = 0;
-          var i = arr.length;
-          while (--i >= 0)
-            sum2 += arr[i];
-          return sum2;
-        };
-        jStat3.sumsqrd = function sumsqrd(arr) {
-          var sum = 0;
-          var i = arr.length;
-          while (--i >= 0)
-            sum += arr[i] * arr[i];
-          return sum;
-        };
-        jStat3.sumsqerr = function sumsqerr(arr) {
-          var mean = jStat3.mean(arr);
-          var sum = 0;
-          var i = arr.length;
-          var tmp;
-          while (--i >= 0) {
-            tmp = arr[i] - mean;
-            sum += tmp * tmp;
-          }
-          return sum;
-        };
-        jStat3.sumrow = function sumrow(arr) {
-          var sum = 0;
-          var i = arr.length;
-          while (--i >= 0)
-            sum += arr[i];
-          return sum;
-        };
-        jStat3.product = function product(arr) {
-          var prod = 1;
-          var i = arr.length;
-          while (--i >= 0)
-            prod *= arr[i];
-          return prod;
-        };
-        jStat3.min = function min(arr) {
-          var low = arr[0];
-          var i = 0;
-          while (++i < arr.length)
-            if (arr[i] < low)
-              low = arr[i];
-          return low;
-        };
-        jStat3.max = function max(arr) {
-          var high = arr[0];
-          var i = 0;
-          while (++i < arr.length)
-            if (arr[i] > high)
-              high = arr[i];
-          return high;
-        };
-        jStat3.unique = function unique(arr) {
-          var hash2 = {}, _arr = [];
-          for (var i = 0; i < arr.length; i++) {
-            if (!hash2[arr[i]]) {
-              hash2[arr[i]] = true;
-              _arr.push(arr[i]);
-            }
-          }
-          return _arr;
-        };
-        jStat3.mean = function mean(arr) {
-          return jStat3.sum(arr) / arr.length;
-        };
-        jStat3.meansqerr = function meansqerr(arr) {
-          return jStat3.sumsqerr(arr) / arr.length;
-        };
-        jStat3.geomean = function geomean(arr) {
-          var logs = arr.map(Math2.log);
-          var meanOfLogs = jStat3.mean(logs);
-          return Math2.exp(meanOfLogs);
-        };
-        jStat3.median = function median(arr) {
-          var arrlen = arr.length;
-          var _arr = arr.slice().sort(ascNum);
-          return !(arrlen & 1) ? (_arr[arrlen / 2 - 1] + _arr[arrlen / 2]) / 2 : _arr[arrlen / 2 | 0];
-        };
-        jStat3.cumsum = function cumsum(arr) {
-          return jStat3.cumreduce(arr, function(a, b) {
-            return a + b;
-          });
-        };
-        jStat3.cumprod = function cumprod(arr) {
-          return jStat3.cumreduce(arr, function(a, b) {
-            return a * b;
-          });
-        };
-        jStat3.diff = function diff(arr) {
-          var diffs = [];
-          var arrLen = arr.length;
-          var i;
-          for (i = 1; i < arrLen; i++)
-            diffs.push(arr[i] - arr[i - 1]);
-          return diffs;
-        };
-        jStat3.rank = function(arr) {
-          var i;
-          var distinctNumbers = [];
-          var numberCounts = {};
-          for (i = 0; i < arr.length; i++) {
-            var number5 = arr[i];
-            if (numberCounts[number5]) {
-              numberCounts[number5]++;
-            } else {
-              numberCounts[number5] = 1;
-              distinctNumbers.push(number5);
-            }
-          }
-          var sortedDistinctNumbers = distinctNumbers.sort(ascNum);
-          var numberRanks = {};
-          var currentRank = 1;
-          for (i = 0; i < sortedDistinctNumbers.length; i++) {
-            var number5 = sortedDistinctNumbers[i];
-            var count3 = numberCounts[number5];
-            var first = currentRank;
-            var last = currentRank + count3 - 1;
-            var rank = (first + last) / 2;
-            numberRanks[number5] = rank;
-            currentRank += count3;
-          }
-          return arr.map(function(number6) {
-            return numberRanks[number6];
-          });
-        };
-        jStat3.mode = function mode(arr) {
-          var arrLen = arr.length;
-          var _arr = arr.slice().sort(ascNum);
-          var count3 = 1;
-          var maxCount = 0;
-          var numMaxCount = 0;
-          var mode_arr = [];
-          var i;
-          for (i = 0; i < arrLen; i++) {
-            if (_arr[i] === _arr[i + 1]) {
-              count3++;
-            } else {
-              if (count3 > maxCount) {
-                mode_arr = [_arr[i]];
-                maxCount = count3;
-                numMaxCount = 0;
-              } else if (count3 === maxCount) {
-                mode_arr.push(_arr[i]);
-                numMaxCount++;
-              }
-              count3 = 1;
-            }
-          }
-          return numMaxCount === 0 ? mode_arr[0] : mode_arr;
-        };
-        jStat3.range = function range(arr) {
-          return jStat3.max(arr) - jStat3.min(arr);
-        };
-        jStat3.variance = function variance(arr, flag) {
-          return jStat3.sumsqerr(arr) / (arr.length - (flag ? 1 : 0));
-        };
-        jStat3.pooledvariance = function pooledvariance(arr) {
-          var sumsqerr = arr.reduce(function(a, samples) {
-            return a + jStat3.sumsqerr(samples);
-          }, 0);
-          var count3 = arr.reduce(function(a, samples) {
-            return a + samples.length;
-          }, 0);
-          return sumsqerr / (count3 - arr.length);
-        };
-        jStat3.deviation = function(arr) {
-          var mean = jStat3.mean(arr);
-          var arrlen = arr.length;
-          var dev = new Array(arrlen);
-          for (var i = 0; i < arrlen; i++) {
-            dev[i] = arr[i] - mean;
-          }
-          return dev;
-        };
-        jStat3.stdev = function stdev(arr, flag) {
-          return Math2.sqrt(jStat3.variance(arr, flag));
-        };
-        jStat3.pooledstdev = function pooledstdev(arr) {
-          return Math2.sqrt(jStat3.pooledvariance(arr));
-        };
-        jStat3.meandev = function meandev(arr) {
-          var mean = jStat3.mean(arr);
-          var a = [];
-          for (var i = arr.length - 1; i >= 0; i--) {
-            a.push(Math2.abs(arr[i] - mean));
-          }
-          return jStat3.mean(a);
-        };
-        jStat3.meddev = function meddev(arr) {
-          var median = jStat3.median(arr);
-          var a = [];
-          for (var i = arr.length - 1; i >= 0; i--) {
-            a.push(Math2.abs(arr[i] - median));
-          }
-          return jStat3.median(a);
-        };
-        jStat3.coeffvar = function coeffvar(arr) {
-          return jStat3.stdev(arr) / jStat3.mean(arr);
-        };
-        jStat3.quartiles = function quartiles(arr) {
-          var arrlen = arr.length;
-          var _arr = arr.slice().sort(ascNum);
-          return [
-            _arr[Math2.round(arrlen / 4) - 1],
-            _arr[Math2.round(arrlen / 2) - 1],
-            _arr[Math2.round(arrlen * 3 / 4) - 1]
-          ];
-        };
-        jStat3.quantiles = function quantiles(arr, quantilesArray, alphap, betap) {
-          var sortedArray = arr.slice().sort(ascNum);
-          var quantileVals = [quantilesArray.length];
-          var n = arr.length;
-          var i, p, m, aleph, k, gamma;
-          if (typeof alphap === "undefined")
-            alphap = 3 / 8;
-          if (typeof betap === "undefined")
-            betap = 3 / 8;
-          for (i = 0; i < quantilesArray.length; i++) {
-            p = quantilesArray[i];
-            m = alphap + p * (1 - alphap - betap);
-            aleph = n * p + m;
-            k = Math2.floor(clip(aleph, 1, n - 1));
-            gamma = clip(aleph - k, 0, 1);
-            quantileVals[i] = (1 - gamma) * sortedArray[k - 1] + gamma * sortedArray[k];
-          }
-          return quantileVals;
-        };
-        jStat3.percentile = function percentile(arr, k, exclusive) {
-          var _arr = arr.slice().sort(ascNum);
-          var realIndex = k * (_arr.length + (exclusive ? 1 : -1)) + (exclusive ? 0 : 1);
-          var index = parseInt(realIndex);
-          var frac = realIndex - index;
-          if (index + 1 < _arr.length) {
-            return _arr[index - 1] + frac * (_arr[index] - _arr[index - 1]);
-          } else {
-            return _arr[index - 1];
-          }
-        };
-        jStat3.percentileOfScore = function percentileOfScore(arr, score, kind) {
-          var counter = 0;
-          var len = arr.length;
-          var strict = false;
-          var value, i;
-          if (kind === "strict")
-            strict = true;
-          for (i = 0; i < len; i++) {
-            value = arr[i];
-            if (strict && value < score || !strict && value <= score) {
-              counter++;
-            }
-          }
-          return counter / len;
-        };
-        jStat3.histogram = function histogram(arr, binCnt) {
-          binCnt = binCnt || 4;
-          var first = jStat3.min(arr);
-          var binWidth = (jStat3.max(arr) - first) / binCnt;
-          var len = arr.length;
-          var bins = [];
-          var i;
-          for (i = 0; i < binCnt; i++)
-            bins[i] = 0;
-          for (i = 0; i < len; i++)
-            bins[Math2.min(Math2.floor((arr[i] - first) / binWidth), binCnt - 1)] += 1;
-          return bins;
-        };
-        jStat3.covariance = function covariance(arr1, arr2) {
-          var u = jStat3.mean(arr1);
-          var v = jStat3.mean(arr2);
-          var arr1Len = arr1.length;
-          var sq_dev = new Array(arr1Len);
-          var i;
-          for (i = 0; i < arr1Len; i++)
-            sq_dev[i] = (arr1[i] - u) * (arr2[i] - v);
-          return jStat3.sum(sq_dev) / (arr1Len - 1);
-        };
-        jStat3.corrcoeff = function corrcoeff(arr1, arr2) {
-          return jStat3.covariance(arr1, arr2) / jStat3.stdev(arr1, 1) / jStat3.stdev(arr2, 1);
-        };
-        jStat3.spearmancoeff = function(arr1, arr2) {
-          arr1 = jStat3.rank(arr1);
-          arr2 = jStat3.rank(arr2);
-          return jStat3.corrcoeff(arr1, arr2);
-        };
-        jStat3.stanMoment = function stanMoment(arr, n) {
-          var mu = jStat3.mean(arr);
-          var sigma = jStat3.stdev(arr);
-          var len = arr.length;
-          var skewSum = 0;
-          for (var i = 0; i < len; i++)
-            skewSum += Math2.pow((arr[i] - mu) / sigma, n);
-          return skewSum / arr.length;
-        };
-        jStat3.skewness = function skewness(arr) {
-          return jStat3.stanMoment(arr, 3);
-        };
-        jStat3.kurtosis = function kurtosis(arr) {
-          return jStat3.stanMoment(arr, 4) - 3;
-        };
-        var jProto = jStat3.prototype;
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function(fullbool, func) {
-              var arr = [];
-              var i2 = 0;
-              var tmpthis = this;
-              if (isFunction(fullbool)) {
-                func = fullbool;
-                fullbool = false;
-              }
-              if (func) {
-                setTimeout(function() {
-                  func.call(tmpthis, jProto[passfunc].call(tmpthis, fullbool));
-                });
-                return this;
-              }
-              if (this.length > 1) {
-                tmpthis = fullbool === true ? this : this.transpose();
-                for (; i2 < tmpthis.length; i2++)
-                  arr[i2] = jStat3[passfunc](tmpthis[i2]);
-                return arr;
-              }
-              return jStat3[passfunc](this[0], fullbool);
-            };
-          })(funcs[i]);
-        })("cumsum cumprod".split(" "));
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function(fullbool, func) {
-              var arr = [];
-              var i2 = 0;
-              var tmpthis = this;
-              if (isFunction(fullbool)) {
-                func = fullbool;
-                fullbool = false;
-              }
-              if (func) {
-                setTimeout(function() {
-                  func.call(tmpthis, jProto[passfunc].call(tmpthis, fullbool));
-                });
-                return this;
-              }
-              if (this.length > 1) {
-                if (passfunc !== "sumrow")
-                  tmpthis = fullbool === true ? this : this.transpose();
-                for (; i2 < tmpthis.length; i2++)
-                  arr[i2] = jStat3[passfunc](tmpthis[i2]);
-                return fullbool === true ? jStat3[passfunc](jStat3.utils.toVector(arr)) : arr;
-              }
-              return jStat3[passfunc](this[0], fullbool);
-            };
-          })(funcs[i]);
-        })("sum sumsqrd sumsqerr sumrow product min max unique mean meansqerr geomean median diff rank mode range variance deviation stdev meandev meddev coeffvar quartiles histogram skewness kurtosis".split(" "));
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jProto[passfunc] = function() {
-              var arr = [];
-              var i2 = 0;
-              var tmpthis = this;
-              var args = Array.prototype.slice.call(arguments);
-              var callbackFunction;
-              if (isFunction(args[args.length - 1])) {
-                callbackFunction = args[args.length - 1];
-                var argsToPass = args.slice(0, args.length - 1);
-                setTimeout(function() {
-                  callbackFunction.call(
-                    tmpthis,
-                    jProto[passfunc].apply(tmpthis, argsToPass)
-                  );
-                });
-                return this;
-              } else {
-                callbackFunction = void 0;
-                var curriedFunction = function curriedFunction2(vector) {
-                  return jStat3[passfunc].apply(tmpthis, [vector].concat(args));
-                };
-              }
-              if (this.length > 1) {
-                tmpthis = tmpthis.transpose();
-                for (; i2 < tmpthis.length; i2++)
-                  arr[i2] = curriedFunction(tmpthis[i2]);
-                return arr;
-              }
-              return curriedFunction(this[0]);
-            };
-          })(funcs[i]);
-        })("quantiles percentileOfScore".split(" "));
-      })(jStat2, Math);
-      (function(jStat3, Math2) {
-        jStat3.gammaln = function gammaln(x) {
-          var j = 0;
-          var cof = [
-            76.18009172947146,
-            -86.50532032941678,
-            24.01409824083091,
-            -1.231739572450155,
-            0.001208650973866179,
-            -5395239384953e-18
-          ];
-          var ser = 1.000000000190015;
-          var xx, y, tmp;
-          tmp = (y = xx = x) + 5.5;
-          tmp -= (xx + 0.5) * Math2.log(tmp);
-          for (; j < 6; j++)
-            ser += cof[j] / ++y;
-          return Math2.log(2.5066282746310007 * ser / xx) - tmp;
-        };
-        jStat3.loggam = function loggam(x) {
-          var x0, x2, xp, gl, gl0;
-          var k, n;
-          var a = [
-            0.08333333333333333,
-            -0.002777777777777778,
-            7936507936507937e-19,
-            -5952380952380952e-19,
-            8417508417508418e-19,
-            -0.001917526917526918,
-            0.00641025641025641,
-            -0.02955065359477124,
-            0.1796443723688307,
-            -1.3924322169059
-          ];
-          x0 = x;
-          n = 0;
-          if (x == 1 || x == 2) {
-            return 0;
-          }
-          if (x <= 7) {
-            n = Math2.floor(7 - x);
-            x0 = x + n;
-          }
-          x2 = 1 / (x0 * x0);
-          xp = 2 * Math2.PI;
-          gl0 = a[9];
-          for (k = 8; k >= 0; k--) {
-            gl0 *= x2;
-            gl0 += a[k];
-          }
-          gl = gl0 / x0 + 0.5 * Math2.log(xp) + (x0 - 0.5) * Math2.log(x0) - x0;
-          if (x <= 7) {
-            for (k = 1; k <= n; k++) {
-              gl -= Math2.log(x0 - 1);
-              x0 -= 1;
-            }
-          }
-          return gl;
-        };
-        jStat3.gammafn = function gammafn(x) {
-          var p = [
-            -1.716185138865495,
-            24.76565080557592,
-            -379.80425647094563,
-            629.3311553128184,
-            866.9662027904133,
-            -31451.272968848367,
-            -36144.413418691176,
-            66456.14382024054
-          ];
-          var q = [
-            -30.8402300119739,
-            315.35062697960416,
-            -1015.1563674902192,
-            -3107.771671572311,
-            22538.11842098015,
-            4755.846277527881,
-            -134659.9598649693,
-            -115132.2596755535
-          ];
-          var fact = false;
-          var n = 0;
-          var xden = 0;
-          var xnum = 0;
-          var y = x;
-          var i, z2, yi, res;
-          if (x > 171.6243769536076) {
-            return Infinity;
-          }
-          if (y <= 0) {
-            res = y % 1 + 36e-17;
-            if (res) {
-              fact = (!(y & 1) ? 1 : -1) * Math2.PI / Math2.sin(Math2.PI * res);
-              y = 1 - y;
-            } else {
-              return Infinity;
-            }
-          }
-          yi = y;
-          if (y < 1) {
-            z2 = y++;
-          } else {
-            z2 = (y -= n = (y | 0) - 1) - 1;
-          }
-          for (i = 0; i < 8; ++i) {
-            xnum = (xnum + p[i]) * z2;
-            xden = xden * z2 + q[i];
-          }
-          res = xnum / xden + 1;
-          if (yi < y) {
-            res /= yi;
-          } else if (yi > y) {
-            for (i = 0; i < n; ++i) {
-              res *= y;
-              y++;
-            }
-          }
-          if (fact) {
-            res = fact / res;
-          }
-          return res;
-        };
-        jStat3.gammap = function gammap(a, x) {
-          return jStat3.lowRegGamma(a, x) * jStat3.gammafn(a);
-        };
-        jStat3.lowRegGamma = function lowRegGamma(a, x) {
-          var aln = jStat3.gammaln(a);
-          var ap = a;
-          var sum = 1 / a;
-          var del = sum;
-          var b = x + 1 - a;
-          var c = 1 / 1e-30;
-          var d = 1 / b;
-          var h = d;
-          var i = 1;
-          var ITMAX = -~(Math2.log(a >= 1 ? a : 1 / a) * 8.5 + a * 0.4 + 17);
-          var an;
-          if (x < 0 || a <= 0) {
-            return NaN;
-          } else if (x < a + 1) {
-            for (; i <= ITMAX; i++) {
-              sum += del *= x / ++ap;
-            }
-            return sum * Math2.exp(-x + a * Math2.log(x) - aln);
-          }
-          for (; i <= ITMAX; i++) {
-            an = -i * (i - a);
-            b += 2;
-            d = an * d + b;
-            c = b + an / c;
-            d = 1 / d;
-            h *= d * c;
-          }
-          return 1 - h * Math2.exp(-x + a * Math2.log(x) - aln);
-        };
-        jStat3.factorialln = function factorialln(n) {
-          return n < 0 ? NaN : jStat3.gammaln(n + 1);
-        };
-        jStat3.factorial = function factorial(n) {
-          return n < 0 ? NaN : jStat3.gammafn(n + 1);
-        };
-        jStat3.combination = function combination(n, m) {
-          return n > 170 || m > 170 ? Math2.exp(jStat3.combinationln(n, m)) : jStat3.factorial(n) / jStat3.factorial(m) / jStat3.factorial(n - m);
-        };
-        jStat3.combinationln = function combinationln(n, m) {
-          return jStat3.factorialln(n) - jStat3.factorialln(m) - jStat3.factorialln(n - m);
-        };
-        jStat3.permutation = function permutation(n, m) {
-          return jStat3.factorial(n) / jStat3.factorial(n - m);
-        };
-        jStat3.betafn = function betafn(x, y) {
-          if (x <= 0 || y <= 0)
-            return void 0;
-          return x + y > 170 ? Math2.exp(jStat3.betaln(x, y)) : jStat3.gammafn(x) * jStat3.gammafn(y) / jStat3.gammafn(x + y);
-        };
-        jStat3.betaln = function betaln(x, y) {
-          return jStat3.gammaln(x) + jStat3.gammaln(y) - jStat3.gammaln(x + y);
-        };
-        jStat3.betacf = function betacf(x, a, b) {
-          var fpmin = 1e-30;
-          var m = 1;
-          var qab = a + b;
-          var qap = a + 1;
-          var qam = a - 1;
-          var c = 1;
-          var d = 1 - qab * x / qap;
-          var m2, aa, del, h;
-          if (Math2.abs(d) < fpmin)
-            d = fpmin;
-          d = 1 / d;
-          h = d;
-          for (; m <= 100; m++) {
-            m2 = 2 * m;
-            aa = m * (b - m) * x / ((qam + m2) * (a + m2));
-            d = 1 + aa * d;
-            if (Math2.abs(d) < fpmin)
-              d = fpmin;
-            c = 1 + aa / c;
-            if (Math2.abs(c) < fpmin)
-              c = fpmin;
-            d = 1 / d;
-            h *= d * c;
-            aa = -(a + m) * (qab + m) * x / ((a + m2) * (qap + m2));
-            d = 1 + aa * d;
-            if (Math2.abs(d) < fpmin)
-              d = fpmin;
-            c = 1 + aa / c;
-            if (Math2.abs(c) < fpmin)
-              c = fpmin;
-            d = 1 / d;
-            del = d * c;
-            h *= del;
-            if (Math2.abs(del - 1) < 3e-7)
-              break;
-          }
-          return h;
-        };
-        jStat3.gammapinv = function gammapinv(p, a) {
-          var j = 0;
-          var a1 = a - 1;
-          var EPS = 1e-8;
-          var gln = jStat3.gammaln(a);
-          var x, err, t, u, pp, lna1, afac;
-          if (p >= 1)
-            return Math2.max(100, a + 100 * Math2.sqrt(a));
-          if (p <= 0)
-            return 0;
-          if (a > 1) {
-            lna1 = Math2.log(a1);
-            afac = Math2.exp(a1 * (lna1 - 1) - gln);
-            pp = p < 0.5 ? p : 1 - p;
-            t = Math2.sqrt(-2 * Math2.log(pp));
-            x = (2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t;
-            if (p < 0.5)
-              x = -x;
-            x = Math2.max(
-              1e-3,
-              a * Math2.pow(1 - 1 / (9 * a) - x / (3 * Math2.sqrt(a)), 3)
-            );
-          } else {
-            t = 1 - a * (0.253 + a * 0.12);
-            if (p < t)
-              x = Math2.pow(p / t, 1 / a);
-            else
-              x = 1 - Math2.log(1 - (p - t) / (1 - t));
-          }
-          for (; j < 12; j++) {
-            if (x <= 0)
-              return 0;
-            err = jStat3.lowRegGamma(a, x) - p;
-            if (a > 1)
-              t = afac * Math2.exp(-(x - a1) + a1 * (Math2.log(x) - lna1));
-            else
-              t = Math2.exp(-x + a1 * Math2.log(x) - gln);
-            u = err / t;
-            x -= t = u / (1 - 0.5 * Math2.min(1, u * ((a - 1) / x - 1)));
-            if (x <= 0)
-              x = 0.5 * (x + t);
-            if (Math2.abs(t) < EPS * x)
-              break;
-          }
-          return x;
-        };
-        jStat3.erf = function erf(x) {
-          var cof = [
-            -1.3026537197817094,
-            0.6419697923564902,
-            0.019476473204185836,
-            -0.00956151478680863,
-            -946595344482036e-18,
-            366839497852761e-18,
-            42523324806907e-18,
-            -20278578112534e-18,
-            -1624290004647e-18,
-            130365583558e-17,
-            15626441722e-18,
-            -85238095915e-18,
-            6529054439e-18,
-            5059343495e-18,
-            -991364156e-18,
-            -227365122e-18,
-            96467911e-18,
-            2394038e-18,
-            -6886027e-18,
-            894487e-18,
-            313092e-18,
-            -112708e-18,
-            381e-18,
-            7106e-18,
-            -1523e-18,
-            -94e-18,
-            121e-18,
-            -28e-18
-          ];
-          var j = cof.length - 1;
-          var isneg = false;
-          var d = 0;
-          var dd = 0;
-          var t, ty, tmp, res;
-          if (x < 0) {
-            x = -x;
-            isneg = true;
-          }
-          t = 2 / (2 + x);
-          ty = 4 * t - 2;
-          for (; j > 0; j--) {
-            tmp = d;
-            d = ty * d - dd + cof[j];
-            dd = tmp;
-          }
-          res = t * Math2.exp(-x * x + 0.5 * (cof[0] + ty * d) - dd);
-          return isneg ? res - 1 : 1 - res;
-        };
-        jStat3.erfc = function erfc(x) {
-          return 1 - jStat3.erf(x);
-        };
-        jStat3.erfcinv = function erfcinv(p) {
-          var j = 0;
-          var x, err, t, pp;
-          if (p >= 2)
-            return -100;
-          if (p <= 0)
-            return 100;
-          pp = p < 1 ? p : 2 - p;
-          t = Math2.sqrt(-2 * Math2.log(pp / 2));
-          x = -0.70711 * ((2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t);
-          for (; j < 2; j++) {
-            err = jStat3.erfc(x) - pp;
-            x += err / (1.1283791670955126 * Math2.exp(-x * x) - x * err);
-          }
-          return p < 1 ? x : -x;
-        };
-        jStat3.ibetainv = function ibetainv(p, a, b) {
-          var EPS = 1e-8;
-          var a1 = a - 1;
-          var b1 = b - 1;
-          var j = 0;
-          var lna, lnb, pp, t, u, err, x, al, h, w, afac;
-          if (p <= 0)
-            return 0;
-          if (p >= 1)
-            return 1;
-          if (a >= 1 && b >= 1) {
-            pp = p < 0.5 ? p : 1 - p;
-            t = Math2.sqrt(-2 * Math2.log(pp));
-            x = (2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t;
-            if (p < 0.5)
-              x = -x;
-            al = (x * x - 3) / 6;
-            h = 2 / (1 / (2 * a - 1) + 1 / (2 * b - 1));
-            w = x * Math2.sqrt(al + h) / h - (1 / (2 * b - 1) - 1 / (2 * a - 1)) * (al + 5 / 6 - 2 / (3 * h));
-            x = a / (a + b * Math2.exp(2 * w));
-          } else {
-            lna = Math2.log(a / (a + b));
-            lnb = Math2.log(b / (a + b));
-            t = Math2.exp(a * lna) / a;
-            u = Math2.exp(b * lnb) / b;
-            w = t + u;
-            if (p < t / w)
-              x = Math2.pow(a * w * p, 1 / a);
-            else
-              x = 1 - Math2.pow(b * w * (1 - p), 1 / b);
-          }
-          afac = -jStat3.gammaln(a) - jStat3.gammaln(b) + jStat3.gammaln(a + b);
-          for (; j < 10; j++) {
-            if (x === 0 || x === 1)
-              return x;
-            err = jStat3.ibeta(x, a, b) - p;
-            t = Math2.exp(a1 * Math2.log(x) + b1 * Math2.log(1 - x) + afac);
-            u = err / t;
-            x -= t = u / (1 - 0.5 * Math2.min(1, u * (a1 / x - b1 / (1 - x))));
-            if (x <= 0)
-              x = 0.5 * (x + t);
-            if (x >= 1)
-              x = 0.5 * (x + t + 1);
-            if (Math2.abs(t) < EPS * x && j > 0)
-              break;
-          }
-          return x;
-        };
-        jStat3.ibeta = function ibeta(x, a, b) {
-          var bt = x === 0 || x === 1 ? 0 : Math2.exp(jStat3.gammaln(a + b) - jStat3.gammaln(a) - jStat3.gammaln(b) + a * Math2.log(x) + b * Math2.log(1 - x));
-          if (x < 0 || x > 1)
-            return false;
-          if (x < (a + 1) / (a + b + 2))
-            return bt * jStat3.betacf(x, a, b) / a;
-          return 1 - bt * jStat3.betacf(1 - x, b, a) / b;
-        };
-        jStat3.randn = function randn(n, m) {
-          var u, v, x, y, q;
-          if (!m)
-            m = n;
-          if (n)
-            return jStat3.create(n, m, function() {
-              return jStat3.randn();
-            });
-          do {
-            u = jStat3._random_fn();
-            v = 1.7156 * (jStat3._random_fn() - 0.5);
-            x = u - 0.449871;
-            y = Math2.abs(v) + 0.386595;
-            q = x * x + y * (0.196 * y - 0.25472 * x);
-          } while (q > 0.27597 && (q > 0.27846 || v * v > -4 * Math2.log(u) * u * u));
-          return v / u;
-        };
-        jStat3.randg = function randg(shape, n, m) {
-          var oalph = shape;
-          var a1, a2, u, v, x, mat;
-          if (!m)
-            m = n;
-          if (!shape)
-            shape = 1;
-          if (n) {
-            mat = jStat3.zeros(n, m);
-            mat.alter(function() {
-              return jStat3.randg(shape);
-            });
-            return mat;
-          }
-          if (shape < 1)
-            shape += 1;
-          a1 = shape - 1 / 3;
-          a2 = 1 / Math2.sqrt(9 * a1);
-          do {
-            do {
-              x = jStat3.randn();
-              v = 1 + a2 * x;
-            } while (v <= 0);
-            v = v * v * v;
-            u = jStat3._random_fn();
-          } while (u > 1 - 0.331 * Math2.pow(x, 4) && Math2.log(u) > 0.5 * x * x + a1 * (1 - v + Math2.log(v)));
-          if (shape == oalph)
-            return a1 * v;
-          do {
-            u = jStat3._random_fn();
-          } while (u === 0);
-          return Math2.pow(u, 1 / oalph) * a1 * v;
-        };
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jStat3.fn[passfunc] = function() {
-              return jStat3(
-                jStat3.map(this, function(value) {
-                  return jStat3[passfunc](value);
-                })
-              );
-            };
-          })(funcs[i]);
-        })("gammaln gammafn factorial factorialln".split(" "));
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jStat3.fn[passfunc] = function() {
-              return jStat3(jStat3[passfunc].apply(null, arguments));
-            };
-          })(funcs[i]);
-        })("randn".split(" "));
-      })(jStat2, Math);
-      (function(jStat3, Math2) {
-        (function(list2) {
-          for (var i = 0; i < list2.length; i++) (function(func) {
-            jStat3[func] = function f(a, b, c) {
-              if (!(this instanceof f))
-                return new f(a, b, c);
-              this._a = a;
-              this._b = b;
-              this._c = c;
-              return this;
-            };
-            jStat3.fn[func] = function(a, b, c) {
-              var newthis = jStat3[func](a, b, c);
-              newthis.data = this;
-              return newthis;
-            };
-            jStat3[func].prototype.sample = function(arr) {
-              var a = this._a;
-              var b = this._b;
-              var c = this._c;
-              if (arr)
-                return jStat3.alter(arr, function() {
-                  return jStat3[func].sample(a, b, c);
-                });
-              else
-                return jStat3[func].sample(a, b, c);
-            };
-            (function(vals) {
-              for (var i2 = 0; i2 < vals.length; i2++) (function(fnfunc) {
-                jStat3[func].prototype[fnfunc] = function(x) {
-                  var a = this._a;
-                  var b = this._b;
-                  var c = this._c;
-                  if (!x && x !== 0)
-                    x = this.data;
-                  if (typeof x !== "number") {
-                    return jStat3.fn.map.call(x, function(x2) {
-                      return jStat3[func][fnfunc](x2, a, b, c);
-                    });
-                  }
-                  return jStat3[func][fnfunc](x, a, b, c);
-                };
-              })(vals[i2]);
-            })("pdf cdf inv".split(" "));
-            (function(vals) {
-              for (var i2 = 0; i2 < vals.length; i2++) (function(fnfunc) {
-                jStat3[func].prototype[fnfunc] = function() {
-                  return jStat3[func][fnfunc](this._a, this._b, this._c);
-                };
-              })(vals[i2]);
-            })("mean median mode variance".split(" "));
-          })(list2[i]);
-        })("beta centralF cauchy chisquare exponential gamma invgamma kumaraswamy laplace lognormal noncentralt normal pareto studentt weibull uniform binomial negbin hypgeom poisson triangular tukey arcsine".split(" "));
-        jStat3.extend(jStat3.beta, {
-          pdf: function pdf(x, alpha, beta) {
-            if (x > 1 || x < 0)
-              return 0;
-            if (alpha == 1 && beta == 1)
-              return 1;
-            if (alpha < 512 && beta < 512) {
-              return Math2.pow(x, alpha - 1) * Math2.pow(1 - x, beta - 1) / jStat3.betafn(alpha, beta);
-            } else {
-              return Math2.exp((alpha - 1) * Math2.log(x) + (beta - 1) * Math2.log(1 - x) - jStat3.betaln(alpha, beta));
-            }
-          },
-          cdf: function cdf(x, alpha, beta) {
-            return x > 1 || x < 0 ? (x > 1) * 1 : jStat3.ibeta(x, alpha, beta);
-          },
-          inv: function inv(x, alpha, beta) {
-            return jStat3.ibetainv(x, alpha, beta);
-          },
-          mean: function mean(alpha, beta) {
-            return alpha / (alpha + beta);
-          },
-          median: function median(alpha, beta) {
-            return jStat3.ibetainv(0.5, alpha, beta);
-          },
-          mode: function mode(alpha, beta) {
-            return (alpha - 1) / (alpha + beta - 2);
-          },
-          // return a random sample
-          sample: function sample(alpha, beta) {
-            var u = jStat3.randg(alpha);
-            return u / (u + jStat3.randg(beta));
-          },
-          variance: function variance(alpha, beta) {
-            return alpha * beta / (Math2.pow(alpha + beta, 2) * (alpha + beta + 1));
-          }
-        });
-        jStat3.extend(jStat3.centralF, {
-          // This implementation of the pdf function avoids float overflow
-          // See the way that R calculates this value:
-          // https://svn.r-project.org/R/trunk/src/nmath/df.c
-          pdf: function pdf(x, df1, df2) {
-            var p, q, f;
-            if (x < 0)
-              return 0;
-            if (df1 <= 2) {
-              if (x === 0 && df1 < 2) {
-                return Infinity;
-              }
-              if (x === 0 && df1 === 2) {
-                return 1;
-              }
-              return 1 / jStat3.betafn(df1 / 2, df2 / 2) * Math2.pow(df1 / df2, df1 / 2) * Math2.pow(x, df1 / 2 - 1) * Math2.pow(1 + df1 / df2 * x, -(df1 + df2) / 2);
-            }
-            p = df1 * x / (df2 + x * df1);
-            q = df2 / (df2 + x * df1);
-            f = df1 * q / 2;
-            return f * jStat3.binomial.pdf((df1 - 2) / 2, (df1 + df2 - 2) / 2, p);
-          },
-          cdf: function cdf(x, df1, df2) {
-            if (x < 0)
-              return 0;
-            return jStat3.ibeta(df1 * x / (df1 * x + df2), df1 / 2, df2 / 2);
-          },
-          inv: function inv(x, df1, df2) {
-            return df2 / (df1 * (1 / jStat3.ibetainv(x, df1 / 2, df2 / 2) - 1));
-          },
-          mean: function mean(df1, df2) {
-            return df2 > 2 ? df2 / (df2 - 2) : void 0;
-          },
-          mode: function mode(df1, df2) {
-            return df1 > 2 ? df2 * (df1 - 2) / (df1 * (df2 + 2)) : void 0;
-          },
-          // return a random sample
-          sample: function sample(df1, df2) {
-            var x1 = jStat3.randg(df1 / 2) * 2;
-            var x2 = jStat3.randg(df2 / 2) * 2;
-            return x1 / df1 / (x2 / df2);
-          },
-          variance: function variance(df1, df2) {
-            if (df2 <= 4)
-              return void 0;
-            return 2 * df2 * df2 * (df1 + df2 - 2) / (df1 * (df2 - 2) * (df2 - 2) * (df2 - 4));
-          }
-        });
-        jStat3.extend(jStat3.cauchy, {
-          pdf: function pdf(x, local, scale) {
-            if (scale < 0) {
-              return 0;
-            }
-            return scale / (Math2.pow(x - local, 2) + Math2.pow(scale, 2)) / Math2.PI;
-          },
-          cdf: function cdf(x, local, scale) {
-            return Math2.atan((x - local) / scale) / Math2.PI + 0.5;
-          },
-          inv: function(p, local, scale) {
-            return local + scale * Math2.tan(Math2.PI * (p - 0.5));
-          },
-          median: function median(local) {
-            return local;
-          },
-          mode: function mode(local) {
-            return local;
-          },
-          sample: function sample(local, scale) {
-            return jStat3.randn() * Math2.sqrt(1 / (2 * jStat3.randg(0.5))) * scale + local;
-          }
-        });
-        jStat3.extend(jStat3.chisquare, {
-          pdf: function pdf(x, dof) {
-            if (x < 0)
-              return 0;
-            return x === 0 && dof === 2 ? 0.5 : Math2.exp((dof / 2 - 1) * Math2.log(x) - x / 2 - dof / 2 * Math2.log(2) - jStat3.gammaln(dof / 2));
-          },
-          cdf: function cdf(x, dof) {
-            if (x < 0)
-              return 0;
-            return jStat3.lowRegGamma(dof / 2, x / 2);
-          },
-          inv: function(p, dof) {
-            return 2 * jStat3.gammapinv(p, 0.5 * dof);
-          },
-          mean: function(dof) {
-            return dof;
-          },
-          // TODO: this is an approximation (is there a better way?)
-          median: function median(dof) {
-            return dof * Math2.pow(1 - 2 / (9 * dof), 3);
-          },
-          mode: function mode(dof) {
-            return dof - 2 > 0 ? dof - 2 : 0;
-          },
-          sample: function sample(dof) {
-            return jStat3.randg(dof / 2) * 2;
-          },
-          variance: function variance(dof) {
-            return 2 * dof;
-          }
-        });
-        jStat3.extend(jStat3.exponential, {
-          pdf: function pdf(x, rate) {
-            return x < 0 ? 0 : rate * Math2.exp(-rate * x);
-          },
-          cdf: function cdf(x, rate) {
-            return x < 0 ? 0 : 1 - Math2.exp(-rate * x);
-          },
-          inv: function(p, rate) {
-            return -Math2.log(1 - p) / rate;
-          },
-          mean: function(rate) {
-            return 1 / rate;
-          },
-          median: function(rate) {
-            return 1 / rate * Math2.log(2);
-          },
-          mode: function mode() {
-            return 0;
-          },
-          sample: function sample(rate) {
-            return -1 / rate * Math2.log(jStat3._random_fn());
-          },
-          variance: function(rate) {
-            return Math2.pow(rate, -2);
-          }
-        });
-        jStat3.extend(jStat3.gamma, {
-          pdf: function pdf(x, shape, scale) {
-            if (x < 0)
-              return 0;
-            return x === 0 && shape === 1 ? 1 / scale : Math2.exp((shape - 1) * Math2.log(x) - x / scale - jStat3.gammaln(shape) - shape * Math2.log(scale));
-          },
-          cdf: function cdf(x, shape, scale) {
-            if (x < 0)
-              return 0;
-            return jStat3.lowRegGamma(shape, x / scale);
-          },
-          inv: function(p, shape, scale) {
-            return jStat3.gammapinv(p, shape) * scale;
-          },
-          mean: function(shape, scale) {
-            return shape * scale;
-          },
-          mode: function mode(shape, scale) {
-            if (shape > 1) return (shape - 1) * scale;
-            return void 0;
-          },
-          sample: function sample(shape, scale) {
-            return jStat3.randg(shape) * scale;
-          },
-          variance: function variance(shape, scale) {
-            return shape * scale * scale;
-          }
-        });
-        jStat3.extend(jStat3.invgamma, {
-          pdf: function pdf(x, shape, scale) {
-            if (x <= 0)
-              return 0;
-            return Math2.exp(-(shape + 1) * Math2.log(x) - scale / x - jStat3.gammaln(shape) + shape * Math2.log(scale));
-          },
-          cdf: function cdf(x, shape, scale) {
-            if (x <= 0)
-              return 0;
-            return 1 - jStat3.lowRegGamma(shape, scale / x);
-          },
-          inv: function(p, shape, scale) {
-            return scale / jStat3.gammapinv(1 - p, shape);
-          },
-          mean: function(shape, scale) {
-            return shape > 1 ? scale / (shape - 1) : void 0;
-          },
-          mode: function mode(shape, scale) {
-            return scale / (shape + 1);
-          },
-          sample: function sample(shape, scale) {
-            return scale / jStat3.randg(shape);
-          },
-          variance: function variance(shape, scale) {
-            if (shape <= 2)
-              return void 0;
-            return scale * scale / ((shape - 1) * (shape - 1) * (shape - 2));
-          }
-        });
-        jStat3.extend(jStat3.kumaraswamy, {
-          pdf: function pdf(x, alpha, beta) {
-            if (x === 0 && alpha === 1)
-              return beta;
-            else if (x === 1 && beta === 1)
-              return alpha;
-            return Math2.exp(Math2.log(alpha) + Math2.log(beta) + (alpha - 1) * Math2.log(x) + (beta - 1) * Math2.log(1 - Math2.pow(x, alpha)));
-          },
-          cdf: function cdf(x, alpha, beta) {
-            if (x < 0)
-              return 0;
-            else if (x > 1)
-              return 1;
-            return 1 - Math2.pow(1 - Math2.pow(x, alpha), beta);
-          },
-          inv: function inv(p, alpha, beta) {
-            return Math2.pow(1 - Math2.pow(1 - p, 1 / beta), 1 / alpha);
-          },
-          mean: function(alpha, beta) {
-            return beta * jStat3.gammafn(1 + 1 / alpha) * jStat3.gammafn(beta) / jStat3.gammafn(1 + 1 / alpha + beta);
-          },
-          median: function median(alpha, beta) {
-            return Math2.pow(1 - Math2.pow(2, -1 / beta), 1 / alpha);
-          },
-          mode: function mode(alpha, beta) {
-            if (!(alpha >= 1 && beta >= 1 && (alpha !== 1 && beta !== 1)))
-              return void 0;
-            return Math2.pow((alpha - 1) / (alpha * beta - 1), 1 / alpha);
-          },
-          variance: function variance() {
-            throw new Error("variance not yet implemented");
-          }
-        });
-        jStat3.extend(jStat3.lognormal, {
-          pdf: function pdf(x, mu, sigma) {
-            if (x <= 0)
-              return 0;
-            return Math2.exp(-Math2.log(x) - 0.5 * Math2.log(2 * Math2.PI) - Math2.log(sigma) - Math2.pow(Math2.log(x) - mu, 2) / (2 * sigma * sigma));
-          },
-          cdf: function cdf(x, mu, sigma) {
-            if (x < 0)
-              return 0;
-            return 0.5 + 0.5 * jStat3.erf((Math2.log(x) - mu) / Math2.sqrt(2 * sigma * sigma));
-          },
-          inv: function(p, mu, sigma) {
-            return Math2.exp(-1.4142135623730951 * sigma * jStat3.erfcinv(2 * p) + mu);
-          },
-          mean: function mean(mu, sigma) {
-            return Math2.exp(mu + sigma * sigma / 2);
-          },
-          median: function median(mu) {
-            return Math2.exp(mu);
-          },
-          mode: function mode(mu, sigma) {
-            return Math2.exp(mu - sigma * sigma);
-          },
-          sample: function sample(mu, sigma) {
-            return Math2.exp(jStat3.randn() * sigma + mu);
-          },
-          variance: function variance(mu, sigma) {
-            return (Math2.exp(sigma * sigma) - 1) * Math2.exp(2 * mu + sigma * sigma);
-          }
-        });
-        jStat3.extend(jStat3.noncentralt, {
-          pdf: function pdf(x, dof, ncp) {
-            var tol = 1e-14;
-            if (Math2.abs(ncp) < tol)
-              return jStat3.studentt.pdf(x, dof);
-            if (Math2.abs(x) < tol) {
-              return Math2.exp(jStat3.gammaln((dof + 1) / 2) - ncp * ncp / 2 - 0.5 * Math2.log(Math2.PI * dof) - jStat3.gammaln(dof / 2));
-            }
-            return dof / x * (jStat3.noncentralt.cdf(x * Math2.sqrt(1 + 2 / dof), dof + 2, ncp) - jStat3.noncentralt.cdf(x, dof, ncp));
-          },
-          cdf: function cdf(x, dof, ncp) {
-            var tol = 1e-14;
-            var min_iterations = 200;
-            if (Math2.abs(ncp) < tol)
-              return jStat3.studentt.cdf(x, dof);
-            var flip = false;
-            if (x < 0) {
-              flip = true;
-              ncp = -ncp;
-            }
-            var prob = jStat3.normal.cdf(-ncp, 0, 1);
-            var value = tol + 1;
-            var lastvalue = value;
-            var y = x * x / (x * x + dof);
-            var j = 0;
-            var p = Math2.exp(-ncp * ncp / 2);
-            var q = Math2.exp(-ncp * ncp / 2 - 0.5 * Math2.log(2) - jStat3.gammaln(3 / 2)) * ncp;
-            while (j < min_iterations || lastvalue > tol || value > tol) {
-              lastvalue = value;
-              if (j > 0) {
-                p *= ncp * ncp / (2 * j);
-                q *= ncp * ncp / (2 * (j + 1 / 2));
-              }
-              value = p * jStat3.beta.cdf(y, j + 0.5, dof / 2) + q * jStat3.beta.cdf(y, j + 1, dof / 2);
-              prob += 0.5 * value;
-              j++;
-            }
-            return flip ? 1 - prob : prob;
-          }
-        });
-        jStat3.extend(jStat3.normal, {
-          pdf: function pdf(x, mean, std) {
-            return Math2.exp(-0.5 * Math2.log(2 * Math2.PI) - Math2.log(std) - Math2.pow(x - mean, 2) / (2 * std * std));
-          },
-          cdf: function cdf(x, mean, std) {
-            return 0.5 * (1 + jStat3.erf((x - mean) / Math2.sqrt(2 * std * std)));
-          },
-          inv: function(p, mean, std) {
-            return -1.4142135623730951 * std * jStat3.erfcinv(2 * p) + mean;
-          },
-          mean: function(mean) {
-            return mean;
-          },
-          median: function median(mean) {
-            return mean;
-          },
-          mode: function(mean) {
-            return mean;
-          },
-          sample: function sample(mean, std) {
-            return jStat3.randn() * std + mean;
-          },
-          variance: function(mean, std) {
-            return std * std;
-          }
-        });
-        jStat3.extend(jStat3.pareto, {
-          pdf: function pdf(x, scale, shape) {
-            if (x < scale)
-              return 0;
-            return shape * Math2.pow(scale, shape) / Math2.pow(x, shape + 1);
-          },
-          cdf: function cdf(x, scale, shape) {
-            if (x < scale)
-              return 0;
-            return 1 - Math2.pow(scale / x, shape);
-          },
-          inv: function inv(p, scale, shape) {
-            return scale / Math2.pow(1 - p, 1 / shape);
-          },
-          mean: function mean(scale, shape) {
-            if (shape <= 1)
-              return void 0;
-            return shape * Math2.pow(scale, shape) / (shape - 1);
-          },
-          median: function median(scale, shape) {
-            return scale * (shape * Math2.SQRT2);
-          },
-          mode: function mode(scale) {
-            return scale;
-          },
-          variance: function(scale, shape) {
-            if (shape <= 2)
-              return void 0;
-            return scale * scale * shape / (Math2.pow(shape - 1, 2) * (shape - 2));
-          }
-        });
-        jStat3.extend(jStat3.studentt, {
-          pdf: function pdf(x, dof) {
-            dof = dof > 1e100 ? 1e100 : dof;
-            return 1 / (Math2.sqrt(dof) * jStat3.betafn(0.5, dof / 2)) * Math2.pow(1 + x * x / dof, -((dof + 1) / 2));
-          },
-          cdf: function cdf(x, dof) {
-            var dof2 = dof / 2;
-            return jStat3.ibeta((x + Math2.sqrt(x * x + dof)) / (2 * Math2.sqrt(x * x + dof)), dof2, dof2);
-          },
-          inv: function(p, dof) {
-            var x = jStat3.ibetainv(2 * Math2.min(p, 1 - p), 0.5 * dof, 0.5);
-            x = Math2.sqrt(dof * (1 - x) / x);
-            return p > 0.5 ? x : -x;
-          },
-          mean: function mean(dof) {
-            return dof > 1 ? 0 : void 0;
-          },
-          median: function median() {
-            return 0;
-          },
-          mode: function mode() {
-            return 0;
-          },
-          sample: function sample(dof) {
-            return jStat3.randn() * Math2.sqrt(dof / (2 * jStat3.randg(dof / 2)));
-          },
-          variance: function variance(dof) {
-            return dof > 2 ? dof / (dof - 2) : dof > 1 ? Infinity : void 0;
-          }
-        });
-        jStat3.extend(jStat3.weibull, {
-          pdf: function pdf(x, scale, shape) {
-            if (x < 0 || scale < 0 || shape < 0)
-              return 0;
-            return shape / scale * Math2.pow(x / scale, shape - 1) * Math2.exp(-Math2.pow(x / scale, shape));
-          },
-          cdf: function cdf(x, scale, shape) {
-            return x < 0 ? 0 : 1 - Math2.exp(-Math2.pow(x / scale, shape));
-          },
-          inv: function(p, scale, shape) {
-            return scale * Math2.pow(-Math2.log(1 - p), 1 / shape);
-          },
-          mean: function(scale, shape) {
-            return scale * jStat3.gammafn(1 + 1 / shape);
-          },
-          median: function median(scale, shape) {
-            return scale * Math2.pow(Math2.log(2), 1 / shape);
-          },
-          mode: function mode(scale, shape) {
-            if (shape <= 1)
-              return 0;
-            return scale * Math2.pow((shape - 1) / shape, 1 / shape);
-          },
-          sample: function sample(scale, shape) {
-            return scale * Math2.pow(-Math2.log(jStat3._random_fn()), 1 / shape);
-          },
-          variance: function variance(scale, shape) {
-            return scale * scale * jStat3.gammafn(1 + 2 / shape) - Math2.pow(jStat3.weibull.mean(scale, shape), 2);
-          }
-        });
-        jStat3.extend(jStat3.uniform, {
-          pdf: function pdf(x, a, b) {
-            return x < a || x > b ? 0 : 1 / (b - a);
-          },
-          cdf: function cdf(x, a, b) {
-            if (x < a)
-              return 0;
-            else if (x < b)
-              return (x - a) / (b - a);
-            return 1;
-          },
-          inv: function(p, a, b) {
-            return a + p * (b - a);
-          },
-          mean: function mean(a, b) {
-            return 0.5 * (a + b);
-          },
-          median: function median(a, b) {
-            return jStat3.mean(a, b);
-          },
-          mode: function mode() {
-            throw new Error("mode is not yet implemented");
-          },
-          sample: function sample(a, b) {
-            return a / 2 + b / 2 + (b / 2 - a / 2) * (2 * jStat3._random_fn() - 1);
-          },
-          variance: function variance(a, b) {
-            return Math2.pow(b - a, 2) / 12;
-          }
-        });
-        function betinc(x, a, b, eps) {
-          var a0 = 0;
-          var b0 = 1;
-          var a1 = 1;
-          var b1 = 1;
-          var m9 = 0;
-          var a2 = 0;
-          var c9;
-          while (Math2.abs((a1 - a2) / a1) > eps) {
-            a2 = a1;
-            c9 = -(a + m9) * (a + b + m9) * x / (a + 2 * m9) / (a + 2 * m9 + 1);
-            a0 = a1 + c9 * a0;
-            b0 = b1 + c9 * b0;
-            m9 = m9 + 1;
-            c9 = m9 * (b - m9) * x / (a + 2 * m9 - 1) / (a + 2 * m9);
-            a1 = a0 + c9 * a1;
-            b1 = b0 + c9 * b1;
-            a0 = a0 / b1;
-            b0 = b0 / b1;
-            a1 = a1 / b1;
-            b1 = 1;
-          }
-          return a1 / a;
-        }
-        jStat3.extend(jStat3.binomial, {
-          pdf: function pdf(k, n, p) {
-            return p === 0 || p === 1 ? n * p === k ? 1 : 0 : jStat3.combination(n, k) * Math2.pow(p, k) * Math2.pow(1 - p, n - k);
-          },
-          cdf: function cdf(x, n, p) {
-            var betacdf;
-            var eps = 1e-10;
-            if (x < 0)
-              return 0;
-            if (x >= n)
-              return 1;
-            if (p < 0 || p > 1 || n <= 0)
-              return NaN;
-            x = Math2.floor(x);
-            var z2 = p;
-            var a = x + 1;
-            var b = n - x;
-            var s = a + b;
-            var bt = Math2.exp(jStat3.gammaln(s) - jStat3.gammaln(b) - jStat3.gammaln(a) + a * Math2.log(z2) + b * Math2.log(1 - z2));
-            if (z2 < (a + 1) / (s + 2))
-              betacdf = bt * betinc(z2, a, b, eps);
-            else
-              betacdf = 1 - bt * betinc(1 - z2, b, a, eps);
-            return Math2.round((1 - betacdf) * (1 / eps)) / (1 / eps);
-          }
-        });
-        jStat3.extend(jStat3.negbin, {
-          pdf: function pdf(k, r, p) {
-            if (k !== k >>> 0)
-              return false;
-            if (k < 0)
-              return 0;
-            return jStat3.combination(k + r - 1, r - 1) * Math2.pow(1 - p, k) * Math2.pow(p, r);
-          },
-          cdf: function cdf(x, r, p) {
-            var sum = 0, k = 0;
-            if (x < 0) return 0;
-            for (; k <= x; k++) {
-              sum += jStat3.negbin.pdf(k, r, p);
-            }
-            return sum;
-          }
-        });
-        jStat3.extend(jStat3.hypgeom, {
-          pdf: function pdf(k, N, m, n) {
-            if (k !== k | 0) {
-              return false;
-            } else if (k < 0 || k < m - (N - n)) {
-              return 0;
-            } else if (k > n || k > m) {
-              return 0;
-            } else if (m * 2 > N) {
-              if (n * 2 > N) {
-                return jStat3.hypgeom.pdf(N - m - n + k, N, N - m, N - n);
-              } else {
-                return jStat3.hypgeom.pdf(n - k, N, N - m, n);
-              }
-            } else if (n * 2 > N) {
-              return jStat3.hypgeom.pdf(m - k, N, m, N - n);
-            } else if (m < n) {
-              return jStat3.hypgeom.pdf(k, N, n, m);
-            } else {
-              var scaledPDF = 1;
-              var samplesDone = 0;
-              for (var i = 0; i < k; i++) {
-                while (scaledPDF > 1 && samplesDone < n) {
-                  scaledPDF *= 1 - m / (N - samplesDone);
-                  samplesDone++;
-                }
-                scaledPDF *= (n - i) * (m - i) / ((i + 1) * (N - m - n + i + 1));
-              }
-              for (; samplesDone < n; samplesDone++) {
-                scaledPDF *= 1 - m / (N - samplesDone);
-              }
-              return Math2.min(1, Math2.max(0, scaledPDF));
-            }
-          },
-          cdf: function cdf(x, N, m, n) {
-            if (x < 0 || x < m - (N - n)) {
-              return 0;
-            } else if (x >= n || x >= m) {
-              return 1;
-            } else if (m * 2 > N) {
-              if (n * 2 > N) {
-                return jStat3.hypgeom.cdf(N - m - n + x, N, N - m, N - n);
-              } else {
-                return 1 - jStat3.hypgeom.cdf(n - x - 1, N, N - m, n);
-              }
-            } else if (n * 2 > N) {
-              return 1 - jStat3.hypgeom.cdf(m - x - 1, N, m, N - n);
-            } else if (m < n) {
-              return jStat3.hypgeom.cdf(x, N, n, m);
-            } else {
-              var scaledCDF = 1;
-              var scaledPDF = 1;
-              var samplesDone = 0;
-              for (var i = 0; i < x; i++) {
-                while (scaledCDF > 1 && samplesDone < n) {
-                  var factor = 1 - m / (N - samplesDone);
-                  scaledPDF *= factor;
-                  scaledCDF *= factor;
-                  samplesDone++;
-                }
-                scaledPDF *= (n - i) * (m - i) / ((i + 1) * (N - m - n + i + 1));
-                scaledCDF += scaledPDF;
-              }
-              for (; samplesDone < n; samplesDone++) {
-                scaledCDF *= 1 - m / (N - samplesDone);
-              }
-              return Math2.min(1, Math2.max(0, scaledCDF));
-            }
-          }
-        });
-        jStat3.extend(jStat3.poisson, {
-          pdf: function pdf(k, l) {
-            if (l < 0 || k % 1 !== 0 || k < 0) {
-              return 0;
-            }
-            return Math2.pow(l, k) * Math2.exp(-l) / jStat3.factorial(k);
-          },
-          cdf: function cdf(x, l) {
-            var sumarr = [], k = 0;
-            if (x < 0) return 0;
-            for (; k <= x; k++) {
-              sumarr.push(jStat3.poisson.pdf(k, l));
-            }
-            return jStat3.sum(sumarr);
-          },
-          mean: function(l) {
-            return l;
-          },
-          variance: function(l) {
-            return l;
-          },
-          sampleSmall: function sampleSmall(l) {
-            var p = 1, k = 0, L = Math2.exp(-l);
-            do {
-              k++;
-              p *= jStat3._random_fn();
-            } while (p > L);
-            return k - 1;
-          },
-          sampleLarge: function sampleLarge(l) {
-            var lam = l;
-            var k;
-            var U, V, slam, loglam, a, b, invalpha, vr, us;
-            slam = Math2.sqrt(lam);
-            loglam = Math2.log(lam);
-            b = 0.931 + 2.53 * slam;
-            a = -0.059 + 0.02483 * b;
-            invalpha = 1.1239 + 1.1328 / (b - 3.4);
-            vr = 0.9277 - 3.6224 / (b - 2);
-            while (1) {
-              U = Math2.random() - 0.5;
-              V = Math2.random();
-              us = 0.5 - Math2.abs(U);
-              k = Math2.floor((2 * a / us + b) * U + lam + 0.43);
-              if (us >= 0.07 && V <= vr) {
-                return k;
-              }
-              if (k < 0 || us < 0.013 && V > us) {
-                continue;
-              }
-              if (Math2.log(V) + Math2.log(invalpha) - Math2.log(a / (us * us) + b) <= -lam + k * loglam - jStat3.loggam(k + 1)) {
-                return k;
-              }
-            }
-          },
-          sample: function sample(l) {
-            if (l < 10)
-              return this.sampleSmall(l);
-            else
-              return this.sampleLarge(l);
-          }
-        });
-        jStat3.extend(jStat3.triangular, {
-          pdf: function pdf(x, a, b, c) {
-            if (b <= a || c < a || c > b) {
-              return NaN;
-            } else {
-              if (x < a || x > b) {
-                return 0;
-              } else if (x < c) {
-                return 2 * (x - a) / ((b - a) * (c - a));
-              } else if (x === c) {
-                return 2 / (b - a);
-              } else {
-                return 2 * (b - x) / ((b - a) * (b - c));
-              }
-            }
-          },
-          cdf: function cdf(x, a, b, c) {
-            if (b <= a || c < a || c > b)
-              return NaN;
-            if (x <= a)
-              return 0;
-            else if (x >= b)
-              return 1;
-            if (x <= c)
-              return Math2.pow(x - a, 2) / ((b - a) * (c - a));
-            else
-              return 1 - Math2.pow(b - x, 2) / ((b - a) * (b - c));
-          },
-          inv: function inv(p, a, b, c) {
-            if (b <= a || c < a || c > b) {
-              return NaN;
-            } else {
-              if (p <= (c - a) / (b - a)) {
-                return a + (b - a) * Math2.sqrt(p * ((c - a) / (b - a)));
-              } else {
-                return a + (b - a) * (1 - Math2.sqrt((1 - p) * (1 - (c - a) / (b - a))));
-              }
-            }
-          },
-          mean: function mean(a, b, c) {
-            return (a + b + c) / 3;
-          },
-          median: function median(a, b, c) {
-            if (c <= (a + b) / 2) {
-              return b - Math2.sqrt((b - a) * (b - c)) / Math2.sqrt(2);
-            } else if (c > (a + b) / 2) {
-              return a + Math2.sqrt((b - a) * (c - a)) / Math2.sqrt(2);
-            }
-          },
-          mode: function mode(a, b, c) {
-            return c;
-          },
-          sample: function sample(a, b, c) {
-            var u = jStat3._random_fn();
-            if (u < (c - a) / (b - a))
-              return a + Math2.sqrt(u * (b - a) * (c - a));
-            return b - Math2.sqrt((1 - u) * (b - a) * (b - c));
-          },
-          variance: function variance(a, b, c) {
-            return (a * a + b * b + c * c - a * b - a * c - b * c) / 18;
-          }
-        });
-        jStat3.extend(jStat3.arcsine, {
-          pdf: function pdf(x, a, b) {
-            if (b <= a) return NaN;
-            return x <= a || x >= b ? 0 : 2 / Math2.PI * Math2.pow(Math2.pow(b - a, 2) - Math2.pow(2 * x - a - b, 2), -0.5);
-          },
-          cdf: function cdf(x, a, b) {
-            if (x < a)
-              return 0;
-            else if (x < b)
-              return 2 / Math2.PI * Math2.asin(Math2.sqrt((x - a) / (b - a)));
-            return 1;
-          },
-          inv: function(p, a, b) {
-            return a + (0.5 - 0.5 * Math2.cos(Math2.PI * p)) * (b - a);
-          },
-          mean: function mean(a, b) {
-            if (b <= a) return NaN;
-            return (a + b) / 2;
-          },
-          median: function median(a, b) {
-            if (b <= a) return NaN;
-            return (a + b) / 2;
-          },
-          mode: function mode() {
-            throw new Error("mode is not yet implemented");
-          },
-          sample: function sample(a, b) {
-            return (a + b) / 2 + (b - a) / 2 * Math2.sin(2 * Math2.PI * jStat3.uniform.sample(0, 1));
-          },
-          variance: function variance(a, b) {
-            if (b <= a) return NaN;
-            return Math2.pow(b - a, 2) / 8;
-          }
-        });
-        function laplaceSign(x) {
-          return x / Math2.abs(x);
-        }
-        jStat3.extend(jStat3.laplace, {
-          pdf: function pdf(x, mu, b) {
-            return b <= 0 ? 0 : Math2.exp(-Math2.abs(x - mu) / b) / (2 * b);
-          },
-          cdf: function cdf(x, mu, b) {
-            if (b <= 0) {
-              return 0;
-            }
-            if (x < mu) {
-              return 0.5 * Math2.exp((x - mu) / b);
-            } else {
-              return 1 - 0.5 * Math2.exp(-(x - mu) / b);
-            }
-          },
-          mean: function(mu) {
-            return mu;
-          },
-          median: function(mu) {
-            return mu;
-          },
-          mode: function(mu) {
-            return mu;
-          },
-          variance: function(mu, b) {
-            return 2 * b * b;
-          },
-          sample: function sample(mu, b) {
-            var u = jStat3._random_fn() - 0.5;
-            return mu - b * laplaceSign(u) * Math2.log(1 - 2 * Math2.abs(u));
-          }
-        });
-        function tukeyWprob(w, rr, cc) {
-          var nleg = 12;
-          var ihalf = 6;
-          var C1 = -30;
-          var C2 = -50;
-          var C3 = 60;
-          var bb = 8;
-          var wlar = 3;
-          var wincr1 = 2;
-          var wincr2 = 3;
-          var xleg = [
-            0.9815606342467192,
-            0.9041172563704749,
-            0.7699026741943047,
-            0.5873179542866175,
-            0.3678314989981802,
-            0.1252334085114689
-          ];
-          var aleg = [
-            0.04717533638651183,
-            0.10693932599531843,
-            0.16007832854334622,
-            0.20316742672306592,
-            0.2334925365383548,
-            0.24914704581340277
-          ];
-          var qsqz = w * 0.5;
-          if (qsqz >= bb)
-            return 1;
-          var pr_w = 2 * jStat3.normal.cdf(qsqz, 0, 1, 1, 0) - 1;
-          if (pr_w >= Math2.exp(C2 / cc))
-            pr_w = Math2.pow(pr_w, cc);
-          else
-            pr_w = 0;
-          var wincr;
-          if (w > wlar)
-            wincr = wincr1;
-          else
-            wincr = wincr2;
-          var blb = qsqz;
-          var binc = (bb - qsqz) / wincr;
-          var bub = blb + binc;
-          var einsum = 0;
-          var cc1 = cc - 1;
-          for (var wi = 1; wi <= wincr; wi++) {
-            var elsum = 0;
-            var a = 0.5 * (bub + blb);
-            var b = 0.5 * (bub - blb);
-            for (var jj = 1; jj <= nleg; jj++) {
-              var j, xx;
-              if (ihalf < jj) {
-                j = nleg - jj + 1;
-                xx = xleg[j - 1];
-              } else {
-                j = jj;
-                xx = -xleg[j - 1];
-              }
-              var c = b * xx;
-              var ac = a + c;
-              var qexpo = ac * ac;
-              if (qexpo > C3)
-                break;
-              var pplus = 2 * jStat3.normal.cdf(ac, 0, 1, 1, 0);
-              var pminus = 2 * jStat3.normal.cdf(ac, w, 1, 1, 0);
-              var rinsum = pplus * 0.5 - pminus * 0.5;
-              if (rinsum >= Math2.exp(C1 / cc1)) {
-                rinsum = aleg[j - 1] * Math2.exp(-(0.5 * qexpo)) * Math2.pow(rinsum, cc1);
-                elsum += rinsum;
-              }
-            }
-            elsum *= 2 * b * cc / Math2.sqrt(2 * Math2.PI);
-            einsum += elsum;
-            blb = bub;
-            bub += binc;
-          }
-          pr_w += einsum;
-          if (pr_w <= Math2.exp(C1 / rr))
-            return 0;
-          pr_w = Math2.pow(pr_w, rr);
-          if (pr_w >= 1)
-            return 1;
-          return pr_w;
-        }
-        function tukeyQinv(p, c, v) {
-          var p0 = 0.322232421088;
-          var q0 = 0.099348462606;
-          var p1 = -1;
-          var q1 = 0.588581570495;
-          var p2 = -0.342242088547;
-          var q2 = 0.531103462366;
-          var p3 = -0.204231210125;
-          var q3 = 0.10353775285;
-          var p4 = -453642210148e-16;
-          var q4 = 0.0038560700634;
-          var c1 = 0.8832;
-          var c2 = 0.2368;
-          var c3 = 1.214;
-          var c4 = 1.208;
-          var c5 = 1.4142;
-          var vmax = 120;
-          var ps = 0.5 - 0.5 * p;
-          var yi = Math2.sqrt(Math2.log(1 / (ps * ps)));
-          var t = yi + ((((yi * p4 + p3) * yi + p2) * yi + p1) * yi + p0) / ((((yi * q4 + q3) * yi + q2) * yi + q1) * yi + q0);
-          if (v < vmax) t += (t * t * t + t) / v / 4;
-          var q = c1 - c2 * t;
-          if (v < vmax) q += -c3 / v + c4 * t / v;
-          return t * (q * Math2.log(c - 1) + c5);
-        }
-        jStat3.extend(jStat3.tukey, {
-          cdf: function cdf(q, nmeans, df) {
-            var rr = 1;
-            var cc = nmeans;
-            var nlegq = 16;
-            var ihalfq = 8;
-            var eps1 = -30;
-            var eps2 = 1e-14;
-            var dhaf = 100;
-            var dquar = 800;
-            var deigh = 5e3;
-            var dlarg = 25e3;
-            var ulen1 = 1;
-            var ulen2 = 0.5;
-            var ulen3 = 0.25;
-            var ulen4 = 0.125;
-            var xlegq = [
-              0.9894009349916499,
-              0.9445750230732326,
-              0.8656312023878318,
-              0.755404408355003,
-              0.6178762444026438,
-              0.45801677765722737,
-              0.2816035507792589,
-              0.09501250983763744
-            ];
-            var alegq = [
-              0.027152459411754096,
-              0.062253523938647894,
-              0.09515851168249279,
-              0.12462897125553388,
-              0.14959598881657674,
-              0.16915651939500254,
-              0.18260341504492358,
-              0.1894506104550685
-            ];
-            if (q <= 0)
-              return 0;
-            if (df < 2 || rr < 1 || cc < 2) return NaN;
-            if (!Number.isFinite(q))
-              return 1;
-            if (df > dlarg)
-              return tukeyWprob(q, rr, cc);
-            var f2 = df * 0.5;
-            var f2lf = f2 * Math2.log(df) - df * Math2.log(2) - jStat3.gammaln(f2);
-            var f21 = f2 - 1;
-            var ff4 = df * 0.25;
-            var ulen;
-            if (df <= dhaf) ulen = ulen1;
-            else if (df <= dquar) ulen = ulen2;
-            else if (df <= deigh) ulen = ulen3;
-            else ulen = ulen4;
-            f2lf += Math2.log(ulen);
-            var ans = 0;
-            for (var i = 1; i <= 50; i++) {
-              var otsum = 0;
-              var twa1 = (2 * i - 1) * ulen;
-              for (var jj = 1; jj <= nlegq; jj++) {
-                var j, t1;
-                if (ihalfq < jj) {
-                  j = jj - ihalfq - 1;
-                  t1 = f2lf + f21 * Math2.log(twa1 + xlegq[j] * ulen) - (xlegq[j] * ulen + twa1) * ff4;
-                } else {
-                  j = jj - 1;
-                  t1 = f2lf + f21 * Math2.log(twa1 - xlegq[j] * ulen) + (xlegq[j] * ulen - twa1) * ff4;
-                }
-                var qsqz;
-                if (t1 >= eps1) {
-                  if (ihalfq < jj) {
-                    qsqz = q * Math2.sqrt((xlegq[j] * ulen + twa1) * 0.5);
-                  } else {
-                    qsqz = q * Math2.sqrt((-(xlegq[j] * ulen) + twa1) * 0.5);
-                  }
-                  var wprb = tukeyWprob(qsqz, rr, cc);
-                  var rotsum = wprb * alegq[j] * Math2.exp(t1);
-                  otsum += rotsum;
-                }
-              }
-              if (i * ulen >= 1 && otsum <= eps2)
-                break;
-              ans += otsum;
-            }
-            if (otsum > eps2) {
-              throw new Error("tukey.cdf failed to converge");
-            }
-            if (ans > 1)
-              ans = 1;
-            return ans;
-          },
-          inv: function(p, nmeans, df) {
-            var rr = 1;
-            var cc = nmeans;
-            var eps = 1e-4;
-            var maxiter = 50;
-            if (df < 2 || rr < 1 || cc < 2) return NaN;
-            if (p < 0 || p > 1) return NaN;
-            if (p === 0) return 0;
-            if (p === 1) return Infinity;
-            var x0 = tukeyQinv(p, cc, df);
-            var valx0 = jStat3.tukey.cdf(x0, nmeans, df) - p;
-            var x1;
-            if (valx0 > 0)
-              x1 = Math2.max(0, x0 - 1);
-            else
-              x1 = x0 + 1;
-            var valx1 = jStat3.tukey.cdf(x1, nmeans, df) - p;
-            var ans;
-            for (var iter = 1; iter < maxiter; iter++) {
-              ans = x1 - valx1 * (x1 - x0) / (valx1 - valx0);
-              valx0 = valx1;
-              x0 = x1;
-              if (ans < 0) {
-                ans = 0;
-                valx1 = -p;
-              }
-              valx1 = jStat3.tukey.cdf(ans, nmeans, df) - p;
-              x1 = ans;
-              var xabs = Math2.abs(x1 - x0);
-              if (xabs < eps)
-                return ans;
-            }
-            throw new Error("tukey.inv failed to converge");
-          }
-        });
-      })(jStat2, Math);
-      (function(jStat3, Math2) {
-        var push = Array.prototype.push;
-        var isArray = jStat3.utils.isArray;
-        function isUsable(arg) {
-          return isArray(arg) || arg instanceof jStat3;
-        }
-        jStat3.extend({
-          // add a vector/matrix to a vector/matrix or scalar
-          add: function add(arr, arg) {
-            if (isUsable(arg)) {
-              if (!isUsable(arg[0])) arg = [arg];
-              return jStat3.map(arr, function(value, row, col) {
-                return value + arg[row][col];
-              });
-            }
-            return jStat3.map(arr, function(value) {
-              return value + arg;
-            });
-          },
-          // subtract a vector or scalar from the vector
-          subtract: function subtract(arr, arg) {
-            if (isUsable(arg)) {
-              if (!isUsable(arg[0])) arg = [arg];
-              return jStat3.map(arr, function(value, row, col) {
-                return value - arg[row][col] || 0;
-              });
-            }
-            return jStat3.map(arr, function(value) {
-              return value - arg;
-            });
-          },
-          // matrix division
-          divide: function divide(arr, arg) {
-            if (isUsable(arg)) {
-              if (!isUsable(arg[0])) arg = [arg];
-              return jStat3.multiply(arr, jStat3.inv(arg));
-            }
-            return jStat3.map(arr, function(value) {
-              return value / arg;
-            });
-          },
-          // matrix multiplication
-          multiply: function multiply(arr, arg) {
-            var row, col, nrescols, sum, nrow, ncol, res, rescols;
-            if (arr.length === void 0 && arg.length === void 0) {
-              return arr * arg;
-            }
-            nrow = arr.length, ncol = arr[0].length, res = jStat3.zeros(nrow, nrescols = isUsable(arg) ? arg[0].length : ncol), rescols = 0;
-            if (isUsable(arg)) {
-              for (; rescols < nrescols; rescols++) {
-                for (row = 0; row < nrow; row++) {
-                  sum = 0;
-                  for (col = 0; col < ncol; col++)
-                    sum += arr[row][col] * arg[col][rescols];
-                  res[row][rescols] = sum;
-                }
-              }
-              return nrow === 1 && rescols === 1 ? res[0][0] : res;
-            }
-            return jStat3.map(arr, function(value) {
-              return value * arg;
-            });
-          },
-          // outer([1,2,3],[4,5,6])
-          // ===
-          // [[1],[2],[3]] times [[4,5,6]]
-          // ->
-          // [[4,5,6],[8,10,12],[12,15,18]]
-          outer: function outer(A, B) {
-            return jStat3.multiply(A.map(function(t) {
-              return [t];
-            }), [B]);
-          },
-          // Returns the dot product of two matricies
-          dot: function dot(arr, arg) {
-            if (!isUsable(arr[0])) arr = [arr];
-            if (!isUsable(arg[0])) arg = [arg];
-            var left = arr[0].length === 1 && arr.length !== 1 ? jStat3.transpose(arr) : arr, right = arg[0].length === 1 && arg.length !== 1 ? jStat3.transpose(arg) : arg, res = [], row = 0, nrow = left.length, ncol = left[0].length, sum, col;
-            for (; row < nrow; row++) {
-              res[row] = [];
-              sum = 0;
-              for (col = 0; col < ncol; col++)
-                sum += left[row][col] * right[row][col];
-              res[row] = sum;
-            }
-            return res.length === 1 ? res[0] : res;
-          },
-          // raise every element by a scalar
-          pow: function pow(arr, arg) {
-            return jStat3.map(arr, function(value) {
-              return Math2.pow(value, arg);
-            });
-          },
-          // exponentiate every element
-          exp: function exp(arr) {
-            return jStat3.map(arr, function(value) {
-              return Math2.exp(value);
-            });
-          },
-          // generate the natural log of every element
-          log: function exp(arr) {
-            return jStat3.map(arr, function(value) {
-              return Math2.log(value);
-            });
-          },
-          // generate the absolute values of the vector
-          abs: function abs(arr) {
-            return jStat3.map(arr, function(value) {
-              return Math2.abs(value);
-            });
-          },
-          // computes the p-norm of the vector
-          // In the case that a matrix is passed, uses the first row as the vector
-          norm: function norm(arr, p) {
-            var nnorm = 0, i = 0;
-            if (isNaN(p)) p = 2;
-            if (isUsable(arr[0])) arr = arr[0];
-            for (; i < arr.length; i++) {
-              nnorm += Math2.pow(Math2.abs(arr[i]), p);
-            }
-            return Math2.pow(nnorm, 1 / p);
-          },
-          // computes the angle between two vectors in rads
-          // In case a matrix is passed, this uses the first row as the vector
-          angle: function angle(arr, arg) {
-            return Math2.acos(jStat3.dot(arr, arg) / (jStat3.norm(arr) * jStat3.norm(arg)));
-          },
-          // augment one matrix by another
-          // Note: this function returns a matrix, not a jStat object
-          aug: function aug(a, b) {
-            var newarr = [];
-            var i;
-            for (i = 0; i < a.length; i++) {
-              newarr.push(a[i].slice());
-            }
-            for (i = 0; i < newarr.length; i++) {
-              push.apply(newarr[i], b[i]);
-            }
-            return newarr;
-          },
-          // The inv() function calculates the inverse of a matrix
-          // Create the inverse by augmenting the matrix by the identity matrix of the
-          // appropriate size, and then use G-J elimination on the augmented matrix.
-          inv: function inv(a) {
-            var rows2 = a.length;
-            var cols = a[0].length;
-            var b = jStat3.identity(rows2, cols);
-            var c = jStat3.gauss_jordan(a, b);
-            var result = [];
-            var i = 0;
-            var j;
-            for (; i < rows2; i++) {
-              result[i] = [];
-              for (j = cols; j < c[0].length; j++)
-                result[i][j - cols] = c[i][j];
-            }
-            return result;
-          },
-          // calculate the determinant of a matrix
-          det: function det(a) {
-            if (a.length === 2) {
-              return a[0][0] * a[1][1] - a[0][1] * a[1][0];
-            }
-            var determinant = 0;
-            for (var i = 0; i < a.length; i++) {
-              var submatrix = [];
-              for (var row = 1; row < a.length; row++) {
-                submatrix[row - 1] = [];
-                for (var col = 0; col < a.length; col++) {
-                  if (col < i) {
-                    submatrix[row - 1][col] = a[row][col];
-                  } else if (col > i) {
-                    submatrix[row - 1][col - 1] = a[row][col];
-                  }
-                }
-              }
-              var sign = i % 2 ? -1 : 1;
-              determinant += det(submatrix) * a[0][i] * sign;
-            }
-            return determinant;
-          },
-          gauss_elimination: function gauss_elimination(a, b) {
-            var i = 0, j = 0, n = a.length, m = a[0].length, factor = 1, sum = 0, x = [], maug, pivot, temp, k;
-            a = jStat3.aug(a, b);
-            maug = a[0].length;
-            for (i = 0; i < n; i++) {
-              pivot = a[i][i];
-              j = i;
-              for (k = i + 1; k < m; k++) {
-                if (pivot < Math2.abs(a[k][i])) {
-                  pivot = a[k][i];
-                  j = k;
-                }
-              }
-              if (j != i) {
-                for (k = 0; k < maug; k++) {
-                  temp = a[i][k];
-                  a[i][k] = a[j][k];
-                  a[j][k] = temp;
-                }
-              }
-              for (j = i + 1; j < n; j++) {
-                factor = a[j][i] / a[i][i];
-                for (k = i; k < maug; k++) {
-                  a[j][k] = a[j][k] - factor * a[i][k];
-                }
-              }
-            }
-            for (i = n - 1; i >= 0; i--) {
-              sum = 0;
-              for (j = i + 1; j <= n - 1; j++) {
-                sum = sum + x[j] * a[i][j];
-              }
-              x[i] = (a[i][maug - 1] - sum) / a[i][i];
-            }
-            return x;
-          },
-          gauss_jordan: function gauss_jordan(a, b) {
-            var m = jStat3.aug(a, b);
-            var h = m.length;
-            var w = m[0].length;
-            var c = 0;
-            var x, y, y2;
-            for (y = 0; y < h; y++) {
-              var maxrow = y;
-              for (y2 = y + 1; y2 < h; y2++) {
-                if (Math2.abs(m[y2][y]) > Math2.abs(m[maxrow][y]))
-                  maxrow = y2;
-              }
-              var tmp = m[y];
-              m[y] = m[maxrow];
-              m[maxrow] = tmp;
-              for (y2 = y + 1; y2 < h; y2++) {
-                c = m[y2][y] / m[y][y];
-                for (x = y; x < w; x++) {
-                  m[y2][x] -= m[y][x] * c;
-                }
-              }
-            }
-            for (y = h - 1; y >= 0; y--) {
-              c = m[y][y];
-              for (y2 = 0; y2 < y; y2++) {
-                for (x = w - 1; x > y - 1; x--) {
-                  m[y2][x] -= m[y][x] * m[y2][y] / c;
-                }
-              }
-              m[y][y] /= c;
-              for (x = h; x < w; x++) {
-                m[y][x] /= c;
-              }
-            }
-            return m;
-          },
-          // solve equation
-          // Ax=b
-          // A is upper triangular matrix
-          // A=[[1,2,3],[0,4,5],[0,6,7]]
-          // b=[1,2,3]
-          // triaUpSolve(A,b) // -> [2.666,0.1666,1.666]
-          // if you use matrix style
-          // A=[[1,2,3],[0,4,5],[0,6,7]]
-          // b=[[1],[2],[3]]
-          // will return [[2.666],[0.1666],[1.666]]
-          triaUpSolve: function triaUpSolve(A, b) {
-            var size = A[0].length;
-            var x = jStat3.zeros(1, size)[0];
-            var parts;
-            var matrix_mode = false;
-            if (b[0].length != void 0) {
-              b = b.map(function(i) {
-                return i[0];
-              });
-              matrix_mode = true;
-            }
-            jStat3.arange(size - 1, -1, -1).forEach(function(i) {
-              parts = jStat3.arange(i + 1, size).map(function(j) {
-                return x[j] * A[i][j];
-              });
-              x[i] = (b[i] - jStat3.sum(parts)) / A[i][i];
-            });
-            if (matrix_mode)
-              return x.map(function(i) {
-                return [i];
-              });
-            return x;
-          },
-          triaLowSolve: function triaLowSolve(A, b) {
-            var size = A[0].length;
-            var x = jStat3.zeros(1, size)[0];
-            var parts;
-            var matrix_mode = false;
-            if (b[0].length != void 0) {
-              b = b.map(function(i) {
-                return i[0];
-              });
-              matrix_mode = true;
-            }
-            jStat3.arange(size).forEach(function(i) {
-              parts = jStat3.arange(i).map(function(j) {
-                return A[i][j] * x[j];
-              });
-              x[i] = (b[i] - jStat3.sum(parts)) / A[i][i];
-            });
-            if (matrix_mode)
-              return x.map(function(i) {
-                return [i];
-              });
-            return x;
-          },
-          // A -> [L,U]
-          // A=LU
-          // L is lower triangular matrix
-          // U is upper triangular matrix
-          lu: function lu(A) {
-            var size = A.length;
-            var L = jStat3.identity(size);
-            var R = jStat3.zeros(A.length, A[0].length);
-            var parts;
-            jStat3.arange(size).forEach(function(t) {
-              R[0][t] = A[0][t];
-            });
-            jStat3.arange(1, size).forEach(function(l) {
-              jStat3.arange(l).forEach(function(i) {
-                parts = jStat3.arange(i).map(function(jj) {
-                  return L[l][jj] * R[jj][i];
-                });
-                L[l][i] = (A[l][i] - jStat3.sum(parts)) / R[i][i];
-              });
-              jStat3.arange(l, size).forEach(function(j) {
-                parts = jStat3.arange(l).map(function(jj) {
-                  return L[l][jj] * R[jj][j];
-                });
-                R[l][j] = A[parts.length][j] - jStat3.sum(parts);
-              });
-            });
-            return [L, R];
-          },
-          // A -> T
-          // A=TT'
-          // T is lower triangular matrix
-          cholesky: function cholesky(A) {
-            var size = A.length;
-            var T = jStat3.zeros(A.length, A[0].length);
-            var parts;
-            jStat3.arange(size).forEach(function(i) {
-              parts = jStat3.arange(i).map(function(t) {
-                return Math2.pow(T[i][t], 2);
-              });
-              T[i][i] = Math2.sqrt(A[i][i] - jStat3.sum(parts));
-              jStat3.arange(i + 1, size).forEach(function(j) {
-                parts = jStat3.arange(i).map(function(t) {
-                  return T[i][t] * T[j][t];
-                });
-                T[j][i] = (A[i][j] - jStat3.sum(parts)) / T[i][i];
-              });
-            });
-            return T;
-          },
-          gauss_jacobi: function gauss_jacobi(a, b, x, r) {
-            var i = 0;
-            var j = 0;
-            var n = a.length;
-            var l = [];
-            var u = [];
-            var d = [];
-            var xv, c, h, xk;
-            for (; i < n; i++) {
-              l[i] = [];
-              u[i] = [];
-              d[i] = [];
-              for (j = 0; j < n; j++) {
-                if (i > j) {
-                  l[i][j] = a[i][j];
-                  u[i][j] = d[i][j] = 0;
-                } else if (i < j) {
-                  u[i][j] = a[i][j];
-                  l[i][j] = d[i][j] = 0;
-                } else {
-                  d[i][j] = a[i][j];
-                  l[i][j] = u[i][j] = 0;
-                }
-              }
-            }
-            h = jStat3.multiply(jStat3.multiply(jStat3.inv(d), jStat3.add(l, u)), -1);
-            c = jStat3.multiply(jStat3.inv(d), b);
-            xv = x;
-            xk = jStat3.add(jStat3.multiply(h, x), c);
-            i = 2;
-            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
-              xv = xk;
-              xk = jStat3.add(jStat3.multiply(h, xv), c);
-              i++;
-            }
-            return xk;
-          },
-          gauss_seidel: function gauss_seidel(a, b, x, r) {
-            var i = 0;
-            var n = a.length;
-            var l = [];
-            var u = [];
-            var d = [];
-            var j, xv, c, h, xk;
-            for (; i < n; i++) {
-              l[i] = [];
-              u[i] = [];
-              d[i] = [];
-              for (j = 0; j < n; j++) {
-                if (i > j) {
-                  l[i][j] = a[i][j];
-                  u[i][j] = d[i][j] = 0;
-                } else if (i < j) {
-                  u[i][j] = a[i][j];
-                  l[i][j] = d[i][j] = 0;
-                } else {
-                  d[i][j] = a[i][j];
-                  l[i][j] = u[i][j] = 0;
-                }
-              }
-            }
-            h = jStat3.multiply(jStat3.multiply(jStat3.inv(jStat3.add(d, l)), u), -1);
-            c = jStat3.multiply(jStat3.inv(jStat3.add(d, l)), b);
-            xv = x;
-            xk = jStat3.add(jStat3.multiply(h, x), c);
-            i = 2;
-            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
-              xv = xk;
-              xk = jStat3.add(jStat3.multiply(h, xv), c);
-              i = i + 1;
-            }
-            return xk;
-          },
-          SOR: function SOR(a, b, x, r, w) {
-            var i = 0;
-            var n = a.length;
-            var l = [];
-            var u = [];
-            var d = [];
-            var j, xv, c, h, xk;
-            for (; i < n; i++) {
-              l[i] = [];
-              u[i] = [];
-              d[i] = [];
-              for (j = 0; j < n; j++) {
-                if (i > j) {
-                  l[i][j] = a[i][j];
-                  u[i][j] = d[i][j] = 0;
-                } else if (i < j) {
-                  u[i][j] = a[i][j];
-                  l[i][j] = d[i][j] = 0;
-                } else {
-                  d[i][j] = a[i][j];
-                  l[i][j] = u[i][j] = 0;
-                }
-              }
-            }
-            h = jStat3.multiply(
-              jStat3.inv(jStat3.add(d, jStat3.multiply(l, w))),
-              jStat3.subtract(
-                jStat3.multiply(d, 1 - w),
-                jStat3.multiply(u, w)
-              )
-            );
-            c = jStat3.multiply(jStat3.multiply(jStat3.inv(jStat3.add(
-              d,
-              jStat3.multiply(l, w)
-            )), b), w);
-            xv = x;
-            xk = jStat3.add(jStat3.multiply(h, x), c);
-            i = 2;
-            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
-              xv = xk;
-              xk = jStat3.add(jStat3.multiply(h, xv), c);
-              i++;
-            }
-            return xk;
-          },
-          householder: function householder(a) {
-            var m = a.length;
-            var n = a[0].length;
-            var i = 0;
-            var w = [];
-            var p = [];
-            var alpha, r, k, j, factor;
-            for (; i < m - 1; i++) {
-              alpha = 0;
-              for (j = i + 1; j < n; j++)
-                alpha += a[j][i] * a[j][i];
-              factor = a[i + 1][i] > 0 ? -1 : 1;
-              alpha = factor * Math2.sqrt(alpha);
-              r = Math2.sqrt((alpha * alpha - a[i + 1][i] * alpha) / 2);
-              w = jStat3.zeros(m, 1);
-              w[i + 1][0] = (a[i + 1][i] - alpha) / (2 * r);
-              for (k = i + 2; k < m; k++) w[k][0] = a[k][i] / (2 * r);
-              p = jStat3.subtract(
-                jStat3.identity(m, n),
-                jStat3.multiply(jStat3.multiply(w, jStat3.transpose(w)), 2)
-              );
-              a = jStat3.multiply(p, jStat3.multiply(a, p));
-            }
-            return a;
-          },
-          // A -> [Q,R]
-          // Q is orthogonal matrix
-          // R is upper triangular
-          QR: (function() {
-            var sum = jStat3.sum;
-            var range = jStat3.arange;
-            function qr2(x) {
-              var n = x.length;
-              var p = x[0].length;
-              var r = jStat3.zeros(p, p);
-              x = jStat3.copy(x);
-              var i, j, k;
-              for (j = 0; j < p; j++) {
-                r[j][j] = Math2.sqrt(sum(range(n).map(function(i2) {
-                  return x[i2][j] * x[i2][j];
-                })));
-                for (i = 0; i < n; i++) {
-                  x[i][j] = x[i][j] / r[j][j];
-                }
-                for (k = j + 1; k < p; k++) {
-                  r[j][k] = sum(range(n).map(function(i2) {
-                    return x[i2][j] * x[i2][k];
-                  }));
-                  for (i = 0; i < n; i++) {
-                    x[i][k] = x[i][k] - x[i][j] * r[j][k];
-                  }
-                }
-              }
-              return [x, r];
-            }
-            return qr2;
-          })(),
-          lstsq: /* @__PURE__ */ (function() {
-            function R_I(A) {
-              A = jStat3.copy(A);
-              var size = A.length;
-              var I = jStat3.identity(size);
-              jStat3.arange(size - 1, -1, -1).forEach(function(i) {
-                jStat3.sliceAssign(
-                  I,
-                  { row: i },
-                  jStat3.divide(jStat3.slice(I, { row: i }), A[i][i])
-                );
-                jStat3.sliceAssign(
-                  A,
-                  { row: i },
-                  jStat3.divide(jStat3.slice(A, { row: i }), A[i][i])
-                );
-                jStat3.arange(i).forEach(function(j) {
-                  var c = jStat3.multiply(A[j][i], -1);
-                  var Aj = jStat3.slice(A, { row: j });
-                  var cAi = jStat3.multiply(jStat3.slice(A, { row: i }), c);
-                  jStat3.sliceAssign(A, { row: j }, jStat3.add(Aj, cAi));
-                  var Ij = jStat3.slice(I, { row: j });
-                  var cIi = jStat3.multiply(jStat3.slice(I, { row: i }), c);
-                  jStat3.sliceAssign(I, { row: j }, jStat3.add(Ij, cIi));
-                });
-              });
-              return I;
-            }
-            function qr_solve(A, b) {
-              var array_mode = false;
-              if (b[0].length === void 0) {
-                b = b.map(function(x2) {
-                  return [x2];
-                });
-                array_mode = true;
-              }
-              var QR = jStat3.QR(A);
-              var Q2 = QR[0];
-              var R = QR[1];
-              var attrs = A[0].length;
-              var Q1 = jStat3.slice(Q2, { col: { end: attrs } });
-              var R1 = jStat3.slice(R, { row: { end: attrs } });
-              var RI = R_I(R1);
-              var Q22 = jStat3.transpose(Q1);
-              if (Q22[0].length === void 0) {
-                Q22 = [Q22];
-              }
-              var x = jStat3.multiply(jStat3.multiply(RI, Q22), b);
-              if (x.length === void 0) {
-                x = [[x]];
-              }
-              if (array_mode)
-                return x.map(function(i) {
-                  return i[0];
-                });
-              return x;
-            }
-            return qr_solve;
-          })(),
-          jacobi: function jacobi(a) {
-            var condition = 1;
-            var n = a.length;
-            var e = jStat3.identity(n, n);
-            var ev = [];
-            var b, i, j, p, q, maxim, theta, s;
-            while (condition === 1) {
-              maxim = a[0][1];
-              p = 0;
-              q = 1;
-              for (i = 0; i < n; i++) {
-                for (j = 0; j < n; j++) {
-                  if (i != j) {
-                    if (maxim < Math2.abs(a[i][j])) {
-                      maxim = Math2.abs(a[i][j]);
-                      p = i;
-                      q = j;
-                    }
-                  }
-                }
-              }
-              if (a[p][p] === a[q][q])
-                theta = a[p][q] > 0 ? Math2.PI / 4 : -Math2.PI / 4;
-              else
-                theta = Math2.atan(2 * a[p][q] / (a[p][p] - a[q][q])) / 2;
-              s = jStat3.identity(n, n);
-              s[p][p] = Math2.cos(theta);
-              s[p][q] = -Math2.sin(theta);
-              s[q][p] = Math2.sin(theta);
-              s[q][q] = Math2.cos(theta);
-              e = jStat3.multiply(e, s);
-              b = jStat3.multiply(jStat3.multiply(jStat3.inv(s), a), s);
-              a = b;
-              condition = 0;
-              for (i = 1; i < n; i++) {
-                for (j = 1; j < n; j++) {
-                  if (i != j && Math2.abs(a[i][j]) > 1e-3) {
-                    condition = 1;
-                  }
-                }
-              }
-            }
-            for (i = 0; i < n; i++) ev.push(a[i][i]);
-            return [e, ev];
-          },
-          rungekutta: function rungekutta(f, h, p, t_j, u_j, order) {
-            var k1, k2, u_j1, k3, k4;
-            if (order === 2) {
-              while (t_j <= p) {
-                k1 = h * f(t_j, u_j);
-                k2 = h * f(t_j + h, u_j + k1);
-                u_j1 = u_j + (k1 + k2) / 2;
-                u_j = u_j1;
-                t_j = t_j + h;
-              }
-            }
-            if (order === 4) {
-              while (t_j <= p) {
-                k1 = h * f(t_j, u_j);
-                k2 = h * f(t_j + h / 2, u_j + k1 / 2);
-                k3 = h * f(t_j + h / 2, u_j + k2 / 2);
-                k4 = h * f(t_j + h, u_j + k3);
-                u_j1 = u_j + (k1 + 2 * k2 + 2 * k3 + k4) / 6;
-                u_j = u_j1;
-                t_j = t_j + h;
-              }
-            }
-            return u_j;
-          },
-          romberg: function romberg(f, a, b, order) {
-            var i = 0;
-            var h = (b - a) / 2;
-            var x = [];
-            var h1 = [];
-            var g = [];
-            var m, a1, j, k, I;
-            while (i < order / 2) {
-              I = f(a);
-              for (j = a, k = 0; j <= b; j = j + h, k++) x[k] = j;
-              m = x.length;
-              for (j = 1; j < m - 1; j++) {
-                I += (j % 2 !== 0 ? 4 : 2) * f(x[j]);
-              }
-              I = h / 3 * (I + f(b));
-              g[i] = I;
-              h /= 2;
-              i++;
-            }
-            a1 = g.length;
-            m = 1;
-            while (a1 !== 1) {
-              for (j = 0; j < a1 - 1; j++)
-                h1[j] = (Math2.pow(4, m) * g[j + 1] - g[j]) / (Math2.pow(4, m) - 1);
-              a1 = h1.length;
-              g = h1;
-              h1 = [];
-              m++;
-            }
-            return g;
-          },
-          richardson: function richardson(X, f, x, h) {
-            function pos(X2, x2) {
-              var i2 = 0;
-              var n = X2.length;
-              var p;
-              for (; i2 < n; i2++)
-                if (X2[i2] === x2) p = i2;
-              return p;
-            }
-            var h_min = Math2.abs(x - X[pos(X, x) + 1]);
-            var i = 0;
-            var g = [];
-            var h1 = [];
-            var y1, y2, m, a, j;
-            while (h >= h_min) {
-              y1 = pos(X, x + h);
-              y2 = pos(X, x);
-              g[i] = (f[y1] - 2 * f[y2] + f[2 * y2 - y1]) / (h * h);
-              h /= 2;
-              i++;
-            }
-            a = g.length;
-            m = 1;
-            while (a != 1) {
-              for (j = 0; j < a - 1; j++)
-                h1[j] = (Math2.pow(4, m) * g[j + 1] - g[j]) / (Math2.pow(4, m) - 1);
-              a = h1.length;
-              g = h1;
-              h1 = [];
-              m++;
-            }
-            return g;
-          },
-          simpson: function simpson(f, a, b, n) {
-            var h = (b - a) / n;
-            var I = f(a);
-            var x = [];
-            var j = a;
-            var k = 0;
-            var i = 1;
-            var m;
-            for (; j <= b; j = j + h, k++)
-              x[k] = j;
-            m = x.length;
-            for (; i < m - 1; i++) {
-              I += (i % 2 !== 0 ? 4 : 2) * f(x[i]);
-            }
-            return h / 3 * (I + f(b));
-          },
-          hermite: function hermite(X, F2, dF, value) {
-            var n = X.length;
-            var p = 0;
-            var i = 0;
-            var l = [];
-            var dl = [];
-            var A = [];
-            var B = [];
-            var j;
-            for (; i < n; i++) {
-              l[i] = 1;
-              for (j = 0; j < n; j++) {
-                if (i != j) l[i] *= (value - X[j]) / (X[i] - X[j]);
-              }
-              dl[i] = 0;
-              for (j = 0; j < n; j++) {
-                if (i != j) dl[i] += 1 / (X[i] - X[j]);
-              }
-              A[i] = (1 - 2 * (value - X[i]) * dl[i]) * (l[i] * l[i]);
-              B[i] = (value - X[i]) * (l[i] * l[i]);
-              p += A[i] * F2[i] + B[i] * dF[i];
-            }
-            return p;
-          },
-          lagrange: function lagrange(X, F2, value) {
-            var p = 0;
-            var i = 0;
-            var j, l;
-            var n = X.length;
-            for (; i < n; i++) {
-              l = F2[i];
-              for (j = 0; j < n; j++) {
-                if (i != j) l *= (value - X[j]) / (X[i] - X[j]);
-              }
-              p += l;
-            }
-            return p;
-          },
-          cubic_spline: function cubic_spline(X, F2, value) {
-            var n = X.length;
-            var i = 0, j;
-            var A = [];
-            var B = [];
-            var alpha = [];
-            var c = [];
-            var h = [];
-            var b = [];
-            var d = [];
-            for (; i < n - 1; i++)
-              h[i] = X[i + 1] - X[i];
-            alpha[0] = 0;
-            for (i = 1; i < n - 1; i++) {
-              alpha[i] = 3 / h[i] * (F2[i + 1] - F2[i]) - 3 / h[i - 1] * (F2[i] - F2[i - 1]);
-            }
-            for (i = 1; i < n - 1; i++) {
-              A[i] = [];
-              B[i] = [];
-              A[i][i - 1] = h[i - 1];
-              A[i][i] = 2 * (h[i - 1] + h[i]);
-              A[i][i + 1] = h[i];
-              B[i][0] = alpha[i];
-            }
-            c = jStat3.multiply(jStat3.inv(A), B);
-            for (j = 0; j < n - 1; j++) {
-              b[j] = (F2[j + 1] - F2[j]) / h[j] - h[j] * (c[j + 1][0] + 2 * c[j][0]) / 3;
-              d[j] = (c[j + 1][0] - c[j][0]) / (3 * h[j]);
-            }
-            for (j = 0; j < n; j++) {
-              if (X[j] > value) break;
-            }
-            j -= 1;
-            return F2[j] + (value - X[j]) * b[j] + jStat3.sq(value - X[j]) * c[j] + (value - X[j]) * jStat3.sq(value - X[j]) * d[j];
-          },
-          gauss_quadrature: function gauss_quadrature() {
-            throw new Error("gauss_quadrature not yet implemented");
-          },
-          PCA: function PCA(X) {
-            var m = X.length;
-            var n = X[0].length;
-            var i = 0;
-            var j, temp1;
-            var u = [];
-            var D = [];
-            var result = [];
-            var temp2 = [];
-            var Y = [];
-            var Bt = [];
-            var B = [];
-            var C = [];
-            var V = [];
-            var Vt = [];
-            for (i = 0; i < m; i++) {
-              u[i] = jStat3.sum(X[i]) / n;
-            }
-            for (i = 0; i < n; i++) {
-              B[i] = [];
-              for (j = 0; j < m; j++) {
-                B[i][j] = X[j][i] - u[j];
-              }
-            }
-            B = jStat3.transpose(B);
-            for (i = 0; i < m; i++) {
-              C[i] = [];
-              for (j = 0; j < m; j++) {
-                C[i][j] = jStat3.dot([B[i]], [B[j]]) / (n - 1);
-              }
-            }
-            result = jStat3.jacobi(C);
-            V = result[0];
-            D = result[1];
-            Vt = jStat3.transpose(V);
-            for (i = 0; i < D.length; i++) {
-              for (j = i; j < D.length; j++) {
-                if (D[i] < D[j]) {
-                  temp1 = D[i];
-                  D[i] = D[j];
-                  D[j] = temp1;
-                  temp2 = Vt[i];
-                  Vt[i] = Vt[j];
-                  Vt[j] = temp2;
-                }
-              }
-            }
-            Bt = jStat3.transpose(B);
-            for (i = 0; i < m; i++) {
-              Y[i] = [];
-              for (j = 0; j < Bt.length; j++) {
-                Y[i][j] = jStat3.dot([Vt[i]], [Bt[j]]);
-              }
-            }
-            return [X, D, Vt, Y];
-          }
-        });
-        (function(funcs) {
-          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
-            jStat3.fn[passfunc] = function(arg, func) {
-              var tmpthis = this;
-              if (func) {
-                setTimeout(function() {
-                  func.call(tmpthis, jStat3.fn[passfunc].call(tmpthis, arg));
-                }, 15);
-                return this;
-              }
-              if (typeof jStat3[passfunc](this, arg) === "number")
-                return jStat3[passfunc](this, arg);
-              else
-                return jStat3(jStat3[passfunc](this, arg));
-            };
-          })(funcs[i]);
-        })("add divide multiply subtract dot pow exp log abs norm angle".split(" "));
-      })(jStat2, Math);
-      (function(jStat3, Math2) {
-        var slice = [].slice;
-        var isNumber = jStat3.utils.isNumber;
-        var isArray = jStat3.utils.isArray;
-        jStat3.extend({
-          // 2 different parameter lists:
-          // (value, mean, sd)
-          // (value, array, flag)
-          zscore: function zscore() {
-            var args = slice.call(arguments);
-            if (isNumber(args[1])) {
-              return (args[0] - args[1]) / args[2];
-            }
-            return (args[0] - jStat3.mean(args[1])) / jStat3.stdev(args[1], args[2]);
-          },
-          // 3 different paramter lists:
-          // (value, mean, sd, sides)
-          // (zscore, sides)
-          // (value, array, sides, flag)
-          ztest: function ztest() {
-            var args = slice.call(arguments);
-            var z2;
-            if (isArray(args[1])) {
-              z2 = jStat3.zscore(args[0], args[1], args[3]);
-              return args[2] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
-            } else {
-              if (args.length > 2) {
-                z2 = jStat3.zscore(args[0], args[1], args[2]);
-                return args[3] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
-              } else {
-                z2 = args[0];
-                return args[1] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
-              }
-            }
-          }
-        });
-        jStat3.extend(jStat3.fn, {
-          zscore: function zscore(value, flag) {
-            return (value - this.mean()) / this.stdev(flag);
-          },
-          ztest: function ztest(value, sides, flag) {
-            var zscore = Math2.abs(this.zscore(value, flag));
-            return sides === 1 ? jStat3.normal.cdf(-zscore, 0, 1) : jStat3.normal.cdf(-zscore, 0, 1) * 2;
-          }
-        });
-        jStat3.extend({
-          // 2 parameter lists
-          // (value, mean, sd, n)
-          // (value, array)
-          tscore: function tscore() {
-            var args = slice.call(arguments);
-            return args.length === 4 ? (args[0] - args[1]) / (args[2] / Math2.sqrt(args[3])) : (args[0] - jStat3.mean(args[1])) / (jStat3.stdev(args[1], true) / Math2.sqrt(args[1].length));
-          },
-          // 3 different paramter lists:
-          // (value, mean, sd, n, sides)
-          // (tscore, n, sides)
-          // (value, array, sides)
-          ttest: function ttest() {
-            var args = slice.call(arguments);
-            var tscore;
-            if (args.length === 5) {
-              tscore = Math2.abs(jStat3.tscore(args[0], args[1], args[2], args[3]));
-              return args[4] === 1 ? jStat3.studentt.cdf(-tscore, args[3] - 1) : jStat3.studentt.cdf(-tscore, args[3] - 1) * 2;
-            }
-            if (isNumber(args[1])) {
-              tscore = Math2.abs(args[0]);
-              return args[2] == 1 ? jStat3.studentt.cdf(-tscore, args[1] - 1) : jStat3.studentt.cdf(-tscore, args[1] - 1) * 2;
-            }
-            tscore = Math2.abs(jStat3.tscore(args[0], args[1]));
-            return args[2] == 1 ? jStat3.studentt.cdf(-tscore, args[1].length - 1) : jStat3.studentt.cdf(-tscore, args[1].length - 1) * 2;
-          }
-        });
-        jStat3.extend(jStat3.fn, {
-          tscore: function tscore(value) {
-            return (value - this.mean()) / (this.stdev(true) / Math2.sqrt(this.cols()));
-          },
-          ttest: function ttest(value, sides) {
-            return sides === 1 ? 1 - jStat3.studentt.cdf(Math2.abs(this.tscore(value)), this.cols() - 1) : jStat3.studentt.cdf(-Math2.abs(this.tscore(value)), this.cols() - 1) * 2;
-          }
-        });
-        jStat3.extend({
-          // Paramter list is as follows:
-          // (array1, array2, array3, ...)
-          // or it is an array of arrays
-          // array of arrays conversion
-          anovafscore: function anovafscore() {
-            var args = slice.call(arguments), expVar, sample, sampMean, sampSampMean, tmpargs, unexpVar, i, j;
-            if (args.length === 1) {
-              tmpargs = new Array(args[0].length);
-              for (i = 0; i < args[0].length; i++) {
-                tmpargs[i] = args[0][i];
-              }
-              args = tmpargs;
-            }
-            sample = new Array();
-            for (i = 0; i < args.length; i++) {
-              sample = sample.concat(args[i]);
-            }
-            sampMean = jStat3.mean(sample);
-            expVar = 0;
-            for (i = 0; i < args.length; i++) {
-              expVar = expVar + args[i].length * Math2.pow(jStat3.mean(args[i]) - sampMean, 2);
-            }
-            expVar /= args.length - 1;
-            unexpVar = 0;
-            for (i = 0; i < args.length; i++) {
-              sampSampMean = jStat3.mean(args[i]);
-              for (j = 0; j < args[i].length; j++) {
-                unexpVar += Math2.pow(args[i][j] - sampSampMean, 2);
-              }
-            }
-            unexpVar /= sample.length - args.length;
-            return expVar / unexpVar;
-          },
-          // 2 different paramter setups
-          // (array1, array2, array3, ...)
-          // (anovafscore, df1, df2)
-          anovaftest: function anovaftest() {
-            var args = slice.call(arguments), df1, df2, n, i;
-            if (isNumber(args[0])) {
-              return 1 - jStat3.centralF.cdf(args[0], args[1], args[2]);
-            }
-            var anovafscore = jStat3.anovafscore(args);
-            df1 = args.length - 1;
-            n = 0;
-            for (i = 0; i < args.length; i++) {
-              n = n + args[i].length;
-            }
-            df2 = n - df1 - 1;
-            return 1 - jStat3.centralF.cdf(anovafscore, df1, df2);
-          },
-          ftest: function ftest(fscore, df1, df2) {
-            return 1 - jStat3.centralF.cdf(fscore, df1, df2);
-          }
-        });
-        jStat3.extend(jStat3.fn, {
-          anovafscore: function anovafscore() {
-            return jStat3.anovafscore(this.toArray());
-          },
-          anovaftes: function anovaftes() {
-            var n = 0;
-            var i;
-            for (i = 0; i < this.length; i++) {
-              n = n + this[i].length;
-            }
-            return jStat3.ftest(this.anovafscore(), this.length - 1, n - this.length);
-          }
-        });
-        jStat3.extend({
-          // 2 parameter lists
-          // (mean1, mean2, n1, n2, sd)
-          // (array1, array2, sd)
-          qscore: function qscore() {
-            var args = slice.call(arguments);
-            var mean1, mean2, n1, n2, sd;
-            if (isNumber(args[0])) {
-              mean1 = args[0];
-              mean2 = args[1];
-              n1 = args[2];
-              n2 = args[3];
-              sd = args[4];
-            } else {
-              mean1 = jStat3.mean(args[0]);
-              mean2 = jStat3.mean(args[1]);
-              n1 = args[0].length;
-              n2 = args[1].length;
-              sd = args[2];
-            }
-            return Math2.abs(mean1 - mean2) / (sd * Math2.sqrt((1 / n1 + 1 / n2) / 2));
-          },
-          // 3 different parameter lists:
-          // (qscore, n, k)
-          // (mean1, mean2, n1, n2, sd, n, k)
-          // (array1, array2, sd, n, k)
-          qtest: function qtest() {
-            var args = slice.call(arguments);
-            var qscore;
-            if (args.length === 3) {
-              qscore = args[0];
-              args = args.slice(1);
-            } else if (args.length === 7) {
-              qscore = jStat3.qscore(args[0], args[1], args[2], args[3], args[4]);
-              args = args.slice(5);
-            } else {
-              qscore = jStat3.qscore(args[0], args[1], args[2]);
-              args = args.slice(3);
-            }
-            var n = args[0];
-            var k = args[1];
-            return 1 - jStat3.tukey.cdf(qscore, k, n - k);
-          },
-          tukeyhsd: function tukeyhsd(arrays) {
-            var sd = jStat3.pooledstdev(arrays);
-            var means = arrays.map(function(arr) {
-              return jStat3.mean(arr);
-            });
-            var n = arrays.reduce(function(n2, arr) {
-              return n2 + arr.length;
-            }, 0);
-            var results = [];
-            for (var i = 0; i < arrays.length; ++i) {
-              for (var j = i + 1; j < arrays.length; ++j) {
-                var p = jStat3.qtest(means[i], means[j], arrays[i].length, arrays[j].length, sd, n, arrays.length);
-                results.push([[i, j], p]);
-              }
-            }
-            return results;
-          }
-        });
-        jStat3.extend({
-          // 2 different parameter setups
-          // (value, alpha, sd, n)
-          // (value, alpha, array)
-          normalci: function normalci() {
-            var args = slice.call(arguments), ans = new Array(2), change2;
-            if (args.length === 4) {
-              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * args[2] / Math2.sqrt(args[3]));
-            } else {
-              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * jStat3.stdev(args[2]) / Math2.sqrt(args[2].length));
-            }
-            ans[0] = args[0] - change2;
-            ans[1] = args[0] + change2;
-            return ans;
-          },
-          // 2 different parameter setups
-          // (value, alpha, sd, n)
-          // (value, alpha, array)
-          tci: function tci() {
-            var args = slice.call(arguments), ans = new Array(2), change2;
-            if (args.length === 4) {
-              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[3] - 1) * args[2] / Math2.sqrt(args[3]));
-            } else {
-              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[2].length - 1) * jStat3.stdev(args[2], true) / Math2.sqrt(args[2].length));
-            }
-            ans[0] = args[0] - change2;
-            ans[1] = args[0] + change2;
-            return ans;
-          },
-          significant: function significant(pvalue, alpha) {
-            return pvalue < alpha;
-          }
-        });
-        jStat3.extend(jStat3.fn, {
-          normalci: function normalci(value, alpha) {
-            return jStat3.normalci(value, alpha, this.toArray());
-          },
-          tci: function tci(value, alpha) {
-            return jStat3.tci(value, alpha, this.toArray());
-          }
-        });
-        function differenceOfProportions(p1, n1, p2, n2) {
-          if (p1 > 1 || p2 > 1 || p1 <= 0 || p2 <= 0) {
-            throw new Error("Proportions should be greater than 0 and less than 1");
-          }
-          var pooled = (p1 * n1 + p2 * n2) / (n1 + n2);
-          var se = Math2.sqrt(pooled * (1 - pooled) * (1 / n1 + 1 / n2));
-          return (p1 - p2) / se;
-        }
-        jStat3.extend(jStat3.fn, {
-          oneSidedDifferenceOfProportions: function oneSidedDifferenceOfProportions(p1, n1, p2, n2) {
-            var z2 = differenceOfProportions(p1, n1, p2, n2);
-            return jStat3.ztest(z2, 1);
-          },
-          twoSidedDifferenceOfProportions: function twoSidedDifferenceOfProportions(p1, n1, p2, n2) {
-            var z2 = differenceOfProportions(p1, n1, p2, n2);
-            return jStat3.ztest(z2, 2);
-          }
-        });
-      })(jStat2, Math);
-      jStat2.models = /* @__PURE__ */ (function() {
-        function sub_regress(exog) {
-          var var_count = exog[0].length;
-          var modelList = jStat2.arange(var_count).map(function(endog_index) {
-            var exog_index = jStat2.arange(var_count).filter(function(i) {
-              return i !== endog_index;
-            });
-            return ols(
-              jStat2.col(exog, endog_index).map(function(x) {
-                return x[0];
-              }),
-              jStat2.col(exog, exog_index)
-            );
-          });
-          return modelList;
-        }
-        function ols(endog, exog) {
-          var nobs = endog.length;
-          var df_model = exog[0].length - 1;
-          var df_resid = nobs - df_model - 1;
-          var coef = jStat2.lstsq(exog, endog);
-          var predict = jStat2.multiply(exog, coef.map(function(x) {
-            return [x];
-          })).map(function(p) {
-            return p[0];
-          });
-          var resid = jStat2.subtract(endog, predict);
-          var ybar = jStat2.mean(endog);
-          var SSE = jStat2.sum(predict.map(function(f) {
-            return Math.pow(f - ybar, 2);
-          }));
-          var SSR = jStat2.sum(endog.map(function(y, i) {
-            return Math.pow(y - predict[i], 2);
-          }));
-          var SST = SSE + SSR;
-          var R2 = SSE / SST;
-          return {
-            exog,
-            endog,
-            nobs,
-            df_model,
-            df_resid,
-            coef,
-            predict,
-            resid,
-            ybar,
-            SST,
-            SSE,
-            SSR,
-            R2
-          };
-        }
-        function t_test(model) {
-          var subModelList = sub_regress(model.exog);
-          var sigmaHat = Math.sqrt(model.SSR / model.df_resid);
-          var seBetaHat = subModelList.map(function(mod) {
-            var SST = mod.SST;
-            var R2 = mod.R2;
-            return sigmaHat / Math.sqrt(SST * (1 - R2));
-          });
-          var tStatistic = model.coef.map(function(coef, i) {
-            return (coef - 0) / seBetaHat[i];
-          });
-          var pValue = tStatistic.map(function(t) {
-            var leftppf = jStat2.studentt.cdf(t, model.df_resid);
-            return (leftppf > 0.5 ? 1 - leftppf : leftppf) * 2;
-          });
-          var c = jStat2.studentt.inv(0.975, model.df_resid);
-          var interval95 = model.coef.map(function(coef, i) {
-            var d = c * seBetaHat[i];
-            return [coef - d, coef + d];
-          });
-          return {
-            se: seBetaHat,
-            t: tStatistic,
-            p: pValue,
-            sigmaHat,
-            interval95
-          };
-        }
-        function F_test(model) {
-          var F_statistic = model.R2 / model.df_model / ((1 - model.R2) / model.df_resid);
-          var fcdf = function(x, n1, n2) {
-            return jStat2.beta.cdf(x / (n2 / n1 + x), n1 / 2, n2 / 2);
-          };
-          var pvalue = 1 - fcdf(F_statistic, model.df_model, model.df_resid);
-          return { F_statistic, pvalue };
-        }
-        function ols_wrap(endog, exog) {
-          var model = ols(endog, exog);
-          var ttest = t_test(model);
-          var ftest = F_test(model);
-          var adjust_R2 = 1 - (1 - model.R2) * ((model.nobs - 1) / model.df_resid);
-          model.t = ttest;
-          model.f = ftest;
-          model.adjust_R2 = adjust_R2;
-          return model;
-        }
-        return { ols: ols_wrap };
-      })();
-      jStat2.extend({
-        buildxmatrix: function buildxmatrix() {
-          var matrixRows = new Array(arguments.length);
-          for (var i = 0; i < arguments.length; i++) {
-            var array2 = [1];
-            matrixRows[i] = array2.concat(arguments[i]);
-          }
-          return jStat2(matrixRows);
-        },
-        builddxmatrix: function builddxmatrix() {
-          var matrixRows = new Array(arguments[0].length);
-          for (var i = 0; i < arguments[0].length; i++) {
-            var array2 = [1];
-            matrixRows[i] = array2.concat(arguments[0][i]);
-          }
-          return jStat2(matrixRows);
-        },
-        buildjxmatrix: function buildjxmatrix(jMat) {
-          var pass = new Array(jMat.length);
-          for (var i = 0; i < jMat.length; i++) {
-            pass[i] = jMat[i];
-          }
-          return jStat2.builddxmatrix(pass);
-        },
-        buildymatrix: function buildymatrix(array2) {
-          return jStat2(array2).transpose();
-        },
-        buildjymatrix: function buildjymatrix(jMat) {
-          return jMat.transpose();
-        },
-        matrixmult: function matrixmult(A, B) {
-          var i, j, k, result, sum;
-          if (A.cols() == B.rows()) {
-            if (B.rows() > 1) {
-              result = [];
-              for (i = 0; i < A.rows(); i++) {
-                result[i] = [];
-                for (j = 0; j < B.cols(); j++) {
-                  sum = 0;
-                  for (k = 0; k < A.cols(); k++) {
-                    sum += A.toArray()[i][k] * B.toArray()[k][j];
-                  }
-                  result[i][j] = sum;
-                }
-              }
-              return jStat2(result);
-            }
-            result = [];
-            for (i = 0; i < A.rows(); i++) {
-              result[i] = [];
-              for (j = 0; j < B.cols(); j++) {
-                sum = 0;
-                for (k = 0; k < A.cols(); k++) {
-                  sum += A.toArray()[i][k] * B.toArray()[j];
-                }
-                result[i][j] = sum;
-              }
-            }
-            return jStat2(result);
-          }
-        },
-        //regress and regresst to be fixed
-        regress: function regress(jMatX, jMatY) {
-          var innerinv = jStat2.xtranspxinv(jMatX);
-          var xtransp = jMatX.transpose();
-          var next = jStat2.matrixmult(jStat2(innerinv), xtransp);
-          return jStat2.matrixmult(next, jMatY);
-        },
-        regresst: function regresst(jMatX, jMatY, sides) {
-          var beta = jStat2.regress(jMatX, jMatY);
-          var compile2 = {};
-          compile2.anova = {};
-          var jMatYBar = jStat2.jMatYBar(jMatX, beta);
-          compile2.yBar = jMatYBar;
-          var yAverage = jMatY.mean();
-          compile2.anova.residuals = jStat2.residuals(jMatY, jMatYBar);
-          compile2.anova.ssr = jStat2.ssr(jMatYBar, yAverage);
-          compile2.anova.msr = compile2.anova.ssr / (jMatX[0].length - 1);
-          compile2.anova.sse = jStat2.sse(jMatY, jMatYBar);
-          compile2.anova.mse = compile2.anova.sse / (jMatY.length - (jMatX[0].length - 1) - 1);
-          compile2.anova.sst = jStat2.sst(jMatY, yAverage);
-          compile2.anova.mst = compile2.anova.sst / (jMatY.length - 1);
-          compile2.anova.r2 = 1 - compile2.anova.sse / compile2.anova.sst;
-          if (compile2.anova.r2 < 0) compile2.anova.r2 = 0;
-          compile2.anova.fratio = compile2.anova.msr / compile2.anova.mse;
-          compile2.anova.pvalue = jStat2.anovaftest(
-            compile2.anova.fratio,
-            jMatX[0].length - 1,
-            jMatY.length - (jMatX[0].length - 1) - 1
-          );
-          compile2.anova.rmse = Math.sqrt(compile2.anova.mse);
-          compile2.anova.r2adj = 1 - compile2.anova.mse / compile2.anova.mst;
-          if (compile2.anova.r2adj < 0) compile2.anova.r2adj = 0;
-          compile2.stats = new Array(jMatX[0].length);
-          var covar = jStat2.xtranspxinv(jMatX);
-          var sds, ts, ps;
-          for (var i = 0; i < beta.length; i++) {
-            sds = Math.sqrt(compile2.anova.mse * Math.abs(covar[i][i]));
-            ts = Math.abs(beta[i] / sds);
-            ps = jStat2.ttest(ts, jMatY.length - jMatX[0].length - 1, sides);
-            compile2.stats[i] = [beta[i], sds, ts, ps];
-          }
-          compile2.regress = beta;
-          return compile2;
-        },
-        xtranspx: function xtranspx(jMatX) {
-          return jStat2.matrixmult(jMatX.transpose(), jMatX);
-        },
-        xtranspxinv: function xtranspxinv(jMatX) {
-          var inner = jStat2.matrixmult(jMatX.transpose(), jMatX);
-          var innerinv = jStat2.inv(inner);
-          return innerinv;
-        },
-        jMatYBar: function jMatYBar(jMatX, beta) {
-          var yBar = jStat2.matrixmult(jMatX, beta);
-          return new jStat2(yBar);
-        },
-        residuals: function residuals(jMatY, jMatYBar) {
-          return jStat2.matrixsubtract(jMatY, jMatYBar);
-        },
-        ssr: function ssr(jMatYBar, yAverage) {
-          var ssr2 = 0;
-          for (var i = 0; i < jMatYBar.length; i++) {
-            ssr2 += Math.pow(jMatYBar[i] - yAverage, 2);
-          }
-          return ssr2;
-        },
-        sse: function sse(jMatY, jMatYBar) {
-          var sse2 = 0;
-          for (var i = 0; i < jMatY.length; i++) {
-            sse2 += Math.pow(jMatY[i] - jMatYBar[i], 2);
-          }
-          return sse2;
-        },
-        sst: function sst(jMatY, yAverage) {
-          var sst2 = 0;
-          for (var i = 0; i < jMatY.length; i++) {
-            sst2 += Math.pow(jMatY[i] - yAverage, 2);
-          }
-          return sst2;
-        },
-        matrixsubtract: function matrixsubtract(A, B) {
-          var ans = new Array(A.length);
-          for (var i = 0; i < A.length; i++) {
-            ans[i] = new Array(A[i].length);
-            for (var j = 0; j < A[i].length; j++) {
-              ans[i][j] = A[i][j] - B[i][j];
-            }
-          }
-          return jStat2(ans);
-        }
-      });
-      jStat2.jStat = jStat2;
-      return jStat2;
-    });
+    Object.assign(picomatch6, pico);
+    module.exports = picomatch6;
   }
 });
 
@@ -16066,7 +12215,7 @@ var require_public_api = __commonJS({
       }
       return doc;
     }
-    function parse4(src, reviver, options) {
+    function parse5(src, reviver, options) {
       let _reviver = void 0;
       if (typeof reviver === "function") {
         _reviver = reviver;
@@ -16107,7 +12256,7 @@ var require_public_api = __commonJS({
         return value.toString(options);
       return new Document2.Document(value, _replacer, options).toString(options);
     }
-    exports.parse = parse4;
+    exports.parse = parse5;
     exports.parseAllDocuments = parseAllDocuments;
     exports.parseDocument = parseDocument2;
     exports.stringify = stringify;
@@ -16163,6 +12312,3857 @@ var require_dist = __commonJS({
     exports.stringify = publicApi.stringify;
     exports.visit = visit3.visit;
     exports.visitAsync = visit3.visitAsync;
+  }
+});
+
+// ../main/node_modules/jstat/dist/jstat.js
+var require_jstat = __commonJS({
+  "../main/node_modules/jstat/dist/jstat.js"(exports, module) {
+    (function(window, factory) {
+      if (typeof exports === "object") {
+        module.exports = factory();
+      } else if (typeof define === "function" && define.amd) {
+        define(factory);
+      } else {
+        window.jStat = factory();
+      }
+    })(exports, function() {
+      var jStat2 = (function(Math2, undefined2) {
+        var concat = Array.prototype.concat;
+        var slice = Array.prototype.slice;
+        var toString = Object.prototype.toString;
+        function calcRdx(n, m) {
+          var val = n > m ? n : m;
+          return Math2.pow(
+            10,
+            17 - ~~(Math2.log(val > 0 ? val : -val) * Math2.LOG10E)
+          );
+        }
+        var isArray = Array.isArray || function isArray2(arg) {
+          return toString.call(arg) === "[object Array]";
+        };
+        function isFunction(arg) {
+          return toString.call(arg) === "[object Function]";
+        }
+        function isNumber(num) {
+          return typeof num === "number" ? num - num === 0 : false;
+        }
+        function toVector(arr) {
+          return concat.apply([], arr);
+        }
+        function jStat3() {
+          return new jStat3._init(arguments);
+        }
+        jStat3.fn = jStat3.prototype;
+        jStat3._init = function _init(args) {
+          if (isArray(args[0])) {
+            if (isArray(args[0][0])) {
+              if (isFunction(args[1]))
+                args[0] = jStat3.map(args[0], args[1]);
+              for (var i = 0; i < args[0].length; i++)
+                this[i] = args[0][i];
+              this.length = args[0].length;
+            } else {
+              this[0] = isFunction(args[1]) ? jStat3.map(args[0], args[1]) : args[0];
+              this.length = 1;
+            }
+          } else if (isNumber(args[0])) {
+            this[0] = jStat3.seq.apply(null, args);
+            this.length = 1;
+          } else if (args[0] instanceof jStat3) {
+            return jStat3(args[0].toArray());
+          } else {
+            this[0] = [];
+            this.length = 1;
+          }
+          return this;
+        };
+        jStat3._init.prototype = jStat3.prototype;
+        jStat3._init.constructor = jStat3;
+        jStat3.utils = {
+          calcRdx,
+          isArray,
+          isFunction,
+          isNumber,
+          toVector
+        };
+        jStat3._random_fn = Math2.random;
+        jStat3.setRandom = function setRandom(fn) {
+          if (typeof fn !== "function")
+            throw new TypeError("fn is not a function");
+          jStat3._random_fn = fn;
+        };
+        jStat3.extend = function extend2(obj) {
+          var i, j;
+          if (arguments.length === 1) {
+            for (j in obj)
+              jStat3[j] = obj[j];
+            return this;
+          }
+          for (i = 1; i < arguments.length; i++) {
+            for (j in arguments[i])
+              obj[j] = arguments[i][j];
+          }
+          return obj;
+        };
+        jStat3.rows = function rows2(arr) {
+          return arr.length || 1;
+        };
+        jStat3.cols = function cols(arr) {
+          return arr[0].length || 1;
+        };
+        jStat3.dimensions = function dimensions(arr) {
+          return {
+            rows: jStat3.rows(arr),
+            cols: jStat3.cols(arr)
+          };
+        };
+        jStat3.row = function row(arr, index) {
+          if (isArray(index)) {
+            return index.map(function(i) {
+              return jStat3.row(arr, i);
+            });
+          }
+          return arr[index];
+        };
+        jStat3.rowa = function rowa(arr, i) {
+          return jStat3.row(arr, i);
+        };
+        jStat3.col = function col(arr, index) {
+          if (isArray(index)) {
+            var submat = jStat3.arange(arr.length).map(function() {
+              return new Array(index.length);
+            });
+            index.forEach(function(ind, i2) {
+              jStat3.arange(arr.length).forEach(function(j) {
+                submat[j][i2] = arr[j][ind];
+              });
+            });
+            return submat;
+          }
+          var column = new Array(arr.length);
+          for (var i = 0; i < arr.length; i++)
+            column[i] = [arr[i][index]];
+          return column;
+        };
+        jStat3.cola = function cola(arr, i) {
+          return jStat3.col(arr, i).map(function(a) {
+            return a[0];
+          });
+        };
+        jStat3.diag = function diag(arr) {
+          var nrow = jStat3.rows(arr);
+          var res = new Array(nrow);
+          for (var row = 0; row < nrow; row++)
+            res[row] = [arr[row][row]];
+          return res;
+        };
+        jStat3.antidiag = function antidiag(arr) {
+          var nrow = jStat3.rows(arr) - 1;
+          var res = new Array(nrow);
+          for (var i = 0; nrow >= 0; nrow--, i++)
+            res[i] = [arr[i][nrow]];
+          return res;
+        };
+        jStat3.transpose = function transpose(arr) {
+          var obj = [];
+          var objArr, rows2, cols, j, i;
+          if (!isArray(arr[0]))
+            arr = [arr];
+          rows2 = arr.length;
+          cols = arr[0].length;
+          for (i = 0; i < cols; i++) {
+            objArr = new Array(rows2);
+            for (j = 0; j < rows2; j++)
+              objArr[j] = arr[j][i];
+            obj.push(objArr);
+          }
+          return obj.length === 1 ? obj[0] : obj;
+        };
+        jStat3.map = function map2(arr, func, toAlter) {
+          var row, nrow, ncol, res, col;
+          if (!isArray(arr[0]))
+            arr = [arr];
+          nrow = arr.length;
+          ncol = arr[0].length;
+          res = toAlter ? arr : new Array(nrow);
+          for (row = 0; row < nrow; row++) {
+            if (!res[row])
+              res[row] = new Array(ncol);
+            for (col = 0; col < ncol; col++)
+              res[row][col] = func(arr[row][col], row, col);
+          }
+          return res.length === 1 ? res[0] : res;
+        };
+        jStat3.cumreduce = function cumreduce(arr, func, toAlter) {
+          var row, nrow, ncol, res, col;
+          if (!isArray(arr[0]))
+            arr = [arr];
+          nrow = arr.length;
+          ncol = arr[0].length;
+          res = toAlter ? arr : new Array(nrow);
+          for (row = 0; row < nrow; row++) {
+            if (!res[row])
+              res[row] = new Array(ncol);
+            if (ncol > 0)
+              res[row][0] = arr[row][0];
+            for (col = 1; col < ncol; col++)
+              res[row][col] = func(res[row][col - 1], arr[row][col]);
+          }
+          return res.length === 1 ? res[0] : res;
+        };
+        jStat3.alter = function alter(arr, func) {
+          return jStat3.map(arr, func, true);
+        };
+        jStat3.create = function create(rows2, cols, func) {
+          var res = new Array(rows2);
+          var i, j;
+          if (isFunction(cols)) {
+            func = cols;
+            cols = rows2;
+          }
+          for (i = 0; i < rows2; i++) {
+            res[i] = new Array(cols);
+            for (j = 0; j < cols; j++)
+              res[i][j] = func(i, j);
+          }
+          return res;
+        };
+        function retZero() {
+          return 0;
+        }
+        jStat3.zeros = function zeros(rows2, cols) {
+          if (!isNumber(cols))
+            cols = rows2;
+          return jStat3.create(rows2, cols, retZero);
+        };
+        function retOne() {
+          return 1;
+        }
+        jStat3.ones = function ones(rows2, cols) {
+          if (!isNumber(cols))
+            cols = rows2;
+          return jStat3.create(rows2, cols, retOne);
+        };
+        jStat3.rand = function rand(rows2, cols) {
+          if (!isNumber(cols))
+            cols = rows2;
+          return jStat3.create(rows2, cols, jStat3._random_fn);
+        };
+        function retIdent(i, j) {
+          return i === j ? 1 : 0;
+        }
+        jStat3.identity = function identity(rows2, cols) {
+          if (!isNumber(cols))
+            cols = rows2;
+          return jStat3.create(rows2, cols, retIdent);
+        };
+        jStat3.symmetric = function symmetric(arr) {
+          var size = arr.length;
+          var row, col;
+          if (arr.length !== arr[0].length)
+            return false;
+          for (row = 0; row < size; row++) {
+            for (col = 0; col < size; col++)
+              if (arr[col][row] !== arr[row][col])
+                return false;
+          }
+          return true;
+        };
+        jStat3.clear = function clear(arr) {
+          return jStat3.alter(arr, retZero);
+        };
+        jStat3.seq = function seq(min, max, length, func) {
+          if (!isFunction(func))
+            func = false;
+          var arr = [];
+          var hival = calcRdx(min, max);
+          var step = (max * hival - min * hival) / ((length - 1) * hival);
+          var current = min;
+          var cnt;
+          for (cnt = 0; current <= max && cnt < length; cnt++, current = (min * hival + step * hival * cnt) / hival) {
+            arr.push(func ? func(current, cnt) : current);
+          }
+          return arr;
+        };
+        jStat3.arange = function arange(start, end, step) {
+          var rl = [];
+          var i;
+          step = step || 1;
+          if (end === undefined2) {
+            end = start;
+            start = 0;
+          }
+          if (start === end || step === 0) {
+            return [];
+          }
+          if (start < end && step < 0) {
+            return [];
+          }
+          if (start > end && step > 0) {
+            return [];
+          }
+          if (step > 0) {
+            for (i = start; i < end; i += step) {
+              rl.push(i);
+            }
+          } else {
+            for (i = start; i > end; i += step) {
+              rl.push(i);
+            }
+          }
+          return rl;
+        };
+        jStat3.slice = /* @__PURE__ */ (function() {
+          function _slice(list2, start, end, step) {
+            var i;
+            var rl = [];
+            var length = list2.length;
+            if (start === undefined2 && end === undefined2 && step === undefined2) {
+              return jStat3.copy(list2);
+            }
+            start = start || 0;
+            end = end || list2.length;
+            start = start >= 0 ? start : length + start;
+            end = end >= 0 ? end : length + end;
+            step = step || 1;
+            if (start === end || step === 0) {
+              return [];
+            }
+            if (start < end && step < 0) {
+              return [];
+            }
+            if (start > end && step > 0) {
+              return [];
+            }
+            if (step > 0) {
+              for (i = start; i < end; i += step) {
+                rl.push(list2[i]);
+              }
+            } else {
+              for (i = start; i > end; i += step) {
+                rl.push(list2[i]);
+              }
+            }
+            return rl;
+          }
+          function slice2(list2, rcSlice) {
+            var colSlice, rowSlice;
+            rcSlice = rcSlice || {};
+            if (isNumber(rcSlice.row)) {
+              if (isNumber(rcSlice.col))
+                return list2[rcSlice.row][rcSlice.col];
+              var row = jStat3.rowa(list2, rcSlice.row);
+              colSlice = rcSlice.col || {};
+              return _slice(row, colSlice.start, colSlice.end, colSlice.step);
+            }
+            if (isNumber(rcSlice.col)) {
+              var col = jStat3.cola(list2, rcSlice.col);
+              rowSlice = rcSlice.row || {};
+              return _slice(col, rowSlice.start, rowSlice.end, rowSlice.step);
+            }
+            rowSlice = rcSlice.row || {};
+            colSlice = rcSlice.col || {};
+            var rows2 = _slice(list2, rowSlice.start, rowSlice.end, rowSlice.step);
+            return rows2.map(function(row2) {
+              return _slice(row2, colSlice.start, colSlice.end, colSlice.step);
+            });
+          }
+          return slice2;
+        })();
+        jStat3.sliceAssign = function sliceAssign(A, rcSlice, B) {
+          var nl, ml;
+          if (isNumber(rcSlice.row)) {
+            if (isNumber(rcSlice.col))
+              return A[rcSlice.row][rcSlice.col] = B;
+            rcSlice.col = rcSlice.col || {};
+            rcSlice.col.start = rcSlice.col.start || 0;
+            rcSlice.col.end = rcSlice.col.end || A[0].length;
+            rcSlice.col.step = rcSlice.col.step || 1;
+            nl = jStat3.arange(
+              rcSlice.col.start,
+              Math2.min(A.length, rcSlice.col.end),
+              rcSlice.col.step
+            );
+            var m = rcSlice.row;
+            nl.forEach(function(n2, i) {
+              A[m][n2] = B[i];
+            });
+            return A;
+          }
+          if (isNumber(rcSlice.col)) {
+            rcSlice.row = rcSlice.row || {};
+            rcSlice.row.start = rcSlice.row.start || 0;
+            rcSlice.row.end = rcSlice.row.end || A.length;
+            rcSlice.row.step = rcSlice.row.step || 1;
+            ml = jStat3.arange(
+              rcSlice.row.start,
+              Math2.min(A[0].length, rcSlice.row.end),
+              rcSlice.row.step
+            );
+            var n = rcSlice.col;
+            ml.forEach(function(m2, j) {
+              A[m2][n] = B[j];
+            });
+            return A;
+          }
+          if (B[0].length === undefined2) {
+            B = [B];
+          }
+          rcSlice.row.start = rcSlice.row.start || 0;
+          rcSlice.row.end = rcSlice.row.end || A.length;
+          rcSlice.row.step = rcSlice.row.step || 1;
+          rcSlice.col.start = rcSlice.col.start || 0;
+          rcSlice.col.end = rcSlice.col.end || A[0].length;
+          rcSlice.col.step = rcSlice.col.step || 1;
+          ml = jStat3.arange(
+            rcSlice.row.start,
+            Math2.min(A.length, rcSlice.row.end),
+            rcSlice.row.step
+          );
+          nl = jStat3.arange(
+            rcSlice.col.start,
+            Math2.min(A[0].length, rcSlice.col.end),
+            rcSlice.col.step
+          );
+          ml.forEach(function(m2, i) {
+            nl.forEach(function(n2, j) {
+              A[m2][n2] = B[i][j];
+            });
+          });
+          return A;
+        };
+        jStat3.diagonal = function diagonal(diagArray) {
+          var mat = jStat3.zeros(diagArray.length, diagArray.length);
+          diagArray.forEach(function(t, i) {
+            mat[i][i] = t;
+          });
+          return mat;
+        };
+        jStat3.copy = function copy(A) {
+          return A.map(function(row) {
+            if (isNumber(row))
+              return row;
+            return row.map(function(t) {
+              return t;
+            });
+          });
+        };
+        var jProto = jStat3.prototype;
+        jProto.length = 0;
+        jProto.push = Array.prototype.push;
+        jProto.sort = Array.prototype.sort;
+        jProto.splice = Array.prototype.splice;
+        jProto.slice = Array.prototype.slice;
+        jProto.toArray = function toArray() {
+          return this.length > 1 ? slice.call(this) : slice.call(this)[0];
+        };
+        jProto.map = function map2(func, toAlter) {
+          return jStat3(jStat3.map(this, func, toAlter));
+        };
+        jProto.cumreduce = function cumreduce(func, toAlter) {
+          return jStat3(jStat3.cumreduce(this, func, toAlter));
+        };
+        jProto.alter = function alter(func) {
+          jStat3.alter(this, func);
+          return this;
+        };
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function(func) {
+              var self = this, results;
+              if (func) {
+                setTimeout(function() {
+                  func.call(self, jProto[passfunc].call(self));
+                });
+                return this;
+              }
+              results = jStat3[passfunc](this);
+              return isArray(results) ? jStat3(results) : results;
+            };
+          })(funcs[i]);
+        })("transpose clear symmetric rows cols dimensions diag antidiag".split(" "));
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function(index, func) {
+              var self = this;
+              if (func) {
+                setTimeout(function() {
+                  func.call(self, jProto[passfunc].call(self, index));
+                });
+                return this;
+              }
+              return jStat3(jStat3[passfunc](this, index));
+            };
+          })(funcs[i]);
+        })("row col".split(" "));
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function() {
+              return jStat3(jStat3[passfunc].apply(null, arguments));
+            };
+          })(funcs[i]);
+        })("create zeros ones rand identity".split(" "));
+        return jStat3;
+      })(Math);
+      (function(jStat3, Math2) {
+        var isFunction = jStat3.utils.isFunction;
+        function ascNum(a, b) {
+          return a - b;
+        }
+        function clip(arg, min, max) {
+          return Math2.max(min, Math2.min(arg, max));
+        }
+        jStat3.sum = function sum(arr) {
+          var sum2 = 0;
+          var i = arr.length;
+          while (--i >= 0)
+            sum2 += arr[i];
+          return sum2;
+        };
+        jStat3.sumsqrd = function sumsqrd(arr) {
+          var sum = 0;
+          var i = arr.length;
+          while (--i >= 0)
+            sum += arr[i] * arr[i];
+          return sum;
+        };
+        jStat3.sumsqerr = function sumsqerr(arr) {
+          var mean = jStat3.mean(arr);
+          var sum = 0;
+          var i = arr.length;
+          var tmp;
+          while (--i >= 0) {
+            tmp = arr[i] - mean;
+            sum += tmp * tmp;
+          }
+          return sum;
+        };
+        jStat3.sumrow = function sumrow(arr) {
+          var sum = 0;
+          var i = arr.length;
+          while (--i >= 0)
+            sum += arr[i];
+          return sum;
+        };
+        jStat3.product = function product(arr) {
+          var prod = 1;
+          var i = arr.length;
+          while (--i >= 0)
+            prod *= arr[i];
+          return prod;
+        };
+        jStat3.min = function min(arr) {
+          var low = arr[0];
+          var i = 0;
+          while (++i < arr.length)
+            if (arr[i] < low)
+              low = arr[i];
+          return low;
+        };
+        jStat3.max = function max(arr) {
+          var high = arr[0];
+          var i = 0;
+          while (++i < arr.length)
+            if (arr[i] > high)
+              high = arr[i];
+          return high;
+        };
+        jStat3.unique = function unique(arr) {
+          var hash2 = {}, _arr = [];
+          for (var i = 0; i < arr.length; i++) {
+            if (!hash2[arr[i]]) {
+              hash2[arr[i]] = true;
+              _arr.push(arr[i]);
+            }
+          }
+          return _arr;
+        };
+        jStat3.mean = function mean(arr) {
+          return jStat3.sum(arr) / arr.length;
+        };
+        jStat3.meansqerr = function meansqerr(arr) {
+          return jStat3.sumsqerr(arr) / arr.length;
+        };
+        jStat3.geomean = function geomean(arr) {
+          var logs = arr.map(Math2.log);
+          var meanOfLogs = jStat3.mean(logs);
+          return Math2.exp(meanOfLogs);
+        };
+        jStat3.median = function median(arr) {
+          var arrlen = arr.length;
+          var _arr = arr.slice().sort(ascNum);
+          return !(arrlen & 1) ? (_arr[arrlen / 2 - 1] + _arr[arrlen / 2]) / 2 : _arr[arrlen / 2 | 0];
+        };
+        jStat3.cumsum = function cumsum(arr) {
+          return jStat3.cumreduce(arr, function(a, b) {
+            return a + b;
+          });
+        };
+        jStat3.cumprod = function cumprod(arr) {
+          return jStat3.cumreduce(arr, function(a, b) {
+            return a * b;
+          });
+        };
+        jStat3.diff = function diff(arr) {
+          var diffs = [];
+          var arrLen = arr.length;
+          var i;
+          for (i = 1; i < arrLen; i++)
+            diffs.push(arr[i] - arr[i - 1]);
+          return diffs;
+        };
+        jStat3.rank = function(arr) {
+          var i;
+          var distinctNumbers = [];
+          var numberCounts = {};
+          for (i = 0; i < arr.length; i++) {
+            var number5 = arr[i];
+            if (numberCounts[number5]) {
+              numberCounts[number5]++;
+            } else {
+              numberCounts[number5] = 1;
+              distinctNumbers.push(number5);
+            }
+          }
+          var sortedDistinctNumbers = distinctNumbers.sort(ascNum);
+          var numberRanks = {};
+          var currentRank = 1;
+          for (i = 0; i < sortedDistinctNumbers.length; i++) {
+            var number5 = sortedDistinctNumbers[i];
+            var count3 = numberCounts[number5];
+            var first = currentRank;
+            var last = currentRank + count3 - 1;
+            var rank = (first + last) / 2;
+            numberRanks[number5] = rank;
+            currentRank += count3;
+          }
+          return arr.map(function(number6) {
+            return numberRanks[number6];
+          });
+        };
+        jStat3.mode = function mode(arr) {
+          var arrLen = arr.length;
+          var _arr = arr.slice().sort(ascNum);
+          var count3 = 1;
+          var maxCount = 0;
+          var numMaxCount = 0;
+          var mode_arr = [];
+          var i;
+          for (i = 0; i < arrLen; i++) {
+            if (_arr[i] === _arr[i + 1]) {
+              count3++;
+            } else {
+              if (count3 > maxCount) {
+                mode_arr = [_arr[i]];
+                maxCount = count3;
+                numMaxCount = 0;
+              } else if (count3 === maxCount) {
+                mode_arr.push(_arr[i]);
+                numMaxCount++;
+              }
+              count3 = 1;
+            }
+          }
+          return numMaxCount === 0 ? mode_arr[0] : mode_arr;
+        };
+        jStat3.range = function range(arr) {
+          return jStat3.max(arr) - jStat3.min(arr);
+        };
+        jStat3.variance = function variance(arr, flag) {
+          return jStat3.sumsqerr(arr) / (arr.length - (flag ? 1 : 0));
+        };
+        jStat3.pooledvariance = function pooledvariance(arr) {
+          var sumsqerr = arr.reduce(function(a, samples) {
+            return a + jStat3.sumsqerr(samples);
+          }, 0);
+          var count3 = arr.reduce(function(a, samples) {
+            return a + samples.length;
+          }, 0);
+          return sumsqerr / (count3 - arr.length);
+        };
+        jStat3.deviation = function(arr) {
+          var mean = jStat3.mean(arr);
+          var arrlen = arr.length;
+          var dev = new Array(arrlen);
+          for (var i = 0; i < arrlen; i++) {
+            dev[i] = arr[i] - mean;
+          }
+          return dev;
+        };
+        jStat3.stdev = function stdev(arr, flag) {
+          return Math2.sqrt(jStat3.variance(arr, flag));
+        };
+        jStat3.pooledstdev = function pooledstdev(arr) {
+          return Math2.sqrt(jStat3.pooledvariance(arr));
+        };
+        jStat3.meandev = function meandev(arr) {
+          var mean = jStat3.mean(arr);
+          var a = [];
+          for (var i = arr.length - 1; i >= 0; i--) {
+            a.push(Math2.abs(arr[i] - mean));
+          }
+          return jStat3.mean(a);
+        };
+        jStat3.meddev = function meddev(arr) {
+          var median = jStat3.median(arr);
+          var a = [];
+          for (var i = arr.length - 1; i >= 0; i--) {
+            a.push(Math2.abs(arr[i] - median));
+          }
+          return jStat3.median(a);
+        };
+        jStat3.coeffvar = function coeffvar(arr) {
+          return jStat3.stdev(arr) / jStat3.mean(arr);
+        };
+        jStat3.quartiles = function quartiles(arr) {
+          var arrlen = arr.length;
+          var _arr = arr.slice().sort(ascNum);
+          return [
+            _arr[Math2.round(arrlen / 4) - 1],
+            _arr[Math2.round(arrlen / 2) - 1],
+            _arr[Math2.round(arrlen * 3 / 4) - 1]
+          ];
+        };
+        jStat3.quantiles = function quantiles(arr, quantilesArray, alphap, betap) {
+          var sortedArray = arr.slice().sort(ascNum);
+          var quantileVals = [quantilesArray.length];
+          var n = arr.length;
+          var i, p, m, aleph, k, gamma;
+          if (typeof alphap === "undefined")
+            alphap = 3 / 8;
+          if (typeof betap === "undefined")
+            betap = 3 / 8;
+          for (i = 0; i < quantilesArray.length; i++) {
+            p = quantilesArray[i];
+            m = alphap + p * (1 - alphap - betap);
+            aleph = n * p + m;
+            k = Math2.floor(clip(aleph, 1, n - 1));
+            gamma = clip(aleph - k, 0, 1);
+            quantileVals[i] = (1 - gamma) * sortedArray[k - 1] + gamma * sortedArray[k];
+          }
+          return quantileVals;
+        };
+        jStat3.percentile = function percentile(arr, k, exclusive) {
+          var _arr = arr.slice().sort(ascNum);
+          var realIndex = k * (_arr.length + (exclusive ? 1 : -1)) + (exclusive ? 0 : 1);
+          var index = parseInt(realIndex);
+          var frac = realIndex - index;
+          if (index + 1 < _arr.length) {
+            return _arr[index - 1] + frac * (_arr[index] - _arr[index - 1]);
+          } else {
+            return _arr[index - 1];
+          }
+        };
+        jStat3.percentileOfScore = function percentileOfScore(arr, score, kind) {
+          var counter = 0;
+          var len = arr.length;
+          var strict = false;
+          var value, i;
+          if (kind === "strict")
+            strict = true;
+          for (i = 0; i < len; i++) {
+            value = arr[i];
+            if (strict && value < score || !strict && value <= score) {
+              counter++;
+            }
+          }
+          return counter / len;
+        };
+        jStat3.histogram = function histogram(arr, binCnt) {
+          binCnt = binCnt || 4;
+          var first = jStat3.min(arr);
+          var binWidth = (jStat3.max(arr) - first) / binCnt;
+          var len = arr.length;
+          var bins = [];
+          var i;
+          for (i = 0; i < binCnt; i++)
+            bins[i] = 0;
+          for (i = 0; i < len; i++)
+            bins[Math2.min(Math2.floor((arr[i] - first) / binWidth), binCnt - 1)] += 1;
+          return bins;
+        };
+        jStat3.covariance = function covariance(arr1, arr2) {
+          var u = jStat3.mean(arr1);
+          var v = jStat3.mean(arr2);
+          var arr1Len = arr1.length;
+          var sq_dev = new Array(arr1Len);
+          var i;
+          for (i = 0; i < arr1Len; i++)
+            sq_dev[i] = (arr1[i] - u) * (arr2[i] - v);
+          return jStat3.sum(sq_dev) / (arr1Len - 1);
+        };
+        jStat3.corrcoeff = function corrcoeff(arr1, arr2) {
+          return jStat3.covariance(arr1, arr2) / jStat3.stdev(arr1, 1) / jStat3.stdev(arr2, 1);
+        };
+        jStat3.spearmancoeff = function(arr1, arr2) {
+          arr1 = jStat3.rank(arr1);
+          arr2 = jStat3.rank(arr2);
+          return jStat3.corrcoeff(arr1, arr2);
+        };
+        jStat3.stanMoment = function stanMoment(arr, n) {
+          var mu = jStat3.mean(arr);
+          var sigma = jStat3.stdev(arr);
+          var len = arr.length;
+          var skewSum = 0;
+          for (var i = 0; i < len; i++)
+            skewSum += Math2.pow((arr[i] - mu) / sigma, n);
+          return skewSum / arr.length;
+        };
+        jStat3.skewness = function skewness(arr) {
+          return jStat3.stanMoment(arr, 3);
+        };
+        jStat3.kurtosis = function kurtosis(arr) {
+          return jStat3.stanMoment(arr, 4) - 3;
+        };
+        var jProto = jStat3.prototype;
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function(fullbool, func) {
+              var arr = [];
+              var i2 = 0;
+              var tmpthis = this;
+              if (isFunction(fullbool)) {
+                func = fullbool;
+                fullbool = false;
+              }
+              if (func) {
+                setTimeout(function() {
+                  func.call(tmpthis, jProto[passfunc].call(tmpthis, fullbool));
+                });
+                return this;
+              }
+              if (this.length > 1) {
+                tmpthis = fullbool === true ? this : this.transpose();
+                for (; i2 < tmpthis.length; i2++)
+                  arr[i2] = jStat3[passfunc](tmpthis[i2]);
+                return arr;
+              }
+              return jStat3[passfunc](this[0], fullbool);
+            };
+          })(funcs[i]);
+        })("cumsum cumprod".split(" "));
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function(fullbool, func) {
+              var arr = [];
+              var i2 = 0;
+              var tmpthis = this;
+              if (isFunction(fullbool)) {
+                func = fullbool;
+                fullbool = false;
+              }
+              if (func) {
+                setTimeout(function() {
+                  func.call(tmpthis, jProto[passfunc].call(tmpthis, fullbool));
+                });
+                return this;
+              }
+              if (this.length > 1) {
+                if (passfunc !== "sumrow")
+                  tmpthis = fullbool === true ? this : this.transpose();
+                for (; i2 < tmpthis.length; i2++)
+                  arr[i2] = jStat3[passfunc](tmpthis[i2]);
+                return fullbool === true ? jStat3[passfunc](jStat3.utils.toVector(arr)) : arr;
+              }
+              return jStat3[passfunc](this[0], fullbool);
+            };
+          })(funcs[i]);
+        })("sum sumsqrd sumsqerr sumrow product min max unique mean meansqerr geomean median diff rank mode range variance deviation stdev meandev meddev coeffvar quartiles histogram skewness kurtosis".split(" "));
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jProto[passfunc] = function() {
+              var arr = [];
+              var i2 = 0;
+              var tmpthis = this;
+              var args = Array.prototype.slice.call(arguments);
+              var callbackFunction;
+              if (isFunction(args[args.length - 1])) {
+                callbackFunction = args[args.length - 1];
+                var argsToPass = args.slice(0, args.length - 1);
+                setTimeout(function() {
+                  callbackFunction.call(
+                    tmpthis,
+                    jProto[passfunc].apply(tmpthis, argsToPass)
+                  );
+                });
+                return this;
+              } else {
+                callbackFunction = void 0;
+                var curriedFunction = function curriedFunction2(vector) {
+                  return jStat3[passfunc].apply(tmpthis, [vector].concat(args));
+                };
+              }
+              if (this.length > 1) {
+                tmpthis = tmpthis.transpose();
+                for (; i2 < tmpthis.length; i2++)
+                  arr[i2] = curriedFunction(tmpthis[i2]);
+                return arr;
+              }
+              return curriedFunction(this[0]);
+            };
+          })(funcs[i]);
+        })("quantiles percentileOfScore".split(" "));
+      })(jStat2, Math);
+      (function(jStat3, Math2) {
+        jStat3.gammaln = function gammaln(x) {
+          var j = 0;
+          var cof = [
+            76.18009172947146,
+            -86.50532032941678,
+            24.01409824083091,
+            -1.231739572450155,
+            0.001208650973866179,
+            -5395239384953e-18
+          ];
+          var ser = 1.000000000190015;
+          var xx, y, tmp;
+          tmp = (y = xx = x) + 5.5;
+          tmp -= (xx + 0.5) * Math2.log(tmp);
+          for (; j < 6; j++)
+            ser += cof[j] / ++y;
+          return Math2.log(2.5066282746310007 * ser / xx) - tmp;
+        };
+        jStat3.loggam = function loggam(x) {
+          var x0, x2, xp, gl, gl0;
+          var k, n;
+          var a = [
+            0.08333333333333333,
+            -0.002777777777777778,
+            7936507936507937e-19,
+            -5952380952380952e-19,
+            8417508417508418e-19,
+            -0.001917526917526918,
+            0.00641025641025641,
+            -0.02955065359477124,
+            0.1796443723688307,
+            -1.3924322169059
+          ];
+          x0 = x;
+          n = 0;
+          if (x == 1 || x == 2) {
+            return 0;
+          }
+          if (x <= 7) {
+            n = Math2.floor(7 - x);
+            x0 = x + n;
+          }
+          x2 = 1 / (x0 * x0);
+          xp = 2 * Math2.PI;
+          gl0 = a[9];
+          for (k = 8; k >= 0; k--) {
+            gl0 *= x2;
+            gl0 += a[k];
+          }
+          gl = gl0 / x0 + 0.5 * Math2.log(xp) + (x0 - 0.5) * Math2.log(x0) - x0;
+          if (x <= 7) {
+            for (k = 1; k <= n; k++) {
+              gl -= Math2.log(x0 - 1);
+              x0 -= 1;
+            }
+          }
+          return gl;
+        };
+        jStat3.gammafn = function gammafn(x) {
+          var p = [
+            -1.716185138865495,
+            24.76565080557592,
+            -379.80425647094563,
+            629.3311553128184,
+            866.9662027904133,
+            -31451.272968848367,
+            -36144.413418691176,
+            66456.14382024054
+          ];
+          var q = [
+            -30.8402300119739,
+            315.35062697960416,
+            -1015.1563674902192,
+            -3107.771671572311,
+            22538.11842098015,
+            4755.846277527881,
+            -134659.9598649693,
+            -115132.2596755535
+          ];
+          var fact = false;
+          var n = 0;
+          var xden = 0;
+          var xnum = 0;
+          var y = x;
+          var i, z2, yi, res;
+          if (x > 171.6243769536076) {
+            return Infinity;
+          }
+          if (y <= 0) {
+            res = y % 1 + 36e-17;
+            if (res) {
+              fact = (!(y & 1) ? 1 : -1) * Math2.PI / Math2.sin(Math2.PI * res);
+              y = 1 - y;
+            } else {
+              return Infinity;
+            }
+          }
+          yi = y;
+          if (y < 1) {
+            z2 = y++;
+          } else {
+            z2 = (y -= n = (y | 0) - 1) - 1;
+          }
+          for (i = 0; i < 8; ++i) {
+            xnum = (xnum + p[i]) * z2;
+            xden = xden * z2 + q[i];
+          }
+          res = xnum / xden + 1;
+          if (yi < y) {
+            res /= yi;
+          } else if (yi > y) {
+            for (i = 0; i < n; ++i) {
+              res *= y;
+              y++;
+            }
+          }
+          if (fact) {
+            res = fact / res;
+          }
+          return res;
+        };
+        jStat3.gammap = function gammap(a, x) {
+          return jStat3.lowRegGamma(a, x) * jStat3.gammafn(a);
+        };
+        jStat3.lowRegGamma = function lowRegGamma(a, x) {
+          var aln = jStat3.gammaln(a);
+          var ap = a;
+          var sum = 1 / a;
+          var del = sum;
+          var b = x + 1 - a;
+          var c = 1 / 1e-30;
+          var d = 1 / b;
+          var h = d;
+          var i = 1;
+          var ITMAX = -~(Math2.log(a >= 1 ? a : 1 / a) * 8.5 + a * 0.4 + 17);
+          var an;
+          if (x < 0 || a <= 0) {
+            return NaN;
+          } else if (x < a + 1) {
+            for (; i <= ITMAX; i++) {
+              sum += del *= x / ++ap;
+            }
+            return sum * Math2.exp(-x + a * Math2.log(x) - aln);
+          }
+          for (; i <= ITMAX; i++) {
+            an = -i * (i - a);
+            b += 2;
+            d = an * d + b;
+            c = b + an / c;
+            d = 1 / d;
+            h *= d * c;
+          }
+          return 1 - h * Math2.exp(-x + a * Math2.log(x) - aln);
+        };
+        jStat3.factorialln = function factorialln(n) {
+          return n < 0 ? NaN : jStat3.gammaln(n + 1);
+        };
+        jStat3.factorial = function factorial(n) {
+          return n < 0 ? NaN : jStat3.gammafn(n + 1);
+        };
+        jStat3.combination = function combination(n, m) {
+          return n > 170 || m > 170 ? Math2.exp(jStat3.combinationln(n, m)) : jStat3.factorial(n) / jStat3.factorial(m) / jStat3.factorial(n - m);
+        };
+        jStat3.combinationln = function combinationln(n, m) {
+          return jStat3.factorialln(n) - jStat3.factorialln(m) - jStat3.factorialln(n - m);
+        };
+        jStat3.permutation = function permutation(n, m) {
+          return jStat3.factorial(n) / jStat3.factorial(n - m);
+        };
+        jStat3.betafn = function betafn(x, y) {
+          if (x <= 0 || y <= 0)
+            return void 0;
+          return x + y > 170 ? Math2.exp(jStat3.betaln(x, y)) : jStat3.gammafn(x) * jStat3.gammafn(y) / jStat3.gammafn(x + y);
+        };
+        jStat3.betaln = function betaln(x, y) {
+          return jStat3.gammaln(x) + jStat3.gammaln(y) - jStat3.gammaln(x + y);
+        };
+        jStat3.betacf = function betacf(x, a, b) {
+          var fpmin = 1e-30;
+          var m = 1;
+          var qab = a + b;
+          var qap = a + 1;
+          var qam = a - 1;
+          var c = 1;
+          var d = 1 - qab * x / qap;
+          var m2, aa, del, h;
+          if (Math2.abs(d) < fpmin)
+            d = fpmin;
+          d = 1 / d;
+          h = d;
+          for (; m <= 100; m++) {
+            m2 = 2 * m;
+            aa = m * (b - m) * x / ((qam + m2) * (a + m2));
+            d = 1 + aa * d;
+            if (Math2.abs(d) < fpmin)
+              d = fpmin;
+            c = 1 + aa / c;
+            if (Math2.abs(c) < fpmin)
+              c = fpmin;
+            d = 1 / d;
+            h *= d * c;
+            aa = -(a + m) * (qab + m) * x / ((a + m2) * (qap + m2));
+            d = 1 + aa * d;
+            if (Math2.abs(d) < fpmin)
+              d = fpmin;
+            c = 1 + aa / c;
+            if (Math2.abs(c) < fpmin)
+              c = fpmin;
+            d = 1 / d;
+            del = d * c;
+            h *= del;
+            if (Math2.abs(del - 1) < 3e-7)
+              break;
+          }
+          return h;
+        };
+        jStat3.gammapinv = function gammapinv(p, a) {
+          var j = 0;
+          var a1 = a - 1;
+          var EPS = 1e-8;
+          var gln = jStat3.gammaln(a);
+          var x, err, t, u, pp, lna1, afac;
+          if (p >= 1)
+            return Math2.max(100, a + 100 * Math2.sqrt(a));
+          if (p <= 0)
+            return 0;
+          if (a > 1) {
+            lna1 = Math2.log(a1);
+            afac = Math2.exp(a1 * (lna1 - 1) - gln);
+            pp = p < 0.5 ? p : 1 - p;
+            t = Math2.sqrt(-2 * Math2.log(pp));
+            x = (2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t;
+            if (p < 0.5)
+              x = -x;
+            x = Math2.max(
+              1e-3,
+              a * Math2.pow(1 - 1 / (9 * a) - x / (3 * Math2.sqrt(a)), 3)
+            );
+          } else {
+            t = 1 - a * (0.253 + a * 0.12);
+            if (p < t)
+              x = Math2.pow(p / t, 1 / a);
+            else
+              x = 1 - Math2.log(1 - (p - t) / (1 - t));
+          }
+          for (; j < 12; j++) {
+            if (x <= 0)
+              return 0;
+            err = jStat3.lowRegGamma(a, x) - p;
+            if (a > 1)
+              t = afac * Math2.exp(-(x - a1) + a1 * (Math2.log(x) - lna1));
+            else
+              t = Math2.exp(-x + a1 * Math2.log(x) - gln);
+            u = err / t;
+            x -= t = u / (1 - 0.5 * Math2.min(1, u * ((a - 1) / x - 1)));
+            if (x <= 0)
+              x = 0.5 * (x + t);
+            if (Math2.abs(t) < EPS * x)
+              break;
+          }
+          return x;
+        };
+        jStat3.erf = function erf(x) {
+          var cof = [
+            -1.3026537197817094,
+            0.6419697923564902,
+            0.019476473204185836,
+            -0.00956151478680863,
+            -946595344482036e-18,
+            366839497852761e-18,
+            42523324806907e-18,
+            -20278578112534e-18,
+            -1624290004647e-18,
+            130365583558e-17,
+            15626441722e-18,
+            -85238095915e-18,
+            6529054439e-18,
+            5059343495e-18,
+            -991364156e-18,
+            -227365122e-18,
+            96467911e-18,
+            2394038e-18,
+            -6886027e-18,
+            894487e-18,
+            313092e-18,
+            -112708e-18,
+            381e-18,
+            7106e-18,
+            -1523e-18,
+            -94e-18,
+            121e-18,
+            -28e-18
+          ];
+          var j = cof.length - 1;
+          var isneg = false;
+          var d = 0;
+          var dd = 0;
+          var t, ty, tmp, res;
+          if (x < 0) {
+            x = -x;
+            isneg = true;
+          }
+          t = 2 / (2 + x);
+          ty = 4 * t - 2;
+          for (; j > 0; j--) {
+            tmp = d;
+            d = ty * d - dd + cof[j];
+            dd = tmp;
+          }
+          res = t * Math2.exp(-x * x + 0.5 * (cof[0] + ty * d) - dd);
+          return isneg ? res - 1 : 1 - res;
+        };
+        jStat3.erfc = function erfc(x) {
+          return 1 - jStat3.erf(x);
+        };
+        jStat3.erfcinv = function erfcinv(p) {
+          var j = 0;
+          var x, err, t, pp;
+          if (p >= 2)
+            return -100;
+          if (p <= 0)
+            return 100;
+          pp = p < 1 ? p : 2 - p;
+          t = Math2.sqrt(-2 * Math2.log(pp / 2));
+          x = -0.70711 * ((2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t);
+          for (; j < 2; j++) {
+            err = jStat3.erfc(x) - pp;
+            x += err / (1.1283791670955126 * Math2.exp(-x * x) - x * err);
+          }
+          return p < 1 ? x : -x;
+        };
+        jStat3.ibetainv = function ibetainv(p, a, b) {
+          var EPS = 1e-8;
+          var a1 = a - 1;
+          var b1 = b - 1;
+          var j = 0;
+          var lna, lnb, pp, t, u, err, x, al, h, w, afac;
+          if (p <= 0)
+            return 0;
+          if (p >= 1)
+            return 1;
+          if (a >= 1 && b >= 1) {
+            pp = p < 0.5 ? p : 1 - p;
+            t = Math2.sqrt(-2 * Math2.log(pp));
+            x = (2.30753 + t * 0.27061) / (1 + t * (0.99229 + t * 0.04481)) - t;
+            if (p < 0.5)
+              x = -x;
+            al = (x * x - 3) / 6;
+            h = 2 / (1 / (2 * a - 1) + 1 / (2 * b - 1));
+            w = x * Math2.sqrt(al + h) / h - (1 / (2 * b - 1) - 1 / (2 * a - 1)) * (al + 5 / 6 - 2 / (3 * h));
+            x = a / (a + b * Math2.exp(2 * w));
+          } else {
+            lna = Math2.log(a / (a + b));
+            lnb = Math2.log(b / (a + b));
+            t = Math2.exp(a * lna) / a;
+            u = Math2.exp(b * lnb) / b;
+            w = t + u;
+            if (p < t / w)
+              x = Math2.pow(a * w * p, 1 / a);
+            else
+              x = 1 - Math2.pow(b * w * (1 - p), 1 / b);
+          }
+          afac = -jStat3.gammaln(a) - jStat3.gammaln(b) + jStat3.gammaln(a + b);
+          for (; j < 10; j++) {
+            if (x === 0 || x === 1)
+              return x;
+            err = jStat3.ibeta(x, a, b) - p;
+            t = Math2.exp(a1 * Math2.log(x) + b1 * Math2.log(1 - x) + afac);
+            u = err / t;
+            x -= t = u / (1 - 0.5 * Math2.min(1, u * (a1 / x - b1 / (1 - x))));
+            if (x <= 0)
+              x = 0.5 * (x + t);
+            if (x >= 1)
+              x = 0.5 * (x + t + 1);
+            if (Math2.abs(t) < EPS * x && j > 0)
+              break;
+          }
+          return x;
+        };
+        jStat3.ibeta = function ibeta(x, a, b) {
+          var bt = x === 0 || x === 1 ? 0 : Math2.exp(jStat3.gammaln(a + b) - jStat3.gammaln(a) - jStat3.gammaln(b) + a * Math2.log(x) + b * Math2.log(1 - x));
+          if (x < 0 || x > 1)
+            return false;
+          if (x < (a + 1) / (a + b + 2))
+            return bt * jStat3.betacf(x, a, b) / a;
+          return 1 - bt * jStat3.betacf(1 - x, b, a) / b;
+        };
+        jStat3.randn = function randn(n, m) {
+          var u, v, x, y, q;
+          if (!m)
+            m = n;
+          if (n)
+            return jStat3.create(n, m, function() {
+              return jStat3.randn();
+            });
+          do {
+            u = jStat3._random_fn();
+            v = 1.7156 * (jStat3._random_fn() - 0.5);
+            x = u - 0.449871;
+            y = Math2.abs(v) + 0.386595;
+            q = x * x + y * (0.196 * y - 0.25472 * x);
+          } while (q > 0.27597 && (q > 0.27846 || v * v > -4 * Math2.log(u) * u * u));
+          return v / u;
+        };
+        jStat3.randg = function randg(shape, n, m) {
+          var oalph = shape;
+          var a1, a2, u, v, x, mat;
+          if (!m)
+            m = n;
+          if (!shape)
+            shape = 1;
+          if (n) {
+            mat = jStat3.zeros(n, m);
+            mat.alter(function() {
+              return jStat3.randg(shape);
+            });
+            return mat;
+          }
+          if (shape < 1)
+            shape += 1;
+          a1 = shape - 1 / 3;
+          a2 = 1 / Math2.sqrt(9 * a1);
+          do {
+            do {
+              x = jStat3.randn();
+              v = 1 + a2 * x;
+            } while (v <= 0);
+            v = v * v * v;
+            u = jStat3._random_fn();
+          } while (u > 1 - 0.331 * Math2.pow(x, 4) && Math2.log(u) > 0.5 * x * x + a1 * (1 - v + Math2.log(v)));
+          if (shape == oalph)
+            return a1 * v;
+          do {
+            u = jStat3._random_fn();
+          } while (u === 0);
+          return Math2.pow(u, 1 / oalph) * a1 * v;
+        };
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jStat3.fn[passfunc] = function() {
+              return jStat3(
+                jStat3.map(this, function(value) {
+                  return jStat3[passfunc](value);
+                })
+              );
+            };
+          })(funcs[i]);
+        })("gammaln gammafn factorial factorialln".split(" "));
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jStat3.fn[passfunc] = function() {
+              return jStat3(jStat3[passfunc].apply(null, arguments));
+            };
+          })(funcs[i]);
+        })("randn".split(" "));
+      })(jStat2, Math);
+      (function(jStat3, Math2) {
+        (function(list2) {
+          for (var i = 0; i < list2.length; i++) (function(func) {
+            jStat3[func] = function f(a, b, c) {
+              if (!(this instanceof f))
+                return new f(a, b, c);
+              this._a = a;
+              this._b = b;
+              this._c = c;
+              return this;
+            };
+            jStat3.fn[func] = function(a, b, c) {
+              var newthis = jStat3[func](a, b, c);
+              newthis.data = this;
+              return newthis;
+            };
+            jStat3[func].prototype.sample = function(arr) {
+              var a = this._a;
+              var b = this._b;
+              var c = this._c;
+              if (arr)
+                return jStat3.alter(arr, function() {
+                  return jStat3[func].sample(a, b, c);
+                });
+              else
+                return jStat3[func].sample(a, b, c);
+            };
+            (function(vals) {
+              for (var i2 = 0; i2 < vals.length; i2++) (function(fnfunc) {
+                jStat3[func].prototype[fnfunc] = function(x) {
+                  var a = this._a;
+                  var b = this._b;
+                  var c = this._c;
+                  if (!x && x !== 0)
+                    x = this.data;
+                  if (typeof x !== "number") {
+                    return jStat3.fn.map.call(x, function(x2) {
+                      return jStat3[func][fnfunc](x2, a, b, c);
+                    });
+                  }
+                  return jStat3[func][fnfunc](x, a, b, c);
+                };
+              })(vals[i2]);
+            })("pdf cdf inv".split(" "));
+            (function(vals) {
+              for (var i2 = 0; i2 < vals.length; i2++) (function(fnfunc) {
+                jStat3[func].prototype[fnfunc] = function() {
+                  return jStat3[func][fnfunc](this._a, this._b, this._c);
+                };
+              })(vals[i2]);
+            })("mean median mode variance".split(" "));
+          })(list2[i]);
+        })("beta centralF cauchy chisquare exponential gamma invgamma kumaraswamy laplace lognormal noncentralt normal pareto studentt weibull uniform binomial negbin hypgeom poisson triangular tukey arcsine".split(" "));
+        jStat3.extend(jStat3.beta, {
+          pdf: function pdf(x, alpha, beta) {
+            if (x > 1 || x < 0)
+              return 0;
+            if (alpha == 1 && beta == 1)
+              return 1;
+            if (alpha < 512 && beta < 512) {
+              return Math2.pow(x, alpha - 1) * Math2.pow(1 - x, beta - 1) / jStat3.betafn(alpha, beta);
+            } else {
+              return Math2.exp((alpha - 1) * Math2.log(x) + (beta - 1) * Math2.log(1 - x) - jStat3.betaln(alpha, beta));
+            }
+          },
+          cdf: function cdf(x, alpha, beta) {
+            return x > 1 || x < 0 ? (x > 1) * 1 : jStat3.ibeta(x, alpha, beta);
+          },
+          inv: function inv(x, alpha, beta) {
+            return jStat3.ibetainv(x, alpha, beta);
+          },
+          mean: function mean(alpha, beta) {
+            return alpha / (alpha + beta);
+          },
+          median: function median(alpha, beta) {
+            return jStat3.ibetainv(0.5, alpha, beta);
+          },
+          mode: function mode(alpha, beta) {
+            return (alpha - 1) / (alpha + beta - 2);
+          },
+          // return a random sample
+          sample: function sample(alpha, beta) {
+            var u = jStat3.randg(alpha);
+            return u / (u + jStat3.randg(beta));
+          },
+          variance: function variance(alpha, beta) {
+            return alpha * beta / (Math2.pow(alpha + beta, 2) * (alpha + beta + 1));
+          }
+        });
+        jStat3.extend(jStat3.centralF, {
+          // This implementation of the pdf function avoids float overflow
+          // See the way that R calculates this value:
+          // https://svn.r-project.org/R/trunk/src/nmath/df.c
+          pdf: function pdf(x, df1, df2) {
+            var p, q, f;
+            if (x < 0)
+              return 0;
+            if (df1 <= 2) {
+              if (x === 0 && df1 < 2) {
+                return Infinity;
+              }
+              if (x === 0 && df1 === 2) {
+                return 1;
+              }
+              return 1 / jStat3.betafn(df1 / 2, df2 / 2) * Math2.pow(df1 / df2, df1 / 2) * Math2.pow(x, df1 / 2 - 1) * Math2.pow(1 + df1 / df2 * x, -(df1 + df2) / 2);
+            }
+            p = df1 * x / (df2 + x * df1);
+            q = df2 / (df2 + x * df1);
+            f = df1 * q / 2;
+            return f * jStat3.binomial.pdf((df1 - 2) / 2, (df1 + df2 - 2) / 2, p);
+          },
+          cdf: function cdf(x, df1, df2) {
+            if (x < 0)
+              return 0;
+            return jStat3.ibeta(df1 * x / (df1 * x + df2), df1 / 2, df2 / 2);
+          },
+          inv: function inv(x, df1, df2) {
+            return df2 / (df1 * (1 / jStat3.ibetainv(x, df1 / 2, df2 / 2) - 1));
+          },
+          mean: function mean(df1, df2) {
+            return df2 > 2 ? df2 / (df2 - 2) : void 0;
+          },
+          mode: function mode(df1, df2) {
+            return df1 > 2 ? df2 * (df1 - 2) / (df1 * (df2 + 2)) : void 0;
+          },
+          // return a random sample
+          sample: function sample(df1, df2) {
+            var x1 = jStat3.randg(df1 / 2) * 2;
+            var x2 = jStat3.randg(df2 / 2) * 2;
+            return x1 / df1 / (x2 / df2);
+          },
+          variance: function variance(df1, df2) {
+            if (df2 <= 4)
+              return void 0;
+            return 2 * df2 * df2 * (df1 + df2 - 2) / (df1 * (df2 - 2) * (df2 - 2) * (df2 - 4));
+          }
+        });
+        jStat3.extend(jStat3.cauchy, {
+          pdf: function pdf(x, local, scale) {
+            if (scale < 0) {
+              return 0;
+            }
+            return scale / (Math2.pow(x - local, 2) + Math2.pow(scale, 2)) / Math2.PI;
+          },
+          cdf: function cdf(x, local, scale) {
+            return Math2.atan((x - local) / scale) / Math2.PI + 0.5;
+          },
+          inv: function(p, local, scale) {
+            return local + scale * Math2.tan(Math2.PI * (p - 0.5));
+          },
+          median: function median(local) {
+            return local;
+          },
+          mode: function mode(local) {
+            return local;
+          },
+          sample: function sample(local, scale) {
+            return jStat3.randn() * Math2.sqrt(1 / (2 * jStat3.randg(0.5))) * scale + local;
+          }
+        });
+        jStat3.extend(jStat3.chisquare, {
+          pdf: function pdf(x, dof) {
+            if (x < 0)
+              return 0;
+            return x === 0 && dof === 2 ? 0.5 : Math2.exp((dof / 2 - 1) * Math2.log(x) - x / 2 - dof / 2 * Math2.log(2) - jStat3.gammaln(dof / 2));
+          },
+          cdf: function cdf(x, dof) {
+            if (x < 0)
+              return 0;
+            return jStat3.lowRegGamma(dof / 2, x / 2);
+          },
+          inv: function(p, dof) {
+            return 2 * jStat3.gammapinv(p, 0.5 * dof);
+          },
+          mean: function(dof) {
+            return dof;
+          },
+          // TODO: this is an approximation (is there a better way?)
+          median: function median(dof) {
+            return dof * Math2.pow(1 - 2 / (9 * dof), 3);
+          },
+          mode: function mode(dof) {
+            return dof - 2 > 0 ? dof - 2 : 0;
+          },
+          sample: function sample(dof) {
+            return jStat3.randg(dof / 2) * 2;
+          },
+          variance: function variance(dof) {
+            return 2 * dof;
+          }
+        });
+        jStat3.extend(jStat3.exponential, {
+          pdf: function pdf(x, rate) {
+            return x < 0 ? 0 : rate * Math2.exp(-rate * x);
+          },
+          cdf: function cdf(x, rate) {
+            return x < 0 ? 0 : 1 - Math2.exp(-rate * x);
+          },
+          inv: function(p, rate) {
+            return -Math2.log(1 - p) / rate;
+          },
+          mean: function(rate) {
+            return 1 / rate;
+          },
+          median: function(rate) {
+            return 1 / rate * Math2.log(2);
+          },
+          mode: function mode() {
+            return 0;
+          },
+          sample: function sample(rate) {
+            return -1 / rate * Math2.log(jStat3._random_fn());
+          },
+          variance: function(rate) {
+            return Math2.pow(rate, -2);
+          }
+        });
+        jStat3.extend(jStat3.gamma, {
+          pdf: function pdf(x, shape, scale) {
+            if (x < 0)
+              return 0;
+            return x === 0 && shape === 1 ? 1 / scale : Math2.exp((shape - 1) * Math2.log(x) - x / scale - jStat3.gammaln(shape) - shape * Math2.log(scale));
+          },
+          cdf: function cdf(x, shape, scale) {
+            if (x < 0)
+              return 0;
+            return jStat3.lowRegGamma(shape, x / scale);
+          },
+          inv: function(p, shape, scale) {
+            return jStat3.gammapinv(p, shape) * scale;
+          },
+          mean: function(shape, scale) {
+            return shape * scale;
+          },
+          mode: function mode(shape, scale) {
+            if (shape > 1) return (shape - 1) * scale;
+            return void 0;
+          },
+          sample: function sample(shape, scale) {
+            return jStat3.randg(shape) * scale;
+          },
+          variance: function variance(shape, scale) {
+            return shape * scale * scale;
+          }
+        });
+        jStat3.extend(jStat3.invgamma, {
+          pdf: function pdf(x, shape, scale) {
+            if (x <= 0)
+              return 0;
+            return Math2.exp(-(shape + 1) * Math2.log(x) - scale / x - jStat3.gammaln(shape) + shape * Math2.log(scale));
+          },
+          cdf: function cdf(x, shape, scale) {
+            if (x <= 0)
+              return 0;
+            return 1 - jStat3.lowRegGamma(shape, scale / x);
+          },
+          inv: function(p, shape, scale) {
+            return scale / jStat3.gammapinv(1 - p, shape);
+          },
+          mean: function(shape, scale) {
+            return shape > 1 ? scale / (shape - 1) : void 0;
+          },
+          mode: function mode(shape, scale) {
+            return scale / (shape + 1);
+          },
+          sample: function sample(shape, scale) {
+            return scale / jStat3.randg(shape);
+          },
+          variance: function variance(shape, scale) {
+            if (shape <= 2)
+              return void 0;
+            return scale * scale / ((shape - 1) * (shape - 1) * (shape - 2));
+          }
+        });
+        jStat3.extend(jStat3.kumaraswamy, {
+          pdf: function pdf(x, alpha, beta) {
+            if (x === 0 && alpha === 1)
+              return beta;
+            else if (x === 1 && beta === 1)
+              return alpha;
+            return Math2.exp(Math2.log(alpha) + Math2.log(beta) + (alpha - 1) * Math2.log(x) + (beta - 1) * Math2.log(1 - Math2.pow(x, alpha)));
+          },
+          cdf: function cdf(x, alpha, beta) {
+            if (x < 0)
+              return 0;
+            else if (x > 1)
+              return 1;
+            return 1 - Math2.pow(1 - Math2.pow(x, alpha), beta);
+          },
+          inv: function inv(p, alpha, beta) {
+            return Math2.pow(1 - Math2.pow(1 - p, 1 / beta), 1 / alpha);
+          },
+          mean: function(alpha, beta) {
+            return beta * jStat3.gammafn(1 + 1 / alpha) * jStat3.gammafn(beta) / jStat3.gammafn(1 + 1 / alpha + beta);
+          },
+          median: function median(alpha, beta) {
+            return Math2.pow(1 - Math2.pow(2, -1 / beta), 1 / alpha);
+          },
+          mode: function mode(alpha, beta) {
+            if (!(alpha >= 1 && beta >= 1 && (alpha !== 1 && beta !== 1)))
+              return void 0;
+            return Math2.pow((alpha - 1) / (alpha * beta - 1), 1 / alpha);
+          },
+          variance: function variance() {
+            throw new Error("variance not yet implemented");
+          }
+        });
+        jStat3.extend(jStat3.lognormal, {
+          pdf: function pdf(x, mu, sigma) {
+            if (x <= 0)
+              return 0;
+            return Math2.exp(-Math2.log(x) - 0.5 * Math2.log(2 * Math2.PI) - Math2.log(sigma) - Math2.pow(Math2.log(x) - mu, 2) / (2 * sigma * sigma));
+          },
+          cdf: function cdf(x, mu, sigma) {
+            if (x < 0)
+              return 0;
+            return 0.5 + 0.5 * jStat3.erf((Math2.log(x) - mu) / Math2.sqrt(2 * sigma * sigma));
+          },
+          inv: function(p, mu, sigma) {
+            return Math2.exp(-1.4142135623730951 * sigma * jStat3.erfcinv(2 * p) + mu);
+          },
+          mean: function mean(mu, sigma) {
+            return Math2.exp(mu + sigma * sigma / 2);
+          },
+          median: function median(mu) {
+            return Math2.exp(mu);
+          },
+          mode: function mode(mu, sigma) {
+            return Math2.exp(mu - sigma * sigma);
+          },
+          sample: function sample(mu, sigma) {
+            return Math2.exp(jStat3.randn() * sigma + mu);
+          },
+          variance: function variance(mu, sigma) {
+            return (Math2.exp(sigma * sigma) - 1) * Math2.exp(2 * mu + sigma * sigma);
+          }
+        });
+        jStat3.extend(jStat3.noncentralt, {
+          pdf: function pdf(x, dof, ncp) {
+            var tol = 1e-14;
+            if (Math2.abs(ncp) < tol)
+              return jStat3.studentt.pdf(x, dof);
+            if (Math2.abs(x) < tol) {
+              return Math2.exp(jStat3.gammaln((dof + 1) / 2) - ncp * ncp / 2 - 0.5 * Math2.log(Math2.PI * dof) - jStat3.gammaln(dof / 2));
+            }
+            return dof / x * (jStat3.noncentralt.cdf(x * Math2.sqrt(1 + 2 / dof), dof + 2, ncp) - jStat3.noncentralt.cdf(x, dof, ncp));
+          },
+          cdf: function cdf(x, dof, ncp) {
+            var tol = 1e-14;
+            var min_iterations = 200;
+            if (Math2.abs(ncp) < tol)
+              return jStat3.studentt.cdf(x, dof);
+            var flip = false;
+            if (x < 0) {
+              flip = true;
+              ncp = -ncp;
+            }
+            var prob = jStat3.normal.cdf(-ncp, 0, 1);
+            var value = tol + 1;
+            var lastvalue = value;
+            var y = x * x / (x * x + dof);
+            var j = 0;
+            var p = Math2.exp(-ncp * ncp / 2);
+            var q = Math2.exp(-ncp * ncp / 2 - 0.5 * Math2.log(2) - jStat3.gammaln(3 / 2)) * ncp;
+            while (j < min_iterations || lastvalue > tol || value > tol) {
+              lastvalue = value;
+              if (j > 0) {
+                p *= ncp * ncp / (2 * j);
+                q *= ncp * ncp / (2 * (j + 1 / 2));
+              }
+              value = p * jStat3.beta.cdf(y, j + 0.5, dof / 2) + q * jStat3.beta.cdf(y, j + 1, dof / 2);
+              prob += 0.5 * value;
+              j++;
+            }
+            return flip ? 1 - prob : prob;
+          }
+        });
+        jStat3.extend(jStat3.normal, {
+          pdf: function pdf(x, mean, std) {
+            return Math2.exp(-0.5 * Math2.log(2 * Math2.PI) - Math2.log(std) - Math2.pow(x - mean, 2) / (2 * std * std));
+          },
+          cdf: function cdf(x, mean, std) {
+            return 0.5 * (1 + jStat3.erf((x - mean) / Math2.sqrt(2 * std * std)));
+          },
+          inv: function(p, mean, std) {
+            return -1.4142135623730951 * std * jStat3.erfcinv(2 * p) + mean;
+          },
+          mean: function(mean) {
+            return mean;
+          },
+          median: function median(mean) {
+            return mean;
+          },
+          mode: function(mean) {
+            return mean;
+          },
+          sample: function sample(mean, std) {
+            return jStat3.randn() * std + mean;
+          },
+          variance: function(mean, std) {
+            return std * std;
+          }
+        });
+        jStat3.extend(jStat3.pareto, {
+          pdf: function pdf(x, scale, shape) {
+            if (x < scale)
+              return 0;
+            return shape * Math2.pow(scale, shape) / Math2.pow(x, shape + 1);
+          },
+          cdf: function cdf(x, scale, shape) {
+            if (x < scale)
+              return 0;
+            return 1 - Math2.pow(scale / x, shape);
+          },
+          inv: function inv(p, scale, shape) {
+            return scale / Math2.pow(1 - p, 1 / shape);
+          },
+          mean: function mean(scale, shape) {
+            if (shape <= 1)
+              return void 0;
+            return shape * Math2.pow(scale, shape) / (shape - 1);
+          },
+          median: function median(scale, shape) {
+            return scale * (shape * Math2.SQRT2);
+          },
+          mode: function mode(scale) {
+            return scale;
+          },
+          variance: function(scale, shape) {
+            if (shape <= 2)
+              return void 0;
+            return scale * scale * shape / (Math2.pow(shape - 1, 2) * (shape - 2));
+          }
+        });
+        jStat3.extend(jStat3.studentt, {
+          pdf: function pdf(x, dof) {
+            dof = dof > 1e100 ? 1e100 : dof;
+            return 1 / (Math2.sqrt(dof) * jStat3.betafn(0.5, dof / 2)) * Math2.pow(1 + x * x / dof, -((dof + 1) / 2));
+          },
+          cdf: function cdf(x, dof) {
+            var dof2 = dof / 2;
+            return jStat3.ibeta((x + Math2.sqrt(x * x + dof)) / (2 * Math2.sqrt(x * x + dof)), dof2, dof2);
+          },
+          inv: function(p, dof) {
+            var x = jStat3.ibetainv(2 * Math2.min(p, 1 - p), 0.5 * dof, 0.5);
+            x = Math2.sqrt(dof * (1 - x) / x);
+            return p > 0.5 ? x : -x;
+          },
+          mean: function mean(dof) {
+            return dof > 1 ? 0 : void 0;
+          },
+          median: function median() {
+            return 0;
+          },
+          mode: function mode() {
+            return 0;
+          },
+          sample: function sample(dof) {
+            return jStat3.randn() * Math2.sqrt(dof / (2 * jStat3.randg(dof / 2)));
+          },
+          variance: function variance(dof) {
+            return dof > 2 ? dof / (dof - 2) : dof > 1 ? Infinity : void 0;
+          }
+        });
+        jStat3.extend(jStat3.weibull, {
+          pdf: function pdf(x, scale, shape) {
+            if (x < 0 || scale < 0 || shape < 0)
+              return 0;
+            return shape / scale * Math2.pow(x / scale, shape - 1) * Math2.exp(-Math2.pow(x / scale, shape));
+          },
+          cdf: function cdf(x, scale, shape) {
+            return x < 0 ? 0 : 1 - Math2.exp(-Math2.pow(x / scale, shape));
+          },
+          inv: function(p, scale, shape) {
+            return scale * Math2.pow(-Math2.log(1 - p), 1 / shape);
+          },
+          mean: function(scale, shape) {
+            return scale * jStat3.gammafn(1 + 1 / shape);
+          },
+          median: function median(scale, shape) {
+            return scale * Math2.pow(Math2.log(2), 1 / shape);
+          },
+          mode: function mode(scale, shape) {
+            if (shape <= 1)
+              return 0;
+            return scale * Math2.pow((shape - 1) / shape, 1 / shape);
+          },
+          sample: function sample(scale, shape) {
+            return scale * Math2.pow(-Math2.log(jStat3._random_fn()), 1 / shape);
+          },
+          variance: function variance(scale, shape) {
+            return scale * scale * jStat3.gammafn(1 + 2 / shape) - Math2.pow(jStat3.weibull.mean(scale, shape), 2);
+          }
+        });
+        jStat3.extend(jStat3.uniform, {
+          pdf: function pdf(x, a, b) {
+            return x < a || x > b ? 0 : 1 / (b - a);
+          },
+          cdf: function cdf(x, a, b) {
+            if (x < a)
+              return 0;
+            else if (x < b)
+              return (x - a) / (b - a);
+            return 1;
+          },
+          inv: function(p, a, b) {
+            return a + p * (b - a);
+          },
+          mean: function mean(a, b) {
+            return 0.5 * (a + b);
+          },
+          median: function median(a, b) {
+            return jStat3.mean(a, b);
+          },
+          mode: function mode() {
+            throw new Error("mode is not yet implemented");
+          },
+          sample: function sample(a, b) {
+            return a / 2 + b / 2 + (b / 2 - a / 2) * (2 * jStat3._random_fn() - 1);
+          },
+          variance: function variance(a, b) {
+            return Math2.pow(b - a, 2) / 12;
+          }
+        });
+        function betinc(x, a, b, eps) {
+          var a0 = 0;
+          var b0 = 1;
+          var a1 = 1;
+          var b1 = 1;
+          var m9 = 0;
+          var a2 = 0;
+          var c9;
+          while (Math2.abs((a1 - a2) / a1) > eps) {
+            a2 = a1;
+            c9 = -(a + m9) * (a + b + m9) * x / (a + 2 * m9) / (a + 2 * m9 + 1);
+            a0 = a1 + c9 * a0;
+            b0 = b1 + c9 * b0;
+            m9 = m9 + 1;
+            c9 = m9 * (b - m9) * x / (a + 2 * m9 - 1) / (a + 2 * m9);
+            a1 = a0 + c9 * a1;
+            b1 = b0 + c9 * b1;
+            a0 = a0 / b1;
+            b0 = b0 / b1;
+            a1 = a1 / b1;
+            b1 = 1;
+          }
+          return a1 / a;
+        }
+        jStat3.extend(jStat3.binomial, {
+          pdf: function pdf(k, n, p) {
+            return p === 0 || p === 1 ? n * p === k ? 1 : 0 : jStat3.combination(n, k) * Math2.pow(p, k) * Math2.pow(1 - p, n - k);
+          },
+          cdf: function cdf(x, n, p) {
+            var betacdf;
+            var eps = 1e-10;
+            if (x < 0)
+              return 0;
+            if (x >= n)
+              return 1;
+            if (p < 0 || p > 1 || n <= 0)
+              return NaN;
+            x = Math2.floor(x);
+            var z2 = p;
+            var a = x + 1;
+            var b = n - x;
+            var s = a + b;
+            var bt = Math2.exp(jStat3.gammaln(s) - jStat3.gammaln(b) - jStat3.gammaln(a) + a * Math2.log(z2) + b * Math2.log(1 - z2));
+            if (z2 < (a + 1) / (s + 2))
+              betacdf = bt * betinc(z2, a, b, eps);
+            else
+              betacdf = 1 - bt * betinc(1 - z2, b, a, eps);
+            return Math2.round((1 - betacdf) * (1 / eps)) / (1 / eps);
+          }
+        });
+        jStat3.extend(jStat3.negbin, {
+          pdf: function pdf(k, r, p) {
+            if (k !== k >>> 0)
+              return false;
+            if (k < 0)
+              return 0;
+            return jStat3.combination(k + r - 1, r - 1) * Math2.pow(1 - p, k) * Math2.pow(p, r);
+          },
+          cdf: function cdf(x, r, p) {
+            var sum = 0, k = 0;
+            if (x < 0) return 0;
+            for (; k <= x; k++) {
+              sum += jStat3.negbin.pdf(k, r, p);
+            }
+            return sum;
+          }
+        });
+        jStat3.extend(jStat3.hypgeom, {
+          pdf: function pdf(k, N, m, n) {
+            if (k !== k | 0) {
+              return false;
+            } else if (k < 0 || k < m - (N - n)) {
+              return 0;
+            } else if (k > n || k > m) {
+              return 0;
+            } else if (m * 2 > N) {
+              if (n * 2 > N) {
+                return jStat3.hypgeom.pdf(N - m - n + k, N, N - m, N - n);
+              } else {
+                return jStat3.hypgeom.pdf(n - k, N, N - m, n);
+              }
+            } else if (n * 2 > N) {
+              return jStat3.hypgeom.pdf(m - k, N, m, N - n);
+            } else if (m < n) {
+              return jStat3.hypgeom.pdf(k, N, n, m);
+            } else {
+              var scaledPDF = 1;
+              var samplesDone = 0;
+              for (var i = 0; i < k; i++) {
+                while (scaledPDF > 1 && samplesDone < n) {
+                  scaledPDF *= 1 - m / (N - samplesDone);
+                  samplesDone++;
+                }
+                scaledPDF *= (n - i) * (m - i) / ((i + 1) * (N - m - n + i + 1));
+              }
+              for (; samplesDone < n; samplesDone++) {
+                scaledPDF *= 1 - m / (N - samplesDone);
+              }
+              return Math2.min(1, Math2.max(0, scaledPDF));
+            }
+          },
+          cdf: function cdf(x, N, m, n) {
+            if (x < 0 || x < m - (N - n)) {
+              return 0;
+            } else if (x >= n || x >= m) {
+              return 1;
+            } else if (m * 2 > N) {
+              if (n * 2 > N) {
+                return jStat3.hypgeom.cdf(N - m - n + x, N, N - m, N - n);
+              } else {
+                return 1 - jStat3.hypgeom.cdf(n - x - 1, N, N - m, n);
+              }
+            } else if (n * 2 > N) {
+              return 1 - jStat3.hypgeom.cdf(m - x - 1, N, m, N - n);
+            } else if (m < n) {
+              return jStat3.hypgeom.cdf(x, N, n, m);
+            } else {
+              var scaledCDF = 1;
+              var scaledPDF = 1;
+              var samplesDone = 0;
+              for (var i = 0; i < x; i++) {
+                while (scaledCDF > 1 && samplesDone < n) {
+                  var factor = 1 - m / (N - samplesDone);
+                  scaledPDF *= factor;
+                  scaledCDF *= factor;
+                  samplesDone++;
+                }
+                scaledPDF *= (n - i) * (m - i) / ((i + 1) * (N - m - n + i + 1));
+                scaledCDF += scaledPDF;
+              }
+              for (; samplesDone < n; samplesDone++) {
+                scaledCDF *= 1 - m / (N - samplesDone);
+              }
+              return Math2.min(1, Math2.max(0, scaledCDF));
+            }
+          }
+        });
+        jStat3.extend(jStat3.poisson, {
+          pdf: function pdf(k, l) {
+            if (l < 0 || k % 1 !== 0 || k < 0) {
+              return 0;
+            }
+            return Math2.pow(l, k) * Math2.exp(-l) / jStat3.factorial(k);
+          },
+          cdf: function cdf(x, l) {
+            var sumarr = [], k = 0;
+            if (x < 0) return 0;
+            for (; k <= x; k++) {
+              sumarr.push(jStat3.poisson.pdf(k, l));
+            }
+            return jStat3.sum(sumarr);
+          },
+          mean: function(l) {
+            return l;
+          },
+          variance: function(l) {
+            return l;
+          },
+          sampleSmall: function sampleSmall(l) {
+            var p = 1, k = 0, L = Math2.exp(-l);
+            do {
+              k++;
+              p *= jStat3._random_fn();
+            } while (p > L);
+            return k - 1;
+          },
+          sampleLarge: function sampleLarge(l) {
+            var lam = l;
+            var k;
+            var U, V, slam, loglam, a, b, invalpha, vr, us;
+            slam = Math2.sqrt(lam);
+            loglam = Math2.log(lam);
+            b = 0.931 + 2.53 * slam;
+            a = -0.059 + 0.02483 * b;
+            invalpha = 1.1239 + 1.1328 / (b - 3.4);
+            vr = 0.9277 - 3.6224 / (b - 2);
+            while (1) {
+              U = Math2.random() - 0.5;
+              V = Math2.random();
+              us = 0.5 - Math2.abs(U);
+              k = Math2.floor((2 * a / us + b) * U + lam + 0.43);
+              if (us >= 0.07 && V <= vr) {
+                return k;
+              }
+              if (k < 0 || us < 0.013 && V > us) {
+                continue;
+              }
+              if (Math2.log(V) + Math2.log(invalpha) - Math2.log(a / (us * us) + b) <= -lam + k * loglam - jStat3.loggam(k + 1)) {
+                return k;
+              }
+            }
+          },
+          sample: function sample(l) {
+            if (l < 10)
+              return this.sampleSmall(l);
+            else
+              return this.sampleLarge(l);
+          }
+        });
+        jStat3.extend(jStat3.triangular, {
+          pdf: function pdf(x, a, b, c) {
+            if (b <= a || c < a || c > b) {
+              return NaN;
+            } else {
+              if (x < a || x > b) {
+                return 0;
+              } else if (x < c) {
+                return 2 * (x - a) / ((b - a) * (c - a));
+              } else if (x === c) {
+                return 2 / (b - a);
+              } else {
+                return 2 * (b - x) / ((b - a) * (b - c));
+              }
+            }
+          },
+          cdf: function cdf(x, a, b, c) {
+            if (b <= a || c < a || c > b)
+              return NaN;
+            if (x <= a)
+              return 0;
+            else if (x >= b)
+              return 1;
+            if (x <= c)
+              return Math2.pow(x - a, 2) / ((b - a) * (c - a));
+            else
+              return 1 - Math2.pow(b - x, 2) / ((b - a) * (b - c));
+          },
+          inv: function inv(p, a, b, c) {
+            if (b <= a || c < a || c > b) {
+              return NaN;
+            } else {
+              if (p <= (c - a) / (b - a)) {
+                return a + (b - a) * Math2.sqrt(p * ((c - a) / (b - a)));
+              } else {
+                return a + (b - a) * (1 - Math2.sqrt((1 - p) * (1 - (c - a) / (b - a))));
+              }
+            }
+          },
+          mean: function mean(a, b, c) {
+            return (a + b + c) / 3;
+          },
+          median: function median(a, b, c) {
+            if (c <= (a + b) / 2) {
+              return b - Math2.sqrt((b - a) * (b - c)) / Math2.sqrt(2);
+            } else if (c > (a + b) / 2) {
+              return a + Math2.sqrt((b - a) * (c - a)) / Math2.sqrt(2);
+            }
+          },
+          mode: function mode(a, b, c) {
+            return c;
+          },
+          sample: function sample(a, b, c) {
+            var u = jStat3._random_fn();
+            if (u < (c - a) / (b - a))
+              return a + Math2.sqrt(u * (b - a) * (c - a));
+            return b - Math2.sqrt((1 - u) * (b - a) * (b - c));
+          },
+          variance: function variance(a, b, c) {
+            return (a * a + b * b + c * c - a * b - a * c - b * c) / 18;
+          }
+        });
+        jStat3.extend(jStat3.arcsine, {
+          pdf: function pdf(x, a, b) {
+            if (b <= a) return NaN;
+            return x <= a || x >= b ? 0 : 2 / Math2.PI * Math2.pow(Math2.pow(b - a, 2) - Math2.pow(2 * x - a - b, 2), -0.5);
+          },
+          cdf: function cdf(x, a, b) {
+            if (x < a)
+              return 0;
+            else if (x < b)
+              return 2 / Math2.PI * Math2.asin(Math2.sqrt((x - a) / (b - a)));
+            return 1;
+          },
+          inv: function(p, a, b) {
+            return a + (0.5 - 0.5 * Math2.cos(Math2.PI * p)) * (b - a);
+          },
+          mean: function mean(a, b) {
+            if (b <= a) return NaN;
+            return (a + b) / 2;
+          },
+          median: function median(a, b) {
+            if (b <= a) return NaN;
+            return (a + b) / 2;
+          },
+          mode: function mode() {
+            throw new Error("mode is not yet implemented");
+          },
+          sample: function sample(a, b) {
+            return (a + b) / 2 + (b - a) / 2 * Math2.sin(2 * Math2.PI * jStat3.uniform.sample(0, 1));
+          },
+          variance: function variance(a, b) {
+            if (b <= a) return NaN;
+            return Math2.pow(b - a, 2) / 8;
+          }
+        });
+        function laplaceSign(x) {
+          return x / Math2.abs(x);
+        }
+        jStat3.extend(jStat3.laplace, {
+          pdf: function pdf(x, mu, b) {
+            return b <= 0 ? 0 : Math2.exp(-Math2.abs(x - mu) / b) / (2 * b);
+          },
+          cdf: function cdf(x, mu, b) {
+            if (b <= 0) {
+              return 0;
+            }
+            if (x < mu) {
+              return 0.5 * Math2.exp((x - mu) / b);
+            } else {
+              return 1 - 0.5 * Math2.exp(-(x - mu) / b);
+            }
+          },
+          mean: function(mu) {
+            return mu;
+          },
+          median: function(mu) {
+            return mu;
+          },
+          mode: function(mu) {
+            return mu;
+          },
+          variance: function(mu, b) {
+            return 2 * b * b;
+          },
+          sample: function sample(mu, b) {
+            var u = jStat3._random_fn() - 0.5;
+            return mu - b * laplaceSign(u) * Math2.log(1 - 2 * Math2.abs(u));
+          }
+        });
+        function tukeyWprob(w, rr, cc) {
+          var nleg = 12;
+          var ihalf = 6;
+          var C1 = -30;
+          var C2 = -50;
+          var C3 = 60;
+          var bb = 8;
+          var wlar = 3;
+          var wincr1 = 2;
+          var wincr2 = 3;
+          var xleg = [
+            0.9815606342467192,
+            0.9041172563704749,
+            0.7699026741943047,
+            0.5873179542866175,
+            0.3678314989981802,
+            0.1252334085114689
+          ];
+          var aleg = [
+            0.04717533638651183,
+            0.10693932599531843,
+            0.16007832854334622,
+            0.20316742672306592,
+            0.2334925365383548,
+            0.24914704581340277
+          ];
+          var qsqz = w * 0.5;
+          if (qsqz >= bb)
+            return 1;
+          var pr_w = 2 * jStat3.normal.cdf(qsqz, 0, 1, 1, 0) - 1;
+          if (pr_w >= Math2.exp(C2 / cc))
+            pr_w = Math2.pow(pr_w, cc);
+          else
+            pr_w = 0;
+          var wincr;
+          if (w > wlar)
+            wincr = wincr1;
+          else
+            wincr = wincr2;
+          var blb = qsqz;
+          var binc = (bb - qsqz) / wincr;
+          var bub = blb + binc;
+          var einsum = 0;
+          var cc1 = cc - 1;
+          for (var wi = 1; wi <= wincr; wi++) {
+            var elsum = 0;
+            var a = 0.5 * (bub + blb);
+            var b = 0.5 * (bub - blb);
+            for (var jj = 1; jj <= nleg; jj++) {
+              var j, xx;
+              if (ihalf < jj) {
+                j = nleg - jj + 1;
+                xx = xleg[j - 1];
+              } else {
+                j = jj;
+                xx = -xleg[j - 1];
+              }
+              var c = b * xx;
+              var ac = a + c;
+              var qexpo = ac * ac;
+              if (qexpo > C3)
+                break;
+              var pplus = 2 * jStat3.normal.cdf(ac, 0, 1, 1, 0);
+              var pminus = 2 * jStat3.normal.cdf(ac, w, 1, 1, 0);
+              var rinsum = pplus * 0.5 - pminus * 0.5;
+              if (rinsum >= Math2.exp(C1 / cc1)) {
+                rinsum = aleg[j - 1] * Math2.exp(-(0.5 * qexpo)) * Math2.pow(rinsum, cc1);
+                elsum += rinsum;
+              }
+            }
+            elsum *= 2 * b * cc / Math2.sqrt(2 * Math2.PI);
+            einsum += elsum;
+            blb = bub;
+            bub += binc;
+          }
+          pr_w += einsum;
+          if (pr_w <= Math2.exp(C1 / rr))
+            return 0;
+          pr_w = Math2.pow(pr_w, rr);
+          if (pr_w >= 1)
+            return 1;
+          return pr_w;
+        }
+        function tukeyQinv(p, c, v) {
+          var p0 = 0.322232421088;
+          var q0 = 0.099348462606;
+          var p1 = -1;
+          var q1 = 0.588581570495;
+          var p2 = -0.342242088547;
+          var q2 = 0.531103462366;
+          var p3 = -0.204231210125;
+          var q3 = 0.10353775285;
+          var p4 = -453642210148e-16;
+          var q4 = 0.0038560700634;
+          var c1 = 0.8832;
+          var c2 = 0.2368;
+          var c3 = 1.214;
+          var c4 = 1.208;
+          var c5 = 1.4142;
+          var vmax = 120;
+          var ps = 0.5 - 0.5 * p;
+          var yi = Math2.sqrt(Math2.log(1 / (ps * ps)));
+          var t = yi + ((((yi * p4 + p3) * yi + p2) * yi + p1) * yi + p0) / ((((yi * q4 + q3) * yi + q2) * yi + q1) * yi + q0);
+          if (v < vmax) t += (t * t * t + t) / v / 4;
+          var q = c1 - c2 * t;
+          if (v < vmax) q += -c3 / v + c4 * t / v;
+          return t * (q * Math2.log(c - 1) + c5);
+        }
+        jStat3.extend(jStat3.tukey, {
+          cdf: function cdf(q, nmeans, df) {
+            var rr = 1;
+            var cc = nmeans;
+            var nlegq = 16;
+            var ihalfq = 8;
+            var eps1 = -30;
+            var eps2 = 1e-14;
+            var dhaf = 100;
+            var dquar = 800;
+            var deigh = 5e3;
+            var dlarg = 25e3;
+            var ulen1 = 1;
+            var ulen2 = 0.5;
+            var ulen3 = 0.25;
+            var ulen4 = 0.125;
+            var xlegq = [
+              0.9894009349916499,
+              0.9445750230732326,
+              0.8656312023878318,
+              0.755404408355003,
+              0.6178762444026438,
+              0.45801677765722737,
+              0.2816035507792589,
+              0.09501250983763744
+            ];
+            var alegq = [
+              0.027152459411754096,
+              0.062253523938647894,
+              0.09515851168249279,
+              0.12462897125553388,
+              0.14959598881657674,
+              0.16915651939500254,
+              0.18260341504492358,
+              0.1894506104550685
+            ];
+            if (q <= 0)
+              return 0;
+            if (df < 2 || rr < 1 || cc < 2) return NaN;
+            if (!Number.isFinite(q))
+              return 1;
+            if (df > dlarg)
+              return tukeyWprob(q, rr, cc);
+            var f2 = df * 0.5;
+            var f2lf = f2 * Math2.log(df) - df * Math2.log(2) - jStat3.gammaln(f2);
+            var f21 = f2 - 1;
+            var ff4 = df * 0.25;
+            var ulen;
+            if (df <= dhaf) ulen = ulen1;
+            else if (df <= dquar) ulen = ulen2;
+            else if (df <= deigh) ulen = ulen3;
+            else ulen = ulen4;
+            f2lf += Math2.log(ulen);
+            var ans = 0;
+            for (var i = 1; i <= 50; i++) {
+              var otsum = 0;
+              var twa1 = (2 * i - 1) * ulen;
+              for (var jj = 1; jj <= nlegq; jj++) {
+                var j, t1;
+                if (ihalfq < jj) {
+                  j = jj - ihalfq - 1;
+                  t1 = f2lf + f21 * Math2.log(twa1 + xlegq[j] * ulen) - (xlegq[j] * ulen + twa1) * ff4;
+                } else {
+                  j = jj - 1;
+                  t1 = f2lf + f21 * Math2.log(twa1 - xlegq[j] * ulen) + (xlegq[j] * ulen - twa1) * ff4;
+                }
+                var qsqz;
+                if (t1 >= eps1) {
+                  if (ihalfq < jj) {
+                    qsqz = q * Math2.sqrt((xlegq[j] * ulen + twa1) * 0.5);
+                  } else {
+                    qsqz = q * Math2.sqrt((-(xlegq[j] * ulen) + twa1) * 0.5);
+                  }
+                  var wprb = tukeyWprob(qsqz, rr, cc);
+                  var rotsum = wprb * alegq[j] * Math2.exp(t1);
+                  otsum += rotsum;
+                }
+              }
+              if (i * ulen >= 1 && otsum <= eps2)
+                break;
+              ans += otsum;
+            }
+            if (otsum > eps2) {
+              throw new Error("tukey.cdf failed to converge");
+            }
+            if (ans > 1)
+              ans = 1;
+            return ans;
+          },
+          inv: function(p, nmeans, df) {
+            var rr = 1;
+            var cc = nmeans;
+            var eps = 1e-4;
+            var maxiter = 50;
+            if (df < 2 || rr < 1 || cc < 2) return NaN;
+            if (p < 0 || p > 1) return NaN;
+            if (p === 0) return 0;
+            if (p === 1) return Infinity;
+            var x0 = tukeyQinv(p, cc, df);
+            var valx0 = jStat3.tukey.cdf(x0, nmeans, df) - p;
+            var x1;
+            if (valx0 > 0)
+              x1 = Math2.max(0, x0 - 1);
+            else
+              x1 = x0 + 1;
+            var valx1 = jStat3.tukey.cdf(x1, nmeans, df) - p;
+            var ans;
+            for (var iter = 1; iter < maxiter; iter++) {
+              ans = x1 - valx1 * (x1 - x0) / (valx1 - valx0);
+              valx0 = valx1;
+              x0 = x1;
+              if (ans < 0) {
+                ans = 0;
+                valx1 = -p;
+              }
+              valx1 = jStat3.tukey.cdf(ans, nmeans, df) - p;
+              x1 = ans;
+              var xabs = Math2.abs(x1 - x0);
+              if (xabs < eps)
+                return ans;
+            }
+            throw new Error("tukey.inv failed to converge");
+          }
+        });
+      })(jStat2, Math);
+      (function(jStat3, Math2) {
+        var push = Array.prototype.push;
+        var isArray = jStat3.utils.isArray;
+        function isUsable(arg) {
+          return isArray(arg) || arg instanceof jStat3;
+        }
+        jStat3.extend({
+          // add a vector/matrix to a vector/matrix or scalar
+          add: function add(arr, arg) {
+            if (isUsable(arg)) {
+              if (!isUsable(arg[0])) arg = [arg];
+              return jStat3.map(arr, function(value, row, col) {
+                return value + arg[row][col];
+              });
+            }
+            return jStat3.map(arr, function(value) {
+              return value + arg;
+            });
+          },
+          // subtract a vector or scalar from the vector
+          subtract: function subtract(arr, arg) {
+            if (isUsable(arg)) {
+              if (!isUsable(arg[0])) arg = [arg];
+              return jStat3.map(arr, function(value, row, col) {
+                return value - arg[row][col] || 0;
+              });
+            }
+            return jStat3.map(arr, function(value) {
+              return value - arg;
+            });
+          },
+          // matrix division
+          divide: function divide(arr, arg) {
+            if (isUsable(arg)) {
+              if (!isUsable(arg[0])) arg = [arg];
+              return jStat3.multiply(arr, jStat3.inv(arg));
+            }
+            return jStat3.map(arr, function(value) {
+              return value / arg;
+            });
+          },
+          // matrix multiplication
+          multiply: function multiply(arr, arg) {
+            var row, col, nrescols, sum, nrow, ncol, res, rescols;
+            if (arr.length === void 0 && arg.length === void 0) {
+              return arr * arg;
+            }
+            nrow = arr.length, ncol = arr[0].length, res = jStat3.zeros(nrow, nrescols = isUsable(arg) ? arg[0].length : ncol), rescols = 0;
+            if (isUsable(arg)) {
+              for (; rescols < nrescols; rescols++) {
+                for (row = 0; row < nrow; row++) {
+                  sum = 0;
+                  for (col = 0; col < ncol; col++)
+                    sum += arr[row][col] * arg[col][rescols];
+                  res[row][rescols] = sum;
+                }
+              }
+              return nrow === 1 && rescols === 1 ? res[0][0] : res;
+            }
+            return jStat3.map(arr, function(value) {
+              return value * arg;
+            });
+          },
+          // outer([1,2,3],[4,5,6])
+          // ===
+          // [[1],[2],[3]] times [[4,5,6]]
+          // ->
+          // [[4,5,6],[8,10,12],[12,15,18]]
+          outer: function outer(A, B) {
+            return jStat3.multiply(A.map(function(t) {
+              return [t];
+            }), [B]);
+          },
+          // Returns the dot product of two matricies
+          dot: function dot(arr, arg) {
+            if (!isUsable(arr[0])) arr = [arr];
+            if (!isUsable(arg[0])) arg = [arg];
+            var left = arr[0].length === 1 && arr.length !== 1 ? jStat3.transpose(arr) : arr, right = arg[0].length === 1 && arg.length !== 1 ? jStat3.transpose(arg) : arg, res = [], row = 0, nrow = left.length, ncol = left[0].length, sum, col;
+            for (; row < nrow; row++) {
+              res[row] = [];
+              sum = 0;
+              for (col = 0; col < ncol; col++)
+                sum += left[row][col] * right[row][col];
+              res[row] = sum;
+            }
+            return res.length === 1 ? res[0] : res;
+          },
+          // raise every element by a scalar
+          pow: function pow(arr, arg) {
+            return jStat3.map(arr, function(value) {
+              return Math2.pow(value, arg);
+            });
+          },
+          // exponentiate every element
+          exp: function exp(arr) {
+            return jStat3.map(arr, function(value) {
+              return Math2.exp(value);
+            });
+          },
+          // generate the natural log of every element
+          log: function exp(arr) {
+            return jStat3.map(arr, function(value) {
+              return Math2.log(value);
+            });
+          },
+          // generate the absolute values of the vector
+          abs: function abs(arr) {
+            return jStat3.map(arr, function(value) {
+              return Math2.abs(value);
+            });
+          },
+          // computes the p-norm of the vector
+          // In the case that a matrix is passed, uses the first row as the vector
+          norm: function norm(arr, p) {
+            var nnorm = 0, i = 0;
+            if (isNaN(p)) p = 2;
+            if (isUsable(arr[0])) arr = arr[0];
+            for (; i < arr.length; i++) {
+              nnorm += Math2.pow(Math2.abs(arr[i]), p);
+            }
+            return Math2.pow(nnorm, 1 / p);
+          },
+          // computes the angle between two vectors in rads
+          // In case a matrix is passed, this uses the first row as the vector
+          angle: function angle(arr, arg) {
+            return Math2.acos(jStat3.dot(arr, arg) / (jStat3.norm(arr) * jStat3.norm(arg)));
+          },
+          // augment one matrix by another
+          // Note: this function returns a matrix, not a jStat object
+          aug: function aug(a, b) {
+            var newarr = [];
+            var i;
+            for (i = 0; i < a.length; i++) {
+              newarr.push(a[i].slice());
+            }
+            for (i = 0; i < newarr.length; i++) {
+              push.apply(newarr[i], b[i]);
+            }
+            return newarr;
+          },
+          // The inv() function calculates the inverse of a matrix
+          // Create the inverse by augmenting the matrix by the identity matrix of the
+          // appropriate size, and then use G-J elimination on the augmented matrix.
+          inv: function inv(a) {
+            var rows2 = a.length;
+            var cols = a[0].length;
+            var b = jStat3.identity(rows2, cols);
+            var c = jStat3.gauss_jordan(a, b);
+            var result = [];
+            var i = 0;
+            var j;
+            for (; i < rows2; i++) {
+              result[i] = [];
+              for (j = cols; j < c[0].length; j++)
+                result[i][j - cols] = c[i][j];
+            }
+            return result;
+          },
+          // calculate the determinant of a matrix
+          det: function det(a) {
+            if (a.length === 2) {
+              return a[0][0] * a[1][1] - a[0][1] * a[1][0];
+            }
+            var determinant = 0;
+            for (var i = 0; i < a.length; i++) {
+              var submatrix = [];
+              for (var row = 1; row < a.length; row++) {
+                submatrix[row - 1] = [];
+                for (var col = 0; col < a.length; col++) {
+                  if (col < i) {
+                    submatrix[row - 1][col] = a[row][col];
+                  } else if (col > i) {
+                    submatrix[row - 1][col - 1] = a[row][col];
+                  }
+                }
+              }
+              var sign = i % 2 ? -1 : 1;
+              determinant += det(submatrix) * a[0][i] * sign;
+            }
+            return determinant;
+          },
+          gauss_elimination: function gauss_elimination(a, b) {
+            var i = 0, j = 0, n = a.length, m = a[0].length, factor = 1, sum = 0, x = [], maug, pivot, temp, k;
+            a = jStat3.aug(a, b);
+            maug = a[0].length;
+            for (i = 0; i < n; i++) {
+              pivot = a[i][i];
+              j = i;
+              for (k = i + 1; k < m; k++) {
+                if (pivot < Math2.abs(a[k][i])) {
+                  pivot = a[k][i];
+                  j = k;
+                }
+              }
+              if (j != i) {
+                for (k = 0; k < maug; k++) {
+                  temp = a[i][k];
+                  a[i][k] = a[j][k];
+                  a[j][k] = temp;
+                }
+              }
+              for (j = i + 1; j < n; j++) {
+                factor = a[j][i] / a[i][i];
+                for (k = i; k < maug; k++) {
+                  a[j][k] = a[j][k] - factor * a[i][k];
+                }
+              }
+            }
+            for (i = n - 1; i >= 0; i--) {
+              sum = 0;
+              for (j = i + 1; j <= n - 1; j++) {
+                sum = sum + x[j] * a[i][j];
+              }
+              x[i] = (a[i][maug - 1] - sum) / a[i][i];
+            }
+            return x;
+          },
+          gauss_jordan: function gauss_jordan(a, b) {
+            var m = jStat3.aug(a, b);
+            var h = m.length;
+            var w = m[0].length;
+            var c = 0;
+            var x, y, y2;
+            for (y = 0; y < h; y++) {
+              var maxrow = y;
+              for (y2 = y + 1; y2 < h; y2++) {
+                if (Math2.abs(m[y2][y]) > Math2.abs(m[maxrow][y]))
+                  maxrow = y2;
+              }
+              var tmp = m[y];
+              m[y] = m[maxrow];
+              m[maxrow] = tmp;
+              for (y2 = y + 1; y2 < h; y2++) {
+                c = m[y2][y] / m[y][y];
+                for (x = y; x < w; x++) {
+                  m[y2][x] -= m[y][x] * c;
+                }
+              }
+            }
+            for (y = h - 1; y >= 0; y--) {
+              c = m[y][y];
+              for (y2 = 0; y2 < y; y2++) {
+                for (x = w - 1; x > y - 1; x--) {
+                  m[y2][x] -= m[y][x] * m[y2][y] / c;
+                }
+              }
+              m[y][y] /= c;
+              for (x = h; x < w; x++) {
+                m[y][x] /= c;
+              }
+            }
+            return m;
+          },
+          // solve equation
+          // Ax=b
+          // A is upper triangular matrix
+          // A=[[1,2,3],[0,4,5],[0,6,7]]
+          // b=[1,2,3]
+          // triaUpSolve(A,b) // -> [2.666,0.1666,1.666]
+          // if you use matrix style
+          // A=[[1,2,3],[0,4,5],[0,6,7]]
+          // b=[[1],[2],[3]]
+          // will return [[2.666],[0.1666],[1.666]]
+          triaUpSolve: function triaUpSolve(A, b) {
+            var size = A[0].length;
+            var x = jStat3.zeros(1, size)[0];
+            var parts;
+            var matrix_mode = false;
+            if (b[0].length != void 0) {
+              b = b.map(function(i) {
+                return i[0];
+              });
+              matrix_mode = true;
+            }
+            jStat3.arange(size - 1, -1, -1).forEach(function(i) {
+              parts = jStat3.arange(i + 1, size).map(function(j) {
+                return x[j] * A[i][j];
+              });
+              x[i] = (b[i] - jStat3.sum(parts)) / A[i][i];
+            });
+            if (matrix_mode)
+              return x.map(function(i) {
+                return [i];
+              });
+            return x;
+          },
+          triaLowSolve: function triaLowSolve(A, b) {
+            var size = A[0].length;
+            var x = jStat3.zeros(1, size)[0];
+            var parts;
+            var matrix_mode = false;
+            if (b[0].length != void 0) {
+              b = b.map(function(i) {
+                return i[0];
+              });
+              matrix_mode = true;
+            }
+            jStat3.arange(size).forEach(function(i) {
+              parts = jStat3.arange(i).map(function(j) {
+                return A[i][j] * x[j];
+              });
+              x[i] = (b[i] - jStat3.sum(parts)) / A[i][i];
+            });
+            if (matrix_mode)
+              return x.map(function(i) {
+                return [i];
+              });
+            return x;
+          },
+          // A -> [L,U]
+          // A=LU
+          // L is lower triangular matrix
+          // U is upper triangular matrix
+          lu: function lu(A) {
+            var size = A.length;
+            var L = jStat3.identity(size);
+            var R = jStat3.zeros(A.length, A[0].length);
+            var parts;
+            jStat3.arange(size).forEach(function(t) {
+              R[0][t] = A[0][t];
+            });
+            jStat3.arange(1, size).forEach(function(l) {
+              jStat3.arange(l).forEach(function(i) {
+                parts = jStat3.arange(i).map(function(jj) {
+                  return L[l][jj] * R[jj][i];
+                });
+                L[l][i] = (A[l][i] - jStat3.sum(parts)) / R[i][i];
+              });
+              jStat3.arange(l, size).forEach(function(j) {
+                parts = jStat3.arange(l).map(function(jj) {
+                  return L[l][jj] * R[jj][j];
+                });
+                R[l][j] = A[parts.length][j] - jStat3.sum(parts);
+              });
+            });
+            return [L, R];
+          },
+          // A -> T
+          // A=TT'
+          // T is lower triangular matrix
+          cholesky: function cholesky(A) {
+            var size = A.length;
+            var T = jStat3.zeros(A.length, A[0].length);
+            var parts;
+            jStat3.arange(size).forEach(function(i) {
+              parts = jStat3.arange(i).map(function(t) {
+                return Math2.pow(T[i][t], 2);
+              });
+              T[i][i] = Math2.sqrt(A[i][i] - jStat3.sum(parts));
+              jStat3.arange(i + 1, size).forEach(function(j) {
+                parts = jStat3.arange(i).map(function(t) {
+                  return T[i][t] * T[j][t];
+                });
+                T[j][i] = (A[i][j] - jStat3.sum(parts)) / T[i][i];
+              });
+            });
+            return T;
+          },
+          gauss_jacobi: function gauss_jacobi(a, b, x, r) {
+            var i = 0;
+            var j = 0;
+            var n = a.length;
+            var l = [];
+            var u = [];
+            var d = [];
+            var xv, c, h, xk;
+            for (; i < n; i++) {
+              l[i] = [];
+              u[i] = [];
+              d[i] = [];
+              for (j = 0; j < n; j++) {
+                if (i > j) {
+                  l[i][j] = a[i][j];
+                  u[i][j] = d[i][j] = 0;
+                } else if (i < j) {
+                  u[i][j] = a[i][j];
+                  l[i][j] = d[i][j] = 0;
+                } else {
+                  d[i][j] = a[i][j];
+                  l[i][j] = u[i][j] = 0;
+                }
+              }
+            }
+            h = jStat3.multiply(jStat3.multiply(jStat3.inv(d), jStat3.add(l, u)), -1);
+            c = jStat3.multiply(jStat3.inv(d), b);
+            xv = x;
+            xk = jStat3.add(jStat3.multiply(h, x), c);
+            i = 2;
+            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
+              xv = xk;
+              xk = jStat3.add(jStat3.multiply(h, xv), c);
+              i++;
+            }
+            return xk;
+          },
+          gauss_seidel: function gauss_seidel(a, b, x, r) {
+            var i = 0;
+            var n = a.length;
+            var l = [];
+            var u = [];
+            var d = [];
+            var j, xv, c, h, xk;
+            for (; i < n; i++) {
+              l[i] = [];
+              u[i] = [];
+              d[i] = [];
+              for (j = 0; j < n; j++) {
+                if (i > j) {
+                  l[i][j] = a[i][j];
+                  u[i][j] = d[i][j] = 0;
+                } else if (i < j) {
+                  u[i][j] = a[i][j];
+                  l[i][j] = d[i][j] = 0;
+                } else {
+                  d[i][j] = a[i][j];
+                  l[i][j] = u[i][j] = 0;
+                }
+              }
+            }
+            h = jStat3.multiply(jStat3.multiply(jStat3.inv(jStat3.add(d, l)), u), -1);
+            c = jStat3.multiply(jStat3.inv(jStat3.add(d, l)), b);
+            xv = x;
+            xk = jStat3.add(jStat3.multiply(h, x), c);
+            i = 2;
+            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
+              xv = xk;
+              xk = jStat3.add(jStat3.multiply(h, xv), c);
+              i = i + 1;
+            }
+            return xk;
+          },
+          SOR: function SOR(a, b, x, r, w) {
+            var i = 0;
+            var n = a.length;
+            var l = [];
+            var u = [];
+            var d = [];
+            var j, xv, c, h, xk;
+            for (; i < n; i++) {
+              l[i] = [];
+              u[i] = [];
+              d[i] = [];
+              for (j = 0; j < n; j++) {
+                if (i > j) {
+                  l[i][j] = a[i][j];
+                  u[i][j] = d[i][j] = 0;
+                } else if (i < j) {
+                  u[i][j] = a[i][j];
+                  l[i][j] = d[i][j] = 0;
+                } else {
+                  d[i][j] = a[i][j];
+                  l[i][j] = u[i][j] = 0;
+                }
+              }
+            }
+            h = jStat3.multiply(
+              jStat3.inv(jStat3.add(d, jStat3.multiply(l, w))),
+              jStat3.subtract(
+                jStat3.multiply(d, 1 - w),
+                jStat3.multiply(u, w)
+              )
+            );
+            c = jStat3.multiply(jStat3.multiply(jStat3.inv(jStat3.add(
+              d,
+              jStat3.multiply(l, w)
+            )), b), w);
+            xv = x;
+            xk = jStat3.add(jStat3.multiply(h, x), c);
+            i = 2;
+            while (Math2.abs(jStat3.norm(jStat3.subtract(xk, xv))) > r) {
+              xv = xk;
+              xk = jStat3.add(jStat3.multiply(h, xv), c);
+              i++;
+            }
+            return xk;
+          },
+          householder: function householder(a) {
+            var m = a.length;
+            var n = a[0].length;
+            var i = 0;
+            var w = [];
+            var p = [];
+            var alpha, r, k, j, factor;
+            for (; i < m - 1; i++) {
+              alpha = 0;
+              for (j = i + 1; j < n; j++)
+                alpha += a[j][i] * a[j][i];
+              factor = a[i + 1][i] > 0 ? -1 : 1;
+              alpha = factor * Math2.sqrt(alpha);
+              r = Math2.sqrt((alpha * alpha - a[i + 1][i] * alpha) / 2);
+              w = jStat3.zeros(m, 1);
+              w[i + 1][0] = (a[i + 1][i] - alpha) / (2 * r);
+              for (k = i + 2; k < m; k++) w[k][0] = a[k][i] / (2 * r);
+              p = jStat3.subtract(
+                jStat3.identity(m, n),
+                jStat3.multiply(jStat3.multiply(w, jStat3.transpose(w)), 2)
+              );
+              a = jStat3.multiply(p, jStat3.multiply(a, p));
+            }
+            return a;
+          },
+          // A -> [Q,R]
+          // Q is orthogonal matrix
+          // R is upper triangular
+          QR: (function() {
+            var sum = jStat3.sum;
+            var range = jStat3.arange;
+            function qr2(x) {
+              var n = x.length;
+              var p = x[0].length;
+              var r = jStat3.zeros(p, p);
+              x = jStat3.copy(x);
+              var i, j, k;
+              for (j = 0; j < p; j++) {
+                r[j][j] = Math2.sqrt(sum(range(n).map(function(i2) {
+                  return x[i2][j] * x[i2][j];
+                })));
+                for (i = 0; i < n; i++) {
+                  x[i][j] = x[i][j] / r[j][j];
+                }
+                for (k = j + 1; k < p; k++) {
+                  r[j][k] = sum(range(n).map(function(i2) {
+                    return x[i2][j] * x[i2][k];
+                  }));
+                  for (i = 0; i < n; i++) {
+                    x[i][k] = x[i][k] - x[i][j] * r[j][k];
+                  }
+                }
+              }
+              return [x, r];
+            }
+            return qr2;
+          })(),
+          lstsq: /* @__PURE__ */ (function() {
+            function R_I(A) {
+              A = jStat3.copy(A);
+              var size = A.length;
+              var I = jStat3.identity(size);
+              jStat3.arange(size - 1, -1, -1).forEach(function(i) {
+                jStat3.sliceAssign(
+                  I,
+                  { row: i },
+                  jStat3.divide(jStat3.slice(I, { row: i }), A[i][i])
+                );
+                jStat3.sliceAssign(
+                  A,
+                  { row: i },
+                  jStat3.divide(jStat3.slice(A, { row: i }), A[i][i])
+                );
+                jStat3.arange(i).forEach(function(j) {
+                  var c = jStat3.multiply(A[j][i], -1);
+                  var Aj = jStat3.slice(A, { row: j });
+                  var cAi = jStat3.multiply(jStat3.slice(A, { row: i }), c);
+                  jStat3.sliceAssign(A, { row: j }, jStat3.add(Aj, cAi));
+                  var Ij = jStat3.slice(I, { row: j });
+                  var cIi = jStat3.multiply(jStat3.slice(I, { row: i }), c);
+                  jStat3.sliceAssign(I, { row: j }, jStat3.add(Ij, cIi));
+                });
+              });
+              return I;
+            }
+            function qr_solve(A, b) {
+              var array_mode = false;
+              if (b[0].length === void 0) {
+                b = b.map(function(x2) {
+                  return [x2];
+                });
+                array_mode = true;
+              }
+              var QR = jStat3.QR(A);
+              var Q2 = QR[0];
+              var R = QR[1];
+              var attrs = A[0].length;
+              var Q1 = jStat3.slice(Q2, { col: { end: attrs } });
+              var R1 = jStat3.slice(R, { row: { end: attrs } });
+              var RI = R_I(R1);
+              var Q22 = jStat3.transpose(Q1);
+              if (Q22[0].length === void 0) {
+                Q22 = [Q22];
+              }
+              var x = jStat3.multiply(jStat3.multiply(RI, Q22), b);
+              if (x.length === void 0) {
+                x = [[x]];
+              }
+              if (array_mode)
+                return x.map(function(i) {
+                  return i[0];
+                });
+              return x;
+            }
+            return qr_solve;
+          })(),
+          jacobi: function jacobi(a) {
+            var condition = 1;
+            var n = a.length;
+            var e = jStat3.identity(n, n);
+            var ev = [];
+            var b, i, j, p, q, maxim, theta, s;
+            while (condition === 1) {
+              maxim = a[0][1];
+              p = 0;
+              q = 1;
+              for (i = 0; i < n; i++) {
+                for (j = 0; j < n; j++) {
+                  if (i != j) {
+                    if (maxim < Math2.abs(a[i][j])) {
+                      maxim = Math2.abs(a[i][j]);
+                      p = i;
+                      q = j;
+                    }
+                  }
+                }
+              }
+              if (a[p][p] === a[q][q])
+                theta = a[p][q] > 0 ? Math2.PI / 4 : -Math2.PI / 4;
+              else
+                theta = Math2.atan(2 * a[p][q] / (a[p][p] - a[q][q])) / 2;
+              s = jStat3.identity(n, n);
+              s[p][p] = Math2.cos(theta);
+              s[p][q] = -Math2.sin(theta);
+              s[q][p] = Math2.sin(theta);
+              s[q][q] = Math2.cos(theta);
+              e = jStat3.multiply(e, s);
+              b = jStat3.multiply(jStat3.multiply(jStat3.inv(s), a), s);
+              a = b;
+              condition = 0;
+              for (i = 1; i < n; i++) {
+                for (j = 1; j < n; j++) {
+                  if (i != j && Math2.abs(a[i][j]) > 1e-3) {
+                    condition = 1;
+                  }
+                }
+              }
+            }
+            for (i = 0; i < n; i++) ev.push(a[i][i]);
+            return [e, ev];
+          },
+          rungekutta: function rungekutta(f, h, p, t_j, u_j, order) {
+            var k1, k2, u_j1, k3, k4;
+            if (order === 2) {
+              while (t_j <= p) {
+                k1 = h * f(t_j, u_j);
+                k2 = h * f(t_j + h, u_j + k1);
+                u_j1 = u_j + (k1 + k2) / 2;
+                u_j = u_j1;
+                t_j = t_j + h;
+              }
+            }
+            if (order === 4) {
+              while (t_j <= p) {
+                k1 = h * f(t_j, u_j);
+                k2 = h * f(t_j + h / 2, u_j + k1 / 2);
+                k3 = h * f(t_j + h / 2, u_j + k2 / 2);
+                k4 = h * f(t_j + h, u_j + k3);
+                u_j1 = u_j + (k1 + 2 * k2 + 2 * k3 + k4) / 6;
+                u_j = u_j1;
+                t_j = t_j + h;
+              }
+            }
+            return u_j;
+          },
+          romberg: function romberg(f, a, b, order) {
+            var i = 0;
+            var h = (b - a) / 2;
+            var x = [];
+            var h1 = [];
+            var g = [];
+            var m, a1, j, k, I;
+            while (i < order / 2) {
+              I = f(a);
+              for (j = a, k = 0; j <= b; j = j + h, k++) x[k] = j;
+              m = x.length;
+              for (j = 1; j < m - 1; j++) {
+                I += (j % 2 !== 0 ? 4 : 2) * f(x[j]);
+              }
+              I = h / 3 * (I + f(b));
+              g[i] = I;
+              h /= 2;
+              i++;
+            }
+            a1 = g.length;
+            m = 1;
+            while (a1 !== 1) {
+              for (j = 0; j < a1 - 1; j++)
+                h1[j] = (Math2.pow(4, m) * g[j + 1] - g[j]) / (Math2.pow(4, m) - 1);
+              a1 = h1.length;
+              g = h1;
+              h1 = [];
+              m++;
+            }
+            return g;
+          },
+          richardson: function richardson(X, f, x, h) {
+            function pos(X2, x2) {
+              var i2 = 0;
+              var n = X2.length;
+              var p;
+              for (; i2 < n; i2++)
+                if (X2[i2] === x2) p = i2;
+              return p;
+            }
+            var h_min = Math2.abs(x - X[pos(X, x) + 1]);
+            var i = 0;
+            var g = [];
+            var h1 = [];
+            var y1, y2, m, a, j;
+            while (h >= h_min) {
+              y1 = pos(X, x + h);
+              y2 = pos(X, x);
+              g[i] = (f[y1] - 2 * f[y2] + f[2 * y2 - y1]) / (h * h);
+              h /= 2;
+              i++;
+            }
+            a = g.length;
+            m = 1;
+            while (a != 1) {
+              for (j = 0; j < a - 1; j++)
+                h1[j] = (Math2.pow(4, m) * g[j + 1] - g[j]) / (Math2.pow(4, m) - 1);
+              a = h1.length;
+              g = h1;
+              h1 = [];
+              m++;
+            }
+            return g;
+          },
+          simpson: function simpson(f, a, b, n) {
+            var h = (b - a) / n;
+            var I = f(a);
+            var x = [];
+            var j = a;
+            var k = 0;
+            var i = 1;
+            var m;
+            for (; j <= b; j = j + h, k++)
+              x[k] = j;
+            m = x.length;
+            for (; i < m - 1; i++) {
+              I += (i % 2 !== 0 ? 4 : 2) * f(x[i]);
+            }
+            return h / 3 * (I + f(b));
+          },
+          hermite: function hermite(X, F2, dF, value) {
+            var n = X.length;
+            var p = 0;
+            var i = 0;
+            var l = [];
+            var dl = [];
+            var A = [];
+            var B = [];
+            var j;
+            for (; i < n; i++) {
+              l[i] = 1;
+              for (j = 0; j < n; j++) {
+                if (i != j) l[i] *= (value - X[j]) / (X[i] - X[j]);
+              }
+              dl[i] = 0;
+              for (j = 0; j < n; j++) {
+                if (i != j) dl[i] += 1 / (X[i] - X[j]);
+              }
+              A[i] = (1 - 2 * (value - X[i]) * dl[i]) * (l[i] * l[i]);
+              B[i] = (value - X[i]) * (l[i] * l[i]);
+              p += A[i] * F2[i] + B[i] * dF[i];
+            }
+            return p;
+          },
+          lagrange: function lagrange(X, F2, value) {
+            var p = 0;
+            var i = 0;
+            var j, l;
+            var n = X.length;
+            for (; i < n; i++) {
+              l = F2[i];
+              for (j = 0; j < n; j++) {
+                if (i != j) l *= (value - X[j]) / (X[i] - X[j]);
+              }
+              p += l;
+            }
+            return p;
+          },
+          cubic_spline: function cubic_spline(X, F2, value) {
+            var n = X.length;
+            var i = 0, j;
+            var A = [];
+            var B = [];
+            var alpha = [];
+            var c = [];
+            var h = [];
+            var b = [];
+            var d = [];
+            for (; i < n - 1; i++)
+              h[i] = X[i + 1] - X[i];
+            alpha[0] = 0;
+            for (i = 1; i < n - 1; i++) {
+              alpha[i] = 3 / h[i] * (F2[i + 1] - F2[i]) - 3 / h[i - 1] * (F2[i] - F2[i - 1]);
+            }
+            for (i = 1; i < n - 1; i++) {
+              A[i] = [];
+              B[i] = [];
+              A[i][i - 1] = h[i - 1];
+              A[i][i] = 2 * (h[i - 1] + h[i]);
+              A[i][i + 1] = h[i];
+              B[i][0] = alpha[i];
+            }
+            c = jStat3.multiply(jStat3.inv(A), B);
+            for (j = 0; j < n - 1; j++) {
+              b[j] = (F2[j + 1] - F2[j]) / h[j] - h[j] * (c[j + 1][0] + 2 * c[j][0]) / 3;
+              d[j] = (c[j + 1][0] - c[j][0]) / (3 * h[j]);
+            }
+            for (j = 0; j < n; j++) {
+              if (X[j] > value) break;
+            }
+            j -= 1;
+            return F2[j] + (value - X[j]) * b[j] + jStat3.sq(value - X[j]) * c[j] + (value - X[j]) * jStat3.sq(value - X[j]) * d[j];
+          },
+          gauss_quadrature: function gauss_quadrature() {
+            throw new Error("gauss_quadrature not yet implemented");
+          },
+          PCA: function PCA(X) {
+            var m = X.length;
+            var n = X[0].length;
+            var i = 0;
+            var j, temp1;
+            var u = [];
+            var D = [];
+            var result = [];
+            var temp2 = [];
+            var Y = [];
+            var Bt = [];
+            var B = [];
+            var C = [];
+            var V = [];
+            var Vt = [];
+            for (i = 0; i < m; i++) {
+              u[i] = jStat3.sum(X[i]) / n;
+            }
+            for (i = 0; i < n; i++) {
+              B[i] = [];
+              for (j = 0; j < m; j++) {
+                B[i][j] = X[j][i] - u[j];
+              }
+            }
+            B = jStat3.transpose(B);
+            for (i = 0; i < m; i++) {
+              C[i] = [];
+              for (j = 0; j < m; j++) {
+                C[i][j] = jStat3.dot([B[i]], [B[j]]) / (n - 1);
+              }
+            }
+            result = jStat3.jacobi(C);
+            V = result[0];
+            D = result[1];
+            Vt = jStat3.transpose(V);
+            for (i = 0; i < D.length; i++) {
+              for (j = i; j < D.length; j++) {
+                if (D[i] < D[j]) {
+                  temp1 = D[i];
+                  D[i] = D[j];
+                  D[j] = temp1;
+                  temp2 = Vt[i];
+                  Vt[i] = Vt[j];
+                  Vt[j] = temp2;
+                }
+              }
+            }
+            Bt = jStat3.transpose(B);
+            for (i = 0; i < m; i++) {
+              Y[i] = [];
+              for (j = 0; j < Bt.length; j++) {
+                Y[i][j] = jStat3.dot([Vt[i]], [Bt[j]]);
+              }
+            }
+            return [X, D, Vt, Y];
+          }
+        });
+        (function(funcs) {
+          for (var i = 0; i < funcs.length; i++) (function(passfunc) {
+            jStat3.fn[passfunc] = function(arg, func) {
+              var tmpthis = this;
+              if (func) {
+                setTimeout(function() {
+                  func.call(tmpthis, jStat3.fn[passfunc].call(tmpthis, arg));
+                }, 15);
+                return this;
+              }
+              if (typeof jStat3[passfunc](this, arg) === "number")
+                return jStat3[passfunc](this, arg);
+              else
+                return jStat3(jStat3[passfunc](this, arg));
+            };
+          })(funcs[i]);
+        })("add divide multiply subtract dot pow exp log abs norm angle".split(" "));
+      })(jStat2, Math);
+      (function(jStat3, Math2) {
+        var slice = [].slice;
+        var isNumber = jStat3.utils.isNumber;
+        var isArray = jStat3.utils.isArray;
+        jStat3.extend({
+          // 2 different parameter lists:
+          // (value, mean, sd)
+          // (value, array, flag)
+          zscore: function zscore() {
+            var args = slice.call(arguments);
+            if (isNumber(args[1])) {
+              return (args[0] - args[1]) / args[2];
+            }
+            return (args[0] - jStat3.mean(args[1])) / jStat3.stdev(args[1], args[2]);
+          },
+          // 3 different paramter lists:
+          // (value, mean, sd, sides)
+          // (zscore, sides)
+          // (value, array, sides, flag)
+          ztest: function ztest() {
+            var args = slice.call(arguments);
+            var z2;
+            if (isArray(args[1])) {
+              z2 = jStat3.zscore(args[0], args[1], args[3]);
+              return args[2] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
+            } else {
+              if (args.length > 2) {
+                z2 = jStat3.zscore(args[0], args[1], args[2]);
+                return args[3] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
+              } else {
+                z2 = args[0];
+                return args[1] === 1 ? jStat3.normal.cdf(-Math2.abs(z2), 0, 1) : jStat3.normal.cdf(-Math2.abs(z2), 0, 1) * 2;
+              }
+            }
+          }
+        });
+        jStat3.extend(jStat3.fn, {
+          zscore: function zscore(value, flag) {
+            return (value - this.mean()) / this.stdev(flag);
+          },
+          ztest: function ztest(value, sides, flag) {
+            var zscore = Math2.abs(this.zscore(value, flag));
+            return sides === 1 ? jStat3.normal.cdf(-zscore, 0, 1) : jStat3.normal.cdf(-zscore, 0, 1) * 2;
+          }
+        });
+        jStat3.extend({
+          // 2 parameter lists
+          // (value, mean, sd, n)
+          // (value, array)
+          tscore: function tscore() {
+            var args = slice.call(arguments);
+            return args.length === 4 ? (args[0] - args[1]) / (args[2] / Math2.sqrt(args[3])) : (args[0] - jStat3.mean(args[1])) / (jStat3.stdev(args[1], true) / Math2.sqrt(args[1].length));
+          },
+          // 3 different paramter lists:
+          // (value, mean, sd, n, sides)
+          // (tscore, n, sides)
+          // (value, array, sides)
+          ttest: function ttest() {
+            var args = slice.call(arguments);
+            var tscore;
+            if (args.length === 5) {
+              tscore = Math2.abs(jStat3.tscore(args[0], args[1], args[2], args[3]));
+              return args[4] === 1 ? jStat3.studentt.cdf(-tscore, args[3] - 1) : jStat3.studentt.cdf(-tscore, args[3] - 1) * 2;
+            }
+            if (isNumber(args[1])) {
+              tscore = Math2.abs(args[0]);
+              return args[2] == 1 ? jStat3.studentt.cdf(-tscore, args[1] - 1) : jStat3.studentt.cdf(-tscore, args[1] - 1) * 2;
+            }
+            tscore = Math2.abs(jStat3.tscore(args[0], args[1]));
+            return args[2] == 1 ? jStat3.studentt.cdf(-tscore, args[1].length - 1) : jStat3.studentt.cdf(-tscore, args[1].length - 1) * 2;
+          }
+        });
+        jStat3.extend(jStat3.fn, {
+          tscore: function tscore(value) {
+            return (value - this.mean()) / (this.stdev(true) / Math2.sqrt(this.cols()));
+          },
+          ttest: function ttest(value, sides) {
+            return sides === 1 ? 1 - jStat3.studentt.cdf(Math2.abs(this.tscore(value)), this.cols() - 1) : jStat3.studentt.cdf(-Math2.abs(this.tscore(value)), this.cols() - 1) * 2;
+          }
+        });
+        jStat3.extend({
+          // Paramter list is as follows:
+          // (array1, array2, array3, ...)
+          // or it is an array of arrays
+          // array of arrays conversion
+          anovafscore: function anovafscore() {
+            var args = slice.call(arguments), expVar, sample, sampMean, sampSampMean, tmpargs, unexpVar, i, j;
+            if (args.length === 1) {
+              tmpargs = new Array(args[0].length);
+              for (i = 0; i < args[0].length; i++) {
+                tmpargs[i] = args[0][i];
+              }
+              args = tmpargs;
+            }
+            sample = new Array();
+            for (i = 0; i < args.length; i++) {
+              sample = sample.concat(args[i]);
+            }
+            sampMean = jStat3.mean(sample);
+            expVar = 0;
+            for (i = 0; i < args.length; i++) {
+              expVar = expVar + args[i].length * Math2.pow(jStat3.mean(args[i]) - sampMean, 2);
+            }
+            expVar /= args.length - 1;
+            unexpVar = 0;
+            for (i = 0; i < args.length; i++) {
+              sampSampMean = jStat3.mean(args[i]);
+              for (j = 0; j < args[i].length; j++) {
+                unexpVar += Math2.pow(args[i][j] - sampSampMean, 2);
+              }
+            }
+            unexpVar /= sample.length - args.length;
+            return expVar / unexpVar;
+          },
+          // 2 different paramter setups
+          // (array1, array2, array3, ...)
+          // (anovafscore, df1, df2)
+          anovaftest: function anovaftest() {
+            var args = slice.call(arguments), df1, df2, n, i;
+            if (isNumber(args[0])) {
+              return 1 - jStat3.centralF.cdf(args[0], args[1], args[2]);
+            }
+            var anovafscore = jStat3.anovafscore(args);
+            df1 = args.length - 1;
+            n = 0;
+            for (i = 0; i < args.length; i++) {
+              n = n + args[i].length;
+            }
+            df2 = n - df1 - 1;
+            return 1 - jStat3.centralF.cdf(anovafscore, df1, df2);
+          },
+          ftest: function ftest(fscore, df1, df2) {
+            return 1 - jStat3.centralF.cdf(fscore, df1, df2);
+          }
+        });
+        jStat3.extend(jStat3.fn, {
+          anovafscore: function anovafscore() {
+            return jStat3.anovafscore(this.toArray());
+          },
+          anovaftes: function anovaftes() {
+            var n = 0;
+            var i;
+            for (i = 0; i < this.length; i++) {
+              n = n + this[i].length;
+            }
+            return jStat3.ftest(this.anovafscore(), this.length - 1, n - this.length);
+          }
+        });
+        jStat3.extend({
+          // 2 parameter lists
+          // (mean1, mean2, n1, n2, sd)
+          // (array1, array2, sd)
+          qscore: function qscore() {
+            var args = slice.call(arguments);
+            var mean1, mean2, n1, n2, sd;
+            if (isNumber(args[0])) {
+              mean1 = args[0];
+              mean2 = args[1];
+              n1 = args[2];
+              n2 = args[3];
+              sd = args[4];
+            } else {
+              mean1 = jStat3.mean(args[0]);
+              mean2 = jStat3.mean(args[1]);
+              n1 = args[0].length;
+              n2 = args[1].length;
+              sd = args[2];
+            }
+            return Math2.abs(mean1 - mean2) / (sd * Math2.sqrt((1 / n1 + 1 / n2) / 2));
+          },
+          // 3 different parameter lists:
+          // (qscore, n, k)
+          // (mean1, mean2, n1, n2, sd, n, k)
+          // (array1, array2, sd, n, k)
+          qtest: function qtest() {
+            var args = slice.call(arguments);
+            var qscore;
+            if (args.length === 3) {
+              qscore = args[0];
+              args = args.slice(1);
+            } else if (args.length === 7) {
+              qscore = jStat3.qscore(args[0], args[1], args[2], args[3], args[4]);
+              args = args.slice(5);
+            } else {
+              qscore = jStat3.qscore(args[0], args[1], args[2]);
+              args = args.slice(3);
+            }
+            var n = args[0];
+            var k = args[1];
+            return 1 - jStat3.tukey.cdf(qscore, k, n - k);
+          },
+          tukeyhsd: function tukeyhsd(arrays) {
+            var sd = jStat3.pooledstdev(arrays);
+            var means = arrays.map(function(arr) {
+              return jStat3.mean(arr);
+            });
+            var n = arrays.reduce(function(n2, arr) {
+              return n2 + arr.length;
+            }, 0);
+            var results = [];
+            for (var i = 0; i < arrays.length; ++i) {
+              for (var j = i + 1; j < arrays.length; ++j) {
+                var p = jStat3.qtest(means[i], means[j], arrays[i].length, arrays[j].length, sd, n, arrays.length);
+                results.push([[i, j], p]);
+              }
+            }
+            return results;
+          }
+        });
+        jStat3.extend({
+          // 2 different parameter setups
+          // (value, alpha, sd, n)
+          // (value, alpha, array)
+          normalci: function normalci() {
+            var args = slice.call(arguments), ans = new Array(2), change2;
+            if (args.length === 4) {
+              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * args[2] / Math2.sqrt(args[3]));
+            } else {
+              change2 = Math2.abs(jStat3.normal.inv(args[1] / 2, 0, 1) * jStat3.stdev(args[2]) / Math2.sqrt(args[2].length));
+            }
+            ans[0] = args[0] - change2;
+            ans[1] = args[0] + change2;
+            return ans;
+          },
+          // 2 different parameter setups
+          // (value, alpha, sd, n)
+          // (value, alpha, array)
+          tci: function tci() {
+            var args = slice.call(arguments), ans = new Array(2), change2;
+            if (args.length === 4) {
+              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[3] - 1) * args[2] / Math2.sqrt(args[3]));
+            } else {
+              change2 = Math2.abs(jStat3.studentt.inv(args[1] / 2, args[2].length - 1) * jStat3.stdev(args[2], true) / Math2.sqrt(args[2].length));
+            }
+            ans[0] = args[0] - change2;
+            ans[1] = args[0] + change2;
+            return ans;
+          },
+          significant: function significant(pvalue, alpha) {
+            return pvalue < alpha;
+          }
+        });
+        jStat3.extend(jStat3.fn, {
+          normalci: function normalci(value, alpha) {
+            return jStat3.normalci(value, alpha, this.toArray());
+          },
+          tci: function tci(value, alpha) {
+            return jStat3.tci(value, alpha, this.toArray());
+          }
+        });
+        function differenceOfProportions(p1, n1, p2, n2) {
+          if (p1 > 1 || p2 > 1 || p1 <= 0 || p2 <= 0) {
+            throw new Error("Proportions should be greater than 0 and less than 1");
+          }
+          var pooled = (p1 * n1 + p2 * n2) / (n1 + n2);
+          var se = Math2.sqrt(pooled * (1 - pooled) * (1 / n1 + 1 / n2));
+          return (p1 - p2) / se;
+        }
+        jStat3.extend(jStat3.fn, {
+          oneSidedDifferenceOfProportions: function oneSidedDifferenceOfProportions(p1, n1, p2, n2) {
+            var z2 = differenceOfProportions(p1, n1, p2, n2);
+            return jStat3.ztest(z2, 1);
+          },
+          twoSidedDifferenceOfProportions: function twoSidedDifferenceOfProportions(p1, n1, p2, n2) {
+            var z2 = differenceOfProportions(p1, n1, p2, n2);
+            return jStat3.ztest(z2, 2);
+          }
+        });
+      })(jStat2, Math);
+      jStat2.models = /* @__PURE__ */ (function() {
+        function sub_regress(exog) {
+          var var_count = exog[0].length;
+          var modelList = jStat2.arange(var_count).map(function(endog_index) {
+            var exog_index = jStat2.arange(var_count).filter(function(i) {
+              return i !== endog_index;
+            });
+            return ols(
+              jStat2.col(exog, endog_index).map(function(x) {
+                return x[0];
+              }),
+              jStat2.col(exog, exog_index)
+            );
+          });
+          return modelList;
+        }
+        function ols(endog, exog) {
+          var nobs = endog.length;
+          var df_model = exog[0].length - 1;
+          var df_resid = nobs - df_model - 1;
+          var coef = jStat2.lstsq(exog, endog);
+          var predict = jStat2.multiply(exog, coef.map(function(x) {
+            return [x];
+          })).map(function(p) {
+            return p[0];
+          });
+          var resid = jStat2.subtract(endog, predict);
+          var ybar = jStat2.mean(endog);
+          var SSE = jStat2.sum(predict.map(function(f) {
+            return Math.pow(f - ybar, 2);
+          }));
+          var SSR = jStat2.sum(endog.map(function(y, i) {
+            return Math.pow(y - predict[i], 2);
+          }));
+          var SST = SSE + SSR;
+          var R2 = SSE / SST;
+          return {
+            exog,
+            endog,
+            nobs,
+            df_model,
+            df_resid,
+            coef,
+            predict,
+            resid,
+            ybar,
+            SST,
+            SSE,
+            SSR,
+            R2
+          };
+        }
+        function t_test(model) {
+          var subModelList = sub_regress(model.exog);
+          var sigmaHat = Math.sqrt(model.SSR / model.df_resid);
+          var seBetaHat = subModelList.map(function(mod) {
+            var SST = mod.SST;
+            var R2 = mod.R2;
+            return sigmaHat / Math.sqrt(SST * (1 - R2));
+          });
+          var tStatistic = model.coef.map(function(coef, i) {
+            return (coef - 0) / seBetaHat[i];
+          });
+          var pValue = tStatistic.map(function(t) {
+            var leftppf = jStat2.studentt.cdf(t, model.df_resid);
+            return (leftppf > 0.5 ? 1 - leftppf : leftppf) * 2;
+          });
+          var c = jStat2.studentt.inv(0.975, model.df_resid);
+          var interval95 = model.coef.map(function(coef, i) {
+            var d = c * seBetaHat[i];
+            return [coef - d, coef + d];
+          });
+          return {
+            se: seBetaHat,
+            t: tStatistic,
+            p: pValue,
+            sigmaHat,
+            interval95
+          };
+        }
+        function F_test(model) {
+          var F_statistic = model.R2 / model.df_model / ((1 - model.R2) / model.df_resid);
+          var fcdf = function(x, n1, n2) {
+            return jStat2.beta.cdf(x / (n2 / n1 + x), n1 / 2, n2 / 2);
+          };
+          var pvalue = 1 - fcdf(F_statistic, model.df_model, model.df_resid);
+          return { F_statistic, pvalue };
+        }
+        function ols_wrap(endog, exog) {
+          var model = ols(endog, exog);
+          var ttest = t_test(model);
+          var ftest = F_test(model);
+          var adjust_R2 = 1 - (1 - model.R2) * ((model.nobs - 1) / model.df_resid);
+          model.t = ttest;
+          model.f = ftest;
+          model.adjust_R2 = adjust_R2;
+          return model;
+        }
+        return { ols: ols_wrap };
+      })();
+      jStat2.extend({
+        buildxmatrix: function buildxmatrix() {
+          var matrixRows = new Array(arguments.length);
+          for (var i = 0; i < arguments.length; i++) {
+            var array2 = [1];
+            matrixRows[i] = array2.concat(arguments[i]);
+          }
+          return jStat2(matrixRows);
+        },
+        builddxmatrix: function builddxmatrix() {
+          var matrixRows = new Array(arguments[0].length);
+          for (var i = 0; i < arguments[0].length; i++) {
+            var array2 = [1];
+            matrixRows[i] = array2.concat(arguments[0][i]);
+          }
+          return jStat2(matrixRows);
+        },
+        buildjxmatrix: function buildjxmatrix(jMat) {
+          var pass = new Array(jMat.length);
+          for (var i = 0; i < jMat.length; i++) {
+            pass[i] = jMat[i];
+          }
+          return jStat2.builddxmatrix(pass);
+        },
+        buildymatrix: function buildymatrix(array2) {
+          return jStat2(array2).transpose();
+        },
+        buildjymatrix: function buildjymatrix(jMat) {
+          return jMat.transpose();
+        },
+        matrixmult: function matrixmult(A, B) {
+          var i, j, k, result, sum;
+          if (A.cols() == B.rows()) {
+            if (B.rows() > 1) {
+              result = [];
+              for (i = 0; i < A.rows(); i++) {
+                result[i] = [];
+                for (j = 0; j < B.cols(); j++) {
+                  sum = 0;
+                  for (k = 0; k < A.cols(); k++) {
+                    sum += A.toArray()[i][k] * B.toArray()[k][j];
+                  }
+                  result[i][j] = sum;
+                }
+              }
+              return jStat2(result);
+            }
+            result = [];
+            for (i = 0; i < A.rows(); i++) {
+              result[i] = [];
+              for (j = 0; j < B.cols(); j++) {
+                sum = 0;
+                for (k = 0; k < A.cols(); k++) {
+                  sum += A.toArray()[i][k] * B.toArray()[j];
+                }
+                result[i][j] = sum;
+              }
+            }
+            return jStat2(result);
+          }
+        },
+        //regress and regresst to be fixed
+        regress: function regress(jMatX, jMatY) {
+          var innerinv = jStat2.xtranspxinv(jMatX);
+          var xtransp = jMatX.transpose();
+          var next = jStat2.matrixmult(jStat2(innerinv), xtransp);
+          return jStat2.matrixmult(next, jMatY);
+        },
+        regresst: function regresst(jMatX, jMatY, sides) {
+          var beta = jStat2.regress(jMatX, jMatY);
+          var compile2 = {};
+          compile2.anova = {};
+          var jMatYBar = jStat2.jMatYBar(jMatX, beta);
+          compile2.yBar = jMatYBar;
+          var yAverage = jMatY.mean();
+          compile2.anova.residuals = jStat2.residuals(jMatY, jMatYBar);
+          compile2.anova.ssr = jStat2.ssr(jMatYBar, yAverage);
+          compile2.anova.msr = compile2.anova.ssr / (jMatX[0].length - 1);
+          compile2.anova.sse = jStat2.sse(jMatY, jMatYBar);
+          compile2.anova.mse = compile2.anova.sse / (jMatY.length - (jMatX[0].length - 1) - 1);
+          compile2.anova.sst = jStat2.sst(jMatY, yAverage);
+          compile2.anova.mst = compile2.anova.sst / (jMatY.length - 1);
+          compile2.anova.r2 = 1 - compile2.anova.sse / compile2.anova.sst;
+          if (compile2.anova.r2 < 0) compile2.anova.r2 = 0;
+          compile2.anova.fratio = compile2.anova.msr / compile2.anova.mse;
+          compile2.anova.pvalue = jStat2.anovaftest(
+            compile2.anova.fratio,
+            jMatX[0].length - 1,
+            jMatY.length - (jMatX[0].length - 1) - 1
+          );
+          compile2.anova.rmse = Math.sqrt(compile2.anova.mse);
+          compile2.anova.r2adj = 1 - compile2.anova.mse / compile2.anova.mst;
+          if (compile2.anova.r2adj < 0) compile2.anova.r2adj = 0;
+          compile2.stats = new Array(jMatX[0].length);
+          var covar = jStat2.xtranspxinv(jMatX);
+          var sds, ts, ps;
+          for (var i = 0; i < beta.length; i++) {
+            sds = Math.sqrt(compile2.anova.mse * Math.abs(covar[i][i]));
+            ts = Math.abs(beta[i] / sds);
+            ps = jStat2.ttest(ts, jMatY.length - jMatX[0].length - 1, sides);
+            compile2.stats[i] = [beta[i], sds, ts, ps];
+          }
+          compile2.regress = beta;
+          return compile2;
+        },
+        xtranspx: function xtranspx(jMatX) {
+          return jStat2.matrixmult(jMatX.transpose(), jMatX);
+        },
+        xtranspxinv: function xtranspxinv(jMatX) {
+          var inner = jStat2.matrixmult(jMatX.transpose(), jMatX);
+          var innerinv = jStat2.inv(inner);
+          return innerinv;
+        },
+        jMatYBar: function jMatYBar(jMatX, beta) {
+          var yBar = jStat2.matrixmult(jMatX, beta);
+          return new jStat2(yBar);
+        },
+        residuals: function residuals(jMatY, jMatYBar) {
+          return jStat2.matrixsubtract(jMatY, jMatYBar);
+        },
+        ssr: function ssr(jMatYBar, yAverage) {
+          var ssr2 = 0;
+          for (var i = 0; i < jMatYBar.length; i++) {
+            ssr2 += Math.pow(jMatYBar[i] - yAverage, 2);
+          }
+          return ssr2;
+        },
+        sse: function sse(jMatY, jMatYBar) {
+          var sse2 = 0;
+          for (var i = 0; i < jMatY.length; i++) {
+            sse2 += Math.pow(jMatY[i] - jMatYBar[i], 2);
+          }
+          return sse2;
+        },
+        sst: function sst(jMatY, yAverage) {
+          var sst2 = 0;
+          for (var i = 0; i < jMatY.length; i++) {
+            sst2 += Math.pow(jMatY[i] - yAverage, 2);
+          }
+          return sst2;
+        },
+        matrixsubtract: function matrixsubtract(A, B) {
+          var ans = new Array(A.length);
+          for (var i = 0; i < A.length; i++) {
+            ans[i] = new Array(A[i].length);
+            for (var j = 0; j < A[i].length; j++) {
+              ans[i][j] = A[i][j] - B[i][j];
+            }
+          }
+          return jStat2(ans);
+        }
+      });
+      jStat2.jStat = jStat2;
+      return jStat2;
+    });
   }
 });
 
@@ -16682,478 +16682,6 @@ function addAdjustCommand(program2, setExit, deps) {
     output2.out(local.format === "json" ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
     setExit(EXIT.ok);
   });
-}
-
-// src/cli/check-command.ts
-import { readFile as readFile2 } from "node:fs/promises";
-
-// src/core/report/markdown-safe.ts
-var ZERO_WIDTH_SPACE = "\u200B";
-function inert(text2) {
-  return text2.replace(/@(?=[A-Za-z0-9_-])/g, `@${ZERO_WIDTH_SPACE}`).replace(/#(?=\d)/g, `#${ZERO_WIDTH_SPACE}`);
-}
-function oneLine(text2) {
-  return text2.replace(/\r\n?|\n/g, " ");
-}
-function escapePlain(text2) {
-  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
-}
-function escapeCode(text2) {
-  return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
-}
-function safeText(text2) {
-  return escapePlain(oneLine(text2));
-}
-function safeMessage(text2) {
-  const clean = oneLine(text2);
-  let out = "";
-  let at = 0;
-  const runs = [...clean.matchAll(/`+/g)];
-  for (let i = 0; i < runs.length; i++) {
-    const open2 = runs[i];
-    if (open2.index < at) continue;
-    const close = runs.slice(i + 1).find((r) => r[0].length === open2[0].length);
-    out += escapePlain(clean.slice(at, open2.index));
-    if (!close) {
-      out += open2[0].replace(/`/g, "\\`");
-      at = open2.index + open2[0].length;
-      continue;
-    }
-    const inner = clean.slice(open2.index + open2[0].length, close.index);
-    out += `${open2[0]}${escapeCode(inner)}${close[0]}`;
-    at = close.index + close[0].length;
-    i = runs.indexOf(close);
-  }
-  return out + escapePlain(clean.slice(at));
-}
-function inCell(markdown) {
-  return markdown.replace(/\|/g, "\\|");
-}
-function safeCell(text2) {
-  return inCell(safeText(text2));
-}
-function codeSpan(text2) {
-  const clean = escapeCode(oneLine(text2));
-  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
-  const fence = "`".repeat(longest + 1);
-  const pad = clean.startsWith("`") || clean.endsWith("`") || /^ .* $/.test(clean) ? " " : "";
-  return clean === "" ? "` `" : `${fence}${pad}${clean}${pad}${fence}`;
-}
-function codeCell(text2) {
-  return inCell(codeSpan(text2));
-}
-function urlPath(path) {
-  return path.split("/").map((segment) => encodeURIComponent(segment).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)).join("/");
-}
-function linkTarget(url2) {
-  return url2.replace(/[^A-Za-z0-9\-._~:/?#[\]@!$&'*+,;=%]/gu, (c) => encodeURIComponent(c)).replace(/[()'!*[\]]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
-}
-
-// src/core/report/coverage-notice.ts
-function coverageNotice(review) {
-  const unseen = review.partial;
-  if (!unseen) return [];
-  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
-  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
-}
-
-// src/core/report/review-summary.ts
-function checklistSummary(items) {
-  const held = items.filter((i) => i.done).length;
-  return { count: `${formatCount(held)} of ${formatCount(items.length)} ${held === 1 ? "holds" : "hold"}`, failing: items.filter((i) => !i.done).map((i) => i.label) };
-}
-
-// src/core/report/sizing.ts
-var SIZING_JSON_FORMAT = "plumbline.sizing/1";
-function valueText(entry, value) {
-  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
-}
-function describeChange(entry, change2, from) {
-  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
-  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
-}
-function sizeCells(size) {
-  if (!size) return ["", "", "", ""];
-  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
-  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : "", size.duration ? formatCount(size.duration.weeks) : ""];
-}
-function rows(sizing) {
-  return sizing.metrics.map((entry) => {
-    const role = entry.role === "guardrail" ? `guardrail (non-inferiority, \u03B1 ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
-    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
-    const s = entry.result.value;
-    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
-    const end = s.atPlannedEnd;
-    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
-    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
-  });
-}
-var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
-function multiplierNotes(entry, sizing) {
-  const m = sizing.multipliers;
-  const out = [];
-  if (sizing.traffic?.kind === "unique" && entry.role === "primary") {
-    const [a, b] = sizing.traffic.points;
-    out.push(`Traffic as people arrive: ${formatCount(a.units)} different units in ${a.days} days and ${formatCount(b.units)} in ${b.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
-  }
-  if (entry.role === "guardrail" && sizing.effect) {
-    out.push(
-      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`
-    );
-  }
-  if (entry.guardrailLooks) {
-    out.push(`The interim boundaries are the primary\u2019s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail\u2019s harm check is its own one-sided test at \u03B1 ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
-  }
-  if (sizing.feasibility && !sizing.feasibility.feasible) {
-    const f = sizing.feasibility;
-    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : "";
-    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
-  }
-  if (sizing.squareRootAllocation) {
-    const a = sizing.squareRootAllocation;
-    out.push(`Several arms share one control: giving the control \u221Ak times a treatment arm\u2019s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
-  }
-  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
-  if (m.designEffect > 1) {
-    const perArm = sizing.headline?.clustersPerArm;
-    const groups2 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
-    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups2}.`);
-  }
-  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
-  if (sizing.boundaries) {
-    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
-    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
-    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
-  }
-  if (sizing.diluted && sizing.triggered) {
-    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, "day")})` : "";
-    out.push(
-      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
-    );
-  }
-  return out.map((text2) => `${entry.metric}: ${text2}`);
-}
-function notesOf(sizing) {
-  const family = sizing.family ? [
-    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
-  ] : [];
-  return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
-}
-function windowLine(sizing, context2) {
-  if (sizing.plannedDays !== void 0) {
-    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
-    return `Planned window: ${countOf(sizing.plannedDays, "day")}${dates}.`;
-  }
-  return "Planned window: not set, so power and detectable effect at the end are not computed.";
-}
-function renderSizingText(sizing, context2) {
-  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
-  const traffic = sizing.dailyUnits === void 0 && sizing.uniqueUnits === void 0 ? "No daily-units or unique-units given, so no durations." : "";
-  const notes = notesOf(sizing);
-  return [
-    context2.title,
-    context2.designLine,
-    windowLine(sizing, context2),
-    ...traffic ? [traffic] : [],
-    "",
-    table2,
-    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
-  ].join("\n");
-}
-function mermaidPowerChart(entry, sizing, target) {
-  const points = sizing.powerByDay;
-  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
-  const days = points.map((p) => p.day).join(", ");
-  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
-  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
-  return [
-    "```mermaid",
-    "xychart-beta",
-    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, " ")}"`,
-    `  x-axis "day" [${days}]`,
-    '  y-axis "power (%)" 0 --> 100',
-    `  line [${power}]`,
-    `  line [${goal}]`,
-    "```"
-  ].join("\n");
-}
-function renderSizingMarkdown(sizing, context2) {
-  const table2 = [
-    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
-    `| ${HEADER.map(() => "---").join(" | ")} |`,
-    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(" | ")} |`)
-  ];
-  const primary = sizing.metrics.find((m) => m.role === "primary");
-  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
-  const notes = notesOf(sizing);
-  return [
-    `### ${safeText(context2.title)}`,
-    "",
-    [safeText(context2.designLine), windowLine(sizing, context2)].filter(Boolean).join(" "),
-    "",
-    ...table2,
-    ...notes.length ? ["", ...notes.map((n) => `- ${safeText(n)}`)] : [],
-    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
-    ""
-  ].join("\n");
-}
-function sizingJson(sizing, context2) {
-  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
-}
-function designSummary(design) {
-  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
-  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
-  const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
-  const traffic = design.uniqueUnits ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(" and ")}, ${reached}` : design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
-  return `${arms}, ${test}${traffic}.`;
-}
-function lengthSetter(sizing) {
-  let best;
-  for (const entry of sizing.metrics) {
-    const duration3 = entry.result.ok ? entry.result.value.headline?.duration : void 0;
-    if (entry.result.ok && duration3 && (!best || duration3.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration: duration3 };
-  }
-  return best;
-}
-function lengthSummary(sizing) {
-  const setter = lengthSetter(sizing);
-  if (!setter) return void 0;
-  const { entry, duration: duration3 } = setter;
-  const who = entry.role === "guardrail" ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
-  const length = `${countOf(duration3.weeks, "week")} (${who} sets the length: ${countOf(duration3.days, "day")})`;
-  const end = setter.sizing.atPlannedEnd;
-  return end?.power !== void 0 ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, "day")})` } : { length };
-}
-
-// src/core/report/review-markdown.ts
-var REVIEW_MARKER = "<!-- plumbline:review -->";
-var COMMENT_LIMIT = 65536;
-var SUMMARY_LIMIT = 1024 * 1024;
-var measureCharacters = (text2) => text2.length;
-var encoder = new TextEncoder();
-var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
-var HEADLINE = {
-  blocked: "\u26D4 Plumbline: blocked",
-  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
-  clear: "\u2705 Plumbline: all clear",
-  "nothing-to-check": "\u2705 Plumbline: nothing to check",
-  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
-};
-var NOUN = { block: ["blocking finding", "blocking findings"], warn: ["warning", "warnings"], note: ["note", "notes"] };
-function countsText(findings) {
-  return ["block", "warn", "note"].map((s) => [s, findings.filter((f) => f.severity === s).length]).filter(([, n]) => n > 0).map(([s, n]) => countOf(n, ...NOUN[s])).join(", ");
-}
-function where(path, line, options) {
-  if (!path) return "";
-  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
-  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
-}
-function findingLine(f, options) {
-  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
-  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
-}
-function headline(review) {
-  const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
-  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
-  return `### ${HEADLINE[review.verdict]}${todo}`;
-}
-function countsLine(review) {
-  const introduced = review.findings.filter((f) => f.origin === "introduced");
-  const known = review.findings.length - introduced.length;
-  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? "Nothing new from this change." : ""];
-  if (known) parts.push(`Already known before it: ${countOf(known, "finding")}.`);
-  parts.push(`<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`);
-  return parts.filter(Boolean).join(" ");
-}
-function planSection(plan, options, detail, withTables) {
-  const checklist = checklistSummary(plan.checklist);
-  const length = lengthSummary(plan.sizing);
-  const found = plan.events.filter((e) => e.location).length;
-  const lines = [
-    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
-    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
-    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join("; ")}.` : ""}`
-  ];
-  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ""} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
-  if (!withTables) return lines;
-  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
-  lines.push(
-    "",
-    "<details><summary>Sizing and events</summary>",
-    "",
-    ...detail.charts ? sizing : cutChart(sizing),
-    "| event | used for | first logged at |",
-    "| --- | --- | --- |",
-    ...plan.events.map(
-      (e) => `| ${codeCell(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`
-    ),
-    "",
-    "</details>"
-  );
-  return lines;
-}
-function cutChart(lines) {
-  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
-  return start < 0 ? lines : [...lines.slice(0, start), ""];
-}
-function hasChart(review) {
-  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: "", designLine: "", window: p.window, power: p.power }).includes("<summary>Power by day"));
-}
-function findingsSection(review, options, shown) {
-  const listed = review.findings.slice(0, shown);
-  const introduced = listed.filter((f) => f.origin === "introduced");
-  const knownBlocking = listed.filter((f) => f.origin === "known" && f.severity === "block");
-  const knownRest = listed.filter((f) => f.origin === "known" && f.severity !== "block");
-  const out = [];
-  if (introduced.length) out.push("#### Introduced by this change", "", ...introduced.map((f) => findingLine(f, options)), "");
-  if (knownBlocking.length) out.push("#### Still blocking from before this change", "", ...knownBlocking.map((f) => findingLine(f, options)), "");
-  if (knownRest.length) {
-    out.push(`<details><summary>Already known: ${countOf(knownRest.length, "finding")} that held before this change</summary>`, "", ...knownRest.map((f) => findingLine(f, options)), "", "</details>", "");
-  }
-  return out;
-}
-function render(review, options, detail, omitted) {
-  const out = [REVIEW_MARKER, headline(review), countsLine(review), ""];
-  out.push(...coverageNotice(review));
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  out.push(...findingsSection(review, options, detail.findingsShown));
-  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ""));
-  if (review.nudge) {
-    out.push(
-      "#### A small check test for this fix?",
-      "",
-      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
-      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
-      "",
-      "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
-      "",
-      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
-      "```yaml",
-      review.nudge.planStub.replace(/```/g, "'''"),
-      "```",
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (review.collisions.length) {
-    out.push(
-      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, "overlap")}</summary>`,
-      "",
-      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
-      "| --- | --- | --- | --- | --- | --- | --- | --- |",
-      ...review.collisions.map(
-        (c) => `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== void 0 ? formatCount(c.overlapDays) : "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
-      ),
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (review.flags.length && detail.flagsShown > 0) {
-    const shown = review.flags.slice(0, detail.flagsShown);
-    out.push(
-      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
-      "",
-      "| flag | where | how | plans |",
-      "| --- | --- | --- | --- |",
-      ...shown.map(
-        (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
-      ),
-      "",
-      "</details>",
-      ""
-    );
-  }
-  if (omitted.length) {
-    const list2 = omitted.length > 1 ? `${omitted.slice(0, -1).join(", ")} and ${omitted.at(-1)}` : omitted[0];
-    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list2}${options.fullReport ? `. They are in ${options.fullReport}` : ""}.</sub>`);
-  }
-  return out.join("\n").replace(/\n{3,}/g, "\n\n");
-}
-function omissions(review, detail, charts) {
-  const out = [];
-  if (!detail.charts && charts && detail.tablesFor > 0) out.push("the power charts");
-  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
-  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, "plan")}`);
-  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
-  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, "more plan")}`);
-  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
-  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, "row")} of the flags table`);
-  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
-  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, "finding"));
-  return out;
-}
-function halving(n) {
-  const out = [];
-  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
-  return [...out, 0];
-}
-function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measure = measureCharacters) {
-  const plans = review.plans.length;
-  const findings = review.findings.length;
-  const charts = hasChart(review);
-  const attempt = (detail) => {
-    const body = render(review, options, detail, omissions(review, detail, charts));
-    return measure(body) <= limit ? body : void 0;
-  };
-  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
-  const steps = [full, { ...full, charts: false }];
-  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
-  const lean = { ...full, charts: false, tablesFor: 0 };
-  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
-  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
-  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
-  for (const detail of steps) {
-    const body = attempt(detail);
-    if (body !== void 0) return body;
-  }
-  return `${REVIEW_MARKER}
-${headline(review)}
-
-The review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
-}
-
-// src/core/report/review-text.ts
-var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
-function renderReviewText(review, options) {
-  const style = terminalStyle(options.color);
-  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
-  const out = [];
-  const verdict = {
-    blocked: style.red("blocked"),
-    warnings: style.yellow("passes, with warnings"),
-    clear: style.green("all clear"),
-    "nothing-to-check": style.green("nothing to check"),
-    partial: style.yellow("partial review, nothing found in the files seen")
-  }[review.verdict];
-  const known = review.findings.filter((f) => f.origin === "known").length;
-  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, "warning")}, ${countOf(review.counts.note, "note")}${known ? `; ${formatCount(known)} already held before this change` : ""}`;
-  out.push(`${style.bold("Plumbline")}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
-  if (review.verdict === "nothing-to-check") {
-    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
-    return out.join("\n");
-  }
-  for (const f of review.findings) {
-    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
-    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ""}${f.origin === "known" ? style.dim(" (already known)") : ""}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
-  }
-  for (const plan of review.plans) {
-    out.push("", `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(", "))}) ${terminalSafe(plan.file)}:${plan.line}`);
-    const checklist = checklistSummary(plan.checklist);
-    out.push(`  checklist: ${checklist.count}`);
-    for (const label of checklist.failing) out.push(`  [${style.red(" ")}] ${label}`);
-    const length = lengthSummary(plan.sizing);
-    if (length) out.push(`  length: ${terminalSafe(length.length)}${length.power ? `; power: ${terminalSafe(length.power)}` : ""}; details: plumbline size ${terminalSafe(plan.id)}`);
-    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
-    out.push(`  events: ${formatCount(plan.events.length - missing.length)} of ${formatCount(plan.events.length)} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
-  }
-  return out.join("\n");
 }
 
 // ../main/node_modules/zod/v4/classic/external.js
@@ -19014,18 +18542,18 @@ var validateAsync = async (schema, value, _ctx) => {
   return result.issues.length === 0;
 };
 var _encode = (_Err) => {
-  const parse4 = _parse(_Err);
+  const parse5 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
     const ctx = _ctx ? { ..._ctx, direction: "backward" } : { direction: "backward" };
-    return parse4(schema, value, ctx, finalizeParams(fn, _params));
+    return parse5(schema, value, ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
 var encode = /* @__PURE__ */ _encode($ZodRealError);
 var _decode = (_Err) => {
-  const parse4 = _parse(_Err);
+  const parse5 = _parse(_Err);
   const fn = (schema, value, _ctx, _params) => {
-    return parse4(schema, value, _ctx, finalizeParams(fn, _params));
+    return parse5(schema, value, _ctx, finalizeParams(fn, _params));
   };
   return fn;
 };
@@ -20520,7 +20048,7 @@ function capSize(inst, size) {
   if (!caps.length)
     return;
   const cap = Math.min(...caps.map((c) => c[0]));
-  const parse4 = inst._zod.parse;
+  const parse5 = inst._zod.parse;
   inst._zod.parse = (payload, ctx) => {
     const n = size(payload.value);
     if (n > cap && !ctx?.skipChecks && ctx?.direction !== "backward") {
@@ -20534,7 +20062,7 @@ function capSize(inst, size) {
         }
       }
     }
-    return parse4(payload, ctx);
+    return parse5(payload, ctx);
   };
 }
 var arraySize = (input2) => Array.isArray(input2) ? input2.length : -1;
@@ -36873,6 +36401,515 @@ function date4(params) {
   return _coercedDate(ZodDate, params);
 }
 
+// src/core/source/fields.ts
+function asDescription(expected) {
+  return `${expected.charAt(0).toUpperCase()}${expected.slice(1)}.`;
+}
+var text = (expected) => external_exports.string({ error: expected }).trim().min(1, { error: expected }).describe(asDescription(expected));
+var optionalText = (expected) => text(expected).optional();
+var NAME_MAX_LENGTH = 100;
+var kebabName = (expected) => external_exports.string({ error: expected }).max(NAME_MAX_LENGTH, { error: `${expected}, at most ${NAME_MAX_LENGTH} characters long` }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
+var openShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lt(1, { error: expected }).describe(asDescription(expected));
+var positiveShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lte(1, { error: expected }).describe(asDescription(expected));
+var positiveNumber = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).describe(asDescription(expected));
+var nonNegativeNumber = (expected) => external_exports.number({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
+var finiteNumber = (expected) => external_exports.number({ error: expected }).describe(asDescription(expected));
+var wholeNumber = (expected, min, max) => external_exports.number({ error: expected }).int({ error: expected }).gte(min, { error: expected }).lte(max, { error: expected }).describe(asDescription(expected));
+var CALENDAR_DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
+function isCalendarDate(value) {
+  const match = CALENDAR_DATE.exec(value);
+  if (!match) return false;
+  const [year, month, day] = [Number(match[1]), Number(match[2]), Number(match[3])];
+  const date5 = new Date(Date.UTC(year, month - 1, day));
+  return date5.getUTCFullYear() === year && date5.getUTCMonth() === month - 1 && date5.getUTCDate() === day;
+}
+var calendarDate = (expected) => external_exports.string({ error: expected }).regex(CALENDAR_DATE, { error: expected }).refine(isCalendarDate, { error: `${expected}, on a day that exists in the calendar` }).describe(asDescription(expected));
+var uniqueList = (item, expected, min = 0, fewMessage = expected) => external_exports.array(item, { error: expected }).min(min, { error: fewMessage }).refine((items) => new Set(items.map((i) => JSON.stringify(i))).size === items.length, {
+  error: `${expected}, each listed once`
+}).describe(asDescription(expected));
+
+// src/cli/check-command.ts
+import { readFile as readFile2 } from "node:fs/promises";
+
+// src/core/report/markdown-safe.ts
+var ZERO_WIDTH_SPACE = "\u200B";
+function inert(text2) {
+  return text2.replace(/@(?=[A-Za-z0-9_-])/g, `@${ZERO_WIDTH_SPACE}`).replace(/#(?=\d)/g, `#${ZERO_WIDTH_SPACE}`);
+}
+function oneLine(text2) {
+  return text2.replace(/\r\n?|\n/g, " ");
+}
+function escapePlain(text2) {
+  return inert(text2).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/[\\`*_[\]~!]/g, (c) => `\\${c}`).replace(/(www)\./gi, "$1\\.").replace(/:(?=\/\/)/g, "\\:");
+}
+function escapeCode(text2) {
+  return text2.replace(/<!--/g, `<${ZERO_WIDTH_SPACE}!--`);
+}
+function safeText(text2) {
+  return escapePlain(oneLine(text2));
+}
+function safeMessage(text2) {
+  const clean = oneLine(text2);
+  let out = "";
+  let at = 0;
+  const runs = [...clean.matchAll(/`+/g)];
+  for (let i = 0; i < runs.length; i++) {
+    const open2 = runs[i];
+    if (open2.index < at) continue;
+    const close = runs.slice(i + 1).find((r) => r[0].length === open2[0].length);
+    out += escapePlain(clean.slice(at, open2.index));
+    if (!close) {
+      out += open2[0].replace(/`/g, "\\`");
+      at = open2.index + open2[0].length;
+      continue;
+    }
+    const inner = clean.slice(open2.index + open2[0].length, close.index);
+    out += `${open2[0]}${escapeCode(inner)}${close[0]}`;
+    at = close.index + close[0].length;
+    i = runs.indexOf(close);
+  }
+  return out + escapePlain(clean.slice(at));
+}
+function inCell(markdown) {
+  return markdown.replace(/\|/g, "\\|");
+}
+function safeCell(text2) {
+  return inCell(safeText(text2));
+}
+function codeSpan(text2) {
+  const clean = escapeCode(oneLine(text2));
+  const longest = Math.max(0, ...[...clean.matchAll(/`+/g)].map((m) => m[0].length));
+  const fence = "`".repeat(longest + 1);
+  const pad = clean.startsWith("`") || clean.endsWith("`") || /^ .* $/.test(clean) ? " " : "";
+  return clean === "" ? "` `" : `${fence}${pad}${clean}${pad}${fence}`;
+}
+function codeCell(text2) {
+  return inCell(codeSpan(text2));
+}
+function urlPath(path) {
+  return path.split("/").map((segment) => encodeURIComponent(segment).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)).join("/");
+}
+function linkTarget(url2) {
+  return url2.replace(/[^A-Za-z0-9\-._~:/?#[\]@!$&'*+,;=%]/gu, (c) => encodeURIComponent(c)).replace(/[()'!*[\]]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+}
+
+// src/core/report/coverage-notice.ts
+function coverageNotice(review) {
+  const unseen = review.partial;
+  if (!unseen) return [];
+  const missed = unseen.changedFiles !== void 0 && unseen.changedFiles > unseen.reviewedFiles ? `; ${formatCount(unseen.changedFiles - unseen.reviewedFiles)} of its ${formatCount(unseen.changedFiles)} changed files were not reviewed` : "; the files past them were not reviewed";
+  return [`> **Partial review.** ${unseen.reason}: this review read ${formatCount(unseen.reviewedFiles)} files${missed}, so it cannot say the change is clear.`, ""];
+}
+
+// src/core/report/review-summary.ts
+function checklistSummary(items) {
+  const held = items.filter((i) => i.done).length;
+  return { count: `${formatCount(held)} of ${formatCount(items.length)} ${held === 1 ? "holds" : "hold"}`, failing: items.filter((i) => !i.done).map((i) => i.label) };
+}
+
+// src/core/report/sizing.ts
+var SIZING_JSON_FORMAT = "plumbline.sizing/1";
+function valueText(entry, value) {
+  return entry.kind === "proportion" ? formatRate(value) : formatValue(value);
+}
+function describeChange(entry, change2, from) {
+  const absolute = entry.kind === "proportion" ? `${change2.absolute >= 0 ? "+" : "-"}${Math.abs(change2.absolute * 100).toPrecision(2)} pp` : `${change2.absolute >= 0 ? "+" : "-"}${formatValue(Math.abs(change2.absolute))}`;
+  return `${valueText(entry, from)} \u2192 ${valueText(entry, change2.to)} (${formatRelative(change2.relative)} relative, ${absolute})`;
+}
+function sizeCells(size) {
+  if (!size) return ["", "", "", ""];
+  const perArm = new Set(size.perArm.map((a) => a.units)).size === 1 ? formatCount(size.perArm[0].units) : size.perArm.map((a) => formatCount(a.units)).join(" / ");
+  return [perArm, formatCount(size.totalUnits), size.duration ? formatCount(size.duration.days) : "", size.duration ? formatCount(size.duration.weeks) : ""];
+}
+function rows(sizing) {
+  return sizing.metrics.map((entry) => {
+    const role = entry.role === "guardrail" ? `guardrail (non-inferiority, \u03B1 ${formatValue(entry.alpha)} 1-sided)` : `primary (${entry.sides}-sided)`;
+    if (!entry.result.ok) return { entry, cells: [entry.metric, role, `cannot size: ${entry.result.error.input}: ${entry.result.error.message}`, "", "", "", "", "", ""] };
+    const s = entry.result.value;
+    const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : "no effect given";
+    const end = s.atPlannedEnd;
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : "";
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== void 0 ? formatPower(end.power) : "", detectable] };
+  });
+}
+var HEADER = ["METRIC", "ROLE", "EFFECT TO DETECT", "UNITS/ARM", "TOTAL", "DAYS", "WEEKS", "POWER AT END", "DETECTABLE BY END"];
+function multiplierNotes(entry, sizing) {
+  const m = sizing.multipliers;
+  const out = [];
+  if (sizing.traffic?.kind === "unique" && entry.role === "primary") {
+    const [a, b] = sizing.traffic.points;
+    out.push(`Traffic as people arrive: ${formatCount(a.units)} different units in ${a.days} days and ${formatCount(b.units)} in ${b.days}, interpolated as a power law (exponent ${sizing.traffic.exponent.toFixed(2)}; 1 would mean every unit is new).`);
+  }
+  if (entry.role === "guardrail" && sizing.effect) {
+    out.push(
+      `Non-inferiority: the test can rule out harm of ${describeChange(entry, sizing.effect, sizing.baselineValue)} with ${formatPower(entry.power)} power when there is none. At the readout the one-sided ${formatValue((1 - entry.alpha) * 100)}% bound on the harm reads three ways: breach (harm is significant), harm ruled out (the bound is inside the tolerance), or not ruled out (neither; more data or a judgement).`
+    );
+  }
+  if (entry.guardrailLooks) {
+    out.push(`The interim boundaries are the primary\u2019s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail\u2019s harm check is its own one-sided test at \u03B1 ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
+  }
+  if (sizing.feasibility && !sizing.feasibility.feasible) {
+    const f = sizing.feasibility;
+    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : "";
+    out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
+  }
+  if (sizing.squareRootAllocation) {
+    const a = sizing.squareRootAllocation;
+    out.push(`Several arms share one control: giving the control \u221Ak times a treatment arm\u2019s share (weights ${formatValue(a.controlWeight)} : ${formatValue(a.treatmentWeight)} each) needs ${formatCount(a.totalUnits)} units, ${formatCount(a.unitsSaved)} fewer.`);
+  }
+  if (m.comparisons > 1) out.push(`${m.comparisons} treatment arms against one control: \u03B1 ${formatValue(m.alphaPerComparison)} per comparison (Bonferroni).`);
+  if (m.designEffect > 1) {
+    const perArm = sizing.headline?.clustersPerArm;
+    const groups2 = perArm ? `, whole groups per arm ${perArm.map((g) => formatCount(g.groups)).join(" / ")} (${formatCount(sizing.headline.clusters)} groups in all; t reference with groups \u2212 2 degrees of freedom)` : "";
+    out.push(`Groups are randomized: design effect ${formatMultiplier(m.designEffect)} on units${groups2}.`);
+  }
+  if (m.varianceReduction < 1) out.push(`Pre-period adjustment (CUPED): ${formatMultiplier(m.varianceReduction)} on units.`);
+  if (sizing.boundaries) {
+    const z2 = sizing.boundaries.z.map((v) => v.toFixed(3)).join(", ");
+    const p = sizing.boundaries.nominalP.map((v) => v < 1e-3 ? v.toExponential(1) : v.toFixed(4)).join(", ");
+    out.push(`Interim looks (${sizing.boundaries.kind}, ${sizing.boundaries.z.length} analyses): maximum sample ${formatMultiplier(m.sequential)} to keep the planned power; stop at |z| \u2265 ${z2} (nominal p ${p}).`);
+  }
+  if (sizing.diluted && sizing.triggered) {
+    const triggeredDays = sizing.triggered.duration ? ` (${countOf(sizing.triggered.duration.days, "day")})` : "";
+    out.push(
+      `Exposure is logged before the change is reached: the analysis of all exposed units needs ${formatMultiplier(m.dilutionUnits)} the units and ${formatMultiplier(m.dilutionDays)} the days of an analysis of reached units${triggeredDays}; log exposure where the change is seen to save the difference.`
+    );
+  }
+  return out.map((text2) => `${entry.metric}: ${text2}`);
+}
+function notesOf(sizing) {
+  const family = sizing.family ? [
+    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
+  ] : [];
+  return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
+}
+function windowLine(sizing, context2) {
+  if (sizing.plannedDays !== void 0) {
+    const dates = context2.window?.start && context2.window.end ? ` (${context2.window.start} to ${context2.window.end})` : "";
+    return `Planned window: ${countOf(sizing.plannedDays, "day")}${dates}.`;
+  }
+  return "Planned window: not set, so power and detectable effect at the end are not computed.";
+}
+function renderSizingText(sizing, context2) {
+  const table2 = formatTable(HEADER, rows(sizing).map((r) => r.cells));
+  const traffic = sizing.dailyUnits === void 0 && sizing.uniqueUnits === void 0 ? "No daily-units or unique-units given, so no durations." : "";
+  const notes = notesOf(sizing);
+  return [
+    context2.title,
+    context2.designLine,
+    windowLine(sizing, context2),
+    ...traffic ? [traffic] : [],
+    "",
+    table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${n}`)] : []
+  ].join("\n");
+}
+function mermaidPowerChart(entry, sizing, target) {
+  const points = sizing.powerByDay;
+  if (!points || points.length < 3 || points[0].power > 0.99) return void 0;
+  const days = points.map((p) => p.day).join(", ");
+  const power = points.map((p) => (p.power * 100).toFixed(1)).join(", ");
+  const goal = points.map(() => (target * 100).toFixed(0)).join(", ");
+  return [
+    "```mermaid",
+    "xychart-beta",
+    `  title "Power by day: ${entry.metric.replace(/["\r\n]/g, " ")}"`,
+    `  x-axis "day" [${days}]`,
+    '  y-axis "power (%)" 0 --> 100',
+    `  line [${power}]`,
+    `  line [${goal}]`,
+    "```"
+  ].join("\n");
+}
+function renderSizingMarkdown(sizing, context2) {
+  const table2 = [
+    `| ${HEADER.map((h) => h.toLowerCase()).join(" | ")} |`,
+    `| ${HEADER.map(() => "---").join(" | ")} |`,
+    ...rows(sizing).map((r) => `| ${r.cells.map(safeCell).join(" | ")} |`)
+  ];
+  const primary = sizing.metrics.find((m) => m.role === "primary");
+  const chart = primary?.result.ok ? mermaidPowerChart(primary, primary.result.value, context2.power) : void 0;
+  const notes = notesOf(sizing);
+  return [
+    `### ${safeText(context2.title)}`,
+    "",
+    [safeText(context2.designLine), windowLine(sizing, context2)].filter(Boolean).join(" "),
+    "",
+    ...table2,
+    ...notes.length ? ["", ...notes.map((n) => `- ${safeText(n)}`)] : [],
+    ...chart ? ["", `<details><summary>Power by day (the flat line is the planned ${(context2.power * 100).toFixed(0)}%)</summary>`, "", chart, "", "</details>"] : [],
+    ""
+  ].join("\n");
+}
+function sizingJson(sizing, context2) {
+  return { format: SIZING_JSON_FORMAT, title: context2.title, design: context2.designLine, ...sizing };
+}
+function designSummary(design) {
+  const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(", ")})`;
+  const test = `\u03B1 ${formatValue(design.alpha)} ${design.sides === 2 ? "two-sided" : "one-sided"}, power ${formatValue(design.power * 100)}%`;
+  const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ""}`;
+  const traffic = design.uniqueUnits ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(" and ")}, ${reached}` : design.dailyUnits === void 0 ? "" : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
+  return `${arms}, ${test}${traffic}.`;
+}
+function lengthSetter(sizing) {
+  let best;
+  for (const entry of sizing.metrics) {
+    const duration3 = entry.result.ok ? entry.result.value.headline?.duration : void 0;
+    if (entry.result.ok && duration3 && (!best || duration3.days > best.duration.days)) best = { entry, sizing: entry.result.value, duration: duration3 };
+  }
+  return best;
+}
+function lengthSummary(sizing) {
+  const setter = lengthSetter(sizing);
+  if (!setter) return void 0;
+  const { entry, duration: duration3 } = setter;
+  const who = entry.role === "guardrail" ? `guardrail ${entry.metric}` : `primary metric ${entry.metric}`;
+  const length = `${countOf(duration3.weeks, "week")} (${who} sets the length: ${countOf(duration3.days, "day")})`;
+  const end = setter.sizing.atPlannedEnd;
+  return end?.power !== void 0 ? { length, power: `${formatPower(end.power)} for ${entry.metric} by the planned end (${countOf(end.days, "day")})` } : { length };
+}
+
+// src/core/report/plan-amendment.ts
+function planChangeTable(finding2) {
+  if (!finding2.changes?.length) return "";
+  const rows2 = finding2.changes.map((c) => `  | ${codeSpan(c.field)} | ${safeCell(c.before)} | ${safeCell(c.after)} |`);
+  return ["", "", "  | field | at the base commit | in this change |", "  | --- | --- | --- |", ...rows2].join("\n");
+}
+function planChangeLines(finding2, clean) {
+  return (finding2.changes ?? []).map((c) => `    ${c.field}: ${clean(c.before)} -> ${clean(c.after)}`);
+}
+
+// src/core/report/review-markdown.ts
+var REVIEW_MARKER = "<!-- plumbline:review -->";
+var COMMENT_LIMIT = 65536;
+var SUMMARY_LIMIT = 1024 * 1024;
+var measureCharacters = (text2) => text2.length;
+var encoder = new TextEncoder();
+var ICON = { block: "\u26D4", warn: "\u26A0\uFE0F", note: "\u2139\uFE0F" };
+var HEADLINE = {
+  blocked: "\u26D4 Plumbline: blocked",
+  warnings: "\u26A0\uFE0F Plumbline: passes, with warnings",
+  clear: "\u2705 Plumbline: all clear",
+  "nothing-to-check": "\u2705 Plumbline: nothing to check",
+  partial: "\u26A0\uFE0F Plumbline: partial review, nothing found in the files seen"
+};
+var NOUN = { block: ["blocking finding", "blocking findings"], warn: ["warning", "warnings"], note: ["note", "notes"] };
+function countsText(findings) {
+  return ["block", "warn", "note"].map((s) => [s, findings.filter((f) => f.severity === s).length]).filter(([, n]) => n > 0).map(([s, n]) => countOf(n, ...NOUN[s])).join(", ");
+}
+function where(path, line, options) {
+  if (!path) return "";
+  const label = codeSpan(`${path}${line ? `:${line}` : ""}`);
+  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
+}
+function findingLine(f, options) {
+  const plan = f.plan ? ` \xB7 ${codeSpan(f.plan)}` : "";
+  const at = f.file ? ` \xB7 ${where(f.file, f.line, options)}` : "";
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}${planChangeTable(f)}`;
+}
+function headline(review) {
+  const first = review.findings.find((f) => f.severity === "block") ?? review.findings.find((f) => f.severity === "warn");
+  const todo = review.verdict === "blocked" || review.verdict === "warnings" ? first ? ` \u2014 first: ${safeMessage(first.fix)}` : "" : "";
+  return `### ${HEADLINE[review.verdict]}${todo}`;
+}
+function countsLine(review) {
+  const introduced = review.findings.filter((f) => f.origin === "introduced");
+  const known = review.findings.length - introduced.length;
+  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? "Nothing new from this change." : ""];
+  if (known) parts.push(`Already known before it: ${countOf(known, "finding")}.`);
+  parts.push(`<sub>Compared ${review.base.slice(0, 7)}\u2026${review.head.slice(0, 7)}</sub>`);
+  return parts.filter(Boolean).join(" ");
+}
+function planSection(plan, options, detail, withTables) {
+  const checklist = checklistSummary(plan.checklist);
+  const length = lengthSummary(plan.sizing);
+  const found = plan.events.filter((e) => e.location).length;
+  const lines = [
+    `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
+    `${safeText(plan.state)} \xB7 ${plan.owners.map(safeText).join(", ")} \xB7 ${where(plan.file, plan.line, options)} \xB7 linked because: ${plan.reasons.join(", ")}`,
+    `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join("; ")}.` : ""}`
+  ];
+  if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ""} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
+  if (!withTables) return lines;
+  const sizing = renderSizingMarkdown(plan.sizing, { title: "Sizing", designLine: "", window: plan.window, power: plan.power }).split("\n").filter((l) => !l.startsWith("### "));
+  lines.push(
+    "",
+    "<details><summary>Sizing and events</summary>",
+    "",
+    ...detail.charts ? sizing : cutChart(sizing),
+    "| event | used for | first logged at |",
+    "| --- | --- | --- |",
+    ...plan.events.map(
+      (e) => `| ${codeCell(e.event)} | ${safeCell(e.roles.join(", "))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === "literal" ? " (as a string, not in a logging call)" : ""}` : "**missing**"} |`
+    ),
+    "",
+    "</details>"
+  );
+  return lines;
+}
+function cutChart(lines) {
+  const start = lines.findIndex((l) => l.startsWith("<details><summary>Power by day"));
+  return start < 0 ? lines : [...lines.slice(0, start), ""];
+}
+function hasChart(review) {
+  return review.plans.some((p) => renderSizingMarkdown(p.sizing, { title: "", designLine: "", window: p.window, power: p.power }).includes("<summary>Power by day"));
+}
+function findingsSection(review, options, shown) {
+  const listed = review.findings.slice(0, shown);
+  const introduced = listed.filter((f) => f.origin === "introduced");
+  const knownBlocking = listed.filter((f) => f.origin === "known" && f.severity === "block");
+  const knownRest = listed.filter((f) => f.origin === "known" && f.severity !== "block");
+  const out = [];
+  if (introduced.length) out.push("#### Introduced by this change", "", ...introduced.map((f) => findingLine(f, options)), "");
+  if (knownBlocking.length) out.push("#### Still blocking from before this change", "", ...knownBlocking.map((f) => findingLine(f, options)), "");
+  if (knownRest.length) {
+    out.push(`<details><summary>Already known: ${countOf(knownRest.length, "finding")} that held before this change</summary>`, "", ...knownRest.map((f) => findingLine(f, options)), "", "</details>", "");
+  }
+  return out;
+}
+function render(review, options, detail, omitted) {
+  const out = [REVIEW_MARKER, headline(review), countsLine(review), ""];
+  out.push(...coverageNotice(review));
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  out.push(...findingsSection(review, options, detail.findingsShown));
+  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ""));
+  if (review.nudge) {
+    out.push(
+      "#### A small check test for this fix?",
+      "",
+      ...review.nudge.twoWeeksLine ? [safeText(review.nudge.twoWeeksLine), ""] : [],
+      "A fix can fail to fix, or quietly cost latency or errors elsewhere. Behind a flag, half the traffic gets it first and a guardrail shows within days whether it made things worse; a kill switch is there if it did.",
+      "",
+      "<details><summary>Sizing, and a plan to paste into experiments/ (edit the placeholders)</summary>",
+      "",
+      ...review.nudge.sizingLine ? [safeMessage(review.nudge.sizingLine), ""] : [],
+      "```yaml",
+      review.nudge.planStub.replace(/```/g, "'''"),
+      "```",
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (review.collisions.length) {
+    out.push(
+      `<details><summary>Running tests on the same surface: ${countOf(review.collisions.length, "overlap")}</summary>`,
+      "",
+      "| plan | overlaps | owners | their surface | days together | platforms | locales | traffic in both |",
+      "| --- | --- | --- | --- | --- | --- | --- | --- |",
+      ...review.collisions.map(
+        (c) => `| ${codeCell(c.plan)} | ${codeCell(c.other)}${c.known ? " (declared)" : ""} | ${safeCell(c.owners.join(", "))} | ${codeCell(c.otherSurface)} | ${c.overlapDays !== void 0 ? formatCount(c.overlapDays) : "unknown"} | ${safeCell(c.platforms === "all" ? "all" : c.platforms.join(", "))} | ${safeCell(c.locales === "all" ? "all" : c.locales.join(", "))} | ${Math.round(c.trafficShare * 100)}% |`
+      ),
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (review.flags.length && detail.flagsShown > 0) {
+    const shown = review.flags.slice(0, detail.flagsShown);
+    out.push(
+      `<details><summary>Feature flags this change touches: ${formatCount(review.flags.length)}</summary>`,
+      "",
+      "| flag | where | how | plans |",
+      "| --- | --- | --- | --- |",
+      ...shown.map(
+        (f) => `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? "exempt" : f.plans.length ? f.plans.map(codeCell).join(", ") : "**none**"} |`
+      ),
+      "",
+      "</details>",
+      ""
+    );
+  }
+  if (omitted.length) {
+    const list2 = omitted.length > 1 ? `${omitted.slice(0, -1).join(", ")} and ${omitted.at(-1)}` : omitted[0];
+    out.push(`<sub>Left out to fit ${options.limitName ?? "GitHub's comment size limit"}: ${list2}${options.fullReport ? `. They are in ${options.fullReport}` : ""}.</sub>`);
+  }
+  return out.join("\n").replace(/\n{3,}/g, "\n\n");
+}
+function omissions(review, detail, charts) {
+  const out = [];
+  if (!detail.charts && charts && detail.tablesFor > 0) out.push("the power charts");
+  const withoutTables = Math.min(detail.plansShown, review.plans.length) - Math.min(detail.tablesFor, detail.plansShown);
+  if (withoutTables > 0) out.push(`the sizing and events tables of ${countOf(withoutTables, "plan")}`);
+  const hiddenPlans = review.plans.length - Math.min(detail.plansShown, review.plans.length);
+  if (hiddenPlans > 0) out.push(`the sections of ${countOf(hiddenPlans, "more plan")}`);
+  const hiddenFlags = review.flags.length - Math.min(detail.flagsShown, review.flags.length);
+  if (hiddenFlags > 0) out.push(`${countOf(hiddenFlags, "row")} of the flags table`);
+  const hiddenFindings = review.findings.length - Math.min(detail.findingsShown, review.findings.length);
+  if (hiddenFindings > 0) out.push(countOf(hiddenFindings, "finding"));
+  return out;
+}
+function halving(n) {
+  const out = [];
+  for (let k = n; k > 0; k = k > 8 ? Math.floor(k / 2) : k - 1) out.push(k);
+  return [...out, 0];
+}
+function renderReviewMarkdown(review, options = {}, limit = COMMENT_LIMIT, measure = measureCharacters) {
+  const plans = review.plans.length;
+  const findings = review.findings.length;
+  const charts = hasChart(review);
+  const attempt = (detail) => {
+    const body = render(review, options, detail, omissions(review, detail, charts));
+    return measure(body) <= limit ? body : void 0;
+  };
+  const full = { charts: true, tablesFor: plans, findingsShown: findings, plansShown: plans, flagsShown: review.flags.length };
+  const steps = [full, { ...full, charts: false }];
+  for (const tablesFor of halving(plans).slice(1)) steps.push({ ...full, charts: false, tablesFor });
+  const lean = { ...full, charts: false, tablesFor: 0 };
+  for (const flagsShown of halving(review.flags.length).slice(1)) steps.push({ ...lean, flagsShown });
+  for (const findingsShown of halving(findings).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown });
+  for (const plansShown of halving(plans).slice(1)) steps.push({ ...lean, flagsShown: 0, findingsShown: 0, plansShown });
+  for (const detail of steps) {
+    const body = attempt(detail);
+    if (body !== void 0) return body;
+  }
+  return `${REVIEW_MARKER}
+${headline(review)}
+
+The review does not fit here${options.fullReport ? `; see ${options.fullReport}` : ""}.`;
+}
+
+// src/core/report/review-text.ts
+var LABEL = { block: "BLOCK", warn: "warn ", note: "note " };
+function renderReviewText(review, options) {
+  const style = terminalStyle(options.color);
+  const paint = (s, text2) => s === "block" ? style.red(text2) : s === "warn" ? style.yellow(text2) : style.dim(text2);
+  const out = [];
+  const verdict = {
+    blocked: style.red("blocked"),
+    warnings: style.yellow("passes, with warnings"),
+    clear: style.green("all clear"),
+    "nothing-to-check": style.green("nothing to check"),
+    partial: style.yellow("partial review, nothing found in the files seen")
+  }[review.verdict];
+  const known = review.findings.filter((f) => f.origin === "known").length;
+  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, "warning")}, ${countOf(review.counts.note, "note")}${known ? `; ${formatCount(known)} already held before this change` : ""}`;
+  out.push(`${style.bold("Plumbline")}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  if (review.verdict === "nothing-to-check") {
+    out.push("This change touches no feature flag and no plan, and removes no event a running test depends on.");
+    return out.join("\n");
+  }
+  for (const f of review.findings) {
+    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ""}: ` : "";
+    out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ""}${f.origin === "known" ? style.dim(" (already known)") : ""}: ${terminalSafe(f.message)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`, ...planChangeLines(f, terminalSafe));
+  }
+  for (const plan of review.plans) {
+    out.push("", `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(", "))}) ${terminalSafe(plan.file)}:${plan.line}`);
+    const checklist = checklistSummary(plan.checklist);
+    out.push(`  checklist: ${checklist.count}`);
+    for (const label of checklist.failing) out.push(`  [${style.red(" ")}] ${label}`);
+    const length = lengthSummary(plan.sizing);
+    if (length) out.push(`  length: ${terminalSafe(length.length)}${length.power ? `; power: ${terminalSafe(length.power)}` : ""}; details: plumbline size ${terminalSafe(plan.id)}`);
+    const missing = plan.events.filter((e) => !e.location).map((e) => e.event);
+    out.push(`  events: ${formatCount(plan.events.length - missing.length)} of ${formatCount(plan.events.length)} logged${missing.length ? ` (missing: ${terminalSafe(missing.join(", "))})` : ""}`);
+  }
+  return out.join("\n");
+}
+
 // src/core/review/report-schema.ts
 var location = external_exports.object({ file: external_exports.string(), line: external_exports.number().int().positive(), column: external_exports.number().int().positive() });
 var severity = external_exports.enum(["block", "warn", "note"]);
@@ -36925,7 +36962,10 @@ var reviewReportSchema = external_exports.object({
       plan: external_exports.string().optional(),
       file: external_exports.string().optional(),
       line: external_exports.number().int().positive().optional(),
-      origin: external_exports.enum(["introduced", "known"]).describe("introduced: this change brought it; known: the same finding already held for the plan at the base commit")
+      origin: external_exports.enum(["introduced", "known"]).describe("introduced: this change brought it; known: the same finding already held for the plan at the base commit"),
+      changes: external_exports.array(external_exports.object({ field: external_exports.string(), before: external_exports.string(), after: external_exports.string() })).optional().describe("Frozen-plan findings: each changed field of a started test\u2019s plan, as written at the base commit and at head."),
+      amendment: external_exports.object({ date: external_exports.string(), changed: external_exports.string(), reason: external_exports.string() }).optional().describe("plan-amended: the amendment the change records."),
+      dependents: external_exports.array(external_exports.string()).optional().describe("event-removed and test-ended-early: ids of the running tests that depend on what the change removes.")
     })
   ),
   plans: external_exports.array(
@@ -36955,7 +36995,7 @@ var reviewReportSchema = external_exports.object({
       }),
       power: external_exports.number(),
       window: external_exports.object({ start: external_exports.string().optional(), end: external_exports.string().optional() }),
-      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional() }))
+      events: external_exports.array(external_exports.object({ event: external_exports.string(), roles: external_exports.array(external_exports.string()), location: location.optional(), via: external_exports.enum(["call", "literal"]).optional(), mentionedAt: location.optional() }))
     })
   ),
   flags: external_exports.array(
@@ -36992,7 +37032,7 @@ function reviewJson(review) {
 }
 
 // src/run/review-change.ts
-var import_picomatch4 = __toESM(require_picomatch2(), 1);
+var import_picomatch5 = __toESM(require_picomatch2(), 1);
 
 // src/core/config/scan-files.ts
 var import_picomatch = __toESM(require_picomatch2(), 1);
@@ -37002,32 +37042,20 @@ function scanMatcher(scan) {
   return (path) => include(path) && !exclude(path);
 }
 
-// src/core/source/fields.ts
-function asDescription(expected) {
-  return `${expected.charAt(0).toUpperCase()}${expected.slice(1)}.`;
+// src/core/plan/declared-flags.ts
+var import_yaml = __toESM(require_dist(), 1);
+function declaredFlags(text2) {
+  if (text2 === void 0) return [];
+  let value;
+  try {
+    value = (0, import_yaml.parse)(text2, { maxAliasCount: 100, uniqueKeys: false });
+  } catch {
+    return [];
+  }
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return [];
+  const flags = value.flags;
+  return Array.isArray(flags) ? flags.filter((f) => typeof f === "string") : [];
 }
-var text = (expected) => external_exports.string({ error: expected }).trim().min(1, { error: expected }).describe(asDescription(expected));
-var optionalText = (expected) => text(expected).optional();
-var NAME_MAX_LENGTH = 100;
-var kebabName = (expected) => external_exports.string({ error: expected }).max(NAME_MAX_LENGTH, { error: `${expected}, at most ${NAME_MAX_LENGTH} characters long` }).regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: expected }).describe(asDescription(expected));
-var openShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lt(1, { error: expected }).describe(asDescription(expected));
-var positiveShare = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).lte(1, { error: expected }).describe(asDescription(expected));
-var positiveNumber = (expected) => external_exports.number({ error: expected }).gt(0, { error: expected }).describe(asDescription(expected));
-var nonNegativeNumber = (expected) => external_exports.number({ error: expected }).gte(0, { error: expected }).describe(asDescription(expected));
-var finiteNumber = (expected) => external_exports.number({ error: expected }).describe(asDescription(expected));
-var wholeNumber = (expected, min, max) => external_exports.number({ error: expected }).int({ error: expected }).gte(min, { error: expected }).lte(max, { error: expected }).describe(asDescription(expected));
-var CALENDAR_DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
-function isCalendarDate(value) {
-  const match = CALENDAR_DATE.exec(value);
-  if (!match) return false;
-  const [year, month, day] = [Number(match[1]), Number(match[2]), Number(match[3])];
-  const date5 = new Date(Date.UTC(year, month - 1, day));
-  return date5.getUTCFullYear() === year && date5.getUTCMonth() === month - 1 && date5.getUTCDate() === day;
-}
-var calendarDate = (expected) => external_exports.string({ error: expected }).regex(CALENDAR_DATE, { error: expected }).refine(isCalendarDate, { error: `${expected}, on a day that exists in the calendar` }).describe(asDescription(expected));
-var uniqueList = (item, expected, min = 0, fewMessage = expected) => external_exports.array(item, { error: expected }).min(min, { error: fewMessage }).refine((items) => new Set(items.map((i) => JSON.stringify(i))).size === items.length, {
-  error: `${expected}, each listed once`
-}).describe(asDescription(expected));
 
 // src/core/stats/distributions.ts
 var import_jstat = __toESM(require_jstat(), 1);
@@ -37352,13 +37380,15 @@ var figure = external_exports.strictObject(
 ).describe("The primary metric\u2019s figures for one treatment arm.");
 var outcomeSchema = external_exports.strictObject(
   {
-    class: outcomeClass.describe("The class the registered rule gave, as computed by the readout."),
+    class: outcomeClass.optional().describe("The class the registered rule gave, as computed by the readout."),
     arms: external_exports.array(kebabName("an arm name, e.g. treatment"), { error: "a list of arm names" }).default([]).describe("The arms the class names (the winners of a win)."),
-    "data-through": calendarDate("the last day of the data read, written YYYY-MM-DD"),
+    "data-through": calendarDate("the last day of the data read, written YYYY-MM-DD").optional(),
     totals: text("the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml").optional(),
     "read-early": external_exports.boolean({ error: "true or false" }).optional().describe("True when the data ended before the planned end."),
     figures: external_exports.array(figure, { error: "a list of figures" }).default([]).describe("The primary metric\u2019s figures per treatment arm."),
-    "decided-by": text("who decided, e.g. @ana-lima"),
+    "decided-by": text("who decided, e.g. @ana-lima").optional(),
+    date: calendarDate("the date the test was decided, written YYYY-MM-DD, e.g. 2026-12-01").optional(),
+    reason: text("the decision and why, in a sentence, e.g. stopped: checkout errors doubled").optional(),
     "recorded-on": calendarDate("the day the outcome was recorded, written YYYY-MM-DD").optional(),
     override: external_exports.strictObject(
       {
@@ -37369,8 +37399,8 @@ var outcomeSchema = external_exports.strictObject(
       { error: "a mapping with class, ship and reason" }
     ).optional().describe("A decision that departs from the registered rule, with its reason; reviewers judge it first.")
   },
-  { error: "an outcome: a mapping with class, data-through, figures and decided-by" }
-).describe("The recorded outcome of the test: written by plumbline readout --record after the readout.");
+  { error: "an outcome: a mapping with class, data-through, figures and decided-by (from plumbline readout --record), or date and reason" }
+).refine((o) => o.class !== void 0 || o.reason !== void 0, { error: "an outcome needs the readout\u2019s class (plumbline readout --record) or a one-line reason, e.g. reason: stopped, checkout errors doubled" }).describe("The recorded outcome of the test: written by plumbline readout --record after the readout.");
 
 // src/core/plan/schema.ts
 var PLAN_STATES = ["draft", "live", "on-hold", "concluded"];
@@ -37540,6 +37570,17 @@ var populationSchema = external_exports.strictObject(
   },
   { error: "a mapping with platforms, locales, regions, segment and ready" }
 ).default({ platforms: [], locales: [], regions: [], ready: { platforms: [], locales: [] } }).describe("Who is eligible: platforms, locales, regions and segment.");
+var amendmentsSchema = external_exports.array(
+  external_exports.strictObject(
+    {
+      date: calendarDate("the date of the amendment written YYYY-MM-DD, e.g. 2026-11-20"),
+      changed: text("what changed, in a sentence, e.g. guardrail order-errors tolerance 1% -> 2%"),
+      reason: text("why the change was needed, in a sentence")
+    },
+    { error: "an amendment: { date: 2026-11-20, changed: ..., reason: ... }" }
+  ),
+  { error: "a list of amendments, each with date, changed and reason" }
+).default([]).describe("Changes made after the test started, oldest first: date, what changed and why. Append only.");
 var writtenPlanSchema = external_exports.strictObject({
   id: planId,
   title: text("a short title, e.g. Saved wallets shown before card entry"),
@@ -37653,6 +37694,7 @@ var writtenPlanSchema = external_exports.strictObject({
   "bundle-rationale": optionalText("why several changes or flags are tested together").describe(
     "Required when the plan bundles several flags or changes."
   ),
+  amendments: amendmentsSchema,
   notes: optionalText("free text"),
   outcome: outcomeSchema.optional()
 }, { error: "a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics" }).describe("A Plumbline experiment plan.");
@@ -37732,6 +37774,7 @@ var planSchema = writtenPlanSchema.transform((written, ctx) => {
     },
     sensitive: written.sensitive,
     ...written["bundle-rationale"] ? { bundleRationale: written["bundle-rationale"] } : {},
+    amendments: written.amendments,
     ...written.notes ? { notes: written.notes } : {},
     ...written.outcome ? { outcome: written.outcome } : {}
   };
@@ -37774,7 +37817,8 @@ var writtenEntry = external_exports.strictObject(
     surface: surfaceSchema,
     population: populationSchema,
     "traffic-share": external_exports.number({ error: "the share of eligible units enrolled, in (0, 1]" }).gt(0, { error: "a share in (0, 1]" }).lte(1, { error: "a share in (0, 1]" }).optional(),
-    events: uniqueList(eventName, "a list of logging events the test depends on").default([])
+    events: uniqueList(eventName, "a list of logging events the test depends on").default([]),
+    amendments: amendmentsSchema
   },
   { error: "a test entry with id, title, owners, state, flags, window and surface" }
 );
@@ -37793,7 +37837,8 @@ var registrySchema = writtenRegistrySchema.transform(
     surface: normalizeSurface(entry.surface),
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry["traffic-share"] ?? 1,
-    events: entry.events
+    events: entry.events,
+    amendments: entry.amendments
   }))
 );
 function eventsOfPlan(plan) {
@@ -37813,6 +37858,7 @@ function entryFromPlan(plan, file2, line) {
     population: { platforms: plan.population.platforms, locales: plan.population.locales, regions: plan.population.regions },
     trafficShare: plan.design.trafficShare,
     events: eventsOfPlan(plan),
+    amendments: plan.amendments,
     file: file2,
     line,
     plan
@@ -38613,7 +38659,7 @@ function runRules(value, source, rules) {
 }
 
 // src/core/source/yaml-source.ts
-var import_yaml = __toESM(require_dist(), 1);
+var import_yaml2 = __toESM(require_dist(), 1);
 
 // src/core/source/yaml-messages.ts
 var fixed = (message, expected) => () => ({ message, expected });
@@ -38743,8 +38789,8 @@ function readYaml(text2, file2, limits, codePrefix) {
   if (bytes > limits.maxBytes) {
     return fail2(1, 1, "too-large", `the file is ${bytes} bytes, over the limit of ${limits.maxBytes} bytes`, "a smaller file (split it, or remove pasted data)");
   }
-  const lineCounter = new import_yaml.LineCounter();
-  const tokens = Array.from(new import_yaml.Parser(lineCounter.addNewLine).parse(text2));
+  const lineCounter = new import_yaml2.LineCounter();
+  const tokens = Array.from(new import_yaml2.Parser(lineCounter.addNewLine).parse(text2));
   const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
   if (tooDeepAt !== void 0) {
     const pos = lineCounter.linePos(tooDeepAt);
@@ -38756,7 +38802,7 @@ function readYaml(text2, file2, limits, codePrefix) {
       `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`
     );
   }
-  const composer = new import_yaml.Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
+  const composer = new import_yaml2.Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
   let doc;
   let secondDocumentAt;
   for (const composed of composer.compose(tokens, true, text2.length)) {
@@ -38781,11 +38827,11 @@ function readYaml(text2, file2, limits, codePrefix) {
     return fail2(pos.line, pos.col, "bad-yaml", `this is not valid YAML: ${explained.message}`, explained.expected);
   }
   let complexKeyAt;
-  (0, import_yaml.visit)(doc, {
+  (0, import_yaml2.visit)(doc, {
     Pair(_, pair2) {
-      if (pair2.key !== null && !(0, import_yaml.isScalar)(pair2.key)) {
+      if (pair2.key !== null && !(0, import_yaml2.isScalar)(pair2.key)) {
         complexKeyAt = pair2.key.range?.[0] ?? 0;
-        return import_yaml.visit.BREAK;
+        return import_yaml2.visit.BREAK;
       }
       return void 0;
     }
@@ -38828,9 +38874,9 @@ function readYaml(text2, file2, limits, codePrefix) {
       },
       locateKey(path, key) {
         const { node: node2, depth } = walk2(path);
-        if (depth === path.length && (0, import_yaml.isMap)(node2)) {
-          const pair2 = node2.items.find((item) => (0, import_yaml.isScalar)(item.key) && String(item.key.value) === key);
-          const keyNode = pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : void 0;
+        if (depth === path.length && (0, import_yaml2.isMap)(node2)) {
+          const pair2 = node2.items.find((item) => (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === key);
+          const keyNode = pair2 && (0, import_yaml2.isScalar)(pair2.key) ? pair2.key : void 0;
           if (keyNode?.range) return at(keyNode.range[0]);
         }
         return at(node2?.range?.[0] ?? rootOffset);
@@ -38839,11 +38885,11 @@ function readYaml(text2, file2, limits, codePrefix) {
   };
 }
 function childOf(node2, segment) {
-  if ((0, import_yaml.isMap)(node2)) {
-    const pair2 = node2.items.find((item) => (0, import_yaml.isPair)(item) && (0, import_yaml.isScalar)(item.key) && String(item.key.value) === String(segment));
-    return pair2?.value ?? (pair2 && (0, import_yaml.isScalar)(pair2.key) ? pair2.key : null);
+  if ((0, import_yaml2.isMap)(node2)) {
+    const pair2 = node2.items.find((item) => (0, import_yaml2.isPair)(item) && (0, import_yaml2.isScalar)(item.key) && String(item.key.value) === String(segment));
+    return pair2?.value ?? (pair2 && (0, import_yaml2.isScalar)(pair2.key) ? pair2.key : null);
   }
-  if ((0, import_yaml.isSeq)(node2) && typeof segment === "number") {
+  if ((0, import_yaml2.isSeq)(node2) && typeof segment === "number") {
     return node2.items[segment] ?? null;
   }
   return null;
@@ -39355,6 +39401,12 @@ function collisionsOfLinked(context2) {
     ({ loaded }) => findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision }))
   );
 }
+function declaredBy(id, mine, other) {
+  const here = mine.includes(other.id);
+  const there = other.surface.overlapsWith.includes(id);
+  if (here && there) return "Both tests declare this overlap.";
+  return here ? `This plan declares the overlap; ${other.id} does not.` : `${other.id} declares the overlap; this plan does not.`;
+}
 var list = (values) => values === "all" ? "everyone" : values.join(", ");
 var percent = (share) => `${Math.round(share * 100)}%`;
 function isolationCost(subject, other) {
@@ -39379,7 +39431,7 @@ var collisionCheck = (context2) => collisionsOfLinked(context2).map(({ plan, col
   const when = c.overlapDays !== void 0 ? `${countOf(c.overlapDays, "day")} (${c.overlapWindow.start} to ${c.overlapWindow.end})` : "an unknown stretch (a window is not set)";
   const message = `Overlaps ${c.other.id} (${c.other.owners.join(", ")}) on ${where2} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
   const at = atPlanKey(linked.loaded, ["surface"]);
-  return c.known ? { code: "known-overlap", message: `${message} Both tests declare this overlap.`, fix: "Check for an interaction between the two when reading out.", ...at } : {
+  return c.known ? { code: "known-overlap", message: `${message} ${declaredBy(linked.loaded.plan.id, linked.loaded.plan.surface.overlapsWith, c.other)}`, fix: "Check for an interaction between the two when reading out.", ...at } : {
     code: "collision",
     message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
     fix: `Agree with ${c.other.owners.join(", ")} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
@@ -39535,9 +39587,369 @@ var bugFixUnmeasured = (context2) => {
   ];
 };
 
+// src/core/checks/test-lifecycle.ts
+function hasStarted(entry, today) {
+  if (entry.state === "concluded") return false;
+  if (entry.state === "live" || entry.state === "on-hold") return true;
+  return entry.window.start !== void 0 && entry.window.start <= today;
+}
+function collectingSince(entry, today) {
+  return entry.window.start !== void 0 ? entry.window.start <= today : entry.state === "live" || entry.state === "on-hold";
+}
+function hasOutcome(entry) {
+  return entry.state === "concluded" && (entry.plan === void 0 || entry.plan.outcome !== void 0);
+}
+var ownersOf = (entry) => entry.owners.join(", ");
+
+// src/core/checks/ended-early.ts
+function removedReads(touches) {
+  const removed = /* @__PURE__ */ new Map();
+  for (const t of touches) if (t.side === "removed" && (t.via === "call" || t.via === "constant") && !removed.has(t.key)) removed.set(t.key, t);
+  return removed;
+}
+var stillRead = (context2, key) => {
+  const hits = context2.flagsAtHead.get(key);
+  return hits?.firstCall !== void 0 || hits?.firstQuoted !== void 0;
+};
+function finding(before, after, keys, where2, today) {
+  const flags = keys.map((k) => `\`${k}\``).join(", ");
+  const end = after.window.end;
+  const base = { plan: after.id, file: where2.file, line: where2.line, dependents: [after.id] };
+  if (end !== void 0 && end < today) {
+    return {
+      code: "outcome-missing",
+      message: `This change removes the last read of ${flags}; ${after.id} (${ownersOf(after)}) passed its planned end on ${end}, but its plan records no outcome.`,
+      fix: `Record the outcome in ${after.file}: state: concluded and outcome: { date, reason } with the decision in one line.`,
+      ...base
+    };
+  }
+  const left = end !== void 0 ? `its planned end is ${end}, ${daysBetween(today, end)} day${daysBetween(today, end) === 1 ? "" : "s"} away` : "it has no planned end";
+  return {
+    code: "test-ended-early",
+    message: `This change removes the last read of ${flags}, which ${before.state === "live" ? "the running" : "the started"} test ${after.id} (${ownersOf(after)}) randomizes; ${left}. Hard-coding one arm ends the test early, and a result read before its planned end overstates the effect.`,
+    fix: `Keep the flag read until the planned end, or end the test on purpose: set state: concluded with an outcome (date and a one-line reason) in ${after.file}.`,
+    ...base
+  };
+}
+var endedEarly = (context2) => {
+  const removed = removedReads(context2.touches);
+  if (removed.size === 0) return [];
+  const head = new Map(context2.registry.entries.map((e) => [e.id, e]));
+  return context2.baseEntries.filter((before) => hasStarted(before, context2.today)).flatMap((before) => {
+    const gone = before.flags.filter((k) => removed.has(k) && !stillRead(context2, k));
+    const after = head.get(before.id) ?? before;
+    if (gone.length === 0 || hasOutcome(after)) return [];
+    return [finding(before, after, gone, removed.get(gone[0]), context2.today)];
+  });
+};
+
+// src/core/scan/comments.ts
+var HASH_ONLY = /\.(?:py|pyi|rb|sh|bash|zsh|ya?ml|toml|r|pl|pm|ex|exs|cr|nim|coffee|tf|cfg|ini|conf)$/i;
+var HASH_AND_SLASH = /\.(?:php)$/i;
+function commentSyntaxOf(path) {
+  if (HASH_ONLY.test(path)) return { slash: false, hash: true };
+  if (HASH_AND_SLASH.test(path)) return { slash: true, hash: true };
+  return { slash: true, hash: false };
+}
+var SLASH = 47;
+var STAR = 42;
+var HASH = 35;
+var NEWLINE = 10;
+var BACKSLASH = 92;
+var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+function commentRanges(length, at, syntax) {
+  const ranges = [];
+  let i = 0;
+  while (i < length) {
+    const c = at(i);
+    if (QUOTES.has(c)) {
+      const quote = c;
+      i++;
+      while (i < length) {
+        const d = at(i);
+        if (d === BACKSLASH) i += 2;
+        else if (d === quote) break;
+        else if (d === NEWLINE && quote !== 96) break;
+        else i++;
+      }
+      i++;
+    } else if (syntax.slash && c === SLASH && at(i + 1) === SLASH || syntax.hash && c === HASH) {
+      const start = i;
+      while (i < length && at(i) !== NEWLINE) i++;
+      ranges.push([start, i]);
+    } else if (syntax.slash && c === SLASH && at(i + 1) === STAR) {
+      const start = i;
+      i += 2;
+      while (i < length && !(at(i) === STAR && at(i + 1) === SLASH)) i++;
+      i = Math.min(length, i + 2);
+      ranges.push([start, i]);
+    } else i++;
+  }
+  return ranges;
+}
+function insideRanges(ranges, index) {
+  let lo = 0;
+  let hi = ranges.length - 1;
+  while (lo <= hi) {
+    const mid = lo + hi >> 1;
+    const [start, end] = ranges[mid];
+    if (index < start) hi = mid - 1;
+    else if (index >= end) lo = mid + 1;
+    else return true;
+  }
+  return false;
+}
+function commentsOfText(text2, path) {
+  return commentRanges(text2.length, (i) => text2.charCodeAt(i), commentSyntaxOf(path));
+}
+function commentsOfBytes(bytes, path) {
+  return commentRanges(bytes.length, (i) => bytes[i] ?? 0, commentSyntaxOf(path));
+}
+
+// src/core/scan/calls.ts
+function lineStarts(text2) {
+  const starts = [0];
+  for (let i = text2.indexOf("\n"); i !== -1; i = text2.indexOf("\n", i + 1)) starts.push(i + 1);
+  return starts;
+}
+function lineIndex(text2) {
+  const starts = lineStarts(text2);
+  return (offset) => {
+    let lo = 0;
+    let hi = starts.length - 1;
+    while (lo < hi) {
+      const mid = lo + hi + 1 >> 1;
+      if (starts[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo + 1;
+  };
+}
+function findCalls(text2, path, patterns) {
+  const comments = commentsOfText(text2, path);
+  const lineOf = lineIndex(text2);
+  const sites = [];
+  for (const pattern of patterns) {
+    pattern.lastIndex = 0;
+    for (const match of text2.matchAll(pattern)) {
+      const start = match.index;
+      if (insideRanges(comments, start)) continue;
+      const end = start + match[0].length;
+      const groups2 = { ...match.groups ?? {} };
+      const value = groups2.key ?? groups2.event ?? groups2.ident;
+      const valueAt2 = value !== void 0 ? start + match[0].lastIndexOf(value) : start;
+      const line = lineOf(start);
+      sites.push({ groups: groups2, line, endLine: lineOf(Math.max(start, end - 1)), valueLine: lineOf(valueAt2), column: start - text2.lastIndexOf("\n", start - 1), start, end });
+    }
+  }
+  return sites.sort((a, b) => a.start - b.start);
+}
+
+// src/core/scan/evidence.ts
+var TEST_FOLDER = /(?:^|\/)(?:test|tests|__tests__|spec|specs|e2e|fixtures?|__fixtures__|testdata|test-data|__mocks__|mocks?|stories|__snapshots__)\//i;
+var TEST_FILE = /(?:\.(?:test|spec|stories|e2e|cy)\.[^/]+$|_test\.(?:go|py|rb|exs?)$|(?:^|\/)test_[^/]+\.py$|(?:Tests?|Spec|IT)\.(?:java|kt|cs|swift|scala)$|\.snap$)/;
+var DOCS = /(?:(?:^|\/)(?:docs?|documentation)\/|\.(?:md|mdx|markdown|rst|adoc|txt|html?)$)/i;
+var GENERATED = /(?:(?:^|\/)(?:generated|__generated__|gen|dist|build|out|vendor)\/|\.(?:generated|gen|g|pb|min)\.[^/]+$|\.lock$|-lock\.json$)/i;
+function evidenceKindOf(path) {
+  if (TEST_FOLDER.test(path) || TEST_FILE.test(path)) return "test";
+  if (GENERATED.test(path)) return "generated";
+  if (DOCS.test(path)) return "docs";
+  return "code";
+}
+
+// src/core/scan/code-blocks.ts
+var CONTROL = /^(?:else\b|if\b|for\b|while\b|switch\b|catch\b|try\b|do\b|finally\b|case\b|elif\b|except\b|with\b|match\b)/;
+var FUNCTION_HEADER = /(?:\bfunction\b|=>\s*$|\bfunc\b|\bfn\b|\bdef\b|\)\s*(?::\s*[^=;{]+)?(?:\s*throws\s+[\w.,\s]+)?\s*$)/;
+var isPython = (path) => /\.pyi?$/i.test(path);
+function blocksOf(text2, path) {
+  return isPython(path) ? indentBlocks(text2) : braceBlocks(text2, path);
+}
+function braceBlocks(text2, path) {
+  const comments = commentsOfText(text2, path);
+  const blocks = [];
+  const stack = [];
+  let quote;
+  for (let i = 0; i < text2.length; i++) {
+    const c = text2[i];
+    if (quote) {
+      if (c === "\\") i++;
+      else if (c === quote || c === "\n" && quote !== "`") quote = void 0;
+      continue;
+    }
+    if (insideRanges(comments, i)) continue;
+    if (c === '"' || c === "'" || c === "`") quote = c;
+    else if (c === "{") stack.push(i);
+    else if (c === "}" && stack.length) {
+      const open2 = stack.pop();
+      blocks.push({ open: open2, close: i, ...headerBefore(text2, open2) });
+    }
+  }
+  return blocks.sort((a, b) => a.open - b.open);
+}
+function headerBefore(text2, open2) {
+  let start = open2 - 1;
+  while (start >= 0 && !";{}".includes(text2[start])) start--;
+  return { header: text2.slice(start + 1, open2).replace(/\s+/g, " ").trim(), headerStart: start + 1 };
+}
+function indentBlocks(text2) {
+  const lines = text2.split("\n");
+  const offsets = [];
+  let at = 0;
+  for (const line of lines) {
+    offsets.push(at);
+    at += line.length + 1;
+  }
+  const indent = (line) => line.length - line.trimStart().length;
+  const blocks = [];
+  lines.forEach((line, n) => {
+    const trimmed = line.trim();
+    if (!trimmed.endsWith(":") || trimmed.startsWith("#")) return;
+    const own2 = indent(line);
+    let end = n + 1;
+    for (let k = n + 1; k < lines.length; k++) {
+      if (lines[k].trim() === "" || lines[k].trim().startsWith("#")) continue;
+      if (indent(lines[k]) <= own2) break;
+      end = k + 1;
+    }
+    blocks.push({ open: offsets[n] + line.length, close: (offsets[end - 1] ?? 0) + (lines[end - 1]?.length ?? 0), header: trimmed.slice(0, -1), headerStart: offsets[n] });
+  });
+  return blocks;
+}
+function enclosing(blocks, offset) {
+  return blocks.filter((b) => b.open < offset && offset <= b.close);
+}
+var isFunctionHeader = (header) => !CONTROL.test(header) && FUNCTION_HEADER.test(header);
+var isControlHeader = (header) => CONTROL.test(header);
+function enclosingFunction(blocks, offset) {
+  return enclosing(blocks, offset).filter((b) => isFunctionHeader(b.header)).at(-1);
+}
+
+// src/core/scan/exposure-branch.ts
+function assignedName(text2, read) {
+  const before = text2.slice(text2.lastIndexOf("\n", read.start - 1) + 1, read.start);
+  return /(?:^|[^\w$.])([A-Za-z_$][\w$]*)\s*(?::\s*[^=]+)?\s*:?=\s*(?:await\s+)?[\w$.]*$/.exec(before)?.[1];
+}
+function conditionsOf(text2, blocks, block) {
+  const chain = [block];
+  let current = block;
+  while (/^else\b/.test(current.header)) {
+    const previous = blocks.filter((b) => b.close < current.open && /^[\s}]*$/.test(text2.slice(b.close + 1, current.open).replace(/\belse\b/, ""))).at(-1);
+    if (!previous) break;
+    chain.push(previous);
+    current = previous;
+  }
+  return chain;
+}
+function exposureInOneArm(text2, path, reads, exposures) {
+  if (reads.length === 0 || exposures.length === 0) return [];
+  const blocks = blocksOf(text2, path);
+  const lineOf = lineIndex(text2);
+  const lineText = (offset) => {
+    const start = text2.lastIndexOf("\n", offset - 1) + 1;
+    const end = text2.indexOf("\n", offset);
+    return text2.slice(start, end === -1 ? text2.length : end).trim();
+  };
+  const at = (offset) => ({ line: lineOf(offset), text: lineText(offset) });
+  const found = [];
+  for (const log of exposures) {
+    const fn = enclosingFunction(blocks, log.start);
+    const read = reads.filter((r) => r.start < log.start && enclosingFunction(blocks, r.start) === fn).at(-1);
+    if (!read) continue;
+    const name = assignedName(text2, read);
+    const named = name !== void 0 ? new RegExp(`(?<![\\w$.])${name.replace(/\$/g, "\\$")}(?![\\w$])`) : void 0;
+    const mentions = (b) => read.start >= b.headerStart && read.start < b.open || (named?.test(b.header) ?? false);
+    const inner = enclosing(blocks, log.start).filter((b) => (!fn || b.open > fn.open) && isControlHeader(b.header));
+    const branch = inner.map((b) => conditionsOf(text2, blocks, b).find(mentions)).find((b) => b !== void 0);
+    if (branch) {
+      found.push({ kind: "branch", exposure: at(log.start), flag: at(read.start), condition: at(Math.max(branch.headerStart, branch.open - 1)) });
+      continue;
+    }
+    const between = text2.slice(read.end, log.start);
+    const condition = name ?? "";
+    const oneLine2 = new RegExp(`\\bif\\b[^\\n]*(?<![\\w$.])${condition.replace(/\$/g, "\\$")}(?![\\w$])[^\\n]*?(?:\\)|:)\\s*(?:\\{\\s*)?(?:\\n\\s*)?(?:return|throw|raise)\\b`);
+    const early = name ? oneLine2.exec(between) : null;
+    if (early) found.push({ kind: "early-return", exposure: at(log.start), flag: at(read.start), condition: at(read.end + early.index) });
+  }
+  return found;
+}
+
+// src/core/scan/patterns.ts
+var Q = `(?<q>["'\`])`;
+var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
+var IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
+var TYPES = "(?:Boolean|String|Number|Integer|Int|Double|Float|Object)";
+var TYPES_SNAKE = "(?:boolean|string|number|integer|float|object)";
+var either = (prefix) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
+var BUILTIN_FLAG_PATTERNS = [
+  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
+  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
+  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
+  // Python: client.get_boolean_value("key", False)
+  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
+  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
+  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
+  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
+  // The first argument is the context: a name or a call without arguments (context.Background()).
+  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
+  // React: useBooleanFlagValue('key', false), useFlag('key', default)
+  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
+  // Helpers many codebases write around their flag client.
+  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
+];
+var BUILTIN_LOG_PATTERNS = [
+  `(?:\\b|\\.)(?:[Tt]rack|[Tt]rackEvent|track_event|[Ll]ogEvent|log_event|[Ee]vent|[Cc]apture|[Ee]mit|[Rr]ecord|[Rr]ecordEvent|record_event)(?:Async)?\\s*\\(\\s*(?:(?:ctx|context|context\\.\\w+\\(\\))\\s*,\\s*)?(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
+];
+var CONSTANT_VALUE = new RegExp(`\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "uy");
+var IDENT_CHAR = /[\w$.]/u;
+function constantValue(text2, name) {
+  if (name === "") return void 0;
+  for (let at = text2.indexOf(name); at >= 0; at = text2.indexOf(name, at + 1)) {
+    if (at > 0 && IDENT_CHAR.test(text2.charAt(at - 1))) continue;
+    CONSTANT_VALUE.lastIndex = at + name.length;
+    const key = CONSTANT_VALUE.exec(text2)?.groups?.key;
+    if (key !== void 0) return key;
+  }
+  return void 0;
+}
+var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
+function compilePatterns(patterns) {
+  return patterns.map((p) => new RegExp(p, "gu"));
+}
+function flagPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
+}
+function logPatternsOf(settings) {
+  return compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
+}
+
+// src/core/checks/exposure-arms.ts
+var exposureOneArm = (context2) => {
+  const flagPatterns = flagPatternsOf(context2.settings);
+  const logPatterns = logPatternsOf(context2.settings);
+  return context2.linked.flatMap(({ loaded }) => {
+    const { plan } = loaded;
+    const event = plan.exposure.event;
+    if (!event) return [];
+    const keys = new Set(plan.flags);
+    return [...context2.codeAtHead].flatMap(([path, text2]) => {
+      if (evidenceKindOf(path) !== "code" || !text2.includes(event)) return [];
+      const reads = findCalls(text2, path, flagPatterns).filter((s) => s.groups.key !== void 0 && keys.has(s.groups.key));
+      const exposures = findCalls(text2, path, logPatterns).filter((s) => s.groups.event === event);
+      return exposureInOneArm(text2, path, reads, exposures).map((found) => ({
+        code: "exposure-one-arm",
+        message: `Exposure event \`${event}\` is logged ${found.kind === "branch" ? "inside a branch on" : "after an early return on"} the value of ${plan.flags.map((f) => `\`${f}\``).join(", ")}, so some arms never log it: line ${found.flag.line} \`${found.flag.text}\`, line ${found.condition.line} \`${found.condition.text}\`, line ${found.exposure.line} \`${found.exposure.text}\`. The arms are then compared over different people (a classic cause of sample ratio mismatch).`,
+        fix: "Log exposure where the arms first differ, in every arm, control included: right after the flag is read, before any branch or return on its value.",
+        plan: plan.id,
+        file: path,
+        line: found.exposure.line
+      }));
+    });
+  });
+};
+
 // src/core/checks/flags.ts
-var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
-  const planned = new Set(registry2.entries.flatMap((e) => e.flags));
+var flagWithoutPlan = ({ touches, registry: registry2, settings, invalidPlanFiles }) => {
+  const planned = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...invalidPlanFiles.flatMap((f) => f.flags ?? [])]);
   const exempt = new Set(settings.exemptFlags);
   const reported = /* @__PURE__ */ new Set();
   return touches.filter((t) => !planned.has(t.key) && !exempt.has(t.key) && !reported.has(t.key) && reported.add(t.key)).map((t) => ({
@@ -39547,6 +39959,150 @@ var flagWithoutPlan = ({ touches, registry: registry2, settings }) => {
     file: t.file,
     line: t.line
   }));
+};
+
+// src/core/plan/compare.ts
+var NOT_SET = "(not set)";
+function showValue(value) {
+  if (value === void 0 || value === null) return NOT_SET;
+  if (typeof value === "string") return value;
+  if (typeof value === "number" || typeof value === "boolean") return String(value);
+  if (Array.isArray(value)) return `[${value.map(showValue).join(", ")}]`;
+  const entries = Object.entries(value).filter(([, v]) => v !== void 0);
+  return `{ ${entries.map(([k, v]) => `${k}: ${showValue(v)}`).join(", ")} }`;
+}
+function metricFields(prefix, metric2, withBaseline, into) {
+  into.set(`${prefix}.name`, metric2.name);
+  into.set(`${prefix}.kind`, metric2.kind);
+  into.set(`${prefix}.events`, metric2.events);
+  into.set(`${prefix}.direction`, metric2.direction);
+  if (metric2.tolerance) into.set(`${prefix}.tolerance`, metric2.tolerance);
+  if (withBaseline) into.set(`${prefix}.baseline`, metric2.baseline);
+}
+function decisiveFields(plan, started) {
+  const fields = /* @__PURE__ */ new Map();
+  metricFields("metrics.primary", plan.metrics.primary, started, fields);
+  fields.set("metrics.guardrails", plan.metrics.guardrails.map((g) => g.name));
+  for (const guardrail of plan.metrics.guardrails) metricFields(`metrics.guardrails[${guardrail.name}]`, guardrail, started, fields);
+  fields.set("hypothesis.expected-direction", plan.hypothesis.direction);
+  fields.set("design.min-detectable-effect", plan.design.minDetectableEffect);
+  fields.set("design.alpha", plan.design.alpha);
+  fields.set("design.power", plan.design.power);
+  fields.set("design.sides", plan.design.sides);
+  fields.set("design.arms", plan.design.arms);
+  fields.set("design.control", plan.design.control);
+  fields.set("design.interim-looks", plan.design.interimLooks);
+  fields.set("design.interim-boundary", plan.design.interimBoundary);
+  fields.set("unit.randomization", plan.unit.randomization);
+  fields.set("unit.analysis", plan.unit.analysis);
+  fields.set("exposure.event", plan.exposure.event);
+  fields.set("decisions.win", plan.decisions.win);
+  fields.set("decisions.flat", plan.decisions.flat);
+  fields.set("decisions.loss", plan.decisions.loss);
+  fields.set("decisions.guardrail-breach", plan.decisions.guardrailBreach);
+  fields.set("decisions.launch-regardless", plan.decisions.launchRegardless?.reason);
+  fields.set("window.start", plan.window.start);
+  return fields;
+}
+function decisiveEntryFields(entry) {
+  return /* @__PURE__ */ new Map([
+    ["window.start", entry.window.start],
+    ["flags", entry.flags],
+    ["events", entry.events],
+    ["traffic-share", entry.trafficShare]
+  ]);
+}
+function changedFields(before, after) {
+  const changes = [];
+  for (const field2 of /* @__PURE__ */ new Set([...before.keys(), ...after.keys()])) {
+    const was = showValue(before.get(field2));
+    const now = showValue(after.get(field2));
+    if (was !== now) changes.push({ field: field2, before: was, after: now });
+  }
+  return changes;
+}
+
+// src/core/checks/frozen-plan.ts
+function appendedAmendments(before, after) {
+  const rewritten = after.length < before.length || before.some((a, i) => JSON.stringify(a) !== JSON.stringify(after[i]));
+  return { added: rewritten ? [] : after.slice(before.length), rewritten };
+}
+function decisiveChanges(before, after, today) {
+  const baselineFrozen = collectingSince(before, today);
+  if (before.plan && after.plan) return changedFields(decisiveFields(before.plan, baselineFrozen), decisiveFields(after.plan, baselineFrozen));
+  return changedFields(decisiveEntryFields(before), decisiveEntryFields(after));
+}
+var startedOn = (entry) => entry.window.start ? `started on ${entry.window.start}` : `is ${entry.state}`;
+var listChanges = (changes) => changes.map((c) => `${c.field} (${c.before} \u2192 ${c.after})`).join("; ");
+function endMove(before, after) {
+  const was = before.window.end;
+  const now = after.window.end;
+  if (was === now || was === void 0) return void 0;
+  const later = now === void 0 || now > was;
+  if (!later && (after.plan?.design.interimLooks ?? 0) > 0) return void 0;
+  return { field: "window.end", before: showValue(was), after: showValue(now) };
+}
+function reviewOne(before, after, today) {
+  const where2 = { plan: after.id, file: after.file, line: after.line };
+  const { added, rewritten } = appendedAmendments(before.amendments, after.amendments);
+  const changes = decisiveChanges(before, after, today);
+  if (rewritten) changes.push({ field: "amendments", before: `${before.amendments.length} recorded`, after: "earlier entries edited or removed" });
+  const end = endMove(before, after);
+  const amendment = added.at(-1);
+  if (amendment && !rewritten && (changes.length || end)) {
+    const all = end ? [...changes, end] : changes;
+    return [
+      {
+        code: "plan-amended",
+        message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}; this change amends what decides its result (${all.map((c) => c.field).join(", ")}), recorded on ${amendment.date}: \u201C${amendment.changed}\u201D because \u201C${amendment.reason}\u201D.`,
+        fix: "Judge the amendment against the table: a result must not be chosen after seeing data. The readout must say the plan changed on this date.",
+        changes: all,
+        amendment,
+        ...where2
+      }
+    ];
+  }
+  const findings = [];
+  if (changes.length) {
+    findings.push({
+      code: "plan-frozen",
+      message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}, and this change alters what decides its result: ${listChanges(changes)}. Changing these after the start lets the result be chosen after the fact.`,
+      fix: `Put these fields back as they were. If a change is truly needed, append an entry under amendments: with date, changed and reason (reviewers then see a before/after table), or end ${after.id} and plan a new test.`,
+      changes,
+      ...where2
+    });
+  }
+  if (end) {
+    const later = end.after === showValue(void 0) || end.after > end.before;
+    findings.push({
+      code: "plan-end-moved",
+      message: later ? `${after.id} ${startedOn(before)}; this change moves its planned end from ${end.before} to ${end.after}. A later end changes the power the test was sized for and invites stopping when the numbers look good.` : `${after.id} ${startedOn(before)}; this change brings its planned end forward from ${end.before} to ${end.after}, and the plan has no interim looks, so the test ends with less power than planned.`,
+      fix: later ? "Keep the planned end, or record the reason under amendments: and read the result only at the new end." : "Keep the planned end, plan interim looks with a stopping boundary, or record the reason under amendments:.",
+      changes: [end],
+      ...where2
+    });
+  }
+  return findings;
+}
+function deleted(before) {
+  return {
+    code: "plan-deleted",
+    message: `This change deletes ${before.id} (${ownersOf(before)}) from ${before.file}, a test that ${startedOn(before)} and has no recorded outcome; its pre-registered plan is what its result will be judged against.`,
+    fix: `Keep the plan: set state: concluded with an outcome (date and a one-line reason) when the test is over.`,
+    plan: before.id,
+    file: before.file,
+    line: before.line
+  };
+}
+var frozenPlans = (context2) => {
+  const head = new Map(context2.registry.entries.map((e) => [e.id, e]));
+  const unloadable = new Set(context2.invalidPlanFiles.map((f) => f.file));
+  return context2.baseEntries.filter((before) => hasStarted(before, context2.today)).flatMap((before) => {
+    const after = head.get(before.id);
+    if (after) return reviewOne(before, after, context2.today);
+    if (unloadable.has(before.file) || hasOutcome(before)) return [];
+    return [deleted(before)];
+  });
 };
 
 // src/core/checks/logging.ts
@@ -39561,24 +40117,27 @@ function eventStatuses(context2, planId2) {
   return eventsOfPlan(plan).map((event) => {
     const hits = context2.events.get(event);
     const location2 = hits?.firstCall ?? hits?.firstQuoted;
-    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {} };
+    const mentioned = !location2 && hits?.firstMention ? { mentionedAt: hits.firstMention } : {};
+    return { event, roles: roles.get(event) ?? [], ...location2 ? { location: location2, via: hits?.firstCall ? "call" : "literal" } : {}, ...mentioned };
   });
 }
 var eventMissing = (context2) => context2.linked.flatMap(
   ({ loaded }) => eventStatuses(context2, loaded.plan.id).filter((s) => !s.location).map((s) => ({
     code: "event-missing",
-    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
+    message: `Event \`${s.event}\` (${s.roles.join(", ")}) is not logged anywhere in the code at head${s.mentionedAt ? ` (only mentioned, in ${s.mentionedAt.file}:${s.mentionedAt.line}, which logs nothing)` : ""}, so the ${s.roles.includes("exposure") ? "exposure" : "metric"} cannot be computed.`,
     fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
     ...atPlanKey(loaded, s.roles[0] === "exposure" ? ["exposure", "event"] : [...metricPath(loaded.plan, s.roles[0] ?? ""), "events"])
   }))
 );
-function dependents(entries, event) {
-  return runningEntries(entries).filter((e) => e.events.includes(event));
+function dependents(entries, baseEntries, event) {
+  const byId = /* @__PURE__ */ new Map();
+  for (const e of [...runningEntries(entries), ...runningEntries(baseEntries)]) if (e.events.includes(event) && !byId.has(e.id)) byId.set(e.id, e);
+  return [...byId.values()];
 }
-var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...removedEvents].flatMap(([event, where2]) => {
+var eventRemoved = ({ removedEvents, events, registry: registry2, baseEntries }) => [...removedEvents].flatMap(([event, where2]) => {
   const still = events.get(event);
   if (still?.firstCall || still?.firstQuoted) return [];
-  const plans = dependents(registry2.entries, event);
+  const plans = dependents(registry2.entries, baseEntries, event);
   if (plans.length === 0) return [];
   return [
     {
@@ -39586,7 +40145,8 @@ var eventRemoved = ({ removedEvents, events, registry: registry2 }) => [...remov
       message: `This change removes the last logging of \`${event}\`, which running test${plans.length === 1 ? "" : "s"} ${plans.map((p) => `${p.id} (${p.owners.join(", ")})`).join(", ")} depend${plans.length === 1 ? "s" : ""} on.`,
       fix: "Keep logging the event, or agree with the owners to end or change those tests first.",
       file: where2.file,
-      line: where2.line
+      line: where2.line,
+      dependents: plans.map((p) => p.id)
     }
   ];
 });
@@ -39808,7 +40368,7 @@ function practiceFindings(plan, sizing, settings) {
 // src/core/checks/outcome.ts
 var outcomeRecorded = (context2) => context2.linked.flatMap(({ loaded, readout }) => {
   const outcome = loaded.plan.outcome;
-  if (!outcome) return [];
+  if (!outcome?.class) return [];
   const where2 = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
   if (!readout) {
     return [{ code: "outcome-mismatch", message: `${loaded.plan.id} records the outcome "${outcome.class}" without the totals file it was read from.`, fix: "Add outcome.totals (the arm-totals file) so the review can apply the rule to it, or run plumbline readout --record.", ...where2 }];
@@ -39826,6 +40386,178 @@ var outcomeRecorded = (context2) => context2.linked.flatMap(({ loaded, readout }
   }
   return [{ code: "outcome-mismatch", message: `${loaded.plan.id} ${what}.`, fix: "Record what the rule gives (plumbline readout --record), or add outcome.override with a reason.", ...where2 }];
 });
+
+// src/core/checks/treatment-change.ts
+var import_picomatch3 = __toESM(require_picomatch2(), 1);
+
+// src/core/scan/flag-files.ts
+var import_yaml3 = __toESM(require_dist(), 1);
+var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
+function flagDefinitions(text2) {
+  if (text2 === void 0) return /* @__PURE__ */ new Map();
+  let value;
+  try {
+    value = (0, import_yaml3.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
+  } catch {
+    return void 0;
+  }
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return void 0;
+  const record2 = value;
+  const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
+  return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
+}
+function isPlainKeyLine(line, key) {
+  const rest = line.trimStart();
+  return rest.startsWith(key) && rest.slice(key.length).trimStart().startsWith(":");
+}
+function flagDefinitionTouches(path, before, after) {
+  const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
+  const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
+  const lineOf = (text2, key) => {
+    if (!text2) return 1;
+    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || isPlainKeyLine(l, key));
+    return index < 0 ? 1 : index + 1;
+  };
+  const touches = [];
+  for (const [key, definition] of now) {
+    if (old.get(key) !== definition) touches.push({ key, file: path, line: lineOf(after, key), side: "added", via: "definition" });
+  }
+  for (const key of old.keys()) {
+    if (!now.has(key)) touches.push({ key, file: path, line: lineOf(before, key), side: "removed", via: "definition" });
+  }
+  return touches;
+}
+
+// src/core/scan/flag-touches.ts
+function findFlagTouches(inputs) {
+  const touches = [];
+  const seen = /* @__PURE__ */ new Set();
+  const add = (touch) => {
+    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
+    if (!seen.has(id)) {
+      seen.add(id);
+      touches.push(touch);
+    }
+  };
+  for (const diff of inputs.diffs) {
+    if (diff.binary) continue;
+    for (const side of ["added", "removed"]) {
+      const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
+      const text2 = inputs.textOf(side, file2);
+      const changed = new Set(diff[side].map((l) => l.line));
+      if (text2 !== void 0) {
+        for (const site of findCalls(text2, file2, inputs.patterns)) {
+          let touched = false;
+          for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
+          if (!touched) continue;
+          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
+          if (key) add({ key, file: file2, line: site.valueLine, side, via: site.groups.key ? "call" : "constant" });
+        }
+      } else {
+        for (const { line, text: lineText } of diff[side]) {
+          for (const pattern of inputs.patterns) {
+            pattern.lastIndex = 0;
+            for (const match of lineText.matchAll(pattern)) if (match.groups?.key) add({ key: match.groups.key, file: file2, line, side, via: "call" });
+          }
+        }
+      }
+      const comments = text2 !== void 0 ? commentsOfText(text2, file2) : [];
+      const lineStart = text2 !== void 0 ? lineStarts(text2) : [];
+      for (const { line, text: lineText } of diff[side]) {
+        for (const match of lineText.matchAll(QUOTED_STRING)) {
+          if (!inputs.knownKeys.has(match[2])) continue;
+          if (text2 !== void 0 && insideRanges(comments, (lineStart[line - 1] ?? 0) + match.index)) continue;
+          add({ key: match[2], file: file2, line, side, via: "literal" });
+        }
+      }
+    }
+  }
+  return touches;
+}
+function resolveConstant(text2, ident) {
+  if (!text2) return void 0;
+  const name = ident.slice(ident.lastIndexOf(".") + 1);
+  return constantValue(text2, name);
+}
+
+// src/core/checks/treatment-change.ts
+function treatmentLines(text2, path, read, spread2) {
+  const blocks = blocksOf(text2, path);
+  const holder = enclosingFunction(blocks, read.start) ?? enclosing(blocks, read.start).at(-1);
+  if (!holder) return { from: read.line - spread2, to: read.endLine + spread2 };
+  const lineOf = lineIndex(text2);
+  return { from: lineOf(holder.headerStart), to: lineOf(holder.close) };
+}
+function codeLines(text2, path, lines) {
+  const comments = commentsOfText(text2, path);
+  const all = text2.split("\n");
+  const starts = lineStarts(text2);
+  return new Set(
+    lines.filter((n) => {
+      const line = all[n - 1] ?? "";
+      const first = line.search(/\S/);
+      return first !== -1 && !insideRanges(comments, starts[n - 1] + first);
+    })
+  );
+}
+function changeNearRead(text2, path, lines, keys, patterns, spread2) {
+  if (text2 === void 0 || lines.length === 0) return void 0;
+  const reads = findCalls(text2, path, patterns).filter((s) => {
+    const key = s.groups.key ?? (s.groups.ident ? resolveConstant(text2, s.groups.ident) : void 0);
+    return key !== void 0 && keys.has(key);
+  });
+  if (reads.length === 0) return void 0;
+  const changed = codeLines(text2, path, lines);
+  for (const read of reads) {
+    const { from, to } = treatmentLines(text2, path, read, spread2);
+    const hit = [...changed].sort((a, b) => a - b).find((n) => n >= from && n <= to && (n < read.line || n > read.endLine));
+    if (hit !== void 0) return hit;
+  }
+  return void 0;
+}
+function codeChange(entry, file2, patterns, spread2) {
+  const keys = new Set(entry.flags);
+  const atHead = changeNearRead(file2.head, file2.path, file2.added, keys, patterns, spread2);
+  const atBase = atHead === void 0 ? changeNearRead(file2.base, file2.basePath, file2.removed, keys, patterns, spread2) : void 0;
+  if (atHead === void 0 && atBase === void 0) return void 0;
+  return {
+    code: "treatment-changed",
+    message: `This change edits the code around the read of ${entry.flags.map((k) => `\`${k}\``).join(", ")} (${atHead !== void 0 ? `line ${atHead}` : `line ${atBase} at the base commit`}), which the started test ${entry.id} (${ownersOf(entry)}) randomizes: people assigned before and after the change have had different treatments.`,
+    fix: `Ask ${ownersOf(entry)}: restart ${entry.id}, or record the change date under amendments: in its plan so the analysis can be split there.`,
+    plan: entry.id,
+    file: atHead !== void 0 ? file2.path : file2.basePath,
+    line: atHead ?? atBase
+  };
+}
+var treatmentChanged = (context2) => {
+  const patterns = flagPatternsOf(context2.settings);
+  const isFlagFile = (0, import_picomatch3.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const started = /* @__PURE__ */ new Map();
+  for (const e of context2.baseEntries) if (hasStarted(e, context2.today)) started.set(e.id, e);
+  const findings = [];
+  for (const entry of started.values()) {
+    for (const file2 of context2.changedCode) {
+      if (isFlagFile(file2.path) || evidenceKindOf(file2.path) !== "code") continue;
+      const found = codeChange(entry, file2, patterns, context2.settings.treatmentLines);
+      if (found) {
+        findings.push(found);
+        break;
+      }
+    }
+    const ramp = context2.touches.find((t) => t.via === "definition" && entry.flags.includes(t.key));
+    if (ramp) {
+      findings.push({
+        code: "treatment-changed",
+        message: `This change edits the definition of \`${ramp.key}\` in ${ramp.file} (arms, weights, rollout or targeting), which the started test ${entry.id} (${ownersOf(entry)}) randomizes; pooling data from before and after a ramp biases the result.`,
+        fix: `Ask ${ownersOf(entry)}: keep the allocation until the planned end, or restart ${entry.id} (or record the change date under amendments: and analyse the periods apart).`,
+        plan: entry.id,
+        file: ramp.file,
+        line: ramp.line
+      });
+    }
+  }
+  return findings;
+};
 
 // src/core/checks/unit.ts
 var spillover = ({ linked, settings }) => linked.flatMap(({ loaded }) => {
@@ -39852,9 +40584,12 @@ var analysisUnitDiffers = ({ linked }) => linked.filter(({ loaded }) => loaded.p
 var CHECKS = [
   planInvalid,
   outcomeRecorded,
+  frozenPlans,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
+  endedEarly,
+  treatmentChanged,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,
@@ -39866,6 +40601,7 @@ var CHECKS = [
   analysisUnitDiffers,
   collisionCheck,
   eventMissing,
+  exposureOneArm,
   bugFixUnmeasured
 ];
 
@@ -39902,6 +40638,14 @@ var FINDING_CODES = {
   "severity-unknown-code": { severity: "warn", about: "the settings name a finding code that does not exist" },
   "outcome-mismatch": { severity: "block", about: "a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override" },
   "outcome-override": { severity: "warn", about: "a recorded outcome departs from the registered rule with an override and a reason to judge" },
+  "plan-frozen": { severity: "block", about: "a started test\u2019s plan changes what decides its result without an amendment" },
+  "plan-amended": { severity: "note", about: "a started test\u2019s plan changes what decides its result and records why (shown before and after)" },
+  "plan-deleted": { severity: "block", about: "the change deletes the plan of a started test that has no outcome" },
+  "plan-end-moved": { severity: "warn", about: "a started test\u2019s planned end moves later, or earlier without interim looks" },
+  "test-ended-early": { severity: "block", about: "the change removes the last read of a started test\u2019s flag before its planned end, with no outcome recorded" },
+  "outcome-missing": { severity: "note", about: "the change removes the flag of a test past its planned end whose outcome is not recorded" },
+  "exposure-one-arm": { severity: "warn", about: "the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm" },
+  "treatment-changed": { severity: "warn", about: "code around a started test\u2019s flag read, or its flag definition, changes mid-test" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
@@ -39913,7 +40657,7 @@ var CHECKLIST = [
   { label: "One primary metric and at least one guardrail", codes: ["guardrails-missing"] },
   { label: "Planned end, at least a week, in whole weeks", codes: ["end-missing", "window-short", "window-partial-week"] },
   { label: "Enough power by the planned end", codes: ["underpowered", "sizing-incomplete", "sizing-impossible", "not-feasible", "groups-short"] },
-  { label: "Exposure logged where the change is seen", codes: ["exposure-diluted"] },
+  { label: "Exposure logged in every arm where the change is seen (the logging call read against the flag read, not only the plan\u2019s reach)", codes: ["exposure-diluted", "exposure-one-arm"] },
   { label: "Randomization unit fits the surface", codes: ["spillover"] },
   { label: "No collision with a running test", codes: ["collision"] },
   { label: "Every event the plan names is logged in the code", codes: ["event-missing"] },
@@ -39955,10 +40699,10 @@ function buildReview(context2, change2, base) {
   }
   const known = knownAtBase(base);
   const findings = [];
-  for (const finding of raw) {
-    const severity2 = severityFor(finding.code, context2.settings.severity);
-    const origin = finding.plan !== void 0 && known.has(findingKey(finding)) ? "known" : "introduced";
-    if (severity2 !== "off") findings.push({ ...finding, severity: severity2, origin });
+  for (const finding2 of raw) {
+    const severity2 = severityFor(finding2.code, context2.settings.severity);
+    const origin = finding2.plan !== void 0 && known.has(findingKey(finding2)) ? "known" : "introduced";
+    if (severity2 !== "off") findings.push({ ...finding2, severity: severity2, origin });
   }
   const originOrder = (f) => f.origin === "introduced" ? 0 : 1;
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
@@ -40119,134 +40863,6 @@ function parseUnifiedDiff(text2) {
   return files.filter((f) => f.path !== "");
 }
 
-// src/core/scan/flag-files.ts
-var import_yaml2 = __toESM(require_dist(), 1);
-var DEFAULT_FLAG_FILES = ["**/flags.json", "**/*.flags.json", "**/*.flagd.json", "**/flags.yaml", "**/flags.yml", "**/*.flags.yaml", "**/*.flags.yml"];
-function flagDefinitions(text2) {
-  if (text2 === void 0) return /* @__PURE__ */ new Map();
-  let value;
-  try {
-    value = (0, import_yaml2.parse)(text2, { maxAliasCount: 100, logLevel: "silent" });
-  } catch {
-    return void 0;
-  }
-  if (value === null || typeof value !== "object" || Array.isArray(value)) return void 0;
-  const record2 = value;
-  const flags = record2.flags !== null && typeof record2.flags === "object" && !Array.isArray(record2.flags) ? record2.flags : record2;
-  return new Map(Object.entries(flags).map(([key, definition]) => [key, JSON.stringify(definition)]));
-}
-function isPlainKeyLine(line, key) {
-  const rest = line.trimStart();
-  return rest.startsWith(key) && rest.slice(key.length).trimStart().startsWith(":");
-}
-function flagDefinitionTouches(path, before, after) {
-  const old = flagDefinitions(before) ?? /* @__PURE__ */ new Map();
-  const now = flagDefinitions(after) ?? /* @__PURE__ */ new Map();
-  const lineOf = (text2, key) => {
-    if (!text2) return 1;
-    const index = text2.split("\n").findIndex((l) => l.includes(`"${key}"`) || l.includes(`'${key}'`) || isPlainKeyLine(l, key));
-    return index < 0 ? 1 : index + 1;
-  };
-  const touches = [];
-  for (const [key, definition] of now) {
-    if (old.get(key) !== definition) touches.push({ key, file: path, line: lineOf(after, key), side: "added", via: "definition" });
-  }
-  for (const key of old.keys()) {
-    if (!now.has(key)) touches.push({ key, file: path, line: lineOf(before, key), side: "removed", via: "definition" });
-  }
-  return touches;
-}
-
-// src/core/scan/patterns.ts
-var Q = `(?<q>["'\`])`;
-var KEY = `(?<key>[^"'\`\\s]+)\\k<q>`;
-var IDENT = `(?<ident>[A-Za-z_$][\\w$]*(?:\\.[A-Za-z_$][\\w$]*)*)\\s*[,)]`;
-var TYPES = "(?:Boolean|String|Number|Integer|Int|Double|Float|Object)";
-var TYPES_SNAKE = "(?:boolean|string|number|integer|float|object)";
-var either = (prefix) => [`${prefix}${Q}${KEY}`, `${prefix}${IDENT}`];
-var BUILTIN_FLAG_PATTERNS = [
-  // TypeScript/JavaScript, Java/Kotlin, PHP: client.getBooleanValue('key', false); C#: GetBooleanValueAsync("key", false);
-  // Swift: client.getBooleanValue(key: "key", defaultValue: false)
-  ...either(`\\b[Gg]et${TYPES}(?:Value|Details)(?:Async)?\\s*\\(\\s*(?:key\\s*:\\s*)?`),
-  // Python: client.get_boolean_value("key", False)
-  ...either(`\\bget_${TYPES_SNAKE}_(?:value|details)\\s*\\(\\s*(?:flag_key\\s*=\\s*)?`),
-  // Ruby: client.fetch_boolean_value(flag_key: "key", default_value: false)
-  ...either(`\\bfetch_${TYPES_SNAKE}_(?:value|details)\\s*\\(?\\s*(?:flag_key\\s*:\\s*)?`),
-  // Go: client.BooleanValue(ctx, "key", false, evalCtx).
-  // The first argument is the context: a name or a call without arguments (context.Background()).
-  ...either(`\\b(?:Boolean|String|Int|Float|Object)Value(?:Details)?\\s*\\(\\s*[A-Za-z_][\\w.]*(?:\\(\\))?\\s*,\\s*`),
-  // React: useBooleanFlagValue('key', false), useFlag('key', default)
-  ...either(`\\buse(?:${TYPES})?Flag(?:Value|Details)?\\s*\\(\\s*`),
-  // Helpers many codebases write around their flag client.
-  ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`)
-];
-var BUILTIN_LOG_PATTERNS = [
-  `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`
-];
-var CONSTANT_VALUE = new RegExp(`\\s*(?::\\s*[\\w<>\\[\\]]+\\s*)?(?:=|:)\\s*${Q}${KEY}`, "uy");
-var IDENT_CHAR = /[\w$.]/u;
-function constantValue(text2, name) {
-  if (name === "") return void 0;
-  for (let at = text2.indexOf(name); at >= 0; at = text2.indexOf(name, at + 1)) {
-    if (at > 0 && IDENT_CHAR.test(text2.charAt(at - 1))) continue;
-    CONSTANT_VALUE.lastIndex = at + name.length;
-    const key = CONSTANT_VALUE.exec(text2)?.groups?.key;
-    if (key !== void 0) return key;
-  }
-  return void 0;
-}
-var QUOTED_STRING = /(["'`])([^"'`\n]{1,200})\1/g;
-function compilePatterns(patterns) {
-  return patterns.map((p) => new RegExp(p, "gu"));
-}
-function flagPatternsOf(settings) {
-  return compilePatterns([...settings.builtinPatterns ? BUILTIN_FLAG_PATTERNS : [], ...settings.flagCalls]);
-}
-function logPatternsOf(settings) {
-  return compilePatterns([...settings.builtinPatterns ? BUILTIN_LOG_PATTERNS : [], ...settings.logCalls]);
-}
-
-// src/core/scan/flag-touches.ts
-function findFlagTouches(inputs) {
-  const touches = [];
-  const seen = /* @__PURE__ */ new Set();
-  const add = (touch) => {
-    const id = `${touch.key}\0${touch.file}\0${touch.line}\0${touch.side}`;
-    if (!seen.has(id)) {
-      seen.add(id);
-      touches.push(touch);
-    }
-  };
-  for (const diff of inputs.diffs) {
-    if (diff.binary) continue;
-    for (const side of ["added", "removed"]) {
-      const file2 = side === "removed" ? diff.previousPath ?? diff.path : diff.path;
-      for (const { line, text: text2 } of diff[side]) {
-        for (const pattern of inputs.patterns) {
-          pattern.lastIndex = 0;
-          for (const match of text2.matchAll(pattern)) {
-            const groups2 = match.groups ?? {};
-            if (groups2.key) add({ key: groups2.key, file: file2, line, side, via: "call" });
-            else if (groups2.ident) {
-              const key = resolveConstant(inputs.textOf(side, file2), groups2.ident);
-              if (key) add({ key, file: file2, line, side, via: "constant" });
-            }
-          }
-        }
-        for (const match of text2.matchAll(QUOTED_STRING)) {
-          if (inputs.knownKeys.has(match[2])) add({ key: match[2], file: file2, line, side, via: "literal" });
-        }
-      }
-    }
-  }
-  return touches;
-}
-function resolveConstant(text2, ident) {
-  if (!text2) return void 0;
-  const name = ident.slice(ident.lastIndexOf(".") + 1);
-  return constantValue(text2, name);
-}
-
 // src/core/scan/aho-corasick.ts
 function buildAutomaton(names) {
   const encoded = names.map((n) => new TextEncoder().encode(n));
@@ -40326,7 +40942,7 @@ function buildAutomaton(names) {
 }
 
 // src/core/scan/name-scan.ts
-var QUOTES = /* @__PURE__ */ new Set([34, 39, 96]);
+var QUOTES2 = /* @__PURE__ */ new Set([34, 39, 96]);
 function looksBinary(bytes) {
   return bytes.subarray(0, 8e3).indexOf(0) !== -1;
 }
@@ -40345,6 +40961,8 @@ function createNameScanner(names, callPatterns = []) {
       }
       files++;
       bytesSeen += bytes.length;
+      const product = evidenceKindOf(path) === "code";
+      let comments;
       let countedTo = 0;
       let line = 1;
       let lineStart = 0;
@@ -40363,9 +40981,18 @@ function createNameScanner(names, callPatterns = []) {
         const here = locate(start, end);
         h.first ??= here;
         const quote = bytes[start - 1];
-        if (quote === void 0 || !QUOTES.has(quote) || bytes[end + 1] !== quote) return;
+        if (quote === void 0 || !QUOTES2.has(quote) || bytes[end + 1] !== quote) return;
+        if (!product) {
+          h.firstMention ??= here;
+          return;
+        }
+        comments ??= commentsOfBytes(bytes, path);
+        if (insideRanges(comments, start)) {
+          h.firstMention ??= here;
+          return;
+        }
         h.firstQuoted ??= here;
-        if (!h.firstCall && callPatterns.length && isLoggedOnLine(bytes, lineStart, unique[name], callPatterns)) h.firstCall = here;
+        if (!h.firstCall && callPatterns.length && isLoggedAt(bytes, lineStart, start - 1, unique[name], callPatterns)) h.firstCall = here;
       });
     },
     results() {
@@ -40376,13 +41003,21 @@ function createNameScanner(names, callPatterns = []) {
     }
   };
 }
-function isLoggedOnLine(bytes, lineStart, name, patterns) {
-  let lineEnd = bytes.indexOf(10, lineStart);
+var CALL_LOOKBACK_LINES = 3;
+function isLoggedAt(bytes, lineStart, quoteAt, name, patterns) {
+  let from = lineStart;
+  for (let n = 0; n < CALL_LOOKBACK_LINES && from > 0; n++) from = from >= 2 ? bytes.lastIndexOf(10, from - 2) + 1 : 0;
+  let lineEnd = bytes.indexOf(10, quoteAt);
   if (lineEnd === -1) lineEnd = bytes.length;
-  const line = Buffer.from(bytes.buffer, bytes.byteOffset + lineStart, lineEnd - lineStart).toString("utf8");
+  const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length);
+  const window = buffer.toString("utf8", from, lineEnd);
+  const quoteIndex = buffer.toString("utf8", from, quoteAt).length;
   for (const pattern of patterns) {
     pattern.lastIndex = 0;
-    for (const match of line.matchAll(pattern)) if (match.groups?.event === name) return true;
+    for (const match of window.matchAll(pattern)) {
+      if (match.groups?.event !== name) continue;
+      if (match.index + match[0].lastIndexOf(name) - 1 === quoteIndex) return true;
+    }
   }
   return false;
 }
@@ -41280,6 +41915,103 @@ function sizingPolicy(settings) {
   };
 }
 
+// src/core/digest/build-digest.ts
+function estimateSampleReached(entry, today) {
+  if (!entry.plan || !entry.window.start) return void 0;
+  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
+  const headline2 = sizing?.result.ok ? sizing.result.value.headline : void 0;
+  const daily = entry.plan.design.dailyUnits;
+  if (!headline2 || daily === void 0) return void 0;
+  const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
+  const days = Math.max(0, inclusiveDays(entry.window.start, end));
+  const enrolled = days * daily * entry.plan.design.trafficShare;
+  return enrolled >= headline2.totalUnits;
+}
+function buildDigest(input2) {
+  const { registry: registry2, today, settings } = input2;
+  const items = [];
+  const item = (entry, kind, detail, extra = {}) => items.push({ kind, test: entry.id, title: entry.title, file: entry.file, line: entry.line, detail, ...extra });
+  const soon = addDays(today, settings.digest.endingSoonDays);
+  for (const entry of registry2.entries) {
+    const { start, end } = entry.window;
+    if (entry.state === "live" && end && end < today) {
+      const days = daysBetween(end, today);
+      const reached = estimateSampleReached(entry, today);
+      const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
+      item(entry, "overdue", `Past its planned end (${end}) by ${countOf(days, "day")}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
+    } else if (entry.state === "live" && end && end >= today && end <= soon) {
+      item(entry, "ending-soon", `Ends on ${end}, in ${countOf(daysBetween(today, end), "day")}: prepare the readout.`);
+    }
+    if (entry.state === "draft" && start && start < today) {
+      item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
+    }
+    if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
+      item(entry, "long-on-hold", `On hold, ${countOf(daysBetween(start, today), "day")} after its start: its units and surface stay reserved; resume or conclude it.`);
+    }
+    if (entry.plan && !entry.plan.outcome && (entry.state === "concluded" || entry.state === "on-hold" && end && end < today)) {
+      item(entry, "outcome-missing", `${entry.state === "concluded" ? "Concluded" : `On hold past its planned end (${end})`}, but no outcome is recorded: add outcome: { date, reason } with the decision in one line.`);
+    }
+    const stillRead2 = entry.flags.filter((f) => input2.flagsInCode.has(f));
+    if (entry.plan && entry.state === "concluded" && stillRead2.length) {
+      const since = entry.plan.outcome?.date ?? end;
+      const days = since !== void 0 && since <= today ? daysBetween(since, today) : void 0;
+      const where2 = input2.flagsInCode.get(stillRead2[0]);
+      item(
+        entry,
+        "concluded-flag-in-code",
+        `Concluded${days !== void 0 ? ` ${days} day${days === 1 ? "" : "s"} ago (${since})` : ""}, but its flag${stillRead2.length === 1 ? "" : "s"} ${stillRead2.join(", ")} ${stillRead2.length === 1 ? "is" : "are"} still read in the code (${where2.file}:${where2.line}): remove the flag and the code of the arm that lost.`,
+        days !== void 0 ? { daysSinceConclusion: days } : {}
+      );
+    }
+    if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
+      item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
+    }
+  }
+  const running = runningEntries(registry2.entries);
+  const seen = /* @__PURE__ */ new Set();
+  for (const entry of running) {
+    for (const c of findCollisions(entry, running)) {
+      const pair2 = [entry.id, c.other.id].sort().join(" ");
+      if (seen.has(pair2) || c.known) continue;
+      seen.add(pair2);
+      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${countOf(c.overlapDays, "day")}` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
+    }
+  }
+  const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
+  const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
+  const ORDER2 = ["overdue", "outcome-missing", "flag-gone", "collision", "concluded-flag-in-code", "draft-past-start", "long-on-hold", "ending-soon"];
+  const byTest = /* @__PURE__ */ new Map();
+  for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
+    const entry = registry2.entries.find((e) => e.id === it.test);
+    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
+    test.items.push(it);
+    byTest.set(it.test, test);
+  }
+  const counts = {
+    overdue: 0,
+    "ending-soon": 0,
+    "draft-past-start": 0,
+    "long-on-hold": 0,
+    "flag-gone": 0,
+    collision: 0,
+    "outcome-missing": 0,
+    "concluded-flag-in-code": 0,
+    live: running.length,
+    planned: registry2.entries.filter((e) => e.state === "draft").length,
+    orphanFlags: orphanFlags.length
+  };
+  for (const it of items) counts[it.kind]++;
+  const timeline = registry2.entries.filter((e) => (e.state === "live" || e.state === "draft" || e.state === "on-hold") && e.window.start && e.window.end).map((e) => ({ id: e.id, surface: e.surface.path, start: e.window.start, end: e.window.end, state: e.state, overdue: e.state === "live" && e.window.end < today })).sort((a, b) => a.surface.localeCompare(b.surface) || a.start.localeCompare(b.start));
+  return {
+    today,
+    counts,
+    // Insertion order is urgency order: a test comes where its most urgent item sorted.
+    tests: [...byTest.values()],
+    orphanFlags,
+    timeline
+  };
+}
+
 // src/core/config/schema.ts
 var SEVERITY_LEVELS = ["block", "warn", "note", "off"];
 function compiles(pattern) {
@@ -41385,6 +42117,7 @@ var writtenSettingsSchema = external_exports.strictObject(
       },
       { error: "a mapping of sizing settings" }
     ).default({ "guardrail-alpha": 0.05, "guardrail-power": 0.8, "guardrail-arm-correction": false, "longest-window-days": 56, "atypical-periods": [] }).describe("Sizing conventions: guardrails\u2019 error rates, the longest sensible window, atypical periods."),
+    "treatment-lines": external_exports.number({ error: "a whole number of lines from 0 to 200, e.g. 10" }).int({ error: "a whole number of lines, e.g. 10" }).min(0, { error: "a whole number of lines from 0 to 200" }).max(200, { error: "a whole number of lines from 0 to 200" }).default(10).describe("Around a running test\u2019s flag read, code changed within the enclosing function (or block) counts as a treatment change; for a read outside any function or block, this many lines above and below."),
     severity: external_exports.record(
       external_exports.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: "a finding code, e.g. plan-missing" }),
       external_exports.enum(SEVERITY_LEVELS, { error: `one of ${SEVERITY_LEVELS.join(", ")}` }),
@@ -41403,6 +42136,7 @@ var settingsSchema = writtenSettingsSchema.transform((w) => ({
   scan: w.scan,
   exemptFlags: w["exempt-flags"],
   severity: w.severity,
+  treatmentLines: w["treatment-lines"],
   bugFix: {
     enabled: w["bug-fix"].enabled,
     labels: w["bug-fix"].labels,
@@ -41452,14 +42186,14 @@ function loadSettings(text2, file2) {
 }
 
 // src/core/config/plan-files.ts
-var import_picomatch3 = __toESM(require_picomatch2(), 1);
+var import_picomatch4 = __toESM(require_picomatch2(), 1);
 var PLAN_EXTENSIONS = [".yaml", ".yml"];
 function planSearchRoots(entries) {
   return entries.map((raw) => {
     const entry = raw.replace(/^\.\//, "").replace(/\/+$/, "");
-    const scan = import_picomatch3.default.scan(entry);
+    const scan = import_picomatch4.default.scan(entry);
     if (scan.isGlob) {
-      const matcher = (0, import_picomatch3.default)(entry, { dot: false });
+      const matcher = (0, import_picomatch4.default)(entry, { dot: false });
       return { folder: scan.base, matches: (path) => isYamlFile(path) && matcher(path) };
     }
     if (isYamlFile(entry)) {
@@ -41608,6 +42342,50 @@ async function findPlanFiles(files, planPaths) {
   return [...found].sort();
 }
 
+// src/run/digest.ts
+function todayIn(timeZone, now) {
+  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+}
+async function flagsInCode(files, settings, skip) {
+  const patterns = flagPatternsOf(settings);
+  const inScope = scanMatcher(settings.scan);
+  const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
+  const found = /* @__PURE__ */ new Map();
+  const texts = await files.readTexts(paths);
+  paths.forEach((path, i) => {
+    const text2 = texts[i];
+    if (text2 === void 0 || text2.includes("\0")) return;
+    for (const site of findCalls(text2, path, patterns)) {
+      const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text2, site.groups.ident) : void 0);
+      if (key && !found.has(key)) found.set(key, { file: path, line: site.valueLine, column: site.column });
+    }
+  });
+  return found;
+}
+async function digestRepository(options) {
+  const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
+  const { settings } = workspace;
+  const skip = ownFilesOf(workspace);
+  const digest = buildDigest({
+    registry: workspace.registry,
+    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
+    settings,
+    flagsInCode: await flagsInCode(options.files, settings, skip)
+  });
+  return { digest, settings };
+}
+
+// src/run/load-base-plans.ts
+async function loadBaseEntries(change2, settingsPath) {
+  try {
+    const loaded = await loadWorkspace({ files: change2.filesAt("base"), ...settingsPath ? { settingsPath } : {} });
+    return loaded.ok ? loaded.workspace.registry.entries : [];
+  } catch (error62) {
+    if (error62 instanceof UsageError) return [];
+    throw error62;
+  }
+}
+
 // src/run/review-change.ts
 async function contextAtBase(change2, head, settingsPath) {
   const loaded = await loadWorkspace({ files: change2.filesAt("base"), ...settingsPath ? { settingsPath } : {} }).catch(() => void 0);
@@ -41615,7 +42393,7 @@ async function contextAtBase(change2, head, settingsPath) {
   const atBase = new Map(loaded.workspace.plans.map((p) => [p.plan.id, p]));
   const linked = head.linked.flatMap((l) => {
     const then = atBase.get(l.loaded.plan.id);
-    return then ? [{ loaded: then, reasons: l.reasons, sizing: sizePlan(then.plan) }] : [];
+    return then ? [{ loaded: then, reasons: l.reasons, sizing: finiteSizing(sizePlan(then.plan, sizingPolicy(head.settings))) }] : [];
   });
   return { ...head, linked, invalidPlanFiles: [], registry: loaded.workspace.registry };
 }
@@ -41627,6 +42405,8 @@ async function reviewChange(options) {
   if (!loaded.ok) return { kind: "settings-invalid", settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
   const { workspace } = loaded;
   const { settings } = workspace;
+  const baseEntries = loadBaseEntries(change2, options.settingsPath);
+  baseEntries.catch(() => void 0);
   const [changed, diffText] = await Promise.all([change2.changedFiles(), change2.diff()]);
   const diffs = parseUnifiedDiff(diffText);
   const changedPaths = new Set(changed.filter((f) => f.status !== "deleted").map((f) => f.path));
@@ -41635,7 +42415,7 @@ async function reviewChange(options) {
   const basePaths = textual.map((d) => d.previousPath ?? d.path);
   const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change2.filesAt("base").readTexts(basePaths)]);
   const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
-  const isFlagFile = (0, import_picomatch4.default)(DEFAULT_FLAG_FILES, { dot: true });
+  const isFlagFile = (0, import_picomatch5.default)(DEFAULT_FLAG_FILES, { dot: true });
   const definitionTouches = changed.filter((f) => isFlagFile(f.path) || f.previousPath !== void 0 && isFlagFile(f.previousPath)).flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === "deleted" ? void 0 : textAt.added.get(f.path)));
   const definedKeys = [...textAt.added.entries()].filter(([p]) => isFlagFile(p)).flatMap(([, text2]) => [...flagDefinitions(text2)?.keys() ?? []]);
   const knownKeys = /* @__PURE__ */ new Set([...workspace.registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags, ...definedKeys]);
@@ -41651,18 +42431,19 @@ async function reviewChange(options) {
   const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
   const linked = workspace.plans.filter((p) => links.has(p.plan.id)).map((p) => ({ loaded: p, reasons: links.get(p.plan.id), sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
   await attachReadouts(linked, head);
-  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === "error" && changedPaths.has(p.file)).map((p) => p.file))].map((file2) => ({
-    file: file2,
-    problems: workspace.problems.filter((p) => p.file === file2)
-  }));
-  const running = runningEntries(workspace.registry.entries);
-  const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  const brokenPlans = [...new Set(workspace.problems.filter((p) => p.severity === "error" && workspace.planFiles.includes(p.file)).map((p) => p.file))];
+  const brokenFlags = (await head.readTexts(brokenPlans)).map(declaredFlags);
+  const touchedKeys = new Set(touches.map((t) => t.key));
+  const invalidPlanFiles = brokenPlans.map((file2, i) => ({ file: file2, flags: brokenFlags[i], problems: workspace.problems.filter((p) => p.file === file2) })).filter((f) => changedPaths.has(f.file) || f.flags.some((k) => touchedKeys.has(k)));
+  const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
+  const startedFlags = [...workspace.registry.entries, ...await baseEntries].filter((e) => e.state !== "concluded").flatMap((e) => e.flags);
+  const names = [.../* @__PURE__ */ new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
     const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && !isFlagFile(p) && inScope(p));
     let done = 0;
     await change2.streamFiles("head", paths, (path, bytes) => {
       scanner.scanFile(path, bytes);
@@ -41681,11 +42462,38 @@ async function reviewChange(options) {
       }
     }
   }
-  const context2 = { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...options.today ? { today: options.today } : {} };
+  const hits = scanner.results();
+  const codeAtHead = new Map([...textAt.added].filter((entry) => entry[1] !== void 0));
+  const exposureFiles = [...new Set(linked.flatMap((l) => l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : []))].filter((f) => f !== void 0 && !codeAtHead.has(f));
+  (await head.readTexts(exposureFiles)).forEach((text2, i) => text2 !== void 0 && codeAtHead.set(exposureFiles[i], text2));
+  const context2 = {
+    settings,
+    pr,
+    linked,
+    invalidPlanFiles,
+    changedPaths: [...changedPaths],
+    touches,
+    registry: workspace.registry,
+    events: hits,
+    flagsAtHead: hits,
+    codeAtHead,
+    removedEvents,
+    changedCode: changedCodeOf(textual, textAt),
+    today: options.today ?? todayIn(settings.digest.timeZone, /* @__PURE__ */ new Date()),
+    baseEntries: await baseEntries
+  };
   const baseContext = await contextAtBase(change2, context2, options.settingsPath);
   const review = buildReview(context2, { base: change2.base, head: change2.head }, baseContext);
   const stats = scanner.stats();
   return { kind: "review", review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+function changedCodeOf(diffs, textAt) {
+  return diffs.map((d) => {
+    const basePath = d.previousPath ?? d.path;
+    const head = textAt.added.get(d.path);
+    const base = textAt.removed.get(basePath);
+    return { path: d.path, basePath, added: d.added.map((l) => l.line), removed: d.removed.map((l) => l.line), ...head !== void 0 ? { head } : {}, ...base !== void 0 ? { base } : {} };
+  });
 }
 
 // src/cli/check-command.ts
@@ -41738,13 +42546,14 @@ function fromJson(value, file2) {
   return { ...title !== void 0 ? { title } : {}, ...body !== void 0 ? { body } : {}, ...labels ? { labels } : {}, ...branch !== void 0 ? { branch } : {} };
 }
 function addCheckCommand(program2, setExit, deps) {
-  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").action(async (flags) => {
+  program2.command("check").description("review a change between two commits: plans, sizing, collisions, logging; exits 1 when something blocks").requiredOption("--base <ref>", "the commit the change is compared with (its merge base with head is used), e.g. origin/main").option("--head <ref>", "the commit with the change", "HEAD").option("--title <text>", "pull-request title").option("--body <text>", "pull-request description (may name plans by id or path)").option("--body-file <file>", "read the description from a file").option("--label <name>", "a pull-request label (repeatable)", (value, all) => [...all, value], []).option("--branch <name>", "the pull request\u2019s branch").option("--pr-json <file>", "pull-request details as JSON: a GitHub pull-request object or { title, body, labels, branch }").option("--repo-url <url>", "repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop").addOption(new Option("--format <format>", "output format").choices(["text", "json", "markdown"]).default("text")).option("--output <file>", "also write the JSON report to this file").option("--today <date>", "the day to judge running tests by, YYYY-MM-DD (default: today in the settings\u2019 time zone)").action(async (flags) => {
     const options = program2.opts();
     const { output: output2 } = context({ ...options, format: "text" }, deps);
     const cwd = resolve2(options.cwd);
+    if (flags.today !== void 0 && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, "write it as YYYY-MM-DD, e.g. --today 2026-12-01");
     const pr = await pullRequestInfo(flags, cwd);
     const change2 = await deps.openChange(cwd, flags.base, flags.head);
-    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, today: (/* @__PURE__ */ new Date()).toISOString().slice(0, 10), ...options.config ? { settingsPath: options.config } : {} });
+    const outcome = await reviewChange({ change: change2, pr, onProgress: output2.progress, ...options.config ? { settingsPath: options.config } : {}, ...flags.today ? { today: flags.today } : {} });
     if (outcome.kind === "settings-invalid") return setExit(reportSettingsProblems(output2, flags.format, outcome.settingsFile, outcome.problems));
     const { review } = outcome;
     if (flags.output) await writeFileAtomic(resolve2(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}
@@ -41768,7 +42577,9 @@ var LABEL2 = {
   collision: "\u{1F4A5} collides",
   "draft-past-start": "\u{1F4DD} draft past its start",
   "long-on-hold": "\u23F8\uFE0F on hold too long",
-  "ending-soon": "\u{1F4C5} ending soon"
+  "ending-soon": "\u{1F4C5} ending soon",
+  "outcome-missing": "\u{1F4CB} no outcome recorded",
+  "concluded-flag-in-code": "\u{1F9F9} concluded, flag still in the code"
 };
 function countLine(d) {
   const c = d.counts;
@@ -41784,7 +42595,7 @@ function countLine(d) {
   const registry2 = [c.live ? `${formatCount(c.live)} live` : "", c.planned ? countOf(c.planned, "draft") : ""].filter(Boolean).join(", ") || "no live tests or drafts";
   return `${parts.length ? parts.join(" \xB7 ") : "nothing needs attention"} \u2014 ${registry2}`;
 }
-function ownersOf(owners, mentioned) {
+function ownersOf2(owners, mentioned) {
   return owners.map((owner2) => {
     const handle = /^@[A-Za-z0-9][\w./-]*$/.test(owner2);
     if (!handle || mentioned.has(owner2.toLowerCase())) return safeText(owner2);
@@ -41817,7 +42628,7 @@ function render2(d, withTimeline, maxTests) {
   if (d.tests.length === 0 && d.orphanFlags.length === 0) out.push("Nothing needs attention this week.", "");
   const mentioned = /* @__PURE__ */ new Set();
   for (const test of d.tests.slice(0, maxTests)) {
-    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
+    out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} \xB7 ${ownersOf2(test.owners, mentioned)} \xB7 ${codeSpan(`${test.file}:${test.line}`)}`);
     for (const it of test.items) out.push(`  - ${LABEL2[it.kind]}: ${safeText(it.detail)}`);
   }
   if (d.tests.length > maxTests) out.push(`- \u2026and ${countOf(d.tests.length - maxTests, "more test")} (see the JSON report).`);
@@ -41851,124 +42662,6 @@ function renderDigestText(d) {
   return out.join("\n");
 }
 var DIGEST_JSON_FORMAT = "plumbline.digest/1";
-
-// src/core/digest/build-digest.ts
-function estimateSampleReached(entry, today) {
-  if (!entry.plan || !entry.window.start) return void 0;
-  const sizing = finiteSizing(sizePlan(entry.plan)).metrics[0];
-  const headline2 = sizing?.result.ok ? sizing.result.value.headline : void 0;
-  const daily = entry.plan.design.dailyUnits;
-  if (!headline2 || daily === void 0) return void 0;
-  const end = entry.window.end && entry.window.end < today ? entry.window.end : today;
-  const days = Math.max(0, inclusiveDays(entry.window.start, end));
-  const enrolled = days * daily * entry.plan.design.trafficShare;
-  return enrolled >= headline2.totalUnits;
-}
-function buildDigest(input2) {
-  const { registry: registry2, today, settings } = input2;
-  const items = [];
-  const item = (entry, kind, detail, extra = {}) => items.push({ kind, test: entry.id, title: entry.title, file: entry.file, line: entry.line, detail, ...extra });
-  const soon = addDays(today, settings.digest.endingSoonDays);
-  for (const entry of registry2.entries) {
-    const { start, end } = entry.window;
-    if (entry.state === "live" && end && end < today) {
-      const days = daysBetween(end, today);
-      const reached = estimateSampleReached(entry, today);
-      const advice = reached === true ? "the planned sample should be in: read it out and decide" : reached === false ? "the planned sample is not in yet by the plan\u2019s own traffic estimate: decide whether to extend the plan or stop" : "read it out, or extend the plan with a reason";
-      item(entry, "overdue", `Past its planned end (${end}) by ${countOf(days, "day")}; ${advice}.`, { daysOverdue: days, ...reached !== void 0 ? { sampleReached: reached } : {} });
-    } else if (entry.state === "live" && end && end >= today && end <= soon) {
-      item(entry, "ending-soon", `Ends on ${end}, in ${countOf(daysBetween(today, end), "day")}: prepare the readout.`);
-    }
-    if (entry.state === "draft" && start && start < today) {
-      item(entry, "draft-past-start", `Planned to start on ${start} but still a draft: launch it, move the window, or drop it.`);
-    }
-    if (entry.state === "on-hold" && start && daysBetween(start, today) > settings.digest.onHoldDays) {
-      item(entry, "long-on-hold", `On hold, ${countOf(daysBetween(start, today), "day")} after its start: its units and surface stay reserved; resume or conclude it.`);
-    }
-    if (entry.plan && entry.state === "live" && entry.flags.length && entry.flags.every((f) => !input2.flagsInCode.has(f))) {
-      item(entry, "flag-gone", `Live, but its flag${entry.flags.length === 1 ? "" : "s"} ${entry.flags.join(", ")} no longer appear${entry.flags.length === 1 ? "s" : ""} in the code: conclude the plan or restore the flag.`);
-    }
-  }
-  const running = runningEntries(registry2.entries);
-  const seen = /* @__PURE__ */ new Set();
-  for (const entry of running) {
-    for (const c of findCollisions(entry, running)) {
-      const pair2 = [entry.id, c.other.id].sort().join(" ");
-      if (seen.has(pair2) || c.known) continue;
-      seen.add(pair2);
-      item(entry, "collision", `Runs on ${entry.surface.path} alongside ${c.other.id} (${c.other.owners.join(", ")}) on ${c.other.surface.path}${c.overlapDays !== void 0 ? ` for ${countOf(c.overlapDays, "day")}` : ""}, with about ${Math.round(c.trafficShare * 100)}% of units in both.`);
-    }
-  }
-  const covered = /* @__PURE__ */ new Set([...registry2.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
-  const orphanFlags = [...input2.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location2]) => ({ key, location: location2 })).sort((a, b) => a.key.localeCompare(b.key));
-  const ORDER2 = ["overdue", "flag-gone", "collision", "draft-past-start", "long-on-hold", "ending-soon"];
-  const byTest = /* @__PURE__ */ new Map();
-  for (const it of items.sort((a, b) => ORDER2.indexOf(a.kind) - ORDER2.indexOf(b.kind) || a.test.localeCompare(b.test))) {
-    const entry = registry2.entries.find((e) => e.id === it.test);
-    const test = byTest.get(it.test) ?? { id: entry.id, title: entry.title, owners: entry.owners, file: entry.file, line: entry.line, items: [] };
-    test.items.push(it);
-    byTest.set(it.test, test);
-  }
-  const counts = {
-    overdue: 0,
-    "ending-soon": 0,
-    "draft-past-start": 0,
-    "long-on-hold": 0,
-    "flag-gone": 0,
-    collision: 0,
-    live: running.length,
-    planned: registry2.entries.filter((e) => e.state === "draft").length,
-    orphanFlags: orphanFlags.length
-  };
-  for (const it of items) counts[it.kind]++;
-  const timeline = registry2.entries.filter((e) => (e.state === "live" || e.state === "draft" || e.state === "on-hold") && e.window.start && e.window.end).map((e) => ({ id: e.id, surface: e.surface.path, start: e.window.start, end: e.window.end, state: e.state, overdue: e.state === "live" && e.window.end < today })).sort((a, b) => a.surface.localeCompare(b.surface) || a.start.localeCompare(b.start));
-  return {
-    today,
-    counts,
-    // Insertion order is urgency order: a test comes where its most urgent item sorted.
-    tests: [...byTest.values()],
-    orphanFlags,
-    timeline
-  };
-}
-
-// src/run/digest.ts
-function todayIn(timeZone, now) {
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
-}
-async function flagsInCode(files, settings, skip) {
-  const patterns = flagPatternsOf(settings);
-  const inScope = scanMatcher(settings.scan);
-  const paths = (await files.listFiles("")).filter((p) => inScope(p) && !skip.has(p));
-  const found = /* @__PURE__ */ new Map();
-  const texts = await files.readTexts(paths);
-  paths.forEach((path, i) => {
-    const text2 = texts[i];
-    if (text2 === void 0 || text2.includes("\0")) return;
-    const lines = text2.split("\n");
-    lines.forEach((line, n) => {
-      for (const pattern of patterns) {
-        for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text2, match.groups.ident) : void 0);
-          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
-        }
-      }
-    });
-  });
-  return found;
-}
-async function digestRepository(options) {
-  const workspace = await requireWorkspace({ files: options.files, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
-  const { settings } = workspace;
-  const skip = ownFilesOf(workspace);
-  const digest = buildDigest({
-    registry: workspace.registry,
-    today: options.today ?? todayIn(settings.digest.timeZone, options.now),
-    settings,
-    flagsInCode: await flagsInCode(options.files, settings, skip)
-  });
-  return { digest, settings };
-}
 
 // src/cli/digest-command.ts
 function addDigestCommand(program2, setExit, deps) {
@@ -42343,14 +43036,14 @@ function renderReadoutText(readout, options) {
 }
 
 // src/core/plan/record-outcome.ts
-var import_yaml3 = __toESM(require_dist(), 1);
+var import_yaml4 = __toESM(require_dist(), 1);
 var DIGITS = 6;
 var round = (x) => Number(x.toPrecision(DIGITS));
 function recordOutcome(planText, readout, request) {
   if (readout.verdict === "not-read") return { ok: false, reason: "a readout with a sample ratio mismatch has no outcome to record: find the cause first" };
-  const doc = (0, import_yaml3.parseDocument)(planText);
-  if (doc.errors.length || !(0, import_yaml3.isMap)(doc.contents)) return { ok: false, reason: "the plan is not a YAML mapping that can be edited" };
-  const existing = doc.contents.items.find((pair2) => (0, import_yaml3.isScalar)(pair2.key) && pair2.key.value === "outcome");
+  const doc = (0, import_yaml4.parseDocument)(planText);
+  if (doc.errors.length || !(0, import_yaml4.isMap)(doc.contents)) return { ok: false, reason: "the plan is not a YAML mapping that can be edited" };
+  const existing = doc.contents.items.find((pair2) => (0, import_yaml4.isScalar)(pair2.key) && pair2.key.value === "outcome");
   const override = doc.getIn(["outcome", "override"]);
   const figures = readout.primary.arms.flatMap((a) => {
     const c = a.comparison;
@@ -42378,16 +43071,16 @@ function recordOutcome(planText, readout, request) {
     "recorded-on": request.recordedOn,
     ...override !== void 0 ? { override } : {}
   };
-  const block = new import_yaml3.Document({ outcome });
+  const block = new import_yaml4.Document({ outcome });
   const node2 = block.getIn(["outcome"], true);
   const arms = node2.get("arms", true);
-  if ((0, import_yaml3.isSeq)(arms)) arms.flow = true;
+  if ((0, import_yaml4.isSeq)(arms)) arms.flow = true;
   const listed = node2.get("figures", true);
-  if ((0, import_yaml3.isSeq)(listed)) {
-    for (const item of listed.items) if ((0, import_yaml3.isMap)(item)) item.flow = true;
+  if ((0, import_yaml4.isSeq)(listed)) {
+    for (const item of listed.items) if ((0, import_yaml4.isMap)(item)) item.flow = true;
   }
   const over = node2.get("override", true);
-  if ((0, import_yaml3.isMap)(over)) over.flow = true;
+  if ((0, import_yaml4.isMap)(over)) over.flow = true;
   const blockText = block.toString({ lineWidth: 0, flowCollectionPadding: false });
   if (!existing) {
     const separated = planText.length === 0 || planText.endsWith("\n") ? planText : `${planText}

@@ -24,7 +24,7 @@ for (const step of steps) {
 // The main job: the review of a pull request, built as a real git repository from demo/change/.
 const change = buildDemoChange();
 try {
-  const args = ['-C', change.root, 'check', '--base', 'main', '--head', 'feature/slot-nudge', '--pr-json', `${process.cwd()}/demo/change/pull-request.json`, '--format', 'markdown'];
+  const args = ['-C', change.root, 'check', '--base', 'main', '--head', 'feature/slot-nudge', '--pr-json', `${process.cwd()}/demo/change/pull-request.json`, '--format', 'markdown', '--today', '2026-12-01'];
   process.stdout.write(`\n== The pull-request review: the comment Plumbline posts\n$ plumbline ${args.slice(2).join(' ').replace(process.cwd() + '/', '')}\n\n`);
   const run = spawnSync(process.execPath, ['dist/cli.js', ...args], { stdio: 'inherit' });
   process.stdout.write(`\n(exit code ${run.status}: 1 means a blocking finding, which fails the check)\n`);
@@ -35,7 +35,7 @@ try {
 // A bug fix without a flag: the review nudges towards a small check test.
 const fix = buildDemoChange('bugfix', 'fix/reorder-count');
 try {
-  const args = ['-C', fix.root, 'check', '--base', 'main', '--head', 'fix/reorder-count', '--pr-json', `${process.cwd()}/demo/bugfix/pull-request.json`, '--format', 'markdown'];
+  const args = ['-C', fix.root, 'check', '--base', 'main', '--head', 'fix/reorder-count', '--pr-json', `${process.cwd()}/demo/bugfix/pull-request.json`, '--format', 'markdown', '--today', '2026-12-01'];
   process.stdout.write(`\n== A bug fix without a flag: the nudge\n$ plumbline ${args.slice(2).join(' ').replace(process.cwd() + '/', '')}\n\n`);
   const run = spawnSync(process.execPath, ['dist/cli.js', ...args], { stdio: 'inherit' });
   process.stdout.write(`\n(exit code ${run.status})\n`);

@@ -1,3 +1,4 @@
+import { isCalendarDate } from '../core/source/fields.js';
 import { readFile } from 'node:fs/promises';
 import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
@@ -23,6 +24,7 @@ export interface CheckFlags {
   repoUrl?: string;
   format: 'text' | 'json' | 'markdown';
   output?: string;
+  today?: string;
 }
 
 /**
@@ -96,13 +98,15 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
     .option('--repo-url <url>', 'repository web address, for links to files in Markdown, e.g. https://github.com/acme/shop')
     .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
     .option('--output <file>', 'also write the JSON report to this file')
+    .option('--today <date>', 'the day to judge running tests by, YYYY-MM-DD (default: today in the settings’ time zone)')
     .action(async (flags: CheckFlags) => {
       const options = program.opts<CommonOptions>();
       const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
+      if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
       const change = await deps.openChange(cwd, flags.base!, flags.head);
-      const outcome = await reviewChange({ change, pr, onProgress: output.progress, today: new Date().toISOString().slice(0, 10), ...(options.config ? { settingsPath: options.config } : {}) });
+      const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
       if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });

@@ -69,7 +69,7 @@ export async function reviewPullRequest(options: {
     }
     change = api.change;
   }
-  const outcome = await reviewChange({ change, pr: event.info, today: new Date().toISOString().slice(0, 10), ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
+  const outcome = await reviewChange({ change, pr: event.info, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   if (outcome.kind === 'settings-invalid') return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join('\n') };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const linkBase = `${event.repoUrl}/blob/${review.head}`;

@@ -2,6 +2,7 @@ import { scanMatcher } from '../core/config/scan-files.js';
 import { buildDigest, type Digest } from '../core/digest/build-digest.js';
 import type { Settings } from '../core/config/schema.js';
 import type { Location } from '../core/scan/name-scan.js';
+import { findCalls } from '../core/scan/calls.js';
 import { flagPatternsOf } from '../core/scan/patterns.js';
 import { resolveConstant } from '../core/scan/flag-touches.js';
 import type { RepoFiles } from '../ports.js';
@@ -22,15 +23,10 @@ export async function flagsInCode(files: RepoFiles, settings: Settings, skip: Re
   paths.forEach((path, i) => {
     const text = texts[i];
     if (text === undefined || text.includes('\0')) return;
-    const lines = text.split('\n');
-    lines.forEach((line, n) => {
-      for (const pattern of patterns) {
-        for (const match of line.matchAll(pattern)) {
-          const key = match.groups?.key ?? (match.groups?.ident ? resolveConstant(text, match.groups.ident) : undefined);
-          if (key && !found.has(key)) found.set(key, { file: path, line: n + 1, column: (match.index ?? 0) + 1 });
-        }
-      }
-    });
+    for (const site of findCalls(text, path, patterns)) {
+      const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text, site.groups.ident) : undefined);
+      if (key && !found.has(key)) found.set(key, { file: path, line: site.valueLine, column: site.column });
+    }
   });
   return found;
 }

@@ -1,12 +1,13 @@
 import picomatch from 'picomatch';
 import { scanMatcher } from '../core/config/scan-files.js';
+import { declaredFlags } from '../core/plan/declared-flags.js';
 import type { LoadedPlan } from '../core/plan/load.js';
 import { eventsOfPlan } from '../core/registry/schema.js';
 import { runningEntries } from '../core/checks/collisions.js';
 import { buildReview, type Review } from '../core/review/build-review.js';
-import type { LinkedPlan, PullRequestInfo, ReviewContext } from '../core/review/context.js';
+import type { ChangedCode, LinkedPlan, PullRequestInfo, ReviewContext } from '../core/review/context.js';
 import { linkPlans } from '../core/review/link-plans.js';
-import { parseUnifiedDiff } from '../core/scan/diff.js';
+import { parseUnifiedDiff, type FileDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
 import { findFlagTouches } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location } from '../core/scan/name-scan.js';
@@ -17,6 +18,8 @@ import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
 import { finiteSizing } from '../core/stats/finite-sizing.js';
 import type { ChangeSource, ProgressReporter } from '../ports.js';
+import { todayIn } from './digest.js';
+import { loadBaseEntries } from './load-base-plans.js';
 import { loadWorkspace, ownFilesOf } from './load-workspace.js';
 
 export interface ReviewChangeOptions {
@@ -24,7 +27,7 @@ export interface ReviewChangeOptions {
   settingsPath?: string;
   pr?: PullRequestInfo;
   onProgress?: ProgressReporter;
-  /** Today as YYYY-MM-DD (UTC), for dates the review proposes, such as a check test's window. */
+  /** The review's day, YYYY-MM-DD; default: today in the settings' time zone by the system clock. */
   today?: string;
 }
 
@@ -40,7 +43,7 @@ async function contextAtBase(change: ChangeSource, head: ReviewContext, settings
   const atBase = new Map(loaded.workspace.plans.map((p) => [p.plan.id, p]));
   const linked: LinkedPlan[] = head.linked.flatMap((l) => {
     const then = atBase.get(l.loaded.plan.id);
-    return then ? [{ loaded: then, reasons: l.reasons, sizing: sizePlan(then.plan) }] : [];
+    return then ? [{ loaded: then, reasons: l.reasons, sizing: finiteSizing(sizePlan(then.plan, sizingPolicy(head.settings))) }] : [];
   });
   return { ...head, linked, invalidPlanFiles: [], registry: loaded.workspace.registry };
 }
@@ -59,6 +62,9 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   if (!loaded.ok) return { kind: 'settings-invalid', settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
   const { workspace } = loaded;
   const { settings } = workspace;
+  // Running tests are compared with their plans at the base commit.
+  const baseEntries = loadBaseEntries(change, options.settingsPath);
+  baseEntries.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
 
   const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
   const diffs = parseUnifiedDiff(diffText);
@@ -92,20 +98,27 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     .filter((p) => links.has(p.plan.id))
     .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
   await attachReadouts(linked, head);
-  const invalidPlanFiles = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && changedPaths.has(p.file)).map((p) => p.file))].map((file) => ({
-    file,
-    problems: workspace.problems.filter((p) => p.file === file),
-  }));
+  // Plan files that do not load: those the change edits, and those that name a flag the change touches.
+  const brokenPlans = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && workspace.planFiles.includes(p.file)).map((p) => p.file))];
+  const brokenFlags = (await head.readTexts(brokenPlans)).map(declaredFlags);
+  const touchedKeys = new Set(touches.map((t) => t.key));
+  const invalidPlanFiles = brokenPlans
+    .map((file, i) => ({ file, flags: brokenFlags[i]!, problems: workspace.problems.filter((p) => p.file === file) }))
+    .filter((f) => changedPaths.has(f.file) || f.flags.some((k) => touchedKeys.has(k)));
 
   // One pass over the tracked code at head finds every event any linked or running plan names.
-  const running = runningEntries(workspace.registry.entries);
-  const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events)])];
+  // Running at head or at the base commit: a change that also edits the plan still cuts the data collected so far.
+  const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
+  // The same pass finds whether the flags of started tests are still read anywhere.
+  const startedFlags = [...workspace.registry.entries, ...(await baseEntries)].filter((e) => e.state !== 'concluded').flatMap((e) => e.flags);
+  const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
   if (names.length) {
     const ownFiles = ownFilesOf(workspace);
     const inScope = scanMatcher(settings.scan);
-    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && inScope(p));
+    // Flag definition files declare keys; they neither read a flag nor log an event.
+    const paths = (await trackedAtHead).filter((p) => !ownFiles.has(p) && !isFlagFile(p) && inScope(p));
     let done = 0;
     await change.streamFiles('head', paths, (path, bytes) => {
       scanner.scanFile(path, bytes);
@@ -127,9 +140,27 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     }
   }
 
-  const context: ReviewContext = { settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: scanner.results(), removedEvents, ...(options.today ? { today: options.today } : {}) };
+  const hits = scanner.results();
+  // Code at head for the checks that read whole functions: changed files, and where linked plans log exposure.
+  const codeAtHead = new Map([...textAt.added].filter((entry): entry is [string, string] => entry[1] !== undefined));
+  const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
+  (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
+  const context: ReviewContext = {
+    settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
+    changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
+  };
   const baseContext = await contextAtBase(change, context, options.settingsPath);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+
+/** The changed text files with their changed lines and both texts, for checks that read around a change. */
+function changedCodeOf(diffs: readonly FileDiff[], textAt: { added: Map<string, string | undefined>; removed: Map<string, string | undefined> }): ChangedCode[] {
+  return diffs.map((d) => {
+    const basePath = d.previousPath ?? d.path;
+    const head = textAt.added.get(d.path);
+    const base = textAt.removed.get(basePath);
+    return { path: d.path, basePath, added: d.added.map((l) => l.line), removed: d.removed.map((l) => l.line), ...(head !== undefined ? { head } : {}), ...(base !== undefined ? { base } : {}) };
+  });
 }

@@ -9,13 +9,15 @@ import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
+/** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
+const TODAY = '2026-11-16';
 // Many repositories are made; removing them on a busy machine can take longer than the default hook limit.
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 120_000);
 
 async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr, ...(today ? { today } : {}) });
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr, today: today ?? TODAY });
   if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
   return outcome.review;
 }
@@ -32,6 +34,11 @@ const goodTotals = (bought: number) =>
   `plan: good\nplan-commit: 4b1d2e7\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
 const recorded = (outcome: Record<string, unknown>, bought: number) =>
   withPlan(cleanPlan({ outcome: { 'data-through': '2026-11-29', totals: 'readouts/good.totals.yaml', 'decided-by': '@owner-one', ...outcome } }), { 'readouts/good.totals.yaml': goodTotals(bought) });
+
+const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
+
+/** The cart with the winning arm hard-coded: the flag read is gone. */
+const HARD_CODED_CART = CART_CODE.replace("if (client.getBooleanValue('good-flag', false)) {", 'if (true) {');
 
 type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
 
@@ -194,6 +201,53 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
   'bug-fix-unmeasured': {
     trigger: { changes: { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' }, pr: { title: 'fix: totals were off by one', labels: [] } },
     nearMiss: { changes: { 'docs/totals.md': 'Totals are now right.\n' }, pr: { title: 'fix: totals were off by one' } },
+  },
+  'plan-frozen': {
+    trigger: { changes: withPlan(cleanPlan({ metrics: { ...(cleanPlan().metrics as object), primary: { name: 'cart-views', kind: 'proportion', baseline: { rate: 0.3 }, events: ['cart_viewed'] } } })) },
+    // Refining a draft's baseline before its start is fine.
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'draft', window: { start: '2026-11-30', end: '2026-12-27' } })) }),
+      changes: withPlan(cleanPlan({ state: 'draft', window: { start: '2026-11-30', end: '2026-12-27' }, metrics: { ...(cleanPlan().metrics as object), primary: { name: 'bought', kind: 'proportion', baseline: { rate: 0.32 }, events: ['order_done'] } } })),
+    },
+  },
+  'plan-amended': {
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.04 }, 'daily-units': 20000 }, amendments: [AMENDMENT] })) },
+    nearMiss: { changes: withPlan(cleanPlan({ title: 'Renamed', amendments: [AMENDMENT] })) },
+  },
+  'plan-deleted': {
+    trigger: { changes: { 'experiments/good.yaml': null } },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', outcome: { date: '2026-11-30', reason: 'Shipped: +2% orders.' } })) }),
+      changes: { 'experiments/good.yaml': null },
+    },
+  },
+  'plan-end-moved': {
+    trigger: { changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-12-27' } })) },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })) }),
+      changes: withPlan(cleanPlan({ window: { start: '2026-11-02', end: '2026-11-22' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, 'interim-looks': 2 } })),
+    },
+  },
+  'test-ended-early': {
+    trigger: { changes: { 'src/cart.ts': HARD_CODED_CART } },
+    nearMiss: { changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', outcome: { date: '2026-11-16', reason: 'Stopped: checkout errors doubled.' } })) } },
+  },
+  'outcome-missing': {
+    trigger: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }), changes: { 'src/cart.ts': HARD_CODED_CART } },
+    nearMiss: {
+      files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }),
+      changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', window: { start: '2026-10-05', end: '2026-11-01' }, outcome: { date: '2026-11-03', reason: 'Shipped: +2% orders.' } })) },
+    },
+  },
+  'exposure-one-arm': {
+    trigger: { changes: withPlan(cleanPlan(), { 'src/cart.ts': "export function cart(client, track) {\n  if (client.getBooleanValue('good-flag', true)) {\n    track('cart_viewed');\n    track('order_done');\n  }\n  track('cart_error');\n}\n" }) },
+    // Logged before the branch: every arm logs it.
+    nearMiss: { changes: withPlan(cleanPlan()) },
+  },
+  'treatment-changed': {
+    trigger: { changes: { 'src/cart.ts': CART_CODE.replace("    track('order_done');\n", "    showBanner('Free delivery');\n    track('order_done');\n") } },
+    // A change to an unrelated function in the same file as a live flag read is not a treatment change.
+    nearMiss: { changes: { 'src/cart.ts': `${CART_CODE}\nexport function total(items) {\n  return items.length;\n}\n` } },
   },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },

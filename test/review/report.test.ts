@@ -21,7 +21,7 @@ beforeAll(async () => {
   process.chdir(new URL('.', root).pathname);
   demo = buildDemoChange();
   const pr = JSON.parse(readFileSync(new URL('demo/change/pull-request.json', root), 'utf8'));
-  const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'feature/slot-nudge'), pr });
+  const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'feature/slot-nudge'), pr, today: '2026-12-01' });
   if (outcome.kind !== 'review') throw new Error('demo settings invalid');
   review = outcome.review;
 }, 60_000);
@@ -31,9 +31,13 @@ afterAll(() => demo?.cleanup());
 const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>').replace(/for [0-9a-f]{7}\.\.\.[0-9a-f]{7}/, 'for <base>...<head>');
 
 describe('the demo review', () => {
-  it('blocks on the missing decision rules and the removed exposure event', () => {
+  it('blocks on the widened guardrail of a running test, the missing decision rules and the removed exposure event', () => {
     expect(review.verdict).toBe('blocked');
-    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['event-removed', 'decisions-missing']);
+    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['plan-frozen', 'decisions-missing', 'event-removed']);
+  });
+
+  it('warns that the tip prompt logs exposure after an early return on control', () => {
+    expect(review.findings.filter((f) => f.code === 'exposure-one-arm').map((f) => `${f.plan}:${f.file}:${f.line}`)).toEqual(['checkout-tip-prompt:src/checkout/payment.ts:14']);
   });
 
   it('matches the golden Markdown comment', async () => {

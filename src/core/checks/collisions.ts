@@ -93,6 +93,14 @@ export function collisionsOfLinked(context: Parameters<Check>[0]): { plan: strin
   );
 }
 
+/** Which side wrote the overlap under surface.overlaps-with: an overlap agreed by one side only is worth a look. */
+function declaredBy(id: string, mine: readonly string[], other: RegistryEntry): string {
+  const here = mine.includes(other.id);
+  const there = other.surface.overlapsWith.includes(id);
+  if (here && there) return 'Both tests declare this overlap.';
+  return here ? `This plan declares the overlap; ${other.id} does not.` : `${other.id} declares the overlap; this plan does not.`;
+}
+
 const list = (values: string[] | 'all') => (values === 'all' ? 'everyone' : values.join(', '));
 const percent = (share: number) => `${Math.round(share * 100)}%`;
 
@@ -126,7 +134,7 @@ export const collisionCheck: Check = (context) =>
     const message = `Overlaps ${c.other.id} (${c.other.owners.join(', ')}) on ${where} for ${when}; platforms ${list(c.platforms)}, locales ${list(c.locales)}; about ${percent(c.trafficShare)} of eligible units would be in both.`;
     const at = atPlanKey(linked.loaded, ['surface']);
     return c.known
-      ? { code: 'known-overlap', message: `${message} Both tests declare this overlap.`, fix: 'Check for an interaction between the two when reading out.', ...at }
+      ? { code: 'known-overlap', message: `${message} ${declaredBy(linked.loaded.plan.id, linked.loaded.plan.surface.overlapsWith, c.other)}`, fix: 'Check for an interaction between the two when reading out.', ...at }
       : {
           code: 'collision',
           message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,

@@ -1,8 +1,9 @@
 import type { Check } from '../review/context.js';
 
 /** A flag the change touches should belong to a plan, unless the settings exempt it. */
-export const flagWithoutPlan: Check = ({ touches, registry, settings }) => {
-  const planned = new Set(registry.entries.flatMap((e) => e.flags));
+export const flagWithoutPlan: Check = ({ touches, registry, settings, invalidPlanFiles }) => {
+  // A flag whose plan does not load has a plan: that plan is reported as invalid instead.
+  const planned = new Set([...registry.entries.flatMap((e) => e.flags), ...invalidPlanFiles.flatMap((f) => f.flags ?? [])]);
   const exempt = new Set(settings.exemptFlags);
   const reported = new Set<string>();
   return touches

@@ -1,7 +1,10 @@
 import type { Check } from '../review/context.js';
 import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
+import { endedEarly } from './ended-early.js';
+import { exposureOneArm } from './exposure-arms.js';
 import { flagWithoutPlan } from './flags.js';
+import { frozenPlans } from './frozen-plan.js';
 import { eventMissing, eventRemoved } from './logging.js';
 import {
   bundleUnexplained,
@@ -15,15 +18,19 @@ import {
 } from './plans.js';
 import { sizingChecks } from './sizing.js';
 import { outcomeRecorded } from './outcome.js';
+import { treatmentChanged } from './treatment-change.js';
 import { analysisUnitDiffers, spillover } from './unit.js';
 
 /** Every check of the pull-request review, in the order their findings are listed. */
 export const CHECKS: readonly Check[] = [
   planInvalid,
   outcomeRecorded,
+  frozenPlans,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
+  endedEarly,
+  treatmentChanged,
   flagWithoutPlan,
   reasonMissing,
   guardrailsMissing,
@@ -35,5 +42,6 @@ export const CHECKS: readonly Check[] = [
   analysisUnitDiffers,
   collisionCheck,
   eventMissing,
+  exposureOneArm,
   bugFixUnmeasured,
 ];

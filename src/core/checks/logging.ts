@@ -10,8 +10,10 @@ export interface EventStatus {
   /** What the plan uses it for. */
   roles: string[];
   location?: Location;
-  /** How it was found: in a logging call, or only as a quoted string. */
+  /** How it was found: in a logging call, or only as a quoted string in product code. */
   via?: 'call' | 'literal';
+  /** Not logged, but quoted in a test, fixture, document, generated file or comment: a mention is not evidence. */
+  mentionedAt?: Location;
 }
 
 export function eventStatuses(context: ReviewContext, planId: string): EventStatus[] {
@@ -25,7 +27,8 @@ export function eventStatuses(context: ReviewContext, planId: string): EventStat
   return eventsOfPlan(plan).map((event) => {
     const hits = context.events.get(event);
     const location = hits?.firstCall ?? hits?.firstQuoted;
-    return { event, roles: roles.get(event) ?? [], ...(location ? { location, via: hits?.firstCall ? ('call' as const) : ('literal' as const) } : {}) };
+    const mentioned = !location && hits?.firstMention ? { mentionedAt: hits.firstMention } : {};
+    return { event, roles: roles.get(event) ?? [], ...(location ? { location, via: hits?.firstCall ? ('call' as const) : ('literal' as const) } : {}), ...mentioned };
   });
 }
 
@@ -35,22 +38,28 @@ export const eventMissing: Check = (context) =>
       .filter((s) => !s.location)
       .map((s) => ({
         code: 'event-missing',
-        message: `Event \`${s.event}\` (${s.roles.join(', ')}) is not logged anywhere in the code at head, so the ${s.roles.includes('exposure') ? 'exposure' : 'metric'} cannot be computed.`,
+        message: `Event \`${s.event}\` (${s.roles.join(', ')}) is not logged anywhere in the code at head${s.mentionedAt ? ` (only mentioned, in ${s.mentionedAt.file}:${s.mentionedAt.line}, which logs nothing)` : ''}, so the ${s.roles.includes('exposure') ? 'exposure' : 'metric'} cannot be computed.`,
         fix: `Log ${s.event} where it happens (or correct the name in the plan) before launch.`,
         ...atPlanKey(loaded, s.roles[0] === 'exposure' ? ['exposure', 'event'] : [...metricPath(loaded.plan, s.roles[0] ?? ''), 'events']),
       })),
   );
 
-/** Running tests whose readout depends on `event`. */
-function dependents(entries: readonly RegistryEntry[], event: string): RegistryEntry[] {
-  return runningEntries(entries).filter((e) => e.events.includes(event));
+/**
+ * Running tests whose readout depends on `event`, at the base commit or at head: a change that also drops
+ * the event from the plan still cuts the data the test has been collecting.
+ */
+function dependents(entries: readonly RegistryEntry[], baseEntries: readonly RegistryEntry[], event: string): RegistryEntry[] {
+  const byId = new Map<string, RegistryEntry>();
+  for (const e of [...runningEntries(entries), ...runningEntries(baseEntries)]) if (e.events.includes(event) && !byId.has(e.id)) byId.set(e.id, e);
+  return [...byId.values()];
 }
 
-export const eventRemoved: Check = ({ removedEvents, events, registry }) =>
+export const eventRemoved: Check = ({ removedEvents, events, registry, baseEntries }) =>
   [...removedEvents].flatMap(([event, where]) => {
+    // Only a logging call or a quoted name in product code keeps the event; a mention in a test, a document or a comment does not.
     const still = events.get(event);
     if (still?.firstCall || still?.firstQuoted) return [];
-    const plans = dependents(registry.entries, event);
+    const plans = dependents(registry.entries, baseEntries, event);
     if (plans.length === 0) return [];
     return [
       {
@@ -59,6 +68,7 @@ export const eventRemoved: Check = ({ removedEvents, events, registry }) =>
         fix: 'Keep logging the event, or agree with the owners to end or change those tests first.',
         file: where.file,
         line: where.line,
+        dependents: plans.map((p) => p.id),
       },
     ];
   });

@@ -8,7 +8,8 @@ import type { Check } from '../review/context.js';
 export const outcomeRecorded: Check = (context) =>
   context.linked.flatMap(({ loaded, readout }) => {
     const outcome = loaded.plan.outcome;
-    if (!outcome) return [];
+    // An outcome with only a reason (a test stopped without a readout) has no class to check.
+    if (!outcome?.class) return [];
     const where = { plan: loaded.plan.id, file: loaded.file, line: loaded.line };
     if (!readout) {
       return [{ code: 'outcome-mismatch', message: `${loaded.plan.id} records the outcome "${outcome.class}" without the totals file it was read from.`, fix: 'Add outcome.totals (the arm-totals file) so the review can apply the rule to it, or run plumbline readout --record.', ...where }];

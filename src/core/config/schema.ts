@@ -179,6 +179,13 @@ export const writtenSettingsSchema = z
         )
         .default({ 'guardrail-alpha': 0.05, 'guardrail-power': 0.8, 'guardrail-arm-correction': false, 'longest-window-days': 56, 'atypical-periods': [] })
         .describe('Sizing conventions: guardrails’ error rates, the longest sensible window, atypical periods.'),
+      'treatment-lines': z
+        .number({ error: 'a whole number of lines from 0 to 200, e.g. 10' })
+        .int({ error: 'a whole number of lines, e.g. 10' })
+        .min(0, { error: 'a whole number of lines from 0 to 200' })
+        .max(200, { error: 'a whole number of lines from 0 to 200' })
+        .default(10)
+        .describe('Around a running test’s flag read, code changed within the enclosing function (or block) counts as a treatment change; for a read outside any function or block, this many lines above and below.'),
       severity: z
         .record(
           z.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: 'a finding code, e.g. plan-missing' }),
@@ -202,6 +209,7 @@ export const settingsSchema = writtenSettingsSchema.transform((w) => ({
   scan: w.scan,
   exemptFlags: w['exempt-flags'],
   severity: w.severity as Record<string, SeverityLevel>,
+  treatmentLines: w['treatment-lines'],
   bugFix: {
     enabled: w['bug-fix'].enabled,
     labels: w['bug-fix'].labels,

@@ -12,7 +12,7 @@ import { finiteSizing } from '../stats/finite-sizing.js';
  * The weekly digest: the states of the registry that need someone's attention, as of `today`
  * (a calendar date in the settings' time zone, supplied by the caller: the core has no clock).
  */
-export type DigestItemKind = 'overdue' | 'ending-soon' | 'draft-past-start' | 'long-on-hold' | 'flag-gone' | 'collision';
+export type DigestItemKind = 'overdue' | 'ending-soon' | 'draft-past-start' | 'long-on-hold' | 'flag-gone' | 'collision' | 'outcome-missing' | 'concluded-flag-in-code';
 
 export interface DigestItem {
   kind: DigestItemKind;
@@ -25,6 +25,8 @@ export interface DigestItem {
   daysOverdue?: number;
   /** Overdue tests: whether the planned sample is estimated to be in (from daily-units); undefined when unknown. */
   sampleReached?: boolean;
+  /** Concluded tests whose flag is still read: whole days since the outcome's date (else the planned end). */
+  daysSinceConclusion?: number;
 }
 
 /** One test in the digest: who owns it and every item about it. */
@@ -92,6 +94,23 @@ export function buildDigest(input: DigestInput): Digest {
     if (entry.state === 'on-hold' && start && daysBetween(start, today) > settings.digest.onHoldDays) {
       item(entry, 'long-on-hold', `On hold, ${countOf(daysBetween(start, today), 'day')} after its start: its units and surface stay reserved; resume or conclude it.`);
     }
+    // A test that is over (concluded, or on hold past its end) still owes its outcome: the decision and why.
+    if (entry.plan && !entry.plan.outcome && (entry.state === 'concluded' || (entry.state === 'on-hold' && end && end < today))) {
+      item(entry, 'outcome-missing', `${entry.state === 'concluded' ? 'Concluded' : `On hold past its planned end (${end})`}, but no outcome is recorded: add outcome: { date, reason } with the decision in one line.`);
+    }
+    // Dead code waiting: the losing arm stays in the product, and the flag can be flipped by mistake.
+    const stillRead = entry.flags.filter((f) => input.flagsInCode.has(f));
+    if (entry.plan && entry.state === 'concluded' && stillRead.length) {
+      const since = entry.plan.outcome?.date ?? end;
+      const days = since !== undefined && since <= today ? daysBetween(since, today) : undefined;
+      const where = input.flagsInCode.get(stillRead[0]!)!;
+      item(
+        entry,
+        'concluded-flag-in-code',
+        `Concluded${days !== undefined ? ` ${days} day${days === 1 ? '' : 's'} ago (${since})` : ''}, but its flag${stillRead.length === 1 ? '' : 's'} ${stillRead.join(', ')} ${stillRead.length === 1 ? 'is' : 'are'} still read in the code (${where.file}:${where.line}): remove the flag and the code of the arm that lost.`,
+        days !== undefined ? { daysSinceConclusion: days } : {},
+      );
+    }
     // Only plans of this repository: a registry file's tests evaluate their flags in other code.
     if (entry.plan && entry.state === 'live' && entry.flags.length && entry.flags.every((f) => !input.flagsInCode.has(f))) {
       item(entry, 'flag-gone', `Live, but its flag${entry.flags.length === 1 ? '' : 's'} ${entry.flags.join(', ')} no longer appear${entry.flags.length === 1 ? 's' : ''} in the code: conclude the plan or restore the flag.`);
@@ -112,7 +131,7 @@ export function buildDigest(input: DigestInput): Digest {
   const covered = new Set([...registry.entries.flatMap((e) => e.flags), ...settings.exemptFlags]);
   const orphanFlags = [...input.flagsInCode].filter(([key]) => !covered.has(key)).map(([key, location]) => ({ key, location })).sort((a, b) => a.key.localeCompare(b.key));
 
-  const ORDER: DigestItemKind[] = ['overdue', 'flag-gone', 'collision', 'draft-past-start', 'long-on-hold', 'ending-soon'];
+  const ORDER: DigestItemKind[] = ['overdue', 'outcome-missing', 'flag-gone', 'collision', 'concluded-flag-in-code', 'draft-past-start', 'long-on-hold', 'ending-soon'];
   const byTest = new Map<string, DigestTest>();
   for (const it of items.sort((a, b) => ORDER.indexOf(a.kind) - ORDER.indexOf(b.kind) || a.test.localeCompare(b.test))) {
     const entry = registry.entries.find((e) => e.id === it.test)!;
@@ -127,6 +146,8 @@ export function buildDigest(input: DigestInput): Digest {
     'long-on-hold': 0,
     'flag-gone': 0,
     collision: 0,
+    'outcome-missing': 0,
+    'concluded-flag-in-code': 0,
     live: running.length,
     planned: registry.entries.filter((e) => e.state === 'draft').length,
     orphanFlags: orphanFlags.length,

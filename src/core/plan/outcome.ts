@@ -29,13 +29,15 @@ const figure = z
 export const outcomeSchema = z
   .strictObject(
     {
-      class: outcomeClass.describe('The class the registered rule gave, as computed by the readout.'),
+      class: outcomeClass.optional().describe('The class the registered rule gave, as computed by the readout.'),
       arms: z.array(kebabName('an arm name, e.g. treatment'), { error: 'a list of arm names' }).default([]).describe('The arms the class names (the winners of a win).'),
-      'data-through': calendarDate('the last day of the data read, written YYYY-MM-DD'),
+      'data-through': calendarDate('the last day of the data read, written YYYY-MM-DD').optional(),
       totals: text('the arm-totals file read, relative to the repository, e.g. readouts/checkout-wallet-first.totals.yaml').optional(),
       'read-early': z.boolean({ error: 'true or false' }).optional().describe('True when the data ended before the planned end.'),
       figures: z.array(figure, { error: 'a list of figures' }).default([]).describe('The primary metric’s figures per treatment arm.'),
-      'decided-by': text('who decided, e.g. @ana-lima'),
+      'decided-by': text('who decided, e.g. @ana-lima').optional(),
+      date: calendarDate('the date the test was decided, written YYYY-MM-DD, e.g. 2026-12-01').optional(),
+      reason: text('the decision and why, in a sentence, e.g. stopped: checkout errors doubled').optional(),
       'recorded-on': calendarDate('the day the outcome was recorded, written YYYY-MM-DD').optional(),
       override: z
         .strictObject(
@@ -49,8 +51,10 @@ export const outcomeSchema = z
         .optional()
         .describe('A decision that departs from the registered rule, with its reason; reviewers judge it first.'),
     },
-    { error: 'an outcome: a mapping with class, data-through, figures and decided-by' },
+    { error: 'an outcome: a mapping with class, data-through, figures and decided-by (from plumbline readout --record), or date and reason' },
   )
+  // A test can end without a readout (stopped for harm, abandoned): a one-line reason records that.
+  .refine((o) => o.class !== undefined || o.reason !== undefined, { error: 'an outcome needs the readout’s class (plumbline readout --record) or a one-line reason, e.g. reason: stopped, checkout errors doubled' })
   .describe('The recorded outcome of the test: written by plumbline readout --record after the readout.');
 
 export type WrittenOutcome = z.output<typeof outcomeSchema>;

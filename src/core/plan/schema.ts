@@ -291,6 +291,25 @@ export const populationSchema = z
   .default({ platforms: [], locales: [], regions: [], ready: { platforms: [], locales: [] } })
   .describe('Who is eligible: platforms, locales, regions and segment.');
 
+/**
+ * Once a test has started, what decides its result is frozen. A change to it is allowed only when the same
+ * change appends an amendment saying when, what and why, so reviewers judge it and the readout can cite it.
+ */
+export const amendmentsSchema = z
+  .array(
+    z.strictObject(
+      {
+        date: calendarDate('the date of the amendment written YYYY-MM-DD, e.g. 2026-11-20'),
+        changed: text('what changed, in a sentence, e.g. guardrail order-errors tolerance 1% -> 2%'),
+        reason: text('why the change was needed, in a sentence'),
+      },
+      { error: 'an amendment: { date: 2026-11-20, changed: ..., reason: ... }' },
+    ),
+    { error: 'a list of amendments, each with date, changed and reason' },
+  )
+  .default([])
+  .describe('Changes made after the test started, oldest first: date, what changed and why. Append only.');
+
 export const writtenPlanSchema = z
   .strictObject({
     id: planId,
@@ -465,6 +484,7 @@ export const writtenPlanSchema = z
     'bundle-rationale': optionalText('why several changes or flags are tested together').describe(
       'Required when the plan bundles several flags or changes.',
     ),
+    amendments: amendmentsSchema,
     notes: optionalText('free text'),
     outcome: outcomeSchema.optional(),
   }, { error: 'a plan: a mapping with id, title, owners, flags, state, hypothesis, unit, surface and metrics' })
@@ -542,8 +562,16 @@ export interface Plan {
   decisions: { win?: string; flat?: string; loss?: string; guardrailBreach?: string; launchRegardless?: { reason: string } };
   sensitive: { area: SensitiveArea; review?: string; reference?: string }[];
   bundleRationale?: string;
+  /** Changes made after the start, oldest first. */
+  amendments: Amendment[];
   notes?: string;
   outcome?: WrittenOutcome;
+}
+
+export interface Amendment {
+  date: string;
+  changed: string;
+  reason: string;
 }
 
 function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
@@ -624,6 +652,7 @@ export const planSchema = writtenPlanSchema.transform((written: ParsedPlan, ctx)
     },
     sensitive: written.sensitive,
     ...(written['bundle-rationale'] ? { bundleRationale: written['bundle-rationale'] } : {}),
+    amendments: written.amendments,
     ...(written.notes ? { notes: written.notes } : {}),
     ...(written.outcome ? { outcome: written.outcome } : {}),
   };

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { text, uniqueList } from '../source/fields.js';
 import {
+  amendmentsSchema,
   eventName,
   flagsSchema,
   normalizeSurface,
@@ -10,6 +11,7 @@ import {
   stateSchema,
   surfaceSchema,
   windowSchema,
+  type Amendment,
   type Plan,
   type PlanState,
 } from '../plan/schema.js';
@@ -34,6 +36,7 @@ const writtenEntry = z.strictObject(
       .lte(1, { error: 'a share in (0, 1]' })
       .optional(),
     events: uniqueList(eventName, 'a list of logging events the test depends on').default([]),
+    amendments: amendmentsSchema,
   },
   { error: 'a test entry with id, title, owners, state, flags, window and surface' },
 );
@@ -58,6 +61,8 @@ export interface RegistryEntry {
   trafficShare: number;
   /** Logging events the test's readout depends on (exposure and metric events). */
   events: string[];
+  /** Changes recorded after the start (see the plan field of the same name). */
+  amendments: Amendment[];
   /** Where the entry is written. */
   file: string;
   line: number;
@@ -77,6 +82,7 @@ export const registrySchema = writtenRegistrySchema.transform((written) =>
     population: { platforms: entry.population.platforms, locales: entry.population.locales, regions: entry.population.regions },
     trafficShare: entry['traffic-share'] ?? 1,
     events: entry.events,
+    amendments: entry.amendments,
   })),
 );
 
@@ -99,6 +105,7 @@ export function entryFromPlan(plan: Plan, file: string, line: number): RegistryE
     population: { platforms: plan.population.platforms, locales: plan.population.locales, regions: plan.population.regions },
     trafficShare: plan.design.trafficShare,
     events: eventsOfPlan(plan),
+    amendments: plan.amendments,
     file,
     line,
     plan,

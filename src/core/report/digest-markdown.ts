@@ -19,6 +19,8 @@ const LABEL: Record<DigestItemKind, string> = {
   'draft-past-start': '📝 draft past its start',
   'long-on-hold': '⏸️ on hold too long',
   'ending-soon': '📅 ending soon',
+  'outcome-missing': '📋 no outcome recorded',
+  'concluded-flag-in-code': '🧹 concluded, flag still in the code',
 };
 
 /** The headline: only what is there to count, each with its noun in the right number. */

@@ -5,6 +5,7 @@ import { formatCount, countOf } from './numbers.js';
 import { coverageNotice } from './coverage-notice.js';
 import { checklistSummary } from './review-summary.js';
 import { lengthSummary, renderSizingMarkdown } from './sizing.js';
+import { planChangeTable } from './plan-amendment.js';
 
 /** The hidden marker that finds our comment again. User text can never contain it (see markdown-safe). */
 export const REVIEW_MARKER = '<!-- plumbline:review -->';
@@ -57,7 +58,7 @@ function where(path: string | undefined, line: number | undefined, options: Mark
 function findingLine(f: ReviewFinding, options: MarkdownOptions): string {
   const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
   const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
-  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}`;
+  return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}${planChangeTable(f)}`;
 }
 
 /** The first visible line: the verdict, and the one thing to do first when something blocks or warns. */

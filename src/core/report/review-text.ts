@@ -3,6 +3,7 @@ import type { Severity } from '../review/finding.js';
 import { formatCount, countOf } from './numbers.js';
 import { checklistSummary } from './review-summary.js';
 import { lengthSummary } from './sizing.js';
+import { planChangeLines } from './plan-amendment.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
 
 const LABEL: Record<Severity, string> = { block: 'BLOCK', warn: 'warn ', note: 'note ' };
@@ -29,7 +30,7 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
   for (const f of review.findings) {
     const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ''}: ` : '';
     out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ''}${f.origin === 'known' ? style.dim(' (already known)') : ''}: ${terminalSafe(f.message)}`);
-    out.push(`    fix: ${terminalSafe(f.fix)}`);
+    out.push(`    fix: ${terminalSafe(f.fix)}`, ...planChangeLines(f, terminalSafe));
   }
   for (const plan of review.plans) {
     out.push('', `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(', '))}) ${terminalSafe(plan.file)}:${plan.line}`);

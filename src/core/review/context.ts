@@ -1,6 +1,7 @@
 import type { Settings } from '../config/schema.js';
 import type { LoadedPlan } from '../plan/load.js';
 import type { Registry } from '../registry/load.js';
+import type { RegistryEntry } from '../registry/schema.js';
 import type { FlagTouch } from '../scan/flag-touches.js';
 import type { Location, NameHits } from '../scan/name-scan.js';
 import type { Problem } from '../source/problem.js';
@@ -32,8 +33,8 @@ export interface ReviewContext {
   pr: PullRequestInfo;
   /** Plans this change is about. */
   linked: LinkedPlan[];
-  /** Plan files the change adds or edits that do not load. */
-  invalidPlanFiles: { file: string; problems: Problem[] }[];
+  /** Plan files that do not load and that the change adds or edits, or whose flags (`flags`, read leniently) it touches. */
+  invalidPlanFiles: { file: string; problems: Problem[]; flags?: string[] }[];
   /** Paths the change adds or edits. */
   changedPaths: string[];
   /** Flags the change touches in code or in flag definition files. */
@@ -43,8 +44,26 @@ export interface ReviewContext {
   events: ReadonlyMap<string, NameHits>;
   /** Events of running plans that the change deletes from a line (quoted), with where. */
   removedEvents: ReadonlyMap<string, Location>;
-  /** Today as YYYY-MM-DD (UTC) when the entry point knows it; the core has no clock. */
-  today?: string;
+  /** The review's day (YYYY-MM-DD): whether a test has started or passed its planned end. */
+  today: string;
+  /** Changed text files: their path on each side, the changed line numbers and the text on each side. */
+  changedCode: readonly ChangedCode[];
+  /** Text at head of the changed files and of the files where linked plans log exposure, by path. */
+  codeAtHead: ReadonlyMap<string, string>;
+  /** First locations at head of every flag key a started test reads (product code only, comments left out). */
+  flagsAtHead: ReadonlyMap<string, NameHits>;
+  /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */
+  baseEntries: readonly RegistryEntry[];
+}
+
+export interface ChangedCode {
+  path: string;
+  /** Where the file was at the base commit (differs on a rename). */
+  basePath: string;
+  added: readonly number[];
+  removed: readonly number[];
+  head?: string;
+  base?: string;
 }
 
 /** A check reads the context and says what it found, at the code's default severity. */

@@ -1,3 +1,6 @@
+import type { FieldChange } from '../plan/compare.js';
+import type { Amendment } from '../plan/schema.js';
+
 /** One thing the review has to say, with where and how to fix it. */
 export type Severity = 'block' | 'warn' | 'note';
 
@@ -12,6 +15,12 @@ export interface Finding {
   plan?: string;
   file?: string;
   line?: number;
+  /** Frozen-plan findings: what changed in a started plan, field by field (before and after as written). */
+  changes?: FieldChange[];
+  /** Frozen-plan findings: the amendment the change adds, when it adds one. */
+  amendment?: Amendment;
+  /** event-removed and test-ended-early: the ids of the running tests that depend on what is removed. */
+  dependents?: string[];
 }
 
 /**
@@ -50,6 +59,14 @@ export const FINDING_CODES = {
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
   'outcome-mismatch': { severity: 'block', about: 'a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override' },
   'outcome-override': { severity: 'warn', about: 'a recorded outcome departs from the registered rule with an override and a reason to judge' },
+  'plan-frozen': { severity: 'block', about: 'a started test’s plan changes what decides its result without an amendment' },
+  'plan-amended': { severity: 'note', about: 'a started test’s plan changes what decides its result and records why (shown before and after)' },
+  'plan-deleted': { severity: 'block', about: 'the change deletes the plan of a started test that has no outcome' },
+  'plan-end-moved': { severity: 'warn', about: 'a started test’s planned end moves later, or earlier without interim looks' },
+  'test-ended-early': { severity: 'block', about: 'the change removes the last read of a started test’s flag before its planned end, with no outcome recorded' },
+  'outcome-missing': { severity: 'note', about: 'the change removes the flag of a test past its planned end whose outcome is not recorded' },
+  'exposure-one-arm': { severity: 'warn', about: 'the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm' },
+  'treatment-changed': { severity: 'warn', about: 'code around a started test’s flag read, or its flag definition, changes mid-test' },
   'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 

@@ -62,6 +62,12 @@ export const reviewReportSchema = z
         origin: z
           .enum(['introduced', 'known'])
           .describe('introduced: this change brought it; known: the same finding already held for the plan at the base commit'),
+        changes: z
+          .array(z.object({ field: z.string(), before: z.string(), after: z.string() }))
+          .optional()
+          .describe('Frozen-plan findings: each changed field of a started test’s plan, as written at the base commit and at head.'),
+        amendment: z.object({ date: z.string(), changed: z.string(), reason: z.string() }).optional().describe('plan-amended: the amendment the change records.'),
+        dependents: z.array(z.string()).optional().describe('event-removed and test-ended-early: ids of the running tests that depend on what the change removes.'),
       }),
     ),
     plans: z.array(
@@ -91,7 +97,7 @@ export const reviewReportSchema = z
         }),
         power: z.number(),
         window: z.object({ start: z.string().optional(), end: z.string().optional() }),
-        events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional() })),
+        events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional(), mentionedAt: location.optional() })),
       }),
     ),
     flags: z.array(

@@ -1,4 +1,6 @@
 import type { FileDiff } from './diff.js';
+import { findCalls, lineStarts } from './calls.js';
+import { commentsOfText, insideRanges } from './comments.js';
 import { QUOTED_STRING, constantValue } from './patterns.js';
 
 /** A changed line that evaluates, defines or names a feature flag. */
@@ -37,20 +39,32 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
     if (diff.binary) continue;
     for (const side of ['added', 'removed'] as const) {
       const file = side === 'removed' ? (diff.previousPath ?? diff.path) : diff.path;
-      for (const { line, text } of diff[side]) {
-        for (const pattern of inputs.patterns) {
-          pattern.lastIndex = 0;
-          for (const match of text.matchAll(pattern)) {
-            const groups = match.groups ?? {};
-            if (groups.key) add({ key: groups.key, file, line, side, via: 'call' });
-            else if (groups.ident) {
-              const key = resolveConstant(inputs.textOf(side, file), groups.ident);
-              if (key) add({ key, file, line, side, via: 'constant' });
-            }
+      const text = inputs.textOf(side, file);
+      const changed = new Set(diff[side].map((l) => l.line));
+      if (text !== undefined) {
+        // Over the whole file, so a call a formatter split over lines counts when any of its lines changed.
+        for (const site of findCalls(text, file, inputs.patterns)) {
+          let touched = false;
+          for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
+          if (!touched) continue;
+          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text, site.groups.ident) : undefined);
+          if (key) add({ key, file, line: site.valueLine, side, via: site.groups.key ? 'call' : 'constant' });
+        }
+      } else {
+        for (const { line, text: lineText } of diff[side]) {
+          for (const pattern of inputs.patterns) {
+            pattern.lastIndex = 0;
+            for (const match of lineText.matchAll(pattern)) if (match.groups?.key) add({ key: match.groups.key, file, line, side, via: 'call' });
           }
         }
-        for (const match of text.matchAll(QUOTED_STRING)) {
-          if (inputs.knownKeys.has(match[2]!)) add({ key: match[2]!, file, line, side, via: 'literal' });
+      }
+      const comments = text !== undefined ? commentsOfText(text, file) : [];
+      const lineStart = text !== undefined ? lineStarts(text) : [];
+      for (const { line, text: lineText } of diff[side]) {
+        for (const match of lineText.matchAll(QUOTED_STRING)) {
+          if (!inputs.knownKeys.has(match[2]!)) continue;
+          if (text !== undefined && insideRanges(comments, (lineStart[line - 1] ?? 0) + match.index)) continue;
+          add({ key: match[2]!, file, line, side, via: 'literal' });
         }
       }
     }

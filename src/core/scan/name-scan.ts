@@ -1,4 +1,6 @@
 import { buildAutomaton } from './aho-corasick.js';
+import { commentsOfBytes, insideRanges } from './comments.js';
+import { evidenceKindOf } from './evidence.js';
 
 /** A place in a file: 1-based line and column (column in bytes of UTF-8). */
 export interface Location {
@@ -7,11 +9,16 @@ export interface Location {
   column: number;
 }
 
-/** Where a name first appears: anywhere (even inside another word), as a whole quoted string, and in a logging call. */
+/**
+ * Where a name first appears: anywhere (even inside another word); as a whole quoted string in product code;
+ * in a logging call in product code; and where it is only mentioned (quoted in a test, fixture, document or
+ * generated file, or inside a comment), which never counts as logged.
+ */
 export interface NameHits {
   first?: Location;
   firstQuoted?: Location;
   firstCall?: Location;
+  firstMention?: Location;
 }
 
 export interface NameScanner {
@@ -51,6 +58,8 @@ export function createNameScanner(names: readonly string[], callPatterns: readon
       bytesSeen += bytes.length;
       // Line numbers are counted only when a first occurrence is recorded, from the last one counted.
       // Matches arrive in order of their end; a name holds no newline, so its start shares that line.
+      const product = evidenceKindOf(path) === 'code';
+      let comments: [number, number][] | undefined;
       let countedTo = 0;
       let line = 1;
       let lineStart = 0;
@@ -70,9 +79,18 @@ export function createNameScanner(names: readonly string[], callPatterns: readon
         h.first ??= here;
         const quote = bytes[start - 1];
         if (quote === undefined || !QUOTES.has(quote) || bytes[end + 1] !== quote) return;
+        if (!product) {
+          h.firstMention ??= here;
+          return;
+        }
+        comments ??= commentsOfBytes(bytes, path);
+        if (insideRanges(comments, start)) {
+          h.firstMention ??= here;
+          return;
+        }
         h.firstQuoted ??= here;
-        // Is this quoted name the event of a logging call? Only its own line needs matching.
-        if (!h.firstCall && callPatterns.length && isLoggedOnLine(bytes, lineStart, unique[name]!, callPatterns)) h.firstCall = here;
+        // Is this quoted name the event of a logging call? The call may start a few lines up.
+        if (!h.firstCall && callPatterns.length && isLoggedAt(bytes, lineStart, start - 1, unique[name]!, callPatterns)) h.firstCall = here;
       });
     },
     results() {
@@ -84,14 +102,29 @@ export function createNameScanner(names: readonly string[], callPatterns: readon
   };
 }
 
-/** True when a logging-call pattern on the line starting at `lineStart` logs exactly `name`. */
-function isLoggedOnLine(bytes: Uint8Array, lineStart: number, name: string, patterns: readonly RegExp[]): boolean {
-  let lineEnd = bytes.indexOf(10, lineStart);
+/** Lines before a quoted name that a call split by a formatter may start on. */
+const CALL_LOOKBACK_LINES = 3;
+
+/**
+ * True when a logging-call pattern logs exactly `name` with its opening quote at byte `quoteAt`: the call
+ * may open up to a few lines above (`track(\n  'name',`), as formatters write long calls.
+ */
+function isLoggedAt(bytes: Uint8Array, lineStart: number, quoteAt: number, name: string, patterns: readonly RegExp[]): boolean {
+  let from = lineStart;
+  for (let n = 0; n < CALL_LOOKBACK_LINES && from > 0; n++) from = from >= 2 ? bytes.lastIndexOf(10, from - 2) + 1 : 0;
+  let lineEnd = bytes.indexOf(10, quoteAt);
   if (lineEnd === -1) lineEnd = bytes.length;
-  const line = Buffer.from(bytes.buffer, bytes.byteOffset + lineStart, lineEnd - lineStart).toString('utf8');
+  const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length);
+  const window = buffer.toString('utf8', from, lineEnd);
+  // The quote's offset in characters of the window (the bytes before it may hold multi-byte characters).
+  const quoteIndex = buffer.toString('utf8', from, quoteAt).length;
   for (const pattern of patterns) {
     pattern.lastIndex = 0;
-    for (const match of line.matchAll(pattern)) if (match.groups?.event === name) return true;
+    for (const match of window.matchAll(pattern)) {
+      if (match.groups?.event !== name) continue;
+      // This occurrence, not another call of the same event higher up in the window.
+      if (match.index + match[0].lastIndexOf(name) - 1 === quoteIndex) return true;
+    }
   }
   return false;
 }

@@ -34,8 +34,11 @@ export const BUILTIN_FLAG_PATTERNS: readonly string[] = [
   ...either(`\\b(?:isEnabled|isFeatureEnabled|featureEnabled|is_enabled|is_feature_enabled|feature_enabled|isOn|getFlag|get_flag|flagValue|flag_value)\\s*\\(\\s*`),
 ];
 
+// Method names as each language writes them: camelCase (JavaScript, Java, Swift), snake_case (Python, Ruby),
+// PascalCase for exported methods in Go and for methods in C# (Track, TrackEvent, LogEvent, Capture).
+// Go calls may take a context first: client.Track(ctx, "event").
 export const BUILTIN_LOG_PATTERNS: readonly string[] = [
-  `(?:\\b|\\.)(?:track|trackEvent|track_event|logEvent|log_event|event|capture|emit|record|recordEvent|record_event)\\s*\\(\\s*(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`,
+  `(?:\\b|\\.)(?:[Tt]rack|[Tt]rackEvent|track_event|[Ll]ogEvent|log_event|[Ee]vent|[Cc]apture|[Ee]mit|[Rr]ecord|[Rr]ecordEvent|record_event)(?:Async)?\\s*\\(\\s*(?:(?:ctx|context|context\\.\\w+\\(\\))\\s*,\\s*)?(?:(?:name|event)\\s*[:=]\\s*)?${Q}(?<event>[^"'\`\\n]+)\\k<q>`,
 ];
 
 /** What follows a constant's name where its value is written: an optional type, `=` or `:`, then the quoted key. */

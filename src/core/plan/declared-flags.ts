@@ -1,0 +1,19 @@
+import { parse } from 'yaml';
+
+/**
+ * The flag keys a plan file names under `flags:`, read leniently from a plan that does not load, so a
+ * flag whose plan is broken is reported as "plan invalid" rather than as a flag without a plan (whose fix
+ * would be to write a second plan). Empty when the text does not get that far.
+ */
+export function declaredFlags(text: string | undefined): string[] {
+  if (text === undefined) return [];
+  let value: unknown;
+  try {
+    value = parse(text, { maxAliasCount: 100, uniqueKeys: false });
+  } catch {
+    return [];
+  }
+  if (value === null || typeof value !== 'object' || Array.isArray(value)) return [];
+  const flags = (value as { flags?: unknown }).flags;
+  return Array.isArray(flags) ? flags.filter((f): f is string => typeof f === 'string') : [];
+}

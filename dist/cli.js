@@ -38060,7 +38060,7 @@ function multiplierNotes(entry, sizing) {
 }
 function notesOf(sizing) {
   const family = sizing.family ? [
-    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
+    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)} alone) and no harmless guardrail shows significant harm (a false alarm); ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail rules out harm beyond its tolerance. Metrics taken as independent; the two events overlap, so neither bounds the other.`
   ] : [];
   return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
 }
@@ -40200,6 +40200,7 @@ var analysisSize = external_exports.object({
   perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
   totalUnits: external_exports.number().int(),
   clusters: external_exports.number().int().optional(),
+  clustersPerArm: external_exports.array(external_exports.object({ arm: external_exports.string(), groups: external_exports.number().int() })).optional(),
   duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
 });
 var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
@@ -40225,6 +40226,12 @@ var sizeResult = external_exports.union([
       headline: analysisSize.optional(),
       atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
       powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
+      traffic: external_exports.union([
+        external_exports.object({ kind: external_exports.literal("daily"), perDay: external_exports.number() }),
+        external_exports.object({ kind: external_exports.literal("unique"), points: external_exports.array(external_exports.object({ days: external_exports.number().int(), units: external_exports.number() })), exponent: external_exports.number() })
+      ]).optional(),
+      feasibility: external_exports.object({ feasible: external_exports.boolean(), longestDays: external_exports.number().int(), reason: external_exports.string().optional(), detectableAtLongest: change.optional() }).optional(),
+      squareRootAllocation: external_exports.object({ controlWeight: external_exports.number(), treatmentWeight: external_exports.number(), totalUnits: external_exports.number().int(), unitsSaved: external_exports.number().int() }).optional(),
       notes: external_exports.array(external_exports.string())
     })
   }),
@@ -40261,6 +40268,8 @@ var reviewReportSchema = external_exports.object({
         planId: external_exports.string(),
         plannedDays: external_exports.number().int().optional(),
         dailyUnits: external_exports.number().optional(),
+        uniqueUnits: external_exports.array(external_exports.object({ days: external_exports.number().int(), units: external_exports.number() })).optional(),
+        family: external_exports.object({ primaryPower: external_exports.number(), noFalseAlarm: external_exports.number(), allGuardrailsClear: external_exports.number() }).optional(),
         metrics: external_exports.array(
           external_exports.object({
             metric: external_exports.string(),
@@ -40268,6 +40277,9 @@ var reviewReportSchema = external_exports.object({
             kind: external_exports.enum(["proportion", "mean", "ratio"]),
             direction: external_exports.enum(["increase", "decrease"]),
             sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
+            alpha: external_exports.number(),
+            power: external_exports.number(),
+            guardrailLooks: external_exports.object({ looks: external_exports.number().int(), falseAlarm: external_exports.number() }).optional(),
             result: sizeResult
           })
         )

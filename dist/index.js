@@ -61760,7 +61760,7 @@ var writtenPlanSchema = external_exports.strictObject({
       power: openShare("a power strictly between 0 and 1, e.g. 0.8").default(0.8),
       sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)], { error: "1 or 2 (one- or two-sided test)" }).default(2).describe("A two-sided test (2) detects harm as well as gain."),
       "min-detectable-effect": effectSize.optional().describe("Smallest effect on the primary metric worth detecting."),
-      "daily-units": positiveNumber("expected eligible units per day, e.g. 12000").optional(),
+      "daily-units": positiveNumber("expected new eligible units per day (units not seen before), e.g. 12000").optional(),
       "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the exclusion-group slice, or 1."),
       "interim-looks": wholeNumber("a whole number of interim analyses from 0 to 20", 0, 20).default(0),
       "interim-boundary": external_exports.enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(", ")}` }).default("obrien-fleming-spending").describe("Stopping boundary for interim looks: Lan-DeMets spending of O\u2019Brien-Fleming or Pocock type, or the classical constant boundaries."),

@@ -9,7 +9,8 @@ import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
-afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })));
+// Removing some 150 temporary repositories can outlast the default hook timeout on a busy machine.
+afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 120_000);
 
 async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);

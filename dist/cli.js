@@ -36023,21 +36023,25 @@ var { jStat } = import_jstat.default;
 function normalUpper(x) {
   if (Number.isNaN(x)) return Number.NaN;
   if (x < 3) return 0.5 * jStat.erfc(x / Math.SQRT2);
+  const mills = continuedFraction(x, (i) => i, () => x);
+  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / mills;
+}
+function continuedFraction(b0, a, b) {
   const tiny = 1e-300;
-  let f = x;
-  let c = x;
+  let f = b0 === 0 ? tiny : b0;
+  let c = f;
   let d = 0;
-  for (let i = 1; i < 500; i++) {
-    d = x + i * d;
+  for (let i = 1; i < 1e4; i++) {
+    d = b(i) + a(i) * d;
     if (Math.abs(d) < tiny) d = tiny;
-    c = x + i / c;
+    c = b(i) + a(i) / c;
     if (Math.abs(c) < tiny) c = tiny;
     d = 1 / d;
     const step = c * d;
     f *= step;
     if (Math.abs(step - 1) < 1e-16) break;
   }
-  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / f;
+  return f;
 }
 function normalCdf(x) {
   return x < 0 ? normalUpper(-x) : 1 - normalUpper(x);
@@ -36062,23 +36066,7 @@ function chiSquareUpper(x, df) {
 function upperRegularizedGamma(a, x) {
   if (x <= 0) return 1;
   if (x < a + 1) return Math.max(0, 1 - jStat.lowRegGamma(a, x));
-  const tiny = 1e-300;
-  let b = x + 1 - a;
-  let c = 1 / tiny;
-  let d = 1 / b;
-  let h = d;
-  for (let i = 1; i < 1e4; i++) {
-    const an = -i * (i - a);
-    b += 2;
-    d = an * d + b;
-    if (Math.abs(d) < tiny) d = tiny;
-    c = b + an / c;
-    if (Math.abs(c) < tiny) c = tiny;
-    d = 1 / d;
-    const step = d * c;
-    h *= step;
-    if (Math.abs(step - 1) < 1e-16) break;
-  }
+  const h = continuedFraction(0, (i) => i === 1 ? 1 : -(i - 1) * (i - 1 - a), (i) => x + 1 - a + 2 * (i - 1));
   return Math.exp(-x + a * Math.log(x) - jStat.gammaln(a)) * h;
 }
 

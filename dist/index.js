@@ -61312,21 +61312,25 @@ var { jStat } = import_jstat.default;
 function normalUpper(x) {
   if (Number.isNaN(x)) return Number.NaN;
   if (x < 3) return 0.5 * jStat.erfc(x / Math.SQRT2);
+  const mills = continuedFraction(x, (i) => i, () => x);
+  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / mills;
+}
+function continuedFraction(b0, a, b) {
   const tiny = 1e-300;
-  let f = x;
-  let c = x;
+  let f = b0 === 0 ? tiny : b0;
+  let c = f;
   let d = 0;
-  for (let i = 1; i < 500; i++) {
-    d = x + i * d;
+  for (let i = 1; i < 1e4; i++) {
+    d = b(i) + a(i) * d;
     if (Math.abs(d) < tiny) d = tiny;
-    c = x + i / c;
+    c = b(i) + a(i) / c;
     if (Math.abs(c) < tiny) c = tiny;
     d = 1 / d;
     const step = c * d;
     f *= step;
     if (Math.abs(step - 1) < 1e-16) break;
   }
-  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / f;
+  return f;
 }
 function normalCdf(x) {
   return x < 0 ? normalUpper(-x) : 1 - normalUpper(x);

@@ -36579,7 +36579,7 @@ function multiplierNotes(entry, sizing) {
 }
 function notesOf(sizing) {
   const family = sizing.family ? [
-    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`
+    `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)} alone) and no harmless guardrail shows significant harm (a false alarm); ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail rules out harm beyond its tolerance. Metrics taken as independent; the two events overlap, so neither bounds the other.`
   ] : [];
   return [...family, ...sizing.metrics.flatMap((entry) => entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [])];
 }
@@ -36917,6 +36917,7 @@ var analysisSize = external_exports.object({
   perArm: external_exports.array(external_exports.object({ arm: external_exports.string(), units: external_exports.number().int() })),
   totalUnits: external_exports.number().int(),
   clusters: external_exports.number().int().optional(),
+  clustersPerArm: external_exports.array(external_exports.object({ arm: external_exports.string(), groups: external_exports.number().int() })).optional(),
   duration: external_exports.object({ days: external_exports.number().int(), weeks: external_exports.number().int() }).optional()
 });
 var change = external_exports.object({ absolute: external_exports.number(), relative: external_exports.number(), to: external_exports.number() });
@@ -36942,6 +36943,12 @@ var sizeResult = external_exports.union([
       headline: analysisSize.optional(),
       atPlannedEnd: external_exports.object({ days: external_exports.number().int(), totalUnits: external_exports.number(), power: external_exports.number().optional(), detectable: change.optional() }).optional(),
       powerByDay: external_exports.array(external_exports.object({ day: external_exports.number().int(), power: external_exports.number() })).optional(),
+      traffic: external_exports.union([
+        external_exports.object({ kind: external_exports.literal("daily"), perDay: external_exports.number() }),
+        external_exports.object({ kind: external_exports.literal("unique"), points: external_exports.array(external_exports.object({ days: external_exports.number().int(), units: external_exports.number() })), exponent: external_exports.number() })
+      ]).optional(),
+      feasibility: external_exports.object({ feasible: external_exports.boolean(), longestDays: external_exports.number().int(), reason: external_exports.string().optional(), detectableAtLongest: change.optional() }).optional(),
+      squareRootAllocation: external_exports.object({ controlWeight: external_exports.number(), treatmentWeight: external_exports.number(), totalUnits: external_exports.number().int(), unitsSaved: external_exports.number().int() }).optional(),
       notes: external_exports.array(external_exports.string())
     })
   }),
@@ -36982,6 +36989,8 @@ var reviewReportSchema = external_exports.object({
         planId: external_exports.string(),
         plannedDays: external_exports.number().int().optional(),
         dailyUnits: external_exports.number().optional(),
+        uniqueUnits: external_exports.array(external_exports.object({ days: external_exports.number().int(), units: external_exports.number() })).optional(),
+        family: external_exports.object({ primaryPower: external_exports.number(), noFalseAlarm: external_exports.number(), allGuardrailsClear: external_exports.number() }).optional(),
         metrics: external_exports.array(
           external_exports.object({
             metric: external_exports.string(),
@@ -36989,6 +36998,9 @@ var reviewReportSchema = external_exports.object({
             kind: external_exports.enum(["proportion", "mean", "ratio"]),
             direction: external_exports.enum(["increase", "decrease"]),
             sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)]),
+            alpha: external_exports.number(),
+            power: external_exports.number(),
+            guardrailLooks: external_exports.object({ looks: external_exports.number().int(), falseAlarm: external_exports.number() }).optional(),
             result: sizeResult
           })
         )
@@ -37063,21 +37075,25 @@ var { jStat } = import_jstat.default;
 function normalUpper(x) {
   if (Number.isNaN(x)) return Number.NaN;
   if (x < 3) return 0.5 * jStat.erfc(x / Math.SQRT2);
+  const mills = continuedFraction(x, (i) => i, () => x);
+  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / mills;
+}
+function continuedFraction(b0, a, b) {
   const tiny = 1e-300;
-  let f = x;
-  let c = x;
+  let f = b0 === 0 ? tiny : b0;
+  let c = f;
   let d = 0;
-  for (let i = 1; i < 500; i++) {
-    d = x + i * d;
+  for (let i = 1; i < 1e4; i++) {
+    d = b(i) + a(i) * d;
     if (Math.abs(d) < tiny) d = tiny;
-    c = x + i / c;
+    c = b(i) + a(i) / c;
     if (Math.abs(c) < tiny) c = tiny;
     d = 1 / d;
     const step = c * d;
     f *= step;
     if (Math.abs(step - 1) < 1e-16) break;
   }
-  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / f;
+  return f;
 }
 function normalCdf(x) {
   return x < 0 ? normalUpper(-x) : 1 - normalUpper(x);
@@ -37102,23 +37118,7 @@ function chiSquareUpper(x, df) {
 function upperRegularizedGamma(a, x) {
   if (x <= 0) return 1;
   if (x < a + 1) return Math.max(0, 1 - jStat.lowRegGamma(a, x));
-  const tiny = 1e-300;
-  let b = x + 1 - a;
-  let c = 1 / tiny;
-  let d = 1 / b;
-  let h = d;
-  for (let i = 1; i < 1e4; i++) {
-    const an = -i * (i - a);
-    b += 2;
-    d = an * d + b;
-    if (Math.abs(d) < tiny) d = tiny;
-    c = b + an / c;
-    if (Math.abs(c) < tiny) c = tiny;
-    d = 1 / d;
-    const step = d * c;
-    h *= step;
-    if (Math.abs(step - 1) < 1e-16) break;
-  }
+  const h = continuedFraction(0, (i) => i === 1 ? 1 : -(i - 1) * (i - 1 - a), (i) => x + 1 - a + 2 * (i - 1));
   return Math.exp(-x + a * Math.log(x) - jStat.gammaln(a)) * h;
 }
 function studentUpper(x, df) {
@@ -37631,7 +37631,7 @@ var writtenPlanSchema = external_exports.strictObject({
       power: openShare("a power strictly between 0 and 1, e.g. 0.8").default(0.8),
       sides: external_exports.union([external_exports.literal(1), external_exports.literal(2)], { error: "1 or 2 (one- or two-sided test)" }).default(2).describe("A two-sided test (2) detects harm as well as gain."),
       "min-detectable-effect": effectSize.optional().describe("Smallest effect on the primary metric worth detecting."),
-      "daily-units": positiveNumber("expected eligible units per day, e.g. 12000").optional(),
+      "daily-units": positiveNumber("expected new eligible units per day (units not seen before), e.g. 12000").optional(),
       "traffic-share": positiveShare("the share of eligible units enrolled, in (0, 1], e.g. 0.5").optional().describe("Defaults to the width of the traffic-split range, or 1."),
       "interim-looks": wholeNumber("a whole number of interim analyses from 0 to 20", 0, 20).default(0),
       "interim-boundary": external_exports.enum(BOUNDARY_KINDS, { error: `one of ${BOUNDARY_KINDS.join(", ")}` }).default("obrien-fleming-spending").describe("Stopping boundary for interim looks: Lan-DeMets spending of O\u2019Brien-Fleming or Pocock type, or the classical constant boundaries."),
@@ -42810,7 +42810,7 @@ design:
   alpha: 0.05
   power: 0.8
   min-detectable-effect: { relative: 0.05 }
-  # daily-units: 10000      # expected eligible units per day
+  # daily-units: 10000      # new eligible units per day (or unique-units: [{ days: 7, units: .. }, { days: 28, units: .. }])
 
 # Decision rules: write them now, before any data arrives.
 # decisions:

@@ -63,7 +63,7 @@ describe('plumbline size', () => {
     [['size', '--kind', 'proportion', '--baseline', '0.95', '--effect', '0.1'], 'cannot size this metric: effect: the effect takes the rate from 0.95 to 1.045, outside (0, 1)'],
     [['size', '--kind', 'proportion', '--baseline', '1', '--effect', '0.1'], '--baseline needs a baseline rate strictly between 0 and 1'],
     [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--power', '0.04'], 'power (0.04) must exceed the significance level (0.05)'],
-    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '0'], '--daily-units needs expected eligible units per day'],
+    [['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '0'], '--daily-units needs expected new eligible units per day'],
     [['-C', 'demo/repo', 'size', 'nope'], 'no plan "nope" in this repository'],
   ])('refuses %j with a clear message and exit code 2', (args, message) => {
     const run = runCli(args);

@@ -12,3 +12,11 @@ export function requireRPackageInCi(name: string): boolean {
   }
   return available;
 }
+
+/** The tail of an R script that writes the data frame `out` with every digit. */
+export const WRITE_OUTPUT = `
+out[] <- lapply(out, function(x) sprintf("%.17g", x))
+write.csv(out, "output.csv", row.names = FALSE, quote = FALSE)
+`;
+
+export const relativeError = (ours: number, theirs: number) => Math.abs(ours - theirs) / Math.max(Math.abs(theirs), 1e-300);

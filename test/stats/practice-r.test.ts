@@ -3,7 +3,7 @@ import { chiSquareUpper, normalUpper } from '../../src/core/stats/distributions.
 import { holmAdjust } from '../../src/core/stats/multiple-testing.js';
 import { sequentialBoundaries, spentByTime } from '../../src/core/stats/sequential.js';
 import { requireRInCi, runR } from '../helpers/r.js';
-import { requireRPackageInCi } from '../helpers/r-packages.js';
+import { relativeError, requireRPackageInCi, WRITE_OUTPUT } from '../helpers/r-packages.js';
 import { seededRandom } from '../helpers/random.js';
 
 /**
@@ -13,12 +13,6 @@ import { seededRandom } from '../helpers/random.js';
 const rAvailable = requireRInCi();
 const mvtnormAvailable = rAvailable && requireRPackageInCi('mvtnorm');
 
-const WRITE_OUTPUT = `
-out[] <- lapply(out, function(x) sprintf("%.17g", x))
-write.csv(out, "output.csv", row.names = FALSE, quote = FALSE)
-`;
-
-const relativeError = (ours: number, theirs: number) => Math.abs(ours - theirs) / Math.max(Math.abs(theirs), 1e-300);
 
 describe.skipIf(!rAvailable)('against R: upper tails and Holm', () => {
   const random = seededRandom(20261202);

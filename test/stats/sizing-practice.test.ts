@@ -7,16 +7,11 @@ import { sizePlan } from '../../src/core/stats/plan-sizing.js';
 import { uniqueUnitsCurve } from '../../src/core/stats/traffic.js';
 import { planSchema } from '../../src/core/plan/schema.js';
 import { requireRInCi, runR } from '../helpers/r.js';
-import { requireRPackageInCi } from '../helpers/r-packages.js';
+import { relativeError, requireRPackageInCi, WRITE_OUTPUT } from '../helpers/r-packages.js';
 import { seededRandom } from '../helpers/random.js';
 
 const rAvailable = requireRInCi();
 const mvtnormAvailable = rAvailable && requireRPackageInCi('mvtnorm');
-const WRITE_OUTPUT = `
-out[] <- lapply(out, function(x) sprintf("%.17g", x))
-write.csv(out, "output.csv", row.names = FALSE, quote = FALSE)
-`;
-const relativeError = (ours: number, theirs: number) => Math.abs(ours - theirs) / Math.max(Math.abs(theirs), 1e-300);
 
 const base: SizingRequest = {
   baseline: { kind: 'proportion', rate: 0.1 },

@@ -92,7 +92,7 @@ design:
   alpha: 0.05
   power: 0.8
   min-detectable-effect: { relative: 0.05 }
-  # daily-units: 10000      # expected eligible units per day
+  # daily-units: 10000      # new eligible units per day (or unique-units: [{ days: 7, units: .. }, { days: 28, units: .. }])
 
 # Decision rules: write them now, before any data arrives.
 # decisions:

@@ -384,7 +384,7 @@ export const writtenPlanSchema = z
             .default(2)
             .describe('A two-sided test (2) detects harm as well as gain.'),
           'min-detectable-effect': effectSize.optional().describe('Smallest effect on the primary metric worth detecting.'),
-          'daily-units': positiveNumber('expected eligible units per day, e.g. 12000').optional(),
+          'daily-units': positiveNumber('expected new eligible units per day (units not seen before), e.g. 12000').optional(),
           'traffic-share': positiveShare('the share of eligible units enrolled, in (0, 1], e.g. 0.5')
             .optional()
             .describe('Defaults to the width of the traffic-split range, or 1.'),

@@ -101,7 +101,7 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
 function notesOf(sizing: PlanSizing): string[] {
   const family = sizing.family
     ? [
-        `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)}) and no guardrail raises a false alarm; ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail also rules out its harm (metrics taken as independent).`,
+        `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)} alone) and no harmless guardrail shows significant harm (a false alarm); ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail rules out harm beyond its tolerance. Metrics taken as independent; the two events overlap, so neither bounds the other.`,
       ]
     : [];
   return [...family, ...sizing.metrics.flatMap((entry) => (entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []))];

@@ -12,6 +12,7 @@ const analysisSize = z.object({
   perArm: z.array(z.object({ arm: z.string(), units: z.number().int() })),
   totalUnits: z.number().int(),
   clusters: z.number().int().optional(),
+  clustersPerArm: z.array(z.object({ arm: z.string(), groups: z.number().int() })).optional(),
   duration: z.object({ days: z.number().int(), weeks: z.number().int() }).optional(),
 });
 const change = z.object({ absolute: z.number(), relative: z.number(), to: z.number() });
@@ -37,6 +38,14 @@ const sizeResult = z.union([
       headline: analysisSize.optional(),
       atPlannedEnd: z.object({ days: z.number().int(), totalUnits: z.number(), power: z.number().optional(), detectable: change.optional() }).optional(),
       powerByDay: z.array(z.object({ day: z.number().int(), power: z.number() })).optional(),
+      traffic: z
+        .union([
+          z.object({ kind: z.literal('daily'), perDay: z.number() }),
+          z.object({ kind: z.literal('unique'), points: z.array(z.object({ days: z.number().int(), units: z.number() })), exponent: z.number() }),
+        ])
+        .optional(),
+      feasibility: z.object({ feasible: z.boolean(), longestDays: z.number().int(), reason: z.string().optional(), detectableAtLongest: change.optional() }).optional(),
+      squareRootAllocation: z.object({ controlWeight: z.number(), treatmentWeight: z.number(), totalUnits: z.number().int(), unitsSaved: z.number().int() }).optional(),
       notes: z.array(z.string()),
     }),
   }),
@@ -84,6 +93,8 @@ export const reviewReportSchema = z
           planId: z.string(),
           plannedDays: z.number().int().optional(),
           dailyUnits: z.number().optional(),
+          uniqueUnits: z.array(z.object({ days: z.number().int(), units: z.number() })).optional(),
+          family: z.object({ primaryPower: z.number(), noFalseAlarm: z.number(), allGuardrailsClear: z.number() }).optional(),
           metrics: z.array(
             z.object({
               metric: z.string(),
@@ -91,6 +102,9 @@ export const reviewReportSchema = z
               kind: z.enum(['proportion', 'mean', 'ratio']),
               direction: z.enum(['increase', 'decrease']),
               sides: z.union([z.literal(1), z.literal(2)]),
+              alpha: z.number(),
+              power: z.number(),
+              guardrailLooks: z.object({ looks: z.number().int(), falseAlarm: z.number() }).optional(),
               result: sizeResult,
             }),
           ),

@@ -20,21 +20,30 @@ const { jStat } = jstatModule;
 export function normalUpper(x: number): number {
   if (Number.isNaN(x)) return Number.NaN;
   if (x < 3) return 0.5 * jStat.erfc(x / Math.SQRT2);
+  const mills = continuedFraction(x, (i) => i, () => x);
+  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / mills;
+}
+
+/**
+ * b0 + a1 / (b1 + a2 / (b2 + ...)) by the modified Lentz method (Press et al., Numerical Recipes,
+ * 3rd ed., sec. 5.2), until a term changes the value by less than a double can show.
+ */
+function continuedFraction(b0: number, a: (i: number) => number, b: (i: number) => number): number {
   const tiny = 1e-300;
-  let f = x;
-  let c = x;
+  let f = b0 === 0 ? tiny : b0;
+  let c = f;
   let d = 0;
-  for (let i = 1; i < 500; i++) {
-    d = x + i * d;
+  for (let i = 1; i < 10_000; i++) {
+    d = b(i) + a(i) * d;
     if (Math.abs(d) < tiny) d = tiny;
-    c = x + i / c;
+    c = b(i) + a(i) / c;
     if (Math.abs(c) < tiny) c = tiny;
     d = 1 / d;
     const step = c * d;
     f *= step;
     if (Math.abs(step - 1) < 1e-16) break;
   }
-  return Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI) / f;
+  return f;
 }
 
 export function normalCdf(x: number): number {
@@ -86,23 +95,8 @@ export function chiSquareUpper(x: number, df: number): number {
 export function upperRegularizedGamma(a: number, x: number): number {
   if (x <= 0) return 1;
   if (x < a + 1) return Math.max(0, 1 - jStat.lowRegGamma(a, x));
-  const tiny = 1e-300;
-  let b = x + 1 - a;
-  let c = 1 / tiny;
-  let d = 1 / b;
-  let h = d;
-  for (let i = 1; i < 10_000; i++) {
-    const an = -i * (i - a);
-    b += 2;
-    d = an * d + b;
-    if (Math.abs(d) < tiny) d = tiny;
-    c = b + an / c;
-    if (Math.abs(c) < tiny) c = tiny;
-    d = 1 / d;
-    const step = d * c;
-    h *= step;
-    if (Math.abs(step - 1) < 1e-16) break;
-  }
+  // 1 / (x + 1 - a - 1(1 - a) / (x + 3 - a - 2(2 - a) / (x + 5 - a - ...))), Numerical Recipes' gcf.
+  const h = continuedFraction(0, (i) => (i === 1 ? 1 : -(i - 1) * (i - 1 - a)), (i) => x + 1 - a + 2 * (i - 1));
   return Math.exp(-x + a * Math.log(x) - (jStat as unknown as { gammaln(a: number): number }).gammaln(a)) * h;
 }
 

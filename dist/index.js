@@ -63889,7 +63889,8 @@ function isolationCost(subject, other) {
   const now = lengthSetter2(subject.sizing);
   const isolated = lengthSetter2(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
   if (now && isolated) {
-    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")} (${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")}).`;
+    const weeks = now.duration.weeks === isolated.duration.weeks ? `still ${countOf(now.duration.weeks, "week")}` : `${countOf(now.duration.weeks, "week")} \u2192 ${countOf(isolated.duration.weeks, "week")}`;
+    return `Isolating would cost this test time: ${how}, ${formatCount(now.duration.days)} \u2192 ${countOf(isolated.duration.days, "day")} (${weeks}).`;
   }
   return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} \u2192 ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
 }
@@ -65116,6 +65117,17 @@ var FINDING_CODES = {
   "treatment-changed": { severity: "warn", about: "code around a started test\u2019s flag read, or its flag definition, changes mid-test" },
   "bug-fix-unmeasured": { severity: "note", about: "a bug fix changes product code without a flag or a check test" }
 };
+var CHANGE_BOUND = /* @__PURE__ */ new Set([
+  "plan-frozen",
+  "plan-amended",
+  "plan-deleted",
+  "plan-end-moved",
+  "test-ended-early",
+  "outcome-missing",
+  "treatment-changed",
+  "exposure-one-arm",
+  "event-removed"
+]);
 var ALWAYS_BLOCKS = /* @__PURE__ */ new Set(["decisions-missing"]);
 
 // src/core/review/build-review.ts
@@ -65146,7 +65158,7 @@ function findingKey(f) {
 function knownAtBase(base) {
   if (!base) return /* @__PURE__ */ new Set();
   return new Set(
-    CHECKS.flatMap((check3) => check3(base)).filter((f) => f.plan !== void 0).map(findingKey)
+    CHECKS.flatMap((check3) => check3(base)).filter((f) => f.plan !== void 0 && !CHANGE_BOUND.has(f.code)).map(findingKey)
   );
 }
 function byMention(a, b) {

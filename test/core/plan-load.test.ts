@@ -49,7 +49,7 @@ describe('loadPlan accepts valid plans', () => {
     expect(plan.hypothesis).toEqual({ change: 'Two changes shipped together.', because: 'They only make sense together.', direction: 'decrease' });
     expect(plan.surface.trafficSplit).toEqual({ name: 'board-core', range: { start: 0, end: 40 } });
     expect(plan.amendments).toEqual([{ date: '2026-11-20', changed: 'power 0.8 -> 0.9', reason: 'Traffic doubled after the app release.' }]);
-    expect(plan.outcome).toEqual({ date: '2026-12-20', reason: 'Shipped the compact layout.' });
+    expect(plan.outcome).toMatchObject({ date: '2026-12-20', reason: 'Shipped the compact layout.' });
     expect(plan.design).toMatchObject({
       control: 'baseline',
       alpha: 0.01,

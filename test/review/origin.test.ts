@@ -15,7 +15,8 @@ afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: tru
 async function review(files: Record<string, string>, changes: Record<string, string | null>): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr: {} });
+  // Before the clean plan's start (2026-11-02): a draft may still change, so no frozen-plan finding joins in.
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr: {}, today: '2026-10-01' });
   if (outcome.kind !== 'review') throw new Error('settings invalid');
   return outcome.review;
 }
@@ -25,8 +26,8 @@ const primaryOnly = { primary: { name: 'bought', kind: 'proportion', baseline: {
 
 describe('introduced or already known', () => {
   it('marks a finding that held at base as known and a new one as introduced', async () => {
-    const r = await review(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ hypothesis: noReason })) }), {
-      'experiments/good.yaml': planYaml(cleanPlan({ hypothesis: noReason, metrics: primaryOnly })),
+    const r = await review(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'draft', hypothesis: noReason })) }), {
+      'experiments/good.yaml': planYaml(cleanPlan({ state: 'draft', hypothesis: noReason, metrics: primaryOnly })),
       'src/cart.ts': CART_CODE_TOUCHED,
     });
     const origin = Object.fromEntries(r.findings.map((f) => [f.code, f.origin]));

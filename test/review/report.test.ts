@@ -33,7 +33,7 @@ const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').r
 describe('the demo review', () => {
   it('blocks on the widened guardrail of a running test, the missing decision rules and the removed exposure event', () => {
     expect(review.verdict).toBe('blocked');
-    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['plan-frozen', 'decisions-missing', 'event-removed']);
+    expect(review.findings.filter((f) => f.severity === 'block').map((f) => f.code)).toEqual(['plan-frozen', 'event-removed', 'decisions-missing']);
   });
 
   it('warns that the tip prompt logs exposure after an early return on control', () => {
@@ -149,7 +149,7 @@ describe('the comment for the person who opened the pull request', () => {
   it('shows failed checklist items with a count instead of every ticked box', () => {
     const markdown = renderReviewMarkdown(review);
     expect(markdown).not.toMatch(/^- \[[ x]\] /m);
-    expect(markdown).toContain('**10 of 11 hold.** Not yet: No collision with a running test.');
+    expect(markdown).toContain('**9 of 11 hold.** Not yet: Exposure logged in every arm where the change is seen (the logging call read against the flag read, not only the plan’s reach); No collision with a running test.');
   });
 
   it('says a collision once in sight: the finding, with the table collapsed', () => {
@@ -163,8 +163,9 @@ describe('the comment for the person who opened the pull request', () => {
     const text = renderReviewText(review, { color: false });
     // delivery-slot-nudge: the primary needs 10 days, the guardrail slot-booked 15, so the guardrail sets the length.
     for (const out of [markdown, text]) expect(out).toContain('3 weeks (guardrail slot-booked sets the length: 15 days)');
-    expect(text).toContain('>99.9% for order-placed by the planned end (28 days)');
-    expect(markdown).toContain('&gt;99.9% for order-placed by the planned end (28 days)');
+    // checkout-tip-prompt: the demo change widens its guardrail's tolerance, so the primary sets the length.
+    expect(text).toContain('>99.9% for tip-added by the planned end (28 days)');
+    expect(markdown).toContain('&gt;99.9% for tip-added by the planned end (28 days)');
     expect(text).not.toMatch(/100\.0%|\b1 weeks\b|\d{4} days/);
   });
 });

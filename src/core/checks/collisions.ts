@@ -121,7 +121,9 @@ export function isolationCost(subject: LinkedPlan, other: RegistryEntry): string
   const now = lengthSetter(subject.sizing);
   const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
   if (now && isolated) {
-    return `Isolating would cost this test time: ${how}, ${countOf(now.duration.weeks, 'week')} → ${countOf(isolated.duration.weeks, 'week')} (${formatCount(now.duration.days)} → ${countOf(isolated.duration.days, 'day')}).`;
+    // Tests run in whole weeks, so a longer test can still fit the same number of weeks: say so rather than "1 week → 1 week".
+    const weeks = now.duration.weeks === isolated.duration.weeks ? `still ${countOf(now.duration.weeks, 'week')}` : `${countOf(now.duration.weeks, 'week')} → ${countOf(isolated.duration.weeks, 'week')}`;
+    return `Isolating would cost this test time: ${how}, ${formatCount(now.duration.days)} → ${countOf(isolated.duration.days, 'day')} (${weeks}).`;
   }
   return `Isolating would cost this test traffic: ${how}, ${percent(wanted)} → ${percent(share)} of eligible units, so it would run about ${formatMultiplier(wanted / share)} as long.`;
 }

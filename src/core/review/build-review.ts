@@ -6,7 +6,7 @@ import { closestName } from '../source/closest-name.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
 import type { LinkReason, ReviewContext } from './context.js';
 import type { UnseenFiles } from './coverage.js';
-import { ALWAYS_BLOCKS, FINDING_CODES, type Finding, type Severity } from './finding.js';
+import { ALWAYS_BLOCKS, CHANGE_BOUND, FINDING_CODES, type Finding, type Severity } from './finding.js';
 
 /** `partial`: nothing found, but some files of the change were never seen (see Review.partial). */
 export type Verdict = 'blocked' | 'warnings' | 'clear' | 'nothing-to-check' | 'partial';
@@ -105,7 +105,7 @@ function knownAtBase(base: ReviewContext | undefined): Set<string> {
   if (!base) return new Set();
   return new Set(
     CHECKS.flatMap((check) => check(base))
-      .filter((f) => f.plan !== undefined)
+      .filter((f) => f.plan !== undefined && !CHANGE_BOUND.has(f.code))
       .map(findingKey),
   );
 }

@@ -72,5 +72,22 @@ export const FINDING_CODES = {
 
 export type FindingCode = keyof typeof FINDING_CODES;
 
+/**
+ * Codes about what the change itself does (a plan rewritten, code edited around a flag read, a read
+ * or a logging call removed), or read from the code at head only: the base context cannot have
+ * them, so they always count as introduced by the change.
+ */
+export const CHANGE_BOUND: ReadonlySet<string> = new Set([
+  'plan-frozen',
+  'plan-amended',
+  'plan-deleted',
+  'plan-end-moved',
+  'test-ended-early',
+  'outcome-missing',
+  'treatment-changed',
+  'exposure-one-arm',
+  'event-removed',
+]);
+
 /** Codes whose severity the settings cannot lower. */
 export const ALWAYS_BLOCKS: ReadonlySet<string> = new Set(['decisions-missing']);

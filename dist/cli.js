@@ -38476,7 +38476,7 @@ async function openChange(repoDir, baseRef, headRef) {
     return cached3;
   };
   const streamFiles = async (side, paths, onFile) => {
-    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile);
+    if (side === "head" && await checkedOutIsHead) return readWorkingTree(repoDir, paths, onFile, { codeOnly: true });
     const listing = await listingOf(commitOf(side));
     const requests = [];
     for (const path of paths) {
@@ -38488,8 +38488,14 @@ async function openChange(repoDir, baseRef, headRef) {
   const filesAt = (side) => {
     const readTexts = async (paths) => {
       const found = /* @__PURE__ */ new Map();
-      const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
-      await catFiles(repoDir, requests, (path, bytes) => found.set(path, bytes.toString("utf8")), { skipBinary: false });
+      const keep = (path, bytes) => found.set(path, bytes.toString("utf8"));
+      if (side === "head" && await checkedOutIsHead) {
+        const tracked = new Set(await trackedFiles("head"));
+        await readWorkingTree(repoDir, paths.filter((p) => tracked.has(p)), keep, { codeOnly: false });
+      } else {
+        const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
+        await catFiles(repoDir, requests, keep, { skipBinary: false });
+      }
       return paths.map((p) => found.get(p));
     };
     return {
@@ -38642,14 +38648,14 @@ function catFiles(cwd, requests, onFile, options) {
 function looksBinaryStart(bytes) {
   return bytes.subarray(0, BINARY_PROBE_BYTES).indexOf(0) !== -1;
 }
-async function readWorkingTree(root, paths, onFile) {
+async function readWorkingTree(root, paths, onFile, options) {
   let buffer = Buffer.allocUnsafe(1 << 20);
   for (const path of paths) {
     let fd;
     try {
-      fd = openSync(join2(root, path), NO_FOLLOW_READ);
+      fd = openSync(join2(root, path), options.codeOnly ? NO_FOLLOW_READ : "r");
       const size = fstatSync(fd).size;
-      if (size > MAX_SCANNED_FILE_BYTES) continue;
+      if (options.codeOnly && size > MAX_SCANNED_FILE_BYTES) continue;
       if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
       let read = 0;
       while (read < size) {
@@ -38658,7 +38664,7 @@ async function readWorkingTree(root, paths, onFile) {
         read += n;
       }
       const bytes = buffer.subarray(0, read);
-      if (!looksBinaryStart(bytes)) onFile(path, bytes);
+      if (!options.codeOnly || !looksBinaryStart(bytes)) onFile(path, bytes);
     } catch {
     } finally {
       if (fd !== void 0) closeSync(fd);

@@ -102,7 +102,7 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
   };
 
   const streamFiles = async (side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void) => {
-    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTree(repoDir, paths, onFile);
+    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTree(repoDir, paths, onFile, { codeOnly: true });
     // Blob ids and sizes from one listing: git then reads each object directly instead of walking
     // trees per path, and files too large to be code are never asked for.
     const listing = await listingOf(commitOf(side));
@@ -117,9 +117,16 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
   const filesAt = (side: 'base' | 'head'): RepoFiles => {
     const readTexts = async (paths: readonly string[]) => {
       const found = new Map<string, string>();
-      // A few named files: git resolves each path itself, so no listing of the whole tree is needed.
-      const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
-      await catFiles(repoDir, requests, (path, bytes) => found.set(path, bytes.toString('utf8')), { skipBinary: false });
+      const keep = (path: string, bytes: Buffer) => found.set(path, bytes.toString('utf8'));
+      if (side === 'head' && (await checkedOutIsHead)) {
+        // Only tracked paths: an untracked file in the checkout is not part of head.
+        const tracked = new Set(await trackedFiles('head'));
+        await readWorkingTree(repoDir, paths.filter((p) => tracked.has(p)), keep, { codeOnly: false });
+      } else {
+        // A few named files: git resolves each path itself, so no listing of the whole tree is needed.
+        const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
+        await catFiles(repoDir, requests, keep, { skipBinary: false });
+      }
       return paths.map((p) => found.get(p));
     };
     return {
@@ -315,17 +322,17 @@ function looksBinaryStart(bytes: Buffer): boolean {
 /**
  * Reads tracked files from the working tree in path order into one reused buffer: the scan keeps
  * no file, so nothing needs a buffer of its own, and 50 MB of code costs no garbage collection.
- * Skips what the objects path skips: symbolic links (never followed), files over the size
- * limit, and files whose first 8,000 bytes hold a NUL.
+ * With `codeOnly`, skips what the objects path skips for the scan: symbolic links (never
+ * followed), files over the size limit, and files whose first 8,000 bytes hold a NUL.
  */
-async function readWorkingTree(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void> {
+async function readWorkingTree(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void, options: { codeOnly: boolean }): Promise<void> {
   let buffer = Buffer.allocUnsafe(1 << 20);
   for (const path of paths) {
     let fd: number | undefined;
     try {
-      fd = openSync(join(root, path), NO_FOLLOW_READ);
+      fd = openSync(join(root, path), options.codeOnly ? NO_FOLLOW_READ : 'r');
       const size = fstatSync(fd).size;
-      if (size > MAX_SCANNED_FILE_BYTES) continue;
+      if (options.codeOnly && size > MAX_SCANNED_FILE_BYTES) continue;
       if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
       let read = 0;
       while (read < size) {
@@ -334,7 +341,7 @@ async function readWorkingTree(root: string, paths: readonly string[], onFile: (
         read += n;
       }
       const bytes = buffer.subarray(0, read);
-      if (!looksBinaryStart(bytes)) onFile(path, bytes);
+      if (!options.codeOnly || !looksBinaryStart(bytes)) onFile(path, bytes);
     } catch {
       // A tracked path that is not a readable regular file here (a submodule, a link) holds no code to scan.
     } finally {

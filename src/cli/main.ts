@@ -1,33 +1,17 @@
 import { resolve } from 'node:path';
 import { Command, CommanderError, Option } from 'commander';
 import { createRepoFiles, writeFileAtomic } from '../adapters/files.js';
-import { planJsonSchema } from '../core/plan/json-schema.js';
-import { registryJsonSchema } from '../core/registry/load.js';
-import { settingsJsonSchema } from '../core/config/load.js';
-import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
-import { renderValidationText, validationJson } from '../core/report/validation.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
-import { isCalendarDate } from '../core/source/fields.js';
+import { SRM_ALARM_P } from '../core/stats/choices.js';
 import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
-import { loadWorkspace } from '../run/load-workspace.js';
-import { scaffoldPlan } from '../run/scaffold.js';
-import { validateRepository } from '../run/validate.js';
 import { createCliOutput, type CliOutput } from './output.js';
 import { addSizeOptions, requestFromFlags, type SizeFlags } from './size-command.js';
-import { renderSizingMarkdown, renderSizingText, sizingJson } from '../core/report/sizing.js';
-import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
-import { openChange } from '../adapters/git.js';
-import { reviewChange } from '../run/review-change.js';
-import { renderReviewMarkdown } from '../core/report/review-markdown.js';
-import { renderReviewText } from '../core/report/review-text.js';
-import { reviewJson } from '../core/review/report-schema.js';
-import { pullRequestInfo, type CheckFlags } from './check-command.js';
-import { digestRepository } from '../run/digest.js';
-import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../core/report/digest-markdown.js';
-import { ADJUST_JSON_FORMAT, SRM_JSON_FORMAT, renderAdjustedText, renderSrmText } from '../core/report/readout.js';
-import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
-import { benjaminiHochberg, bonferroniAdjust } from '../core/stats/multiple-testing.js';
+import type { CheckFlags } from './check-command.js';
 import { VERSION } from '../version.js';
+
+// Only the parser, the help and what every command shares load at start; each command imports
+// what it uses when it runs, so `--version`, `--help` and `validate` never load git, the review,
+// the statistics or the schema generator (see docs/decisions/0003-where-the-time-goes.md).
 
 /** Exit codes, documented in --help and the README. */
 export const EXIT = { ok: 0, findings: 1, usage: 2, internal: 3 } as const;
@@ -79,6 +63,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .action(async (local: { format: 'text' | 'json' }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
       const { output, ...ports } = context(options);
+      const [{ validateRepository }, { renderValidationText, validationJson }] = await Promise.all([import('../run/validate.js'), import('../core/report/validation.js')]);
       const outcome = await validateRepository(ports);
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
       const { report } = outcome;
@@ -94,6 +79,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .action(async (local: { format: 'text' | 'json'; state?: string }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
       const { output, ...ports } = context(options);
+      const [{ loadWorkspace }, { registryJson, renderRegistryText }] = await Promise.all([import('../run/load-workspace.js'), import('../core/report/registry-list.js')]);
       const loaded = await loadWorkspace(ports);
       if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
       const { workspace } = loaded;
@@ -118,6 +104,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
       const options = program.opts<CommonOptions>();
       const { output, ...ports } = context({ ...options, format: 'text' });
       const today = local.today ?? new Date().toISOString().slice(0, 10);
+      const [{ isCalendarDate }, { scaffoldPlan }] = await Promise.all([import('../core/source/fields.js'), import('../run/scaffold.js')]);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });
       if (local.stdout) return output.out(result.text);
@@ -134,6 +121,7 @@ export function buildProgram(setExit: (code: number) => void): Command {
     const options = program.opts<CommonOptions>();
     const { output, ...ports } = context({ ...options, format: 'text' });
     if (planName && flags.kind) throw new UsageError('name a plan or give --kind, not both');
+    const [{ sizeFromRequest, sizeNamedPlan }, { renderSizingMarkdown, renderSizingText, sizingJson }] = await Promise.all([import('../run/size.js'), import('../core/report/sizing.js')]);
     const outcome = planName ? await sizeNamedPlan({ ...ports, plan: planName }) : sizeFromRequest(requestFromFlags(flags));
     if (!planName && !outcome.sizing.metrics[0]!.result.ok) {
       const { error } = outcome.sizing.metrics[0]!.result;
@@ -163,6 +151,14 @@ export function buildProgram(setExit: (code: number) => void): Command {
       const options = program.opts<CommonOptions>();
       const { output } = context({ ...options, format: 'text' });
       const cwd = resolve(options.cwd);
+      const [{ pullRequestInfo }, { openChange }, { reviewChange }, { reviewJson }, { renderReviewMarkdown }, { renderReviewText }] = await Promise.all([
+        import('./check-command.js'),
+        import('../adapters/git.js'),
+        import('../run/review-change.js'),
+        import('../core/review/report-schema.js'),
+        import('../core/report/review-markdown.js'),
+        import('../core/report/review-text.js'),
+      ]);
       const pr = await pullRequestInfo(flags, cwd);
       const change = await openChange(cwd, flags.base!, flags.head);
       const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}) });
@@ -184,6 +180,11 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .action(async (local: { today?: string; format: string }) => {
       const options = program.opts<CommonOptions>();
       const { output, ...ports } = context({ ...options, format: 'text' });
+      const [{ isCalendarDate }, { digestRepository }, { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText }] = await Promise.all([
+        import('../core/source/fields.js'),
+        import('../run/digest.js'),
+        import('../core/report/digest-markdown.js'),
+      ]);
       if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
       if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));
@@ -199,7 +200,8 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .option('--weights <weights>', 'planned weights, e.g. 50,50 (default: equal)')
     .option('--threshold <p>', 'alarm below this p-value', String(SRM_ALARM_P))
     .addOption(formatOption())
-    .action((counts: string[], local: { weights?: string; threshold: string; format: string }) => {
+    .action(async (counts: string[], local: { weights?: string; threshold: string; format: string }) => {
+      const [{ sampleRatioMismatch }, { SRM_JSON_FORMAT, renderSrmText }] = await Promise.all([import('../core/stats/srm.js'), import('../core/report/readout.js')]);
       const observed = parseNumbers('counts', counts);
       const weights = local.weights ? parseNumbers('weights', local.weights.split(',')) : observed.map(() => 1);
       const threshold = parseNumbers('threshold', [local.threshold])[0]!;
@@ -216,7 +218,8 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
     .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
     .addOption(formatOption())
-    .action((values: string[], local: { q: string; format: string }) => {
+    .action(async (values: string[], local: { q: string; format: string }) => {
+      const [{ benjaminiHochberg, bonferroniAdjust }, { ADJUST_JSON_FORMAT, renderAdjustedText }] = await Promise.all([import('../core/stats/multiple-testing.js'), import('../core/report/readout.js')]);
       const p = parseNumbers('p-values', values);
       const q = parseNumbers('q', [local.q])[0]!;
       const bh = benjaminiHochberg(p);
@@ -236,8 +239,13 @@ export function buildProgram(setExit: (code: number) => void): Command {
     .command('schema')
     .description('print the JSON Schema of a file format, for editors and other tools')
     .addArgument(new Command().createArgument('[format]', 'plan, registry or settings').choices(['plan', 'registry', 'settings']).default('plan'))
-    .action((which: 'plan' | 'registry' | 'settings') => {
-      const schema = which === 'plan' ? planJsonSchema() : which === 'registry' ? registryJsonSchema() : settingsJsonSchema();
+    .action(async (which: 'plan' | 'registry' | 'settings') => {
+      const schema =
+        which === 'plan'
+          ? (await import('../core/plan/json-schema.js')).planJsonSchema()
+          : which === 'registry'
+            ? (await import('../core/registry/load.js')).registryJsonSchema()
+            : (await import('../core/config/load.js')).settingsJsonSchema();
       process.stdout.write(`${JSON.stringify(schema, null, 2)}\n`);
     });
 

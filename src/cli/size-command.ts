@@ -1,5 +1,5 @@
 import { Command, Option } from 'commander';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/sequential.js';
+import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/choices.js';
 import type { MetricBaseline, SizingRequest } from '../core/stats/sizing.js';
 import { UsageError } from '../errors.js';
 

@@ -13,7 +13,7 @@ import {
   uniqueList,
   wholeNumber,
 } from '../source/fields.js';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/sequential.js';
+import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/choices.js';
 
 /**
  * The plan file: one YAML file per experiment, written before launch.

@@ -1,0 +1,44 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+
+// src/core/report/numbers.ts
+var NOT_A_NUMBER = "n/a";
+function formatCount(n) {
+  return Number.isFinite(n) ? Math.round(n).toLocaleString("en-US") : NOT_A_NUMBER;
+}
+function formatRate(rate) {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  const percent = rate * 100;
+  const digits = Math.abs(percent) >= 10 ? 1 : Math.abs(percent) >= 1 ? 2 : Math.max(2, 1 - Math.floor(Math.log10(Math.abs(percent) || 1)));
+  return `${percent.toFixed(Math.min(digits, 4))}%`;
+}
+function formatRelative(change) {
+  if (!Number.isFinite(change)) return NOT_A_NUMBER;
+  const percent = change * 100;
+  const text = Number(percent.toPrecision(3)).toString();
+  return `${percent >= 0 ? "+" : ""}${text}%`;
+}
+function formatValue(value) {
+  if (!Number.isFinite(value)) return NOT_A_NUMBER;
+  if (value !== 0 && Math.abs(value) < 1e-3) return value.toExponential(2);
+  return Number(value.toPrecision(4)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+}
+function formatPower(power) {
+  if (!Number.isFinite(power)) return NOT_A_NUMBER;
+  if (power > 0.999) return ">99.9%";
+  if (power < 1e-3) return "<0.1%";
+  return `${(power * 100).toFixed(1)}%`;
+}
+function formatMultiplier(m) {
+  return Number.isFinite(m) ? `\xD7${m >= 10 ? m.toFixed(1) : m.toFixed(2)}` : NOT_A_NUMBER;
+}
+
+export {
+  formatCount,
+  formatRate,
+  formatRelative,
+  formatValue,
+  formatPower,
+  formatMultiplier
+};

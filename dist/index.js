@@ -2,6 +2,10 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
+  createRepoFiles,
+  writeFileAtomic
+} from "./chunks/chunk-ER4STLMC.js";
+import {
   reviewJson
 } from "./chunks/chunk-7H6XXGZJ.js";
 import {
@@ -31,10 +35,6 @@ import "./chunks/chunk-SNSXL25Y.js";
 import "./chunks/chunk-X2H4NLT2.js";
 import "./chunks/chunk-BRB7BNQY.js";
 import "./chunks/chunk-AAUUFJV7.js";
-import {
-  createRepoFiles,
-  writeFileAtomic
-} from "./chunks/chunk-ER4STLMC.js";
 import "./chunks/chunk-LNPMABAN.js";
 import {
   BUG_REPORT_HINT,

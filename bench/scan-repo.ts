@@ -100,6 +100,8 @@ export function scanRepo(scale = 1): ScanRepo {
   git('init', '-q', '-b', 'main');
   git('add', '-A');
   git('commit', '-q', '-m', 'generated');
+  // Packed, as a clone or a CI checkout has it (loose objects would make every read a file open).
+  git('gc', '-q');
   writeFileSync(join(root, '.done'), String(bytes));
   return { root, names, bytes };
 }

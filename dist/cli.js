@@ -5,5 +5,5 @@ const require = __plumblineCreateRequire(import.meta.url);
 // src/cli/bin.ts
 import nodeModule from "node:module";
 nodeModule.enableCompileCache?.();
-var { runCli } = await import("./chunks/main-RVCL2OMN.js");
+var { runCli } = await import("./chunks/main-EJZMDWLO.js");
 process.exitCode = await runCli(process.argv);

@@ -60,9 +60,23 @@ async function resolveCommit(cwd: string, ref: string, flag: string): Promise<st
   }
 }
 
+/**
+ * Head, base and what is checked out, in one git process when all three resolve (each git process
+ * costs a fork of this one); one at a time otherwise, so an error names the ref at fault.
+ */
+async function resolveEnds(cwd: string, baseRef: string, headRef: string): Promise<{ head: string; baseTip: string; checkedOut: string }> {
+  const together = await runGit(cwd, ['rev-parse', '--end-of-options', `${headRef}^{commit}`, `${baseRef}^{commit}`, 'HEAD'])
+    .then((out) => out.toString('utf8').trim().split('\n'))
+    .catch(() => []);
+  if (together.length === 3 && together.every((id) => /^[0-9a-f]{40,64}$/.test(id))) return { head: together[0]!, baseTip: together[1]!, checkedOut: together[2]! };
+  const [head, baseTip] = await Promise.all([resolveCommit(cwd, headRef, '--head'), resolveCommit(cwd, baseRef, '--base')]);
+  const checkedOut = (await runGit(cwd, ['rev-parse', '--verify', '--quiet', 'HEAD'], { allow: [1] })).toString('utf8').trim();
+  return { head, baseTip, checkedOut };
+}
+
 /** Opens the change base...head: from their merge base to head, as a pull request shows it. */
 export async function openChange(repoDir: string, baseRef: string, headRef: string): Promise<ChangeSource> {
-  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, '--head'), resolveCommit(repoDir, baseRef, '--base')]);
+  const { head, baseTip, checkedOut } = await resolveEnds(repoDir, baseRef, headRef);
   const mergeBase = (await runGit(repoDir, ['merge-base', baseTip, head], { allow: [1] })).toString('utf8').trim();
   const base = mergeBase || baseTip;
   const commitOf = (side: 'base' | 'head') => (side === 'base' ? base : head);
@@ -70,8 +84,7 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
   // When head is what is checked out and no tracked file differs from it (the usual case in CI),
   // its files are read straight from the working tree, which is faster than inflating objects.
   const checkedOutIsHead = (async () => {
-    const current = (await runGit(repoDir, ['rev-parse', '--verify', '--quiet', 'HEAD'], { allow: [1] })).toString('utf8').trim();
-    if (current !== head) return false;
+    if (checkedOut !== head) return false;
     // Exit code 1: some tracked file differs from HEAD.
     return runGit(repoDir, ['diff', '--quiet', 'HEAD', '--']).then(
       () => true,

@@ -25,7 +25,7 @@ import "./chunks/chunk-FZSY7OIF.js";
 import "./chunks/chunk-D7CL2H7J.js";
 import {
   openChange
-} from "./chunks/chunk-T6OLRP5P.js";
+} from "./chunks/chunk-AIG2EVEX.js";
 import {
   reviewChange
 } from "./chunks/chunk-KCERDQQZ.js";

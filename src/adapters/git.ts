@@ -66,7 +66,8 @@ async function resolveCommit(cwd: string, ref: string, flag: string): Promise<st
  */
 async function resolveEnds(cwd: string, baseRef: string, headRef: string): Promise<{ head: string; baseTip: string; checkedOut: string }> {
   const together = await runGit(cwd, ['rev-parse', '--end-of-options', `${headRef}^{commit}`, `${baseRef}^{commit}`, 'HEAD'])
-    .then((out) => out.toString('utf8').trim().split('\n'))
+    // git before 2.43 echoes --end-of-options itself in this mode.
+    .then((out) => out.toString('utf8').trim().split('\n').filter((line) => line !== '--end-of-options'))
     .catch(() => []);
   if (together.length === 3 && together.every((id) => /^[0-9a-f]{40,64}$/.test(id))) return { head: together[0]!, baseTip: together[1]!, checkedOut: together[2]! };
   const [head, baseTip] = await Promise.all([resolveCommit(cwd, headRef, '--head'), resolveCommit(cwd, baseRef, '--base')]);

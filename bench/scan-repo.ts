@@ -5,7 +5,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
-const VERSION = 'scan-repo-v1';
+const VERSION = 'scan-repo-v2';
 export const FILES = 5200;
 const WORDS = ['cart', 'order', 'basket', 'slot', 'search', 'tip', 'wallet', 'promo', 'profile', 'invite', 'review', 'refund', 'rating', 'delivery', 'voucher', 'account'];
 
@@ -59,8 +59,9 @@ export function givenTree(root: string): ScanRepo {
   return { root, names: { 50: mix(50), 500: mix(500), 2000: all }, bytes };
 }
 
-export function scanRepo(): ScanRepo {
-  const root = join(process.cwd(), '.bench', VERSION);
+/** The generated tree at `scale` times the base size (5,200 modules and 52 MB at scale 1). */
+export function scanRepo(scale = 1): ScanRepo {
+  const root = join(process.cwd(), '.bench', `${VERSION}-x${scale}`);
   const all = eventNames(2000);
   const names = { 50: all.slice(0, 50), 500: all.slice(0, 500), 2000: all };
   if (existsSync(join(root, '.done'))) return { root, names, bytes: Number(readFileSync(join(root, '.done'), 'utf8')) };
@@ -68,7 +69,7 @@ export function scanRepo(): ScanRepo {
   mkdirSync(root, { recursive: true });
   const rand = random(42);
   let bytes = 0;
-  for (let f = 0; f < FILES; f++) {
+  for (let f = 0; f < FILES * scale; f++) {
     const dir = join(root, 'src', `pkg${f % 97}`, `mod${f % 13}`);
     mkdirSync(dir, { recursive: true });
     const lines: string[] = [`// generated module ${f}`, `import { track } from '../../track';`, ''];
@@ -89,7 +90,7 @@ export function scanRepo(): ScanRepo {
   }
   // Pad to 50 MB with larger vendored-looking files, still tracked and scanned.
   let pad = 0;
-  while (bytes < 52 * 1024 * 1024) {
+  while (bytes < scale * 52 * 1024 * 1024) {
     const text = Array.from({ length: 20000 }, (_, i) => `export const table_${pad}_${i} = ${Math.floor(rand() * 1e9)}; // ${WORDS[i % WORDS.length]} data row`).join('\n');
     mkdirSync(join(root, 'data'), { recursive: true });
     writeFileSync(join(root, 'data', `table${pad++}.ts`), text);
@@ -99,6 +100,8 @@ export function scanRepo(): ScanRepo {
   git('init', '-q', '-b', 'main');
   git('add', '-A');
   git('commit', '-q', '-m', 'generated');
+  // Packed, as a clone or a CI checkout has it (loose objects would make every read a file open).
+  git('gc', '-q');
   writeFileSync(join(root, '.done'), String(bytes));
   return { root, names, bytes };
 }

@@ -1,9 +1,10 @@
 // Benchmark: the event search step and the whole check, beside ripgrep over the same tracked files and names.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { build } from 'esbuild';
+import { commitPlanBranch } from './check.js';
 import { givenTree, scanRepo } from './scan-repo.js';
 
 function wall(command: string, args: string[], options: { cwd?: string; input?: string } = {}): { ms: number; stdout: string; status: number | null } {
@@ -16,26 +17,10 @@ function median(values: number[]): number {
   return [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 }
 
-const GIT_ENV = { ...process.env, GIT_AUTHOR_NAME: 'b', GIT_AUTHOR_EMAIL: 'b@b.invalid', GIT_COMMITTER_NAME: 'b', GIT_COMMITTER_EMAIL: 'b@b.invalid' };
-
 /** Branch `bench` = main plus a plan that names every event, checked out as CI would have it. */
 function checkOutPlanBranch(root: string, names: readonly string[]): void {
-  const plan = {
-    id: 'bench-plan', title: 'Bench', owners: ['@bench'], flags: ['bench-flag'], state: 'draft',
-    window: { start: '2026-11-02', end: '2026-11-29' },
-    hypothesis: { change: 'x', because: 'y', 'expected-direction': 'increase' },
-    unit: { randomization: 'user' }, surface: { path: 'bench/area' },
-    exposure: { event: names[0] },
-    metrics: { primary: { name: 'p', kind: 'proportion', baseline: { rate: 0.2 }, events: names.slice(1) } },
-    design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 10000 },
-    decisions: { win: 'a', flat: 'b', loss: 'c', 'guardrail-breach': 'd' },
-  };
-  const git = (...args: string[]) => execFileSync('git', args, { cwd: root, env: GIT_ENV, stdio: 'pipe' });
-  git('checkout', '-q', '-B', 'bench');
-  mkdirSync(join(root, 'experiments'), { recursive: true });
-  writeFileSync(join(root, 'experiments', 'bench.yaml'), JSON.stringify(plan, null, 1));
-  git('add', 'experiments/bench.yaml');
-  git('commit', '-q', '-m', `plan naming ${names.length} events`);
+  commitPlanBranch(root, names);
+  execFileSync('git', ['checkout', '-q', 'bench'], { cwd: root, stdio: 'pipe' });
 }
 
 export interface ScanFigures {

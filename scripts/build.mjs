@@ -1,7 +1,11 @@
 // Bundles the CLI and the Action into dist/ as ESM. With --check, builds into a temporary folder
 // and fails when the committed dist/ differs, so a stale bundle cannot land.
+//
+// The bundle is split: dist/cli.js and dist/index.js hold only what starts them, and every command
+// loads its own code from dist/chunks/ through dynamic import() when it runs, so `--version`,
+// `--help` and `validate` never parse the review, git, the statistics or the GitHub client.
 import { build } from 'esbuild';
-import { mkdtemp, readFile, readdir, rm, mkdir, cp } from 'node:fs/promises';
+import { mkdtemp, readFile, readdir, rm, mkdir } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -20,14 +24,35 @@ if (!check) {
   await mkdir(outdir, { recursive: true });
 }
 
+/**
+ * zod's namespace re-exports every message locale (about 330 KB), which a bundler cannot drop because
+ * `z` is imported whole. Plumbline writes its own messages and never switches locale, so the bundle
+ * gets English only; zod registers English itself when the first schema is built.
+ */
+const englishOnlyZod = {
+  name: 'english-only-zod',
+  setup(b) {
+    b.onResolve({ filter: /^\.\.\/locales\/index\.js$/ }, (args) =>
+      /[\\/]zod[\\/]v4[\\/](classic|core)[\\/]/.test(args.importer) ? { path: 'zod-locales-en', namespace: 'plumbline' } : undefined,
+    );
+    b.onLoad({ filter: /^zod-locales-en$/, namespace: 'plumbline' }, () => ({
+      contents: "export { default as en } from 'zod/v4/locales/en.js';",
+      resolveDir: process.cwd(),
+      loader: 'js',
+    }));
+  },
+};
+
 await build({
+  plugins: [englishOnlyZod],
   entryPoints: { cli: 'src/cli/bin.ts', index: 'src/action/main.ts' },
   outdir,
   bundle: true,
   platform: 'node',
   format: 'esm',
   target: 'node20',
-  splitting: false,
+  splitting: true,
+  chunkNames: 'chunks/[name]-[hash]',
   legalComments: 'none',
   sourcemap: false,
   logLevel: 'warning',
@@ -38,8 +63,9 @@ await build({
 });
 
 if (check) {
-  const names = (await readdir(outdir)).sort();
-  const committed = (await readdir('dist').catch(() => [])).sort();
+  const filesIn = async (dir) => (await readdir(dir, { recursive: true, withFileTypes: true }).catch(() => [])).filter((e) => e.isFile()).map((e) => join(e.parentPath ?? e.path, e.name).slice(dir.length + 1)).sort();
+  const names = await filesIn(outdir);
+  const committed = await filesIn('dist');
   let stale = names.join() !== committed.join();
   for (const name of names) {
     if (stale) break;

@@ -31,7 +31,10 @@ export interface ChangeSource {
   diff(): Promise<string>;
   /** The repository's files at `head` (or `base`), for plans, settings and the code scan. */
   filesAt(side: 'base' | 'head'): RepoFiles;
-  /** Every tracked file at the ref, with its bytes, streamed in path order. */
+  /**
+   * The named files at the ref that hold code, with their bytes, streamed in path order: binary files (a NUL in the
+   * first 8,000 bytes), symbolic links and files over 16 MiB are skipped. The bytes are valid only during the call.
+   */
   streamFiles(side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void>;
   /** Every tracked path at the ref. */
   trackedFiles(side: 'base' | 'head'): Promise<string[]>;

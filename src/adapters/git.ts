@@ -1,12 +1,13 @@
 import { spawn } from 'node:child_process';
-import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { closeSync, constants, fstatSync, openSync, readSync } from 'node:fs';
 import { join } from 'node:path';
 import { ExternalError } from '../errors.js';
 import type { ChangeSource, ChangedFile, RepoFiles } from '../ports.js';
 
 /**
  * The review's view of git: the change between two commits of a local repository, and the trees
- * at both ends, read from git's objects (never from the working tree, which may differ from head).
+ * at both ends, read from git's objects, or from the working tree when head is checked out and
+ * no tracked file differs from it (then the two are the same bytes).
  */
 
 interface RunOptions {
@@ -59,9 +60,24 @@ async function resolveCommit(cwd: string, ref: string, flag: string): Promise<st
   }
 }
 
+/**
+ * Head, base and what is checked out, in one git process when all three resolve (each git process
+ * costs a fork of this one); one at a time otherwise, so an error names the ref at fault.
+ */
+async function resolveEnds(cwd: string, baseRef: string, headRef: string): Promise<{ head: string; baseTip: string; checkedOut: string }> {
+  const together = await runGit(cwd, ['rev-parse', '--end-of-options', `${headRef}^{commit}`, `${baseRef}^{commit}`, 'HEAD'])
+    // git before 2.43 echoes --end-of-options itself in this mode.
+    .then((out) => out.toString('utf8').trim().split('\n').filter((line) => line !== '--end-of-options'))
+    .catch(() => []);
+  if (together.length === 3 && together.every((id) => /^[0-9a-f]{40,64}$/.test(id))) return { head: together[0]!, baseTip: together[1]!, checkedOut: together[2]! };
+  const [head, baseTip] = await Promise.all([resolveCommit(cwd, headRef, '--head'), resolveCommit(cwd, baseRef, '--base')]);
+  const checkedOut = (await runGit(cwd, ['rev-parse', '--verify', '--quiet', 'HEAD'], { allow: [1] })).toString('utf8').trim();
+  return { head, baseTip, checkedOut };
+}
+
 /** Opens the change base...head: from their merge base to head, as a pull request shows it. */
 export async function openChange(repoDir: string, baseRef: string, headRef: string): Promise<ChangeSource> {
-  const [head, baseTip] = await Promise.all([resolveCommit(repoDir, headRef, '--head'), resolveCommit(repoDir, baseRef, '--base')]);
+  const { head, baseTip, checkedOut } = await resolveEnds(repoDir, baseRef, headRef);
   const mergeBase = (await runGit(repoDir, ['merge-base', baseTip, head], { allow: [1] })).toString('utf8').trim();
   const base = mergeBase || baseTip;
   const commitOf = (side: 'base' | 'head') => (side === 'base' ? base : head);
@@ -69,37 +85,62 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
   // When head is what is checked out and no tracked file differs from it (the usual case in CI),
   // its files are read straight from the working tree, which is faster than inflating objects.
   const checkedOutIsHead = (async () => {
-    const current = (await runGit(repoDir, ['rev-parse', '--verify', '--quiet', 'HEAD'], { allow: [1] })).toString('utf8').trim();
-    if (current !== head) return false;
+    if (checkedOut !== head) return false;
     // Exit code 1: some tracked file differs from HEAD.
     return runGit(repoDir, ['diff', '--quiet', 'HEAD', '--']).then(
       () => true,
       () => false,
     );
   })();
+  const listings = new Map<string, Promise<TreeListing>>();
+  const listingOf = (commit: string) => {
+    let listing = listings.get(commit);
+    if (!listing) {
+      listing = runGit(repoDir, ['ls-tree', '-r', '-l', '-z', '--full-tree', commit]).then(parseTreeListing);
+      listings.set(commit, listing);
+    }
+    return listing;
+  };
   const trackedCache = new Map<string, Promise<string[]>>();
   const trackedFiles = (side: 'base' | 'head') => {
     const commit = commitOf(side);
     let cached = trackedCache.get(commit);
     if (!cached) {
       // The index lists the same files as head's tree when head is checked out clean, and faster.
-      cached = (side === 'head' ? checkedOutIsHead : Promise.resolve(false))
-        .then((clean) => runGit(repoDir, clean ? ['ls-files', '-z'] : ['ls-tree', '-r', '-z', '--name-only', commit]))
-        .then((out) => out.toString('utf8').split('\0').filter(Boolean).sort());
+      cached = (side === 'head' ? checkedOutIsHead : Promise.resolve(false)).then(async (clean) =>
+        clean ? (await runGit(repoDir, ['ls-files', '-z'])).toString('utf8').split('\0').filter(Boolean).sort() : (await listingOf(commit)).paths,
+      );
       trackedCache.set(commit, cached);
     }
     return cached;
   };
 
   const streamFiles = async (side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void) => {
-    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTree(repoDir, paths, onFile);
-    return catFiles(repoDir, commitOf(side), paths, onFile);
+    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTree(repoDir, paths, onFile, { codeOnly: true });
+    // Blob ids and sizes from one listing: git then reads each object directly instead of walking
+    // trees per path, and files too large to be code are never asked for.
+    const listing = await listingOf(commitOf(side));
+    const requests: BlobRequest[] = [];
+    for (const path of paths) {
+      const blob = listing.blobs.get(path);
+      if (blob && blob.size <= MAX_SCANNED_FILE_BYTES) requests.push({ path, spec: blob.oid });
+    }
+    return catFiles(repoDir, requests, onFile, { skipBinary: true });
   };
 
   const filesAt = (side: 'base' | 'head'): RepoFiles => {
     const readTexts = async (paths: readonly string[]) => {
       const found = new Map<string, string>();
-      await streamFiles(side, paths, (path, bytes) => found.set(path, bytes.toString('utf8')));
+      const keep = (path: string, bytes: Buffer) => found.set(path, bytes.toString('utf8'));
+      if (side === 'head' && (await checkedOutIsHead)) {
+        // Only tracked paths: an untracked file in the checkout is not part of head.
+        const tracked = new Set(await trackedFiles('head'));
+        await readWorkingTree(repoDir, paths.filter((p) => tracked.has(p)), keep, { codeOnly: false });
+      } else {
+        // A few named files: git resolves each path itself, so no listing of the whole tree is needed.
+        const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
+        await catFiles(repoDir, requests, keep, { skipBinary: false });
+      }
       return paths.map((p) => found.get(p));
     };
     return {
@@ -147,65 +188,165 @@ export function parseNameStatus(out: string): ChangedFile[] {
   return files;
 }
 
+/** Opening for reading without following a symbolic link (the objects path skips links too). */
+const NO_FOLLOW_READ = constants.O_RDONLY | constants.O_NOFOLLOW;
+
+/** Files larger than this are not scanned: at 16 MiB a file is data or a generated bundle, not code someone wrote. */
+export const MAX_SCANNED_FILE_BYTES = 16 * 1024 * 1024;
+/** How far a file is probed for a NUL byte to call it binary (git's own heuristic looks as far). */
+const BINARY_PROBE_BYTES = 8000;
+
+interface TreeListing {
+  /** Every file path (blobs and submodules), sorted as the working-tree path sorts them. */
+  paths: string[];
+  /** Regular files and executables only: symbolic links and submodules hold no code of their own. */
+  blobs: Map<string, { oid: string; size: number }>;
+}
+
+/** Parses `git ls-tree -r -l -z`: "<mode> <type> <oid> <size>\t<path>\0" per entry (size is "-" for submodules). */
+export function parseTreeListing(out: Buffer): TreeListing {
+  const paths: string[] = [];
+  const blobs = new Map<string, { oid: string; size: number }>();
+  for (const entry of out.toString('utf8').split('\0')) {
+    const tab = entry.indexOf('\t');
+    if (tab < 0) continue;
+    const [mode, type, oid, size] = entry.slice(0, tab).split(/ +/);
+    const path = entry.slice(tab + 1);
+    paths.push(path);
+    if (type === 'blob' && oid && (mode === '100644' || mode === '100755')) blobs.set(path, { oid, size: Number(size) });
+  }
+  return { paths: paths.sort(), blobs };
+}
+
+interface BlobRequest {
+  path: string;
+  /** What `git cat-file --batch` is asked for: a blob id, or "<commit>:<path>". */
+  spec: string;
+}
+
 /**
- * Streams blobs through one `git cat-file --batch` process: a header line per object
- * ("<oid> blob <size>" or "<name> missing"), then the bytes and a newline.
+ * Streams objects through one `git cat-file --batch` process: a header line per object
+ * ("<oid> <type> <size>" or "<spec> missing"), then the bytes and a newline. Each file is handed
+ * on as soon as its last byte arrives, so the caller's work overlaps git's inflating. A file that
+ * fits in the chunk that brought it is passed without copying; one spread over chunks is copied
+ * once into a reused buffer (never re-concatenated). With `skipBinary`, a file whose first
+ * 8,000 bytes hold a NUL is dropped as soon as that is known, its remaining bytes never copied.
+ * The bytes passed to `onFile` are valid only during the call.
  */
-function catFiles(cwd: string, commit: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void> {
-  // The batch protocol is line-based: a path holding a newline cannot be asked for (and is never a plan or source file worth scanning).
-  const asked = paths.filter((p) => !p.includes('\n'));
+function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: string, bytes: Buffer) => void, options: { skipBinary: boolean }): Promise<void> {
+  // The batch protocol is line-based: a spec holding a newline cannot be asked for.
+  const asked = requests.filter((r) => !r.spec.includes('\n'));
   if (asked.length === 0) return Promise.resolve();
   return new Promise((resolve, reject) => {
-    const child = spawn('git', ['cat-file', '--batch'], { cwd, stdio: ['pipe', 'pipe', 'pipe'] });
+    const child = spawn('git', ['cat-file', '--batch', '--buffer'], { cwd, stdio: ['pipe', 'pipe', 'pipe'] });
+    let failed: unknown;
     let index = 0;
-    let pending: Buffer = Buffer.alloc(0);
-    /** The object being read: its size, and whether it is a file to hand on (trees and submodules are not). */
-    let current: { size: number; deliver: boolean } | undefined;
+    let header = '';
+    /** Bytes of the current object still to come; -1 while reading a header, 0 when only its newline is left. */
+    let remaining = -1;
+    let size = 0;
+    let deliver = false;
+    let filled = 0;
+    let probed = false;
+    let spill = Buffer.allocUnsafe(1 << 20);
     const err: Buffer[] = [];
-    child.stdout.on('data', (chunk: Buffer) => {
-      pending = pending.length ? Buffer.concat([pending, chunk]) : chunk;
-      for (;;) {
-        if (!current) {
-          const newline = pending.indexOf(10);
-          if (newline < 0) return;
-          const header = pending.subarray(0, newline).toString('utf8');
-          pending = pending.subarray(newline + 1);
-          if (header.endsWith(' missing') || header.endsWith(' ambiguous')) {
-            index++;
+
+    const consume = (chunk: Buffer) => {
+      let at = 0;
+      while (at < chunk.length) {
+        if (remaining === -1) {
+          const newline = chunk.indexOf(10, at);
+          if (newline < 0) {
+            header += chunk.toString('latin1', at);
+            return;
+          }
+          header += chunk.toString('latin1', at, newline);
+          at = newline + 1;
+          const fields = header.split(' ');
+          const absent = header.endsWith(' missing') || header.endsWith(' ambiguous');
+          header = '';
+          if (absent || fields.length !== 3) {
+            index++; // "<spec> missing" (a spec may hold spaces): nothing follows
             continue;
           }
-          const size = Number(header.slice(header.lastIndexOf(' ') + 1));
-          current = { size: Number.isFinite(size) ? size : 0, deliver: header.includes(' blob ') };
+          size = Number(fields[2]);
+          remaining = size;
+          filled = 0;
+          deliver = fields[1] === 'blob';
+          probed = !options.skipBinary;
+          // A whole object inside this chunk goes on without a copy.
+          if (deliver && at + size < chunk.length && chunk[at + size] === 10) {
+            const bytes = chunk.subarray(at, at + size);
+            if (probed || !looksBinaryStart(bytes)) onFile(asked[index]!.path, bytes);
+            at += size + 1;
+            index++;
+            remaining = -1;
+            continue;
+          }
+          if (deliver && size > spill.length) spill = Buffer.allocUnsafe(Math.max(size, spill.length * 2));
         }
-        if (pending.length < current.size + 1) return;
-        if (current.deliver) onFile(asked[index]!, pending.subarray(0, current.size));
-        pending = pending.subarray(current.size + 1);
+        if (remaining > 0) {
+          const n = Math.min(remaining, chunk.length - at);
+          if (deliver) {
+            chunk.copy(spill, filled, at, at + n);
+            filled += n;
+            if (!probed && filled >= Math.min(size, BINARY_PROBE_BYTES)) {
+              probed = true;
+              if (looksBinaryStart(spill.subarray(0, filled))) deliver = false;
+            }
+          }
+          at += n;
+          remaining -= n;
+          continue;
+        }
+        // remaining === 0: the newline after the object.
+        at++;
+        if (deliver) onFile(asked[index]!.path, spill.subarray(0, size));
         index++;
-        current = undefined;
+        remaining = -1;
+      }
+    };
+
+    child.stdout.on('data', (chunk: Buffer) => {
+      if (failed !== undefined) return;
+      try {
+        consume(chunk);
+      } catch (error) {
+        failed = error;
+        child.kill();
       }
     });
     child.stderr.on('data', (chunk: Buffer) => err.push(chunk));
     child.on('error', (error) => reject(new ExternalError('cannot run git', 'install git and make sure it is on the PATH', { cause: error })));
     child.on('close', (code) => {
-      if (code === 0) resolve();
-      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString('utf8').trim()}`));
+      if (failed !== undefined) reject(failed);
+      else if (code === 0) resolve();
+      else reject(new ExternalError(`git cat-file failed: ${Buffer.concat(err).toString('utf8').trim() || `exit code ${code}`}`));
     });
     child.stdin.on('error', () => undefined);
-    child.stdin.end(asked.map((p) => `${commit}:${p}\n`).join(''));
+    child.stdin.end(asked.map((r) => `${r.spec}\n`).join(''));
   });
+}
+
+/** True when the start of a file holds a NUL byte, the test git itself uses for "binary". */
+function looksBinaryStart(bytes: Buffer): boolean {
+  return bytes.subarray(0, BINARY_PROBE_BYTES).indexOf(0) !== -1;
 }
 
 /**
  * Reads tracked files from the working tree in path order into one reused buffer: the scan keeps
  * no file, so nothing needs a buffer of its own, and 50 MB of code costs no garbage collection.
+ * With `codeOnly`, skips what the objects path skips for the scan: symbolic links (never
+ * followed), files over the size limit, and files whose first 8,000 bytes hold a NUL.
  */
-async function readWorkingTree(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void> {
+async function readWorkingTree(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void, options: { codeOnly: boolean }): Promise<void> {
   let buffer = Buffer.allocUnsafe(1 << 20);
   for (const path of paths) {
     let fd: number | undefined;
     try {
-      fd = openSync(join(root, path), 'r');
+      fd = openSync(join(root, path), options.codeOnly ? NO_FOLLOW_READ : 'r');
       const size = fstatSync(fd).size;
+      if (options.codeOnly && size > MAX_SCANNED_FILE_BYTES) continue;
       if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
       let read = 0;
       while (read < size) {
@@ -213,9 +354,10 @@ async function readWorkingTree(root: string, paths: readonly string[], onFile: (
         if (n === 0) break;
         read += n;
       }
-      onFile(path, buffer.subarray(0, read));
+      const bytes = buffer.subarray(0, read);
+      if (!options.codeOnly || !looksBinaryStart(bytes)) onFile(path, bytes);
     } catch {
-      // A tracked path that is not a readable file here (a submodule, a broken link) holds no code to scan.
+      // A tracked path that is not a readable regular file here (a submodule, a link) holds no code to scan.
     } finally {
       if (fd !== undefined) closeSync(fd);
     }

@@ -4,7 +4,7 @@ import { sizeFromRequest, sizeNamedPlan } from '../run/size.js';
 import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 import type { ZodType } from 'zod';
 import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/sequential.js';
+import { BOUNDARY_KINDS, type BoundaryKind } from '../core/stats/choices.js';
 import type { MetricBaseline, SizingRequest } from '../core/stats/sizing.js';
 import { UsageError } from '../errors.js';
 

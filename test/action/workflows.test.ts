@@ -36,7 +36,8 @@ describe('the Action as documented', () => {
     expect(value.permissions).toEqual({});
     expect(value.jobs.review.permissions).toEqual({ contents: 'read', 'pull-requests': 'write' });
     const [checkout, plumbline] = value.jobs.review.steps;
-    expect(checkout.with).toEqual({ 'fetch-depth': 0, 'persist-credentials': false });
+    // The head commit itself, so the review reads the working tree (docs/decisions/0003).
+    expect(checkout.with).toEqual({ ref: '${{ github.event.pull_request.head.sha }}', 'fetch-depth': 0, 'persist-credentials': false });
     expect(Object.keys(plumbline.with).every((name) => name in action.inputs)).toBe(true);
     expect(value.concurrency.group).toContain('github.event.pull_request.number');
     expect(Object.keys(value.on)).toEqual(['pull_request']);

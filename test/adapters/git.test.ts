@@ -1,8 +1,8 @@
 import { execFileSync } from 'node:child_process';
-import { rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { openChange, parseNameStatus } from '../../src/adapters/git.js';
+import { openChange, parseNameStatus, parseTreeListing } from '../../src/adapters/git.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 
 const made: string[] = [];
@@ -32,7 +32,8 @@ describe('openChange on a real repository', () => {
     expect(await change.filesAt('head').readText('nope.ts')).toBeUndefined();
     const streamed: string[] = [];
     await change.streamFiles('head', await change.trackedFiles('head'), (path, bytes) => streamed.push(`${path}:${bytes.length}`));
-    expect(streamed).toEqual(['img.bin:8', 'src/a.ts:17', 'src/keep.ts:5', 'src/new.ts:4']);
+    // img.bin holds a NUL in its first bytes: binary, not code.
+    expect(streamed).toEqual(['src/a.ts:17', 'src/keep.ts:5', 'src/new.ts:4']);
     execFileSync('git', ['checkout', '--', 'src/a.ts'], { cwd: repo.root });
   });
 
@@ -57,6 +58,77 @@ describe('parseNameStatus', () => {
     expect(parseNameStatus('R087\0old/a.ts\0new/a.ts\0M\0b.ts\0')).toEqual([
       { path: 'new/a.ts', status: 'renamed', previousPath: 'old/a.ts' },
       { path: 'b.ts', status: 'modified' },
+    ]);
+  });
+});
+
+describe('streaming a tree: git objects and the working tree give the same files', () => {
+  // Sizes around the pipe's 64 KiB chunks and the reader's 1 MiB buffer, so objects split across
+  // chunks, several share one chunk, and the reused buffer has to grow.
+  const big = (n: number, seed: string) => Array.from({ length: Math.ceil(n / seed.length) }, () => seed).join('').slice(0, n);
+  const late = `${big(9000, 'text ')}\u0000 after the probe`;
+  const files: Record<string, string> = {
+    'a/empty.ts': '',
+    'a/small.ts': 'track("x")\n',
+    'a/with space.ts': 'spaced\n',
+    'a/caf\u00e9.ts': 'accent\n',
+    'b/chunk.ts': big(70_000, 'abc\n'),
+    'b/large.ts': big(1_500_000, 'line of code\n'),
+    'b/larger.ts': big(2_600_000, 'more code\n'),
+    'c/binary-start.bin': `\u0000${big(200_000, 'x')}`,
+    'c/binary-late.dat': late,
+    'd/after.ts': 'last\n',
+  };
+  const repo = makeTwoCommitRepo(files, {});
+  made.push(repo.root);
+
+  const stream = async (checkedOut: boolean) => {
+    execFileSync('git', ['checkout', '-q', checkedOut ? 'change' : 'main'], { cwd: repo.root });
+    const change = await openChange(repo.root, repo.base, 'change');
+    const seen: [string, string][] = [];
+    await change.streamFiles('head', await change.trackedFiles('head'), (path, bytes) => seen.push([path, bytes.toString('utf8')]));
+    return seen;
+  };
+
+  it('delivers every text file in path order with its exact bytes, skipping binaries and links', async () => {
+    symlinkSync('../a/small.ts', join(repo.root, 'a/link.ts'));
+    execFileSync('git', ['add', 'a/link.ts'], { cwd: repo.root });
+    execFileSync('git', ['-c', 'user.name=T', '-c', 'user.email=t@e.invalid', 'commit', '-q', '-m', 'link'], { cwd: repo.root });
+    const expected = Object.entries(files)
+      .filter(([path]) => path !== 'c/binary-start.bin')
+      .sort(([a], [b]) => (a < b ? -1 : 1));
+    const fromObjects = await stream(false);
+    expect(fromObjects.map(([p]) => p)).toEqual(expected.map(([p]) => p));
+    expect(fromObjects).toEqual(expected);
+    expect(await stream(true)).toEqual(fromObjects);
+  });
+
+  it('reads named files at the other end whatever their size', async () => {
+    const change = await openChange(repo.root, repo.base, 'change');
+    const [large, binary, missing] = await change.filesAt('base').readTexts(['b/large.ts', 'c/binary-start.bin', 'nope']);
+    expect(large).toBe(readFileSync(join(repo.root, 'b/large.ts'), 'utf8'));
+    expect(binary?.length).toBe(200_001);
+    expect(missing).toBeUndefined();
+  });
+});
+
+describe('parseTreeListing', () => {
+  it('keeps regular files as blobs, and lists links and submodules without reading them', () => {
+    const out = Buffer.from(
+      [
+        '100644 blob 1111111111111111111111111111111111111111      12\tsrc/b.ts',
+        '100755 blob 2222222222222222222222222222222222222222       3\tbin/run',
+        '120000 blob 3333333333333333333333333333333333333333       8\tsrc/link.ts',
+        '160000 commit 4444444444444444444444444444444444444444       -\tvendor/sub',
+        '100644 blob 5555555555555555555555555555555555555555       0\tsrc/a b.ts',
+      ].join('\0') + '\0',
+    );
+    const listing = parseTreeListing(out);
+    expect(listing.paths).toEqual(['bin/run', 'src/a b.ts', 'src/b.ts', 'src/link.ts', 'vendor/sub']);
+    expect([...listing.blobs]).toEqual([
+      ['src/b.ts', { oid: '1111111111111111111111111111111111111111', size: 12 }],
+      ['bin/run', { oid: '2222222222222222222222222222222222222222', size: 3 }],
+      ['src/a b.ts', { oid: '5555555555555555555555555555555555555555', size: 0 }],
     ]);
   });
 });

@@ -148,4 +148,12 @@ describe('plumbline schema and help', () => {
     expect(run.stdout).toContain('Exit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error');
     for (const command of ['validate', 'list', 'new', 'schema']) expect(runCli([command, '--help']).status).toBe(0);
   });
+
+  it('prints the package version for --version and -V, with or without the parser loaded', () => {
+    const { version } = JSON.parse(readFileSync(join(repoRoot, 'package.json'), 'utf8')) as { version: string };
+    for (const args of [['--version'], ['-V'], ['--no-color', '--version']]) {
+      const run = runCli(args);
+      expect({ args, status: run.status, stdout: run.stdout }).toEqual({ args, status: 0, stdout: `${version}\n` });
+    }
+  });
 });

@@ -31,7 +31,7 @@ export function loadSettings(text: string | undefined, file: string): SettingsLo
   if (!read.ok) return { ok: false, errors: read.problems };
   // An empty file (or one holding only comments) means "all defaults".
   const source = read.source.value === null || read.source.value === undefined ? { ...read.source, value: {} } : read.source;
-  const checked = checkWritten(source, settingsSchema, settingsJsonSchema(), 'settings');
+  const checked = checkWritten(source, settingsSchema, settingsJsonSchema, 'settings');
   return checked.ok
     ? { ok: true, settings: checked.value, locate: (path: FieldPath) => read.source.locate(path) }
     : { ok: false, errors: checked.problems };

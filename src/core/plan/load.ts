@@ -58,7 +58,7 @@ export type PlanLoadResult = { ok: true; loaded: LoadedPlan; warnings: Problem[]
 export function loadPlan(text: string, file: string): PlanLoadResult {
   const read = readYaml(text, file, PLAN_LIMITS, 'plan');
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, planSchema, planJsonSchema(), 'plan');
+  const checked = checkWritten(read.source, planSchema, planJsonSchema, 'plan');
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
   const problems = [...renamedSurfaceKeys(read.source, [['surface']], 'plan'), ...runRules(checked.value, read.source, PLAN_RULES)];
   const errors = problems.filter((p) => p.severity === 'error');

@@ -13,7 +13,7 @@ import {
   uniqueList,
   wholeNumber,
 } from '../source/fields.js';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/sequential.js';
+import { BOUNDARY_KINDS, type BoundaryKind } from '../stats/choices.js';
 import { outcomeSchema, type WrittenOutcome } from './outcome.js';
 
 /**

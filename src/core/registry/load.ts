@@ -25,7 +25,7 @@ export type RegistryFileResult = { ok: true; entries: RegistryEntry[]; warnings:
 export function loadRegistryFile(text: string, file: string): RegistryFileResult {
   const read = readYaml(text, file, REGISTRY_LIMITS, 'registry');
   if (!read.ok) return { ok: false, errors: read.problems };
-  const checked = checkWritten(read.source, registrySchema, registryJsonSchema(), 'registry');
+  const checked = checkWritten(read.source, registrySchema, registryJsonSchema, 'registry');
   if (!checked.ok) return { ok: false, errors: checked.problems };
   const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line }));
   const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ['tests', index, 'surface']), 'registry');
@@ -43,7 +43,8 @@ export interface Registry {
  */
 export function buildRegistry(plans: readonly LoadedPlan[], extra: readonly RegistryEntry[]): { registry: Registry; problems: Problem[] } {
   const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
-    (a, b) => a.file.localeCompare(b.file) || a.line - b.line,
+    // Code-unit order, not localeCompare: the same in every locale, and no collator to load at start.
+    (a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : a.line - b.line),
   );
   const byId = new Map<string, RegistryEntry>();
   const problems: Problem[] = [];

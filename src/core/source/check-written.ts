@@ -21,20 +21,21 @@ export type CheckResult<T> = { ok: true; value: T } | { ok: false; problems: Pro
 /**
  * Validates a parsed YAML value against a zod schema and turns every zod issue into a Problem
  * that says where (file:line:column), which field, what was expected and what was found.
- * `jsonSchema` is the same schema in JSON Schema form; it tells which keys an object knows,
- * so an unknown key can be answered with the closest known one.
+ * `jsonSchema` gives the same schema in JSON Schema form; it tells which keys an object knows,
+ * so an unknown key can be answered with the closest known one. It is called only when the value
+ * is invalid: generating it costs more than validating a file, and most files are valid.
  */
 export function checkWritten<T>(
   source: YamlSource,
   schema: z.ZodType<T>,
-  jsonSchema: JsonSchemaNode,
+  jsonSchema: () => JsonSchemaNode,
   codePrefix: string,
 ): CheckResult<T> {
   const parsed = schema.safeParse(source.value);
   if (parsed.success) return { ok: true, value: parsed.data };
   const problems: Problem[] = [];
   for (const issue of parsed.error.issues) {
-    problems.push(...issueToProblems(issue as ZodIssueLike, source, jsonSchema, codePrefix));
+    problems.push(...issueToProblems(issue as ZodIssueLike, source, jsonSchema(), codePrefix));
   }
   return { ok: false, problems: dedupe(problems) };
 }

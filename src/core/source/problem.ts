@@ -41,15 +41,10 @@ export function formatProblem(problem: Problem): string {
   return `${where}: ${problem.severity}: ${field}${problem.message}${detail ? ` (${detail})` : ''}`;
 }
 
-/** Stable order for reports: by file, then position, then code. */
+/** Stable order for reports: by file, then position, then code (code-unit order: the same in every locale, and no collator to load). */
 export function sortProblems(problems: readonly Problem[]): Problem[] {
-  return [...problems].sort(
-    (a, b) =>
-      a.file.localeCompare(b.file) ||
-      a.line - b.line ||
-      a.column - b.column ||
-      a.code.localeCompare(b.code),
-  );
+  const byUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+  return [...problems].sort((a, b) => byUnits(a.file, b.file) || a.line - b.line || a.column - b.column || byUnits(a.code, b.code));
 }
 
 /** Describes a parsed YAML value the way a person would say it, for the `found` part of a problem. */

@@ -1,4 +1,5 @@
 import { normalCdf, normalQuantile, normalUpper, normalUpperQuantile } from './distributions.js';
+import type { BoundaryKind } from './choices.js';
 import { findRoot } from './root.js';
 import { fail, ok, type StatsResult } from './result.js';
 
@@ -15,8 +16,7 @@ import { fail, ok, type StatsResult } from './result.js';
  * win), the convention of Jennison & Turnbull's tables of maximum-sample-size inflation.
  */
 
-export const BOUNDARY_KINDS = ['obrien-fleming-spending', 'pocock-spending', 'obrien-fleming', 'pocock'] as const;
-export type BoundaryKind = (typeof BOUNDARY_KINDS)[number];
+export { BOUNDARY_KINDS, type BoundaryKind } from './choices.js';
 
 export interface SequentialDesign {
   kind: BoundaryKind;

@@ -1,4 +1,5 @@
 import { chiSquareUpper } from './distributions.js';
+import { SRM_ALARM_P } from './choices.js';
 import { fail, ok, type StatsResult } from './result.js';
 
 /**
@@ -6,12 +7,7 @@ import { fail, ok, type StatsResult } from './result.js';
  * the planned weights (what R's chisq.test(x, p = weights / sum(weights)) computes).
  */
 
-/**
- * The alarm threshold. A mismatch this unlikely almost always means broken assignment or logging,
- * not chance; 0.0005 is a common choice because the test runs on every readout of every experiment
- * (common practice, no source).
- */
-export const SRM_ALARM_P = 0.0005;
+export { SRM_ALARM_P } from './choices.js';
 
 export interface SampleRatioCheck {
   statistic: number;

@@ -31,7 +31,7 @@ export type TotalsLoadResult = { ok: true; totals: ArmTotalsFile; warnings: Prob
 export function loadTotals(text: string, file: string, plan?: Plan): TotalsLoadResult {
   const read = readYaml(text, file, TOTALS_LIMITS, 'totals');
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
-  const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema(), 'totals');
+  const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema, 'totals');
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
   const problems = runRules({ totals: checked.value, ...(plan ? { plan } : {}) }, read.source, [...TOTALS_RULES, ...(plan ? TOTALS_PLAN_RULES : [])]);
   const errors = problems.filter((p) => p.severity === 'error');

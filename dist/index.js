@@ -20,7 +20,7 @@ import {
   reviewChange,
   reviewJson,
   writeFileAtomic
-} from "./chunks/chunk-Y62DYNJ5.js";
+} from "./chunks/chunk-B4AULY7V.js";
 import {
   __commonJS,
   __export,

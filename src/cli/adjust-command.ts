@@ -16,9 +16,10 @@ export function addAdjustCommand(program: Command, setExit: SetExit, deps: CliDe
     .action((values: string[], local: { q: string; format: string }) => {
       const p = parseNumbers('p-values', values);
       const q = parseNumbers('q', [local.q])[0]!;
+      if (!(q > 0 && q < 1)) throw new UsageError(`--q ${local.q}: expected a level strictly between 0 and 1`, 'e.g. --q 0.05');
       const adjusted = adjustPValues(p);
       if (!adjusted.ok) throw new UsageError(`${adjusted.error.input}: ${adjusted.error.message}`);
-      const output = createCliOutput({ noColorFlag: true });
+      const output = createCliOutput({ noColorFlag: true, ...(deps.write ? { write: deps.write } : {}) });
       output.out(local.format === 'json' ? JSON.stringify({ format: ADJUST_JSON_FORMAT, q, pValues: p, ...adjusted.value }, null, 2) : renderAdjustedText(p, adjusted.value, q));
       setExit(EXIT.ok);
     });

@@ -1,3 +1,4 @@
+import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
@@ -33,7 +34,13 @@ export interface CliDeps {
   write?: { out(text: string): void; err(text: string): void };
 }
 
-export const REAL_DEPS: CliDeps = { files: createRepoFiles, openChange };
+/** The repository folder must exist: a mistyped -C would otherwise read as an empty, all-clear repository. */
+function existingRepoFiles(root: string): RepoFiles {
+  if (!existsSync(root) || !statSync(root).isDirectory()) throw new UsageError(`the repository folder ${root} does not exist`, 'check -C/--cwd');
+  return createRepoFiles(root);
+}
+
+export const REAL_DEPS: CliDeps = { files: existingRepoFiles, openChange };
 
 export function context(options: CommonOptions, deps: CliDeps) {
   const output = createCliOutput({ noColorFlag: !options.color, ...(deps.write ? { write: deps.write } : {}) });
@@ -47,10 +54,13 @@ export function reportSettingsProblems(output: CliOutput, format: string, file: 
   return EXIT.usage;
 }
 
+/** Plain decimal numbers only: Number() would also read "0x10" as 16, "0b1" as 1 and "" as 0. */
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
 export function parseNumbers(what: string, texts: readonly string[]): number[] {
   return texts.map((text) => {
     const value = Number(text);
-    if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text)} is not a number`);
+    if (!DECIMAL.test(text.trim()) || !Number.isFinite(value)) throw new UsageError(`${what}: ${JSON.stringify(text)} is not a number`, 'write a plain decimal number, e.g. 0.05 or 50412');
     return value;
   });
 }

@@ -1,14 +1,13 @@
 import { resolve } from 'node:path';
 import { Option, type Command } from 'commander';
-import { createRepoFiles, writeFileAtomic } from '../adapters/files.js';
+import { writeFileAtomic } from '../adapters/files.js';
 import { renderReadoutMarkdown } from '../core/report/readout-markdown.js';
 import { renderReadoutText } from '../core/report/readout-text.js';
 import { isCalendarDate } from '../core/source/fields.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { readOutPlan } from '../run/readout.js';
-import { EXIT, type CommonOptions, type SetExit, type CliDeps } from './common.js';
-import { createCliOutput } from './output.js';
+import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
 
@@ -34,13 +33,13 @@ export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliD
     .option('--today <date>', 'the day recorded, YYYY-MM-DD (default: the system date, UTC)')
     .action(async (planName: string, flags: ReadoutFlags) => {
       const options = program.opts<Omit<CommonOptions, 'format'>>();
-      const output = createCliOutput({ noColorFlag: !options.color });
+      const { output, files } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
       if (flags.record && !flags.decidedBy) throw new UsageError('--record needs --decided-by', 'name who decided, e.g. --decided-by @ana-lima');
       const today = flags.today ?? new Date().toISOString().slice(0, 10);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const outcome = await readOutPlan({
-        files: createRepoFiles(cwd),
+        files,
         ...(options.config ? { settingsPath: options.config } : {}),
         plan: planName,
         totals: flags.totals.replace(/^\.\//, ''),

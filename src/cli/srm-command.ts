@@ -20,7 +20,7 @@ export function addSrmCommand(program: Command, setExit: SetExit, deps: CliDeps)
       const threshold = parseNumbers('threshold', [local.threshold])[0]!;
       const check = sampleRatioMismatch(observed, weights, threshold);
       if (!check.ok) throw new UsageError(`${check.error.input}: ${check.error.message}`);
-      const output = createCliOutput({ noColorFlag: true });
+      const output = createCliOutput({ noColorFlag: true, ...(deps.write ? { write: deps.write } : {}) });
       output.out(local.format === 'json' ? JSON.stringify({ format: SRM_JSON_FORMAT, observed, weights, threshold, ...check.value }, null, 2) : renderSrmText(check.value, observed, weights, threshold));
       setExit(check.value.mismatch ? EXIT.findings : EXIT.ok);
     });

@@ -17,10 +17,10 @@ import { attachReadouts } from './review-readouts.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
 import { finiteSizing } from '../core/stats/finite-sizing.js';
-import type { ChangeSource, ProgressReporter } from '../ports.js';
+import type { ChangeSource, ProgressReporter, RepoFiles } from '../ports.js';
 import { todayIn } from './digest.js';
-import { loadBaseEntries } from './load-base-plans.js';
-import { loadWorkspace, ownFilesOf } from './load-workspace.js';
+import { loadBaseWorkspace } from './load-base-plans.js';
+import { loadWorkspace, ownFilesOf, type Workspace } from './load-workspace.js';
 
 export interface ReviewChangeOptions {
   change: ChangeSource;
@@ -37,15 +37,16 @@ export interface ReviewChangeOptions {
  * settings, links and event locations are kept: the question is only whether each plan already had
  * the problem. Undefined when the base cannot be loaded (then every finding counts as introduced).
  */
-async function contextAtBase(change: ChangeSource, head: ReviewContext, settingsPath: string | undefined): Promise<ReviewContext | undefined> {
-  const loaded = await loadWorkspace({ files: change.filesAt('base'), ...(settingsPath ? { settingsPath } : {}) }).catch(() => undefined);
-  if (!loaded?.ok) return undefined;
-  const atBase = new Map(loaded.workspace.plans.map((p) => [p.plan.id, p]));
+async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, head: ReviewContext): Promise<ReviewContext | undefined> {
+  if (!base) return undefined;
+  const atBase = new Map(base.plans.map((p) => [p.plan.id, p]));
   const linked: LinkedPlan[] = head.linked.flatMap((l) => {
     const then = atBase.get(l.loaded.plan.id);
     return then ? [{ loaded: then, reasons: l.reasons, sizing: finiteSizing(sizePlan(then.plan, sizingPolicy(head.settings))) }] : [];
   });
-  return { ...head, linked, invalidPlanFiles: [], registry: loaded.workspace.registry };
+  // A recorded outcome is checked against its totals at base too, so an unchanged override stays "known".
+  await attachReadouts(linked, baseFiles);
+  return { ...head, linked, invalidPlanFiles: [], registry: base.registry };
 }
 
 export type ReviewOutcome =
@@ -63,8 +64,11 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const { workspace } = loaded;
   const { settings } = workspace;
   // Running tests are compared with their plans at the base commit.
-  const baseEntries = loadBaseEntries(change, options.settingsPath);
-  baseEntries.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
+  // Loaded once, for both: running tests' plans as they were, and the findings that already held.
+  const baseWorkspace = loadBaseWorkspace(change, options.settingsPath);
+  baseWorkspace.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
+  const baseEntries = baseWorkspace.then((w) => w?.registry.entries ?? []);
+  baseEntries.catch(() => undefined);
 
   const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
   const diffs = parseUnifiedDiff(diffText);
@@ -149,7 +153,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
     changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
-  const baseContext = await contextAtBase(change, context, options.settingsPath);
+  const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };

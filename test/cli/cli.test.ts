@@ -136,10 +136,36 @@ describe('plumbline new', () => {
   });
 });
 
+describe('mistyped input on the command line', () => {
+  it.each([['validate'], ['list'], ['digest'], ['check', '--base', 'main']])('%s in a folder that does not exist is a usage error, never an all-clear', (...args) => {
+    const run = runCli(['-C', '/nonexistent/plumbline-repo', ...args]);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain('the repository folder /nonexistent/plumbline-repo does not exist');
+  });
+
+  it.each([
+    [['srm', '0x10', '20'], 'counts: "0x10" is not a number'],
+    [['srm', '10', '20', '--weights', '0x32,50'], 'weights: "0x32" is not a number'],
+    [['adjust', '0b1'], 'p-values: "0b1" is not a number'],
+    [['adjust', '0.01', '--q', '0'], '--q 0: expected a level strictly between 0 and 1'],
+    [['adjust', '0.01', '--q', '1'], '--q 1: expected a level strictly between 0 and 1'],
+  ])('%j reads plain decimal numbers only', (args, message) => {
+    const run = runCli(args);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain(message);
+  });
+});
+
 describe('plumbline schema and help', () => {
   it('prints the committed plan schema', () => {
     const run = runCli(['schema', 'plan']);
     expect(run.stdout).toBe(readFileSync(join(repoRoot, 'schema/plan.schema.json'), 'utf8'));
+  });
+
+  it('prints the committed arm-totals schema, which the demo totals file names', () => {
+    const run = runCli(['schema', 'totals']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toBe(readFileSync(join(repoRoot, 'schema/totals.schema.json'), 'utf8'));
   });
 
   it('documents the exit codes in --help', () => {

@@ -2,6 +2,9 @@ import { daysBetween } from '../calendar.js';
 import { entryFromPlan, type RegistryEntry } from '../registry/schema.js';
 import { countOf, formatCount, formatMultiplier } from '../report/numbers.js';
 import type { Check, LinkedPlan } from '../review/context.js';
+import type { Settings } from '../config/schema.js';
+import { sizingPolicy } from '../config/sizing-policy.js';
+import { finiteSizing } from '../stats/finite-sizing.js';
 import { sizePlan } from '../stats/plan-sizing.js';
 import { atPlanKey } from './plan-key.js';
 import { lengthSetter } from './test-length.js';
@@ -109,7 +112,7 @@ const percent = (share: number) => `${Math.round(share * 100)}%`;
  * (re-dividing a live test would restart it), so the subject can take only what the other leaves
  * free; when the other takes everyone, the two would have to divide the pool afresh.
  */
-export function isolationCost(subject: LinkedPlan, other: RegistryEntry): string {
+export function isolationCost(subject: LinkedPlan, other: RegistryEntry, settings: Settings): string {
   const { plan } = subject.loaded;
   const wanted = plan.design.trafficShare;
   const free = 1 - other.trafficShare;
@@ -119,7 +122,8 @@ export function isolationCost(subject: LinkedPlan, other: RegistryEntry): string
   const share = free > 1e-9 ? free : wanted / (wanted + other.trafficShare);
   const how = free > 1e-9 ? `taking only the ${percent(free)} that ${other.id} leaves free` : `splitting traffic with ${other.id} (which would restart it)`;
   const now = lengthSetter(subject.sizing);
-  const isolated = lengthSetter(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }));
+  // Sized the way the review sized it (the settings' guardrail policy), so only the traffic differs.
+  const isolated = lengthSetter(finiteSizing(sizePlan({ ...plan, design: { ...plan.design, trafficShare: share } }, sizingPolicy(settings))));
   if (now && isolated) {
     // Tests run in whole weeks, so a longer test can still fit the same number of weeks: say so rather than "1 week → 1 week".
     const weeks = now.duration.weeks === isolated.duration.weeks ? `still ${countOf(now.duration.weeks, 'week')}` : `${countOf(now.duration.weeks, 'week')} → ${countOf(isolated.duration.weeks, 'week')}`;
@@ -139,7 +143,7 @@ export const collisionCheck: Check = (context) =>
       ? { code: 'known-overlap', message: `${message} ${declaredBy(linked.loaded.plan.id, linked.loaded.plan.surface.overlapsWith, c.other)}`, fix: 'Check for an interaction between the two when reading out.', ...at }
       : {
           code: 'collision',
-          message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other)}`,
+          message: `${message} Independently assigned tests that overlap usually just share units and each still reads its own effect; it matters when both change the same elements, or one changes what the other measures. ${isolationCost(linked, c.other, context.settings)}`,
           fix: `Agree with ${c.other.owners.join(', ')} whether the two interact. If they do, isolate them (the same surface.traffic-split with ranges that do not overlap) or move the window; if not, declare the overlap under surface.overlaps-with and check for an interaction when reading out.`,
           ...at,
         };

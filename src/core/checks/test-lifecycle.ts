@@ -17,11 +17,11 @@ export function collectingSince(entry: Pick<RegistryEntry, 'state' | 'window'>, 
 }
 
 /**
- * A test has a recorded outcome when it is concluded and its plan says how (`outcome` with a one-line reason).
- * A registry entry describes a test run elsewhere, so its concluded state is all it can say.
+ * A test has a recorded outcome when its plan has an `outcome` block (written by `readout --record`, or a
+ * date and a one-line reason). A registry entry describes a test run elsewhere, so its concluded state is all it can say.
  */
 export function hasOutcome(entry: RegistryEntry): boolean {
-  return entry.state === 'concluded' && (entry.plan === undefined || entry.plan.outcome !== undefined);
+  return entry.plan ? entry.plan.outcome !== undefined : entry.state === 'concluded';
 }
 
 export const ownersOf = (entry: RegistryEntry) => entry.owners.join(', ');

@@ -101,7 +101,7 @@ export function buildDigest(input: DigestInput): Digest {
     // Dead code waiting: the losing arm stays in the product, and the flag can be flipped by mistake.
     const stillRead = entry.flags.filter((f) => input.flagsInCode.has(f));
     if (entry.plan && entry.state === 'concluded' && stillRead.length) {
-      const since = entry.plan.outcome?.date ?? end;
+      const since = entry.plan.outcome?.date ?? entry.plan.outcome?.['recorded-on'] ?? end;
       const days = since !== undefined && since <= today ? daysBetween(since, today) : undefined;
       const where = input.flagsInCode.get(stillRead[0]!)!;
       item(

@@ -27,7 +27,10 @@ export function recordOutcome(planText: string, readout: Readout, request: Recor
   const doc = parseDocument(planText);
   if (doc.errors.length || !isMap(doc.contents)) return { ok: false, reason: 'the plan is not a YAML mapping that can be edited' };
   const existing = doc.contents.items.find((pair) => isScalar(pair.key) && pair.key.value === 'outcome');
+  // What people wrote in the block stays: an override, and a decision date and one-line reason.
   const override: unknown = doc.getIn(['outcome', 'override']);
+  const date: unknown = doc.getIn(['outcome', 'date']);
+  const reason: unknown = doc.getIn(['outcome', 'reason']);
   const figures = readout.primary.arms.flatMap((a) => {
     const c = a.comparison;
     if (!c) return [];
@@ -52,6 +55,8 @@ export function recordOutcome(planText: string, readout: Readout, request: Recor
     figures,
     'decided-by': request.decidedBy,
     'recorded-on': request.recordedOn,
+    ...(date !== undefined ? { date } : {}),
+    ...(reason !== undefined ? { reason } : {}),
     ...(override !== undefined ? { override } : {}),
   };
   const block = new Document({ outcome });

@@ -96,9 +96,9 @@ const metricCommon = {
     .strictObject(
       {
         correlation: z
-          .number({ error: 'a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5' })
-          .gte(0, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
-          .lt(1, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+          .number({ error: 'a correlation from 0 to 0.99 between the metric and its pre-period value, e.g. 0.5' })
+          .gte(0, { error: 'a correlation from 0 to 0.99, e.g. 0.5' })
+          .lte(0.99, { error: 'a correlation from 0 to 0.99, e.g. 0.5 (closer to 1 the metric would hardly vary apart from its past: check the figure)' })
           .describe('Correlation of the metric with its own value before the test (CUPED).'),
         coverage: positiveShare('the share of units that have a pre-period value, in (0, 1], e.g. 0.7')
           .default(1)
@@ -394,10 +394,10 @@ export const writtenPlanSchema = z
             .default('obrien-fleming-spending')
             .describe('Stopping boundary for interim looks: Lan-DeMets spending of O’Brien-Fleming or Pocock type, or the classical constant boundaries.'),
           'pre-period-correlation': z
-            .number({ error: 'a correlation from 0 to below 1 between the metric and its pre-period value, e.g. 0.5' })
+            .number({ error: 'a correlation from 0 to 0.99 between the metric and its pre-period value, e.g. 0.5' })
             .describe('Correlation of the primary metric with its own pre-period value, for variance reduction (CUPED).')
-            .gte(0, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
-            .lt(1, { error: 'a correlation from 0 to below 1, e.g. 0.5' })
+            .gte(0, { error: 'a correlation from 0 to 0.99, e.g. 0.5' })
+            .lte(0.99, { error: 'a correlation from 0 to 0.99, e.g. 0.5 (closer to 1 the metric would hardly vary apart from its past: check the figure)' })
             .default(0),
           cluster: z
             .strictObject(

@@ -1,4 +1,5 @@
 import type { Plan } from '../plan/schema.js';
+import { finiteSizing } from '../stats/finite-sizing.js';
 import { sizePlan } from '../stats/plan-sizing.js';
 import { sequentialBoundaries, spendingBoundaryAt } from '../stats/sequential.js';
 import { normalUpper } from '../stats/distributions.js';
@@ -21,7 +22,7 @@ export interface Timing {
 }
 
 export function plannedMaximumUnits(plan: Plan): number | undefined {
-  const primary = sizePlan(plan).metrics.find((m) => m.role === 'primary');
+  const primary = finiteSizing(sizePlan(plan)).metrics.find((m) => m.role === 'primary');
   if (primary?.result.ok && primary.result.value.headline) return primary.result.value.headline.totalUnits;
   return undefined;
 }

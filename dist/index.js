@@ -20,7 +20,7 @@ import {
   reviewChange,
   reviewJson,
   writeFileAtomic
-} from "./chunks/chunk-B4AULY7V.js";
+} from "./chunks/chunk-MING6N5U.js";
 import {
   __commonJS,
   __export,

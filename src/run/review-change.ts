@@ -37,8 +37,14 @@ export interface ReviewChangeOptions {
  * settings, links and event locations are kept: the question is only whether each plan already had
  * the problem. Undefined when the base cannot be loaded (then every finding counts as introduced).
  */
-async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, head: ReviewContext): Promise<ReviewContext | undefined> {
+async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, head: ReviewContext, removed: ReadonlyMap<string, Location>): Promise<ReviewContext | undefined> {
   if (!base) return undefined;
+  // Events whose logging this change removes were still there at base.
+  const events = new Map(head.events);
+  for (const [event, at] of removed) {
+    const hits = events.get(event);
+    if (!hits?.firstCall && !hits?.firstQuoted) events.set(event, { ...hits, first: at, firstQuoted: at });
+  }
   const atBase = new Map(base.plans.map((p) => [p.plan.id, p]));
   const linked: LinkedPlan[] = head.linked.flatMap((l) => {
     const then = atBase.get(l.loaded.plan.id);
@@ -46,7 +52,7 @@ async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, 
   });
   // A recorded outcome is checked against its totals at base too, so an unchanged override stays "known".
   await attachReadouts(linked, baseFiles);
-  return { ...head, linked, invalidPlanFiles: [], registry: base.registry };
+  return { ...head, linked, invalidPlanFiles: [], registry: base.registry, events };
 }
 
 export type ReviewOutcome =
@@ -130,16 +136,19 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     });
   }
 
-  // Events of running tests that the change deletes from a line.
+  // Events that the change deletes from a line: those of running tests (event-removed), and those of
+  // linked plans, which were still logged at base (so an event-missing they cause is not "already known").
   const runningEvents = new Set(running.flatMap((e) => e.events));
+  const linkedEvents = new Set(linked.flatMap((l) => eventsOfPlan(l.loaded.plan)));
   const removedEvents = new Map<string, Location>();
+  const removedLinked = new Map<string, Location>();
   for (const diff of textual) {
     for (const { line, text } of diff.removed) {
       for (const match of text.matchAll(QUOTED_STRING)) {
         const event = match[2]!;
-        if (runningEvents.has(event) && !removedEvents.has(event)) {
-          removedEvents.set(event, { file: diff.previousPath ?? diff.path, line, column: match.index + 2 });
-        }
+        const at = { file: diff.previousPath ?? diff.path, line, column: match.index + 2 };
+        if (runningEvents.has(event) && !removedEvents.has(event)) removedEvents.set(event, at);
+        if (linkedEvents.has(event) && !removedLinked.has(event)) removedLinked.set(event, at);
       }
     }
   }
@@ -153,7 +162,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
     changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
-  const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context);
+  const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };

@@ -7,7 +7,7 @@ import type { Review } from '../../src/core/review/build-review.js';
 import { reviewJson } from '../../src/core/review/report-schema.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
+import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
 
 const made: string[] = [];
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 60_000);
@@ -54,5 +54,19 @@ describe('introduced or already known', () => {
     const markdown = renderReviewMarkdown(r);
     expect(markdown).toContain('Nothing new from this change. Already known before it: 1 finding.');
     expect(markdown.split('<details>')[0]).toContain('#### Still blocking from before this change\n\n- ⛔ **decisions-missing**');
+  });
+
+  it('counts an event-missing as introduced when this change removes the logging call', async () => {
+    // The draft plan is linked by its flag; the change deletes the only logging of order_done.
+    const draft = planYaml(cleanPlan({ state: 'draft' }));
+    const r = await review(baseFiles({ 'experiments/good.yaml': draft }), { 'src/cart.ts': CART_CODE_TOUCHED.replace("    track('order_done');\n", '') });
+    expect(r.findings.filter((f) => f.code === 'event-missing').map((f) => f.origin)).toEqual(['introduced']);
+  });
+
+  it('counts an event-missing as known when the event was never logged', async () => {
+    const draft = planYaml(cleanPlan({ state: 'draft' }));
+    const unlogged = CART_CODE.replace("    track('order_done');\n", '');
+    const r = await review(baseFiles({ 'experiments/good.yaml': draft, 'src/cart.ts': unlogged }), { 'src/cart.ts': unlogged.replace("getBooleanValue('good-flag', false)", "getBooleanValue('good-flag', true)") });
+    expect(r.findings.filter((f) => f.code === 'event-missing').map((f) => f.origin)).toEqual(['known']);
   });
 });

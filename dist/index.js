@@ -20,7 +20,7 @@ import {
   reviewChange,
   reviewJson,
   writeFileAtomic
-} from "./chunks/chunk-MING6N5U.js";
+} from "./chunks/chunk-LGI4UCOL.js";
 import {
   __commonJS,
   __export,

@@ -104,4 +104,14 @@ describe('plumbline size', () => {
     expect(run.stdout).toMatch(/basket-abandonment: The planned 28 days give \d+% power, below the planned 80%\./);
     expect(run.stdout).toContain('Power for the family: ');
   });
+
+  it('warns when the design needs more groups than --groups says exist, and not when there are enough', () => {
+    const args = ['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.1', '--daily-units', '5000', '--days', '28', '--cluster-size', '20', '--icc', '0.05'];
+    const short = runCli([...args, '--groups', '50']);
+    expect(short.status).toBe(0);
+    expect(short.stdout).toMatch(/The design needs [\d,]+ groups, but only 50 exist/);
+    const enough = runCli([...args, '--groups', '100000']);
+    expect(enough.stdout).not.toContain('groups, but only');
+  });
 });
+

@@ -360,6 +360,10 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   }
 
   const headline = diluted ?? triggered;
+  const available = request.cluster?.available;
+  if (headline?.clusters !== undefined && available !== undefined && headline.clusters > available) {
+    notes.push(`The design needs ${headline.clusters.toLocaleString('en-US')} groups, but only ${available.toLocaleString('en-US')} exist: plan for a larger effect, a pre-period adjustment, or a smaller randomization unit.`);
+  }
   let powerByDay: MetricSizing['powerByDay'];
   if (effect && enrolledBy && headline?.duration) {
     // Daily points for short tests, weekly ones beyond three weeks; one step past the longer of

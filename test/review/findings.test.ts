@@ -6,7 +6,7 @@ import type { Review } from '../../src/core/review/build-review.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import type { PullRequestInfo } from '../../src/core/review/context.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml } from './scenarios.js';
+import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml, recorded, withPlan } from './scenarios.js';
 
 const made: string[] = [];
 /** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
@@ -22,18 +22,11 @@ async function review(files: Record<string, string>, changes: Record<string, str
   return outcome.review;
 }
 
-/** A head that changes the good plan (so it is linked) and touches its flag. */
-const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | null> = {}) => ({ 'experiments/good.yaml': planYaml(plan), 'src/cart.ts': CART_CODE_TOUCHED, ...extra });
 
 const other = (overrides: Record<string, unknown>) =>
   planYaml(cleanPlan({ id: 'other', flags: ['other-flag'], owners: ['@owner-two'], surface: { path: 'shop/cart/total' }, exposure: { event: 'order_done' }, ...overrides }));
 
 
-/** Totals for the good plan through its planned end: the treatment's purchases as given. */
-const goodTotals = (bought: number) =>
-  `plan: good\nplan-commit: 4b1d2e7\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
-const recorded = (outcome: Record<string, unknown>, bought: number) =>
-  withPlan(cleanPlan({ outcome: { 'data-through': '2026-11-29', totals: 'readouts/good.totals.yaml', 'decided-by': '@owner-one', ...outcome } }), { 'readouts/good.totals.yaml': goodTotals(bought) });
 
 const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
 

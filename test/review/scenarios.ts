@@ -41,3 +41,14 @@ export const CART_CODE_TOUCHED = CART_CODE.replace("getBooleanValue('good-flag',
 export function baseFiles(extra: Record<string, string> = {}): Record<string, string> {
   return { 'experiments/good.yaml': planYaml(cleanPlan()), 'src/cart.ts': CART_CODE, ...extra };
 }
+
+/** A head that changes the good plan (so it is linked) and touches its flag. */
+export const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | null> = {}) => ({ 'experiments/good.yaml': planYaml(plan), 'src/cart.ts': CART_CODE_TOUCHED, ...extra });
+
+/** Totals for the good plan through its planned end: the treatment's purchases as given (control: 6,000 of 20,000). */
+export const goodTotals = (bought: number) =>
+  `plan: good\nplan-commit: 4b1d2e7\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
+
+/** A head that records an outcome for the good plan, read from totals with the treatment's purchases as given. */
+export const recorded = (outcome: Record<string, unknown>, bought: number, plan: Record<string, unknown> = {}) =>
+  withPlan(cleanPlan({ ...plan, outcome: { 'data-through': '2026-11-29', totals: 'readouts/good.totals.yaml', 'decided-by': '@owner-one', ...outcome } }), { 'readouts/good.totals.yaml': goodTotals(bought) });

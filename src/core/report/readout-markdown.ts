@@ -4,11 +4,11 @@ import { codeSpan, safeCell, safeText } from './markdown-safe.js';
 
 const HEADER = ['arm', 'control', 'treatment', 'difference [CI]', 'relative [CI]', 'p', 'adjusted p'];
 
-function table(header: readonly string[], rows: readonly (readonly string[])[]): string[] {
+export function table(header: readonly string[], rows: readonly (readonly string[])[]): string[] {
   return [`| ${header.join(' | ')} |`, `| ${header.map(() => '---').join(' | ')} |`, ...rows.map((r) => `| ${r.map(safeCell).join(' | ')} |`)];
 }
 
-function metricTitle(read: MetricRead, what: string): string {
+export function metricTitle(read: MetricRead, what: string): string {
   const segment = read.segment !== undefined ? ` in “${safeText(read.segment)}”` : '';
   const cuped = read.cuped ? `; CUPED θ ${read.cuped.theta.toPrecision(3)}, variance −${Math.round(read.cuped.varianceReduction * 100)}%` : '';
   return `**${what}: ${codeSpan(read.metric)}${segment}** (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${cuped})`;

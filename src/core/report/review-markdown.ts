@@ -6,6 +6,7 @@ import { coverageNotice } from './coverage-notice.js';
 import { checklistSummary } from './review-summary.js';
 import { lengthSummary, renderSizingMarkdown } from './sizing.js';
 import { planChangeTable } from './plan-amendment.js';
+import { overrideLines, readoutSectionMarkdown } from './review-readout.js';
 
 /** The hidden marker that finds our comment again. User text can never contain it (see markdown-safe). */
 export const REVIEW_MARKER = '<!-- plumbline:review -->';
@@ -100,6 +101,7 @@ function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail,
     `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, options)} · linked because: ${plan.reasons.join(', ')}`,
     `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join('; ')}.` : ''}`,
   ];
+  lines.push(...readoutSectionMarkdown(plan));
   if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ''} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
   if (!withTables) return lines;
   const sizing = renderSizingMarkdown(plan.sizing, { title: 'Sizing', designLine: '', window: plan.window, power: plan.power })
@@ -147,7 +149,9 @@ function findingsSection(review: Review, options: MarkdownOptions, shown: number
 }
 
 function render(review: Review, options: MarkdownOptions, detail: Detail, omitted: string[]): string {
-  const out = [REVIEW_MARKER, headline(review), countsLine(review), ''];
+  // An override is the one decision the registered rule did not make: reviewers judge it first.
+  const overrides = overrideLines(review.plans);
+  const out = [REVIEW_MARKER, headline(review), ...(overrides.length ? ['', ...overrides, ''] : []), countsLine(review), ''];
   out.push(...coverageNotice(review));
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');

@@ -5,6 +5,7 @@ import { checklistSummary } from './review-summary.js';
 import { lengthSummary } from './sizing.js';
 import { planChangeLines } from './plan-amendment.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
+import { overrideLines, ruleAppliedLine, type ReadoutStyle } from './review-readout.js';
 
 const LABEL: Record<Severity, string> = { block: 'BLOCK', warn: 'warn ', note: 'note ' };
 
@@ -23,6 +24,8 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
   const known = review.findings.filter((f) => f.origin === 'known').length;
   const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, 'warning')}, ${countOf(review.counts.note, 'note')}${known ? `; ${formatCount(known)} already held before this change` : ''}`;
   out.push(`${style.bold('Plumbline')}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  const readoutStyle: ReadoutStyle = { escape: terminalSafe, strong: style.bold, code: terminalSafe };
+  out.push(...overrideLines(review.plans, readoutStyle));
   if (review.verdict === 'nothing-to-check') {
     out.push('This change touches no feature flag and no plan, and removes no event a running test depends on.');
     return out.join('\n');
@@ -35,6 +38,7 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
   for (const plan of review.plans) {
     out.push('', `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(', '))}) ${terminalSafe(plan.file)}:${plan.line}`);
     const checklist = checklistSummary(plan.checklist);
+    if (plan.readout) out.push(`  ${ruleAppliedLine(plan.readout, readoutStyle)}`);
     out.push(`  checklist: ${checklist.count}`);
     for (const label of checklist.failing) out.push(`  [${style.red(' ')}] ${label}`);
     const length = lengthSummary(plan.sizing);

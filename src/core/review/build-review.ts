@@ -4,6 +4,8 @@ import { collisionsOfLinked } from '../checks/collisions.js';
 import { eventStatuses, type EventStatus } from '../checks/logging.js';
 import { closestName } from '../source/closest-name.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
+import type { MetricRead, Verdict as ReadoutVerdict } from '../readout/build-readout.js';
+import type { OutcomeClass } from '../plan/outcome.js';
 import type { LinkReason, ReviewContext } from './context.js';
 import type { UnseenFiles } from './coverage.js';
 import { ALWAYS_BLOCKS, CHANGE_BOUND, FINDING_CODES, type Finding, type Severity } from './finding.js';
@@ -29,6 +31,24 @@ export interface PlanReview {
   power: number;
   window: { start?: string; end?: string };
   events: EventStatus[];
+  /** A plan that records an outcome with its totals: the rule applied to them, beside what was recorded. */
+  readout?: PlanReadout;
+  /** A recorded decision that departs from the registered rule: what reviewers must judge first. */
+  override?: { class?: OutcomeClass; ship?: string[]; reason: string };
+}
+
+export interface PlanReadout {
+  /** The totals file read. */
+  file: string;
+  /** The class the registered rule gives on the totals, and the arms it names. */
+  verdict: ReadoutVerdict;
+  arms: string[];
+  /** The decision the plan registered for that class, as written. */
+  decision?: string;
+  /** The class the plan records. */
+  recorded?: OutcomeClass;
+  /** The primary metric's figures, as the readout computed them. */
+  primary?: MetricRead;
 }
 
 export interface ReviewCollision {
@@ -110,6 +130,25 @@ function knownAtBase(base: ReviewContext | undefined): Set<string> {
   );
 }
 
+/** The readout part of a plan's section, when its outcome names totals that read out. */
+function planReadout(linked: ReviewContext['linked'][number]): Pick<PlanReview, 'readout' | 'override'> {
+  const outcome = linked.loaded.plan.outcome;
+  const read = linked.readout?.readout;
+  const override = outcome?.override ? { override: outcome.override } : {};
+  if (!read || !linked.readout) return override;
+  return {
+    readout: {
+      file: linked.readout.file,
+      verdict: read.verdict,
+      arms: read.verdictArms,
+      ...(read.decision ? { decision: read.decision.text } : {}),
+      ...(outcome?.class ? { recorded: outcome.class } : {}),
+      ...(read.verdict !== 'not-read' ? { primary: read.primary } : {}),
+    },
+    ...override,
+  };
+}
+
 /** Plans the description names come first: they are what the author says the change is about. */
 function byMention(a: PlanReview, b: PlanReview): number {
   const named = (p: PlanReview) => (p.reasons.includes('named in the description') ? 0 : 1);
@@ -169,6 +208,7 @@ export function buildReview(context: ReviewContext, change: { base: string; head
       power: plan.design.power,
       window: plan.window,
       events: eventStatuses(context, plan.id),
+      ...planReadout(linked),
     };
   });
   plans.sort(byMention);

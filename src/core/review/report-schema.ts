@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { Review } from './build-review.js';
+import { OUTCOME_CLASSES } from '../plan/outcome.js';
 
 /**
  * The JSON report of `plumbline check --format json`: the published contract for other tools.
@@ -112,6 +113,18 @@ export const reviewReportSchema = z
         power: z.number(),
         window: z.object({ start: z.string().optional(), end: z.string().optional() }),
         events: z.array(z.object({ event: z.string(), roles: z.array(z.string()), location: location.optional(), via: z.enum(['call', 'literal']).optional(), mentionedAt: location.optional() })),
+        readout: z
+          .object({
+            file: z.string(),
+            verdict: z.enum(['win', 'loss', 'flat', 'inconclusive', 'guardrail-breach', 'not-read']),
+            arms: z.array(z.string()),
+            decision: z.string().optional(),
+            recorded: z.enum(OUTCOME_CLASSES).optional(),
+            primary: z.looseObject({ metric: z.string(), kind: z.string(), direction: z.string(), arms: z.array(z.looseObject({ arm: z.string(), ok: z.boolean() })) }).optional().describe('The primary metric as the readout computed it (plumbline readout --format json gives the same).'),
+          })
+          .optional()
+          .describe('A plan that records an outcome with its totals: the class the registered rule gives on them, beside the class recorded.'),
+        override: z.object({ class: z.enum(OUTCOME_CLASSES).optional(), ship: z.array(z.string()).optional(), reason: z.string() }).optional().describe('A recorded decision that departs from the registered rule, with its reason.'),
       }),
     ),
     flags: z.array(
@@ -150,5 +163,11 @@ export const reviewReportSchema = z
 export const REVIEW_JSON_FORMAT = 'plumbline.review/1';
 
 export function reviewJson(review: Review): z.input<typeof reviewReportSchema> {
-  return { format: REVIEW_JSON_FORMAT, ...review };
+  // The readout's primary is published as the readout computes it; copies make its types open records.
+  const plans = review.plans.map(({ readout, ...plan }) => {
+    if (!readout) return plan;
+    const { primary, ...rest } = readout;
+    return { ...plan, readout: { ...rest, ...(primary ? { primary: { ...primary, arms: primary.arms.map((a) => ({ ...a })) } } : {}) } };
+  });
+  return { format: REVIEW_JSON_FORMAT, ...review, plans };
 }

@@ -28,6 +28,24 @@ const other = (overrides: Record<string, unknown>) =>
 
 
 
+/** Concluded tests that recorded the relative effects given on the good plan's primary metric (bought). */
+const pastOutcomes = (relatives: number[]) =>
+  Object.fromEntries(
+    relatives.map((relative, i) => [
+      `experiments/past-${i}.yaml`,
+      planYaml(
+        cleanPlan({
+          id: `past-${i}`,
+          flags: [`past-flag-${i}`],
+          state: 'concluded',
+          window: { start: '2026-01-05', end: '2026-02-01' },
+          surface: { path: `shop/past-${i}` },
+          outcome: { class: 'inconclusive', 'data-through': '2026-02-01', figures: [{ arm: 'treatment', metric: 'bought', difference: 0.3 * relative, low: -0.01, high: 0.02, relative, 'p-value': 0.2 }] },
+        }),
+      ),
+    ]),
+  );
+
 const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
 
 /** The cart with the winning arm hard-coded: the flag read is gone. */
@@ -194,6 +212,12 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
   'bug-fix-unmeasured': {
     trigger: { changes: { 'src/checkout.ts': 'export const total = (a: number, b: number) => a + b;\n' }, pr: { title: 'fix: totals were off by one', labels: [] } },
     nearMiss: { changes: { 'docs/totals.md': 'Totals are now right.\n' }, pr: { title: 'fix: totals were off by one' } },
+  },
+  // The good plan is sized for 5%; every effect measured on bought before was at most 3%.
+  'effect-implausible': {
+    trigger: { files: baseFiles(pastOutcomes([0.01, -0.02, 0.03, 0.005, 0.015])), changes: withPlan(cleanPlan()) },
+    // Four recorded tests are not yet a history.
+    nearMiss: { files: baseFiles(pastOutcomes([0.01, -0.02, 0.03, 0.005])), changes: withPlan(cleanPlan()) },
   },
   'plan-frozen': {
     trigger: { changes: withPlan(cleanPlan({ metrics: { ...(cleanPlan().metrics as object), primary: { name: 'cart-views', kind: 'proportion', baseline: { rate: 0.3 }, events: ['cart_viewed'] } } })) },
@@ -410,5 +434,15 @@ describe('collision and dilution texts', () => {
     const diluted = r.findings.find((f) => f.code === 'exposure-diluted')!;
     expect(diluted.message).toMatch(/The planned 28 days do not suffice: the weakest metric reaches [\d.]+% power by the end, below the planned 80\.0%\./);
     expect(r.findings.find((f) => f.code === 'underpowered')?.severity).toBe('warn');
+  });
+});
+
+describe('effect-implausible', () => {
+  it('counts the effects and names the largest; stays quiet when more than one in ten measured effects reached the planned size', async () => {
+    const r = await review(baseFiles(pastOutcomes([0.01, -0.02, 0.03, 0.005, 0.015])), withPlan(cleanPlan()));
+    expect(r.findings.find((f) => f.code === 'effect-implausible')?.message).toMatch(/^The plan is sized to detect 5% on bought, larger than 5 of the 5 effects measured on it by 5 recorded tests \(the largest: 3%\)\./);
+    // One of five (a −6% loss counts by its size) reached 5%: four in five below is not nine in ten.
+    const quiet = await review(baseFiles(pastOutcomes([0.01, -0.06, 0.03, 0.005, 0.015])), withPlan(cleanPlan()));
+    expect(quiet.findings.map((f) => f.code)).not.toContain('effect-implausible');
   });
 });

@@ -1,6 +1,7 @@
 import type { Check } from '../review/context.js';
 import { bugFixUnmeasured } from './bug-fix.js';
 import { collisionCheck } from './collisions.js';
+import { effectImplausible } from './effect-plausible.js';
 import { endedEarly } from './ended-early.js';
 import { exposureOneArm } from './exposure-arms.js';
 import { flagWithoutPlan } from './flags.js';
@@ -38,6 +39,7 @@ export const CHECKS: readonly Check[] = [
   bundleUnexplained,
   populationChecks,
   sizingChecks,
+  effectImplausible,
   spillover,
   analysisUnitDiffers,
   collisionCheck,

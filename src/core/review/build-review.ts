@@ -96,7 +96,7 @@ const CHECKLIST: { label: string; codes: string[]; when?: (p: ReviewContext['lin
   { label: 'Hypothesis says why the change should work', codes: ['reason-missing'] },
   { label: 'One primary metric and at least one guardrail', codes: ['guardrails-missing'] },
   { label: 'Planned end, at least a week, in whole weeks', codes: ['end-missing', 'window-short', 'window-partial-week'] },
-  { label: 'Enough power by the planned end', codes: ['underpowered', 'sizing-incomplete', 'sizing-impossible', 'not-feasible', 'groups-short'] },
+  { label: 'Enough power by the planned end', codes: ['underpowered', 'sizing-incomplete', 'sizing-impossible', 'not-feasible', 'groups-short', 'effect-implausible'] },
   { label: 'Exposure logged in every arm where the change is seen (the logging call read against the flag read, not only the plan’s reach)', codes: ['exposure-diluted', 'exposure-one-arm'] },
   { label: 'Randomization unit fits the surface', codes: ['spillover'] },
   { label: 'No collision with a running test', codes: ['collision'] },

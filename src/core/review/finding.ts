@@ -59,6 +59,7 @@ export const FINDING_CODES = {
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
   'outcome-mismatch': { severity: 'block', about: 'a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override' },
   'outcome-override': { severity: 'warn', about: 'a recorded outcome departs from the registered rule with an override and a reason to judge' },
+  'effect-implausible': { severity: 'warn', about: 'once five or more tests recorded outcomes on the primary metric: the planned minimum detectable effect is above nine in ten of the effects measured on it before' },
   'plan-frozen': { severity: 'block', about: 'a started test’s plan changes what decides its result without an amendment' },
   'plan-amended': { severity: 'note', about: 'a started test’s plan changes what decides its result and records why (shown before and after)' },
   'plan-deleted': { severity: 'block', about: 'the change deletes the plan of a started test that has no outcome' },

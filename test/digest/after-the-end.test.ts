@@ -3,6 +3,7 @@ import { defaultSettings } from '../../src/core/config/load.js';
 import { buildDigest } from '../../src/core/digest/build-digest.js';
 import { loadPlan } from '../../src/core/plan/load.js';
 import { buildRegistry } from '../../src/core/registry/load.js';
+import { renderDigestMarkdown } from '../../src/core/report/digest-markdown.js';
 import { cleanPlan, planYaml } from '../review/scenarios.js';
 
 // What the digest says about tests that are over: the outcome they owe, and the flag left behind.
@@ -31,5 +32,19 @@ describe('tests that are over', () => {
     expect(items(digestOf(cleanPlan({ state: 'concluded' }), '2026-12-08', [])).map((i) => i.kind)).toEqual(['outcome-missing']);
     expect(items(digestOf(cleanPlan({ state: 'on-hold' }), '2026-12-08', ['good-flag'])).map((i) => i.kind)).toContain('outcome-missing');
     expect(items(digestOf(cleanPlan({ state: 'on-hold' }), '2026-11-20', ['good-flag'])).map((i) => i.kind)).not.toContain('outcome-missing');
+  });
+
+  it('calls it "readout due" once the test is past its planned end, and "no outcome recorded" before it', () => {
+    // The clean plan ends on 2026-11-29.
+    const past = digestOf(cleanPlan({ state: 'concluded' }), '2026-12-08', []);
+    expect(items(past)[0]).toMatchObject({ kind: 'outcome-missing', readoutDue: true });
+    expect(items(past)[0]!.detail).toBe('Concluded, past its planned end (2026-11-29), but no outcome is recorded: read it out against its plan (plumbline readout good --totals <file> --record), or, if it ended without data, add outcome: { date, reason }.');
+    expect(renderDigestMarkdown(past)).toContain('  - 📊 readout due: Concluded, past its planned end');
+    // Stopped before its end: no readout to be had, a one-line reason is what is owed.
+    const early = digestOf(cleanPlan({ state: 'concluded' }), '2026-11-20', []);
+    expect(items(early)[0]).toMatchObject({ kind: 'outcome-missing', readoutDue: false });
+    const markdown = renderDigestMarkdown(early);
+    expect(markdown).toContain('  - 📋 no outcome recorded: Concluded, but no outcome is recorded: add outcome: { date, reason } with the decision in one line.');
+    expect(markdown).not.toContain('readout due');
   });
 });

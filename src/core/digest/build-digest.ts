@@ -27,6 +27,8 @@ export interface DigestItem {
   sampleReached?: boolean;
   /** Concluded tests whose flag is still read: whole days since the outcome's date (else the planned end). */
   daysSinceConclusion?: number;
+  /** outcome-missing: the test is past its planned end, so its readout is due (not only a line saying why it stopped). */
+  readoutDue?: boolean;
 }
 
 /** One test in the digest: who owns it and every item about it. */
@@ -96,7 +98,13 @@ export function buildDigest(input: DigestInput): Digest {
     }
     // A test that is over (concluded, or on hold past its end) still owes its outcome: the decision and why.
     if (entry.plan && !entry.plan.outcome && (entry.state === 'concluded' || (entry.state === 'on-hold' && end && end < today))) {
-      item(entry, 'outcome-missing', `${entry.state === 'concluded' ? 'Concluded' : `On hold past its planned end (${end})`}, but no outcome is recorded: add outcome: { date, reason } with the decision in one line.`);
+      // Past the planned end the data is all in: the readout is what is owed, not only a line of reasons.
+      const due = end !== undefined && end < today;
+      const what = entry.state === 'concluded' ? `Concluded${due ? `, past its planned end (${end})` : ''}` : `On hold past its planned end (${end})`;
+      const fix = due
+        ? `read it out against its plan (plumbline readout ${entry.id} --totals <file> --record), or, if it ended without data, add outcome: { date, reason }.`
+        : 'add outcome: { date, reason } with the decision in one line.';
+      item(entry, 'outcome-missing', `${what}, but no outcome is recorded: ${fix}`, { readoutDue: due });
     }
     // Dead code waiting: the losing arm stays in the product, and the flag can be flipped by mistake.
     const stillRead = entry.flags.filter((f) => input.flagsInCode.has(f));

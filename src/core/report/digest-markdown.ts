@@ -23,6 +23,9 @@ const LABEL: Record<DigestItemKind, string> = {
   'concluded-flag-in-code': '🧹 concluded, flag still in the code',
 };
 
+/** An outcome-missing item past the planned end: the data is in and the readout is owed. */
+const READOUT_DUE = '📊 readout due';
+
 /** The headline: only what is there to count, each with its noun in the right number. */
 export function countLine(d: Digest): string {
   const c = d.counts;
@@ -83,7 +86,7 @@ function render(d: Digest, withTimeline: boolean, maxTests: number): string {
   const mentioned = new Set<string>();
   for (const test of d.tests.slice(0, maxTests)) {
     out.push(`- **${codeSpan(test.id)}** ${safeText(test.title)} · ${ownersOf(test.owners, mentioned)} · ${codeSpan(`${test.file}:${test.line}`)}`);
-    for (const it of test.items) out.push(`  - ${LABEL[it.kind]}: ${safeText(it.detail)}`);
+    for (const it of test.items) out.push(`  - ${it.readoutDue ? READOUT_DUE : LABEL[it.kind]}: ${safeText(it.detail)}`);
   }
   if (d.tests.length > maxTests) out.push(`- …and ${countOf(d.tests.length - maxTests, 'more test')} (see the JSON report).`);
   if (d.tests.length) out.push('');
@@ -125,7 +128,7 @@ export function renderDigestText(d: Digest): string {
   const out = [`Plumbline digest for ${d.today}: ${countLine(d)}`];
   for (const test of d.tests) {
     out.push('', `${test.id} (${test.file}:${test.line}) ${terminalSafe(test.owners.join(', '))}`);
-    for (const it of test.items) out.push(`  ${it.kind.padEnd(16)} ${terminalSafe(it.detail)}`);
+    for (const it of test.items) out.push(`  ${(it.readoutDue ? 'readout-due' : it.kind).padEnd(16)} ${terminalSafe(it.detail)}`);
   }
   if (d.orphanFlags.length) {
     out.push('', 'Flags in code that no plan covers:');

@@ -20,7 +20,7 @@ import {
   reviewChange,
   reviewJson,
   writeFileAtomic
-} from "./chunks/chunk-LGI4UCOL.js";
+} from "./chunks/chunk-SCQ4HB75.js";
 import {
   __commonJS,
   __export,

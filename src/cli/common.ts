@@ -55,7 +55,7 @@ export function reportSettingsProblems(output: CliOutput, format: string, file: 
 }
 
 /** Plain decimal numbers only: Number() would also read "0x10" as 16, "0b1" as 1 and "" as 0. */
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+export const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 export function parseNumbers(what: string, texts: readonly string[]): number[] {
   return texts.map((text) => {

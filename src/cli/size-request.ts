@@ -3,6 +3,7 @@ import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
 import type { BoundaryKind } from '../core/stats/choices.js';
 import type { MetricBaseline, SizingRequest } from '../core/stats/sizing.js';
 import { UsageError } from '../errors.js';
+import { DECIMAL } from './common.js';
 
 /*
  * The `size` command's flags turned into a sizing request. Kept apart from the command's options
@@ -49,9 +50,6 @@ const EXAMPLES: Record<string, string> = {
   'daily-units': '12000',
   days: '28',
 };
-
-/** A plain decimal number as people write it: no hex, binary, octal, Infinity or blanks. */
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 function number(flag: string, text: string | undefined, required = ''): number {
   if (text === undefined) throw new UsageError(`--${flag} is required${required}`, `e.g. --${flag} ${EXAMPLES[flag] ?? '0.5'}`);

@@ -1,11 +1,12 @@
 import type { Command } from 'commander';
-import { ADJUST_JSON_FORMAT, renderAdjustedText } from '../core/report/readout.js';
-import { adjustPValues } from '../core/stats/multiple-testing.js';
 import { UsageError } from '../errors.js';
 import { EXIT, formatOption, parseNumbers, type SetExit, type CliDeps } from './common.js';
 import { createCliOutput } from './output.js';
 
-/** `plumbline adjust <p-values...>`: Benjamini–Hochberg, Holm and Bonferroni. */
+/**
+ * `plumbline adjust <p-values...>`: Benjamini–Hochberg, Holm and Bonferroni. The statistics and the report load when
+ * the command runs, so the other commands (and --help) never parse them.
+ */
 export function addAdjustCommand(program: Command, setExit: SetExit, deps: CliDeps): void {
   program
     .command('adjust')
@@ -13,7 +14,8 @@ export function addAdjustCommand(program: Command, setExit: SetExit, deps: CliDe
     .argument('<p-values...>', 'p-values, e.g. 0.001 0.02 0.04')
     .option('--q <level>', 'false discovery rate (and family-wise level) to compare with', '0.05')
     .addOption(formatOption())
-    .action((values: string[], local: { q: string; format: string }) => {
+    .action(async (values: string[], local: { q: string; format: string }) => {
+      const [{ ADJUST_JSON_FORMAT, renderAdjustedText }, { adjustPValues }] = await Promise.all([import('../core/report/readout.js'), import('../core/stats/multiple-testing.js')]);
       const p = parseNumbers('p-values', values);
       const q = parseNumbers('q', [local.q])[0]!;
       if (!(q > 0 && q < 1)) throw new UsageError(`--q ${local.q}: expected a level strictly between 0 and 1`, 'e.g. --q 0.05');

@@ -1,11 +1,6 @@
-import { isCalendarDate } from '../core/source/fields.js';
 import { readFile } from 'node:fs/promises';
 import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
-import { renderReviewMarkdown } from '../core/report/review-markdown.js';
-import { renderReviewText } from '../core/report/review-text.js';
-import { reviewJson } from '../core/review/report-schema.js';
-import { reviewChange } from '../run/review-change.js';
 import { EXIT, context, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 import { resolve } from 'node:path';
 import type { PullRequestInfo } from '../core/review/context.js';
@@ -103,6 +98,13 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       const options = program.opts<CommonOptions>();
       const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
+      const [{ isCalendarDate }, { renderReviewMarkdown }, { renderReviewText }, { reviewJson }, { reviewChange }] = await Promise.all([
+        import('../core/source/fields.js'),
+        import('../core/report/review-markdown.js'),
+        import('../core/report/review-text.js'),
+        import('../core/review/report-schema.js'),
+        import('../run/review-change.js'),
+      ]);
       if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
       const change = await deps.openChange(cwd, flags.base!, flags.head);

@@ -2,7 +2,6 @@ import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
-import { openChange } from '../adapters/git.js';
 import type { ChangeSource, RepoFiles } from '../ports.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
@@ -40,7 +39,8 @@ function existingRepoFiles(root: string): RepoFiles {
   return createRepoFiles(root);
 }
 
-export const REAL_DEPS: CliDeps = { files: existingRepoFiles, openChange };
+/** git is loaded only by the command that opens a change, so the other commands start without it. */
+export const REAL_DEPS: CliDeps = { files: existingRepoFiles, openChange: async (...args) => (await import('../adapters/git.js')).openChange(...args) };
 
 export function context(options: CommonOptions, deps: CliDeps) {
   const output = createCliOutput({ noColorFlag: !options.color, ...(deps.write ? { write: deps.write } : {}) });
@@ -55,7 +55,7 @@ export function reportSettingsProblems(output: CliOutput, format: string, file: 
 }
 
 /** Plain decimal numbers only: Number() would also read "0x10" as 16, "0b1" as 1 and "" as 0. */
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+export const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 export function parseNumbers(what: string, texts: readonly string[]): number[] {
   return texts.map((text) => {

@@ -1,8 +1,5 @@
 import { Option, type Command } from 'commander';
-import { DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText } from '../core/report/digest-markdown.js';
-import { isCalendarDate } from '../core/source/fields.js';
 import { UsageError } from '../errors.js';
-import { digestRepository } from '../run/digest.js';
 import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline digest`: the weekly digest of the registry. */
@@ -15,6 +12,11 @@ export function addDigestCommand(program: Command, setExit: SetExit, deps: CliDe
     .action(async (local: { today?: string; format: string }) => {
       const options = program.opts<CommonOptions>();
       const { output, ...ports } = context({ ...options, format: 'text' }, deps);
+      const [{ DIGEST_JSON_FORMAT, renderDigestMarkdown, renderDigestText }, { isCalendarDate }, { digestRepository }] = await Promise.all([
+        import('../core/report/digest-markdown.js'),
+        import('../core/source/fields.js'),
+        import('../run/digest.js'),
+      ]);
       if (local.today !== undefined && !isCalendarDate(local.today)) throw new UsageError(`--today ${JSON.stringify(local.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const { digest } = await digestRepository({ files: ports.files, now: new Date(), ...(ports.settingsPath ? { settingsPath: ports.settingsPath } : {}), ...(local.today ? { today: local.today } : {}) });
       if (local.format === 'json') output.out(JSON.stringify({ format: DIGEST_JSON_FORMAT, ...digest }, null, 2));

@@ -1,6 +1,4 @@
 import { Option, type Command } from 'commander';
-import { registryJson, renderRegistryText } from '../core/report/registry-list.js';
-import { loadWorkspace } from '../run/load-workspace.js';
 import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline list`: the registry of tests. */
@@ -13,6 +11,7 @@ export function addListCommand(program: Command, setExit: SetExit, deps: CliDeps
     .action(async (local: { format: 'text' | 'json'; state?: string }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
       const { output, ...ports } = context(options, deps);
+      const [{ registryJson, renderRegistryText }, { loadWorkspace }] = await Promise.all([import('../core/report/registry-list.js'), import('../run/load-workspace.js')]);
       const loaded = await loadWorkspace(ports);
       if (!loaded.ok) return setExit(reportSettingsProblems(output, options.format, loaded.settingsFile, loaded.settingsProblems));
       const { workspace } = loaded;

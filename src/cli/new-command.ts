@@ -1,9 +1,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
-import { isCalendarDate } from '../core/source/fields.js';
 import { UsageError } from '../errors.js';
-import { scaffoldPlan } from '../run/scaffold.js';
 import { context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline new <flag-key>`: a commented draft plan. */
@@ -22,6 +20,7 @@ export function addNewCommand(program: Command, setExit: SetExit, deps: CliDeps)
     .action(async (flagKey: string, local: { id?: string; owner?: string; surface?: string; out?: string; today?: string; force: boolean; stdout: boolean }) => {
       const options = program.opts<CommonOptions>();
       const { output, ...ports } = context({ ...options, format: 'text' }, deps);
+      const [{ isCalendarDate }, { scaffoldPlan }] = await Promise.all([import('../core/source/fields.js'), import('../run/scaffold.js')]);
       const today = local.today ?? new Date().toISOString().slice(0, 10);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const result = await scaffoldPlan({ ...ports, ...local, flagKey, today });

@@ -1,12 +1,8 @@
 import { resolve } from 'node:path';
 import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
-import { renderReadoutMarkdown } from '../core/report/readout-markdown.js';
-import { renderReadoutText } from '../core/report/readout-text.js';
-import { isCalendarDate } from '../core/source/fields.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
-import { readOutPlan } from '../run/readout.js';
 import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
@@ -35,6 +31,12 @@ export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliD
       const options = program.opts<Omit<CommonOptions, 'format'>>();
       const { output, files } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
+      const [{ renderReadoutMarkdown }, { renderReadoutText }, { isCalendarDate }, { readOutPlan }] = await Promise.all([
+        import('../core/report/readout-markdown.js'),
+        import('../core/report/readout-text.js'),
+        import('../core/source/fields.js'),
+        import('../run/readout.js'),
+      ]);
       if (flags.record && !flags.decidedBy) throw new UsageError('--record needs --decided-by', 'name who decided, e.g. --decided-by @ana-lima');
       const today = flags.today ?? new Date().toISOString().slice(0, 10);
       if (!isCalendarDate(today)) throw new UsageError(`--today ${JSON.stringify(today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');

@@ -1,6 +1,5 @@
 import type { Command } from 'commander';
-import { SRM_JSON_FORMAT, renderSrmText } from '../core/report/readout.js';
-import { SRM_ALARM_P, sampleRatioMismatch } from '../core/stats/srm.js';
+import { SRM_ALARM_P } from '../core/stats/choices.js';
 import { UsageError } from '../errors.js';
 import { EXIT, formatOption, parseNumbers, type SetExit, type CliDeps } from './common.js';
 import { createCliOutput } from './output.js';
@@ -14,7 +13,8 @@ export function addSrmCommand(program: Command, setExit: SetExit, deps: CliDeps)
     .option('--weights <weights>', 'planned weights, e.g. 50,50 (default: equal)')
     .option('--threshold <p>', 'alarm below this p-value', String(SRM_ALARM_P))
     .addOption(formatOption())
-    .action((counts: string[], local: { weights?: string; threshold: string; format: string }) => {
+    .action(async (counts: string[], local: { weights?: string; threshold: string; format: string }) => {
+      const [{ SRM_JSON_FORMAT, renderSrmText }, { sampleRatioMismatch }] = await Promise.all([import('../core/report/readout.js'), import('../core/stats/srm.js')]);
       const observed = parseNumbers('counts', counts);
       const weights = local.weights ? parseNumbers('weights', local.weights.split(',')) : observed.map(() => 1);
       const threshold = parseNumbers('threshold', [local.threshold])[0]!;

@@ -1,6 +1,4 @@
 import type { Command } from 'commander';
-import { renderValidationText, validationJson } from '../core/report/validation.js';
-import { validateRepository } from '../run/validate.js';
 import { EXIT, context, formatOption, reportSettingsProblems, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 /** `plumbline validate`: every plan, registry and settings file checked. */
@@ -12,6 +10,7 @@ export function addValidateCommand(program: Command, setExit: SetExit, deps: Cli
     .action(async (local: { format: 'text' | 'json' }) => {
       const options = { ...program.opts<CommonOptions>(), ...local };
       const { output, ...ports } = context(options, deps);
+      const [{ renderValidationText, validationJson }, { validateRepository }] = await Promise.all([import('../core/report/validation.js'), import('../run/validate.js')]);
       const outcome = await validateRepository(ports);
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, options.format, outcome.settingsFile, outcome.problems));
       const { report } = outcome;

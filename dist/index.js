@@ -2,25 +2,67 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
-  BUG_REPORT_HINT,
+  createRepoFiles,
+  writeFileAtomic
+} from "./chunks/chunk-ER4STLMC.js";
+import {
+  reviewChange
+} from "./chunks/chunk-YHT5TTGY.js";
+import {
+  digestRepository
+} from "./chunks/chunk-Q7WQ3W2K.js";
+import "./chunks/chunk-XZ7PS274.js";
+import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
-  ExternalError,
-  REVIEW_MARKER,
-  UsageError,
-  createRepoFiles,
-  digestRepository,
-  external_exports,
-  formatCount,
   mergeDigestBody,
-  openChange,
-  renderDigestMarkdown,
+  renderDigestMarkdown
+} from "./chunks/chunk-I3MJZNCE.js";
+import "./chunks/chunk-PUBZ3F6D.js";
+import "./chunks/chunk-G6K6KKMR.js";
+import "./chunks/chunk-A2NAIY4K.js";
+import {
+  REVIEW_MARKER,
   renderReviewMarkdown,
-  renderReviewSummary,
-  reviewChange,
-  reviewJson,
-  writeFileAtomic
-} from "./chunks/chunk-SCQ4HB75.js";
+  renderReviewSummary
+} from "./chunks/chunk-EG7WX3AV.js";
+import "./chunks/chunk-EA55H5BX.js";
+import {
+  reviewJson
+} from "./chunks/chunk-2GPPN5UD.js";
+import "./chunks/chunk-5JKBGEUQ.js";
+import "./chunks/chunk-I35W5DNY.js";
+import "./chunks/chunk-EV3WVM2U.js";
+import "./chunks/chunk-5N6F6GKY.js";
+import "./chunks/chunk-WMETXK3J.js";
+import "./chunks/chunk-B52SKDPA.js";
+import "./chunks/chunk-NQBZBG6H.js";
+import "./chunks/chunk-YAMIXLAQ.js";
+import "./chunks/chunk-EIDPB5F5.js";
+import "./chunks/chunk-5CGVWF3A.js";
+import "./chunks/chunk-MGCIOLH6.js";
+import "./chunks/chunk-BXF2RWJM.js";
+import {
+  openChange
+} from "./chunks/chunk-AIG2EVEX.js";
+import {
+  BUG_REPORT_HINT,
+  ExternalError,
+  UsageError
+} from "./chunks/chunk-TEADBEZM.js";
+import "./chunks/chunk-PTQPFAEX.js";
+import "./chunks/chunk-X2H4NLT2.js";
+import {
+  external_exports
+} from "./chunks/chunk-5GP5B2QS.js";
+import "./chunks/chunk-I2TZ7Q7J.js";
+import "./chunks/chunk-D7CL2H7J.js";
+import "./chunks/chunk-XKJLWKP7.js";
+import "./chunks/chunk-5QQVXPU4.js";
+import "./chunks/chunk-7H6MHGDI.js";
+import {
+  formatCount
+} from "./chunks/chunk-5CFAFUOS.js";
 import {
   __commonJS,
   __export,

@@ -1,0 +1,28 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+
+// src/errors.ts
+var UsageError = class extends Error {
+  constructor(message, hint) {
+    super(message);
+    this.hint = hint;
+  }
+  hint;
+  name = "UsageError";
+};
+var ExternalError = class extends Error {
+  constructor(message, hint, options) {
+    super(message, options);
+    this.hint = hint;
+  }
+  hint;
+  name = "ExternalError";
+};
+var BUG_REPORT_HINT = "This is a bug in Plumbline, not in your files. Please open an issue with the command you ran and the output above.";
+
+export {
+  UsageError,
+  ExternalError,
+  BUG_REPORT_HINT
+};

@@ -44,7 +44,7 @@ import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
 import {
   openChange
-} from "./chunks/chunk-AIG2EVEX.js";
+} from "./chunks/chunk-LWSADFMB.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,

@@ -284,6 +284,9 @@ function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: 
             continue;
           }
           if (deliver && size > spill.length) spill = Buffer.allocUnsafe(Math.max(size, spill.length * 2));
+          // Back to the loop's test: the header may have ended the chunk, and an empty object's
+          // newline may come only with the next chunk.
+          continue;
         }
         if (remaining > 0) {
           const n = Math.min(remaining, chunk.length - at);

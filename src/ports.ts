@@ -1,3 +1,7 @@
+import type { TextAtCommit } from './core/plan/launch-rule.js';
+
+export type { TextAtCommit };
+
 /**
  * The small interfaces the use cases need from the outside world. Adapters implement them;
  * tests pass simple in-memory versions. Nothing in src/core imports this file's implementations.
@@ -38,6 +42,12 @@ export interface ChangeSource {
   streamFiles(side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void>;
   /** Every tracked path at the ref. */
   trackedFiles(side: 'base' | 'head'): Promise<string[]>;
+}
+
+/** Files at any commit of the repository's history (a plan as it was when its test launched). */
+export interface CommitFiles {
+  /** `path` relative to the repository folder Plumbline runs in. */
+  fileAt(commit: string, path: string): Promise<TextAtCommit>;
 }
 
 /** Reports progress of long work; the CLI draws it only on a terminal. */

@@ -2,7 +2,7 @@ import { spawn } from 'node:child_process';
 import { closeSync, constants, fstatSync, openSync, readSync } from 'node:fs';
 import { join } from 'node:path';
 import { ExternalError } from '../errors.js';
-import type { ChangeSource, ChangedFile, RepoFiles } from '../ports.js';
+import type { ChangeSource, ChangedFile, RepoFiles, TextAtCommit } from '../ports.js';
 
 /**
  * The review's view of git: the change between two commits of a local repository, and the trees
@@ -365,4 +365,24 @@ async function readWorkingTree(root: string, paths: readonly string[], onFile: (
       if (fd !== undefined) closeSync(fd);
     }
   }
+}
+
+/**
+ * A file's text as it was at a commit, for the readout's "rule as registered at launch": `path` is
+ * relative to `dir`, which may lie below the repository's root. Says why when there is none: not a
+ * repository, a commit this clone does not have (a shallow clone, a mistyped id), or no such file then.
+ */
+export async function readFileAtCommit(dir: string, commit: string, path: string): Promise<TextAtCommit> {
+  const inRepository = await runGit(dir, ['rev-parse', '--is-inside-work-tree'], { allow: [128] }).then(
+    (out) => out.toString('utf8').trim() === 'true',
+    () => false,
+  );
+  if (!inRepository) return { found: false, reason: 'no-repository' };
+  const full = (await runGit(dir, ['rev-parse', '--verify', '--quiet', '--end-of-options', `${commit}^{commit}`], { allow: [1, 128] })).toString('utf8').trim();
+  if (!/^[0-9a-f]{40,64}$/.test(full)) return { found: false, reason: 'no-commit' };
+  // `<commit>:./path` is resolved from the current folder, so -C into a sub-folder still finds the file.
+  const blob = (await runGit(dir, ['rev-parse', '--verify', '--quiet', '--end-of-options', `${full}:./${path}`], { allow: [1, 128] })).toString('utf8').trim();
+  if (!/^[0-9a-f]{40,64}$/.test(blob)) return { found: false, reason: 'no-file', commit: full };
+  const text = (await runGit(dir, ['cat-file', 'blob', blob])).toString('utf8');
+  return { found: true, text, commit: full };
 }

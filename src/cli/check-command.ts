@@ -108,7 +108,7 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
       const change = await deps.openChange(cwd, flags.base!, flags.head);
-      const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
+      const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(deps.history ? { history: deps.history(cwd) } : {}), ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
       if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });

@@ -2,7 +2,7 @@ import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
-import type { ChangeSource, RepoFiles } from '../ports.js';
+import type { ChangeSource, CommitFiles, RepoFiles } from '../ports.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { createCliOutput, type CliOutput } from './output.js';
@@ -30,6 +30,8 @@ export const formatOption = () => new Option('--format <format>', 'output format
 export interface CliDeps {
   files(root: string): RepoFiles;
   openChange(root: string, base: string, head: string): Promise<ChangeSource>;
+  /** Files at past commits (a plan as it was at launch); absent, readouts use today's plan and say so. */
+  history?(root: string): CommitFiles;
   write?: { out(text: string): void; err(text: string): void };
 }
 
@@ -40,7 +42,11 @@ function existingRepoFiles(root: string): RepoFiles {
 }
 
 /** git is loaded only by the command that opens a change, so the other commands start without it. */
-export const REAL_DEPS: CliDeps = { files: existingRepoFiles, openChange: async (...args) => (await import('../adapters/git.js')).openChange(...args) };
+export const REAL_DEPS: CliDeps = {
+  files: existingRepoFiles,
+  openChange: async (...args) => (await import('../adapters/git.js')).openChange(...args),
+  history: (root) => ({ fileAt: async (commit, path) => (await import('../adapters/git.js')).readFileAtCommit(root, commit, path) }),
+};
 
 export function context(options: CommonOptions, deps: CliDeps) {
   const output = createCliOutput({ noColorFlag: !options.color, ...(deps.write ? { write: deps.write } : {}) });

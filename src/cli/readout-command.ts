@@ -46,6 +46,7 @@ export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliD
         plan: planName,
         totals: flags.totals.replace(/^\.\//, ''),
         ...(flags.record ? { record: { decidedBy: flags.decidedBy!, recordedOn: today } } : {}),
+        ...(deps.history ? { history: deps.history(cwd) } : {}),
       });
       const { readout } = outcome;
       if (outcome.warnings.length) output.err(outcome.warnings.map(formatProblem).join('\n'));

@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { openChange } from '../adapters/git.js';
+import { openChange, readFileAtCommit } from '../adapters/git.js';
 import { openApiChange } from '../adapters/github-change.js';
 import { GitHubError, PULL_REQUEST_FILES_CAP } from '../adapters/github.js';
 import { formatCount } from '../core/report/numbers.js';
@@ -8,7 +8,7 @@ import { withUnseenFiles, type UnseenFiles } from '../core/review/coverage.js';
 import { renderReviewMarkdown, renderReviewSummary } from '../core/report/review-markdown.js';
 import type { Review } from '../core/review/build-review.js';
 import type { PullRequestInfo } from '../core/review/context.js';
-import type { ChangeSource, GitHubPort } from '../ports.js';
+import type { ChangeSource, CommitFiles, GitHubPort } from '../ports.js';
 import { REVIEW_MARKER } from '../core/report/review-markdown.js';
 import { reviewChange } from './review-change.js';
 import { upsertStickyComment, type StickyResult } from './sticky-comment.js';
@@ -56,6 +56,7 @@ export async function reviewPullRequest(options: {
       return undefined;
     });
   }
+  const usingGit = change !== undefined;
   if (!change) {
     const api = await openApiChange({ github, pullRequest: event.number, workspace, base: event.baseSha, head: event.headSha });
     if (api.capped && (event.changedFiles === undefined || event.changedFiles > api.listed)) {
@@ -69,7 +70,9 @@ export async function reviewPullRequest(options: {
     }
     change = api.change;
   }
-  const outcome = await reviewChange({ change, pr: event.info, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
+  // With git history the plan at a readout's plan-commit can be read; through the files API it cannot, and the readout says so.
+  const history: CommitFiles | undefined = usingGit ? { fileAt: (commit, path) => readFileAtCommit(workspace, commit, path) } : undefined;
+  const outcome = await reviewChange({ change, pr: event.info, ...(history ? { history } : {}), ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   if (outcome.kind === 'settings-invalid') return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join('\n') };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const linkBase = `${event.repoUrl}/blob/${review.head}`;

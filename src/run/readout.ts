@@ -1,8 +1,9 @@
 import { recordOutcome } from '../core/plan/record-outcome.js';
-import { buildReadout, type Readout } from '../core/readout/build-readout.js';
+import type { Readout } from '../core/readout/build-readout.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
-import { loadTotals } from '../core/totals/load.js';
 import { UsageError } from '../errors.js';
+import type { CommitFiles } from '../ports.js';
+import { readTotalsAgainstPlan } from './read-totals.js';
 import { findNamedPlan } from './find-plan.js';
 import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
@@ -12,6 +13,8 @@ export interface ReadoutOptions extends LoadWorkspaceOptions {
   totals: string;
   /** With a decider and a day, the plan's text with the outcome block written. */
   record?: { decidedBy: string; recordedOn: string };
+  /** The repository's history, to read the plan as it was at the totals' plan-commit; without it, today's plan is used and the readout says so. */
+  history?: CommitFiles;
 }
 
 export interface ReadoutOutcome {
@@ -28,11 +31,11 @@ export async function readOutPlan(options: ReadoutOptions): Promise<ReadoutOutco
   const found = findNamedPlan(workspace, options.plan, 'read out');
   const text = await options.files.readText(options.totals);
   if (text === undefined) throw new UsageError(`the totals file ${options.totals} does not exist`, 'the path is relative to --cwd (the repository root)');
-  const loaded = loadTotals(text, options.totals, found.plan);
+  const loaded = await readTotalsAgainstPlan({ plan: found.plan, planFile: found.file, totalsFile: options.totals, totalsText: text, ...(options.history ? { history: options.history } : {}) });
   if (!loaded.ok) {
     throw new UsageError(`${options.totals} cannot be read out:\n${[...loaded.errors, ...loaded.warnings].map(formatProblem).join('\n')}`, 'see docs/totals-reference.md for the format');
   }
-  const readout = buildReadout(found.plan, loaded.totals);
+  const { readout } = loaded;
   const outcome: ReadoutOutcome = { readout, planFile: found.file, warnings: loaded.warnings };
   if (options.record) {
     const planText = await options.files.readText(found.file);

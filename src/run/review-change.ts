@@ -9,15 +9,18 @@ import type { ChangedCode, LinkedPlan, PullRequestInfo, ReviewContext } from '..
 import { linkPlans } from '../core/review/link-plans.js';
 import { parseUnifiedDiff, type FileDiff } from '../core/scan/diff.js';
 import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../core/scan/flag-files.js';
-import { findFlagTouches } from '../core/scan/flag-touches.js';
-import { createNameScanner, type Location } from '../core/scan/name-scan.js';
+import { findFlagTouches, type FlagTouch } from '../core/scan/flag-touches.js';
+import { createNameScanner, type Location, type NameHits } from '../core/scan/name-scan.js';
+import { keptArm } from '../core/review/kept-arm.js';
+import { loadTotals } from '../core/totals/load.js';
 import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
+import { isTotalsPath } from './read-totals.js';
 import { attachReadouts } from './review-readouts.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
 import { finiteSizing } from '../core/stats/finite-sizing.js';
-import type { ChangeSource, ProgressReporter, RepoFiles } from '../ports.js';
+import type { ChangeSource, CommitFiles, ProgressReporter, RepoFiles } from '../ports.js';
 import { todayIn } from './digest.js';
 import { loadBaseWorkspace } from './load-base-plans.js';
 import { loadWorkspace, ownFilesOf, type Workspace } from './load-workspace.js';
@@ -29,6 +32,8 @@ export interface ReviewChangeOptions {
   onProgress?: ProgressReporter;
   /** The review's day, YYYY-MM-DD; default: today in the settings' time zone by the system clock. */
   today?: string;
+  /** The repository's history: readouts apply the plan as it was at their plan-commit. Without it, today's plan, said so. */
+  history?: CommitFiles;
 }
 
 /**
@@ -37,7 +42,7 @@ export interface ReviewChangeOptions {
  * settings, links and event locations are kept: the question is only whether each plan already had
  * the problem. Undefined when the base cannot be loaded (then every finding counts as introduced).
  */
-async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, head: ReviewContext, removed: ReadonlyMap<string, Location>): Promise<ReviewContext | undefined> {
+async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, head: ReviewContext, removed: ReadonlyMap<string, Location>, history: CommitFiles | undefined): Promise<ReviewContext | undefined> {
   if (!base) return undefined;
   // Events whose logging this change removes were still there at base.
   const events = new Map(head.events);
@@ -51,7 +56,7 @@ async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, 
     return then ? [{ loaded: then, reasons: l.reasons, sizing: finiteSizing(sizePlan(then.plan, sizingPolicy(head.settings))) }] : [];
   });
   // A recorded outcome is checked against its totals at base too, so an unchanged override stays "known".
-  await attachReadouts(linked, baseFiles);
+  await attachReadouts(linked, baseFiles, history ? { history } : {});
   return { ...head, linked, invalidPlanFiles: [], registry: base.registry, events };
 }
 
@@ -103,11 +108,11 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const touches = [...definitionTouches, ...codeTouches];
 
   const pr = options.pr ?? {};
-  const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr });
+  const changedTotals = totalsInChange(textAt.added);
+  const links = linkPlans({ plans: workspace.plans, changedPaths, touches, pr, readouts: new Set(changedTotals.keys()) });
   const linked: LinkedPlan[] = workspace.plans
     .filter((p) => links.has(p.plan.id))
     .map((p: LoadedPlan) => ({ loaded: p, reasons: links.get(p.plan.id)!, sizing: finiteSizing(sizePlan(p.plan, sizingPolicy(settings))) }));
-  await attachReadouts(linked, head);
   // Plan files that do not load: those the change edits, and those that name a flag the change touches.
   const brokenPlans = [...new Set(workspace.problems.filter((p) => p.severity === 'error' && workspace.planFiles.includes(p.file)).map((p) => p.file))];
   const brokenFlags = (await head.readTexts(brokenPlans)).map(declaredFlags);
@@ -120,7 +125,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   // Running at head or at the base commit: a change that also edits the plan still cuts the data collected so far.
   const running = [...runningEntries(workspace.registry.entries), ...runningEntries(await baseEntries)];
   // The same pass finds whether the flags of started tests are still read anywhere.
-  const startedFlags = [...workspace.registry.entries, ...(await baseEntries)].filter((e) => e.state !== 'concluded').flatMap((e) => e.flags);
+  // Linked plans' flags too, concluded ones included: removing a flag's last read ends its test, and brings its readout.
+  const startedFlags = [...[...workspace.registry.entries, ...(await baseEntries)].filter((e) => e.state !== 'concluded').flatMap((e) => e.flags), ...linked.flatMap((l) => l.loaded.plan.flags)];
   const names = [...new Set([...linked.flatMap((l) => eventsOfPlan(l.loaded.plan)), ...running.flatMap((e) => e.events), ...startedFlags])];
   const logPatterns = logPatternsOf(settings);
   const scanner = createNameScanner(names, logPatterns);
@@ -154,18 +160,49 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   }
 
   const hits = scanner.results();
+  const changedCode = changedCodeOf(textual, textAt);
+  markEndings(linked, touches, hits, changedCode, flagPatterns);
+  await attachReadouts(linked, head, { changedTotals, tracked: await trackedAtHead, ...(options.history ? { history: options.history } : {}) });
   // Code at head for the checks that read whole functions: changed files, and where linked plans log exposure.
   const codeAtHead = new Map([...textAt.added].filter((entry): entry is [string, string] => entry[1] !== undefined));
   const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
   (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const context: ReviewContext = {
     settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
-    changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
+    changedCode, today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
-  const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked);
+  const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked, options.history);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
+}
+
+/** Totals files the change adds or edits, by the plan they name (the latest data when a plan has several). */
+function totalsInChange(added: ReadonlyMap<string, string | undefined>): Map<string, string> {
+  const latest = new Map<string, { file: string; through: string }>();
+  for (const [file, text] of [...added].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
+    if (text === undefined || !isTotalsPath(file)) continue;
+    const loaded = loadTotals(text, file);
+    if (!loaded.ok) continue;
+    const was = latest.get(loaded.totals.planId);
+    if (!was || loaded.totals.dataThrough >= was.through) latest.set(loaded.totals.planId, { file, through: loaded.totals.dataThrough });
+  }
+  return new Map([...latest].map(([id, { file }]) => [id, file]));
+}
+
+/**
+ * Linked plans whose flags the change stops reading: a read (a call, not a mention) removed, and no
+ * quoted key left in product code at head. Those tests end with this change; which arm it keeps is read from the code.
+ */
+function markEndings(linked: LinkedPlan[], touches: readonly FlagTouch[], hits: ReadonlyMap<string, NameHits>, code: readonly ChangedCode[], flagPatterns: readonly RegExp[]): void {
+  const removed = touches.filter((t) => t.side === 'removed' && (t.via === 'call' || t.via === 'constant'));
+  for (const l of linked) {
+    const { plan } = l.loaded;
+    const gone = plan.flags.filter((k) => removed.some((t) => t.key === k) && hits.get(k)?.firstCall === undefined && hits.get(k)?.firstQuoted === undefined);
+    if (gone.length === 0) continue;
+    const reads = removed.filter((t) => gone.includes(t.key)).map((t) => ({ file: t.file, line: t.line }));
+    l.ending = { flags: gone, kept: keptArm(plan, reads, code, flagPatterns) };
+  }
 }
 
 /** The changed text files with their changed lines and both texts, for checks that read around a change. */

@@ -5,7 +5,7 @@ import { FINDING_CODES } from '../../src/core/review/finding.js';
 import type { Review } from '../../src/core/review/build-review.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import type { PullRequestInfo } from '../../src/core/review/context.js';
-import { makeTwoCommitRepo } from '../helpers/git-repo.js';
+import { historyOf, makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml, recorded, withPlan } from './scenarios.js';
 
 const made: string[] = [];
@@ -17,7 +17,7 @@ afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: tru
 async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), pr, today: today ?? TODAY });
+  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), history: historyOf(repo.root), pr, today: today ?? TODAY });
   if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
   return outcome.review;
 }

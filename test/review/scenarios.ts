@@ -1,4 +1,5 @@
 import { stringify } from 'yaml';
+import { BASE_COMMIT } from '../helpers/git-repo.js';
 
 /** A plan with every hygiene item in order; scenarios change one thing at a time. */
 export function cleanPlan(overrides: Record<string, unknown> = {}): Record<string, unknown> {
@@ -45,9 +46,12 @@ export function baseFiles(extra: Record<string, string> = {}): Record<string, st
 /** A head that changes the good plan (so it is linked) and touches its flag. */
 export const withPlan = (plan: Record<string, unknown>, extra: Record<string, string | null> = {}) => ({ 'experiments/good.yaml': planYaml(plan), 'src/cart.ts': CART_CODE_TOUCHED, ...extra });
 
-/** Totals for the good plan through its planned end: the treatment's purchases as given (control: 6,000 of 20,000). */
-export const goodTotals = (bought: number) =>
-  `plan: good\nplan-commit: 4b1d2e7\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
+/**
+ * Totals for the good plan through its planned end: the treatment's purchases as given (control: 6,000 of 20,000).
+ * Launched at the base commit unless another plan-commit is given (only a change's files have it filled in).
+ */
+export const goodTotals = (bought: number, planCommit = BASE_COMMIT) =>
+  `plan: good\nplan-commit: ${planCommit}\ndata-through: 2026-11-29\narms:\n  control: { units: 20000, metrics: { bought: { units-with-event: 6000 }, errors: { units-with-event: 400 } } }\n  treatment: { units: 20000, metrics: { bought: { units-with-event: ${bought} }, errors: { units-with-event: 400 } } }\n`;
 
 /** A head that records an outcome for the good plan, read from totals with the treatment's purchases as given. */
 export const recorded = (outcome: Record<string, unknown>, bought: number, plan: Record<string, unknown> = {}) =>

@@ -52,6 +52,10 @@ export const endedEarly: Check = (context) => {
       const gone = before.flags.filter((k) => removed.has(k) && !stillRead(context, k));
       const after = head.get(before.id) ?? before;
       if (gone.length === 0 || hasOutcome(after)) return [];
-      return [finding(before, after, gone, removed.get(gone[0]!)!, context.today)];
+      const raised = finding(before, after, gone, removed.get(gone[0]!)!, context.today);
+      // Past its end with no totals either: readout-missing says both, once.
+      const linked = context.linked.find((l) => l.loaded.plan.id === after.id);
+      if (raised.code === 'outcome-missing' && linked?.ending && !linked.readout) return [];
+      return [raised];
     });
 };

@@ -19,6 +19,7 @@ import {
 } from './plans.js';
 import { sizingChecks } from './sizing.js';
 import { outcomeRecorded } from './outcome.js';
+import { endedWithoutReadout, ruleAtLaunch } from './readout-links.js';
 import { treatmentChanged } from './treatment-change.js';
 import { analysisUnitDiffers, spillover } from './unit.js';
 
@@ -26,11 +27,13 @@ import { analysisUnitDiffers, spillover } from './unit.js';
 export const CHECKS: readonly Check[] = [
   planInvalid,
   outcomeRecorded,
+  ruleAtLaunch,
   frozenPlans,
   decisionsMissing,
   reviewMissing,
   eventRemoved,
   endedEarly,
+  endedWithoutReadout,
   treatmentChanged,
   flagWithoutPlan,
   reasonMissing,

@@ -6,6 +6,7 @@ import type { ArmTotalsFile, MetricTotals, TotalsGroup } from '../totals/schema.
 import { addTotals } from './combine.js';
 import { compareArms, type Comparison } from './compare.js';
 import { cupedAdjustment, estimateArm, type CupedAdjustment } from './estimate.js';
+import type { RuleSource } from './launch-note.js';
 import { readoutTiming, type Timing } from './timing.js';
 
 /**
@@ -92,6 +93,8 @@ export interface Readout {
   /** The decision the plan registered for this verdict, quoted as written. */
   decision?: { rule: 'win' | 'loss' | 'flat' | 'guardrail-breach'; text: string };
   findings: ReadoutFinding[];
+  /** Which plan's rule was applied: the one at the totals' plan-commit, an amended one, or today's (set by withLaunchRule). */
+  rule?: RuleSource;
 }
 
 /** Significance level of the test that week 1 differs from the later weeks (common practice, no source). */
@@ -491,4 +494,10 @@ export function buildReadout(plan: Plan, totals: ArmTotalsFile): Readout {
 function formatShare(x: number | undefined): string {
   if (x === undefined || !Number.isFinite(x)) return 'an unknown share';
   return `${(x * 100).toFixed(x < 0.1 ? 1 : 0)}%`;
+}
+
+/** The arms a readout's class says to ship: a win ships its winners; every other class keeps the control (nothing, unread). */
+export function armsToShip(read: Pick<Readout, 'verdict' | 'verdictArms' | 'control'>): string[] {
+  if (read.verdict === 'not-read') return [];
+  return read.verdict === 'win' ? read.verdictArms : [read.control];
 }

@@ -5,7 +5,7 @@ import { checklistSummary } from './review-summary.js';
 import { lengthSummary } from './sizing.js';
 import { planChangeLines } from './plan-amendment.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
-import { overrideLines, ruleAppliedLine, type ReadoutStyle } from './review-readout.js';
+import { overrideLines, ruleAppliedLine, ruleSourceLine, type ReadoutStyle } from './review-readout.js';
 
 const LABEL: Record<Severity, string> = { block: 'BLOCK', warn: 'warn ', note: 'note ' };
 
@@ -38,7 +38,7 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
   for (const plan of review.plans) {
     out.push('', `${style.bold(`Plan ${terminalSafe(plan.id)}`)} (${terminalSafe(plan.state)}, ${terminalSafe(plan.owners.join(', '))}) ${terminalSafe(plan.file)}:${plan.line}`);
     const checklist = checklistSummary(plan.checklist);
-    if (plan.readout) out.push(`  ${ruleAppliedLine(plan.readout, readoutStyle)}`);
+    if (plan.readout) out.push(`  ${ruleAppliedLine(plan.readout, readoutStyle)}`, `  ${ruleSourceLine(plan.readout, readoutStyle)}`);
     out.push(`  checklist: ${checklist.count}`);
     for (const label of checklist.failing) out.push(`  [${style.red(' ')}] ${label}`);
     const length = lengthSummary(plan.sizing);

@@ -4,9 +4,10 @@ import { collisionsOfLinked } from '../checks/collisions.js';
 import { eventStatuses, type EventStatus } from '../checks/logging.js';
 import { closestName } from '../source/closest-name.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
-import type { MetricRead, Verdict as ReadoutVerdict } from '../readout/build-readout.js';
+import { armsToShip, type MetricRead, type Verdict as ReadoutVerdict } from '../readout/build-readout.js';
 import type { OutcomeClass } from '../plan/outcome.js';
-import type { LinkReason, ReviewContext } from './context.js';
+import type { RuleSource } from '../readout/launch-note.js';
+import type { LinkReason, ReadoutSource, ReviewContext } from './context.js';
 import type { UnseenFiles } from './coverage.js';
 import { ALWAYS_BLOCKS, CHANGE_BOUND, FINDING_CODES, type Finding, type Severity } from './finding.js';
 
@@ -49,6 +50,14 @@ export interface PlanReadout {
   recorded?: OutcomeClass;
   /** The primary metric's figures, as the readout computed them. */
   primary?: MetricRead;
+  /** Where the totals came from: the recorded outcome, a file the change adds or edits, or the latest one (the change ends the test). */
+  source: ReadoutSource;
+  /** The change removes the last read of these flags: the arm its code keeps, or why that could not be told. */
+  removes?: { flags: string[]; kept?: string; unknown?: string };
+  /** The arms the rule says to ship: the winners of a win, else the control. */
+  ships: string[];
+  /** Which plan's rule was applied (launch, amended, or today's for want of history). */
+  rule?: RuleSource;
 }
 
 export interface ReviewCollision {
@@ -130,20 +139,25 @@ function knownAtBase(base: ReviewContext | undefined): Set<string> {
   );
 }
 
-/** The readout part of a plan's section, when its outcome names totals that read out. */
+/** The readout part of a plan's section: its recorded outcome's totals, totals in the change, or the latest when the change ends the test. */
 function planReadout(linked: ReviewContext['linked'][number]): Pick<PlanReview, 'readout' | 'override'> {
   const outcome = linked.loaded.plan.outcome;
   const read = linked.readout?.readout;
   const override = outcome?.override ? { override: outcome.override } : {};
   if (!read || !linked.readout) return override;
+  const ending = linked.ending;
   return {
     readout: {
       file: linked.readout.file,
+      source: linked.readout.source,
       verdict: read.verdict,
       arms: read.verdictArms,
+      ships: armsToShip(read),
       ...(read.decision ? { decision: read.decision.text } : {}),
       ...(outcome?.class ? { recorded: outcome.class } : {}),
       ...(read.verdict !== 'not-read' ? { primary: read.primary } : {}),
+      ...(ending ? { removes: { flags: ending.flags, ...('arm' in ending.kept ? { kept: ending.kept.arm } : { unknown: ending.kept.unknown }) } } : {}),
+      ...(read.rule ? { rule: read.rule } : {}),
     },
     ...override,
   };

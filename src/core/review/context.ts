@@ -8,6 +8,7 @@ import type { Problem } from '../source/problem.js';
 import type { PlanSizing } from '../stats/plan-sizing.js';
 import type { Readout } from '../readout/build-readout.js';
 import type { Finding } from './finding.js';
+import type { KeptArm } from './kept-arm.js';
 
 /** What the pull request says about itself; every field optional (a local run may know none). */
 export interface PullRequestInfo {
@@ -17,15 +18,23 @@ export interface PullRequestInfo {
   branch?: string;
 }
 
-export type LinkReason = 'named in the description' | 'plan file changed' | 'flag touched';
+export type LinkReason = 'named in the description' | 'plan file changed' | 'flag touched' | 'readout changed';
 
 export interface LinkedPlan {
   loaded: LoadedPlan;
   reasons: LinkReason[];
   sizing: PlanSizing;
-  /** For a plan that records an outcome: the readout of the totals it names, or why there is none. */
-  readout?: { file: string; readout?: Readout; problem?: string };
+  /**
+   * The readout of the plan's totals, or why there is none: the file its recorded outcome names, else a
+   * totals file the change adds or edits, else (when the change ends the test) its latest totals file.
+   */
+  readout?: { file: string; readout?: Readout; problem?: string; source: ReadoutSource };
+  /** When the change removes the last read of the plan's flags: which flags, and the arm the code keeps. */
+  ending?: { flags: string[]; kept: KeptArm };
 }
+
+/** Where a plan's readout comes from: its recorded outcome, a totals file in the change, or the latest one in the repository. */
+export type ReadoutSource = 'outcome' | 'changed' | 'latest';
 
 /** Everything a check may look at. Built by the review use case; checks only read it. */
 export interface ReviewContext {

@@ -4,13 +4,15 @@ import type { LinkReason, PullRequestInfo } from './context.js';
 
 /**
  * Which plans a change is about: plans named in the pull request's description (by id or path),
- * plan files the change adds or edits, and plans whose flags the change touches.
+ * plan files the change adds or edits, plans whose flags the change touches, and plans whose totals file it adds or edits.
  */
 export function linkPlans(options: {
   plans: readonly LoadedPlan[];
   changedPaths: ReadonlySet<string>;
   touches: readonly FlagTouch[];
   pr: PullRequestInfo;
+  /** Plan ids of the totals files the change adds or edits. */
+  readouts?: ReadonlySet<string>;
 }): Map<string, LinkReason[]> {
   const links = new Map<string, LinkReason[]>();
   const add = (id: string, reason: LinkReason) => {
@@ -24,6 +26,7 @@ export function linkPlans(options: {
     if (body.includes(file) || mentionsWord(body, plan.id)) add(plan.id, 'named in the description');
     if (options.changedPaths.has(file)) add(plan.id, 'plan file changed');
     if (plan.flags.some((f) => touched.has(f))) add(plan.id, 'flag touched');
+    if (options.readouts?.has(plan.id)) add(plan.id, 'readout changed');
   }
   return links;
 }

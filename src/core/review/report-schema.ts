@@ -88,7 +88,7 @@ export const reviewReportSchema = z
         line: z.number().int(),
         state: z.string(),
         owners: z.array(z.string()),
-        reasons: z.array(z.enum(['named in the description', 'plan file changed', 'flag touched'])),
+        reasons: z.array(z.enum(['named in the description', 'plan file changed', 'flag touched', 'readout changed'])),
         checklist: z.array(z.object({ label: z.string(), done: z.boolean() })),
         sizing: z.object({
           planId: z.string(),
@@ -121,9 +121,19 @@ export const reviewReportSchema = z
             decision: z.string().optional(),
             recorded: z.enum(OUTCOME_CLASSES).optional(),
             primary: z.looseObject({ metric: z.string(), kind: z.string(), direction: z.string(), arms: z.array(z.looseObject({ arm: z.string(), ok: z.boolean() })) }).optional().describe('The primary metric as the readout computed it (plumbline readout --format json gives the same).'),
+            source: z.enum(['outcome', 'changed', 'latest']).describe('Where the totals came from: the recorded outcome, a totals file the change adds or edits, or the latest totals file of a test the change ends.'),
+            ships: z.array(z.string()).describe('The arms the rule says to ship: the winners of a win, else the control.'),
+            removes: z
+              .object({ flags: z.array(z.string()), kept: z.string().optional(), unknown: z.string().optional() })
+              .optional()
+              .describe('The change removes the last read of these flags: the arm its code keeps, or why that could not be told.'),
+            rule: z
+              .looseObject({ status: z.enum(['same', 'amended', 'changed', 'unavailable']), commit: z.string() })
+              .optional()
+              .describe('Which rule was applied: the plan at the totals’ plan-commit (same), an amended plan, the launch rule over a plan changed since (changed), or today’s plan when the launch plan cannot be read (unavailable).'),
           })
           .optional()
-          .describe('A plan that records an outcome with its totals: the class the registered rule gives on them, beside the class recorded.'),
+          .describe('The readout of a linked plan: the class the registered rule gives on its totals, beside what the change records and the arm it keeps.'),
         override: z.object({ class: z.enum(OUTCOME_CLASSES).optional(), ship: z.array(z.string()).optional(), reason: z.string() }).optional().describe('A recorded decision that departs from the registered rule, with its reason.'),
       }),
     ),

@@ -6,7 +6,7 @@ import type { Review } from '../../src/core/review/build-review.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import type { PullRequestInfo } from '../../src/core/review/context.js';
 import { historyOf, makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, planYaml, recorded, withPlan } from './scenarios.js';
+import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, goodTotals, planYaml, recorded, withPlan } from './scenarios.js';
 
 const made: string[] = [];
 /** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
@@ -45,6 +45,9 @@ const pastOutcomes = (relatives: number[]) =>
       ),
     ]),
   );
+
+/** Totals of the good test run from 2026-10-05 to 2026-11-01, committed without a resolvable launch commit. */
+const OVERDUE_TOTALS = goodTotals(6400, '4b1d2e7').replace('data-through: 2026-11-29', 'data-through: 2026-11-01');
 
 const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -> 4%', reason: 'Traffic doubled after the app release.' };
 
@@ -249,12 +252,27 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     trigger: { changes: { 'src/cart.ts': HARD_CODED_CART } },
     nearMiss: { changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', outcome: { date: '2026-11-16', reason: 'Stopped: checkout errors doubled.' } })) } },
   },
+  // With totals for it (here in the change), the readout is there; only the recorded outcome is missing.
   'outcome-missing': {
-    trigger: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }), changes: { 'src/cart.ts': HARD_CODED_CART } },
+    trigger: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }), changes: { 'src/cart.ts': HARD_CODED_CART, 'readouts/good.totals.yaml': OVERDUE_TOTALS } },
     nearMiss: {
       files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }),
       changes: { 'src/cart.ts': HARD_CODED_CART, 'experiments/good.yaml': planYaml(cleanPlan({ state: 'concluded', window: { start: '2026-10-05', end: '2026-11-01' }, outcome: { date: '2026-11-03', reason: 'Shipped: +2% orders.' } })) },
     },
+  },
+  'readout-missing': {
+    trigger: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })) }), changes: { 'src/cart.ts': HARD_CODED_CART } },
+    // Totals on main are found for the test the change ends.
+    nearMiss: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ window: { start: '2026-10-05', end: '2026-11-01' } })), 'readouts/good.totals.yaml': OVERDUE_TOTALS }), changes: { 'src/cart.ts': HARD_CODED_CART } },
+  },
+  // The base commit is the launch: the change rewrites the win decision, and the readout is read against the launch rule.
+  'rule-changed': {
+    trigger: { changes: withPlan(cleanPlan({ decisions: { ...(cleanPlan().decisions as object), win: 'Ship to everyone.' } }), { 'readouts/good.totals.yaml': goodTotals(6400) }) },
+    nearMiss: { changes: withPlan(cleanPlan({ decisions: { ...(cleanPlan().decisions as object), win: 'Ship to everyone.' }, amendments: [{ date: '2026-11-16', changed: 'win decision: ship to everyone', reason: 'Support is ready for every region.' }] }), { 'readouts/good.totals.yaml': goodTotals(6400) }) },
+  },
+  'launch-plan-unavailable': {
+    trigger: { changes: withPlan(cleanPlan(), { 'readouts/good.totals.yaml': goodTotals(6400, '4b1d2e7') }) },
+    nearMiss: { changes: withPlan(cleanPlan(), { 'readouts/good.totals.yaml': goodTotals(6400) }) },
   },
   'exposure-one-arm': {
     trigger: { changes: withPlan(cleanPlan(), { 'src/cart.ts': "export function cart(client, track) {\n  if (client.getBooleanValue('good-flag', true)) {\n    track('cart_viewed');\n    track('order_done');\n  }\n  track('cart_error');\n}\n" }) },

@@ -2,7 +2,7 @@
 // what a user would see. Findings in the demo are the point, so they do not fail this script;
 // a usage or internal error (exit code 2 or more) does.
 import { spawnSync } from 'node:child_process';
-import { buildDemoChange } from './demo-change.mjs';
+import { buildDemoChange, buildShipDemo } from './demo-change.mjs';
 
 const steps = [
   { title: 'Validate every plan, registry file and the settings file', args: ['validate'] },
@@ -42,5 +42,17 @@ try {
   if (run.status === null || run.status >= 2) broken = true;
 } finally {
   fix.cleanup();
+}
+// The pull request that ships a winner: checkout-wallet-first passed its planned end; its outcome is recorded
+// with `plumbline readout --record` and the flag read removed, keeping saved wallets first.
+const ship = buildShipDemo();
+try {
+  const args = ['-C', ship.root, 'check', '--base', 'main', '--head', 'ship/wallet-first', '--pr-json', `${process.cwd()}/demo/ship/pull-request.json`, '--format', 'markdown', '--today', '2026-12-08'];
+  process.stdout.write(`\n== Shipping the winner: the readout in the comment\n$ plumbline readout checkout-wallet-first --totals readouts/checkout-wallet-first.totals.yaml --record --decided-by @ines-carvalho --today 2026-12-08\n$ plumbline ${args.slice(2).join(' ').replace(process.cwd() + '/', '')}\n\n`);
+  const run = spawnSync(process.execPath, ['dist/cli.js', ...args], { stdio: 'inherit' });
+  process.stdout.write(`\n(exit code ${run.status})\n`);
+  if (run.status === null || run.status >= 2) broken = true;
+} finally {
+  ship.cleanup();
 }
 process.exitCode = broken ? 1 : 0;

@@ -91,7 +91,8 @@ export function runningEntries(entries: readonly RegistryEntry[]): RegistryEntry
 
 export function collisionsOfLinked(context: Parameters<Check>[0]): { plan: string; collision: Collision }[] {
   const running = runningEntries(context.registry.entries);
-  return context.linked.flatMap(({ loaded }) =>
+  // A concluded test no longer assigns anyone: its overlaps are history, not a risk to either result.
+  return context.linked.filter(({ loaded }) => loaded.plan.state !== 'concluded').flatMap(({ loaded }) =>
     findCollisions(entryFromPlan(loaded.plan, loaded.file, loaded.line), running).map((collision) => ({ plan: loaded.plan.id, collision })),
   );
 }

@@ -9,7 +9,7 @@ import { evidenceKindOf } from '../scan/evidence.js';
 import { DEFAULT_FLAG_FILES } from '../scan/flag-files.js';
 import { resolveConstant } from '../scan/flag-touches.js';
 import { flagPatternsOf } from '../scan/patterns.js';
-import { hasStarted, ownersOf } from './test-lifecycle.js';
+import { hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
 type Raw = Omit<Finding, 'severity'>;
 
@@ -77,7 +77,9 @@ export const treatmentChanged: Check = (context) => {
   const patterns = flagPatternsOf(context.settings);
   const isFlagFile = picomatch(DEFAULT_FLAG_FILES, { dot: true });
   const started = new Map<string, RegistryEntry>();
-  for (const e of context.baseEntries) if (hasStarted(e, context.today)) started.set(e.id, e);
+  // A test whose outcome the change records is over: editing the code around its flag is acting on the result.
+  const ended = new Set(context.registry.entries.filter(hasOutcome).map((e) => e.id));
+  for (const e of context.baseEntries) if (hasStarted(e, context.today) && !ended.has(e.id)) started.set(e.id, e);
   const findings: Raw[] = [];
   for (const entry of started.values()) {
     for (const file of context.changedCode) {

@@ -102,3 +102,20 @@ export function timingLine(readout: Readout): string {
 export function primaryClassText(arm: ArmRead): string {
   return arm.primaryClass ?? 'not computed';
 }
+
+/** Which plan's rule the readout applied, around its commit (so each renderer marks the commit its own way). */
+export function planSource(readout: Readout): { before: string; commit: string; after: string } {
+  const commit = readout.rule?.commit ?? readout.planCommit;
+  switch (readout.rule?.status) {
+    case undefined:
+      return { before: 'Plan as launched: ', commit, after: '.' };
+    case 'same':
+      return { before: 'Rule as registered at launch (', commit, after: ').' };
+    case 'amended':
+      return { before: 'Rule as amended after launch (', commit, after: '): see the note below.' };
+    case 'changed':
+      return { before: 'Rule as registered at launch (', commit, after: '); the plan was changed since without an amendment.' };
+    case 'unavailable':
+      return { before: "Today's plan: the plan at ", commit, after: ' cannot be read.' };
+  }
+}

@@ -1,5 +1,5 @@
 import type { MetricRead, Readout } from '../readout/build-readout.js';
-import { armCells, confidenceOf, guardrailClassText, metricDifference, primaryClassText, ruleLine, srmLine, timingLine } from './readout-figures.js';
+import { armCells, confidenceOf, guardrailClassText, metricDifference, planSource, primaryClassText, ruleLine, srmLine, timingLine } from './readout-figures.js';
 import { codeSpan, safeCell, safeText } from './markdown-safe.js';
 
 const HEADER = ['arm', 'control', 'treatment', 'difference [CI]', 'relative [CI]', 'p', 'adjusted p'];
@@ -14,6 +14,11 @@ export function metricTitle(read: MetricRead, what: string): string {
   return `**${what}: ${codeSpan(read.metric)}${segment}** (${read.kind}, ${read.direction} is better; ${confidenceOf(read)} intervals${cuped})`;
 }
 
+function sourceOf(readout: Readout): string {
+  const { before, commit, after } = planSource(readout);
+  return `${before}${codeSpan(commit)}${after}`;
+}
+
 /** The readout as Markdown, for a pull-request comment or a summary. */
 export function renderReadoutMarkdown(readout: Readout): string {
   const rule = ruleLine(readout);
@@ -23,7 +28,7 @@ export function renderReadoutMarkdown(readout: Readout): string {
     '',
     `Rule applied: **${rule.label}**${safeText(rule.arms)}${quote}`,
     '',
-    `${timingLine(readout)} Plan as launched: ${codeSpan(readout.planCommit)}.`,
+    `${timingLine(readout)} ${sourceOf(readout)}`,
   ];
   const blocking = readout.findings.filter((f) => f.severity === 'block');
   if (blocking.length) lines.push('', ...blocking.map((f) => `- :no_entry: ${safeText(f.message)}`));

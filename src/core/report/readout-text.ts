@@ -1,5 +1,5 @@
 import type { MetricRead, Readout } from '../readout/build-readout.js';
-import { armCells, confidenceOf, guardrailClassText, metricDifference, primaryClassText, ruleLine, srmLine, timingLine } from './readout-figures.js';
+import { armCells, confidenceOf, guardrailClassText, metricDifference, planSource, primaryClassText, ruleLine, srmLine, timingLine } from './readout-figures.js';
 import { formatTable, terminalSafe, terminalStyle } from './terminal-style.js';
 
 const HEADER = ['ARM', 'CONTROL', 'TREATMENT', 'DIFFERENCE [CI]', 'RELATIVE [CI]', 'P', 'ADJUSTED P'];
@@ -15,7 +15,7 @@ export function renderReadoutText(readout: Readout, options: { color: boolean })
   const colour = readout.verdict === 'win' ? style.green : readout.verdict === 'inconclusive' || readout.verdict === 'flat' ? style.yellow : style.red;
   const lines: string[] = [
     style.bold(`Readout of ${terminalSafe(readout.planId)}: ${terminalSafe(readout.title)}`),
-    `${timingLine(readout)} Plan as launched: ${terminalSafe(readout.planCommit)}.`,
+    `${timingLine(readout)} ${((s) => `${s.before}${terminalSafe(s.commit)}${s.after}`)(planSource(readout))}`,
     '',
     `Rule applied: ${colour(style.bold(rule.label))}${terminalSafe(rule.arms)}${rule.quote ? `: «${terminalSafe(rule.quote)}»` : readout.verdict === 'not-read' ? '' : ' (the plan registers no decision for this)'}`,
   ];

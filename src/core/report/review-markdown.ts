@@ -101,7 +101,9 @@ function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail,
     `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, options)} · linked because: ${plan.reasons.join(', ')}`,
     `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join('; ')}.` : ''}`,
   ];
-  lines.push(...readoutSectionMarkdown(plan));
+  const readout = readoutSectionMarkdown(plan);
+  // The readout ends in a paragraph of its own; the length line must not run into it.
+  lines.push(...readout, ...(readout.length && length ? [''] : []));
   if (length) lines.push(`**Length:** ${safeText(length.length)}.${length.power ? ` **Power:** ${safeText(length.power)}.` : ''} **Events:** ${formatCount(found)} of ${formatCount(plan.events.length)} logged in the code.`);
   if (!withTables) return lines;
   const sizing = renderSizingMarkdown(plan.sizing, { title: 'Sizing', designLine: '', window: plan.window, power: plan.power })

@@ -8,7 +8,7 @@ export type RuleSource =
   | { status: 'changed'; commit: string; changes: { field: string; before: string; after: string }[] }
   | { status: 'unavailable'; commit: string; why: string };
 
-const listChanges = (changes: readonly { field: string; before: string; after: string }[]) => changes.map((c) => `${c.field} ${c.before} → ${c.after}`).join('; ');
+const listChanges = (changes: readonly { field: string; before: string; after: string }[]) => changes.map((c) => `${c.field} (${c.before} → ${c.after})`).join('; ');
 
 function findingOf(rule: LaunchRule): ReadoutFinding | undefined {
   switch (rule.status) {

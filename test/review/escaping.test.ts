@@ -7,11 +7,14 @@ import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
 import { renderReviewMarkdown, renderReviewSummary, REVIEW_MARKER } from '../../src/core/report/review-markdown.js';
-import type { Review } from '../../src/core/review/build-review.js';
+import type { PlanReadout, Review } from '../../src/core/review/build-review.js';
+import { loadPlan } from '../../src/core/plan/load.js';
+import { buildReadout } from '../../src/core/readout/build-readout.js';
+import { loadTotals } from '../../src/core/totals/load.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { renderGfm, requireCmarkInCi } from '../helpers/cmark.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
-import { baseFiles, cleanPlan, planYaml } from './scenarios.js';
+import { baseFiles, cleanPlan, goodTotals, planYaml } from './scenarios.js';
 
 const canRender = requireCmarkInCi();
 const LINK_BASE = 'https://github.com/bramblecart/shop/blob/0123456789abcdef0123456789abcdef01234567';
@@ -148,6 +151,38 @@ describe.skipIf(!canRender)('any text in any field of a review', () => {
         for (const name of [c!, e!, d!]) expect(seen).toContain(name);
       }),
       { numRuns: 40 },
+    );
+  });
+
+  it('renders the readout section safely: decision, file, flags, arms, amendments, reasons and override', () => {
+    const plan = loadPlan(planYaml(cleanPlan()), 'experiments/good.yaml');
+    const totals = loadTotals(goodTotals(6400, '4b1d2e7'), 'readouts/good.totals.yaml');
+    if (!plan.ok || !totals.ok) throw new Error('fixtures do not load');
+    const read = buildReadout(plan.loaded.plan, totals.totals);
+    fc.assert(
+      fc.property(fc.array(nasty, { minLength: 7, maxLength: 7 }), fc.constantFrom('amended', 'unavailable', 'changed'), fc.boolean(), ([a, b, c, d, e, f, g], status, known) => {
+        const rule =
+          status === 'amended'
+            ? { status, commit: '4b1d2e7', changes: [{ field: a!, before: b!, after: c! }], amendments: [{ date: d!, changed: e!, reason: f! }] }
+            : status === 'changed'
+              ? { status, commit: '4b1d2e7', changes: [{ field: a!, before: b!, after: c! }] }
+              : { status, commit: '4b1d2e7', why: g! };
+        const review: Review = {
+          ...base,
+          plans: [
+            {
+              ...base.plans[0]!,
+              readout: { file: a!, source: 'latest', verdict: 'win', arms: [b!], ships: [c!], decision: d!, primary: read.primary, removes: { flags: [e!], ...(known ? { kept: f! } : { unknown: g! }) }, rule } as PlanReadout,
+              override: { class: 'win', ship: [b!], reason: g! },
+            },
+          ],
+        };
+        const markdown = renderReviewMarkdown(review, { linkBase: LINK_BASE });
+        expect(markdown).toContain('Rule applied:');
+        expect(problems(markdown)).toEqual([]);
+      }),
+      // The names that broke comments before, in every field and every rule status, then random ones.
+      { numRuns: 40, examples: (['amended', 'unavailable', 'changed'] as const).flatMap((status) => [0, 7, 14].map((at): [string[], typeof status, boolean] => [NASTY.slice(at, at + 7), status, at % 2 === 0])) },
     );
   });
 });

@@ -30,22 +30,27 @@ export async function readTotalsAgainstPlan(options: { plan: Plan; planFile: str
 export const isTotalsPath = (path: string) => /\.ya?ml$/i.test(path) && (/(?:^|\/)readouts\//.test(path) || /\.totals\.ya?ml$/i.test(path));
 
 /**
- * The latest totals file of each plan among `paths` (the latest data-through; on a tie, the last path
- * in code-unit order). Only files that read as totals and name the plan count.
+ * The latest totals file of each plan among the given texts (the latest data-through; on a tie, the last path in
+ * code-unit order). Only files under the totals paths that read as totals count; with `wanted`, only those plans'.
  */
-export async function latestTotals(planIds: readonly string[], paths: readonly string[], files: RepoFiles): Promise<Map<string, { file: string; text: string }>> {
-  const wanted = new Set(planIds);
+export function latestByPlan(texts: readonly { file: string; text: string | undefined }[], wanted?: ReadonlySet<string>): Map<string, { file: string; text: string }> {
   const latest = new Map<string, { file: string; text: string; through: string }>();
-  if (wanted.size === 0) return new Map();
-  const candidates = [...paths].filter(isTotalsPath).sort();
-  const texts = await files.readTexts(candidates);
-  candidates.forEach((file, i) => {
-    const text = texts[i];
-    if (text === undefined || ![...wanted].some((id) => text.includes(id))) return;
+  for (const { file, text } of [...texts].sort((a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : 0))) {
+    if (text === undefined || !isTotalsPath(file)) continue;
+    // A cheap look first: most files name none of the plans wanted.
+    if (wanted && ![...wanted].some((id) => text.includes(id))) continue;
     const loaded = loadTotals(text, file);
-    if (!loaded.ok || !wanted.has(loaded.totals.planId)) return;
+    if (!loaded.ok || (wanted && !wanted.has(loaded.totals.planId))) continue;
     const was = latest.get(loaded.totals.planId);
     if (!was || loaded.totals.dataThrough >= was.through) latest.set(loaded.totals.planId, { file, text, through: loaded.totals.dataThrough });
-  });
+  }
   return new Map([...latest].map(([id, { file, text }]) => [id, { file, text }]));
+}
+
+/** The latest totals file of each of the plans among the repository's `paths`. */
+export async function latestTotals(planIds: readonly string[], paths: readonly string[], files: RepoFiles): Promise<Map<string, { file: string; text: string }>> {
+  if (planIds.length === 0) return new Map();
+  const candidates = paths.filter(isTotalsPath);
+  const texts = await files.readTexts(candidates);
+  return latestByPlan(candidates.map((file, i) => ({ file, text: texts[i] })), new Set(planIds));
 }

@@ -12,10 +12,9 @@ import { DEFAULT_FLAG_FILES, flagDefinitionTouches, flagDefinitions } from '../c
 import { findFlagTouches, type FlagTouch } from '../core/scan/flag-touches.js';
 import { createNameScanner, type Location, type NameHits } from '../core/scan/name-scan.js';
 import { keptArm } from '../core/review/kept-arm.js';
-import { loadTotals } from '../core/totals/load.js';
 import { QUOTED_STRING, flagPatternsOf, logPatternsOf } from '../core/scan/patterns.js';
 import type { Problem } from '../core/source/problem.js';
-import { isTotalsPath } from './read-totals.js';
+import { latestByPlan } from './read-totals.js';
 import { attachReadouts } from './review-readouts.js';
 import { sizePlan } from '../core/stats/plan-sizing.js';
 import { sizingPolicy } from '../core/config/sizing-policy.js';
@@ -179,14 +178,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
 
 /** Totals files the change adds or edits, by the plan they name (the latest data when a plan has several). */
 function totalsInChange(added: ReadonlyMap<string, string | undefined>): Map<string, string> {
-  const latest = new Map<string, { file: string; through: string }>();
-  for (const [file, text] of [...added].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
-    if (text === undefined || !isTotalsPath(file)) continue;
-    const loaded = loadTotals(text, file);
-    if (!loaded.ok) continue;
-    const was = latest.get(loaded.totals.planId);
-    if (!was || loaded.totals.dataThrough >= was.through) latest.set(loaded.totals.planId, { file, through: loaded.totals.dataThrough });
-  }
+  const latest = latestByPlan([...added].map(([file, text]) => ({ file, text })));
   return new Map([...latest].map(([id, { file }]) => [id, file]));
 }
 

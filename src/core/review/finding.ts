@@ -57,7 +57,7 @@ export const FINDING_CODES = {
   'event-missing': { severity: 'warn', about: 'an event the plan names is not logged in the code' },
   'event-removed': { severity: 'block', about: 'the change removes an event a running test depends on' },
   'severity-unknown-code': { severity: 'warn', about: 'the settings name a finding code that does not exist' },
-  'outcome-mismatch': { severity: 'block', about: 'a recorded outcome differs from what the registered rule gives on its totals, or ships an arm the rule does not name, without an override' },
+  'outcome-mismatch': { severity: 'block', about: 'a recorded outcome differs from what the registered rule gives on its totals, or the change ships (keeps, removing the flag) an arm the rule does not name, without an override' },
   'outcome-override': { severity: 'warn', about: 'a recorded outcome departs from the registered rule with an override and a reason to judge' },
   'readout-missing': { severity: 'warn', about: 'the change removes the last read of a concluded or overdue test’s flag, and the test has neither arm totals nor a recorded outcome' },
   'rule-changed': { severity: 'block', about: 'a readout’s plan differs from the plan at its plan-commit in what decides the outcome, without an amendment; the launch rule is applied' },

@@ -7,29 +7,29 @@ import {
 } from "./chunks/chunk-ER4STLMC.js";
 import {
   reviewChange
-} from "./chunks/chunk-YHT5TTGY.js";
+} from "./chunks/chunk-C6ILE4ZX.js";
 import {
   digestRepository
-} from "./chunks/chunk-Q7WQ3W2K.js";
+} from "./chunks/chunk-ZBIQMFDX.js";
 import "./chunks/chunk-XZ7PS274.js";
 import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-I3MJZNCE.js";
-import "./chunks/chunk-PUBZ3F6D.js";
+} from "./chunks/chunk-FJMFISKB.js";
+import "./chunks/chunk-RIW7AL3S.js";
 import "./chunks/chunk-G6K6KKMR.js";
 import "./chunks/chunk-A2NAIY4K.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-EG7WX3AV.js";
-import "./chunks/chunk-EA55H5BX.js";
+} from "./chunks/chunk-ESAVH3Q4.js";
+import "./chunks/chunk-XUFFUC7R.js";
 import {
   reviewJson
-} from "./chunks/chunk-2GPPN5UD.js";
+} from "./chunks/chunk-B4AG7LHN.js";
 import "./chunks/chunk-5JKBGEUQ.js";
 import "./chunks/chunk-I35W5DNY.js";
 import "./chunks/chunk-EV3WVM2U.js";
@@ -43,8 +43,9 @@ import "./chunks/chunk-5CGVWF3A.js";
 import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
 import {
-  openChange
-} from "./chunks/chunk-LWSADFMB.js";
+  openChange,
+  readFileAtCommit
+} from "./chunks/chunk-MAKBXL4A.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,
@@ -57,8 +58,8 @@ import {
 } from "./chunks/chunk-5GP5B2QS.js";
 import "./chunks/chunk-I2TZ7Q7J.js";
 import "./chunks/chunk-D7CL2H7J.js";
-import "./chunks/chunk-XKJLWKP7.js";
-import "./chunks/chunk-5QQVXPU4.js";
+import "./chunks/chunk-HYEQ4ILC.js";
+import "./chunks/chunk-35APDGCM.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   formatCount
@@ -28236,6 +28237,7 @@ async function reviewPullRequest(options) {
       return void 0;
     });
   }
+  const usingGit = change !== void 0;
   if (!change) {
     const api = await openApiChange({ github, pullRequest: event.number, workspace, base: event.baseSha, head: event.headSha });
     if (api.capped && (event.changedFiles === void 0 || event.changedFiles > api.listed)) {
@@ -28249,7 +28251,8 @@ async function reviewPullRequest(options) {
     }
     change = api.change;
   }
-  const outcome = await reviewChange({ change, pr: event.info, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
+  const history = usingGit ? { fileAt: (commit, path6) => readFileAtCommit(workspace, commit, path6) } : void 0;
+  const outcome = await reviewChange({ change, pr: event.info, ...history ? { history } : {}, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   if (outcome.kind === "settings-invalid") return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join("\n") };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
   const linkBase = `${event.repoUrl}/blob/${review.head}`;

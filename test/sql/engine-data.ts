@@ -12,7 +12,7 @@ const csvField = (v: unknown) => {
 };
 
 export function toCsv(rows: readonly Record<string, unknown>[], columns: readonly string[]): string {
-  return [columns.join(','), ...rows.map((r) => columns.map((c) => csvField(r[c])).join(','))].join('\n') + '\n';
+  return [columns.map(csvField).join(","), ...rows.map((r) => columns.map((c) => csvField(r[c])).join(','))].join('\n') + '\n';
 }
 
 export interface DataFiles {

@@ -14,7 +14,7 @@ import { parse } from 'yaml';
 import { interleave, median, timed, type Timed } from './check.js';
 
 /** The demo's overdue test: the plan the files are shaped for and `plumbline totals` reads. */
-const PLAN = { id: 'checkout-wallet-first', repo: 'demo/repo', start: '2026-11-09', end: '2026-12-06', arms: ['control', 'treatment'], event: 'order_placed' };
+const PLAN = { id: 'checkout-wallet-first', repo: 'demo/repo', start: '2026-11-09', end: '2026-12-06', arms: ['control', 'treatment'], event: 'order_placed', metrics: ['payment-completed', 'payment-errors'] };
 const FULL = { exposures: 10_000_000, events: 50_000_000 };
 const WINDOW_SECONDS = 28 * 86_400;
 
@@ -46,7 +46,7 @@ const lit = (text: string) => `'${text.replaceAll("'", "''")}'`;
 
 /** The files, generated once per size and kept under .bench/ (a `complete` marker guards against a half-written set). */
 async function benchFiles(exposures: number, events: number): Promise<string> {
-  const folder = resolve('.bench', `totals-${exposures}-${events}`);
+  const folder = resolve('.bench', `totals-v2-${exposures}-${events}`);
   if (existsSync(join(folder, 'complete'))) return folder;
   rmSync(folder, { recursive: true, force: true });
   mkdirSync(folder, { recursive: true });
@@ -57,31 +57,33 @@ async function benchFiles(exposures: number, events: number): Promise<string> {
   const connection = await instance.connect();
   // Units: 98% of the exposure rows are first exposures; the rest repeat a unit (a few of them in the other arm).
   const units = Math.max(1, Math.floor(exposures * 0.98));
+  // Each column hashes its own integer (x * 16 + salt): DuckDB's hash(x, salt) folds the salt's hash into hash(x),
+  // which left the arm and the platform of a unit correlated (a sample ratio mismatch in the generated data).
   const unitId = (expr: string) => `'u' || lpad((${expr})::VARCHAR, 10, '0')`;
-  const armOf = (u: string) => `CASE WHEN hash(${u}, 1) % 2 = 0 THEN 'control' ELSE 'treatment' END`;
-  const otherArm = (u: string) => `CASE WHEN hash(${u}, 1) % 2 = 0 THEN 'treatment' ELSE 'control' END`;
+  const armOf = (u: string) => `CASE WHEN hash(${u} * 16 + 1) % 2 = 0 THEN 'control' ELSE 'treatment' END`;
+  const otherArm = (u: string) => `CASE WHEN hash(${u} * 16 + 1) % 2 = 0 THEN 'treatment' ELSE 'control' END`;
   await connection.run("SET TimeZone = 'UTC'");
   await connection.run(`
     COPY (
-      WITH r AS (SELECT i, CASE WHEN i < ${units} THEN i ELSE hash(i, 11) % ${units} END AS u FROM range(${exposures}) t(i))
+      WITH r AS (SELECT i, CASE WHEN i < ${units} THEN i ELSE hash(i * 16 + 11) % ${units} END AS u FROM range(${exposures}) t(i))
       SELECT ${unitId('u')} AS unit_id,
-        CASE WHEN i >= ${units} AND hash(i, 12) % 20 = 0 THEN ${otherArm('u')}
-             WHEN hash(u, 13) % 1000 = 0 THEN 'Treatment'
+        CASE WHEN i >= ${units} AND hash(i * 16 + 12) % 20 = 0 THEN ${otherArm('u')}
+             WHEN hash(u * 16 + 13) % 1000 = 0 THEN 'Treatment'
              ELSE ${armOf('u')} END AS arm,
-        TIMESTAMPTZ '${PLAN.start} 00:00:00+00' + to_seconds((hash(u, 2) % ${WINDOW_SECONDS} + CASE WHEN i >= ${units} THEN hash(i, 14) % 86400 ELSE 0 END)::BIGINT) AS exposed_at,
-        CASE WHEN hash(u, 15) % 10 = 0 THEN 'checkout-tip-prompt' ELSE '${PLAN.id}' END AS experiment,
-        ['web', 'web', 'web', 'web', 'web', 'ios', 'ios', 'ios', 'android', 'android'][(hash(u, 3) % 10 + 1)::BIGINT] AS platform
+        TIMESTAMPTZ '${PLAN.start} 00:00:00+00' + to_seconds((hash(u * 16 + 2) % ${WINDOW_SECONDS} + CASE WHEN i >= ${units} THEN hash(i * 16 + 14) % 86400 ELSE 0 END)::BIGINT) AS exposed_at,
+        CASE WHEN hash(u * 16 + 15) % 10 = 0 THEN 'checkout-tip-prompt' ELSE '${PLAN.id}' END AS experiment,
+        ['web', 'web', 'web', 'web', 'web', 'ios', 'ios', 'ios', 'android', 'android'][(hash(u * 16 + 3) % 10 + 1)::BIGINT] AS platform
       FROM r
     ) TO ${lit(join(folder, 'exposures.parquet'))} (FORMAT parquet)`);
   progress(`exposures written (${((Date.now() - started) / 1000).toFixed(0)} s)`);
   // Events from 28 days before the window (the pre-period) to 4 days after its end; 5% of values NULL.
   await connection.run(`
     COPY (
-      SELECT ${unitId(`hash(j, 4) % ${units}`)} AS unit_id,
-        CASE WHEN hash(j, 5) % 100 < 45 THEN '${PLAN.event}' WHEN hash(j, 5) % 100 < 47 THEN 'payment_failed'
-             WHEN hash(j, 5) % 100 < 75 THEN 'basket_viewed' ELSE 'checkout_payment_viewed' END AS event,
-        TIMESTAMPTZ '${PLAN.start} 00:00:00+00' - INTERVAL 28 DAY + to_seconds((hash(j, 6) % ${60 * 86_400})::BIGINT) AS occurred_at,
-        CASE WHEN hash(j, 7) % 20 = 0 THEN NULL ELSE (hash(j, 8) % 20000) / 100.0 END AS value
+      SELECT ${unitId(`hash(j * 16 + 4) % ${units}`)} AS unit_id,
+        CASE WHEN hash(j * 16 + 5) % 100 < 45 THEN '${PLAN.event}' WHEN hash(j * 16 + 5) % 100 < 47 THEN 'payment_failed'
+             WHEN hash(j * 16 + 5) % 100 < 75 THEN 'basket_viewed' ELSE 'checkout_payment_viewed' END AS event,
+        TIMESTAMPTZ '${PLAN.start} 00:00:00+00' - INTERVAL 28 DAY + to_seconds((hash(j * 16 + 6) % ${60 * 86_400})::BIGINT) AS occurred_at,
+        CASE WHEN hash(j * 16 + 7) % 20 = 0 THEN NULL ELSE (hash(j * 16 + 8) % 20000) / 100.0 END AS value
       FROM range(${events}) t(j)
     ) TO ${lit(join(folder, 'events.parquet'))} (FORMAT parquet)`);
   connection.closeSync();
@@ -100,11 +102,13 @@ function defaultDataThrough(): string {
 /**
  * The same aggregates by hand: first exposure per unit in the window, units in several arms excluded (and counted),
  * unknown arms counted; per unit, whether it placed an order after exposure (both demo metrics read order_placed);
- * sums per arm, per arm and day of first exposure, per arm and platform.
+ * n, Σy and Σy² per metric, per arm, per arm and day of first exposure, per arm and platform.
  */
-function handQuery(folder: string, dataThrough: string): string {
+export function handQuery(folder: string, dataThrough: string): string {
   const end = `(DATE '${dataThrough}' + INTERVAL 1 DAY)::TIMESTAMPTZ`;
   const arms = PLAN.arms.map(lit).join(', ');
+  // Both of the demo plan's metrics are proportions over order_placed: one per-unit value, reported under each name.
+  const metricList = `[${PLAN.metrics.map(lit).join(', ')}]`;
   return `
     SET TimeZone = 'UTC';
     WITH plan_rows AS (
@@ -121,12 +125,15 @@ function handQuery(folder: string, dataThrough: string): string {
     ), per_unit AS (
       SELECT c.arm, c.first_at::DATE AS day, c.platform, (v.unit_id IS NOT NULL)::INTEGER AS y
       FROM clean c LEFT JOIN converted v USING (unit_id)
-    )
-    SELECT 'arm' AS grain, arm, NULL AS bucket, count(*) AS units, sum(y) AS sum_y FROM per_unit GROUP BY arm
-    UNION ALL SELECT 'day', arm, strftime(day, '%Y-%m-%d'), count(*), sum(y) FROM per_unit GROUP BY arm, day
-    UNION ALL SELECT 'segment', arm, 'platform: ' || platform, count(*), sum(y) FROM per_unit GROUP BY arm, platform
-    UNION ALL SELECT 'excluded', NULL, 'several-arms', count(*), NULL FROM units WHERE arms > 1
-    UNION ALL SELECT 'excluded', NULL, 'unknown-arm', count(*), NULL FROM plan_rows WHERE arm NOT IN (${arms})`;
+    ), sums AS (
+      SELECT arm, day, platform, count(*) AS units, sum(y) AS sum_y, sum(y * y) AS sum_y2
+      FROM per_unit GROUP BY GROUPING SETS ((arm), (arm, day), (arm, platform))
+    ), metrics AS (SELECT unnest(${metricList}) AS metric)
+    SELECT CASE WHEN day IS NOT NULL THEN 'day' WHEN platform IS NOT NULL THEN 'segment' ELSE 'arm' END AS grain, arm,
+      coalesce(strftime(day, '%Y-%m-%d'), 'platform: ' || platform) AS bucket, m.metric, units, sum_y, sum_y2
+    FROM sums CROSS JOIN metrics m
+    UNION ALL SELECT 'excluded', NULL, 'several-arms', NULL, count(*), NULL, NULL FROM units WHERE arms > 1
+    UNION ALL SELECT 'excluded', NULL, 'unknown-arm', NULL, count(*), NULL, NULL FROM plan_rows WHERE arm NOT IN (${arms})`;
 }
 
 const countQuery = (folder: string) =>
@@ -164,8 +171,8 @@ export async function benchTotals(options: TotalsBenchOptions): Promise<TotalsBe
 
     // One untimed run of each, to warm the file cache and to check that plumbline and the hand query agree.
     progress('warm-up run and agreement check');
-    const hand = JSON.parse(spawnSync(process.execPath, [child, join(work, 'hand.sql'), options.memoryLimit], { encoding: 'utf8', maxBuffer: 1 << 26 }).stdout) as { grain: string; arm: string; units: string }[];
-    const handUnits = Object.fromEntries(hand.filter((r) => r.grain === 'arm').map((r) => [r.arm, Number(r.units)]));
+    const hand = JSON.parse(spawnSync(process.execPath, [child, join(work, 'hand.sql'), options.memoryLimit], { encoding: 'utf8', maxBuffer: 1 << 26 }).stdout) as { grain: string; arm: string; metric: string | null; units: string }[];
+    const handUnits = Object.fromEntries(hand.filter((r) => r.grain === 'arm' && r.metric === PLAN.metrics[0]).map((r) => [r.arm, Number(r.units)]));
     let agreement: { same: boolean; detail: string } | undefined;
     if (!unavailable) {
       const first = spawnSync(process.execPath, plumblineArgs, { encoding: 'utf8' });

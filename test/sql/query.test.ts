@@ -8,11 +8,12 @@ import type { Plan } from '../../src/core/plan/schema.js';
 import { buildTotalsQuery, ROW_COLUMNS, type TotalsQueryInput } from '../../src/core/totals-query/build-query.js';
 import { DIALECT, DIALECTS, type DialectName } from '../../src/core/totals-query/dialects.js';
 import { rowsFromResult } from '../../src/core/totals-query/rows-csv.js';
-import { toCsv } from './engine-data.js';
+import { toCsv, urlOf } from './engine-data.js';
 import { shapesPlan } from './fixtures.js';
-import { connectTestPostgres } from './pg-local.js';
+import { postgresForThisFile } from '../helpers/postgres.js';
 
 const { Parser } = pkg;
+const pg = await postgresForThisFile('hostile');
 
 /**
  * The query text per dialect: a reviewed golden file each, parsed by node-sql-parser with that dialect's
@@ -167,30 +168,25 @@ describe('hostile names run harmlessly', () => {
     db.closeSync();
   });
 
-  it('PostgreSQL reads tables with hostile names, and table y survives', async (ctx) => {
-    const pg = await connectTestPostgres('hostile');
-    if (!pg) return ctx.skip();
-    try {
-      const s = `"${pg.schema}"`;
-      const q = (name: string) => `"${name.replace(/"/g, '""')}"`;
-      await pg.query(`CREATE TABLE ${s}.y (a integer); INSERT INTO ${s}.y VALUES (1)`);
-      await pg.query(`CREATE TABLE ${s}.${q(QUOTE)} (${Object.keys(exposureRows[0]!).map((c) => `${q(c)} ${c === `e'"\`t` ? 'timestamptz' : 'text'}`).join(', ')})`);
-      await pg.query(`CREATE TABLE ${s}.${q(EVIL)} (${Object.keys(eventRows[0]!).map((c) => `${q(c)} ${c === 'o"t' ? 'timestamptz' : c === "v'" ? 'double precision' : 'text'}`).join(', ')})`);
-      const lit = (v: string) => (v === '' ? 'NULL' : `'${v.replace(/'/g, "''")}'`);
-      for (const r of exposureRows) await pg.query(`INSERT INTO ${s}.${q(QUOTE)} VALUES (${Object.values(r).map(lit).join(', ')})`);
-      for (const r of eventRows) await pg.query(`INSERT INTO ${s}.${q(EVIL)} VALUES (${Object.values(r).map(lit).join(', ')})`);
-      const sql = query({
-        plan: hostilePlan(),
-        dialect: 'postgres',
-        dataThrough: '2026-11-19',
-        exposures: { source: { table: `${pg.schema}.${QUOTE}` }, columns: hostileColumns, segments: [`seg'"`] },
-        events: { source: { table: `${pg.schema}.${EVIL}` }, columns: hostileEventColumns },
-      });
-      const result = await runPostgresQuery(sql, { url: pg.url });
-      expectHostileResult(result.rows, result.columns);
-      expect(await pg.query(`SELECT count(*)::int AS n FROM ${s}.y`)).toEqual([{ n: 1 }]);
-    } finally {
-      await pg.close();
-    }
+  it.skipIf(!pg)('PostgreSQL reads tables with hostile names, and table y survives', async () => {
+    const s = `"${pg!.schema}"`;
+    const q = (name: string) => `"${name.replace(/"/g, '""')}"`;
+    const run = async (sql: string) => (await pg!.client.query(sql)).rows;
+    await run(`CREATE TABLE ${s}.y (a integer); INSERT INTO ${s}.y VALUES (1)`);
+    await run(`CREATE TABLE ${s}.${q(QUOTE)} (${Object.keys(exposureRows[0]!).map((c) => `${q(c)} ${c === `e'"\`t` ? 'timestamptz' : 'text'}`).join(', ')})`);
+    await run(`CREATE TABLE ${s}.${q(EVIL)} (${Object.keys(eventRows[0]!).map((c) => `${q(c)} ${c === 'o"t' ? 'timestamptz' : c === "v'" ? 'double precision' : 'text'}`).join(', ')})`);
+    const lit = (v: string) => (v === '' ? 'NULL' : `'${v.replace(/'/g, "''")}'`);
+    for (const r of exposureRows) await run(`INSERT INTO ${s}.${q(QUOTE)} VALUES (${Object.values(r).map(lit).join(', ')})`);
+    for (const r of eventRows) await run(`INSERT INTO ${s}.${q(EVIL)} VALUES (${Object.values(r).map(lit).join(', ')})`);
+    const sql = query({
+      plan: hostilePlan(),
+      dialect: 'postgres',
+      dataThrough: '2026-11-19',
+      exposures: { source: { table: `${pg!.schema}.${QUOTE}` }, columns: hostileColumns, segments: [`seg'"`] },
+      events: { source: { table: `${pg!.schema}.${EVIL}` }, columns: hostileEventColumns },
+    });
+    const result = await runPostgresQuery(sql, { url: urlOf(pg!) });
+    expectHostileResult(result.rows, result.columns);
+    expect(await run(`SELECT count(*)::int AS n FROM ${s}.y`)).toEqual([{ n: 1 }]);
   });
 });

@@ -4,7 +4,8 @@ WITH
 exposure_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("variant" AS VARCHAR) AS arm, CAST("exposed_at" AS TIMESTAMPTZ) AS exposed_at, CAST("platform" AS VARCHAR) AS segment_1, CAST("country" AS VARCHAR) AS segment_2
   FROM read_parquet(['data/exposures-2026-11.parquet', 'data/exposures-2026-12.parquet'], union_by_name = true)
-  WHERE CAST("exposed_at" AS TIMESTAMPTZ) >= CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ)
+  WHERE "user_id" IS NOT NULL
+    AND CAST("exposed_at" AS TIMESTAMPTZ) >= CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ)
     AND CAST("exposed_at" AS TIMESTAMPTZ) < CAST('2026-11-20 00:00:00+00' AS TIMESTAMPTZ)
     AND CAST("experiment" AS VARCHAR) = 'basket-shapes'
 ),
@@ -33,7 +34,8 @@ units AS (
 event_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("event_name" AS VARCHAR) AS event, CAST("occurred_at" AS TIMESTAMPTZ) AS occurred_at, CAST("amount" AS DECIMAL(38, 6)) AS value
   FROM read_parquet(['data/events-*.parquet'], union_by_name = true)
-  WHERE CAST("event_name" AS VARCHAR) IN ('order_placed', 'basket_viewed')
+  WHERE "user_id" IS NOT NULL
+    AND CAST("event_name" AS VARCHAR) IN ('order_placed', 'basket_viewed')
     AND CAST("occurred_at" AS TIMESTAMPTZ) >= (CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ) - INTERVAL '336 hours')
     AND CAST("occurred_at" AS TIMESTAMPTZ) < CAST('2026-11-20 00:00:00+00' AS TIMESTAMPTZ)
 ),

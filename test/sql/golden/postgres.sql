@@ -4,7 +4,8 @@ WITH
 exposure_rows AS (
   SELECT CAST("user_id" AS TEXT) AS unit_id, CAST("variant" AS TEXT) AS arm, CAST("exposed_at" AS TIMESTAMPTZ) AS exposed_at, CAST("platform" AS TEXT) AS segment_1, CAST("country" AS TEXT) AS segment_2
   FROM "analytics"."exposures"
-  WHERE CAST("exposed_at" AS TIMESTAMPTZ) >= CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ)
+  WHERE "user_id" IS NOT NULL
+    AND CAST("exposed_at" AS TIMESTAMPTZ) >= CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ)
     AND CAST("exposed_at" AS TIMESTAMPTZ) < CAST('2026-11-20 00:00:00+00' AS TIMESTAMPTZ)
     AND CAST("experiment" AS TEXT) = 'basket-shapes'
 ),
@@ -33,7 +34,8 @@ units AS (
 event_rows AS (
   SELECT CAST("user_id" AS TEXT) AS unit_id, CAST("event_name" AS TEXT) AS event, CAST("occurred_at" AS TIMESTAMPTZ) AS occurred_at, CAST("amount" AS NUMERIC(38, 6)) AS value
   FROM "analytics"."events"
-  WHERE CAST("event_name" AS TEXT) IN ('order_placed', 'basket_viewed')
+  WHERE "user_id" IS NOT NULL
+    AND CAST("event_name" AS TEXT) IN ('order_placed', 'basket_viewed')
     AND CAST("occurred_at" AS TIMESTAMPTZ) >= (CAST('2026-11-09 00:00:00+00' AS TIMESTAMPTZ) - INTERVAL '336 hours')
     AND CAST("occurred_at" AS TIMESTAMPTZ) < CAST('2026-11-20 00:00:00+00' AS TIMESTAMPTZ)
 ),

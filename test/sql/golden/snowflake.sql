@@ -4,7 +4,8 @@ WITH
 exposure_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("variant" AS VARCHAR) AS arm, CAST("exposed_at" AS TIMESTAMP_TZ) AS exposed_at, CAST("platform" AS VARCHAR) AS segment_1, CAST("country" AS VARCHAR) AS segment_2
   FROM "analytics"."exposures"
-  WHERE CAST("exposed_at" AS TIMESTAMP_TZ) >= TO_TIMESTAMP_TZ('2026-11-09 00:00:00 +00:00')
+  WHERE "user_id" IS NOT NULL
+    AND CAST("exposed_at" AS TIMESTAMP_TZ) >= TO_TIMESTAMP_TZ('2026-11-09 00:00:00 +00:00')
     AND CAST("exposed_at" AS TIMESTAMP_TZ) < TO_TIMESTAMP_TZ('2026-11-20 00:00:00 +00:00')
     AND CAST("experiment" AS VARCHAR) = 'basket-shapes'
 ),
@@ -33,7 +34,8 @@ units AS (
 event_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("event_name" AS VARCHAR) AS event, CAST("occurred_at" AS TIMESTAMP_TZ) AS occurred_at, CAST("amount" AS NUMBER(38, 6)) AS value
   FROM "analytics"."events"
-  WHERE CAST("event_name" AS VARCHAR) IN ('order_placed', 'basket_viewed')
+  WHERE "user_id" IS NOT NULL
+    AND CAST("event_name" AS VARCHAR) IN ('order_placed', 'basket_viewed')
     AND CAST("occurred_at" AS TIMESTAMP_TZ) >= DATEADD(hour, -336, TO_TIMESTAMP_TZ('2026-11-09 00:00:00 +00:00'))
     AND CAST("occurred_at" AS TIMESTAMP_TZ) < TO_TIMESTAMP_TZ('2026-11-20 00:00:00 +00:00')
 ),

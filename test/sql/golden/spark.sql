@@ -4,7 +4,8 @@ WITH
 exposure_rows AS (
   SELECT CAST(`user_id` AS STRING) AS unit_id, CAST(`variant` AS STRING) AS arm, CAST(`exposed_at` AS TIMESTAMP) AS exposed_at, CAST(`platform` AS STRING) AS segment_1, CAST(`country` AS STRING) AS segment_2
   FROM `analytics`.`exposures`
-  WHERE CAST(`exposed_at` AS TIMESTAMP) >= CAST('2026-11-09 00:00:00Z' AS TIMESTAMP)
+  WHERE `user_id` IS NOT NULL
+    AND CAST(`exposed_at` AS TIMESTAMP) >= CAST('2026-11-09 00:00:00Z' AS TIMESTAMP)
     AND CAST(`exposed_at` AS TIMESTAMP) < CAST('2026-11-20 00:00:00Z' AS TIMESTAMP)
     AND CAST(`experiment` AS STRING) = 'basket-shapes'
 ),
@@ -33,7 +34,8 @@ units AS (
 event_rows AS (
   SELECT CAST(`user_id` AS STRING) AS unit_id, CAST(`event_name` AS STRING) AS event, CAST(`occurred_at` AS TIMESTAMP) AS occurred_at, CAST(`amount` AS DECIMAL(38, 6)) AS value
   FROM `analytics`.`events`
-  WHERE CAST(`event_name` AS STRING) IN ('order_placed', 'basket_viewed')
+  WHERE `user_id` IS NOT NULL
+    AND CAST(`event_name` AS STRING) IN ('order_placed', 'basket_viewed')
     AND CAST(`occurred_at` AS TIMESTAMP) >= TIMESTAMP_MICROS(UNIX_MICROS(CAST('2026-11-09 00:00:00Z' AS TIMESTAMP)) + -1209600000000)
     AND CAST(`occurred_at` AS TIMESTAMP) < CAST('2026-11-20 00:00:00Z' AS TIMESTAMP)
 ),

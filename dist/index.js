@@ -3,7 +3,7 @@ import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
   reviewChange
-} from "./chunks/chunk-FYRIX35N.js";
+} from "./chunks/chunk-TQSIYYMY.js";
 import "./chunks/chunk-XPQ2T7DB.js";
 import {
   digestRepository

@@ -31,7 +31,8 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
     .addOption(new Option('--engine <engine>', 'where the query runs').choices(['duckdb', 'postgres']).default('duckdb'))
     .option('--url <url>', 'PostgreSQL connection URL (default: PLUMBLINE_DATABASE_URL, else the PG* variables)')
     .option('--sql', 'print the query instead of running it', false)
-    .addOption(new Option('--dialect <name>', 'the SQL dialect printed with --sql (default: the engine)').choices(DIALECT_NAMES))
+    // Checked in the action rather than by the parser, so the message can say what --dialect goes with.
+    .option('--dialect <name>', `the SQL dialect printed with --sql: ${DIALECT_NAMES.join(', ')} (default: the engine)`)
     .option('--from-rows <csv>', 'read the query’s result from a CSV file (with its header row) instead of running it')
     .option('--through <date>', 'last day of data, YYYY-MM-DD, UTC (default: the plan’s end or yesterday, whichever is earlier)')
     .option('--out <file>', 'the totals file to write (default: readouts/<plan-id>.totals.yaml)')
@@ -48,6 +49,7 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
         if (value !== undefined && !isCalendarDate(value)) throw new UsageError(`${flag} ${JSON.stringify(value)} is not a date`, `write it as YYYY-MM-DD, e.g. ${flag} 2026-12-06`);
       }
       if (flags.planCommit !== undefined && !/^[0-9a-f]{7,40}$/.test(flags.planCommit)) throw new UsageError(`--plan-commit ${JSON.stringify(flags.planCommit)} is not a commit id`, 'write 7 to 40 lower-case hexadecimal digits, e.g. --plan-commit 4b1d2e7');
+      if (flags.dialect !== undefined && !DIALECT_NAMES.includes(flags.dialect)) throw new UsageError(`--dialect ${JSON.stringify(flags.dialect)} is not a dialect Plumbline writes`, `one of ${DIALECT_NAMES.join(', ')}; for another engine, start from the dialect closest to it`);
       if (flags.dialect && !flags.sql) throw new UsageError('--dialect goes with --sql', `plumbline totals ${planName} --sql --dialect ${flags.dialect}`);
       if (flags.sql && flags.fromRows) throw new UsageError('--sql prints the query; --from-rows reads its result: use one at a time');
       const url = flags.url ?? process.env.PLUMBLINE_DATABASE_URL;

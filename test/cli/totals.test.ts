@@ -84,6 +84,9 @@ describe('plumbline totals', () => {
     expect(run.stderr).toContain('holds the totals of plan "other-test"');
     expect(readFileSync(join(root, 'readouts/other.totals.yaml'), 'utf8')).toBe('plan: other-test\n');
     expect(runCli(['-C', root, 'totals', 'basket-shapes', '--dialect', 'trino']).stderr).toContain('--dialect goes with --sql');
+    const unknown = runCli(['-C', root, 'totals', 'basket-shapes', '--sql', '--dialect', 'oracle']);
+    expect(unknown.status).toBe(2);
+    expect(unknown.stderr).toContain('one of duckdb, postgres, trino, bigquery, snowflake, spark');
   });
 
   it('says where the plan’s per-unit key is at fault when a ratio’s events are ambiguous', () => {

@@ -152,6 +152,8 @@ export interface GenerateOptions {
   units?: number;
   /** Relative lift of the primary in treatment. Default PLANTED_PRIMARY.relativeLift. */
   relativeLift?: number;
+  /** Add the few rows without a unit id. Default true. */
+  nullUnitRows?: boolean;
 }
 
 /** Builds the tables. The same options give the same rows, row for row. */
@@ -312,7 +314,7 @@ export function generateData(options: GenerateOptions = {}): GeneratedData {
   }
 
   // A few rows with no unit id at all: a logging bug that must not become one big unit.
-  for (let i = 0; i < 3; i++) {
+  for (let i = 0; i < (options.nullUnitRows === false ? 0 : 3); i++) {
     dirt.nullUnitRows += 2;
     const when = secondsIn(start, dataEnd);
     exposures.push({ unitId: null, arm: armFor(), exposedAt: at(when), experiment: OVERDUE_PLAN.id, platform: null });
@@ -450,6 +452,8 @@ export async function loadIntoPostgres(client: SqlClient, schema: string, data: 
   await client.query(`CREATE TABLE ${s}.events (unit_id text, event text, occurred_at timestamptz, value double precision)`);
   await insertRows(client, `${s}.exposures`, exposureHeader(options).map(quoteIdent), exposureFields(data, options), { 2: 'timestamptz' });
   await insertRows(client, `${s}.events`, EVENT_COLUMNS.map(quoteIdent), eventFields(data), { 2: 'timestamptz', 3: 'double precision' });
+  // Statistics, as a live table has them: without them the planner guesses row counts and picks nested loops.
+  await client.query(`ANALYZE ${s}.exposures, ${s}.events`);
 }
 
 async function insertRows(client: SqlClient, table: string, columns: string[], rows: (string | null)[][], casts: Record<number, string>): Promise<void> {

@@ -11,7 +11,7 @@ import type { ResultRow } from '../../src/core/totals-query/rows-csv.js';
  */
 
 export interface ExposureRow {
-  unit_id: string;
+  unit_id: string | null;
   arm: string | null;
   /** ISO-8601 with an offset, or a Date. */
   exposed_at: string | Date;
@@ -19,7 +19,7 @@ export interface ExposureRow {
   [segment: string]: string | Date | null | undefined;
 }
 export interface EventRow {
-  unit_id: string;
+  unit_id: string | null;
   event: string;
   occurred_at: string | Date;
   value: number | null;
@@ -74,11 +74,11 @@ export function referenceRows(raw: { exposures: readonly ExposureRow[]; events: 
   const end = Date.parse(`${addDays(options.dataThrough, 1)}T00:00:00Z`);
 
   // Exposures of this plan in the window; unknown arms counted.
-  const inWindow = raw.exposures.filter((x) => ms(x.exposed_at) >= begin && ms(x.exposed_at) < end && (!options.experimentColumn || x.experiment === plan.id));
+  const inWindow = raw.exposures.filter((x) => x.unit_id !== null && ms(x.exposed_at) >= begin && ms(x.exposed_at) < end && (!options.experimentColumn || x.experiment === plan.id));
   const unknown = inWindow.filter((x) => x.arm === null || !arms.includes(x.arm));
   const known = inWindow.filter((x) => x.arm !== null && arms.includes(x.arm));
   const byUnit = new Map<string, ExposureRow[]>();
-  for (const x of known) byUnit.set(x.unit_id, [...(byUnit.get(x.unit_id) ?? []), x]);
+  for (const x of known) byUnit.set(x.unit_id!, [...(byUnit.get(x.unit_id!) ?? []), x]);
   let several = 0;
   const units: Unit[] = [];
   for (const [id, rows] of byUnit) {
@@ -96,7 +96,7 @@ export function referenceRows(raw: { exposures: readonly ExposureRow[]; events: 
   }
 
   const eventsOf = new Map<string, EventRow[]>();
-  for (const e of raw.events) eventsOf.set(e.unit_id, [...(eventsOf.get(e.unit_id) ?? []), e]);
+  for (const e of raw.events) if (e.unit_id !== null) eventsOf.set(e.unit_id, [...(eventsOf.get(e.unit_id) ?? []), e]);
   const preHours = options.prePeriodDays ? options.prePeriodDays * 24 : 0;
 
   /** The per-unit value of one rule over events in [from, to), scaled by 10^6. */

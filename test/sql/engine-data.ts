@@ -1,6 +1,7 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import type { TestPostgres } from '../helpers/postgres.js';
 import type { EventRow, ExposureRow } from '../helpers/reference-totals.js';
 
 /** Raw rows written as the files DuckDB reads (CSV with a header; Parquet through DuckDB itself). */
@@ -12,7 +13,7 @@ const csvField = (v: unknown) => {
 };
 
 export function toCsv(rows: readonly Record<string, unknown>[], columns: readonly string[]): string {
-  return [columns.join(','), ...rows.map((r) => columns.map((c) => csvField(r[c])).join(','))].join('\n') + '\n';
+  return [columns.map(csvField).join(","), ...rows.map((r) => columns.map((c) => csvField(r[c])).join(','))].join('\n') + '\n';
 }
 
 export interface DataFiles {
@@ -49,4 +50,10 @@ export async function writeDataFiles(data: { exposures: readonly ExposureRow[]; 
   c.closeSync();
   db.closeSync();
   return files;
+}
+
+/** The test schema's connection as a URL for the PostgreSQL adapter (the host may be a socket folder). */
+export function urlOf(p: TestPostgres): string {
+  const e = encodeURIComponent;
+  return `postgres://${e(p.env.PGUSER ?? '')}${p.env.PGPASSWORD ? `:${e(p.env.PGPASSWORD)}` : ''}@${e(p.env.PGHOST ?? '')}:${p.env.PGPORT}/${e(p.env.PGDATABASE ?? '')}`;
 }

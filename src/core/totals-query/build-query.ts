@@ -8,7 +8,8 @@ import { metricSpecs, type EventValue, type MetricSpec, type SpecProblem } from 
  * arm and segment, and the units left out, as the long rows of ROW_COLUMNS. Text only: it never runs
  * the query. The semantics are in docs/totals-from-sql.md; in short:
  *
- * 1. exposures of this plan inside [window start, end of data-through) (UTC);
+ * 1. exposures of this plan inside [window start, end of data-through) (UTC); rows without a unit id are
+ *    dropped (they belong to no unit);
  * 2. rows whose arm is not the plan's are counted and dropped; a unit's first exposure fixes its time;
  *    a unit seen in two arms is counted and dropped;
  * 3. events of the metrics from first exposure to the end of data-through (and within the metric's
@@ -85,7 +86,8 @@ export function buildTotalsQuery(input: TotalsQueryInput): TotalsQueryResult {
     [
       `SELECT ${d.text(col(x.unitId))} AS unit_id, ${d.text(col(x.arm))} AS arm, ${exposedAt} AS exposed_at${segments.map((s, i) => `, ${d.text(col(s))} AS ${seg(i)}`).join('')}`,
       `FROM ${from(d, input.exposures.source, 'exposures')}`,
-      `WHERE ${exposedAt} >= ${begin}`,
+      `WHERE ${col(x.unitId)} IS NOT NULL`,
+      `  AND ${exposedAt} >= ${begin}`,
       `  AND ${exposedAt} < ${end}`,
       ...(x.experiment ? [`  AND ${d.text(col(x.experiment))} = ${d.string(plan.id)}`] : []),
     ].join('\n'),
@@ -121,7 +123,8 @@ export function buildTotalsQuery(input: TotalsQueryInput): TotalsQueryResult {
     [
       `SELECT ${d.text(col(e.unitId))} AS unit_id, ${d.text(col(e.event))} AS event, ${occurredAt} AS occurred_at, ${d.value(col(e.value))} AS value`,
       `FROM ${from(d, input.events.source, 'events')}`,
-      `WHERE ${d.text(col(e.event))} IN (${list(d, allEvents)})`,
+      `WHERE ${col(e.unitId)} IS NOT NULL`,
+      `  AND ${d.text(col(e.event))} IN (${list(d, allEvents)})`,
       `  AND ${occurredAt} >= ${preHours ? d.addHours(begin, -preHours) : begin}`,
       `  AND ${occurredAt} < ${end}`,
     ].join('\n'),

@@ -86,7 +86,7 @@ const trino: Dialect = {
   string: ansiString,
   midnightUtc: (day) => `CAST(${ansiString(`${day} 00:00:00 UTC`)} AS TIMESTAMP(6) WITH TIME ZONE)`,
   instant: (e) => `CAST(${e} AS TIMESTAMP(6) WITH TIME ZONE)`,
-  utcDay: (e) => `DATE_FORMAT(${e} AT TIME ZONE 'UTC', '%Y-%m-%d')`,
+  utcDay: (e) => `DATE_FORMAT(AT_TIMEZONE(${e}, 'UTC'), '%Y-%m-%d')`,
   addHours: (e, h) => `DATE_ADD('hour', ${h}, ${e})`,
   value: (e) => `CAST(${e} AS DECIMAL(38, 6))`,
   wide: (e) => `CAST(${e} AS DECIMAL(38, 12))`,
@@ -102,9 +102,10 @@ const bigquery: Dialect = {
   instant: (e) => `CAST(${e} AS TIMESTAMP)`,
   utcDay: (e) => `FORMAT_TIMESTAMP('%Y-%m-%d', ${e}, 'UTC')`,
   addHours: (e, h) => `TIMESTAMP_ADD(${e}, INTERVAL ${h} HOUR)`,
-  // BIGNUMERIC keeps 38 digits after the point; rounding to 6 matches the other engines' DECIMAL(38, 6).
-  value: (e) => `ROUND(CAST(${e} AS BIGNUMERIC), 6)`,
-  wide: (e) => `CAST(${e} AS BIGNUMERIC)`,
+  // NUMERIC holds 29 digits before the point and 9 after: values rounded to 6 decimals as elsewhere; a
+  // square of a value with more than 4 decimals is rounded at the 9th (docs/totals-from-sql.md).
+  value: (e) => `ROUND(CAST(${e} AS NUMERIC), 6)`,
+  wide: (e) => `CAST(${e} AS NUMERIC)`,
   text: (e) => `CAST(${e} AS STRING)`,
   integer: (e) => `CAST(${e} AS INT64)`,
 };

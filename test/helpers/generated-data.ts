@@ -152,8 +152,6 @@ export interface GenerateOptions {
   units?: number;
   /** Relative lift of the primary in treatment. Default PLANTED_PRIMARY.relativeLift. */
   relativeLift?: number;
-  /** Add the few rows without a unit id. Default true. */
-  nullUnitRows?: boolean;
 }
 
 /** Builds the tables. The same options give the same rows, row for row. */
@@ -314,7 +312,7 @@ export function generateData(options: GenerateOptions = {}): GeneratedData {
   }
 
   // A few rows with no unit id at all: a logging bug that must not become one big unit.
-  for (let i = 0; i < (options.nullUnitRows === false ? 0 : 3); i++) {
+  for (let i = 0; i < 3; i++) {
     dirt.nullUnitRows += 2;
     const when = secondsIn(start, dataEnd);
     exposures.push({ unitId: null, arm: armFor(), exposedAt: at(when), experiment: OVERDUE_PLAN.id, platform: null });

@@ -4,7 +4,7 @@
 //   hand:       a hand-written DuckDB query of the same aggregates (the reference the target is set against)
 //   plumbline:  `plumbline totals <plan> --data <folder>` (node dist/cli.js), when the command exists
 // Targets: plumbline within 1.2x the hand-written query, peak memory under 2 GiB, a progress line on stderr.
-// Options: --scale 0.01 (a fraction of 10 million exposures and 50 million events), --rounds 3, --memory-limit 1536MB.
+// Options: --scale 0.01 (a fraction of 10 million exposures and 50 million events), --rounds 3, --memory-limit 1.5GiB.
 // The files are generated inside DuckDB (range() and hash-based columns) and cached under .bench/, keyed by size.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -21,7 +21,7 @@ const WINDOW_SECONDS = 28 * 86_400;
 export interface TotalsBenchOptions {
   scale: number;
   rounds: number;
-  /** DuckDB's memory_limit for the hand-written query and the count. */
+  /** DuckDB's memory_limit for the hand-written query and the count: by default 1.5GiB, plumbline's own default (data.duckdb.memory-limit). */
   memoryLimit: string;
 }
 

@@ -55,7 +55,7 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
     }
   } catch (error) {
     if (error instanceof UsageError) throw error;
-    throw new ExternalError(`DuckDB could not run the totals query: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`, 'check data.exposures and data.events in the settings (files, columns) or --data; --sql prints the query', { cause: error });
+    throw new ExternalError(`DuckDB could not run the totals query: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`, 'check data.exposures and data.events in the settings (files, columns; data.exposures.experiment: false when the exposures have no experiment column) or --data; --sql prints the query', { cause: error });
   } finally {
     if (timer) clearInterval(timer);
     instance?.closeSync();

@@ -60,7 +60,7 @@ export async function runPostgresQuery(sql: string, options: PostgresOptions, en
     const result = await client.query({ text: sql, rowMode: 'array' });
     return { columns: result.fields.map((f) => f.name), rows: (result.rows as unknown[][]).map((row) => row.map((v) => (v === null || v === undefined ? null : String(v)))) };
   } catch (error) {
-    throw new ExternalError(`PostgreSQL could not run the totals query: ${withoutSecret(error instanceof Error ? error.message : String(error), secret)}`, 'check data.exposures.table and data.events.table and their columns in the settings; --sql --dialect postgres prints the query');
+    throw new ExternalError(`PostgreSQL could not run the totals query: ${withoutSecret(error instanceof Error ? error.message : String(error), secret)}`, 'check data.exposures.table and data.events.table and their columns in the settings (data.exposures.experiment: false when there is no experiment column); --sql --dialect postgres prints the query');
   } finally {
     await client.end().catch(() => undefined);
   }

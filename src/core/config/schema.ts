@@ -83,6 +83,7 @@ const oneSource = <T extends { table?: string | undefined; files?: string | unde
 const oneSourceError = { error: 'either table or files, not both' };
 
 export const DEFAULT_EXPOSURE_COLUMNS = { 'unit-id': 'unit_id', arm: 'arm', 'exposed-at': 'exposed_at' } as const;
+export const DEFAULT_EXPERIMENT_COLUMN = 'experiment';
 export const DEFAULT_EVENT_COLUMNS = { 'unit-id': 'unit_id', event: 'event', 'occurred-at': 'occurred_at', value: 'value' } as const;
 export const DEFAULT_MEMORY_LIMIT = '1.5GiB';
 
@@ -93,13 +94,16 @@ const exposuresSource = z
       'unit-id': column('the unit id', 'user_id').default(DEFAULT_EXPOSURE_COLUMNS['unit-id']),
       arm: column('the arm name', 'variant').default(DEFAULT_EXPOSURE_COLUMNS.arm),
       'exposed-at': column('the exposure time (a timestamp with time zone)', 'exposed_at').default(DEFAULT_EXPOSURE_COLUMNS['exposed-at']),
-      experiment: column('the plan id', 'experiment').optional().describe('When set, only rows whose value is the plan’s id count; when not, every row does.'),
+      experiment: z
+        .union([column('the plan id', 'experiment'), z.literal(false)], { error: 'the column holding the plan id, e.g. experiment, or false when every row is this plan’s' })
+        .default(DEFAULT_EXPERIMENT_COLUMN)
+        .describe('Only rows whose value in this column is the plan’s id count (one exposure table usually serves many tests). false: every row is this plan’s.'),
       segments: uniqueList(column('a segment', 'platform'), 'a list of segment columns, e.g. [platform, country]').default([]).describe('Columns to break the totals down by (value at the unit’s first exposure).'),
     },
     { error: 'a mapping with table or files and the column names' },
   )
   .refine(oneSource, oneSourceError)
-  .default({ ...DEFAULT_EXPOSURE_COLUMNS, segments: [] })
+  .default({ ...DEFAULT_EXPOSURE_COLUMNS, experiment: DEFAULT_EXPERIMENT_COLUMN, segments: [] })
   .describe('Where exposures live (one row per exposure; the first per unit counts) and their columns.');
 
 const eventsSource = z
@@ -153,7 +157,7 @@ const dataSettings = z
     },
     { error: 'a mapping with exposures, events, pre-period-days and duckdb' },
   )
-  .default({ exposures: { ...DEFAULT_EXPOSURE_COLUMNS, segments: [] }, events: { ...DEFAULT_EVENT_COLUMNS }, duckdb: { 'memory-limit': DEFAULT_MEMORY_LIMIT } })
+  .default({ exposures: { ...DEFAULT_EXPOSURE_COLUMNS, experiment: DEFAULT_EXPERIMENT_COLUMN, segments: [] }, events: { ...DEFAULT_EVENT_COLUMNS }, duckdb: { 'memory-limit': DEFAULT_MEMORY_LIMIT } })
   .describe('Where the experiment data lives, for `plumbline totals` (see docs/totals-from-sql.md).');
 
 export const writtenSettingsSchema = z
@@ -353,7 +357,7 @@ function normalizeData(w: z.output<typeof dataSettings>): DataSettings {
   return {
     exposures: {
       ...sourceOf(x),
-      columns: { unitId: x['unit-id'], arm: x.arm, exposedAt: x['exposed-at'], ...(x.experiment !== undefined ? { experiment: x.experiment } : {}) },
+      columns: { unitId: x['unit-id'], arm: x.arm, exposedAt: x['exposed-at'], ...(x.experiment !== false ? { experiment: x.experiment } : {}) },
       segments: x.segments,
     },
     events: { ...sourceOf(e), columns: { unitId: e['unit-id'], event: e.event, occurredAt: e['occurred-at'], value: e.value } },

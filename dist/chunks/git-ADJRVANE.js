@@ -1,0 +1,19 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+import {
+  MAX_SCANNED_FILE_BYTES,
+  openChange,
+  parseNameStatus,
+  parseTreeListing,
+  planCommitAtLaunch
+} from "./chunk-PACVJUUH.js";
+import "./chunk-TEADBEZM.js";
+import "./chunk-FUJ7I5KY.js";
+export {
+  MAX_SCANNED_FILE_BYTES,
+  openChange,
+  parseNameStatus,
+  parseTreeListing,
+  planCommitAtLaunch
+};

@@ -7,7 +7,7 @@
 // Options: --scale 0.01 (a fraction of 10 million exposures and 50 million events), --rounds 3, --memory-limit 1.5GiB.
 // The files are generated inside DuckDB (range() and hash-based columns) and cached under .bench/, keyed by size.
 import { spawnSync } from 'node:child_process';
-import { appendFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { appendFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join, resolve } from 'node:path';
 import { parse } from 'yaml';
@@ -171,7 +171,9 @@ export async function benchTotals(options: TotalsBenchOptions): Promise<TotalsBe
     const repo = join(work, 'repo');
     cpSync(PLAN.repo, repo, { recursive: true });
     appendFileSync(join(repo, '.plumbline.yml'), 'data:\n  exposures: { experiment: experiment, segments: [platform] }\n');
-    const plumblineArgs = [cli, '-C', repo, 'totals', PLAN.id, '--data', folder, '--through', dataThrough, '--plan-commit', '5e0c9a4', '--progress', '--out', out];
+    // --data is relative to the repository: link the cached files in rather than copy gigabytes.
+    symlinkSync(folder, join(repo, 'exports'));
+    const plumblineArgs = [cli, '-C', repo, 'totals', PLAN.id, '--data', 'exports', '--through', dataThrough, '--plan-commit', '5e0c9a4', '--progress', '--out', out];
     const unavailable = totalsCommand(cli);
 
     // One untimed run of each, to warm the file cache and to check that plumbline and the hand query agree.

@@ -61,7 +61,7 @@ describe.each([
   it('writes a totals file from the raw files', async () => {
     if (format === 'parquet') await writeParquet(data, folder);
     else writeCsv(data, folder);
-    const run = plumbline(repo, ['totals', OVERDUE_PLAN.id, '--data', 'exports', '--through', OVERDUE_PLAN.dataThrough, '--plan-commit', '5e0c9a4', '--out', totalsPath]);
+    const run = plumbline(repo, ['totals', OVERDUE_PLAN.id, '--data', 'exports', '--through', OVERDUE_PLAN.dataThrough, '--plan-commit', '5e0c9a4', '--progress', '--out', totalsPath]);
     expect(run.stderr + run.stdout).not.toMatch(/internal error|NaN|Infinity/i);
     expect(run.status).toBe(0);
     const totals = parse(readFileSync(totalsFile, 'utf8')) as { plan: string; 'data-through': string; arms: Record<string, { units: number }> };

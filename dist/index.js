@@ -3,11 +3,11 @@ import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
   reviewChange
-} from "./chunks/chunk-JSYUTAD5.js";
-import "./chunks/chunk-LJSCXBP4.js";
+} from "./chunks/chunk-TQSIYYMY.js";
+import "./chunks/chunk-XPQ2T7DB.js";
 import {
   digestRepository
-} from "./chunks/chunk-UVFKRRPK.js";
+} from "./chunks/chunk-XB44JIQQ.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
 import {
@@ -16,9 +16,9 @@ import {
   mergeDigestBody,
   renderDigestMarkdown
 } from "./chunks/chunk-BFTI2FK2.js";
-import "./chunks/chunk-FJ6FOMLW.js";
-import "./chunks/chunk-G2HRUVT6.js";
-import "./chunks/chunk-5QAHBJD6.js";
+import "./chunks/chunk-EC5Y73BY.js";
+import "./chunks/chunk-GTJYIRDC.js";
+import "./chunks/chunk-SJV3JBOE.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
@@ -32,13 +32,13 @@ import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewJson
 } from "./chunks/chunk-KE3NAN75.js";
-import "./chunks/chunk-U6SIM7M4.js";
+import "./chunks/chunk-I3AB5CE6.js";
 import "./chunks/chunk-ASHUOTMY.js";
 import "./chunks/chunk-54OF2UQO.js";
-import "./chunks/chunk-37B2QEWY.js";
+import "./chunks/chunk-IMR5HEDA.js";
 import "./chunks/chunk-WWISTGEK.js";
 import "./chunks/chunk-WYUV2MQY.js";
-import "./chunks/chunk-4RUMT5Y4.js";
+import "./chunks/chunk-J5RDXJJD.js";
 import "./chunks/chunk-KSA5GFQK.js";
 import "./chunks/chunk-BXF2RWJM.js";
 import {

@@ -68,3 +68,14 @@ describe('units left out, in the readout', () => {
     expect(buildReadout(plan(), withExcluded(0, 3)).findings.find((f) => f.code === 'readout/unknown-arm')?.severity).toBe('warn');
   });
 });
+
+describe('per-unit and a running test', () => {
+  it('is one of the fields that decide the result: changing it after the start shows as a change', async () => {
+    const { changedFields, decisiveFields } = await import('../../src/core/plan/compare.js');
+    const before = loadPlan(SHAPES_PLAN, 'p.yaml');
+    const after = loadPlan(SHAPES_PLAN.replace('among: [basket_viewed] }', 'among: [basket_viewed], within-days: 7 }'), 'p.yaml');
+    if (!before.ok || !after.ok) throw new Error('plans do not load');
+    const changes = changedFields(decisiveFields(before.loaded.plan, true), decisiveFields(after.loaded.plan, true));
+    expect(changes.map((c) => c.field)).toEqual(['metrics.guardrails[abandonment].per-unit']);
+  });
+});

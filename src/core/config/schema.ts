@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { calendarDate, openShare, text, uniqueList } from '../source/fields.js';
+import { calendarDate, openShare, text, uniqueList, wholeNumber } from '../source/fields.js';
 import { DAILY_UNITS } from '../plan/number-rules.js';
 import { flagKey, surfacePath } from '../plan/schema.js';
 
@@ -127,18 +127,10 @@ const dataSettings = z
     {
       exposures: exposuresSource,
       events: eventsSource,
-      'pre-period-days': z
-        .number({ error: 'a whole number of days from 1 to 365, e.g. 28' })
-        .int({ error: 'a whole number of days from 1 to 365, e.g. 28' })
-        .min(1, { error: 'a whole number of days from 1 to 365, e.g. 28' })
-        .max(365, { error: 'a whole number of days from 1 to 365, e.g. 28' })
+      'pre-period-days': wholeNumber('a whole number of days from 1 to 365, e.g. 28', 1, 365)
         .optional()
         .describe('Days before each unit’s first exposure whose events make its pre-period value (CUPED), for plans sized with a pre-period correlation.'),
-      'metric-window-days': z
-        .number({ error: 'a whole number of days from 1 to 3650, e.g. 14' })
-        .int({ error: 'a whole number of days from 1 to 3650, e.g. 14' })
-        .min(1, { error: 'a whole number of days from 1 to 3650, e.g. 14' })
-        .max(3650, { error: 'a whole number of days from 1 to 3650, e.g. 14' })
+      'metric-window-days': wholeNumber('a whole number of days from 1 to 3650, e.g. 14', 1, 3650)
         .optional()
         .describe('Default window from first exposure in which events count, for metrics whose per-unit.within-days is not written. Default: none (every event up to data-through).'),
       duckdb: z
@@ -148,7 +140,7 @@ const dataSettings = z
               .string({ error: 'an amount of memory, e.g. 1.5GiB or 800MB' })
               .regex(MEMORY, { error: 'an amount of memory, e.g. 1.5GiB or 800MB' })
               .default(DEFAULT_MEMORY_LIMIT),
-            threads: z.number({ error: 'a whole number of threads from 1 to 256' }).int({ error: 'a whole number of threads' }).min(1, { error: 'at least 1 thread' }).max(256, { error: 'at most 256 threads' }).optional().describe('Default: one per core.'),
+            threads: wholeNumber('a whole number of threads from 1 to 256', 1, 256).optional().describe('Default: one per core.'),
           },
           { error: 'a mapping with memory-limit and threads' },
         )

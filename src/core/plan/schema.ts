@@ -112,11 +112,7 @@ const metricCommon = {
 
 /** The longest metric window from exposure: ten years is past any test. */
 export const WITHIN_DAYS_MAX = 3650;
-const withinDays = z
-  .number({ error: `a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7` })
-  .int({ error: `a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7` })
-  .min(1, { error: `a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7` })
-  .max(WITHIN_DAYS_MAX, { error: `a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7` })
+const withinDays = wholeNumber(`a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7`, 1, WITHIN_DAYS_MAX)
   .optional()
   .describe('Only events within this many days (24-hour periods) of the unit’s first exposure count. Default: the settings’ data.metric-window-days, else every event up to data-through.');
 const perUnitEvents = (what: string) =>

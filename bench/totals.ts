@@ -4,10 +4,10 @@
 //   hand:       a hand-written DuckDB query of the same aggregates (the reference the target is set against)
 //   plumbline:  `plumbline totals <plan> --data <folder>` (node dist/cli.js), when the command exists
 // Targets: plumbline within 1.2x the hand-written query, peak memory under 2 GiB, a progress line on stderr.
-// Options: --scale 0.01 (a fraction of 10 million exposures and 50 million events), --rounds 3, --memory-limit 1536MB.
+// Options: --scale 0.01 (a fraction of 10 million exposures and 50 million events), --rounds 3, --memory-limit 1.5GiB.
 // The files are generated inside DuckDB (range() and hash-based columns) and cached under .bench/, keyed by size.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { appendFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join, resolve } from 'node:path';
 import { parse } from 'yaml';
@@ -21,7 +21,7 @@ const WINDOW_SECONDS = 28 * 86_400;
 export interface TotalsBenchOptions {
   scale: number;
   rounds: number;
-  /** DuckDB's memory_limit for the hand-written query and the count. */
+  /** DuckDB's memory_limit for the hand-written query and the count: by default 1.5GiB, plumbline's own default (data.duckdb.memory-limit). */
   memoryLimit: string;
 }
 
@@ -93,7 +93,7 @@ async function benchFiles(exposures: number, events: number): Promise<string> {
   return folder;
 }
 
-/** The last day of data `plumbline totals` takes by default: min(the plan's end, yesterday UTC). */
+/** The last day of data `plumbline totals` takes by default, passed to it explicitly: min(the plan's end, yesterday UTC). */
 function defaultDataThrough(): string {
   const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
   return yesterday < PLAN.end ? yesterday : PLAN.end;
@@ -166,7 +166,14 @@ export async function benchTotals(options: TotalsBenchOptions): Promise<TotalsBe
     const cli = resolve('dist', 'cli.js');
     const duck = (file: string) => () => timed(process.execPath, [child, join(work, file), options.memoryLimit]);
     const out = join(work, 'totals.yaml');
-    const plumblineArgs = [cli, '-C', PLAN.repo, 'totals', PLAN.id, '--data', folder, '--out', out];
+    // A copy of the demo repository whose settings read the experiment column and the platform segment, as the
+    // hand-written query does; --progress asks for the progress line on stderr, drawn only on a terminal otherwise.
+    const repo = join(work, 'repo');
+    cpSync(PLAN.repo, repo, { recursive: true });
+    appendFileSync(join(repo, '.plumbline.yml'), 'data:\n  exposures: { experiment: experiment, segments: [platform] }\n');
+    // --data is relative to the repository: link the cached files in rather than copy gigabytes.
+    symlinkSync(folder, join(repo, 'exports'));
+    const plumblineArgs = [cli, '-C', repo, 'totals', PLAN.id, '--data', 'exports', '--through', dataThrough, '--plan-commit', '5e0c9a4', '--progress', '--out', out];
     const unavailable = totalsCommand(cli);
 
     // One untimed run of each, to warm the file cache and to check that plumbline and the hand query agree.

@@ -75,6 +75,8 @@ describe('the scheduled totals workflow', () => {
     }
     const checkout = steps.find((s) => s.uses?.startsWith('actions/checkout@'));
     expect(checkout?.with?.['persist-credentials']).toBe(false);
+    // plumbline totals finds the plan's commit at launch in the history: a shallow clone has none.
+    expect(checkout?.with?.['fetch-depth']).toBe(0);
   });
 
   it('gives the warehouse secrets to the totals step alone, from an environment, and the workflow token to the pull-request step alone', () => {

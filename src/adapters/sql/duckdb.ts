@@ -32,7 +32,6 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
     instance = await duckdb.DuckDBInstance.create(':memory:', {
       memory_limit: options.memoryLimit,
       ...(options.threads ? { threads: String(options.threads) } : {}),
-      ...(options.progress ? { enable_progress_bar: 'true', enable_progress_bar_print: 'false' } : {}),
     });
     const connection = await instance.connect();
     try {
@@ -40,6 +39,8 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
       // zone: make that UTC. Without the extension DuckDB reads every timestamp as UTC already.
       await connection.run("SET TimeZone = 'UTC'").catch(() => undefined);
       if (options.progress) {
+        // Set on the connection: DuckDB refuses these two as instance options ("Failed to set config").
+        await connection.run('SET enable_progress_bar = true; SET enable_progress_bar_print = false');
         const report = options.progress;
         timer = setInterval(() => {
           const { percentage } = connection.progress;

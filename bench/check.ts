@@ -17,6 +17,8 @@ export interface Timed {
   /** Peak resident memory of the process tree, KiB (from GNU time), when available. */
   rssKiB?: number;
   status: number | null;
+  /** What the command wrote to stderr (progress lines, errors). */
+  stderr: string;
 }
 
 const GNU_TIME = spawnSync('/usr/bin/time', ['-f', '%M', 'true']).status === 0;
@@ -29,7 +31,7 @@ export function timed(command: string, args: string[], options: { cwd?: string }
   const run = spawnSync(cmd, argv, { cwd: options.cwd, stdio: ['ignore', 'ignore', 'pipe'], maxBuffer: 1 << 26 });
   const ms = Number(process.hrtime.bigint() - start) / 1e6;
   const rssKiB = GNU_TIME ? Number(readFileSync(rssFile, 'utf8').trim().split('\n').pop()) : undefined;
-  return { ms, status: run.status, ...(rssKiB !== undefined && Number.isFinite(rssKiB) ? { rssKiB } : {}) };
+  return { ms, status: run.status, stderr: run.stderr?.toString() ?? '', ...(rssKiB !== undefined && Number.isFinite(rssKiB) ? { rssKiB } : {}) };
 }
 
 export function median(values: readonly number[]): number {

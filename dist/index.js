@@ -2,68 +2,68 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
-  createRepoFiles,
-  writeFileAtomic
-} from "./chunks/chunk-ER4STLMC.js";
-import {
   reviewChange
-} from "./chunks/chunk-C6ILE4ZX.js";
+} from "./chunks/chunk-ATQ7TWY4.js";
+import "./chunks/chunk-SA5MYG7A.js";
 import {
   digestRepository
-} from "./chunks/chunk-ZBIQMFDX.js";
+} from "./chunks/chunk-FT3KTCWV.js";
 import "./chunks/chunk-XZ7PS274.js";
+import "./chunks/chunk-G6K6KKMR.js";
 import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-FJMFISKB.js";
-import "./chunks/chunk-RIW7AL3S.js";
-import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-A2NAIY4K.js";
+} from "./chunks/chunk-V3RVVQ3X.js";
+import "./chunks/chunk-LMYLO64G.js";
+import "./chunks/chunk-EWPHPA3J.js";
+import "./chunks/chunk-3F7Z4EK6.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-ESAVH3Q4.js";
+} from "./chunks/chunk-FVU4FYHL.js";
 import "./chunks/chunk-XUFFUC7R.js";
+import "./chunks/chunk-3QIBMH36.js";
+import "./chunks/chunk-HYEQ4ILC.js";
+import "./chunks/chunk-35APDGCM.js";
+import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewJson
 } from "./chunks/chunk-B4AG7LHN.js";
-import "./chunks/chunk-5JKBGEUQ.js";
+import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-EV3WVM2U.js";
-import "./chunks/chunk-5N6F6GKY.js";
-import "./chunks/chunk-WMETXK3J.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-NQBZBG6H.js";
-import "./chunks/chunk-YAMIXLAQ.js";
-import "./chunks/chunk-EIDPB5F5.js";
-import "./chunks/chunk-5CGVWF3A.js";
+import "./chunks/chunk-OQQLI6SK.js";
+import "./chunks/chunk-QSHJDALO.js";
+import "./chunks/chunk-5EY27FK2.js";
+import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
 import {
+  createRepoFiles,
+  writeFileAtomic
+} from "./chunks/chunk-5WPKM5EJ.js";
+import "./chunks/chunk-PDUGBP5Q.js";
+import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-MAKBXL4A.js";
+} from "./chunks/chunk-V42Y4S7O.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,
   UsageError
 } from "./chunks/chunk-TEADBEZM.js";
+import "./chunks/chunk-D7CL2H7J.js";
+import {
+  formatCount
+} from "./chunks/chunk-5CFAFUOS.js";
 import "./chunks/chunk-PTQPFAEX.js";
 import "./chunks/chunk-X2H4NLT2.js";
 import {
   external_exports
 } from "./chunks/chunk-5GP5B2QS.js";
-import "./chunks/chunk-I2TZ7Q7J.js";
-import "./chunks/chunk-D7CL2H7J.js";
-import "./chunks/chunk-HYEQ4ILC.js";
-import "./chunks/chunk-35APDGCM.js";
-import "./chunks/chunk-7H6MHGDI.js";
-import {
-  formatCount
-} from "./chunks/chunk-5CFAFUOS.js";
 import {
   __commonJS,
   __export,

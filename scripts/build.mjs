@@ -54,6 +54,9 @@ await build({
   splitting: true,
   chunkNames: 'chunks/[name]-[hash]',
   legalComments: 'none',
+  // @duckdb/node-api is an optional dependency with a native binary, loaded by import() only by `plumbline totals`;
+  // pg-native is pg's optional native driver, which Plumbline never uses.
+  external: ['@duckdb/node-api', 'pg-native'],
   sourcemap: false,
   logLevel: 'warning',
   // ESM bundles have no `require`; some dependencies still call it for Node built-ins.

@@ -386,3 +386,19 @@ export async function readFileAtCommit(dir: string, commit: string, path: string
   const text = (await runGit(dir, ['cat-file', 'blob', blob])).toString('utf8');
   return { found: true, text, commit: full };
 }
+
+/**
+ * The commit of a plan at launch, for a totals file's plan-commit: the oldest commit whose change to the
+ * file wrote `state: live` (the test went live there), checked against the file at that commit; else the
+ * latest commit that touched the file. Undefined when git has no commit of the file (new, or not a repository).
+ */
+export async function planCommitAtLaunch(repoDir: string, file: string): Promise<{ commit: string; how: 'went-live' | 'latest' } | undefined> {
+  const git = (args: string[]) => runGit(repoDir, args).then((out) => out.toString('utf8').trim(), () => '');
+  const candidates = (await git(['log', '--format=%H', '--reverse', '-G', '^state:[[:space:]]*live', '--', file])).split('\n').filter(Boolean);
+  for (const commit of candidates) {
+    const text = await git(['show', `${commit}:./${file}`]);
+    if (/^state:[ \t]*live\b/m.test(text)) return { commit, how: 'went-live' };
+  }
+  const latest = await git(['log', '-1', '--format=%H', '--', file]);
+  return latest ? { commit: latest, how: 'latest' } : undefined;
+}

@@ -3,6 +3,7 @@ import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
 import type { ChangeSource, CommitFiles, RepoFiles } from '../ports.js';
+import { DECIMAL_TEXT } from '../core/source/decimal.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import { createCliOutput, type CliOutput } from './output.js';
@@ -60,8 +61,8 @@ export function reportSettingsProblems(output: CliOutput, format: string, file: 
   return EXIT.usage;
 }
 
-/** Plain decimal numbers only: Number() would also read "0x10" as 16, "0b1" as 1 and "" as 0. */
-export const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** Plain decimal numbers only (core/source/decimal.ts). */
+export const DECIMAL = DECIMAL_TEXT;
 
 export function parseNumbers(what: string, texts: readonly string[]): number[] {
   return texts.map((text) => {

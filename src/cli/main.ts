@@ -11,6 +11,7 @@ import { addReadoutCommand } from './readout-command.js';
 import { addSchemaCommand } from './schema-command.js';
 import { addSizeCommand } from './size-command.js';
 import { addSrmCommand } from './srm-command.js';
+import { addTotalsCommand } from './totals-command.js';
 import { addValidateCommand } from './validate-command.js';
 
 export { EXIT, type CliDeps } from './common.js';
@@ -37,6 +38,7 @@ export function buildProgram(setExit: (code: number) => void, deps: CliDeps = RE
   addAdjustCommand(program, setExit, deps);
   addSchemaCommand(program, setExit, deps);
   addReadoutCommand(program, setExit, deps);
+  addTotalsCommand(program, setExit, deps);
 
   return program;
 }

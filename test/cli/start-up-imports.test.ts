@@ -43,4 +43,19 @@ describe('what the program loads before it parses', () => {
   it('loads no package but commander and Node built-ins', () => {
     expect([...packages].filter((p) => p !== 'commander' && !p.startsWith('node:'))).toEqual([]);
   });
+
+  it('keeps the SQL engines and the query builder out: only `plumbline totals` loads them, by import()', () => {
+    expect(reached.filter((f) => f.startsWith('adapters/sql/') || f.startsWith('core/totals-query/'))).toEqual([]);
+    expect([...packages].filter((p) => p === 'pg' || p.startsWith('@duckdb/') || p === 'node-sql-parser')).toEqual([]);
+    expect(reached).toContain('cli/totals-command.ts');
+  });
+});
+
+describe('the totals use case', () => {
+  it('loads neither DuckDB, pg nor git statically: the command passes them in', () => {
+    const { files, packages } = staticGraph(join(SRC, 'run/totals.ts'));
+    const reached = [...files].map((f) => relative(SRC, f));
+    expect(reached.filter((f) => f.startsWith('adapters/'))).toEqual([]);
+    expect([...packages].filter((p) => p === 'pg' || p.startsWith('@duckdb/'))).toEqual([]);
+  });
 });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { calendarDate, openShare, text, uniqueList } from '../source/fields.js';
+import { calendarDate, openShare, text, uniqueList, wholeNumber } from '../source/fields.js';
 import { DAILY_UNITS } from '../plan/number-rules.js';
 import { flagKey, surfacePath } from '../plan/schema.js';
 
@@ -61,6 +61,96 @@ function isTimeZone(zone: string): boolean {
   }
 }
 export const DEFAULT_SCAN_EXCLUDE = ['**/node_modules/**', '**/dist/**', '**/build/**', '**/vendor/**', '**/*.min.js', '**/*.map'];
+
+/** SQL identifiers longer than this are rejected by most engines (PostgreSQL: 63 bytes; others 128 to 1024). */
+export const SQL_NAME_MAX_LENGTH = 255;
+const noControlCharacters = (value: string) => !/[\u0000-\u001f\u007f]/u.test(value);
+/** A column or table name; it always reaches SQL quoted, so any printable text is safe. */
+const sqlName = (expected: string) =>
+  text(expected)
+    .max(SQL_NAME_MAX_LENGTH, { error: `${expected}, at most ${SQL_NAME_MAX_LENGTH} characters long` })
+    .refine(noControlCharacters, { error: `${expected}, without control characters (tabs, line breaks)` });
+const column = (what: string, example: string) => sqlName(`the column holding ${what}, e.g. ${example}`);
+
+export const DATA_FORMATS = ['parquet', 'csv'] as const;
+/** Where one kind of row lives: a table of the engine, or files read by DuckDB. */
+const source = {
+  table: sqlName('a table name, optionally qualified with dots, e.g. analytics.exposures').optional().describe('A table (or view) of the engine; dots separate schema and table.'),
+  files: pathGlob.optional().describe('Files read by DuckDB: a path or glob relative to the repository, e.g. data/exposures/*.parquet.'),
+  format: z.enum(DATA_FORMATS, { error: `one of ${DATA_FORMATS.join(', ')}` }).optional().describe('The files’ format. Default: from the extension (.parquet or .csv).'),
+};
+const oneSource = <T extends { table?: string | undefined; files?: string | undefined }>(value: T) => (value.table === undefined) !== (value.files === undefined) || (value.table === undefined && value.files === undefined);
+const oneSourceError = { error: 'either table or files, not both' };
+
+export const DEFAULT_EXPOSURE_COLUMNS = { 'unit-id': 'unit_id', arm: 'arm', 'exposed-at': 'exposed_at' } as const;
+export const DEFAULT_EXPERIMENT_COLUMN = 'experiment';
+export const DEFAULT_EVENT_COLUMNS = { 'unit-id': 'unit_id', event: 'event', 'occurred-at': 'occurred_at', value: 'value' } as const;
+export const DEFAULT_MEMORY_LIMIT = '1.5GiB';
+
+const exposuresSource = z
+  .strictObject(
+    {
+      ...source,
+      'unit-id': column('the unit id', 'user_id').default(DEFAULT_EXPOSURE_COLUMNS['unit-id']),
+      arm: column('the arm name', 'variant').default(DEFAULT_EXPOSURE_COLUMNS.arm),
+      'exposed-at': column('the exposure time (a timestamp with time zone)', 'exposed_at').default(DEFAULT_EXPOSURE_COLUMNS['exposed-at']),
+      experiment: z
+        .union([column('the plan id', 'experiment'), z.literal(false)], { error: 'the column holding the plan id, e.g. experiment, or false when every row is this plan’s' })
+        .default(DEFAULT_EXPERIMENT_COLUMN)
+        .describe('Only rows whose value in this column is the plan’s id count (one exposure table usually serves many tests). false: every row is this plan’s.'),
+      segments: uniqueList(column('a segment', 'platform'), 'a list of segment columns, e.g. [platform, country]').default([]).describe('Columns to break the totals down by (value at the unit’s first exposure).'),
+    },
+    { error: 'a mapping with table or files and the column names' },
+  )
+  .refine(oneSource, oneSourceError)
+  .default({ ...DEFAULT_EXPOSURE_COLUMNS, experiment: DEFAULT_EXPERIMENT_COLUMN, segments: [] })
+  .describe('Where exposures live (one row per exposure; the first per unit counts) and their columns.');
+
+const eventsSource = z
+  .strictObject(
+    {
+      ...source,
+      'unit-id': column('the unit id', 'user_id').default(DEFAULT_EVENT_COLUMNS['unit-id']),
+      event: column('the logging event name', 'event_name').default(DEFAULT_EVENT_COLUMNS.event),
+      'occurred-at': column('the event time (a timestamp with time zone)', 'occurred_at').default(DEFAULT_EVENT_COLUMNS['occurred-at']),
+      value: column('the event’s value (a number, may be NULL)', 'amount').default(DEFAULT_EVENT_COLUMNS.value),
+    },
+    { error: 'a mapping with table or files and the column names' },
+  )
+  .refine(oneSource, oneSourceError)
+  .default({ ...DEFAULT_EVENT_COLUMNS })
+  .describe('Where logging events live and their columns.');
+
+const MEMORY = /^\d+(?:\.\d+)?\s*(?:KB|MB|GB|TB|KiB|MiB|GiB|TiB)$/;
+const dataSettings = z
+  .strictObject(
+    {
+      exposures: exposuresSource,
+      events: eventsSource,
+      'pre-period-days': wholeNumber('a whole number of days from 1 to 365, e.g. 28', 1, 365)
+        .optional()
+        .describe('Days before each unit’s first exposure whose events make its pre-period value (CUPED), for plans sized with a pre-period correlation.'),
+      'metric-window-days': wholeNumber('a whole number of days from 1 to 3650, e.g. 14', 1, 3650)
+        .optional()
+        .describe('Default window from first exposure in which events count, for metrics whose per-unit.within-days is not written. Default: none (every event up to data-through).'),
+      duckdb: z
+        .strictObject(
+          {
+            'memory-limit': z
+              .string({ error: 'an amount of memory, e.g. 1.5GiB or 800MB' })
+              .regex(MEMORY, { error: 'an amount of memory, e.g. 1.5GiB or 800MB' })
+              .default(DEFAULT_MEMORY_LIMIT),
+            threads: wholeNumber('a whole number of threads from 1 to 256', 1, 256).optional().describe('Default: one per core.'),
+          },
+          { error: 'a mapping with memory-limit and threads' },
+        )
+        .default({ 'memory-limit': DEFAULT_MEMORY_LIMIT })
+        .describe('The embedded engine: its memory limit (it spills to disk beyond it) and threads.'),
+    },
+    { error: 'a mapping with exposures, events, pre-period-days and duckdb' },
+  )
+  .default({ exposures: { ...DEFAULT_EXPOSURE_COLUMNS, experiment: DEFAULT_EXPERIMENT_COLUMN, segments: [] }, events: { ...DEFAULT_EVENT_COLUMNS }, duckdb: { 'memory-limit': DEFAULT_MEMORY_LIMIT } })
+  .describe('Where the experiment data lives, for `plumbline totals` (see docs/totals-from-sql.md).');
 
 export const writtenSettingsSchema = z
   .strictObject(
@@ -186,6 +276,7 @@ export const writtenSettingsSchema = z
         .max(200, { error: 'a whole number of lines from 0 to 200' })
         .default(10)
         .describe('Around a running test’s flag read, code changed within the enclosing function (or block) counts as a treatment change; for a read outside any function or block, this many lines above and below.'),
+      data: dataSettings,
       severity: z
         .record(
           z.string().regex(/^[a-z0-9]+(?:[-/][a-z0-9]+)*$/, { error: 'a finding code, e.g. plan-missing' }),
@@ -227,6 +318,7 @@ export const settingsSchema = writtenSettingsSchema.transform((w) => ({
     longestWindowDays: w.sizing['longest-window-days'],
     atypicalPeriods: w.sizing['atypical-periods'],
   },
+  data: normalizeData(w.data),
   digest: {
     timeZone: w.digest['time-zone'],
     endingSoonDays: w.digest['ending-soon-days'],
@@ -234,6 +326,38 @@ export const settingsSchema = writtenSettingsSchema.transform((w) => ({
     label: w.digest.label,
   },
 }));
+
+/** Where rows of one kind live: a table of the engine, or files (a path or glob relative to the repository). */
+export type DataSource = { table: string } | { files: string; format?: 'parquet' | 'csv' };
+export interface DataSettings {
+  exposures: { source?: DataSource; columns: { unitId: string; arm: string; exposedAt: string; experiment?: string }; segments: string[] };
+  events: { source?: DataSource; columns: { unitId: string; event: string; occurredAt: string; value: string } };
+  prePeriodDays?: number;
+  metricWindowDays?: number;
+  duckdb: { memoryLimit: string; threads?: number };
+}
+
+function sourceOf(w: { table?: string | undefined; files?: string | undefined; format?: 'parquet' | 'csv' | undefined }): { source?: DataSource } {
+  if (w.table !== undefined) return { source: { table: w.table } };
+  if (w.files !== undefined) return { source: { files: w.files, ...(w.format ? { format: w.format } : {}) } };
+  return {};
+}
+
+function normalizeData(w: z.output<typeof dataSettings>): DataSettings {
+  const x = w.exposures;
+  const e = w.events;
+  return {
+    exposures: {
+      ...sourceOf(x),
+      columns: { unitId: x['unit-id'], arm: x.arm, exposedAt: x['exposed-at'], ...(x.experiment !== false ? { experiment: x.experiment } : {}) },
+      segments: x.segments,
+    },
+    events: { ...sourceOf(e), columns: { unitId: e['unit-id'], event: e.event, occurredAt: e['occurred-at'], value: e.value } },
+    ...(w['pre-period-days'] !== undefined ? { prePeriodDays: w['pre-period-days'] } : {}),
+    ...(w['metric-window-days'] !== undefined ? { metricWindowDays: w['metric-window-days'] } : {}),
+    duckdb: { memoryLimit: w.duckdb['memory-limit'], ...(w.duckdb.threads !== undefined ? { threads: w.duckdb.threads } : {}) },
+  };
+}
 
 /** Normalized repository settings. */
 export type Settings = z.output<typeof settingsSchema>;

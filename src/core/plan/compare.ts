@@ -30,6 +30,8 @@ function metricFields(prefix: string, metric: Metric, withBaseline: boolean, int
   into.set(`${prefix}.events`, metric.events);
   into.set(`${prefix}.direction`, metric.direction);
   if (metric.tolerance) into.set(`${prefix}.tolerance`, metric.tolerance);
+  // How each unit's value is computed from its events: changing it after the start changes the result.
+  if (metric.perUnit) into.set(`${prefix}.per-unit`, metric.perUnit);
   if (withBaseline) into.set(`${prefix}.baseline`, metric.baseline);
 }
 

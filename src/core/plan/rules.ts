@@ -221,7 +221,45 @@ const decisionsAreWritten: Rule<Plan> = ({ value: plan, report }) => {
   });
 };
 
+/**
+ * `per-unit` picks among the metric's own events: an event named only there would be counted without
+ * appearing in `events`, which the review searches the code for.
+ */
+const perUnitUsesTheMetricsEvents: Rule<Plan> = ({ value: plan, report }) => {
+  for (const { metric, path } of allMetrics(plan)) {
+    const perUnit = metric.perUnit;
+    const lists: [FieldPath, string[] | undefined][] = [
+      [['events'], perUnit?.events],
+      [['among'], perUnit?.among],
+      [['numerator', 'events'], perUnit?.numerator?.events],
+      [['denominator', 'events'], perUnit?.denominator?.events],
+    ];
+    for (const [at, events] of lists) {
+      events?.forEach((event, i) => {
+        if (metric.events.includes(event)) return;
+        report({
+          severity: 'error',
+          code: 'plan/per-unit-event',
+          path: [...path, 'per-unit', ...at, i],
+          message: `"${event}" is not one of the metric's events`,
+          expected: `one of ${metric.events.join(', ')} (add it to events first)`,
+        });
+      });
+    }
+    if (metric.kind === 'ratio' && metric.events.length !== 2 && !(perUnit?.numerator?.events && perUnit.denominator?.events)) {
+      report({
+        severity: 'warning',
+        code: 'plan/per-unit-ambiguous',
+        path: [...path, 'events'],
+        message: `a ratio with ${metric.events.length} events does not say which make the numerator and which the denominator, so no totals query can be written for it`,
+        expected: 'per-unit: { numerator: { events: [...] }, denominator: { events: [...] } }, or exactly two events (numerator first)',
+      });
+    }
+  }
+};
+
 export const PLAN_RULES: readonly Rule<Plan>[] = [
+  perUnitUsesTheMetricsEvents,
   windowInOrder,
   liveHasStart,
   armsAreDistinct,

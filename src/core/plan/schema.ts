@@ -110,9 +110,62 @@ const metricCommon = {
     .describe('Variance reduction from the metric’s pre-period value (CUPED); overrides design.pre-period-correlation.'),
 };
 
+/** The longest metric window from exposure: ten years is past any test. */
+export const WITHIN_DAYS_MAX = 3650;
+const withinDays = wholeNumber(`a whole number of days from 1 to ${WITHIN_DAYS_MAX}, e.g. 7`, 1, WITHIN_DAYS_MAX)
+  .optional()
+  .describe('Only events within this many days (24-hour periods) of the unit’s first exposure count. Default: the settings’ data.metric-window-days, else every event up to data-through.');
+const perUnitEvents = (what: string) =>
+  uniqueList(eventName, `a list of events from the metric’s events that ${what}, e.g. [order_placed]`, 1, `at least one event that ${what}, e.g. [order_placed]`).optional();
+export const PER_UNIT_VALUES = ['sum', 'count'] as const;
+const perUnitValue = z
+  .enum(PER_UNIT_VALUES, { error: 'sum (add up the events’ value) or count (count the events)' })
+  .optional()
+  .describe('sum: add up the value of the events (NULL adds nothing); count: count the events. Default: sum.');
+const ratioSide = (side: string, example: string) =>
+  z
+    .strictObject({ events: perUnitEvents(`make the ${side}`), value: perUnitValue }, { error: `the ${side}: { events: [${example}], value: count }` })
+    .optional()
+    .describe(`How each unit’s ${side} is computed from its events.`);
+
+/**
+ * How each unit's value is computed from its events, when `events` alone leaves it open. Every key is
+ * optional; the defaults are the query's rules (docs/totals-from-sql.md): a proportion counts units with any
+ * of the events, a mean sums the events' value, a ratio of two events is the first over the second.
+ */
+const proportionPerUnit = z
+  .strictObject(
+    {
+      events: perUnitEvents('count for the unit (default: all of them)'),
+      counts: z
+        .enum(['with-event', 'without-event'], { error: 'with-event or without-event' })
+        .optional()
+        .describe('with-event: the share of units with one of the events (default); without-event: the share without any (e.g. abandonment).'),
+      among: perUnitEvents('put a unit in the share’s denominator (default: every exposed unit)').describe(
+        'Take the share only among units with one of these events after exposure (e.g. units that viewed the basket).',
+      ),
+      'within-days': withinDays,
+    },
+    { error: 'a mapping with events, counts, among and within-days, e.g. { counts: without-event, events: [order_placed], among: [basket_viewed] }' },
+  )
+  .optional()
+  .describe('How each unit’s 0/1 value is computed from its events (for the SQL query).');
+const meanPerUnit = z
+  .strictObject({ events: perUnitEvents('count for the unit (default: all of them)'), value: perUnitValue, 'within-days': withinDays }, { error: 'a mapping with events, value and within-days, e.g. { value: count }' })
+  .optional()
+  .describe('How each unit’s value is computed from its events (for the SQL query).');
+const ratioPerUnit = z
+  .strictObject(
+    { numerator: ratioSide('numerator', 'search_suggestion_clicked'), denominator: ratioSide('denominator', 'search_performed'), 'within-days': withinDays },
+    { error: 'a mapping with numerator, denominator and within-days, e.g. { numerator: { events: [click], value: count }, denominator: { events: [search], value: count } }' },
+  )
+  .optional()
+  .describe('How each unit’s numerator and denominator are computed from its events (for the SQL query). Default with two events: the first over the second, each summing value.');
+
 const proportionMetric = z.strictObject({
   ...metricCommon,
   kind: z.literal('proportion').describe('A share of units that do something (conversion, retention).'),
+  'per-unit': proportionPerUnit,
   baseline: z.strictObject(
     { rate: openShare('a baseline rate strictly between 0 and 1, e.g. 0.12') },
     { error: 'a mapping with rate, e.g. { rate: 0.12 }' },
@@ -122,6 +175,7 @@ const proportionMetric = z.strictObject({
 const meanMetric = z.strictObject({
   ...metricCommon,
   kind: z.literal('mean').describe('An average per unit (revenue, items, latency).'),
+  'per-unit': meanPerUnit,
   'capped-at': z
     .number({ error: 'a percentile above 50 and at most 100 at which values are capped, e.g. 99' })
     .gt(50, { error: 'a percentile above 50 and at most 100, e.g. 99' })
@@ -153,6 +207,7 @@ const ratioMetric = z.strictObject({
     },
     { error: 'a mapping with numerator, denominator and correlation' },
   ).describe('Baseline figures for sizing: per-unit moments of the numerator and denominator.'),
+  'per-unit': ratioPerUnit,
   'denominator-may-move': z
     .boolean({ error: 'true or false' })
     .default(false)
@@ -505,6 +560,18 @@ interface MetricBase {
   alpha?: number;
   power?: number;
   prePeriod?: { correlation: number; coverage: number };
+  /** How each unit's value is computed from its events, as written (defaults are applied by the query). */
+  perUnit?: PerUnit;
+}
+export type PerUnitValue = (typeof PER_UNIT_VALUES)[number];
+export interface PerUnit {
+  events?: string[];
+  value?: PerUnitValue;
+  counts?: 'with-event' | 'without-event';
+  among?: string[];
+  numerator?: { events?: string[]; value?: PerUnitValue };
+  denominator?: { events?: string[]; value?: PerUnitValue };
+  withinDays?: number;
 }
 export type Metric =
   | (MetricBase & { kind: 'proportion'; baseline: { rate: number } })
@@ -574,8 +641,13 @@ export interface Amendment {
   reason: string;
 }
 
+function normalizePerUnit(written: NonNullable<WrittenMetric['per-unit']>): PerUnit {
+  const { 'within-days': withinDays, ...rest } = written as Record<string, unknown> & { 'within-days'?: number };
+  return { ...(rest as PerUnit), ...(withinDays !== undefined ? { withinDays } : {}) };
+}
+
 function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | undefined): Metric {
-  const { direction, 'pre-period': prePeriod, ...rest } = written;
+  const { direction, 'pre-period': prePeriod, 'per-unit': perUnit, ...rest } = written;
   const chosen = direction ?? fallbackDirection;
   const renamed: Record<string, unknown> = { ...rest };
   if ('capped-at' in renamed) {
@@ -586,7 +658,7 @@ function normalizeMetric(written: WrittenMetric, fallbackDirection: Direction | 
     renamed.denominatorMayMove = renamed['denominator-may-move'];
     delete renamed['denominator-may-move'];
   }
-  return { ...renamed, ...(prePeriod ? { prePeriod } : {}), direction: chosen ?? 'increase', directionAssumed: chosen === undefined } as Metric;
+  return { ...renamed, ...(prePeriod ? { prePeriod } : {}), ...(perUnit ? { perUnit: normalizePerUnit(perUnit) } : {}), direction: chosen ?? 'increase', directionAssumed: chosen === undefined } as Metric;
 }
 
 export const PRIMARY_COUNT_CODE = 'plan/primary-metric-count';

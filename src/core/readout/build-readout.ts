@@ -99,6 +99,12 @@ export interface Readout {
 
 /** Significance level of the test that week 1 differs from the later weeks (common practice, no source). */
 export const NOVELTY_P = 0.01;
+/**
+ * Units seen in two or more arms are left out of the totals; above this share of the units exposed the
+ * readout blocks: dropping them is no longer a small loss but a sign that assignment is not sticky,
+ * and the arms left may no longer be comparable (common practice, no source).
+ */
+export const SEVERAL_ARMS_BLOCK_SHARE = 0.01;
 /** Below this power a significant estimate is likely inflated (common practice, no source). */
 export const LOW_POWER = 0.5;
 
@@ -309,6 +315,7 @@ export function buildReadout(plan: Plan, totals: ArmTotalsFile): Readout {
       message: `Sample ratio mismatch: the units per arm do not fit the planned weights (p = ${formatP(srm.pValue)} < ${srm.threshold}). Nothing here is a result: find why assignment or logging lost units, fix it, and read again.`,
     });
   }
+  findings.push(...excludedUnitsFindings(totals, unitsSeen));
   if (srm && srm.days.length) {
     findings.push({
       severity: 'warn',
@@ -489,6 +496,32 @@ export function buildReadout(plan: Plan, totals: ArmTotalsFile): Readout {
     ...(rule && text ? { decision: { rule, text } } : {}),
     findings,
   };
+}
+
+/** What the totals left out: units in several arms (randomization broken for them) and arms the plan does not have. */
+function excludedUnitsFindings(totals: ArmTotalsFile, unitsKept: number): ReadoutFinding[] {
+  const findings: ReadoutFinding[] = [];
+  const several = totals.excluded?.severalArms ?? 0;
+  if (several > 0) {
+    const share = several / (several + unitsKept);
+    const block = share > SEVERAL_ARMS_BLOCK_SHARE;
+    findings.push({
+      severity: block ? 'block' : 'warn',
+      code: 'readout/units-in-several-arms',
+      message: `${several} units (${formatShare(share)} of those exposed) were seen in more than one arm and are left out of every total: assignment was not sticky for them, which breaks randomization${
+        block ? `. Above ${formatShare(SEVERAL_ARMS_BLOCK_SHARE)} the arms left may not be comparable: find why units switch arms (ids reused across devices, a flag re-evaluated with other attributes, a changed split), fix it, and read again.` : '; a small share costs little, but find out why.'
+      }`,
+    });
+  }
+  const unknown = totals.excluded?.unknownArm ?? 0;
+  if (unknown > 0) {
+    findings.push({
+      severity: 'warn',
+      code: 'readout/unknown-arm',
+      message: `${unknown} units have exposures under an arm name the plan does not have; those exposures are left out. Check the flag's variations against the plan's arms.`,
+    });
+  }
+  return findings;
 }
 
 function formatShare(x: number | undefined): string {

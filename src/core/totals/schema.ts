@@ -124,6 +124,20 @@ export const writtenTotalsSchema = z
       arms: z
         .record(kebabName('an arm name of the plan, e.g. control'), armTotals, { error: 'a mapping of arm names to their totals' })
         .describe('Totals per arm, keyed by the arm’s name in the plan.'),
+      excluded: z
+        .strictObject(
+          {
+            'several-arms': count('the number of units seen in two or more arms, a whole number of 0 or more, e.g. 12')
+              .default(0)
+              .describe('Units exposed in two or more arms, left out of every total: they break randomization.'),
+            'unknown-arm': count('the number of units whose exposures name an arm the plan does not have, a whole number of 0 or more, e.g. 3')
+              .default(0)
+              .describe('Units with exposures under an arm name the plan does not have; those exposures are left out.'),
+          },
+          { error: 'a mapping with several-arms and unknown-arm, e.g. { several-arms: 12, unknown-arm: 0 }' },
+        )
+        .optional()
+        .describe('Units left out of the totals, by reason (written by plumbline totals).'),
       notes: z.string({ error: 'free text' }).optional().describe('Free text: where the totals came from.'),
     },
     { error: 'arm totals: a mapping with plan, plan-commit, data-through and arms' },
@@ -165,6 +179,8 @@ export interface ArmTotalsFile {
   dataThrough: string;
   /** In the order written. */
   arms: Record<string, ArmTotals>;
+  /** Units left out of every total, by reason; absent when the file does not say. */
+  excluded?: { severalArms: number; unknownArm: number };
   notes?: string;
 }
 
@@ -212,6 +228,7 @@ export const totalsSchema = writtenTotalsSchema.transform(
         },
       ]),
     ),
+    ...(written.excluded ? { excluded: { severalArms: written.excluded['several-arms'], unknownArm: written.excluded['unknown-arm'] } } : {}),
     ...(written.notes !== undefined ? { notes: written.notes } : {}),
   }),
 );

@@ -1,0 +1,29 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+import {
+  COMMENT_LIMIT,
+  REVIEW_MARKER,
+  SUMMARY_LIMIT,
+  measureBytes,
+  measureCharacters,
+  renderReviewMarkdown,
+  renderReviewSummary
+} from "./chunk-FVU4FYHL.js";
+import "./chunk-XUFFUC7R.js";
+import "./chunk-3QIBMH36.js";
+import "./chunk-HYEQ4ILC.js";
+import "./chunk-35APDGCM.js";
+import "./chunk-7H6MHGDI.js";
+import "./chunk-D7CL2H7J.js";
+import "./chunk-5CFAFUOS.js";
+import "./chunk-FUJ7I5KY.js";
+export {
+  COMMENT_LIMIT,
+  REVIEW_MARKER,
+  SUMMARY_LIMIT,
+  measureBytes,
+  measureCharacters,
+  renderReviewMarkdown,
+  renderReviewSummary
+};

@@ -31,7 +31,7 @@ export interface TotalsOptions extends LoadWorkspaceOptions {
   engine: Engine;
   /** Print the query for this dialect instead of running it. */
   sqlDialect?: DialectName;
-  /** A folder or glob of exposures*.parquet|csv and events*.parquet|csv, relative to the root. */
+  /** A folder or glob of exposures*.parquet|csv and events*.parquet|csv (or a folder per table), relative to the root or absolute. */
   data?: string;
   /** The query's result saved as CSV, relative to the root. */
   fromRows?: string;
@@ -63,26 +63,46 @@ export type TotalsOutcome =
       warnings: Problem[];
     };
 
-const DATA_PATTERN = /^(exposures|events)[^/]*\.(parquet|csv)$/i;
+/** A table's data: a file named for it (`exposures.parquet`, `events-2026-11.csv`) or any file in a folder named for it. */
+const DATA_NAME = /^(exposures|events)[^/]*$/i;
+const DATA_FORMAT = /\.(parquet|csv)$/i;
 
-/** The data files of a folder (its exposures*.parquet|csv and events*.parquet|csv) or of a glob. */
+/**
+ * Which table a listed data file belongs to, from its path below the `--data` folder: the file's own name
+ * (`exposures.parquet`) or its first folder (`exposures/date=2026-11-09/part-0.parquet`, as exports are often
+ * partitioned). Other files are not data.
+ */
+function tableOf(pathBelow: string): { kind: 'exposures' | 'events'; format: 'parquet' | 'csv' } | undefined {
+  const format = DATA_FORMAT.exec(pathBelow)?.[1]?.toLowerCase() as 'parquet' | 'csv' | undefined;
+  if (!format) return undefined;
+  const parts = pathBelow.split('/');
+  const named = parts.length === 1 ? parts[0]!.replace(DATA_FORMAT, '') : parts[0]!;
+  const m = DATA_NAME.exec(named);
+  return m ? { kind: m[1]!.toLowerCase() as 'exposures' | 'events', format } : undefined;
+}
+
+/** The data files of a folder (exposures*.parquet|csv and events*.parquet|csv, or folders so named) or of a glob. */
 async function dataFiles(options: TotalsOptions, spec: string): Promise<{ exposures: QuerySource; events: QuerySource }> {
-  const entry = spec.replace(/^\.\//, '').replace(/\/+$/, '');
+  // An absolute path (exports often live outside the repository) is listed relative to the repository, like any other.
+  const written = posix.isAbsolute(spec) ? posix.relative(options.root, spec) || '.' : spec;
+  const entry = written.replace(/^\.\//, '').replace(/\/+$/, '');
   const scan = picomatch.scan(entry);
   const folder = scan.isGlob ? scan.base : entry;
   const listed = await options.files.listFiles(folder === '.' ? '' : folder);
-  const matcher = scan.isGlob ? picomatch(entry, { dot: false }) : (path: string) => posix.dirname(path) === (folder === '.' || folder === '' ? '.' : folder);
+  const prefix = folder === '.' || folder === '' ? '' : `${folder}/`;
+  const glob = scan.isGlob ? picomatch(entry, { dot: false }) : undefined;
   const found = { exposures: [] as string[], events: [] as string[] };
   const formats = { exposures: new Set<string>(), events: new Set<string>() };
-  for (const path of listed.filter((p) => matcher(p))) {
-    const m = DATA_PATTERN.exec(posix.basename(path));
-    if (!m) continue;
-    const kind = m[1]!.toLowerCase() as 'exposures' | 'events';
-    found[kind].push(posix.join(options.root, path));
-    formats[kind].add(m[2]!.toLowerCase());
+  for (const path of listed) {
+    if (!path.startsWith(prefix) || (glob && !glob(path))) continue;
+    // A glob names the files itself, so only their names tell the table; a folder may hold a folder per table.
+    const table = tableOf(glob ? posix.basename(path) : path.slice(prefix.length));
+    if (!table) continue;
+    found[table.kind].push(posix.join(options.root, path));
+    formats[table.kind].add(table.format);
   }
   const source = (kind: 'exposures' | 'events'): QuerySource => {
-    if (!found[kind].length) throw new UsageError(`--data ${spec}: no ${kind} files (${kind}*.parquet or ${kind}*.csv)`, `put the exports in ${folder || '.'} named ${kind}.parquet (or ${kind}-*.csv), or set data.${kind}.files in the settings`);
+    if (!found[kind].length) throw new UsageError(`--data ${spec}: no ${kind} files (${kind}*.parquet or ${kind}*.csv, or a folder ${kind}/ of them)`, `put the exports in ${folder || '.'} named ${kind}.parquet (or ${kind}-*.csv, or ${kind}/part-*.parquet), or set data.${kind}.files in the settings`);
     if (formats[kind].size > 1) throw new UsageError(`--data ${spec}: the ${kind} files mix Parquet and CSV`, 'keep one format per table');
     return { files: found[kind].sort(), format: [...formats[kind]][0] as 'parquet' | 'csv' };
   };

@@ -49,6 +49,29 @@ describe('plumbline totals', () => {
     expect(findings).toContain('readout/units-in-several-arms');
   });
 
+  it('reads exports outside the repository by absolute path, a folder per table (as partitioned exports come): the same totals', () => {
+    const outside = mkdtempSync(join(tmpdir(), 'plumbline-exports-'));
+    try {
+      for (const table of ['exposures', 'events']) {
+        execFileSync('mkdir', ['-p', join(outside, table, 'day=all')]);
+        writeFileSync(join(outside, table, 'day=all', 'part-0.parquet'), readFileSync(join(root, 'exports', `${table}.parquet`)));
+      }
+      writeFileSync(join(outside, 'README.txt'), 'not data');
+      const inRepo = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/in-repo.totals.yaml']);
+      const run = runCli(['-C', root, 'totals', 'basket-shapes', '--data', outside, '--through', '2026-11-19', '--out', 'readouts/outside.totals.yaml']);
+      expect(inRepo.status).toBe(0);
+      expect(run.stderr).toBe('');
+      expect(run.status).toBe(0);
+      const arms = (file: string) => loadTotals(readFileSync(join(root, 'readouts', file), 'utf8'), file, shapesPlan());
+      const a = arms('in-repo.totals.yaml');
+      const b = arms('outside.totals.yaml');
+      expect(a.ok && b.ok).toBe(true);
+      if (a.ok && b.ok) expect(b.totals.arms).toEqual(a.totals.arms);
+    } finally {
+      rmSync(outside, { recursive: true, force: true });
+    }
+  });
+
   it('prints the query for a warehouse and reads its result back from CSV: the same totals as the files gave', () => {
     const sql = runCli(['-C', root, 'totals', 'basket-shapes', '--sql', '--dialect', 'duckdb', '--data', 'exports', '--through', '2026-11-19']);
     expect(sql.status).toBe(0);

@@ -194,6 +194,17 @@ describe('exposure in every arm', () => {
     const unrelated = "export function cart(client, user, track) {\n  const on = client.getBooleanValue('good-flag', false);\n  if (user.isNew) {\n    track('cart_viewed');\n  }\n  track(on ? 'order_done' : 'cart_error');\n}\n";
     expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': unrelated }))).not.toContain('exposure-one-arm');
   });
+
+  it('finds the read when its key is held in a constant or the call is split over lines (the flag finder’s own reads)', async () => {
+    const constant = "const FLAG = 'good-flag';\nexport function cart(client, track) {\n  if (client.getBooleanValue(FLAG, false)) {\n    track('cart_viewed');\n  }\n  track('order_done');\n  track('cart_error');\n}\n";
+    const found = (await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': constant })).findings.find((f) => f.code === 'exposure-one-arm');
+    expect(found).toMatchObject({ file: 'src/cart.ts', line: 4 });
+    expect(found!.message).toContain('line 3 `if (client.getBooleanValue(FLAG, false)) {`');
+    const split = "export function cart(client, track) {\n  const on = client\n    .getBooleanValue(\n      'good-flag', false);\n  if (on) {\n    track('cart_viewed');\n  }\n  track('order_done');\n  track('cart_error');\n}\n";
+    expect((await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': split })).findings.find((f) => f.code === 'exposure-one-arm')).toMatchObject({ file: 'src/cart.ts', line: 6 });
+    const go = 'package cart\n\nconst Flag = "good-flag"\n\nfunc Cart(ctx context.Context, client *openfeature.Client) {\n\ton, _ := client.BooleanValue(ctx, Flag, false, evalCtx)\n\tif on {\n\t\tanalytics.Track(ctx, "cart_viewed")\n\t}\n\tanalytics.Track(ctx, "order_done")\n\tanalytics.Track(ctx, "cart_error")\n}\n';
+    expect((await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': null, 'src/cart.go': go })).findings.find((f) => f.code === 'exposure-one-arm')).toMatchObject({ file: 'src/cart.go', line: 8 });
+  });
 });
 
 describe('treatment changed mid-test', () => {

@@ -3,6 +3,7 @@ import { rmSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
 import type { Review } from '../../src/core/review/build-review.js';
+import { planAnnotations } from '../../src/action/effects.js';
 import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
@@ -53,6 +54,19 @@ describe('frozen plans', () => {
     expect(r.verdict).toBe('blocked');
   });
 
+  it('points at the first changed key, not the plan’s id: in the finding, the comment’s link and the annotation', async () => {
+    const head = planYaml(cleanPlan({ window: { start: '2026-11-02', end: '2026-12-27' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 }, decisions: { win: 'Ship.', flat: 'Drop.', loss: 'Ship it anyway.', 'guardrail-breach': 'Stop.' } }));
+    const lineOf = (start: string) => head.split('\n').findIndex((l) => l.trimStart().startsWith(start)) + 1;
+    expect(lineOf('alpha:')).toBeLessThan(lineOf('loss:'));
+    const r = await review(baseFiles(), { 'experiments/good.yaml': head });
+    const frozen = r.findings.find((f) => f.code === 'plan-frozen')!;
+    expect(frozen).toMatchObject({ file: 'experiments/good.yaml', line: lineOf('alpha:') });
+    expect(r.findings.find((f) => f.code === 'plan-end-moved')).toMatchObject({ line: lineOf('end:') });
+    expect(renderReviewMarkdown(r, { linkBase: 'https://github.com/o/r/blob/abc' })).toContain(`experiments/good.yaml#L${lineOf('alpha:')}`);
+    const annotation = planAnnotations(r, { notices: [], warnings: [] }).find((a) => a.properties.title === 'Plumbline plan-frozen');
+    expect(annotation?.properties).toMatchObject({ file: 'experiments/good.yaml', startLine: lineOf('alpha:') });
+  });
+
   it('freezes a draft whose start date has passed, but not one that starts later', async () => {
     const draft = (start: string) => cleanPlan({ state: 'draft', window: { start, end: '2026-12-27' } });
     const changeAlpha = (start: string) => ({ 'experiments/good.yaml': planYaml({ ...draft(start), design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } }) });
@@ -67,6 +81,8 @@ describe('frozen plans', () => {
     expect(codes(r)).not.toContain('plan-frozen');
     const amended = r.findings.find((f) => f.code === 'plan-amended')!;
     expect(amended.severity).toBe('note');
+    // At the amendment that explains the change.
+    expect(amended.line).toBe(planYaml(head).split('\n').findIndex((l) => l.includes('- date: 2026-11-16')) + 1);
     expect(amended.amendment).toEqual(amendment);
     expect(amended.changes).toEqual([{ field: 'design.alpha', before: '0.05', after: '0.1' }]);
     const html = render(renderReviewMarkdown(r, {}));
@@ -88,6 +104,8 @@ describe('frozen plans', () => {
     const files = baseFiles({ '.plumbline.yml': 'registries: [ops/tests.yaml]\n', 'ops/tests.yaml': registry('2026-11-02') });
     const moved = await review(files, { 'ops/tests.yaml': registry('2026-11-09') });
     expect(moved.findings.find((f) => f.code === 'plan-frozen')?.changes).toEqual([{ field: 'window.start', before: '2026-11-02', after: '2026-11-09' }]);
+    // The entry's window line, not its id line.
+    expect(moved.findings.find((f) => f.code === 'plan-frozen')?.line).toBe(7);
     const gone = await review(files, { 'ops/tests.yaml': 'tests: []\n' });
     expect(gone.findings.find((f) => f.code === 'plan-deleted')?.plan).toBe('partner-banner');
   });

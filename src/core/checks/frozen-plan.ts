@@ -1,7 +1,9 @@
-import { changedFields, decisiveEntryFields, decisiveFields, showValue, type FieldChange } from '../plan/compare.js';
+import { changedFields, decisiveEntryFields, decisiveFields, showValue, writtenPathOf, type FieldChange } from '../plan/compare.js';
+import { lineOfKey } from '../plan/load.js';
 import type { Amendment } from '../plan/schema.js';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { Check, ReviewContext } from '../review/context.js';
+import type { FieldPath } from '../source/yaml-source.js';
 import type { Finding } from '../review/finding.js';
 import { collectingSince, hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
@@ -32,8 +34,19 @@ function endMove(before: RegistryEntry, after: RegistryEntry): FieldChange | und
   return { field: 'window.end', before: showValue(was), after: showValue(now) };
 }
 
+/**
+ * Where a finding about changed fields points at head: the first changed key in the file (a removed key:
+ * its nearest written parent), so the annotation lands on the line to put back, not on the plan's id.
+ */
+function atChangedKey(entry: RegistryEntry, fields: readonly FieldPath[]): { plan: string; file: string; line: number } {
+  const { keyLines } = entry;
+  const line = keyLines && fields.length ? Math.min(...fields.map((path) => lineOfKey({ line: entry.line, keyLines }, path))) : entry.line;
+  return { plan: entry.id, file: entry.file, line };
+}
+
 function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): Raw[] {
-  const where = { plan: after.id, file: after.file, line: after.line };
+  const guardrails = after.plan?.metrics.guardrails.map((g) => g.name) ?? [];
+  const at = (changes: readonly FieldChange[]) => atChangedKey(after, changes.map((c) => writtenPathOf(c.field, guardrails)));
   const { added, rewritten } = appendedAmendments(before.amendments, after.amendments);
   const changes = decisiveChanges(before, after, today);
   if (rewritten) changes.push({ field: 'amendments', before: `${before.amendments.length} recorded`, after: 'earlier entries edited or removed' });
@@ -48,7 +61,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
         fix: 'Judge the amendment against the table: a result must not be chosen after seeing data. The readout must say the plan changed on this date.',
         changes: all,
         amendment,
-        ...where,
+        ...atChangedKey(after, [['amendments', after.amendments.length - 1]]),
       },
     ];
   }
@@ -59,7 +72,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
       message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}, and this change alters what decides its result: ${listChanges(changes)}. Changing these after the start lets the result be chosen after the fact.`,
       fix: `Put these fields back as they were. If a change is truly needed, append an entry under amendments: with date, changed and reason (reviewers then see a before/after table), or end ${after.id} and plan a new test.`,
       changes,
-      ...where,
+      ...at(changes),
     });
   }
   if (end) {
@@ -73,7 +86,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
         ? 'Keep the planned end, or record the reason under amendments: and read the result only at the new end.'
         : 'Keep the planned end, plan interim looks with a stopping boundary, or record the reason under amendments:.',
       changes: [end],
-      ...where,
+      ...at([end]),
     });
   }
   return findings;

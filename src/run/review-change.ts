@@ -52,7 +52,7 @@ async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, 
   });
   // A recorded outcome is checked against its totals at base too, so an unchanged override stays "known".
   await attachReadouts(linked, baseFiles);
-  return { ...head, linked, invalidPlanFiles: [], registry: base.registry, events };
+  return { ...head, linked, invalidPlanFiles: [], fileWarnings: base.problems.filter((p) => p.severity === 'warning'), registry: base.registry, events };
 }
 
 export type ReviewOutcome =
@@ -159,7 +159,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
   (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const context: ReviewContext = {
-    settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
+    settings, pr, linked, invalidPlanFiles, fileWarnings: workspace.problems.filter((p) => p.severity === 'warning'), changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
     changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
   const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked);

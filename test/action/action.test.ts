@@ -45,6 +45,17 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(github.refused).toEqual([]);
   });
 
+  it('annotates each load warning of a plan it reviews once, as a warning that does not fail the run', async () => {
+    const plan = planYaml(cleanPlan({ id: 'renamed', flags: ['renamed-flag'], state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' }, surface: { path: 'shop/renamed', 'exclusion-group': { name: 'cart-core', slice: { from: 0, to: 50 } } } }));
+    const keyLine = plan.split('\n').findIndex((l) => l.trimStart().startsWith('exclusion-group:')) + 1;
+    const { repo, github, event } = await setup({ 'experiments/renamed.yaml': plan });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const annotations = run.stdout.split('\n').filter((l) => l.includes('is the old name of'));
+    expect(annotations).toEqual([expect.stringContaining(`::warning title=Plumbline file-warning,file=experiments/renamed.yaml,line=${keyLine}::surface.exclusion-group:`)]);
+    expect(github.comments(7)[0]!.body.match(/is the old name of/g)).toHaveLength(1);
+  });
+
   it('leaves one comment when two runs race', async () => {
     const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
     await Promise.all([runAction({ github, workspace: repo.root, event }), runAction({ github, workspace: repo.root, event })]);

@@ -266,6 +266,11 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     // A change to an unrelated function in the same file as a live flag read is not a treatment change.
     nearMiss: { changes: { 'src/cart.ts': `${CART_CODE}\nexport function total(items) {\n  return items.length;\n}\n` } },
   },
+  'file-warning': {
+    // A renamed key loads with a warning (plan/renamed-key), as validate says.
+    trigger: { changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'exclusion-group': { name: 'cart-core', slice: { from: 0, to: 50 } } } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'traffic-split': { name: 'cart-core', range: { start: 0, end: 50 } } } })) },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },

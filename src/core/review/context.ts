@@ -35,6 +35,8 @@ export interface ReviewContext {
   linked: LinkedPlan[];
   /** Plan files that do not load and that the change adds or edits, or whose flags (`flags`, read leniently) it touches. */
   invalidPlanFiles: { file: string; problems: Problem[]; flags?: string[] }[];
+  /** Warnings from loading every plan and registry file (a renamed key, a default taken), as validate reports them. */
+  fileWarnings: readonly Problem[];
   /** Paths the change adds or edits. */
   changedPaths: string[];
   /** Flags the change touches in code or in flag definition files. */

@@ -30,6 +30,7 @@ export interface Finding {
 export const FINDING_CODES = {
   'flag-without-plan': { severity: 'warn', about: 'a changed feature flag has no plan (and is not exempt)' },
   'plan-invalid': { severity: 'block', about: 'a plan the change touches cannot be loaded' },
+  'file-warning': { severity: 'warn', about: 'a plan the change is about, or a plan or registry file it edits, loads with a warning (a renamed key, a default taken), as validate reports it' },
   'decisions-missing': { severity: 'block', about: 'a decision rule (win, flat, loss, guardrail breach) is not written' },
   'reason-missing': { severity: 'warn', about: 'the hypothesis does not say why the change should work' },
   'guardrails-missing': { severity: 'warn', about: 'no guardrail metric' },

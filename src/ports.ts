@@ -38,6 +38,8 @@ export interface ChangeSource {
   streamFiles(side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void>;
   /** Every tracked path at the ref. */
   trackedFiles(side: 'base' | 'head'): Promise<string[]>;
+  /** Set when the files at `base` cannot be read (the pull-request files API gives patches only): why, in a few words. */
+  baseUnreadable?: string;
 }
 
 /** Reports progress of long work; the CLI draws it only on a terminal. */

@@ -71,7 +71,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const { settings } = workspace;
   // Running tests are compared with their plans at the base commit.
   // Loaded once, for both: running tests' plans as they were, and the findings that already held.
-  const baseWorkspace = loadBaseWorkspace(change, options.settingsPath);
+  const baseWorkspace = change.baseUnreadable ? Promise.resolve(undefined) : loadBaseWorkspace(change, options.settingsPath);
   baseWorkspace.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
   const baseEntries = baseWorkspace.then((w) => w?.registry.entries ?? []);
   baseEntries.catch(() => undefined);
@@ -160,7 +160,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const context: ReviewContext = {
     settings, pr, linked, invalidPlanFiles, fileWarnings: workspace.problems.filter((p) => p.severity === 'warning'), changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
-    changedCode: changedCodeOf(textual, textAt), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
+    changedCode: changedCodeOf(textual, textAt), ...(change.baseUnreadable ? { baseUnreadable: change.baseUnreadable } : {}), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
   const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);

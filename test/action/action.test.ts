@@ -183,9 +183,24 @@ describe('the bundled Action against a fake GitHub', () => {
     github.setPullRequestFiles(7, [{ filename: 'src/new.ts', status: 'added', patch: "@@ -0,0 +1 @@\n+client.getBooleanValue('api-flag', false);" }]);
     const run = await runAction({ github, workspace: repo.root, event });
     expect(run.status).toBe(0);
-    expect(run.outputs.warnings).toBe('1');
+    // flag-without-plan, and base-unread: the demo's live test could not be compared with the base commit.
+    expect(run.outputs.warnings).toBe('2');
     expect(github.comments(7)[0]!.body).toContain('api-flag');
     expect(github.requests.some((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toBe(true);
+  });
+
+  it('says in the comment that started tests were not compared with the base commit when only the files API is there', async () => {
+    const head = planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } }));
+    const { repo, github, event } = await setup({ 'experiments/good.yaml': head });
+    rmSync(`${repo.root}/.git`, { recursive: true, force: true });
+    github.setPullRequestFiles(7, [{ filename: 'experiments/good.yaml', status: 'modified', patch: '@@ -24,0 +25 @@\n+  alpha: 0.1' }]);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const body = github.comments(7)[0]!.body;
+    expect(body).toContain('base-unread');
+    expect(body).toContain('were not compared with the base commit, because this run read the change through the pull-request files API');
+    expect(body).toContain('fetch-depth: 0');
+    expect(github.refused).toEqual([]);
   });
 
   it('keeps a huge review under the 65,536-character limit that GitHub enforces with 422', async () => {

@@ -5,6 +5,7 @@ import type { RegistryEntry } from '../registry/schema.js';
 import type { Check, ReviewContext } from '../review/context.js';
 import type { FieldPath } from '../source/yaml-source.js';
 import type { Finding } from '../review/finding.js';
+import { countOf } from '../report/numbers.js';
 import { collectingSince, hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
 type Raw = Omit<Finding, 'severity'>;
@@ -103,8 +104,25 @@ function deleted(before: RegistryEntry): Raw {
   };
 }
 
+/**
+ * When the base commit cannot be read, the checks that compare with it cannot run; silence would read
+ * as "nothing changed", so the review says which started tests went unchecked and why.
+ */
+function baseUnread(context: ReviewContext, why: string): Raw[] {
+  const started = context.registry.entries.filter((e) => hasStarted(e, context.today));
+  if (started.length === 0) return [];
+  return [
+    {
+      code: 'base-unread',
+      message: `The plans of ${countOf(started.length, 'started test')} (${started.map((e) => e.id).join(', ')}) were not compared with the base commit, because ${why}. Changes to what decides their results (plan-frozen, plan-amended, plan-end-moved), deleted plans (plan-deleted), flag reads removed (test-ended-early) and code changed around their flag reads (treatment-changed) could not be checked.`,
+      fix: 'Check out the repository with its history (actions/checkout with fetch-depth: 0) so the review reads the base commit with git.',
+    },
+  ];
+}
+
 /** Started tests at the base commit, each compared with the same id at head. */
 export const frozenPlans: Check = (context: ReviewContext) => {
+  if (context.baseUnreadable) return baseUnread(context, context.baseUnreadable);
   const head = new Map(context.registry.entries.map((e) => [e.id, e]));
   const unloadable = new Set(context.invalidPlanFiles.map((f) => f.file));
   return context.baseEntries

@@ -56,6 +56,8 @@ export interface ReviewContext {
   flagsAtHead: ReadonlyMap<string, NameHits>;
   /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */
   baseEntries: readonly RegistryEntry[];
+  /** Set when the base commit's files could not be read: why. Then `baseEntries` is empty and nothing is compared with the base. */
+  baseUnreadable?: string;
 }
 
 export interface ChangedCode {

@@ -5,6 +5,8 @@ import { openChange } from '../../src/adapters/git.js';
 import type { Review } from '../../src/core/review/build-review.js';
 import { planAnnotations } from '../../src/action/effects.js';
 import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
+import { frozenPlans } from '../../src/core/checks/frozen-plan.js';
+import type { ReviewContext } from '../../src/core/review/context.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, cleanPlan, planYaml, CART_CODE, CART_CODE_TOUCHED } from './scenarios.js';
@@ -65,6 +67,15 @@ describe('frozen plans', () => {
     expect(renderReviewMarkdown(r, { linkBase: 'https://github.com/o/r/blob/abc' })).toContain(`experiments/good.yaml#L${lineOf('alpha:')}`);
     const annotation = planAnnotations(r, { notices: [], warnings: [] }).find((a) => a.properties.title === 'Plumbline plan-frozen');
     expect(annotation?.properties).toMatchObject({ file: 'experiments/good.yaml', startLine: lineOf('alpha:') });
+  });
+
+  it('without the base commit, names the started tests it could not compare (a few, then a count)', () => {
+    const entry = (id: string, state: string) => ({ id, state, window: { start: '2026-11-02' }, owners: ['@a'], flags: [id], amendments: [], file: `experiments/${id}.yaml`, line: 1 });
+    const entries = [...['a', 'b', 'c', 'd', 'e', 'f', 'g'].map((id) => entry(id, 'live')), entry('done', 'concluded')];
+    const context = { baseUnreadable: 'no history was there', today: TODAY, registry: { entries }, baseEntries: [], invalidPlanFiles: [] } as unknown as ReviewContext;
+    const [found] = frozenPlans(context);
+    expect(found!.message).toContain('The plans of 7 started tests (a, b, c, d, e and 2 more) were not compared with the base commit, because no history was there.');
+    expect(frozenPlans({ ...context, registry: { entries: [entry('done', 'concluded')] } })).toEqual([]);
   });
 
   it('freezes a draft whose start date has passed, but not one that starts later', async () => {

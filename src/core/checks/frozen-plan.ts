@@ -5,7 +5,7 @@ import type { RegistryEntry } from '../registry/schema.js';
 import type { Check, ReviewContext } from '../review/context.js';
 import type { FieldPath } from '../source/yaml-source.js';
 import type { Finding } from '../review/finding.js';
-import { countOf } from '../report/numbers.js';
+import { countOf, formatCount } from '../report/numbers.js';
 import { collectingSince, hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
 type Raw = Omit<Finding, 'severity'>;
@@ -111,10 +111,13 @@ function deleted(before: RegistryEntry): Raw {
 function baseUnread(context: ReviewContext, why: string): Raw[] {
   const started = context.registry.entries.filter((e) => hasStarted(e, context.today));
   if (started.length === 0) return [];
+  // A large registry: name a few, count the rest.
+  const named = started.slice(0, 5).map((e) => e.id).join(', ');
+  const ids = started.length > 5 ? `${named} and ${formatCount(started.length - 5)} more` : named;
   return [
     {
       code: 'base-unread',
-      message: `The plans of ${countOf(started.length, 'started test')} (${started.map((e) => e.id).join(', ')}) were not compared with the base commit, because ${why}. Changes to what decides their results (plan-frozen, plan-amended, plan-end-moved), deleted plans (plan-deleted), flag reads removed (test-ended-early) and code changed around their flag reads (treatment-changed) could not be checked.`,
+      message: `The plans of ${countOf(started.length, 'started test')} (${ids}) were not compared with the base commit, because ${why}. Changes to what decides their results (plan-frozen, plan-amended, plan-end-moved), deleted plans (plan-deleted), flag reads removed (test-ended-early) and code changed around their flag reads (treatment-changed) could not be checked.`,
       fix: 'Check out the repository with its history (actions/checkout with fetch-depth: 0) so the review reads the base commit with git.',
     },
   ];

@@ -72,10 +72,10 @@ describe('frozen plans', () => {
   it('without the base commit, names the started tests it could not compare (a few, then a count)', () => {
     const entry = (id: string, state: string) => ({ id, state, window: { start: '2026-11-02' }, owners: ['@a'], flags: [id], amendments: [], file: `experiments/${id}.yaml`, line: 1 });
     const entries = [...['a', 'b', 'c', 'd', 'e', 'f', 'g'].map((id) => entry(id, 'live')), entry('done', 'concluded')];
-    const context = { baseUnreadable: 'no history was there', today: TODAY, registry: { entries }, baseEntries: [], invalidPlanFiles: [] } as unknown as ReviewContext;
-    const [found] = frozenPlans(context);
+    const contextOf = (list: readonly object[]) => ({ baseUnreadable: 'no history was there', today: TODAY, registry: { entries: list }, baseEntries: [], invalidPlanFiles: [] }) as unknown as ReviewContext;
+    const [found] = frozenPlans(contextOf(entries));
     expect(found!.message).toContain('The plans of 7 started tests (a, b, c, d, e and 2 more) were not compared with the base commit, because no history was there.');
-    expect(frozenPlans({ ...context, registry: { entries: [entry('done', 'concluded')] } })).toEqual([]);
+    expect(frozenPlans(contextOf([entry('done', 'concluded')]))).toEqual([]);
   });
 
   it('freezes a draft whose start date has passed, but not one that starts later', async () => {

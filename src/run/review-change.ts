@@ -73,7 +73,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   // Loaded once, for both: running tests' plans as they were, and the findings that already held.
   const baseWorkspace = change.baseUnreadable ? Promise.resolve(undefined) : loadBaseWorkspace(change, options.settingsPath);
   baseWorkspace.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
-  const baseEntries = baseWorkspace.then((w) => w?.registry.entries ?? []);
+  // Without the base commit, head's started tests stand in, so the checks that read code at head still run.
+  const baseEntries = change.baseUnreadable ? Promise.resolve(workspace.registry.entries) : baseWorkspace.then((w) => w?.registry.entries ?? []);
   baseEntries.catch(() => undefined);
 
   const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);

@@ -183,8 +183,7 @@ describe('the bundled Action against a fake GitHub', () => {
     github.setPullRequestFiles(7, [{ filename: 'src/new.ts', status: 'added', patch: "@@ -0,0 +1 @@\n+client.getBooleanValue('api-flag', false);" }]);
     const run = await runAction({ github, workspace: repo.root, event });
     expect(run.status).toBe(0);
-    // flag-without-plan, and base-unread: the demo's live test could not be compared with the base commit.
-    expect(run.outputs.warnings).toBe('2');
+    expect(run.outputs.warnings).toBe('1');
     expect(github.comments(7)[0]!.body).toContain('api-flag');
     expect(github.requests.some((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toBe(true);
   });
@@ -198,7 +197,8 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(run.status, run.stdout).toBe(0);
     const body = github.comments(7)[0]!.body;
     expect(body).toContain('base-unread');
-    expect(body).toContain('were not compared with the base commit, because this run read the change through the pull-request files API');
+    expect(body).toContain('The plans of 1 started test this change edits (good) were not compared with the base commit');
+    expect(body).toContain('The base commit was not read because this run read the change through the pull-request files API');
     expect(body).toContain('fetch-depth: 0');
     expect(github.refused).toEqual([]);
   });

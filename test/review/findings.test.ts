@@ -278,9 +278,9 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
   },
   'base-unread': {
     // A started test, and a run that cannot read the base commit (the Action's files-API mode).
-    trigger: { changes: { 'src/cart.ts': CART_CODE_TOUCHED }, baseUnreadable: 'no git history' },
-    // The same run with no started test: there was nothing to compare.
-    nearMiss: { files: baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' } })) }), changes: { 'src/cart.ts': CART_CODE_TOUCHED }, baseUnreadable: 'no git history' },
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } })), baseUnreadable: 'no git history' },
+    // The same run on a change to code only: no plan could have changed (and the code checks read head).
+    nearMiss: { changes: { 'src/cart.ts': CART_CODE_TOUCHED }, baseUnreadable: 'no git history' },
   },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },

@@ -72,10 +72,12 @@ describe('frozen plans', () => {
   it('without the base commit, names the started tests it could not compare (a few, then a count)', () => {
     const entry = (id: string, state: string) => ({ id, state, window: { start: '2026-11-02' }, owners: ['@a'], flags: [id], amendments: [], file: `experiments/${id}.yaml`, line: 1 });
     const entries = [...['a', 'b', 'c', 'd', 'e', 'f', 'g'].map((id) => entry(id, 'live')), entry('done', 'concluded')];
-    const contextOf = (list: readonly object[]) => ({ baseUnreadable: 'no history was there', today: TODAY, registry: { entries: list }, baseEntries: [], invalidPlanFiles: [] }) as unknown as ReviewContext;
+    const contextOf = (list: readonly { file: string }[], deleted: string[] = []) =>
+      ({ baseUnreadable: 'no history was there', today: TODAY, registry: { entries: list }, changedPaths: list.map((e) => e.file), changedCode: deleted.map((path) => ({ path, basePath: path, added: [], removed: [1] })), baseEntries: [], invalidPlanFiles: [] }) as unknown as ReviewContext;
     const [found] = frozenPlans(contextOf(entries));
-    expect(found!.message).toContain('The plans of 7 started tests (a, b, c, d, e and 2 more) were not compared with the base commit, because no history was there.');
+    expect(found!.message).toBe('The plans of 7 started tests this change edits (a, b, c, d, e and 2 more) were not compared with the base commit, so changes to what decides their results (plan-frozen, plan-amended, plan-end-moved) could not be checked. The base commit was not read because no history was there.');
     expect(frozenPlans(contextOf([entry('done', 'concluded')]))).toEqual([]);
+    expect(frozenPlans(contextOf([], ['experiments/old.yaml', 'src/a.ts']))[0]!.message).toContain('This change deletes 1 YAML file (experiments/old.yaml); whether one held a started test');
   });
 
   it('freezes a draft whose start date has passed, but not one that starts later', async () => {

@@ -105,19 +105,26 @@ function deleted(before: RegistryEntry): Raw {
 }
 
 /**
- * When the base commit cannot be read, the checks that compare with it cannot run; silence would read
- * as "nothing changed", so the review says which started tests went unchecked and why.
+ * When the base commit cannot be read, a started test's plan cannot be compared with what it was; silence
+ * would read as "nothing changed", so the review names the started tests whose plan or registry file the
+ * change edits, and the deleted files that may have held one, and says why.
  */
 function baseUnread(context: ReviewContext, why: string): Raw[] {
-  const started = context.registry.entries.filter((e) => hasStarted(e, context.today));
-  if (started.length === 0) return [];
+  const edited = new Set(context.changedPaths);
+  const deleted = context.changedCode.filter((c) => c.head === undefined && !edited.has(c.path) && /\.ya?ml$/i.test(c.basePath)).map((c) => c.basePath);
+  const started = context.registry.entries.filter((e) => hasStarted(e, context.today) && edited.has(e.file));
+  if (started.length === 0 && deleted.length === 0) return [];
   // A large registry: name a few, count the rest.
   const named = started.slice(0, 5).map((e) => e.id).join(', ');
   const ids = started.length > 5 ? `${named} and ${formatCount(started.length - 5)} more` : named;
   return [
     {
       code: 'base-unread',
-      message: `The plans of ${countOf(started.length, 'started test')} (${ids}) were not compared with the base commit, because ${why}. Changes to what decides their results (plan-frozen, plan-amended, plan-end-moved), deleted plans (plan-deleted), flag reads removed (test-ended-early) and code changed around their flag reads (treatment-changed) could not be checked.`,
+      message: [
+        started.length ? `The plans of ${countOf(started.length, 'started test')} this change edits (${ids}) were not compared with the base commit, so changes to what decides their results (plan-frozen, plan-amended, plan-end-moved) could not be checked.` : '',
+        deleted.length ? `This change deletes ${countOf(deleted.length, 'YAML file')} (${deleted.slice(0, 5).join(', ')}${deleted.length > 5 ? ', …' : ''}); whether one held a started test's plan (plan-deleted) could not be checked.` : '',
+        `The base commit was not read because ${why}.`,
+      ].filter(Boolean).join(' '),
       fix: 'Check out the repository with its history (actions/checkout with fetch-depth: 0) so the review reads the base commit with git.',
     },
   ];

@@ -199,6 +199,17 @@ describe('a test ended early', () => {
     expect(ended.dependents).toEqual(['good']);
   });
 
+  it('still sees the last read removed when the base commit cannot be read (files-API mode): head’s started tests stand in', async () => {
+    const repo = makeTwoCommitRepo(baseFiles(), { 'src/cart.ts': hardCoded });
+    made.push(repo.root);
+    const change = await openChange(repo.root, 'main', 'HEAD');
+    const headFiles = change.filesAt('head');
+    const unknown = { listFiles: async () => [], readText: async () => undefined, readTexts: async (paths: readonly string[]) => paths.map(() => undefined) };
+    Object.assign(change, { baseUnreadable: 'no git history', filesAt: (side: 'base' | 'head') => (side === 'base' ? unknown : headFiles) });
+    const outcome = await reviewChange({ change, today: TODAY });
+    expect(outcome.kind === 'review' ? codes(outcome.review) : []).toContain('test-ended-early');
+  });
+
   it('is quiet when another read of the flag remains', async () => {
     const r = await review(baseFiles({ 'src/banner.ts': "export const banner = (client) => client.getBooleanValue('good-flag', false);\n" }), { 'src/cart.ts': hardCoded });
     expect(codes(r)).not.toContain('test-ended-early');

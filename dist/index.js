@@ -3,11 +3,11 @@ import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
   reviewChange
-} from "./chunks/chunk-ATQ7TWY4.js";
-import "./chunks/chunk-SA5MYG7A.js";
+} from "./chunks/chunk-CQQ356OV.js";
+import "./chunks/chunk-UO2WOI25.js";
 import {
   digestRepository
-} from "./chunks/chunk-FT3KTCWV.js";
+} from "./chunks/chunk-HVCQ5NAR.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
 import {
@@ -16,9 +16,9 @@ import {
   mergeDigestBody,
   renderDigestMarkdown
 } from "./chunks/chunk-V3RVVQ3X.js";
-import "./chunks/chunk-LMYLO64G.js";
-import "./chunks/chunk-EWPHPA3J.js";
-import "./chunks/chunk-3F7Z4EK6.js";
+import "./chunks/chunk-QVQLGWFJ.js";
+import "./chunks/chunk-ZQTOZW4X.js";
+import "./chunks/chunk-5EW577CV.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
@@ -35,9 +35,9 @@ import {
 import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-I35W5DNY.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-OQQLI6SK.js";
-import "./chunks/chunk-QSHJDALO.js";
-import "./chunks/chunk-5EY27FK2.js";
+import "./chunks/chunk-AQLSQVCG.js";
+import "./chunks/chunk-YCVBVJ6H.js";
+import "./chunks/chunk-5A7OB2Z6.js";
 import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
@@ -28177,6 +28177,7 @@ ${f.patch}
   const change = {
     base: options.base,
     head: options.head,
+    baseUnreadable: "this run read the change through the pull-request files API (no git history was checked out), which gives patches, not the files at the base commit",
     changedFiles: async () => changed,
     diff: async () => diff,
     filesAt: (side) => side === "head" ? disk : unknown,

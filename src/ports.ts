@@ -42,6 +42,8 @@ export interface ChangeSource {
   streamFiles(side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void): Promise<void>;
   /** Every tracked path at the ref. */
   trackedFiles(side: 'base' | 'head'): Promise<string[]>;
+  /** Set when the files at `base` cannot be read (the pull-request files API gives patches only): why, in a few words. */
+  baseUnreadable?: string;
 }
 
 /** Files at any commit of the repository's history (a plan as it was when its test launched). */

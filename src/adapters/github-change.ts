@@ -26,6 +26,7 @@ export async function openApiChange(options: { github: GitHubPort; pullRequest: 
   const change: ChangeSource = {
     base: options.base,
     head: options.head,
+    baseUnreadable: 'this run read the change through the pull-request files API (no git history was checked out), which gives patches, not the files at the base commit',
     changedFiles: async () => changed,
     diff: async () => diff,
     filesAt: (side) => (side === 'head' ? disk : unknown),

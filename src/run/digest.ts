@@ -4,7 +4,7 @@ import type { Settings } from '../core/config/schema.js';
 import type { Location } from '../core/scan/name-scan.js';
 import { findCalls } from '../core/scan/calls.js';
 import { flagPatternsOf } from '../core/scan/patterns.js';
-import { resolveConstant } from '../core/scan/flag-touches.js';
+import { flagKeyOf } from '../core/scan/flag-touches.js';
 import type { RepoFiles } from '../ports.js';
 import { ownFilesOf, requireWorkspace } from './load-workspace.js';
 
@@ -24,7 +24,7 @@ export async function flagsInCode(files: RepoFiles, settings: Settings, skip: Re
     const text = texts[i];
     if (text === undefined || text.includes('\0')) return;
     for (const site of findCalls(text, path, patterns)) {
-      const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text, site.groups.ident) : undefined);
+      const key = flagKeyOf(text, site);
       if (key && !found.has(key)) found.set(key, { file: path, line: site.valueLine, column: site.column });
     }
   });

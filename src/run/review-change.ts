@@ -56,7 +56,7 @@ async function contextAtBase(base: Workspace | undefined, baseFiles: RepoFiles, 
   });
   // A recorded outcome is checked against its totals at base too, so an unchanged override stays "known".
   await attachReadouts(linked, baseFiles, history ? { history } : {});
-  return { ...head, linked, invalidPlanFiles: [], registry: base.registry, events };
+  return { ...head, linked, invalidPlanFiles: [], fileWarnings: base.problems.filter((p) => p.severity === 'warning'), registry: base.registry, events };
 }
 
 export type ReviewOutcome =
@@ -75,9 +75,10 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const { settings } = workspace;
   // Running tests are compared with their plans at the base commit.
   // Loaded once, for both: running tests' plans as they were, and the findings that already held.
-  const baseWorkspace = loadBaseWorkspace(change, options.settingsPath);
+  const baseWorkspace = change.baseUnreadable ? Promise.resolve(undefined) : loadBaseWorkspace(change, options.settingsPath);
   baseWorkspace.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
-  const baseEntries = baseWorkspace.then((w) => w?.registry.entries ?? []);
+  // Without the base commit, head's started tests stand in, so the checks that read code at head still run.
+  const baseEntries = change.baseUnreadable ? Promise.resolve(workspace.registry.entries) : baseWorkspace.then((w) => w?.registry.entries ?? []);
   baseEntries.catch(() => undefined);
 
   const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
@@ -167,8 +168,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const exposureFiles = [...new Set(linked.flatMap((l) => (l.loaded.plan.exposure.event ? [hits.get(l.loaded.plan.exposure.event)?.firstCall?.file] : [])))].filter((f): f is string => f !== undefined && !codeAtHead.has(f));
   (await head.readTexts(exposureFiles)).forEach((text, i) => text !== undefined && codeAtHead.set(exposureFiles[i]!, text));
   const context: ReviewContext = {
-    settings, pr, linked, invalidPlanFiles, changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
-    changedCode, today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
+    settings, pr, linked, invalidPlanFiles, fileWarnings: workspace.problems.filter((p) => p.severity === 'warning'), changedPaths: [...changedPaths], touches, registry: workspace.registry, events: hits, flagsAtHead: hits, codeAtHead, removedEvents,
+    changedCode, ...(change.baseUnreadable ? { baseUnreadable: change.baseUnreadable } : {}), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
   const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked, options.history);
   const review = buildReview(context, { base: change.base, head: change.head }, baseContext);

@@ -45,6 +45,17 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(github.refused).toEqual([]);
   });
 
+  it('annotates each load warning of a plan it reviews once, as a warning that does not fail the run', async () => {
+    const plan = planYaml(cleanPlan({ id: 'renamed', flags: ['renamed-flag'], state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' }, surface: { path: 'shop/renamed', 'exclusion-group': { name: 'cart-core', slice: { from: 0, to: 50 } } } }));
+    const keyLine = plan.split('\n').findIndex((l) => l.trimStart().startsWith('exclusion-group:')) + 1;
+    const { repo, github, event } = await setup({ 'experiments/renamed.yaml': plan });
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const annotations = run.stdout.split('\n').filter((l) => l.includes('is the old name of'));
+    expect(annotations).toEqual([expect.stringContaining(`::warning title=Plumbline file-warning,file=experiments/renamed.yaml,line=${keyLine}::surface.exclusion-group:`)]);
+    expect(github.comments(7)[0]!.body.match(/is the old name of/g)).toHaveLength(1);
+  });
+
   it('leaves one comment when two runs race', async () => {
     const { repo, github, event } = await setup({ 'src/cart.ts': CART_CODE_TOUCHED });
     await Promise.all([runAction({ github, workspace: repo.root, event }), runAction({ github, workspace: repo.root, event })]);
@@ -175,6 +186,21 @@ describe('the bundled Action against a fake GitHub', () => {
     expect(run.outputs.warnings).toBe('1');
     expect(github.comments(7)[0]!.body).toContain('api-flag');
     expect(github.requests.some((r) => r.operation === 'GET /repos/{owner}/{repo}/pulls/{pull_number}/files')).toBe(true);
+  });
+
+  it('says in the comment that started tests were not compared with the base commit when only the files API is there', async () => {
+    const head = planYaml(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } }));
+    const { repo, github, event } = await setup({ 'experiments/good.yaml': head });
+    rmSync(`${repo.root}/.git`, { recursive: true, force: true });
+    github.setPullRequestFiles(7, [{ filename: 'experiments/good.yaml', status: 'modified', patch: '@@ -24,0 +25 @@\n+  alpha: 0.1' }]);
+    const run = await runAction({ github, workspace: repo.root, event });
+    expect(run.status, run.stdout).toBe(0);
+    const body = github.comments(7)[0]!.body;
+    expect(body).toContain('base-unread');
+    expect(body).toContain('The plans of 1 started test this change edits (good) were not compared with the base commit');
+    expect(body).toContain('The base commit was not read because this run read the change through the pull-request files API');
+    expect(body).toContain('fetch-depth: 0');
+    expect(github.refused).toEqual([]);
   });
 
   it('keeps a huge review under the 65,536-character limit that GitHub enforces with 422', async () => {

@@ -31,6 +31,24 @@ describe('plumbline check', () => {
     expect(JSON.parse(readFileSync(join(r.root, 'report.json'), 'utf8'))).toEqual(printed);
   });
 
+  it('repeats the load warnings of the plans it reviews, once each, as warnings that do not block', () => {
+    const draft = { state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' } };
+    const plan = planYaml(cleanPlan({ ...draft, surface: { path: 'shop/cart', 'exclusion-group': { name: 'cart-core', slice: { from: 0, to: 50 } } } }));
+    const r = repo(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan(draft)) }), { 'experiments/good.yaml': plan, 'src/cart.ts': CART_CODE_TOUCHED });
+    const keyLine = plan.split('\n').findIndex((l) => l.trimStart().startsWith('exclusion-group:')) + 1;
+    const validate = runCli(['-C', r.root, 'validate']);
+    expect(validate.stdout).toContain(`experiments/good.yaml:${keyLine}:3: warning: surface.exclusion-group:`);
+    const text = runCli(['-C', r.root, 'check', '--base', 'main']);
+    expect(text.status).toBe(0);
+    expect(text.stdout.split('\n').filter((l) => l.includes('exclusion-group'))).toEqual([expect.stringContaining(`experiments/good.yaml:${keyLine}: warn  file-warning [good]: surface.exclusion-group: "exclusion-group" is the old name of "traffic-split"`)]);
+    const markdown = runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'markdown']);
+    expect(markdown.stdout.match(/is the old name of/g)).toHaveLength(1);
+    const json = JSON.parse(runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'json']).stdout);
+    const warnings = json.findings.filter((f: { code: string }) => f.code === 'file-warning');
+    expect(warnings).toEqual([expect.objectContaining({ severity: 'warn', plan: 'good', file: 'experiments/good.yaml', line: keyLine })]);
+    expect(warnings[0].message).toContain('plan/renamed-key');
+  });
+
   it('reads the description from --pr-json in GitHub’s pull-request shape', () => {
     const r = repo(baseFiles(), { 'README.md': 'docs\n' });
     const pr = join(r.root, 'pr.json');

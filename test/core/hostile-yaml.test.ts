@@ -1,4 +1,5 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { declaredFlags } from '../../src/core/plan/declared-flags.js';
 import { loadPlan } from '../../src/core/plan/load.js';
 import { loadRegistryFile } from '../../src/core/registry/load.js';
 import { MAX_NESTING_DEPTH } from '../../src/core/source/yaml-source.js';
@@ -22,6 +23,8 @@ describe('nesting past the limit is a plan error where it crosses the limit, nev
   ])('%s', (_, text, line, column) => {
     const error = firstError(text)!;
     expect(error).toMatchObject({ code: 'plan/too-deep', file: 'experiments/x.yaml', line, column });
+    // The path of the deepest key reached, where the nesting passes the limit.
+    expect(error.field).toBe(text.includes('{a: ') ? `title${'.a'.repeat(MAX_NESTING_DEPTH - 1)}` : text.includes('[[') ? `title${'[0]'.repeat(MAX_NESTING_DEPTH - 1)}` : `title${'.k'.repeat(MAX_NESTING_DEPTH - 1)}`);
     expect(error.message).toBe(`lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`);
     expect(JSON.stringify(error)).not.toMatch(/stack|Maximum/i);
   });
@@ -35,6 +38,38 @@ describe('nesting past the limit is a plan error where it crosses the limit, nev
     const result = loadRegistryFile(`experiments:\n  - ${'['.repeat(1000)}1${']'.repeat(1000)}\n`, 'registry.yaml');
     expect(result.ok).toBe(false);
     expect(result.ok ? [] : result.errors.map((e) => e.code)).toEqual(['registry/too-deep']);
+    expect(result.ok ? [] : result.errors.map((e) => e.field)).toEqual([`experiments[0]${'[0]'.repeat(MAX_NESTING_DEPTH - 2)}`]);
+  });
+});
+
+describe('a tag YAML does not know is a located problem, never a warning on stderr', () => {
+  const emitted: unknown[] = [];
+  const listen = (warning: unknown) => emitted.push(warning);
+  beforeEach(() => {
+    emitted.length = 0;
+    process.on('warning', listen);
+  });
+  afterEach(() => {
+    process.off('warning', listen);
+  });
+
+  it.each([
+    ['on a value', 'id: x\ntitle: !custom Cart\n', 2, 8, 'title'],
+    ['in a nested list', 'id: x\nwindow:\n  start: 2026-01-05\nflags:\n  - a\n  - !flag b\n', 6, 5, 'flags[1]'],
+    ['on a mapping', 'id: x\nsurface: !surface\n  path: shop\n', 2, 10, 'surface'],
+  ])('%s', async (_, text, line, column, field) => {
+    const error = firstError(text)!;
+    expect(error).toMatchObject({ code: 'plan/unknown-tag', file: 'experiments/x.yaml', line, column, field });
+    expect(error.message).toMatch(/a value carries a "!" tag this file format does not use/);
+    // Reading a broken plan's flags leniently (for plan-invalid) says nothing either.
+    declaredFlags(text);
+    await new Promise((resolve) => setImmediate(resolve));
+    expect(emitted).toEqual([]);
+  });
+
+  it('keeps the tags YAML itself defines', () => {
+    const result = loadPlan('id: x\ntitle: !!str 12\n', 'experiments/x.yaml');
+    expect(result.ok ? [] : result.errors.map((e) => e.code)).not.toContain('plan/unknown-tag');
   });
 });
 

@@ -14,10 +14,15 @@ const TODAY = '2026-11-16';
 // Many repositories are made; removing them on a busy machine can take longer than the default hook limit.
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 120_000);
 
-async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string): Promise<Review> {
+async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string, baseUnreadable?: string): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const outcome = await reviewChange({ change: await openChange(repo.root, 'main', 'HEAD'), history: historyOf(repo.root), pr, today: today ?? TODAY });
+  const change = await openChange(repo.root, 'main', 'HEAD');
+  // As the Action's files-API mode gives it: the base commit's files cannot be read.
+  const headFiles = change.filesAt('head');
+  const unknown = { listFiles: async () => [], readText: async () => undefined, readTexts: async (paths: readonly string[]) => paths.map(() => undefined) };
+  if (baseUnreadable) Object.assign(change, { baseUnreadable, filesAt: (side: 'base' | 'head') => (side === 'base' ? unknown : headFiles) });
+  const outcome = await reviewChange({ change, history: historyOf(repo.root), pr, today: today ?? TODAY });
   if (outcome.kind !== 'review') throw new Error(JSON.stringify(outcome.problems));
   return outcome.review;
 }
@@ -54,7 +59,7 @@ const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -
 /** The cart with the winning arm hard-coded: the flag read is gone. */
 const HARD_CODED_CART = CART_CODE.replace("if (client.getBooleanValue('good-flag', false)) {", 'if (true) {');
 
-type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo };
+type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo; baseUnreadable?: string };
 
 // For every finding code: a scenario that must raise it, and a near miss that must not.
 const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
@@ -284,6 +289,17 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     // A change to an unrelated function in the same file as a live flag read is not a treatment change.
     nearMiss: { changes: { 'src/cart.ts': `${CART_CODE}\nexport function total(items) {\n  return items.length;\n}\n` } },
   },
+  'file-warning': {
+    // A renamed key loads with a warning (plan/renamed-key), as validate says.
+    trigger: { changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'exclusion-group': { name: 'cart-core', slice: { from: 0, to: 50 } } } })) },
+    nearMiss: { changes: withPlan(cleanPlan({ surface: { path: 'shop/cart', 'traffic-split': { name: 'cart-core', range: { start: 0, end: 50 } } } })) },
+  },
+  'base-unread': {
+    // A started test, and a run that cannot read the base commit (the Action's files-API mode).
+    trigger: { changes: withPlan(cleanPlan({ design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } })), baseUnreadable: 'no git history' },
+    // The same run on a change to code only: no plan could have changed (and the code checks read head).
+    nearMiss: { changes: { 'src/cart.ts': CART_CODE_TOUCHED }, baseUnreadable: 'no git history' },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },
@@ -295,11 +311,11 @@ describe('every finding code is covered by a trigger and a near miss', () => {
 
   describe.each(Object.entries(cases))('%s', (code, { trigger, nearMiss }) => {
     it('raises it', async () => {
-      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...trigger.pr, ...(trigger.body ? { body: trigger.body } : {}) });
+      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...trigger.pr, ...(trigger.body ? { body: trigger.body } : {}) }, undefined, trigger.baseUnreadable);
       expect(r.findings.map((f) => f.code)).toContain(code);
     });
     it('does not raise it on the near miss', async () => {
-      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...nearMiss.pr, ...(nearMiss.body ? { body: nearMiss.body } : {}) });
+      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...nearMiss.pr, ...(nearMiss.body ? { body: nearMiss.body } : {}) }, undefined, nearMiss.baseUnreadable);
       expect(r.findings.map((f) => f.code)).not.toContain(code);
     });
   });

@@ -3,7 +3,10 @@ import { rmSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { openChange } from '../../src/adapters/git.js';
 import type { Review } from '../../src/core/review/build-review.js';
+import { planAnnotations } from '../../src/action/effects.js';
 import { renderReviewMarkdown } from '../../src/core/report/review-markdown.js';
+import { frozenPlans } from '../../src/core/checks/frozen-plan.js';
+import type { ReviewContext } from '../../src/core/review/context.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, cleanPlan, planYaml, CART_CODE, CART_CODE_TOUCHED } from './scenarios.js';
@@ -53,6 +56,30 @@ describe('frozen plans', () => {
     expect(r.verdict).toBe('blocked');
   });
 
+  it('points at the first changed key, not the plan’s id: in the finding, the comment’s link and the annotation', async () => {
+    const head = planYaml(cleanPlan({ window: { start: '2026-11-02', end: '2026-12-27' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 }, decisions: { win: 'Ship.', flat: 'Drop.', loss: 'Ship it anyway.', 'guardrail-breach': 'Stop.' } }));
+    const lineOf = (start: string) => head.split('\n').findIndex((l) => l.trimStart().startsWith(start)) + 1;
+    expect(lineOf('alpha:')).toBeLessThan(lineOf('loss:'));
+    const r = await review(baseFiles(), { 'experiments/good.yaml': head });
+    const frozen = r.findings.find((f) => f.code === 'plan-frozen')!;
+    expect(frozen).toMatchObject({ file: 'experiments/good.yaml', line: lineOf('alpha:') });
+    expect(r.findings.find((f) => f.code === 'plan-end-moved')).toMatchObject({ line: lineOf('end:') });
+    expect(renderReviewMarkdown(r, { linkBase: 'https://github.com/o/r/blob/abc' })).toContain(`experiments/good.yaml#L${lineOf('alpha:')}`);
+    const annotation = planAnnotations(r, { notices: [], warnings: [] }).find((a) => a.properties.title === 'Plumbline plan-frozen');
+    expect(annotation?.properties).toMatchObject({ file: 'experiments/good.yaml', startLine: lineOf('alpha:') });
+  });
+
+  it('without the base commit, names the started tests it could not compare (a few, then a count)', () => {
+    const entry = (id: string, state: string) => ({ id, state, window: { start: '2026-11-02' }, owners: ['@a'], flags: [id], amendments: [], file: `experiments/${id}.yaml`, line: 1 });
+    const entries = [...['a', 'b', 'c', 'd', 'e', 'f', 'g'].map((id) => entry(id, 'live')), entry('done', 'concluded')];
+    const contextOf = (list: readonly { file: string }[], deleted: string[] = []) =>
+      ({ baseUnreadable: 'no history was there', today: TODAY, registry: { entries: list }, changedPaths: list.map((e) => e.file), changedCode: deleted.map((path) => ({ path, basePath: path, added: [], removed: [1] })), baseEntries: [], invalidPlanFiles: [] }) as unknown as ReviewContext;
+    const [found] = frozenPlans(contextOf(entries));
+    expect(found!.message).toBe('The plans of 7 started tests this change edits (a, b, c, d, e and 2 more) were not compared with the base commit, so changes to what decides their results (plan-frozen, plan-amended, plan-end-moved) could not be checked. The base commit was not read because no history was there.');
+    expect(frozenPlans(contextOf([entry('done', 'concluded')]))).toEqual([]);
+    expect(frozenPlans(contextOf([], ['experiments/old.yaml', 'src/a.ts']))[0]!.message).toContain('This change deletes 1 YAML file (experiments/old.yaml); whether one held a started test');
+  });
+
   it('freezes a draft whose start date has passed, but not one that starts later', async () => {
     const draft = (start: string) => cleanPlan({ state: 'draft', window: { start, end: '2026-12-27' } });
     const changeAlpha = (start: string) => ({ 'experiments/good.yaml': planYaml({ ...draft(start), design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 20000, alpha: 0.1 } }) });
@@ -67,6 +94,8 @@ describe('frozen plans', () => {
     expect(codes(r)).not.toContain('plan-frozen');
     const amended = r.findings.find((f) => f.code === 'plan-amended')!;
     expect(amended.severity).toBe('note');
+    // At the amendment that explains the change.
+    expect(amended.line).toBe(planYaml(head).split('\n').findIndex((l) => l.includes('- date: 2026-11-16')) + 1);
     expect(amended.amendment).toEqual(amendment);
     expect(amended.changes).toEqual([{ field: 'design.alpha', before: '0.05', after: '0.1' }]);
     const html = render(renderReviewMarkdown(r, {}));
@@ -88,6 +117,8 @@ describe('frozen plans', () => {
     const files = baseFiles({ '.plumbline.yml': 'registries: [ops/tests.yaml]\n', 'ops/tests.yaml': registry('2026-11-02') });
     const moved = await review(files, { 'ops/tests.yaml': registry('2026-11-09') });
     expect(moved.findings.find((f) => f.code === 'plan-frozen')?.changes).toEqual([{ field: 'window.start', before: '2026-11-02', after: '2026-11-09' }]);
+    // The entry's window line, not its id line.
+    expect(moved.findings.find((f) => f.code === 'plan-frozen')?.line).toBe(7);
     const gone = await review(files, { 'ops/tests.yaml': 'tests: []\n' });
     expect(gone.findings.find((f) => f.code === 'plan-deleted')?.plan).toBe('partner-banner');
   });
@@ -168,6 +199,17 @@ describe('a test ended early', () => {
     expect(ended.dependents).toEqual(['good']);
   });
 
+  it('still sees the last read removed when the base commit cannot be read (files-API mode): head’s started tests stand in', async () => {
+    const repo = makeTwoCommitRepo(baseFiles(), { 'src/cart.ts': hardCoded });
+    made.push(repo.root);
+    const change = await openChange(repo.root, 'main', 'HEAD');
+    const headFiles = change.filesAt('head');
+    const unknown = { listFiles: async () => [], readText: async () => undefined, readTexts: async (paths: readonly string[]) => paths.map(() => undefined) };
+    Object.assign(change, { baseUnreadable: 'no git history', filesAt: (side: 'base' | 'head') => (side === 'base' ? unknown : headFiles) });
+    const outcome = await reviewChange({ change, today: TODAY });
+    expect(outcome.kind === 'review' ? codes(outcome.review) : []).toContain('test-ended-early');
+  });
+
   it('is quiet when another read of the flag remains', async () => {
     const r = await review(baseFiles({ 'src/banner.ts': "export const banner = (client) => client.getBooleanValue('good-flag', false);\n" }), { 'src/cart.ts': hardCoded });
     expect(codes(r)).not.toContain('test-ended-early');
@@ -193,6 +235,17 @@ describe('exposure in every arm', () => {
     expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': null, 'src/cart.py': python }))).toContain('exposure-one-arm');
     const unrelated = "export function cart(client, user, track) {\n  const on = client.getBooleanValue('good-flag', false);\n  if (user.isNew) {\n    track('cart_viewed');\n  }\n  track(on ? 'order_done' : 'cart_error');\n}\n";
     expect(codes(await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': unrelated }))).not.toContain('exposure-one-arm');
+  });
+
+  it('finds the read when its key is held in a constant or the call is split over lines (the flag finder’s own reads)', async () => {
+    const constant = "const FLAG = 'good-flag';\nexport function cart(client, track) {\n  if (client.getBooleanValue(FLAG, false)) {\n    track('cart_viewed');\n  }\n  track('order_done');\n  track('cart_error');\n}\n";
+    const found = (await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': constant })).findings.find((f) => f.code === 'exposure-one-arm');
+    expect(found).toMatchObject({ file: 'src/cart.ts', line: 4 });
+    expect(found!.message).toContain('line 3 `if (client.getBooleanValue(FLAG, false)) {`');
+    const split = "export function cart(client, track) {\n  const on = client\n    .getBooleanValue(\n      'good-flag', false);\n  if (on) {\n    track('cart_viewed');\n  }\n  track('order_done');\n  track('cart_error');\n}\n";
+    expect((await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': split })).findings.find((f) => f.code === 'exposure-one-arm')).toMatchObject({ file: 'src/cart.ts', line: 6 });
+    const go = 'package cart\n\nconst Flag = "good-flag"\n\nfunc Cart(ctx context.Context, client *openfeature.Client) {\n\ton, _ := client.BooleanValue(ctx, Flag, false, evalCtx)\n\tif on {\n\t\tanalytics.Track(ctx, "cart_viewed")\n\t}\n\tanalytics.Track(ctx, "order_done")\n\tanalytics.Track(ctx, "cart_error")\n}\n';
+    expect((await review(baseFiles(), { 'experiments/good.yaml': plan, 'src/cart.ts': null, 'src/cart.go': go })).findings.find((f) => f.code === 'exposure-one-arm')).toMatchObject({ file: 'src/cart.go', line: 8 });
   });
 });
 

@@ -2,6 +2,7 @@ import type { Check } from '../review/context.js';
 import { findCalls } from '../scan/calls.js';
 import { evidenceKindOf } from '../scan/evidence.js';
 import { exposureInOneArm } from '../scan/exposure-branch.js';
+import { flagReadsOf } from '../scan/flag-touches.js';
 import { flagPatternsOf, logPatternsOf } from '../scan/patterns.js';
 
 /**
@@ -20,7 +21,7 @@ export const exposureOneArm: Check = (context) => {
     const keys = new Set(plan.flags);
     return [...context.codeAtHead].flatMap(([path, text]) => {
       if (evidenceKindOf(path) !== 'code' || !text.includes(event)) return [];
-      const reads = findCalls(text, path, flagPatterns).filter((s) => s.groups.key !== undefined && keys.has(s.groups.key));
+      const reads = flagReadsOf(text, path, flagPatterns, keys);
       const exposures = findCalls(text, path, logPatterns).filter((s) => s.groups.event === event);
       return exposureInOneArm(text, path, reads, exposures).map((found) => ({
         code: 'exposure-one-arm',

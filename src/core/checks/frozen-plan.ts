@@ -1,8 +1,11 @@
-import { changedFields, decisiveEntryFields, decisiveFields, showValue, type FieldChange } from '../plan/compare.js';
+import { changedFields, decisiveEntryFields, decisiveFields, showValue, writtenPathOf, type FieldChange } from '../plan/compare.js';
+import { lineOfKey } from '../plan/load.js';
 import type { Amendment } from '../plan/schema.js';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { Check, ReviewContext } from '../review/context.js';
+import type { FieldPath } from '../source/yaml-source.js';
 import type { Finding } from '../review/finding.js';
+import { countOf, formatCount } from '../report/numbers.js';
 import { collectingSince, hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
 type Raw = Omit<Finding, 'severity'>;
@@ -32,8 +35,19 @@ function endMove(before: RegistryEntry, after: RegistryEntry): FieldChange | und
   return { field: 'window.end', before: showValue(was), after: showValue(now) };
 }
 
+/**
+ * Where a finding about changed fields points at head: the first changed key in the file (a removed key:
+ * its nearest written parent), so the annotation lands on the line to put back, not on the plan's id.
+ */
+function atChangedKey(entry: RegistryEntry, fields: readonly FieldPath[]): { plan: string; file: string; line: number } {
+  const { keyLines } = entry;
+  const line = keyLines && fields.length ? Math.min(...fields.map((path) => lineOfKey({ line: entry.line, keyLines }, path))) : entry.line;
+  return { plan: entry.id, file: entry.file, line };
+}
+
 function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): Raw[] {
-  const where = { plan: after.id, file: after.file, line: after.line };
+  const guardrails = after.plan?.metrics.guardrails.map((g) => g.name) ?? [];
+  const at = (changes: readonly FieldChange[]) => atChangedKey(after, changes.map((c) => writtenPathOf(c.field, guardrails)));
   const { added, rewritten } = appendedAmendments(before.amendments, after.amendments);
   const changes = decisiveChanges(before, after, today);
   if (rewritten) changes.push({ field: 'amendments', before: `${before.amendments.length} recorded`, after: 'earlier entries edited or removed' });
@@ -48,7 +62,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
         fix: 'Judge the amendment against the table: a result must not be chosen after seeing data. The readout must say the plan changed on this date.',
         changes: all,
         amendment,
-        ...where,
+        ...atChangedKey(after, [['amendments', after.amendments.length - 1]]),
       },
     ];
   }
@@ -59,7 +73,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
       message: `${after.id} (${ownersOf(after)}) ${startedOn(before)}, and this change alters what decides its result: ${listChanges(changes)}. Changing these after the start lets the result be chosen after the fact.`,
       fix: `Put these fields back as they were. If a change is truly needed, append an entry under amendments: with date, changed and reason (reviewers then see a before/after table), or end ${after.id} and plan a new test.`,
       changes,
-      ...where,
+      ...at(changes),
     });
   }
   if (end) {
@@ -73,7 +87,7 @@ function reviewOne(before: RegistryEntry, after: RegistryEntry, today: string): 
         ? 'Keep the planned end, or record the reason under amendments: and read the result only at the new end.'
         : 'Keep the planned end, plan interim looks with a stopping boundary, or record the reason under amendments:.',
       changes: [end],
-      ...where,
+      ...at([end]),
     });
   }
   return findings;
@@ -90,8 +104,35 @@ function deleted(before: RegistryEntry): Raw {
   };
 }
 
+/**
+ * When the base commit cannot be read, a started test's plan cannot be compared with what it was; silence
+ * would read as "nothing changed", so the review names the started tests whose plan or registry file the
+ * change edits, and the deleted files that may have held one, and says why.
+ */
+function baseUnread(context: ReviewContext, why: string): Raw[] {
+  const edited = new Set(context.changedPaths);
+  const deleted = context.changedCode.filter((c) => c.head === undefined && !edited.has(c.path) && /\.ya?ml$/i.test(c.basePath)).map((c) => c.basePath);
+  const started = context.registry.entries.filter((e) => hasStarted(e, context.today) && edited.has(e.file));
+  if (started.length === 0 && deleted.length === 0) return [];
+  // A large registry: name a few, count the rest.
+  const named = started.slice(0, 5).map((e) => e.id).join(', ');
+  const ids = started.length > 5 ? `${named} and ${formatCount(started.length - 5)} more` : named;
+  return [
+    {
+      code: 'base-unread',
+      message: [
+        started.length ? `The plans of ${countOf(started.length, 'started test')} this change edits (${ids}) were not compared with the base commit, so changes to what decides their results (plan-frozen, plan-amended, plan-end-moved) could not be checked.` : '',
+        deleted.length ? `This change deletes ${countOf(deleted.length, 'YAML file')} (${deleted.slice(0, 5).join(', ')}${deleted.length > 5 ? ', …' : ''}); whether one held a started test's plan (plan-deleted) could not be checked.` : '',
+        `The base commit was not read because ${why}.`,
+      ].filter(Boolean).join(' '),
+      fix: 'Check out the repository with its history (actions/checkout with fetch-depth: 0) so the review reads the base commit with git.',
+    },
+  ];
+}
+
 /** Started tests at the base commit, each compared with the same id at head. */
 export const frozenPlans: Check = (context: ReviewContext) => {
+  if (context.baseUnreadable) return baseUnread(context, context.baseUnreadable);
   const head = new Map(context.registry.entries.map((e) => [e.id, e]));
   const unloadable = new Set(context.invalidPlanFiles.map((f) => f.file));
   return context.baseEntries

@@ -10,6 +10,7 @@ import { eventMissing, eventRemoved } from './logging.js';
 import {
   bundleUnexplained,
   decisionsMissing,
+  fileWarnings,
   guardrailsMissing,
   planInvalid,
   populationChecks,
@@ -26,6 +27,7 @@ import { analysisUnitDiffers, spillover } from './unit.js';
 /** Every check of the pull-request review, in the order their findings are listed. */
 export const CHECKS: readonly Check[] = [
   planInvalid,
+  fileWarnings,
   outcomeRecorded,
   ruleAtLaunch,
   frozenPlans,

@@ -18,6 +18,31 @@ export const planInvalid: Check = ({ invalidPlanFiles }) =>
     };
   });
 
+/** Load warnings that a check of its own already reports, so each is said once. */
+const REPORTED_BY_A_CHECK: ReadonlySet<string> = new Set(['plan/decisions-missing']);
+
+/**
+ * The warnings `plumbline validate` gives for the plans this change is about and the plan or registry
+ * files it edits (a renamed key, a default taken), so the review does not look cleaner than validate.
+ */
+export const fileWarnings: Check = ({ fileWarnings, linked, changedPaths }) => {
+  const planOf = new Map(linked.map(({ loaded }) => [loaded.file, loaded.plan.id]));
+  const inScope = new Set([...planOf.keys(), ...changedPaths]);
+  return fileWarnings
+    .filter((p) => inScope.has(p.file) && !REPORTED_BY_A_CHECK.has(p.code))
+    .map((p) => {
+      const plan = planOf.get(p.file);
+      return {
+        code: 'file-warning',
+        message: `${p.field ? `${p.field}: ` : ''}${p.message} (${p.code})`,
+        fix: p.expected ? `Write ${p.expected}; plumbline validate lists every warning.` : 'See plumbline validate, which lists every warning with what it expects.',
+        ...(plan ? { plan } : {}),
+        file: p.file,
+        line: p.line,
+      };
+    });
+};
+
 /** Every outcome needs a rule written before launch, or any result can be read as a win. */
 export const decisionsMissing: Check = ({ linked }) =>
   linked.flatMap(({ loaded }) => {

@@ -2,12 +2,12 @@ import picomatch from 'picomatch';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { ChangedCode, Check } from '../review/context.js';
 import type { Finding } from '../review/finding.js';
-import { findCalls, lineIndex, lineStarts, type CallSite } from '../scan/calls.js';
+import { lineIndex, lineStarts, type CallSite } from '../scan/calls.js';
 import { blocksOf, enclosing, enclosingFunction } from '../scan/code-blocks.js';
 import { commentsOfText, insideRanges } from '../scan/comments.js';
 import { evidenceKindOf } from '../scan/evidence.js';
 import { DEFAULT_FLAG_FILES } from '../scan/flag-files.js';
-import { resolveConstant } from '../scan/flag-touches.js';
+import { flagReadsOf } from '../scan/flag-touches.js';
 import { flagPatternsOf } from '../scan/patterns.js';
 import { hasOutcome, hasStarted, ownersOf } from './test-lifecycle.js';
 
@@ -39,10 +39,7 @@ function codeLines(text: string, path: string, lines: readonly number[]): Set<nu
 /** The first changed code line near a read of one of `keys` on one side of a file, other than the read itself. */
 function changeNearRead(text: string | undefined, path: string, lines: readonly number[], keys: ReadonlySet<string>, patterns: RegExp[], spread: number): number | undefined {
   if (text === undefined || lines.length === 0) return undefined;
-  const reads = findCalls(text, path, patterns).filter((s) => {
-    const key = s.groups.key ?? (s.groups.ident ? resolveConstant(text, s.groups.ident) : undefined);
-    return key !== undefined && keys.has(key);
-  });
+  const reads = flagReadsOf(text, path, patterns, keys);
   if (reads.length === 0) return undefined;
   const changed = codeLines(text, path, lines);
   for (const read of reads) {

@@ -1,4 +1,5 @@
 import type { RegistryEntry } from '../registry/schema.js';
+import type { FieldPath } from '../source/yaml-source.js';
 import type { Metric, Plan } from './schema.js';
 
 /** One field that differs between the plan at the base commit and at head, shown as written text. */
@@ -74,6 +75,18 @@ export function decisiveEntryFields(entry: RegistryEntry): Fields {
     ['events', entry.events],
     ['traffic-share', entry.trafficShare],
   ]);
+}
+
+/**
+ * The written path of a field as a FieldChange names it. A guardrail is named by its name there
+ * (`metrics.guardrails[errors].tolerance`) and found by its place in the file here; one the plan no
+ * longer has gives the list itself.
+ */
+export function writtenPathOf(field: string, guardrails: readonly string[]): FieldPath {
+  const list = 'metrics.guardrails[';
+  if (!field.startsWith(list)) return field.split('.');
+  const index = guardrails.findIndex((name) => field.startsWith(`${list}${name}].`));
+  return index < 0 ? ['metrics', 'guardrails'] : ['metrics', 'guardrails', index, ...field.slice(list.length + guardrails[index]!.length + 2).split('.')];
 }
 
 /** Fields whose shown value differs, in the order of `before` and then fields only `after` has. */

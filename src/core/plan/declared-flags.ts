@@ -9,7 +9,8 @@ export function declaredFlags(text: string | undefined): string[] {
   if (text === undefined) return [];
   let value: unknown;
   try {
-    value = parse(text, { maxAliasCount: 100, uniqueKeys: false });
+    // Silent: the plan's own load reports what is wrong with it; the yaml package would warn on stderr.
+    value = parse(text, { maxAliasCount: 100, uniqueKeys: false, logLevel: 'silent' });
   } catch {
     return [];
   }

@@ -1,7 +1,8 @@
 import { checkWritten, formatFieldPath } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
 import { runRules } from '../source/rule-context.js';
-import { readYaml, type FieldPath, type YamlLimits, type YamlSource } from '../source/yaml-source.js';
+import { keyLinesOf } from '../source/key-lines.js';
+import { readYaml, type FieldPath, type YamlLimits } from '../source/yaml-source.js';
 import { planJsonSchema } from './json-schema.js';
 import { renamedSurfaceKeys } from './renamed-keys.js';
 import { PLAN_RULES } from './rules.js';
@@ -24,32 +25,12 @@ export interface LoadedPlan {
  * The line a finding about `path` should point at: the key itself when written, else its nearest
  * written parent (a missing `window.end` points at `window:`), else the plan's `id` line.
  */
-export function lineOfKey(loaded: LoadedPlan, path: FieldPath): number {
+export function lineOfKey(loaded: Pick<LoadedPlan, 'line' | 'keyLines'>, path: FieldPath): number {
   for (let depth = path.length; depth > 0; depth--) {
     const line = loaded.keyLines.get(formatFieldPath(path.slice(0, depth)));
     if (line !== undefined) return line;
   }
   return loaded.line;
-}
-
-/** Lines of every key (and list item) in a parsed plan; plans are small, so one walk is cheap. */
-function keyLinesOf(source: YamlSource): Map<string, number> {
-  const lines = new Map<string, number>();
-  const walk = (value: unknown, path: FieldPath) => {
-    if (Array.isArray(value)) {
-      value.forEach((item, index) => {
-        lines.set(formatFieldPath([...path, index]), source.locate([...path, index]).line);
-        walk(item, [...path, index]);
-      });
-    } else if (value !== null && typeof value === 'object') {
-      for (const [key, item] of Object.entries(value)) {
-        lines.set(formatFieldPath([...path, key]), source.locateKey(path, key).line);
-        walk(item, [...path, key]);
-      }
-    }
-  };
-  walk(source.value, []);
-  return lines;
 }
 
 export type PlanLoadResult = { ok: true; loaded: LoadedPlan; warnings: Problem[] } | { ok: false; errors: Problem[]; warnings: Problem[] };

@@ -3,6 +3,7 @@ import type { LoadedPlan } from '../plan/load.js';
 import { renamedSurfaceKeys } from '../plan/renamed-keys.js';
 import { checkWritten, type JsonSchemaNode } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
+import { keyLinesOf } from '../source/key-lines.js';
 import { readYaml, type YamlLimits } from '../source/yaml-source.js';
 import { entryFromPlan, registrySchema, writtenRegistrySchema, type RegistryEntry } from './schema.js';
 
@@ -27,7 +28,7 @@ export function loadRegistryFile(text: string, file: string): RegistryFileResult
   if (!read.ok) return { ok: false, errors: read.problems };
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema, 'registry');
   if (!checked.ok) return { ok: false, errors: checked.problems };
-  const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line }));
+  const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line, keyLines: keyLinesOf(read.source, ['tests', index]) }));
   const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ['tests', index, 'surface']), 'registry');
   return { ok: true, entries, warnings };
 }
@@ -42,7 +43,7 @@ export interface Registry {
  * later file (sorted by path), since collisions and digests key on ids.
  */
 export function buildRegistry(plans: readonly LoadedPlan[], extra: readonly RegistryEntry[]): { registry: Registry; problems: Problem[] } {
-  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line)), ...extra].sort(
+  const candidates = [...plans.map((p) => entryFromPlan(p.plan, p.file, p.line, p.keyLines)), ...extra].sort(
     // Code-unit order, not localeCompare: the same in every locale, and no collator to load at start.
     (a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : a.line - b.line),
   );

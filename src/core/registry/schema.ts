@@ -66,6 +66,8 @@ export interface RegistryEntry {
   /** Where the entry is written. */
   file: string;
   line: number;
+  /** 1-based line of every key the entry writes, by field path within the entry (`window.end`); not for entries made up in code. */
+  keyLines?: ReadonlyMap<string, number>;
   /** The full plan, when the entry comes from a plan file. */
   plan?: Plan;
 }
@@ -93,7 +95,7 @@ export function eventsOfPlan(plan: Plan): string[] {
   return [...new Set(events)];
 }
 
-export function entryFromPlan(plan: Plan, file: string, line: number): RegistryEntry {
+export function entryFromPlan(plan: Plan, file: string, line: number, keyLines?: ReadonlyMap<string, number>): RegistryEntry {
   return {
     id: plan.id,
     title: plan.title,
@@ -108,6 +110,7 @@ export function entryFromPlan(plan: Plan, file: string, line: number): RegistryE
     amendments: plan.amendments,
     file,
     line,
+    ...(keyLines ? { keyLines } : {}),
     plan,
   };
 }

@@ -44,6 +44,8 @@ export interface ReviewContext {
   linked: LinkedPlan[];
   /** Plan files that do not load and that the change adds or edits, or whose flags (`flags`, read leniently) it touches. */
   invalidPlanFiles: { file: string; problems: Problem[]; flags?: string[] }[];
+  /** Warnings from loading every plan and registry file (a renamed key, a default taken), as validate reports them. */
+  fileWarnings: readonly Problem[];
   /** Paths the change adds or edits. */
   changedPaths: string[];
   /** Flags the change touches in code or in flag definition files. */
@@ -63,6 +65,8 @@ export interface ReviewContext {
   flagsAtHead: ReadonlyMap<string, NameHits>;
   /** Plans and registry entries as they were at the base commit, to see what a change does to a started test. */
   baseEntries: readonly RegistryEntry[];
+  /** Set when the base commit's files could not be read: why. Then `baseEntries` is empty and nothing is compared with the base. */
+  baseUnreadable?: string;
 }
 
 export interface ChangedCode {

@@ -30,6 +30,7 @@ export interface Finding {
 export const FINDING_CODES = {
   'flag-without-plan': { severity: 'warn', about: 'a changed feature flag has no plan (and is not exempt)' },
   'plan-invalid': { severity: 'block', about: 'a plan the change touches cannot be loaded' },
+  'file-warning': { severity: 'warn', about: 'a plan the change is about, or a plan or registry file it edits, loads with a warning (a renamed key, a default taken), as validate reports it' },
   'decisions-missing': { severity: 'block', about: 'a decision rule (win, flat, loss, guardrail breach) is not written' },
   'reason-missing': { severity: 'warn', about: 'the hypothesis does not say why the change should work' },
   'guardrails-missing': { severity: 'warn', about: 'no guardrail metric' },
@@ -66,6 +67,7 @@ export const FINDING_CODES = {
   'plan-frozen': { severity: 'block', about: 'a started test’s plan changes what decides its result without an amendment' },
   'plan-amended': { severity: 'note', about: 'a started test’s plan changes what decides its result and records why (shown before and after)' },
   'plan-deleted': { severity: 'block', about: 'the change deletes the plan of a started test that has no outcome' },
+  'base-unread': { severity: 'warn', about: 'the base commit could not be read (the Action’s files-API mode), so the started tests’ plans the change edits or deletes were not compared with it' },
   'plan-end-moved': { severity: 'warn', about: 'a started test’s planned end moves later, or earlier without interim looks' },
   'test-ended-early': { severity: 'block', about: 'the change removes the last read of a started test’s flag before its planned end, with no outcome recorded' },
   'outcome-missing': { severity: 'note', about: 'the change removes the flag of a test past its planned end whose outcome is not recorded' },

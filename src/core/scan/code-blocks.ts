@@ -51,7 +51,23 @@ function braceBlocks(text: string, path: string): Block[] {
 function headerBefore(text: string, open: number): { header: string; headerStart: number } {
   let start = open - 1;
   while (start >= 0 && !';{}'.includes(text[start]!)) start--;
-  return { header: text.slice(start + 1, open).replace(/\s+/g, ' ').trim(), headerStart: start + 1 };
+  const headerStart = controlLineStart(text, start + 1, open);
+  return { header: text.slice(headerStart, open).replace(/\s+/g, ' ').trim(), headerStart };
+}
+
+/**
+ * Languages without semicolons (Go, Kotlin, Swift) end a statement at a new line, so `on := read()` and the
+ * `if on {` under it are two statements: a header starts at the last line that opens with a control keyword,
+ * unless the line before runs on into it (`val x =` then `if (on) {`).
+ */
+function controlLineStart(text: string, from: number, open: number): number {
+  for (let newline = text.lastIndexOf('\n', open - 1); newline >= from; newline = newline > 0 ? text.lastIndexOf('\n', newline - 1) : -1) {
+    if (!CONTROL.test(text.slice(newline + 1, open).trimStart())) continue;
+    const before = text.slice(from, newline).trimEnd();
+    if (before === '') return from;
+    if (!/[([,=&|+\-*/.?:!<>]$/.test(before)) return newline + 1;
+  }
+  return from;
 }
 
 function indentBlocks(text: string): Block[] {

@@ -11,10 +11,35 @@ export interface OneArmExposure {
   condition: { line: number; text: string };
 }
 
-/** The variable a flag read is stored in, when the read is assigned: `const on = client.getBooleanValue(…)`. */
+/**
+ * Where the expression of a flag read starts: back over its receiver chain, which a formatter may split
+ * over lines (`client\n  .getBooleanValue(`, Go's `client.\n\tBooleanValue(`).
+ */
+function receiverStart(text: string, read: CallSite): number {
+  const space = (at: number) => {
+    while (at > 0 && /\s/.test(text.charAt(at - 1))) at--;
+    return at;
+  };
+  let start = read.start;
+  for (;;) {
+    let at = space(start);
+    if (text.charAt(at - 1) !== '.') return start;
+    at = space(at - (text.charAt(at - 2) === '?' ? 2 : 1));
+    let name = at;
+    while (name > 0 && /[\w$]/.test(text.charAt(name - 1))) name--;
+    if (name === at) return start;
+    start = name;
+  }
+}
+
+/**
+ * The variable a flag read is stored in, when the read is assigned: `const on = client.getBooleanValue(…)`,
+ * Go's `on, err := client.BooleanValue(…)` (the first of several results).
+ */
 function assignedName(text: string, read: CallSite): string | undefined {
-  const before = text.slice(text.lastIndexOf('\n', read.start - 1) + 1, read.start);
-  return /(?:^|[^\w$.])([A-Za-z_$][\w$]*)\s*(?::\s*[^=]+)?\s*:?=\s*(?:await\s+)?[\w$.]*$/.exec(before)?.[1];
+  const start = receiverStart(text, read);
+  const before = text.slice(text.lastIndexOf('\n', start - 1) + 1, start);
+  return /(?:^|[^\w$.])([A-Za-z_$][\w$]*)(?:\s*,\s*[A-Za-z_$][\w$]*)*\s*(?::\s*[^=]+)?\s*:?=\s*(?:await\s+)?$/.exec(before)?.[1];
 }
 
 /** The conditions that decide a block: its own, and for an `else` those of the `if` chain before it. */
@@ -45,6 +70,8 @@ export function exposureInOneArm(text: string, path: string, reads: readonly Cal
     return text.slice(start, end === -1 ? text.length : end).trim();
   };
   const at = (offset: number) => ({ line: lineOf(offset), text: lineText(offset) });
+  // A header a formatter split over lines is quoted from its first line, where its keyword is.
+  const headerAt = (b: Block) => b.headerStart + Math.max(0, text.slice(b.headerStart, b.open).search(/\S/));
   const found: OneArmExposure[] = [];
   for (const log of exposures) {
     const fn = enclosingFunction(blocks, log.start);
@@ -57,13 +84,13 @@ export function exposureInOneArm(text: string, path: string, reads: readonly Cal
     const inner = enclosing(blocks, log.start).filter((b) => (!fn || b.open > fn.open) && isControlHeader(b.header));
     const branch = inner.map((b) => conditionsOf(text, blocks, b).find(mentions)).find((b) => b !== undefined);
     if (branch) {
-      found.push({ kind: 'branch', exposure: at(log.start), flag: at(read.start), condition: at(Math.max(branch.headerStart, branch.open - 1)) });
+      found.push({ kind: 'branch', exposure: at(log.start), flag: at(read.start), condition: at(headerAt(branch)) });
       continue;
     }
-    // After an early return that depends on it: `if (variant === 'off') return [];` between the read and the call.
+    // After an early return that depends on it: `if (variant === 'off') return [];` (Go: `if v == "off" {`) between the read and the call.
     const between = text.slice(read.end, log.start);
     const condition = name ?? '';
-    const oneLine = new RegExp(`\\bif\\b[^\\n]*(?<![\\w$.])${condition.replace(/\$/g, '\\$')}(?![\\w$])[^\\n]*?(?:\\)|:)\\s*(?:\\{\\s*)?(?:\\n\\s*)?(?:return|throw|raise)\\b`);
+    const oneLine = new RegExp(`\\bif\\b[^\\n]*(?<![\\w$.])${condition.replace(/\$/g, '\\$')}(?![\\w$])[^\\n]*?(?:\\)|:|(?=\\s*\\{))\\s*(?:\\{\\s*)?(?:\\n\\s*)?(?:return|throw|raise)\\b`);
     const early = name ? oneLine.exec(between) : null;
     if (early) found.push({ kind: 'early-return', exposure: at(log.start), flag: at(read.start), condition: at(read.end + early.index) });
   }

@@ -1,5 +1,5 @@
 import type { FileDiff } from './diff.js';
-import { findCalls, lineStarts } from './calls.js';
+import { findCalls, lineStarts, type CallSite } from './calls.js';
 import { commentsOfText, insideRanges } from './comments.js';
 import { QUOTED_STRING, constantValue } from './patterns.js';
 
@@ -47,7 +47,7 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
           let touched = false;
           for (let line = site.line; line <= site.endLine && !touched; line++) touched = changed.has(line);
           if (!touched) continue;
-          const key = site.groups.key ?? (site.groups.ident ? resolveConstant(text, site.groups.ident) : undefined);
+          const key = flagKeyOf(text, site);
           if (key) add({ key, file, line: site.valueLine, side, via: site.groups.key ? 'call' : 'constant' });
         }
       } else {
@@ -70,6 +70,19 @@ export function findFlagTouches(inputs: FlagTouchInputs): FlagTouch[] {
     }
   }
   return touches;
+}
+
+/** The flag key a call reads: its literal key, or the string its constant holds where the same text defines it. */
+export function flagKeyOf(text: string, site: CallSite): string | undefined {
+  return site.groups.key ?? (site.groups.ident ? resolveConstant(text, site.groups.ident) : undefined);
+}
+
+/** The calls in a text that read one of `keys`, by a literal key or a constant that holds it, split calls included. */
+export function flagReadsOf(text: string, path: string, patterns: readonly RegExp[], keys: ReadonlySet<string>): CallSite[] {
+  return findCalls(text, path, patterns).filter((site) => {
+    const key = flagKeyOf(text, site);
+    return key !== undefined && keys.has(key);
+  });
 }
 
 /** The string a constant holds, looked up where it is defined in the same file (last segment of a dotted name). */

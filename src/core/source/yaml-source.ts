@@ -1,4 +1,5 @@
 import { CST, Composer, LineCounter, Parser, isMap, isPair, isScalar, isSeq, visit, type Document, type Node } from 'yaml';
+import { formatFieldPath } from './check-written.js';
 import { explainYamlError } from './yaml-messages.js';
 import type { Problem, SourceLocation } from './problem.js';
 
@@ -38,9 +39,9 @@ export type YamlReadResult = { ok: true; source: YamlSource } | { ok: false; pro
  * duplicate keys, oversized input and alias bombs all come back as problems, never as a throw.
  */
 export function readYaml(text: string, file: string, limits: YamlLimits, codePrefix: string): YamlReadResult {
-  const fail = (line: number, column: number, code: string, message: string, expected?: string): YamlReadResult => ({
+  const fail = (line: number, column: number, code: string, message: string, expected?: string, field = ''): YamlReadResult => ({
     ok: false,
-    problems: [{ severity: 'error', code: `${codePrefix}/${code}`, file, line, column, field: '', message, ...(expected ? { expected } : {}) }],
+    problems: [{ severity: 'error', code: `${codePrefix}/${code}`, file, line, column, field, message, ...(expected ? { expected } : {}) }],
   });
 
   const bytes = Buffer.byteLength(text, 'utf8');
@@ -51,15 +52,16 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
   const lineCounter = new LineCounter();
   // Parsing to tokens is iterative; composing them into nodes recurses, so nesting is measured in between.
   const tokens = Array.from(new Parser(lineCounter.addNewLine).parse(text));
-  const tooDeepAt = firstOffsetDeeperThan(tokens, MAX_NESTING_DEPTH);
-  if (tooDeepAt !== undefined) {
-    const pos = lineCounter.linePos(tooDeepAt);
+  const tooDeep = firstDeeperThan(tokens, MAX_NESTING_DEPTH);
+  if (tooDeep !== undefined) {
+    const pos = lineCounter.linePos(tooDeep.offset);
     return fail(
       pos.line,
       pos.col,
       'too-deep',
       `lists and mappings here are nested more than ${MAX_NESTING_DEPTH} levels deep`,
       `at most ${MAX_NESTING_DEPTH} levels of nesting (a plan needs about six)`,
+      formatFieldPath(tooDeep.path),
     );
   }
   const composer = new Composer({ prettyErrors: false, uniqueKeys: true, strict: true });
@@ -85,6 +87,14 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
     }
     const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
     return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${explained.message}`, explained.expected);
+  }
+
+  // A tag YAML does not know (`!custom`) would load as plain text; our formats use none, so it is a mistake.
+  const unknownTag = doc.warnings.find((w) => w.code === 'TAG_RESOLVE_FAILED');
+  if (unknownTag) {
+    const pos = lineCounter.linePos(unknownTag.pos[0]);
+    const explained = explainYamlError(unknownTag.code, plainYamlMessage(unknownTag.message));
+    return fail(pos.line, pos.col, 'unknown-tag', explained.message, explained.expected, formatFieldPath(fieldPathAt(doc.contents as Node | null, unknownTag.pos[0])));
   }
 
   // A mapping or list used as a key has no meaning in our formats (and yaml would stringify it).
@@ -164,36 +174,71 @@ function childOf(node: Node | null, segment: string | number): Node | null {
 }
 
 /**
- * The start of the first collection nested deeper than `limit`, walking the token tree with an explicit stack
- * (a recursive walk would hit the very limit this guards).
+ * The start of the first collection nested deeper than `limit`, and the path of keys and list places that
+ * leads to it (the deepest key reached), walking the token tree with an explicit stack (a recursive walk
+ * would hit the very limit this guards). Keys are kept as tokens and read only for the path reported.
  */
-function firstOffsetDeeperThan(tokens: readonly CST.Token[], limit: number): number | undefined {
-  const stack: { token: CST.Token; depth: number }[] = tokens.map((token) => ({ token, depth: 0 }));
-  let first: number | undefined;
+function firstDeeperThan(tokens: readonly CST.Token[], limit: number): { offset: number; path: FieldPath } | undefined {
+  type Step = CST.Token | number;
+  const stack: { token: CST.Token; depth: number; path: readonly Step[] }[] = tokens.map((token) => ({ token, depth: 0, path: [] }));
+  let first: { offset: number; path: readonly Step[] } | undefined;
   while (stack.length > 0) {
-    const { token, depth } = stack.pop()!;
-    const children: (CST.Token | null | undefined)[] = [];
+    const { token, depth, path } = stack.pop()!;
+    const children: { token: CST.Token | null | undefined; path: readonly Step[] }[] = [];
     let childDepth = depth;
     switch (token.type) {
       case 'document':
-        children.push(token.value);
+        children.push({ token: token.value, path });
         break;
       case 'block-map':
       case 'block-seq':
-      case 'flow-collection':
+      case 'flow-collection': {
         childDepth = depth + 1;
         if (childDepth > limit) {
-          first = first === undefined ? token.offset : Math.min(first, token.offset);
+          if (first === undefined || token.offset < first.offset) first = { offset: token.offset, path };
           continue;
         }
-        for (const item of token.items) children.push('key' in item ? item.key : undefined, item.value);
+        const isMapping = token.type === 'block-map' || (token.type === 'flow-collection' && token.start.source === '{');
+        token.items.forEach((item, index) => {
+          const key = 'key' in item ? item.key : undefined;
+          children.push({ token: key, path }, { token: item.value, path: [...path, isMapping && key ? key : index] });
+        });
         break;
+      }
       default:
         break;
     }
-    for (const child of children) if (child) stack.push({ token: child, depth: childDepth });
+    for (const child of children) if (child.token) stack.push({ token: child.token, depth: childDepth, path: child.path });
   }
-  return first;
+  if (!first) return undefined;
+  // A key that is not a plain scalar (or is itself broken) is named by nothing better than "?".
+  const keyName = (key: CST.Token) => CST.resolveAsScalar(key, false, () => undefined)?.value ?? '?';
+  return { offset: first.offset, path: first.path.map((step) => (typeof step === 'number' ? step : keyName(step))) };
+}
+
+/** The path of keys and list places to the node written at `offset` (a tag stands just before its node). */
+function fieldPathAt(root: Node | null, offset: number): FieldPath {
+  const path: (string | number)[] = [];
+  let node = root;
+  while (node && (isMap(node) || isSeq(node))) {
+    const items: unknown[] = node.items;
+    const endOf = (item: unknown): number => {
+      if (isPair(item)) return (item.value as Node | null)?.range?.[1] ?? (item.key as Node | null)?.range?.[1] ?? 0;
+      return (item as Node | null)?.range?.[1] ?? 0;
+    };
+    const index = items.findIndex((item) => endOf(item) > offset);
+    if (index < 0) break;
+    const item = items[index];
+    if (isPair(item)) {
+      path.push(isScalar(item.key) ? String(item.key.value) : index);
+      node = item.value as Node | null;
+    } else {
+      path.push(index);
+      node = item as Node | null;
+    }
+    if (!node?.range || offset < node.range[0]) break;
+  }
+  return path;
 }
 
 /** The yaml package's messages end with a source excerpt; we print our own location instead. */

@@ -98,6 +98,9 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       const options = program.opts<CommonOptions>();
       const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
+      // git starts on the change while this process compiles the review's code (and forks cheaply, its heap still small).
+      const opening = deps.openChange(cwd, flags.base!, flags.head);
+      opening.catch(() => undefined); // awaited below, after the options are checked
       const [{ isCalendarDate }, { renderReviewMarkdown }, { renderReviewText }, { reviewJson }, { reviewChange }] = await Promise.all([
         import('../core/source/fields.js'),
         import('../core/report/review-markdown.js'),
@@ -107,7 +110,7 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       ]);
       if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
-      const change = await deps.openChange(cwd, flags.base!, flags.head);
+      const change = await opening;
       const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;

@@ -46,6 +46,25 @@ describe('first locations of the name scan', () => {
     );
   });
 
+  // Past a few hundred names the automaton's table keeps byte classes instead of one column per byte value.
+  it('gives the same first locations with many names (the compact table) as with few (the wide one)', () => {
+    const filler = Array.from({ length: 400 }, (_, i) => `${i}_filler_name_end`);
+    fc.assert(
+      fc.property(fc.uniqueArray(nameArb, { minLength: 1, maxLength: 8 }), fc.array(textArb, { minLength: 1, maxLength: 5 }), (names, texts) => {
+        const files = texts.map((text, i) => [`f${i}.ts`, Buffer.from(`${text} 7_filler_name_end ${text}`, 'utf8')] as [string, Buffer]);
+        const scanner = createNameScanner([...names, ...filler]);
+        for (const [path, bytes] of files) scanner.scanFile(path, bytes);
+        const results = scanner.results();
+        for (const name of [...names, '7_filler_name_end', '8_filler_name_end']) {
+          const hits = results.get(name)!;
+          expect(hits.first, `first of ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, false));
+          expect(hits.firstQuoted, `first quoted ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, true));
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+
   it('finds a name that only ever occurs inside a longer one, after the longer one is complete', () => {
     const scanner = createNameScanner(['checkout_done', 'out_do', 'checkout']);
     scanner.scanFile('a.ts', Buffer.from('x\n  "checkout_done"\n'));

@@ -82,17 +82,21 @@ export async function benchScan(tree: string | undefined, options: ScanOptions):
           // Verify first locations for a sample of names with a plain indexOf over the files in order.
           const sample = names.filter((_, i) => i % Math.max(1, Math.floor(names.length / 25)) === 0);
           sampled = sample.length;
-          for (const name of sample) {
-            let expected: string | undefined;
-            for (const path of tracked) {
-              const text = readFileSync(join(repo.root, path));
+          // One pass over the files, every sampled name looked for in each until found.
+          const expectedOf = new Map<string, string>();
+          const pending = new Set(sample);
+          for (const path of tracked) {
+            if (pending.size === 0) break;
+            const text = readFileSync(join(repo.root, path));
+            for (const name of pending) {
               const at = text.indexOf(name);
-              if (at >= 0) {
-                const line = text.subarray(0, at).toString('utf8').split('\n').length;
-                expected = `${path}:${line}`;
-                break;
-              }
+              if (at < 0) continue;
+              expectedOf.set(name, `${path}:${text.subarray(0, at).toString('utf8').split('\n').length}`);
+              pending.delete(name);
             }
+          }
+          for (const name of sample) {
+            const expected = expectedOf.get(name);
             const got = result.first[name] as string | undefined;
             if (got !== expected) {
               correct = false;

@@ -30,7 +30,8 @@ const busy = process.argv.includes('--busy');
 const node = flag('node') ?? process.execPath;
 const nodeVersion = execFileSync(node, ['--version'], { encoding: 'utf8' }).trim();
 const scales = (flag('scales') ?? '1,2,4').split(',').map(Number);
-const machine = `${cpus().length} CPUs, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, load ${loadavg().map((l) => l.toFixed(2)).join(' ')}`;
+/** The machine's size and its load average when a heading is printed. */
+const machine = () => `${cpus().length} CPUs, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, load ${loadavg().map((l) => l.toFixed(2)).join(' ')}`;
 const x = (ratio: number) => `${ratio.toFixed(2)}x`;
 
 if (!only || only === 'load') {
@@ -57,7 +58,7 @@ if (!only || only === 'scan') {
   const { benchScan } = await import('./scan.js');
   for (const scale of tree ? [1] : scales) {
     const s = await benchScan(tree, { scale, rounds: Number(flag('rounds') ?? 3), node });
-    console.log(`\nEvent search at ${tree ? 'the given tree' : `${scale}x`}: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of ${flag('rounds') ?? 3} rounds, each a fresh process (${nodeVersion}; ${machine})`);
+    console.log(`\nEvent search at ${tree ? 'the given tree' : `${scale}x`}: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of ${flag('rounds') ?? 3} rounds, each a fresh process (${nodeVersion}; ${machine()})`);
     if (!s.rgAvailable) console.log('  ripgrep (rg) is not installed: apt-get install ripgrep to compare');
     for (const r of s.rows) {
       const searchRatio = r.searchMs / r.rgMs;
@@ -74,7 +75,7 @@ if (!only || only === 'scan') {
 
 if (!only || only === 'start') {
   const { benchStart } = await import('./check.js');
-  console.log(`\nStart-up: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine})`);
+  console.log(`\nStart-up: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine()})`);
   for (const r of benchStart({ rounds, busy, node })) {
     const ratio = r.subjectMs / r.referenceMs;
     if (ratio > r.target) missed++;
@@ -86,7 +87,7 @@ if (!only || only === 'start') {
 if (!only || only === 'check') {
   const { benchCheck } = await import('./check.js');
   const names = Number(flag('names') ?? 50);
-  console.log(`\nThe whole check, head checked out and not (git objects), beside rg -j1 -F -c: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine})`);
+  console.log(`\nThe whole check, head checked out and not (git objects), beside rg -j1 -F -c: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine()})`);
   for (const r of benchCheck({ scales, rounds, names, busy, node })) {
     const co = r.checkedOutMs / r.rgMs;
     const obj = r.objectsMs / r.rgMs;

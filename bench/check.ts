@@ -96,7 +96,7 @@ export interface CheckRow {
   objectsRssMiB?: number;
 }
 
-export function benchCheck(options: { scales: number[]; rounds: number; names: number; busy: boolean }): CheckRow[] {
+export function benchCheck(options: { scales: number[]; rounds: number; names: number; busy: boolean; node: string }): CheckRow[] {
   const rows: CheckRow[] = [];
   const cli = join(process.cwd(), 'dist', 'cli.js');
   for (const scale of options.scales) {
@@ -116,11 +116,11 @@ export function benchCheck(options: { scales: number[]; rounds: number; names: n
         rg: () => timed('rg', ['-j1', '-F', '-c', '-f', namesFile, ...tracked], { cwd: repo.root }),
         checkedOut: () => {
           git('checkout', '-q', 'bench');
-          return timed(process.execPath, checkArgs);
+          return timed(options.node, checkArgs);
         },
         objects: () => {
           git('checkout', '-q', 'main');
-          return timed(process.execPath, checkArgs);
+          return timed(options.node, checkArgs);
         },
       });
       const rss = (r: Timed[]) => (r.every((t) => t.rssKiB !== undefined) ? Math.max(...r.map((t) => t.rssKiB!)) / 1024 : undefined);
@@ -155,7 +155,7 @@ export interface StartRow {
 }
 
 /** Start-up: --version, --help and validate (tiny repository, 2,000 plans) beside `node -e 0` and reading + parsing. */
-export function benchStart(options: { rounds: number; busy: boolean }): StartRow[] {
+export function benchStart(options: { rounds: number; busy: boolean; node: string }): StartRow[] {
   const cli = join(process.cwd(), 'dist', 'cli.js');
   const tiny = mkdtempSync(join(tmpdir(), 'plumbline-tiny-'));
   const many = mkdtempSync(join(tmpdir(), 'plumbline-plans-'));
@@ -169,7 +169,7 @@ export function benchStart(options: { rounds: number; busy: boolean }): StartRow
     readParse,
     `import { readdirSync, readFileSync } from 'node:fs';\nimport YAML from ${JSON.stringify(join(process.cwd(), 'node_modules', 'yaml', 'dist', 'index.js'))};\nconst dir = ${JSON.stringify(join(many, 'experiments'))};\nfor (const f of readdirSync(dir)) YAML.parse(readFileSync(dir + '/' + f, 'utf8'));\n`,
   );
-  const node = (...args: string[]) => () => timed(process.execPath, args);
+  const node = (...args: string[]) => () => timed(options.node, args);
   const stopBusy = options.busy ? startBusy() : () => undefined;
   try {
     const r = interleave(options.rounds, {

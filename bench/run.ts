@@ -1,4 +1,6 @@
 // `npm run bench`: every benchmark, each reported beside a reference measured in the same run.
+import { execFileSync } from 'node:child_process';
+import { cpus, loadavg, totalmem } from 'node:os';
 import { benchPlanLoading } from './load-plans.js';
 import { benchSizing } from './size-plans.js';
 
@@ -24,6 +26,12 @@ const flag = (name: string) => {
 };
 const rounds = Number(flag('rounds') ?? 5);
 const busy = process.argv.includes('--busy');
+/** `--node /path/to/node`: run Plumbline (and the `node -e 0` reference) with another Node, e.g. Node 24. */
+const node = flag('node') ?? process.execPath;
+const nodeVersion = execFileSync(node, ['--version'], { encoding: 'utf8' }).trim();
+const scales = (flag('scales') ?? '1,2,4').split(',').map(Number);
+/** The machine's size and its load average when a heading is printed. */
+const machine = () => `${cpus().length} CPUs, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, load ${loadavg().map((l) => l.toFixed(2)).join(' ')}`;
 const x = (ratio: number) => `${ratio.toFixed(2)}x`;
 
 if (!only || only === 'load') {
@@ -48,25 +56,27 @@ process.exitCode = missed ? 1 : 0;
 
 if (!only || only === 'scan') {
   const { benchScan } = await import('./scan.js');
-  const s = await benchScan(tree);
-  console.log(`\nEvent search: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of 3 runs, each a fresh process`);
-  if (!s.rgAvailable) console.log('  ripgrep (rg) is not installed: apt-get install ripgrep to compare');
-  for (const r of s.rows) {
-    const searchRatio = r.searchMs / r.rgMs;
-    const checkRatio = r.checkMs / r.rgMs;
-    const searchTarget = r.names === 50 ? 3 : 2;
-    const rss = r.checkRss / 1024;
-    const ok = searchRatio <= searchTarget && checkRatio <= 3 && (r.names !== 2000 || rss < 150) && r.correct;
-    if (!ok) missed++;
-    console.log(`  ${String(r.names).padStart(4)} names: rg -j1 -F -c ${r.rgMs.toFixed(0)} ms | search ${r.searchMs.toFixed(0)} ms (${searchRatio.toFixed(2)}x, target ${searchTarget}x) | plumbline check ${r.checkMs.toFixed(0)} ms (${checkRatio.toFixed(2)}x, target 3x) | peak RSS search ${(r.searchRss / 1024).toFixed(0)} MiB, check ${rss.toFixed(0)} MiB | first locations ${r.correct ? 'correct' : 'WRONG'} (${r.sampled} sampled) ${ok ? 'met' : 'MISSED'}`);
+  for (const scale of tree ? [1] : scales) {
+    const s = await benchScan(tree, { scale, rounds: Number(flag('rounds') ?? 3), node });
+    console.log(`\nEvent search at ${tree ? 'the given tree' : `${scale}x`}: ${s.files.toLocaleString('en')} tracked files, ${s.megabytes.toFixed(0)} MB; median of ${flag('rounds') ?? 3} rounds, each a fresh process (${nodeVersion}; ${machine()})`);
+    if (!s.rgAvailable) console.log('  ripgrep (rg) is not installed: apt-get install ripgrep to compare');
+    for (const r of s.rows) {
+      const searchRatio = r.searchMs / r.rgMs;
+      const checkRatio = r.checkMs / r.rgMs;
+      const searchTarget = r.names === 50 ? 3 : 2;
+      const rss = r.checkRss / 1024;
+      const ok = searchRatio <= searchTarget && checkRatio <= 3 && (r.names !== 2000 || rss <= 150) && r.correct;
+      if (!ok) missed++;
+      console.log(`  ${String(r.names).padStart(4)} names: rg -j1 -F -c ${r.rgMs.toFixed(0)} ms | search ${r.searchMs.toFixed(0)} ms (${searchRatio.toFixed(2)}x, target ${searchTarget}x) | plumbline check ${r.checkMs.toFixed(0)} ms (${checkRatio.toFixed(2)}x, target 3x) | peak RSS search ${(r.searchRss / 1024).toFixed(0)} MiB, check ${rss.toFixed(0)} MiB${r.names === 2000 ? ' (target 150)' : ''} | first locations ${r.correct ? 'correct' : 'WRONG'} (${r.sampled} sampled) ${ok ? 'met' : 'MISSED'}`);
+    }
   }
   process.exitCode = missed ? 1 : 0;
 }
 
 if (!only || only === 'start') {
   const { benchStart } = await import('./check.js');
-  console.log(`\nStart-up: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (Node ${process.version})`);
-  for (const r of benchStart({ rounds, busy })) {
+  console.log(`\nStart-up: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine()})`);
+  for (const r of benchStart({ rounds, busy, node })) {
     const ratio = r.subjectMs / r.referenceMs;
     if (ratio > r.target) missed++;
     console.log(`  ${r.what.padEnd(36)} ${r.subjectMs.toFixed(0).padStart(6)} ms | ${r.reference} ${r.referenceMs.toFixed(0)} ms | ${x(ratio)} (target ${r.target}x) ${ratio <= r.target ? 'met' : 'MISSED'}`);
@@ -76,10 +86,9 @@ if (!only || only === 'start') {
 
 if (!only || only === 'check') {
   const { benchCheck } = await import('./check.js');
-  const scales = (flag('scales') ?? '1,2,4').split(',').map(Number);
   const names = Number(flag('names') ?? 50);
-  console.log(`\nThe whole check, head checked out and not (git objects), beside rg -j1 -F -c: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''}`);
-  for (const r of benchCheck({ scales, rounds, names, busy })) {
+  console.log(`\nThe whole check, head checked out and not (git objects), beside rg -j1 -F -c: median of ${rounds} interleaved rounds${busy ? ', one CPU-bound process competing' : ''} (${nodeVersion}; ${machine()})`);
+  for (const r of benchCheck({ scales, rounds, names, busy, node })) {
     const co = r.checkedOutMs / r.rgMs;
     const obj = r.objectsMs / r.rgMs;
     const paths = r.objectsMs / r.checkedOutMs;

@@ -99,7 +99,8 @@ export function scanRepo(scale = 1): ScanRepo {
   const git = (...args: string[]) => execFileSync('git', args, { cwd: root, stdio: 'pipe', env: { ...process.env, GIT_AUTHOR_NAME: 'b', GIT_AUTHOR_EMAIL: 'b@b.invalid', GIT_COMMITTER_NAME: 'b', GIT_COMMITTER_EMAIL: 'b@b.invalid' } });
   git('init', '-q', '-b', 'main');
   git('add', '-A');
-  git('commit', '-q', '-m', 'generated');
+  // No automatic gc in the background: it would hold the lock the packing below needs.
+  git('-c', 'gc.auto=0', 'commit', '-q', '-m', 'generated');
   // Packed, as a clone or a CI checkout has it (loose objects would make every read a file open).
   git('gc', '-q');
   writeFileSync(join(root, '.done'), String(bytes));

@@ -26,12 +26,21 @@ function checkOutPlanBranch(root: string, names: readonly string[]): void {
 export interface ScanFigures {
   files: number;
   megabytes: number;
+  scale: number;
   rows: { names: number; rgMs: number; searchMs: number; checkMs: number; searchRss: number; checkRss: number; correct: boolean; sampled: number }[];
   rgAvailable: boolean;
 }
 
-export async function benchScan(tree?: string): Promise<ScanFigures> {
-  const repo = tree ? givenTree(tree) : scanRepo();
+export interface ScanOptions {
+  /** Multiple of the generated tree (ignored for a given tree). */
+  scale: number;
+  rounds: number;
+  /** The Node binary that runs Plumbline (default: this one). */
+  node: string;
+}
+
+export async function benchScan(tree: string | undefined, options: ScanOptions): Promise<ScanFigures> {
+  const repo = tree ? givenTree(tree) : scanRepo(options.scale);
   const tracked = execFileSync('git', ['ls-files', '-z'], { cwd: repo.root, encoding: 'utf8', maxBuffer: 1 << 26 }).split('\0').filter(Boolean);
   const rgAvailable = spawnSync('rg', ['--version']).status === 0;
   const startBranch = execFileSync('git', ['rev-parse', '--abbrev-ref', 'HEAD'], { cwd: repo.root, encoding: 'utf8' }).trim();
@@ -57,33 +66,37 @@ export async function benchScan(tree?: string): Promise<ScanFigures> {
       let checkRss = 0;
       let correct = true;
       let sampled = 0;
-      for (let round = 0; round < 3; round++) {
+      for (let round = 0; round < options.rounds; round++) {
         if (rgAvailable) rgTimes.push(wall('rg', ['-j1', '-F', '-c', '-f', namesFile, ...tracked], { cwd: repo.root }).ms);
-        const search = wall(process.execPath, [child, 'search', repo.root, namesFile]);
+        const search = wall(options.node, [child, 'search', repo.root, namesFile]);
         const result = JSON.parse(search.stdout);
         searchTimes.push(search.ms);
         searchRss = Math.max(searchRss, result.maxRssKiB);
         checkOutPlanBranch(repo.root, names);
-        const check = wall(process.execPath, ['dist/cli.js', '-C', repo.root, 'check', '--base', startBranch, '--head', 'bench', '--format', 'json']);
+        const check = wall(options.node, ['dist/cli.js', '-C', repo.root, 'check', '--base', startBranch, '--head', 'bench', '--format', 'json']);
         if (check.status !== 0) throw new Error(`check exited ${check.status}`);
         checkTimes.push(check.ms);
-        checkRss = Math.max(checkRss, JSON.parse(wall(process.execPath, [child, 'check', repo.root, namesFile, startBranch]).stdout).maxRssKiB);
+        checkRss = Math.max(checkRss, JSON.parse(wall(options.node, [child, 'check', repo.root, namesFile, startBranch]).stdout).maxRssKiB);
         execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root });
         if (round === 0) {
           // Verify first locations for a sample of names with a plain indexOf over the files in order.
           const sample = names.filter((_, i) => i % Math.max(1, Math.floor(names.length / 25)) === 0);
           sampled = sample.length;
-          for (const name of sample) {
-            let expected: string | undefined;
-            for (const path of tracked) {
-              const text = readFileSync(join(repo.root, path));
+          // One pass over the files, every sampled name looked for in each until found.
+          const expectedOf = new Map<string, string>();
+          const pending = new Set(sample);
+          for (const path of tracked) {
+            if (pending.size === 0) break;
+            const text = readFileSync(join(repo.root, path));
+            for (const name of pending) {
               const at = text.indexOf(name);
-              if (at >= 0) {
-                const line = text.subarray(0, at).toString('utf8').split('\n').length;
-                expected = `${path}:${line}`;
-                break;
-              }
+              if (at < 0) continue;
+              expectedOf.set(name, `${path}:${text.subarray(0, at).toString('utf8').split('\n').length}`);
+              pending.delete(name);
             }
+          }
+          for (const name of sample) {
+            const expected = expectedOf.get(name);
             const got = result.first[name] as string | undefined;
             if (got !== expected) {
               correct = false;
@@ -98,5 +111,5 @@ export async function benchScan(tree?: string): Promise<ScanFigures> {
     rmSync(work, { recursive: true, force: true });
     execFileSync('git', ['checkout', '-q', startBranch], { cwd: repo.root });
   }
-  return { files: tracked.length, megabytes: repo.bytes / (1024 * 1024), rows, rgAvailable };
+  return { scale: options.scale, files: tracked.length, megabytes: repo.bytes / (1024 * 1024), rows, rgAvailable };
 }

@@ -2,23 +2,14 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
-  reviewChange
-} from "./chunks/chunk-CQQ356OV.js";
-import "./chunks/chunk-UO2WOI25.js";
-import {
-  digestRepository
-} from "./chunks/chunk-HVCQ5NAR.js";
-import "./chunks/chunk-XZ7PS274.js";
-import "./chunks/chunk-G6K6KKMR.js";
+  reviewJson
+} from "./chunks/chunk-B4AG7LHN.js";
 import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
 } from "./chunks/chunk-V3RVVQ3X.js";
-import "./chunks/chunk-QVQLGWFJ.js";
-import "./chunks/chunk-ZQTOZW4X.js";
-import "./chunks/chunk-5EW577CV.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
@@ -30,13 +21,22 @@ import "./chunks/chunk-HYEQ4ILC.js";
 import "./chunks/chunk-35APDGCM.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
-  reviewJson
-} from "./chunks/chunk-B4AG7LHN.js";
-import "./chunks/chunk-V65C5FSR.js";
+  reviewChange
+} from "./chunks/chunk-S4J25R2Z.js";
+import "./chunks/chunk-LMP7IQSR.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-B52SKDPA.js";
 import "./chunks/chunk-AQLSQVCG.js";
+import {
+  digestRepository
+} from "./chunks/chunk-3BFJRFFT.js";
+import "./chunks/chunk-XZ7PS274.js";
+import "./chunks/chunk-G6K6KKMR.js";
+import "./chunks/chunk-ZML6UJ4Q.js";
+import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-YCVBVJ6H.js";
+import "./chunks/chunk-ZQTOZW4X.js";
+import "./chunks/chunk-B52SKDPA.js";
+import "./chunks/chunk-5EW577CV.js";
 import "./chunks/chunk-5A7OB2Z6.js";
 import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
@@ -49,7 +49,7 @@ import "./chunks/chunk-PDUGBP5Q.js";
 import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-V42Y4S7O.js";
+} from "./chunks/chunk-C5KWBIAU.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,

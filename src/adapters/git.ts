@@ -75,23 +75,47 @@ async function resolveEnds(cwd: string, baseRef: string, headRef: string): Promi
   return { head, baseTip, checkedOut };
 }
 
+/**
+ * Which tracked files at a commit the working tree holds byte for byte: those the commit shares with
+ * what is checked out (`differs` lists the rest, from `git diff-tree`) and the working tree does not
+ * change (`dirty`, from `git diff HEAD`). Undefined when there is no working tree to read.
+ */
+interface WorkingTreeView {
+  dirty: ReadonlySet<string>;
+  differs: ReadonlySet<string>;
+}
+
+const nulList = (out: Buffer) => new Set(out.toString('utf8').split('\0').filter(Boolean));
+
 /** Opens the change base...head: from their merge base to head, as a pull request shows it. */
 export async function openChange(repoDir: string, baseRef: string, headRef: string): Promise<ChangeSource> {
+  // Started together, so git works on all three while the first answers: the ends, their merge base
+  // (git resolves the refs itself; asked again by id below if this fails), and which tracked files
+  // the working tree changes (it fails where there is no checkout: then nothing is read from disk).
+  const speculative = !baseRef.startsWith('-') && !headRef.startsWith('-');
+  const mergeBaseOfRefs = speculative ? runGit(repoDir, ['merge-base', baseRef, headRef], { allow: [1] }).catch(() => undefined) : Promise.resolve(undefined);
+  const dirtyPaths = runGit(repoDir, ['diff', '--name-only', '-z', '--no-renames', 'HEAD', '--']).then(nulList, () => undefined);
   const { head, baseTip, checkedOut } = await resolveEnds(repoDir, baseRef, headRef);
-  const mergeBase = (await runGit(repoDir, ['merge-base', baseTip, head], { allow: [1] })).toString('utf8').trim();
+  const mergeBase = ((await mergeBaseOfRefs) ?? (await runGit(repoDir, ['merge-base', baseTip, head], { allow: [1] }))).toString('utf8').trim();
   const base = mergeBase || baseTip;
   const commitOf = (side: 'base' | 'head') => (side === 'base' ? base : head);
 
-  // When head is what is checked out and no tracked file differs from it (the usual case in CI),
-  // its files are read straight from the working tree, which is faster than inflating objects.
-  const checkedOutIsHead = (async () => {
-    if (checkedOut !== head) return false;
-    // Exit code 1: some tracked file differs from HEAD.
-    return runGit(repoDir, ['diff', '--quiet', 'HEAD', '--']).then(
-      () => true,
-      () => false,
-    );
-  })();
+  // Head's files that are the same bytes in the working tree are read from disk, which is faster
+  // than inflating objects: all of them when head is checked out clean (the usual case in CI), and
+  // all but those head does not share with the checkout otherwise (actions/checkout's default, the
+  // merge commit, differs from head only where the base moved on).
+  const headView: Promise<WorkingTreeView | undefined> = dirtyPaths.then(async (dirty) => {
+    if (!dirty || !checkedOut) return undefined;
+    if (checkedOut === head) return { dirty, differs: new Set<string>() };
+    const differs = await runGit(repoDir, ['diff-tree', '-r', '-z', '--no-renames', '--name-only', checkedOut, head]).then(nulList, () => undefined);
+    return differs ? { dirty, differs } : undefined;
+  });
+  const checkedOutIsHead = headView.then((view) => view !== undefined && view.differs.size === 0 && view.dirty.size === 0 && checkedOut === head);
+  const onDisk = async (side: 'base' | 'head'): Promise<((path: string) => boolean) | undefined> => {
+    const view = side === 'head' ? await headView : undefined;
+    return view ? (path) => !view.dirty.has(path) && !view.differs.has(path) : undefined;
+  };
+
   const listings = new Map<string, Promise<TreeListing>>();
   const listingOf = (commit: string) => {
     let listing = listings.get(commit);
@@ -114,39 +138,69 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
     }
     return cached;
   };
+  // One folder at the base (plans, registries): a listing of that folder only, not of the whole tree.
+  const folderListings = new Map<string, Promise<string[]>>();
+  const filesBelow = (side: 'base' | 'head', prefix: string) => {
+    const commit = commitOf(side);
+    if (prefix === '' || side === 'head' || listings.has(commit)) return trackedFiles(side).then((all) => all.filter((p) => p.startsWith(prefix)));
+    const key = `${commit}\0${prefix}`;
+    let cached = folderListings.get(key);
+    if (!cached) {
+      cached = runGit(repoDir, ['--literal-pathspecs', 'ls-tree', '-r', '-l', '-z', '--full-tree', commit, '--', prefix]).then((out) => parseTreeListing(out).paths.filter((p) => p.startsWith(prefix)));
+      folderListings.set(key, cached);
+    }
+    return cached;
+  };
 
   const streamFiles = async (side: 'base' | 'head', paths: readonly string[], onFile: (path: string, bytes: Buffer) => void) => {
-    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTree(repoDir, paths, onFile, { codeOnly: true });
+    if (side === 'head' && (await checkedOutIsHead)) return readWorkingTreeSync(repoDir, paths, onFile, { codeOnly: true });
     // Blob ids and sizes from one listing: git then reads each object directly instead of walking
     // trees per path, and files too large to be code are never asked for.
-    const listing = await listingOf(commitOf(side));
+    const [listing, fromDisk] = await Promise.all([listingOf(commitOf(side)), onDisk(side)]);
     const requests: BlobRequest[] = [];
+    const wanted: { path: string; disk: boolean }[] = [];
     for (const path of paths) {
       const blob = listing.blobs.get(path);
-      if (blob && blob.size <= MAX_SCANNED_FILE_BYTES) requests.push({ path, spec: blob.oid });
+      if (!blob || blob.size > MAX_SCANNED_FILE_BYTES) continue;
+      const disk = fromDisk?.(path) ?? false;
+      wanted.push({ path, disk });
+      if (!disk) requests.push({ path, spec: blob.oid, at: wanted.length - 1 });
     }
-    return catFiles(repoDir, requests, onFile, { skipBinary: true });
+    // Files read from disk are handed on between the objects, so every file still comes in path order.
+    let next = 0;
+    const diskUpTo = (end: number) => {
+      const run: string[] = [];
+      for (; next < end; next++) if (wanted[next]!.disk) run.push(wanted[next]!.path);
+      if (run.length) readWorkingTreeSync(repoDir, run, onFile, { codeOnly: true });
+    };
+    await catFiles(repoDir, requests, (path, bytes, request) => {
+      diskUpTo(request.at!);
+      next = request.at! + 1;
+      onFile(path, bytes);
+    }, { skipBinary: true });
+    diskUpTo(wanted.length);
   };
 
   const filesAt = (side: 'base' | 'head'): RepoFiles => {
     const readTexts = async (paths: readonly string[]) => {
       const found = new Map<string, string>();
       const keep = (path: string, bytes: Buffer) => found.set(path, bytes.toString('utf8'));
-      if (side === 'head' && (await checkedOutIsHead)) {
-        // Only tracked paths: an untracked file in the checkout is not part of head.
-        const tracked = new Set(await trackedFiles('head'));
-        await readWorkingTree(repoDir, paths.filter((p) => tracked.has(p)), keep, { codeOnly: false });
-      } else {
-        // A few named files: git resolves each path itself, so no listing of the whole tree is needed.
-        const requests = paths.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
-        await catFiles(repoDir, requests, keep, { skipBinary: false });
-      }
+      const fromDisk = await onDisk(side);
+      // Only tracked paths come from disk: an untracked file in the checkout is not part of head.
+      // A path the listing does not hold is not in the commit at all.
+      const tracked = fromDisk ? new Set(await trackedFiles(side)) : undefined;
+      const disk = tracked ? paths.filter((p) => tracked.has(p) && fromDisk!(p)) : [];
+      const fromGit = tracked ? paths.filter((p) => tracked.has(p) && !fromDisk!(p)) : paths;
+      // The rest, a few named files: git resolves each path itself, so no listing of the whole tree is needed.
+      const requests = fromGit.map((path) => ({ path, spec: `${commitOf(side)}:${path}` }));
+      readWorkingTreeSync(repoDir, disk, keep, { codeOnly: false });
+      await catFiles(repoDir, requests, keep, { skipBinary: false });
       return paths.map((p) => found.get(p));
     };
     return {
       async listFiles(folder) {
         const prefix = folder === '' || folder === '.' ? '' : `${folder.replace(/\/+$/, '')}/`;
-        return (await trackedFiles(side)).filter((p) => p.startsWith(prefix));
+        return filesBelow(side, prefix);
       },
       async readText(path) {
         return (await readTexts([path]))[0];
@@ -222,6 +276,8 @@ interface BlobRequest {
   path: string;
   /** What `git cat-file --batch` is asked for: a blob id, or "<commit>:<path>". */
   spec: string;
+  /** The caller's own position for the file, handed back with its bytes. */
+  at?: number;
 }
 
 /**
@@ -233,7 +289,7 @@ interface BlobRequest {
  * 8,000 bytes hold a NUL is dropped as soon as that is known, its remaining bytes never copied.
  * The bytes passed to `onFile` are valid only during the call.
  */
-function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: string, bytes: Buffer) => void, options: { skipBinary: boolean }): Promise<void> {
+function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: string, bytes: Buffer, request: BlobRequest) => void, options: { skipBinary: boolean }): Promise<void> {
   // The batch protocol is line-based: a spec holding a newline cannot be asked for.
   const asked = requests.filter((r) => !r.spec.includes('\n'));
   if (asked.length === 0) return Promise.resolve();
@@ -277,7 +333,7 @@ function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: 
           // A whole object inside this chunk goes on without a copy.
           if (deliver && at + size < chunk.length && chunk[at + size] === 10) {
             const bytes = chunk.subarray(at, at + size);
-            if (probed || !looksBinaryStart(bytes)) onFile(asked[index]!.path, bytes);
+            if (probed || !looksBinaryStart(bytes)) onFile(asked[index]!.path, bytes, asked[index]!);
             at += size + 1;
             index++;
             remaining = -1;
@@ -304,7 +360,7 @@ function catFiles(cwd: string, requests: readonly BlobRequest[], onFile: (path: 
         }
         // remaining === 0: the newline after the object.
         at++;
-        if (deliver) onFile(asked[index]!.path, spill.subarray(0, size));
+        if (deliver) onFile(asked[index]!.path, spill.subarray(0, size), asked[index]!);
         index++;
         remaining = -1;
       }
@@ -342,22 +398,24 @@ function looksBinaryStart(bytes: Buffer): boolean {
  * With `codeOnly`, skips what the objects path skips for the scan: symbolic links (never
  * followed), files over the size limit, and files whose first 8,000 bytes hold a NUL.
  */
-async function readWorkingTree(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void, options: { codeOnly: boolean }): Promise<void> {
-  let buffer = Buffer.allocUnsafe(1 << 20);
+let readBuffer = Buffer.allocUnsafe(1 << 20);
+
+/** Synchronous reads, one file after another: a thread-pool round trip per call would cost more than the read. */
+function readWorkingTreeSync(root: string, paths: readonly string[], onFile: (path: string, bytes: Buffer) => void, options: { codeOnly: boolean }): void {
   for (const path of paths) {
     let fd: number | undefined;
     try {
       fd = openSync(join(root, path), options.codeOnly ? NO_FOLLOW_READ : 'r');
       const size = fstatSync(fd).size;
       if (options.codeOnly && size > MAX_SCANNED_FILE_BYTES) continue;
-      if (size > buffer.length) buffer = Buffer.allocUnsafe(Math.max(size, buffer.length * 2));
+      if (size > readBuffer.length) readBuffer = Buffer.allocUnsafe(Math.max(size, readBuffer.length * 2));
       let read = 0;
       while (read < size) {
-        const n = readSync(fd, buffer, read, size - read, read);
+        const n = readSync(fd, readBuffer, read, size - read, read);
         if (n === 0) break;
         read += n;
       }
-      const bytes = buffer.subarray(0, read);
+      const bytes = readBuffer.subarray(0, read);
       if (!options.codeOnly || !looksBinaryStart(bytes)) onFile(path, bytes);
     } catch {
       // A tracked path that is not a readable regular file here (a submodule, a link) holds no code to scan.

@@ -98,24 +98,23 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       const options = program.opts<CommonOptions>();
       const { output } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
-      const [{ isCalendarDate }, { renderReviewMarkdown }, { renderReviewText }, { reviewJson }, { reviewChange }] = await Promise.all([
-        import('../core/source/fields.js'),
-        import('../core/report/review-markdown.js'),
-        import('../core/report/review-text.js'),
-        import('../core/review/report-schema.js'),
-        import('../run/review-change.js'),
-      ]);
+      // git starts on the change while this process compiles the review's code (and forks cheaply, its heap still small).
+      const opening = deps.openChange(cwd, flags.base!, flags.head);
+      opening.catch(() => undefined); // awaited below, after the options are checked
+      const [{ isCalendarDate }, { reviewChange }] = await Promise.all([import('../core/source/fields.js'), import('../run/review-change.js')]);
       if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
-      const change = await deps.openChange(cwd, flags.base!, flags.head);
+      const change = await opening;
       const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(deps.history ? { history: deps.history(cwd) } : {}), ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
-      if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${JSON.stringify(reviewJson(review), null, 2)}\n`, { overwrite: true });
+      // Only the renderers this run prints with are loaded.
+      const reportJson = async () => JSON.stringify((await import('../core/review/report-schema.js')).reviewJson(review), null, 2);
+      if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${await reportJson()}\n`, { overwrite: true });
       const repoUrl = flags.repoUrl?.replace(/\/+$/, '');
-      if (flags.format === 'json') output.out(JSON.stringify(reviewJson(review), null, 2));
-      else if (flags.format === 'markdown') output.out(renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
-      else output.out(renderReviewText(review, { color: output.color }));
+      if (flags.format === 'json') output.out(await reportJson());
+      else if (flags.format === 'markdown') output.out((await import('../core/report/review-markdown.js')).renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
+      else output.out((await import('../core/report/review-text.js')).renderReviewText(review, { color: output.color }));
       setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
     });
 }

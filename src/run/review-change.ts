@@ -1,5 +1,4 @@
-import picomatch from 'picomatch';
-import { scanMatcher } from '../core/config/scan-files.js';
+import { globMatcher, scanMatcher } from '../core/config/scan-files.js';
 import { declaredFlags } from '../core/plan/declared-flags.js';
 import type { LoadedPlan } from '../core/plan/load.js';
 import { eventsOfPlan } from '../core/registry/schema.js';
@@ -66,22 +65,24 @@ export type ReviewOutcome =
 /** Reviews the change from its merge base to head, reading plans, settings and code at head. */
 export async function reviewChange(options: ReviewChangeOptions): Promise<ReviewOutcome> {
   const { change } = options;
-  // Listing the tree runs in git while the plans load.
+  // Listing the tree, the diff and the base commit's plans run in git while head's plans load.
   const trackedAtHead = change.trackedFiles('head');
+  const changedAndDiff = Promise.all([change.changedFiles(), change.diff()]);
+  changedAndDiff.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
+  // Running tests are compared with their plans at the base commit.
+  // Loaded once, for both: running tests' plans as they were, and the findings that already held.
+  const baseWorkspace = change.baseUnreadable ? Promise.resolve(undefined) : loadBaseWorkspace(change, options.settingsPath);
+  baseWorkspace.catch(() => undefined);
   const head = change.filesAt('head');
   const loaded = await loadWorkspace({ files: head, ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}), ...(options.onProgress ? { onProgress: options.onProgress } : {}) });
   if (!loaded.ok) return { kind: 'settings-invalid', settingsFile: loaded.settingsFile, problems: loaded.settingsProblems };
   const { workspace } = loaded;
   const { settings } = workspace;
-  // Running tests are compared with their plans at the base commit.
-  // Loaded once, for both: running tests' plans as they were, and the findings that already held.
-  const baseWorkspace = change.baseUnreadable ? Promise.resolve(undefined) : loadBaseWorkspace(change, options.settingsPath);
-  baseWorkspace.catch(() => undefined); // awaited below; this only keeps an early failure from counting as unhandled
   // Without the base commit, head's started tests stand in, so the checks that read code at head still run.
   const baseEntries = change.baseUnreadable ? Promise.resolve(workspace.registry.entries) : baseWorkspace.then((w) => w?.registry.entries ?? []);
   baseEntries.catch(() => undefined);
 
-  const [changed, diffText] = await Promise.all([change.changedFiles(), change.diff()]);
+  const [changed, diffText] = await changedAndDiff;
   const diffs = parseUnifiedDiff(diffText);
   const changedPaths = new Set(changed.filter((f) => f.status !== 'deleted').map((f) => f.path));
 
@@ -92,7 +93,7 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
   const [headTexts, baseTexts] = await Promise.all([head.readTexts(headPaths), change.filesAt('base').readTexts(basePaths)]);
   const textAt = { added: new Map(headPaths.map((p, i) => [p, headTexts[i]])), removed: new Map(basePaths.map((p, i) => [p, baseTexts[i]])) };
 
-  const isFlagFile = picomatch(DEFAULT_FLAG_FILES, { dot: true });
+  const isFlagFile = globMatcher(DEFAULT_FLAG_FILES, { dot: true });
   const definitionTouches = changed
     .filter((f) => isFlagFile(f.path) || (f.previousPath !== undefined && isFlagFile(f.previousPath)))
     .flatMap((f) => flagDefinitionTouches(f.path, textAt.removed.get(f.previousPath ?? f.path), f.status === 'deleted' ? undefined : textAt.added.get(f.path)));

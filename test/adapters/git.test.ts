@@ -25,8 +25,8 @@ describe('openChange on a real repository', () => {
   });
 
   it('reads files at either end from git objects, not from the working tree', async () => {
-    const change = await openChange(repo.root, 'main', 'change');
     writeFileSync(join(repo.root, 'src/a.ts'), 'edited but not committed\n');
+    const change = await openChange(repo.root, 'main', 'change');
     expect(await change.filesAt('head').readText('src/a.ts')).toBe('one\n2\nthree\nfour\n');
     expect(await change.filesAt('base').readText('src/a.ts')).toBe('one\ntwo\nthree\n');
     expect(await change.filesAt('head').readText('nope.ts')).toBeUndefined();
@@ -109,6 +109,38 @@ describe('streaming a tree: git objects and the working tree give the same files
     expect(large).toBe(readFileSync(join(repo.root, 'b/large.ts'), 'utf8'));
     expect(binary?.length).toBe(200_001);
     expect(missing).toBeUndefined();
+  });
+});
+
+describe('a checkout that is not head: files head shares with it come from disk, the rest from objects', () => {
+  const files: Record<string, string> = {
+    'a/same.ts': 'same at both\n',
+    'b/changed-on-main.ts': 'branch point\n',
+    'c/dirty.ts': 'committed\n',
+    'd/only-head.ts': 'head only\n',
+    'e/last.ts': 'last\n',
+  };
+  const repo = makeTwoCommitRepo(files, {});
+  made.push(repo.root);
+  const git = (...args: string[]) => execFileSync('git', ['-c', 'user.name=T', '-c', 'user.email=t@e.invalid', ...args], { cwd: repo.root, encoding: 'utf8' });
+
+  it('gives head’s bytes in path order, whatever the checkout holds', async () => {
+    // main moves on (as the base of a pull request does); the checkout is main, with an edit, an untracked file and a deleted one.
+    git('switch', '-q', 'main');
+    writeFileSync(join(repo.root, 'b/changed-on-main.ts'), 'main moved on\n');
+    git('rm', '-q', 'd/only-head.ts');
+    git('commit', '-q', '-am', 'main moves');
+    writeFileSync(join(repo.root, 'c/dirty.ts'), 'edited, not committed\n');
+    writeFileSync(join(repo.root, 'a/untracked.ts'), 'not in any commit\n');
+    rmSync(join(repo.root, 'e/last.ts'));
+    const change = await openChange(repo.root, 'main', 'change');
+    const tracked = await change.trackedFiles('head');
+    // git's own answer: every blob of head's tree.
+    const expected = git('ls-tree', '-r', '--name-only', 'change').split('\n').filter(Boolean).map((path) => [path, git('show', `change:${path}`)]);
+    const seen: [string, string][] = [];
+    await change.streamFiles('head', tracked, (path, bytes) => seen.push([path, bytes.toString('utf8')]));
+    expect(seen).toEqual(expected);
+    expect(await change.filesAt('head').readTexts(['c/dirty.ts', 'a/untracked.ts', 'd/only-head.ts', 'a/same.ts', 'e/last.ts'])).toEqual(['committed\n', undefined, 'head only\n', 'same at both\n', 'last\n']);
   });
 });
 

@@ -25,6 +25,18 @@ function plainFirst(files: readonly [string, Buffer][], name: string, quoted: bo
   return undefined;
 }
 
+/** Scans `files` for `names` and holds the first locations of `checked` to the plain search's. */
+function expectPlainFirsts(names: readonly string[], checked: readonly string[], files: readonly [string, Buffer][]): void {
+  const scanner = createNameScanner(names);
+  for (const [path, bytes] of files) scanner.scanFile(path, bytes);
+  const results = scanner.results();
+  for (const name of checked) {
+    const hits = results.get(name)!;
+    expect(hits.first, `first of ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, false));
+    expect(hits.firstQuoted, `first quoted ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, true));
+  }
+}
+
 const nameArb = fc.string({ unit: fc.constantFrom('a', 'b', 'é', '_'), minLength: 1, maxLength: 4 });
 const textArb = fc.string({ unit: fc.constantFrom('a', 'b', 'é', '_', '\n', '"', "'", '`', ' '), maxLength: 120 });
 
@@ -33,16 +45,21 @@ describe('first locations of the name scan', () => {
     fc.assert(
       fc.property(fc.uniqueArray(nameArb, { minLength: 1, maxLength: 8 }), fc.array(textArb, { minLength: 1, maxLength: 5 }), (names, texts) => {
         const files = texts.map((text, i) => [`f${i}.ts`, Buffer.from(text, 'utf8')] as [string, Buffer]);
-        const scanner = createNameScanner(names);
-        for (const [path, bytes] of files) scanner.scanFile(path, bytes);
-        const results = scanner.results();
-        for (const name of names) {
-          const hits = results.get(name)!;
-          expect(hits.first, `first of ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, false));
-          expect(hits.firstQuoted, `first quoted ${JSON.stringify(name)}`).toEqual(plainFirst(files, name, true));
-        }
+        expectPlainFirsts(names, names, files);
       }),
       { numRuns: 400 },
+    );
+  });
+
+  // Past a few hundred names the automaton's table keeps byte classes instead of one column per byte value.
+  it('gives the same first locations with many names (the compact table) as with few (the wide one)', () => {
+    const filler = Array.from({ length: 400 }, (_, i) => `${i}_filler_name_end`);
+    fc.assert(
+      fc.property(fc.uniqueArray(nameArb, { minLength: 1, maxLength: 8 }), fc.array(textArb, { minLength: 1, maxLength: 5 }), (names, texts) => {
+        const files = texts.map((text, i) => [`f${i}.ts`, Buffer.from(`${text} 7_filler_name_end ${text}`, 'utf8')] as [string, Buffer]);
+        expectPlainFirsts([...names, ...filler], [...names, '7_filler_name_end', '8_filler_name_end'], files);
+      }),
+      { numRuns: 40 },
     );
   });
 

@@ -64,6 +64,13 @@ describe('buildDigest', () => {
     expect(todayIn('Asia/Tokyo', lateEvening)).toBe('2026-12-02');
     expect(todayIn('America/Los_Angeles', lateEvening)).toBe('2026-12-01');
   });
+
+  it('reads the same UTC day as the time-zone database, around midnight and in leap years', () => {
+    const utc = new Intl.DateTimeFormat('en-CA', { timeZone: 'Etc/UTC', year: 'numeric', month: '2-digit', day: '2-digit' });
+    for (const at of ['2026-12-01T23:59:59.999Z', '2026-12-02T00:00:00Z', '2028-02-29T12:00:00Z', '1999-12-31T23:59:59Z', '2026-06-30T00:00:00.001Z']) {
+      expect(todayIn('UTC', new Date(at))).toBe(utc.format(new Date(at)));
+    }
+  });
 });
 
 describe('the digest issue body', () => {

@@ -1,12 +1,25 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, vi } from 'vitest';
 import { rmSync } from 'node:fs';
 import { openChange } from '../../src/adapters/git.js';
-import { FINDING_CODES } from '../../src/core/review/finding.js';
+import { CHANGE_BOUND, FINDING_CODES } from '../../src/core/review/finding.js';
 import type { Review } from '../../src/core/review/build-review.js';
 import { reviewChange } from '../../src/run/review-change.js';
 import type { PullRequestInfo } from '../../src/core/review/context.js';
 import { historyOf, makeTwoCommitRepo } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE, CART_CODE_TOUCHED, cleanPlan, goodTotals, planYaml, recorded, withPlan } from './scenarios.js';
+
+// Every finding the change-only checks raise in this file, to hold them to their promise (see the last test).
+const changeCheckFindings = vi.hoisted(() => [] as { code: string; plan?: string }[]);
+vi.mock('../../src/core/checks/index.js', async (importOriginal) => {
+  const real = await importOriginal<typeof import('../../src/core/checks/index.js')>();
+  const observed = new Map([...real.CHANGE_CHECKS].map((check) => [check, ((context) => {
+    const found = check(context);
+    changeCheckFindings.push(...found);
+    return found;
+  }) as typeof check]));
+  const wrap = (check: (typeof real.CHECKS)[number]) => observed.get(check) ?? check;
+  return { ...real, CHECKS: real.CHECKS.map(wrap), CHANGE_CHECKS: new Set(observed.values()), PLAN_CHECKS: real.PLAN_CHECKS };
+});
 
 const made: string[] = [];
 /** Mid-window of the clean plan (2026-11-02 to 2026-11-29): its test is running. */
@@ -478,5 +491,14 @@ describe('effect-implausible', () => {
     // One of five (a −6% loss counts by its size) reached 5%: four in five below is not nine in ten.
     const quiet = await review(baseFiles(pastOutcomes([0.01, -0.06, 0.03, 0.005, 0.015])), withPlan(cleanPlan()));
     expect(quiet.findings.map((f) => f.code)).not.toContain('effect-implausible');
+  });
+});
+
+describe('checks the base pass skips', () => {
+  // Runs last (vitest keeps file order): by now every trigger and near miss above has run.
+  it('raise only findings about the change: without a plan, or with a change-bound code', () => {
+    expect(changeCheckFindings.length).toBeGreaterThan(0);
+    const perPlan = changeCheckFindings.filter((f) => f.plan !== undefined && !CHANGE_BOUND.has(f.code));
+    expect(perPlan).toEqual([]);
   });
 });

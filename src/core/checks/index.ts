@@ -52,3 +52,14 @@ export const CHECKS: readonly Check[] = [
   exposureOneArm,
   bugFixUnmeasured,
 ];
+
+/**
+ * Checks about the change itself: every finding they raise has no plan (flags the change touches,
+ * plan files it breaks, an unmeasured fix) or a change-bound code (what the change does to a plan),
+ * so it always counts as introduced. The pass over the base commit, which only asks which findings
+ * already held, skips them; test/review/findings.test.ts checks the promise on every finding code.
+ */
+export const CHANGE_CHECKS: ReadonlySet<Check> = new Set([planInvalid, frozenPlans, eventRemoved, endedEarly, treatmentChanged, flagWithoutPlan, exposureOneArm, bugFixUnmeasured]);
+
+/** Checks about each plan as it stands: the base pass runs these, in the same order. */
+export const PLAN_CHECKS: readonly Check[] = CHECKS.filter((check) => !CHANGE_CHECKS.has(check));

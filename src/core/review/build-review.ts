@@ -1,4 +1,4 @@
-import { CHECKS } from '../checks/index.js';
+import { CHECKS, PLAN_CHECKS } from '../checks/index.js';
 import { bugFixNudge, type BugFixNudge } from '../checks/bug-fix.js';
 import { collisionsOfLinked } from '../checks/collisions.js';
 import { eventStatuses, type EventStatus } from '../checks/logging.js';
@@ -129,11 +129,11 @@ export function findingKey(f: Pick<Finding, 'code' | 'plan' | 'message'>): strin
   return [f.code, f.plan ?? '', f.message.replace(/\d+(?:[.,]\d+)*/g, '#')].join('\u0000');
 }
 
-/** Findings about a plan that already held at base (the checks run on the base commit's plans). */
+/** Findings about a plan that already held at base (the per-plan checks run on the base commit's plans). */
 function knownAtBase(base: ReviewContext | undefined): Set<string> {
   if (!base) return new Set();
   return new Set(
-    CHECKS.flatMap((check) => check(base))
+    PLAN_CHECKS.flatMap((check) => check(base))
       .filter((f) => f.plan !== undefined && !CHANGE_BOUND.has(f.code))
       .map(findingKey),
   );

@@ -13,6 +13,9 @@ export interface Automaton {
   search(bytes: Uint8Array, onMatch: (name: number, end: number) => void): void;
 }
 
+/** The largest search table given one entry per byte value (a few hundred names); larger ones use byte classes. */
+const WIDE_TABLE_BYTES = 4 * 1024 * 1024;
+
 export function buildAutomaton(names: readonly string[]): Automaton {
   const encoded = names.map((n) => new TextEncoder().encode(n));
   const classOf = new Uint8Array(256);
@@ -69,12 +72,19 @@ export function buildAutomaton(names: readonly string[]): Automaton {
     }
   }
 
+  // Rows of the search table: one per state. A small automaton gets a row of 256 entries, one per
+  // byte, so the loop reads one table per byte instead of two (the byte's class, then the row); a
+  // large one keeps rows of classes, as a 256-wide table would grow past the memory it saves time on.
+  const wide = capacity * 256 * 4 <= WIDE_TABLE_BYTES;
+  const width = wide ? 256 : classes;
   // Store row offsets instead of state numbers so the search loop does no multiplication.
-  const delta = new Int32Array(next.length);
-  for (let i = 0; i < next.length; i++) delta[i] = next[i]! * classes;
+  const delta = new Int32Array(capacity * width);
+  for (let s = 0; s < capacity; s++) {
+    for (let column = 0; column < width; column++) delta[s * width + column] = next[s * classes + (wide ? classOf[column]! : column)]! * width;
+  }
   // Indexed by row offset, like delta, so the loop tests it without converting back to a state.
-  const reports = new Uint8Array(capacity * classes);
-  for (let s = 0; s < capacity; s++) reports[s * classes] = output[s] !== -1 || dictionary[s] !== -1 ? 1 : 0;
+  const reports = new Uint8Array(capacity * width);
+  for (let s = 0; s < capacity; s++) reports[s * width] = output[s] !== -1 || dictionary[s] !== -1 ? 1 : 0;
   const lengths = Int32Array.from(encoded, (b) => b.length);
   const twins = new Map<number, number[]>();
   for (const [first, other] of duplicates) twins.set(first, [...(twins.get(first) ?? []), other]);
@@ -84,10 +94,11 @@ export function buildAutomaton(names: readonly string[]): Automaton {
     lengths,
     search(bytes, onMatch) {
       let row = 0;
-      for (let i = 0; i < bytes.length; i++) {
-        row = delta[row + classOf[bytes[i]!]!]!;
+      const length = bytes.length;
+      for (let i = 0; i < length; i++) {
+        row = wide ? delta[row + bytes[i]!]! : delta[row + classOf[bytes[i]!]!]!;
         if (reports[row] === 0) continue;
-        const s = row / classes;
+        const s = row / width;
         for (let t = output[s] !== -1 ? s : dictionary[s]!; t !== -1; t = dictionary[t]!) {
           const name = output[t]!;
           onMatch(name, i);

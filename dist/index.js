@@ -2,6 +2,10 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
+  reviewChange
+} from "./chunks/chunk-HN4IKR7C.js";
+import "./chunks/chunk-HFRMU5KD.js";
+import {
   reviewJson
 } from "./chunks/chunk-B4AG7LHN.js";
 import {
@@ -9,37 +13,36 @@ import {
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-V3RVVQ3X.js";
+} from "./chunks/chunk-55MYW347.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-FVU4FYHL.js";
-import "./chunks/chunk-XUFFUC7R.js";
-import "./chunks/chunk-3QIBMH36.js";
-import "./chunks/chunk-HYEQ4ILC.js";
-import "./chunks/chunk-35APDGCM.js";
+} from "./chunks/chunk-76AUFDIB.js";
+import "./chunks/chunk-P6ZVBC3I.js";
+import "./chunks/chunk-MYUGBT5N.js";
+import "./chunks/chunk-WEHQQR5J.js";
+import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
-import {
-  reviewChange
-} from "./chunks/chunk-S4J25R2Z.js";
-import "./chunks/chunk-LMP7IQSR.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-AQLSQVCG.js";
+import "./chunks/chunk-XWMJSR7W.js";
 import {
   digestRepository
-} from "./chunks/chunk-3BFJRFFT.js";
+} from "./chunks/chunk-JYU2RKGU.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-ZML6UJ4Q.js";
-import "./chunks/chunk-V65C5FSR.js";
+import "./chunks/chunk-KAGJO626.js";
+import "./chunks/chunk-PEYXXXNZ.js";
 import "./chunks/chunk-YCVBVJ6H.js";
-import "./chunks/chunk-ZQTOZW4X.js";
+import "./chunks/chunk-ZTY24AJV.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-5EW577CV.js";
+import "./chunks/chunk-E7EWUPQ7.js";
 import "./chunks/chunk-5A7OB2Z6.js";
-import "./chunks/chunk-XJ3K7LET.js";
+import "./chunks/chunk-ECKP7NMA.js";
 import "./chunks/chunk-MGCIOLH6.js";
+import {
+  external_exports
+} from "./chunks/chunk-5GP5B2QS.js";
 import "./chunks/chunk-BXF2RWJM.js";
 import {
   createRepoFiles,
@@ -58,12 +61,9 @@ import {
 import "./chunks/chunk-D7CL2H7J.js";
 import {
   formatCount
-} from "./chunks/chunk-5CFAFUOS.js";
+} from "./chunks/chunk-ACAADDFF.js";
 import "./chunks/chunk-PTQPFAEX.js";
 import "./chunks/chunk-X2H4NLT2.js";
-import {
-  external_exports
-} from "./chunks/chunk-5GP5B2QS.js";
 import {
   __commonJS,
   __export,

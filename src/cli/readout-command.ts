@@ -3,7 +3,7 @@ import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
-import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
+import { EXIT, context, pathInRepository, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
 
@@ -44,7 +44,7 @@ export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliD
         files,
         ...(options.config ? { settingsPath: options.config } : {}),
         plan: planName,
-        totals: flags.totals.replace(/^\.\//, ''),
+        totals: pathInRepository(cwd, flags.totals),
         ...(flags.record ? { record: { decidedBy: flags.decidedBy!, recordedOn: today } } : {}),
         ...(deps.history ? { history: deps.history(cwd) } : {}),
       });

@@ -1,7 +1,7 @@
 import { resolve } from 'node:path';
 import { Option, type Command } from 'commander';
 import { UsageError } from '../errors.js';
-import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
+import { EXIT, context, pathInRepository, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const TOTALS_JSON_FORMAT = 'plumbline.totals-run/1';
 const DIALECT_NAMES = ['duckdb', 'postgres', 'trino', 'bigquery', 'snowflake', 'spark'];
@@ -44,7 +44,7 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
       const options = program.opts<Omit<CommonOptions, 'format'>>();
       const { output, files } = context({ ...options, format: 'text' }, deps);
       const root = resolve(options.cwd);
-      const [{ isCalendarDate }, { computeTotals }, { writeFileAtomic }] = await Promise.all([import('../core/source/fields.js'), import('../run/totals.js'), import('../adapters/files.js')]);
+      const [{ isCalendarDate }, { computeTotals }, { writeFileAtomic }, { countOf, formatCount }] = await Promise.all([import('../core/source/fields.js'), import('../run/totals.js'), import('../adapters/files.js'), import('../core/report/numbers.js')]);
       for (const [flag, value] of [['--through', flags.through], ['--today', flags.today]] as const) {
         if (value !== undefined && !isCalendarDate(value)) throw new UsageError(`${flag} ${JSON.stringify(value)} is not a date`, `write it as YYYY-MM-DD, e.g. ${flag} 2026-12-06`);
       }
@@ -52,6 +52,9 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
       if (flags.dialect !== undefined && !DIALECT_NAMES.includes(flags.dialect)) throw new UsageError(`--dialect ${JSON.stringify(flags.dialect)} is not a dialect Plumbline writes`, `one of ${DIALECT_NAMES.join(', ')}; for another engine, start from the dialect closest to it`);
       if (flags.dialect && !flags.sql) throw new UsageError('--dialect goes with --sql', `plumbline totals ${planName} --sql --dialect ${flags.dialect}`);
       if (flags.sql && flags.fromRows) throw new UsageError('--sql prints the query; --from-rows reads its result: use one at a time');
+      // The rows do not say how far their data runs; without the date the query was printed with, a readout of
+      // data cut short would pass for one that reached the planned end.
+      if (flags.fromRows && !flags.through) throw new UsageError('--from-rows needs --through: the last day the query’s data covers', `the date in the query's first line ("data through YYYY-MM-DD"), e.g. plumbline totals ${planName} --from-rows ${flags.fromRows} --through 2026-12-06`);
       const url = flags.url ?? process.env.PLUMBLINE_DATABASE_URL;
       // A progress line while the engine works: on a terminal, or when asked.
       const showProgress = flags.progress || (!deps.write && process.stderr.isTTY === true);
@@ -70,10 +73,10 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
         engine: flags.engine,
         ...(flags.sql ? { sqlDialect: (flags.dialect ?? flags.engine) as 'duckdb' } : {}),
         ...(flags.data !== undefined ? { data: flags.data } : {}),
-        ...(flags.fromRows !== undefined ? { fromRows: flags.fromRows.replace(/^\.\//, '') } : {}),
+        ...(flags.fromRows !== undefined ? { fromRows: pathInRepository(root, flags.fromRows) } : {}),
         ...(flags.through ? { through: flags.through } : {}),
         today: flags.today ?? new Date().toISOString().slice(0, 10),
-        ...(flags.out ? { out: flags.out } : {}),
+        ...(flags.out ? { out: pathInRepository(root, flags.out) } : {}),
         ...(flags.planCommit ? { planCommit: flags.planCommit } : {}),
         findPlanCommit: async (file) => (await import('../adapters/git.js')).planCommitAtLaunch(root, file),
         runQuery: async (engine, sql, settings) => {
@@ -115,11 +118,11 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
           ),
         );
       } else {
-        const units = Object.entries(outcome.totals.arms).map(([arm, t]) => `${arm} ${t.units}`).join(', ');
+        const units = Object.entries(outcome.totals.arms).map(([arm, t]) => `${arm} ${formatCount(t.units)}`).join(', ');
         output.out(
           [
             `Wrote ${outcome.out}: ${outcome.planId}, data through ${outcome.dataThrough}; units ${units}.`,
-            `Left out: ${excluded['several-arms'] ?? 0} units in several arms, ${excluded['unknown-arm'] ?? 0} with an arm the plan does not have.`,
+            `Left out: ${countOf(excluded['several-arms'] ?? 0, 'unit')} in several arms, ${formatCount(excluded['unknown-arm'] ?? 0)} with an arm the plan does not have.`,
             `Plan commit ${outcome.planCommit.slice(0, 12)} (${outcome.planCommitHow === 'went-live' ? 'where the plan went live' : outcome.planCommitHow === 'latest' ? 'the latest commit of the plan file: no commit set it live' : 'given'}).`,
             `Next: plumbline readout ${outcome.planId} --totals ${outcome.out}`,
           ].join('\n'),

@@ -89,6 +89,7 @@ async function dataFiles(options: TotalsOptions, spec: string): Promise<{ exposu
   const scan = picomatch.scan(entry);
   const folder = scan.isGlob ? scan.base : entry;
   const listed = await options.files.listFiles(folder === '.' ? '' : folder);
+  if (!listed.length) throw new UsageError(`--data ${spec}: no such folder, or no files in it`, 'give the folder the exports are in (an absolute path, or one relative to the repository), or a glob of the files');
   const prefix = folder === '.' || folder === '' ? '' : `${folder}/`;
   const glob = scan.isGlob ? picomatch(entry, { dot: false }) : undefined;
   const found = { exposures: [] as string[], events: [] as string[] };
@@ -102,7 +103,7 @@ async function dataFiles(options: TotalsOptions, spec: string): Promise<{ exposu
     formats[table.kind].add(table.format);
   }
   const source = (kind: 'exposures' | 'events'): QuerySource => {
-    if (!found[kind].length) throw new UsageError(`--data ${spec}: no ${kind} files (${kind}*.parquet or ${kind}*.csv, or a folder ${kind}/ of them)`, `put the exports in ${folder || '.'} named ${kind}.parquet (or ${kind}-*.csv, or ${kind}/part-*.parquet), or set data.${kind}.files in the settings`);
+    if (!found[kind].length) throw new UsageError(`--data ${spec}: no ${kind} files (${kind}*.parquet or ${kind}*.csv, or a folder ${kind}/ of them)`, `put the exports in ${spec} named ${kind}.parquet (or ${kind}-*.csv, or ${kind}/part-*.parquet), or set data.${kind}.files in the settings`);
     if (formats[kind].size > 1) throw new UsageError(`--data ${spec}: the ${kind} files mix Parquet and CSV`, 'keep one format per table');
     return { files: found[kind].sort(), format: [...formats[kind]][0] as 'parquet' | 'csv' };
   };

@@ -92,6 +92,28 @@ describe('plumbline totals', () => {
     expect(a.ok && b.ok && { ...b.totals, notes: '' }).toEqual(a.ok && { ...a.totals, notes: '' });
   });
 
+  it('reads the rows and the totals by absolute path (outside -C too), and asks for --through with --from-rows', () => {
+    const outside = mkdtempSync(join(tmpdir(), 'plumbline-rows-'));
+    try {
+      writeFileSync(join(outside, 'rows.csv'), readFileSync(join(root, 'rows.csv')));
+      // Without the date the query was printed with, rows cut short would pass for data that reached the planned end.
+      const noDate = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', join(outside, 'rows.csv')]);
+      expect(noDate.status).toBe(2);
+      expect(noDate.stderr).toContain('--from-rows needs --through');
+      const out = join(outside, 'abs.totals.yaml');
+      const run = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', join(outside, 'rows.csv'), '--through', '2026-11-19', '--out', out]);
+      expect(run.stderr).toBe('');
+      expect(run.status).toBe(0);
+      expect(run.stdout).toMatch(/Left out: \d[\d,]* units? in several arms/);
+      expect(readFileSync(out, 'utf8')).toContain('plan: basket-shapes');
+      const readout = runCli(['-C', root, 'readout', 'basket-shapes', '--totals', out, '--format', 'json', '--today', '2026-11-20']);
+      expect(readout.stderr).not.toContain('does not exist');
+      expect(JSON.parse(readout.stdout).planId).toBe('basket-shapes');
+    } finally {
+      rmSync(outside, { recursive: true, force: true });
+    }
+  });
+
   it('points at the file, line and column of a bad CSV field', () => {
     writeFileSync(join(root, 'bad.csv'), 'grain,arm,bucket,metric,units,n,sum_y,sum_y2,sum_x,sum_x2,sum_xy,sum_pre,sum_pre2,sum_ypre\narm,control,,,12,,,,,,,,,\narm,control,,ordered,12,twelve,3,3,,,,,,\n');
     const run = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'bad.csv', '--through', '2026-11-19', '--out', 'readouts/bad.totals.yaml']);

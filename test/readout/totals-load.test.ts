@@ -40,6 +40,15 @@ describe('arm totals: bad input is named by file, line and field', () => {
       message: /below \(Σy\)²\/n = 400000/,
     },
     {
+      // (Σy)²/n overflows a double here; the message must not print Infinity.
+      name: 'Σy² below (Σy)²/n when (Σy)²/n is too large to write',
+      text: totalsText({ ...good, treatment: { ...good.treatment, extra: '      spend: { n: 1000, sum: 1e300, sum-of-squares: 5 }' } }),
+      code: 'totals/impossible-sums',
+      line: 15,
+      field: 'arms.treatment.metrics.spend.sum-of-squares',
+      message: /below \(Σy\)²\/n \(too large to write\), which no data can give$/,
+    },
+    {
       name: 'an arm not in the plan',
       text: totalsText({ control: good.control, treatmnt: good.treatment }),
       code: 'totals/unknown-arm',

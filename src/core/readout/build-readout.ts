@@ -8,6 +8,7 @@ import { compareArms, type Comparison } from './compare.js';
 import { cupedAdjustment, estimateArm, type CupedAdjustment } from './estimate.js';
 import type { RuleSource } from './launch-note.js';
 import { readoutTiming, type Timing } from './timing.js';
+import { countOf } from '../report/numbers.js';
 
 /**
  * A test read out against its plan: the sample ratio first, then every metric as registered, the
@@ -508,7 +509,7 @@ function excludedUnitsFindings(totals: ArmTotalsFile, unitsKept: number): Readou
     findings.push({
       severity: block ? 'block' : 'warn',
       code: 'readout/units-in-several-arms',
-      message: `${several} units (${formatShare(share)} of those exposed) were seen in more than one arm and are left out of every total: assignment was not sticky for them, which breaks randomization${
+      message: `${countOf(several, 'unit')} (${formatShare(share)} of those exposed) ${several === 1 ? 'was' : 'were'} seen in more than one arm and are left out of every total: assignment was not sticky for them, which breaks randomization${
         block ? `. Above ${formatShare(SEVERAL_ARMS_BLOCK_SHARE)} the arms left may not be comparable: find why units switch arms (ids reused across devices, a flag re-evaluated with other attributes, a changed split), fix it, and read again.` : '; a small share costs little, but find out why.'
       }`,
     });
@@ -518,7 +519,7 @@ function excludedUnitsFindings(totals: ArmTotalsFile, unitsKept: number): Readou
     findings.push({
       severity: 'warn',
       code: 'readout/unknown-arm',
-      message: `${unknown} units have exposures under an arm name the plan does not have; those exposures are left out. Check the flag's variations against the plan's arms.`,
+      message: `${countOf(unknown, 'unit')} ${unknown === 1 ? 'has' : 'have'} exposures under an arm name the plan does not have; those exposures are left out. Check the flag's variations against the plan's arms.`,
     });
   }
   return findings;

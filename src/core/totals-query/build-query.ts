@@ -235,7 +235,7 @@ export function buildTotalsQuery(input: TotalsQueryInput): TotalsQueryResult {
 
   const header = [
     `-- Plumbline arm totals for plan ${oneLine(plan.id)}, data through ${input.dataThrough} (UTC), dialect ${d.name}.`,
-    `-- Columns: ${ROW_COLUMNS.join(', ')}. Save the result as CSV with a header and run: plumbline totals <plan> --from-rows <file.csv>`,
+    `-- Columns: ${ROW_COLUMNS.join(', ')}. Save the result as CSV with a header and run: plumbline totals ${oneLine(plan.id)} --from-rows <file.csv> --through ${input.dataThrough}`,
   ];
   const sql = `${header.join('\n')}\nWITH\n${ctes.map(([name, body]) => `${name} AS (\n${indent(body)}\n)`).join(',\n')}\n${selects.join('\nUNION ALL\n')}\n`;
   return { ok: true, sql, metrics };

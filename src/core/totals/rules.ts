@@ -39,7 +39,7 @@ function checkSquares(ctx: RuleContext<TotalsRuleInput>, path: FieldPath, n: num
     severity: 'error',
     code: 'totals/impossible-sums',
     path,
-    message: `the sum of squares of ${what} is below (Σy)²/n = ${Number(((sum * sum) / n).toPrecision(8))}, which no data can give`,
+    message: `the sum of squares of ${what} is below (Σy)²/n${Number.isFinite((sum * sum) / n) ? ` = ${Number(((sum * sum) / n).toPrecision(8))}` : ' (too large to write)'}, which no data can give`,
     expected: 'a sum of squares of at least (sum)² / n; check that it sums squares of per-unit values, not squares of the sum',
     showFound: true,
   });

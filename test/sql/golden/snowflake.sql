@@ -1,5 +1,5 @@
 -- Plumbline arm totals for plan basket-shapes, data through 2026-11-19 (UTC), dialect snowflake.
--- Columns: grain, arm, bucket, metric, units, n, sum_y, sum_y2, sum_x, sum_x2, sum_xy, sum_pre, sum_pre2, sum_ypre. Save the result as CSV with a header and run: plumbline totals <plan> --from-rows <file.csv>
+-- Columns: grain, arm, bucket, metric, units, n, sum_y, sum_y2, sum_x, sum_x2, sum_xy, sum_pre, sum_pre2, sum_ypre. Save the result as CSV with a header and run: plumbline totals basket-shapes --from-rows <file.csv> --through 2026-11-19
 WITH
 exposure_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("variant" AS VARCHAR) AS arm, CAST("exposed_at" AS TIMESTAMP_TZ) AS exposed_at, CAST("platform" AS VARCHAR) AS segment_1, CAST("country" AS VARCHAR) AS segment_2

@@ -3,8 +3,8 @@ import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
   reviewChange
-} from "./chunks/chunk-HN4IKR7C.js";
-import "./chunks/chunk-HFRMU5KD.js";
+} from "./chunks/chunk-W4AFTGPJ.js";
+import "./chunks/chunk-KWOWGGXK.js";
 import {
   reviewJson
 } from "./chunks/chunk-B4AG7LHN.js";
@@ -25,7 +25,7 @@ import "./chunks/chunk-WEHQQR5J.js";
 import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-XWMJSR7W.js";
+import "./chunks/chunk-YAC4MOH6.js";
 import {
   digestRepository
 } from "./chunks/chunk-JYU2RKGU.js";

@@ -116,3 +116,13 @@ describe('arm totals: bad input is named by file, line and field', () => {
     expect(loadTotals(totalsText({ control: good.control, treatmnt: good.treatment }), FILE).ok).toBe(true);
   });
 });
+
+describe('arm totals: a commit id YAML would read as a number', () => {
+  // Short ids made only of digits, or digits around an "e", are numbers to YAML (1.2 core schema; common practice
+  // to quote them, no source): about one id in ten. The id is the text as written, leading zeros and all.
+  it.each(['1234567', '0123456', '12e4567', '1e10000'])('loads plan-commit: %s as written', (id) => {
+    const text = totalsText(good).replace('plan-commit: 4b1d2e7', `plan-commit: ${id}   # the launch commit`);
+    const loaded = loadTotals(text, FILE, plan());
+    expect(loaded.ok && loaded.totals.planCommit).toBe(id);
+  });
+});

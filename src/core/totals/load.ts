@@ -3,7 +3,7 @@ import type { Plan } from '../plan/schema.js';
 import { checkWritten, type JsonSchemaNode } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
 import { runRules } from '../source/rule-context.js';
-import { readYaml, type YamlLimits } from '../source/yaml-source.js';
+import { readYaml, type YamlLimits, type YamlSource } from '../source/yaml-source.js';
 import { TOTALS_PLAN_RULES, TOTALS_RULES } from './rules.js';
 import { totalsSchema, writtenTotalsSchema, type ArmTotalsFile } from './schema.js';
 
@@ -22,6 +22,19 @@ export function totalsJsonSchema(): JsonSchemaNode {
   return cached;
 }
 
+/**
+ * A commit id written without quotes is read by YAML as a number when its digits happen to form one (`1234567`,
+ * `12e4567`, about one short id in ten): the id is the text as written, so take it back from the source.
+ */
+function commitAsWritten(text: string, source: YamlSource): void {
+  const value = source.value as Record<string, unknown> | null;
+  if (!value || typeof value !== 'object' || typeof value['plan-commit'] !== 'number') return;
+  const at = source.locate(['plan-commit']);
+  const line = text.split(/\r?\n/)[at.line - 1] ?? '';
+  const written = /^[0-9a-fA-F.eE+-]+/.exec(line.slice(at.column - 1))?.[0];
+  if (written) value['plan-commit'] = written;
+}
+
 export type TotalsLoadResult = { ok: true; totals: ArmTotalsFile; warnings: Problem[] } | { ok: false; errors: Problem[]; warnings: Problem[] };
 
 /**
@@ -31,6 +44,7 @@ export type TotalsLoadResult = { ok: true; totals: ArmTotalsFile; warnings: Prob
 export function loadTotals(text: string, file: string, plan?: Plan): TotalsLoadResult {
   const read = readYaml(text, file, TOTALS_LIMITS, 'totals');
   if (!read.ok) return { ok: false, errors: read.problems, warnings: [] };
+  commitAsWritten(text, read.source);
   const checked = checkWritten(read.source, totalsSchema, totalsJsonSchema, 'totals');
   if (!checked.ok) return { ok: false, errors: checked.problems, warnings: [] };
   const problems = runRules({ totals: checked.value, ...(plan ? { plan } : {}) }, read.source, [...TOTALS_RULES, ...(plan ? TOTALS_PLAN_RULES : [])]);

@@ -1,3 +1,6 @@
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { ExternalError, UsageError } from '../../errors.js';
 import type { QueryProgress, QueryResult } from './result.js';
 
@@ -28,9 +31,13 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
   const duckdb = await loadDuckDb();
   let instance: InstanceType<typeof duckdb.DuckDBInstance> | undefined;
   let timer: NodeJS.Timeout | undefined;
+  // Past its memory limit DuckDB spills to disk, by default into `.tmp/` under the current folder: the user's
+  // repository. A folder of our own under the system's temporary folder instead, removed when the query ends.
+  const spill = await mkdtemp(join(tmpdir(), 'plumbline-duckdb-'));
   try {
     instance = await duckdb.DuckDBInstance.create(':memory:', {
       memory_limit: options.memoryLimit,
+      temp_directory: spill,
       ...(options.threads ? { threads: String(options.threads) } : {}),
     });
     const connection = await instance.connect();
@@ -60,5 +67,6 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
   } finally {
     if (timer) clearInterval(timer);
     instance?.closeSync();
+    await rm(spill, { recursive: true, force: true });
   }
 }

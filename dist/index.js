@@ -2,9 +2,9 @@
 import { createRequire as __plumblineCreateRequire } from 'node:module';
 const require = __plumblineCreateRequire(import.meta.url);
 import {
-  reviewChange
-} from "./chunks/chunk-W4AFTGPJ.js";
-import "./chunks/chunk-KWOWGGXK.js";
+  createRepoFiles,
+  writeFileAtomic
+} from "./chunks/chunk-ER4STLMC.js";
 import {
   reviewJson
 } from "./chunks/chunk-B4AG7LHN.js";
@@ -24,30 +24,27 @@ import "./chunks/chunk-MYUGBT5N.js";
 import "./chunks/chunk-WEHQQR5J.js";
 import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
+import {
+  reviewChange
+} from "./chunks/chunk-6W5TIFPB.js";
+import "./chunks/chunk-GFC6FLBK.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-YAC4MOH6.js";
+import "./chunks/chunk-5Z4W3YKZ.js";
 import {
   digestRepository
-} from "./chunks/chunk-JYU2RKGU.js";
+} from "./chunks/chunk-YXFLMQTT.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-KAGJO626.js";
-import "./chunks/chunk-PEYXXXNZ.js";
+import "./chunks/chunk-ZML6UJ4Q.js";
+import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-YCVBVJ6H.js";
-import "./chunks/chunk-ZTY24AJV.js";
+import "./chunks/chunk-ZQTOZW4X.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-E7EWUPQ7.js";
+import "./chunks/chunk-5EW577CV.js";
 import "./chunks/chunk-5A7OB2Z6.js";
-import "./chunks/chunk-ECKP7NMA.js";
+import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
-import {
-  external_exports
-} from "./chunks/chunk-5GP5B2QS.js";
 import "./chunks/chunk-BXF2RWJM.js";
-import {
-  createRepoFiles,
-  writeFileAtomic
-} from "./chunks/chunk-5WPKM5EJ.js";
 import "./chunks/chunk-PDUGBP5Q.js";
 import {
   openChange,
@@ -64,6 +61,9 @@ import {
 } from "./chunks/chunk-ACAADDFF.js";
 import "./chunks/chunk-PTQPFAEX.js";
 import "./chunks/chunk-X2H4NLT2.js";
+import {
+  external_exports
+} from "./chunks/chunk-5GP5B2QS.js";
 import {
   __commonJS,
   __export,

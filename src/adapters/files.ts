@@ -76,3 +76,4 @@ export async function writeFileAtomic(path: string, text: string, options: { ove
 function isCode(error: unknown, code: string): boolean {
   return typeof error === 'object' && error !== null && (error as { code?: unknown }).code === code;
 }
+

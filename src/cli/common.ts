@@ -1,5 +1,5 @@
 import { existsSync, statSync } from 'node:fs';
-import { isAbsolute, relative, resolve, sep } from 'node:path';
+import { resolve } from 'node:path';
 import { Option } from 'commander';
 import { createRepoFiles } from '../adapters/files.js';
 import type { ChangeSource, CommitFiles, RepoFiles } from '../ports.js';
@@ -72,11 +72,3 @@ export function parseNumbers(what: string, texts: readonly string[]): number[] {
   });
 }
 
-/**
- * A path a user typed, as the repository's file reader takes it: relative to the repository root (`-C`).
- * An absolute path (files often live outside the repository) is made relative to the root, never joined onto it.
- */
-export function pathInRepository(root: string, written: string): string {
-  const path = isAbsolute(written) ? relative(root, written).split(sep).join('/') || '.' : written;
-  return path.replace(/^\.\//, '');
-}

@@ -3,7 +3,7 @@ import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../adapters/files.js';
 import { formatProblem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
-import { EXIT, context, pathInRepository, type CommonOptions, type SetExit, type CliDeps } from './common.js';
+import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const READOUT_JSON_FORMAT = 'plumbline.readout/1';
 
@@ -31,11 +31,12 @@ export function addReadoutCommand(program: Command, setExit: SetExit, deps: CliD
       const options = program.opts<Omit<CommonOptions, 'format'>>();
       const { output, files } = context({ ...options, format: 'text' }, deps);
       const cwd = resolve(options.cwd);
-      const [{ renderReadoutMarkdown }, { renderReadoutText }, { isCalendarDate }, { readOutPlan }] = await Promise.all([
+      const [{ renderReadoutMarkdown }, { renderReadoutText }, { isCalendarDate }, { readOutPlan }, { pathInRepository }] = await Promise.all([
         import('../core/report/readout-markdown.js'),
         import('../core/report/readout-text.js'),
         import('../core/source/fields.js'),
         import('../run/readout.js'),
+        import('../run/repo-path.js'),
       ]);
       if (flags.record && !flags.decidedBy) throw new UsageError('--record needs --decided-by', 'name who decided, e.g. --decided-by @ana-lima');
       const today = flags.today ?? new Date().toISOString().slice(0, 10);

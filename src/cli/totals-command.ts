@@ -1,7 +1,8 @@
 import { resolve } from 'node:path';
 import { Option, type Command } from 'commander';
+import { writeFileAtomic } from '../adapters/files.js';
 import { UsageError } from '../errors.js';
-import { EXIT, context, pathInRepository, type CommonOptions, type SetExit, type CliDeps } from './common.js';
+import { EXIT, context, type CommonOptions, type SetExit, type CliDeps } from './common.js';
 
 export const TOTALS_JSON_FORMAT = 'plumbline.totals-run/1';
 const DIALECT_NAMES = ['duckdb', 'postgres', 'trino', 'bigquery', 'snowflake', 'spark'];
@@ -44,7 +45,7 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
       const options = program.opts<Omit<CommonOptions, 'format'>>();
       const { output, files } = context({ ...options, format: 'text' }, deps);
       const root = resolve(options.cwd);
-      const [{ isCalendarDate }, { computeTotals }, { writeFileAtomic }, { countOf, formatCount }] = await Promise.all([import('../core/source/fields.js'), import('../run/totals.js'), import('../adapters/files.js'), import('../core/report/numbers.js')]);
+      const [{ isCalendarDate }, { computeTotals }, { countOf, formatCount }, { pathInRepository }] = await Promise.all([import('../core/source/fields.js'), import('../run/totals.js'), import('../core/report/numbers.js'), import('../run/repo-path.js')]);
       for (const [flag, value] of [['--through', flags.through], ['--today', flags.today]] as const) {
         if (value !== undefined && !isCalendarDate(value)) throw new UsageError(`${flag} ${JSON.stringify(value)} is not a date`, `write it as YYYY-MM-DD, e.g. ${flag} 2026-12-06`);
       }

@@ -14,6 +14,7 @@ import type { WrittenTotals } from '../core/totals/schema.js';
 import type { QueryProgress, QueryResult } from '../adapters/sql/result.js';
 import { UsageError } from '../errors.js';
 import { findNamedPlan } from './find-plan.js';
+import { pathInRepository } from './repo-path.js';
 import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
 /**
@@ -84,8 +85,7 @@ function tableOf(pathBelow: string): { kind: 'exposures' | 'events'; format: 'pa
 /** The data files of a folder (exposures*.parquet|csv and events*.parquet|csv, or folders so named) or of a glob. */
 async function dataFiles(options: TotalsOptions, spec: string): Promise<{ exposures: QuerySource; events: QuerySource }> {
   // An absolute path (exports often live outside the repository) is listed relative to the repository, like any other.
-  const written = posix.isAbsolute(spec) ? posix.relative(options.root, spec) || '.' : spec;
-  const entry = written.replace(/^\.\//, '').replace(/\/+$/, '');
+  const entry = pathInRepository(options.root, spec).replace(/\/+$/, '');
   const scan = picomatch.scan(entry);
   const folder = scan.isGlob ? scan.base : entry;
   const listed = await options.files.listFiles(folder === '.' ? '' : folder);

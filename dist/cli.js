@@ -14,6 +14,6 @@ if (args.length === 1 && (args[0] === "--version" || args[0] === "-V")) {
 `);
 } else {
   nodeModule.enableCompileCache?.();
-  const { runCli } = await import("./chunks/main-GJJQ5HG2.js");
+  const { runCli } = await import("./chunks/main-N3QQGEQJ.js");
   process.exitCode = await runCli(process.argv);
 }

@@ -26,22 +26,22 @@ import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-6W5TIFPB.js";
-import "./chunks/chunk-GFC6FLBK.js";
+} from "./chunks/chunk-DYNATSJP.js";
+import "./chunks/chunk-JO4LHWMB.js";
 import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-5Z4W3YKZ.js";
+import "./chunks/chunk-S7XY3LXP.js";
 import {
   digestRepository
-} from "./chunks/chunk-YXFLMQTT.js";
+} from "./chunks/chunk-ONT6SMZO.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-ZML6UJ4Q.js";
+import "./chunks/chunk-KW6PW25Y.js";
 import "./chunks/chunk-V65C5FSR.js";
-import "./chunks/chunk-YCVBVJ6H.js";
-import "./chunks/chunk-ZQTOZW4X.js";
+import "./chunks/chunk-MBUMMPQG.js";
+import "./chunks/chunk-HE3NWJPG.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-5EW577CV.js";
-import "./chunks/chunk-5A7OB2Z6.js";
+import "./chunks/chunk-DLUUJFVQ.js";
+import "./chunks/chunk-SEUGDIED.js";
 import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
@@ -49,7 +49,7 @@ import "./chunks/chunk-PDUGBP5Q.js";
 import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-C5KWBIAU.js";
+} from "./chunks/chunk-4ML5HZO2.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,

@@ -2,7 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { openChange, parseNameStatus, parseTreeListing } from '../../src/adapters/git.js';
+import { MAX_SCANNED_FILE_BYTES, openChange, parseNameStatus, parseTreeListing } from '../../src/adapters/git.js';
 import { makeTwoCommitRepo } from '../helpers/git-repo.js';
 
 const made: string[] = [];
@@ -112,6 +112,33 @@ describe('streaming a tree: git objects and the working tree give the same files
   });
 });
 
+describe('a file over the scan size limit is skipped on both paths', () => {
+  // The limit is ours (MAX_SCANNED_FILE_BYTES); the objects path learns a file's size from cat-file's header
+  // ("<oid> blob <size>", git's documented batch output), the working-tree path from fstat.
+  const files: Record<string, string> = { 'a/before.ts': 'before\n' };
+  const changes: Record<string, string> = {
+    'b/huge.ts': 'x'.repeat(MAX_SCANNED_FILE_BYTES + 1),
+    'b/limit.ts': `${'y'.repeat(100_000)}\n`,
+    'c/after.ts': 'after\n',
+  };
+  const repo = makeTwoCommitRepo(files, changes);
+  made.push(repo.root);
+  it.each([
+    ['head not checked out (git objects)', 'main'],
+    ['head checked out (working tree)', 'change'],
+  ])('%s', async (_, checkout) => {
+    execFileSync('git', ['checkout', '-q', checkout], { cwd: repo.root });
+    const change = await openChange(repo.root, repo.base, 'change');
+    const seen: [string, number][] = [];
+    await change.streamFiles('head', await change.trackedFiles('head'), (path, bytes) => seen.push([path, bytes.length]));
+    expect(seen).toEqual([
+      ['a/before.ts', 7],
+      ['b/limit.ts', 100_001],
+      ['c/after.ts', 6],
+    ]);
+  });
+});
+
 describe('a checkout that is not head: files head shares with it come from disk, the rest from objects', () => {
   const files: Record<string, string> = {
     'a/same.ts': 'same at both\n',
@@ -148,19 +175,19 @@ describe('parseTreeListing', () => {
   it('keeps regular files as blobs, and lists links and submodules without reading them', () => {
     const out = Buffer.from(
       [
-        '100644 blob 1111111111111111111111111111111111111111      12\tsrc/b.ts',
-        '100755 blob 2222222222222222222222222222222222222222       3\tbin/run',
-        '120000 blob 3333333333333333333333333333333333333333       8\tsrc/link.ts',
-        '160000 commit 4444444444444444444444444444444444444444       -\tvendor/sub',
-        '100644 blob 5555555555555555555555555555555555555555       0\tsrc/a b.ts',
+        '100644 blob 1111111111111111111111111111111111111111\tsrc/b.ts',
+        '100755 blob 2222222222222222222222222222222222222222\tbin/run',
+        '120000 blob 3333333333333333333333333333333333333333\tsrc/link.ts',
+        '160000 commit 4444444444444444444444444444444444444444\tvendor/sub',
+        '100644 blob 5555555555555555555555555555555555555555\tsrc/a b.ts',
       ].join('\0') + '\0',
     );
     const listing = parseTreeListing(out);
     expect(listing.paths).toEqual(['bin/run', 'src/a b.ts', 'src/b.ts', 'src/link.ts', 'vendor/sub']);
     expect([...listing.blobs]).toEqual([
-      ['src/b.ts', { oid: '1111111111111111111111111111111111111111', size: 12 }],
-      ['bin/run', { oid: '2222222222222222222222222222222222222222', size: 3 }],
-      ['src/a b.ts', { oid: '5555555555555555555555555555555555555555', size: 0 }],
+      ['src/b.ts', { oid: '1111111111111111111111111111111111111111' }],
+      ['bin/run', { oid: '2222222222222222222222222222222222222222' }],
+      ['src/a b.ts', { oid: '5555555555555555555555555555555555555555' }],
     ]);
   });
 });

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createNameScanner, type Location } from '../../src/core/scan/name-scan.js';
+import { buildAutomaton } from '../../src/core/scan/aho-corasick.js';
 
 /**
  * The scan's first locations against the plainest possible search: for each name, every file in
@@ -71,5 +72,25 @@ describe('first locations of the name scan', () => {
     expect(results.get('checkout')?.first).toEqual({ file: 'a.ts', line: 2, column: 4 });
     expect(results.get('checkout')?.firstQuoted).toBeUndefined();
     expect(results.get('checkout_done')?.firstQuoted).toEqual({ file: 'a.ts', line: 2, column: 4 });
+  });
+});
+
+describe('the automaton reports every occurrence, however many one file holds', () => {
+  // Against Buffer.indexOf from every position (common practice, no source). The search notes matches in a
+  // fixed-size table and empties it when full; these files hold far more matches than it has room for.
+  it.each([
+    ['one letter repeated', 'a'.repeat(20_000), ['a', 'aa', 'aaa']],
+    ['names nested in names, every few bytes', 'xab_abc;'.repeat(5_000), ['ab', 'abc', 'b_a', 'c;x', 'xab_abc']],
+  ])('%s', (_, text, names) => {
+    const automaton = buildAutomaton(names);
+    const bytes = Buffer.from(text, 'utf8');
+    const seen: string[] = [];
+    automaton.search(bytes, (name, end) => seen.push(`${names[name]}@${end}`));
+    const plain: string[] = [];
+    names.forEach((name) => {
+      for (let at = bytes.indexOf(name); at !== -1; at = bytes.indexOf(name, at + 1)) plain.push(`${name}@${at + name.length - 1}`);
+    });
+    expect(seen.length).toBeGreaterThan(10_000);
+    expect(seen.sort()).toEqual(plain.sort());
   });
 });

@@ -1,8 +1,10 @@
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { parse } from 'yaml';
-import { loadPlan } from '../../src/core/plan/load.js';
+import { loadPlan, PLAN_LIMITS } from '../../src/core/plan/load.js';
+import { formatFieldPath } from '../../src/core/source/check-written.js';
+import { readYaml } from '../../src/core/source/yaml-source.js';
 import { loadRegistryFile } from '../../src/core/registry/load.js';
 import type { Problem } from '../../src/core/source/problem.js';
 
@@ -256,5 +258,56 @@ describe('hints for common slips', () => {
     const result = loadPlan(text, 'x.yaml');
     expect(result.ok).toBe(true);
     expect(result.ok && result.loaded.line).toBe(2);
+  });
+});
+
+describe('the line of every key', () => {
+  // The oracle is the plain way: walk the loaded value and ask where each key and list item is written, one
+  // lookup from the root per key; and the line found must hold the key's own name (common practice, no source).
+  function keyLinesOneByOne(text: string): Map<string, number> {
+    const read = readYaml(text, 'x.yaml', PLAN_LIMITS, 'plan');
+    if (!read.ok) throw new Error('not YAML');
+    const lines = new Map<string, number>();
+    const walk = (value: unknown, path: (string | number)[]) => {
+      if (Array.isArray(value)) {
+        value.forEach((item, index) => {
+          lines.set(formatFieldPath([...path, index]), read.source.locate([...path, index]).line);
+          walk(item, [...path, index]);
+        });
+      } else if (value !== null && typeof value === 'object') {
+        for (const [key, item] of Object.entries(value)) {
+          lines.set(formatFieldPath([...path, key]), read.source.locateKey(path, key).line);
+          walk(item, [...path, key]);
+        }
+      }
+    };
+    walk(read.source.value, []);
+    return lines;
+  }
+  const plans = [
+    ...readdirSync(new URL('../../demo/repo/experiments/', import.meta.url)).filter((f) => f.endsWith('.yaml')).map((f) => readFileSync(new URL(`../../demo/repo/experiments/${f}`, import.meta.url), 'utf8')),
+    ...readdirSync(new URL('../fixtures/plans/valid/', import.meta.url)).map((f) => fixture(`valid/${f}`)),
+    'id: a\nflow: { a: [1, { b: 2 }], "c d": x }\nlist:\n  - one\n  -\n  - k: v\n    j: [w]\n',
+  ];
+  it.each(plans.map((text, i) => [i, text] as const))('plan %i: one walk gives what one lookup per key gives', (_, text) => {
+    const read = readYaml(text, 'x.yaml', PLAN_LIMITS, 'plan');
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const fast = read.source.keyLines();
+    expect(fast.size).toBeGreaterThan(2);
+    expect([...fast].sort()).toEqual([...keyLinesOneByOne(text)].sort());
+    const textLines = text.split('\n');
+    for (const [field, line] of fast) {
+      const last = /(?:^|\.)([^.[\]]+)$/.exec(field)?.[1];
+      if (last) expect(textLines[line - 1], field).toContain(last);
+    }
+  });
+
+  it('a registry entry lists its keys relative to the entry', () => {
+    const read = readYaml('tests:\n  - id: a\n    flags: [x]\n  - id: b\n    owners:\n      - "@me"\n', 'r.yaml', PLAN_LIMITS, 'registry');
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    expect(Object.fromEntries(read.source.keyLines(['tests', 1]))).toEqual({ id: 4, owners: 5, 'owners[0]': 6 });
+    expect(read.source.keyLines(['tests', 5]).size).toBe(0);
   });
 });

@@ -115,3 +115,65 @@ describe('multipliers', () => {
     );
   });
 });
+
+describe('sizing for validation (sampleSizeOnly)', () => {
+  // Validation sizes every plan with sampleSizeOnly; it must fail exactly when the full sizing fails, with the same
+  // words, and agree on the sample size and duration (common practice, no source: a shortcut may not change answers).
+  const request = fc.record({
+    kind: fc.constantFrom('proportion', 'mean', 'ratio'),
+    rate: fc.double({ min: 0, max: 1, noNaN: true }),
+    mean: fc.double({ min: -5, max: 50, noNaN: true }),
+    correlation: fc.double({ min: -1, max: 1, noNaN: true }),
+    effect: fc.oneof(fc.record({ relative: fc.double({ min: 0.005, max: 2, noNaN: true }) }), fc.record({ absolute: fc.double({ min: 0.001, max: 5, noNaN: true }) })),
+    treatments: fc.integer({ min: 1, max: 3 }),
+    controlWeight: fc.integer({ min: 1, max: 3 }),
+    reach: fc.double({ min: 0.05, max: 1, noNaN: true }),
+    daily: fc.option(fc.integer({ min: 1, max: 100_000 }), { nil: undefined }),
+    plannedDays: fc.option(fc.integer({ min: 1, max: 90 }), { nil: undefined }),
+    cluster: fc.option(fc.record({ meanSize: fc.integer({ min: 2, max: 40 }), icc: fc.double({ min: 0, max: 0.3, noNaN: true }), sizeCv: fc.constant(0) }), { nil: undefined }),
+    hypothesis: fc.constantFrom<'superiority' | 'non-inferiority'>('superiority', 'non-inferiority'),
+  });
+  it('fails exactly when the full sizing fails, with the same message, and gives the same sample and duration', () => {
+    fc.assert(
+      fc.property(request, (r) => {
+        const baseline: SizingRequest['baseline'] =
+          r.kind === 'proportion'
+            ? { kind: 'proportion', rate: r.rate }
+            : r.kind === 'mean'
+              ? { kind: 'mean', mean: r.mean, sd: 3 }
+              : { kind: 'ratio', numerator: { mean: 2, sd: 1 }, denominator: { mean: 4, sd: 2 }, correlation: r.correlation };
+        const full: SizingRequest = {
+          baseline,
+          direction: 'increase',
+          effect: r.effect,
+          arms: [{ name: 'control', weight: r.controlWeight }, ...Array.from({ length: r.treatments }, (_, i) => ({ name: `t${i}`, weight: 1 }))],
+          control: 'control',
+          alpha: 0.05,
+          power: 0.8,
+          sides: r.hypothesis === 'non-inferiority' ? 1 : 2,
+          hypothesis: r.hypothesis,
+          ...(r.daily !== undefined ? { dailyUnits: r.daily } : {}),
+          ...(r.plannedDays !== undefined ? { plannedDays: r.plannedDays } : {}),
+          ...(r.cluster ? { cluster: r.cluster } : {}),
+          trafficShare: 1,
+          reach: r.reach,
+          interimLooks: 0,
+          boundary: 'obrien-fleming-spending',
+          prePeriodCorrelation: 0,
+        };
+        const a = sizeMetric(full);
+        const b = sizeMetric({ ...full, sampleSizeOnly: true });
+        expect(b.ok).toBe(a.ok);
+        if (!a.ok || !b.ok) {
+          expect(b).toEqual(a);
+          return;
+        }
+        expect(b.value.headline).toEqual(a.value.headline);
+        expect(b.value.triggered).toEqual(a.value.triggered);
+        expect(b.value.feasibility?.feasible).toBe(a.value.feasibility?.feasible);
+        expect(b.value.powerByDay).toBeUndefined();
+      }),
+      { numRuns: 300 },
+    );
+  });
+});

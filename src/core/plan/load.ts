@@ -1,7 +1,6 @@
 import { checkWritten, formatFieldPath } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
 import { runRules } from '../source/rule-context.js';
-import { keyLinesOf } from '../source/key-lines.js';
 import { readYaml, type FieldPath, type YamlLimits } from '../source/yaml-source.js';
 import { planJsonSchema } from './json-schema.js';
 import { renamedSurfaceKeys } from './renamed-keys.js';
@@ -45,5 +44,5 @@ export function loadPlan(text: string, file: string): PlanLoadResult {
   const errors = problems.filter((p) => p.severity === 'error');
   const warnings = problems.filter((p) => p.severity === 'warning');
   if (errors.length) return { ok: false, errors, warnings };
-  return { ok: true, loaded: { plan: checked.value, file, line: read.source.locate(['id']).line, keyLines: keyLinesOf(read.source) }, warnings };
+  return { ok: true, loaded: { plan: checked.value, file, line: read.source.locate(['id']).line, keyLines: read.source.keyLines() }, warnings };
 }

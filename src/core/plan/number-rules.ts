@@ -1,6 +1,6 @@
 import type { Rule } from '../source/rule-context.js';
 import type { FieldPath } from '../source/yaml-source.js';
-import { sizePlan } from '../stats/plan-sizing.js';
+import { DEFAULT_SIZING_POLICY, sizePlan } from '../stats/plan-sizing.js';
 import type { Metric, Plan } from './schema.js';
 
 /**
@@ -126,7 +126,7 @@ function numbersInRange(plan: Plan, report: Report): void {
  * Interim looks are left out (they cannot make an effect or a baseline impossible, and cost time).
  */
 function sizeable(plan: Plan, report: Report): void {
-  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } });
+  const sizing = sizePlan({ ...plan, design: { ...plan.design, interimLooks: 0 } }, DEFAULT_SIZING_POLICY, { sampleSizeOnly: true });
   for (const entry of sizing.metrics) {
     if (entry.result.ok) continue;
     const { input, message } = entry.result.error;

@@ -3,7 +3,6 @@ import type { LoadedPlan } from '../plan/load.js';
 import { renamedSurfaceKeys } from '../plan/renamed-keys.js';
 import { checkWritten, type JsonSchemaNode } from '../source/check-written.js';
 import type { Problem } from '../source/problem.js';
-import { keyLinesOf } from '../source/key-lines.js';
 import { readYaml, type YamlLimits } from '../source/yaml-source.js';
 import { entryFromPlan, registrySchema, writtenRegistrySchema, type RegistryEntry } from './schema.js';
 
@@ -28,7 +27,7 @@ export function loadRegistryFile(text: string, file: string): RegistryFileResult
   if (!read.ok) return { ok: false, errors: read.problems };
   const checked = checkWritten(read.source, registrySchema, registryJsonSchema, 'registry');
   if (!checked.ok) return { ok: false, errors: checked.problems };
-  const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line, keyLines: keyLinesOf(read.source, ['tests', index]) }));
+  const entries = checked.value.map((entry, index) => ({ ...entry, file, line: read.source.locate(['tests', index, 'id']).line, keyLines: read.source.keyLines(['tests', index]) }));
   const warnings = renamedSurfaceKeys(read.source, entries.map((_, index) => ['tests', index, 'surface']), 'registry');
   return { ok: true, entries, warnings };
 }

@@ -89,23 +89,65 @@ export function buildAutomaton(names: readonly string[]): Automaton {
   const twins = new Map<number, number[]>();
   for (const [first, other] of duplicates) twins.set(first, [...(twins.get(first) ?? []), other]);
 
+  /** Reports each match found: its state's own name, then every shorter name that ends there too. */
+  const report = (row: number, end: number, onMatch: (name: number, end: number) => void) => {
+    const s = row / width;
+    for (let t = output[s] !== -1 ? s : dictionary[s]!; t !== -1; t = dictionary[t]!) {
+      const name = output[t]!;
+      onMatch(name, end);
+      const same = twins.get(name);
+      if (same) for (const other of same) onMatch(other, end);
+    }
+  };
+  // The loop only notes where matches end (state row, offset) in `found`; matches are reported after it, or when
+  // `found` fills. A call inside the loop (a new callback for every file) would make V8 throw the loop's optimized
+  // code away again and again, and run it unoptimized meanwhile.
+  const found = new Int32Array(2 * 4096);
   return {
     names,
     lengths,
     search(bytes, onMatch) {
       let row = 0;
-      const length = bytes.length;
-      for (let i = 0; i < length; i++) {
-        row = wide ? delta[row + bytes[i]!]! : delta[row + classOf[bytes[i]!]!]!;
-        if (reports[row] === 0) continue;
-        const s = row / width;
-        for (let t = output[s] !== -1 ? s : dictionary[s]!; t !== -1; t = dictionary[t]!) {
-          const name = output[t]!;
-          onMatch(name, i);
-          const same = twins.get(name);
-          if (same) for (const other of same) onMatch(other, i);
-        }
+      let from = 0;
+      for (;;) {
+        const count = wide ? scanWide(delta, reports, bytes, from, row, found) : scanNarrow(delta, classOf, reports, bytes, from, row, found);
+        for (let k = 0; k < count; k += 2) report(found[k]!, found[k + 1]!, onMatch);
+        if (count < found.length) return;
+        // `found` filled: go on from the byte after the last match noted, in the state it left.
+        row = found[count - 2]!;
+        from = found[count - 1]! + 1;
       }
     },
   };
+}
+
+/**
+ * Runs the automaton (rows of 256 entries) over `bytes` from `from` in state row `row`, noting (row, offset) of each
+ * reporting state in `found`; returns how many entries were written, stopping when `found` is full.
+ */
+function scanWide(delta: Int32Array, reports: Uint8Array, bytes: Uint8Array, from: number, row: number, found: Int32Array): number {
+  let count = 0;
+  const length = bytes.length;
+  for (let i = from; i < length; i++) {
+    row = delta[row + bytes[i]!]!;
+    if (reports[row] === 0) continue;
+    found[count++] = row;
+    found[count++] = i;
+    if (count === found.length) return count;
+  }
+  return count;
+}
+
+/** As `scanWide`, for rows of byte classes (large automata). */
+function scanNarrow(delta: Int32Array, classOf: Uint8Array, reports: Uint8Array, bytes: Uint8Array, from: number, row: number, found: Int32Array): number {
+  let count = 0;
+  const length = bytes.length;
+  for (let i = from; i < length; i++) {
+    row = delta[row + classOf[bytes[i]!]!]!;
+    if (reports[row] === 0) continue;
+    found[count++] = row;
+    found[count++] = i;
+    if (count === found.length) return count;
+  }
+  return count;
 }

@@ -30,6 +30,12 @@ export interface YamlSource {
   locate(path: FieldPath): SourceLocation;
   /** Where the key `key` of the mapping at `path` is written (for unknown-key messages). */
   locateKey(path: FieldPath, key: string): SourceLocation;
+  /**
+   * The line of every key and list item under `root`, by field path relative to `root` (`window.end`,
+   * `metrics.guardrails[0]`), from one walk of the parsed nodes. Keys under an alias are not listed:
+   * a finding about one points at the alias, its nearest written parent.
+   */
+  keyLines(root?: FieldPath): Map<string, number>;
 }
 
 export type YamlReadResult = { ok: true; source: YamlSource } | { ok: false; problems: Problem[] };
@@ -128,6 +134,7 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
   };
   const rootOffset = doc.contents?.range[0] ?? 0;
 
+  const lineOf = (offset: number) => lineCounter.linePos(offset).line;
   const walk = (path: FieldPath): { node: Node | null; depth: number } => {
     let node: Node | null = doc.contents as Node | null;
     let depth = 0;
@@ -158,8 +165,34 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
         }
         return at(node?.range?.[0] ?? rootOffset);
       },
+      keyLines(root = []) {
+        const lines = new Map<string, number>();
+        const start = walk(root);
+        if (start.depth === root.length) collectKeyLines(start.node, '', lines, lineOf);
+        return lines;
+      },
     },
   };
+}
+
+/** Adds the line of every key and list item under `node` to `lines`, named as `formatFieldPath` names them. */
+function collectKeyLines(node: Node | null, path: string, lines: Map<string, number>, lineOf: (offset: number) => number): void {
+  if (isMap(node)) {
+    for (const pair of node.items) {
+      if (!isScalar(pair.key) || !pair.key.range) continue;
+      const key = String(pair.key.value);
+      const field = path ? `${path}.${key}` : key;
+      lines.set(field, lineOf(pair.key.range[0]));
+      collectKeyLines(pair.value as Node | null, field, lines, lineOf);
+    }
+  } else if (isSeq(node)) {
+    node.items.forEach((item, index) => {
+      const field = `${path}[${index}]`;
+      const range = (item as Node | null)?.range;
+      if (range) lines.set(field, lineOf(range[0]));
+      collectKeyLines(item as Node | null, field, lines, lineOf);
+    });
+  }
 }
 
 function childOf(node: Node | null, segment: string | number): Node | null {

@@ -72,7 +72,8 @@ function prePeriodOf(metric: Metric, plan: Plan, role: 'primary' | 'guardrail'):
   return { prePeriodCorrelation: role === 'primary' ? plan.design.prePeriodCorrelation : 0, prePeriodCoverage: 1 };
 }
 
-export function sizePlan(plan: Plan, policy: SizingPolicy = DEFAULT_SIZING_POLICY): PlanSizing {
+/** `sampleSizeOnly`: see `SizingRequest.sampleSizeOnly`; for checks that only ask whether a plan can be sized. */
+export function sizePlan(plan: Plan, policy: SizingPolicy = DEFAULT_SIZING_POLICY, options: { sampleSizeOnly?: boolean } = {}): PlanSizing {
   const { design } = plan;
   const plannedDays = plan.window.start && plan.window.end && plan.window.end >= plan.window.start ? inclusiveDays(plan.window.start, plan.window.end) : undefined;
   const clustered = GROUP_UNITS.includes(plan.unit.randomization) && plan.unit.analysis !== plan.unit.randomization && design.cluster;
@@ -84,6 +85,7 @@ export function sizePlan(plan: Plan, policy: SizingPolicy = DEFAULT_SIZING_POLIC
     interimLooks: design.interimLooks,
     boundary: design.interimBoundary,
     longestDays: policy.longestDays,
+    ...(options.sampleSizeOnly ? { sampleSizeOnly: true } : {}),
     ...(design.dailyUnits !== undefined ? { dailyUnits: design.dailyUnits } : {}),
     ...(design.uniqueUnits ? { uniqueUnits: design.uniqueUnits } : {}),
     ...(clustered && design.cluster ? { cluster: { ...design.cluster, ...(design.groupsAvailable !== undefined ? { available: design.groupsAvailable } : {}) } } : {}),

@@ -58,6 +58,12 @@ export interface SizingRequest {
   prePeriodCorrelation: number;
   /** Group randomization with analysis over smaller units. */
   cluster?: { meanSize: number; icc: number; sizeCv: number; available?: number };
+  /**
+   * Stop at the sample size and its duration: no power at the planned end, no power curve, no detectable effect
+   * at the longest window, no better allocation. Validation asks only whether a plan can be sized, for every plan
+   * in the repository, and those extras are most of the work.
+   */
+  sampleSizeOnly?: boolean;
   /** Days in the planned window, both ends included. */
   plannedDays?: number;
   /** `auto` (the default): exact t below EXACT_T_LIMIT control units, normal above. Proportions always use the z test. */
@@ -344,7 +350,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   };
 
   let atPlannedEnd: MetricSizing['atPlannedEnd'];
-  if (request.plannedDays !== undefined && enrolledBy) {
+  if (request.plannedDays !== undefined && enrolledBy && !request.sampleSizeOnly) {
     const totalUnits = Math.floor(enrolledBy(request.plannedDays) * headlineReach);
     atPlannedEnd = { days: request.plannedDays, totalUnits };
     if (effect) {
@@ -365,7 +371,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     notes.push(`The design needs ${headline.clusters.toLocaleString('en-US')} groups, but only ${available.toLocaleString('en-US')} exist: plan for a larger effect, a pre-period adjustment, or a smaller randomization unit.`);
   }
   let powerByDay: MetricSizing['powerByDay'];
-  if (effect && enrolledBy && headline?.duration) {
+  if (effect && enrolledBy && headline?.duration && !request.sampleSizeOnly) {
     // Daily points for short tests, weekly ones beyond three weeks; one step past the longer of
     // the needed and the planned duration, and never more than 30 points.
     const horizon = Math.max(headline.duration.days, request.plannedDays ?? 0);
@@ -390,7 +396,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
         : headline.duration
           ? `it needs ${headline.duration.days} days, beyond the longest sensible window of ${longestDays} days`
           : `the traffic never reaches its sample`;
-      const atLongest = enrolledBy ? detectableAt(enrolledBy(longestDays) * headlineReach) : undefined;
+      const atLongest = enrolledBy && !request.sampleSizeOnly ? detectableAt(enrolledBy(longestDays) * headlineReach) : undefined;
       feasibility = { feasible: false, longestDays, reason, ...(atLongest?.ok ? { detectableAtLongest: atLongest.value } : {}) };
     } else feasibility = { feasible: true, longestDays };
   }
@@ -400,7 +406,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
   // "Multiple Comparisons Using R", 2010, sec. 4.1; from memory).
   let squareRootAllocation: MetricSizing['squareRootAllocation'];
   const k = treatments.length;
-  if (k >= 2 && headline && !request.cluster) {
+  if (k >= 2 && headline && !request.cluster && !request.sampleSizeOnly) {
     const treatmentWeight = treatments.reduce((s, a) => s + a.weight, 0) / k;
     const controlWeight = Math.sqrt(k) * treatmentWeight;
     if (Math.abs(control.weight / treatmentWeight - Math.sqrt(k)) > 0.05) {

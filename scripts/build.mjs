@@ -5,7 +5,8 @@
 // loads its own code from dist/chunks/ through dynamic import() when it runs, so `--version`,
 // `--help` and `validate` never parse the review, git, the statistics or the GitHub client.
 import { build } from 'esbuild';
-import { mkdtemp, readFile, readdir, rm, mkdir } from 'node:fs/promises';
+import { execFileSync } from 'node:child_process';
+import { mkdtemp, readFile, readdir, rm, mkdir, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -64,6 +65,15 @@ await build({
     js: "#!/usr/bin/env node\nimport { createRequire as __plumblineCreateRequire } from 'node:module';\nconst require = __plumblineCreateRequire(import.meta.url);",
   },
 });
+
+// `--help` and `<command> --help` are answered from this file without loading the parser (see src/cli/bin.ts): the
+// text is what the freshly built CLI prints for the same words, asked before help.json exists.
+const helpOf = (...words) => execFileSync(process.execPath, [join(outdir, 'cli.js'), ...words], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1', FORCE_COLOR: '0' } });
+const help = { '': helpOf('--help') };
+const commandList = help[''].slice(help[''].indexOf('\nCommands:\n'));
+for (const [, name] of commandList.matchAll(/^ {2}([a-z]+)\b/gm)) if (name !== 'help') help[name] = helpOf(name, '--help');
+if (Object.keys(help).length < 2) throw new Error('no commands found in the built CLI\'s --help');
+await writeFile(join(outdir, 'help.json'), `${JSON.stringify(help, null, 1)}\n`);
 
 if (check) {
   const filesIn = async (dir) => (await readdir(dir, { recursive: true, withFileTypes: true }).catch(() => [])).filter((e) => e.isFile()).map((e) => join(e.parentPath ?? e.path, e.name).slice(dir.length + 1)).sort();

@@ -24,6 +24,8 @@ export function buildProgram(setExit: (code: number) => void, deps: CliDeps = RE
     .option('-C, --cwd <dir>', 'repository root', '.')
     .option('-c, --config <file>', 'settings file, relative to the repository (default: .plumbline.yml if present)')
     .option('--no-color', 'never colour the output (NO_COLOR is respected too)')
+    // Always 80 columns, whatever the terminal: `--help` is answered from text written at build time (see bin.ts).
+    .configureHelp({ helpWidth: 80 })
     .showHelpAfterError()
     .exitOverride()
     .addHelpText('after', '\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).');

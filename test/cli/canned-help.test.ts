@@ -1,0 +1,44 @@
+import { execFileSync } from 'node:child_process';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+
+/**
+ * `--help` and `<command> --help` are printed from dist/help.json, written at build time, without loading the
+ * parser. The parser itself answers whenever other words come first (`-C . --help`), so comparing the two holds
+ * the canned text to what commander prints today for every command.
+ */
+const DIST = resolve(__dirname, '../../dist');
+const run = (cli: string, ...words: string[]) => execFileSync(process.execPath, [cli, ...words], { encoding: 'utf8' });
+const help = JSON.parse(readFileSync(join(DIST, 'help.json'), 'utf8')) as Record<string, string>;
+const made: string[] = [];
+afterAll(() => made.forEach((dir) => rmSync(dir, { recursive: true, force: true })));
+
+describe('help printed before the parser loads', () => {
+  it('covers the program and every command it lists', () => {
+    const listed = [...run(join(DIST, 'cli.js'), '-C', '.', '--help').matchAll(/^ {2}([a-z]+) /gm)].map((m) => m[1]).filter((n) => n !== 'help');
+    expect(listed.length).toBeGreaterThan(8);
+    expect(Object.keys(help).sort()).toEqual(['', ...listed].sort());
+  });
+
+  it.each(Object.keys(help))('"%s --help" is what the parser prints', (command) => {
+    const words = command ? [command, '--help'] : ['--help'];
+    const fromParser = run(join(DIST, 'cli.js'), '-C', '.', ...words);
+    expect(help[command]).toBe(fromParser);
+    expect(run(join(DIST, 'cli.js'), ...words)).toBe(fromParser);
+    expect(run(join(DIST, 'cli.js'), ...(command ? [command, '-h'] : ['-h']))).toBe(fromParser);
+  });
+
+  it('comes from help.json, and the parser answers what it does not hold', () => {
+    const copy = mkdtempSync(join(tmpdir(), 'plumbline-dist-'));
+    made.push(copy);
+    cpSync(DIST, copy, { recursive: true });
+    writeFileSync(join(copy, 'help.json'), JSON.stringify({ '': 'canned program help\n', validate: 'canned validate help\n' }));
+    expect(run(join(copy, 'cli.js'), '--help')).toBe('canned program help\n');
+    expect(run(join(copy, 'cli.js'), 'validate', '-h')).toBe('canned validate help\n');
+    expect(run(join(copy, 'cli.js'), 'size', '--help')).toBe(help.size);
+    rmSync(join(copy, 'help.json'));
+    expect(run(join(copy, 'cli.js'), '--help')).toBe(help['']);
+  });
+});

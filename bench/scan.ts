@@ -41,6 +41,10 @@ export interface ScanOptions {
 
 export async function benchScan(tree: string | undefined, options: ScanOptions): Promise<ScanFigures> {
   const repo = tree ? givenTree(tree) : scanRepo(options.scale);
+  // A run stopped midway (or the check benchmark) can leave the generated tree on the plan branch: start from main.
+  if (!tree && execFileSync('git', ['rev-parse', '--abbrev-ref', 'HEAD'], { cwd: repo.root, encoding: 'utf8' }).trim() === 'bench') {
+    execFileSync('git', ['checkout', '-q', 'main'], { cwd: repo.root, stdio: 'pipe' });
+  }
   const tracked = execFileSync('git', ['ls-files', '-z'], { cwd: repo.root, encoding: 'utf8', maxBuffer: 1 << 26 }).split('\0').filter(Boolean);
   const rgAvailable = spawnSync('rg', ['--version']).status === 0;
   const startBranch = execFileSync('git', ['rev-parse', '--abbrev-ref', 'HEAD'], { cwd: repo.root, encoding: 'utf8' }).trim();

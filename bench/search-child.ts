@@ -5,7 +5,6 @@ import { readFileSync } from 'node:fs';
 import { openChange } from '../src/adapters/git.js';
 import { createNameScanner } from '../src/core/scan/name-scan.js';
 import { BUILTIN_LOG_PATTERNS, compilePatterns } from '../src/core/scan/patterns.js';
-import { reviewChange } from '../src/run/review-change.js';
 
 const [mode, root, namesFile, baseBranch = 'main'] = process.argv.slice(2) as [string, string, string, string?];
 const names = readFileSync(namesFile, 'utf8').split('\n').filter(Boolean);
@@ -18,7 +17,9 @@ if (mode === 'search') {
   for (const [name, hits] of scanner.results()) if (hits.first) first[name] = `${hits.first.file}:${hits.first.line}`;
   console.log(JSON.stringify({ first, maxRssKiB: process.resourceUsage().maxRSS }));
 } else {
-  // The review of main...bench, with bench checked out, as in a CI run.
+  // The review of main...bench, with bench checked out, as in a CI run. Imported here: the search alone must not pay
+  // for loading the review's code (zod, yaml, the statistics, the checks).
+  const { reviewChange } = await import('../src/run/review-change.js');
   const outcome = await reviewChange({ change: await openChange(root, baseBranch, 'bench') });
   if (outcome.kind !== 'review') throw new Error('settings');
   const events = outcome.review.plans[0]?.events ?? [];

@@ -26,19 +26,19 @@ import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-DYNATSJP.js";
-import "./chunks/chunk-JO4LHWMB.js";
+} from "./chunks/chunk-5NPA7RPB.js";
+import "./chunks/chunk-DRL2OP25.js";
 import "./chunks/chunk-I35W5DNY.js";
 import "./chunks/chunk-S7XY3LXP.js";
 import {
   digestRepository
-} from "./chunks/chunk-ONT6SMZO.js";
+} from "./chunks/chunk-43R4DCR4.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-KW6PW25Y.js";
+import "./chunks/chunk-JS5YSD7N.js";
 import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-MBUMMPQG.js";
-import "./chunks/chunk-HE3NWJPG.js";
+import "./chunks/chunk-DZWOIIFA.js";
 import "./chunks/chunk-B52SKDPA.js";
 import "./chunks/chunk-DLUUJFVQ.js";
 import "./chunks/chunk-SEUGDIED.js";

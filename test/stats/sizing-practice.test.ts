@@ -185,3 +185,25 @@ ${WRITE_OUTPUT}`, [{ k: 3 }, { k: 5 }]);
     expect(relativeError(sizing(5), r[1]!.p!)).toBeLessThan(1e-5);
   });
 });
+
+describe("a guardrail's false-alarm rate is computed once per design", () => {
+  // Sizing remembers the rate for each (analyses, α) pair; a remembered rate must be the one for that pair only.
+  // Checking at every one of K looks can only raise the chance of a false alarm above α, and more looks or a larger α
+  // raise it further (common practice, no source).
+  const falseAlarm = (looks: number, alpha: number) =>
+    sizePlan(
+      planSchema.parse({
+        id: 'p', title: 'T', owners: ['@a'], flags: ['f'], state: 'draft', hypothesis: { change: 'c', 'expected-direction': 'increase' }, unit: { randomization: 'user' }, surface: { path: 's' },
+        metrics: { primary: { name: 'm', kind: 'proportion', baseline: { rate: 0.1 }, events: ['e'] }, guardrails: [{ name: 'g', kind: 'proportion', baseline: { rate: 0.2 }, events: ['e'], direction: 'decrease', tolerance: { absolute: 0.01 }, alpha }] },
+        design: { 'interim-looks': looks - 1 },
+      }),
+    ).metrics[1]!.guardrailLooks!.falseAlarm;
+  it('keeps the rates of different designs apart, in any order', () => {
+    const first = [falseAlarm(3, 0.05), falseAlarm(3, 0.1), falseAlarm(4, 0.05), falseAlarm(3, 0.05)];
+    expect(first[3]).toBe(first[0]);
+    expect(first[0]).toBeGreaterThan(0.05);
+    expect(first[1]).toBeGreaterThan(first[0]!);
+    expect(first[2]).toBeGreaterThan(first[0]!);
+    expect([falseAlarm(4, 0.05), falseAlarm(3, 0.1)]).toEqual([first[2], first[1]]);
+  });
+});

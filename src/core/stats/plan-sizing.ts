@@ -128,7 +128,7 @@ export function sizePlan(plan: Plan, policy: SizingPolicy = DEFAULT_SIZING_POLIC
         sides: 1,
         alpha,
         power,
-        ...(analyses > 1 ? { guardrailLooks: { looks: analyses, falseAlarm: sequentialPower(Array.from({ length: analyses }, () => normalUpperQuantile(alpha)), 1, 0) } } : {}),
+        ...(analyses > 1 ? { guardrailLooks: { looks: analyses, falseAlarm: falseAlarmAtSomeLook(analyses, alpha) } } : {}),
         result: sizeMetric({
           ...common,
           ...prePeriodOf(metric, plan, 'guardrail'),
@@ -153,6 +153,23 @@ export function sizePlan(plan: Plan, policy: SizingPolicy = DEFAULT_SIZING_POLIC
     metrics: entries,
     ...familyOf(entries),
   };
+}
+
+/**
+ * The chance that a one-sided harm check at `alpha`, repeated at each of `looks` analyses, raises a false alarm at
+ * some look. It depends on those two numbers only, and the integration behind it costs more than sizing a metric, so
+ * each pair is computed once (a registry shares a handful of designs; the cache is emptied past 1,000 pairs).
+ */
+const falseAlarms = new Map<string, number>();
+function falseAlarmAtSomeLook(looks: number, alpha: number): number {
+  const key = `${looks}:${alpha}`;
+  let chance = falseAlarms.get(key);
+  if (chance === undefined) {
+    chance = sequentialPower(Array.from({ length: looks }, () => normalUpperQuantile(alpha)), 1, 0);
+    if (falseAlarms.size >= 1000) falseAlarms.clear();
+    falseAlarms.set(key, chance);
+  }
+  return chance;
 }
 
 /** Power for the family, at the planned end when there is one, else at the sizes computed. */

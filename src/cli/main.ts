@@ -44,13 +44,34 @@ export function buildProgram(setExit: (code: number) => void, deps: CliDeps = RE
 
   return program;
 }
+/**
+ * `plumbline valdate --help` and `plumbline help valdate`: commander would print the program's help (the second
+ * on stderr, exit 2) without saying that no such command exists. Asked without the help, commander names the unknown
+ * command and suggests the closest one, which is what the user needs.
+ */
+function withoutHelpForUnknownCommand(argv: readonly string[], program: Command): string[] {
+  const [node = '', script = '', ...words] = argv;
+  const known = new Set(program.commands.flatMap((c) => [c.name(), ...c.aliases()]));
+  const valued = new Set(program.options.filter((o) => o.required || o.optional).flatMap((o) => [o.short, o.long].filter((f): f is string => f !== undefined)));
+  let at = 0;
+  while (at < words.length && words[at]!.startsWith('-') && words[at] !== '--') at += valued.has(words[at]!) ? 2 : 1;
+  const first = words[at];
+  if (first === undefined || known.has(first)) return [...argv];
+  if (first === 'help') {
+    const asked = words[at + 1];
+    return asked !== undefined && !asked.startsWith('-') && !known.has(asked) ? [node, script, ...words.slice(0, at), asked] : [...argv];
+  }
+  if (first.startsWith('-')) return [...argv];
+  return [node, script, ...words.filter((w, i) => i <= at || (w !== '--help' && w !== '-h'))];
+}
+
 /** Runs the CLI and returns its exit code; the single place where errors are reported. */
 export async function runCli(argv: string[], deps: CliDeps = REAL_DEPS): Promise<number> {
   let exitCode: number = EXIT.ok;
   const program = buildProgram((code) => (exitCode = code), deps);
   const stderr = (text: string) => (deps.write ? deps.write.err(text) : process.stderr.write(text));
   try {
-    await program.parseAsync(argv);
+    await program.parseAsync(withoutHelpForUnknownCommand(argv, program));
     return exitCode;
   } catch (error) {
     if (error instanceof CommanderError) {

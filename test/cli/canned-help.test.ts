@@ -42,3 +42,27 @@ describe('help printed before the parser loads', () => {
     expect(run(join(copy, 'cli.js'), '--help')).toBe(help['']);
   });
 });
+
+describe('help for a command that does not exist', () => {
+  // Without this, commander prints the program's help and exits 0 for `valdate --help`, and prints it to stderr
+  // with exit 2 but no reason for `help valdate`: the user never learns the command is misspelt.
+  const attempt = (...words: string[]) => {
+    try {
+      return { code: 0, stdout: run(join(DIST, 'cli.js'), ...words), stderr: '' };
+    } catch (error) {
+      const failed = error as { status: number; stdout: string; stderr: string };
+      return { code: failed.status, stdout: failed.stdout, stderr: failed.stderr };
+    }
+  };
+  it.each([['valdate', '--help'], ['valdate', '-h'], ['-C', '.', 'valdate', '--help'], ['help', 'valdate']])('%s %s names the unknown command and the closest one', (...words) => {
+    const result = attempt(...words);
+    expect(result.code).toBe(2);
+    expect(result.stdout).toBe('');
+    expect(result.stderr).toContain("unknown command 'valdate'");
+    expect(result.stderr).toContain('Did you mean validate?');
+  });
+  it('still gives help for a command that exists, asked either way', () => {
+    expect(attempt('help', 'size')).toEqual({ code: 0, stdout: help.size, stderr: '' });
+    expect(attempt('-C', '.', 'size', '-h')).toEqual({ code: 0, stdout: help.size, stderr: '' });
+  });
+});

@@ -17,7 +17,7 @@ export function addListCommand(program: Command, setExit: SetExit, deps: CliDeps
       const { workspace } = loaded;
       const registry = { entries: workspace.registry.entries.filter((e) => !local.state || e.state === local.state) };
       const skippedFiles = new Set(workspace.problems.filter((p) => p.severity === 'error').map((p) => p.file)).size;
-      output.out(options.format === 'json' ? JSON.stringify(registryJson(registry), null, 2) : renderRegistryText(registry, { color: output.color, skippedFiles }));
+      output.out(options.format === 'json' ? JSON.stringify(registryJson(registry), null, 2) : renderRegistryText(registry, { color: output.color, skippedFiles, ...(workspace.planFiles.length === 0 ? { noPlanFiles: workspace.settingsFile ? { settingsFile: workspace.settingsFile } : {} } : {}) }));
       setExit(EXIT.ok);
     });
 }

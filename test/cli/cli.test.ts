@@ -91,6 +91,16 @@ describe('plumbline list', () => {
     const run = runCli(['-C', root, 'list']);
     expect(run.stdout).toContain('1 file with errors left out; run plumbline validate.');
   });
+
+  it('in a repository without plan files, says so and how to write one, as validate does', () => {
+    const root = makeRepo({ 'src/app.ts': 'export {};\n' });
+    const list = runCli(['-C', root, 'list']);
+    expect(list.status).toBe(0);
+    expect(list.stdout).toContain('No plan files found (no settings file: defaults). Create one with: plumbline new <flag-key>');
+    expect(runCli(['-C', root, 'validate']).stdout).toContain('No plan files found (no settings file: defaults).');
+    // A filter that matches nothing in a repository that has plans is not "no plan files".
+    expect(runCli([...demo, 'list', '--state', 'on-hold']).stdout).not.toContain('No plan files found');
+  });
 });
 
 describe('plumbline new', () => {

@@ -2,6 +2,7 @@ import type { Registry } from '../registry/load.js';
 import type { RegistryEntry } from '../registry/schema.js';
 import type { PlanState } from '../plan/schema.js';
 import { formatTable, terminalSafe, terminalStyle } from './terminal-style.js';
+import { noPlanFilesHint } from './validation.js';
 
 /** Live tests first: they are the ones that can collide with a change today. */
 const STATE_ORDER: Record<PlanState, number> = { live: 0, 'on-hold': 1, draft: 2, concluded: 3 };
@@ -42,7 +43,8 @@ export function registryJson(registry: Registry): object {
   };
 }
 
-export function renderRegistryText(registry: Registry, options: { color: boolean; skippedFiles: number }): string {
+/** `noPlanFiles`: the repository holds no plan file at all (not merely none in the state asked for); say where to start. */
+export function renderRegistryText(registry: Registry, options: { color: boolean; skippedFiles: number; noPlanFiles?: { settingsFile?: string } }): string {
   const style = terminalStyle(options.color);
   const entries = sortEntries(registry.entries);
   const rows = entries.map((e) =>
@@ -54,6 +56,7 @@ export function renderRegistryText(registry: Registry, options: { color: boolean
     .filter(([, n]) => n > 0)
     .map(([s, n]) => `${n} ${s}`);
   out.push(style.dim(`${entries.length} test${entries.length === 1 ? '' : 's'}${byState.length ? `: ${byState.join(', ')}` : ''}.`));
+  if (options.noPlanFiles && entries.length === 0) out.push(style.yellow(noPlanFilesHint(options.noPlanFiles.settingsFile)));
   if (options.skippedFiles) {
     out.push(style.yellow(`${options.skippedFiles} file${options.skippedFiles === 1 ? '' : 's'} with errors left out; run plumbline validate.`));
   }

@@ -32,12 +32,19 @@ export function renderValidationText(report: ValidationReport, options: { color:
       ? style.green(report.warnings ? `valid, with ${count(report.warnings, 'warning')}` : 'all valid')
       : style.red(`${count(report.errors, 'error')}${invalid ? ` in ${count(invalid, 'plan file')}` : ''}`) +
         (report.warnings ? `, ${count(report.warnings, 'warning')}` : '');
-  const settings = report.settingsFile ? ` (settings: ${report.settingsFile})` : ' (no settings file: defaults)';
-  if (report.planFiles === 0) {
-    lines.push(style.yellow(`No plan files found${settings}. Create one with: plumbline new <flag-key>`));
-  }
+  const settings = settingsNote(report.settingsFile);
+  if (report.planFiles === 0) lines.push(style.yellow(noPlanFilesHint(report.settingsFile)));
   lines.push(`${style.bold('Checked')} ${files}${settings}: ${verdict}.`);
   return lines.join('\n');
+}
+
+function settingsNote(settingsFile: string | undefined): string {
+  return settingsFile ? ` (settings: ${settingsFile})` : ' (no settings file: defaults)';
+}
+
+/** What `validate` and `list` say in a repository with no plan file: where they looked, and how to write one. */
+export function noPlanFilesHint(settingsFile: string | undefined): string {
+  return `No plan files found${settingsNote(settingsFile)}. Create one with: plumbline new <flag-key>`;
 }
 
 export function count(n: number, noun: string): string {

@@ -25,26 +25,26 @@ import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-SLYJTMRM.js";
-import "./chunks/chunk-JSHDGRAN.js";
+} from "./chunks/chunk-NRLXQ5EA.js";
+import "./chunks/chunk-4S7E2DX7.js";
 import "./chunks/chunk-CGU3DASN.js";
-import "./chunks/chunk-PK4TAZX7.js";
+import "./chunks/chunk-SOGAVRB3.js";
 import {
   digestRepository
-} from "./chunks/chunk-TARJNXNN.js";
+} from "./chunks/chunk-AEFGSGCU.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-B5FLNI6J.js";
+import "./chunks/chunk-JLFYGTLW.js";
 import "./chunks/chunk-I3AB5CE6.js";
-import "./chunks/chunk-26OHVEWY.js";
-import "./chunks/chunk-2Z5D5NAA.js";
+import "./chunks/chunk-GSB2BMT7.js";
+import "./chunks/chunk-TORA5I44.js";
 import "./chunks/chunk-54OF2UQO.js";
-import "./chunks/chunk-R5CLG4G4.js";
-import "./chunks/chunk-4F4MJKFM.js";
+import "./chunks/chunk-3KFMUS7P.js";
+import "./chunks/chunk-TSPSTEZJ.js";
 import "./chunks/chunk-J5RDXJJD.js";
 import "./chunks/chunk-KSA5GFQK.js";
 import "./chunks/chunk-BXF2RWJM.js";
-import "./chunks/chunk-PDUGBP5Q.js";
+import "./chunks/chunk-KAGGRZCD.js";
 import {
   openChange,
   readFileAtCommit

@@ -25,22 +25,22 @@ import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-NRLXQ5EA.js";
-import "./chunks/chunk-4S7E2DX7.js";
+} from "./chunks/chunk-RL4NI7CF.js";
+import "./chunks/chunk-EIYAQDA5.js";
 import "./chunks/chunk-CGU3DASN.js";
-import "./chunks/chunk-SOGAVRB3.js";
+import "./chunks/chunk-I36QVQA3.js";
 import {
   digestRepository
-} from "./chunks/chunk-AEFGSGCU.js";
+} from "./chunks/chunk-MJ5VHBR2.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-JLFYGTLW.js";
+import "./chunks/chunk-JUJHK36X.js";
 import "./chunks/chunk-I3AB5CE6.js";
-import "./chunks/chunk-GSB2BMT7.js";
-import "./chunks/chunk-TORA5I44.js";
+import "./chunks/chunk-JBVNQSW6.js";
+import "./chunks/chunk-PJTRAYMX.js";
 import "./chunks/chunk-54OF2UQO.js";
-import "./chunks/chunk-3KFMUS7P.js";
-import "./chunks/chunk-TSPSTEZJ.js";
+import "./chunks/chunk-WFNG3OL5.js";
+import "./chunks/chunk-ACARCTR5.js";
 import "./chunks/chunk-J5RDXJJD.js";
 import "./chunks/chunk-KSA5GFQK.js";
 import "./chunks/chunk-BXF2RWJM.js";

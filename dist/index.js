@@ -25,19 +25,19 @@ import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-RL4NI7CF.js";
-import "./chunks/chunk-EIYAQDA5.js";
+} from "./chunks/chunk-IFEEPVPQ.js";
+import "./chunks/chunk-ZPIGQDD3.js";
 import "./chunks/chunk-CGU3DASN.js";
 import "./chunks/chunk-I36QVQA3.js";
 import {
   digestRepository
-} from "./chunks/chunk-MJ5VHBR2.js";
+} from "./chunks/chunk-CJSWRN65.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-JUJHK36X.js";
+import "./chunks/chunk-GP32HYB2.js";
 import "./chunks/chunk-I3AB5CE6.js";
 import "./chunks/chunk-JBVNQSW6.js";
-import "./chunks/chunk-PJTRAYMX.js";
+import "./chunks/chunk-CD6WOGVM.js";
 import "./chunks/chunk-54OF2UQO.js";
 import "./chunks/chunk-WFNG3OL5.js";
 import "./chunks/chunk-ACARCTR5.js";

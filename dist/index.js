@@ -13,39 +13,38 @@ import {
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-55MYW347.js";
+} from "./chunks/chunk-NMKSZ3OR.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-76AUFDIB.js";
-import "./chunks/chunk-P6ZVBC3I.js";
+} from "./chunks/chunk-OZY6VZDH.js";
+import "./chunks/chunk-DQTUJRHC.js";
 import "./chunks/chunk-MYUGBT5N.js";
-import "./chunks/chunk-WEHQQR5J.js";
-import "./chunks/chunk-OLV4RVGO.js";
+import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-5NPA7RPB.js";
-import "./chunks/chunk-DRL2OP25.js";
-import "./chunks/chunk-I35W5DNY.js";
-import "./chunks/chunk-S7XY3LXP.js";
+} from "./chunks/chunk-TDTEBQA7.js";
+import "./chunks/chunk-FB6AYMWO.js";
+import "./chunks/chunk-GIF3ITND.js";
+import "./chunks/chunk-TH3NNBTK.js";
 import {
   digestRepository
-} from "./chunks/chunk-43R4DCR4.js";
+} from "./chunks/chunk-HOB6XZBN.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-JS5YSD7N.js";
+import "./chunks/chunk-NS2G2WOH.js";
 import "./chunks/chunk-V65C5FSR.js";
-import "./chunks/chunk-MBUMMPQG.js";
-import "./chunks/chunk-DZWOIIFA.js";
+import "./chunks/chunk-NZ6ZJYU3.js";
+import "./chunks/chunk-4JE2WK35.js";
 import "./chunks/chunk-B52SKDPA.js";
-import "./chunks/chunk-DLUUJFVQ.js";
-import "./chunks/chunk-SEUGDIED.js";
+import "./chunks/chunk-J3CQQVSX.js";
+import "./chunks/chunk-LSO7NHYS.js";
 import "./chunks/chunk-XJ3K7LET.js";
 import "./chunks/chunk-MGCIOLH6.js";
 import "./chunks/chunk-BXF2RWJM.js";
-import "./chunks/chunk-PDUGBP5Q.js";
+import "./chunks/chunk-KAGGRZCD.js";
 import {
   openChange,
   readFileAtCommit
@@ -55,6 +54,7 @@ import {
   ExternalError,
   UsageError
 } from "./chunks/chunk-TEADBEZM.js";
+import "./chunks/chunk-YHYDL5HF.js";
 import "./chunks/chunk-D7CL2H7J.js";
 import {
   formatCount

@@ -28,7 +28,15 @@ export function buildProgram(setExit: (code: number) => void, deps: CliDeps = RE
     .configureHelp({ helpWidth: 80 })
     .showHelpAfterError()
     .exitOverride()
-    .addHelpText('after', '\nExit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error, 3 internal error (a bug).');
+    // Wrapped by hand: commander wraps descriptions to helpWidth, not the text added after them.
+    .addHelpText(
+      'after',
+      [
+        '',
+        'Exit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or',
+        'environment error, 3 internal error (a bug).',
+      ].join('\n'),
+    );
 
   addValidateCommand(program, setExit, deps);
   addListCommand(program, setExit, deps);

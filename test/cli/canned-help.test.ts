@@ -30,6 +30,11 @@ describe('help printed before the parser loads', () => {
     expect(run(join(DIST, 'cli.js'), ...(command ? [command, '-h'] : ['-h']))).toBe(fromParser);
   });
 
+  it.each(Object.keys(help))('"%s --help" fits in 80 columns, every line of it', (command) => {
+    const long = help[command]!.split('\n').filter((line) => [...line].length > 80);
+    expect(long).toEqual([]);
+  });
+
   it('comes from help.json, and the parser answers what it does not hold', () => {
     const copy = mkdtempSync(join(tmpdir(), 'plumbline-dist-'));
     made.push(copy);

@@ -181,7 +181,7 @@ describe('plumbline schema and help', () => {
   it('documents the exit codes in --help', () => {
     const run = runCli(['--help']);
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain('Exit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or environment error');
+    expect(run.stdout).toContain('Exit codes: 0 fine, 1 blocking findings or invalid plans, 2 usage, settings or\nenvironment error, 3 internal error (a bug).');
     for (const command of ['validate', 'list', 'new', 'schema']) expect(runCli([command, '--help']).status).toBe(0);
   });
 

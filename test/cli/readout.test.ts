@@ -5,7 +5,53 @@ describe('plumbline srm', () => {
   it('raises the alarm below p = 0.0005 and exits 1', () => {
     const run = runCli(['srm', '50412', '49288']);
     expect(run.status).toBe(1);
-    expect(run.stdout).toContain('chi-square = 12.672 on 1 df. Sample ratio mismatch: p = 3.71e-4 < 0.0005.');
+    expect(run.stdout).toContain('chi-square = 12.672 on 1 df. Sample ratio mismatch: p = 3.71e-4 (alarm below 0.0005).');
+  });
+
+  it('states a p-value below 1e-12 as one comparison, "p < 1e-12"', () => {
+    // chisq.test(c(1000, 2000)) in R 4.2 gives X-squared = 333.33 and p.value = 1.8e-74.
+    const run = runCli(['srm', '1000', '2000']);
+    expect(run.status).toBe(1);
+    expect(run.stdout).toContain('chi-square = 333.333 on 1 df. Sample ratio mismatch: p < 1e-12 (alarm below 0.0005).');
+    expect(run.stdout).not.toMatch(/p = </);
+  });
+
+  it.each([
+    ['1e308', '1e308'],
+    ['10.5', '9.5'],
+    ['-1', '20'],
+    ['9007199254740992', '1'],
+  ])('refuses %s %s: counts are whole numbers from 0 to Number.MAX_SAFE_INTEGER (exit 2)', (...counts) => {
+    const run = runCli(['srm', ...counts]);
+    expect(run.status).toBe(2);
+    expect(run.stdout).toBe('');
+    expect(run.stderr).toContain(`counts: "${counts[0]}" is not a count of units`);
+    expect(run.stderr).toContain('write a whole number from 0 to 9007199254740991 (Number.MAX_SAFE_INTEGER)');
+  });
+
+  it.each([
+    [['10', '20', '--threshold', '2'], '--threshold 2: expected a p-value strictly between 0 and 1'],
+    [['10', '20', '--weights', '0,1'], '--weights: "0" is not a planned weight'],
+    [['10', '20', '--weights', '1,1e-320'], '--weights: the planned weights are too far apart'],
+  ])('refuses srm %j with a usage error naming the argument', (args, message) => {
+    const run = runCli(['srm', ...args]);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain(message);
+  });
+
+  it.each([
+    [['9007199254740991', '9007199254740991']],
+    [['0', '5']],
+    [['10', '20', '--weights', '1e308,1e308']],
+  ])('never prints NaN, Infinity or n/a at the edges it accepts: srm %j', (args) => {
+    const run = runCli(['srm', ...args]);
+    expect(run.status).toBe(0);
+    expect(run.stdout).not.toMatch(/NaN|Infinity|n\/a/);
+    expect(run.stdout).toMatch(/No sample ratio mismatch: p = \d/);
+  });
+
+  it('shows a fractional expected count as it is (2.5, not 3)', () => {
+    expect(runCli(['srm', '0', '5']).stdout).toMatch(/arm 1 +50\.0% +0 +2\.5 +0\.00%/);
   });
 
   it('passes a split that fits its planned weights (chisq.test(c(5050, 4950)) gives p = 0.3173 in R 4.2.2)', () => {

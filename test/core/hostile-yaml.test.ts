@@ -73,6 +73,28 @@ describe('a tag YAML does not know is a located problem, never a warning on stde
   });
 });
 
+describe('a key written twice is named, with the line of its first place and its field', () => {
+  it.each([
+    ['at the top', 'id: dup\nid: dup2\n', 2, 1, 'id', '`id` is written twice in the same mapping (first on line 1)'],
+    ['in a nested mapping', 'design:\n  alpha: 0.05\n  power: 0.8\n  alpha: 0.1\n', 4, 3, 'design.alpha', '`alpha` is written twice in the same mapping (first on line 2)'],
+    ['in a list item', 'arms:\n  - name: a\n    weight: 1\n    name: b\n', 4, 5, 'arms[0].name', '`name` is written twice in the same mapping (first on line 2)'],
+    ['in a flow mapping', 'baseline: { rate: 0.1, rate: 0.2 }\n', 1, 24, 'baseline.rate', '`rate` is written twice in the same mapping (first on line 1)'],
+  ])('%s', (_, text, line, column, field, message) => {
+    expect(firstError(text)).toMatchObject({ code: 'plan/duplicate-key', line, column, field, message, expected: 'each key once: keep one of the two, or merge what they hold' });
+  });
+});
+
+describe('an unclosed bracket is reported where it opens, with the field it holds', () => {
+  it.each([
+    ['id: x\nbaseline: { rate: 0.3\nowners: [a]\n', 'baseline'],
+    ['metrics:\n  primary:\n    baseline: { rate: 0.3\n    events: [a]\n', 'metrics.primary.baseline'],
+    ['arms:\n  - { name: a\n  - { name: b }\n', 'arms[0]'],
+    ['{ id: x\n', ''],
+  ])('%j', (text, field) => {
+    expect(firstError(text)).toMatchObject({ code: 'plan/bad-yaml', field });
+  });
+});
+
 describe('common YAML mistakes get what to write instead, at their position', () => {
   it.each([
     ['a second key on the line', 'id: a: b\n', 1, 5, /a second "key:" follows on the same line/, /one key per line/],
@@ -87,6 +109,11 @@ describe('common YAML mistakes get what to write instead, at their position', ()
     ['a key without a colon', 'title: x\nid\n', 2, 1, /a line inside a mapping has no colon/, /"key: value"/],
     ['an unknown escape', 'title: "\\d"\n', 1, 9, /a backslash in a double-quoted value/, /single quotes/],
     ['indentation that fits nothing', 'owners:\n  - 1\n  b: 2\n', 3, 1, /the indentation here does not fit/, /in the same column/],
+    ['an unclosed { with keys after it', 'id: x\nbaseline: { rate: 0.3\nowners: [a]\n', 2, 11, /^this is not valid YAML: this \{ is never closed$/, /^\} after the last item/],
+    ['an unclosed [ with keys after it', 'flags: [a, b\nowners: [a]\n', 1, 8, /^this is not valid YAML: this \[ is never closed$/, /^\] after the last item/],
+    ['an unclosed { at the end of the file', 'id: x\nbaseline: { rate: 0.3\n', 2, 11, /this \{ is never closed/, /\}/],
+    ['an unclosed { in a list item', 'arms:\n  - { name: a\n  - { name: b }\n', 2, 5, /this \{ is never closed/, /\}/],
+    ['a [ closed by }', 'design: { arms: [a, b }\nid: x\n', 1, 17, /this \[ is never closed/, /\]/],
   ])('%s', (_, text, line, column, message, expected) => {
     const error = firstError(text)!;
     expect(error.code).toBe('plan/bad-yaml');

@@ -66,6 +66,38 @@ describe('a plan sizing cannot size fails validation with the message sizing giv
     expect(errors[0]!.message).toMatch(message);
   });
 
+  // The expected text says how to fix this plan's cause, with its own figures (room = 1 - rate rising, rate falling).
+  it.each([
+    [
+      'relative 3 on a rate of 0.3, rising',
+      { ...primary({ kind: 'proportion', baseline: { rate: 0.3 } }), ...design({ 'min-detectable-effect': { relative: 3 } }) },
+      'an effect that keeps the rate inside (0, 1): a rise of less than 0.7 absolute here (from 0.3), or less than 2.333 relative',
+    ],
+    [
+      'absolute 0.4 on a rate of 0.3, falling',
+      { ...primary({ kind: 'proportion', baseline: { rate: 0.3 }, direction: 'decrease' }), ...design({ 'min-detectable-effect': { absolute: 0.4 } }) },
+      'an effect that keeps the rate inside (0, 1): a fall of less than 0.3 absolute here (from 0.3), or less than 1 relative',
+    ],
+    [
+      'a relative effect on a mean whose baseline is 0',
+      primary({ kind: 'mean', baseline: { mean: 0, sd: 3 } }),
+      "an absolute effect in the metric's own units, as in { absolute: 0.5 }: a relative change of a baseline of 0 is 0",
+    ],
+    [
+      'a relative effect on a ratio whose numerator mean is 0',
+      primary({ kind: 'ratio', baseline: { numerator: { mean: 0, sd: 1 }, denominator: { mean: 4, sd: 2 }, correlation: 0.5 } }),
+      "an absolute effect in the metric's own units, as in { absolute: 0.5 }: a relative change of a baseline of 0 is 0",
+    ],
+    [
+      'ratio parts in perfect step',
+      primary({ kind: 'ratio', baseline: { numerator: { mean: 2, sd: 1 }, denominator: { mean: 4, sd: 2 }, correlation: 1 } }),
+      'a numerator and denominator that do not move in perfect step: a correlation below 1, or standard deviations not in the proportion of the means',
+    ],
+  ])('expected fits the cause: %s', (_, overrides, expected) => {
+    const errors = errorsOf(overrides).filter((e) => e.code === 'plan/cannot-be-sized');
+    expect(errors.map((e) => e.expected)).toEqual([expected]);
+  });
+
   it('uses exactly the words sizing uses', () => {
     const plan = cleanPlan(primary({ kind: 'mean', baseline: { mean: 0, sd: 3 } }));
     const errors = errorsOf(plan).filter((e) => e.code === 'plan/cannot-be-sized');

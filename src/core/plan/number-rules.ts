@@ -138,14 +138,55 @@ function sizeable(plan: Plan, report: Report): void {
     if (input === 'effect') path = effectPath;
     else if (input === 'baseline' || input.startsWith('baseline.')) path = [...metricPath, ...input.split('.')];
     if (!path) continue;
+    const metric = entry.role === 'primary' ? plan.metrics.primary : plan.metrics.guardrails[guardrail]!;
+    const effect = entry.role === 'primary' ? plan.design.minDetectableEffect : metric.tolerance;
     report({
       severity: 'error',
       code: 'plan/cannot-be-sized',
       path,
       message: `${entry.metric} cannot be sized: ${message}`,
-      expected: input === 'effect' ? 'an effect sizing can use (an absolute one where the baseline is 0)' : 'baseline figures sizing can use',
+      expected: input === 'effect' ? expectedEffect(metric, effect, entry.direction) : expectedBaseline(metric, input),
     });
   }
+}
+
+type Effect = { relative?: number; absolute?: number };
+
+/** Up to four significant digits, as a plan would write them: 0.7, 2.333. */
+const short = (x: number) => String(Number(x.toPrecision(4)));
+
+/**
+ * What to write instead of an effect sizing cannot use. Sizing's error names the input and says what
+ * went wrong; the fix depends on why, so the cause is read again from the plan's own figures.
+ */
+function expectedEffect(metric: Metric, effect: Effect | undefined, direction: 'increase' | 'decrease'): string {
+  if (!effect) return 'an effect, relative or absolute';
+  if (metric.kind === 'proportion') {
+    const rate = metric.baseline.rate;
+    // The room the rate has before it reaches 1 (rising) or 0 (falling); the target must stay strictly inside.
+    const room = direction === 'increase' ? 1 - rate : rate;
+    const change = effect.absolute ?? (effect.relative ?? 0) * rate;
+    if (change >= room) {
+      return `an effect that keeps the rate inside (0, 1): ${direction === 'increase' ? 'a rise' : 'a fall'} of less than ${short(room)} absolute here (from ${short(rate)}), or less than ${short(room / rate)} relative`;
+    }
+  }
+  const baseline = metric.kind === 'mean' ? metric.baseline.mean : metric.kind === 'ratio' ? metric.baseline.numerator.mean / metric.baseline.denominator.mean : undefined;
+  if (baseline === 0 && effect.absolute === undefined) {
+    return `an absolute effect in the metric's own units, as in { absolute: 0.5 }: a relative change of a baseline of 0 is 0`;
+  }
+  return 'an effect above 0 that sizing can use, relative or absolute';
+}
+
+/** What to write instead of baseline figures sizing cannot use, by the figure sizing names. */
+function expectedBaseline(metric: Metric, input: string): string {
+  if (metric.kind === 'ratio' && input === 'baseline') {
+    return 'a numerator and denominator that do not move in perfect step: a correlation below 1, or standard deviations not in the proportion of the means';
+  }
+  if (input.endsWith('.sd')) return 'a standard deviation above 0';
+  if (input === 'baseline.denominator.mean') return "a denominator's mean above 0";
+  if (input === 'baseline.correlation') return 'a correlation from -1 to 1';
+  if (input === 'baseline.rate') return 'a rate strictly between 0 and 1';
+  return 'baseline figures sizing can use';
 }
 
 /** Numbers out of range are reported first; only a plan whose numbers are all in range is handed to sizing. */

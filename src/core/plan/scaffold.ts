@@ -28,6 +28,10 @@ export function planIdFromFlag(flagKey: string): string {
  * A commented draft plan that already loads, so an author can fill it in step by step and see
  * each hygiene finding disappear. The decision rules are left for the author on purpose: they
  * must be written by a person, before launch.
+ *
+ * Every commented example is a whole YAML block at its final indentation: removing "# " from its
+ * lines, as written, gives a plan that still loads (test/core/scaffold.test.ts uncomments each).
+ * Prose comments start with a capital letter; examples start with a key or a list item.
  */
 export function renderPlanScaffold(options: ScaffoldOptions): string {
   const id = options.id ?? planIdFromFlag(options.flagKey);
@@ -36,7 +40,8 @@ export function renderPlanScaffold(options: ScaffoldOptions): string {
   const end = addDays(start, 27);
   const quote = (s: string) => JSON.stringify(s);
   return `# yaml-language-server: $schema=${options.schemaPath}
-# Experiment plan, written before launch. Reference: docs/plan-reference.md
+# Experiment plan, written before launch. Every key is described by \`plumbline schema plan\` (the JSON
+# Schema above) and by the plan reference in Plumbline's own documentation (docs/plan-reference.md there).
 id: ${id}
 title: ${quote(`Describe the change behind ${options.flagKey}`)}
 owners: [${quote(options.owner ?? '@your-handle')}]
@@ -77,13 +82,14 @@ metrics:
     kind: proportion        # proportion, mean or ratio
     baseline: { rate: 0.1 } # replace with the measured baseline
     events: [conversion_completed]
-  guardrails: []
-    # - name: page-latency
-    #   kind: mean
-    #   baseline: { mean: 420, sd: 180 }
-    #   events: [page_rendered]
-    #   direction: decrease
-    #   tolerance: { relative: 0.02 }
+  # Guardrails: metrics that must not get worse beyond their tolerance (none until you add them).
+  # guardrails:
+  #   - name: page-latency
+  #     kind: mean
+  #     baseline: { mean: 420, sd: 180 }
+  #     events: [page_rendered]
+  #     direction: decrease
+  #     tolerance: { relative: 0.02 }
 
 design:
   arms:
@@ -94,11 +100,11 @@ design:
   min-detectable-effect: { relative: 0.05 }
   # daily-units: 10000      # new eligible units per day (or unique-units: [{ days: 7, units: .. }, { days: 28, units: .. }])
 
-# Decision rules: write them now, before any data arrives.
+# Decision rules: write them now, before any data arrives, in your own words (these are examples).
 # decisions:
-#   win: ""
-#   flat: ""
-#   loss: ""
-#   guardrail-breach: ""
+#   win: "Ship to everyone and remove the flag."
+#   flat: "Keep the simpler experience and remove the flag."
+#   loss: "Roll back and write down what we learned."
+#   guardrail-breach: "Roll back, whatever the primary metric says."
 `;
 }

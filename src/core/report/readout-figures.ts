@@ -17,9 +17,15 @@ export const VERDICT_LABEL: Record<Verdict, string> = {
   'not-read': 'not read',
 };
 
-export function formatP(p: number): string {
+/** A p-value as a table cell: "0.012", "3.1e-5", or "< 1e-12" below what the tail computations resolve. */
+export function formatP(p: number, decimals = 3): string {
   if (p < 1e-12) return '< 1e-12';
-  return p < 0.001 ? p.toExponential(1) : p.toFixed(3);
+  return p < 0.001 ? p.toExponential(decimals - 2) : p.toFixed(decimals);
+}
+
+/** A p-value in a sentence: "p = 0.012", or "p < 1e-12" (one comparison, never "p = < 1e-12"). */
+export function statePValue(p: number, decimals = 3): string {
+  return p < 1e-12 ? 'p < 1e-12' : `p = ${formatP(p, decimals)}`;
 }
 
 function sig(x: number, digits = 3): string {
@@ -89,7 +95,7 @@ export function srmLine(readout: Readout): string | undefined {
   const split = srm.arms.map((a) => formatCount(a.units)).join(' / ');
   const weights = srm.arms.map((a) => formatValue(a.weight)).join(' / ');
   const days = srm.daysChecked ? `; ${srm.daysChecked} days checked, ${srm.days.length} alarmed` : '';
-  return `Sample ratio: ${split} units against weights ${weights}: chi-square ${srm.statistic.toFixed(2)} on ${srm.degreesOfFreedom} df, p = ${formatP(srm.pValue)}, ${srm.mismatch ? 'MISMATCH' : 'no mismatch'} (alarm below ${srm.threshold})${days}.`;
+  return `Sample ratio: ${split} units against weights ${weights}: chi-square ${srm.statistic.toFixed(2)} on ${srm.degreesOfFreedom} df, ${statePValue(srm.pValue)}, ${srm.mismatch ? 'MISMATCH' : 'no mismatch'} (alarm below ${srm.threshold})${days}.`;
 }
 
 export function timingLine(readout: Readout): string {

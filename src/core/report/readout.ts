@@ -1,30 +1,40 @@
 import type { AdjustedPValues } from '../stats/multiple-testing.js';
 import type { SampleRatioCheck } from '../stats/srm.js';
 import { formatCount } from './numbers.js';
+import { formatP as formatPCell, statePValue } from './readout-figures.js';
 import { formatTable } from './terminal-style.js';
 
 export const SRM_JSON_FORMAT = 'plumbline.srm/1';
 export const ADJUST_JSON_FORMAT = 'plumbline.adjusted-p/1';
 
-function formatP(p: number): string {
-  if (p < 1e-12) return '< 1e-12';
-  return p < 0.001 ? p.toExponential(2) : p.toFixed(4);
-}
+/** The srm and adjust commands show one more decimal than a readout's tables. */
+const P_DECIMALS = 4;
+const formatP = (p: number) => formatPCell(p, P_DECIMALS);
 
-export function renderSrmText(check: SampleRatioCheck, observed: readonly number[], weights: readonly number[], threshold: number): string {
+export function renderSrmText(check: SampleRatioCheck, observed: readonly number[], threshold: number): string {
   const total = observed.reduce((a, b) => a + b, 0);
-  const weightSum = weights.reduce((a, b) => a + b, 0);
+  // The planned share from the expected count: summing weights near the largest double would overflow.
   const rows = observed.map((o, i) => [
     `arm ${i + 1}`,
-    `${((weights[i]! / weightSum) * 100).toFixed(1)}%`,
+    `${((check.expected[i]! / total) * 100).toFixed(1)}%`,
     formatCount(o),
-    formatCount(check.expected[i]!),
+    formatExpected(check.expected[i]!),
     `${((o / total) * 100).toFixed(2)}%`,
   ]);
   const verdict = check.mismatch
-    ? `Sample ratio mismatch: p = ${formatP(check.pValue)} < ${threshold}. Do not read the results: find out why assignment or logging lost units first.`
-    : `No sample ratio mismatch: p = ${formatP(check.pValue)} (alarm below ${threshold}).`;
-  return [formatTable(['ARM', 'PLANNED', 'OBSERVED', 'EXPECTED', 'SHARE'], rows), '', `chi-square = ${check.statistic.toFixed(3)} on ${check.degreesOfFreedom} df. ${verdict}`].join('\n');
+    ? `Sample ratio mismatch: ${statePValue(check.pValue, P_DECIMALS)} (alarm below ${threshold}). Do not read the results: find out why assignment or logging lost units first.`
+    : `No sample ratio mismatch: ${statePValue(check.pValue, P_DECIMALS)} (alarm below ${threshold}).`;
+  return [formatTable(['ARM', 'PLANNED', 'OBSERVED', 'EXPECTED', 'SHARE'], rows), '', `chi-square = ${formatStatistic(check.statistic)} on ${check.degreesOfFreedom} df. ${verdict}`].join('\n');
+}
+
+/** An expected count is rarely whole: 2.5 units, not 3. */
+function formatExpected(n: number): string {
+  return n < 1e15 ? n.toLocaleString('en-US', { maximumFractionDigits: 1 }) : formatCount(n);
+}
+
+/** Fixed decimals up to a billion; beyond, toFixed would write every digit of a huge statistic. */
+function formatStatistic(x: number): string {
+  return x < 1e9 ? x.toFixed(3) : x.toExponential(3);
 }
 
 export function renderAdjustedText(pValues: readonly number[], adjusted: AdjustedPValues, q: number): string {

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { closestName } from './closest-name.js';
-import { describeValue, type Problem } from './problem.js';
+import { describeValue, expectedText, type Problem } from './problem.js';
 import type { FieldPath, YamlSource } from './yaml-source.js';
 
 /** The subset of JSON Schema that our generated schemas use, enough to list an object's known keys. */
@@ -132,7 +132,7 @@ function summaryFor(issue: ZodIssueLike): string {
 
 /** zod's own fallback messages start with "Invalid input: "; ours are phrased to follow "expected". */
 function cleanZodMessage(message: string): string {
-  return message.replace(/^Invalid input: expected /, '').replace(/^Invalid input: /, '');
+  return expectedText(message.replace(/^Invalid input: /, ''));
 }
 
 /**

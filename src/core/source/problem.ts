@@ -28,6 +28,14 @@ export interface Problem extends SourceLocation {
   found?: string;
 }
 
+/**
+ * The `expected` text follows the word "expected" when printed. A field's phrase may itself begin with
+ * it ("expected new eligible units per day", the units one expects): drop that word, so it reads once.
+ */
+export function expectedText(phrase: string): string {
+  return phrase.replace(/^expected\s+/i, '');
+}
+
 /** `file:line:column: severity: field: message (expected ...; found ...)`, the compiler-style line. */
 export function formatProblem(problem: Problem): string {
   const where = `${problem.file}:${problem.line}:${problem.column}`;

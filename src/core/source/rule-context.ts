@@ -1,4 +1,4 @@
-import { describeValue, type Problem, type ProblemSeverity } from './problem.js';
+import { describeValue, expectedText, type Problem, type ProblemSeverity } from './problem.js';
 import { formatFieldPath, valueAt } from './check-written.js';
 import type { FieldPath, YamlSource } from './yaml-source.js';
 
@@ -24,7 +24,7 @@ export function runRules<T>(value: T, source: YamlSource, rules: readonly Rule<T
         ...(atKey && path.length ? source.locateKey(path.slice(0, -1), String(path[path.length - 1])) : source.locate(path)),
         field: formatFieldPath(path),
         message,
-        ...(expected ? { expected } : {}),
+        ...(expected ? { expected: expectedText(expected) } : {}),
         ...(found ? { found } : {}),
       });
     },

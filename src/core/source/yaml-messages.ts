@@ -130,6 +130,13 @@ const TRANSLATIONS: readonly Translation[] = [
   },
 ];
 
+/** A { or [ that no } or ] closes, pointed at where it was opened (found in yaml-source.ts). */
+export function explainUnclosedBracket(open: '{' | '['): YamlErrorExplanation {
+  return open === '{'
+    ? { message: 'this { is never closed', expected: '} after the last item, as in { rate: 0.3 }' }
+    : { message: 'this [ is never closed', expected: '] after the last item, as in [web, ios]' };
+}
+
 /** Our wording for one of the `yaml` package's errors, from its code and the first line of its message. */
 export function explainYamlError(code: string, message: string): YamlErrorExplanation {
   const translation = TRANSLATIONS.find((t) => t.code === code && (t.startsWith === undefined || message.startsWith(t.startsWith)));

@@ -1,6 +1,6 @@
 import { CST, Composer, LineCounter, Parser, isMap, isPair, isScalar, isSeq, visit, type Document, type Node } from 'yaml';
 import { formatFieldPath } from './check-written.js';
-import { explainYamlError } from './yaml-messages.js';
+import { explainUnclosedBracket, explainYamlError } from './yaml-messages.js';
 import type { Problem, SourceLocation } from './problem.js';
 
 /** Limits that keep a hostile or accidental file from exhausting memory. */
@@ -89,9 +89,27 @@ export function readYaml(text: string, file: string, limits: YamlLimits, codePre
   if (firstError) {
     const pos = lineCounter.linePos(firstError.pos[0]);
     if (firstError.code === 'DUPLICATE_KEY') {
+      const duplicate = duplicateKeyAt(doc, firstError.pos[0]);
+      if (duplicate) {
+        return fail(
+          pos.line,
+          pos.col,
+          'duplicate-key',
+          `\`${duplicate.key}\` is written twice in the same mapping (first on line ${lineCounter.linePos(duplicate.firstOffset).line})`,
+          'each key once: keep one of the two, or merge what they hold',
+          formatFieldPath(fieldPathAt(doc.contents as Node | null, firstError.pos[0])),
+        );
+      }
       return fail(pos.line, pos.col, 'duplicate-key', 'this key is written twice in the same mapping', 'each key once');
     }
-    const explained = explainYamlError(firstError.code, plainYamlMessage(firstError.message));
+    const plainMessage = plainYamlMessage(firstError.message);
+    const unclosed = unclosedBracket(tokens, firstError.pos[0], plainMessage);
+    if (unclosed) {
+      const opened = lineCounter.linePos(unclosed.offset);
+      const explained = explainUnclosedBracket(unclosed.open);
+      return fail(opened.line, opened.col, 'bad-yaml', `this is not valid YAML: ${explained.message}`, explained.expected, formatFieldPath(fieldPathAt(doc.contents as Node | null, unclosed.offset, true)));
+    }
+    const explained = explainYamlError(firstError.code, plainMessage);
     return fail(pos.line, pos.col, 'bad-yaml', `this is not valid YAML: ${explained.message}`, explained.expected);
   }
 
@@ -249,11 +267,57 @@ function firstDeeperThan(tokens: readonly CST.Token[], limit: number): { offset:
   return { offset: first.offset, path: first.path.map((step) => (typeof step === 'number' ? step : keyName(step))) };
 }
 
-/** The path of keys and list places to the node written at `offset` (a tag stands just before its node). */
-function fieldPathAt(root: Node | null, offset: number): FieldPath {
+/** The key written twice that the yaml package reports at `offset`, and where the mapping first has it. */
+function duplicateKeyAt(doc: Document.Parsed, offset: number): { key: string; firstOffset: number } | undefined {
+  let found: { key: string; firstOffset: number } | undefined;
+  visit(doc, {
+    Map(_, map) {
+      const keys = map.items.map((pair) => (isScalar(pair.key) ? pair.key : undefined));
+      const index = keys.findIndex((key) => key?.range?.[0] === offset);
+      if (index < 0) return undefined;
+      const second = keys[index]!;
+      const first = keys.find((key, i) => i < index && key !== undefined && key.value === second.value);
+      if (first?.range) found = { key: String(second.value), firstOffset: first.range[0] };
+      return visit.BREAK;
+    },
+  });
+  return found;
+}
+
+/**
+ * The bracket left open when the yaml package says a flow collection must "end with a }" (or "]"): the yaml package
+ * reports where it gave up, often lines below (at the next key). The CST keeps each collection's opening
+ * token and its closing ones; the one named is the latest collection of that kind opened before the error
+ * whose closers lack its partner.
+ */
+function unclosedBracket(tokens: readonly CST.Token[], errorOffset: number, message: string): { open: '{' | '['; offset: number } | undefined {
+  const kind = /^Flow (map|sequence)\b.* end with an? ([}\]])$/.exec(message);
+  if (!kind) return undefined;
+  const open = kind[1] === 'map' ? '{' : '[';
+  const close = kind[2];
+  let latest: number | undefined;
+  for (const token of tokens) {
+    if (token.type !== 'document') continue;
+    CST.visit(token, (item) => {
+      for (const part of [item.key, item.value]) {
+        if (part?.type !== 'flow-collection' || part.start.source !== open || part.offset > errorOffset) continue;
+        if (part.end.some((t) => t.source === close)) continue;
+        if (latest === undefined || part.offset > latest) latest = part.offset;
+      }
+    });
+  }
+  return latest === undefined ? undefined : { open, offset: latest };
+}
+
+/**
+ * The path of keys and list places to the node written at `offset` (a tag stands just before its node).
+ * `collectionAt`: the offset is where a collection starts (its bracket), and the path ends at it, not inside.
+ */
+function fieldPathAt(root: Node | null, offset: number, collectionAt = false): FieldPath {
   const path: (string | number)[] = [];
   let node = root;
   while (node && (isMap(node) || isSeq(node))) {
+    if (collectionAt && node.range?.[0] === offset) break;
     const items: unknown[] = node.items;
     const endOf = (item: unknown): number => {
       if (isPair(item)) return (item.value as Node | null)?.range?.[1] ?? (item.key as Node | null)?.range?.[1] ?? 0;

@@ -1,0 +1,24 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+import {
+  SETTINGS_FILE_NAMES,
+  defaultSettings,
+  loadSettings,
+  settingsJsonSchema
+} from "./chunk-4JE2WK35.js";
+import "./chunk-B52SKDPA.js";
+import "./chunk-LSO7NHYS.js";
+import "./chunk-XJ3K7LET.js";
+import "./chunk-MGCIOLH6.js";
+import "./chunk-BXF2RWJM.js";
+import "./chunk-KAGGRZCD.js";
+import "./chunk-X2H4NLT2.js";
+import "./chunk-5GP5B2QS.js";
+import "./chunk-FUJ7I5KY.js";
+export {
+  SETTINGS_FILE_NAMES,
+  defaultSettings,
+  loadSettings,
+  settingsJsonSchema
+};

@@ -13,31 +13,33 @@ import {
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-NMKSZ3OR.js";
+} from "./chunks/chunk-2HW3IRWA.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-OZY6VZDH.js";
+} from "./chunks/chunk-UMTJJXGY.js";
 import "./chunks/chunk-DQTUJRHC.js";
-import "./chunks/chunk-MYUGBT5N.js";
+import "./chunks/chunk-24WLVYT2.js";
 import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-TDTEBQA7.js";
-import "./chunks/chunk-FB6AYMWO.js";
+} from "./chunks/chunk-RA4JNS7R.js";
+import "./chunks/chunk-5CXSNJDV.js";
 import "./chunks/chunk-GIF3ITND.js";
 import "./chunks/chunk-TH3NNBTK.js";
 import {
   digestRepository
-} from "./chunks/chunk-HOB6XZBN.js";
+} from "./chunks/chunk-2NA7TEXZ.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-NS2G2WOH.js";
+import "./chunks/chunk-YKSIR5UZ.js";
 import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-NZ6ZJYU3.js";
-import "./chunks/chunk-4JE2WK35.js";
+import "./chunks/chunk-2WBRTHHA.js";
+import "./chunks/chunk-OPKTFOOT.js";
+import "./chunks/chunk-6TRXKJK6.js";
 import "./chunks/chunk-B52SKDPA.js";
 import "./chunks/chunk-J3CQQVSX.js";
 import "./chunks/chunk-LSO7NHYS.js";

@@ -1,4 +1,5 @@
 import type { ZodType } from 'zod';
+import { DAILY_UNITS, type NumberBound } from '../core/plan/number-rules.js';
 import { SIZING_FLAG_FIELDS } from '../core/plan/schema.js';
 import type { BoundaryKind } from '../core/stats/choices.js';
 import type { MetricBaseline, SizingRequest } from '../core/stats/sizing.js';
@@ -68,6 +69,12 @@ function field(flag: string, text: string | undefined, schema: ZodType<number>, 
   return checked.data;
 }
 
+/** A flag held to the range the plan's rules give the same figure (core/plan/number-rules.ts), so the CLI takes what a plan may hold. */
+function bounded(flag: string, value: number, bound: NumberBound): number {
+  if (value >= bound.min && value <= bound.max) return value;
+  throw new UsageError(`--${flag} is ${value < bound.min ? 'too small' : 'too large'} for sizing to give a meaningful figure; got ${value}`, `expected ${bound.why}`);
+}
+
 function pair(flag: string, text: string | undefined, required: string, meanSchema: ZodType<number>): { mean: number; sd: number } {
   if (text === undefined) throw new UsageError(`--${flag} is required${required}`, `e.g. --${flag} 0.9,1.4`);
   const parts = text.split(',');
@@ -100,7 +107,7 @@ export function requestFromFlags(flags: SizeFlags): SizingRequest {
   const days = flags.days === undefined ? undefined : number('days', flags.days);
   if (days !== undefined && !(Number.isInteger(days) && days > 0)) throw new UsageError('--days needs a whole number of days above 0');
   const effect = flags.effect === undefined ? undefined : field('effect', flags.effect, flags.absolute ? F['effect-absolute'] : F.effect);
-  const dailyUnits = flags.dailyUnits === undefined ? undefined : field('daily-units', flags.dailyUnits, F['daily-units']);
+  const dailyUnits = flags.dailyUnits === undefined ? undefined : bounded('daily-units', field('daily-units', flags.dailyUnits, F['daily-units']), DAILY_UNITS);
   if (effect === undefined && (days === undefined || dailyUnits === undefined)) {
     throw new UsageError(
       days === undefined ? '--effect is required, unless --days and --daily-units ask what is detectable by then' : '--days without --effect asks what is detectable by then, which needs --daily-units',

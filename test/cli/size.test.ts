@@ -8,8 +8,8 @@ describe('plumbline size', () => {
     const run = runCli([...demo, 'size', 'checkout-tip-prompt']);
     expect(run.status).toBe(0);
     expect(run.stdout).toContain('Sizing for checkout-tip-prompt (experiments/checkout-tip-prompt.yaml)');
-    expect(run.stdout).toContain('3 arms (control 34, fixed-amounts 33, percent-of-order 33), α 0.05 two-sided, power 80%');
-    expect(run.stdout).toMatch(/tip-added\s+primary \(2-sided\)\s+6\.00% → 6\.90% \(\+15% relative, \+0\.90 pp\)/);
+    expect(run.stdout).toContain('3 arms (control 34, fixed-amounts 33, percent-of-order 33), α 0.05 two-sided, power 80.0%');
+    expect(run.stdout).toMatch(/tip-added\s+primary \(2-sided\)\s+6\.00% → 6\.90% \(\+15% relative, \+0\.9 pp\)/);
     expect(run.stdout).toContain('tip-added: 2 treatment arms against one control: α 0.025 per comparison (Bonferroni).');
     expect(run.stdout).toContain('tip-added: Interim looks (obrien-fleming-spending, 3 analyses): maximum sample ×1.01 to keep the planned power; stop at |z| ≥ ');
   });
@@ -33,7 +33,7 @@ describe('plumbline size', () => {
     const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.1', '--effect', '0.03', '--daily-units', '5000', '--days', '28', '--format', 'markdown']);
     expect(run.status).toBe(0);
     expect(run.stdout).toContain('```mermaid\nxychart-beta\n  title "Power by day: metric"');
-    expect(run.stdout).toContain('The planned 28 days give 46% power, below the planned 80%.');
+    expect(run.stdout).toContain('The planned 28 days give 46.0% power, below the planned 80.0%.');
   });
 
   it('sizes from flags: mean, ratio, clusters and looks', () => {
@@ -76,7 +76,7 @@ describe('plumbline size', () => {
   it('without --effect, --days and --daily-units answer what is detectable by then', () => {
     const run = runCli(['size', '--kind', 'proportion', '--baseline', '0.1', '--days', '28', '--daily-units', '1000']);
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain('10.0% → 11.0% (+10.3% relative, +1.0 pp)');
+    expect(run.stdout).toContain('10.0% → 11.0% (+10.3% relative, +1.03 pp)');
   });
 
   it('rounds groups up in each arm, not in total: m = 20, ICC 0.05 (design effect 1.95)', () => {
@@ -101,7 +101,7 @@ describe('plumbline size', () => {
   it('the demo weekly-shopper test gives traffic as different people and shows the guardrail underpowered', () => {
     const run = runCli([...demo, 'size', 'basket-reorder-shortcut']);
     expect(run.stdout).toContain('40,000 different eligible units in 7 days and 60,000 different eligible units in 28 days');
-    expect(run.stdout).toMatch(/basket-abandonment: The planned 28 days give \d+% power, below the planned 80%\./);
+    expect(run.stdout).toMatch(/basket-abandonment: The planned 28 days give \d+\.\d% power, below the planned 80\.0%\./);
     expect(run.stdout).toContain('Power for the family: ');
   });
 

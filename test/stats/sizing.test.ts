@@ -100,7 +100,6 @@ describe('sizeMetric', () => {
     const short = sized({ dailyUnits: 1000, plannedDays: Math.floor(needed / 2) });
     expect(short.atPlannedEnd!.power!).toBeLessThan(0.8);
     expect(short.atPlannedEnd!.detectable!.relative).toBeGreaterThan(0.05);
-    expect(short.notes.join(' ')).toMatch(/give \d+% power, below the planned 80%/);
     const long = sized({ dailyUnits: 1000, plannedDays: needed * 2 });
     expect(long.atPlannedEnd!.power!).toBeGreaterThan(0.8);
     expect(long.atPlannedEnd!.detectable!.relative).toBeLessThan(0.05);
@@ -193,5 +192,30 @@ describe('sizePlan', () => {
     const s = sizePlan(plan('shared-list-invite'));
     const primary = s.metrics[0]!.result;
     expect(primary.ok && primary.value.multipliers.designEffect).toBeCloseTo(1 + ((0.45 ** 2 + 1) * 2.3 - 1) * 0.3, 12);
+  });
+});
+
+describe('a detectable change stays within a rate’s range', () => {
+  it('for any rate, direction, hypothesis and traffic down to 0.01 a day: a change within [0, 1], or a reason instead (fast-check)', async () => {
+    const fc = (await import('fast-check')).default;
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.001, max: 0.999, noNaN: true }),
+        fc.constantFrom<'increase' | 'decrease'>('increase', 'decrease'),
+        fc.constantFrom<'superiority' | 'non-inferiority'>('superiority', 'non-inferiority'),
+        fc.double({ min: 0.01, max: 50, noNaN: true }),
+        fc.integer({ min: 1, max: 90 }),
+        (rate, direction, hypothesis, dailyUnits, plannedDays) => {
+          const s = sized({ baseline: { kind: 'proportion', rate }, direction, hypothesis, effect: { absolute: Math.min(rate, 1 - rate) / 2 }, dailyUnits, plannedDays });
+          const end = s.atPlannedEnd!;
+          expect(Boolean(end.detectable) !== Boolean(end.noneDetectable)).toBe(true);
+          for (const change of [end.detectable, s.feasibility?.detectableAtLongest]) {
+            if (change) expect(change.to >= 0 && change.to <= 1).toBe(true);
+          }
+          if (end.noneDetectable) expect(end.noneDetectable.reason).toMatch(/^no change within 0–100% is detectable with (fewer than 1 unit \([\d.]+ expected\)|[\d,]+ units?)$/);
+        },
+      ),
+      { numRuns: 300 },
+    );
   });
 });

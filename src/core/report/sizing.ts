@@ -1,5 +1,6 @@
 import type { MetricSizingEntry, PlanSizing } from '../stats/plan-sizing.js';
 import type { AnalysisSize, MetricSizing } from '../stats/sizing.js';
+import { unitsAmount } from '../stats/traffic.js';
 import { formatCount, formatMultiplier, formatPower, formatRate, formatRelative, formatValue, countOf } from './numbers.js';
 import { safeCell, safeText } from './markdown-safe.js';
 import { formatTable } from './terminal-style.js';
@@ -18,13 +19,37 @@ function valueText(entry: MetricSizingEntry, value: number): string {
   return entry.kind === 'proportion' ? formatRate(value) : formatValue(value);
 }
 
-/** "10.0% → 10.3% (+3% relative)": absolute numbers first, the relative change beside them. */
+/**
+ * The size of a change in the metric's units, unsigned: percentage points with three significant digits for a
+ * rate ("0.821 pp"), the metric's own units otherwise. The readout's minimum detectable effect uses it too, so the
+ * same effect reads the same in the sizing table and the readout.
+ */
+export function changeSize(kind: MetricSizingEntry['kind'], absolute: number): string {
+  const size = Math.abs(absolute);
+  if (kind !== 'proportion') return formatValue(size);
+  const points = size * 100;
+  return `${points !== 0 && points < 1e-3 ? points.toExponential(2) : Number(points.toPrecision(3)).toLocaleString('en-US', { maximumFractionDigits: 8 })} pp`;
+}
+
+/** "10.0% → 10.3% (+3% relative, +0.3 pp)": absolute numbers first, the relative change beside them. */
 export function describeChange(entry: MetricSizingEntry, change: { from?: number; to: number; relative: number; absolute: number }, from: number): string {
-  const absolute =
-    entry.kind === 'proportion'
-      ? `${change.absolute >= 0 ? '+' : '-'}${Math.abs(change.absolute * 100).toPrecision(2)} pp`
-      : `${change.absolute >= 0 ? '+' : '-'}${formatValue(Math.abs(change.absolute))}`;
+  const absolute = `${change.absolute >= 0 ? '+' : '-'}${changeSize(entry.kind, change.absolute)}`;
   return `${valueText(entry, from)} → ${valueText(entry, change.to)} (${formatRelative(change.relative)} relative, ${absolute})`;
+}
+
+/**
+ * "a" or "an" before a number as it is spoken: "an 8%", "an 11.7%", "an 18%", "an 80%", "an 800", "an 11,000",
+ * but "a 1.5%", "a 110%", "a >99.9%" ("more than") (English usage, common practice, no source).
+ */
+export function withArticle(text: string): string {
+  const lead = /^(\d{1,3})(?:,\d{3})*(?:\.\d+)?/.exec(text)?.[1];
+  const an = lead !== undefined && (lead.startsWith('8') || lead === '11' || lead === '18');
+  return `${an ? 'an' : 'a'} ${text}`;
+}
+
+/** What the DETECTABLE BY END cell says when nothing is: "none within 0–100%" for a rate. */
+function noneDetectableCell(entry: MetricSizingEntry): string {
+  return entry.kind === 'proportion' ? 'none within 0–100%' : 'none';
 }
 
 function sizeCells(size: AnalysisSize | undefined): [string, string, string, string] {
@@ -45,8 +70,9 @@ function rows(sizing: PlanSizing): Row[] {
     const s = entry.result.value;
     const effect = s.effect ? describeChange(entry, s.effect, s.baselineValue) : 'no effect given';
     const end = s.atPlannedEnd;
-    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : '';
-    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), end?.power !== undefined ? formatPower(end.power) : '', detectable] };
+    const detectable = end?.detectable ? describeChange(entry, end.detectable, s.baselineValue) : end?.noneDetectable ? noneDetectableCell(entry) : '';
+    const power = end?.power !== undefined ? formatPower(end.power) : end?.noPower ? 'unknown' : '';
+    return { entry, cells: [entry.metric, role, effect, ...sizeCells(s.headline), power, detectable] };
   });
 }
 
@@ -66,11 +92,15 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
     );
   }
   if (entry.guardrailLooks) {
-    out.push(`The interim boundaries are the primary’s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail’s harm check is its own one-sided test at α ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives a ${formatPower(entry.guardrailLooks.falseAlarm)} chance of a false alarm at some look.`);
+    out.push(`The interim boundaries are the primary’s; at each of the ${entry.guardrailLooks.looks} analyses this guardrail’s harm check is its own one-sided test at α ${formatValue(entry.alpha)}, so it can stop the test at the first look; checking ${entry.guardrailLooks.looks} times gives ${withArticle(formatPower(entry.guardrailLooks.falseAlarm))} chance of a false alarm at some look.`);
   }
   if (sizing.feasibility && !sizing.feasibility.feasible) {
     const f = sizing.feasibility;
-    const detect = f.detectableAtLongest ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.` : '';
+    const detect = f.detectableAtLongest
+      ? ` The longest window (${f.longestDays} days) can detect ${describeChange(entry, f.detectableAtLongest, sizing.baselineValue)}.`
+      : f.noneDetectableAtLongest
+        ? ` In the longest window (${f.longestDays} days), ${f.noneDetectableAtLongest.reason}.`
+        : '';
     out.push(`Not feasible at this traffic: ${f.reason}.${detect} Alternatives: plan for a larger effect, pick a more sensitive metric (closer to the change, or with a pre-period adjustment), or ship as a guarded rollout without a test.`);
   }
   if (sizing.squareRootAllocation) {
@@ -98,13 +128,37 @@ export function multiplierNotes(entry: MetricSizingEntry, sizing: MetricSizing):
   return out.map((text) => `${entry.metric}: ${text}`);
 }
 
+/** What the planned end gives: power below the target, or why there is no power or detectable effect. */
+function plannedEndNotes(entry: MetricSizingEntry, sizing: MetricSizing): string[] {
+  const end = sizing.atPlannedEnd;
+  if (!end) return [];
+  const by = `By the planned end (${countOf(end.days, 'day')})`;
+  const out: string[] = [];
+  if (end.noPower && end.noneDetectable && /too few to analyse$/.test(end.noPower.reason)) out.push(`${by}: no power, and ${end.noneDetectable.reason}.`);
+  else {
+    if (end.noPower) out.push(`${by} no power can be computed: ${end.noPower.reason}.`);
+    if (end.noneDetectable) out.push(`${by}: ${end.noneDetectable.reason}.`);
+  }
+  if (end.power !== undefined && end.power < entry.power) out.push(`The planned ${countOf(end.days, 'day')} give ${formatPower(end.power)} power, below the planned ${formatPower(entry.power)}.`);
+  return out.map((text) => `${entry.metric}: ${text}`);
+}
+
+function familyNote(sizing: PlanSizing): string[] {
+  if (sizing.familyOmitted) return [`Power for the family is not computed: ${sizing.familyOmitted.reason}.`];
+  if (!sizing.family) return [];
+  const f = sizing.family;
+  return [
+    `Power for the family: ${formatPower(f.noFalseAlarm)} that the primary wins (${formatPower(f.primaryPower)} alone) and no harmless guardrail shows significant harm (a false alarm); ${formatPower(f.allGuardrailsClear)} that it wins and every guardrail rules out harm beyond its tolerance. Both figures multiply the metrics’ chances as if the metrics were independent. Neither figure bounds the other: a guardrail can show significant harm that is still within its tolerance, and it can fail to rule out harm without showing any.`,
+  ];
+}
+
 function notesOf(sizing: PlanSizing): string[] {
-  const family = sizing.family
-    ? [
-        `Power for the family: ${formatPower(sizing.family.noFalseAlarm)} that the primary wins (${formatPower(sizing.family.primaryPower)} alone) and no harmless guardrail shows significant harm (a false alarm); ${formatPower(sizing.family.allGuardrailsClear)} that it wins and every guardrail rules out harm beyond its tolerance. Metrics taken as independent; the two events overlap, so neither bounds the other.`,
-      ]
-    : [];
-  return [...family, ...sizing.metrics.flatMap((entry) => (entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : []))];
+  return [
+    ...familyNote(sizing),
+    ...sizing.metrics.flatMap((entry) =>
+      entry.result.ok ? [...multiplierNotes(entry, entry.result.value), ...plannedEndNotes(entry, entry.result.value), ...entry.result.value.notes.map((n) => `${entry.metric}: ${n}`)] : [],
+    ),
+  ];
 }
 
 function windowLine(sizing: PlanSizing, context: SizingContext): string {
@@ -130,13 +184,18 @@ export function renderSizingText(sizing: PlanSizing, context: SizingContext): st
   ].join('\n');
 }
 
+/** A power as chart data in percent, held to what formatPower prints: never 100.0 (certainty) nor 0.0. */
+function chartPower(power: number): string {
+  return Math.min(99.9, Math.max(0.1, power * 100)).toFixed(1);
+}
+
 function mermaidPowerChart(entry: MetricSizingEntry, sizing: MetricSizing, target: number): string | undefined {
   const points = sizing.powerByDay;
   // A curve that is already at full power on its first day says nothing a table does not.
   if (!points || points.length < 3 || points[0]!.power > 0.99) return undefined;
   const days = points.map((p) => p.day).join(', ');
-  const power = points.map((p) => (p.power * 100).toFixed(1)).join(', ');
-  const goal = points.map(() => (target * 100).toFixed(0)).join(', ');
+  const power = points.map((p) => chartPower(p.power)).join(', ');
+  const goal = points.map(() => chartPower(target)).join(', ');
   return [
     '```mermaid',
     'xychart-beta',
@@ -165,7 +224,7 @@ export function renderSizingMarkdown(sizing: PlanSizing, context: SizingContext 
     '',
     ...table,
     ...(notes.length ? ['', ...notes.map((n) => `- ${safeText(n)}`)] : []),
-    ...(chart ? ['', `<details><summary>Power by day (the flat line is the planned ${(context.power * 100).toFixed(0)}%)</summary>`, '', chart, '', '</details>'] : []),
+    ...(chart ? ['', `<details><summary>Power by day (the flat line is the planned ${formatPower(context.power)})</summary>`, '', chart, '', '</details>'] : []),
     '',
   ].join('\n');
 }
@@ -186,13 +245,13 @@ export function designSummary(design: {
   reach: number;
 }): string {
   const arms = `${design.arms.length} arms (${design.arms.map((a) => `${a.name} ${formatValue(a.weight)}`).join(', ')})`;
-  const test = `α ${formatValue(design.alpha)} ${design.sides === 2 ? 'two-sided' : 'one-sided'}, power ${formatValue(design.power * 100)}%`;
+  const test = `α ${formatValue(design.alpha)} ${design.sides === 2 ? 'two-sided' : 'one-sided'}, power ${formatPower(design.power)}`;
   const reached = `${formatValue(design.trafficShare * 100)}% of them enrolled${design.reach < 1 ? `, ${formatValue(design.reach * 100)}% of exposed units reach the change` : ''}`;
   const traffic = design.uniqueUnits
     ? `, ${design.uniqueUnits.map((p) => `${formatCount(p.units)} different eligible units in ${p.days} days`).join(' and ')}, ${reached}`
     : design.dailyUnits === undefined
       ? ''
-      : `, ${formatCount(design.dailyUnits)} new eligible units a day, ${reached}`;
+      : `, ${unitsAmount(design.dailyUnits)} new eligible units a day, ${reached}`;
   return `${arms}, ${test}${traffic}.`;
 }
 

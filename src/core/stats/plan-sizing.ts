@@ -58,6 +58,8 @@ export interface PlanSizing {
    * every guardrail also rules out its harm), metrics taken as independent, at the planned end.
    */
   family?: { primaryPower: number; noFalseAlarm: number; allGuardrailsClear: number };
+  /** Why there is no family figure although the plan has guardrails: a power that is not known is not replaced by the planned one. */
+  familyOmitted?: { reason: string };
 }
 
 function baselineOf(metric: Metric): MetricBaseline {
@@ -172,18 +174,32 @@ function falseAlarmAtSomeLook(looks: number, alpha: number): number {
   return chance;
 }
 
-/** Power for the family, at the planned end when there is one, else at the sizes computed. */
-function familyOf(entries: MetricSizingEntry[]): Pick<PlanSizing, 'family'> {
+/**
+ * Power for the family, at the planned end when there is one, else at the sizes computed (where each metric has
+ * its planned power by definition). With a planned end, a metric whose power there is unknown (too few units by
+ * then) leaves the family figure out with the reason: the planned power would claim a sample the test never has.
+ */
+function familyOf(entries: MetricSizingEntry[]): Pick<PlanSizing, 'family' | 'familyOmitted'> {
   const [primary, ...guardrails] = entries;
   if (!primary?.result.ok || guardrails.length === 0) return {};
-  const primaryPower = primary.result.value.atPlannedEnd?.power ?? (primary.result.value.effect ? primary.power : undefined);
-  if (primaryPower === undefined) return {};
+  const omitted = (reason: string) => ({ familyOmitted: { reason } });
+  const powerOf = (entry: MetricSizingEntry, sizing: MetricSizing): number | string => {
+    const end = sizing.atPlannedEnd;
+    if (!end) return entry.power;
+    return end.power ?? `${entry.metric} has no power by the planned end; ${end.noPower?.reason ?? 'it could not be computed'}`;
+  };
+  if (!primary.result.value.effect) return omitted(`the primary metric ${primary.metric} has no minimum detectable effect`);
+  const primaryPower = powerOf(primary, primary.result.value);
+  if (typeof primaryPower === 'string') return omitted(primaryPower);
   let noFalseAlarm = 1;
   let allClear = 1;
   for (const g of guardrails) {
-    if (!g.result.ok || !g.result.value.effect) return {};
+    if (!g.result.ok) return omitted(`guardrail ${g.metric} cannot be sized`);
+    if (!g.result.value.effect) return omitted(`guardrail ${g.metric} has no tolerance, so the harm it must rule out is not known`);
     noFalseAlarm *= 1 - (g.guardrailLooks?.falseAlarm ?? g.alpha);
-    allClear *= g.result.value.atPlannedEnd?.power ?? g.power;
+    const power = powerOf(g, g.result.value);
+    if (typeof power === 'string') return omitted(power);
+    allClear *= power;
   }
   return { family: { primaryPower, noFalseAlarm: primaryPower * noFalseAlarm, allGuardrailsClear: primaryPower * allClear } };
 }

@@ -2,7 +2,7 @@ import { bonferroniAlpha, designEffect, varianceReduction } from './adjustments.
 import type { Duration } from './duration.js';
 import { normalQuantile, normalUpperQuantile, studentQuantile } from './distributions.js';
 import { nonInferiorityProportionMargin, nonInferiorityProportionPower, nonInferiorityProportionSize } from './non-inferiority.js';
-import { dailyCurve, uniqueUnitsCurve, type TrafficCurve } from './traffic.js';
+import { dailyCurve, uniqueUnitsCurve, unitsAmount, type TrafficCurve } from './traffic.js';
 import { meanDetectable, meanPower, meanSampleSize, type MeanMethod } from './mean.js';
 import { proportionDetectable, proportionPower, proportionSampleSize } from './proportion.js';
 import { ratioMoments, type RatioBaseline } from './ratio.js';
@@ -111,9 +111,14 @@ export interface MetricSizing {
   /** At the planned end, for the headline analysis. */
   atPlannedEnd?: {
     days: number;
+    /** Whole units enrolled by then. */
     totalUnits: number;
     power?: number;
+    /** Why there is no power, when an effect was given but the units by then are too few to compute one. */
+    noPower?: { reason: string };
     detectable?: { absolute: number; relative: number; to: number };
+    /** Why there is no detectable effect: none within the metric's range, or too few units. */
+    noneDetectable?: { reason: string };
   };
   /** Power of the headline analysis by day: daily up to three weeks, weekly beyond. */
   powerByDay?: { day: number; power: number }[];
@@ -133,6 +138,23 @@ export interface Feasibility {
   reason?: string;
   /** What the longest window can detect. */
   detectableAtLongest?: { absolute: number; relative: number; to: number };
+  /** Why the longest window can detect nothing: no change within the metric's range, or too few units. */
+  noneDetectableAtLongest?: { reason: string };
+}
+
+/**
+ * The values a metric can take, where the plan fixes them: a rate lies within 0 and 1. The plan
+ * format puts no bound on a mean or a ratio (a mean of profit can be negative), so neither is checked.
+ */
+function rangeOf(kind: MetricBaseline['kind']): { low: number; high: number; text: string } | undefined {
+  return kind === 'proportion' ? { low: 0, high: 1, text: '0–100%' } : undefined;
+}
+
+/** "2 units", "1 unit", or "fewer than 1 unit (0.28 expected)": whole units, honest about a fraction below one. */
+export function enrolledText(expected: number): string {
+  if (expected < 1) return `fewer than 1 unit (${unitsAmount(expected)} expected)`;
+  const whole = Math.floor(expected);
+  return `${unitsAmount(whole)} ${whole === 1 ? 'unit' : 'units'}`;
 }
 
 /** A test needing more units than this is not a test at any traffic (and beyond what a double counts exactly). */
@@ -336,33 +358,42 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     return ok(weakest);
   };
 
-  /** The effect the headline analysis detects with the planned power at a total enrolment. */
-  const detectableAt = (totalEnrolled: number): StatsResult<{ absolute: number; relative: number; to: number }> => {
-    const n1 = controlAt(totalEnrolled);
+  /**
+   * The effect the headline analysis detects with the planned power at an expected enrolment (whole units count),
+   * or why none: a detectable change past the metric's range (a rate below 0% or above 100%) is no change at all.
+   */
+  const range = rangeOf(request.baseline.kind);
+  const detectableAt = (expected: number): { ok: true; value: { absolute: number; relative: number; to: number } } | { ok: false; reason: string } => {
+    const within = range ? `no change within ${range.text}` : 'no change';
+    const none = { ok: false as const, reason: `${within} is detectable with ${enrolledText(expected)}` };
+    const n1 = controlAt(Math.floor(expected));
+    if (!(n1 > 0)) return none;
     let detectable = 0;
     for (const c of comparisons) {
       const dd = c.detectable(n1);
-      if (!dd.ok) return dd;
+      // Input 'n' means the units are too few (or even the edge of the range is not detectable); anything else is named.
+      if (!dd.ok) return dd.error.input === 'n' ? none : { ok: false, reason: dd.error.message };
       detectable = Math.max(detectable, dd.value / headlineScale);
     }
     const sign = request.direction === 'increase' ? 1 : -1;
-    return ok({ absolute: sign * detectable, relative: value === 0 ? 0 : (sign * detectable) / Math.abs(value), to: value + sign * detectable });
+    const to = value + sign * detectable;
+    if (range && !(to >= range.low && to <= range.high)) return none;
+    return { ok: true, value: { absolute: sign * detectable, relative: value === 0 ? 0 : (sign * detectable) / Math.abs(value), to } };
   };
 
   let atPlannedEnd: MetricSizing['atPlannedEnd'];
   if (request.plannedDays !== undefined && enrolledBy && !request.sampleSizeOnly) {
-    const totalUnits = Math.floor(enrolledBy(request.plannedDays) * headlineReach);
+    const expected = enrolledBy(request.plannedDays) * headlineReach;
+    const totalUnits = Math.floor(expected);
     atPlannedEnd = { days: request.plannedDays, totalUnits };
     if (effect) {
-      const p = powerAt(totalUnits, Math.abs(effect.absolute));
-      if (p.ok) atPlannedEnd.power = p.value;
+      const p = totalUnits > 0 ? powerAt(totalUnits, Math.abs(effect.absolute)) : undefined;
+      if (p?.ok) atPlannedEnd.power = p.value;
+      else atPlannedEnd.noPower = { reason: p && p.error.input !== 'n' ? p.error.message : `${enrolledText(expected)} by then, too few to analyse` };
     }
-    const detectable = detectableAt(totalUnits);
-    if (!detectable.ok) notes.push(`No effect is detectable by the planned end: ${detectable.error.message}.`);
-    else atPlannedEnd.detectable = detectable.value;
-    if (atPlannedEnd.power !== undefined && atPlannedEnd.power < request.power) {
-      notes.push(`The planned ${request.plannedDays} days give ${(atPlannedEnd.power * 100).toFixed(0)}% power, below the planned ${(request.power * 100).toFixed(0)}%.`);
-    }
+    const detectable = detectableAt(expected);
+    if (detectable.ok) atPlannedEnd.detectable = detectable.value;
+    else atPlannedEnd.noneDetectable = { reason: detectable.reason };
   }
 
   const headline = diluted ?? triggered;
@@ -394,10 +425,15 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
       const reason = tooMany
         ? `it needs more than ${ABSURD_UNITS.toExponential(0).replace('e+', ' × 10^')} units`
         : headline.duration
-          ? `it needs ${headline.duration.days} days, beyond the longest sensible window of ${longestDays} days`
+          ? `it needs ${unitsAmount(headline.duration.days)} days, beyond the longest sensible window of ${longestDays} days`
           : `the traffic never reaches its sample`;
       const atLongest = enrolledBy && !request.sampleSizeOnly ? detectableAt(enrolledBy(longestDays) * headlineReach) : undefined;
-      feasibility = { feasible: false, longestDays, reason, ...(atLongest?.ok ? { detectableAtLongest: atLongest.value } : {}) };
+      feasibility = {
+        feasible: false,
+        longestDays,
+        reason,
+        ...(atLongest ? (atLongest.ok ? { detectableAtLongest: atLongest.value } : { noneDetectableAtLongest: { reason: atLongest.reason } }) : {}),
+      };
     } else feasibility = { feasible: true, longestDays };
   }
 

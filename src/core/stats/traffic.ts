@@ -69,3 +69,13 @@ export function uniqueUnitsCurve(points: readonly { days: number; units: number 
     source: { kind: 'unique', points: [first, second], exponent },
   });
 }
+
+/**
+ * A number of units for a sentence: whole numbers with separators from 100 up, three significant
+ * digits below, so small traffic reads as it was given ("0.01", "2.5") instead of rounding to 0.
+ */
+export function unitsAmount(n: number): string {
+  if (!Number.isFinite(n)) return String(n);
+  if (Math.abs(n) >= 100) return Math.round(n).toLocaleString('en-US');
+  return Number(n.toPrecision(3)).toLocaleString('en-US', { maximumFractionDigits: 8 });
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './helpers.js';
+import { makeRepo, runCli } from './helpers.js';
 
 const demo = ['-C', 'demo/repo'];
 
@@ -115,3 +115,21 @@ describe('plumbline size', () => {
   });
 });
 
+
+describe('a plan named by id whose file does not load', () => {
+  // Its id cannot be read from a file that fails to load, so `size <id>` used to answer "no plan <id> in this
+  // repository". The file is found by the name plans are written under (<id>.yaml) or by its path.
+  const plan = (extra: string) => `id: broken-plan\ntitle: T\nowners: ['@a']\nflags: [f]\nstate: draft\n${extra}`;
+  it.each([['broken-plan'], ['experiments/broken-plan.yaml']])('size %s lists the file\'s errors', (name) => {
+    const root = makeRepo({ 'experiments/broken-plan.yaml': plan('design: { alpha: lots }\n') });
+    const run = runCli(['-C', root, 'size', name]);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain('experiments/broken-plan.yaml has errors:');
+    expect(run.stderr).toContain('design.alpha');
+    expect(run.stderr).not.toContain('no plan "broken-plan"');
+  });
+  it('a name that matches no file still says which plans exist', () => {
+    const root = makeRepo({ 'experiments/broken-plan.yaml': plan('design: { alpha: lots }\n') });
+    expect(runCli(['-C', root, 'size', 'other-plan']).stderr).toContain('no plan "other-plan" in this repository');
+  });
+});

@@ -132,8 +132,21 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
   const data = workspace.settings.data;
   const yesterday = addDays(options.today, -1);
   const dataThrough = options.through ?? (plan.window.end && plan.window.end < yesterday ? plan.window.end : yesterday);
+  // Checked before any rows are read or any query runs: data that ends before the test starts holds no
+  // exposure of it, and rows read back against such a date would each fail the totals' own checks.
+  const start = plan.window.start;
+  if (start && dataThrough < start) {
+    const where = `${loaded.file}:${lineOfKey(loaded, ['window', 'start'])}`;
+    throw new UsageError(
+      options.through
+        ? `--through ${dataThrough} is before ${plan.id} starts (window.start ${start}, ${where}); nothing written`
+        : `${plan.id} starts on ${start} (window.start, ${where}): yesterday (${dataThrough}) is before it, so there is no data yet; nothing written`,
+      `--through takes the last day of data, on or after ${start} (the day the query's first line names: "data through YYYY-MM-DD")`,
+    );
+  }
 
   let rows: readonly ResultRow[];
+  /** Where the rows came from, as the notes say it after "from". */
   let source: string;
   if (options.fromRows) {
     const text = await options.files.readText(options.fromRows);
@@ -141,7 +154,7 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
     const parsed = parseResultRows(text, options.fromRows);
     if (!parsed.ok) throw new UsageError(`${options.fromRows} cannot be read:\n${parsed.problems.map(formatProblem).join('\n')}`, `save the query's result as CSV with its header row (plumbline totals ${plan.id} --sql --dialect <name> prints the query)`);
     rows = parsed.rows;
-    source = `rows from ${options.fromRows}`;
+    source = `the query's result in ${options.fromRows}`;
   } else {
     const dialect = options.sqlDialect ?? options.engine;
     let sources: { exposures: QuerySource; events: QuerySource };

@@ -1,5 +1,5 @@
 import { execFileSync } from 'node:child_process';
-import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -112,6 +112,30 @@ describe('plumbline totals', () => {
     } finally {
       rmSync(outside, { recursive: true, force: true });
     }
+  });
+
+  it('refuses a --through before the plan starts up front, with one usage error and nothing written', () => {
+    const out = join(root, 'readouts/early.totals.yaml');
+    const fromRows = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'rows.csv', '--through', '2026-11-01', '--out', 'readouts/early.totals.yaml']);
+    expect(fromRows.status).toBe(2);
+    expect(fromRows.stderr).toBe(
+      'plumbline: --through 2026-11-01 is before basket-shapes starts (window.start 2026-11-09, experiments/basket-shapes.yaml:6); nothing written\n' +
+        '  hint: --through takes the last day of data, on or after 2026-11-09 (the day the query\'s first line names: "data through YYYY-MM-DD")\n',
+    );
+    expect(existsSync(out)).toBe(false);
+    // The default date (yesterday) before the start: the same check, said for the default.
+    const early = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--today', '2026-11-05', '--out', 'readouts/early.totals.yaml']);
+    expect(early.status).toBe(2);
+    expect(early.stderr).toContain('yesterday (2026-11-04) is before it, so there is no data yet; nothing written');
+    expect(existsSync(out)).toBe(false);
+  });
+
+  it('says in the notes where the rows came from, each wording once', () => {
+    const notes = (file: string) => /^notes: (.*)$/m.exec(readFileSync(join(root, 'readouts', file), 'utf8'))?.[1];
+    expect(runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'rows.csv', '--through', '2026-11-19', '--out', 'readouts/notes-rows.totals.yaml']).status).toBe(0);
+    expect(notes('notes-rows.totals.yaml')).toBe("Computed by plumbline totals from the query's result in rows.csv, data through 2026-11-19 (UTC).");
+    expect(runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/notes-data.totals.yaml']).status).toBe(0);
+    expect(notes('notes-data.totals.yaml')).toBe('Computed by plumbline totals from DuckDB over --data exports, data through 2026-11-19 (UTC).');
   });
 
   it('points at the file, line and column of a bad CSV field', () => {

@@ -26,19 +26,19 @@ import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-PZWDUOUT.js";
-import "./chunks/chunk-FJ55E5BG.js";
+} from "./chunks/chunk-SCMATKAD.js";
+import "./chunks/chunk-A5ZCVALI.js";
 import "./chunks/chunk-ASHUOTMY.js";
 import "./chunks/chunk-PK4TAZX7.js";
 import {
   digestRepository
-} from "./chunks/chunk-TARJNXNN.js";
+} from "./chunks/chunk-JGQKO3GS.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-B5FLNI6J.js";
+import "./chunks/chunk-XVGELQA3.js";
 import "./chunks/chunk-I3AB5CE6.js";
 import "./chunks/chunk-26OHVEWY.js";
-import "./chunks/chunk-2Z5D5NAA.js";
+import "./chunks/chunk-VIG5MX6X.js";
 import "./chunks/chunk-54OF2UQO.js";
 import "./chunks/chunk-R5CLG4G4.js";
 import "./chunks/chunk-4F4MJKFM.js";

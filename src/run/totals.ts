@@ -9,6 +9,7 @@ import { buildTotalsQuery, type QuerySource } from '../core/totals-query/build-q
 import type { DialectName } from '../core/totals-query/dialects.js';
 import type { SpecProblem } from '../core/totals-query/metric-spec.js';
 import { parseResultRows, rowsFromResult, type ResultRow } from '../core/totals-query/rows-csv.js';
+import { countOf } from '../core/report/numbers.js';
 import { rowsToTotals } from '../core/totals-query/rows-to-totals.js';
 import type { WrittenTotals } from '../core/totals/schema.js';
 import type { QueryProgress, QueryResult } from '../adapters/sql/result.js';
@@ -61,6 +62,8 @@ export type TotalsOutcome =
       dataThrough: string;
       planCommit: string;
       planCommitHow: 'given' | 'went-live' | 'latest';
+      /** Exposure rows of the plan with no exposure time, left out (also said in the notes and in a warning). */
+      untimed: { units: number; rows: number };
       warnings: Problem[];
     };
 
@@ -201,5 +204,18 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
   }
   const checked = loadTotals(built.text, out, plan);
   if (!checked.ok) throw new UsageError(`the totals computed for ${plan.id} do not pass their own checks:\n${[...checked.errors].map(formatProblem).join('\n')}`);
-  return { kind: 'totals', planId: plan.id, out, text: built.text, totals: built.totals, dataThrough, planCommit, planCommitHow, warnings: checked.warnings };
+  const warnings = [...checked.warnings];
+  if (built.untimed.rows) {
+    // Located where the reader can act: the rows file's line, or the setting that names the time column.
+    const at = options.fromRows ? { file: options.fromRows, line: built.untimed.line ?? 1, column: 1 } : workspace.locateSetting(['data', 'exposures', 'exposed-at']);
+    warnings.push({
+      severity: 'warning',
+      code: 'totals/no-exposure-time',
+      ...at,
+      field: options.fromRows ? 'bucket' : 'data.exposures.exposed-at',
+      message: `${countOf(built.untimed.rows, 'exposure row')} of ${plan.id} (${countOf(built.untimed.units, 'unit')}) have no exposure time: left out of every total, so a sample ratio check sees only the units with a time`,
+      expected: `every exposure of ${plan.id} with its time in ${data.exposures.columns.exposedAt}`,
+    });
+  }
+  return { kind: 'totals', planId: plan.id, out, text: built.text, totals: built.totals, dataThrough, planCommit, planCommitHow, untimed: { units: built.untimed.units, rows: built.untimed.rows }, warnings };
 }

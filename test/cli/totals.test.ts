@@ -3,6 +3,7 @@ import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { parse } from 'yaml';
 import { loadTotals } from '../../src/core/totals/load.js';
 import { writeDataFiles } from '../sql/engine-data.js';
 import { SHAPES_PLAN, shapesPlan, smallData } from '../sql/fixtures.js';
@@ -13,6 +14,10 @@ import { makeRepo, repoRoot, runCli } from './helpers.js';
  * small data set: files and DuckDB in one command, the query printed for a warehouse, its result read back,
  * and the mistakes a user makes.
  */
+
+/** smallData() holds 5 exposure rows of the plan (4 units) with no time: every run warns of them, and nothing else. */
+const UNTIMED_WARNING = /^.+:\d+:\d+: warning: (data\.exposures\.exposed-at|bucket): 5 exposure rows of basket-shapes \(4 units\) have no exposure time: left out of every total, so a sample ratio check sees only the units with a time \(expected every exposure of basket-shapes with its time in exposed_at\)$/;
+const besidesUntimed = (stderr: string) => stderr.split('\n').filter((line) => line && !UNTIMED_WARNING.test(line)).join('\n');
 
 let root: string;
 let wentLive: string;
@@ -36,7 +41,7 @@ beforeAll(async () => {
 describe('plumbline totals', () => {
   it('writes the totals from a folder of Parquet files, names the commit where the plan went live, and the readout reads them', () => {
     const run = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--format', 'json']);
-    expect(run.stderr).toBe('');
+    expect(besidesUntimed(run.stderr)).toBe('');
     expect(run.status).toBe(0);
     const report = JSON.parse(run.stdout);
     expect(report).toMatchObject({ format: 'plumbline.totals-run/1', plan: 'basket-shapes', out: 'readouts/basket-shapes.totals.yaml', planCommit: wentLive, planCommitFrom: 'went-live' });
@@ -60,7 +65,7 @@ describe('plumbline totals', () => {
       const inRepo = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/in-repo.totals.yaml']);
       const run = runCli(['-C', root, 'totals', 'basket-shapes', '--data', outside, '--through', '2026-11-19', '--out', 'readouts/outside.totals.yaml']);
       expect(inRepo.status).toBe(0);
-      expect(run.stderr).toBe('');
+      expect(besidesUntimed(run.stderr)).toBe('');
       expect(run.status).toBe(0);
       const arms = (file: string) => loadTotals(readFileSync(join(root, 'readouts', file), 'utf8'), file, shapesPlan());
       const a = arms('in-repo.totals.yaml');
@@ -85,7 +90,7 @@ describe('plumbline totals', () => {
     `], { cwd: join(__dirname, '../..'), encoding: 'utf8' });
     expect(csv).toBe('');
     const fromRows = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'rows.csv', '--through', '2026-11-19', '--out', 'readouts/from-rows.totals.yaml']);
-    expect(fromRows.stderr).toBe('');
+    expect(besidesUntimed(fromRows.stderr)).toBe('');
     expect(fromRows.status).toBe(0);
     const a = loadTotals(readFileSync(join(root, 'readouts/basket-shapes.totals.yaml'), 'utf8'), 'a', shapesPlan());
     const b = loadTotals(readFileSync(join(root, 'readouts/from-rows.totals.yaml'), 'utf8'), 'b', shapesPlan());
@@ -102,7 +107,7 @@ describe('plumbline totals', () => {
       expect(noDate.stderr).toContain('--from-rows needs --through');
       const out = join(outside, 'abs.totals.yaml');
       const run = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', join(outside, 'rows.csv'), '--through', '2026-11-19', '--out', out]);
-      expect(run.stderr).toBe('');
+      expect(besidesUntimed(run.stderr)).toBe('');
       expect(run.status).toBe(0);
       expect(run.stdout).toMatch(/Left out: \d[\d,]* units? in several arms/);
       expect(readFileSync(out, 'utf8')).toContain('plan: basket-shapes');
@@ -130,12 +135,27 @@ describe('plumbline totals', () => {
     expect(existsSync(out)).toBe(false);
   });
 
-  it('says in the notes where the rows came from, each wording once', () => {
-    const notes = (file: string) => /^notes: (.*)$/m.exec(readFileSync(join(root, 'readouts', file), 'utf8'))?.[1];
+  it('says in the notes where the rows came from, each wording once, and the exposures without a time', () => {
+    const untimed = ' Left out: 5 exposure rows (4 units) with no exposure time, so in no day of the window; units seen only there are in no total.';
+    const notes = (file: string) => (parse(readFileSync(join(root, 'readouts', file), 'utf8')) as { notes?: string }).notes;
     expect(runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'rows.csv', '--through', '2026-11-19', '--out', 'readouts/notes-rows.totals.yaml']).status).toBe(0);
-    expect(notes('notes-rows.totals.yaml')).toBe("Computed by plumbline totals from the query's result in rows.csv, data through 2026-11-19 (UTC).");
+    expect(notes('notes-rows.totals.yaml')).toBe(`Computed by plumbline totals from the query's result in rows.csv, data through 2026-11-19 (UTC).${untimed}`);
     expect(runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/notes-data.totals.yaml']).status).toBe(0);
-    expect(notes('notes-data.totals.yaml')).toBe('Computed by plumbline totals from DuckDB over --data exports, data through 2026-11-19 (UTC).');
+    expect(notes('notes-data.totals.yaml')).toBe(`Computed by plumbline totals from DuckDB over --data exports, data through 2026-11-19 (UTC).${untimed}`);
+  });
+
+  it('counts exposures with no time and says so: the report, its JSON, a warning at the setting or at the rows file’s line', () => {
+    // Counted by hand from smallData(): u10 once, u11 twice, untimed-1, untimed-2 (an unknown arm); untimed-3 is another test's.
+    const run = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/untimed.totals.yaml']);
+    expect(run.status).toBe(0);
+    expect(run.stdout).toMatch(/^Left out: .*, 5 exposure rows \(4 units\) with no exposure time\.$/m);
+    expect(run.stderr).toMatch(/^\.plumbline\.yml:2:\d+: warning: data\.exposures\.exposed-at: 5 exposure rows of basket-shapes \(4 units\) have no exposure time/);
+    const json = JSON.parse(runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/untimed.totals.yaml', '--format', 'json']).stdout);
+    expect(json.noExposureTime).toEqual({ units: 4, rows: 5 });
+    const rowsLine = readFileSync(join(root, 'rows.csv'), 'utf8').split('\n').findIndex((l) => l.startsWith('excluded,,no-exposure-time,')) + 1;
+    expect(rowsLine).toBeGreaterThan(1);
+    const fromRows = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'rows.csv', '--through', '2026-11-19', '--out', 'readouts/untimed.totals.yaml']);
+    expect(fromRows.stderr).toContain(`rows.csv:${rowsLine}:1: warning: bucket: 5 exposure rows of basket-shapes (4 units) have no exposure time`);
   });
 
   it('points at the file, line and column of a bad CSV field', () => {

@@ -5,16 +5,18 @@ import { lineOfKey, type LoadedPlan } from '../core/plan/load.js';
 import type { DataSource } from '../core/config/schema.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { loadTotals } from '../core/totals/load.js';
-import { buildTotalsQuery, type QuerySource } from '../core/totals-query/build-query.js';
+import { buildTotalsQuery, type QuerySource, type TotalsQueryInput } from '../core/totals-query/build-query.js';
+import { columnSettings } from '../core/totals-query/diagnose.js';
 import type { DialectName } from '../core/totals-query/dialects.js';
 import type { SpecProblem } from '../core/totals-query/metric-spec.js';
 import { parseResultRows, rowsFromResult, type ResultRow } from '../core/totals-query/rows-csv.js';
 import { countOf } from '../core/report/numbers.js';
 import { rowsToTotals } from '../core/totals-query/rows-to-totals.js';
 import type { WrittenTotals } from '../core/totals/schema.js';
-import type { QueryProgress, QueryResult } from '../adapters/sql/result.js';
+import { DataFaultError, type QueryProgress, type QueryResult } from '../adapters/sql/result.js';
 import { UsageError } from '../errors.js';
 import { findNamedPlan } from './find-plan.js';
+import { explainDataFault } from './totals-data-fault.js';
 import { pathInRepository } from './repo-path.js';
 import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
@@ -167,7 +169,7 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
     } else {
       sources = { exposures: settingsSource(data.exposures.source, 'exposures', options.root), events: settingsSource(data.events.source, 'events', options.root) };
     }
-    const built = buildTotalsQuery({
+    const query: TotalsQueryInput = {
       plan,
       dialect,
       dataThrough,
@@ -175,10 +177,28 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
       events: { source: sources.events, columns: data.events.columns },
       ...(data.prePeriodDays !== undefined ? { prePeriodDays: data.prePeriodDays } : {}),
       ...(data.metricWindowDays !== undefined ? { metricWindowDays: data.metricWindowDays } : {}),
-    });
+    };
+    const built = buildTotalsQuery(query);
     if (!built.ok) throw new UsageError(`no totals query can be written for ${plan.id}:\n${located(loaded, built.problems)}`, 'see docs/totals-from-sql.md');
     if (options.sqlDialect) return { kind: 'sql', sql: built.sql, dialect, dataThrough };
-    const result = await options.runQuery(options.engine, built.sql, { ...data.duckdb, ...(options.progress ? { progress: options.progress } : {}) });
+    const settings = { ...data.duckdb, ...(options.progress ? { progress: options.progress } : {}) };
+    let result: QueryResult;
+    try {
+      result = await options.runQuery(options.engine, built.sql, settings);
+    } catch (error) {
+      if (!(error instanceof DataFaultError)) throw error;
+      const explained = await explainDataFault(error.fault, {
+        engine: options.engine,
+        sources,
+        columns: columnSettings(query),
+        locateSetting: workspace.locateSetting,
+        isSettingWritten: workspace.isSettingWritten,
+        root: options.root,
+        ...(options.data !== undefined ? { dataFlag: options.data } : {}),
+        run: (sql) => options.runQuery(options.engine, sql, { ...data.duckdb }),
+      });
+      throw explained ?? error;
+    }
     const fromEngine = rowsFromResult(result, `${options.engine} result`);
     if (!fromEngine.ok) throw new UsageError(`the ${options.engine} result is not the totals query's:\n${fromEngine.problems.map(formatProblem).join('\n')}`);
     rows = fromEngine.rows;

@@ -158,6 +158,66 @@ describe('plumbline totals', () => {
     expect(fromRows.stderr).toContain(`rows.csv:${rowsLine}:1: warning: bucket: 5 exposure rows of basket-shapes (4 units) have no exposure time`);
   });
 
+  it('names the setting, its line and the columns the data has when a column of the settings is not in the files: every one, no engine text', () => {
+    const settings = readFileSync(join(root, '.plumbline.yml'), 'utf8');
+    writeFileSync(join(root, '.plumbline.yml'), 'data:\n  exposures:\n    unit-id: user_id\n    segments: [platfrom]\n  events:\n    occurred-at: time\n  pre-period-days: 7\n');
+    try {
+      const run = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/columns.totals.yaml']);
+      expect(run.status).toBe(2);
+      expect(run.stderr).toBe(
+        [
+          'plumbline: the data lacks 3 columns the settings name:',
+          '.plumbline.yml:3:14: error: data.exposures.unit-id: the exposures files (--data exports) have no column "user_id" (expected one of the columns there: unit_id, arm, exposed_at, experiment, platform)',
+          '.plumbline.yml:4:16: error: data.exposures.segments[0]: the exposures files (--data exports) have no column "platfrom" (expected one of the columns there: unit_id, arm, exposed_at, experiment, platform)',
+          '.plumbline.yml:6:18: error: data.events.occurred-at: the events files (--data exports) have no column "time" (expected one of the columns there: unit_id, event, occurred_at, value)',
+          '  hint: set in the settings file data.exposures.unit-id: the column that holds it; data.exposures.segments[0]: platform; data.events.occurred-at: the column that holds it',
+          '',
+        ].join('\n'),
+      );
+      expect(existsSync(join(root, 'readouts/columns.totals.yaml'))).toBe(false);
+      // A default no file has: said as the default, at the settings' data block.
+      writeFileSync(join(root, '.plumbline.yml'), 'data:\n  events: { value: amount }\n');
+      const byDefault = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/columns.totals.yaml']);
+      expect(byDefault.stderr).toContain('.plumbline.yml:2:20: error: data.events.value: the events files (--data exports) have no column "amount" (expected one of the columns there: unit_id, event, occurred_at, value)');
+      writeFileSync(join(root, '.plumbline.yml'), 'data:\n  exposures: { experiment: test_id }\n');
+      const experiment = runCli(['-C', root, 'totals', 'basket-shapes', '--data', 'exports', '--through', '2026-11-19', '--out', 'readouts/columns.totals.yaml']);
+      expect(experiment.stderr).toContain('data.exposures.experiment: the column that holds the plan id, or false when every row is this plan’s');
+      for (const r of [run, byDefault, experiment]) expect(r.stderr).not.toMatch(/Binder Error|Referenced column|cause:|    at /);
+    } finally {
+      writeFileSync(join(root, '.plumbline.yml'), settings);
+    }
+  });
+
+  it('names the data file, the line DuckDB’s CSV reader gives, the column and the value when a value does not convert', async () => {
+    const files = await writeDataFiles(smallData(), ['unit_id', 'arm', 'exposed_at', 'experiment', 'platform']);
+    const folder = files.folder;
+    rmSync(files.exposuresParquet);
+    rmSync(files.eventsParquet);
+    try {
+      const events = readFileSync(files.eventsCsv, 'utf8').split('\n');
+      const exposures = readFileSync(files.exposuresCsv, 'utf8').split('\n');
+      const run = (what: string) => runCli(['-C', root, 'totals', 'basket-shapes', '--data', folder, '--through', '2026-11-19', '--out', `readouts/${what}.totals.yaml`]);
+      // Text in the value column, on line 5 of the file (line 1 is the header).
+      writeFileSync(files.eventsCsv, events.map((l, i) => (i === 4 ? l.replace(/,[^,]*$/, ',n/a') : l)).join('\n'));
+      const text = run('bad-value');
+      expect(text.status).toBe(2);
+      expect(text.stderr).toBe(
+        `plumbline: a value in the data is not what the totals query reads:\n${files.eventsCsv}:5: error: column "value": "n/a" does not convert (expected a number, e.g. 42.5, or an empty field for none; the column of data.events.value (its default))\n` +
+          '  hint: correct the value at its source and export the data again, or leave the field empty for none\n',
+      );
+      writeFileSync(files.eventsCsv, events.join('\n'));
+      // A time that is no date, on line 9 of the exposures.
+      writeFileSync(files.exposuresCsv, exposures.map((l, i) => (i === 8 ? l.replace(/^([^,]*,[^,]*,)[^,]*/, '$1yesterday') : l)).join('\n'));
+      const time = run('bad-time');
+      expect(time.status).toBe(2);
+      expect(time.stderr).toContain(`${files.exposuresCsv}:9: error: column "exposed_at": "yesterday" does not convert (expected a timestamp, ISO-8601 with an offset`);
+      expect(existsSync(join(root, 'readouts/bad-time.totals.yaml'))).toBe(false);
+      for (const r of [text, time]) expect(r.stderr).not.toMatch(/Conversion Error|cause:|    at /);
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
   it('points at the file, line and column of a bad CSV field', () => {
     writeFileSync(join(root, 'bad.csv'), 'grain,arm,bucket,metric,units,n,sum_y,sum_y2,sum_x,sum_x2,sum_xy,sum_pre,sum_pre2,sum_ypre\narm,control,,,12,,,,,,,,,\narm,control,,ordered,12,twelve,3,3,,,,,,\n');
     const run = runCli(['-C', root, 'totals', 'basket-shapes', '--from-rows', 'bad.csv', '--through', '2026-11-19', '--out', 'readouts/bad.totals.yaml']);

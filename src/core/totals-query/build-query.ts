@@ -48,7 +48,8 @@ export type TotalsQueryResult = { ok: true; sql: string; metrics: MetricSpec[] }
 
 const indent = (text: string, by = '  ') => text.split('\n').map((l) => (l ? by + l : l)).join('\n');
 
-function from(d: Dialect, source: QuerySource, what: string): string {
+/** The FROM item that reads a source: a quoted table, or DuckDB's reader over the files. */
+export function from(d: Dialect, source: QuerySource, what: string): string {
   if ('table' in source) return tableName(d, source.table);
   if (d.name !== 'duckdb') throw new Error(`${what}: files are read by DuckDB only`);
   const list = `[${source.files.map((f) => d.string(f)).join(', ')}]`;

@@ -111,7 +111,8 @@ async function badValue(fault: Extract<DataFault, { kind: 'bad-value' }>, ctx: D
       break;
     }
   }
-  if (!setting && !value) return undefined;
+  // Nothing to place it at (a database's conversion error names no column): the engine's own sentence stands.
+  if (!setting && !file) return undefined;
   const where = file ? `${shown(ctx, file)}${line ? `:${line}` : ''}` : setting ? sourceName(ctx, setting.table) : 'the data';
   const column = setting?.column ?? fault.column;
   const at = setting ? ctx.locateSetting(setting.path) : undefined;

@@ -67,7 +67,7 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
     const message = error instanceof Error ? error.message : String(error);
     const hint = 'check data.exposures and data.events in the settings (files, columns; data.exposures.experiment: false when the exposures have no experiment column) or --data; --sql prints the query';
     const fault = duckDbFault(message);
-    if (fault) throw new DataFaultError(`DuckDB could not run the query: ${message.split('\n')[0]}`, hint, fault, { cause: error });
+    if (fault) throw new DataFaultError(`DuckDB could not run the totals query: ${message.split('\n')[0]}`, hint, fault, { cause: error });
     throw new ExternalError(`DuckDB could not run the totals query: ${message.split('\n')[0]}`, hint, { cause: error });
   } finally {
     if (timer) clearInterval(timer);

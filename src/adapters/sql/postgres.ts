@@ -64,7 +64,7 @@ export async function runPostgresQuery(sql: string, options: PostgresOptions, en
     const message = withoutSecret(error instanceof Error ? error.message : String(error), secret);
     const hint = 'check data.exposures.table and data.events.table and their columns in the settings (data.exposures.experiment: false when there is no experiment column); --sql --dialect postgres prints the query';
     const fault = postgresFault({ code: (error as { code?: string }).code, message });
-    if (fault) throw new DataFaultError(`PostgreSQL could not run the query: ${message}`, hint, fault);
+    if (fault) throw new DataFaultError(`PostgreSQL could not run the totals query: ${message}`, hint, fault);
     throw new ExternalError(`PostgreSQL could not run the totals query: ${message}`, hint);
   } finally {
     await client.end().catch(() => undefined);

@@ -4,7 +4,7 @@ const require = __plumblineCreateRequire(import.meta.url);
 import {
   createRepoFiles,
   writeFileAtomic
-} from "./chunks/chunk-ER4STLMC.js";
+} from "./chunks/chunk-5AUULDGE.js";
 import {
   reviewJson
 } from "./chunks/chunk-FU56JKRW.js";
@@ -26,16 +26,16 @@ import "./chunks/chunk-OLV4RVGO.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-SCMATKAD.js";
-import "./chunks/chunk-A5ZCVALI.js";
+} from "./chunks/chunk-V6IGWAHF.js";
+import "./chunks/chunk-S6YIXDQX.js";
 import "./chunks/chunk-ASHUOTMY.js";
 import "./chunks/chunk-PK4TAZX7.js";
 import {
   digestRepository
-} from "./chunks/chunk-JGQKO3GS.js";
+} from "./chunks/chunk-PGWCQAR7.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-XVGELQA3.js";
+import "./chunks/chunk-LO4M4OHH.js";
 import "./chunks/chunk-I3AB5CE6.js";
 import "./chunks/chunk-26OHVEWY.js";
 import "./chunks/chunk-VIG5MX6X.js";
@@ -49,12 +49,12 @@ import "./chunks/chunk-PDUGBP5Q.js";
 import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-4ML5HZO2.js";
+} from "./chunks/chunk-IFUP6PU3.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,
   UsageError
-} from "./chunks/chunk-TEADBEZM.js";
+} from "./chunks/chunk-OICJSZPX.js";
 import "./chunks/chunk-D7CL2H7J.js";
 import {
   formatCount

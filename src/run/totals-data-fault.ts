@@ -5,9 +5,9 @@ import { closestName } from '../core/source/closest-name.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import type { FieldPath, SourceLocationFinder } from '../core/source/yaml-source.js';
 import type { QuerySource } from '../core/totals-query/build-query.js';
-import { describeSourceSql, firstBadValueSql, typedCsvReadSql, type ColumnSetting, type DataTable } from '../core/totals-query/diagnose.js';
-import { DataFaultError, type DataFault, type QueryResult } from '../adapters/sql/result.js';
-import { UsageError } from '../errors.js';
+import { describeSourceSql, firstBadValueSql, typedCsvReadSql, type ColumnSetting, type DataFault, type DataTable } from '../core/totals-query/diagnose.js';
+import type { QueryResult } from '../adapters/sql/result.js';
+import { DataFaultError, UsageError } from '../errors.js';
 
 /**
  * A totals query that failed on the data, told where the user can fix it: a missing column at the setting

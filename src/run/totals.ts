@@ -13,8 +13,8 @@ import { parseResultRows, rowsFromResult, type ResultRow } from '../core/totals-
 import { countOf } from '../core/report/numbers.js';
 import { rowsToTotals } from '../core/totals-query/rows-to-totals.js';
 import type { WrittenTotals } from '../core/totals/schema.js';
-import { DataFaultError, type QueryProgress, type QueryResult } from '../adapters/sql/result.js';
-import { UsageError } from '../errors.js';
+import type { QueryProgress, QueryResult } from '../adapters/sql/result.js';
+import { DataFaultError, UsageError } from '../errors.js';
 import { findNamedPlan } from './find-plan.js';
 import { explainDataFault } from './totals-data-fault.js';
 import { pathInRepository } from './repo-path.js';

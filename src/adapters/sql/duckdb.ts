@@ -1,9 +1,9 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { ExternalError, UsageError } from '../../errors.js';
+import { DataFaultError, ExternalError, UsageError } from '../../errors.js';
 import { duckDbFault } from './engine-faults.js';
-import { DataFaultError, type QueryProgress, type QueryResult } from './result.js';
+import type { QueryProgress, QueryResult } from './result.js';
 
 /**
  * The embedded engine: DuckDB in this process, through the optional package `@duckdb/node-api`, loaded

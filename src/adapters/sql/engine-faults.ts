@@ -1,7 +1,7 @@
-import type { DataFault } from './result.js';
+import type { DataFault } from '../../core/totals-query/diagnose.js';
 
 /**
- * The engines' error texts read into facts (result.ts's DataFault). Each pattern is the engine's own
+ * The engines' error texts read into facts (DataFault, core/totals-query/diagnose.ts). Each pattern is the engine's own
  * wording, checked by test/sql/data-faults.test.ts against the installed engine; text that matches none
  * stays the engine's message.
  */

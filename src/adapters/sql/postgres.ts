@@ -1,6 +1,6 @@
-import { ExternalError, UsageError } from '../../errors.js';
+import { DataFaultError, ExternalError, UsageError } from '../../errors.js';
 import { postgresFault } from './engine-faults.js';
-import { DataFaultError, type QueryResult } from './result.js';
+import type { QueryResult } from './result.js';
 
 /**
  * PostgreSQL through the `pg` client, loaded only here. The connection comes from a URL (--url or

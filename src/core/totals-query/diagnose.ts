@@ -62,3 +62,12 @@ export function typedCsvReadSql(file: string, column: string, as: 'time' | 'numb
   const d = DIALECT.duckdb;
   return `SELECT COUNT(${d.identifier(column)}) FROM read_csv([${d.string(file)}], header = true, types = {${d.string(column)}: '${as === 'time' ? 'TIMESTAMP' : 'DOUBLE'}'})`;
 }
+
+/**
+ * What an engine said about the data when a query failed on it, as facts the run layer can place: a column
+ * the query names that the data does not have, or a value that does not convert (with the file, line and
+ * column when the engine said them; never guessed).
+ */
+export type DataFault =
+  | { kind: 'missing-column'; column: string }
+  | { kind: 'bad-value'; column?: string; value?: string; file?: string; line?: number; type?: string };

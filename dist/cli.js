@@ -18,7 +18,7 @@ if (args.length === 1 && (args[0] === "--version" || args[0] === "-V")) {
   process.stdout.write(canned);
 } else {
   nodeModule.enableCompileCache?.();
-  const { runCli } = await import("./chunks/main-Y4MAURSL.js");
+  const { runCli } = await import("./chunks/main-7V43E4R5.js");
   process.exitCode = await runCli(process.argv);
 }
 function cannedHelp(words) {

@@ -233,7 +233,7 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
       code: 'totals/no-exposure-time',
       ...at,
       field: options.fromRows ? 'bucket' : 'data.exposures.exposed-at',
-      message: `${countOf(built.untimed.rows, 'exposure row')} of ${plan.id} (${countOf(built.untimed.units, 'unit')}) have no exposure time: left out of every total, so a sample ratio check sees only the units with a time`,
+      message: `${countOf(built.untimed.rows, 'exposure row')} of ${plan.id} (${countOf(built.untimed.units, 'unit')}) ${built.untimed.rows === 1 ? 'has' : 'have'} no exposure time: left out of every total, so a sample ratio check sees only the units with a time`,
       expected: `every exposure of ${plan.id} with its time in ${data.exposures.columns.exposedAt}`,
     });
   }

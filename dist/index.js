@@ -4,7 +4,7 @@ const require = __plumblineCreateRequire(import.meta.url);
 import {
   createRepoFiles,
   writeFileAtomic
-} from "./chunks/chunk-ER4STLMC.js";
+} from "./chunks/chunk-5AUULDGE.js";
 import {
   reviewJson
 } from "./chunks/chunk-B4AG7LHN.js";
@@ -25,19 +25,19 @@ import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-RA4JNS7R.js";
-import "./chunks/chunk-5CXSNJDV.js";
+} from "./chunks/chunk-R5EOLVET.js";
+import "./chunks/chunk-QK2G46OH.js";
 import "./chunks/chunk-GIF3ITND.js";
 import "./chunks/chunk-TH3NNBTK.js";
 import {
   digestRepository
-} from "./chunks/chunk-2NA7TEXZ.js";
+} from "./chunks/chunk-KLS4XMBT.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-YKSIR5UZ.js";
+import "./chunks/chunk-RZBCMM5S.js";
 import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-NZ6ZJYU3.js";
-import "./chunks/chunk-2WBRTHHA.js";
+import "./chunks/chunk-XF73GKZF.js";
 import "./chunks/chunk-OPKTFOOT.js";
 import "./chunks/chunk-6TRXKJK6.js";
 import "./chunks/chunk-B52SKDPA.js";
@@ -50,12 +50,12 @@ import "./chunks/chunk-KAGGRZCD.js";
 import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-4ML5HZO2.js";
+} from "./chunks/chunk-IFUP6PU3.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,
   UsageError
-} from "./chunks/chunk-TEADBEZM.js";
+} from "./chunks/chunk-OICJSZPX.js";
 import "./chunks/chunk-YHYDL5HF.js";
 import "./chunks/chunk-D7CL2H7J.js";
 import {

@@ -1,3 +1,5 @@
+import type { DataFault } from './core/totals-query/diagnose.js';
+
 /**
  * The three kinds of error, each reported once by the entry point's single top-level catch.
  * User mistakes inside files are not errors at all: they are Problems, returned as data.
@@ -24,6 +26,18 @@ export class ExternalError extends Error {
     options?: { cause?: unknown },
   ) {
     super(message, options);
+  }
+}
+
+/** A query failed on the data; `fault` says how, `message` keeps the engine's first line for anything unplaced. */
+export class DataFaultError extends ExternalError {
+  constructor(
+    message: string,
+    hint: string,
+    readonly fault: DataFault,
+    options?: { cause?: unknown },
+  ) {
+    super(message, hint, options);
   }
 }
 

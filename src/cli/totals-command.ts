@@ -113,6 +113,7 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
               planCommitFrom: outcome.planCommitHow,
               units: Object.fromEntries(Object.entries(outcome.totals.arms).map(([arm, t]) => [arm, t.units])),
               excluded: { severalArms: excluded['several-arms'] ?? 0, unknownArm: excluded['unknown-arm'] ?? 0 },
+              noExposureTime: outcome.untimed,
             },
             null,
             2,
@@ -123,7 +124,7 @@ export function addTotalsCommand(program: Command, setExit: SetExit, deps: CliDe
         output.out(
           [
             `Wrote ${outcome.out}: ${outcome.planId}, data through ${outcome.dataThrough}; units ${units}.`,
-            `Left out: ${countOf(excluded['several-arms'] ?? 0, 'unit')} in several arms, ${formatCount(excluded['unknown-arm'] ?? 0)} with an arm the plan does not have.`,
+            `Left out: ${countOf(excluded['several-arms'] ?? 0, 'unit')} in several arms, ${formatCount(excluded['unknown-arm'] ?? 0)} with an arm the plan does not have${outcome.untimed.rows ? `, ${countOf(outcome.untimed.rows, 'exposure row')} (${countOf(outcome.untimed.units, 'unit')}) with no exposure time` : ''}.`,
             `Plan commit ${outcome.planCommit.slice(0, 12)} (${outcome.planCommitHow === 'went-live' ? 'where the plan went live' : outcome.planCommitHow === 'latest' ? 'the latest commit of the plan file: no commit set it live' : 'given'}).`,
             `Next: plumbline readout ${outcome.planId} --totals ${outcome.out}`,
           ].join('\n'),

@@ -7,6 +7,7 @@ import type { RegistryEntry } from '../core/registry/schema.js';
 import { formatProblem, sortProblems, type Problem } from '../core/source/problem.js';
 import { UsageError } from '../errors.js';
 import type { ProgressReporter, RepoFiles } from '../ports.js';
+import type { FieldPath, SourceLocationFinder } from '../core/source/yaml-source.js';
 
 export interface LoadWorkspaceOptions {
   files: RepoFiles;
@@ -20,6 +21,9 @@ export interface Workspace {
   settings: Settings;
   /** The settings file that was read, if any. */
   settingsFile?: string;
+  /** Where a setting is written in it (its nearest written parent when absent), and whether it is written at all. */
+  locateSetting: SourceLocationFinder;
+  isSettingWritten: (path: FieldPath) => boolean;
   planFiles: string[];
   plans: LoadedPlan[];
   registry: Registry;
@@ -83,6 +87,8 @@ export async function loadWorkspace(options: LoadWorkspaceOptions): Promise<Work
     workspace: {
       settings,
       ...(settingsFile ? { settingsFile } : {}),
+      locateSetting: settingsResult.locate,
+      isSettingWritten: settingsResult.isWritten,
       planFiles,
       plans,
       registry,

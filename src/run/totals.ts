@@ -5,15 +5,18 @@ import { lineOfKey, type LoadedPlan } from '../core/plan/load.js';
 import type { DataSource } from '../core/config/schema.js';
 import { formatProblem, type Problem } from '../core/source/problem.js';
 import { loadTotals } from '../core/totals/load.js';
-import { buildTotalsQuery, type QuerySource } from '../core/totals-query/build-query.js';
+import { buildTotalsQuery, type QuerySource, type TotalsQueryInput } from '../core/totals-query/build-query.js';
+import { columnSettings } from '../core/totals-query/diagnose.js';
 import type { DialectName } from '../core/totals-query/dialects.js';
 import type { SpecProblem } from '../core/totals-query/metric-spec.js';
 import { parseResultRows, rowsFromResult, type ResultRow } from '../core/totals-query/rows-csv.js';
+import { countOf } from '../core/report/numbers.js';
 import { rowsToTotals } from '../core/totals-query/rows-to-totals.js';
 import type { WrittenTotals } from '../core/totals/schema.js';
 import type { QueryProgress, QueryResult } from '../adapters/sql/result.js';
-import { UsageError } from '../errors.js';
+import { DataFaultError, UsageError } from '../errors.js';
 import { findNamedPlan } from './find-plan.js';
+import { explainDataFault } from './totals-data-fault.js';
 import { pathInRepository } from './repo-path.js';
 import { requireWorkspace, type LoadWorkspaceOptions } from './load-workspace.js';
 
@@ -61,6 +64,8 @@ export type TotalsOutcome =
       dataThrough: string;
       planCommit: string;
       planCommitHow: 'given' | 'went-live' | 'latest';
+      /** Exposure rows of the plan with no exposure time, left out (also said in the notes and in a warning). */
+      untimed: { units: number; rows: number };
       warnings: Problem[];
     };
 
@@ -132,8 +137,21 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
   const data = workspace.settings.data;
   const yesterday = addDays(options.today, -1);
   const dataThrough = options.through ?? (plan.window.end && plan.window.end < yesterday ? plan.window.end : yesterday);
+  // Checked before any rows are read or any query runs: data that ends before the test starts holds no
+  // exposure of it, and rows read back against such a date would each fail the totals' own checks.
+  const start = plan.window.start;
+  if (start && dataThrough < start) {
+    const where = `${loaded.file}:${lineOfKey(loaded, ['window', 'start'])}`;
+    throw new UsageError(
+      options.through
+        ? `--through ${dataThrough} is before ${plan.id} starts (window.start ${start}, ${where}); nothing written`
+        : `${plan.id} starts on ${start} (window.start, ${where}): yesterday (${dataThrough}) is before it, so there is no data yet; nothing written`,
+      `--through takes the last day of data, on or after ${start} (the day the query's first line names: "data through YYYY-MM-DD")`,
+    );
+  }
 
   let rows: readonly ResultRow[];
+  /** Where the rows came from, as the notes say it after "from". */
   let source: string;
   if (options.fromRows) {
     const text = await options.files.readText(options.fromRows);
@@ -141,7 +159,7 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
     const parsed = parseResultRows(text, options.fromRows);
     if (!parsed.ok) throw new UsageError(`${options.fromRows} cannot be read:\n${parsed.problems.map(formatProblem).join('\n')}`, `save the query's result as CSV with its header row (plumbline totals ${plan.id} --sql --dialect <name> prints the query)`);
     rows = parsed.rows;
-    source = `rows from ${options.fromRows}`;
+    source = `the query's result in ${options.fromRows}`;
   } else {
     const dialect = options.sqlDialect ?? options.engine;
     let sources: { exposures: QuerySource; events: QuerySource };
@@ -151,7 +169,7 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
     } else {
       sources = { exposures: settingsSource(data.exposures.source, 'exposures', options.root), events: settingsSource(data.events.source, 'events', options.root) };
     }
-    const built = buildTotalsQuery({
+    const query: TotalsQueryInput = {
       plan,
       dialect,
       dataThrough,
@@ -159,10 +177,28 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
       events: { source: sources.events, columns: data.events.columns },
       ...(data.prePeriodDays !== undefined ? { prePeriodDays: data.prePeriodDays } : {}),
       ...(data.metricWindowDays !== undefined ? { metricWindowDays: data.metricWindowDays } : {}),
-    });
+    };
+    const built = buildTotalsQuery(query);
     if (!built.ok) throw new UsageError(`no totals query can be written for ${plan.id}:\n${located(loaded, built.problems)}`, 'see docs/totals-from-sql.md');
     if (options.sqlDialect) return { kind: 'sql', sql: built.sql, dialect, dataThrough };
-    const result = await options.runQuery(options.engine, built.sql, { ...data.duckdb, ...(options.progress ? { progress: options.progress } : {}) });
+    const settings = { ...data.duckdb, ...(options.progress ? { progress: options.progress } : {}) };
+    let result: QueryResult;
+    try {
+      result = await options.runQuery(options.engine, built.sql, settings);
+    } catch (error) {
+      if (!(error instanceof DataFaultError)) throw error;
+      const explained = await explainDataFault(error.fault, {
+        engine: options.engine,
+        sources,
+        columns: columnSettings(query),
+        locateSetting: workspace.locateSetting,
+        isSettingWritten: workspace.isSettingWritten,
+        root: options.root,
+        ...(options.data !== undefined ? { dataFlag: options.data } : {}),
+        run: (sql) => options.runQuery(options.engine, sql, { ...data.duckdb }),
+      });
+      throw explained ?? error;
+    }
     const fromEngine = rowsFromResult(result, `${options.engine} result`);
     if (!fromEngine.ok) throw new UsageError(`the ${options.engine} result is not the totals query's:\n${fromEngine.problems.map(formatProblem).join('\n')}`);
     rows = fromEngine.rows;
@@ -188,5 +224,18 @@ export async function computeTotals(options: TotalsOptions): Promise<TotalsOutco
   }
   const checked = loadTotals(built.text, out, plan);
   if (!checked.ok) throw new UsageError(`the totals computed for ${plan.id} do not pass their own checks:\n${[...checked.errors].map(formatProblem).join('\n')}`);
-  return { kind: 'totals', planId: plan.id, out, text: built.text, totals: built.totals, dataThrough, planCommit, planCommitHow, warnings: checked.warnings };
+  const warnings = [...checked.warnings];
+  if (built.untimed.rows) {
+    // Located where the reader can act: the rows file's line, or the setting that names the time column.
+    const at = options.fromRows ? { file: options.fromRows, line: built.untimed.line ?? 1, column: 1 } : workspace.locateSetting(['data', 'exposures', 'exposed-at']);
+    warnings.push({
+      severity: 'warning',
+      code: 'totals/no-exposure-time',
+      ...at,
+      field: options.fromRows ? 'bucket' : 'data.exposures.exposed-at',
+      message: `${countOf(built.untimed.rows, 'exposure row')} of ${plan.id} (${countOf(built.untimed.units, 'unit')}) ${built.untimed.rows === 1 ? 'has' : 'have'} no exposure time: left out of every total, so a sample ratio check sees only the units with a time`,
+      expected: `every exposure of ${plan.id} with its time in ${data.exposures.columns.exposedAt}`,
+    });
+  }
+  return { kind: 'totals', planId: plan.id, out, text: built.text, totals: built.totals, dataThrough, planCommit, planCommitHow, untimed: { units: built.untimed.units, rows: built.untimed.rows }, warnings };
 }

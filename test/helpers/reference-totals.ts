@@ -13,8 +13,8 @@ import type { ResultRow } from '../../src/core/totals-query/rows-csv.js';
 export interface ExposureRow {
   unit_id: string | null;
   arm: string | null;
-  /** ISO-8601 with an offset, or a Date. */
-  exposed_at: string | Date;
+  /** ISO-8601 with an offset, or a Date; null when the row has no time (counted, never in a total). */
+  exposed_at: string | Date | null;
   experiment?: string | null;
   [segment: string]: string | Date | null | undefined;
 }
@@ -74,10 +74,13 @@ export function referenceRows(raw: { exposures: readonly ExposureRow[]; events: 
   const end = Date.parse(`${addDays(options.dataThrough, 1)}T00:00:00Z`);
 
   // Exposures of this plan in the window; unknown arms counted.
-  const inWindow = raw.exposures.filter((x) => x.unit_id !== null && ms(x.exposed_at) >= begin && ms(x.exposed_at) < end && (!options.experimentColumn || x.experiment === plan.id));
+  const ofPlan = raw.exposures.filter((x) => x.unit_id !== null && (!options.experimentColumn || x.experiment === plan.id));
+  const untimed = ofPlan.filter((x) => x.exposed_at === null);
+  type Timed = ExposureRow & { exposed_at: string | Date };
+  const inWindow = ofPlan.filter((x): x is Timed => x.exposed_at !== null && ms(x.exposed_at) >= begin && ms(x.exposed_at) < end);
   const unknown = inWindow.filter((x) => x.arm === null || !arms.includes(x.arm));
   const known = inWindow.filter((x) => x.arm !== null && arms.includes(x.arm));
-  const byUnit = new Map<string, ExposureRow[]>();
+  const byUnit = new Map<string, Timed[]>();
   for (const x of known) byUnit.set(x.unit_id!, [...(byUnit.get(x.unit_id!) ?? []), x]);
   let several = 0;
   const units: Unit[] = [];
@@ -183,5 +186,6 @@ export function referenceRows(raw: { exposures: readonly ExposureRow[]; events: 
   const none = { arm: null, metric: null, sum_y: null, sum_y2: null, sum_x: null, sum_x2: null, sum_xy: null, sum_pre: null, sum_pre2: null, sum_ypre: null };
   rows.push({ grain: 'excluded', bucket: 'several-arms', units: String(several), n: null, ...none });
   rows.push({ grain: 'excluded', bucket: 'unknown-arm', units: String(new Set(unknown.map((x) => x.unit_id)).size), n: String(unknown.length), ...none });
+  rows.push({ grain: 'excluded', bucket: 'no-exposure-time', units: String(new Set(untimed.map((x) => x.unit_id)).size), n: String(untimed.length), ...none });
   return rows.map((r, i) => ({ line: i + 2, ...Object.fromEntries(ROW_COLUMNS.map((c, j) => [c, { value: r[c], line: i + 2, column: j + 1 }])) }) as ResultRow);
 }

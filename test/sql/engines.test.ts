@@ -136,10 +136,13 @@ const small = smallData();
 const shapesReference = referenceRows(small, { plan: shapesCase.plan, dataThrough: shapesCase.dataThrough, segments: ['platform'], experimentColumn: true, prePeriodDays: 7 });
 
 describe('the small data set reaches the reference with its dirt', () => {
-  it('has units in two arms, unknown arms and a cap that bites', () => {
+  it('has units in two arms, unknown arms, exposures with no time and a cap that bites', () => {
     const excluded = Object.fromEntries(shapesReference.filter((r) => r.grain.value === 'excluded').map((r) => [r.bucket.value, Number(r.units.value)]));
     expect(excluded['several-arms']).toBeGreaterThan(0);
     expect(excluded['unknown-arm']).toBeGreaterThan(0);
+    // Planted in smallData(): 5 rows of 4 units with no exposure time (another test's untimed row not among them).
+    const untimed = shapesReference.find((r) => r.grain.value === 'excluded' && r.bucket.value === 'no-exposure-time')!;
+    expect([untimed.units.value, untimed.n.value]).toEqual(['4', '5']);
     expect(shapesReference.filter((r) => r.grain.value === 'arm' && r.metric.value !== null)).toHaveLength(2 * 5);
     const uncapped = referenceRows(small, { plan: shapesPlan(SHAPES_PLAN.replace(', capped-at: 90', '')), dataThrough: shapesCase.dataThrough, experimentColumn: true, prePeriodDays: 7 });
     const spend = (rows: ResultRow[]) => Number(rows.find((r) => r.grain.value === 'arm' && r.arm.value === 'control' && r.metric.value === 'spend')!.sum_y.value);

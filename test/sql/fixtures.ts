@@ -57,7 +57,7 @@ const iso = (ms: number, offsetHours = 0) => {
   return `${local}${sign}${h}:00`;
 };
 
-/** Units exposed over the window with duplicates, switchers, unknown arms, day-boundary times in two zones, NULL values, early and late events. */
+/** Units exposed over the window with duplicates, switchers, unknown arms, day-boundary times in two zones, NULL values and times, early and late events. */
 export function smallData(units = 400, seed = 7): { exposures: ExposureRow[]; events: EventRow[] } {
   const rnd = seededRandom(seed);
   const start = Date.parse('2026-11-09T00:00:00Z');
@@ -89,6 +89,11 @@ export function smallData(units = 400, seed = 7): { exposures: ExposureRow[]; ev
     // Before exposure: the pre-period (and, further back, outside it).
     if (rnd() < 0.4) events.push({ unit_id: id, event: 'order_placed', occurred_at: iso(t - Math.floor(rnd() * 20 * 86_400_000) - 1000), value: Math.round(rnd() * 6000) / 100 });
     if (rnd() < 0.1) events.push({ unit_id: id, event: 'other_event', occurred_at: iso(t + 1000), value: 1 });
+  }
+  // Exposures with no time (an empty field; NULL in Parquet and PostgreSQL): counted, in no total. Two units
+  // also have timed exposures, two have none; one row is another experiment's and one has an unknown arm.
+  for (const [unit_id, arm, experiment] of [['u10', 'control', 'basket-shapes'], ['u11', 'shortcut', 'basket-shapes'], ['u11', 'shortcut', 'basket-shapes'], ['untimed-1', 'control', 'basket-shapes'], ['untimed-2', 'Shortcut', 'basket-shapes'], ['untimed-3', 'control', 'another-test']] as const) {
+    exposures.push({ unit_id, arm, exposed_at: null, experiment, platform: 'web' });
   }
   // After the data's end, and for a unit never exposed.
   events.push({ unit_id: 'u1', event: 'order_placed', occurred_at: '2026-12-30T00:00:00Z', value: 5 });

@@ -1,7 +1,8 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { ExternalError, UsageError } from '../../errors.js';
+import { DataFaultError, ExternalError, UsageError } from '../../errors.js';
+import { duckDbFault } from './engine-faults.js';
 import type { QueryProgress, QueryResult } from './result.js';
 
 /**
@@ -63,7 +64,11 @@ export async function runDuckDbQuery(sql: string, options: DuckDbOptions): Promi
     }
   } catch (error) {
     if (error instanceof UsageError) throw error;
-    throw new ExternalError(`DuckDB could not run the totals query: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`, 'check data.exposures and data.events in the settings (files, columns; data.exposures.experiment: false when the exposures have no experiment column) or --data; --sql prints the query', { cause: error });
+    const message = error instanceof Error ? error.message : String(error);
+    const hint = 'check data.exposures and data.events in the settings (files, columns; data.exposures.experiment: false when the exposures have no experiment column) or --data; --sql prints the query';
+    const fault = duckDbFault(message);
+    if (fault) throw new DataFaultError(`DuckDB could not run the totals query: ${message.split('\n')[0]}`, hint, fault, { cause: error });
+    throw new ExternalError(`DuckDB could not run the totals query: ${message.split('\n')[0]}`, hint, { cause: error });
   } finally {
     if (timer) clearInterval(timer);
     instance?.closeSync();

@@ -1,4 +1,5 @@
-import { ExternalError, UsageError } from '../../errors.js';
+import { DataFaultError, ExternalError, UsageError } from '../../errors.js';
+import { postgresFault } from './engine-faults.js';
 import type { QueryResult } from './result.js';
 
 /**
@@ -60,7 +61,11 @@ export async function runPostgresQuery(sql: string, options: PostgresOptions, en
     const result = await client.query({ text: sql, rowMode: 'array' });
     return { columns: result.fields.map((f) => f.name), rows: (result.rows as unknown[][]).map((row) => row.map((v) => (v === null || v === undefined ? null : String(v)))) };
   } catch (error) {
-    throw new ExternalError(`PostgreSQL could not run the totals query: ${withoutSecret(error instanceof Error ? error.message : String(error), secret)}`, 'check data.exposures.table and data.events.table and their columns in the settings (data.exposures.experiment: false when there is no experiment column); --sql --dialect postgres prints the query');
+    const message = withoutSecret(error instanceof Error ? error.message : String(error), secret);
+    const hint = 'check data.exposures.table and data.events.table and their columns in the settings (data.exposures.experiment: false when there is no experiment column); --sql --dialect postgres prints the query';
+    const fault = postgresFault({ code: (error as { code?: string }).code, message });
+    if (fault) throw new DataFaultError(`PostgreSQL could not run the totals query: ${message}`, hint, fault);
+    throw new ExternalError(`PostgreSQL could not run the totals query: ${message}`, hint);
   } finally {
     await client.end().catch(() => undefined);
   }

@@ -6,3 +6,4 @@ export interface QueryResult {
 
 /** Reports the share of the query done, 0 to 1, a few times a second while it runs. */
 export type QueryProgress = (fraction: number) => void;
+

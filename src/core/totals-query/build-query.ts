@@ -9,7 +9,7 @@ import { metricSpecs, type EventValue, type MetricSpec, type SpecProblem } from 
  * the query. The semantics are in docs/totals-from-sql.md; in short:
  *
  * 1. exposures of this plan inside [window start, end of data-through) (UTC); rows without a unit id are
- *    dropped (they belong to no unit);
+ *    dropped (they belong to no unit); rows without an exposure time are counted and dropped;
  * 2. rows whose arm is not the plan's are counted and dropped; a unit's first exposure fixes its time;
  *    a unit seen in two arms is counted and dropped;
  * 3. events of the metrics from first exposure to the end of data-through (and within the metric's
@@ -22,6 +22,12 @@ export const ROW_COLUMNS = ['grain', 'arm', 'bucket', 'metric', 'units', 'n', 's
 export type RowColumn = (typeof ROW_COLUMNS)[number];
 export const GRAINS = ['arm', 'day', 'segment', 'excluded'] as const;
 export const EXCLUDED_REASONS = ['several-arms', 'unknown-arm'] as const;
+/**
+ * Exposure rows of this plan with no exposure time: they belong to no day of the window, so they are left
+ * out, and counted (units and rows) so a short count is never silent. Not part of the totals file's
+ * `excluded` block (its keys are a published contract): the totals' notes and the command's report say it.
+ */
+export const NO_EXPOSURE_TIME = 'no-exposure-time';
 /** The bucket of a unit whose segment column is NULL at its first exposure. */
 export const MISSING_SEGMENT = '(missing)';
 
@@ -42,7 +48,8 @@ export type TotalsQueryResult = { ok: true; sql: string; metrics: MetricSpec[] }
 
 const indent = (text: string, by = '  ') => text.split('\n').map((l) => (l ? by + l : l)).join('\n');
 
-function from(d: Dialect, source: QuerySource, what: string): string {
+/** The FROM item that reads a source: a quoted table, or DuckDB's reader over the files. */
+export function from(d: Dialect, source: QuerySource, what: string): string {
   if ('table' in source) return tableName(d, source.table);
   if (d.name !== 'duckdb') throw new Error(`${what}: files are read by DuckDB only`);
   const list = `[${source.files.map((f) => d.string(f)).join(', ')}]`;
@@ -87,12 +94,14 @@ export function buildTotalsQuery(input: TotalsQueryInput): TotalsQueryResult {
       `SELECT ${d.text(col(x.unitId))} AS unit_id, ${d.text(col(x.arm))} AS arm, ${exposedAt} AS exposed_at${segments.map((s, i) => `, ${d.text(col(s))} AS ${seg(i)}`).join('')}`,
       `FROM ${from(d, input.exposures.source, 'exposures')}`,
       `WHERE ${col(x.unitId)} IS NOT NULL`,
-      `  AND ${exposedAt} >= ${begin}`,
-      `  AND ${exposedAt} < ${end}`,
+      // Rows without a time stay here only to be counted (the untimed row below); every other use skips them.
+      `  AND (${exposedAt} IS NULL`,
+      `    OR (${exposedAt} >= ${begin}`,
+      `      AND ${exposedAt} < ${end}))`,
       ...(x.experiment ? [`  AND ${d.text(col(x.experiment))} = ${d.string(plan.id)}`] : []),
     ].join('\n'),
   ]);
-  ctes.push(['known_rows', `SELECT *\nFROM exposure_rows\nWHERE arm IN (${list(d, arms)})`]);
+  ctes.push(['known_rows', `SELECT *\nFROM exposure_rows\nWHERE exposed_at IS NOT NULL\n  AND arm IN (${list(d, arms)})`]);
   // MIN and MAX of the arm tell a unit seen in two arms without COUNT(DISTINCT) (not a window function everywhere).
   ctes.push(['first_exposures', 'SELECT unit_id, MIN(exposed_at) AS first_exposed, MIN(arm) AS arm, MAX(arm) AS last_arm\nFROM known_rows\nGROUP BY unit_id']);
   if (segments.length) {
@@ -231,7 +240,9 @@ export function buildTotalsQuery(input: TotalsQueryInput): TotalsQueryResult {
   }
   selects.push(`${row('excluded', nullText, d.text(d.string('several-arms')), nullText, d.integer('COUNT(*)'), nullInt, {})}\nFROM first_exposures\nWHERE arm <> last_arm`);
   // Rows of this plan whose arm is not one of its arms: units among them, and the rows themselves as n.
-  selects.push(`${row('excluded', nullText, d.text(d.string('unknown-arm')), nullText, d.integer('COUNT(DISTINCT unit_id)'), d.integer('COUNT(*)'), {})}\nFROM exposure_rows\nWHERE arm IS NULL OR arm NOT IN (${list(d, arms)})`);
+  selects.push(`${row('excluded', nullText, d.text(d.string('unknown-arm')), nullText, d.integer('COUNT(DISTINCT unit_id)'), d.integer('COUNT(*)'), {})}\nFROM exposure_rows\nWHERE exposed_at IS NOT NULL\n  AND (arm IS NULL OR arm NOT IN (${list(d, arms)}))`);
+  // Rows of this plan without an exposure time, whatever their arm: units among them, and the rows as n.
+  selects.push(`${row('excluded', nullText, d.text(d.string(NO_EXPOSURE_TIME)), nullText, d.integer('COUNT(DISTINCT unit_id)'), d.integer('COUNT(*)'), {})}\nFROM exposure_rows\nWHERE exposed_at IS NULL`);
 
   const header = [
     `-- Plumbline arm totals for plan ${oneLine(plan.id)}, data through ${input.dataThrough} (UTC), dialect ${d.name}.`,

@@ -4,7 +4,8 @@ import type { Metric, Plan } from '../plan/schema.js';
 import { DECIMAL_TEXT } from '../source/decimal.js';
 import type { Problem } from '../source/problem.js';
 import type { WrittenTotals } from '../totals/schema.js';
-import { EXCLUDED_REASONS, GRAINS, type RowColumn } from './build-query.js';
+import { countOf } from '../report/numbers.js';
+import { EXCLUDED_REASONS, GRAINS, NO_EXPOSURE_TIME, type RowColumn } from './build-query.js';
 import { planMetrics } from './metric-spec.js';
 import type { ResultRow } from './rows-csv.js';
 
@@ -26,6 +27,22 @@ export interface RowsToTotalsInput {
   notes?: string;
 }
 
+/** Exposure rows of the plan that had no exposure time, left out of every total (units among them, and rows). */
+export interface Untimed {
+  units: number;
+  rows: number;
+  /** The result row that said so (its line in a rows file). */
+  line?: number;
+}
+
+export type RowsToTotalsResult = { ok: true; totals: WrittenTotals; text: string; untimed: Untimed } | { ok: false; problems: Problem[] };
+
+/** The sentence the totals' notes and the command's report use for untimed exposures; empty when there were none. */
+export function untimedSentence(untimed: Untimed): string {
+  if (!untimed.rows) return '';
+  return `Left out: ${countOf(untimed.rows, 'exposure row')} (${countOf(untimed.units, 'unit')}) with no exposure time, so in no day of the window; units seen only there are in no total.`;
+}
+
 type WrittenMetric = NonNullable<WrittenTotals['arms'][string]['metrics']>[string];
 interface Group {
   units: number;
@@ -37,13 +54,14 @@ function rowProblem(file: string, row: ResultRow, column: RowColumn, message: st
   return { severity: 'error', code: 'rows/invalid', file, line: cell.line, column: cell.column, field: column, message, expected, ...(cell.value !== null ? { found: JSON.stringify(cell.value) } : {}) };
 }
 
-export function rowsToTotals(input: RowsToTotalsInput): { ok: true; totals: WrittenTotals; text: string } | { ok: false; problems: Problem[] } {
+export function rowsToTotals(input: RowsToTotalsInput): RowsToTotalsResult {
   const { plan, file } = input;
   const problems: Problem[] = [];
   const kinds = new Map<string, Metric['kind']>(planMetrics(plan).map(({ metric }) => [metric.name, metric.kind]));
   const armNames = plan.design.arms.map((a) => a.name);
   const groups = new Map<string, { arm: Group; days: Map<string, Group>; segments: Map<string, Group> }>(armNames.map((a) => [a, { arm: { units: 0, metrics: {} }, days: new Map(), segments: new Map() }]));
   const excluded = { 'several-arms': 0, 'unknown-arm': 0 };
+  const untimed: Untimed = { units: 0, rows: 0 };
 
   const whole = (row: ResultRow, column: RowColumn): number | undefined => {
     const text = row[column].value;
@@ -84,8 +102,14 @@ export function rowsToTotals(input: RowsToTotalsInput): { ok: true; totals: Writ
     }
     if (grain === 'excluded') {
       const reason = row.bucket.value;
+      if (reason === NO_EXPOSURE_TIME) {
+        // Rows of result files written before this row existed simply lack it: none counted.
+        const [units, rows] = [whole(row, 'units'), whole(row, 'n')];
+        if (units !== undefined && rows !== undefined) Object.assign(untimed, { units: untimed.units + units, rows: untimed.rows + rows, line: row.line });
+        continue;
+      }
       if (reason === null || !(EXCLUDED_REASONS as readonly string[]).includes(reason)) {
-        problems.push(rowProblem(file, row, 'bucket', 'is not a reason for leaving units out', EXCLUDED_REASONS.join(', ')));
+        problems.push(rowProblem(file, row, 'bucket', 'is not a reason for leaving units out', [...EXCLUDED_REASONS, NO_EXPOSURE_TIME].join(', ')));
         continue;
       }
       const units = whole(row, 'units');
@@ -135,6 +159,7 @@ export function rowsToTotals(input: RowsToTotalsInput): { ok: true; totals: Writ
     }
   }
   const start = plan.window.start;
+  const notes = [input.notes, untimedSentence(untimed)].filter(Boolean).join(' ');
   const totals: WrittenTotals = {
     plan: plan.id,
     'plan-commit': input.planCommit,
@@ -155,9 +180,9 @@ export function rowsToTotals(input: RowsToTotalsInput): { ok: true; totals: Writ
       }),
     ),
     excluded,
-    ...(input.notes ? { notes: input.notes } : {}),
+    ...(notes ? { notes } : {}),
   };
-  return { ok: true, totals, text: totalsYaml(totals) };
+  return { ok: true, totals, text: totalsYaml(totals), untimed };
 }
 
 /** Days of first exposure added up by week from the window's start (the weeks the novelty check compares). */

@@ -5,14 +5,16 @@ exposure_rows AS (
   SELECT CAST("user_id" AS VARCHAR) AS unit_id, CAST("variant" AS VARCHAR) AS arm, CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) AS exposed_at, CAST("platform" AS VARCHAR) AS segment_1, CAST("country" AS VARCHAR) AS segment_2
   FROM "analytics"."exposures"
   WHERE "user_id" IS NOT NULL
-    AND CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) >= CAST('2026-11-09 00:00:00 UTC' AS TIMESTAMP(6) WITH TIME ZONE)
-    AND CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) < CAST('2026-11-20 00:00:00 UTC' AS TIMESTAMP(6) WITH TIME ZONE)
+    AND (CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) IS NULL
+      OR (CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) >= CAST('2026-11-09 00:00:00 UTC' AS TIMESTAMP(6) WITH TIME ZONE)
+        AND CAST("exposed_at" AS TIMESTAMP(6) WITH TIME ZONE) < CAST('2026-11-20 00:00:00 UTC' AS TIMESTAMP(6) WITH TIME ZONE)))
     AND CAST("experiment" AS VARCHAR) = 'basket-shapes'
 ),
 known_rows AS (
   SELECT *
   FROM exposure_rows
-  WHERE arm IN ('control', 'shortcut')
+  WHERE exposed_at IS NOT NULL
+    AND arm IN ('control', 'shortcut')
 ),
 first_exposures AS (
   SELECT unit_id, MIN(exposed_at) AS first_exposed, MIN(arm) AS arm, MAX(arm) AS last_arm
@@ -326,4 +328,9 @@ WHERE arm <> last_arm
 UNION ALL
 SELECT CAST('excluded' AS VARCHAR) AS grain, CAST(NULL AS VARCHAR) AS arm, CAST('unknown-arm' AS VARCHAR) AS bucket, CAST(NULL AS VARCHAR) AS metric, CAST(COUNT(DISTINCT unit_id) AS BIGINT) AS units, CAST(COUNT(*) AS BIGINT) AS n, CAST(NULL AS DECIMAL(38, 12)) AS sum_y, CAST(NULL AS DECIMAL(38, 12)) AS sum_y2, CAST(NULL AS DECIMAL(38, 12)) AS sum_x, CAST(NULL AS DECIMAL(38, 12)) AS sum_x2, CAST(NULL AS DECIMAL(38, 12)) AS sum_xy, CAST(NULL AS DECIMAL(38, 12)) AS sum_pre, CAST(NULL AS DECIMAL(38, 12)) AS sum_pre2, CAST(NULL AS DECIMAL(38, 12)) AS sum_ypre
 FROM exposure_rows
-WHERE arm IS NULL OR arm NOT IN ('control', 'shortcut')
+WHERE exposed_at IS NOT NULL
+  AND (arm IS NULL OR arm NOT IN ('control', 'shortcut'))
+UNION ALL
+SELECT CAST('excluded' AS VARCHAR) AS grain, CAST(NULL AS VARCHAR) AS arm, CAST('no-exposure-time' AS VARCHAR) AS bucket, CAST(NULL AS VARCHAR) AS metric, CAST(COUNT(DISTINCT unit_id) AS BIGINT) AS units, CAST(COUNT(*) AS BIGINT) AS n, CAST(NULL AS DECIMAL(38, 12)) AS sum_y, CAST(NULL AS DECIMAL(38, 12)) AS sum_y2, CAST(NULL AS DECIMAL(38, 12)) AS sum_x, CAST(NULL AS DECIMAL(38, 12)) AS sum_x2, CAST(NULL AS DECIMAL(38, 12)) AS sum_xy, CAST(NULL AS DECIMAL(38, 12)) AS sum_pre, CAST(NULL AS DECIMAL(38, 12)) AS sum_pre2, CAST(NULL AS DECIMAL(38, 12)) AS sum_ypre
+FROM exposure_rows
+WHERE exposed_at IS NULL

@@ -57,7 +57,14 @@ export const reviewReportSchema = z
   .object({
     format: z.literal('plumbline.review/1'),
     verdict: z.enum(['blocked', 'warnings', 'clear', 'nothing-to-check', 'partial']),
-    counts: z.object({ block: z.number().int(), warn: z.number().int(), note: z.number().int() }),
+    counts: z
+      .object({
+        block: z.number().int().describe('Blocking findings this change introduces.'),
+        warn: z.number().int().describe('Warnings this change introduces.'),
+        note: z.number().int().describe('Notes this change introduces.'),
+        known: z.number().int().describe('Findings of any severity that already held at the base commit (origin: known).'),
+      })
+      .describe('The counts the text and Markdown reports show: findings this change introduces, by severity, and how many were already known before it. The verdict reads every finding: a known blocking finding still blocks.'),
     base: z.string().regex(/^[0-9a-f]{40,64}$/),
     head: z.string().regex(/^[0-9a-f]{40,64}$/),
     findings: z.array(
@@ -69,6 +76,10 @@ export const reviewReportSchema = z
         plan: z.string().optional(),
         file: z.string().optional(),
         line: z.number().int().positive().optional(),
+        side: z
+          .enum(['base', 'head'])
+          .optional()
+          .describe('Set with file: the commit file and line are read at. base: a place the change removes (a deleted line, a deleted plan), where the same line at head is something else; head otherwise.'),
         origin: z
           .enum(['introduced', 'known'])
           .describe('introduced: this change brought it; known: the same finding already held for the plan at the base commit'),

@@ -1,0 +1,71 @@
+#!/usr/bin/env node
+import { createRequire as __plumblineCreateRequire } from 'node:module';
+const require = __plumblineCreateRequire(import.meta.url);
+import {
+  findNamedPlan
+} from "./chunk-GHXAMHBQ.js";
+import {
+  designSummary
+} from "./chunk-MYUGBT5N.js";
+import "./chunk-7H6MHGDI.js";
+import {
+  sizingPolicy
+} from "./chunk-XZ7PS274.js";
+import {
+  finiteSizing
+} from "./chunk-G6K6KKMR.js";
+import {
+  requireWorkspace
+} from "./chunk-B5FLNI6J.js";
+import "./chunk-I3AB5CE6.js";
+import "./chunk-26OHVEWY.js";
+import {
+  sizeMetric,
+  sizePlan
+} from "./chunk-2Z5D5NAA.js";
+import "./chunk-54OF2UQO.js";
+import "./chunk-R5CLG4G4.js";
+import "./chunk-4F4MJKFM.js";
+import "./chunk-J5RDXJJD.js";
+import "./chunk-KSA5GFQK.js";
+import "./chunk-BXF2RWJM.js";
+import "./chunk-PDUGBP5Q.js";
+import "./chunk-TEADBEZM.js";
+import "./chunk-D7CL2H7J.js";
+import "./chunk-ACAADDFF.js";
+import "./chunk-X2H4NLT2.js";
+import "./chunk-7GKTQ2BG.js";
+import "./chunk-FUJ7I5KY.js";
+
+// src/run/size.ts
+async function sizeNamedPlan(options) {
+  const workspace = await requireWorkspace(options);
+  const found = findNamedPlan(workspace, options.plan, "size");
+  const { plan } = found;
+  return {
+    sizing: finiteSizing(sizePlan(plan, sizingPolicy(workspace.settings))),
+    power: plan.design.power,
+    context: {
+      title: `Sizing for ${plan.id} (${found.file})`,
+      designLine: designSummary({ ...plan.design, reach: plan.exposure.reach }),
+      window: plan.window
+    }
+  };
+}
+function sizeFromRequest(request, window) {
+  const sizing = finiteSizing({
+    planId: "command-line",
+    ...request.plannedDays !== void 0 ? { plannedDays: request.plannedDays } : {},
+    ...request.dailyUnits !== void 0 ? { dailyUnits: request.dailyUnits } : {},
+    metrics: [{ metric: "metric", role: "primary", kind: request.baseline.kind, direction: request.direction, sides: request.sides, alpha: request.alpha, power: request.power, result: sizeMetric(request) }]
+  });
+  return {
+    sizing,
+    power: request.power,
+    context: { title: "Sizing from the command line", designLine: designSummary(request), ...window ? { window } : {} }
+  };
+}
+export {
+  sizeFromRequest,
+  sizeNamedPlan
+};

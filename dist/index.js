@@ -7,25 +7,25 @@ import {
 } from "./chunks/chunk-5AUULDGE.js";
 import {
   reviewJson
-} from "./chunks/chunk-B4AG7LHN.js";
+} from "./chunks/chunk-KD7QERVL.js";
 import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-2HW3IRWA.js";
+} from "./chunks/chunk-TVUPKEIX.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-UMTJJXGY.js";
-import "./chunks/chunk-DQTUJRHC.js";
+} from "./chunks/chunk-HKEMS2HW.js";
+import "./chunks/chunk-4JVBEDJS.js";
 import "./chunks/chunk-24WLVYT2.js";
 import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-R5EOLVET.js";
+} from "./chunks/chunk-SWZ4PJ34.js";
 import "./chunks/chunk-QK2G46OH.js";
 import "./chunks/chunk-GIF3ITND.js";
 import "./chunks/chunk-TH3NNBTK.js";
@@ -50,7 +50,7 @@ import "./chunks/chunk-KAGGRZCD.js";
 import {
   openChange,
   readFileAtCommit
-} from "./chunks/chunk-IFUP6PU3.js";
+} from "./chunks/chunk-VEJXRBWK.js";
 import {
   BUG_REPORT_HINT,
   ExternalError,
@@ -28258,9 +28258,8 @@ async function reviewPullRequest(options) {
   const outcome = await reviewChange({ change, pr: event.info, ...history ? { history } : {}, ...options.settingsPath ? { settingsPath: options.settingsPath } : {} });
   if (outcome.kind === "settings-invalid") return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join("\n") };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
-  const linkBase = `${event.repoUrl}/blob/${review.head}`;
-  const markdown = renderReviewMarkdown(review, { linkBase, fullReport: "the job summary" });
-  const summary2 = renderReviewSummary(review, { linkBase, fullReport: "the JSON report (the Action's report output)" });
+  const markdown = renderReviewMarkdown(review, { repoUrl: event.repoUrl, fullReport: "the job summary" });
+  const summary2 = renderReviewSummary(review, { repoUrl: event.repoUrl, fullReport: "the JSON report (the Action's report output)" });
   if (!options.comment) return { review, markdown, summary: summary2, notices };
   try {
     const comment = await upsertStickyComment({ github, issue: event.number, marker: REVIEW_MARKER, body: markdown, botLogin: options.botLogin });
@@ -28326,14 +28325,22 @@ function planAnnotations(review, run) {
       continue;
     }
     room[kind]--;
-    shown.push({ kind, message: `${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file, ...f.line ? { startLine: f.line } : {} } });
+    const atBase = f.side === "base";
+    const where = atBase && f.line ? `Line ${f.line} at the base commit: ` : "";
+    shown.push({ kind, message: `${where}${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file, ...f.line && !atBase ? { startLine: f.line } : {} } });
   }
   const more = left ? [{ kind: "notice", message: `${left} more ${left === 1 ? "finding is" : "findings are"} not annotated (GitHub shows ${ANNOTATIONS_PER_KIND} of each kind per step); all are in the job summary.`, properties: { title: "Plumbline" } }] : [];
   return [...own, ...shown, ...more, ...closing];
 }
 function shouldFail(review, failOn) {
   if (failOn === "never") return false;
-  return review.counts.block > 0 || failOn === "warn" && review.counts.warn > 0;
+  return review.findings.some((f) => f.severity === "block" || failOn === "warn" && f.severity === "warn");
+}
+function closingLine(review) {
+  const blocking = review.findings.filter((f) => f.severity === "block").length;
+  const warnings = review.findings.filter((f) => f.severity === "warn").length;
+  const what = blocking ? `${blocking} blocking finding${blocking === 1 ? "" : "s"}` : `${warnings} warning${warnings === 1 ? "" : "s"}`;
+  return `Plumbline: ${what}; see the summary or the pull-request comment.`;
 }
 function pullRequestEvent(context3) {
   const pr = context3.payload.pull_request;
@@ -28405,10 +28412,11 @@ ${result.settingsProblems}`, "run plumbline validate locally");
   setOutput("blocking", result.review.counts.block);
   setOutput("warnings", result.review.counts.warn);
   setOutput("notes", result.review.counts.note);
+  setOutput("known", result.review.counts.known);
   setOutput("report", reportPath);
   await summary.addRaw(result.summary).write();
   const fails = shouldFail(result.review, settings["fail-on"]);
-  const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? "" : "s"}; see the summary or the pull-request comment.` : void 0;
+  const closing = fails ? closingLine(result.review) : void 0;
   for (const a of planAnnotations(result.review, { notices: result.notices, warnings: result.commentProblem ? [result.commentProblem] : [], ...closing ? { closing } : {} })) core_exports[a.kind](a.message, a.properties);
   if (fails) process.exitCode = ExitCode.Failure;
 }

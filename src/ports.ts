@@ -30,6 +30,12 @@ export interface ChangeSource {
   /** Full commit ids of the two ends; `base` is the merge base, as a pull request compares. */
   base: string;
   head: string;
+  /**
+   * The commit the base ref names, before its merge base with head is taken, when known (git). When `base`
+   * equals `head` but `baseTip` does not, head is an ancestor of the base ref: the change is empty, and the
+   * refs were probably given the wrong way round.
+   */
+  baseTip?: string;
   changedFiles(): Promise<ChangedFile[]>;
   /** `git diff --unified=0` between the two ends, as text. */
   diff(): Promise<string>;

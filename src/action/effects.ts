@@ -39,15 +39,30 @@ export function planAnnotations(review: Review, run: { notices: readonly string[
       continue;
     }
     room[kind]--;
-    shown.push({ kind, message: `${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file!, ...(f.line ? { startLine: f.line } : {}) } });
+    // GitHub places an annotation's line in the head commit; a line of the base commit (a removed line) marks the file only, and says which line it was.
+    const atBase = f.side === 'base';
+    const where = atBase && f.line ? `Line ${f.line} at the base commit: ` : '';
+    shown.push({ kind, message: `${where}${f.message} Fix: ${f.fix}`, properties: { title: `Plumbline ${f.code}`, file: f.file!, ...(f.line && !atBase ? { startLine: f.line } : {}) } });
   }
   const more: Annotation[] = left ? [{ kind: 'notice', message: `${left} more ${left === 1 ? 'finding is' : 'findings are'} not annotated (GitHub shows ${ANNOTATIONS_PER_KIND} of each kind per step); all are in the job summary.`, properties: { title: 'Plumbline' } }] : [];
   return [...own, ...shown, ...more, ...closing];
 }
 
+/**
+ * Whether the job fails. Every finding counts here, known ones too: a blocking finding that held before
+ * the change still blocks its merge (review.counts counts only what the change introduces).
+ */
 export function shouldFail(review: Review, failOn: 'block' | 'warn' | 'never'): boolean {
   if (failOn === 'never') return false;
-  return review.counts.block > 0 || (failOn === 'warn' && review.counts.warn > 0);
+  return review.findings.some((f) => f.severity === 'block' || (failOn === 'warn' && f.severity === 'warn'));
+}
+
+/** The closing error of a failed job: every blocking finding, those that held before the change included. */
+export function closingLine(review: Review): string {
+  const blocking = review.findings.filter((f) => f.severity === 'block').length;
+  const warnings = review.findings.filter((f) => f.severity === 'warn').length;
+  const what = blocking ? `${blocking} blocking finding${blocking === 1 ? '' : 's'}` : `${warnings} warning${warnings === 1 ? '' : 's'}`;
+  return `Plumbline: ${what}; see the summary or the pull-request comment.`;
 }
 
 interface ContextLike {

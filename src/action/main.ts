@@ -7,7 +7,7 @@ import { reviewJson } from '../core/review/report-schema.js';
 import { BUG_REPORT_HINT, ExternalError, UsageError } from '../errors.js';
 import { reviewPullRequest, type PullRequestEvent } from '../run/action-review.js';
 import { publishWeeklyDigest } from '../run/action-digest.js';
-import { planAnnotations, pullRequestEvent, shouldFail } from './effects.js';
+import { closingLine, planAnnotations, pullRequestEvent, shouldFail } from './effects.js';
 import { readActionSettings } from './settings.js';
 
 /** The Action: inputs -> settings -> review -> comment, annotations, summary, outputs, exit status. */
@@ -38,11 +38,12 @@ async function main(): Promise<void> {
   core.setOutput('blocking', result.review.counts.block);
   core.setOutput('warnings', result.review.counts.warn);
   core.setOutput('notes', result.review.counts.note);
+  core.setOutput('known', result.review.counts.known);
   core.setOutput('report', reportPath);
   await core.summary.addRaw(result.summary).write();
   // Annotations come last, after everything that could still fail, so that a failure's own error line cannot push errors past GitHub's limit.
   const fails = shouldFail(result.review, settings['fail-on']);
-  const closing = fails ? `Plumbline: ${result.review.counts.block} blocking finding${result.review.counts.block === 1 ? '' : 's'}; see the summary or the pull-request comment.` : undefined;
+  const closing = fails ? closingLine(result.review) : undefined;
   for (const a of planAnnotations(result.review, { notices: result.notices, warnings: result.commentProblem ? [result.commentProblem] : [], ...(closing ? { closing } : {}) })) core[a.kind](a.message, a.properties);
   if (fails) process.exitCode = core.ExitCode.Failure;
 }

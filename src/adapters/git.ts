@@ -214,6 +214,7 @@ export async function openChange(repoDir: string, baseRef: string, headRef: stri
   return {
     base,
     head,
+    baseTip,
     async changedFiles() {
       const out = (await runGit(repoDir, ['diff', '--name-status', '-z', '-M', base, head])).toString('utf8');
       return parseNameStatus(out);

@@ -105,7 +105,8 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       if (flags.today !== undefined && !isCalendarDate(flags.today)) throw new UsageError(`--today ${JSON.stringify(flags.today)} is not a date`, 'write it as YYYY-MM-DD, e.g. --today 2026-12-01');
       const pr = await pullRequestInfo(flags, cwd);
       const change = await opening;
-      const outcome = await reviewChange({ change, pr, onProgress: output.progress, ...(deps.history ? { history: deps.history(cwd) } : {}), ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
+      const refNames = { base: `--base ${flags.base!}`, head: `--head ${flags.head}` };
+      const outcome = await reviewChange({ change, pr, refNames, onProgress: output.progress, ...(deps.history ? { history: deps.history(cwd) } : {}), ...(options.config ? { settingsPath: options.config } : {}), ...(flags.today ? { today: flags.today } : {}) });
       if (outcome.kind === 'settings-invalid') return setExit(reportSettingsProblems(output, flags.format, outcome.settingsFile, outcome.problems));
       const { review } = outcome;
       // Only the renderers this run prints with are loaded.
@@ -113,7 +114,7 @@ export function addCheckCommand(program: Command, setExit: SetExit, deps: CliDep
       if (flags.output) await writeFileAtomic(resolve(cwd, flags.output), `${await reportJson()}\n`, { overwrite: true });
       const repoUrl = flags.repoUrl?.replace(/\/+$/, '');
       if (flags.format === 'json') output.out(await reportJson());
-      else if (flags.format === 'markdown') output.out((await import('../core/report/review-markdown.js')).renderReviewMarkdown(review, repoUrl ? { linkBase: `${repoUrl}/blob/${review.head}` } : {}));
+      else if (flags.format === 'markdown') output.out((await import('../core/report/review-markdown.js')).renderReviewMarkdown(review, repoUrl ? { repoUrl } : {}));
       else output.out((await import('../core/report/review-text.js')).renderReviewText(review, { color: output.color }));
       setExit(review.verdict === 'blocked' ? EXIT.findings : EXIT.ok);
     });

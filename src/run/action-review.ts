@@ -75,9 +75,8 @@ export async function reviewPullRequest(options: {
   const outcome = await reviewChange({ change, pr: event.info, ...(history ? { history } : {}), ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}) });
   if (outcome.kind === 'settings-invalid') return { settingsProblems: outcome.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.field}: ${p.message}`).join('\n') };
   const review = unseen ? withUnseenFiles(outcome.review, unseen) : outcome.review;
-  const linkBase = `${event.repoUrl}/blob/${review.head}`;
-  const markdown = renderReviewMarkdown(review, { linkBase, fullReport: 'the job summary' });
-  const summary = renderReviewSummary(review, { linkBase, fullReport: "the JSON report (the Action's report output)" });
+  const markdown = renderReviewMarkdown(review, { repoUrl: event.repoUrl, fullReport: 'the job summary' });
+  const summary = renderReviewSummary(review, { repoUrl: event.repoUrl, fullReport: "the JSON report (the Action's report output)" });
   if (!options.comment) return { review, markdown, summary, notices };
   try {
     const comment = await upsertStickyComment({ github, issue: event.number, marker: REVIEW_MARKER, body: markdown, botLogin: options.botLogin });

@@ -32,6 +32,19 @@ export interface ReviewChangeOptions {
   today?: string;
   /** The repository's history: readouts apply the plan as it was at their plan-commit. Without it, today's plan, said so. */
   history?: CommitFiles;
+  /** How the entry point names the two refs, e.g. `--base main` (default: `base` and `head` with short commit ids). */
+  refNames?: { base: string; head: string };
+}
+
+/**
+ * Head is an ancestor of the base ref and differs from it exactly when their merge base (the change's
+ * `base`) is head itself while the base ref names another commit: no git process beyond the merge base.
+ * Then the change is empty, and the review says the refs look swapped instead of passing in silence.
+ */
+function swappedRefs(change: ChangeSource, named: ReviewChangeOptions['refNames']): { base: string; head: string } | undefined {
+  const { baseTip } = change;
+  if (baseTip === undefined || change.base !== change.head || baseTip === change.head) return undefined;
+  return named ?? { base: `base ${baseTip.slice(0, 7)}`, head: `head ${change.head.slice(0, 7)}` };
 }
 
 /**
@@ -173,7 +186,8 @@ export async function reviewChange(options: ReviewChangeOptions): Promise<Review
     changedCode, ...(change.baseUnreadable ? { baseUnreadable: change.baseUnreadable } : {}), today: options.today ?? todayIn(settings.digest.timeZone, new Date()), baseEntries: await baseEntries,
   };
   const baseContext = await contextAtBase(await baseWorkspace, change.filesAt('base'), context, removedLinked, options.history);
-  const review = buildReview(context, { base: change.base, head: change.head }, baseContext);
+  const swapped = swappedRefs(change, options.refNames);
+  const review = buildReview(context, { base: change.base, head: change.head, ...(swapped ? { swapped } : {}) }, baseContext);
   const stats = scanner.stats();
   return { kind: 'review', review, scanned: { files: stats.files, bytes: stats.bytes } };
 }

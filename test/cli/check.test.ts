@@ -1,12 +1,14 @@
 import { readFileSync, writeFileSync } from 'node:fs';
-import { spawnSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { join } from 'node:path';
+import { Ajv2020 } from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
 import { twoCommitRepos } from '../helpers/git-repo.js';
 import { baseFiles, CART_CODE_TOUCHED, cleanPlan, planYaml } from '../review/scenarios.js';
 import { repoRoot, runCli } from './helpers.js';
 
 const repo = twoCommitRepos();
+const git = (cwd: string, ...args: string[]) => execFileSync('git', args, { cwd, encoding: 'utf8' });
 
 describe('plumbline check', () => {
   it('exits 1 and explains when a decision rule is missing', () => {
@@ -18,8 +20,23 @@ describe('plumbline check', () => {
     const decisionsLine = plan.split('\n').findIndex((l) => l.startsWith('decisions:')) + 1;
     const run = runCli(['-C', r.root, 'check', '--base', 'main']);
     expect(run.status).toBe(1);
-    expect(run.stdout).toMatch(/^Plumbline: blocked \(1 blocking, 0 warnings, 0 notes\) for [0-9a-f]{7}\.\.\.[0-9a-f]{7}$/m);
+    expect(run.stdout).toMatch(/^Plumbline: blocked \(this change: 1 blocking finding\) for [0-9a-f]{7}\.\.\.[0-9a-f]{7}$/m);
     expect(run.stdout).toContain(`experiments/good.yaml:${decisionsLine}: BLOCK decisions-missing [good]: No decision rule for flat, loss, guardrail-breach`);
+  });
+
+  it('writes JSON that validates against the published schema when a plan never reaches its sample', () => {
+    // Tiny traffic leaves sizing's figures out with a reason (no power at the end, nothing detectable within 0-100%,
+    // no family power); every such field must be in the published schema (JSON Schema 2020-12, checked with Ajv).
+    const draft = { state: 'draft', window: { start: '2027-01-04', end: '2027-01-31' }, design: { 'min-detectable-effect': { relative: 0.05 }, 'daily-units': 0.01 } };
+    const r = repo(baseFiles({ 'experiments/good.yaml': planYaml(cleanPlan({ ...draft, title: 'Before' })) }), { 'experiments/good.yaml': planYaml(cleanPlan(draft)), 'src/cart.ts': CART_CODE_TOUCHED });
+    const run = runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'json']);
+    const json = JSON.parse(run.stdout);
+    const sizing = JSON.stringify(json.plans);
+    expect(sizing).toContain('familyOmitted');
+    expect(sizing).toMatch(/noPower|noneDetectable/);
+    const schema = JSON.parse(readFileSync(join(repoRoot, 'schema/review-report.schema.json'), 'utf8'));
+    const validate = new Ajv2020({ allErrors: true, strict: false }).compile(schema);
+    expect(validate(json), JSON.stringify(validate.errors)).toBe(true);
   });
 
   it('exits 0 on a clean change and writes the JSON report to --output', () => {
@@ -62,6 +79,25 @@ describe('plumbline check', () => {
     const run = runCli(['-C', r.root, 'check', '--base', 'main', '--format', 'markdown']);
     expect(run.status).toBe(0);
     expect(run.stdout).toContain('### ✅ Plumbline: nothing to check');
+  });
+
+  it('warns that the refs look swapped when head is an ancestor of base, and exits 0 as for any warning', () => {
+    const r = repo(baseFiles(), { 'src/cart.ts': CART_CODE_TOUCHED });
+    git(r.root, 'tag', 'before', r.base);
+    git(r.root, 'tag', 'after', r.head);
+    const swapped = runCli(['-C', r.root, 'check', '--base', 'after', '--head', 'before']);
+    expect(swapped.status).toBe(0);
+    expect(swapped.stdout).toMatch(/^Plumbline: passes, with warnings \(this change: 1 warning\) for /);
+    expect(swapped.stdout).toContain('warn  refs-swapped: --head before is an ancestor of --base after: the refs look swapped; the change from base to head is empty, so nothing was reviewed.');
+    const json = JSON.parse(runCli(['-C', r.root, 'check', '--base', 'after', '--head', 'before', '--format', 'json']).stdout);
+    expect(json).toMatchObject({ verdict: 'warnings', counts: { block: 0, warn: 1, note: 0, known: 0 } });
+    expect(json.findings.map((f: { code: string }) => f.code)).toEqual(['refs-swapped']);
+    // The same commit on both sides is an empty change too, but nothing looks swapped.
+    const same = runCli(['-C', r.root, 'check', '--base', 'after', '--head', 'after']);
+    expect(same.status).toBe(0);
+    expect(same.stdout).toMatch(/^Plumbline: nothing to check for /);
+    // In the right order, the change is reviewed.
+    expect(runCli(['-C', r.root, 'check', '--base', 'before', '--head', 'after']).stdout).not.toContain('refs-swapped');
   });
 
   it('gives a clear usage error for a ref that does not exist, and outside a repository', () => {

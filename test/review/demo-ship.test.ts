@@ -27,11 +27,11 @@ beforeAll(async () => {
   const outcome = await reviewChange({ change: await openChange(demo.root, 'main', 'ship/wallet-first'), history: historyOf(demo.root), pr, today: '2026-12-08' });
   if (outcome.kind !== 'review') throw new Error('demo settings invalid');
   review = outcome.review;
-  markdown = renderReviewMarkdown(review, { linkBase: `https://github.com/bramblecart/shop/blob/${review.head}` });
+  markdown = renderReviewMarkdown(review, { repoUrl: 'https://github.com/bramblecart/shop' });
 }, 120_000);
 afterAll(() => demo?.cleanup());
 
-const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>').replace(/\(`[0-9a-f]{7}`\)/g, '(`<launch>`)');
+const normalize = (text: string) => text.replaceAll(review.base, '<base-sha>').replaceAll(review.head, '<head-sha>').replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>').replace(/\(`[0-9a-f]{7}`\)/g, '(`<launch>`)');
 
 describe('the demo pull request that ships the winner', () => {
   it('records the outcome with plumbline readout --record, removes the flag and keeps the winning arm', () => {

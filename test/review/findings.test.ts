@@ -27,10 +27,11 @@ const TODAY = '2026-11-16';
 // Many repositories are made; removing them on a busy machine can take longer than the default hook limit.
 afterAll(() => made.forEach((root) => rmSync(root, { recursive: true, force: true })), 120_000);
 
-async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string, baseUnreadable?: string): Promise<Review> {
+async function review(files: Record<string, string>, changes: Record<string, string | null>, pr: PullRequestInfo = {}, today?: string, baseUnreadable?: string, swapped = false): Promise<Review> {
   const repo = makeTwoCommitRepo(files, changes);
   made.push(repo.root);
-  const change = await openChange(repo.root, 'main', 'HEAD');
+  // Swapped: the change's commit given as base and the commit before it as head.
+  const change = swapped ? await openChange(repo.root, 'HEAD', 'main') : await openChange(repo.root, 'main', 'HEAD');
   // As the Action's files-API mode gives it: the base commit's files cannot be read.
   const headFiles = change.filesAt('head');
   const unknown = { listFiles: async () => [], readText: async () => undefined, readTexts: async (paths: readonly string[]) => paths.map(() => undefined) };
@@ -72,7 +73,7 @@ const AMENDMENT = { date: '2026-11-16', changed: 'minimum detectable effect 5% -
 /** The cart with the winning arm hard-coded: the flag read is gone. */
 const HARD_CODED_CART = CART_CODE.replace("if (client.getBooleanValue('good-flag', false)) {", 'if (true) {');
 
-type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo; baseUnreadable?: string };
+type Scenario = { files?: Record<string, string>; changes: Record<string, string | null>; body?: string; pr?: PullRequestInfo; baseUnreadable?: string; swapped?: boolean };
 
 // For every finding code: a scenario that must raise it, and a near miss that must not.
 const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
@@ -313,6 +314,11 @@ const cases: Record<string, { trigger: Scenario; nearMiss: Scenario }> = {
     // The same run on a change to code only: no plan could have changed (and the code checks read head).
     nearMiss: { changes: { 'src/cart.ts': CART_CODE_TOUCHED }, baseUnreadable: 'no git history' },
   },
+  'refs-swapped': {
+    // Head is an ancestor of base: the change from base to head is empty.
+    trigger: { changes: { 'src/cart.ts': CART_CODE_TOUCHED }, swapped: true },
+    nearMiss: { changes: { 'src/cart.ts': CART_CODE_TOUCHED } },
+  },
   'severity-unknown-code': {
     trigger: { files: baseFiles({ '.plumbline.yml': 'severity: { colision: block }\n' }), changes: withPlan(cleanPlan()) },
     nearMiss: { files: baseFiles({ '.plumbline.yml': 'severity: { collision: block }\n' }), changes: withPlan(cleanPlan()) },
@@ -324,11 +330,11 @@ describe('every finding code is covered by a trigger and a near miss', () => {
 
   describe.each(Object.entries(cases))('%s', (code, { trigger, nearMiss }) => {
     it('raises it', async () => {
-      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...trigger.pr, ...(trigger.body ? { body: trigger.body } : {}) }, undefined, trigger.baseUnreadable);
+      const r = await review(trigger.files ?? baseFiles(), trigger.changes, { ...trigger.pr, ...(trigger.body ? { body: trigger.body } : {}) }, undefined, trigger.baseUnreadable, trigger.swapped);
       expect(r.findings.map((f) => f.code)).toContain(code);
     });
     it('does not raise it on the near miss', async () => {
-      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...nearMiss.pr, ...(nearMiss.body ? { body: nearMiss.body } : {}) }, undefined, nearMiss.baseUnreadable);
+      const r = await review(nearMiss.files ?? baseFiles(), nearMiss.changes, { ...nearMiss.pr, ...(nearMiss.body ? { body: nearMiss.body } : {}) }, undefined, nearMiss.baseUnreadable, nearMiss.swapped);
       expect(r.findings.map((f) => f.code)).not.toContain(code);
     });
   });

@@ -52,7 +52,7 @@ describe('introduced or already known', () => {
     });
     expect(r.findings.map((f) => [f.code, f.origin])).toEqual([['decisions-missing', 'known']]);
     const markdown = renderReviewMarkdown(r);
-    expect(markdown).toContain('Nothing new from this change. Already known before it: 1 finding.');
+    expect(markdown).toContain('Nothing new from this change. Already known before it: 1 blocking finding.');
     expect(markdown.split('<details>')[0]).toContain('#### Still blocking from before this change\n\n- ⛔ **decisions-missing**');
   });
 

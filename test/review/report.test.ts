@@ -27,8 +27,14 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => demo?.cleanup());
 
-/** SHAs differ from run to run; everything else must not. */
-const normalize = (text: string) => text.replace(/\b[0-9a-f]{40}\b/g, '<sha>').replace(/Compared [0-9a-f]{7}…[0-9a-f]{7}/, 'Compared <base>…<head>').replace(/for [0-9a-f]{7}\.\.\.[0-9a-f]{7}/, 'for <base>...<head>');
+/** SHAs differ from run to run; everything else must not. Base and head stay apart: a link to the base commit is not one to head. */
+const normalize = (text: string) =>
+  text
+    .replaceAll(review.base, '<base-sha>')
+    .replaceAll(review.head, '<head-sha>')
+    .replace(/\b[0-9a-f]{40}\b/g, '<sha>')
+    .replace(new RegExp(`\\b${review.base.slice(0, 7)}\\b`, 'g'), '<base>')
+    .replace(new RegExp(`\\b${review.head.slice(0, 7)}\\b`, 'g'), '<head>');
 
 describe('the demo review', () => {
   it('blocks on the widened guardrail of a running test, the missing decision rules and the removed exposure event', () => {
@@ -41,7 +47,7 @@ describe('the demo review', () => {
   });
 
   it('matches the golden Markdown comment', async () => {
-    const markdown = renderReviewMarkdown(review, { linkBase: `https://github.com/bramblecart/shop/blob/${review.head}` });
+    const markdown = renderReviewMarkdown(review, { repoUrl: 'https://github.com/bramblecart/shop' });
     await expect(normalize(markdown)).toMatchFileSnapshot('golden/demo-review.md');
   });
 

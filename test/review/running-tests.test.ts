@@ -64,7 +64,7 @@ describe('frozen plans', () => {
     const frozen = r.findings.find((f) => f.code === 'plan-frozen')!;
     expect(frozen).toMatchObject({ file: 'experiments/good.yaml', line: lineOf('alpha:') });
     expect(r.findings.find((f) => f.code === 'plan-end-moved')).toMatchObject({ line: lineOf('end:') });
-    expect(renderReviewMarkdown(r, { linkBase: 'https://github.com/o/r/blob/abc' })).toContain(`experiments/good.yaml#L${lineOf('alpha:')}`);
+    expect(renderReviewMarkdown(r, { repoUrl: 'https://github.com/o/r' })).toContain(`experiments/good.yaml#L${lineOf('alpha:')}`);
     const annotation = planAnnotations(r, { notices: [], warnings: [] }).find((a) => a.properties.title === 'Plumbline plan-frozen');
     expect(annotation?.properties).toMatchObject({ file: 'experiments/good.yaml', startLine: lineOf('alpha:') });
   });

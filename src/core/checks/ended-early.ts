@@ -23,7 +23,8 @@ const stillRead = (context: ReviewContext, key: string) => {
 function finding(before: RegistryEntry, after: RegistryEntry, keys: string[], where: FlagTouch, today: string): Raw {
   const flags = keys.map((k) => `\`${k}\``).join(', ');
   const end = after.window.end;
-  const base = { plan: after.id, file: where.file, line: where.line, dependents: [after.id] };
+  // A removed read: its line is the base commit's.
+  const base = { plan: after.id, file: where.file, line: where.line, side: 'base' as const, dependents: [after.id] };
   if (end !== undefined && end < today) {
     return {
       code: 'outcome-missing',

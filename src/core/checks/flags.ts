@@ -14,5 +14,7 @@ export const flagWithoutPlan: Check = ({ touches, registry, settings, invalidPla
       fix: `Write a plan for it (plumbline new ${t.key}), link one in the description, or list it under exempt-flags in the settings if it is a kill switch or an operational toggle.`,
       file: t.file,
       line: t.line,
+      // A removed use is a line of the base commit.
+      ...(t.side === 'removed' ? { side: 'base' as const } : {}),
     }));
 };

@@ -101,6 +101,7 @@ function deleted(before: RegistryEntry): Raw {
     plan: before.id,
     file: before.file,
     line: before.line,
+    side: 'base',
   };
 }
 

@@ -68,6 +68,7 @@ export const eventRemoved: Check = ({ removedEvents, events, registry, baseEntri
         fix: 'Keep logging the event, or agree with the owners to end or change those tests first.',
         file: where.file,
         line: where.line,
+        side: 'base',
         dependents: plans.map((p) => p.id),
       },
     ];

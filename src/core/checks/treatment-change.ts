@@ -62,6 +62,7 @@ function codeChange(entry: RegistryEntry, file: ChangedCode, patterns: RegExp[],
     plan: entry.id,
     file: atHead !== undefined ? file.path : file.basePath,
     line: atHead ?? atBase!,
+    ...(atHead === undefined ? { side: 'base' as const } : {}),
   };
 }
 
@@ -96,6 +97,7 @@ export const treatmentChanged: Check = (context) => {
         plan: entry.id,
         file: ramp.file,
         line: ramp.line,
+        ...(ramp.side === 'removed' ? { side: 'base' as const } : {}),
       });
     }
   }

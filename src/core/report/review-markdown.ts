@@ -3,7 +3,7 @@ import type { Severity } from '../review/finding.js';
 import { codeCell, codeSpan, inCell, linkTarget, safeCell, safeMessage, safeText, urlPath } from './markdown-safe.js';
 import { formatCount, countOf } from './numbers.js';
 import { coverageNotice } from './coverage-notice.js';
-import { checklistSummary } from './review-summary.js';
+import { AT_BASE, checklistSummary, countsSummary } from './review-summary.js';
 import { lengthSummary, renderSizingMarkdown } from './sizing.js';
 import { planChangeTable } from './plan-amendment.js';
 import { overrideLines, readoutSectionMarkdown } from './review-readout.js';
@@ -24,8 +24,11 @@ const encoder = new TextEncoder();
 export const measureBytes: Measure = (text) => encoder.encode(text).length;
 
 export interface MarkdownOptions {
-  /** Files link to `<linkBase>/<path>#L<line>`, e.g. https://github.com/o/r/blob/<sha>; undefined: plain text. */
-  linkBase?: string;
+  /**
+   * The repository's web address, e.g. https://github.com/o/r: files link to `<repoUrl>/blob/<commit>/<path>#L<line>`,
+   * GitHub's permanent link form, at the commit the line was read at (head, or base for removed lines); undefined: plain text.
+   */
+  repoUrl?: string;
   /** Where detail left out to fit is found in full, e.g. "the job summary". */
   fullReport?: string;
   /** What limits the size: "GitHub's comment size limit" unless said. */
@@ -40,25 +43,25 @@ const HEADLINE: Record<Verdict, string> = {
   'nothing-to-check': '✅ Plumbline: nothing to check',
   partial: '⚠️ Plumbline: partial review, nothing found in the files seen',
 };
-const NOUN: Record<Severity, [string, string]> = { block: ['blocking finding', 'blocking findings'], warn: ['warning', 'warnings'], note: ['note', 'notes'] };
-
-function countsText(findings: readonly ReviewFinding[]): string {
-  return (['block', 'warn', 'note'] as const)
-    .map((s) => [s, findings.filter((f) => f.severity === s).length] as const)
-    .filter(([, n]) => n > 0)
-    .map(([s, n]) => countOf(n, ...NOUN[s]))
-    .join(', ');
+/** Where a file's line is read: the commit, and whether that is the base (said beside the link). */
+interface At {
+  commit: string;
+  base: boolean;
 }
 
-function where(path: string | undefined, line: number | undefined, options: MarkdownOptions): string {
+const atHead = (review: Review): At => ({ commit: review.head, base: false });
+const atSide = (review: Review, side: 'base' | 'head' | undefined): At => (side === 'base' ? { commit: review.base, base: true } : atHead(review));
+
+function where(path: string | undefined, line: number | undefined, at: At, options: MarkdownOptions): string {
   if (!path) return '';
   const label = codeSpan(`${path}${line ? `:${line}` : ''}`);
-  return options.linkBase ? `[${label}](${linkTarget(`${options.linkBase}/${urlPath(path)}#L${line ?? 1}`)})` : label;
+  const linked = options.repoUrl ? `[${label}](${linkTarget(`${options.repoUrl}/blob/${at.commit}/${urlPath(path)}#L${line ?? 1}`)})` : label;
+  return at.base ? `${linked} (${AT_BASE})` : linked;
 }
 
-function findingLine(f: ReviewFinding, options: MarkdownOptions): string {
+function findingLine(f: ReviewFinding, review: Review, options: MarkdownOptions): string {
   const plan = f.plan ? ` · ${codeSpan(f.plan)}` : '';
-  const at = f.file ? ` · ${where(f.file, f.line, options)}` : '';
+  const at = f.file ? ` · ${where(f.file, f.line, atSide(review, f.side), options)}` : '';
   return `- ${ICON[f.severity]} **${f.code}**${plan}${at}: ${safeMessage(f.message)} _Fix:_ ${safeMessage(f.fix)}${planChangeTable(f)}`;
 }
 
@@ -71,10 +74,9 @@ function headline(review: Review): string {
 
 /** The second line: what this change introduced, what already held before it, and the commits compared. */
 function countsLine(review: Review): string {
-  const introduced = review.findings.filter((f) => f.origin === 'introduced');
-  const known = review.findings.length - introduced.length;
-  const parts = [introduced.length ? `This change: ${countsText(introduced)}.` : review.findings.length ? 'Nothing new from this change.' : ''];
-  if (known) parts.push(`Already known before it: ${countOf(known, 'finding')}.`);
+  const { introduced, known } = countsSummary(review);
+  const parts = [introduced ? `This change: ${introduced}.` : known ? 'Nothing new from this change.' : ''];
+  if (known) parts.push(`Already known before it: ${known}.`);
   parts.push(`<sub>Compared ${review.base.slice(0, 7)}…${review.head.slice(0, 7)}</sub>`);
   return parts.filter(Boolean).join(' ');
 }
@@ -92,13 +94,13 @@ interface Detail {
   flagsShown: number;
 }
 
-function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail, withTables: boolean): string[] {
+function planSection(plan: PlanReview, review: Review, options: MarkdownOptions, detail: Detail, withTables: boolean): string[] {
   const checklist = checklistSummary(plan.checklist);
   const length = lengthSummary(plan.sizing);
   const found = plan.events.filter((e) => e.location).length;
   const lines = [
     `#### Plan ${codeSpan(plan.id)}: ${safeText(plan.title)}`,
-    `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, options)} · linked because: ${plan.reasons.join(', ')}`,
+    `${safeText(plan.state)} · ${plan.owners.map(safeText).join(', ')} · ${where(plan.file, plan.line, atHead(review), options)} · linked because: ${plan.reasons.join(', ')}`,
     `**${checklist.count}.**${checklist.failing.length ? ` Not yet: ${checklist.failing.map((l) => safeText(l)).join('; ')}.` : ''}`,
   ];
   const readout = readoutSectionMarkdown(plan);
@@ -118,7 +120,7 @@ function planSection(plan: PlanReview, options: MarkdownOptions, detail: Detail,
     '| --- | --- | --- |',
     ...plan.events.map(
       (e) =>
-        `| ${codeCell(e.event)} | ${safeCell(e.roles.join(', '))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, options))}${e.via === 'literal' ? ' (as a string, not in a logging call)' : ''}` : '**missing**'} |`,
+        `| ${codeCell(e.event)} | ${safeCell(e.roles.join(', '))} | ${e.location ? `${inCell(where(e.location.file, e.location.line, atHead(review), options))}${e.via === 'literal' ? ' (as a string, not in a logging call)' : ''}` : '**missing**'} |`,
     ),
     '',
     '</details>',
@@ -142,10 +144,10 @@ function findingsSection(review: Review, options: MarkdownOptions, shown: number
   const knownBlocking = listed.filter((f) => f.origin === 'known' && f.severity === 'block');
   const knownRest = listed.filter((f) => f.origin === 'known' && f.severity !== 'block');
   const out: string[] = [];
-  if (introduced.length) out.push('#### Introduced by this change', '', ...introduced.map((f) => findingLine(f, options)), '');
-  if (knownBlocking.length) out.push('#### Still blocking from before this change', '', ...knownBlocking.map((f) => findingLine(f, options)), '');
+  if (introduced.length) out.push('#### Introduced by this change', '', ...introduced.map((f) => findingLine(f, review, options)), '');
+  if (knownBlocking.length) out.push('#### Still blocking from before this change', '', ...knownBlocking.map((f) => findingLine(f, review, options)), '');
   if (knownRest.length) {
-    out.push(`<details><summary>Already known: ${countOf(knownRest.length, 'finding')} that held before this change</summary>`, '', ...knownRest.map((f) => findingLine(f, options)), '', '</details>', '');
+    out.push(`<details><summary>Already known: ${countOf(knownRest.length, 'finding')} that held before this change</summary>`, '', ...knownRest.map((f) => findingLine(f, review, options)), '', '</details>', '');
   }
   return out;
 }
@@ -160,7 +162,7 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
     return out.join('\n');
   }
   out.push(...findingsSection(review, options, detail.findingsShown));
-  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, options, detail, i < detail.tablesFor), ''));
+  review.plans.slice(0, detail.plansShown).forEach((plan, i) => out.push(...planSection(plan, review, options, detail, i < detail.tablesFor), ''));
   if (review.nudge) {
     out.push(
       '#### A small check test for this fix?',
@@ -201,9 +203,10 @@ function render(review: Review, options: MarkdownOptions, detail: Detail, omitte
       '',
       '| flag | where | how | plans |',
       '| --- | --- | --- | --- |',
+      // A removed use is a line of the base commit; "(removed, at the base)" says both at once.
       ...shown.map(
         (f) =>
-          `| ${codeCell(f.key)} | ${inCell(where(f.file, f.line, options))} (${f.side}) | ${safeCell(f.via)} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeCell).join(', ') : '**none**'} |`,
+          `| ${codeCell(f.key)} | ${f.side === 'removed' ? `${inCell(where(f.file, f.line, { commit: review.base, base: false }, options))} (removed, ${AT_BASE})` : `${inCell(where(f.file, f.line, atHead(review), options))} (added)`} | ${safeCell(f.via)} | ${f.exempt ? 'exempt' : f.plans.length ? f.plans.map(codeCell).join(', ') : '**none**'} |`,
       ),
       '',
       '</details>',

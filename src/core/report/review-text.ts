@@ -1,7 +1,7 @@
 import type { Review } from '../review/build-review.js';
 import type { Severity } from '../review/finding.js';
-import { formatCount, countOf } from './numbers.js';
-import { checklistSummary } from './review-summary.js';
+import { formatCount } from './numbers.js';
+import { AT_BASE, checklistSummary, countsSummary } from './review-summary.js';
 import { lengthSummary } from './sizing.js';
 import { planChangeLines } from './plan-amendment.js';
 import { terminalSafe, terminalStyle } from './terminal-style.js';
@@ -21,9 +21,9 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
     'nothing-to-check': style.green('nothing to check'),
     partial: style.yellow('partial review, nothing found in the files seen'),
   }[review.verdict];
-  const known = review.findings.filter((f) => f.origin === 'known').length;
-  const counts = `${formatCount(review.counts.block)} blocking, ${countOf(review.counts.warn, 'warning')}, ${countOf(review.counts.note, 'note')}${known ? `; ${formatCount(known)} already held before this change` : ''}`;
-  out.push(`${style.bold('Plumbline')}: ${verdict} (${counts}) for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
+  const { introduced, known } = countsSummary(review);
+  const counts = introduced || known ? ` (this change: ${introduced || 'nothing new'}${known ? `; already known before it: ${known}` : ''})` : '';
+  out.push(`${style.bold('Plumbline')}: ${verdict}${counts} for ${review.base.slice(0, 7)}...${review.head.slice(0, 7)}`);
   const readoutStyle: ReadoutStyle = { escape: terminalSafe, strong: style.bold, code: terminalSafe };
   out.push(...overrideLines(review.plans, readoutStyle));
   if (review.verdict === 'nothing-to-check') {
@@ -31,7 +31,8 @@ export function renderReviewText(review: Review, options: { color: boolean }): s
     return out.join('\n');
   }
   for (const f of review.findings) {
-    const at = f.file ? `${f.file}${f.line ? `:${f.line}` : ''}: ` : '';
+    // A line of the base commit (a removed line, a deleted plan) is not that line of the working tree.
+    const at = f.file ? `${terminalSafe(f.file)}${f.line ? `:${f.line}` : ''}${f.side === 'base' ? ` (${AT_BASE} ${review.base.slice(0, 7)})` : ''}: ` : '';
     out.push(`${at}${paint(f.severity, LABEL[f.severity])} ${f.code}${f.plan ? ` [${terminalSafe(f.plan)}]` : ''}${f.origin === 'known' ? style.dim(' (already known)') : ''}: ${terminalSafe(f.message)}`);
     out.push(`    fix: ${terminalSafe(f.fix)}`, ...planChangeLines(f, terminalSafe));
   }

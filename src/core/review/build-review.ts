@@ -80,12 +80,33 @@ export interface ReviewCollision {
  */
 export type FindingOrigin = 'introduced' | 'known';
 
+/** A finding as reviewed: its origin, and for a located one the commit its line is read at (`side`, always set). */
 export type ReviewFinding = Finding & { origin: FindingOrigin };
+
+/**
+ * How many findings: `block`, `warn` and `note` count the findings this change introduces, by
+ * severity; `known` counts those that already held at the base commit. The verdict reads every
+ * finding: a known blocking one still blocks.
+ */
+export interface ReviewCounts {
+  block: number;
+  warn: number;
+  note: number;
+  known: number;
+}
+
+/** The two ends of the change, and how the entry point named them when head turned out to be an ancestor of base. */
+export interface ChangeEnds {
+  base: string;
+  head: string;
+  /** Set when head is an ancestor of the commit named as base and differs from it: how each was named (e.g. `--base main`). */
+  swapped?: { base: string; head: string };
+}
 
 /** The review of one change: what the core says, for the entry points to show. */
 export interface Review {
   verdict: Verdict;
-  counts: Record<Severity, number>;
+  counts: ReviewCounts;
   base: string;
   head: string;
   /** Blocking first, then warnings, then notes; within each, introduced before known. */
@@ -163,6 +184,28 @@ function planReadout(linked: ReviewContext['linked'][number]): Pick<PlanReview, 
   };
 }
 
+/** The counts every format shows: this change's findings by severity, and how many already held before it. */
+export function countFindings(findings: readonly ReviewFinding[]): ReviewCounts {
+  const counts: ReviewCounts = { block: 0, warn: 0, note: 0, known: 0 };
+  for (const f of findings) {
+    if (f.origin === 'known') counts.known++;
+    else counts[f.severity]++;
+  }
+  return counts;
+}
+
+/**
+ * Head is an ancestor of base: the change from base to head is empty, which would read as a pass.
+ * Said as a finding, so every format and the JSON report carry it.
+ */
+function refsSwapped(named: { base: string; head: string }): Omit<Finding, 'severity'> {
+  return {
+    code: 'refs-swapped',
+    message: `${named.head} is an ancestor of ${named.base}: the refs look swapped; the change from base to head is empty, so nothing was reviewed.`,
+    fix: 'Name the commit the change starts from as base and the commit with the change as head; if the change is already merged into the base, there is nothing left to review.',
+  };
+}
+
 /** Plans the description names come first: they are what the author says the change is about. */
 function byMention(a: PlanReview, b: PlanReview): number {
   const named = (p: PlanReview) => (p.reasons.includes('named in the description') ? 0 : 1);
@@ -173,8 +216,9 @@ function byMention(a: PlanReview, b: PlanReview): number {
  * Reviews a change. `base`, when given, is the same review context built from the base commit's
  * plans and registry; findings that already held there are marked `known`.
  */
-export function buildReview(context: ReviewContext, change: { base: string; head: string }, base?: ReviewContext): Review {
+export function buildReview(context: ReviewContext, change: ChangeEnds, base?: ReviewContext): Review {
   const raw = CHECKS.flatMap((check) => check(context));
+  if (change.swapped) raw.push(refsSwapped(change.swapped));
   const codes = Object.keys(FINDING_CODES);
   for (const code of Object.keys(context.settings.severity)) {
     if (codes.includes(code)) continue;
@@ -190,13 +234,13 @@ export function buildReview(context: ReviewContext, change: { base: string; head
   for (const finding of raw) {
     const severity = severityFor(finding.code, context.settings.severity);
     const origin: FindingOrigin = finding.plan !== undefined && known.has(findingKey(finding)) ? 'known' : 'introduced';
-    if (severity !== 'off') findings.push({ ...finding, severity, origin });
+    const side = finding.file !== undefined ? { side: finding.side ?? ('head' as const) } : {};
+    if (severity !== 'off') findings.push({ ...finding, ...side, severity, origin });
   }
   const originOrder = (f: ReviewFinding) => (f.origin === 'introduced' ? 0 : 1);
   findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity] || originOrder(a) - originOrder(b));
 
-  const counts = { block: 0, warn: 0, note: 0 };
-  for (const f of findings) counts[f.severity]++;
+  const counts = countFindings(findings);
 
   // Grouped once: collisions make findings grow with the square of the plans, so a scan per plan would too.
   const codesByPlan = new Map<string, Set<string>>();
@@ -246,7 +290,7 @@ export function buildReview(context: ReviewContext, change: { base: string; head
   }));
 
   const nothing = context.touches.length === 0 && context.linked.length === 0 && context.invalidPlanFiles.length === 0 && findings.length === 0;
-  const verdict: Verdict = nothing ? 'nothing-to-check' : counts.block ? 'blocked' : counts.warn ? 'warnings' : 'clear';
+  const verdict: Verdict = nothing ? 'nothing-to-check' : findings.some((f) => f.severity === 'block') ? 'blocked' : findings.some((f) => f.severity === 'warn') ? 'warnings' : 'clear';
   const nudge = findings.some((f) => f.code === 'bug-fix-unmeasured') ? bugFixNudge(context) : undefined;
   return { verdict, counts, base: change.base, head: change.head, findings, plans, flags, collisions, ...(nudge ? { nudge } : {}) };
 }

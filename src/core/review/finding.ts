@@ -15,6 +15,11 @@ export interface Finding {
   plan?: string;
   file?: string;
   line?: number;
+  /**
+   * Which commit `file` and `line` are read at: `base` for a place the change removes (a deleted line, a
+   * deleted plan), where the same line number at head is something else; `head` (the default) otherwise.
+   */
+  side?: 'base' | 'head';
   /** Frozen-plan findings: what changed in a started plan, field by field (before and after as written). */
   changes?: FieldChange[];
   /** Frozen-plan findings: the amendment the change adds, when it adds one. */
@@ -73,6 +78,7 @@ export const FINDING_CODES = {
   'outcome-missing': { severity: 'note', about: 'the change removes the flag of a test past its planned end whose outcome is not recorded' },
   'exposure-one-arm': { severity: 'warn', about: 'the exposure event is logged inside a branch on the flag or after an early return on it, so not in every arm' },
   'treatment-changed': { severity: 'warn', about: 'code around a started test’s flag read, or its flag definition, changes mid-test' },
+  'refs-swapped': { severity: 'warn', about: 'head is an ancestor of base and differs from it: the refs look swapped (or the change is already in the base), so the change from base to head is empty' },
   'bug-fix-unmeasured': { severity: 'note', about: 'a bug fix changes product code without a flag or a check test' },
 } as const satisfies Record<string, { severity: Severity; about: string }>;
 

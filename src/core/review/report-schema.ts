@@ -37,7 +37,18 @@ const sizeResult = z.union([
       triggered: analysisSize.optional(),
       diluted: analysisSize.optional(),
       headline: analysisSize.optional(),
-      atPlannedEnd: z.object({ days: z.number().int(), totalUnits: z.number(), power: z.number().optional(), detectable: change.optional() }).optional(),
+      atPlannedEnd: z
+        .object({
+          days: z.number().int(),
+          totalUnits: z.number(),
+          power: z.number().optional(),
+          /** Why there is no power at the planned end (too few units by then). */
+          noPower: z.object({ reason: z.string() }).optional(),
+          detectable: change.optional(),
+          /** Why no change within the metric's range is detectable by then. */
+          noneDetectable: z.object({ reason: z.string() }).optional(),
+        })
+        .optional(),
       powerByDay: z.array(z.object({ day: z.number().int(), power: z.number() })).optional(),
       traffic: z
         .union([
@@ -45,7 +56,9 @@ const sizeResult = z.union([
           z.object({ kind: z.literal('unique'), points: z.array(z.object({ days: z.number().int(), units: z.number() })), exponent: z.number() }),
         ])
         .optional(),
-      feasibility: z.object({ feasible: z.boolean(), longestDays: z.number().int(), reason: z.string().optional(), detectableAtLongest: change.optional() }).optional(),
+      feasibility: z
+        .object({ feasible: z.boolean(), longestDays: z.number().int(), reason: z.string().optional(), detectableAtLongest: change.optional(), noneDetectableAtLongest: z.object({ reason: z.string() }).optional() })
+        .optional(),
       squareRootAllocation: z.object({ controlWeight: z.number(), treatmentWeight: z.number(), totalUnits: z.number().int(), unitsSaved: z.number().int() }).optional(),
       notes: z.array(z.string()),
     }),
@@ -57,7 +70,14 @@ export const reviewReportSchema = z
   .object({
     format: z.literal('plumbline.review/1'),
     verdict: z.enum(['blocked', 'warnings', 'clear', 'nothing-to-check', 'partial']),
-    counts: z.object({ block: z.number().int(), warn: z.number().int(), note: z.number().int() }),
+    counts: z
+      .object({
+        block: z.number().int().describe('Blocking findings this change introduces.'),
+        warn: z.number().int().describe('Warnings this change introduces.'),
+        note: z.number().int().describe('Notes this change introduces.'),
+        known: z.number().int().describe('Findings of any severity that already held at the base commit (origin: known).'),
+      })
+      .describe('The counts the text and Markdown reports show: findings this change introduces, by severity, and how many were already known before it. The verdict reads every finding: a known blocking finding still blocks.'),
     base: z.string().regex(/^[0-9a-f]{40,64}$/),
     head: z.string().regex(/^[0-9a-f]{40,64}$/),
     findings: z.array(
@@ -69,6 +89,10 @@ export const reviewReportSchema = z
         plan: z.string().optional(),
         file: z.string().optional(),
         line: z.number().int().positive().optional(),
+        side: z
+          .enum(['base', 'head'])
+          .optional()
+          .describe('Set with file: the commit file and line are read at. base: a place the change removes (a deleted line, a deleted plan), where the same line at head is something else; head otherwise.'),
         origin: z
           .enum(['introduced', 'known'])
           .describe('introduced: this change brought it; known: the same finding already held for the plan at the base commit'),
@@ -96,6 +120,8 @@ export const reviewReportSchema = z
           dailyUnits: z.number().optional(),
           uniqueUnits: z.array(z.object({ days: z.number().int(), units: z.number() })).optional(),
           family: z.object({ primaryPower: z.number(), noFalseAlarm: z.number(), allGuardrailsClear: z.number() }).optional(),
+          /** Why the family's power is left out (a metric has no power by the planned end). */
+          familyOmitted: z.object({ reason: z.string() }).optional(),
           metrics: z.array(
             z.object({
               metric: z.string(),

@@ -18,7 +18,7 @@ if (args.length === 1 && (args[0] === "--version" || args[0] === "-V")) {
   process.stdout.write(canned);
 } else {
   nodeModule.enableCompileCache?.();
-  const { runCli } = await import("./chunks/main-DZPBQHT6.js");
+  const { runCli } = await import("./chunks/main-FFWCEIBT.js");
   process.exitCode = await runCli(process.argv);
 }
 function cannedHelp(words) {

@@ -7,38 +7,38 @@ import {
 } from "./chunks/chunk-5AUULDGE.js";
 import {
   reviewJson
-} from "./chunks/chunk-KD7QERVL.js";
+} from "./chunks/chunk-JNKJNCKE.js";
 import {
   DIGEST_JSON_FORMAT,
   DIGEST_MARKER,
   mergeDigestBody,
   renderDigestMarkdown
-} from "./chunks/chunk-TVUPKEIX.js";
+} from "./chunks/chunk-N3YY4SXJ.js";
 import {
   REVIEW_MARKER,
   renderReviewMarkdown,
   renderReviewSummary
-} from "./chunks/chunk-HKEMS2HW.js";
+} from "./chunks/chunk-J4PRLTV7.js";
 import "./chunks/chunk-4JVBEDJS.js";
-import "./chunks/chunk-24WLVYT2.js";
+import "./chunks/chunk-UDHHIPK7.js";
 import "./chunks/chunk-BNTHVXFQ.js";
 import "./chunks/chunk-7H6MHGDI.js";
 import {
   reviewChange
-} from "./chunks/chunk-SWZ4PJ34.js";
-import "./chunks/chunk-QK2G46OH.js";
+} from "./chunks/chunk-QPV2XDIR.js";
+import "./chunks/chunk-HGOBTQHY.js";
 import "./chunks/chunk-GIF3ITND.js";
 import "./chunks/chunk-TH3NNBTK.js";
 import {
   digestRepository
-} from "./chunks/chunk-KLS4XMBT.js";
+} from "./chunks/chunk-KWOGD6NP.js";
 import "./chunks/chunk-XZ7PS274.js";
 import "./chunks/chunk-G6K6KKMR.js";
-import "./chunks/chunk-RZBCMM5S.js";
+import "./chunks/chunk-ZWIGW2MY.js";
 import "./chunks/chunk-V65C5FSR.js";
 import "./chunks/chunk-NZ6ZJYU3.js";
-import "./chunks/chunk-XF73GKZF.js";
-import "./chunks/chunk-OPKTFOOT.js";
+import "./chunks/chunk-TLWZYCJO.js";
+import "./chunks/chunk-JLYO35IC.js";
 import "./chunks/chunk-6TRXKJK6.js";
 import "./chunks/chunk-B52SKDPA.js";
 import "./chunks/chunk-J3CQQVSX.js";

@@ -123,6 +123,11 @@ describe('size at very low traffic', () => {
     expect(out).toContain('In the longest window (56 days), no change within 0–100% is detectable with fewer than 1 unit (0.56 expected).');
     expect(out).not.toMatch(/\b0 new eligible|got 0|control units are needed/);
     expect(size({ dailyUnits: 0.1 }, 'text').stdout).toContain('0.1 new eligible units a day');
+    // Too few units for power and for a detectable change: one note says both, the unit count once.
+    expect(out).toContain('order-rate: By the planned end (28 days): no power, and no change within 0–100% is detectable with fewer than 1 unit (0.28 expected).');
+    expect(out).not.toContain('order-rate: By the planned end (28 days) no power can be computed');
+    const json = JSON.parse(size({ dailyUnits: 0.01 }, 'json').stdout) as { metrics: Entry[] };
+    expect(json.metrics[0]!.result.value.atPlannedEnd).toMatchObject({ noPower: { tooFewUnits: true } });
   });
 
   it('leaves the family power out with a reason when the primary has no power at the planned end, and never puts the target in its place', () => {

@@ -134,7 +134,7 @@ function plannedEndNotes(entry: MetricSizingEntry, sizing: MetricSizing): string
   if (!end) return [];
   const by = `By the planned end (${countOf(end.days, 'day')})`;
   const out: string[] = [];
-  if (end.noPower && end.noneDetectable && /too few to analyse$/.test(end.noPower.reason)) out.push(`${by}: no power, and ${end.noneDetectable.reason}.`);
+  if (end.noPower?.tooFewUnits && end.noneDetectable) out.push(`${by}: no power, and ${end.noneDetectable.reason}.`);
   else {
     if (end.noPower) out.push(`${by} no power can be computed: ${end.noPower.reason}.`);
     if (end.noneDetectable) out.push(`${by}: ${end.noneDetectable.reason}.`);

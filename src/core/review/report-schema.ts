@@ -43,7 +43,7 @@ const sizeResult = z.union([
           totalUnits: z.number(),
           power: z.number().optional(),
           /** Why there is no power at the planned end (too few units by then). */
-          noPower: z.object({ reason: z.string() }).optional(),
+          noPower: z.object({ reason: z.string(), tooFewUnits: z.literal(true).optional() }).optional(),
           detectable: change.optional(),
           /** Why no change within the metric's range is detectable by then. */
           noneDetectable: z.object({ reason: z.string() }).optional(),

@@ -115,7 +115,7 @@ export interface MetricSizing {
     totalUnits: number;
     power?: number;
     /** Why there is no power, when an effect was given but the units by then are too few to compute one. */
-    noPower?: { reason: string };
+    noPower?: { reason: string; tooFewUnits?: true };
     detectable?: { absolute: number; relative: number; to: number };
     /** Why there is no detectable effect: none within the metric's range, or too few units. */
     noneDetectable?: { reason: string };
@@ -389,7 +389,7 @@ export function sizeMetric(request: SizingRequest): StatsResult<MetricSizing> {
     if (effect) {
       const p = totalUnits > 0 ? powerAt(totalUnits, Math.abs(effect.absolute)) : undefined;
       if (p?.ok) atPlannedEnd.power = p.value;
-      else atPlannedEnd.noPower = { reason: p && p.error.input !== 'n' ? p.error.message : `${enrolledText(expected)} by then, too few to analyse` };
+      else atPlannedEnd.noPower = p && p.error.input !== 'n' ? { reason: p.error.message } : { reason: `${enrolledText(expected)} by then, too few to analyse`, tooFewUnits: true };
     }
     const detectable = detectableAt(expected);
     if (detectable.ok) atPlannedEnd.detectable = detectable.value;
